@@ -1,0 +1,95 @@
+// Package solver finds a root of a square nonlinear system F(x) = 0 by a
+// globalised Newton-Raphson method. It knows nothing of plants: a caller
+// hands it a Problem (a residual function, optionally a Jacobian, scales,
+// a sparsity pattern, bounds and names) and gets back a Result with the
+// root, a Status and counters.
+//
+// # Method
+//
+// Each iteration forms the Jacobian J at the current point x, factorises
+// the scaled Jacobian J̃ = D_F⁻¹·J·D_X (D_X = diag(XScale), D_F =
+// diag(FScale)) through a Factorizer (dense LU from gonum by default) and
+// solves J̃·s = −F̃ for the scaled Newton step s, where F̃ = D_F⁻¹·F(x).
+// The unknowns move by D_X·α·s after a line search on the merit function
+// f(x) = ½‖F̃(x)‖².
+//
+// # Scaling
+//
+// Unknowns and residuals of a plant differ by many orders of magnitude
+// (pressures near 1e6 Pa, flows near 1 kg/s). The solver works on the
+// scaled unknowns x_j/XScale_j and the scaled residuals F_i/FScale_i
+// throughout: in the Newton step, the merit function, the condition check,
+// the convergence test and the finite-difference step.
+//
+// # Convergence
+//
+// A solve has converged (Status Converged) when the infinity norm of the
+// scaled residual, max_i |F_i(x)|/FScale_i, is at most Settings.FTol
+// (default 1e-10). This is tested at the start point and after every
+// accepted step; a start point that already satisfies it takes zero
+// iterations. A small step is never taken as convergence: if an accepted
+// step has max_j |Δx_j|/max(|x_j|, XScale_j) ≤ Settings.XTol (default
+// 1e-14) while the residual test fails, the solve stops with Stagnated.
+//
+// # Line search
+//
+// The step length α starts at 1 (the full Newton step) and is accepted
+// when f(x(α)) ≤ f(x) + c·∇f̃ᵀ(x(α) − x)/XScale (Armijo, c =
+// Settings.Armijo, default 1e-4). Otherwise α is reduced by minimising the
+// quadratic through f(x), the initial slope and f(x(α)), and from the
+// second reduction the cubic through the last two trial values (Dennis and
+// Schnabel, Numerical Methods for Unconstrained Optimization and Nonlinear
+// Equations, 1983, A6.3.1), safeguarded to [0.1α, 0.5α]. A residual error
+// wrapping ErrDomain at a trial point halves α instead of failing.
+//
+// # Bounds
+//
+// Bounds are handled by projection: the trial point is
+// x(α) = P(x + α·D_X·s), where P clips each unknown to [Lower_j, Upper_j].
+// An unknown may land on its bound and leave it again at a later
+// iteration, so a flow driven to zero does not stall the solve. The Armijo
+// test uses the actual projected displacement. If projection turns the
+// Newton step into an ascent direction of f, the search uses the projected
+// Cauchy step instead (steepest descent of f, scaled to minimise the linear
+// model); if that also fails to descend, the solve stops with
+// LineSearchFailed and names the unknowns held at a bound. A start point
+// outside the bounds is an error (InvalidStart), never silently clipped.
+//
+// # Jacobian
+//
+// An analytic Jacobian is used if the Problem gives one. Otherwise forward
+// differences with a step per unknown h_j = √ε·max(|x_j|, XScale_j), signed
+// like x_j and turned round when x_j + h_j would leave the box. With a
+// Pattern, the columns are grouped by a greedy (largest-first) colouring of
+// the column intersection graph (Curtis, Powell and Reid, J. Inst. Maths
+// Applics 13, 1974): columns that share no equation are perturbed together,
+// so a banded or sparse Jacobian costs a handful of residual evaluations
+// (Result.Colors). The pattern must contain every nonzero of the Jacobian.
+//
+// # Structural diagnosis
+//
+// When a Problem has a Pattern, New runs Diagnose first (unless
+// Settings.SkipDiagnosis): a maximum matching of equations to unknowns
+// (Hopcroft and Karp 1973) and the Dulmage–Mendelsohn coarse decomposition
+// into over-determined, square and under-determined parts. A structurally
+// singular system is reported as a *StructureError naming the equations
+// and unknowns of each part.
+//
+// # Singular Jacobian
+//
+// When the LU fails or its condition estimate exceeds Settings.MaxCondition
+// (default 1e14), the solve stops with SingularJacobian and a
+// *SingularError that names the unknowns and equations involved: zero
+// columns and rows of the scaled Jacobian, and the unknowns and equations
+// that carry the singular vectors of its smallest singular values.
+//
+// # Errors and allocation
+//
+// NaN or Inf in a residual or Jacobian entry stops the solve with a
+// *NumberError naming the equation (and the unknown). An error returned by
+// Residual is returned wrapped. The context is checked every iteration.
+// Wrong slice lengths are programmer mistakes and panic with a "solver: "
+// prefix. A Solver made by New reuses all its storage, including its
+// Result, so repeated solves (the hours of a voyage, warm-started from the
+// previous answer) allocate nothing.
+package solver

@@ -1,0 +1,239 @@
+package solver
+
+import (
+	"math"
+	"sort"
+
+	"gonum.org/v1/gonum/mat"
+)
+
+// sqrtEps is the relative finite-difference step, √ε for double precision.
+var sqrtEps = math.Sqrt(0x1p-52)
+
+// coloring groups the columns of a sparse Jacobian so that no two columns
+// in a group share a row (Curtis, Powell and Reid 1974). colRows[j] lists
+// the rows whose pattern contains column j.
+type coloring struct {
+	groups  [][]int // groups[c] lists the columns of colour c
+	colRows [][]int
+}
+
+// colorColumns colours the column intersection graph of pattern (n
+// columns) greedily, taking columns in order of decreasing degree
+// (largest first, Welsh and Powell 1967) and giving each the smallest colour
+// none of its neighbours has.
+func colorColumns(pattern [][]int, n int) *coloring {
+	// Rows of each column, without duplicates.
+	colRows := make([][]int, n)
+	for i, row := range pattern {
+		for _, j := range row {
+			if k := len(colRows[j]); k > 0 && colRows[j][k-1] == i {
+				continue // duplicate entry in row i
+			}
+			colRows[j] = append(colRows[j], i)
+		}
+	}
+	// Degree of each column in the intersection graph.
+	stamp := make([]int, n)
+	for j := range stamp {
+		stamp[j] = -1
+	}
+	degree := make([]int, n)
+	for j := 0; j < n; j++ {
+		stamp[j] = j
+		for _, i := range colRows[j] {
+			for _, k := range pattern[i] {
+				if stamp[k] != j {
+					stamp[k] = j
+					degree[j]++
+				}
+			}
+		}
+	}
+	order := make([]int, n)
+	for j := range order {
+		order[j] = j
+	}
+	sort.SliceStable(order, func(a, b int) bool { return degree[order[a]] > degree[order[b]] })
+
+	color := make([]int, n)
+	for j := range color {
+		color[j] = -1
+	}
+	forbidden := make([]int, n+1) // forbidden[c] == j+1 when colour c is taken by a neighbour of j
+	ncolors := 0
+	for _, j := range order {
+		for _, i := range colRows[j] {
+			for _, k := range pattern[i] {
+				if k != j && color[k] >= 0 {
+					forbidden[color[k]] = j + 1
+				}
+			}
+		}
+		c := 0
+		for forbidden[c] == j+1 {
+			c++
+		}
+		color[j] = c
+		if c+1 > ncolors {
+			ncolors = c + 1
+		}
+	}
+	groups := make([][]int, ncolors)
+	for j := 0; j < n; j++ {
+		groups[color[j]] = append(groups[color[j]], j)
+	}
+	return &coloring{groups: groups, colRows: colRows}
+}
+
+// fdStep returns the forward-difference step for unknown j at x:
+// √ε·max(|x_j|, XScale_j), signed like x_j, turned round if it would leave
+// the box, and rounded so that x_j+h is exactly representable.
+func (s *Solver) fdStep(j int, x []float64) float64 {
+	xj := x[j]
+	h := sqrtEps * math.Max(math.Abs(xj), s.xs[j])
+	if xj < 0 {
+		h = -h
+	}
+	lo, hi := s.lo[j], s.hi[j]
+	if t := xj + h; t > hi || t < lo {
+		h = -h
+		if t := xj + h; t > hi || t < lo {
+			// The box is narrower than the step: use half the larger room.
+			if hi-xj >= xj-lo {
+				h = (hi - xj) / 2
+			} else {
+				h = -(xj - lo) / 2
+			}
+		}
+	}
+	t := xj + h
+	return t - xj
+}
+
+// fdJacobian fills s.jac with the scaled forward-difference Jacobian at x,
+// whose scaled residual is r. It uses s.xt and s.rt as work space.
+func (s *Solver) fdJacobian(x, r []float64, it int) error {
+	n := s.n
+	raw := s.jac.RawMatrix()
+	copy(s.xt, x)
+	if s.color == nil {
+		for j := 0; j < n; j++ {
+			h := s.fdStep(j, x)
+			s.xt[j] = x[j] + h
+			if err := s.residual(s.rt, s.xt, it, false); err != nil {
+				return err
+			}
+			s.xt[j] = x[j]
+			f := s.xs[j] / h
+			for i := 0; i < n; i++ {
+				raw.Data[i*raw.Stride+j] = (s.rt[i] - r[i]) * f
+			}
+		}
+		return nil
+	}
+	for i := 0; i < n; i++ {
+		row := raw.Data[i*raw.Stride : i*raw.Stride+n]
+		for j := range row {
+			row[j] = 0
+		}
+	}
+	for _, group := range s.color.groups {
+		for _, j := range group {
+			h := s.fdStep(j, x)
+			s.h[j] = h
+			s.xt[j] = x[j] + h
+		}
+		if err := s.residual(s.rt, s.xt, it, false); err != nil {
+			return err
+		}
+		for _, j := range group {
+			s.xt[j] = x[j]
+			f := s.xs[j] / s.h[j]
+			for _, i := range s.color.colRows[j] {
+				raw.Data[i*raw.Stride+j] = (s.rt[i] - r[i]) * f
+			}
+		}
+	}
+	return nil
+}
+
+// analyticJacobian calls Problem.Jacobian and scales the result in place:
+// J̃_ij = J_ij·XScale_j/FScale_i.
+func (s *Solver) analyticJacobian(x []float64, it int) error {
+	s.jac.Zero()
+	if err := s.p.Jacobian(s.jac, x); err != nil {
+		return &statusError{status: ResidualFailed, msg: "solver: Jacobian at iteration " + itoa(it), err: err}
+	}
+	raw := s.jac.RawMatrix()
+	for i := 0; i < s.n; i++ {
+		row := raw.Data[i*raw.Stride : i*raw.Stride+s.n]
+		fi := 1 / s.fs[i]
+		for j, v := range row {
+			if math.IsNaN(v) || math.IsInf(v, 0) {
+				return &NumberError{Equation: s.p.eqName(i), Unknown: s.p.varName(j), Value: v, Iter: it}
+			}
+			row[j] = v * s.xs[j] * fi
+		}
+	}
+	return nil
+}
+
+// checkJacobian reports the first non-finite entry of the scaled Jacobian.
+func (s *Solver) checkJacobian(it int) error {
+	raw := s.jac.RawMatrix()
+	for i := 0; i < s.n; i++ {
+		row := raw.Data[i*raw.Stride : i*raw.Stride+s.n]
+		for j, v := range row {
+			if math.IsNaN(v) || math.IsInf(v, 0) {
+				return &NumberError{Equation: s.p.eqName(i), Unknown: s.p.varName(j), Value: v, Iter: it}
+			}
+		}
+	}
+	return nil
+}
+
+// jacobian fills s.jac with the scaled Jacobian at s.x.
+func (s *Solver) jacobian(it int) error {
+	s.res.Stats.JacobianEvals++
+	if s.p.Jacobian != nil {
+		return s.analyticJacobian(s.x, it)
+	}
+	if err := s.fdJacobian(s.x, s.r, it); err != nil {
+		return err
+	}
+	return s.checkJacobian(it)
+}
+
+// Jacobian writes into dst (Dim×Dim) the unscaled Jacobian dF/dx at x, as
+// the solver would form it: the analytic one if the problem has one, else
+// forward differences, coloured when the problem has a Pattern. It is meant
+// for checking a hand-written Jacobian against finite differences.
+func (s *Solver) Jacobian(dst *mat.Dense, x []float64, analytic bool) error {
+	if len(x) != s.n {
+		panic("solver: Solver.Jacobian: len(x) = " + itoa(len(x)) + ", want Dim = " + itoa(s.n))
+	}
+	if r, c := dst.Dims(); r != s.n || c != s.n {
+		panic("solver: Solver.Jacobian: dst is not Dim×Dim")
+	}
+	var err error
+	if analytic {
+		if s.p.Jacobian == nil {
+			panic("solver: Solver.Jacobian: the problem has no analytic Jacobian")
+		}
+		err = s.analyticJacobian(x, 0)
+	} else {
+		if err = s.residual(s.r, x, 0, false); err == nil {
+			err = s.fdJacobian(x, s.r, 0)
+		}
+	}
+	if err != nil {
+		return err
+	}
+	for i := 0; i < s.n; i++ {
+		for j := 0; j < s.n; j++ {
+			dst.Set(i, j, s.jac.At(i, j)*s.fs[i]/s.xs[j])
+		}
+	}
+	return nil
+}

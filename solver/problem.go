@@ -1,0 +1,302 @@
+package solver
+
+import (
+	"fmt"
+	"math"
+	"time"
+
+	"gonum.org/v1/gonum/mat"
+)
+
+// Problem is a square system F(x) = 0 of Dim equations in Dim unknowns.
+//
+// The problem holds only the caller's functions and the facts about the
+// unknowns and equations; limits and tolerances live in Settings.
+type Problem struct {
+	// Dim is the number of unknowns, which is also the number of equations.
+	Dim int
+
+	// Residual writes F(x) into r. Both slices have length Dim. Residual must
+	// not keep r or x. An error it returns stops the solve and is returned
+	// wrapped (errors.Is and errors.As see it), except an error that wraps
+	// ErrDomain during a line-search trial, which makes the line search take
+	// a shorter step instead.
+	Residual func(r, x []float64) error
+
+	// Jacobian, if not nil, writes dF_i/dx_j into j (Dim×Dim, already sized;
+	// the solver zeroes it before each call). If nil, the solver uses
+	// forward finite differences (coloured when Pattern is given).
+	Jacobian func(j *mat.Dense, x []float64) error
+
+	// XScale is the typical magnitude of each unknown (nil: all 1). The solver
+	// works on x_j/XScale_j. Entries must be positive and finite.
+	XScale []float64
+
+	// FScale is the typical magnitude of each residual (nil: all 1). The
+	// convergence test and the merit function use F_i/FScale_i. Entries must
+	// be positive and finite.
+	FScale []float64
+
+	// Pattern, if not nil, has Dim rows; Pattern[i] lists the unknowns that
+	// equation i depends on. It is used for the structural diagnosis (see
+	// Diagnose) and to colour the columns of a finite-difference Jacobian.
+	// Entries outside the pattern are taken to be exactly zero.
+	Pattern [][]int
+
+	// Lower and Upper are optional bounds on the unknowns (nil: unbounded;
+	// use math.Inf(-1) or math.Inf(1) for an unbounded entry). Bounds are
+	// closed: an unknown may land on its bound. To keep an unknown strictly
+	// positive, give a small positive lower bound.
+	Lower, Upper []float64
+
+	// VarNames and EqNames name the unknowns and equations in every
+	// diagnostic ("unknown 'line l3 pressure'"). Nil or short lists fall
+	// back to "unknown 7", "equation 3".
+	VarNames, EqNames []string
+}
+
+// varName returns the name of unknown j for messages.
+func (p *Problem) varName(j int) string {
+	if j < len(p.VarNames) && p.VarNames[j] != "" {
+		return p.VarNames[j]
+	}
+	return fmt.Sprintf("unknown %d", j)
+}
+
+// eqName returns the name of equation i for messages.
+func (p *Problem) eqName(i int) string {
+	if i < len(p.EqNames) && p.EqNames[i] != "" {
+		return p.EqNames[i]
+	}
+	return fmt.Sprintf("equation %d", i)
+}
+
+// check panics on programmer mistakes (wrong lengths, missing residual) and
+// returns an error for contradictory data (bad scales, crossed bounds).
+func (p *Problem) check() error {
+	if p.Dim <= 0 {
+		panic(fmt.Sprintf("solver: Problem.Dim is %d, want a positive number of unknowns", p.Dim))
+	}
+	if p.Residual == nil {
+		panic("solver: Problem.Residual is nil")
+	}
+	n := p.Dim
+	lengths := []struct {
+		name string
+		l    int
+		set  bool
+	}{
+		{"XScale", len(p.XScale), p.XScale != nil},
+		{"FScale", len(p.FScale), p.FScale != nil},
+		{"Pattern", len(p.Pattern), p.Pattern != nil},
+		{"Lower", len(p.Lower), p.Lower != nil},
+		{"Upper", len(p.Upper), p.Upper != nil},
+	}
+	for _, l := range lengths {
+		if l.set && l.l != n {
+			panic(fmt.Sprintf("solver: Problem.%s has length %d, want Dim = %d", l.name, l.l, n))
+		}
+	}
+	if p.VarNames != nil && len(p.VarNames) != n {
+		panic(fmt.Sprintf("solver: Problem.VarNames has length %d, want Dim = %d", len(p.VarNames), n))
+	}
+	if p.EqNames != nil && len(p.EqNames) != n {
+		panic(fmt.Sprintf("solver: Problem.EqNames has length %d, want Dim = %d", len(p.EqNames), n))
+	}
+	for j, s := range p.XScale {
+		if !(s > 0) || math.IsInf(s, 0) {
+			return fmt.Errorf("solver: scale of unknown '%s' is %g, want a positive finite typical magnitude", p.varName(j), s)
+		}
+	}
+	for i, s := range p.FScale {
+		if !(s > 0) || math.IsInf(s, 0) {
+			return fmt.Errorf("solver: scale of equation '%s' is %g, want a positive finite typical magnitude", p.eqName(i), s)
+		}
+	}
+	for j := 0; j < n; j++ {
+		lo, hi := p.lower(j), p.upper(j)
+		if math.IsNaN(lo) || math.IsNaN(hi) {
+			return fmt.Errorf("solver: bounds of unknown '%s' are [%g, %g], want numbers (use ±Inf for none)", p.varName(j), lo, hi)
+		}
+		if lo > hi {
+			return fmt.Errorf("solver: bounds of unknown '%s' are crossed: lower %g > upper %g", p.varName(j), lo, hi)
+		}
+	}
+	for i, row := range p.Pattern {
+		for _, j := range row {
+			if j < 0 || j >= n {
+				return fmt.Errorf("solver: pattern of equation '%s' lists unknown index %d, want 0 ≤ index < %d", p.eqName(i), j, n)
+			}
+		}
+	}
+	return nil
+}
+
+func (p *Problem) lower(j int) float64 {
+	if p.Lower == nil {
+		return math.Inf(-1)
+	}
+	return p.Lower[j]
+}
+
+func (p *Problem) upper(j int) float64 {
+	if p.Upper == nil {
+		return math.Inf(1)
+	}
+	return p.Upper[j]
+}
+
+// Settings holds the limits of a solve. The zero value of each field means
+// the documented default; a nil *Settings means all defaults.
+type Settings struct {
+	// MaxIterations is the largest number of Newton iterations (Jacobian
+	// evaluations). Zero means 100.
+	MaxIterations int
+
+	// FTol is the convergence tolerance on the scaled residual: the solve has
+	// converged when max_i |F_i(x)|/FScale_i ≤ FTol (infinity norm). Zero
+	// means 1e-10.
+	FTol float64
+
+	// XTol is the stagnation tolerance on the scaled step: if an accepted
+	// step satisfies max_j |Δx_j|/max(|x_j|, XScale_j) ≤ XTol while the
+	// residual test still fails, the solve stops with Stagnated. A small
+	// step alone never counts as convergence. Zero means 1e-14.
+	XTol float64
+
+	// MaxStep bounds the infinity norm of the scaled Newton step
+	// (Δx_j/XScale_j); a longer step is shortened along its direction before
+	// the line search. Zero means no bound.
+	MaxStep float64
+
+	// MaxCondition is the largest acceptable condition number (1-norm
+	// estimate) of the scaled Jacobian; above it the Jacobian is reported as
+	// singular. Zero means 1e14.
+	MaxCondition float64
+
+	// Armijo is the sufficient-decrease constant c in
+	// f(x+αd) ≤ f(x) + c·∇fᵀ(x+αd−x), with f = ½‖F/FScale‖². Zero means 1e-4.
+	Armijo float64
+
+	// MaxBacktracks is the largest number of step reductions in one line
+	// search. Zero means 40.
+	MaxBacktracks int
+
+	// SkipDiagnosis skips the structural diagnosis that New runs when the
+	// problem has a Pattern. Use it for a warm sequence of solves of the same
+	// structure after the first has been diagnosed.
+	SkipDiagnosis bool
+
+	// Factorizer solves the linear systems. Nil means a dense LU from gonum
+	// (NewDenseLU). A Factorizer belongs to one Solver.
+	Factorizer Factorizer
+
+	// Recorder, if not nil, is called after every iteration. The solver
+	// never prints.
+	Recorder Recorder
+}
+
+// Defaults of Settings.
+const (
+	DefaultMaxIterations = 100
+	DefaultFTol          = 1e-10
+	DefaultXTol          = 1e-14
+	DefaultMaxCondition  = 1e14
+	DefaultArmijo        = 1e-4
+	DefaultMaxBacktracks = 40
+)
+
+// withDefaults returns a copy of s with zero fields replaced by defaults, or
+// an error naming a contradictory field.
+func (s *Settings) withDefaults() (Settings, error) {
+	var c Settings
+	if s != nil {
+		c = *s
+	}
+	if c.MaxIterations < 0 {
+		return c, fmt.Errorf("solver: Settings.MaxIterations is %d, want ≥ 0 (0 means %d)", c.MaxIterations, DefaultMaxIterations)
+	}
+	if c.MaxIterations == 0 {
+		c.MaxIterations = DefaultMaxIterations
+	}
+	type tol struct {
+		name string
+		v    *float64
+		def  float64
+	}
+	for _, t := range []tol{
+		{"FTol", &c.FTol, DefaultFTol},
+		{"XTol", &c.XTol, DefaultXTol},
+		{"MaxStep", &c.MaxStep, math.Inf(1)},
+		{"MaxCondition", &c.MaxCondition, DefaultMaxCondition},
+		{"Armijo", &c.Armijo, DefaultArmijo},
+	} {
+		if *t.v < 0 || math.IsNaN(*t.v) {
+			return c, fmt.Errorf("solver: Settings.%s is %g, want ≥ 0 (0 means the default)", t.name, *t.v)
+		}
+		if *t.v == 0 {
+			*t.v = t.def
+		}
+	}
+	if c.Armijo >= 0.5 {
+		return c, fmt.Errorf("solver: Settings.Armijo is %g, want 0 < c < 0.5", c.Armijo)
+	}
+	if c.MaxBacktracks < 0 {
+		return c, fmt.Errorf("solver: Settings.MaxBacktracks is %d, want ≥ 0 (0 means %d)", c.MaxBacktracks, DefaultMaxBacktracks)
+	}
+	if c.MaxBacktracks == 0 {
+		c.MaxBacktracks = DefaultMaxBacktracks
+	}
+	return c, nil
+}
+
+// Stats counts the work of one solve.
+type Stats struct {
+	Iterations    int           // Newton iterations (Jacobians factorised)
+	ResidualEvals int           // calls of Residual, including those for finite differences
+	JacobianEvals int           // Jacobians formed (analytic calls or finite-difference sweeps)
+	Runtime       time.Duration // wall time of the solve
+}
+
+// Result is the outcome of a solve.
+type Result struct {
+	// X is the last accepted point (the root when Status is Converged). It
+	// is never NaN: when the solve fails it holds the best point reached.
+	X []float64
+
+	// Status says why the solve stopped.
+	Status Status
+
+	Stats Stats
+
+	// ResidualNorm is the infinity norm of the scaled residual at X:
+	// max_i |F_i(X)|/FScale_i, the quantity FTol bounds.
+	ResidualNorm float64
+
+	// StepNorm is the scaled infinity norm of the last accepted step:
+	// max_j |Δx_j|/max(|x_j|, XScale_j), the quantity XTol bounds.
+	StepNorm float64
+
+	// Colors is the number of residual evaluations one finite-difference
+	// Jacobian costs: the colour count with a Pattern, Dim without one, and
+	// 0 with an analytic Jacobian.
+	Colors int
+}
+
+// Iteration is what a Recorder sees after each Newton iteration.
+type Iteration struct {
+	Iter         int       // 1 for the first iteration
+	X            []float64 // the accepted point; read only, valid during the call
+	ResidualNorm float64   // scaled infinity norm at X
+	StepNorm     float64   // scaled infinity norm of the accepted step
+	Alpha        float64   // line-search step length taken (1 is a full Newton step)
+	Backtracks   int       // step reductions in this line search
+	Cond         float64   // condition estimate of the scaled Jacobian
+	Stats        Stats     // counters so far
+}
+
+// Recorder receives progress. An error it returns stops the solve and is
+// returned wrapped.
+type Recorder interface {
+	Record(it Iteration) error
+}
