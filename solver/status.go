@@ -13,17 +13,17 @@ import (
 type Status int
 
 const (
-	NotStarted       Status = iota // no solve has run
-	Converged                      // scaled residual infinity norm ≤ FTol
-	IterationLimit                 // MaxIterations reached without convergence
-	Stagnated                      // an accepted step was below XTol but the residual was not below FTol
-	LineSearchFailed               // no step length gave sufficient decrease of ½‖F/FScale‖²
-	SingularJacobian               // the scaled Jacobian is singular or too ill conditioned
-	Canceled                       // the context was canceled or its deadline passed
-	BadNumber                      // NaN or Inf in a residual or Jacobian entry
-	ResidualFailed                 // Residual, Jacobian or the Recorder returned an error
-	StructurallySingular           // the sparsity pattern admits no perfect matching
-	InvalidStart                   // the start point is outside the bounds or not finite
+	NotStarted           Status = iota // no solve has run
+	Converged                          // scaled residual infinity norm ≤ FTol
+	IterationLimit                     // MaxIterations reached without convergence
+	Stagnated                          // an accepted step was below XTol but the residual was not below FTol
+	LineSearchFailed                   // no step length gave sufficient decrease of ½‖F/FScale‖²
+	SingularJacobian                   // the scaled Jacobian is singular or too ill conditioned
+	Canceled                           // the context was canceled or its deadline passed
+	BadNumber                          // NaN or Inf in a residual or Jacobian entry
+	ResidualFailed                     // Residual, Jacobian or the Recorder returned an error
+	StructurallySingular               // the sparsity pattern admits no perfect matching
+	InvalidStart                       // the start point is outside the bounds or not finite
 )
 
 var statusNames = [...]string{
