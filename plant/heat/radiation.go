@@ -15,12 +15,12 @@ type WSGGSet int
 
 // The WSGG sets (gas-radiation.md §1.2 [S✓]).
 const (
-	WSGGAuto     WSGGSet = iota // choose by pw/pc with SelectWSGGSet
-	WSGGH2OLean                 // H2O only, pw → 0 atm; pa = pw
-	WSGGH2OPure                 // H2O only, pw = 1 atm; pa = pw
-	WSGGCO2Lean                 // CO2 only, pc → 0 atm; pa = pc
-	WSGGRatio1                  // H2O-CO2 mixture, pw/pc = 1; pa = pw + pc (oil firing)
-	WSGGRatio2                  // H2O-CO2 mixture, pw/pc = 2; pa = pw + pc (natural gas)
+	WSGGAuto    WSGGSet = iota // choose by pw/pc with SelectWSGGSet
+	WSGGH2OLean                // H2O only, pw → 0 atm; pa = pw
+	WSGGH2OPure                // H2O only, pw = 1 atm; pa = pw
+	WSGGCO2Lean                // CO2 only, pc → 0 atm; pa = pc
+	WSGGRatio1                 // H2O-CO2 mixture, pw/pc = 1; pa = pw + pc (oil firing)
+	WSGGRatio2                 // H2O-CO2 mixture, pw/pc = 2; pa = pw + pc (natural gas)
 	numWSGGSets
 )
 
@@ -326,14 +326,14 @@ type BeamShape int
 // tube-bank rows are of lower confidence [M]). The dimension passed to
 // BeamLengthShape is given beside each.
 const (
-	LongCylinder    BeamShape = iota // infinitely long cylinder to its curved surface; D → 0.95·D (smoke tube)
-	Sphere                           // sphere to its surface; D → 0.65·D
-	CylinderHD                       // cylinder, height = D, to the whole surface; D → 0.60·D
-	Slab                             // between infinite parallel planes, to one plane; spacing s → 1.8·s
-	CubeFace                         // cube to one face; side a → 0.60·a
-	BankTriangle2D                   // tubes, equilateral triangle pitch p = 2D; dim = p − D → 3.0·(p − D) [M]
-	BankTriangle3D                   // tubes, equilateral triangle pitch p = 3D; dim = p − D → 3.8·(p − D) [M]
-	BankSquare2D                     // tubes, square pitch p = 2D; dim = p − D → 3.5·(p − D) [M]
+	LongCylinder   BeamShape = iota // infinitely long cylinder to its curved surface; D → 0.95·D (smoke tube)
+	Sphere                          // sphere to its surface; D → 0.65·D
+	CylinderHD                      // cylinder, height = D, to the whole surface; D → 0.60·D
+	Slab                            // between infinite parallel planes, to one plane; spacing s → 1.8·s
+	CubeFace                        // cube to one face; side a → 0.60·a
+	BankTriangle2D                  // tubes, equilateral triangle pitch p = 2D; dim = p − D → 3.0·(p − D) [M]
+	BankTriangle3D                  // tubes, equilateral triangle pitch p = 3D; dim = p − D → 3.8·(p − D) [M]
+	BankSquare2D                    // tubes, square pitch p = 2D; dim = p − D → 3.5·(p − D) [M]
 	numBeamShapes
 )
 

@@ -14,13 +14,13 @@ const FoulingUnit = 1 / 5.678263337
 // flue gas was seen: for oil-fired boilers use a soot allowance
 // (SootLayerResistance, or 0.001-0.005 m²·K/W [CP/M]).
 const (
-	FoulingEngineExhaust          = 0.010 * FoulingUnit  // engine exhaust gas
-	FoulingNaturalGasFlue         = 0.005 * FoulingUnit  // natural-gas flue gas
-	FoulingCoalFlue               = 0.010 * FoulingUnit  // coal flue gas
-	FoulingBoilerFeedwaterSlow    = 0.001 * FoulingUnit  // treated boiler feedwater, ≤ 3 ft/s
-	FoulingBoilerFeedwaterFast    = 0.0005 * FoulingUnit // treated boiler feedwater, > 3 ft/s
-	FoulingBoilerBlowdown         = 0.002 * FoulingUnit  // boiler blowdown
-	FoulingDistilledOrCondensate  = 0.0005 * FoulingUnit // distilled or demineralised water, condensate
+	FoulingEngineExhaust         = 0.010 * FoulingUnit  // engine exhaust gas
+	FoulingNaturalGasFlue        = 0.005 * FoulingUnit  // natural-gas flue gas
+	FoulingCoalFlue              = 0.010 * FoulingUnit  // coal flue gas
+	FoulingBoilerFeedwaterSlow   = 0.001 * FoulingUnit  // treated boiler feedwater, ≤ 3 ft/s
+	FoulingBoilerFeedwaterFast   = 0.0005 * FoulingUnit // treated boiler feedwater, > 3 ft/s
+	FoulingBoilerBlowdown        = 0.002 * FoulingUnit  // boiler blowdown
+	FoulingDistilledOrCondensate = 0.0005 * FoulingUnit // distilled or demineralised water, condensate
 )
 
 // Typical conductivities of deposits, from memory (heat-transfer.md §5 [M]).
