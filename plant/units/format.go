@@ -178,3 +178,22 @@ func AmbiguousSpellings() []string {
 	}
 	return out
 }
+
+// Lookup returns the unit written as unit, in any of its spellings. A
+// spelling known in several dimensions ("K") gives the first: Temperature.
+// Spellings rejected as ambiguous ("bar") return an error of kind
+// ErrAmbiguous.
+func Lookup(unit string) (Unit, error) {
+	def, err := lookup(unit)
+	if err != nil {
+		return Unit{}, err
+	}
+	return Unit{
+		Name:      def.spellings[0],
+		Spellings: append([]string(nil), def.spellings...),
+		Dim:       def.dim,
+		Gauge:     def.kind == gauge,
+		Scale:     def.scale,
+		Offset:    def.offset,
+	}, nil
+}

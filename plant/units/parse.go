@@ -34,6 +34,13 @@ type Options struct {
 	AmbientPressure float64
 }
 
+// Validate reports an error if o holds an implausible value. Parse and
+// the conversion functions check the same, so calling it is optional.
+func (o Options) Validate() error {
+	_, err := o.ambient()
+	return err
+}
+
 // ambient returns the ambient pressure in Pa, or an error for an
 // implausible setting.
 func (o Options) ambient() (float64, error) {

@@ -479,3 +479,26 @@ func BenchmarkFormat(b *testing.B) {
 		}
 	}
 }
+
+func TestLookupAndValidate(t *testing.T) {
+	t.Parallel()
+	u, err := Lookup("kg/cm2(g)")
+	if err != nil || u.Name != "kg/cm2g" || !u.Gauge || u.Dim != Pressure || u.Scale != kgfcm2 {
+		t.Errorf("Lookup(kg/cm2(g)) = %+v, %v", u, err)
+	}
+	if u, err := Lookup("K"); err != nil || u.Dim != Temperature {
+		t.Errorf("Lookup(K) = %+v, %v; want a temperature", u, err)
+	}
+	if _, err := Lookup("bar"); err == nil {
+		t.Error("Lookup(bar) gave no error; it is ambiguous")
+	}
+	if err := (Options{}).Validate(); err != nil {
+		t.Errorf("zero Options: %v", err)
+	}
+	if err := (Options{AmbientPressure: 1.013e5}).Validate(); err != nil {
+		t.Errorf("ambient 101300 Pa: %v", err)
+	}
+	if err := (Options{AmbientPressure: 1.013}).Validate(); err == nil {
+		t.Error("ambient 1.013 Pa accepted; it is a unit mistake")
+	}
+}
