@@ -5,6 +5,10 @@ import (
 	"fmt"
 	"math"
 
+	"gonum.org/v1/gonum/blas"
+	"gonum.org/v1/gonum/blas/blas64"
+	"gonum.org/v1/gonum/lapack"
+	"gonum.org/v1/gonum/lapack/lapack64"
 	"gonum.org/v1/gonum/mat"
 )
 
@@ -28,16 +32,21 @@ type Factorizer interface {
 // ErrExactlySingular is returned by a Factorizer for an exactly singular matrix.
 var ErrExactlySingular = errors.New("solver: matrix is exactly singular")
 
-// DenseLU is the default Factorizer: gonum's LU with partial pivoting and
-// a 1-norm condition estimate. It reuses its storage across calls of the
-// same order. Its zero value is ready to use.
+// DenseLU is the default Factorizer: LU with partial pivoting (LAPACK
+// Dgetrf through gonum's lapack64) and the LAPACK 1-norm condition
+// estimate (Dgecon). It owns all its work space, so after the first call
+// of a given order it allocates nothing (gonum's mat.LU takes work space
+// from a pool, which allocates on every call). Its zero value is ready to
+// use.
 type DenseLU struct {
-	lu   mat.LU
-	n    int
-	bv   *mat.VecDense
-	xv   *mat.VecDense
-	work []float64
-	sol  []float64
+	n     int
+	a     blas64.General // the factors
+	b     blas64.General // right-hand side, n×1
+	ipiv  []int
+	iwork []int
+	work  []float64
+	cond  float64
+	ok    bool
 }
 
 // NewDenseLU returns a DenseLU.
@@ -49,35 +58,42 @@ func (d *DenseLU) Factorize(j *mat.Dense) error {
 	if n != c {
 		panic(fmt.Sprintf("solver: DenseLU.Factorize of a %d×%d matrix, want square", n, c))
 	}
-	if d.n != n || d.bv == nil {
+	if d.n != n || d.a.Data == nil {
 		d.n = n
-		d.work = make([]float64, n)
-		d.sol = make([]float64, n)
-		d.bv = mat.NewVecDense(n, d.work)
-		d.xv = mat.NewVecDense(n, d.sol)
+		d.a = blas64.General{Rows: n, Cols: n, Stride: n, Data: make([]float64, n*n)}
+		d.b = blas64.General{Rows: n, Cols: 1, Stride: 1, Data: make([]float64, n)}
+		d.ipiv = make([]int, n)
+		d.iwork = make([]int, n)
+		d.work = make([]float64, 4*n)
 	}
-	d.lu.Factorize(j)
-	if math.IsInf(d.lu.Cond(), 1) {
+	raw := j.RawMatrix()
+	for i := 0; i < n; i++ {
+		copy(d.a.Data[i*n:(i+1)*n], raw.Data[i*raw.Stride:i*raw.Stride+n])
+	}
+	anorm := lapack64.Lange(lapack.MaxColumnSum, d.a, d.work)
+	d.ok = lapack64.Getrf(d.a, d.ipiv)
+	if !d.ok {
+		d.cond = math.Inf(1)
 		return ErrExactlySingular
 	}
+	rcond := lapack64.Gecon(lapack.MaxColumnSum, d.a, anorm, d.work, d.iwork)
+	d.cond = 1 / rcond
 	return nil
 }
 
 // Cond implements Factorizer.
-func (d *DenseLU) Cond() float64 { return d.lu.Cond() }
+func (d *DenseLU) Cond() float64 { return d.cond }
 
-// Solve implements Factorizer. A gonum condition warning is not an error
-// here: the solver judges the condition number itself.
+// Solve implements Factorizer.
 func (d *DenseLU) Solve(dst, b []float64) error {
 	if len(dst) != d.n || len(b) != d.n {
 		panic(fmt.Sprintf("solver: DenseLU.Solve with lengths %d and %d, want %d", len(dst), len(b), d.n))
 	}
-	copy(d.work, b)
-	err := d.lu.SolveVecTo(d.xv, false, d.bv)
-	var c mat.Condition
-	if err != nil && !errors.As(err, &c) {
-		return err
+	if !d.ok {
+		return ErrExactlySingular
 	}
-	copy(dst, d.sol)
+	copy(d.b.Data, b)
+	lapack64.Getrs(blas.NoTrans, d.a, d.b, d.ipiv)
+	copy(dst, d.b.Data)
 	return nil
 }

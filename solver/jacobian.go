@@ -8,7 +8,7 @@ import (
 )
 
 // sqrtEps is the relative finite-difference step, √ε for double precision.
-var sqrtEps = math.Sqrt(0x1p-52)
+const sqrtEps = 0x1p-26
 
 // coloring groups the columns of a sparse Jacobian so that no two columns
 // in a group share a row (Curtis, Powell and Reid 1974). colRows[j] lists

@@ -64,8 +64,9 @@ func (e *StructureError) Error() string {
 			fmt.Fprintf(&b, "; under-determined: unknowns %s appear in no equation",
 				quoteList(e.UnderUnknowns))
 		} else {
-			fmt.Fprintf(&b, "; under-determined: unknowns %s appear in no equation that is not already matched: %d unknowns share only the equations %s",
-				quoteList(e.UnderUnknowns), len(e.UnderUnknowns), quoteList(e.UnderEquations))
+			fmt.Fprintf(&b, "; under-determined: unknowns %s appear in no equation that is not already matched: %d unknowns share only %d %s (%s)",
+				quoteList(e.UnderUnknowns), len(e.UnderUnknowns), len(e.UnderEquations),
+				plural(len(e.UnderEquations), "equation", "equations"), quoteList(e.UnderEquations))
 		}
 		fmt.Fprintf(&b, " (add %d %s or fix %d of these unknowns)", k, plural(k, "equation", "equations"), k)
 	}
@@ -74,8 +75,9 @@ func (e *StructureError) Error() string {
 		if len(e.OverUnknowns) == 0 {
 			fmt.Fprintf(&b, "; over-determined: equations %s contain no unknown", quoteList(e.OverEquations))
 		} else {
-			fmt.Fprintf(&b, "; over-determined: equations %s compete for unknowns %s (%d equations for %d unknowns)",
-				quoteList(e.OverEquations), quoteList(e.OverUnknowns), len(e.OverEquations), len(e.OverUnknowns))
+			fmt.Fprintf(&b, "; over-determined: equations %s compete for unknowns %s (%d equations for %d %s)",
+				quoteList(e.OverEquations), quoteList(e.OverUnknowns), len(e.OverEquations), len(e.OverUnknowns),
+				plural(len(e.OverUnknowns), "unknown", "unknowns"))
 		}
 		fmt.Fprintf(&b, " (remove %d of these equations or free %d more %s)", k, k, plural(k, "unknown", "unknowns"))
 	}
