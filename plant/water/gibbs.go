@@ -1,0 +1,317 @@
+package water
+
+import "math"
+
+// Constants of IAPWS R7-97(2012).
+const (
+	rGas     = 461.526    // specific gas constant of water, J/(kg K), Eq. 1
+	tCrit    = 647.096    // critical temperature, K, Eq. 2
+	pCrit    = 22.064e6   // critical pressure, Pa, Eq. 3
+	rhoCrit  = 322.0      // critical density, kg/m3, Eq. 4
+	tTriple  = 273.16     // triple-point temperature, K
+	tMin     = 273.15     // lowest temperature of IF97, K
+	tMid     = 1073.15    // upper temperature of regions 1-3, lower of region 5, K
+	tMax     = 2273.15    // highest temperature of region 5, K
+	pMax     = 100e6      // highest pressure of regions 1-3, Pa
+	pMax5    = 50e6       // highest pressure of region 5, Pa
+	t13      = 623.15     // boundary temperature between regions 1 and 3, K
+	t23max   = 863.15     // B23 temperature at 100 MPa, K
+	p2abLim  = 4e6        // boundary pressure between subregions 2a and 2b, Pa
+	s2bcLim  = 5.85e3     // boundary entropy between subregions 2b and 2c, J/(kg K)
+	pSatMinT = 611.212677 // p_sat(273.15 K) by Eq. 30, Pa (the release rounds it to 611.213 Pa)
+)
+
+// fillPow sets d[k] = x^k for k = 0 .. len(d)-1 by multiplication only.
+// Each entry is the product of two earlier ones (k/2 and k-k/2), which keeps
+// the dependency chains short (depth log2 k).
+func fillPow(d []float64, x float64) {
+	if len(d) == 0 {
+		return
+	}
+	d[0] = 1
+	if len(d) == 1 {
+		return
+	}
+	d[1] = x
+	for k := 2; k < len(d); k++ {
+		d[k] = d[k>>1] * d[k-k>>1]
+	}
+}
+
+// fillPowSigned sets d[neg+k] = x^k for k = -neg .. len(d)-1-neg.
+func fillPowSigned(d []float64, neg int, x float64) {
+	fillPow(d[neg:], x)
+	if neg == 0 {
+		return
+	}
+	xi := 1 / x
+	d[neg-1] = xi
+	for k := 2; k <= neg; k++ {
+		d[neg-k] = d[neg-k>>1] * d[neg-(k-k>>1)]
+	}
+}
+
+// gsum holds a dimensionless Gibbs free energy γ(π,τ) and its derivatives,
+// each multiplied by the matching powers of π and τ so that no division is
+// needed afterwards:
+//
+//	g = γ, gp = π·γπ, gpp = π²·γππ, gt = τ·γτ, gtt = τ²·γττ, gpt = π·τ·γπτ.
+type gsum struct {
+	g, gp, gpp, gt, gtt, gpt float64
+}
+
+// props fills the thermodynamic properties of a state from a Gibbs sum.
+func (g *gsum) props(st *State, p, t float64) {
+	rt := rGas * t
+	st.P, st.T = p, t
+	st.V = rt * g.gp / p
+	st.Rho = 1 / st.V
+	st.H = rt * g.gt
+	st.U = rt * (g.gt - g.gp)
+	st.S = rGas * (g.gt - g.g)
+	st.Cp = -rGas * g.gtt
+	b := g.gp - g.gpt
+	st.Cv = rGas * (-g.gtt + b*b/g.gpp)
+	w2 := rt * g.gp * g.gp / (b*b/g.gtt - g.gpp)
+	st.W = math.Sqrt(w2)
+}
+
+// ---------------------------------------------------------------- region 1
+
+// region 1 reduced variables, Eq. 7: π = p/16.53 MPa, τ = 1386 K/T.
+const (
+	p1Star = 16.53e6
+	t1Star = 1386.0
+)
+
+// gibbs1 evaluates γ of region 1 (Eq. 7) and its derivatives.
+func gibbs1(p, t float64) gsum {
+	pi := p / p1Star
+	tau := t1Star / t
+	a := 7.1 - pi
+	b := tau - 1.222
+	var ap [33]float64
+	fillPow(ap[:], a)
+	var bp [59]float64
+	fillPowSigned(bp[:], 41, b)
+	var s0, sI, sII, sJ, sJJ, sIJ float64
+	for k := range r1 {
+		tm := &r1[k]
+		x := tm.n * ap[tm.i] * bp[tm.j+41]
+		fi, fj := float64(tm.i), float64(tm.j)
+		s0 += x
+		sI += fi * x
+		sII += fi * (fi - 1) * x
+		sJ += fj * x
+		sJJ += fj * (fj - 1) * x
+		sIJ += fi * fj * x
+	}
+	pa := pi / a
+	tb := tau / b
+	return gsum{
+		g:   s0,
+		gp:  -pa * sI,
+		gpp: pa * pa * sII,
+		gt:  tb * sJ,
+		gtt: tb * tb * sJJ,
+		gpt: -pa * tb * sIJ,
+	}
+}
+
+// h1 returns the specific enthalpy of region 1 in J/kg (Eq. 7, Table 3).
+func h1(p, t float64) float64 {
+	tau := t1Star / t
+	a := 7.1 - p/p1Star
+	b := tau - 1.222
+	var ap [33]float64
+	fillPow(ap[:], a)
+	var bp [59]float64
+	fillPowSigned(bp[:], 41, b)
+	var sJ float64
+	for k := range r1 {
+		tm := &r1[k]
+		sJ += float64(tm.j) * tm.n * ap[tm.i] * bp[tm.j+41]
+	}
+	return rGas * t * tau / b * sJ
+}
+
+// hcp1 returns h and cp of region 1, for Newton steps in T at fixed p.
+func hcp1(p, t float64) (h, cp float64) {
+	tau := t1Star / t
+	a := 7.1 - p/p1Star
+	b := tau - 1.222
+	var ap [33]float64
+	fillPow(ap[:], a)
+	var bp [59]float64
+	fillPowSigned(bp[:], 41, b)
+	var sJ, sJJ float64
+	for k := range r1 {
+		tm := &r1[k]
+		fj := float64(tm.j)
+		x := fj * tm.n * ap[tm.i] * bp[tm.j+41]
+		sJ += x
+		sJJ += (fj - 1) * x
+	}
+	tb := tau / b
+	return rGas * t * tb * sJ, -rGas * tb * tb * sJJ
+}
+
+// scp1 returns s and cp of region 1.
+func scp1(p, t float64) (s, cp float64) {
+	tau := t1Star / t
+	a := 7.1 - p/p1Star
+	b := tau - 1.222
+	var ap [33]float64
+	fillPow(ap[:], a)
+	var bp [59]float64
+	fillPowSigned(bp[:], 41, b)
+	var s0, sJ, sJJ float64
+	for k := range r1 {
+		tm := &r1[k]
+		fj := float64(tm.j)
+		x := tm.n * ap[tm.i] * bp[tm.j+41]
+		s0 += x
+		sJ += fj * x
+		sJJ += fj * (fj - 1) * x
+	}
+	tb := tau / b
+	return rGas * (tb*sJ - s0), -rGas * tb * tb * sJJ
+}
+
+// ---------------------------------------------------------------- region 2
+
+// region 2 reduced variables, Eq. 15: π = p/1 MPa, τ = 540 K/T.
+const (
+	p2Star = 1e6
+	t2Star = 540.0
+)
+
+// gibbs2 evaluates γ = γ° + γʳ of region 2 (Eqs. 15-17).
+func gibbs2(p, t float64) gsum {
+	pi := p / p2Star
+	tau := t2Star / t
+	var tp [9]float64 // τ^-5 .. τ^3
+	fillPowSigned(tp[:], 5, tau)
+	var g0, g0t, g0tt float64
+	for k := range r2Ideal {
+		c := &r2Ideal[k]
+		fj := float64(c.j)
+		x := c.n * tp[c.j+5]
+		g0 += x
+		g0t += fj * x
+		g0tt += fj * (fj - 1) * x
+	}
+	b := tau - 0.5
+	var pp [25]float64
+	fillPow(pp[:], pi)
+	var bp [59]float64
+	fillPow(bp[:], b)
+	var s0, sI, sII, sJ, sJJ, sIJ float64
+	for k := range r2Res {
+		tm := &r2Res[k]
+		x := tm.n * pp[tm.i] * bp[tm.j]
+		fi, fj := float64(tm.i), float64(tm.j)
+		s0 += x
+		sI += fi * x
+		sII += fi * (fi - 1) * x
+		sJ += fj * x
+		sJJ += fj * (fj - 1) * x
+		sIJ += fi * fj * x
+	}
+	tb := tau / b
+	return gsum{
+		g:   math.Log(pi) + g0 + s0,
+		gp:  1 + sI,
+		gpp: -1 + sII,
+		gt:  g0t + tb*sJ,
+		gtt: g0tt + tb*tb*sJJ,
+		gpt: tb * sIJ,
+	}
+}
+
+// hcp2 returns h and cp of region 2.
+func hcp2(p, t float64) (h, cp float64) {
+	pi := p / p2Star
+	tau := t2Star / t
+	var tp [9]float64
+	fillPowSigned(tp[:], 5, tau)
+	var g0t, g0tt float64
+	for k := range r2Ideal {
+		c := &r2Ideal[k]
+		fj := float64(c.j)
+		x := fj * c.n * tp[c.j+5]
+		g0t += x
+		g0tt += (fj - 1) * x
+	}
+	b := tau - 0.5
+	var pp [25]float64
+	fillPow(pp[:], pi)
+	var bp [59]float64
+	fillPow(bp[:], b)
+	var sJ, sJJ float64
+	for k := range r2Res {
+		tm := &r2Res[k]
+		fj := float64(tm.j)
+		x := fj * tm.n * pp[tm.i] * bp[tm.j]
+		sJ += x
+		sJJ += (fj - 1) * x
+	}
+	tb := tau / b
+	return rGas * t * (g0t + tb*sJ), -rGas * (g0tt + tb*tb*sJJ)
+}
+
+// h2 returns the specific enthalpy of region 2 in J/kg.
+func h2(p, t float64) float64 {
+	h, _ := hcp2(p, t)
+	return h
+}
+
+// scp2 returns s and cp of region 2.
+func scp2(p, t float64) (s, cp float64) {
+	g := gibbs2(p, t)
+	return rGas * (g.gt - g.g), -rGas * g.gtt
+}
+
+// ---------------------------------------------------------------- region 5
+
+// gibbs5 evaluates γ = γ° + γʳ of region 5 (Eqs. 32-34), with π = p/1 MPa
+// and τ = 1000 K/T.
+func gibbs5(p, t float64) gsum {
+	pi := p / 1e6
+	tau := 1000 / t
+	var tp [6]float64 // τ^-3 .. τ^2
+	fillPowSigned(tp[:], 3, tau)
+	var g0, g0t, g0tt float64
+	for k := range r5Ideal {
+		c := &r5Ideal[k]
+		fj := float64(c.j)
+		x := c.n * tp[c.j+3]
+		g0 += x
+		g0t += fj * x
+		g0tt += fj * (fj - 1) * x
+	}
+	var pp [4]float64
+	fillPow(pp[:], pi)
+	var bp [10]float64
+	fillPow(bp[:], tau)
+	var s0, sI, sII, sJ, sJJ, sIJ float64
+	for k := range r5Res {
+		tm := &r5Res[k]
+		x := tm.n * pp[tm.i] * bp[tm.j]
+		fi, fj := float64(tm.i), float64(tm.j)
+		s0 += x
+		sI += fi * x
+		sII += fi * (fi - 1) * x
+		sJ += fj * x
+		sJJ += fj * (fj - 1) * x
+		sIJ += fi * fj * x
+	}
+	return gsum{
+		g:   math.Log(pi) + g0 + s0,
+		gp:  1 + sI,
+		gpp: -1 + sII,
+		gt:  g0t + sJ,
+		gtt: g0tt + sJJ,
+		gpt: sIJ,
+	}
+}

@@ -1,0 +1,437 @@
+package water
+
+import "math"
+
+// kind selects the second input of a backward solve: enthalpy or entropy.
+type kind int
+
+const (
+	byH kind = iota
+	byS
+)
+
+func (k kind) quantity() string {
+	if k == byH {
+		return "specific enthalpy"
+	}
+	return "specific entropy"
+}
+
+// solution is the result of a backward solve.
+type solution struct {
+	t   float64 // K
+	x   float64 // vapour fraction, two-phase only
+	rho float64 // density, region 3 only
+	reg Region
+	sd  side3
+}
+
+// propT returns h (or s) and its derivative with respect to T at constant
+// p in the given region: (h, cp) or (s, cp/T). For region 3 it also
+// returns the density.
+func propT(k kind, reg Region, p, t float64) (f, df, rho float64, ok bool) {
+	switch reg {
+	case Region1:
+		if k == byH {
+			f, df = hcp1(p, t)
+		} else {
+			f, df = scp1(p, t)
+			df /= t
+		}
+	case Region2:
+		if k == byH {
+			f, df = hcp2(p, t)
+		} else {
+			f, df = scp2(p, t)
+			df /= t
+		}
+	case Region5:
+		g := gibbs5(p, t)
+		df = -rGas * g.gtt
+		if k == byH {
+			f = rGas * t * g.gt
+		} else {
+			f = rGas * (g.gt - g.g)
+			df /= t
+		}
+	case Region3:
+		var ok bool
+		rho, ok = rho3(p, t, sideFor(p, t))
+		if !ok {
+			return 0, 0, 0, false
+		}
+		fs := helm3(rho, t)
+		var st State
+		fs.props(&st, rho, t)
+		if k == byH {
+			f, df = st.H, st.Cp
+		} else {
+			f, df = st.S, st.Cp/t
+		}
+	}
+	return f, df, rho, !math.IsNaN(f) && !math.IsNaN(df)
+}
+
+// quickStepT is the step below which a Newton refinement of a backward
+// equation stops after applying the step. Newton converges quadratically
+// and |cp'/cp| < 0.1 1/K in regions 1 and 2, so the remaining error is
+// below 1e-9 K.
+const quickStepT = 1e-4
+
+// refine runs Newton steps on the forward equation of region 1 or 2 from
+// the start value t0 of a backward equation. It reports false if the
+// iteration did not settle within a few steps; the caller then falls back
+// to the bracketed solve.
+func refine(k kind, reg Region, p, target, t0 float64) (float64, bool) {
+	t := t0
+	for range 8 {
+		var f, df float64
+		switch {
+		case reg == Region1 && k == byH:
+			f, df = hcp1(p, t)
+		case reg == Region1:
+			f, df = scp1(p, t)
+			df /= t
+		case k == byH:
+			f, df = hcp2(p, t)
+		default:
+			f, df = scp2(p, t)
+			df /= t
+		}
+		if !(df > 0) {
+			return t, false
+		}
+		dt := (target - f) / df
+		t += dt
+		if !(t > 200 && t < 2500) { // far outside: the start was not in this region
+			return t, false
+		}
+		if math.Abs(dt) <= quickStepT {
+			return t, true
+		}
+	}
+	return t, false
+}
+
+// bracket solves f(p,T) = target for T in [lo, hi] of one region, where f
+// (h or s) rises with T and f(lo) <= target <= f(hi), by Newton steps
+// guarded by bisection.
+func bracket(k kind, reg Region, p, target, lo, hi, t0 float64) (t, rho float64, ok bool) {
+	t = t0
+	if !(t > lo && t < hi) {
+		t = 0.5 * (lo + hi)
+	}
+	scale := math.Max(math.Abs(target), 1e3)
+	if k == byS {
+		scale = math.Max(math.Abs(target), 1)
+	}
+	for range 300 {
+		f, df, r, ok := propT(k, reg, p, t)
+		if !ok {
+			return t, r, false
+		}
+		rho = r
+		res := f - target
+		if math.Abs(res) <= 1e-13*scale {
+			return t, rho, true
+		}
+		if res < 0 {
+			lo = t
+		} else {
+			hi = t
+		}
+		next := t - res/df
+		if !(df > 0) || next <= lo || next >= hi {
+			next = 0.5 * (lo + hi)
+		}
+		if math.Abs(next-t) <= 1e-13*t {
+			_, _, rho, ok = propT(k, reg, p, next)
+			return next, rho, ok
+		}
+		t = next
+	}
+	return t, rho, false
+}
+
+// solvePS and solvePH share this routine: it finds the region and the
+// temperature (and for wet states the vapour fraction) of (p, h) or (p, s).
+// The saturated states it computes on the way are written to sat when it is
+// not nil and the state is wet.
+func solve(fn string, k kind, p, f float64, sat *[2]State) (solution, error) {
+	var sol solution
+	if err := checkP(fn, p); err != nil {
+		return sol, err
+	}
+	if err := finite(fn, k.quantity(), f); err != nil {
+		return sol, err
+	}
+	// Upper and lower temperature of regions 1 and 2 at this pressure.
+	var tb1, tb2 float64
+	switch {
+	case p < pSatMinT:
+		tb1, tb2 = tMin, tMin // no liquid at or above 273.15 K
+	case p <= pSat13:
+		tb1 = tsat4(p)
+		tb2 = tb1
+	default:
+		tb1, tb2 = t13, tB23(p)
+	}
+
+	// Fast path: backward equation, Newton refinement, and a check that
+	// the result lies in the region the backward equation belongs to.
+	lowGuess := (k == byH && f < 2.0e6) || (k == byS && f < 4.5e3)
+	if lowGuess && p >= pSatMinT {
+		var t0 float64
+		if k == byH {
+			t0 = t1ph(p, f)
+		} else {
+			t0 = t1ps(p, f)
+		}
+		if t, ok := refine(k, Region1, p, f, t0); ok && t <= tb1 && t >= tMin {
+			sol.t, sol.reg = t, Region1
+			return sol, nil
+		}
+	} else if !lowGuess {
+		var t0 float64
+		if k == byH {
+			t0 = t2ph(p, f)
+		} else {
+			t0 = t2ps(p, f)
+		}
+		if t, ok := refine(k, Region2, p, f, t0); ok && t >= tb2 && t <= tMid && (p > pSatMinT || t >= tMin) {
+			sol.t, sol.reg = t, Region2
+			return sol, nil
+		}
+	}
+	return solveSlow(fn, k, p, f, tb1, tb2, sat)
+}
+
+// value returns h or s of a state.
+func value(k kind, st *State) float64 {
+	if k == byH {
+		return st.H
+	}
+	return st.S
+}
+
+// at returns h or s at (p,T) in region 1, 2 or 5.
+func at(k kind, reg Region, p, t float64) float64 {
+	f, _, _, _ := propT(k, reg, p, t)
+	return f
+}
+
+// solveSlow decides the region from boundary values computed exactly.
+func solveSlow(fn string, k kind, p, f, tb1, tb2 float64, sat *[2]State) (solution, error) {
+	var sol solution
+	q := k.quantity()
+	// Below 273.15 K: out of range.
+	lowReg := Region1
+	if p < pSatMinT {
+		lowReg = Region2
+	}
+	if fmin := at(k, lowReg, p, tMin); f < fmin {
+		return sol, &RangeError{Func: fn, Quantity: q, Value: f, Bound: "below", LimitSI: fmin,
+			Limit: "the IF97 limit of " + fmtQuantity(q, fmin) + " at " + fmtPressure(p) + " (its value at 273.15 K)"}
+	}
+	// Above 1073.15 K: region 5 up to 50 MPa, else out of range.
+	if fmid := at(k, Region2, p, tMid); f > fmid {
+		if p > pMax5 {
+			return sol, &RangeError{Func: fn, Quantity: q, Value: f, Bound: "above", LimitSI: fmid,
+				Limit: "the IF97 limit of " + fmtQuantity(q, fmid) + " at " + fmtPressure(p) +
+					" (its value at 1073.15 K; above 50 MPa IF97 ends at 1073.15 K)"}
+		}
+		fmax := at(k, Region5, p, tMax)
+		if f > fmax {
+			return sol, &RangeError{Func: fn, Quantity: q, Value: f, Bound: "above", LimitSI: fmax,
+				Limit: "the IF97 limit of " + fmtQuantity(q, fmax) + " at " + fmtPressure(p) + " (its value at 2273.15 K)"}
+		}
+		if f5 := at(k, Region5, p, tMid); f >= f5 {
+			t, _, ok := bracket(k, Region5, p, f, tMid, tMax, tMid+(tMax-tMid)*(f-f5)/(fmax-f5))
+			if !ok {
+				return sol, &ConvergenceError{Func: fn, What: "region 5 temperature from " + q, P: p, Arg: f}
+			}
+			sol.t, sol.reg = t, Region5
+			return sol, nil
+		}
+		// Between the region 2 and region 5 values at 1073.15 K (the two
+		// equations differ there by less than IF97's boundary
+		// consistency): region 2, extended by a fraction of a kelvin.
+		t, ok := refine(k, Region2, p, f, tMid)
+		if !ok {
+			return sol, &ConvergenceError{Func: fn, What: "region 2 temperature from " + q, P: p, Arg: f}
+		}
+		sol.t, sol.reg = t, Region2
+		return sol, nil
+	}
+	if p < pSatMinT {
+		t, _, ok := bracket(k, Region2, p, f, tMin, tMid, 0)
+		if !ok {
+			return sol, &ConvergenceError{Func: fn, What: "region 2 temperature from " + q, P: p, Arg: f}
+		}
+		sol.t, sol.reg = t, Region2
+		return sol, nil
+	}
+	if p <= pSat13 {
+		l, v, err := satStates(fn, p, tb1)
+		if err != nil {
+			return sol, err
+		}
+		fl, fv := value(k, &l), value(k, &v)
+		switch {
+		case f <= fl:
+			t, _, ok := bracket(k, Region1, p, f, tMin, tb1, 0)
+			if !ok {
+				return sol, &ConvergenceError{Func: fn, What: "region 1 temperature from " + q, P: p, Arg: f}
+			}
+			sol.t, sol.reg = t, Region1
+		case f >= fv:
+			t, _, ok := bracket(k, Region2, p, f, tb2, tMid, 0)
+			if !ok {
+				return sol, &ConvergenceError{Func: fn, What: "region 2 temperature from " + q, P: p, Arg: f}
+			}
+			sol.t, sol.reg = t, Region2
+		default:
+			sol.t, sol.reg, sol.x = tb1, RegionTwoPhase, (f-fl)/(fv-fl)
+			if sat != nil {
+				sat[0], sat[1] = l, v
+			}
+		}
+		return sol, nil
+	}
+	// p above p_sat(623.15 K): regions 1, 3 and 2 in turn.
+	if f13 := at(k, Region1, p, t13); f <= f13 {
+		t, _, ok := bracket(k, Region1, p, f, tMin, t13, 0)
+		if !ok {
+			return sol, &ConvergenceError{Func: fn, What: "region 1 temperature from " + q, P: p, Arg: f}
+		}
+		sol.t, sol.reg = t, Region1
+		return sol, nil
+	}
+	if f23 := at(k, Region2, p, tb2); f >= f23 {
+		t, _, ok := bracket(k, Region2, p, f, tb2, tMid, 0)
+		if !ok {
+			return sol, &ConvergenceError{Func: fn, What: "region 2 temperature from " + q, P: p, Arg: f}
+		}
+		sol.t, sol.reg = t, Region2
+		return sol, nil
+	}
+	lo, hi := t13, tb2
+	if p < pCrit {
+		ts := tsat4(p)
+		l, v, err := satStates(fn, p, ts)
+		if err != nil {
+			return sol, err
+		}
+		fl, fv := value(k, &l), value(k, &v)
+		switch {
+		case f < fl:
+			hi = ts
+		case f > fv:
+			lo = ts
+		default:
+			sol.t, sol.reg, sol.x = ts, RegionTwoPhase, (f-fl)/(fv-fl)
+			if sat != nil {
+				sat[0], sat[1] = l, v
+			}
+			return sol, nil
+		}
+	}
+	t, rho, ok := bracket(k, Region3, p, f, lo, hi, 0)
+	if !ok {
+		return sol, &ConvergenceError{Func: fn, What: "region 3 temperature from " + q, P: p, Arg: f}
+	}
+	sol.t, sol.rho, sol.reg, sol.sd = t, rho, Region3, sideFor(p, t)
+	return sol, nil
+}
+
+// state builds the full state of a solution.
+func (sol *solution) state(fn string, p float64, sat *[2]State) (State, error) {
+	switch sol.reg {
+	case RegionTwoPhase:
+		if sat[0].T == 0 {
+			l, v, err := satStates(fn, p, sol.t)
+			if err != nil {
+				return State{}, err
+			}
+			sat[0], sat[1] = l, v
+		}
+		return mix(&sat[0], &sat[1], sol.x), nil
+	case Region3:
+		var st State
+		f := helm3(sol.rho, sol.t)
+		f.props(&st, sol.rho, sol.t)
+		st.P = p
+		st.Region = Region3
+		st.classify(sol.sd == sideLiquid)
+		return st, nil
+	}
+	return statePT(fn, p, sol.t, sol.reg, 0)
+}
+
+// PH returns the state at pressure p (Pa) and specific enthalpy h (J/kg).
+// Regions 1 and 2 start from the IF97 backward equations T(p,h) and refine
+// T by Newton steps on the basic equation; region 3 and 5 iterate on the
+// basic equation; wet states get their vapour fraction from h.
+func PH(p, h float64) (State, error) {
+	var sat [2]State
+	sol, err := solve("PH", byH, p, h, &sat)
+	if err != nil {
+		return State{}, err
+	}
+	return sol.state("PH", p, &sat)
+}
+
+// PS returns the state at pressure p (Pa) and specific entropy s
+// (J/(kg K)), as PH does for enthalpy.
+func PS(p, s float64) (State, error) {
+	var sat [2]State
+	sol, err := solve("PS", byS, p, s, &sat)
+	if err != nil {
+		return State{}, err
+	}
+	return sol.state("PS", p, &sat)
+}
+
+// TPH returns the temperature (K) at pressure p (Pa) and specific enthalpy
+// h (J/kg), the fast path of PH(p, h).T. It does not allocate.
+func TPH(p, h float64) (float64, error) {
+	sol, err := solve("TPH", byH, p, h, nil)
+	return sol.t, err
+}
+
+// SPH returns the specific entropy (J/(kg K)) at pressure p (Pa) and
+// specific enthalpy h (J/kg), the fast path of PH(p, h).S.
+func SPH(p, h float64) (float64, error) {
+	var sat [2]State
+	sol, err := solve("SPH", byH, p, h, &sat)
+	if err != nil {
+		return 0, err
+	}
+	return sol.other(byS, p, &sat), nil
+}
+
+// HPS returns the specific enthalpy (J/kg) at pressure p (Pa) and specific
+// entropy s (J/(kg K)), the fast path of PS(p, s).H.
+func HPS(p, s float64) (float64, error) {
+	var sat [2]State
+	sol, err := solve("HPS", byS, p, s, &sat)
+	if err != nil {
+		return 0, err
+	}
+	return sol.other(byH, p, &sat), nil
+}
+
+// other returns h or s of a solved state.
+func (sol *solution) other(k kind, p float64, sat *[2]State) float64 {
+	switch sol.reg {
+	case RegionTwoPhase:
+		return value(k, &sat[0]) + sol.x*(value(k, &sat[1])-value(k, &sat[0]))
+	case Region3:
+		f := helm3(sol.rho, sol.t)
+		if k == byH {
+			return rGas * sol.t * (f.ft + f.fd)
+		}
+		return rGas * (f.ft - f.f)
+	}
+	return at(k, sol.reg, p, sol.t)
+}
