@@ -1,0 +1,139 @@
+package main
+
+import (
+	"context"
+	"errors"
+	"flag"
+	"fmt"
+	"io"
+	"strings"
+)
+
+// Exit statuses.
+const (
+	exitOK    = 0
+	exitFail  = 1 // the command ran and failed
+	exitUsage = 2 // the command line was wrong
+)
+
+// env is what a command may touch: its output streams.
+type env struct {
+	stdout, stderr io.Writer
+}
+
+// command is one entry of the command table.
+type command struct {
+	// Name is the word that selects the command: "steam".
+	Name string
+	// UsageLine lists the arguments after the name, one form per line.
+	UsageLine string
+	// Short is the one-line summary shown in the command list.
+	Short string
+	// Long is the help text in full sentences, shown by "sim help NAME".
+	// It ends with examples; the flags are listed after it from Flags.
+	Long string
+	// Flags returns a fresh flag set of the command, for help; nil if it
+	// takes none. Run builds its own set the same way.
+	Flags func() *flag.FlagSet
+	// Run runs the command with the arguments after its name. A
+	// *usageError means the command line was wrong (exit 2); any other
+	// error is a failure (exit 1).
+	Run func(ctx context.Context, e env, args []string) error
+}
+
+// commands returns the command table, in the order help lists it. The
+// load-case runner ("run") joins it when it is built.
+func commands() []*command {
+	return []*command{
+		steamCommand(),
+		helpCommand(),
+	}
+}
+
+func findCommand(name string) *command {
+	for _, c := range commands() {
+		if c.Name == name {
+			return c
+		}
+	}
+	return nil
+}
+
+// usageError is a mistake on the command line.
+type usageError struct{ msg string }
+
+func (e *usageError) Error() string { return e.msg }
+
+func usagef(format string, args ...any) error {
+	return &usageError{msg: fmt.Sprintf(format, args...)}
+}
+
+// run is main without the process: it reads args (without the program
+// name), writes to stdout and stderr, and returns the exit status.
+func run(ctx context.Context, args []string, stdout, stderr io.Writer) int {
+	e := env{stdout: stdout, stderr: stderr}
+	if len(args) == 0 {
+		// When the built-in demo lands, no arguments will run it; until
+		// then the help says what there is.
+		writeMainHelp(stdout)
+		return exitOK
+	}
+	name := args[0]
+	switch name {
+	case "-h", "-help", "--help":
+		writeMainHelp(stdout)
+		return exitOK
+	}
+	c := findCommand(name)
+	if c == nil {
+		if strings.HasPrefix(name, "-") {
+			fmt.Fprintf(stderr, "sim: flag %s given before a command; the flags belong to a command, such as: sim steam %s ...\n", name, name)
+		} else {
+			fmt.Fprintf(stderr, "sim: unknown command %q\n", name)
+		}
+		fmt.Fprintln(stderr, "Run 'sim help' for the list of commands.")
+		return exitUsage
+	}
+	err := c.Run(ctx, e, args[1:])
+	var ue *usageError
+	switch {
+	case err == nil:
+		return exitOK
+	case errors.Is(err, flag.ErrHelp):
+		writeCommandHelp(stdout, c)
+		return exitOK
+	case errors.As(err, &ue):
+		fmt.Fprintf(stderr, "sim %s: %s\n", c.Name, ue.msg)
+		for _, l := range strings.Split(c.UsageLine, "\n") {
+			fmt.Fprintf(stderr, "usage: sim %s %s\n", c.Name, l)
+		}
+		fmt.Fprintf(stderr, "Run 'sim help %s' for details.\n", c.Name)
+		return exitUsage
+	default:
+		fmt.Fprintf(stderr, "sim %s: %s\n", c.Name, oneLine(err.Error()))
+		return exitFail
+	}
+}
+
+// oneLine keeps an error message on one line.
+func oneLine(s string) string {
+	return strings.Join(strings.Fields(s), " ")
+}
+
+// parseFlags parses args with fs, which must have ContinueOnError set.
+// Flag errors become usage errors; -h and --help return flag.ErrHelp.
+// Arguments left over are an error: no command takes positional ones yet.
+func parseFlags(fs *flag.FlagSet, args []string) error {
+	fs.SetOutput(io.Discard)
+	fs.Usage = func() {}
+	if err := fs.Parse(args); err != nil {
+		if errors.Is(err, flag.ErrHelp) {
+			return err
+		}
+		return &usageError{msg: err.Error()}
+	}
+	if fs.NArg() > 0 {
+		return usagef("unexpected argument %q (values go after flags, such as --p \"7 bar(g)\"; quote values that contain spaces)", fs.Arg(0))
+	}
+	return nil
+}
