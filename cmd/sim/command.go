@@ -104,9 +104,7 @@ func run(ctx context.Context, args []string, stdout, stderr io.Writer) int {
 		return exitOK
 	case errors.As(err, &ue):
 		fmt.Fprintf(stderr, "sim %s: %s\n", c.Name, ue.msg)
-		for _, l := range strings.Split(c.UsageLine, "\n") {
-			fmt.Fprintf(stderr, "usage: sim %s %s\n", c.Name, l)
-		}
+		writeUsage(stderr, c)
 		fmt.Fprintf(stderr, "Run 'sim help %s' for details.\n", c.Name)
 		return exitUsage
 	default:

@@ -37,7 +37,8 @@ func writeMainHelp(w io.Writer) {
 	fmt.Fprintf(w, "\nUse \"sim help <command>\" for more about a command.\n\n%s\n\n%s\n", mainNotYet, caution)
 }
 
-func writeCommandHelp(w io.Writer, c *command) {
+// writeUsage writes the usage lines of c.
+func writeUsage(w io.Writer, c *command) {
 	for i, l := range strings.Split(c.UsageLine, "\n") {
 		if i == 0 {
 			fmt.Fprintf(w, "usage: sim %s %s\n", c.Name, l)
@@ -45,6 +46,10 @@ func writeCommandHelp(w io.Writer, c *command) {
 			fmt.Fprintf(w, "       sim %s %s\n", c.Name, l)
 		}
 	}
+}
+
+func writeCommandHelp(w io.Writer, c *command) {
+	writeUsage(w, c)
 	fmt.Fprintf(w, "\n%s\n", strings.TrimSpace(c.Long))
 	if c.Flags != nil {
 		fmt.Fprintf(w, "\nFlags:\n\n")
