@@ -44,6 +44,11 @@ type Solver struct {
 // s.SkipDiagnosis is false, New runs Diagnose and returns its
 // *StructureError if the pattern is structurally singular.
 //
+// New copies XScale, FScale, Lower and Upper, and colours the Pattern
+// once; later changes to those slices do not reach the Solver. The
+// Residual and Jacobian functions are called as they are, so a sequence
+// of problems can share one Solver by closing over changing inputs.
+//
 // Wrong slice lengths in p panic with a "solver: " prefix; contradictory
 // data (crossed bounds, non-positive scales, bad settings) return an error.
 func New(p Problem, s *Settings) (*Solver, error) {
