@@ -1,0 +1,348 @@
+package combustion
+
+import (
+	"fmt"
+	"strings"
+
+	"steamcase/plant/fuel"
+)
+
+// Siegert CO-loss constants a in q_CO = a·CO/(CO + CO2) (%), CO and CO2 in
+// dry vol %: 48 for fuel oil, 32 for gas (plant-checks.md §3.1 [S✓ analyser
+// manual]).
+const (
+	SiegertCOOil = 48.0
+	SiegertCOGas = 32.0
+)
+
+// Radiation gives the radiation and convection loss of the boiler casing in
+// one of two forms. The zero value means no radiation loss (and Efficiency
+// flags it with WarnNoRadiation).
+type Radiation struct {
+	// PercentAtMCR is the loss in percent of the fuel heat input (LHV basis)
+	// at MCR, e.g. 0.5–1.5 % for marine auxiliary boilers (plant-checks.md
+	// §3.4 [CP]). The loss in kW being roughly constant, the percentage is
+	// scaled by 1/LoadFraction.
+	PercentAtMCR float64
+	// LoadFraction is the present load over MCR (0.05…1.2); zero means 1.
+	LoadFraction float64
+
+	// Loss is the loss as a heat flow (W), nearly constant with load, used
+	// with FuelFlow (kg/s) to give a percentage of the heat input.
+	Loss, FuelFlow float64
+}
+
+// LossOptions are the inputs of the heat-loss method beyond the products
+// and the two temperatures.
+type LossOptions struct {
+	// COppmDry is the measured CO in the dry flue gas (ppm by volume); zero
+	// means no CO loss.
+	COppmDry float64
+	// SiegertA is the constant of the CO loss; zero means SiegertCOOil for
+	// liquid fuels and SiegertCOGas for gas.
+	SiegertA float64
+	// UnburntSolids is the unburnt-solids (soot, coke) loss in percent of the
+	// LHV input; usually below 0.2 % for a well-tuned oil burner
+	// (plant-checks.md §3.1 [M]).
+	UnburntSolids float64
+	// Radiation is the radiation and convection loss.
+	Radiation Radiation
+}
+
+// Warning flags conditions the caller should see in a report.
+type Warning uint
+
+const (
+	// WarnFuelSensibleNotModelled: the fuel is not at the reference
+	// temperature but its sensible heat could not be computed (gas fuel or
+	// no density); the fuel credit is taken as zero.
+	WarnFuelSensibleNotModelled Warning = 1 << iota
+	// WarnNoRadiation: no radiation and convection loss was given; it is
+	// taken as zero.
+	WarnNoRadiation
+	// WarnLowLoadRadiation: radiation scaled by 1/load below quarter load,
+	// where the scaling is crude.
+	WarnLowLoadRadiation
+)
+
+var warningText = [...]string{
+	"fuel sensible heat not modelled (taken as zero)",
+	"no radiation and convection loss given (taken as zero)",
+	"radiation loss scaled by 1/load below quarter load",
+}
+
+// String lists the warnings in words.
+func (w Warning) String() string {
+	if w == 0 {
+		return "none"
+	}
+	var parts []string
+	for i, t := range warningText {
+		if w&(1<<i) != 0 {
+			parts = append(parts, t)
+		}
+	}
+	return strings.Join(parts, "; ")
+}
+
+// LossItems is the heat-loss account on one basis. Every item is in percent
+// of the fuel heat input on that basis (HeatInput per kg fuel).
+type LossItems struct {
+	// Basis states whether the input is the net (LHV) or gross (HHV)
+	// specific energy; Source says where that figure came from.
+	Basis     fuel.Basis
+	Source    fuel.Source
+	HeatInput float64 // J/kg fuel
+
+	// Losses (%).
+	DryGas        float64 // sensible heat of the dry flue gas above the reference
+	MoistureH     float64 // water from the fuel's hydrogen (latent included on HHV basis)
+	MoistureFuel  float64 // the fuel's free water (latent included on HHV basis)
+	MoistureAir   float64 // vapour brought by the air (sensible only)
+	MoistureSteam float64 // atomising steam (sensible only)
+	CO            float64 // unburnt gas, Siegert-type form
+	Solids        float64 // unburnt solids
+	Radiation     float64 // radiation and convection
+
+	// Credits (%), heat brought in above the reference temperature.
+	AirCredit   float64 // dry air and its vapour
+	SteamCredit float64 // atomising steam
+	FuelCredit  float64 // fuel sensible heat (Cragoe)
+
+	TotalLoss, TotalCredit float64
+	// Efficiency = 100 − TotalLoss + TotalCredit (%).
+	Efficiency float64
+}
+
+// Moisture returns the sum of the four moisture losses (%).
+func (l LossItems) Moisture() float64 {
+	return l.MoistureH + l.MoistureFuel + l.MoistureAir + l.MoistureSteam
+}
+
+// Losses is the heat-loss (indirect) boiler efficiency on both bases.
+type Losses struct {
+	// FlueT and RefT are the flue-gas exit and reference temperatures (K).
+	FlueT, RefT float64
+	// CO2Dry and O2Dry are the flue gas's dry mole fractions (complete
+	// combustion).
+	CO2Dry, O2Dry float64
+	// LHV and HHV are the accounts on the net and gross basis.
+	LHV, HHV LossItems
+	// Warnings flags what the caller should report.
+	Warnings Warning
+}
+
+// Efficiency computes the boiler efficiency by the heat-loss method, itemised
+// in the manner of ASME PTC 4 and EN 12952-15 (structure from memory,
+// plant-checks.md §3.1 [S]): η = 100 − ΣL + ΣB, in percent of the fuel
+// input, on the LHV and on the HHV basis.
+//
+//   - Dry flue gas: Σ n_i·[h_i(t_fg) − h_i(t_ref)] over N2, O2, CO2, SO2, Ar,
+//     with NASA TM-4513 enthalpies.
+//   - Moisture from hydrogen and from fuel water: vapour enthalpy rise from
+//     t_ref to t_fg; on the HHV basis plus h_fg(25 °C) = 2441.7 kJ/kg. The
+//     latent term is taken at 25 °C whatever t_ref (exact for t_ref = 25 °C).
+//   - Moisture from air humidity and atomising steam: sensible only on both
+//     bases (they enter and leave as vapour); their inlet heat is a credit.
+//   - CO: Siegert-type q_CO = a·CO/(CO + CO2) on the LHV basis, scaled by
+//     LHV/HHV for the HHV basis; the products are not corrected for the CO.
+//   - Unburnt solids and radiation: as given (LHV basis), scaled likewise;
+//     radiation as a constant heat flow is divided by each basis's input.
+//   - Credits: dry air and its vapour from t_ref to AirT, atomising steam
+//     from t_ref to its temperature, fuel sensible heat (Cragoe) from t_ref
+//     to FuelT.
+//
+// The specific energy is taken as valid at t_ref (the difference between its
+// value at 25 °C and at another t_ref is neglected). With t_ref equal to the
+// air temperature the dry-gas and moisture losses are those of Siegert's
+// form. Blowdown is a plant loss outside this account.
+func Efficiency(p Products, flueT, refT float64, o LossOptions) (Losses, error) {
+	if p.Lambda == 0 {
+		return Losses{}, fmt.Errorf("combustion: efficiency: products are empty (call Fire first)")
+	}
+	if !(refT >= 253.15 && refT <= 323.15) {
+		return Losses{}, fmt.Errorf("combustion: efficiency: reference temperature %g K; want 253.15…323.15 K (usually 298.15)", refT)
+	}
+	if !(flueT > refT && flueT <= 1273.15) {
+		return Losses{}, fmt.Errorf("combustion: efficiency: flue-gas temperature %g K; want above the reference %g K and at most 1273.15 K", flueT, refT)
+	}
+	if !(o.COppmDry >= 0 && o.COppmDry <= 1e5) {
+		return Losses{}, fmt.Errorf("combustion: efficiency: CO %g ppm; want 0…1e5 ppm", o.COppmDry)
+	}
+	if !(o.SiegertA >= 0 && o.SiegertA <= 100) {
+		return Losses{}, fmt.Errorf("combustion: efficiency: Siegert CO constant %g; want 0…100 (0 = default)", o.SiegertA)
+	}
+	if !(o.UnburntSolids >= 0 && o.UnburntSolids <= 10) {
+		return Losses{}, fmt.Errorf("combustion: efficiency: unburnt solids %g %%; want 0…10 %%", o.UnburntSolids)
+	}
+	r := o.Radiation
+	if !(r.PercentAtMCR >= 0 && r.PercentAtMCR <= 10 && r.Loss >= 0 && r.FuelFlow >= 0) {
+		return Losses{}, fmt.Errorf("combustion: efficiency: radiation %+v: want PercentAtMCR 0…10 %%, Loss ≥ 0 W, FuelFlow ≥ 0 kg/s", r)
+	}
+	if r.PercentAtMCR != 0 && r.Loss != 0 {
+		return Losses{}, fmt.Errorf("combustion: efficiency: radiation given both as %g %% at MCR and as %g W; give one", r.PercentAtMCR, r.Loss)
+	}
+	if r.Loss != 0 && !(r.FuelFlow > 0) {
+		return Losses{}, fmt.Errorf("combustion: efficiency: radiation loss %g W needs the fuel flow (kg/s), got %g", r.Loss, r.FuelFlow)
+	}
+	lf := orDefault(r.LoadFraction, 1)
+	if !(lf >= 0.05 && lf <= 1.2) {
+		return Losses{}, fmt.Errorf("combustion: efficiency: load fraction %g; want 0.05…1.2", lf)
+	}
+
+	var out Losses
+	out.FlueT, out.RefT = flueT, refT
+	xd := p.MoleFractions(false)
+	out.CO2Dry, out.O2Dry = xd[CO2], xd[O2]
+
+	// Heat quantities per kg fuel (J/kg).
+	dry := p.Moles
+	dry[H2O] = 0
+	hDryFg, err := amountsH(&dry, flueT)
+	if err != nil {
+		return Losses{}, fmt.Errorf("combustion: efficiency: dry flue gas: %w", err)
+	}
+	hDryRef, err := amountsH(&dry, refT)
+	if err != nil {
+		return Losses{}, fmt.Errorf("combustion: efficiency: dry flue gas: %w", err)
+	}
+	qDry := hDryFg - hDryRef
+	hvFg, err := H2O.H(flueT)
+	if err != nil {
+		return Losses{}, err
+	}
+	hvRef, err := H2O.H(refT)
+	if err != nil {
+		return Losses{}, err
+	}
+	dhv := hvFg - hvRef // J/kg water vapour, t_ref → t_fg
+
+	// Credits.
+	dryAir := p.AirAmounts
+	dryAir[H2O] = 0
+	hAirIn, err := amountsH(&dryAir, p.AirT)
+	if err != nil {
+		return Losses{}, fmt.Errorf("combustion: efficiency: air: %w", err)
+	}
+	hAirRef, err := amountsH(&dryAir, refT)
+	if err != nil {
+		return Losses{}, fmt.Errorf("combustion: efficiency: air: %w", err)
+	}
+	hvAir, err := H2O.H(p.AirT)
+	if err != nil {
+		return Losses{}, err
+	}
+	hvSteam, err := H2O.H(p.SteamT)
+	if err != nil {
+		return Losses{}, err
+	}
+	qAirCredit := hAirIn - hAirRef + p.WaterFromAir*(hvAir-hvRef)
+	qSteamCredit := p.AtomisingSteam * (hvSteam - hvRef)
+	var qFuelCredit float64
+	switch {
+	case p.FuelT == refT:
+	case p.Fuel.Class != fuel.Gas && p.Fuel.ISO.Density15 != 0:
+		if qFuelCredit, err = p.Fuel.SensibleHeat(refT, p.FuelT); err != nil {
+			return Losses{}, fmt.Errorf("combustion: efficiency: fuel credit: %w", err)
+		}
+	default:
+		out.Warnings |= WarnFuelSensibleNotModelled
+	}
+
+	// CO loss on the LHV basis (%).
+	var qCO float64
+	if o.COppmDry > 0 {
+		a := o.SiegertA
+		if a == 0 {
+			a = SiegertCOOil
+			if p.Fuel.Class == fuel.Gas {
+				a = SiegertCOGas
+			}
+		}
+		co := o.COppmDry * 1e-4 // vol %
+		qCO = a * co / (co + 100*out.CO2Dry)
+	}
+	var radLHV float64
+	switch {
+	case r.PercentAtMCR != 0:
+		radLHV = r.PercentAtMCR / lf
+		if lf < 0.25 {
+			out.Warnings |= WarnLowLoadRadiation
+		}
+	case r.Loss != 0:
+		radLHV = 100 * r.Loss / (r.FuelFlow * p.Energy.Net)
+	default:
+		out.Warnings |= WarnNoRadiation
+	}
+
+	for _, basis := range [2]fuel.Basis{fuel.Net, fuel.Gross} {
+		l := LossItems{Basis: basis}
+		var latent float64
+		if basis == fuel.Net {
+			l.HeatInput, l.Source = p.Energy.Net, p.Energy.NetSource
+		} else {
+			l.HeatInput, l.Source = p.Energy.Gross, p.Energy.GrossSource
+			latent = fuel.LatentHeat25
+		}
+		pct := 100 / l.HeatInput
+		scale := p.Energy.Net / l.HeatInput // LHV-basis percentages to this basis
+		l.DryGas = qDry * pct
+		l.MoistureH = p.WaterFromH * (dhv + latent) * pct
+		l.MoistureFuel = p.WaterFromFuel * (dhv + latent) * pct
+		l.MoistureAir = p.WaterFromAir * dhv * pct
+		l.MoistureSteam = p.AtomisingSteam * dhv * pct
+		l.CO = qCO * scale
+		l.Solids = o.UnburntSolids * scale
+		l.Radiation = radLHV * scale
+		l.AirCredit = qAirCredit * pct
+		l.SteamCredit = qSteamCredit * pct
+		l.FuelCredit = qFuelCredit * pct
+		l.TotalLoss = l.DryGas + l.Moisture() + l.CO + l.Solids + l.Radiation
+		l.TotalCredit = l.AirCredit + l.SteamCredit + l.FuelCredit
+		l.Efficiency = 100 - l.TotalLoss + l.TotalCredit
+		if basis == fuel.Net {
+			out.LHV = l
+		} else {
+			out.HHV = l
+		}
+	}
+	return out, nil
+}
+
+// SiegertCoefficients are the constants of Siegert's flue-gas loss formula.
+type SiegertCoefficients struct {
+	A1, A2, B float64
+}
+
+// Siegert coefficient sets, German 1. BImSchV annex on flue-gas loss
+// (plant-checks.md §3.2 [S]: structure seen, coefficients from memory).
+var (
+	SiegertFuelOil    = SiegertCoefficients{A1: 0.50, A2: 0.68, B: 0.007}
+	SiegertNaturalGas = SiegertCoefficients{A1: 0.37, A2: 0.66, B: 0.009}
+)
+
+// Siegert returns the flue-gas loss (% of net input) by Siegert's formula in
+// its O2 form, q_A = (t_A − t_L)·(A2/(21 − O2) + B), for flue-gas and air
+// temperatures in K and the dry O2 mole fraction (0.03 for 3 %). A cross-check
+// of the detailed dry-gas plus moisture loss on the LHV basis.
+func Siegert(flueT, airT, o2Dry float64, c SiegertCoefficients) (float64, error) {
+	if !(flueT >= airT && airT > 200 && flueT < 1300) {
+		return 0, fmt.Errorf("combustion: Siegert: flue %g K and air %g K; want 200 K < air ≤ flue < 1300 K", flueT, airT)
+	}
+	if !(o2Dry >= 0 && o2Dry < 0.21) {
+		return 0, fmt.Errorf("combustion: Siegert: dry O2 %g; want 0…0.21", o2Dry)
+	}
+	return (flueT - airT) * (c.A2/(21-100*o2Dry) + c.B), nil
+}
+
+// SiegertCO2 is Siegert's formula in its CO2 form, q_A = (t_A − t_L)·(A1/CO2
+// + B), CO2 as the dry mole fraction.
+func SiegertCO2(flueT, airT, co2Dry float64, c SiegertCoefficients) (float64, error) {
+	if !(flueT >= airT && airT > 200 && flueT < 1300) {
+		return 0, fmt.Errorf("combustion: Siegert: flue %g K and air %g K; want 200 K < air ≤ flue < 1300 K", flueT, airT)
+	}
+	if !(co2Dry > 0.01 && co2Dry < 0.3) {
+		return 0, fmt.Errorf("combustion: Siegert: dry CO2 %g; want 0.01…0.3", co2Dry)
+	}
+	return (flueT - airT) * (c.A1/(100*co2Dry) + c.B), nil
+}
