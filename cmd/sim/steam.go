@@ -40,9 +40,11 @@ in kJ/kgK, the specific volume in m3/kg and the density in kg/m3, with the
 quality ("-" for a single phase), the phase and the IF97 region. With --json
 the state is printed as one JSON object in SI units, the unit in each key:
 p_Pa, T_K, h_J_per_kg, s_J_per_kgK, v_m3_per_kg, rho_kg_per_m3,
-cp_J_per_kgK, x (null for a single phase), region and phase. A property
-that is not defined for the state (cp inside the two-phase region) is shown
-as "-" and written as null.
+cp_J_per_kgK, x (null for a single phase), region and phase, and the
+caution as "caution". A state asked for by its quality shows it, also at
+x = 0 and x = 1 (the saturated liquid and vapour). A property that is not
+defined for the state (cp inside the two-phase region) is shown as "-" and
+written as null.
 
 Examples:
 
