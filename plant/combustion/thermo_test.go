@@ -155,8 +155,10 @@ func TestFormationEnthalpy(t *testing.T) {
 // place of the liquid's ΔfH the HHV is 55.494, within 0.01.
 func TestMethaneLHVFromFormation(t *testing.T) {
 	t.Parallel()
-	const dfCH4, dfH2Ol = -74.873e3, -285.830e3                                                                 // J/mol, from memory
-	mCH4 := thermoTable[CO2].molar - thermoTable[O2].molar + 2*(thermoTable[H2O].molar-thermoTable[O2].molar/2) // C + 4 H
+	// J/mol, from memory.
+	const dfCH4, dfH2Ol = -74.873e3, -285.830e3
+	// C + 4 H from the table's molar masses.
+	mCH4 := thermoTable[CO2].molar - thermoTable[O2].molar + 2*(thermoTable[H2O].molar-thermoTable[O2].molar/2)
 	lhv := (dfCH4 - CO2.FormationEnthalpy() - 2*H2O.FormationEnthalpy()) / mCH4
 	near(t, "CH4 LHV MJ/kg (plant-checks.md §1.3 [C])", lhv/1e6, 50.01, 0.005)
 	hhv := (dfCH4 - CO2.FormationEnthalpy() - 2*dfH2Ol) / mCH4
