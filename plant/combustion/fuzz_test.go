@@ -4,7 +4,6 @@ import (
 	"errors"
 	"math"
 	"testing"
-
 )
 
 // FuzzFire: no input makes Fire or Efficiency panic or return a NaN; a
