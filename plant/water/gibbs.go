@@ -90,22 +90,7 @@ func gibbs1(p, t float64) gsum {
 	tau := t1Star / t
 	a := 7.1 - pi
 	b := tau - 1.222
-	var ap [33]float64
-	fillPow(ap[:], a)
-	var bp [59]float64
-	fillPowSigned(bp[:], 41, b)
-	var s0, sI, sII, sJ, sJJ, sIJ float64
-	for k := range r1 {
-		tm := &r1[k]
-		x := tm.n * ap[tm.i] * bp[tm.j+41]
-		fi, fj := float64(tm.i), float64(tm.j)
-		s0 += x
-		sI += fi * x
-		sII += fi * (fi - 1) * x
-		sJ += fj * x
-		sJJ += fj * (fj - 1) * x
-		sIJ += fi * fj * x
-	}
+	s0, sI, sII, sJ, sJJ, sIJ := poly1All(a, b)
 	pa := pi / a
 	tb := tau / b
 	return gsum{
@@ -121,37 +106,15 @@ func gibbs1(p, t float64) gsum {
 // h1 returns the specific enthalpy of region 1 in J/kg (Eq. 7, Table 3).
 func h1(p, t float64) float64 {
 	tau := t1Star / t
-	a := 7.1 - p/p1Star
 	b := tau - 1.222
-	var ap [33]float64
-	fillPow(ap[:], a)
-	var bp [59]float64
-	fillPowSigned(bp[:], 41, b)
-	var sJ float64
-	for k := range r1 {
-		tm := &r1[k]
-		sJ += float64(tm.j) * tm.n * ap[tm.i] * bp[tm.j+41]
-	}
-	return rGas * t * tau / b * sJ
+	return rGas * t * tau / b * poly1J(7.1-p/p1Star, b)
 }
 
 // hcp1 returns h and cp of region 1, for Newton steps in T at fixed p.
 func hcp1(p, t float64) (h, cp float64) {
 	tau := t1Star / t
-	a := 7.1 - p/p1Star
 	b := tau - 1.222
-	var ap [33]float64
-	fillPow(ap[:], a)
-	var bp [59]float64
-	fillPowSigned(bp[:], 41, b)
-	var sJ, sJJ float64
-	for k := range r1 {
-		tm := &r1[k]
-		fj := float64(tm.j)
-		x := fj * tm.n * ap[tm.i] * bp[tm.j+41]
-		sJ += x
-		sJJ += (fj - 1) * x
-	}
+	sJ, sJJ := poly1JJJ(7.1-p/p1Star, b)
 	tb := tau / b
 	return rGas * t * tb * sJ, -rGas * tb * tb * sJJ
 }
@@ -159,21 +122,8 @@ func hcp1(p, t float64) (h, cp float64) {
 // scp1 returns s and cp of region 1.
 func scp1(p, t float64) (s, cp float64) {
 	tau := t1Star / t
-	a := 7.1 - p/p1Star
 	b := tau - 1.222
-	var ap [33]float64
-	fillPow(ap[:], a)
-	var bp [59]float64
-	fillPowSigned(bp[:], 41, b)
-	var s0, sJ, sJJ float64
-	for k := range r1 {
-		tm := &r1[k]
-		fj := float64(tm.j)
-		x := tm.n * ap[tm.i] * bp[tm.j+41]
-		s0 += x
-		sJ += fj * x
-		sJJ += fj * (fj - 1) * x
-	}
+	s0, sJ, sJJ := poly1S(7.1-p/p1Star, b)
 	tb := tau / b
 	return rGas * (tb*sJ - s0), -rGas * tb * tb * sJJ
 }
@@ -186,38 +136,33 @@ const (
 	t2Star = 540.0
 )
 
+// ideal2 returns the ideal-gas part γ° of region 2 (Eq. 16) as τ·γ°τ and
+// τ²·γ°ττ, and γ° without its ln π when full is set.
+func ideal2(tau float64, full bool) (g0, g0t, g0tt float64) {
+	t2 := tau * tau
+	t3 := t2 * tau
+	tm1 := 1 / tau
+	tm2 := tm1 * tm1
+	tm3 := tm2 * tm1
+	tm4 := tm2 * tm2
+	tm5 := tm4 * tm1
+	n := &r2Ideal
+	// J = 0, 1, -5, -4, -3, -2, -1, 2, 3
+	if full {
+		g0 = n[0].n + n[1].n*tau + n[2].n*tm5 + n[3].n*tm4 + n[4].n*tm3 + n[5].n*tm2 + n[6].n*tm1 + n[7].n*t2 + n[8].n*t3
+	}
+	g0t = n[1].n*tau - 5*n[2].n*tm5 - 4*n[3].n*tm4 - 3*n[4].n*tm3 - 2*n[5].n*tm2 - n[6].n*tm1 + 2*n[7].n*t2 + 3*n[8].n*t3
+	g0tt = 30*n[2].n*tm5 + 20*n[3].n*tm4 + 12*n[4].n*tm3 + 6*n[5].n*tm2 + 2*n[6].n*tm1 + 2*n[7].n*t2 + 6*n[8].n*t3
+	return
+}
+
 // gibbs2 evaluates γ = γ° + γʳ of region 2 (Eqs. 15-17).
 func gibbs2(p, t float64) gsum {
 	pi := p / p2Star
 	tau := t2Star / t
-	var tp [9]float64 // τ^-5 .. τ^3
-	fillPowSigned(tp[:], 5, tau)
-	var g0, g0t, g0tt float64
-	for k := range r2Ideal {
-		c := &r2Ideal[k]
-		fj := float64(c.j)
-		x := c.n * tp[c.j+5]
-		g0 += x
-		g0t += fj * x
-		g0tt += fj * (fj - 1) * x
-	}
+	g0, g0t, g0tt := ideal2(tau, true)
 	b := tau - 0.5
-	var pp [25]float64
-	fillPow(pp[:], pi)
-	var bp [59]float64
-	fillPow(bp[:], b)
-	var s0, sI, sII, sJ, sJJ, sIJ float64
-	for k := range r2Res {
-		tm := &r2Res[k]
-		x := tm.n * pp[tm.i] * bp[tm.j]
-		fi, fj := float64(tm.i), float64(tm.j)
-		s0 += x
-		sI += fi * x
-		sII += fi * (fi - 1) * x
-		sJ += fj * x
-		sJJ += fj * (fj - 1) * x
-		sIJ += fi * fj * x
-	}
+	s0, sI, sII, sJ, sJJ, sIJ := poly2All(pi, b)
 	tb := tau / b
 	return gsum{
 		g:   math.Log(pi) + g0 + s0,
@@ -231,31 +176,10 @@ func gibbs2(p, t float64) gsum {
 
 // hcp2 returns h and cp of region 2.
 func hcp2(p, t float64) (h, cp float64) {
-	pi := p / p2Star
 	tau := t2Star / t
-	var tp [9]float64
-	fillPowSigned(tp[:], 5, tau)
-	var g0t, g0tt float64
-	for k := range r2Ideal {
-		c := &r2Ideal[k]
-		fj := float64(c.j)
-		x := fj * c.n * tp[c.j+5]
-		g0t += x
-		g0tt += (fj - 1) * x
-	}
+	_, g0t, g0tt := ideal2(tau, false)
 	b := tau - 0.5
-	var pp [25]float64
-	fillPow(pp[:], pi)
-	var bp [59]float64
-	fillPow(bp[:], b)
-	var sJ, sJJ float64
-	for k := range r2Res {
-		tm := &r2Res[k]
-		fj := float64(tm.j)
-		x := fj * tm.n * pp[tm.i] * bp[tm.j]
-		sJ += x
-		sJJ += (fj - 1) * x
-	}
+	sJ, sJJ := poly2JJJ(p/p2Star, b)
 	tb := tau / b
 	return rGas * t * (g0t + tb*sJ), -rGas * (g0tt + tb*tb*sJJ)
 }
@@ -268,8 +192,14 @@ func h2(p, t float64) float64 {
 
 // scp2 returns s and cp of region 2.
 func scp2(p, t float64) (s, cp float64) {
-	g := gibbs2(p, t)
-	return rGas * (g.gt - g.g), -rGas * g.gtt
+	pi := p / p2Star
+	tau := t2Star / t
+	g0, g0t, g0tt := ideal2(tau, true)
+	b := tau - 0.5
+	s0, sJ, sJJ := poly2S(pi, b)
+	tb := tau / b
+	gt := g0t + tb*sJ
+	return rGas * (gt - math.Log(pi) - g0 - s0), -rGas * (g0tt + tb*tb*sJJ)
 }
 
 // ---------------------------------------------------------------- region 5

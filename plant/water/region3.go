@@ -13,23 +13,7 @@ type fsum struct {
 // helm3 evaluates φ of region 3 at density rho (kg/m3) and temperature t (K).
 func helm3(rho, t float64) fsum {
 	delta := rho / rhoCrit
-	tau := tCrit / t
-	var dp [12]float64
-	fillPow(dp[:], delta)
-	var tp [27]float64
-	fillPow(tp[:], tau)
-	var s0, sI, sII, sJ, sJJ, sIJ float64
-	for k := range r3 {
-		tm := &r3[k]
-		x := tm.n * dp[tm.i] * tp[tm.j]
-		fi, fj := float64(tm.i), float64(tm.j)
-		s0 += x
-		sI += fi * x
-		sII += fi * (fi - 1) * x
-		sJ += fj * x
-		sJJ += fj * (fj - 1) * x
-		sIJ += fi * fj * x
-	}
+	s0, sI, sII, sJ, sJJ, sIJ := poly3All(delta, tCrit/t)
 	return fsum{
 		f:   r3Log*math.Log(delta) + s0,
 		fd:  r3Log + sI,
@@ -43,19 +27,7 @@ func helm3(rho, t float64) fsum {
 // p3 returns the pressure (Pa) and its derivative dp/dρ at constant T of
 // region 3.
 func p3(rho, t float64) (p, dpdrho float64) {
-	delta := rho / rhoCrit
-	var dp [12]float64
-	fillPow(dp[:], delta)
-	var tp [27]float64
-	fillPow(tp[:], tCrit/t)
-	var sI, sII float64
-	for k := range r3 {
-		tm := &r3[k]
-		fi := float64(tm.i)
-		x := fi * tm.n * dp[tm.i] * tp[tm.j]
-		sI += x
-		sII += (fi - 1) * x
-	}
+	sI, sII := poly3I(rho/rhoCrit, tCrit/t)
 	fd := r3Log + sI
 	fdd := -r3Log + sII
 	rt := rGas * t

@@ -1,0 +1,143 @@
+package water
+
+import "testing"
+
+// The benchmarks cycle through a few states so that branch prediction does
+// not see a single input. Run: go test -run '^$' -bench . -benchmem ./plant/water/
+
+var (
+	benchP1 = [4]float64{1e5, 3e6, 10e6, 80e6}
+	benchT1 = [4]float64{300, 350, 450, 550}
+	benchP2 = [4]float64{5e3, 1e6, 6e6, 30e6}
+	benchT2 = [4]float64{400, 500, 700, 900}
+	sink    float64
+)
+
+// cpuMeter reports the process CPU time per operation as cpu-ns/op when
+// the benchmark ends.
+type cpuMeter struct{ start float64 }
+
+func startCPU() cpuMeter { return cpuMeter{cpuSeconds()} }
+
+func (m cpuMeter) report(b *testing.B) {
+	b.ReportMetric((cpuSeconds()-m.start)*1e9/float64(b.N), "cpu-ns/op")
+}
+
+func BenchmarkHPTRegion1(b *testing.B) {
+	m := startCPU()
+	defer m.report(b)
+	i := 0
+	for b.Loop() {
+		h, _ := HPT(benchP1[i&3], benchT1[i&3])
+		sink += h
+		i++
+	}
+}
+
+func BenchmarkPTRegion1All(b *testing.B) {
+	m := startCPU()
+	defer m.report(b)
+	i := 0
+	for b.Loop() {
+		st, _ := PT(benchP1[i&3], benchT1[i&3])
+		sink += st.W
+		i++
+	}
+}
+
+func BenchmarkPTRegion2All(b *testing.B) {
+	m := startCPU()
+	defer m.report(b)
+	i := 0
+	for b.Loop() {
+		st, _ := PT(benchP2[i&3], benchT2[i&3])
+		sink += st.W
+		i++
+	}
+}
+
+func benchH(b *testing.B, ps, ts *[4]float64) [4]float64 {
+	var hs [4]float64
+	for k := range hs {
+		h, err := HPT(ps[k], ts[k])
+		if err != nil {
+			b.Fatal(err)
+		}
+		hs[k] = h
+	}
+	return hs
+}
+
+func BenchmarkTPHRegion1(b *testing.B) {
+	hs := benchH(b, &benchP1, &benchT1)
+	m := startCPU()
+	defer m.report(b)
+	i := 0
+	for b.Loop() {
+		t, _ := TPH(benchP1[i&3], hs[i&3])
+		sink += t
+		i++
+	}
+}
+
+func BenchmarkTPHRegion2(b *testing.B) {
+	hs := benchH(b, &benchP2, &benchT2)
+	m := startCPU()
+	defer m.report(b)
+	i := 0
+	for b.Loop() {
+		t, _ := TPH(benchP2[i&3], hs[i&3])
+		sink += t
+		i++
+	}
+}
+
+func BenchmarkPHWet(b *testing.B) {
+	ps := [4]float64{5e3, 1e5, 1e6, 8e6}
+	hs := [4]float64{1.2e6, 1.5e6, 2.0e6, 2.4e6}
+	m := startCPU()
+	defer m.report(b)
+	i := 0
+	for b.Loop() {
+		st, _ := PH(ps[i&3], hs[i&3])
+		sink += st.X
+		i++
+	}
+}
+
+func BenchmarkTsat(b *testing.B) {
+	ps := [4]float64{5e3, 1e5, 1e6, 8e6}
+	m := startCPU()
+	defer m.report(b)
+	i := 0
+	for b.Loop() {
+		t, _ := Tsat(ps[i&3])
+		sink += t
+		i++
+	}
+}
+
+func BenchmarkSPH(b *testing.B) {
+	hs := benchH(b, &benchP2, &benchT2)
+	m := startCPU()
+	defer m.report(b)
+	i := 0
+	for b.Loop() {
+		s, _ := SPH(benchP2[i&3], hs[i&3])
+		sink += s
+		i++
+	}
+}
+
+func BenchmarkPTRegion3(b *testing.B) {
+	ps := [4]float64{20e6, 25e6, 40e6, 80e6}
+	ts := [4]float64{640, 650, 700, 750}
+	m := startCPU()
+	defer m.report(b)
+	i := 0
+	for b.Loop() {
+		st, _ := PT(ps[i&3], ts[i&3])
+		sink += st.W
+		i++
+	}
+}
