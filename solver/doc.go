@@ -81,15 +81,31 @@
 // (default 1e14), the solve stops with SingularJacobian and a
 // *SingularError that names the unknowns and equations involved: zero
 // columns and rows of the scaled Jacobian, and the unknowns and equations
-// that carry the singular vectors of its smallest singular values.
+// that carry the singular vectors (gonum's SVD) of its smallest singular
+// values. With Settings.Regularize the solver instead takes a
+// Levenberg–Marquardt step, (J̃ᵀJ̃ + μI)·s = −J̃ᵀF̃ with
+// μ = √(n·ε)·‖J̃ᵀJ̃‖₁, and counts it in Result.RegularizedSteps; this
+// carries a solve through a passing singularity (a flow through zero in a
+// square law) but would hide a Jacobian that is singular everywhere, which
+// is why it is not the default.
+//
+// # Linear algebra
+//
+// The Factorizer interface separates the linear solve from the method.
+// The default DenseLU calls gonum's LAPACK routines (Dgetf2, Dgetrs,
+// Dgecon) on storage it owns, so it allocates nothing after its first
+// factorisation; a sparse factorisation can be supplied through
+// Settings.Factorizer.
 //
 // # Errors and allocation
 //
 // NaN or Inf in a residual or Jacobian entry stops the solve with a
 // *NumberError naming the equation (and the unknown). An error returned by
 // Residual is returned wrapped. The context is checked every iteration.
-// Wrong slice lengths are programmer mistakes and panic with a "solver: "
-// prefix. A Solver made by New reuses all its storage, including its
+// Contradictory data (crossed bounds, non-positive scales, bad settings)
+// is an error wrapping ErrInvalidProblem; a start point outside the
+// bounds is InvalidStart. Wrong slice lengths are programmer mistakes and
+// panic with a "solver: " prefix. A Solver made by New reuses all its storage, including its
 // Result, so repeated solves (the hours of a voyage, warm-started from the
 // previous answer) allocate nothing.
 package solver

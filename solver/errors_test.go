@@ -228,6 +228,9 @@ func TestInvalidInput(t *testing.T) {
 	q := p
 	q.Lower = []float64{2, 0}
 	q.Upper = []float64{1, 1}
+	if res, err := Solve(context.Background(), q, []float64{1, 1}, nil); res.Status != InvalidProblem || !errors.Is(err, ErrInvalidProblem) {
+		t.Errorf("crossed bounds through Solve: status %v, error %v", res.Status, err)
+	}
 	if _, err := New(q, nil); err == nil || !strings.Contains(err.Error(), "'drum pressure' are crossed") {
 		t.Errorf("crossed bounds: %v", err)
 	}
@@ -269,7 +272,7 @@ func TestPanicsOnWrongLength(t *testing.T) {
 
 func TestStatusStrings(t *testing.T) {
 	t.Parallel()
-	for s := NotStarted; s <= InvalidStart; s++ {
+	for s := NotStarted; s <= InvalidProblem; s++ {
 		if s.String() == "" || strings.HasPrefix(s.String(), "status ") {
 			t.Errorf("status %d has no name", int(s))
 		}

@@ -105,27 +105,27 @@ func (p *Problem) check() error {
 	}
 	for j, s := range p.XScale {
 		if !(s > 0) || math.IsInf(s, 0) {
-			return fmt.Errorf("solver: scale of unknown '%s' is %g, want a positive finite typical magnitude", p.varName(j), s)
+			return fmt.Errorf("%w: scale of unknown '%s' is %g, want a positive finite typical magnitude", ErrInvalidProblem, p.varName(j), s)
 		}
 	}
 	for i, s := range p.FScale {
 		if !(s > 0) || math.IsInf(s, 0) {
-			return fmt.Errorf("solver: scale of equation '%s' is %g, want a positive finite typical magnitude", p.eqName(i), s)
+			return fmt.Errorf("%w: scale of equation '%s' is %g, want a positive finite typical magnitude", ErrInvalidProblem, p.eqName(i), s)
 		}
 	}
 	for j := 0; j < n; j++ {
 		lo, hi := p.lower(j), p.upper(j)
 		if math.IsNaN(lo) || math.IsNaN(hi) {
-			return fmt.Errorf("solver: bounds of unknown '%s' are [%g, %g], want numbers (use ±Inf for none)", p.varName(j), lo, hi)
+			return fmt.Errorf("%w: bounds of unknown '%s' are [%g, %g], want numbers (use ±Inf for none)", ErrInvalidProblem, p.varName(j), lo, hi)
 		}
 		if lo > hi {
-			return fmt.Errorf("solver: bounds of unknown '%s' are crossed: lower %g > upper %g", p.varName(j), lo, hi)
+			return fmt.Errorf("%w: bounds of unknown '%s' are crossed: lower %g > upper %g", ErrInvalidProblem, p.varName(j), lo, hi)
 		}
 	}
 	for i, row := range p.Pattern {
 		for _, j := range row {
 			if j < 0 || j >= n {
-				return fmt.Errorf("solver: pattern of equation '%s' lists unknown index %d, want 0 ≤ index < %d", p.eqName(i), j, n)
+				return fmt.Errorf("%w: pattern of equation '%s' lists unknown index %d, want 0 ≤ index < %d", ErrInvalidProblem, p.eqName(i), j, n)
 			}
 		}
 	}
@@ -182,6 +182,17 @@ type Settings struct {
 	// search. Zero means 40.
 	MaxBacktracks int
 
+	// Regularize makes the solver take a Levenberg–Marquardt step,
+	// (J̃ᵀJ̃ + μI)·s = −J̃ᵀF̃ with μ = √(n·ε)·‖J̃ᵀJ̃‖₁, when the scaled
+	// Jacobian is singular or its condition estimate exceeds MaxCondition,
+	// instead of stopping with SingularJacobian. It helps where a
+	// singular Jacobian is passing (a flow through zero in a square law, a
+	// start on a symmetry line); it hides a modelling error that makes the
+	// Jacobian singular everywhere, so the count of such steps is reported
+	// in Result.RegularizedSteps. Default false: a singular Jacobian stops
+	// the solve and is reported by name.
+	Regularize bool
+
 	// SkipDiagnosis skips the structural diagnosis that New runs when the
 	// problem has a Pattern. Use it for a warm sequence of solves of the same
 	// structure after the first has been diagnosed.
@@ -214,7 +225,7 @@ func (s *Settings) withDefaults() (Settings, error) {
 		c = *s
 	}
 	if c.MaxIterations < 0 {
-		return c, fmt.Errorf("solver: Settings.MaxIterations is %d, want ≥ 0 (0 means %d)", c.MaxIterations, DefaultMaxIterations)
+		return c, fmt.Errorf("%w: Settings.MaxIterations is %d, want ≥ 0 (0 means %d)", ErrInvalidProblem, c.MaxIterations, DefaultMaxIterations)
 	}
 	if c.MaxIterations == 0 {
 		c.MaxIterations = DefaultMaxIterations
@@ -232,17 +243,17 @@ func (s *Settings) withDefaults() (Settings, error) {
 		{"Armijo", &c.Armijo, DefaultArmijo},
 	} {
 		if *t.v < 0 || math.IsNaN(*t.v) {
-			return c, fmt.Errorf("solver: Settings.%s is %g, want ≥ 0 (0 means the default)", t.name, *t.v)
+			return c, fmt.Errorf("%w: Settings.%s is %g, want ≥ 0 (0 means the default)", ErrInvalidProblem, t.name, *t.v)
 		}
 		if *t.v == 0 {
 			*t.v = t.def
 		}
 	}
 	if c.Armijo >= 0.5 {
-		return c, fmt.Errorf("solver: Settings.Armijo is %g, want 0 < c < 0.5", c.Armijo)
+		return c, fmt.Errorf("%w: Settings.Armijo is %g, want 0 < c < 0.5", ErrInvalidProblem, c.Armijo)
 	}
 	if c.MaxBacktracks < 0 {
-		return c, fmt.Errorf("solver: Settings.MaxBacktracks is %d, want ≥ 0 (0 means %d)", c.MaxBacktracks, DefaultMaxBacktracks)
+		return c, fmt.Errorf("%w: Settings.MaxBacktracks is %d, want ≥ 0 (0 means %d)", ErrInvalidProblem, c.MaxBacktracks, DefaultMaxBacktracks)
 	}
 	if c.MaxBacktracks == 0 {
 		c.MaxBacktracks = DefaultMaxBacktracks
@@ -270,12 +281,18 @@ type Result struct {
 	Stats Stats
 
 	// ResidualNorm is the infinity norm of the scaled residual at X:
-	// max_i |F_i(X)|/FScale_i, the quantity FTol bounds.
+	// max_i |F_i(X)|/FScale_i, the quantity FTol bounds. It is +Inf if the
+	// residual could not be evaluated at the start point.
 	ResidualNorm float64
 
 	// StepNorm is the scaled infinity norm of the last accepted step:
-	// max_j |Δx_j|/max(|x_j|, XScale_j), the quantity XTol bounds.
+	// max_j |Δx_j|/max(|x_j|, XScale_j), the quantity XTol bounds; 0 if
+	// no step was taken.
 	StepNorm float64
+
+	// RegularizedSteps counts the Levenberg–Marquardt steps taken on a
+	// singular Jacobian (Settings.Regularize).
+	RegularizedSteps int
 
 	// Colors is the number of residual evaluations one finite-difference
 	// Jacobian costs: the colour count with a Pattern, Dim without one, and
@@ -292,6 +309,7 @@ type Iteration struct {
 	Alpha        float64   // line-search step length taken (1 is a full Newton step)
 	Backtracks   int       // step reductions in this line search
 	Cond         float64   // condition estimate of the scaled Jacobian
+	Regularized  bool      // the step was a Levenberg–Marquardt step (Settings.Regularize)
 	Stats        Stats     // counters so far
 }
 

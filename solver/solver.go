@@ -27,6 +27,9 @@ type Solver struct {
 	jac   *mat.Dense // scaled Jacobian
 	color *coloring  // nil for a dense finite-difference Jacobian
 
+	jtj    *mat.Dense // J̃ᵀJ̃ + μI for Levenberg–Marquardt steps (Regularize only)
+	lmFact *DenseLU
+
 	x, r     []float64 // current point and scaled residual
 	xt, rt   []float64 // trial point and its scaled residual
 	step     []float64 // scaled Newton step
@@ -96,6 +99,10 @@ func New(p Problem, s *Settings) (*Solver, error) {
 		sv.fact = NewDenseLU()
 	}
 	sv.jac = mat.NewDense(n, n, nil)
+	if set.Regularize {
+		sv.jtj = mat.NewDense(n, n, nil)
+		sv.lmFact = NewDenseLU()
+	}
 	if p.Jacobian == nil && p.Pattern != nil {
 		sv.color = colorColumns(p.Pattern, n)
 	}
@@ -131,13 +138,13 @@ func Solve(ctx context.Context, p Problem, x0 []float64, s *Settings) (*Result, 
 	}
 	sv, err := New(p, s)
 	if err != nil {
-		st := InvalidStart
+		st := InvalidProblem
 		if errors.Is(err, ErrStructure) {
 			st = StructurallySingular
 		}
 		x := make([]float64, len(x0))
 		copy(x, x0)
-		return &Result{X: x, Status: st, ResidualNorm: math.NaN(), StepNorm: math.NaN()}, err
+		return &Result{X: x, Status: st, ResidualNorm: math.Inf(1)}, err
 	}
 	return sv.Solve(ctx, x0)
 }
@@ -158,9 +165,10 @@ func (s *Solver) Solve(ctx context.Context, x0 []float64) (*Result, error) {
 	start := time.Now()
 	res := &s.res
 	res.Stats = Stats{}
+	res.RegularizedSteps = 0
 	res.Status = NotStarted
-	res.ResidualNorm = math.NaN()
-	res.StepNorm = math.NaN()
+	res.ResidualNorm = math.Inf(1)
+	res.StepNorm = 0
 	copy(s.x, x0)
 	copy(res.X, x0)
 	err := s.run(ctx)
@@ -223,25 +231,31 @@ func (s *Solver) run(ctx context.Context) error {
 		if err := s.jacobian(it); err != nil {
 			return s.fail(ResidualFailed, err)
 		}
+		s.gradient()
 		ferr := s.fact.Factorize(s.jac)
 		cond := s.fact.Cond()
+		regularized := false
 		if ferr != nil || !(cond <= set.MaxCondition) {
 			if math.IsNaN(cond) {
 				cond = math.Inf(1)
 			}
-			return s.fail(SingularJacobian, s.singularError(it, cond))
-		}
-		// Newton step in scaled unknowns: J̃·step = −F̃.
-		for i, v := range s.r {
-			s.rt[i] = -v
-		}
-		if err := s.fact.Solve(s.step, s.rt); err != nil {
-			return s.fail(SingularJacobian, s.singularError(it, math.Inf(1)))
+			if !set.Regularize || !s.levenbergMarquardt() {
+				return s.fail(SingularJacobian, s.singularError(it, cond))
+			}
+			regularized = true
+			s.res.RegularizedSteps++
+		} else {
+			// Newton step in scaled unknowns: J̃·step = −F̃.
+			for i, v := range s.r {
+				s.rt[i] = -v
+			}
+			if err := s.fact.Solve(s.step, s.rt); err != nil {
+				return s.fail(SingularJacobian, s.singularError(it, math.Inf(1)))
+			}
 		}
 		if sn := infNorm(s.step); sn > set.MaxStep {
 			scale(s.step, set.MaxStep/sn)
 		}
-		s.gradient()
 
 		alpha, back, fnew, err := s.lineSearch(f, it)
 		if err != nil {
@@ -263,7 +277,7 @@ func (s *Solver) run(ctx context.Context) error {
 		s.res.StepNorm = stepNorm
 		if set.Recorder != nil {
 			s.itRecord = Iteration{Iter: it, X: s.x, ResidualNorm: fnorm, StepNorm: stepNorm,
-				Alpha: alpha, Backtracks: back, Cond: cond, Stats: s.res.Stats}
+				Alpha: alpha, Backtracks: back, Cond: cond, Regularized: regularized, Stats: s.res.Stats}
 			if err := set.Recorder.Record(s.itRecord); err != nil {
 				return s.fail(ResidualFailed, fmt.Errorf("recorder at iteration %d: %w", it, err))
 			}
@@ -293,6 +307,49 @@ func (s *Solver) residual(r, x []float64, it int, trial bool) error {
 		r[i] = v / s.fs[i]
 	}
 	return nil
+}
+
+// levenbergMarquardt sets s.step to the solution of
+// (J̃ᵀJ̃ + μI)·step = −J̃ᵀF̃ with μ = √(n·ε)·‖J̃ᵀJ̃‖₁, the perturbation
+// Dennis and Schnabel (1983, §6.5) give for a singular or ill-conditioned
+// Jacobian (from memory). It needs s.grad and returns false if J̃ is zero
+// or the perturbed matrix cannot be factorised.
+func (s *Solver) levenbergMarquardt() bool {
+	n := s.n
+	raw := s.jac.RawMatrix()
+	a := s.jtj.RawMatrix()
+	for i := 0; i < n; i++ {
+		for j := 0; j <= i; j++ {
+			sum := 0.0
+			for k := 0; k < n; k++ {
+				sum += raw.Data[k*raw.Stride+i] * raw.Data[k*raw.Stride+j]
+			}
+			a.Data[i*a.Stride+j] = sum
+			a.Data[j*a.Stride+i] = sum
+		}
+	}
+	norm1 := 0.0
+	for j := 0; j < n; j++ {
+		col := 0.0
+		for i := 0; i < n; i++ {
+			col += math.Abs(a.Data[i*a.Stride+j])
+		}
+		norm1 = math.Max(norm1, col)
+	}
+	if norm1 == 0 {
+		return false
+	}
+	mu := math.Sqrt(float64(n)*0x1p-52) * norm1
+	for i := 0; i < n; i++ {
+		a.Data[i*a.Stride+i] += mu
+	}
+	if s.lmFact.Factorize(s.jtj) != nil {
+		return false
+	}
+	for j, g := range s.grad {
+		s.rt[j] = -g
+	}
+	return s.lmFact.Solve(s.step, s.rt) == nil
 }
 
 // gradient sets s.grad = J̃ᵀ·F̃, the gradient of ½‖F̃‖² in scaled unknowns.

@@ -24,6 +24,7 @@ const (
 	ResidualFailed                     // Residual, Jacobian or the Recorder returned an error
 	StructurallySingular               // the sparsity pattern admits no perfect matching
 	InvalidStart                       // the start point is outside the bounds or not finite
+	InvalidProblem                     // the Problem or Settings are contradictory (crossed bounds, bad scales)
 )
 
 var statusNames = [...]string{
@@ -38,6 +39,7 @@ var statusNames = [...]string{
 	ResidualFailed:       "residual failed",
 	StructurallySingular: "structurally singular",
 	InvalidStart:         "invalid start",
+	InvalidProblem:       "invalid problem",
 }
 
 // String returns a short lower-case description.
@@ -59,6 +61,7 @@ var (
 	ErrResidual        = errors.New("solver: residual function failed")
 	ErrStructure       = errors.New("solver: structurally singular system")
 	ErrInvalidStart    = errors.New("solver: invalid start point")
+	ErrInvalidProblem  = errors.New("solver: invalid problem")
 	errNotStartedError = errors.New("solver: not started")
 
 	// ErrDomain may be wrapped by an error that Residual returns when x lies
@@ -93,6 +96,8 @@ func (s Status) Err() error {
 		return ErrStructure
 	case InvalidStart:
 		return ErrInvalidStart
+	case InvalidProblem:
+		return ErrInvalidProblem
 	}
 	return fmt.Errorf("solver: unknown status %d", int(s))
 }
