@@ -226,8 +226,8 @@ func (in *FurnaceInput) adiabatic(tw float64) (float64, error) {
 		return 0, inputErr(furnaceWhere, "firing rate (W)", in.FiringRate, "0 when AdiabaticTemperature is given (set one of them)")
 	case in.AdiabaticTemperature != 0:
 		t := in.AdiabaticTemperature
-		if !(t >= tw) || math.IsInf(t, 1) {
-			return 0, inputErr(furnaceWhere, "adiabatic temperature (K)", t, "a finite temperature >= the wall temperature")
+		if !(t >= tw && t <= maxGasTemperature) {
+			return 0, inputErr(furnaceWhere, "adiabatic temperature (K)", t, "a temperature between the wall temperature and 5000 K")
 		}
 		return t, nil
 	}

@@ -209,19 +209,36 @@ func (g *RadiatingGas) check(where string) (WSGGSet, float64, Warning, error) {
 	return set, paL, w, nil
 }
 
-func wsggSum(set WSGGSet, tWeights, paL float64) float64 {
+// wsggSum returns Σ a_i(T)·[1 − exp(−κ_i·pa·L)]. Far outside 600-2400 K
+// the weight polynomials stop making sense; when the clear-gas weight a0
+// turns negative or ε leaves [0, 1] it returns an ErrRange error instead of
+// a number.
+func wsggSum(where string, set WSGGSet, tWeights, paL float64) (float64, error) {
 	a := set.Weights(tWeights)
 	k := set.Kappa()
 	e := 0.0
 	for i := 1; i < 4; i++ {
 		e += a[i] * -math.Expm1(-k[i]*paL)
 	}
-	return e
+	if !(a[0] >= 0 && e >= 0 && e <= 1) {
+		return 0, rangeErr(where, "T for the weights (K)", tWeights,
+			"a temperature where the "+set.String()+" weights are usable (a0 >= 0, 0 <= ε <= 1; fitted for 600-2400 K)")
+	}
+	return e, nil
 }
+
+// wsggTHardMax is the temperature above which the weights are refused: the
+// cubic weight polynomials turn upward beyond about 3000 K (ε of the
+// pw/pc = 1 set at pa·L = 0.2 atm·m: 0.085 at 2600 K, 0.071 at 3000 K, 0.094
+// at 3500 K, 0.18 at 4000 K [C]), which is not physical.
+const wsggTHardMax = 3000.0
 
 func checkTemp(where, name string, t float64) (Warning, error) {
 	if !(t > 0) || math.IsInf(t, 1) {
 		return 0, inputErr(where, name, t, "a finite temperature > 0 K")
+	}
+	if t > wsggTHardMax {
+		return 0, rangeErr(where, name, t, "T <= 3000 K (WSGG fitted for 600-2400 K; the weights turn unphysical above 3000 K)")
 	}
 	if t < wsggTMin || t > wsggTMax {
 		return WarnWSGGTemperature, nil
@@ -235,7 +252,10 @@ func checkTemp(where, name string, t float64) (Warning, error) {
 //	ε = Σ_{i=1..3} a_i(T)·[1 − exp(−κ_i·pa·L)]
 //
 // Outside 600-2400 K or 0.001-10 atm·m (ranges from memory [M]) the value is
-// still computed and a Warning is set. Allocates nothing.
+// still computed and a Warning is set; above 3000 K, or where the
+// extrapolated weights stop making sense (a0 < 0 or ε outside [0, 1]), it
+// returns an ErrRange error.
+// Allocates nothing.
 func (g RadiatingGas) Emissivity(T float64) (float64, Warning, error) {
 	const where = "WSGG emissivity (Smith, Shen & Friedman 1982)"
 	set, paL, w, err := g.check(where)
@@ -246,7 +266,11 @@ func (g RadiatingGas) Emissivity(T float64) (float64, Warning, error) {
 	if err != nil {
 		return 0, 0, err
 	}
-	return wsggSum(set, T, paL), w | wt, nil
+	e, err := wsggSum(where, set, T, paL)
+	if err != nil {
+		return 0, 0, err
+	}
+	return e, w | wt, nil
 }
 
 // Absorptivity returns the total absorptivity of the gas (at any gas
@@ -270,7 +294,11 @@ func (g RadiatingGas) Absorptivity(Ts float64) (float64, Warning, error) {
 	if err != nil {
 		return 0, 0, err
 	}
-	return wsggSum(set, Ts, paL), w | wt, nil
+	a, err := wsggSum(where, set, Ts, paL)
+	if err != nil {
+		return 0, 0, err
+	}
+	return a, w | wt, nil
 }
 
 // EffectiveEmissivity returns the exchange factor of one grey gas zone and

@@ -184,6 +184,14 @@ func TestWSGGWarningsAndErrors(t *testing.T) {
 	if _, w, err := g.Emissivity(2500); err != nil || !w.Has(WarnWSGGTemperature) {
 		t.Errorf("2500 K: want WarnWSGGTemperature, got %v, %v", w, err)
 	}
+	// Above 3000 K the weights are refused (this package's limit: the cubic
+	// polynomials turn upward there).
+	if _, _, err := g.Emissivity(3500); !errors.Is(err, ErrRange) {
+		t.Errorf("3500 K: want ErrRange, got %v", err)
+	}
+	if _, w, err := g.Emissivity(2900); err != nil || !w.Has(WarnWSGGTemperature) {
+		t.Errorf("2900 K: want a value with WarnWSGGTemperature, got %v, %v", w, err)
+	}
 	long := g
 	long.PathLength = 100
 	if _, w, _ := long.Emissivity(1000); !w.Has(WarnWSGGPathLength) {

@@ -141,10 +141,11 @@ var conductivityFits = [NumSpecies][3]nasaFit{
 }
 
 const (
-	microPoise    = 1e-7 // Pa·s
-	microWPerCmK  = 1e-4 // W/(m·K)
-	whereSpeciesV = "NASA CEA viscosity fit"
-	whereSpeciesK = "NASA CEA conductivity fit"
+	extrapolationFloor = 200.0 // K, lowest temperature of any extrapolation
+	microPoise         = 1e-7  // Pa·s
+	microWPerCmK       = 1e-4  // W/(m·K)
+	whereSpeciesV      = "NASA CEA viscosity fit"
+	whereSpeciesK      = "NASA CEA conductivity fit"
 )
 
 // pickFit returns the fit range containing t (a boundary belongs to the
@@ -165,10 +166,11 @@ func pickFit(fits *[3]nasaFit, t float64) (f *nasaFit, out bool) {
 // TransportOptions tunes the gas transport properties. The zero value gives
 // the defaults.
 type TransportOptions struct {
-	// AllowExtrapolation: outside a fit's temperature range (H2O below
-	// 373.2 K, for example) evaluate the nearest range anyway and set
+	// AllowExtrapolation: below a fit's lowest temperature but not below
+	// 200 K (in practice: H2O between 200 and 373.2 K, humid air and
+	// cold flue gas) evaluate the lowest range anyway and set
 	// WarnTransportExtrapolated, instead of returning an ErrRange error.
-	// Temperatures must still be finite and positive.
+	// Above the top of the fits there is never extrapolation.
 	AllowExtrapolation bool
 	// Epsilon is the factor of the Mason-Saxena A_ij = ε·Φ_ij in the
 	// Wassiljewa conductivity rule. 0 means 1.0 (Poling's recommendation,
@@ -186,7 +188,7 @@ func speciesFit(fits *[NumSpecies][3]nasaFit, where string, s Species, t float64
 	f, out := pickFit(&fits[s], t)
 	var w Warning
 	if out {
-		if !allowExtrap {
+		if !allowExtrap || t < extrapolationFloor || t > fits[s][2].tHigh {
 			return 0, 0, rangeErr(where, "T of "+speciesName[s]+" (K)", t,
 				rangeText(fits[s][0].tLow, fits[s][2].tHigh))
 		}

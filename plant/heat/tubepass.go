@@ -154,6 +154,9 @@ func (s SmokeTubes) Solve(in TubePassInput) (TubePassResult, error) {
 	}
 	do := s.Di + 2*s.WallThickness
 	area := float64(s.Count) * math.Pi * s.Di * s.Length
+	if math.IsInf(area, 1) || math.IsInf(do, 1) {
+		return res, inputErr(tubeWhere, "inside area n·π·d_i·L (m²)", area, "a finite area and outside diameter")
+	}
 	res.AreaInside = area
 	hin, _ := in.Enthalpy(tin)
 	gas := GasFromComposition(&in.Composition, p, 0.95*s.Di, s.Set)
