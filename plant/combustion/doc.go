@@ -16,7 +16,8 @@
 //     rows in testdata. Ideal-gas cp(T) and h(T) − h(298.15 K) per species
 //     (Species) and per mixture (Mixture), without allocation. SO2's fit is
 //     published from 300 K and is used from 298.15 K (documented 1.85 K
-//     extrapolation).
+//     extrapolation); below that, only for a reference temperature under
+//     25 °C in Efficiency, it is continued with its 298.15 K heat capacity.
 //   - Stoichiometry (plant-checks.md §2 [CP]): O2 and air for complete
 //     combustion from the ultimate analysis (Stoichiometry), with standard
 //     dry air O2 20.946 %, Ar 0.934 %, N2 78.120 % including CO2 and traces

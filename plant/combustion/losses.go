@@ -152,6 +152,10 @@ type Losses struct {
 //     from t_ref to its temperature, fuel sensible heat (Cragoe) from t_ref
 //     to FuelT.
 //
+// For a reference temperature below 298.15 K, where the SO2 data of NASA
+// TM-4513 stop, SO2 is continued with its 298.15 K heat capacity (a linear
+// extrapolation of at most 45 K; SO2 is about 0.15 % of the dry gas).
+//
 // The specific energy is taken as valid at t_ref (the difference between its
 // value at 25 °C and at another t_ref is neglected). With t_ref equal to the
 // air temperature the dry-gas and moisture losses are those of Siegert's
@@ -202,10 +206,15 @@ func Efficiency(p Products, flueT, refT float64, o LossOptions) (Losses, error) 
 	if err != nil {
 		return Losses{}, fmt.Errorf("combustion: efficiency: dry flue gas: %w", err)
 	}
+	// SO2's data start at 298.15 K; below it (a reference temperature under
+	// 25 °C) SO2 is continued with its 298.15 K heat capacity, see the doc.
+	nSO2 := dry[SO2]
+	dry[SO2] = 0
 	hDryRef, err := amountsH(&dry, refT)
 	if err != nil {
 		return Losses{}, fmt.Errorf("combustion: efficiency: dry flue gas: %w", err)
 	}
+	hDryRef += nSO2 * so2HExtended(refT)
 	qDry := hDryFg - hDryRef
 	hvFg, err := H2O.H(flueT)
 	if err != nil {
@@ -345,4 +354,15 @@ func SiegertCO2(flueT, airT, co2Dry float64, c SiegertCoefficients) (float64, er
 		return 0, fmt.Errorf("combustion: Siegert: dry CO2 %g; want 0.01…0.3", co2Dry)
 	}
 	return (flueT - airT) * (c.A1/(100*co2Dry) + c.B), nil
+}
+
+// so2HExtended returns SO2's H(T) − H(298.15 K) (J/mol), continued below
+// 298.15 K with the 298.15 K heat capacity.
+func so2HExtended(T float64) float64 {
+	if T >= TRef {
+		h, _ := SO2.HMolar(T) // T ≤ 323.15 K here: inside the range
+		return h
+	}
+	cp, _ := SO2.CpMolar(TRef)
+	return cp * (T - TRef)
 }

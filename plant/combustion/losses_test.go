@@ -165,3 +165,24 @@ func TestRadiationScaling(t *testing.T) {
 		t.Errorf("empty products accepted")
 	}
 }
+
+// A reference temperature of 15 °C is accepted although SO2's data start at
+// 298.15 K (documented extension); the dry-gas loss grows by the dry gas's
+// heat from 15 to 25 °C, about 0.52 kmol·29.9 J/(mol·K)·10 K/LHV ≈ 0.38
+// points (29.9: a round mean molar cp of this dry gas near 20 °C from the
+// JANAF 300 K values in testdata, N2 29.1, O2 29.4, CO2 37.2; ±0.02 points
+// covers the rounding).
+func TestEfficiencyLowReference(t *testing.T) {
+	t.Parallel()
+	p, _ := Fire(testFuel(), Conditions{O2Dry: 0.03, AirT: 288.15, FuelT: 288.15})
+	l15, err := Efficiency(p, 523.15, 288.15, LossOptions{})
+	if err != nil {
+		t.Fatal(err)
+	}
+	l25, err := Efficiency(p, 523.15, TRef, LossOptions{})
+	if err != nil {
+		t.Fatal(err)
+	}
+	d := l15.LHV.DryGas - l25.LHV.DryGas
+	near(t, "dry-gas loss, ref 15 °C − ref 25 °C, points", d, 100*p.DryMoles()*29.9*10/p.Energy.Net, 0.02)
+}
