@@ -56,6 +56,9 @@ func HumidityRatio(rh, T, p float64, dryAir [NumSpecies]float64) (float64, error
 	if !(p >= 50e3 && p <= 200e3) {
 		return 0, fmt.Errorf("combustion: air pressure %g Pa; want 50e3…200e3 Pa", p)
 	}
+	if T < 273.15 {
+		return 0, fmt.Errorf("combustion: relative humidity at %g K: below 0 °C the saturation over ice is not modelled; give the humidity ratio (kg/kg dry air) instead", T)
+	}
 	ps, err := psatIF97(T)
 	if err != nil {
 		return 0, err

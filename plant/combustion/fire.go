@@ -368,7 +368,7 @@ func Fire(f fuel.Fuel, c Conditions) (Products, error) {
 	if !(airT >= MinAirT && airT <= MaxAirT) {
 		return Products{}, fmt.Errorf("combustion: air temperature %g K; want %g…%g K", airT, MinAirT, MaxAirT)
 	}
-	if !(steamT >= 273.15 && steamT <= 873.15) {
+	if c.AtomisingSteam != 0 && !(steamT >= 273.15 && steamT <= 873.15) {
 		return Products{}, fmt.Errorf("combustion: atomising steam temperature %g K; want 273.15…873.15 K", steamT)
 	}
 	if !(fuelT >= MinAirT && fuelT <= 573.15) {

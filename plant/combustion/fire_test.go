@@ -210,6 +210,7 @@ func TestFireErrors(t *testing.T) {
 		{"invalid fuel", fuel.Fuel{Name: "bad", Analysis: fuel.Analysis{C: 2}}, Conditions{Lambda: 1.1}, false, "Analysis.C"},
 		{"NaN λ", testFuel(), Conditions{Lambda: math.NaN()}, true, "below 1"},
 		{"hot air", testFuel(), Conditions{Lambda: 1.1, AirT: 2000}, false, "air temperature"},
+		{"RH below 0 °C", testFuel(), Conditions{Lambda: 1.1, AirT: 263.15, RelativeHumidity: 0.8}, false, "humidity ratio"},
 	}
 	for _, c := range cases {
 		_, err := Fire(c.f, c.c)
