@@ -108,3 +108,22 @@ func TestBoundsLeaveBound(t *testing.T) {
 		t.Errorf("status %v, error %v, x = %v; want (0.5, 2)", res.Status, err, res.X)
 	}
 }
+
+// TestFiniteDifferenceDomain: F(x) = √(1 − x) − 1/2 is defined only for
+// x ≤ 1 and the model says so with ErrDomain, not with a bound. From
+// x0 = 1 − 1e-10 the forward step √ε leaves the domain; the solver turns
+// the step round. Root by inspection: x = 3/4.
+func TestFiniteDifferenceDomain(t *testing.T) {
+	t.Parallel()
+	p := Problem{Dim: 1, Residual: func(r, x []float64) error {
+		if x[0] > 1 {
+			return fmt.Errorf("x = %g > 1: %w", x[0], ErrDomain)
+		}
+		r[0] = math.Sqrt(1-x[0]) - 0.5
+		return nil
+	}}
+	res, err := Solve(context.Background(), p, []float64{1 - 1e-10}, nil)
+	if err != nil || math.Abs(res.X[0]-0.75) > 1e-9 { // |F′(3/4)| = 1, so |Δx| ≲ FTol
+		t.Errorf("status %v, error %v, x = %v; want 0.75", res.Status, err, res.X)
+	}
+}

@@ -1,6 +1,7 @@
 package solver
 
 import (
+	"errors"
 	"math"
 	"sort"
 
@@ -112,20 +113,18 @@ func (s *Solver) fdStep(j int, x []float64) float64 {
 }
 
 // fdJacobian fills s.jac with the scaled forward-difference Jacobian at x,
-// whose scaled residual is r. It uses s.xt and s.rt as work space.
+// whose scaled residual is r. It uses s.xt, s.rt and s.h as work space.
 func (s *Solver) fdJacobian(x, r []float64, it int) error {
 	n := s.n
 	raw := s.jac.RawMatrix()
 	copy(s.xt, x)
 	if s.color == nil {
 		for j := 0; j < n; j++ {
-			h := s.fdStep(j, x)
-			s.xt[j] = x[j] + h
-			if err := s.residual(s.rt, s.xt, it, false); err != nil {
+			s.one[0] = j
+			if err := s.perturb(s.one[:], x, it); err != nil {
 				return err
 			}
-			s.xt[j] = x[j]
-			f := s.xs[j] / h
+			f := s.xs[j] / s.h[j]
 			for i := 0; i < n; i++ {
 				raw.Data[i*raw.Stride+j] = (s.rt[i] - r[i]) * f
 			}
@@ -139,16 +138,10 @@ func (s *Solver) fdJacobian(x, r []float64, it int) error {
 		}
 	}
 	for _, group := range s.color.groups {
-		for _, j := range group {
-			h := s.fdStep(j, x)
-			s.h[j] = h
-			s.xt[j] = x[j] + h
-		}
-		if err := s.residual(s.rt, s.xt, it, false); err != nil {
+		if err := s.perturb(group, x, it); err != nil {
 			return err
 		}
 		for _, j := range group {
-			s.xt[j] = x[j]
 			f := s.xs[j] / s.h[j]
 			for _, i := range s.color.colRows[j] {
 				raw.Data[i*raw.Stride+j] = (s.rt[i] - r[i]) * f
@@ -156,6 +149,31 @@ func (s *Solver) fdJacobian(x, r []float64, it int) error {
 		}
 	}
 	return nil
+}
+
+// perturb evaluates the scaled residual into s.rt at x with the unknowns
+// of group moved by their steps (stored in s.h), and restores s.xt to x.
+// If the residual reports ErrDomain, the steps are turned round (where
+// that stays in the box) and the evaluation is tried once more.
+func (s *Solver) perturb(group []int, x []float64, it int) error {
+	for _, j := range group {
+		s.h[j] = s.fdStep(j, x)
+		s.xt[j] = x[j] + s.h[j]
+	}
+	err := s.residual(s.rt, s.xt, it, true)
+	if err != nil && errors.Is(err, ErrDomain) {
+		for _, j := range group {
+			if t := x[j] - s.h[j]; t >= s.lo[j] && t <= s.hi[j] {
+				s.h[j] = t - x[j]
+				s.xt[j] = t
+			}
+		}
+		err = s.residual(s.rt, s.xt, it, false)
+	}
+	for _, j := range group {
+		s.xt[j] = x[j]
+	}
+	return err
 }
 
 // analyticJacobian calls Problem.Jacobian and scales the result in place:
@@ -176,7 +194,61 @@ func (s *Solver) analyticJacobian(x []float64, it int) error {
 			row[j] = v * s.xs[j] * fi
 		}
 	}
+	if s.p.Pattern != nil {
+		return s.checkPattern(it)
+	}
 	return nil
+}
+
+// checkPattern reports the entries of the scaled Jacobian that are nonzero
+// outside the Pattern.
+func (s *Solver) checkPattern(it int) error {
+	raw := s.jac.RawMatrix()
+	var e *PatternError
+	for i := 0; i < s.n; i++ {
+		for _, j := range s.p.Pattern[i] {
+			s.mark[j] = i + 1
+		}
+		row := raw.Data[i*raw.Stride : i*raw.Stride+s.n]
+		for j, v := range row {
+			if v != 0 && s.mark[j] != i+1 {
+				if e == nil {
+					e = &PatternError{Iter: it}
+				}
+				e.Entries = append(e.Entries, [2]string{s.p.eqName(i), s.p.varName(j)})
+			}
+		}
+	}
+	if e != nil {
+		return e
+	}
+	return nil
+}
+
+// CheckPattern forms a dense forward-difference Jacobian at x (one
+// residual evaluation per unknown, whatever the Pattern) and returns a
+// *PatternError listing every entry that is nonzero but missing from the
+// Pattern, or nil. An incomplete pattern makes coloured finite
+// differences wrong without any other sign, so a model's tests should call
+// this at a few representative points. It panics if the problem has no
+// Pattern.
+func (s *Solver) CheckPattern(x []float64) error {
+	if s.p.Pattern == nil {
+		panic("solver: Solver.CheckPattern: the problem has no Pattern")
+	}
+	if len(x) != s.n {
+		panic("solver: Solver.CheckPattern: len(x) = " + itoa(len(x)) + ", want Dim = " + itoa(s.n))
+	}
+	color := s.color
+	s.color = nil
+	defer func() { s.color = color }()
+	if err := s.residual(s.r, x, 0, false); err != nil {
+		return err
+	}
+	if err := s.fdJacobian(x, s.r, 0); err != nil {
+		return err
+	}
+	return s.checkPattern(0)
 }
 
 // checkJacobian reports the first non-finite entry of the scaled Jacobian.

@@ -36,6 +36,8 @@ type Solver struct {
 	dir      []float64 // scaled search direction (full step)
 	grad     []float64 // scaled gradient of ½‖F̃‖²: J̃ᵀF̃
 	h        []float64 // finite-difference steps
+	one      [1]int    // a single-column group for dense differences
+	mark     []int     // column marks for the pattern check
 	xout     []float64 // Result.X storage
 	res      Result
 	itRecord Iteration
@@ -111,6 +113,9 @@ func New(p Problem, s *Settings) (*Solver, error) {
 	sv.x, sv.r, sv.xt, sv.rt = next(), next(), next(), next()
 	sv.step, sv.dir, sv.grad, sv.h, sv.xout = next(), next(), next(), next(), next()
 	sv.res.X = sv.xout
+	if p.Pattern != nil {
+		sv.mark = make([]int, n)
+	}
 	switch {
 	case p.Jacobian != nil:
 		sv.res.Colors = 0
@@ -189,6 +194,9 @@ func (s *Solver) fail(st Status, err error) error {
 		return err
 	}
 	switch err.(type) {
+	case *PatternError:
+		s.res.Status = InvalidProblem
+		return err
 	case *NumberError:
 		s.res.Status = BadNumber
 		return err

@@ -193,3 +193,29 @@ func (e *statusError) Unwrap() []error {
 	}
 	return []error{e.status.Err()}
 }
+
+// PatternError lists Jacobian entries that are nonzero although the
+// Problem's Pattern leaves them out.
+type PatternError struct {
+	Iter    int
+	Entries [][2]string // {equation, unknown} pairs
+}
+
+func (e *PatternError) Error() string {
+	var b strings.Builder
+	fmt.Fprintf(&b, "solver: the Pattern is incomplete (iteration %d): ", e.Iter)
+	for k, p := range e.Entries {
+		if k == 5 {
+			fmt.Fprintf(&b, "; and %d more", len(e.Entries)-5)
+			break
+		}
+		if k > 0 {
+			b.WriteString("; ")
+		}
+		fmt.Fprintf(&b, "equation '%s' depends on unknown '%s'", p[0], p[1])
+	}
+	return b.String()
+}
+
+// Unwrap lets errors.Is(err, ErrInvalidProblem) match.
+func (e *PatternError) Unwrap() error { return ErrInvalidProblem }

@@ -240,3 +240,38 @@ func TestDiagnoseBadPattern(t *testing.T) {
 		t.Error("Diagnose without a pattern: no error")
 	}
 }
+
+// TestPatternCheck: a pattern that leaves out a dependency is caught with
+// an analytic Jacobian during the solve and by CheckPattern for finite
+// differences (constructed case, no source).
+func TestPatternCheck(t *testing.T) {
+	t.Parallel()
+	m := broydenTridiagonal(6)
+	p := m.problem(true)
+	p.EqNames = []string{"e0", "e1", "e2", "e3", "e4", "e5"}
+	p.VarNames = []string{"x0", "x1", "x2", "x3", "x4", "x5"}
+	p.Pattern = band(6, 1, 1)
+	p.Pattern[2] = []int{1, 2} // drops x3 from e2
+	res, err := Solve(context.Background(), p, m.x0, nil)
+	var pe *PatternError
+	if res.Status != InvalidProblem || !errors.As(err, &pe) || len(pe.Entries) != 1 || pe.Entries[0] != [2]string{"e2", "x3"} {
+		t.Fatalf("analytic: status %v, error %v; want InvalidProblem naming e2 and x3", res.Status, err)
+	}
+	p.Jacobian = nil
+	sv, err := New(p, nil)
+	if err != nil {
+		t.Fatal(err)
+	}
+	err = sv.CheckPattern(m.x0)
+	if !errors.As(err, &pe) || len(pe.Entries) != 1 || pe.Entries[0] != [2]string{"e2", "x3"} {
+		t.Errorf("CheckPattern: %v; want e2 depends on x3", err)
+	}
+	p.Pattern = band(6, 1, 1)
+	sv, err = New(p, nil)
+	if err != nil {
+		t.Fatal(err)
+	}
+	if err := sv.CheckPattern(m.x0); err != nil {
+		t.Errorf("complete pattern: %v", err)
+	}
+}
