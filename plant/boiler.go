@@ -1,0 +1,334 @@
+package plant
+
+import (
+	"fmt"
+	"math"
+)
+
+// FuelSpec is what a boiler needs to know of its fuel for the energy
+// balance: the lower calorific value and the CO2 conversion factor.
+type FuelSpec struct {
+	Name      string
+	LHV       float64 // lower calorific value, J/kg
+	CO2Factor float64 // kg CO2 per kg fuel
+}
+
+// BoilerOperation is the state of a boiler that its efficiency may depend
+// on.
+type BoilerOperation struct {
+	Load  float64 // steam flow as a fraction of MCR (the firing rate while firing)
+	DrumP float64 // Pa
+	FeedT float64 // K
+	Fuel  FuelSpec
+}
+
+// EfficiencyModel gives a boiler's efficiency: heat to steam and blowdown
+// divided by fuel flow times the fuel's lower calorific value. The
+// combustion model plugs in here; a maker's test table is the simplest.
+type EfficiencyModel interface {
+	// Efficiency returns the efficiency at op and, if the model had to go
+	// outside the range it knows, a warning saying so.
+	Efficiency(op BoilerOperation) (eta float64, warning string, err error)
+	// Basis names the calorific value the efficiency refers to ("LHV").
+	Basis() string
+}
+
+// EfficiencyTable is a maker's test: efficiency (LHV basis) against load
+// fraction of MCR, interpolated linearly. Outside the tested loads it holds
+// the end value and says so in a warning.
+type EfficiencyTable struct {
+	Load []float64 // fractions of MCR, strictly increasing
+	Eta  []float64 // efficiencies, 0..1
+}
+
+// Validate checks the table.
+func (t *EfficiencyTable) Validate() error {
+	if len(t.Load) == 0 || len(t.Load) != len(t.Eta) {
+		return fmt.Errorf("efficiency table needs as many efficiencies as loads and at least one; got %d loads and %d efficiencies", len(t.Load), len(t.Eta))
+	}
+	for i := range t.Load {
+		if !finite(t.Load[i]) || t.Load[i] < 0 || t.Load[i] > 1.5 {
+			return fmt.Errorf("efficiency table load %g is not a fraction of MCR between 0 and 1.5", t.Load[i])
+		}
+		if i > 0 && t.Load[i] <= t.Load[i-1] {
+			return fmt.Errorf("efficiency table loads must increase; %g follows %g", t.Load[i], t.Load[i-1])
+		}
+		if !finite(t.Eta[i]) || t.Eta[i] <= 0.3 || t.Eta[i] > 1 {
+			return fmt.Errorf("efficiency %g at load %g is not between 0.3 and 1", t.Eta[i], t.Load[i])
+		}
+	}
+	return nil
+}
+
+// Efficiency interpolates the table at op.Load.
+func (t *EfficiencyTable) Efficiency(op BoilerOperation) (float64, string, error) {
+	n := len(t.Load)
+	x := op.Load
+	switch {
+	case x <= t.Load[0]:
+		if x < t.Load[0]-1e-9 && n > 1 {
+			return t.Eta[0], fmt.Sprintf("load %.0f %% is below the efficiency table's lowest load %.0f %%; its efficiency is used", 100*x, 100*t.Load[0]), nil
+		}
+		return t.Eta[0], "", nil
+	case x >= t.Load[n-1]:
+		if x > t.Load[n-1]+1e-9 {
+			return t.Eta[n-1], fmt.Sprintf("load %.0f %% is above the efficiency table's highest load %.0f %%; its efficiency is used", 100*x, 100*t.Load[n-1]), nil
+		}
+		return t.Eta[n-1], "", nil
+	}
+	i := 1
+	for t.Load[i] < x {
+		i++
+	}
+	f := (x - t.Load[i-1]) / (t.Load[i] - t.Load[i-1])
+	return t.Eta[i-1] + f*(t.Eta[i]-t.Eta[i-1]), "", nil
+}
+
+// Basis is "LHV".
+func (t *EfficiencyTable) Basis() string { return "LHV" }
+
+// Boiler is an oil-fired auxiliary boiler: a drum at a set pressure raising
+// steam of a set dryness from its feed, with blowdown, burning fuel at the
+// rate its energy balance and efficiency require:
+//
+//	ṁ_fuel · LHV · η = ṁ_steam·(h_steam − h_feed) + ṁ_blowdown·(h_f,drum − h_feed)
+//
+// Below its burner minimum (MCR / Turndown) it cycles on and off: the fuel
+// is then the time average, at the efficiency of the minimum firing rate
+// reduced by CyclingLoss for the purges.
+type Boiler struct {
+	UnitBase
+	MCR   float64 // maximum continuous rating, kg/s of steam
+	DrumP float64 // drum pressure, Pa absolute
+	// Dryness of the steam leaving the drum, 0..1; zero means 1 (dry
+	// saturated).
+	Dryness float64
+	// Blowdown as a fraction of feed. If zero and TDSFeed and TDSMax are
+	// given, the fraction is TDSFeed/TDSMax (the ratio of dissolved solids
+	// in the feed to the limit in the boiler water).
+	Blowdown        float64
+	TDSFeed, TDSMax float64
+	// Turndown is the burner's turndown ratio (4 means 1:4): the burner
+	// cannot fire below MCR/Turndown. Zero means the minimum is not known
+	// and cycling is not checked.
+	Turndown float64
+	// CyclingLoss is the fraction of efficiency lost to pre-purges when the
+	// boiler cycles below its burner minimum; zero means none is counted.
+	CyclingLoss float64
+	Efficiency  EfficiencyModel
+	Fuel        FuelSpec
+
+	feed, steam *Line
+	fuel        int
+	eqs         [4]int
+	mt, mf, mh  memo
+}
+
+// Kind returns "oil-fired boiler".
+func (u *Boiler) Kind() string { return "oil-fired boiler" }
+
+// Ports: feed in, steam out.
+func (u *Boiler) Ports() []PortSpec {
+	return []PortSpec{{Name: "feed", Dir: In, Medium: WaterSteam}, {Name: "steam", Dir: Out, Medium: WaterSteam}}
+}
+
+func (u *Boiler) dryness() float64 {
+	if u.Dryness == 0 {
+		return 1
+	}
+	return u.Dryness
+}
+
+func (u *Boiler) blowdown() float64 {
+	if u.Blowdown == 0 && u.TDSMax > 0 {
+		return u.TDSFeed / u.TDSMax
+	}
+	return u.Blowdown
+}
+
+// MinLoad is the burner minimum as a fraction of MCR, zero when the
+// turndown is not known.
+func (u *Boiler) MinLoad() float64 {
+	if u.Turndown == 0 {
+		return 0
+	}
+	return 1 / u.Turndown
+}
+
+func (u *Boiler) check(fs *faults) {
+	checkRange(fs, u, "MCR", u.MCR, 1e-3, 500, "kg/s")
+	checkRange(fs, u, "drum pressure", u.DrumP, 1.1e5, 2.2e7, "Pa")
+	if u.Dryness != 0 {
+		checkRange(fs, u, "steam dryness", u.Dryness, 0.8, 1, "")
+	}
+	checkRange(fs, u, "blowdown fraction", u.Blowdown, 0, 0.2, "")
+	if u.Blowdown == 0 && u.TDSMax > 0 {
+		checkRange(fs, u, "feed TDS", u.TDSFeed, 0, u.TDSMax*0.2, "(same unit as the TDS limit; blowdown fraction is TDS feed / TDS limit, at most 0.2)")
+	}
+	if u.Turndown != 0 {
+		checkRange(fs, u, "burner turndown ratio", u.Turndown, 1, 20, "")
+	}
+	checkRange(fs, u, "cycling loss", u.CyclingLoss, 0, 0.2, "")
+	if u.Efficiency == nil {
+		fs.add(u.Pos, u.Name, "", "needs an efficiency (a maker's test table or a combustion model)")
+	} else if t, ok := u.Efficiency.(*EfficiencyTable); ok {
+		if err := t.Validate(); err != nil {
+			fs.add(u.Pos, u.Name, "", "%v", err)
+		}
+	}
+	checkRange(fs, u, "fuel lower calorific value", u.Fuel.LHV, 1e7, 6e7, "J/kg")
+	checkRange(fs, u, "fuel CO2 factor", u.Fuel.CO2Factor, 0, 4, "kg/kg")
+}
+
+func (u *Boiler) assemble(a *assembly, ports map[string][]*Line) {
+	u.feed, u.steam = one(ports["feed"]), one(ports["steam"])
+	u.fuel = a.variable(u.Name+": fuel flow", 0.1, 0, math.Inf(1), 0.05)
+	u.eqs[0] = a.equation(u.Name+": drum pressure", scaleP, u.steam.pIdx())
+	u.eqs[1] = a.equation(u.Name+": steam dryness", scaleH, u.steam.pIdx(), u.steam.hIdx())
+	u.eqs[2] = a.equation(u.Name+": feed and blowdown", 1, u.feed.mIdx(), u.steam.mIdx())
+	u.eqs[3] = a.equation(u.Name+": fuel from the energy balance", scaleQ,
+		u.fuel, u.feed.mIdx(), u.feed.pIdx(), u.feed.hIdx(), u.steam.mIdx(), u.steam.pIdx(), u.steam.hIdx())
+}
+
+// operation returns the state the efficiency is evaluated at and whether
+// the boiler cycles below its burner minimum.
+func (u *Boiler) operation(ev *eval) (BoilerOperation, bool, error) {
+	load := ev.m(u.steam) / u.MCR
+	cycling := load < u.MinLoad()-1e-12
+	fire := load
+	if cycling {
+		fire = u.MinLoad()
+	}
+	ft, err := u.mt.get2(ev.p(u.feed), ev.h(u.feed), tPH)
+	if err != nil {
+		return BoilerOperation{}, false, err
+	}
+	return BoilerOperation{Load: fire, DrumP: u.DrumP, FeedT: ft, Fuel: u.Fuel}, cycling, nil
+}
+
+func (u *Boiler) eta(ev *eval) (eta float64, warn string, cycling bool, err error) {
+	op, cycling, err := u.operation(ev)
+	if err != nil {
+		return 0, "", false, err
+	}
+	eta, warn, err = u.Efficiency.Efficiency(op)
+	if err != nil {
+		return 0, "", false, err
+	}
+	if cycling {
+		eta *= 1 - u.CyclingLoss
+	}
+	return eta, warn, cycling, nil
+}
+
+// heat is the heat the boiler puts into steam and blowdown, W.
+func (u *Boiler) heat(ev *eval) (float64, error) {
+	hf, err := u.mf.get1(u.DrumP, hLiquidSat)
+	if err != nil {
+		return 0, err
+	}
+	hfw := ev.h(u.feed)
+	mf, ms := ev.m(u.feed), ev.m(u.steam)
+	return ms*(ev.h(u.steam)-hfw) + (mf-ms)*(hf-hfw), nil
+}
+
+func (u *Boiler) residual(ev *eval, r []float64) error {
+	hs, err := u.mh.get2(u.DrumP, u.dryness(), hPX)
+	if err != nil {
+		return wrapUnitErr(u, err)
+	}
+	q, err := u.heat(ev)
+	if err != nil {
+		return wrapUnitErr(u, err)
+	}
+	eta, _, _, err := u.eta(ev)
+	if err != nil {
+		return wrapUnitErr(u, err)
+	}
+	r[u.eqs[0]] = ev.p(u.steam) - u.DrumP
+	r[u.eqs[1]] = ev.h(u.steam) - hs
+	r[u.eqs[2]] = ev.m(u.feed)*(1-u.blowdown()) - ev.m(u.steam)
+	r[u.eqs[3]] = ev.x[u.fuel]*u.Fuel.LHV*eta - q
+	return nil
+}
+
+func (u *Boiler) guess(x []float64) {
+	x[u.steam.pIdx()] = u.DrumP
+	if h, err := hPX(u.DrumP, u.dryness()); err == nil {
+		x[u.steam.hIdx()] = h
+	}
+	x[u.feed.mIdx()] = x[u.steam.mIdx()] / (1 - u.blowdown())
+}
+
+func (u *Boiler) report(ev *eval, cr *CaseResult) error {
+	eta, warn, cycling, err := u.eta(ev)
+	if err != nil {
+		return wrapUnitErr(u, err)
+	}
+	ms, mf := ev.m(u.steam), ev.m(u.feed)
+	mbd := mf - ms
+	hf, err := hLiquidSat(u.DrumP)
+	if err != nil {
+		return wrapUnitErr(u, err)
+	}
+	ft, err := tPH(ev.p(u.feed), ev.h(u.feed))
+	if err != nil {
+		return wrapUnitErr(u, err)
+	}
+	q, err := u.heat(ev)
+	if err != nil {
+		return wrapUnitErr(u, err)
+	}
+	firing := ev.disp.firing(u)
+	fuel := ev.x[u.fuel]
+	br := BoilerResult{
+		Name:            u.Name,
+		Firing:          firing,
+		LoadFraction:    ms / u.MCR,
+		SteamKgS:        ms,
+		FuelKgS:         fuel,
+		Efficiency:      eta,
+		EfficiencyBasis: u.Efficiency.Basis(),
+		FuelName:        u.Fuel.Name,
+		FuelLHV:         u.Fuel.LHV,
+		DrumP:           u.DrumP,
+		FeedT:           ft,
+		SteamDryness:    u.dryness(),
+		BlowdownKgS:     mbd,
+		HeatW:           q,
+		MCRKgS:          u.MCR,
+		Cycling:         firing && cycling && ms > 0,
+		CO2KgS:          fuel * u.Fuel.CO2Factor,
+	}
+	if br.Cycling {
+		br.OnFraction = br.LoadFraction / u.MinLoad()
+		cr.warn("%s %q: demand %.0f %% of MCR is below the burner minimum %.0f %% (turndown 1:%g); it cycles on and off, firing %.0f %% of the time; each restart needs a full pre-purge",
+			u.Kind(), u.Name, 100*br.LoadFraction, 100*u.MinLoad(), u.Turndown, 100*br.OnFraction)
+	}
+	if firing && ms > u.MCR*(1+1e-9) {
+		cr.warn("%s %q: steam %.0f kg/h is above its MCR of %.0f kg/h (%.0f %%)", u.Kind(), u.Name, ms*3600, u.MCR*3600, 100*ms/u.MCR)
+	}
+	if warn != "" && firing && ms > 0 {
+		cr.warn("%s %q: %s", u.Kind(), u.Name, warn)
+	}
+	cr.Boilers = append(cr.Boilers, br)
+	cr.boundary.heatIn += q
+	cr.boundary.massOut += mbd
+	cr.boundary.energyOut += mbd * hf
+	cr.BlowdownKgS += mbd
+	return nil
+}
+
+func (u *Boiler) param(name string) (*float64, error) {
+	switch name {
+	case "dryness":
+		return &u.Dryness, nil
+	case "blowdown":
+		return &u.Blowdown, nil
+	case "mcr":
+		return &u.MCR, nil
+	case "drum_p":
+		return &u.DrumP, nil
+	}
+	return nil, paramErr(u, name, "dryness", "blowdown", "mcr", "drum_p")
+}

@@ -1,0 +1,86 @@
+package plant
+
+import (
+	"steamcase/plant/water"
+)
+
+// Thin wrappers over the IF97 properties that units call in their
+// residuals. Each returns the water package's error, which names the bound
+// crossed; the caller wraps it with its unit.
+
+func hLiquidSat(p float64) (float64, error) {
+	s, err := water.SatLiquid(p)
+	return s.H, err
+}
+
+func hVapourSat(p float64) (float64, error) {
+	s, err := water.SatVapour(p)
+	return s.H, err
+}
+
+// hPX is the enthalpy of wet steam of dryness x at pressure p.
+func hPX(p, x float64) (float64, error) {
+	s, err := water.PX(p, x)
+	return s.H, err
+}
+
+// hCondensate is the enthalpy of condensate at pressure p leaving sub
+// kelvin below saturation (sub = 0: saturated liquid).
+func hCondensate(p, sub float64) (float64, error) {
+	if sub <= 0 {
+		return hLiquidSat(p)
+	}
+	ts, err := water.Tsat(p)
+	if err != nil {
+		return 0, err
+	}
+	return water.HPT(p, ts-sub)
+}
+
+// hPT is the enthalpy of single-phase water or steam.
+func hPT(p, t float64) (float64, error) { return water.HPT(p, t) }
+
+// tPH is the temperature at (p, h), wet or single-phase.
+func tPH(p, h float64) (float64, error) { return water.TPH(p, h) }
+
+// memo remembers the last value of a property function of one or two
+// arguments. Within one Newton iteration most residual evaluations (the
+// finite-difference columns) repeat the arguments of the last call, and
+// set points (drum and tank pressures) repeat across iterations, so a unit
+// keeps one memo per property call site. Errors are not remembered.
+type memo struct {
+	a, b, v float64
+	set     bool
+}
+
+func (m *memo) get1(a float64, f func(float64) (float64, error)) (float64, error) {
+	if m.set && m.a == a {
+		return m.v, nil
+	}
+	v, err := f(a)
+	if err != nil {
+		m.set = false
+		return 0, err
+	}
+	m.a, m.v, m.set = a, v, true
+	return v, nil
+}
+
+func (m *memo) get2(a, b float64, f func(float64, float64) (float64, error)) (float64, error) {
+	if m.set && m.a == a && m.b == b {
+		return m.v, nil
+	}
+	v, err := f(a, b)
+	if err != nil {
+		m.set = false
+		return 0, err
+	}
+	m.a, m.b, m.v, m.set = a, b, v, true
+	return v, nil
+}
+
+// vPH is the specific volume at (p, h).
+func vPH(p, h float64) (float64, error) {
+	s, err := water.PH(p, h)
+	return s.V, err
+}

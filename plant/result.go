@@ -1,0 +1,138 @@
+package plant
+
+import (
+	"fmt"
+	"math"
+)
+
+// CaseResult is the answer to one load case. Every figure is SI (kg/s, W,
+// Pa, K, J/kg); JSON gives the documented schema in the units its keys
+// name.
+type CaseResult struct {
+	Name       string
+	Pos        Pos
+	Conditions Conditions
+
+	Converged    bool
+	Iterations   int // Newton iterations of the final configuration
+	Solves       int // configurations tried by the dispatch
+	ResidualNorm float64
+
+	BoilersFiring int
+	CanCarry      bool
+	ShortfallKgS  float64 // demand beyond all boilers' MCR
+	// MarginNextKgS is how much more steam the firing boilers can take
+	// before the next boiler must fire (UsableFraction of their MCR), or,
+	// with all boilers firing, before their MCR is reached.
+	MarginNextKgS float64
+	Forced        bool // the case forced which boilers fire
+
+	SteamProductionKgS float64
+	SteamDemandKgS     float64
+	FuelKgS            float64
+	CO2KgS             float64
+	MakeUpKgS          float64
+	ElectricW          float64
+	BlowdownKgS        float64
+	VentedKgS          float64
+	CondensateLostKgS  float64
+	DumpedKgS          float64
+	FeedTankT          float64
+
+	Balance Balance
+
+	Boilers   []BoilerResult
+	Consumers []ConsumerResult
+	Units     []UnitResult
+	Lines     []LineResult
+	Warnings  []string
+
+	boundary boundary
+}
+
+// Balance holds the closures of the case's balances, computed from the
+// solved lines and the units' reported flows, not from the residuals.
+type Balance struct {
+	// MassRel is |mass in − mass out| / mass throughput of the plant
+	// boundary: make-up in; blowdown, vented steam, lost condensate out.
+	MassRel float64
+	// EnergyRel is |energy in − energy out| / energy throughput: fuel heat
+	// to water, pump work and make-up in; consumer duties, losses,
+	// turbine work and the enthalpy of lost water out.
+	EnergyRel float64
+}
+
+// boundary accumulates the flows across the plant boundary while units
+// report.
+type boundary struct {
+	massIn, massOut     float64 // kg/s
+	energyIn, energyOut float64 // W, enthalpy flows
+	heatIn, heatOut     float64 // W
+	workIn, workOut     float64 // W
+}
+
+// BoilerResult is one boiler's part in a case.
+type BoilerResult struct {
+	Name            string
+	Firing          bool
+	Cycling         bool
+	OnFraction      float64 // share of time the burner is on when cycling
+	LoadFraction    float64
+	MCRKgS          float64
+	SteamKgS        float64
+	FuelKgS         float64
+	CO2KgS          float64
+	Efficiency      float64
+	EfficiencyBasis string
+	FuelName        string
+	FuelLHV         float64
+	DrumP           float64
+	FeedT           float64
+	SteamDryness    float64
+	BlowdownKgS     float64
+	HeatW           float64
+}
+
+// ConsumerResult is one steam consumer's part in a case.
+type ConsumerResult struct {
+	Name      string
+	Kind      string
+	DutyW     float64 // heat delivered, or shaft power of a turbine
+	SteamKgS  float64
+	ReturnKgS float64
+	LostKgS   float64
+	// DrainCoolerW is the heat the returning condensate gives up in a
+	// drain cooler before the feed tank.
+	DrainCoolerW float64
+}
+
+// UnitResult holds the figures of a unit that is neither a boiler nor a
+// consumer, by name with the unit in the key.
+type UnitResult struct {
+	Name    string
+	Kind    string
+	Figures map[string]float64
+}
+
+// LineResult is the solved state of one line.
+type LineResult struct {
+	Name     string
+	M, P, T  float64
+	H        float64
+	X        float64 // quality; meaningful only when TwoPhase
+	Phase    string
+	TwoPhase bool
+}
+
+func (cr *CaseResult) warn(format string, args ...any) {
+	cr.Warnings = append(cr.Warnings, fmt.Sprintf(format, args...))
+}
+
+// closure is |a − b| / scale, with a zero scale giving the plain difference.
+func closure(a, b, scale float64) float64 {
+	d := math.Abs(a - b)
+	if scale <= 0 {
+		return d
+	}
+	return d / scale
+}

@@ -1,0 +1,342 @@
+package plant
+
+import (
+	"context"
+	"errors"
+	"fmt"
+	"math"
+
+	"steamcase/plant/water"
+	"steamcase/solver"
+)
+
+// Case is one load case: the surroundings, the parameters of units that
+// differ from the plant's (a consumer's duty, a turbine's power, a unit
+// switched off), and optionally which boilers must fire.
+type Case struct {
+	Name       string
+	Pos        Pos
+	Conditions Conditions
+	Set        []Setting
+	// Fire, if not nil, names the boilers that must fire; the others stay
+	// cold. Nil lets the plant decide by its firing rule.
+	Fire []string
+}
+
+// Setting changes one parameter of one unit for a case.
+type Setting struct {
+	Unit  string
+	Param string
+	Value float64
+	Pos   Pos
+}
+
+// domainErr marks a unit's failure while the solver explores: the solver
+// shortens a line-search step that meets it and reports it otherwise.
+type domainErr struct{ err error }
+
+func (e domainErr) Error() string        { return e.err.Error() }
+func (e domainErr) Unwrap() error        { return e.err }
+func (e domainErr) Is(target error) bool { return target == solver.ErrDomain }
+
+// residual evaluates every unit's equations and the dispatch equations.
+func (p *Plant) residual(r, x []float64) error {
+	ev := &p.ev
+	ev.x = x
+	for _, u := range p.units {
+		if err := u.residual(ev, r); err != nil {
+			return domainErr{err}
+		}
+	}
+	p.dispatchResidual(x, r)
+	return nil
+}
+
+func (p *Plant) solverSettings() *solver.Settings {
+	s := solver.Settings{}
+	if p.Opt.Solver != nil {
+		s = *p.Opt.Solver
+	}
+	s.SkipDiagnosis = true // compile has diagnosed the structure
+	return &s
+}
+
+// solveConfig solves the plant with the boilers in fire firing, starting
+// from the last converged point when there is one.
+func (p *Plant) solveConfig(ctx context.Context, fire []bool) error {
+	copy(p.disp.fire, fire)
+	if p.x0 == nil {
+		p.x0 = make([]float64, p.prob.Dim)
+	}
+	warm := p.last != nil
+	if warm {
+		copy(p.x0, p.last)
+	} else {
+		p.guess(p.x0)
+	}
+	res, err := p.slv.Solve(ctx, p.x0)
+	if err != nil && warm && ctx.Err() == nil {
+		p.guess(p.x0)
+		res, err = p.slv.Solve(ctx, p.x0)
+	}
+	p.slvRes = *res
+	if err != nil {
+		return err
+	}
+	if p.last == nil {
+		p.last = make([]float64, p.prob.Dim)
+	}
+	copy(p.last, res.X)
+	p.solves++
+	return nil
+}
+
+// ColdStart forgets the last solution, so that the next case starts from
+// the plant's own guess.
+func (p *Plant) ColdStart() { p.last = nil }
+
+// applySettings sets the case's parameters and returns a function that
+// restores the plant's own.
+func (p *Plant) applySettings(c *Case) (restore func(), err error) {
+	type saved struct {
+		ptr *float64
+		old float64
+	}
+	var olds []saved
+	restore = func() {
+		for i := len(olds) - 1; i >= 0; i-- {
+			*olds[i].ptr = olds[i].old
+		}
+	}
+	var fs faults
+	for _, s := range c.Set {
+		u, ok := p.byName[s.Unit]
+		if !ok {
+			fs.add(s.Pos, s.Unit, "", "case %q sets %q of a unit that the plant does not have", c.Name, s.Param)
+			continue
+		}
+		ptr, err := u.param(s.Param)
+		if err != nil {
+			var ue *UnitError
+			if errors.As(err, &ue) {
+				err = ue.Err
+			}
+			fs.add(s.Pos, s.Unit, "", "%v", err)
+			continue
+		}
+		if !finite(s.Value) {
+			fs.add(s.Pos, s.Unit, "", "%s must be a number; got %g", s.Param, s.Value)
+			continue
+		}
+		olds = append(olds, saved{ptr, *ptr})
+		*ptr = s.Value
+	}
+	for _, u := range p.units {
+		u.check(&fs)
+		if fp, ok := u.(*FeedPump); ok {
+			if err := fp.resolve(p); err != nil {
+				fs.add(fp.Pos, fp.Name, "", "%v", err)
+			}
+		}
+	}
+	if err := fs.err(); err != nil {
+		restore()
+		return nil, err
+	}
+	return restore, nil
+}
+
+// Solve solves one load case: it decides which boilers fire (or takes the
+// case's choice), solves the plant's balance, and reports. A case whose
+// demand exceeds every boiler's MCR is solved and reported with CanCarry
+// false and the shortfall; it is not an error.
+func (p *Plant) Solve(ctx context.Context, c Case) (*CaseResult, error) {
+	if err := p.compile(); err != nil {
+		return nil, err
+	}
+	restore, err := p.applySettings(&c)
+	if err != nil {
+		return nil, err
+	}
+	defer restore()
+	p.ev = eval{cond: c.Conditions, pl: p, disp: &p.disp}
+	p.solves = 0
+
+	n := len(p.boilers)
+	fire := make([]bool, n)
+	forced := c.Fire != nil
+	if forced {
+		var fs faults
+		for _, name := range c.Fire {
+			found := false
+			for i, b := range p.boilers {
+				if b.Name == name {
+					fire[i] = true
+					found = true
+				}
+			}
+			if !found {
+				fs.add(c.Pos, name, "", "case %q forces %q to fire, but the plant has no oil-fired boiler of that name", c.Name, name)
+			}
+		}
+		if len(c.Fire) == 0 && len(p.dumps) == 0 && n > 0 {
+			fs.add(c.Pos, "", "", "case %q forces every boiler off, but without an exhaust-gas economiser and a dump condenser nothing raises steam", c.Name)
+		}
+		if err := fs.err(); err != nil {
+			return nil, err
+		}
+		if err := p.solveConfig(ctx, fire); err != nil {
+			return nil, p.solveErr(c, err)
+		}
+	} else if err := p.decide(ctx, fire); err != nil {
+		return nil, p.solveErr(c, err)
+	}
+
+	cr := &CaseResult{Name: c.Name, Pos: c.Pos, Conditions: c.Conditions, Forced: forced}
+	if err := p.report(cr); err != nil {
+		return nil, err
+	}
+	return cr, nil
+}
+
+// decide finds how many boilers must fire: none if the steam system has a
+// dump condenser and steam over without them; else the fewest, in
+// declaration order, whose demand stays within UsableFraction of their
+// MCR; else all.
+func (p *Plant) decide(ctx context.Context, fire []bool) error {
+	n := len(p.boilers)
+	if n == 0 || len(p.dumps) > 0 {
+		for i := range fire {
+			fire[i] = false
+		}
+		err := p.solveConfig(ctx, fire)
+		if n == 0 {
+			return err
+		}
+		if err == nil && p.dumpFlow() >= 0 {
+			return nil
+		}
+		if ctx.Err() != nil {
+			return ctx.Err()
+		}
+	}
+	for k := 1; k <= n; k++ {
+		for i := range fire {
+			fire[i] = i < k
+		}
+		if err := p.solveConfig(ctx, fire); err != nil {
+			return err
+		}
+		var demand, mcr float64
+		for _, b := range p.boilers[:k] {
+			demand += p.last[b.steam.mIdx()]
+			mcr += b.MCR
+		}
+		if k == n || demand <= p.Opt.UsableFraction*mcr*(1+1e-12) {
+			return nil
+		}
+	}
+	return nil
+}
+
+func (p *Plant) dumpFlow() float64 {
+	var m float64
+	for _, d := range p.dumps {
+		m += p.last[d.in.mIdx()]
+	}
+	return m
+}
+
+// SolveError is a load case that the solver could not bring to a balance.
+type SolveError struct {
+	Case   string
+	Pos    Pos
+	Status solver.Status
+	Err    error
+}
+
+func (e *SolveError) Error() string {
+	pre := ""
+	if s := e.Pos.String(); s != "" {
+		pre = s + ": "
+	}
+	return fmt.Sprintf("%scase %q: no balance found (%s): %v", pre, e.Case, e.Status, e.Err)
+}
+
+func (e *SolveError) Unwrap() error { return e.Err }
+
+func (p *Plant) solveErr(c Case, err error) error {
+	return &SolveError{Case: c.Name, Pos: c.Pos, Status: p.slvRes.Status, Err: err}
+}
+
+// report fills cr from the last converged point.
+func (p *Plant) report(cr *CaseResult) error {
+	ev := &p.ev
+	ev.x = p.last
+	cr.Converged = p.slvRes.Status == solver.Converged
+	cr.Iterations = p.slvRes.Stats.Iterations
+	cr.ResidualNorm = p.slvRes.ResidualNorm
+	cr.Solves = p.solves
+	for _, u := range p.units {
+		if err := u.report(ev, cr); err != nil {
+			return err
+		}
+	}
+	for _, l := range p.lines {
+		if l.medium != WaterSteam {
+			continue
+		}
+		st, err := water.PH(ev.p(l), ev.h(l))
+		if err != nil {
+			return fmt.Errorf("line %q: %w", l.Name, err)
+		}
+		cr.Lines = append(cr.Lines, LineResult{
+			Name: l.Name, M: ev.m(l), P: st.P, T: st.T, H: st.H, X: st.X,
+			Phase: st.Phase.String(), TwoPhase: st.Phase == water.TwoPhase,
+		})
+	}
+
+	var capFiring, capAll float64
+	for _, b := range cr.Boilers {
+		cr.SteamProductionKgS += b.SteamKgS
+		cr.FuelKgS += b.FuelKgS
+		cr.CO2KgS += b.CO2KgS
+		capAll += b.MCRKgS
+		if b.Firing {
+			cr.BoilersFiring++
+			capFiring += b.MCRKgS
+		}
+	}
+	cr.SteamDemandKgS = cr.SteamProductionKgS - cr.DumpedKgS
+	fired := cr.SteamProductionKgS // from oil-fired boilers
+	switch {
+	case cr.BoilersFiring == 0:
+		cr.CanCarry = true
+		cr.MarginNextKgS = cr.DumpedKgS
+	case cr.BoilersFiring < len(p.boilers):
+		cr.CanCarry = fired <= capFiring*(1+1e-9) || !cr.Forced
+		cr.MarginNextKgS = p.Opt.UsableFraction*capFiring - fired
+		if cr.Forced {
+			cr.MarginNextKgS = capFiring - fired
+		}
+	default:
+		cr.CanCarry = fired <= capAll*(1+1e-9)
+		cr.MarginNextKgS = capAll - fired
+	}
+	if !cr.CanCarry {
+		cr.ShortfallKgS = fired - capFiring
+		if cr.Forced && cr.BoilersFiring < len(p.boilers) {
+			cr.warn("the boilers forced to fire cannot carry this case: short by %.0f kg/h", cr.ShortfallKgS*3600)
+		} else {
+			cr.warn("the plant cannot carry this case: short by %.0f kg/h", cr.ShortfallKgS*3600)
+		}
+	}
+
+	b := &cr.boundary
+	mIn, mOut := b.massIn, b.massOut
+	cr.Balance.MassRel = closure(mIn, mOut, math.Max(math.Max(mIn, mOut), fired))
+	eIn := b.energyIn + b.heatIn + b.workIn
+	eOut := b.energyOut + b.heatOut + b.workOut
+	cr.Balance.EnergyRel = closure(eIn, eOut, math.Max(eIn, eOut))
+	return nil
+}
