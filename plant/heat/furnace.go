@@ -115,7 +115,7 @@ func (f Furnace) Solve(in FurnaceInput) (FurnaceResult, error) {
 	gas := GasFromComposition(&in.Composition, p, f.BeamLength, f.Set)
 	soot := f.SootConstant
 	if soot == 0 {
-		soot = SootConstant(SootShaddix[0], SootShaddix[1], 3.72)
+		soot = SootConstant(SootShaddixN, SootShaddixK, 3.72)
 	}
 	mdot := in.GasFlow
 	var innerErr error

@@ -381,13 +381,15 @@ func BeamLengthShape(shape BeamShape, dim float64) (float64, error) {
 
 // Soot (gas-radiation.md §5).
 
-// SootShaddix and SootDalzellSarofim are complex refractive indices n − i·k
-// of soot: n = 1.75, k = 1.03 of Williams, Shaddix et al., IJHMT 50:1616
-// (2007) (used by public code BYUignite/radlib [S✓]) and the older
-// Dalzell-Sarofim n = 1.57, k = 0.56.
-var (
-	SootShaddix        = [2]float64{1.75, 1.03}
-	SootDalzellSarofim = [2]float64{1.57, 0.56}
+// Complex refractive indices n − i·k of soot: n = 1.75, k = 1.03 of
+// Williams, Shaddix et al., IJHMT 50:1616 (2007) (used by public code
+// BYUignite/radlib [S✓]) and the older Dalzell-Sarofim n = 1.57, k = 0.56
+// (gas-radiation.md §5).
+const (
+	SootShaddixN        = 1.75
+	SootShaddixK        = 1.03
+	SootDalzellSarofimN = 1.57
+	SootDalzellSarofimK = 0.56
 )
 
 // secondRadiationConstant is c2 = h·c/k_B in m·K, as rounded on the sheet.

@@ -315,11 +315,11 @@ func TestTubeRadiation(t *testing.T) {
 // 1264.9; the example f_v = 1e-7, T = 1450 K, L = 0.922 m gives ε_soot =
 // 0.216, and with ε_gas = 0.211, ε_flame = 0.381.
 func TestSoot(t *testing.T) {
-	k := SootConstant(SootShaddix[0], SootShaddix[1], 3.72)
+	k := SootConstant(SootShaddixN, SootShaddixK, 3.72)
 	printed(t, "C0 Shaddix", k*secondRadiationConstant/3.72, "7.0274")
 	printed(t, "3.72·C0/C2 Shaddix", k, "1816.9")
 	printed(t, "3.83·C0/C2 Shaddix", SootConstant(1.75, 1.03, 3.83), "1870.7")
-	kd := SootConstant(SootDalzellSarofim[0], SootDalzellSarofim[1], 3.72)
+	kd := SootConstant(SootDalzellSarofimN, SootDalzellSarofimK, 3.72)
 	printed(t, "C0 Dalzell-Sarofim", kd*secondRadiationConstant/3.72, "4.8922")
 	printed(t, "3.72·C0/C2 Dalzell-Sarofim", kd, "1264.9")
 	es := SootEmissivity(SootAbsorption(k, 1e-7, 1450), 0.922)

@@ -26,16 +26,28 @@ func (s Species) String() string {
 	return speciesName[s]
 }
 
-// MolarMass holds the molar masses in kg/mol (CEA thermo data, as listed in
+// molarMass holds the molar masses in kg/mol (CEA thermo data, as listed in
 // heat-transfer.md §1.2 [C]: 28.0134, 31.9988, 44.0095, 18.01528, 39.948 g/mol).
-var MolarMass = [NumSpecies]float64{28.0134e-3, 31.9988e-3, 44.0095e-3, 18.01528e-3, 39.948e-3}
+var molarMass = [NumSpecies]float64{28.0134e-3, 31.9988e-3, 44.0095e-3, 18.01528e-3, 39.948e-3}
+
+// MolarMass returns the molar mass of a species in kg/mol (CEA thermo data,
+// heat-transfer.md §1.2). An unknown species panics.
+func (s Species) MolarMass() float64 {
+	if s < 0 || s >= NumSpecies {
+		panic("heat: species index out of range")
+	}
+	return molarMass[s]
+}
 
 // Composition holds mole fractions of N2, O2, CO2, H2O and Ar, indexed by
 // Species. It is a fixed-size array, so passing it costs no allocation.
 type Composition [NumSpecies]float64
 
-// Air is dry air as used for the check values of heat-transfer.md §1.3.
-var Air = Composition{N2: 0.7808, O2: 0.2095, CO2: 0.0004, Ar: 0.0093}
+// DryAir returns dry air as used for the check values of heat-transfer.md
+// §1.3: x_N2 0.7808, x_O2 0.2095, x_Ar 0.0093, x_CO2 0.0004.
+func DryAir() Composition {
+	return Composition{N2: 0.7808, O2: 0.2095, CO2: 0.0004, Ar: 0.0093}
+}
 
 // compositionSumTol is how far the mole fractions may add up away from one.
 const compositionSumTol = 1e-3
@@ -61,7 +73,7 @@ func (x *Composition) Validate() error {
 func (x *Composition) MolarMassMix() float64 {
 	m := 0.0
 	for i, v := range x {
-		m += v * MolarMass[i]
+		m += v * molarMass[i]
 	}
 	return m
 }
@@ -74,7 +86,12 @@ type nasaFit struct {
 }
 
 func (f *nasaFit) eval(t float64) float64 {
-	return math.Exp(f.a*math.Log(t) + f.b/t + f.c/(t*t) + f.d)
+	return f.evalLn(math.Log(t), 1/t)
+}
+
+// evalLn evaluates the fit with ln T and 1/T precomputed.
+func (f *nasaFit) evalLn(lnT, invT float64) float64 {
+	return math.Exp(f.a*lnT + (f.b+f.c*invT)*invT + f.d)
 }
 
 // Coefficients of NASA CEA data/trans.inp (public repository nasa/cea, commit
@@ -254,22 +271,26 @@ func MixTransport(x *Composition, T float64, opt TransportOptions) (GasTransport
 	if !(eps > 0) || math.IsInf(eps, 0) {
 		return GasTransport{}, inputErr("Wassiljewa rule", "epsilon", eps, "a finite factor > 0 (0 for the default 1.0)")
 	}
+	if !(T > 0) || math.IsInf(T, 1) {
+		return GasTransport{}, inputErr("gas mixture transport", "T (K)", T, "a finite temperature > 0 K")
+	}
 	var eta, lam [NumSpecies]float64
 	var w Warning
+	lnT, invT := math.Log(T), 1/T
 	for i := range NumSpecies {
 		if x[i] == 0 {
 			continue
 		}
-		v, wi, err := SpeciesViscosity(i, T, opt)
-		if err != nil {
-			return GasTransport{}, err
+		fv, out := pickFit(&viscosityFits[i], T)
+		fk, _ := pickFit(&conductivityFits[i], T) // same ranges as the viscosity fits
+		if out {
+			if _, _, err := speciesFit(&viscosityFits, whereSpeciesV, i, T, opt.AllowExtrapolation); err != nil {
+				return GasTransport{}, err
+			}
+			w |= WarnTransportExtrapolated
 		}
-		k, wk, err := SpeciesConductivity(i, T, opt)
-		if err != nil {
-			return GasTransport{}, err
-		}
-		eta[i], lam[i] = v, k
-		w |= wi | wk
+		eta[i] = fv.evalLn(lnT, invT) * microPoise
+		lam[i] = fk.evalLn(lnT, invT) * microWPerCmK
 	}
 	var mu, cond float64
 	for i := range NumSpecies {
@@ -286,7 +307,8 @@ func MixTransport(x *Composition, T float64, opt TransportOptions) (GasTransport
 				sumA += x[j]
 				continue
 			}
-			phi := wilkePhi(eta[i], eta[j], MolarMass[i], MolarMass[j])
+			r := 1 + math.Sqrt(eta[i]/eta[j])*wilkeM[i][j].quarter
+			phi := r * r * wilkeM[i][j].invDen
 			sumPhi += x[j] * phi
 			sumA += x[j] * eps * phi
 		}
@@ -295,6 +317,20 @@ func MixTransport(x *Composition, T float64, opt TransportOptions) (GasTransport
 	}
 	return GasTransport{Viscosity: mu, Conductivity: cond, Warning: w}, nil
 }
+
+// wilkeMass holds the molar-mass factors of Φ_ij: (M_j/M_i)^¼ and
+// 1/[8·(1 + M_i/M_j)]^½. Computed once; never mutated.
+type wilkeMass struct{ quarter, invDen float64 }
+
+var wilkeM = func() (m [NumSpecies][NumSpecies]wilkeMass) {
+	for i := range NumSpecies {
+		for j := range NumSpecies {
+			m[i][j].quarter = math.Sqrt(math.Sqrt(molarMass[j] / molarMass[i]))
+			m[i][j].invDen = 1 / math.Sqrt(8*(1+molarMass[i]/molarMass[j]))
+		}
+	}
+	return m
+}()
 
 // wilkePhi is Wilke's interaction parameter Φ_ij.
 func wilkePhi(etaI, etaJ, mI, mJ float64) float64 {

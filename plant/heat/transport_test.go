@@ -12,6 +12,9 @@ import (
 // SO2 folded into N2).
 var flueTest = Composition{N2: 0.7540, CO2: 0.1250, H2O: 0.0950, O2: 0.0260}
 
+// air is dry air of heat-transfer.md §1.3.
+var air = DryAir()
+
 // TestNASACoefficientsMatchCSV compares every embedded coefficient with
 // testdata/gas-transport.csv (NASA CEA data/trans.inp, heat-transfer.md §1.1 [S✓]).
 func TestNASACoefficientsMatchCSV(t *testing.T) {
@@ -93,7 +96,7 @@ func TestTransportCheckValues(t *testing.T) {
 			counts["species"]++
 		case strings.HasPrefix(method, "NASA fits") || strings.HasPrefix(method, "as air"):
 			// [C] heat-transfer.md §1.3: NASA fits + Wilke + Wassiljewa ε = 1, printed rounding.
-			x := Air
+			x := air
 			if fluid == "flue_test" {
 				x = flueTest
 			}
@@ -115,7 +118,7 @@ func TestTransportCheckValues(t *testing.T) {
 		case strings.HasPrefix(method, "Lemmon & Jacobsen (2004) air correlation"):
 			// Independent route, heat-transfer.md §1.3: suggested tolerance
 			// against third-party air tables ±1 % for η and ±4 % for λ.
-			g, err := MixTransport(&Air, T, TransportOptions{})
+			g, err := MixTransport(&air, T, TransportOptions{})
 			mustNoErr(t, err)
 			withinRel(t, name+" η", g.Viscosity, parse(t, muS), 0.01)
 			withinRel(t, name+" λ", g.Conductivity, parse(t, kS), 0.04)
@@ -140,7 +143,7 @@ func TestTransportCheckValues(t *testing.T) {
 				counts["skipped"]++
 				continue
 			}
-			g, err := MixTransport(&Air, T, TransportOptions{})
+			g, err := MixTransport(&air, T, TransportOptions{})
 			mustNoErr(t, err)
 			within(t, name+" η deviation", g.Viscosity/parse(t, muS)-1, 0.0049, 0.00005)
 			within(t, name+" λ deviation", g.Conductivity/parse(t, kS)-1, -0.0052, 0.00005)
@@ -181,11 +184,11 @@ func TestTransportCheckValues(t *testing.T) {
 // 5.5-5.7 % (tolerance: the sheet's rounding).
 func TestWassiljewaEpsilon(t *testing.T) {
 	for _, T := range []float64{300, 600, 1000, 1500, 2000} {
-		g1, err := MixTransport(&Air, T, TransportOptions{})
+		g1, err := MixTransport(&air, T, TransportOptions{})
 		mustNoErr(t, err)
-		gMS, err := MixTransport(&Air, T, TransportOptions{Epsilon: 1.065})
+		gMS, err := MixTransport(&air, T, TransportOptions{Epsilon: 1.065})
 		mustNoErr(t, err)
-		gTS, err := MixTransport(&Air, T, TransportOptions{Epsilon: 0.85})
+		gTS, err := MixTransport(&air, T, TransportOptions{Epsilon: 0.85})
 		mustNoErr(t, err)
 		within(t, fmt.Sprintf("ε = 1.065 change at %g K", T), gMS.Conductivity/g1.Conductivity-1, -0.022, 0.0015)
 		if d := gTS.Conductivity/g1.Conductivity - 1; d < 0.0545 || d > 0.0575 {
@@ -199,13 +202,30 @@ func TestWassiljewaEpsilon(t *testing.T) {
 	// ("exactly", because M_N2 ≈ M_O2): check to 0.5 %.
 	var avg float64
 	for i := range NumSpecies {
-		if Air[i] > 0 {
+		if air[i] > 0 {
 			k, _, _ := SpeciesConductivity(i, 800, TransportOptions{})
-			avg += Air[i] * k
+			avg += air[i] * k
 		}
 	}
-	g, _ := MixTransport(&Air, 800, TransportOptions{})
+	g, _ := MixTransport(&air, 800, TransportOptions{})
 	withinRel(t, "air λ vs mole-fraction average at 800 K", g.Conductivity, avg, 0.005)
+}
+
+// TestFitRangesAgree: the viscosity and conductivity fits of each species
+// share their temperature ranges (MixTransport relies on it).
+func TestFitRangesAgree(t *testing.T) {
+	for s := range NumSpecies {
+		for i := range 3 {
+			v, k := viscosityFits[s][i], conductivityFits[s][i]
+			if v.tLow != k.tLow || v.tHigh != k.tHigh {
+				t.Errorf("%s range %d: viscosity %g-%g, conductivity %g-%g", s, i, v.tLow, v.tHigh, k.tLow, k.tHigh)
+			}
+		}
+	}
+	// Molar masses of heat-transfer.md §1.2 (g/mol).
+	for s, want := range [NumSpecies]float64{28.0134, 31.9988, 44.0095, 18.01528, 39.948} {
+		withinRel(t, Species(s).String()+" M", Species(s).MolarMass()*1000, want, 1e-15)
+	}
 }
 
 func TestTransportErrors(t *testing.T) {
@@ -218,7 +238,7 @@ func TestTransportErrors(t *testing.T) {
 		t.Errorf("negative fraction: want ErrInput, got %v", err)
 	}
 	for _, T := range []float64{math.NaN(), -1, 0, math.Inf(1)} {
-		if _, err := MixTransport(&Air, T, TransportOptions{AllowExtrapolation: true}); !errors.Is(err, ErrInput) {
+		if _, err := MixTransport(&air, T, TransportOptions{AllowExtrapolation: true}); !errors.Is(err, ErrInput) {
 			t.Errorf("T = %g: want ErrInput, got %v", T, err)
 		}
 	}
@@ -236,7 +256,7 @@ func TestTransportErrors(t *testing.T) {
 		t.Errorf("H2O at 373.1 K: want ErrRange, got %v", err)
 	}
 	// Dry air at 300 K needs no H2O fit.
-	if _, err := MixTransport(&Air, 300, TransportOptions{}); err != nil {
+	if _, err := MixTransport(&air, 300, TransportOptions{}); err != nil {
 		t.Errorf("dry air at 300 K: %v", err)
 	}
 	msg := fmt.Sprint(func() error { _, _, err := SpeciesViscosity(H2O, 300, TransportOptions{}); return err }())
