@@ -29,7 +29,9 @@
 //     (m∫c dT/t + losses at the mean temperature), §6 [CP]. With heating off,
 //     the lumped cool-down T(t) = T_amb + (T0 − T_amb)·exp(−t/τ), τ = m·c/ΣUA,
 //     with the UA-weighted mean of the boundary temperatures as T_amb
-//     (CoolDownAfter), and the time to cool to a temperature (TimeToCool).
+//     (exact for the lumped model; with Cragoe's c, linear in T, the model
+//     is integrated in closed form) (CoolDownAfter), and the time to cool to
+//     a temperature (TimeToCool).
 //     CargoHeating sums many tanks. CloudPointHM40 gives the cloud point
 //     from the pour point (Energy Institute HM 40, §6 [S✓]).
 //   - Accommodation: UA·(T_in − T_air) below a balance temperature, or a
@@ -46,9 +48,7 @@
 // Simplifications, each named again where it is made: U values, pump
 // efficiency and atomising ratio are fixed inputs; a tank's cargo is well
 // mixed and its steel's heat capacity is not counted; heat-up losses are
-// taken at the mean temperature; the cool-down uses one specific heat (at
-// the mean temperature, by iteration, when Cragoe's is used); tank geometry
-// is a box; IAPWS-IF97 is pure water. Inputs outside a correlation's range
+// taken at the mean temperature; tank geometry is a box; IAPWS-IF97 is pure water. Inputs outside a correlation's range
 // are an error, never a silent clamp; where a result is limited (a negative
 // tank duty taken as zero, a table extrapolated) a warning says so.
 //

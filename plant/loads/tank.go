@@ -378,9 +378,9 @@ type CoolDown struct {
 	// Reached is false when TimeToCool's target lies at or below the
 	// surroundings: the cargo never gets there (Elapsed is then zero).
 	Reached bool
-	// Tau is the time constant m·c/ΣUA (s).
+	// Tau is the time constant m·c/ΣUA (s), with c at the mean of T0 and T.
 	Tau float64
-	// Mass (kg), Cp used (J/(kg·K)), UA (W/K).
+	// Mass (kg), Cp at the mean of T0 and T (J/(kg·K)), UA (W/K).
 	Mass, Cp, UA float64
 	// AmbientT is the UA-weighted mean temperature beyond the boundaries (K).
 	AmbientT float64
@@ -389,16 +389,25 @@ type CoolDown struct {
 }
 
 // CoolDownAfter returns the cargo temperature after elapsed seconds with
-// the heating off, starting from T0:
+// the heating off, starting from T0, by the lumped model
 //
-//	T(t) = T_amb + (T0 − T_amb)·exp(−t/τ),   τ = m·c/ΣUA
+//	m·c(T)·dT/dt = −Σ U_i·A_i·(T − T_i) = −ΣUA·(T − T_amb)
 //
-// (plant-checks.md §6 [CP textbook lumped model]). With boundaries at
-// several temperatures T_amb is the UA-weighted mean Σ U_i·A_i·T_i / ΣUA,
-// which is exact for the lumped model (the loss is linear in the oil
-// temperature). c is the cargo's constant Cp, or Cragoe's c at the mean of
-// T0 and T(t), found by fixed-point iteration (the exponential law needs one
-// constant c). The tank's mode fields are not used.
+// (plant-checks.md §6 [CP]). With boundaries at several temperatures T_amb
+// is the UA-weighted mean Σ U_i·A_i·T_i / ΣUA; this is exact, not an
+// approximation, because the loss is linear in the oil temperature. With a
+// constant c the solution is the exponential of plant-checks.md §6,
+//
+//	T(t) = T_amb + (T0 − T_amb)·exp(−t/τ),   τ = m·c/ΣUA.
+//
+// With Cragoe's c, which is linear in T (c = c_a + c'·(T − T_amb)), the
+// model is integrated exactly:
+//
+//	t = (m/ΣUA)·[c_a·ln((T0 − T_amb)/(T − T_amb)) + c'·(T0 − T)]
+//
+// and solved for T by safeguarded Newton steps. The result's Tau uses c at
+// the mean of T0 and T (exact for a constant c). The tank's mode fields are
+// not used.
 func (t *TankHeating) CoolDownAfter(T0, elapsed float64, amb Ambient) (CoolDown, error) {
 	c := checker{KindTankHeating, t.Name}
 	r, err := t.coolSetup(c, T0, amb)
@@ -410,34 +419,59 @@ func (t *TankHeating) CoolDownAfter(T0, elapsed float64, amb Ambient) (CoolDown,
 	}
 	r.Elapsed = elapsed
 	r.Reached = true
-	Tend := T0
-	for range 50 {
-		cp, err := t.Cargo.cp(0.5 * (T0 + Tend))
-		if err != nil {
-			return r, c.wrap(err, "cargo %q specific heat", t.Cargo.Name)
-		}
-		r.Cp = cp
-		r.Tau = r.Mass * cp / r.UA
-		next := r.AmbientT + (T0-r.AmbientT)*math.Exp(-elapsed/r.Tau)
-		done := math.Abs(next-Tend) < 1e-9
-		Tend = next
-		if done {
-			break
-		}
+	ca, c1, err := t.cargoLine(c, T0, r.AmbientT)
+	if err != nil {
+		return r, err
 	}
-	r.T = Tend
-	if !finite(r.T, r.Tau) {
-		return CoolDown{Name: t.Name}, c.overflow("cool-down temperature")
+	u0 := T0 - r.AmbientT
+	k := r.UA * elapsed / r.Mass
+	T := T0
+	if u0 != 0 && k > 0 {
+		// Solve G(s) = ∫_s^0 c dσ − k = −ca·s + c1·u0·(1 − e^s) − k = 0 for
+		// s = ln(u/u0) ≤ 0; G decreases (G' = −c(T) < 0), G(0) = −k < 0 and
+		// G(−k/cmin) ≥ 0, with cmin the smaller of c at T0 and at T_amb.
+		cmin := math.Min(ca, ca+c1*u0)
+		lo, hi := -k/cmin, 0.0
+		sv := -k / (ca + c1*u0) // constant c at T0
+		if !(sv >= lo && sv <= hi) {
+			sv = 0.5 * (lo + hi)
+		}
+		for range 200 {
+			e := math.Exp(sv)
+			g := -ca*sv + c1*u0*(1-e) - k
+			if g > 0 {
+				lo = sv
+			} else {
+				hi = sv
+			}
+			next := sv + g/(ca+c1*u0*e)
+			if !(next > lo && next < hi) {
+				next = 0.5 * (lo + hi)
+			}
+			done := math.Abs(next-sv) <= 1e-13*(1+math.Abs(sv))
+			sv = next
+			if done || hi-lo <= 1e-15*(1+math.Abs(lo)) {
+				break
+			}
+		}
+		T = r.AmbientT + u0*math.Exp(sv)
+	}
+	r.T = T
+	if err := t.coolEnd(c, &r); err != nil {
+		return r, err
 	}
 	return r, nil
 }
 
 // TimeToCool returns the time (s) for the cargo to cool from T0 to target
-// with the heating off, t = τ·ln((T0 − T_amb)/(target − T_amb)), by the same
-// model as CoolDownAfter (c at the mean of T0 and target). A plan uses it to
-// say when heating must start again. A target at or above T0 takes no time;
-// a target at or below the surroundings is never reached (Reached false,
-// with a warning).
+// with the heating off, by the same model as CoolDownAfter:
+//
+//	t = (m/ΣUA)·[c_a·ln((T0 − T_amb)/(target − T_amb)) + c'·(T0 − target)]
+//
+// (c' = 0 for a constant c: t = τ·ln((T0 − T_amb)/(target − T_amb))). A
+// plan uses it to say when heating must start again. A target at or above
+// T0 takes no time; a target at or below the surroundings is never reached
+// (Reached false, Elapsed zero, with a warning).
 func (t *TankHeating) TimeToCool(T0, target float64, amb Ambient) (CoolDown, error) {
 	c := checker{KindTankHeating, t.Name}
 	r, err := t.coolSetup(c, T0, amb)
@@ -448,12 +482,10 @@ func (t *TankHeating) TimeToCool(T0, target float64, amb Ambient) (CoolDown, err
 		return r, err
 	}
 	r.T = target
-	cp, err := t.Cargo.cp(0.5 * (T0 + target))
+	ca, c1, err := t.cargoLine(c, T0, r.AmbientT)
 	if err != nil {
-		return r, c.wrap(err, "cargo %q specific heat", t.Cargo.Name)
+		return r, err
 	}
-	r.Cp = cp
-	r.Tau = r.Mass * cp / r.UA
 	switch {
 	case target >= T0:
 		r.Reached = true
@@ -463,12 +495,61 @@ func (t *TankHeating) TimeToCool(T0, target float64, amb Ambient) (CoolDown, err
 			celsius(r.AmbientT), celsius(target)))
 	default:
 		r.Reached = true
-		r.Elapsed = r.Tau * math.Log((T0-r.AmbientT)/(target-r.AmbientT))
+		u0, u := T0-r.AmbientT, target-r.AmbientT
+		r.Elapsed = r.Mass / r.UA * (ca*math.Log(u0/u) + c1*(u0-u))
 	}
-	if !finite(r.Elapsed, r.Tau) {
-		return CoolDown{Name: t.Name}, c.overflow("cool-down time")
+	if err := t.coolEnd(c, &r); err != nil {
+		return r, err
 	}
 	return r, nil
+}
+
+// cargoLine returns the cargo's specific heat as a line in T: c at Ta (ca,
+// J/(kg·K)) and its slope c1 (J/(kg·K²)), from c at T0 (which must be in
+// the correlation's range). For a constant Cp, ca = Cp and c1 = 0.
+func (t *TankHeating) cargoLine(c checker, T0, Ta float64) (ca, c1 float64, err error) {
+	cg := t.Cargo
+	if cg.Cp != 0 {
+		return cg.Cp, 0, nil
+	}
+	c0, err := cg.cp(T0)
+	if err != nil {
+		return 0, 0, c.wrap(err, "cargo %q specific heat", cg.Name)
+	}
+	T1 := T0 - 1
+	if T1 < fuel.MinCragoeT {
+		T1 = T0 + 1
+	}
+	cx, err := cg.cp(T1)
+	if err != nil {
+		return 0, 0, c.wrap(err, "cargo %q specific heat", cg.Name)
+	}
+	c1 = (cx - c0) / (T1 - T0)
+	ca = c0 - c1*(T0-Ta)
+	if !(ca > 0) {
+		return 0, 0, c.errf("cargo %q: specific heat extrapolated to the surroundings (%.4g °C) is not positive", cg.Name, celsius(Ta))
+	}
+	return ca, c1, nil
+}
+
+// coolEnd fills Cp and Tau (c at the mean of T0 and T) and checks the
+// result is finite and T within the cargo correlation's range.
+func (t *TankHeating) coolEnd(c checker, r *CoolDown) error {
+	cp, err := t.Cargo.cp(0.5 * (r.T0 + r.T))
+	if err == nil && t.Cargo.Cp == 0 {
+		_, err = t.Cargo.cp(r.T)
+	}
+	if err != nil {
+		*r = CoolDown{Name: t.Name}
+		return c.wrap(err, "cargo %q specific heat at the end of the cool-down", t.Cargo.Name)
+	}
+	r.Cp = cp
+	r.Tau = r.Mass * cp / r.UA
+	if !finite(r.T, r.Tau, r.Elapsed) {
+		*r = CoolDown{Name: t.Name}
+		return c.overflow("cool-down")
+	}
+	return nil
 }
 
 func (t *TankHeating) coolSetup(c checker, T0 float64, amb Ambient) (CoolDown, error) {
