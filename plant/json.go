@@ -81,6 +81,8 @@ type ConsumerJSON struct {
 	ReturnKgH float64 `json:"condensate_return_kg_h"`
 	LostKgH   float64 `json:"condensate_lost_kg_h"`
 	CoolerKW  float64 `json:"drain_cooler_kW"`
+	// Inputs are the figures a computed duty came from, keys with units.
+	Inputs map[string]float64 `json:"inputs,omitempty"`
 }
 
 // UnitJSON is one other unit with its figures, each key carrying its SI
@@ -156,7 +158,7 @@ func (cr *CaseResult) JSON() CaseJSON {
 	for _, c := range cr.Consumers {
 		j.Consumers = append(j.Consumers, ConsumerJSON{
 			Name: c.Name, Kind: c.Kind, DutyKW: r6(c.DutyW / 1e3), SteamKgH: r6(c.SteamKgS * h),
-			ReturnKgH: r6(c.ReturnKgS * h), LostKgH: r6(c.LostKgS * h), CoolerKW: r6(c.DrainCoolerW / 1e3),
+			ReturnKgH: r6(c.ReturnKgS * h), LostKgH: r6(c.LostKgS * h), CoolerKW: r6(c.DrainCoolerW / 1e3), Inputs: roundMap(c.Inputs),
 		})
 	}
 	for _, u := range cr.Units {
@@ -194,4 +196,15 @@ func r6(v float64) float64 {
 	e := math.Floor(math.Log10(math.Abs(v)))
 	f := math.Pow(10, 5-e)
 	return math.Round(v*f) / f
+}
+
+func roundMap(m map[string]float64) map[string]float64 {
+	if len(m) == 0 {
+		return nil
+	}
+	out := make(map[string]float64, len(m))
+	for k, v := range m {
+		out[k] = r6(v)
+	}
+	return out
 }

@@ -263,6 +263,14 @@ func (p *Plant) compile() error {
 			}
 		}
 	}
+	for _, u := range p.units {
+		if c, ok := u.(*Consumer); ok {
+			c.link(p, a, &fs)
+		}
+	}
+	if err := fs.err(); err != nil {
+		return err
+	}
 	p.assembleDispatch(a)
 	p.asm = a
 	p.ports = ports

@@ -454,3 +454,43 @@ func BenchmarkCaseWarm(b *testing.B) {
 	}
 	b.ReportMetric(float64(iters)/float64(b.N), "newton-iters/op")
 }
+
+type fixedModel struct{ w float64 }
+
+func (m fixedModel) Duty(c Conditions) (Duty, error) {
+	// Duty proportional to how far the air is below 20 °C, as a stand-in
+	// for an accommodation-heating model.
+	return Duty{W: m.w * math.Max(0, 293.15-c.AirT), Inputs: map[string]float64{"air_T_K": c.AirT}}, nil
+}
+
+func TestCoupledConsumers(t *testing.T) {
+	// The boiler's own burner heater takes steam in proportion to the
+	// boiler's fuel flow, and atomising steam likewise: the coupling is
+	// solved with the plant, so the heater's duty equals DutyPerFuel times
+	// the solved fuel flow (common practice to model it so, no source).
+	p := twoBoilers(t, Options{})
+	must(t, p.Add(&Consumer{UnitBase: UnitBase{Name: "b1 fo heater"}, FuelOf: "b1", DutyPerFuel: 2.0e5, ReturnFraction: 1, Label: "fuel oil heater"}))
+	must(t, p.Add(&Consumer{UnitBase: UnitBase{Name: "b1 atomising"}, FuelOf: "b1", SteamPerFuel: 0.3, Label: "atomising steam"}))
+	must(t, p.Add(&Consumer{UnitBase: UnitBase{Name: "accommodation"}, Model: fixedModel{w: 20e3}, ReturnFraction: 1}))
+	p.Connect("to fo heater", Pos{}, "main", "out", "b1 fo heater", "in")
+	p.Connect("fo heater return", Pos{}, "b1 fo heater", "out", "hotwell", "in")
+	p.Connect("to atomising", Pos{}, "main", "out", "b1 atomising", "in")
+	p.Connect("to accommodation", Pos{}, "main", "out", "accommodation", "in")
+	p.Connect("accommodation return", Pos{}, "accommodation", "out", "hotwell", "in")
+	cr, err := p.Solve(context.Background(), Case{Name: "winter", Conditions: Conditions{AirT: 263.15}})
+	must(t, err)
+	byName := map[string]ConsumerResult{}
+	for _, c := range cr.Consumers {
+		byName[c.Name] = c
+	}
+	fuel := cr.Boilers[0].FuelKgS
+	within(t, "heater duty", byName["b1 fo heater"].DutyW, 2.0e5*fuel, 1e-9)
+	within(t, "atomising steam", byName["b1 atomising"].SteamKgS, 0.3*fuel, 1e-9)
+	within(t, "accommodation duty", byName["accommodation"].DutyW, 20e3*30, 1e-9)
+	if byName["accommodation"].Inputs["air_T_K"] != 263.15 {
+		t.Errorf("model inputs not reported: %v", byName["accommodation"].Inputs)
+	}
+	if cr.Balance.MassRel > 1e-9 || cr.Balance.EnergyRel > 1e-6 {
+		t.Errorf("balances do not close: %+v", cr.Balance)
+	}
+}

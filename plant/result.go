@@ -104,6 +104,8 @@ type ConsumerResult struct {
 	// DrainCoolerW is the heat the returning condensate gives up in a
 	// drain cooler before the feed tank.
 	DrainCoolerW float64
+	// Inputs are the figures that drove a computed duty, keys with units.
+	Inputs map[string]float64
 }
 
 // UnitResult holds the figures of a unit that is neither a boiler nor a

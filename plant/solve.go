@@ -133,9 +133,14 @@ func (p *Plant) applySettings(c *Case) (restore func(), err error) {
 	}
 	for _, u := range p.units {
 		u.check(&fs)
-		if fp, ok := u.(*FeedPump); ok {
-			if err := fp.resolve(p); err != nil {
-				fs.add(fp.Pos, fp.Name, "", "%v", err)
+		switch v := u.(type) {
+		case *FeedPump:
+			if err := v.resolve(p); err != nil {
+				fs.add(v.Pos, v.Name, "", "%v", err.(*UnitError).Err)
+			}
+		case *Consumer:
+			if err := v.prepare(c.Conditions); err != nil {
+				fs.add(v.Pos, v.Name, "", "%v", err.(*UnitError).Err)
 			}
 		}
 	}

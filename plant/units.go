@@ -661,13 +661,81 @@ type Consumer struct {
 	// Off, when non-zero, switches the consumer off for the case.
 	Off float64
 
-	in, out *Line
-	eqs     [4]int
-	mc, mr  memo
+	// Model, if set, computes the duty for each case from its conditions
+	// (tank heating from sea and air temperatures, say); it replaces Duty.
+	Model DutyModel
+	// FuelOf names a boiler whose fuel flow drives this consumer: its duty
+	// is DutyPerFuel (J per kg of fuel, a burner's fuel oil heater) or its
+	// steam flow SteamPerFuel (kg per kg of fuel, atomising steam) times
+	// the boiler's solved fuel flow. The coupling is part of the solved
+	// system.
+	FuelOf       string
+	DutyPerFuel  float64
+	SteamPerFuel float64
+	// Label is the consumer's kind in reports ("tank heating"); empty
+	// means "heat consumer".
+	Label string
+
+	in, out  *Line
+	eqs      [4]int
+	mc, mr   memo
+	fuel     int // index of the driving boiler's fuel flow, or -1
+	caseDuty Duty
 }
 
-// Kind returns "heat consumer".
-func (u *Consumer) Kind() string { return "heat consumer" }
+// DutyModel computes a consumer's duty from the conditions of a case.
+type DutyModel interface {
+	Duty(c Conditions) (Duty, error)
+}
+
+// Duty is a duty computed by a DutyModel, with the inputs that drove it
+// (keys carry their SI unit, such as "cargo_T_K") and any warnings.
+type Duty struct {
+	W        float64
+	Inputs   map[string]float64
+	Warnings []string
+}
+
+// Kind returns the consumer's label, or "heat consumer".
+func (u *Consumer) Kind() string {
+	if u.Label != "" {
+		return u.Label
+	}
+	return "heat consumer"
+}
+
+// link ties the consumer to the boiler whose fuel drives it, after every
+// unit has laid out its unknowns.
+func (u *Consumer) link(p *Plant, a *assembly, fs *faults) {
+	u.fuel = -1
+	if u.FuelOf == "" {
+		return
+	}
+	b, ok := p.byName[u.FuelOf].(*Boiler)
+	if !ok {
+		fs.add(u.Pos, u.Name, "", "is driven by the fuel flow of %q, which is not an oil-fired boiler of this plant", u.FuelOf)
+		return
+	}
+	u.fuel = b.fuel
+	a.pattern[u.eqs[0]] = append(a.pattern[u.eqs[0]], b.fuel)
+}
+
+// prepare computes the case's duty from the model.
+func (u *Consumer) prepare(c Conditions) error {
+	u.caseDuty = Duty{W: u.Duty}
+	if u.Model == nil || u.Off != 0 {
+		return nil
+	}
+	d, err := u.Model.Duty(c)
+	if err != nil {
+		return wrapUnitErr(u, err)
+	}
+	if !finite(d.W) || d.W < 0 {
+		return unitErr(u, "its model gives a duty of %g W; a duty must be zero or positive", d.W)
+	}
+	u.caseDuty = d
+	return nil
+}
 
 // Ports: steam in, optional condensate out.
 func (u *Consumer) Ports() []PortSpec {
@@ -688,6 +756,12 @@ func (u *Consumer) check(fs *faults) {
 	checkRange(fs, u, "return fraction", u.ReturnFraction, 0, 1, "")
 	if u.ReturnT != 0 {
 		checkRange(fs, u, "condensate return temperature", u.ReturnT, 274.15, 473.15, "K")
+	}
+	if u.DutyPerFuel < 0 || u.SteamPerFuel < 0 || !finite(u.DutyPerFuel) || !finite(u.SteamPerFuel) {
+		fs.add(u.Pos, u.Name, "", "duty and steam per kg of fuel must be zero or positive")
+	}
+	if (u.DutyPerFuel > 0 || u.SteamPerFuel > 0) && u.FuelOf == "" {
+		fs.add(u.Pos, u.Name, "", "a duty or steam flow per kg of fuel needs the boiler whose fuel it follows")
 	}
 }
 
@@ -736,10 +810,14 @@ func (u *Consumer) residual(ev *eval, r []float64) error {
 	switch {
 	case u.Off != 0:
 		r[u.eqs[0]] = m * scaleQ
+	case u.SteamPerFuel > 0 && u.fuel >= 0:
+		r[u.eqs[0]] = (m - u.SteamPerFuel*ev.x[u.fuel]) * scaleQ
 	case u.SteamFlow > 0:
 		r[u.eqs[0]] = (m - u.SteamFlow) * scaleQ
+	case u.DutyPerFuel > 0 && u.fuel >= 0:
+		r[u.eqs[0]] = m*(ev.h(u.in)-hc) - u.DutyPerFuel*ev.x[u.fuel]
 	default:
-		r[u.eqs[0]] = m*(ev.h(u.in)-hc) - u.Duty
+		r[u.eqs[0]] = m*(ev.h(u.in)-hc) - u.caseDuty.W
 	}
 	if u.out != nil {
 		hr, err := u.hReturn(p, hc)
@@ -781,7 +859,11 @@ func (u *Consumer) report(ev *eval, cr *CaseResult) error {
 	}
 	cr.Consumers = append(cr.Consumers, ConsumerResult{
 		Name: u.Name, Kind: u.Kind(), DutyW: duty, SteamKgS: m, ReturnKgS: ret, LostKgS: lost, DrainCoolerW: cooler,
+		Inputs: u.caseDuty.Inputs,
 	})
+	for _, w := range u.caseDuty.Warnings {
+		cr.warn("%s %q: %s", u.Kind(), u.Name, w)
+	}
 	cr.boundary.heatOut += duty + cooler
 	cr.boundary.massOut += lost
 	cr.boundary.energyOut += lost * hc

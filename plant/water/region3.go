@@ -108,6 +108,10 @@ func rho3(p, t float64, sd side3) (float64, bool) {
 			hi = rho
 		}
 		next := rho - r/dp
+		if dp > 0 && math.Abs(next-rho) <= 1e-13*rho {
+			rho = next
+			break
+		}
 		if !(dp > 0) || next <= lo || next >= hi {
 			switch {
 			case math.IsInf(hi, 1):

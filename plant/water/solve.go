@@ -78,6 +78,10 @@ func propT(k kind, reg Region, p, t float64) (f, df, rho float64, ok bool) {
 // below 1e-9 K.
 const quickStepT = 1e-4
 
+// tMinRound is 273.15 K less a rounding allowance: a state given at
+// exactly 273.15 K may come back from (p,h) a few ulp below it.
+const tMinRound = tMin * (1 - 1e-13)
+
 // refine runs Newton steps on the forward equation of region 1 or 2 from
 // the start value t0 of a backward equation. It reports false if the
 // iteration did not settle within a few steps; the caller then falls back
@@ -141,6 +145,10 @@ func bracket(k kind, reg Region, p, target, lo, hi, t0 float64) (t, rho float64,
 			hi = t
 		}
 		next := t - res/df
+		if df > 0 && math.Abs(next-t) <= 1e-12*t {
+			_, _, rho, ok = propT(k, reg, p, next)
+			return next, rho, ok
+		}
 		if !(df > 0) || next <= lo || next >= hi {
 			next = 0.5 * (lo + hi)
 		}
@@ -187,7 +195,7 @@ func solve(fn string, k kind, p, f float64, sat *[2]State) (solution, error) {
 		} else {
 			t0 = t1ps(p, f)
 		}
-		if t, ok := refine(k, Region1, p, f, t0); ok && t <= tb1 && t >= tMin {
+		if t, ok := refine(k, Region1, p, f, t0); ok && t <= tb1 && t >= tMinRound {
 			sol.t, sol.reg = t, Region1
 			return sol, nil
 		}
@@ -198,7 +206,7 @@ func solve(fn string, k kind, p, f float64, sat *[2]State) (solution, error) {
 		} else {
 			t0 = t2ps(p, f)
 		}
-		if t, ok := refine(k, Region2, p, f, t0); ok && t >= tb2 && t <= tMid && (p > pSatMinT || t >= tMin) {
+		if t, ok := refine(k, Region2, p, f, t0); ok && t >= tb2 && t <= tMid && t >= tMinRound {
 			sol.t, sol.reg = t, Region2
 			return sol, nil
 		}
@@ -229,7 +237,7 @@ func solveSlow(fn string, k kind, p, f, tb1, tb2 float64, sat *[2]State) (soluti
 	if p < pSatMinT {
 		lowReg = Region2
 	}
-	if fmin := at(k, lowReg, p, tMin); f < fmin {
+	if fmin := at(k, lowReg, p, tMin); f < fmin-1e-12*math.Max(math.Abs(fmin), 1e3) {
 		return sol, &RangeError{Func: fn, Quantity: q, Value: f, Bound: "below", LimitSI: fmin,
 			Limit: "the IF97 limit of " + fmtQuantity(q, fmin) + " at " + fmtPressure(p) + " (its value at 273.15 K)"}
 	}
