@@ -34,8 +34,8 @@
 // # Line search
 //
 // The step length α starts at 1 (the full Newton step) and is accepted
-// when f(x(α)) ≤ f(x) + c·∇f̃ᵀ(x(α) − x)/XScale (Armijo, c =
-// Settings.Armijo, default 1e-4). Otherwise α is reduced by minimising the
+// when f(x(α)) ≤ f(x) + c·gᵀ·D_X⁻¹(x(α) − x), with g = J̃ᵀF̃ the gradient
+// of f in scaled unknowns (Armijo, c = Settings.Armijo, default 1e-4). Otherwise α is reduced by minimising the
 // quadratic through f(x), the initial slope and f(x(α)), and from the
 // second reduction the cubic through the last two trial values (Dennis and
 // Schnabel, Numerical Methods for Unconstrained Optimization and Nonlinear
@@ -64,7 +64,12 @@
 // the column intersection graph (Curtis, Powell and Reid, J. Inst. Maths
 // Applics 13, 1974): columns that share no equation are perturbed together,
 // so a banded or sparse Jacobian costs a handful of residual evaluations
-// (Result.Colors). The pattern must contain every nonzero of the Jacobian.
+// (Result.Colors). The pattern must contain every nonzero of the Jacobian:
+// an analytic Jacobian is checked against it at every iteration (a
+// *PatternError names the equation and unknown), and Solver.CheckPattern
+// checks a model without one by dense differences. A difference step that
+// leaves the model's domain (the residual returns an error wrapping
+// ErrDomain) is retried from the other side.
 //
 // # Structural diagnosis
 //

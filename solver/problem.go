@@ -161,7 +161,9 @@ type Settings struct {
 	// XTol is the stagnation tolerance on the scaled step: if an accepted
 	// step satisfies max_j |Δx_j|/max(|x_j|, XScale_j) ≤ XTol while the
 	// residual test still fails, the solve stops with Stagnated. A small
-	// step alone never counts as convergence. Zero means 1e-14.
+	// step alone never counts as convergence. The line search also gives
+	// up (LineSearchFailed) when α·max_j |s_j|/max(|x_j|/XScale_j, 1)
+	// falls below XTol. Zero means 1e-14.
 	XTol float64
 
 	// MaxStep bounds the infinity norm of the scaled Newton step
