@@ -41,6 +41,7 @@ type Solver struct {
 	xout     []float64 // Result.X storage
 	res      Result
 	itRecord Iteration
+	start    time.Time // of the current solve
 
 	structure *Structure
 }
@@ -168,6 +169,7 @@ func (s *Solver) Solve(ctx context.Context, x0 []float64) (*Result, error) {
 		panic(fmt.Sprintf("solver: len(x0) = %d, want Dim = %d", len(x0), s.n))
 	}
 	start := time.Now()
+	s.start = start
 	res := &s.res
 	res.Stats = Stats{}
 	res.RegularizedSteps = 0
@@ -284,6 +286,7 @@ func (s *Solver) run(ctx context.Context) error {
 		s.res.ResidualNorm = fnorm
 		s.res.StepNorm = stepNorm
 		if set.Recorder != nil {
+			s.res.Stats.Runtime = time.Since(s.start)
 			s.itRecord = Iteration{Iter: it, X: s.x, ResidualNorm: fnorm, StepNorm: stepNorm,
 				Alpha: alpha, Backtracks: back, Cond: cond, Regularized: regularized, Stats: s.res.Stats}
 			if err := set.Recorder.Record(s.itRecord); err != nil {

@@ -73,10 +73,20 @@ func TestWarmStart(t *testing.T) {
 	}
 }
 
-// TestZeroAllocs checks that a warm Solver allocates nothing per Solve.
+type countRecorder struct{ n int }
+
+func (c *countRecorder) Record(it Iteration) error { c.n++; return nil }
+
+// TestZeroAllocs checks that a warm Solver allocates nothing per Solve,
+// with each kind of Jacobian and with a Recorder.
 func TestZeroAllocs(t *testing.T) {
-	for _, mode := range []string{"analytic", "dense", "colored"} {
-		v := newVoyage(50, mode, nil)
+	for _, mode := range []string{"analytic", "dense", "colored", "recorded"} {
+		var set *Settings
+		rec := &countRecorder{}
+		if mode == "recorded" {
+			set = &Settings{Recorder: rec}
+		}
+		v := newVoyage(50, mode, set)
 		x := filled(50, -1)
 		res, err := v.sv.Solve(context.Background(), x)
 		if err != nil {
@@ -94,6 +104,9 @@ func TestZeroAllocs(t *testing.T) {
 		})
 		if allocs != 0 {
 			t.Errorf("%s: %g allocations per warm Solve, want 0", mode, allocs)
+		}
+		if mode == "recorded" && rec.n == 0 {
+			t.Error("the recorder was not called")
 		}
 	}
 }
