@@ -19,6 +19,12 @@ type InputError struct {
 
 // Error returns `<consumer> "<name>": <msg>` (and ": <err>" when Err is set).
 func (e *InputError) Error() string {
+	if e.Name == "" {
+		if e.Err != nil {
+			return fmt.Sprintf("%s: %s: %v", e.Consumer, e.Msg, e.Err)
+		}
+		return fmt.Sprintf("%s: %s", e.Consumer, e.Msg)
+	}
 	if e.Err != nil {
 		return fmt.Sprintf("%s %q: %s: %v", e.Consumer, e.Name, e.Msg, e.Err)
 	}
@@ -66,6 +72,9 @@ func (c checker) wrap(err error, format string, args ...any) error {
 
 // temp checks a temperature in kelvin.
 func (c checker) temp(what string, T float64) error {
+	if T == 0 {
+		return c.errf("%s is not given (0 K); want a temperature in kelvin", what)
+	}
 	if !(T >= MinTemperature && T <= MaxTemperature) {
 		return c.errf("%s %.6g K (%.6g °C) is not a plausible temperature; want kelvin between %.6g K (%.6g °C) and %.6g K (%.6g °C)",
 			what, T, T-273.15, MinTemperature, MinTemperature-273.15, MaxTemperature, MaxTemperature-273.15)

@@ -147,10 +147,10 @@ func (h FuelHeater) perKg(c checker) (FuelHeaterResult, error) {
 	}
 	sg, err := h.Fuel.SpecificGravity()
 	if err != nil {
-		return r, c.wrap(err, "fuel %q", h.Fuel.Name)
+		return r, c.wrap(err, "fuel properties")
 	}
 	if err := h.Fuel.Validate(); err != nil {
-		return r, c.wrap(err, "fuel %q", h.Fuel.Name)
+		return r, c.wrap(err, "fuel properties")
 	}
 	switch {
 	case h.OutletT != 0 && h.TargetViscosity != 0:
@@ -224,7 +224,7 @@ func (h FuelHeater) perKg(c checker) (FuelHeaterResult, error) {
 	}
 	q, err := fuel.CragoeHeat(sg, h.InletT, r.OutletT)
 	if err != nil {
-		return r, c.wrap(err, "fuel %q specific heat", h.Fuel.Name)
+		return r, c.wrap(err, "specific heat")
 	}
 	r.PerKg = q
 	if dT := r.OutletT - h.InletT; dT > 0 {

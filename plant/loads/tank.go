@@ -96,6 +96,14 @@ func (cg Cargo) check(c checker) error {
 	return nil
 }
 
+// label names the cargo in messages.
+func (cg Cargo) label() string {
+	if cg.Name == "" {
+		return "cargo"
+	}
+	return fmt.Sprintf("cargo %q", cg.Name)
+}
+
 func (cg Cargo) sg() float64 {
 	if cg.SG != 0 {
 		return cg.SG
@@ -282,7 +290,7 @@ func (t *TankHeating) Duty(amb Ambient) (TankResult, error) {
 	case Hold:
 		r.LossT = t.To
 		if _, err := t.Cargo.cp(t.To); err != nil { // range check of Cragoe
-			return r, c.wrap(err, "cargo %q specific heat", t.Cargo.Name)
+			return r, c.wrap(err, "%s specific heat", t.Cargo.label())
 		}
 	case HeatUp:
 		if err := c.temp("temperature From", t.From); err != nil {
@@ -297,7 +305,7 @@ func (t *TankHeating) Duty(amb Ambient) (TankResult, error) {
 		}
 		q, err := t.Cargo.heat(t.From, t.To)
 		if err != nil {
-			return r, c.wrap(err, "cargo %q specific heat", t.Cargo.Name)
+			return r, c.wrap(err, "%s specific heat", t.Cargo.label())
 		}
 		r.MeanCp = q / (t.To - t.From)
 		r.Sensible = r.Mass * q / t.Duration
@@ -514,7 +522,7 @@ func (t *TankHeating) cargoLine(c checker, T0, Ta float64) (ca, c1 float64, err 
 	}
 	c0, err := cg.cp(T0)
 	if err != nil {
-		return 0, 0, c.wrap(err, "cargo %q specific heat", cg.Name)
+		return 0, 0, c.wrap(err, "%s specific heat", cg.label())
 	}
 	T1 := T0 - 1
 	if T1 < fuel.MinCragoeT {
@@ -522,12 +530,12 @@ func (t *TankHeating) cargoLine(c checker, T0, Ta float64) (ca, c1 float64, err 
 	}
 	cx, err := cg.cp(T1)
 	if err != nil {
-		return 0, 0, c.wrap(err, "cargo %q specific heat", cg.Name)
+		return 0, 0, c.wrap(err, "%s specific heat", cg.label())
 	}
 	c1 = (cx - c0) / (T1 - T0)
 	ca = c0 - c1*(T0-Ta)
 	if !(ca > 0) {
-		return 0, 0, c.errf("cargo %q: specific heat extrapolated to the surroundings (%.4g °C) is not positive", cg.Name, celsius(Ta))
+		return 0, 0, c.errf("%s: specific heat extrapolated to the surroundings (%.4g °C) is not positive", cg.label(), celsius(Ta))
 	}
 	return ca, c1, nil
 }
@@ -541,7 +549,7 @@ func (t *TankHeating) coolEnd(c checker, r *CoolDown) error {
 	}
 	if err != nil {
 		*r = CoolDown{Name: t.Name}
-		return c.wrap(err, "cargo %q specific heat at the end of the cool-down", t.Cargo.Name)
+		return c.wrap(err, "%s specific heat at the end of the cool-down", t.Cargo.label())
 	}
 	r.Cp = cp
 	r.Tau = r.Mass * cp / r.UA
