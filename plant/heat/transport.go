@@ -332,12 +332,6 @@ var wilkeM = func() (m [NumSpecies][NumSpecies]wilkeMass) {
 	return m
 }()
 
-// wilkePhi is Wilke's interaction parameter Φ_ij.
-func wilkePhi(etaI, etaJ, mI, mJ float64) float64 {
-	r := 1 + math.Sqrt(etaI/etaJ)*math.Sqrt(math.Sqrt(mJ/mI))
-	return r * r / math.Sqrt(8*(1+mI/mJ))
-}
-
 // SutherlandViscosity returns η = η0·(T/T0)^(3/2)·(T0+S)/(T+S) in Pa·s with
 // the constants of White, Viscous Fluid Flow (2006), Tables 1-2 and 1-3, for
 // air: η0 = 1.716e-5 Pa·s, T0 = 273 K, S = 111 K (heat-transfer.md §1.3

@@ -279,3 +279,32 @@ func TestFitJoins(t *testing.T) {
 		}
 	}
 }
+
+// wilkePhi is Wilke's Φ_ij written out directly (heat-transfer.md §1.2):
+// [1 + (η_i/η_j)^½·(M_j/M_i)^¼]² / [8·(1 + M_i/M_j)]^½.
+func wilkePhi(etaI, etaJ, mI, mJ float64) float64 {
+	r := 1 + math.Sqrt(etaI/etaJ)*math.Pow(mJ/mI, 0.25)
+	return r * r / math.Sqrt(8*(1+mI/mJ))
+}
+
+// TestWilkeBinary: for a binary N2-CO2 mixture MixTransport equals Wilke's
+// and Wassiljewa's formulas written out by hand (heat-transfer.md §1.2), and
+// Φ_ii = 1.
+func TestWilkeBinary(t *testing.T) {
+	x := Composition{N2: 0.8, CO2: 0.2}
+	for _, T := range []float64{400, 1000, 1800} {
+		e1, _, _ := SpeciesViscosity(N2, T, TransportOptions{})
+		e2, _, _ := SpeciesViscosity(CO2, T, TransportOptions{})
+		k1, _, _ := SpeciesConductivity(N2, T, TransportOptions{})
+		k2, _, _ := SpeciesConductivity(CO2, T, TransportOptions{})
+		m1, m2 := N2.MolarMass(), CO2.MolarMass()
+		p12, p21 := wilkePhi(e1, e2, m1, m2), wilkePhi(e2, e1, m2, m1)
+		withinRel(t, "Φ_ii", wilkePhi(e1, e1, m1, m1), 1, 1e-15)
+		mu := 0.8*e1/(0.8+0.2*p12) + 0.2*e2/(0.2+0.8*p21)
+		k := 0.8*k1/(0.8+0.2*p12) + 0.2*k2/(0.2+0.8*p21)
+		g, err := MixTransport(&x, T, TransportOptions{})
+		mustNoErr(t, err)
+		withinRel(t, fmt.Sprintf("binary η at %g K", T), g.Viscosity, mu, 1e-13)
+		withinRel(t, fmt.Sprintf("binary λ at %g K", T), g.Conductivity, k, 1e-13)
+	}
+}
