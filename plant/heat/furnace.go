@@ -128,6 +128,9 @@ func (f Furnace) Solve(in FurnaceInput) (FurnaceResult, error) {
 		}
 		return mdot*(hAd-h) - in.HeatLoss - q
 	}
+	if hW, _ := in.Enthalpy(tw); tad > tw && !(hAd > hW) {
+		return res, inputErr(furnaceWhere, "h(T_ad) − h(T_w) (J/kg)", hAd-hW, "an enthalpy that increases with temperature")
+	}
 	fLo := resid(tw)
 	if innerErr != nil {
 		return res, innerErr

@@ -35,7 +35,10 @@ type TubePassInput struct {
 	// Cooper's correlation (R_p = 1 μm, water) is used at the mean outside
 	// heat flux, which needs WaterPressure.
 	WaterHTC      float64
-	WaterPressure float64 // Pa, for Cooper when WaterHTC is 0
+	// WaterPressure (Pa) is used by Cooper when WaterHTC is 0. It should be
+	// the saturation pressure at WaterTemperature; the pair is not checked
+	// (this package has no steam tables).
+	WaterPressure float64
 	Transport     TransportOptions
 }
 
