@@ -34,7 +34,7 @@ type TubePassInput struct {
 	// WaterHTC is the boiling coefficient on the outside, W/(m²·K). If 0,
 	// Cooper's correlation (R_p = 1 μm, water) is used at the mean outside
 	// heat flux, which needs WaterPressure.
-	WaterHTC      float64
+	WaterHTC float64
 	// WaterPressure (Pa) is used by Cooper when WaterHTC is 0. It should be
 	// the saturation pressure at WaterTemperature; the pair is not checked
 	// (this package has no steam tables).
