@@ -350,3 +350,14 @@ func TestEffectiveEmissivity(t *testing.T) {
 		t.Errorf("ε_g = 1.1: want ErrInput, got %v", err)
 	}
 }
+
+// TestWSGGCopyCClearGas: copy C of gas-radiation.md §1.3 stores the
+// pw/pc = 2 clear-gas weight as a0 = 1 − (8.9756·1e-1 − 2.557·1e-4·T +
+// 0.368·1e-7·T² − 0.437·1e-11·T³), the column sums of the printed rows: an
+// internal consistency check of the embedded set.
+func TestWSGGCopyCClearGas(t *testing.T) {
+	for T := 600.0; T <= 2400; T += 200 {
+		want := 1 - (8.9756*sb1 - 2.557*sb2*T + 0.368*sb3*T*T - 0.437*sb4*T*T*T)
+		within(t, fmt.Sprintf("a0 pw/pc=2 at %g K (copy C)", T), WSGGRatio2.Weights(T)[0], want, 1e-13)
+	}
+}
