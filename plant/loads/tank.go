@@ -434,7 +434,9 @@ func (t *TankHeating) CoolDownAfter(T0, elapsed float64, amb Ambient) (CoolDown,
 	u0 := T0 - r.AmbientT
 	k := r.UA * elapsed / r.Mass
 	T := T0
-	if u0 != 0 && k > 0 {
+	if math.IsInf(k, 1) || math.IsInf(k/math.Min(ca, ca+c1*u0), 1) {
+		T = r.AmbientT // cooled all the way, to rounding
+	} else if u0 != 0 && k > 0 {
 		// Solve G(s) = ∫_s^0 c dσ − k = −ca·s + c1·u0·(1 − e^s) − k = 0 for
 		// s = ln(u/u0) ≤ 0; G decreases (G' = −c(T) < 0), G(0) = −k < 0 and
 		// G(−k/cmin) ≥ 0, with cmin the smaller of c at T0 and at T_amb.
