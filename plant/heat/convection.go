@@ -203,11 +203,17 @@ func (m TubeFlow) Nusselt(Re, Pr float64) (float64, Warning, error) {
 // is heated and n = 0.3 when it is cooled (flue gas in smoke tubes: cooled).
 // F. W. Dittus, L. M. K. Boelter, Univ. Calif. Publ. Eng. 2(13):443-461
 // (1930) (heat-transfer.md §3 [S✓]). Valid for Re ≥ 1e4, 0.6 ≤ Pr ≤ 160 and
-// L/d ≥ 10 (the caller's responsibility); outside it returns an ErrRange
-// error. Use it only as a cross-check of Gnielinski (it reads 11 % high at
-// Re = 2e4, Pr = 0.7).
-func DittusBoelter(Re, Pr float64, heated bool) (float64, error) {
+// L/d ≥ 10 (lOverD is the tube's length over its diameter); outside it
+// returns an ErrRange error. Use it only as a cross-check of Gnielinski (it
+// reads 11 % high at Re = 2e4, Pr = 0.7).
+func DittusBoelter(Re, Pr, lOverD float64, heated bool) (float64, error) {
 	const where = "Dittus-Boelter"
+	if !(lOverD >= 10) {
+		if !(lOverD > 0) {
+			return 0, inputErr(where, "L/d", lOverD, "a length-to-diameter ratio > 0")
+		}
+		return 0, rangeErr(where, "L/d", lOverD, "L/d >= 10")
+	}
 	if !(Re >= 1e4) || math.IsInf(Re, 1) {
 		if !(Re > 0) {
 			return 0, inputErr(where, "Re", Re, "a Reynolds number > 0")

@@ -42,14 +42,14 @@ func TestGnielinskiSheetTable(t *testing.T) {
 		mustNoErr(t, err)
 		printed(t, name+" TubeFlow default", nu, c.nu76)
 		if c.Re >= 1e4 {
-			db, err := DittusBoelter(c.Re, c.Pr, false)
+			db, err := DittusBoelter(c.Re, c.Pr, 60, false)
 			mustNoErr(t, err)
 			printed(t, name+" Dittus-Boelter n=0.3", db, c.db03)
-			db, _ = DittusBoelter(c.Re, c.Pr, true)
+			db, _ = DittusBoelter(c.Re, c.Pr, 60, true)
 			printed(t, name+" Dittus-Boelter n=0.4", db, c.db04)
 		} else {
 			// Re = 4000 is below the Dittus-Boelter range Re ≥ 1e4 (§3): refused.
-			if _, err := DittusBoelter(c.Re, c.Pr, false); !errors.Is(err, ErrRange) {
+			if _, err := DittusBoelter(c.Re, c.Pr, 60, false); !errors.Is(err, ErrRange) {
 				t.Errorf("%s: Dittus-Boelter below 1e4 must be ErrRange, got %v", name, err)
 			}
 		}
@@ -68,9 +68,9 @@ func TestPublishedExamples(t *testing.T) {
 	nu, err := Gnielinski(1e5, 1.2, 0.0185)
 	mustNoErr(t, err)
 	withinRel(t, "Gnielinski Re=1e5 Pr=1.2 f=0.0185 (heat-transfer.md §2)", nu, 254.62682749359632, 1e-12)
-	db, _ := DittusBoelter(1e5, 1.2, true)
+	db, _ := DittusBoelter(1e5, 1.2, 60, true)
 	withinRel(t, "Dittus-Boelter n=0.4 (heat-transfer.md §3)", db, 247.40036409449127, 1e-12)
-	db, _ = DittusBoelter(1e5, 1.2, false)
+	db, _ = DittusBoelter(1e5, 1.2, 60, false)
 	withinRel(t, "Dittus-Boelter n=0.3 (heat-transfer.md §3)", db, 242.9305927410295, 1e-12)
 }
 
@@ -152,8 +152,11 @@ func TestConvectionRanges(t *testing.T) {
 	if _, _, err := (TubeFlow{TransitionEnd: 100}).Nusselt(1e4, 0.7); !errors.Is(err, ErrInput) {
 		t.Errorf("TransitionEnd=100: %v", err)
 	}
+	if _, err := DittusBoelter(1e5, 0.7, 9, false); !errors.Is(err, ErrRange) {
+		t.Errorf("DittusBoelter L/d = 9: %v", err)
+	}
 	for _, c := range []struct{ Re, Pr float64 }{{9999, 0.7}, {1e4, 0.59}, {1e4, 161}} {
-		if _, err := DittusBoelter(c.Re, c.Pr, false); !errors.Is(err, ErrRange) {
+		if _, err := DittusBoelter(c.Re, c.Pr, 60, false); !errors.Is(err, ErrRange) {
 			t.Errorf("DittusBoelter(%g, %g): %v", c.Re, c.Pr, err)
 		}
 	}

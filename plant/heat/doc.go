@@ -64,7 +64,7 @@
 // ξ, [S, from memory, not verified]); optional entrance factor
 // [1 + (d/L)^(2/3)] [S, memory]; no property-ratio correction (flue gas is
 // cooled). DittusBoelter (0.023·Re^0.8·Pr^n) [S✓] for cross-checks, valid
-// Re ≥ 1e4, 0.6 ≤ Pr ≤ 160. TubeBank.Nusselt is Zukauskas (1972) for bare
+// Re ≥ 1e4, 0.6 ≤ Pr ≤ 160, L/d ≥ 10. TubeBank.Nusselt is Zukauskas (1972) for bare
 // tube banks, in-line and staggered, textbook or Bejan constant table
 // [S✓ for 1e3-2e5], with the row correction C2 from the textbook table
 // (linear in N_L) or the digitised series; Re outside the table is an

@@ -81,7 +81,7 @@ func TestWorkedSmokeTube(t *testing.T) {
 	printed(t, "Nu", nu, "48.364")
 	hg := nu * g.Conductivity / di
 	within(t, "h_g", hg, 43.08, 0.01)
-	db, _ := DittusBoelter(re, pr, false)
+	db, _ := DittusBoelter(re, pr, 60, false)
 	within(t, "Dittus-Boelter h", db*g.Conductivity/di, 46.96, 0.01)
 
 	rw, err := WallResistancePerLength(di, do, 47)
