@@ -4,6 +4,8 @@ import (
 	"math"
 	"strings"
 	"testing"
+
+	"steamcase/plant/fuel"
 )
 
 // wingTank is the geometry case worked by hand below.
@@ -421,4 +423,49 @@ func TestCargoHeating(t *testing.T) {
 	if _, err := CargoHeating([]TankHeating{a, b}, amb); err == nil || !strings.Contains(err.Error(), `"COT 4"`) {
 		t.Errorf("error %v, want one naming COT 4", err)
 	}
+}
+
+// TestCargoFromFuel: a fuel cargo takes the fuel's density and Cragoe at
+// its specific gravity. By hand: s = 985/999.016 = 0.985970, c(40 °C) =
+// (1.685 + 0.1356)/√s = 1833.507 J/(kg·K) (Cragoe, plant-checks.md §5.3
+// [S]); 1000 m³ × 985 kg/m³ × 1833.507 × 20 K / 36 000 s = 1 003 335.9 W.
+func TestCargoFromFuel(t *testing.T) {
+	t.Parallel()
+	cg, err := CargoFromFuel(hsfo(t))
+	if err != nil {
+		t.Fatal(err)
+	}
+	tk := TankHeating{Name: "FO bunker 2P", Cargo: cg, CargoVolume: 1000, Mode: HeatUp,
+		From: kelvin(30), To: kelvin(50), Duration: 10 * hour}
+	r, err := tk.Duty(Ambient{Sea: kelvin(15), Air: kelvin(5)})
+	if err != nil {
+		t.Fatal(err)
+	}
+	near(t, "mean cp", r.MeanCp, 1833.507, 0.001)
+	near(t, "duty W", r.Duty, 1003335.9, 0.1)
+	lng, err := fuel.Grade("LNG")
+	if err != nil {
+		t.Fatal(err)
+	}
+	if _, err := CargoFromFuel(lng); err == nil {
+		t.Error("a gas fuel gave a cargo")
+	}
+}
+
+// TestWaterProperties: the IAPWS-IF97 Δh at a stated pressure, against
+// python3-iapws 1.5.2 (Debian 1.5.3-1): IAPWS97(P=0.3, T=353.15).h −
+// IAPWS97(P=0.3, T=283.15).h; and the fresh-water generator's latent heat
+// alone (feed ratio zero), IAPWS97(T=318.15, x=1).h − (x=0).h.
+func TestWaterProperties(t *testing.T) {
+	t.Parallel()
+	r, err := TankCleaning{Name: "TC", Flow: 1, InletT: kelvin(10), OutletT: kelvin(80), Pressure: 0.3e6}.Duty()
+	if err != nil {
+		t.Fatal(err)
+	}
+	near(t, "Δh at 0.3 MPa kJ/kg", r.PerKg/1e3, 292.837239, 1e-4)
+	fw, err := FreshWaterGenerator{Name: "FWG", Production: 1, EvaporationT: kelvin(45)}.Duty()
+	if err != nil {
+		t.Fatal(err)
+	}
+	near(t, "h_fg(45 °C) kJ/kg", fw.SpecificEnergy/1e3, 2394.015473, 1e-4)
 }

@@ -9,7 +9,8 @@ import (
 // AtomisingSteam is the steam a steam-atomised burner blows with its fuel,
 // a fixed ratio of steam to fuel (kg/kg). The steam is lost to the furnace
 // (no condensate returns). The ratio is the burner maker's figure; no
-// default is given.
+// default is given. Steam = ratio × fuel flow (common practice, no source;
+// plant-checks.md §2 lists atomising steam among the flue-gas water).
 type AtomisingSteam struct {
 	// Name identifies the consumer.
 	Name string
@@ -70,7 +71,7 @@ func (a AtomisingSteam) Flow(fuelFlow float64) (SteamFlowResult, error) {
 //
 //	ṁ_mean = ṁ_blowing · Duration / Interval
 //
-// The average suits a steady balance; the peak (ṁ_blowing) is what the
+// (common practice, no source). The average suits a steady balance; the peak (ṁ_blowing) is what the
 // boiler must also carry while blowing, and is kept in the result.
 type SootBlowing struct {
 	// Name identifies the consumer.
@@ -112,7 +113,8 @@ type DutyResult struct {
 }
 
 // SteamTracing is steam tracing of pipes: a heat loss per metre of traced
-// pipe times the length (the per-metre figure from the tracing design).
+// pipe times the length (the per-metre figure from the tracing design;
+// common practice, no source).
 type SteamTracing struct {
 	// Name identifies the consumer.
 	Name string
@@ -168,7 +170,8 @@ func (f FixedDuty) Result() (DutyResult, error) {
 // (FeedRatio kg per kg of distillate) from FeedT to boiling. Simplifications
 // of the computed form: pure-water properties for the sea-water feed (its
 // specific heat is some 4 % lower, from memory), no boiling-point rise, no
-// heat losses, brine leaving at T_evap.
+// heat losses, brine leaving at T_evap. The balance itself is common
+// practice (no source); the properties are IAPWS R7-97(2012).
 type FreshWaterGenerator struct {
 	// Name identifies the consumer.
 	Name string
