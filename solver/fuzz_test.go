@@ -23,8 +23,11 @@ func FuzzDiagnose(f *testing.F) {
 			}
 		}
 		s, err := DiagnoseIncidence(eqs, vars, pattern, nil, nil)
-		if err != nil {
+		if s == nil {
 			t.Fatal(err)
+		}
+		if (err == nil) != (s.Err() == nil) {
+			t.Fatalf("returned error %v, Err() %v", err, s.Err())
 		}
 		if vars-(len(s.UnderUnknowns)-len(s.UnderEquations)) != s.Rank ||
 			eqs-(len(s.OverEquations)-len(s.OverUnknowns)) != s.Rank ||

@@ -73,9 +73,6 @@ func New(p Problem, s *Settings) (*Solver, error) {
 			return nil, err
 		}
 		sv.structure = st
-		if err := st.Err(); err != nil {
-			return nil, err
-		}
 	}
 	fill := func(src []float64, def float64) []float64 {
 		d := make([]float64, n)

@@ -125,15 +125,16 @@ func names(idx []int, list []string, kind string) []string {
 }
 
 // Diagnose analyses the structure of p from p.Pattern (see Structure).
-// It returns an error if p has no Pattern or the pattern is malformed; a
-// structurally singular system is not an error here but is reported by
-// (*Structure).Err.
+// If the system is structurally singular it returns the Structure together
+// with its *StructureError (the same as (*Structure).Err). If p has no
+// Pattern or the pattern is malformed it returns a nil Structure and an
+// error wrapping ErrInvalidProblem.
 func Diagnose(p Problem) (*Structure, error) {
 	if p.Pattern == nil {
-		return nil, fmt.Errorf("solver: Diagnose needs Problem.Pattern, which is nil")
+		return nil, fmt.Errorf("%w: Diagnose needs Problem.Pattern, which is nil", ErrInvalidProblem)
 	}
 	if len(p.Pattern) != p.Dim {
-		return nil, fmt.Errorf("solver: Problem.Pattern has %d rows, want Dim = %d", len(p.Pattern), p.Dim)
+		return nil, fmt.Errorf("%w: Problem.Pattern has %d rows, want Dim = %d", ErrInvalidProblem, len(p.Pattern), p.Dim)
 	}
 	return DiagnoseIncidence(p.Dim, p.Dim, p.Pattern, p.EqNames, p.VarNames)
 }
@@ -141,10 +142,12 @@ func Diagnose(p Problem) (*Structure, error) {
 // DiagnoseIncidence analyses a system of eqs equations in vars unknowns,
 // not necessarily square: pattern[i] lists the unknowns equation i
 // contains. eqNames and varNames may be nil. Use it to count and check a
-// model before a square Problem exists.
+// model before a square Problem exists. Errors are as for Diagnose: a
+// system that is not square or not structurally nonsingular returns its
+// Structure and a *StructureError.
 func DiagnoseIncidence(eqs, vars int, pattern [][]int, eqNames, varNames []string) (*Structure, error) {
 	if eqs < 0 || vars < 0 || len(pattern) != eqs {
-		return nil, fmt.Errorf("solver: incidence of %d equations and %d unknowns has %d pattern rows, want %d", eqs, vars, len(pattern), eqs)
+		return nil, fmt.Errorf("%w: incidence of %d equations and %d unknowns has %d pattern rows, want %d", ErrInvalidProblem, eqs, vars, len(pattern), eqs)
 	}
 	for i, row := range pattern {
 		for _, j := range row {
@@ -153,7 +156,7 @@ func DiagnoseIncidence(eqs, vars int, pattern [][]int, eqNames, varNames []strin
 				if i < len(eqNames) && eqNames[i] != "" {
 					name = eqNames[i]
 				}
-				return nil, fmt.Errorf("solver: pattern of equation '%s' lists unknown index %d, want 0 ≤ index < %d", name, j, vars)
+				return nil, fmt.Errorf("%w: pattern of equation '%s' lists unknown index %d, want 0 ≤ index < %d", ErrInvalidProblem, name, j, vars)
 			}
 		}
 	}
@@ -240,7 +243,7 @@ func DiagnoseIncidence(eqs, vars int, pattern [][]int, eqNames, varNames []strin
 	if eqs == vars && vars > 0 {
 		s.Colors = len(colorColumns(pattern, vars).groups)
 	}
-	return s, nil
+	return s, s.Err()
 }
 
 // hopcroftKarp returns a maximum matching of the bipartite graph with left
