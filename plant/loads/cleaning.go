@@ -9,7 +9,8 @@ import (
 // DefaultCleaningPressure is the water pressure in a tank-cleaning heater
 // when none is given: 1.0 MPa absolute (about 9 bar(g), a round figure for
 // the discharge of a tank-cleaning pump, from memory). The enthalpy rise of
-// liquid water depends on pressure only slightly (about 0.1 % per MPa here).
+// liquid water depends on pressure only slightly (about 0.06 % per MPa for
+// 15 → 80 °C, python3-iapws 1.5.2 IAPWS97).
 const DefaultCleaningPressure = 1.0e6
 
 // TankCleaning is a tank-cleaning heater: a water flow heated from the sea
