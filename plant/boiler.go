@@ -3,6 +3,9 @@ package plant
 import (
 	"fmt"
 	"math"
+
+	"steamcase/plant/combustion"
+	"steamcase/plant/fuel"
 )
 
 // FuelSpec is what a boiler needs to know of its fuel for the energy
@@ -11,6 +14,24 @@ type FuelSpec struct {
 	Name      string
 	LHV       float64 // lower calorific value, J/kg
 	CO2Factor float64 // kg CO2 per kg fuel
+	// Fuel is the full description, which the combustion models need;
+	// nil for a boiler with a plain efficiency table.
+	Fuel *fuel.Fuel
+}
+
+// SpecFromFuel fills a FuelSpec from a fuel's own figures (its net
+// specific energy and CO2 factor, each from the source the fuel states).
+func SpecFromFuel(f fuel.Fuel) (FuelSpec, error) {
+	e, err := f.Energy()
+	if err != nil {
+		return FuelSpec{}, err
+	}
+	c, err := f.CO2()
+	if err != nil {
+		return FuelSpec{}, err
+	}
+	ff := f
+	return FuelSpec{Name: f.Name, LHV: e.Net, CO2Factor: c.Value, Fuel: &ff}, nil
 }
 
 // BoilerOperation is the state of a boiler that its efficiency may depend
@@ -19,16 +40,32 @@ type BoilerOperation struct {
 	Load  float64 // steam flow as a fraction of MCR (the firing rate while firing)
 	DrumP float64 // Pa
 	FeedT float64 // K
+	AirT  float64 // combustion air temperature, K
 	Fuel  FuelSpec
 }
 
+// EfficiencyPoint is a boiler's efficiency at one operating point, with
+// what a combustion model knows besides.
+type EfficiencyPoint struct {
+	// Eta is heat to steam and blowdown over fuel flow times the LHV.
+	Eta float64
+	// Warning says where the model went outside the range it knows.
+	Warning string
+
+	// From a combustion model (zero when the model is a plain table):
+	FlueT          float64 // flue-gas exit temperature, K
+	Lambda         float64 // air ratio
+	AirPerFuel     float64 // wet combustion air, kg/kg fuel
+	FlueGasPerFuel float64 // wet flue gas, kg/kg fuel
+	Losses         *combustion.LossItems
+}
+
 // EfficiencyModel gives a boiler's efficiency: heat to steam and blowdown
-// divided by fuel flow times the fuel's lower calorific value. The
-// combustion model plugs in here; a maker's test table is the simplest.
+// divided by fuel flow times the fuel's lower calorific value. A maker's
+// test table is the simplest; the combustion models compute it by the
+// heat-loss method.
 type EfficiencyModel interface {
-	// Efficiency returns the efficiency at op and, if the model had to go
-	// outside the range it knows, a warning saying so.
-	Efficiency(op BoilerOperation) (eta float64, warning string, err error)
+	Efficiency(op BoilerOperation) (EfficiencyPoint, error)
 	// Basis names the calorific value the efficiency refers to ("LHV").
 	Basis() string
 }
@@ -61,27 +98,33 @@ func (t *EfficiencyTable) Validate() error {
 }
 
 // Efficiency interpolates the table at op.Load.
-func (t *EfficiencyTable) Efficiency(op BoilerOperation) (float64, string, error) {
-	n := len(t.Load)
-	x := op.Load
+func (t *EfficiencyTable) Efficiency(op BoilerOperation) (EfficiencyPoint, error) {
+	eta, warn := interpolate(t.Load, t.Eta, op.Load, "efficiency table")
+	return EfficiencyPoint{Eta: eta, Warning: warn}, nil
+}
+
+// interpolate is linear interpolation in a table of loads; outside the
+// table it holds the end value and returns a warning that says so.
+func interpolate(loads, vals []float64, x float64, what string) (float64, string) {
+	n := len(loads)
 	switch {
-	case x <= t.Load[0]:
-		if x < t.Load[0]-1e-9 && n > 1 {
-			return t.Eta[0], fmt.Sprintf("load %.0f %% is below the efficiency table's lowest load %.0f %%; its efficiency is used", 100*x, 100*t.Load[0]), nil
+	case x <= loads[0]:
+		if x < loads[0]-1e-9 && n > 1 {
+			return vals[0], fmt.Sprintf("load %.0f %% is below the %s's lowest load %.0f %%; its value there is used", 100*x, what, 100*loads[0])
 		}
-		return t.Eta[0], "", nil
-	case x >= t.Load[n-1]:
-		if x > t.Load[n-1]+1e-9 {
-			return t.Eta[n-1], fmt.Sprintf("load %.0f %% is above the efficiency table's highest load %.0f %%; its efficiency is used", 100*x, 100*t.Load[n-1]), nil
+		return vals[0], ""
+	case x >= loads[n-1]:
+		if x > loads[n-1]+1e-9 {
+			return vals[n-1], fmt.Sprintf("load %.0f %% is above the %s's highest load %.0f %%; its value there is used", 100*x, what, 100*loads[n-1])
 		}
-		return t.Eta[n-1], "", nil
+		return vals[n-1], ""
 	}
 	i := 1
-	for t.Load[i] < x {
+	for loads[i] < x {
 		i++
 	}
-	f := (x - t.Load[i-1]) / (t.Load[i] - t.Load[i-1])
-	return t.Eta[i-1] + f*(t.Eta[i]-t.Eta[i-1]), "", nil
+	f := (x - loads[i-1]) / (loads[i] - loads[i-1])
+	return vals[i-1] + f*(vals[i]-vals[i-1]), ""
 }
 
 // Basis is "LHV".
@@ -118,10 +161,28 @@ type Boiler struct {
 	Efficiency  EfficiencyModel
 	Fuel        FuelSpec
 
+	// Burner holds the burner and forced-draught fan; its zero value is a
+	// burner whose fan is not modelled.
+	Burner Burner
+
 	feed, steam *Line
 	fuel        int
 	eqs         [4]int
 	mt, mf, mh  memo
+	effOp       BoilerOperation
+	effPt       EfficiencyPoint
+	effSet      bool
+}
+
+// Burner is a boiler's burner and forced-draught fan.
+type Burner struct {
+	// AirT is the combustion air temperature at the fan inlet, K; zero
+	// means the case's air temperature (or 25 °C without one).
+	AirT float64
+	// FanRise is the fan's total pressure rise, Pa; FanEta its efficiency
+	// and MotorEta its motor's (zero: 0.9). With FanRise zero the fan's
+	// power is not counted.
+	FanRise, FanEta, MotorEta float64
 }
 
 // Kind returns "oil-fired boiler".
@@ -169,10 +230,20 @@ func (u *Boiler) check(fs *faults) {
 		checkRange(fs, u, "burner turndown ratio", u.Turndown, 1, 20, "")
 	}
 	checkRange(fs, u, "cycling loss", u.CyclingLoss, 0, 0.2, "")
+	if u.Burner.AirT != 0 {
+		checkRange(fs, u, "combustion air temperature", u.Burner.AirT, 243.15, 343.15, "K")
+	}
+	if u.Burner.FanRise != 0 {
+		checkRange(fs, u, "fan pressure rise", u.Burner.FanRise, 1, 5e4, "Pa")
+		checkRange(fs, u, "fan efficiency", u.Burner.FanEta, 0.1, 1, "")
+		if u.Burner.MotorEta != 0 {
+			checkRange(fs, u, "fan motor efficiency", u.Burner.MotorEta, 0.1, 1, "")
+		}
+	}
 	if u.Efficiency == nil {
 		fs.add(u.Pos, u.Name, "", "needs an efficiency (a maker's test table or a combustion model)")
-	} else if t, ok := u.Efficiency.(*EfficiencyTable); ok {
-		if err := t.Validate(); err != nil {
+	} else if v, ok := u.Efficiency.(interface{ Validate() error }); ok {
+		if err := v.Validate(); err != nil {
 			fs.add(u.Pos, u.Name, "", "%v", err)
 		}
 	}
@@ -203,22 +274,43 @@ func (u *Boiler) operation(ev *eval) (BoilerOperation, bool, error) {
 	if err != nil {
 		return BoilerOperation{}, false, err
 	}
-	return BoilerOperation{Load: fire, DrumP: u.DrumP, FeedT: ft, Fuel: u.Fuel}, cycling, nil
+	return BoilerOperation{Load: fire, DrumP: u.DrumP, FeedT: ft, AirT: u.airT(ev), Fuel: u.Fuel}, cycling, nil
 }
 
-func (u *Boiler) eta(ev *eval) (eta float64, warn string, cycling bool, err error) {
+// airT is the combustion air temperature: the burner's own, else the
+// case's air temperature, else 25 °C.
+func (u *Boiler) airT(ev *eval) float64 {
+	switch {
+	case u.Burner.AirT > 0:
+		return u.Burner.AirT
+	case ev.cond.AirT > 0:
+		return ev.cond.AirT
+	}
+	return 298.15
+}
+
+func (u *Boiler) eta(ev *eval) (pt EfficiencyPoint, cycling bool, err error) {
 	op, cycling, err := u.operation(ev)
 	if err != nil {
-		return 0, "", false, err
+		return EfficiencyPoint{}, false, err
 	}
-	eta, warn, err = u.Efficiency.Efficiency(op)
-	if err != nil {
-		return 0, "", false, err
+	if u.effSet && op == u.effOp {
+		pt = u.effPt
+	} else {
+		pt, err = u.Efficiency.Efficiency(op)
+		if err != nil {
+			u.effSet = false
+			return EfficiencyPoint{}, false, err
+		}
+		if !finite(pt.Eta) || pt.Eta <= 0 || pt.Eta > 1 {
+			return EfficiencyPoint{}, false, fmt.Errorf("efficiency %g at load %.0f %% is not between 0 and 1", pt.Eta, 100*op.Load)
+		}
+		u.effOp, u.effPt, u.effSet = op, pt, true
 	}
 	if cycling {
-		eta *= 1 - u.CyclingLoss
+		pt.Eta *= 1 - u.CyclingLoss
 	}
-	return eta, warn, cycling, nil
+	return pt, cycling, nil
 }
 
 // heat is the heat the boiler puts into steam and blowdown, W.
@@ -241,10 +333,11 @@ func (u *Boiler) residual(ev *eval, r []float64) error {
 	if err != nil {
 		return wrapUnitErr(u, err)
 	}
-	eta, _, _, err := u.eta(ev)
+	pt, _, err := u.eta(ev)
 	if err != nil {
 		return wrapUnitErr(u, err)
 	}
+	eta := pt.Eta
 	r[u.eqs[0]] = ev.p(u.steam) - u.DrumP
 	r[u.eqs[1]] = ev.h(u.steam) - hs
 	r[u.eqs[2]] = ev.m(u.feed)*(1-u.blowdown()) - ev.m(u.steam)
@@ -261,10 +354,11 @@ func (u *Boiler) guess(x []float64) {
 }
 
 func (u *Boiler) report(ev *eval, cr *CaseResult) error {
-	eta, warn, cycling, err := u.eta(ev)
+	pt, cycling, err := u.eta(ev)
 	if err != nil {
 		return wrapUnitErr(u, err)
 	}
+	eta, warn := pt.Eta, pt.Warning
 	ms, mf := ev.m(u.steam), ev.m(u.feed)
 	mbd := mf - ms
 	hf, err := hLiquidSat(u.DrumP)
@@ -299,6 +393,27 @@ func (u *Boiler) report(ev *eval, cr *CaseResult) error {
 		MCRKgS:          u.MCR,
 		Cycling:         firing && cycling && ms > 0,
 		CO2KgS:          fuel * u.Fuel.CO2Factor,
+		FlueT:           pt.FlueT,
+		Lambda:          pt.Lambda,
+		AirKgS:          fuel * pt.AirPerFuel,
+		FlueGasKgS:      fuel * pt.FlueGasPerFuel,
+	}
+	if pt.Losses != nil && ms > 0 {
+		l := *pt.Losses
+		br.Losses = &l
+	}
+	if u.Burner.FanRise > 0 && br.AirKgS > 0 {
+		// Air density from the ideal gas law at the fan inlet, dry air
+		// (M 28.964 kg/kmol, plant-checks.md §0 [CP]); humidity changes
+		// it by under 1 %.
+		rho := ev.pl.Opt.AmbientPressure * 28.964e-3 / (8.314462618 * u.airT(ev))
+		motor := u.Burner.MotorEta
+		if motor == 0 {
+			motor = 0.9
+		}
+		br.FanShaftW = br.AirKgS / rho * u.Burner.FanRise / u.Burner.FanEta
+		br.FanElectricW = br.FanShaftW / motor
+		cr.ElectricW += br.FanElectricW
 	}
 	if br.Cycling {
 		br.OnFraction = br.LoadFraction / u.MinLoad()

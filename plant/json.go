@@ -70,6 +70,24 @@ type BoilerJSON struct {
 	SteamDryness    float64 `json:"steam_dryness"`
 	BlowdownKgH     float64 `json:"blowdown_kg_h"`
 	HeatKW          float64 `json:"heat_kW"`
+	// From a combustion model; null for a boiler with a plain efficiency
+	// table.
+	FlueTK        *float64    `json:"flue_gas_exit_T_K"`
+	ExcessAir     *float64    `json:"excess_air"` // λ − 1
+	Losses        *LossesJSON `json:"losses"`
+	FanElectricKW float64     `json:"fan_electric_kW"`
+}
+
+// LossesJSON is a boiler's heat-loss account in percent of the heat input
+// on the stated basis.
+type LossesJSON struct {
+	Basis        string  `json:"basis"`
+	DryGasPct    float64 `json:"dry_gas_pct"`
+	MoisturePct  float64 `json:"moisture_pct"`
+	RadiationPct float64 `json:"radiation_pct"`
+	UnburntPct   float64 `json:"unburnt_pct"`
+	CreditsPct   float64 `json:"credits_pct"`
+	TotalPct     float64 `json:"total_pct"`
 }
 
 // ConsumerJSON is one consumer in the JSON form.
@@ -147,13 +165,30 @@ func (cr *CaseResult) JSON() CaseJSON {
 		Warnings:           append([]string{}, cr.Warnings...),
 	}
 	for _, b := range cr.Boilers {
-		j.Boilers = append(j.Boilers, BoilerJSON{
+		bj := BoilerJSON{
 			Name: b.Name, Firing: b.Firing, Cycling: b.Cycling, OnFraction: r6(b.OnFraction),
 			LoadFraction: r6(b.LoadFraction), MCRKgH: r6(b.MCRKgS * h), SteamKgH: r6(b.SteamKgS * h),
 			FuelKgH: r6(b.FuelKgS * h), Efficiency: r6(b.Efficiency), EfficiencyBasis: b.EfficiencyBasis,
 			Fuel: b.FuelName, FuelLHV: r6(b.FuelLHV), DrumPPa: r6(b.DrumP), FeedTK: r6(b.FeedT),
 			SteamDryness: r6(b.SteamDryness), BlowdownKgH: r6(b.BlowdownKgS * h), HeatKW: r6(b.HeatW / 1e3),
-		})
+			FanElectricKW: r6(b.FanElectricW / 1e3),
+		}
+		if b.FlueT > 0 {
+			t, ea := r6(b.FlueT), r6(b.Lambda-1)
+			bj.FlueTK, bj.ExcessAir = &t, &ea
+		}
+		if l := b.Losses; l != nil {
+			bj.Losses = &LossesJSON{
+				Basis:        "LHV",
+				DryGasPct:    r6(l.DryGas),
+				MoisturePct:  r6(l.Moisture()),
+				RadiationPct: r6(l.Radiation),
+				UnburntPct:   r6(l.CO + l.Solids),
+				CreditsPct:   r6(l.TotalCredit),
+				TotalPct:     r6(l.TotalLoss - l.TotalCredit),
+			}
+		}
+		j.Boilers = append(j.Boilers, bj)
 	}
 	for _, c := range cr.Consumers {
 		j.Consumers = append(j.Consumers, ConsumerJSON{

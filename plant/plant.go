@@ -5,6 +5,7 @@ import (
 	"fmt"
 	"math"
 	"sort"
+	"strings"
 
 	"github.com/rs/zerolog"
 
@@ -287,7 +288,7 @@ func (p *Plant) compile() error {
 	}
 	st, err := solver.DiagnoseIncidence(len(a.eqNames), len(a.varNames), a.pattern, a.eqNames, a.varNames)
 	if err != nil {
-		return err
+		return p.structureErr(err)
 	}
 	if err := st.Err(); err != nil {
 		return p.structureErr(err)
@@ -316,9 +317,9 @@ func (p *Plant) compile() error {
 
 // structureErr turns the solver's structural diagnosis into a plant fault.
 func (p *Plant) structureErr(err error) error {
-	var se *solver.StructureError
-	if errors.As(err, &se) {
-		return &GraphError{Faults: []Fault{{Pos: p.Pos, Msg: "degrees of freedom do not balance: " + se.Error()}}}
+	if errors.Is(err, solver.ErrStructure) {
+		msg := strings.TrimPrefix(err.Error(), "solver: ")
+		return &GraphError{Faults: []Fault{{Pos: p.Pos, Msg: "degrees of freedom do not balance: " + msg}}}
 	}
 	return err
 }

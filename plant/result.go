@@ -3,6 +3,8 @@ package plant
 import (
 	"fmt"
 	"math"
+
+	"steamcase/plant/combustion"
 )
 
 // CaseResult is the answer to one load case. Every figure is SI (kg/s, W,
@@ -91,6 +93,15 @@ type BoilerResult struct {
 	SteamDryness    float64
 	BlowdownKgS     float64
 	HeatW           float64
+
+	// From a combustion model (zero with a plain efficiency table):
+	FlueT        float64 // flue-gas exit temperature, K
+	Lambda       float64 // air ratio
+	AirKgS       float64 // combustion air
+	FlueGasKgS   float64
+	Losses       *combustion.LossItems // LHV basis
+	FanShaftW    float64
+	FanElectricW float64
 }
 
 // ConsumerResult is one steam consumer's part in a case.

@@ -26,7 +26,9 @@ func t2ph(p, h float64) float64 {
 	switch {
 	case p <= p2abLim:
 		return poly2aTph(pi, eta-2.1)
-	case h >= hB2bc(p):
+	case p <= b2bc[4]*1e6 || h >= hB2bc(p):
+		// Below 4.5257 MPa the B2bc equation has no real value: subregion
+		// 2b reaches down to the saturation line there.
 		return poly2bTph(pi-2, eta-2.6)
 	}
 	return poly2cTph(pi+25, eta-1.8)

@@ -4,21 +4,20 @@ import "math"
 
 // Constants of IAPWS R7-97(2012).
 const (
-	rGas     = 461.526    // specific gas constant of water, J/(kg K), Eq. 1
-	tCrit    = 647.096    // critical temperature, K, Eq. 2
-	pCrit    = 22.064e6   // critical pressure, Pa, Eq. 3
-	rhoCrit  = 322.0      // critical density, kg/m3, Eq. 4
-	tTriple  = 273.16     // triple-point temperature, K
-	tMin     = 273.15     // lowest temperature of IF97, K
-	tMid     = 1073.15    // upper temperature of regions 1-3, lower of region 5, K
-	tMax     = 2273.15    // highest temperature of region 5, K
-	pMax     = 100e6      // highest pressure of regions 1-3, Pa
-	pMax5    = 50e6       // highest pressure of region 5, Pa
-	t13      = 623.15     // boundary temperature between regions 1 and 3, K
-	t23max   = 863.15     // B23 temperature at 100 MPa, K
-	p2abLim  = 4e6        // boundary pressure between subregions 2a and 2b, Pa
-	s2bcLim  = 5.85e3     // boundary entropy between subregions 2b and 2c, J/(kg K)
-	pSatMinT = 611.212677 // p_sat(273.15 K) by Eq. 30, Pa (the release rounds it to 611.213 Pa)
+	rGas    = 461.526  // specific gas constant of water, J/(kg K), Eq. 1
+	tCrit   = 647.096  // critical temperature, K, Eq. 2
+	pCrit   = 22.064e6 // critical pressure, Pa, Eq. 3
+	rhoCrit = 322.0    // critical density, kg/m3, Eq. 4
+	tTriple = 273.16   // triple-point temperature, K
+	tMin    = 273.15   // lowest temperature of IF97, K
+	tMid    = 1073.15  // upper temperature of regions 1-3, lower of region 5, K
+	tMax    = 2273.15  // highest temperature of region 5, K
+	pMax    = 100e6    // highest pressure of regions 1-3, Pa
+	pMax5   = 50e6     // highest pressure of region 5, Pa
+	t13     = 623.15   // boundary temperature between regions 1 and 3, K
+	t23max  = 863.15   // B23 temperature at 100 MPa, K
+	p2abLim = 4e6      // boundary pressure between subregions 2a and 2b, Pa
+	s2bcLim = 5.85e3   // boundary entropy between subregions 2b and 2c, J/(kg K)
 )
 
 // fillPow sets d[k] = x^k for k = 0 .. len(d)-1 by multiplication only.

@@ -82,6 +82,9 @@ const quickStepT = 1e-4
 // exactly 273.15 K may come back from (p,h) a few ulp below it.
 const tMinRound = tMin * (1 - 1e-13)
 
+// tMidRound is 1073.15 K plus a rounding allowance.
+const tMidRound = tMid * (1 + 1e-13)
+
 // refine runs Newton steps on the forward equation of region 1 or 2 from
 // the start value t0 of a backward equation. It reports false if the
 // iteration did not settle within a few steps; the caller then falls back
@@ -206,7 +209,7 @@ func solve(fn string, k kind, p, f float64, sat *[2]State) (solution, error) {
 		} else {
 			t0 = t2ps(p, f)
 		}
-		if t, ok := refine(k, Region2, p, f, t0); ok && t >= tb2 && t <= tMid && t >= tMinRound {
+		if t, ok := refine(k, Region2, p, f, t0); ok && t >= tb2 && t <= tMidRound && t >= tMinRound {
 			sol.t, sol.reg = t, Region2
 			return sol, nil
 		}
@@ -237,19 +240,19 @@ func solveSlow(fn string, k kind, p, f, tb1, tb2 float64, sat *[2]State) (soluti
 	if p < pSatMinT {
 		lowReg = Region2
 	}
-	if fmin := at(k, lowReg, p, tMin); f < fmin-1e-12*math.Max(math.Abs(fmin), 1e3) {
+	if fmin := at(k, lowReg, p, tMin); f < fmin-1e-11*math.Max(math.Abs(fmin), 1e3) {
 		return sol, &RangeError{Func: fn, Quantity: q, Value: f, Bound: "below", LimitSI: fmin,
 			Limit: "the IF97 limit of " + fmtQuantity(q, fmin) + " at " + fmtPressure(p) + " (its value at 273.15 K)"}
 	}
 	// Above 1073.15 K: region 5 up to 50 MPa, else out of range.
-	if fmid := at(k, Region2, p, tMid); f > fmid {
+	if fmid := at(k, Region2, p, tMid); f > fmid+1e-11*math.Abs(fmid) {
 		if p > pMax5 {
 			return sol, &RangeError{Func: fn, Quantity: q, Value: f, Bound: "above", LimitSI: fmid,
 				Limit: "the IF97 limit of " + fmtQuantity(q, fmid) + " at " + fmtPressure(p) +
 					" (its value at 1073.15 K; above 50 MPa IF97 ends at 1073.15 K)"}
 		}
 		fmax := at(k, Region5, p, tMax)
-		if f > fmax {
+		if f > fmax+1e-11*math.Abs(fmax) {
 			return sol, &RangeError{Func: fn, Quantity: q, Value: f, Bound: "above", LimitSI: fmax,
 				Limit: "the IF97 limit of " + fmtQuantity(q, fmax) + " at " + fmtPressure(p) + " (its value at 2273.15 K)"}
 		}

@@ -77,6 +77,10 @@ type State struct {
 // pSat13 is p_sat(623.15 K), the pressure where regions 1, 2, 3 and 4 meet.
 var pSat13 = psat4(t13)
 
+// pSatMinT is p_sat(273.15 K) by Eq. 30, 611.212677 Pa (the release
+// rounds it to 611.213 Pa), the low end of the saturation line.
+var pSatMinT = psat4(tMin)
+
 // classify sets Phase and X of a single-phase state.
 func (st *State) classify(liquidSide bool) {
 	switch {
