@@ -277,10 +277,12 @@ func (s *Solver) jacobian(it int) error {
 	return s.checkJacobian(it)
 }
 
-// Jacobian writes into dst (Dim×Dim) the unscaled Jacobian dF/dx at x, as
-// the solver would form it: the analytic one if the problem has one, else
-// forward differences, coloured when the problem has a Pattern. It is meant
-// for checking a hand-written Jacobian against finite differences.
+// Jacobian writes into dst (Dim×Dim) the unscaled Jacobian dF/dx at x:
+// with analytic true, Problem.Jacobian's (it panics if there is none);
+// otherwise the solver's forward differences, coloured when the Problem
+// has a Pattern. It is meant for checking a hand-written Jacobian against
+// finite differences. It shares the Solver's work space, so it must not
+// run during a Solve.
 func (s *Solver) Jacobian(dst *mat.Dense, x []float64, analytic bool) error {
 	if len(x) != s.n {
 		panic("solver: Solver.Jacobian: len(x) = " + itoa(len(x)) + ", want Dim = " + itoa(s.n))

@@ -50,8 +50,9 @@ type Problem struct {
 	Lower, Upper []float64
 
 	// VarNames and EqNames name the unknowns and equations in every
-	// diagnostic ("unknown 'line l3 pressure'"). Nil or short lists fall
-	// back to "unknown 7", "equation 3".
+	// diagnostic ("unknown 'line l3 pressure'"). Each is nil or has Dim
+	// entries; a nil list or an empty entry falls back to "unknown 7",
+	// "equation 3".
 	VarNames, EqNames []string
 }
 

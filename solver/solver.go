@@ -25,7 +25,7 @@ type Solver struct {
 
 	fact  Factorizer
 	jac   *mat.Dense // scaled Jacobian
-	color *coloring  // nil for a dense finite-difference Jacobian
+	color *coloring  // nil without a Pattern: dense finite differences
 
 	jtj    *mat.Dense // J̃ᵀJ̃ + μI for Levenberg–Marquardt steps (Regularize only)
 	lmFact *DenseLU
@@ -103,7 +103,7 @@ func New(p Problem, s *Settings) (*Solver, error) {
 		sv.jtj = mat.NewDense(n, n, nil)
 		sv.lmFact = NewDenseLU()
 	}
-	if p.Jacobian == nil && p.Pattern != nil {
+	if p.Pattern != nil {
 		sv.color = colorColumns(p.Pattern, n)
 	}
 	work := make([]float64, 9*n)
