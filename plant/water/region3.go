@@ -87,13 +87,18 @@ func rho3(p, t float64, sd side3) (float64, bool) {
 	switch sd {
 	case sideVapour:
 		rho = p / (rGas * t)
+		// An upper bound for the guard, used only if Newton misbehaves
+		// (near the critical point, where the isotherm is flat).
+		if pr, _ := p3(1.25*rhoCrit, t); pr > p {
+			hi = 1.25 * rhoCrit
+		}
 	case sideLiquid, sideSuper:
 		// The region 1 density at (p, 623.15 K) lies above every region 3
 		// density at pressure p; 2 % more makes sure of it.
 		g := gibbs1(p, t13)
 		rho = 1.02 * p / (rGas * t13 * g.gp)
-		if sd == sideSuper {
-			lo = 0
+		if pr, _ := p3(0.75*rhoCrit, t); sd == sideLiquid && pr < p {
+			lo = 0.75 * rhoCrit
 		}
 	}
 	for range 200 {
@@ -113,10 +118,12 @@ func rho3(p, t float64, sd side3) (float64, bool) {
 			break
 		}
 		if !(dp > 0) || next <= lo || next >= hi {
-			switch {
-			case math.IsInf(hi, 1):
+			if math.IsInf(hi, 1) {
+				if rho > 4*rhoCrit {
+					return rho, false
+				}
 				next = 2 * rho
-			default:
+			} else {
 				next = 0.5 * (lo + hi)
 			}
 		}

@@ -245,3 +245,39 @@ func FuzzWetQuality(f *testing.F) {
 		}
 	})
 }
+
+// TestNearCritical: at and next to the critical point every constructor
+// returns finite numbers, and the saturated liquid is not lighter than the
+// vapour by more than the flatness of the isotherm allows. Source:
+// IAPWS R7-97(2012) Eqs. 2-4 (critical constants); common practice.
+func TestNearCritical(t *testing.T) {
+	t.Parallel()
+	for _, d := range []float64{0, 1e-12, 1e-10, 1e-8, 1e-6, 1e-4, 1e-3} {
+		p := pCrit * (1 - d)
+		for _, x := range []float64{0, 0.3, 1} {
+			st, err := PX(p, x)
+			if err != nil || !allFinite(st) {
+				t.Errorf("PX(%.12g, %g) = %+v, %v", p, x, st, err)
+			}
+			for name, f := range map[string]func(float64, float64) (State, error){"PH": PH, "PS": PS} {
+				v := st.H
+				if name == "PS" {
+					v = st.S
+				}
+				b, err := f(p, v)
+				if err != nil || !allFinite(b) {
+					t.Errorf("%s(%.12g, %.12g) from x=%g: %+v, %v", name, p, v, x, b, err)
+				}
+			}
+		}
+		l, err1 := SatLiquid(p)
+		v, err2 := SatVapour(p)
+		if err1 != nil || err2 != nil || !(l.Rho >= v.Rho*(1-1e-6)) {
+			t.Errorf("p = %.12g: rho' = %.9g, rho'' = %.9g (%v, %v)", p, l.Rho, v.Rho, err1, err2)
+		}
+	}
+	st, err := PT(pCrit, tCrit)
+	if err != nil || !allFinite(st) || math.Abs(st.Rho-rhoCrit) > 1 {
+		t.Errorf("PT at the critical point: %+v, %v (want ρ near 322 kg/m3, IAPWS R7-97(2012) Eq. 4)", st, err)
+	}
+}

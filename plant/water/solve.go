@@ -340,7 +340,12 @@ func solveSlow(fn string, k kind, p, f, tb1, tb2 float64, sat *[2]State) (soluti
 		case f > fv:
 			lo = ts
 		default:
-			sol.t, sol.reg, sol.x = ts, RegionTwoPhase, (f-fl)/(fv-fl)
+			sol.t, sol.reg = ts, RegionTwoPhase
+			// Within about 1e-8 of the critical pressure the saturated
+			// states of Eq. 28 merge; f then equals both.
+			if fv > fl {
+				sol.x = (f - fl) / (fv - fl)
+			}
 			if sat != nil {
 				sat[0], sat[1] = l, v
 			}
