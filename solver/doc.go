@@ -99,7 +99,9 @@
 // The Factorizer interface separates the linear solve from the method.
 // The default DenseLU calls gonum's LAPACK routines (Dgetf2, Dgetrs,
 // Dgecon) on storage it owns, so it allocates nothing after its first
-// factorisation; a sparse factorisation can be supplied through
+// factorisation; from order 320 (DenseLU.BlockedFrom) it switches to the
+// faster blocked Dgetrf, whose parallel matrix products allocate. No
+// sparse factorisation is built in; one can be supplied through
 // Settings.Factorizer.
 //
 // # Errors and allocation
@@ -110,7 +112,8 @@
 // Contradictory data (crossed bounds, non-positive scales, bad settings)
 // is an error wrapping ErrInvalidProblem; a start point outside the
 // bounds is InvalidStart. Wrong slice lengths are programmer mistakes and
-// panic with a "solver: " prefix. A Solver made by New reuses all its storage, including its
-// Result, so repeated solves (the hours of a voyage, warm-started from the
-// previous answer) allocate nothing.
+// panic with a "solver: " prefix. A Solver made by New reuses all its
+// storage, including its Result, so repeated successful solves (the hours
+// of a voyage, warm-started from the previous answer) allocate nothing
+// below order 320 (see DenseLU); a failing solve allocates its error.
 package solver
