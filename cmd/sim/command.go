@@ -46,6 +46,7 @@ type command struct {
 func commands() []*command {
 	return []*command{
 		steamCommand(),
+		fluegasCommand(),
 		helpCommand(),
 	}
 }
