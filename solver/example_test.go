@@ -90,6 +90,9 @@ func ExampleNew() {
 		copy(x, res.X) // res belongs to sv and is overwritten by the next Solve
 		fmt.Printf("hour %d: drum %.1f bar, feed flow %.4f kg/s, %d iterations\n", hour, pDrum/1e5, x[1], res.Stats.Iterations)
 	}
+	// Check by hand for hour 1: 10e5 − 2e4·2.8920² = 8.3273e5 Pa and
+	// 3.5e-3·√(8.3273e5 − 1.5e5) = 2.8920 kg/s.
+
 	// Output:
 	// hour 0: drum 1.0 bar, feed flow 2.9758 kg/s, 4 iterations
 	// hour 1: drum 1.5 bar, feed flow 2.8920 kg/s, 3 iterations
