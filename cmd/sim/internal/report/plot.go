@@ -1,0 +1,255 @@
+package report
+
+import (
+	"fmt"
+	"image/color"
+	"io"
+	"math"
+	"strings"
+
+	"gonum.org/v1/plot"
+	"gonum.org/v1/plot/plotter"
+	"gonum.org/v1/plot/vg"
+	"gonum.org/v1/plot/vg/draw"
+	"gonum.org/v1/plot/vg/vgimg"
+	"gonum.org/v1/plot/vg/vgsvg"
+)
+
+// Plot formats.
+const (
+	SVG = "svg"
+	PNG = "png"
+)
+
+// FormatOf returns the plot format a file name asks for by its extension
+// (".svg" or ".png", any case), or an error naming what is accepted.
+func FormatOf(name string) (string, error) {
+	i := strings.LastIndexByte(name, '.')
+	ext := ""
+	if i >= 0 {
+		ext = strings.ToLower(name[i+1:])
+	}
+	switch ext {
+	case SVG, PNG:
+		return ext, nil
+	}
+	return "", fmt.Errorf("plot file %q: the name must end in .svg or .png, which sets the format", name)
+}
+
+// palette holds the fill colours of the consumers' bars, in order; a run
+// with more consumers starts over.
+var palette = [...]color.NRGBA{
+	{0x2f, 0x5d, 0x8a, 0xff}, // deep blue
+	{0xe0, 0x9a, 0x3e, 0xff}, // amber
+	{0x5b, 0x9e, 0x6b, 0xff}, // green
+	{0xb8, 0x4f, 0x46, 0xff}, // brick
+	{0x86, 0x6f, 0xb0, 0xff}, // violet
+	{0x4c, 0xaa, 0xb0, 0xff}, // teal
+	{0xc7, 0xb2, 0x44, 0xff}, // mustard
+	{0x8a, 0x6a, 0x4c, 0xff}, // brown
+	{0xd3, 0x84, 0xa6, 0xff}, // rose
+	{0x7f, 0x8c, 0x99, 0xff}, // slate
+}
+
+var (
+	ink         = color.NRGBA{0x22, 0x22, 0x22, 0xff}
+	firingColor = color.NRGBA{0xc0, 0x1c, 0x1c, 0xff}
+	allColor    = color.NRGBA{0x22, 0x22, 0x22, 0xff}
+)
+
+// Series of the chart other than the consumers.
+const (
+	seriesTank   = "feed tank heating"
+	seriesDrains = "header drains"
+	seriesOther  = "other (balance of demand)"
+)
+
+// Plot draws the run as a chart in format (SVG or PNG) to w: for each
+// case a bar of the steam demand stacked by consumer (with the feed tank's
+// heating steam and the header drains, and any rest of the demand not
+// taken by a listed consumer), a short red bar at the MCR of the boilers
+// firing and a dashed line with squares at the MCR of all boilers, in
+// kg/h. The legend stands to the right of the chart.
+func Plot(w io.Writer, format string, cases []Case) error {
+	if len(cases) == 0 {
+		return fmt.Errorf("plot: no load case to draw")
+	}
+	p := plot.New()
+	title := "Steam demand and boiler capacity"
+	if pl := cases[0].Plant; pl != "" && samePlant(cases) {
+		title += ": " + pl
+	}
+	p.Title.Text = title
+	p.X.Label.Text = "load case"
+	p.Y.Label.Text = "steam, kg/h"
+	names := make([]string, len(cases))
+	for i, c := range cases {
+		names[i] = c.Result.Name
+	}
+	p.NominalX(names...)
+	if len(cases) > 3 {
+		p.X.Tick.Label.Rotation = math.Pi / 6
+		p.X.Tick.Label.XAlign = draw.XRight
+		p.X.Tick.Label.YAlign = draw.YCenter
+	}
+	p.Add(plotter.NewGrid())
+
+	// The demand, by consumer, in the order consumers first appear.
+	series, order := demandSeries(cases)
+	legend := plot.NewLegend()
+	legend.Top, legend.Left = true, true
+	barW := vg.Points(math.Max(12, math.Min(48, 360/float64(len(cases)))))
+	var below *plotter.BarChart
+	for i, name := range order {
+		bc, err := plotter.NewBarChart(series[name], barW)
+		if err != nil {
+			return fmt.Errorf("plot: %s: %w", name, err)
+		}
+		bc.Color = palette[i%len(palette)]
+		bc.LineStyle.Width = vg.Points(0.5)
+		bc.LineStyle.Color = color.White
+		if below != nil {
+			bc.StackOn(below)
+		}
+		below = bc
+		p.Add(bc)
+		legend.Add(name, bc)
+	}
+
+	// The capacity: the firing boilers' MCR as a short bar over each case,
+	// all boilers' MCR as a dashed line with squares.
+	half := 0.42
+	var firing *plotter.Line
+	allPts := make(plotter.XYs, len(cases))
+	for i, c := range cases {
+		var capF, capA float64
+		for _, b := range c.Result.Boilers {
+			capA += b.MCRKgS * kgh
+			if b.Firing {
+				capF += b.MCRKgS * kgh
+			}
+		}
+		allPts[i] = plotter.XY{X: float64(i), Y: capA}
+		l, err := plotter.NewLine(plotter.XYs{{X: float64(i) - half, Y: capF}, {X: float64(i) + half, Y: capF}})
+		if err != nil {
+			return fmt.Errorf("plot: MCR of the boilers firing in %q: %w", c.Result.Name, err)
+		}
+		l.Color = firingColor
+		l.Width = vg.Points(2.5)
+		p.Add(l)
+		firing = l
+	}
+	all, pts, err := plotter.NewLinePoints(allPts)
+	if err != nil {
+		return fmt.Errorf("plot: MCR of all boilers: %w", err)
+	}
+	all.Color = allColor
+	all.Width = vg.Points(1)
+	all.Dashes = []vg.Length{vg.Points(5), vg.Points(3)}
+	pts.Shape = draw.BoxGlyph{}
+	pts.Color = allColor
+	pts.Radius = vg.Points(3)
+	p.Add(all, pts)
+	legend.Add("MCR of the boilers firing", firing)
+	legend.Add("MCR of all boilers", all, pts)
+	p.Y.Min = 0
+	if p.Y.Max > 0 {
+		p.Y.Max *= 1.08
+	}
+	for _, ax := range []*plot.Axis{&p.X, &p.Y} {
+		ax.Color = ink
+		ax.Tick.Color = ink
+	}
+
+	// Size: wider with more cases; the legend takes a strip on the right.
+	legW := vg.Length(0)
+	for _, n := range append(order, "MCR of the boilers firing", "MCR of all boilers") {
+		if wd := legend.TextStyle.Width(n); wd > legW {
+			legW = wd
+		}
+	}
+	legW += legend.ThumbnailWidth + vg.Centimeter
+	plotW := vg.Length(math.Max(12, math.Min(40, 2.2*float64(len(cases))+6))) * vg.Centimeter
+	width, height := plotW+legW, 11*vg.Centimeter
+
+	var canvas interface {
+		vg.CanvasSizer
+		io.WriterTo
+	}
+	switch format {
+	case SVG:
+		canvas = vgsvg.New(width, height)
+	case PNG:
+		canvas = vgimg.PngCanvas{Canvas: vgimg.NewWith(vgimg.UseWH(width, height), vgimg.UseDPI(120))}
+	default:
+		return fmt.Errorf("plot: unknown format %q; the formats are svg and png", format)
+	}
+	dc := draw.New(canvas)
+	p.Draw(draw.Crop(dc, 0, -legW, 0, 0))
+	legend.Draw(draw.Crop(dc, plotW+vg.Millimeter*3, 0, 0, -vg.Centimeter))
+	_, err = canvas.WriteTo(w)
+	return err
+}
+
+func samePlant(cases []Case) bool {
+	for _, c := range cases {
+		if c.Plant != cases[0].Plant {
+			return false
+		}
+	}
+	return true
+}
+
+// demandSeries returns the steam flows, kg/h, of every consumer across the
+// cases (zero where a case lacks it), and the series names in order.
+func demandSeries(cases []Case) (map[string]plotter.Values, []string) {
+	series := map[string]plotter.Values{}
+	var order []string
+	add := func(name string, i int, v float64) {
+		s, ok := series[name]
+		if !ok {
+			s = make(plotter.Values, len(cases))
+			order = append(order, name)
+		}
+		s[i] += v
+		series[name] = s
+	}
+	for i, c := range cases {
+		r := c.Result
+		var listed float64
+		for _, cs := range r.Consumers {
+			add(cs.Name, i, math.Max(0, cs.SteamKgS*kgh))
+			listed += cs.SteamKgS
+		}
+		for _, u := range r.Units {
+			if m, ok := u.Figures[keyTankSteam]; ok && u.Kind == kindFeedTank {
+				add(seriesTank, i, math.Max(0, m*kgh))
+				listed += m
+			}
+		}
+		d := headerDrains(r)
+		add(seriesDrains, i, math.Max(0, d*kgh))
+		listed += d
+		// Steam the listed takers do not account for (a reducing valve's
+		// other outlet, say) is drawn so that the bar reaches the demand.
+		if rest := (r.SteamDemandKgS - listed) * kgh; rest > 0.5 {
+			add(seriesOther, i, rest)
+		}
+	}
+	// A series that is zero in every case is left out.
+	kept := order[:0]
+	for _, name := range order {
+		nonzero := false
+		for _, v := range series[name] {
+			if v > 0 {
+				nonzero = true
+			}
+		}
+		if nonzero {
+			kept = append(kept, name)
+		} else {
+			delete(series, name)
+		}
+	}
+	return series, kept
+}

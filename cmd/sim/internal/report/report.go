@@ -1,0 +1,245 @@
+package report
+
+import (
+	"bytes"
+	"fmt"
+	"io"
+	"math"
+	"strconv"
+	"strings"
+	"text/tabwriter"
+
+	"steamcase/plant"
+)
+
+// Caution is the safety note every rendering carries, on one line.
+const Caution = "Caution: planning and audit estimate only; the makers' manuals, class and flag rules and licensed practice govern, and local codes come first."
+
+// Case is one solved load case of a run: the result and the name of the
+// plant it was solved on. The script position is Result.Pos.
+type Case struct {
+	Plant  string
+	Result *plant.CaseResult
+}
+
+// Header kinds and figure keys read from plant.UnitResult.
+const (
+	kindHeader   = "steam header"
+	kindFeedTank = "feed tank"
+	keyDrained   = "drained_kg_s"
+	keyTankSteam = "heating_steam_kg_s"
+	kgh          = 3600.0 // kg/s to kg/h
+)
+
+// Table writes the cases as a text table for people, one block per case,
+// and the caution at the end.
+func Table(w io.Writer, cases []Case) error {
+	ew := &errWriter{w: w}
+	if len(cases) == 0 {
+		fmt.Fprintln(ew, "No load case was solved.")
+	}
+	var b bytes.Buffer
+	for i, c := range cases {
+		if i > 0 {
+			fmt.Fprintln(ew)
+		}
+		b.Reset()
+		writeCase(&b, i+1, len(cases), c)
+		writeTrimmed(ew, b.Bytes())
+	}
+	fmt.Fprintf(ew, "\n%s\n", Caution)
+	return ew.err
+}
+
+func writeCase(w io.Writer, n, total int, c Case) {
+	r := c.Result
+	fmt.Fprintf(w, "Load case %d of %d: %s\n", n, total, r.Name)
+	where := ""
+	if s := r.Pos.String(); s != "" {
+		where = ", solved at " + s
+	}
+	fmt.Fprintf(w, "  plant %q%s\n", c.Plant, where)
+	fmt.Fprintf(w, "  conditions: sea %s °C, air %s °C, main engine load %s %%\n",
+		fix(r.Conditions.SeaT-273.15, 1), fix(r.Conditions.AirT-273.15, 1), fix(r.Conditions.EngineLoad*100, 1))
+	if r.Converged {
+		fmt.Fprintf(w, "  solution: converged in %d iterations\n", r.Iterations)
+	} else {
+		fmt.Fprintf(w, "  solution: NOT CONVERGED after %d iterations (residual %s); the figures below are not a balance\n",
+			r.Iterations, sci(r.ResidualNorm))
+	}
+
+	// The steam balance.
+	fmt.Fprintf(w, "\n  Steam balance\n")
+	tw := tabwriter.NewWriter(w, 0, 8, 2, ' ', 0)
+	fmt.Fprintf(tw, "    \t\t%10s\t%10s\t\n", "kg/h", "kW")
+	fmt.Fprintf(tw, "    produced\t\t\t\t\n")
+	for _, b := range r.Boilers {
+		note := "heat to water"
+		if !b.Firing {
+			note = "not firing"
+		}
+		fmt.Fprintf(tw, "      %s\t%s\t%10s\t%10s\t%s\n", b.Name, "oil-fired boiler", fix(b.SteamKgS*kgh, 1), fix(b.HeatW/1e3, 1), note)
+	}
+	fmt.Fprintf(tw, "    taken\t\t\t\t\n")
+	for _, cs := range r.Consumers {
+		note := "duty"
+		if cs.Kind == "steam turbine" {
+			note = "shaft power"
+		}
+		fmt.Fprintf(tw, "      %s\t%s\t%10s\t%10s\t%s\n", cs.Name, cs.Kind, fix(cs.SteamKgS*kgh, 1), fix(cs.DutyW/1e3, 1), note)
+	}
+	for _, u := range r.Units {
+		if u.Kind == kindFeedTank {
+			if m, ok := u.Figures[keyTankSteam]; ok {
+				fmt.Fprintf(tw, "      %s\t%s\t%10s\t%10s\t\n", u.Name, "feed tank heating", fix(m*kgh, 1), "")
+			}
+		}
+	}
+	for _, u := range r.Units {
+		if u.Kind == kindHeader && (u.Figures[keyDrained] != 0 || u.Figures["heat_loss_W"] != 0) {
+			fmt.Fprintf(tw, "      %s\t%s\t%10s\t%10s\t%s\n", u.Name, "header drains", fix(u.Figures[keyDrained]*kgh, 1),
+				fix(u.Figures["heat_loss_W"]/1e3, 1), "heat loss, drained and lost")
+		}
+	}
+	if r.DumpedKgS != 0 {
+		fmt.Fprintf(tw, "      %s\t%s\t%10s\t%10s\t\n", "dumped", "to the dump condenser", fix(r.DumpedKgS*kgh, 1), "")
+	}
+	fmt.Fprintf(tw, "    demand\t\t%10s\t\t\n", fix(r.SteamDemandKgS*kgh, 1))
+	fmt.Fprintf(tw, "    production\t\t%10s\t\t\n", fix(r.SteamProductionKgS*kgh, 1))
+	fmt.Fprintf(tw, "    water lost\t\t\t\t\n")
+	fmt.Fprintf(tw, "      %s\t\t%10s\t\t\n", "blowdown", fix(r.BlowdownKgS*kgh, 1))
+	fmt.Fprintf(tw, "      %s\t\t%10s\t\t\n", "vented flash steam", fix(r.VentedKgS*kgh, 1))
+	var lost float64
+	for _, cs := range r.Consumers {
+		lost += cs.LostKgS
+	}
+	fmt.Fprintf(tw, "      %s\t\t%10s\t\t\n", "condensate not returned", fix(lost*kgh, 1))
+	fmt.Fprintf(tw, "      %s\t\t%10s\t\t\n", "header drains", fix(headerDrains(r)*kgh, 1))
+	fmt.Fprintf(tw, "    make-up\t\t%10s\t\t\n", fix(r.MakeUpKgS*kgh, 1))
+	tw.Flush()
+
+	// The boilers.
+	firing := fmt.Sprintf("%d of %d firing", r.BoilersFiring, len(r.Boilers))
+	if r.Forced {
+		firing += " (chosen by the case)"
+	}
+	fmt.Fprintf(w, "\n  Boilers: %s\n", firing)
+	tw = tabwriter.NewWriter(w, 0, 8, 2, ' ', 0)
+	fmt.Fprintf(tw, "    boiler\tfiring\t%10s\t%10s\t%10s\t%10s\t%10s\tburner\n", "load %MCR", "MCR kg/h", "steam kg/h", "fuel kg/h", "eff. %")
+	for _, b := range r.Boilers {
+		yes, burner, eff := "no", "off", "-"
+		if b.Firing {
+			yes, burner = "yes", "steady"
+			if b.Cycling {
+				burner = fmt.Sprintf("cycling, on %s %% of the time", fix(b.OnFraction*100, 0))
+			}
+			eff = fix(b.Efficiency*100, 1) + " " + b.EfficiencyBasis
+		}
+		fmt.Fprintf(tw, "    %s\t%s\t%10s\t%10s\t%10s\t%10s\t%10s\t%s\n", b.Name, yes, fix(b.LoadFraction*100, 1),
+			fix(b.MCRKgS*kgh, 1), fix(b.SteamKgS*kgh, 1), fix(b.FuelKgS*kgh, 1), eff, burner)
+	}
+	tw.Flush()
+	if !r.CanCarry {
+		fmt.Fprintf(w, "  CANNOT CARRY the demand: short by %s kg/h\n", fix(r.ShortfallKgS*kgh, 1))
+	}
+	fmt.Fprintf(w, "  margin %s: %s kg/h\n", marginLabel(r), fix(r.MarginNextKgS*kgh, 1))
+
+	// The totals.
+	fmt.Fprintf(w, "\n")
+	tw = tabwriter.NewWriter(w, 0, 8, 2, ' ', 0)
+	fmt.Fprintf(tw, "  fuel\t%s kg/h\t%s t/day\n", fix(r.FuelKgS*kgh, 1), fix(r.FuelKgS*86.4, 3))
+	fmt.Fprintf(tw, "  CO2\t\t%s t/day\n", fix(r.CO2KgS*86.4, 2))
+	fmt.Fprintf(tw, "  electrical load\t%s kW\t\n", fix(r.ElectricW/1e3, 1))
+	fmt.Fprintf(tw, "  feed tank\t%s °C\t\n", fix(r.FeedTankT-273.15, 1))
+	fmt.Fprintf(tw, "  balance closure\tmass %s\tenergy %s (relative)\n", closure(r.Balance.MassRel), closure(r.Balance.EnergyRel))
+	tw.Flush()
+	if len(r.Warnings) == 0 {
+		fmt.Fprintf(w, "  warnings: none\n")
+		return
+	}
+	fmt.Fprintf(w, "  warnings (%d):\n", len(r.Warnings))
+	for _, s := range r.Warnings {
+		fmt.Fprintf(w, "    - %s\n", oneLine(s))
+	}
+}
+
+// headerDrains sums the condensate the headers' traps drain and lose.
+func headerDrains(r *plant.CaseResult) float64 {
+	var m float64
+	for _, u := range r.Units {
+		if u.Kind == kindHeader {
+			m += u.Figures[keyDrained]
+		}
+	}
+	return m
+}
+
+// marginLabel says what the margin is measured to.
+func marginLabel(r *plant.CaseResult) string {
+	switch {
+	case r.BoilersFiring == 0:
+		return "with no boiler firing (steam dumped)"
+	case r.BoilersFiring == len(r.Boilers):
+		return "to the MCR of all boilers"
+	case r.Forced:
+		return "to the MCR of the boilers firing"
+	}
+	return "before the next boiler must fire"
+}
+
+// fix formats v with dec decimals, without a minus sign on a value that
+// rounds to zero, and "-" for a value that is not finite.
+func fix(v float64, dec int) string {
+	if math.IsNaN(v) || math.IsInf(v, 0) {
+		return "-"
+	}
+	s := strconv.FormatFloat(v, 'f', dec, 64)
+	if strings.HasPrefix(s, "-") && strings.Trim(s, "-0.") == "" {
+		s = s[1:]
+	}
+	return s
+}
+
+// sci formats v with two significant digits in exponent form.
+func sci(v float64) string {
+	if math.IsNaN(v) || math.IsInf(v, 0) {
+		return "-"
+	}
+	return strconv.FormatFloat(v, 'e', 1, 64)
+}
+
+// closure formats a relative balance closure; below 1e-9 it is solver
+// noise and is shown as such, so that reports do not change with the last
+// bits of a solve.
+func closure(v float64) string {
+	if v < 1e-9 {
+		return "< 1e-9"
+	}
+	return sci(v)
+}
+
+// writeTrimmed writes text without the spaces tabwriter leaves at the ends
+// of lines.
+func writeTrimmed(w io.Writer, text []byte) {
+	for line := range bytes.Lines(text) {
+		w.Write(bytes.TrimRight(line, " \n"))
+		w.Write([]byte{'\n'})
+	}
+}
+
+func oneLine(s string) string { return strings.Join(strings.Fields(s), " ") }
+
+// errWriter keeps the first write error.
+type errWriter struct {
+	w   io.Writer
+	err error
+}
+
+func (e *errWriter) Write(p []byte) (int, error) {
+	if e.err != nil {
+		return 0, e.err
+	}
+	n, err := e.w.Write(p)
+	e.err = err
+	return n, err
+}

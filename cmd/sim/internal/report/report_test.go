@@ -1,0 +1,427 @@
+package report
+
+import (
+	"bytes"
+	"context"
+	"encoding/csv"
+	"encoding/json"
+	"flag"
+	"fmt"
+	"math"
+	"os"
+	"path/filepath"
+	"strconv"
+	"strings"
+	"testing"
+
+	"steamcase/plant"
+)
+
+var update = flag.Bool("update", false, "rewrite the golden files in testdata/")
+
+const bar = 1e5
+
+// gauge converts bar(g) to Pa absolute at the standard atmosphere
+// (101325 Pa, exact by definition).
+func gauge(b float64) float64 { return b*bar + 101325 }
+
+func must(t testing.TB, err error) {
+	t.Helper()
+	if err != nil {
+		t.Fatal(err)
+	}
+}
+
+// twoBoilers is an invented plant: two 10 t/h oil-fired boilers at
+// 7 bar(g) on one header, a heating consumer with 95 % return and a sundry
+// consumer that loses its condensate (the plant package's test plant).
+func twoBoilers(t testing.TB, name string) *plant.Plant {
+	p := plant.New(name, plant.Options{UsableFraction: 0.85})
+	fuel := plant.FuelSpec{Name: "HFO", LHV: 40.2e6, CO2Factor: 3.114}
+	eta := &plant.EfficiencyTable{Load: []float64{0.25, 0.5, 0.75, 1.0}, Eta: []float64{0.80, 0.84, 0.85, 0.845}}
+	must(t, p.Add(&plant.MakeUp{UnitBase: plant.UnitBase{Name: "makeup"}, T: 288.15}))
+	must(t, p.Add(&plant.FeedTank{UnitBase: plant.UnitBase{Name: "hotwell"}, HeatLoss: 5e3}))
+	must(t, p.Add(&plant.FeedPump{UnitBase: plant.UnitBase{Name: "fp"}, Boilers: []string{"AB1", "AB2"}, Margin: 3 * bar, Eta: 0.45}))
+	must(t, p.Add(&plant.Header{UnitBase: plant.UnitBase{Name: "feed header"}}))
+	for _, b := range []string{"AB1", "AB2"} {
+		must(t, p.Add(&plant.Boiler{UnitBase: plant.UnitBase{Name: b}, MCR: 10000.0 / 3600, DrumP: gauge(7), Turndown: 4,
+			Blowdown: 0.01, Dryness: 0.98, Efficiency: eta, Fuel: fuel}))
+	}
+	must(t, p.Add(&plant.Header{UnitBase: plant.UnitBase{Name: "main"}, HeatLoss: 10e3}))
+	must(t, p.Add(&plant.Consumer{UnitBase: plant.UnitBase{Name: "cargo heating"}, Duty: 2e6, SubCooling: 10, ReturnFraction: 0.95}))
+	must(t, p.Add(&plant.Consumer{UnitBase: plant.UnitBase{Name: "sundry"}, SteamFlow: 0.1}))
+	p.Connect("makeup", plant.Pos{}, "makeup", "out", "hotwell", "in")
+	p.Connect("suction", plant.Pos{}, "hotwell", "out", "fp", "in")
+	p.Connect("discharge", plant.Pos{}, "fp", "out", "feed header", "in")
+	p.Connect("feed1", plant.Pos{}, "feed header", "out", "AB1", "feed")
+	p.Connect("feed2", plant.Pos{}, "feed header", "out", "AB2", "feed")
+	p.Connect("steam1", plant.Pos{}, "AB1", "steam", "main", "in")
+	p.Connect("steam2", plant.Pos{}, "AB2", "steam", "main", "in")
+	p.Connect("to heating", plant.Pos{}, "main", "out", "cargo heating", "in")
+	p.Connect("to sundry", plant.Pos{}, "main", "out", "sundry", "in")
+	p.Connect("heating return", plant.Pos{}, "cargo heating", "out", "hotwell", "in")
+	return p
+}
+
+// demoCases solves four cases on the two-boiler plant: a light port load
+// (one boiler cycling), a heavy load (both firing), one beyond both
+// boilers' MCR, and one with the firing forced.
+func demoCases(t testing.TB) []Case {
+	p := twoBoilers(t, "Invented Test Tanker")
+	cond := func(seaC, airC, engine float64) plant.Conditions {
+		return plant.Conditions{SeaT: seaC + 273.15, AirT: airC + 273.15, EngineLoad: engine}
+	}
+	specs := []plant.Case{
+		{Name: "port stay", Pos: plant.Pos{File: "demo.lua", Line: 12}, Conditions: cond(12, 5, 0),
+			Set: []plant.Setting{{Unit: "cargo heating", Param: "duty", Value: 300e3}}},
+		{Name: "cargo heating", Pos: plant.Pos{File: "demo.lua", Line: 17}, Conditions: cond(8, -2, 0.3),
+			Set: []plant.Setting{{Unit: "cargo heating", Param: "duty", Value: 7e6}}},
+		{Name: "too much", Pos: plant.Pos{File: "demo.lua", Line: 21}, Conditions: cond(8, -2, 0.3),
+			Set: []plant.Setting{{Unit: "cargo heating", Param: "duty", Value: 14e6}}},
+		{Name: "one boiler forced", Pos: plant.Pos{File: "demo.lua", Line: 25}, Conditions: cond(25, 30, 0.85),
+			Fire: []string{"AB2"}},
+	}
+	var out []Case
+	for _, c := range specs {
+		cr, err := p.Solve(context.Background(), c)
+		must(t, err)
+		out = append(out, Case{Plant: p.Name, Result: cr})
+	}
+	return out
+}
+
+func golden(t *testing.T, name string, got []byte) []byte {
+	t.Helper()
+	path := filepath.Join("testdata", name)
+	if *update {
+		must(t, os.WriteFile(path, got, 0o644))
+		return got
+	}
+	want, err := os.ReadFile(path)
+	if err != nil {
+		t.Fatalf("%v (run with -update to create it)", err)
+	}
+	return want
+}
+
+// TestGolden pins the layout and number formats of the table, the JSON
+// and the CSV. The figures come from the plant package, whose balances
+// are checked in its own tests. Rewrite with: go test ./cmd/sim/internal/report -update
+func TestGolden(t *testing.T) {
+	cases := demoCases(t)
+	for _, f := range []struct {
+		file   string
+		render func(*bytes.Buffer) error
+	}{
+		{"table.golden", func(b *bytes.Buffer) error { return Table(b, cases) }},
+		{"json.golden", func(b *bytes.Buffer) error { return JSON(b, cases) }},
+		{"csv.golden", func(b *bytes.Buffer) error { return CSV(b, cases) }},
+		{"table_empty.golden", func(b *bytes.Buffer) error { return Table(b, nil) }},
+	} {
+		var b bytes.Buffer
+		must(t, f.render(&b))
+		want := golden(t, f.file, b.Bytes())
+		if strings.HasPrefix(f.file, "json") {
+			if err := sameJSON(b.String(), string(want)); err != nil {
+				t.Errorf("%s differs: %v (rewrite with -update if the change is meant)", f.file, err)
+			}
+			continue
+		}
+		if !bytes.Equal(b.Bytes(), want) {
+			t.Errorf("%s differs:\n--- got\n%s\n--- want\n%s", f.file, b.String(), want)
+		}
+	}
+}
+
+// TestCasesCoverTheStates makes sure the golden cases show what the report
+// must say: a cycling boiler, two boilers firing, a case the plant cannot
+// carry and a forced firing.
+func TestCasesCoverTheStates(t *testing.T) {
+	cases := demoCases(t)
+	r := func(i int) *plant.CaseResult { return cases[i].Result }
+	if r(0).BoilersFiring != 1 || !r(0).Boilers[0].Cycling {
+		t.Errorf("port stay: %d firing, AB1 cycling %v; want one boiler cycling", r(0).BoilersFiring, r(0).Boilers[0].Cycling)
+	}
+	if r(1).BoilersFiring != 2 || !r(1).CanCarry {
+		t.Errorf("cargo heating: %d firing, can carry %v; want both firing and carrying", r(1).BoilersFiring, r(1).CanCarry)
+	}
+	if r(2).CanCarry || r(2).ShortfallKgS <= 0 {
+		t.Errorf("too much: can carry %v, shortfall %g; want a shortfall", r(2).CanCarry, r(2).ShortfallKgS)
+	}
+	if !r(3).Forced || r(3).Boilers[0].Firing || !r(3).Boilers[1].Firing {
+		t.Errorf("one boiler forced: forced %v, firing %v %v", r(3).Forced, r(3).Boilers[0].Firing, r(3).Boilers[1].Firing)
+	}
+	var b bytes.Buffer
+	must(t, Table(&b, cases))
+	out := b.String()
+	for _, s := range []string{
+		"Load case 1 of 4: port stay", `plant "Invented Test Tanker", solved at demo.lua:12`,
+		"sea 12.0 °C, air 5.0 °C, main engine load 0.0 %", "cycling, on ", "2 of 2 firing",
+		"CANNOT CARRY the demand: short by", "1 of 2 firing (chosen by the case)",
+		"margin before the next boiler must fire", "margin to the MCR of all boilers",
+		"header drains", "blowdown", "make-up", "t/day", "electrical load", "feed tank", "balance closure",
+		Caution,
+	} {
+		if !strings.Contains(out, s) {
+			t.Errorf("the table does not say %q", s)
+		}
+	}
+	if strings.Contains(out, "NaN") || strings.Contains(out, "Inf") {
+		t.Errorf("the table shows a non-finite number")
+	}
+	quiet := *cases[3].Result
+	quiet.Warnings = nil
+	b.Reset()
+	must(t, Table(&b, []Case{{Plant: "x", Result: &quiet}}))
+	if !strings.Contains(b.String(), "\n  warnings: none\n") {
+		t.Errorf("a case without warnings does not say so:\n%s", b.String())
+	}
+	if strings.Contains(out, " \n") {
+		t.Errorf("the table has trailing spaces")
+	}
+	if !strings.HasSuffix(out, Caution+"\n") {
+		t.Errorf("the table does not end with the caution")
+	}
+}
+
+// TestCSV reads the CSV back and checks each figure against the result it
+// came from, in the units the header names (1 kg/s = 3600 kg/h and
+// 1 t/day = 1000 kg / 86400 s, exact by definition; °C = K − 273.15,
+// exact by the Celsius definition), to the decimals written.
+func TestCSV(t *testing.T) {
+	cases := demoCases(t)
+	var b bytes.Buffer
+	must(t, CSV(&b, cases))
+	rows, err := csv.NewReader(&b).ReadAll()
+	must(t, err)
+	if len(rows) != len(cases)+1 {
+		t.Fatalf("%d rows, want a header and %d cases", len(rows), len(cases))
+	}
+	col := map[string]int{}
+	for i, h := range rows[0] {
+		col[h] = i
+	}
+	for i, c := range cases {
+		r, row := c.Result, rows[i+1]
+		num := func(key string, want, tol float64) {
+			t.Helper()
+			got, err := strconv.ParseFloat(row[col[key]], 64)
+			if err != nil || got < want-tol || got > want+tol {
+				t.Errorf("case %q: %s = %q, want %.6g ± %g", r.Name, key, row[col[key]], want, tol)
+			}
+		}
+		if row[col["case"]] != r.Name || row[col["plant"]] != c.Plant {
+			t.Errorf("row %d names %q on %q", i+1, row[col["case"]], row[col["plant"]])
+		}
+		num("sea_T_C", r.Conditions.SeaT-273.15, 0.05)
+		num("air_T_C", r.Conditions.AirT-273.15, 0.05)
+		num("engine_load_pct", r.Conditions.EngineLoad*100, 0.05)
+		num("boilers_firing", float64(r.BoilersFiring), 0)
+		num("shortfall_kg_h", r.ShortfallKgS*3600, 0.05)
+		num("steam_demand_kg_h", r.SteamDemandKgS*3600, 0.05)
+		num("steam_production_kg_h", r.SteamProductionKgS*3600, 0.05)
+		num("fuel_kg_h", r.FuelKgS*3600, 0.05)
+		num("fuel_t_per_day", r.FuelKgS*86400/1000, 0.0005)
+		num("co2_t_per_day", r.CO2KgS*86400/1000, 0.005)
+		num("makeup_kg_h", r.MakeUpKgS*3600, 0.05)
+		num("electric_kW", r.ElectricW/1000, 0.05)
+		num("margin_kg_h", r.MarginNextKgS*3600, 0.05)
+		num("warnings", float64(len(r.Warnings)), 0)
+		if row[col["can_carry"]] != strconv.FormatBool(r.CanCarry) {
+			t.Errorf("case %q: can_carry %q", r.Name, row[col["can_carry"]])
+		}
+	}
+}
+
+// TestJSONDocument decodes the JSON strictly and checks the envelope and
+// that each case is the plant's own CaseJSON.
+func TestJSONDocument(t *testing.T) {
+	cases := demoCases(t)
+	decode := func(cs []Case) map[string]json.RawMessage {
+		var b bytes.Buffer
+		must(t, JSON(&b, cs))
+		var doc map[string]json.RawMessage
+		must(t, json.Unmarshal(b.Bytes(), &doc))
+		return doc
+	}
+	doc := decode(cases)
+	if string(doc["schema"]) != strconv.Itoa(plant.SchemaVersion) {
+		t.Errorf("schema %s, want %d", doc["schema"], plant.SchemaVersion)
+	}
+	var compact bytes.Buffer
+	must(t, json.Compact(&compact, doc["plant"]))
+	if compact.String() != `{"name":"Invented Test Tanker"}` {
+		t.Errorf("plant %s", doc["plant"])
+	}
+	var caution string
+	must(t, json.Unmarshal(doc["caution"], &caution))
+	if caution != Caution {
+		t.Errorf("caution %q", caution)
+	}
+	var got []struct {
+		Plant  string `json:"plant"`
+		Source string `json:"source"`
+		plant.CaseJSON
+	}
+	dec := json.NewDecoder(bytes.NewReader(doc["cases"]))
+	dec.DisallowUnknownFields()
+	must(t, dec.Decode(&got))
+	for i, c := range cases {
+		want, _ := json.Marshal(c.Result.JSON())
+		have, _ := json.Marshal(got[i].CaseJSON)
+		if !bytes.Equal(want, have) || got[i].Plant != c.Plant || got[i].Source != c.Result.Pos.String() {
+			t.Errorf("case %d: plant %q source %q, CaseJSON equal %v", i, got[i].Plant, got[i].Source, bytes.Equal(want, have))
+		}
+	}
+
+	// Cases on two plants: the top-level plant is null.
+	other := twoBoilers(t, "Invented Second Ship")
+	cr, err := other.Solve(context.Background(), plant.Case{Name: "alone"})
+	must(t, err)
+	doc = decode(append(cases[:1:1], Case{Plant: other.Name, Result: cr}))
+	if string(doc["plant"]) != "null" {
+		t.Errorf("two plants: plant %s, want null", doc["plant"])
+	}
+	// No case: an empty list, not null.
+	doc = decode(nil)
+	if string(doc["cases"]) != "[]" || string(doc["plant"]) != "null" {
+		t.Errorf("no case: cases %s plant %s", doc["cases"], doc["plant"])
+	}
+}
+
+// TestPlot writes the chart in both formats; the bytes are not compared
+// (they depend on the plotting library's version), only that a real file
+// of the right kind comes out with the case names in it.
+func TestPlot(t *testing.T) {
+	cases := demoCases(t)
+	var svg bytes.Buffer
+	must(t, Plot(&svg, SVG, cases))
+	s := svg.String()
+	if !strings.HasPrefix(strings.TrimSpace(s), "<?xml") || !strings.Contains(s, "<svg") {
+		t.Fatalf("not an SVG: %.80q", s)
+	}
+	for _, want := range []string{"port stay", "cargo heating", "too much", "one boiler forced",
+		"steam, kg/h", "MCR of all boilers", "MCR of the boilers firing", "sundry", "header drains"} {
+		if !strings.Contains(s, want) {
+			t.Errorf("the SVG does not contain %q", want)
+		}
+	}
+	var png bytes.Buffer
+	must(t, Plot(&png, PNG, cases))
+	if !bytes.HasPrefix(png.Bytes(), []byte("\x89PNG\r\n\x1a\n")) || png.Len() < 1000 {
+		t.Errorf("not a PNG of any size: %d bytes", png.Len())
+	}
+	if err := Plot(&png, "pdf", cases); err == nil {
+		t.Error("format pdf accepted")
+	}
+	if err := Plot(&png, SVG, nil); err == nil {
+		t.Error("a chart of no case drawn")
+	}
+}
+
+func TestFormatOf(t *testing.T) {
+	for _, c := range []struct{ name, want string }{
+		{"out.svg", SVG}, {"dir/x.PNG", PNG}, {"a.b.svg", SVG}, {"plot.pdf", ""}, {"plot", ""}, {"svg", ""},
+	} {
+		got, err := FormatOf(c.name)
+		if got != c.want || (err == nil) != (c.want != "") {
+			t.Errorf("FormatOf(%q) = %q, %v; want %q", c.name, got, err, c.want)
+		}
+	}
+}
+
+func TestFix(t *testing.T) {
+	for _, c := range []struct {
+		v    float64
+		dec  int
+		want string
+	}{
+		{1.25, 1, "1.2"}, {-0.04, 1, "0.0"}, {-0.06, 1, "-0.1"}, {12345.678, 0, "12346"}, {-1e-12, 3, "0.000"},
+	} {
+		if got := fix(c.v, c.dec); got != c.want {
+			t.Errorf("fix(%g, %d) = %q, want %q", c.v, c.dec, got, c.want)
+		}
+	}
+}
+
+// noiseKeys are the figures that measure solver noise; their last digits
+// move with any change to the solver, so the golden compare asks only that
+// both stay below 1e-9.
+var noiseKeys = map[string]bool{"residual_norm": true, "mass_rel": true, "energy_rel": true}
+
+// sameJSON checks that every value of the golden text is in the output:
+// objects may gain keys (the schema allows new keys without a version
+// change, plant.SchemaVersion), but no key may go missing or change its
+// value. Strings, booleans and nulls must be equal, lists of the same
+// length, and numbers equal to 1e-9 relative (they are rounded to six
+// digits by plant.CaseResult.JSON); the noise keys need only both be below
+// 1e-9.
+func sameJSON(got, want string) error {
+	decode := func(s string) (any, error) {
+		d := json.NewDecoder(strings.NewReader(s))
+		d.UseNumber()
+		var v any
+		err := d.Decode(&v)
+		return v, err
+	}
+	g, err := decode(got)
+	if err != nil {
+		return fmt.Errorf("output: %v", err)
+	}
+	w, err := decode(want)
+	if err != nil {
+		return fmt.Errorf("golden: %v", err)
+	}
+	return contains(g, w, "$")
+}
+
+func contains(g, w any, path string) error {
+	switch w := w.(type) {
+	case map[string]any:
+		gm, ok := g.(map[string]any)
+		if !ok {
+			return fmt.Errorf("%s: %T, want an object", path, g)
+		}
+		for k, wv := range w {
+			gv, ok := gm[k]
+			if !ok {
+				return fmt.Errorf("%s: key %q missing", path, k)
+			}
+			if noiseKeys[k] {
+				a, _ := gv.(json.Number).Float64()
+				b, _ := wv.(json.Number).Float64()
+				if math.Abs(a) < 1e-9 && math.Abs(b) < 1e-9 {
+					continue
+				}
+			}
+			if err := contains(gv, wv, path+"."+k); err != nil {
+				return err
+			}
+		}
+	case []any:
+		gl, ok := g.([]any)
+		if !ok || len(gl) != len(w) {
+			return fmt.Errorf("%s: %v, want a list of %d", path, g, len(w))
+		}
+		for i := range w {
+			if err := contains(gl[i], w[i], fmt.Sprintf("%s[%d]", path, i)); err != nil {
+				return err
+			}
+		}
+	case json.Number:
+		gn, ok := g.(json.Number)
+		if !ok {
+			return fmt.Errorf("%s: %v, want the number %s", path, g, w)
+		}
+		a, _ := gn.Float64()
+		b, _ := w.Float64()
+		if math.Abs(a-b) > 1e-9*math.Max(math.Abs(a), math.Abs(b)) {
+			return fmt.Errorf("%s: %s, want %s", path, gn, w)
+		}
+	default:
+		if g != w {
+			return fmt.Errorf("%s: %v, want %v", path, g, w)
+		}
+	}
+	return nil
+}
