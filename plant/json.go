@@ -38,11 +38,28 @@ type CaseJSON struct {
 	FeedTankTK         float64        `json:"feed_tank_T_K"`
 	ElectricKW         float64        `json:"electric_kW"`
 	Balance            BalanceJSON    `json:"balance"`
+	EGESteamKgH        float64        `json:"ege_steam_kg_h"`
+	EGEFuelSavedKgH    float64        `json:"ege_fuel_saved_kg_h"`
 	Boilers            []BoilerJSON   `json:"boilers"`
+	EGEs               []EGEJSON      `json:"exhaust_gas_economisers"`
 	Consumers          []ConsumerJSON `json:"consumers"`
 	Units              []UnitJSON     `json:"units"`
 	Lines              []LineJSON     `json:"lines"`
 	Warnings           []string       `json:"warnings"`
+}
+
+// EGEJSON is one exhaust-gas economiser in the JSON form.
+type EGEJSON struct {
+	Name           string  `json:"name"`
+	InService      bool    `json:"in_service"`
+	SteamKgH       float64 `json:"steam_kg_h"`
+	DutyKW         float64 `json:"duty_kW"`
+	GasKgS         float64 `json:"gas_kg_s"`
+	GasInTK        float64 `json:"gas_in_T_K"`
+	GasOutTK       float64 `json:"gas_out_T_K"`
+	PinchK         float64 `json:"pinch_K"`
+	BypassFraction float64 `json:"bypass_fraction"`
+	FuelSavedKgH   float64 `json:"fuel_saved_kg_h"`
 }
 
 // BalanceJSON holds the balance closures.
@@ -158,7 +175,10 @@ func (cr *CaseResult) JSON() CaseJSON {
 		FeedTankTK:         r6(cr.FeedTankT),
 		ElectricKW:         r6(cr.ElectricW / 1e3),
 		Balance:            BalanceJSON{MassRel: cr.Balance.MassRel, EnergyRel: cr.Balance.EnergyRel},
+		EGESteamKgH:        r6(cr.EGESteamKgS * h),
+		EGEFuelSavedKgH:    r6(cr.EGEFuelSavedKgS * h),
 		Boilers:            []BoilerJSON{},
+		EGEs:               []EGEJSON{},
 		Consumers:          []ConsumerJSON{},
 		Units:              []UnitJSON{},
 		Lines:              []LineJSON{},
@@ -189,6 +209,13 @@ func (cr *CaseResult) JSON() CaseJSON {
 			}
 		}
 		j.Boilers = append(j.Boilers, bj)
+	}
+	for _, e := range cr.EGEs {
+		j.EGEs = append(j.EGEs, EGEJSON{
+			Name: e.Name, InService: e.InService, SteamKgH: r6(e.SteamKgS * h), DutyKW: r6(e.DutyW / 1e3),
+			GasKgS: r6(e.GasKgS), GasInTK: r6(e.GasInT), GasOutTK: r6(e.GasOutT), PinchK: r6(e.Pinch),
+			BypassFraction: r6(e.BypassFraction), FuelSavedKgH: r6(e.FuelSavedKgS * h),
+		})
 	}
 	for _, c := range cr.Consumers {
 		j.Consumers = append(j.Consumers, ConsumerJSON{

@@ -57,6 +57,9 @@ type Options struct {
 	Logger zerolog.Logger
 	// Solver settings; nil means the solver's defaults.
 	Solver *solver.Settings
+	// NoEGESaving skips the second solve of each case without its
+	// exhaust-gas economisers that gives the fuel they save.
+	NoEGESaving bool
 }
 
 func (o *Options) defaults() {
@@ -96,6 +99,7 @@ type Plant struct {
 	prob     solver.Problem
 	last     []float64 // last converged unknowns, for warm starts
 	x0       []float64 // starting point scratch
+	lastCopy []float64
 	slvRes   solver.Result
 	solves   int
 	ev       eval

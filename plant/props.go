@@ -84,3 +84,6 @@ func vPH(p, h float64) (float64, error) {
 	s, err := water.PH(p, h)
 	return s.V, err
 }
+
+// waterTsat is the saturation temperature at p.
+func waterTsat(p float64) (float64, error) { return water.Tsat(p) }

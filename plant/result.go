@@ -40,10 +40,16 @@ type CaseResult struct {
 	CondensateLostKgS  float64
 	DumpedKgS          float64
 	FeedTankT          float64
+	// EGESteamKgS is the steam the exhaust-gas economisers raise, and
+	// EGEFuelSavedKgS the boiler fuel they save against the same case
+	// without them (solved again with them out of service).
+	EGESteamKgS     float64
+	EGEFuelSavedKgS float64
 
 	Balance Balance
 
 	Boilers   []BoilerResult
+	EGEs      []EGEResult
 	Consumers []ConsumerResult
 	Units     []UnitResult
 	Lines     []LineResult

@@ -142,6 +142,10 @@ func (p *Plant) applySettings(c *Case) (restore func(), err error) {
 			if err := v.prepare(c.Conditions); err != nil {
 				fs.add(v.Pos, v.Name, "", "%v", err.(*UnitError).Err)
 			}
+		case *ExhaustGasEconomiser:
+			if err := v.prepare(c.Conditions); err != nil {
+				fs.add(v.Pos, v.Name, "", "%v", err.(*UnitError).Err)
+			}
 		}
 	}
 	if err := fs.err(); err != nil {
@@ -201,7 +205,73 @@ func (p *Plant) Solve(ctx context.Context, c Case) (*CaseResult, error) {
 	if err := p.report(cr); err != nil {
 		return nil, err
 	}
+	if err := p.egeSaving(ctx, c, cr); err != nil {
+		return nil, err
+	}
 	return cr, nil
+}
+
+// egeSaving solves the case again with every exhaust-gas economiser out of
+// service and records the boiler fuel they save. The plant's warm-start
+// point is kept as the case with the economisers left it.
+func (p *Plant) egeSaving(ctx context.Context, c Case, cr *CaseResult) error {
+	if p.Opt.NoEGESaving || cr.EGESteamKgS <= 0 {
+		return nil
+	}
+	var eges []*ExhaustGasEconomiser
+	for _, u := range p.units {
+		if e, ok := u.(*ExhaustGasEconomiser); ok && e.Off == 0 {
+			eges = append(eges, e)
+		}
+	}
+	if p.lastCopy == nil {
+		p.lastCopy = make([]float64, len(p.last))
+	}
+	copy(p.lastCopy, p.last)
+	saved := p.slvRes
+	defer func() {
+		for _, e := range eges {
+			e.Off = 0
+		}
+		copy(p.last, p.lastCopy)
+		p.slvRes = saved
+	}()
+	for _, e := range eges {
+		e.Off = 1
+		if err := e.prepare(c.Conditions); err != nil {
+			return err
+		}
+	}
+	fire := make([]bool, len(p.boilers))
+	var err error
+	if c.Fire != nil && len(c.Fire) > 0 {
+		for i, b := range p.boilers {
+			for _, n := range c.Fire {
+				fire[i] = fire[i] || b.Name == n
+			}
+		}
+		err = p.solveConfig(ctx, fire)
+	} else {
+		err = p.decide(ctx, fire)
+	}
+	if err != nil {
+		return &SolveError{Case: c.Name + " (without exhaust-gas economisers)", Pos: c.Pos, Status: p.slvRes.Status, Err: err}
+	}
+	var fuel float64
+	for _, b := range p.boilers {
+		fuel += p.last[b.fuel]
+	}
+	cr.EGEFuelSavedKgS = fuel - cr.FuelKgS
+	for i := range cr.EGEs {
+		cr.EGEs[i].FuelSavedKgS = cr.EGEFuelSavedKgS
+	}
+	for _, e := range eges {
+		e.Off = 0
+		if err := e.prepare(c.Conditions); err != nil {
+			return err
+		}
+	}
+	return nil
 }
 
 // decide finds how many boilers must fire: none if the steam system has a
@@ -301,9 +371,10 @@ func (p *Plant) report(cr *CaseResult) error {
 		})
 	}
 
-	var capFiring, capAll float64
+	var capFiring, capAll, fired float64
 	for _, b := range cr.Boilers {
 		cr.SteamProductionKgS += b.SteamKgS
+		fired += b.SteamKgS
 		cr.FuelKgS += b.FuelKgS
 		cr.CO2KgS += b.CO2KgS
 		capAll += b.MCRKgS
@@ -313,7 +384,6 @@ func (p *Plant) report(cr *CaseResult) error {
 		}
 	}
 	cr.SteamDemandKgS = cr.SteamProductionKgS - cr.DumpedKgS
-	fired := cr.SteamProductionKgS // from oil-fired boilers
 	switch {
 	case cr.BoilersFiring == 0:
 		cr.CanCarry = true
@@ -339,7 +409,7 @@ func (p *Plant) report(cr *CaseResult) error {
 
 	b := &cr.boundary
 	mIn, mOut := b.massIn, b.massOut
-	cr.Balance.MassRel = closure(mIn, mOut, math.Max(math.Max(mIn, mOut), fired))
+	cr.Balance.MassRel = closure(mIn, mOut, math.Max(math.Max(mIn, mOut), cr.SteamProductionKgS))
 	eIn := b.energyIn + b.heatIn + b.workIn
 	eOut := b.energyOut + b.heatOut + b.workOut
 	cr.Balance.EnergyRel = closure(eIn, eOut, math.Max(eIn, eOut))

@@ -752,7 +752,7 @@ func (u *Consumer) check(fs *faults) {
 	if u.SteamFlow < 0 || !finite(u.SteamFlow) {
 		fs.add(u.Pos, u.Name, "", "steam flow must be zero or positive; got %g kg/s", u.SteamFlow)
 	}
-	checkRange(fs, u, "condensate subcooling", u.SubCooling, 0, 100, "K")
+	checkRange(fs, u, "condensate subcooling", u.SubCooling, 0, 250, "K")
 	checkRange(fs, u, "return fraction", u.ReturnFraction, 0, 1, "")
 	if u.ReturnT != 0 {
 		checkRange(fs, u, "condensate return temperature", u.ReturnT, 274.15, 473.15, "K")
@@ -1043,7 +1043,7 @@ func (u *Condenser) Ports() []PortSpec {
 }
 
 func (u *Condenser) check(fs *faults) {
-	checkRange(fs, u, "condensate subcooling", u.SubCooling, 0, 100, "K")
+	checkRange(fs, u, "condensate subcooling", u.SubCooling, 0, 250, "K")
 }
 
 func (u *Condenser) assemble(a *assembly, ports map[string][]*Line) {

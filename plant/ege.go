@@ -1,0 +1,413 @@
+package plant
+
+import (
+	"fmt"
+	"math"
+
+	"steamcase/plant/combustion"
+	"steamcase/plant/fuel"
+	"steamcase/plant/heat"
+)
+
+// EngineExhaust describes the main engine's exhaust against its load, as
+// the engine's project guide gives it (plant-checks.md §7 gives indicative
+// values [M]; a real engine's come from its maker). Between the tabulated
+// loads the figures are interpolated linearly; outside them the end values
+// hold, with a warning.
+type EngineExhaust struct {
+	MCR      float64   // engine power at 100 % load, W
+	Load     []float64 // fractions of MCR, strictly increasing
+	Specific []float64 // exhaust gas per energy, kg/J (8.5 kg/kWh = 8.5/3.6e6 kg/J)
+	T        []float64 // exhaust temperature after the turbocharger, K
+}
+
+// Validate checks the table.
+func (e *EngineExhaust) Validate() error {
+	n := len(e.Load)
+	if !finite(e.MCR) || e.MCR <= 0 {
+		return fmt.Errorf("engine MCR must be positive; got %g W", e.MCR)
+	}
+	if n == 0 || len(e.Specific) != n || len(e.T) != n {
+		return fmt.Errorf("engine exhaust table needs as many gas flows and temperatures as loads and at least one; got %d loads, %d flows, %d temperatures", n, len(e.Specific), len(e.T))
+	}
+	for i := range e.Load {
+		if !finite(e.Load[i]) || e.Load[i] < 0 || e.Load[i] > 1.2 {
+			return fmt.Errorf("engine load %g is not a fraction of MCR between 0 and 1.2", e.Load[i])
+		}
+		if i > 0 && e.Load[i] <= e.Load[i-1] {
+			return fmt.Errorf("engine exhaust table loads must increase; %g follows %g", e.Load[i], e.Load[i-1])
+		}
+		if kgkwh := e.Specific[i] * 3.6e6; !finite(kgkwh) || kgkwh < 2 || kgkwh > 30 {
+			return fmt.Errorf("specific exhaust gas %.2f kg/kWh at load %g is outside 2-30 kg/kWh", kgkwh, e.Load[i])
+		}
+		if !finite(e.T[i]) || e.T[i] < 373.15 || e.T[i] > 873.15 {
+			return fmt.Errorf("exhaust temperature %.1f °C at load %g is outside 100-600 °C", e.T[i]-273.15, e.Load[i])
+		}
+	}
+	return nil
+}
+
+// At returns the exhaust gas flow (kg/s) and temperature (K) at a load
+// fraction, and a warning when the load is outside the table.
+func (e *EngineExhaust) At(load float64) (m, t float64, warn string) {
+	spec, w1 := interpolate(e.Load, e.Specific, load, "engine exhaust table")
+	t, _ = interpolate(e.Load, e.T, load, "engine exhaust table")
+	return spec * load * e.MCR, t, w1
+}
+
+// ExhaustGasEconomiser raises steam from the main engine's exhaust. Its
+// evaporator sees water at the saturation temperature of its drum, so the
+// gas leaves at
+//
+//	T_out = T_sat + (T_in − T_sat)·exp(−NTU),  NTU = UA/(ṁ_gas·c̄p)
+//
+// (ε-NTU with one stream at constant temperature, plant-checks.md §7 [C]),
+// and off design UA scales as ṁ_gas^n (n 0.6-0.8, common practice: gas-side
+// h ∝ Re^0.6 in tube banks, Re^0.8 in tubes). The steam it raises is the
+// duty over the enthalpy rise from its feed to the steam. Steam beyond the
+// plant's demand goes to a dump condenser.
+type ExhaustGasEconomiser struct {
+	UnitBase
+	Engine  EngineExhaust
+	DrumP   float64 // pressure of the steam raised, Pa absolute
+	Dryness float64 // 0..1; zero means 1
+
+	// The size, either UA (W/K) at DesignGasFlow (kg/s), or a design point:
+	// the engine load DesignLoad at which the gas leaves DesignPinch kelvin
+	// above the saturation temperature.
+	UA, DesignGasFlow       float64
+	DesignLoad, DesignPinch float64
+	// Exponent n of UA ∝ ṁ_gas^n; zero means 0.65.
+	Exponent float64
+
+	// GasCp is a constant mean specific heat of the exhaust, J/(kg K).
+	// Zero means: from the NASA polynomials (plant/combustion) for the
+	// exhaust of ExhaustFuel burnt to ExhaustO2 (dry), or, without those,
+	// 1060 J/(kg K) (plant-checks.md §7: 1.04-1.07 kJ/kg·K at 180-260 °C
+	// [M]).
+	GasCp       float64
+	ExhaustFuel *fuel.Fuel
+	ExhaustO2   float64
+
+	// MinGasOutT is the lowest acceptable gas temperature leaving the
+	// economiser (acid dew point plus a margin; 165-180 °C on high-sulfur
+	// fuel is common practice, plant-checks.md §4 [CP]). Zero: not checked.
+	// With Bypass, a damper sends gas past the economiser so that the
+	// mixed gas in the funnel does not fall below it; otherwise falling
+	// below it is a warning.
+	MinGasOutT float64
+	Bypass     bool
+	Off        float64 // non-zero: out of service this case
+
+	feed, steam *Line
+	eqs         [4]int
+	mh          memo
+	op          egeOperation
+}
+
+// egeOperation is the economiser's gas side in a case.
+type egeOperation struct {
+	load, mGas, tIn, tOut, tSat, q, bypass, cp, ua, ntu float64
+	warn                                                []string
+}
+
+// Kind returns "exhaust-gas economiser".
+func (u *ExhaustGasEconomiser) Kind() string { return "exhaust-gas economiser" }
+
+// Ports: feed in, steam out.
+func (u *ExhaustGasEconomiser) Ports() []PortSpec {
+	return []PortSpec{{Name: "feed", Dir: In, Medium: WaterSteam}, {Name: "steam", Dir: Out, Medium: WaterSteam}}
+}
+
+func (u *ExhaustGasEconomiser) dryness() float64 {
+	if u.Dryness == 0 {
+		return 1
+	}
+	return u.Dryness
+}
+
+func (u *ExhaustGasEconomiser) exponent() float64 {
+	if u.Exponent == 0 {
+		return 0.65
+	}
+	return u.Exponent
+}
+
+func (u *ExhaustGasEconomiser) check(fs *faults) {
+	if err := u.Engine.Validate(); err != nil {
+		fs.add(u.Pos, u.Name, "", "%v", err)
+	}
+	checkRange(fs, u, "drum pressure", u.DrumP, 1.1e5, 5e6, "Pa")
+	if u.Dryness != 0 {
+		checkRange(fs, u, "steam dryness", u.Dryness, 0.8, 1, "")
+	}
+	switch {
+	case u.UA > 0:
+		checkRange(fs, u, "UA", u.UA, 1, 1e8, "W/K")
+		if u.DesignGasFlow != 0 {
+			checkRange(fs, u, "design gas flow", u.DesignGasFlow, 0.01, 1e3, "kg/s")
+		}
+	case u.DesignPinch > 0:
+		checkRange(fs, u, "design pinch", u.DesignPinch, 1, 200, "K")
+		checkRange(fs, u, "design engine load", u.DesignLoad, 0.1, 1.2, "")
+	default:
+		fs.add(u.Pos, u.Name, "", "needs its size: a UA, or a design engine load and pinch")
+	}
+	if u.Exponent != 0 {
+		checkRange(fs, u, "UA exponent n (UA ∝ gas flow^n)", u.Exponent, 0.5, 1, "")
+	}
+	if u.GasCp != 0 {
+		checkRange(fs, u, "exhaust gas cp", u.GasCp, 900, 1300, "J/(kg K)")
+	}
+	if u.ExhaustFuel != nil {
+		checkRange(fs, u, "exhaust O2 (dry)", u.ExhaustO2, 0.01, 0.2, "")
+	}
+	if u.MinGasOutT != 0 {
+		checkRange(fs, u, "minimum gas outlet temperature", u.MinGasOutT, 353.15, 573.15, "K")
+	}
+}
+
+func (u *ExhaustGasEconomiser) assemble(a *assembly, ports map[string][]*Line) {
+	u.feed, u.steam = one(ports["feed"]), one(ports["steam"])
+	u.eqs[0] = a.equation(u.Name+": drum pressure", scaleP, u.steam.pIdx())
+	u.eqs[1] = a.equation(u.Name+": steam dryness", scaleH, u.steam.pIdx(), u.steam.hIdx())
+	u.eqs[2] = a.equation(u.Name+": mass balance", 1, u.feed.mIdx(), u.steam.mIdx())
+	u.eqs[3] = a.equation(u.Name+": steam from the exhaust's heat", scaleQ,
+		u.feed.hIdx(), u.steam.mIdx(), u.steam.hIdx())
+}
+
+// gasH returns the exhaust's enthalpy function per kg of gas.
+func (u *ExhaustGasEconomiser) gasH() (heat.GasEnthalpy, error) {
+	if u.GasCp > 0 || u.ExhaustFuel == nil {
+		cp := u.GasCp
+		if cp == 0 {
+			cp = 1060
+		}
+		return heat.ConstantCp(cp, 298.15), nil
+	}
+	prod, err := combustion.Fire(*u.ExhaustFuel, combustion.Conditions{O2Dry: u.ExhaustO2})
+	if err != nil {
+		return nil, err
+	}
+	fg := prod.FlueGas
+	return func(t float64) (float64, float64) {
+		h, err1 := prod.FlueGasH(t)
+		cp, err2 := prod.FlueGasCp(t)
+		if err1 != nil || err2 != nil {
+			return math.NaN(), math.NaN()
+		}
+		return h / fg, cp / fg
+	}, nil
+}
+
+// evaporate returns the outlet temperature and mean cp for gas flow m at
+// tIn through an evaporator of conductance ua at tSat.
+func evaporate(h heat.GasEnthalpy, m, tIn, tSat, ua float64) (tOut, cp float64, err error) {
+	if tIn <= tSat || m <= 0 {
+		_, cp = h(tIn)
+		return tIn, cp, nil
+	}
+	hIn, cp := h(tIn)
+	tOut = tIn
+	for k := 0; k < 50; k++ {
+		t := tSat + (tIn-tSat)*math.Exp(-ua/(m*cp))
+		hOut, cpOut := h(t)
+		if !finite(hOut) {
+			return 0, 0, fmt.Errorf("exhaust enthalpy undefined at %.1f K", t)
+		}
+		if d := tIn - t; d > 1e-9 {
+			cp = (hIn - hOut) / d
+		} else {
+			cp = cpOut
+		}
+		if math.Abs(t-tOut) < 1e-10 {
+			return t, cp, nil
+		}
+		tOut = t
+	}
+	return tOut, cp, nil
+}
+
+// prepare computes the gas side for the case: it does not depend on the
+// plant's unknowns.
+func (u *ExhaustGasEconomiser) prepare(c Conditions) error {
+	u.op = egeOperation{load: c.EngineLoad}
+	ts, err := waterTsat(u.DrumP)
+	if err != nil {
+		return wrapUnitErr(u, err)
+	}
+	u.op.tSat = ts
+	if u.Off != 0 || c.EngineLoad <= 0 {
+		return nil
+	}
+	h, err := u.gasH()
+	if err != nil {
+		return wrapUnitErr(u, err)
+	}
+	m, tIn, warn := u.Engine.At(c.EngineLoad)
+	if warn != "" {
+		u.op.warn = append(u.op.warn, warn)
+	}
+	ua, err := u.conductance(h, m)
+	if err != nil {
+		return wrapUnitErr(u, err)
+	}
+	tOut, cp, err := evaporate(h, m, tIn, ts, ua)
+	if err != nil {
+		return wrapUnitErr(u, err)
+	}
+	u.op.mGas, u.op.tIn, u.op.tOut, u.op.cp, u.op.ua = m, tIn, tOut, cp, ua
+	if m > 0 && cp > 0 {
+		u.op.ntu = ua / (m * cp)
+	}
+	if u.MinGasOutT > 0 && tOut < u.MinGasOutT-1e-9 {
+		if u.Bypass {
+			if err := u.bypass(h, m, tIn, ts, ua); err != nil {
+				return wrapUnitErr(u, err)
+			}
+		} else {
+			u.op.warn = append(u.op.warn, fmt.Sprintf("gas leaves at %.1f °C, below its minimum of %.1f °C (acid dew point and soot margin)", tOut-273.15, u.MinGasOutT-273.15))
+		}
+	}
+	hIn, _ := h(tIn)
+	frac := 1 - u.op.bypass
+	hOut, _ := h(u.op.tOut)
+	u.op.q = frac * m * (hIn - hOut)
+	return nil
+}
+
+// conductance returns UA at gas flow m.
+func (u *ExhaustGasEconomiser) conductance(h heat.GasEnthalpy, m float64) (float64, error) {
+	n := u.exponent()
+	if u.UA > 0 {
+		if u.DesignGasFlow > 0 {
+			return u.UA * math.Pow(m/u.DesignGasFlow, n), nil
+		}
+		return u.UA, nil
+	}
+	md, tInD, _ := u.Engine.At(u.DesignLoad)
+	tSat := u.op.tSat
+	tOutD := tSat + u.DesignPinch
+	if tInD <= tOutD {
+		return 0, fmt.Errorf("at the design engine load %.0f %% the exhaust (%.1f °C) is not hotter than saturation plus the pinch (%.1f °C)", 100*u.DesignLoad, tInD-273.15, tOutD-273.15)
+	}
+	hIn, _ := h(tInD)
+	hOut, _ := h(tOutD)
+	cp := (hIn - hOut) / (tInD - tOutD)
+	ntu := math.Log((tInD - tSat) / (tOutD - tSat))
+	uaD := ntu * md * cp
+	return uaD * math.Pow(m/md, n), nil
+}
+
+// bypass finds the fraction of gas that must pass the economiser so that
+// the mixed gas leaves at MinGasOutT, by bisection (the mixed temperature
+// falls monotonically as more gas goes through).
+func (u *ExhaustGasEconomiser) bypass(h heat.GasEnthalpy, m, tIn, tSat, ua0 float64) error {
+	hIn, _ := h(tIn)
+	hMin, _ := h(u.MinGasOutT)
+	mixed := func(f float64) (float64, float64, error) { // f = fraction through the economiser
+		if f <= 0 {
+			return hIn, tIn, nil
+		}
+		ua := ua0 * math.Pow(f, u.exponent())
+		tOut, _, err := evaporate(h, f*m, tIn, tSat, ua)
+		if err != nil {
+			return 0, 0, err
+		}
+		hOut, _ := h(tOut)
+		return f*hOut + (1-f)*hIn, tOut, nil
+	}
+	lo, hi := 0.0, 1.0
+	for k := 0; k < 60; k++ {
+		mid := 0.5 * (lo + hi)
+		hm, _, err := mixed(mid)
+		if err != nil {
+			return err
+		}
+		if hm > hMin {
+			lo = mid
+		} else {
+			hi = mid
+		}
+	}
+	_, tOut, err := mixed(lo)
+	if err != nil {
+		return err
+	}
+	u.op.bypass = 1 - lo
+	u.op.tOut = tOut
+	return nil
+}
+
+func (u *ExhaustGasEconomiser) residual(ev *eval, r []float64) error {
+	hs, err := u.mh.get2(u.DrumP, u.dryness(), hPX)
+	if err != nil {
+		return wrapUnitErr(u, err)
+	}
+	r[u.eqs[0]] = ev.p(u.steam) - u.DrumP
+	r[u.eqs[1]] = ev.h(u.steam) - hs
+	r[u.eqs[2]] = ev.m(u.feed) - ev.m(u.steam)
+	r[u.eqs[3]] = ev.m(u.steam)*(ev.h(u.steam)-ev.h(u.feed)) - u.op.q
+	return nil
+}
+
+func (u *ExhaustGasEconomiser) guess(x []float64) {
+	x[u.steam.pIdx()] = u.DrumP
+	if h, err := hPX(u.DrumP, u.dryness()); err == nil {
+		x[u.steam.hIdx()] = h
+		if dh := h - x[u.feed.hIdx()]; dh > 1e5 {
+			x[u.steam.mIdx()] = u.op.q / dh
+		}
+	}
+	x[u.feed.mIdx()] = x[u.steam.mIdx()]
+}
+
+func (u *ExhaustGasEconomiser) report(ev *eval, cr *CaseResult) error {
+	m := ev.m(u.steam)
+	er := EGEResult{
+		Name: u.Name, SteamKgS: m, DutyW: u.op.q, EngineLoad: u.op.load,
+		GasKgS: u.op.mGas, GasInT: u.op.tIn, GasOutT: u.op.tOut, TSat: u.op.tSat,
+		BypassFraction: u.op.bypass, UA: u.op.ua, NTU: u.op.ntu,
+		InService: u.Off == 0 && u.op.q > 0,
+	}
+	if er.InService {
+		er.Pinch = u.op.tOut - u.op.tSat
+	}
+	for _, w := range u.op.warn {
+		cr.warn("%s %q: %s", u.Kind(), u.Name, w)
+	}
+	cr.EGEs = append(cr.EGEs, er)
+	cr.SteamProductionKgS += m
+	cr.EGESteamKgS += m
+	cr.boundary.heatIn += u.op.q
+	return nil
+}
+
+func (u *ExhaustGasEconomiser) param(name string) (*float64, error) {
+	switch name {
+	case "off":
+		return &u.Off, nil
+	case "ua":
+		return &u.UA, nil
+	}
+	return nil, paramErr(u, name, "off", "ua")
+}
+
+// EGEResult is an exhaust-gas economiser's part in a case.
+type EGEResult struct {
+	Name           string
+	InService      bool
+	EngineLoad     float64
+	SteamKgS       float64
+	DutyW          float64
+	GasKgS         float64
+	GasInT         float64
+	GasOutT        float64 // leaving the economiser (before mixing with bypassed gas)
+	TSat           float64
+	Pinch          float64 // gas outlet above saturation, K
+	BypassFraction float64 // of the exhaust sent past the economiser
+	UA, NTU        float64
+	// FuelSavedKgS is the oil-fired boilers' fuel that the economisers save
+	// against the same case without them (all economisers together).
+	FuelSavedKgS float64
+}
