@@ -156,6 +156,10 @@ func Plot(w io.Writer, format string, cases []Case) error {
 	if p.Y.Max > 0 {
 		p.Y.Max *= 1.08
 	}
+	p.Y.Tick.Marker = flowTicks{}
+	p.Title.Padding = vg.Millimeter * 3
+	legend.TextStyle.Font.Size = vg.Points(10)
+	legend.YOffs = -vg.Millimeter * 8
 	for _, ax := range []*plot.Axis{&p.X, &p.Y} {
 		ax.Color = ink
 		ax.Tick.Color = ink
@@ -186,9 +190,36 @@ func Plot(w io.Writer, format string, cases []Case) error {
 	}
 	dc := draw.New(canvas)
 	p.Draw(draw.Crop(dc, 0, -legW, 0, 0))
-	legend.Draw(draw.Crop(dc, plotW+vg.Millimeter*3, 0, 0, -vg.Centimeter))
+	legend.Draw(draw.Crop(dc, plotW+vg.Millimeter*3, 0, 0, 0))
 	_, err = canvas.WriteTo(w)
 	return err
+}
+
+// flowTicks marks a flow axis at a round step (1, 2 or 5 times a power of
+// ten) giving five to ten marks, labelled without decimals.
+type flowTicks struct{}
+
+func (flowTicks) Ticks(lo, hi float64) []plot.Tick {
+	if !(hi > lo) {
+		return []plot.Tick{{Value: lo, Label: fix(lo, 0)}}
+	}
+	step := math.Pow(10, math.Floor(math.Log10((hi-lo)/5)))
+	for _, m := range []float64{1, 2, 5, 10} {
+		if (hi-lo)/(step*m) <= 10 {
+			step *= m
+			break
+		}
+	}
+	var ticks []plot.Tick
+	for v := math.Ceil(lo/step) * step; v <= hi+step*1e-9; v += step {
+		ticks = append(ticks, plot.Tick{Value: v, Label: fix(v, 0)})
+		for k := 1; k < 5; k++ {
+			if m := v + float64(k)*step/5; m <= hi {
+				ticks = append(ticks, plot.Tick{Value: m})
+			}
+		}
+	}
+	return ticks
 }
 
 func samePlant(cases []Case) bool {
