@@ -122,7 +122,7 @@ type fluegasQuery struct {
 	o2, co2    float64 // measured dry fractions; one is zero
 	so3        float64 // fraction of SO2 to SO3
 	opts       combustion.LossOptions
-	loadGiven  bool
+	radGiven   bool   // --radiation given, perhaps as 0 %
 	stoichNote string // set when O2 = 0 % was read as λ = 1
 }
 
@@ -142,14 +142,25 @@ func runFluegas(ctx context.Context, e env, args []string) error {
 	if err != nil {
 		return err
 	}
-	out := r.json(&a)
-	if err := out.check(); err != nil {
+	out := r.json()
+	// Marshalling also checks that no NaN or infinity reaches a report,
+	// for the table too: encoding/json refuses them.
+	var b []byte
+	if a.json {
+		b, err = json.MarshalIndent(&out, "", "  ")
+	} else {
+		b, err = json.Marshal(&out)
+	}
+	if err != nil {
+		var ue *json.UnsupportedValueError
+		if errors.As(err, &ue) {
+			return fmt.Errorf("fluegas: a result is not finite (%s); the inputs lie outside what the combustion model covers", ue.Str)
+		}
 		return err
 	}
 	if a.json {
-		enc := json.NewEncoder(e.stdout)
-		enc.SetIndent("", "  ")
-		return enc.Encode(out)
+		_, err := e.stdout.Write(append(b, '\n'))
+		return err
 	}
 	return writeFluegasTable(e.stdout, &a, r, &out)
 }
@@ -299,6 +310,7 @@ func (a *fluegasArgs) query() (fluegasQuery, error) {
 			return q, fmt.Errorf("--radiation %q: the radiation and convection loss at MCR must lie between 0 and 10 %%", a.radiation)
 		}
 		q.opts.Radiation.PercentAtMCR = 100 * v
+		q.radGiven = true
 	}
 	if given(a.load) {
 		v, err := parsePercent("load", a.load)
@@ -309,7 +321,6 @@ func (a *fluegasArgs) query() (fluegasQuery, error) {
 			return q, fmt.Errorf("--load %q: the load must lie between 5 and 120 %% of MCR", a.load)
 		}
 		q.opts.Radiation.LoadFraction = v
-		q.loadGiven = true
 	}
 	if given(a.solids) {
 		v, err := parsePercent("solids", a.solids)
@@ -485,20 +496,19 @@ func parseHumidity(val string, c *combustion.Conditions) error {
 
 // fluegasResult holds the computed figures.
 type fluegasResult struct {
-	q            fluegasQuery
-	p            combustion.Products
-	stoichFlue   float64 // wet flue gas at λ = 1 (kg/kg fuel)
-	l            combustion.Losses
-	dew          float64 // K, valid if dewOK
-	dewOK        bool
-	dewNote      string // why there is no dew point
-	siegert      float64
-	siegertOK    bool
-	siegertForm  string
-	siegertSet   string
-	siegertNote  string
-	warnings     []string
-	measuredForm string
+	q           fluegasQuery
+	p           combustion.Products
+	stoichFlue  float64 // wet flue gas at λ = 1 (kg/kg fuel)
+	l           combustion.Losses
+	dew         float64 // K, valid if dewOK
+	dewOK       bool
+	dewNote     string // why there is no dew point
+	siegert     float64
+	siegertOK   bool
+	siegertForm string
+	siegertSet  string
+	siegertNote string
+	warnings    []string
 }
 
 func (q fluegasQuery) compute() (*fluegasResult, error) {
@@ -559,7 +569,7 @@ func (q fluegasQuery) compute() (*fluegasResult, error) {
 	if q.stoichNote != "" {
 		r.warnings = append(r.warnings, q.stoichNote)
 	}
-	if r.l.Warnings&combustion.WarnNoRadiation != 0 {
+	if r.l.Warnings&combustion.WarnNoRadiation != 0 && !q.radGiven {
 		r.warnings = append(r.warnings, "no radiation and convection loss given (--radiation): taken as zero, so the efficiency is overstated by it (0.5 to 1.5 % at MCR is common for marine auxiliary boilers)")
 	}
 	if r.l.Warnings&combustion.WarnLowLoadRadiation != 0 {
@@ -642,7 +652,7 @@ type fluegasJSON struct {
 	Caution   string   `json:"caution"`
 }
 
-func (r *fluegasResult) json(a *fluegasArgs) fluegasJSON {
+func (r *fluegasResult) json() fluegasJSON {
 	p := &r.p
 	xd, xw := p.MoleFractions(false), p.MoleFractions(true)
 	out := fluegasJSON{
@@ -679,21 +689,6 @@ func (r *fluegasResult) json(a *fluegasArgs) fluegasJSON {
 		out.Siegert = &v
 	}
 	return out
-}
-
-// check makes sure no NaN or infinity reaches a report.
-func (o *fluegasJSON) check() error {
-	b, err := json.Marshal(o)
-	if err != nil {
-		// encoding/json refuses NaN and ±Inf.
-		var ue *json.UnsupportedValueError
-		if errors.As(err, &ue) {
-			return fmt.Errorf("fluegas: a result is not finite (%s); the inputs lie outside what the combustion model covers", ue.Str)
-		}
-		return err
-	}
-	_ = b // only the check is wanted
-	return nil
 }
 
 func writeFluegasTable(w io.Writer, a *fluegasArgs, r *fluegasResult, o *fluegasJSON) error {

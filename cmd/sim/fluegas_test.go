@@ -156,6 +156,31 @@ func TestFluegasReference(t *testing.T) {
 	}
 }
 
+// TestFluegasJSONKeys checks that the JSON object carries the keys the
+// command promises (its help and the task that asked for it).
+func TestFluegasJSONKeys(t *testing.T) {
+	_, out, _ := runSim(t, fgWith(testFuelArgs, "--json")...)
+	var m map[string]any
+	if err := json.Unmarshal([]byte(out), &m); err != nil {
+		t.Fatal(err)
+	}
+	for _, k := range []string{"lambda", "stoich_air_kg_per_kg", "flue_gas_kg_per_kg", "co2_dry_pct", "o2_dry_pct",
+		"h2o_wet_pct", "losses", "losses_hhv", "efficiency_lhv_pct", "efficiency_hhv_pct", "acid_dew_point_K",
+		"lhv_J_per_kg", "hhv_J_per_kg", "caution"} {
+		if _, ok := m[k]; !ok {
+			t.Errorf("JSON lacks %q", k)
+		}
+	}
+	for _, basis := range []string{"losses", "losses_hhv"} {
+		l, _ := m[basis].(map[string]any)
+		for _, k := range []string{"dry_gas_pct", "moisture_pct", "radiation_pct", "unburnt_pct"} {
+			if _, ok := l[k]; !ok {
+				t.Errorf("JSON %s lacks %q", basis, k)
+			}
+		}
+	}
+}
+
 // TestFluegasDewPoint checks the acid dew point against plant-checks.md §4
 // and the margin warning.
 func TestFluegasDewPoint(t *testing.T) {
@@ -222,6 +247,11 @@ func TestFluegasOptions(t *testing.T) {
 	r = fluegasOf(t, fgWith(base, "--radiation", "1 %")...)
 	fgNear(t, "radiation % LHV at MCR (the --radiation given)", r.Losses.Radiation, 1, 1e-12)
 	fgNear(t, "η drops by the radiation loss", r0.EfficiencyLHV-r.EfficiencyLHV, 1, 1e-9)
+	// "0 %" given on purpose: no loss and no warning.
+	r = fluegasOf(t, fgWith(base, "--radiation", "0 %")...)
+	if r.Losses.Radiation != 0 || len(r.Warnings) != 0 {
+		t.Errorf("--radiation 0 %%: loss %g, warnings %q; want 0 and none", r.Losses.Radiation, r.Warnings)
+	}
 
 	// CO: ppm and percent agree; the loss is a·CO/(CO + CO2) with a = 48
 	// for oil (plant-checks.md §3.1 [S✓ analyser manual]).
