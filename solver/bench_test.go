@@ -9,20 +9,24 @@ import (
 // BenchmarkBroyden solves Broyden tridiagonal (MGH (30)) and Broyden
 // banded (MGH (31)) from the standard start with an analytic, a dense
 // finite-difference and a coloured finite-difference Jacobian, reusing one
-// Solver.
+// Solver; the last two variants replace DenseLU with SparseLU.
 func BenchmarkBroyden(b *testing.B) {
 	ctx := context.Background()
 	for _, mk := range []func(int) mghProblem{broydenTridiagonal, broydenBanded} {
 		for _, n := range []int{50, 500} {
 			m := mk(n)
-			for _, mode := range []string{"analytic", "dense-fd", "colored-fd"} {
-				p := m.problem(mode == "analytic")
-				if mode != "colored-fd" {
+			for _, mode := range []string{"analytic", "dense-fd", "colored-fd", "analytic+sparse-lu", "colored-fd+sparse-lu"} {
+				p := m.problem(mode == "analytic" || mode == "analytic+sparse-lu")
+				if mode != "colored-fd" && mode != "colored-fd+sparse-lu" {
 					p.Pattern = nil
+				}
+				var set *Settings
+				if mode == "analytic+sparse-lu" || mode == "colored-fd+sparse-lu" {
+					set = &Settings{Factorizer: &SparseLU{}}
 				}
 				name := m.name + "/n=" + strconv.Itoa(n) + "/" + mode
 				b.Run(name, func(b *testing.B) {
-					sv, err := New(p, nil)
+					sv, err := New(p, set)
 					if err != nil {
 						b.Fatal(err)
 					}

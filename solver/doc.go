@@ -100,9 +100,11 @@
 // The default DenseLU calls gonum's LAPACK routines (Dgetf2, Dgetrs,
 // Dgecon) on storage it owns, so it allocates nothing after its first
 // factorisation; from order 320 (DenseLU.BlockedFrom) it switches to the
-// faster blocked Dgetrf, whose parallel matrix products allocate. No
-// sparse factorisation is built in; one can be supplied through
-// Settings.Factorizer.
+// faster blocked Dgetrf, whose parallel matrix products allocate.
+// SparseLU, a left-looking sparse LU with threshold partial pivoting
+// (Gilbert and Peierls 1988), can be set in Settings.Factorizer for large
+// sparse Jacobians; it takes the columns in their natural order (no
+// fill-reducing ordering) and allocates nothing once warm.
 //
 // # Errors and allocation
 //

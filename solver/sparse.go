@@ -1,0 +1,361 @@
+package solver
+
+import (
+	"fmt"
+	"math"
+
+	"gonum.org/v1/gonum/mat"
+)
+
+// SparseLU is a Factorizer for sparse Jacobians: a left-looking LU with
+// partial pivoting (Gilbert and Peierls, SIAM J. Sci. Stat. Comput. 9(5),
+// 1988; the data layout follows Davis, Direct Methods for Sparse Linear
+// Systems, SIAM 2006, from memory). It reads the nonzeros of the dense
+// Jacobian the solver hands it (an O(n²) scan) and factorises them in
+// O(flops in the factors), which for banded or plant-like Jacobians is far
+// below the O(n³) of DenseLU.
+//
+// Columns are taken in their natural order: there is no fill-reducing
+// ordering, so number the unknowns so that coupled ones are near each
+// other. Among the rows eligible as pivot the diagonal entry is preferred
+// while it is at least DiagTol times the largest (threshold pivoting, to
+// keep the band); otherwise the largest is taken. The condition number is
+// estimated in the 1-norm by Hager's method with Higham's refinement
+// (Higham, ACM TOMS 14(4), 1988), as LAPACK's Dlacn2 does.
+//
+// After the first factorisation of a given fill, SparseLU allocates
+// nothing. The zero value is ready to use.
+type SparseLU struct {
+	// DiagTol is the threshold for preferring the diagonal pivot, in
+	// (0, 1]. Zero means 0.1; 1 gives plain partial pivoting.
+	DiagTol float64
+
+	n          int
+	ap, ai     []int // A in compressed columns
+	ax         []float64
+	lp, li     []int // L: unit lower triangular, diagonal first in each column
+	lx         []float64
+	up, ui     []int // U: upper triangular, diagonal last in each column
+	ux         []float64
+	pinv       []int // pinv[row] = pivot step of that row
+	xi         []int // 2n: reach stack and DFS stack
+	mark       []bool
+	x, y, z, w []float64
+	anorm      float64
+	cond       float64
+	ok         bool
+}
+
+// Factorize implements Factorizer.
+func (s *SparseLU) Factorize(j *mat.Dense) error {
+	n, c := j.Dims()
+	if n != c {
+		panic(fmt.Sprintf("solver: SparseLU.Factorize of a %d×%d matrix, want square", n, c))
+	}
+	if s.n != n || s.pinv == nil {
+		s.n = n
+		s.ap = make([]int, n+1)
+		s.lp = make([]int, n+1)
+		s.up = make([]int, n+1)
+		s.pinv = make([]int, n)
+		s.xi = make([]int, 2*n)
+		s.mark = make([]bool, n)
+		s.x = make([]float64, n)
+		s.y = make([]float64, n)
+		s.z = make([]float64, n)
+		s.w = make([]float64, n)
+	}
+	s.ok = false
+	s.cond = math.Inf(1)
+	// Compressed columns of A, and its 1-norm.
+	raw := j.RawMatrix()
+	s.ai, s.ax = s.ai[:0], s.ax[:0]
+	s.anorm = 0
+	for col := 0; col < n; col++ {
+		s.ap[col] = len(s.ai)
+		sum := 0.0
+		for row := 0; row < n; row++ {
+			if v := raw.Data[row*raw.Stride+col]; v != 0 {
+				s.ai = append(s.ai, row)
+				s.ax = append(s.ax, v)
+				sum += math.Abs(v)
+			}
+		}
+		s.anorm = math.Max(s.anorm, sum)
+	}
+	s.ap[n] = len(s.ai)
+
+	tol := s.DiagTol
+	if tol <= 0 || tol > 1 {
+		tol = 0.1
+	}
+	for i := range s.pinv {
+		s.pinv[i] = -1
+	}
+	s.li, s.lx, s.ui, s.ux = s.li[:0], s.lx[:0], s.ui[:0], s.ux[:0]
+	x := s.x
+	for k := 0; k < n; k++ {
+		s.lp[k] = len(s.li)
+		s.up[k] = len(s.ui)
+		top := s.spsolve(k)
+		ipiv, amax := -1, -1.0
+		for p := top; p < n; p++ {
+			i := s.xi[p]
+			if s.pinv[i] < 0 {
+				if t := math.Abs(x[i]); t > amax {
+					amax, ipiv = t, i
+				}
+			} else {
+				s.ui = append(s.ui, s.pinv[i])
+				s.ux = append(s.ux, x[i])
+			}
+		}
+		if ipiv < 0 || amax <= 0 {
+			for p := top; p < n; p++ {
+				x[s.xi[p]] = 0
+			}
+			return ErrExactlySingular
+		}
+		if s.pinv[k] < 0 && math.Abs(x[k]) >= tol*amax {
+			ipiv = k
+		}
+		pivot := x[ipiv]
+		s.ui = append(s.ui, k)
+		s.ux = append(s.ux, pivot)
+		s.pinv[ipiv] = k
+		s.li = append(s.li, ipiv)
+		s.lx = append(s.lx, 1)
+		for p := top; p < n; p++ {
+			i := s.xi[p]
+			if s.pinv[i] < 0 {
+				s.li = append(s.li, i)
+				s.lx = append(s.lx, x[i]/pivot)
+			}
+			x[i] = 0
+		}
+	}
+	s.lp[n] = len(s.li)
+	s.up[n] = len(s.ui)
+	for p := range s.li {
+		s.li[p] = s.pinv[s.li[p]]
+	}
+	s.ok = true
+	s.cond = s.anorm * s.invNorm1()
+	return nil
+}
+
+// spsolve sets x = L \ A(:,k) on the reach of A(:,k) and returns top: the
+// nonzero pattern is s.xi[top:n] in topological order. L's row indices
+// are still original rows here.
+func (s *SparseLU) spsolve(k int) int {
+	n := s.n
+	top := n
+	for p := s.ap[k]; p < s.ap[k+1]; p++ {
+		if !s.mark[s.ai[p]] {
+			top = s.dfs(s.ai[p], top)
+		}
+	}
+	for p := top; p < n; p++ {
+		s.mark[s.xi[p]] = false
+	}
+	x := s.x
+	for p := s.ap[k]; p < s.ap[k+1]; p++ {
+		x[s.ai[p]] = s.ax[p]
+	}
+	for px := top; px < n; px++ {
+		j := s.xi[px]
+		col := s.pinv[j]
+		if col < 0 {
+			continue
+		}
+		xj := x[j] // L(j, col) = 1
+		// Columns before the current step are complete: lp[col+1] is set.
+		for p := s.lp[col] + 1; p < s.lp[col+1]; p++ {
+			x[s.li[p]] -= s.lx[p] * xj
+		}
+	}
+	return top
+}
+
+// dfs runs a depth-first search in the graph of L from row j, pushing
+// the rows it finishes onto s.xi[..top] (so s.xi[top:] is in topological
+// order), and returns the new top. s.xi[n:] is the recursion stack of
+// edge positions.
+func (s *SparseLU) dfs(j, top int) int {
+	n := s.n
+	stack := s.xi[:n] // rows on the DFS path; shares xi below top
+	pstack := s.xi[n:]
+	head := 0
+	stack[0] = j
+	for head >= 0 {
+		j = stack[head]
+		col := s.pinv[j]
+		if !s.mark[j] {
+			s.mark[j] = true
+			if col >= 0 {
+				pstack[head] = s.lp[col] + 1
+			}
+		}
+		done := true
+		if col >= 0 {
+			end := s.lp[col+1]
+			for p := pstack[head]; p < end; p++ {
+				i := s.li[p]
+				if s.mark[i] {
+					continue
+				}
+				pstack[head] = p + 1
+				head++
+				stack[head] = i
+				done = false
+				break
+			}
+		}
+		if done {
+			head--
+			top--
+			s.xi[top] = j
+		}
+	}
+	return top
+}
+
+// Cond implements Factorizer.
+func (s *SparseLU) Cond() float64 { return s.cond }
+
+// Solve implements Factorizer.
+func (s *SparseLU) Solve(dst, b []float64) error {
+	if len(dst) != s.n || len(b) != s.n {
+		panic(fmt.Sprintf("solver: SparseLU.Solve with lengths %d and %d, want %d", len(dst), len(b), s.n))
+	}
+	if !s.ok {
+		return ErrExactlySingular
+	}
+	s.solve(dst, b)
+	return nil
+}
+
+// solve sets dst = A⁻¹·b (dst and b may alias; s.y is work space).
+func (s *SparseLU) solve(dst, b []float64) {
+	y := s.y
+	for i, v := range b {
+		y[s.pinv[i]] = v
+	}
+	for j := 0; j < s.n; j++ { // L·y' = y, unit diagonal first
+		yj := y[j]
+		for p := s.lp[j] + 1; p < s.lp[j+1]; p++ {
+			y[s.li[p]] -= s.lx[p] * yj
+		}
+	}
+	for j := s.n - 1; j >= 0; j-- { // U·x = y', diagonal last
+		d := s.up[j+1] - 1
+		y[j] /= s.ux[d]
+		yj := y[j]
+		for p := s.up[j]; p < d; p++ {
+			y[s.ui[p]] -= s.ux[p] * yj
+		}
+	}
+	copy(dst, y)
+}
+
+// solveT sets dst = A⁻ᵀ·b, with A = Pᵀ·L·U so Aᵀ = Uᵀ·Lᵀ·P.
+func (s *SparseLU) solveT(dst, b []float64) {
+	z := s.y
+	copy(z, b)
+	for j := 0; j < s.n; j++ { // Uᵀ·z' = z
+		d := s.up[j+1] - 1
+		v := z[j]
+		for p := s.up[j]; p < d; p++ {
+			v -= s.ux[p] * z[s.ui[p]]
+		}
+		z[j] = v / s.ux[d]
+	}
+	for j := s.n - 1; j >= 0; j-- { // Lᵀ·w = z'
+		v := z[j]
+		for p := s.lp[j] + 1; p < s.lp[j+1]; p++ {
+			v -= s.lx[p] * z[s.li[p]]
+		}
+		z[j] = v
+	}
+	for i := range dst {
+		dst[i] = z[s.pinv[i]]
+	}
+}
+
+// invNorm1 estimates ‖A⁻¹‖₁ (Hager 1984, Higham 1988).
+func (s *SparseLU) invNorm1() float64 {
+	n := s.n
+	x, v := s.z, s.w
+	for i := range x {
+		x[i] = 1 / float64(n)
+	}
+	est := 0.0
+	jlast := -1 // x = e_jlast after the first pass, e/n before
+	for iter := 0; iter < 5; iter++ {
+		s.solve(v, x)
+		nv := 0.0
+		for _, a := range v {
+			nv += math.Abs(a)
+		}
+		if iter > 0 && nv <= est {
+			break
+		}
+		est = nv
+		for i, a := range v {
+			if a >= 0 {
+				x[i] = 1
+			} else {
+				x[i] = -1
+			}
+		}
+		s.solveT(v, x) // v = A⁻ᵀ·sign(A⁻¹·x)
+		ztx := 0.0     // vᵀ·x for the x of this pass
+		if jlast < 0 {
+			for _, a := range v {
+				ztx += a
+			}
+			ztx /= float64(n)
+		} else {
+			ztx = v[jlast]
+		}
+		jmax, zmax := 0, -1.0
+		for i, a := range v {
+			if math.Abs(a) > zmax {
+				jmax, zmax = i, math.Abs(a)
+			}
+		}
+		if zmax <= ztx || jmax == jlast {
+			break
+		}
+		jlast = jmax
+		for i := range x {
+			x[i] = 0
+		}
+		x[jmax] = 1
+	}
+	// Higham's alternative vector guards against Hager's worst cases.
+	for i := range x {
+		sign := 1.0
+		if i%2 == 1 {
+			sign = -1
+		}
+		if n > 1 {
+			x[i] = sign * (1 + float64(i)/float64(n-1))
+		} else {
+			x[i] = 1
+		}
+	}
+	s.solve(v, x)
+	alt := 0.0
+	for _, a := range v {
+		alt += math.Abs(a)
+	}
+	alt = 2 * alt / float64(3*n)
+	if alt > est {
+		est = alt
+	}
+	if math.IsNaN(est) {
+		return math.Inf(1)
+	}
+	return est
+}
