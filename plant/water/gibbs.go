@@ -118,6 +118,14 @@ func hcp1(p, t float64) (h, cp float64) {
 	return rGas * t * tb * sJ, -rGas * tb * tb * sJJ
 }
 
+// s1 returns the specific entropy of region 1 in J/(kg K).
+func s1(p, t float64) float64 {
+	tau := t1Star / t
+	b := tau - 1.222
+	s0, sJ := poly1S0J(7.1-p/p1Star, b)
+	return rGas * (tau/b*sJ - s0)
+}
+
 // scp1 returns s and cp of region 1.
 func scp1(p, t float64) (s, cp float64) {
 	tau := t1Star / t
@@ -185,8 +193,20 @@ func hcp2(p, t float64) (h, cp float64) {
 
 // h2 returns the specific enthalpy of region 2 in J/kg.
 func h2(p, t float64) float64 {
-	h, _ := hcp2(p, t)
-	return h
+	tau := t2Star / t
+	_, g0t, _ := ideal2(tau, false)
+	b := tau - 0.5
+	return rGas * t * (g0t + tau/b*poly2J(p/p2Star, b))
+}
+
+// s2 returns the specific entropy of region 2 in J/(kg K).
+func s2(p, t float64) float64 {
+	pi := p / p2Star
+	tau := t2Star / t
+	g0, g0t, _ := ideal2(tau, true)
+	b := tau - 0.5
+	s0, sJ := poly2S0J(pi, b)
+	return rGas * (g0t + tau/b*sJ - math.Log(pi) - g0 - s0)
 }
 
 // scp2 returns s and cp of region 2.
