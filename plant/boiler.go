@@ -41,7 +41,10 @@ type BoilerOperation struct {
 	DrumP float64 // Pa
 	FeedT float64 // K
 	AirT  float64 // combustion air temperature, K
-	Fuel  FuelSpec
+	// FuelFlow is the fuel flow while the burner fires, kg/s (the
+	// time-averaged flow over the on fraction when it cycles).
+	FuelFlow float64
+	Fuel     FuelSpec
 }
 
 // EfficiencyPoint is a boiler's efficiency at one operating point, with
@@ -274,7 +277,11 @@ func (u *Boiler) operation(ev *eval) (BoilerOperation, bool, error) {
 	if err != nil {
 		return BoilerOperation{}, false, err
 	}
-	return BoilerOperation{Load: fire, DrumP: u.DrumP, FeedT: ft, AirT: u.airT(ev), Fuel: u.Fuel}, cycling, nil
+	fuel := ev.x[u.fuel]
+	if cycling && load > 0 {
+		fuel *= fire / load
+	}
+	return BoilerOperation{Load: fire, DrumP: u.DrumP, FeedT: ft, AirT: u.airT(ev), FuelFlow: fuel, Fuel: u.Fuel}, cycling, nil
 }
 
 // airT is the combustion air temperature: the burner's own, else the

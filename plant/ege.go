@@ -189,14 +189,14 @@ func (u *ExhaustGasEconomiser) gasH() (heat.GasEnthalpy, error) {
 	if err != nil {
 		return nil, err
 	}
-	fg := prod.FlueGas
+	// FlueGasH and FlueGasCp are per kg of flue gas.
 	return func(t float64) (float64, float64) {
 		h, err1 := prod.FlueGasH(t)
 		cp, err2 := prod.FlueGasCp(t)
 		if err1 != nil || err2 != nil {
 			return math.NaN(), math.NaN()
 		}
-		return h / fg, cp / fg
+		return h, cp
 	}, nil
 }
 
