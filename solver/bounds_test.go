@@ -7,6 +7,8 @@ import (
 	"math"
 	"strings"
 	"testing"
+
+	"gonum.org/v1/gonum/mat"
 )
 
 // TestBoundsRootOnBound: F(m) = m/(1+m) with the flow m ≥ 0 has its root
@@ -125,5 +127,33 @@ func TestFiniteDifferenceDomain(t *testing.T) {
 	res, err := Solve(context.Background(), p, []float64{1 - 1e-10}, nil)
 	if err != nil || math.Abs(res.X[0]-0.75) > 1e-9 { // |F′(3/4)| = 1, so |Δx| ≲ FTol
 		t.Errorf("status %v, error %v, x = %v; want 0.75", res.Status, err, res.X)
+	}
+}
+
+// TestDomainReported: when every trial point is outside the model's
+// domain, the line search fails and its error carries the model's own
+// error (constructed case, no source).
+func TestDomainReported(t *testing.T) {
+	t.Parallel()
+	p := Problem{Dim: 1, Residual: func(r, x []float64) error {
+		if x[0] != 2 {
+			return &plantError{"valve v1"}
+		}
+		r[0] = 1
+		return nil
+	}}
+	// The start point is fine; every other point fails with a domain error.
+	q := p
+	q.Residual = func(r, x []float64) error {
+		if err := p.Residual(r, x); err != nil {
+			return fmt.Errorf("%w: %w", ErrDomain, err)
+		}
+		return nil
+	}
+	q.Jacobian = func(j *mat.Dense, x []float64) error { j.Set(0, 0, 1); return nil }
+	res, err := Solve(context.Background(), q, []float64{2}, nil)
+	var pe *plantError
+	if res.Status != LineSearchFailed || !errors.As(err, &pe) || !strings.Contains(err.Error(), "outside the model's domain") {
+		t.Errorf("status %v, error %v; want LineSearchFailed carrying the plant error", res.Status, err)
 	}
 }

@@ -427,6 +427,7 @@ func (s *Solver) lineSearch(f float64, it int) (alpha float64, backtracks int, f
 	}
 	alpha = 1
 	prevAlpha, prevF := 0.0, 0.0
+	var lastDomain error // the last ErrDomain error of a trial, for the failure message
 	c := s.set.Armijo
 	for backtracks = 0; ; backtracks++ {
 		gd := 0.0
@@ -444,7 +445,14 @@ func (s *Solver) lineSearch(f float64, it int) (alpha float64, backtracks int, f
 		} else if !errors.Is(rerr, ErrDomain) {
 			return 0, backtracks, f, rerr
 		}
+		if rerr != nil {
+			lastDomain = rerr
+		}
 		if backtracks >= s.set.MaxBacktracks || alpha*dmax < s.set.XTol {
+			if lastDomain != nil {
+				return 0, backtracks, f, fmt.Errorf("no sufficient decrease of ½‖F/FScale‖² after %d step reductions at iteration %d (step length %.3g, scaled residual %.3g); a trial point was outside the model's domain: %w",
+					backtracks, it, alpha, infNorm(s.r), lastDomain)
+			}
 			return 0, backtracks, f, fmt.Errorf("no sufficient decrease of ½‖F/FScale‖² after %d step reductions at iteration %d (step length %.3g, scaled residual %.3g)",
 				backtracks, it, alpha, infNorm(s.r))
 		}
