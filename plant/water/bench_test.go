@@ -141,3 +141,53 @@ func BenchmarkPTRegion3(b *testing.B) {
 		i++
 	}
 }
+
+func BenchmarkPHRegion3(b *testing.B) {
+	ps := [4]float64{20e6, 25e6, 40e6, 80e6}
+	ts := [4]float64{640, 650, 700, 750}
+	var hs [4]float64
+	for k := range hs {
+		h, err := HPT(ps[k], ts[k])
+		if err != nil {
+			b.Fatal(err)
+		}
+		hs[k] = h
+	}
+	m := startCPU()
+	defer m.report(b)
+	i := 0
+	for b.Loop() {
+		st, _ := PH(ps[i&3], hs[i&3])
+		sink += st.T
+		i++
+	}
+}
+
+// TestZeroAllocations: the fast paths and the state constructors do not
+// allocate on success. Source: the package's speed requirement (hot paths
+// allocate nothing); checked with testing.AllocsPerRun.
+func TestZeroAllocations(t *testing.T) {
+	calls := map[string]func(){
+		"HPT region 1": func() { HPT(3e6, 400) },
+		"HPT region 3": func() { HPT(25e6, 650) },
+		"TPH region 1": func() { TPH(3e6, 500e3) },
+		"TPH region 2": func() { TPH(1e6, 3000e3) },
+		"TPH wet":      func() { TPH(1e6, 2000e3) },
+		"SPH wet":      func() { SPH(1e6, 2000e3) },
+		"HPS region 2": func() { HPS(1e6, 7000) },
+		"Tsat":         func() { Tsat(1e6) },
+		"Psat":         func() { Psat(450) },
+		"PT region 2":  func() { PT(1e6, 500) },
+		"PT region 5":  func() { PT(1e6, 1500) },
+		"PH wet":       func() { PH(1e6, 2000e3) },
+		"PH region 3":  func() { PH(25e6, 1800e3) },
+		"PS region 1":  func() { PS(1e6, 1000) },
+		"PX":           func() { PX(1e6, 0.3) },
+		"TX region 3":  func() { TX(640, 0.3) },
+	}
+	for name, f := range calls {
+		if a := testing.AllocsPerRun(100, f); a != 0 {
+			t.Errorf("%s: %g allocations per call, want 0", name, a)
+		}
+	}
+}
