@@ -61,6 +61,10 @@ type EfficiencyPoint struct {
 	AirPerFuel     float64 // wet combustion air, kg/kg fuel
 	FlueGasPerFuel float64 // wet flue gas, kg/kg fuel
 	Losses         *combustion.LossItems
+	// Products and LossOptions let a flue-gas economiser after the boiler
+	// redo the loss account at its own gas outlet temperature.
+	Products    *combustion.Products
+	LossOptions combustion.LossOptions
 }
 
 // EfficiencyModel gives a boiler's efficiency: heat to steam and blowdown

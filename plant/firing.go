@@ -105,5 +105,7 @@ func lossMethod(op BoilerOperation, flueT float64, c combustion.Conditions, radA
 		AirPerFuel:     prod.Air,
 		FlueGasPerFuel: prod.FlueGas,
 		Losses:         &items,
+		Products:       &prod,
+		LossOptions:    lo,
 	}, nil
 }

@@ -184,7 +184,7 @@ func (m *FurnaceTubes) Efficiency(op BoilerOperation) (EfficiencyPoint, error) {
 	}
 	items := l.LHV
 	return EfficiencyPoint{Eta: items.Efficiency / 100, Warning: warn, FlueT: exit, Lambda: prod.Lambda,
-		AirPerFuel: prod.Air, FlueGasPerFuel: prod.FlueGas, Losses: &items}, nil
+		AirPerFuel: prod.Air, FlueGasPerFuel: prod.FlueGas, Losses: &items, Products: &prod, LossOptions: lo}, nil
 }
 
 // CalibrateSoot finds the soot fouling resistance on the gas side of every

@@ -269,8 +269,11 @@ func (p *Plant) compile() error {
 		}
 	}
 	for _, u := range p.units {
-		if c, ok := u.(*Consumer); ok {
-			c.link(p, a, &fs)
+		switch v := u.(type) {
+		case *Consumer:
+			v.link(p, a, &fs)
+		case *Economiser:
+			v.link(p, a, &fs)
 		}
 	}
 	if err := fs.err(); err != nil {

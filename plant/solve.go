@@ -357,6 +357,11 @@ func (p *Plant) report(cr *CaseResult) error {
 			return err
 		}
 	}
+	for _, u := range p.units {
+		if e, ok := u.(*Economiser); ok {
+			e.adjustBoiler(cr)
+		}
+	}
 	for _, l := range p.lines {
 		if l.medium != WaterSteam {
 			continue
