@@ -171,8 +171,13 @@ func TestCasesCoverTheStates(t *testing.T) {
 	}
 	quiet := *cases[3].Result
 	quiet.Warnings = nil
+	quiet.Consumers = append([]plant.ConsumerResult(nil), quiet.Consumers...)
+	quiet.Consumers[0].DrainCoolerW = 12345 // W: shown as 12.3 kW
 	b.Reset()
 	must(t, Table(&b, []Case{{Plant: "x", Result: &quiet}}))
+	if !strings.Contains(b.String(), "duty; drain cooler 12.3 kW\n") {
+		t.Errorf("the drain cooler's heat is not shown:\n%s", b.String())
+	}
 	if !strings.Contains(b.String(), "\n  warnings: none\n") {
 		t.Errorf("a case without warnings does not say so:\n%s", b.String())
 	}
