@@ -73,8 +73,8 @@
 // Two regions meet with a small step at their boundaries, as IF97 permits
 // (at 1073.15 K regions 2 and 5 differ by up to about 0.1 kJ/kg in h). A
 // (p,h) or (p,s) pair inside such a step has a valid answer on each side,
-// a few hundredths of a kelvin apart; this package takes the lower-numbered
-// region of 1, 2 (against 3 and 5). Within about 1e-8 of the critical
+// a few hundredths of a kelvin apart; this package then takes region 1
+// or 2 rather than 3 or 5. Within about 1e-8 of the critical
 // pressure the saturated liquid and vapour of Eq. 28 merge.
 //
 // # Speed

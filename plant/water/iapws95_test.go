@@ -45,7 +45,8 @@ func cell(t *testing.T, hdr map[string]int, r []string, col string) float64 {
 // IAPWS-95 (IAPWS R6-95(2018)) values computed with python3-iapws, class
 // IAPWS95, in the shared reference set. Tolerances are the reference set's
 // suggestion: Δv/v 0.05 %, Δh 0.5 kJ/kg, Δs 0.001 kJ/(kg K), Δcp/cp 1 %,
-// Δw/w 0.5 %.
+// Δw/w 0.5 %. The file's cv and u columns are checked too, with the
+// tolerances of cp and h (not part of the suggestion).
 func TestIAPWS95Grid(t *testing.T) {
 	t.Parallel()
 	hdr, rows := readCSV(t, "testdata/water-iapws95-grid.csv")
@@ -72,6 +73,8 @@ func TestIAPWS95Grid(t *testing.T) {
 		s := cell(t, hdr, r, "s_kJ_per_kgK") * 1e3
 		cp := cell(t, hdr, r, "cp_kJ_per_kgK") * 1e3
 		w := cell(t, hdr, r, "w_m_per_s")
+		cv := cell(t, hdr, r, "cv_kJ_per_kgK") * 1e3
+		u := cell(t, hdr, r, "u_kJ_per_kg") * 1e3
 		checks := []struct {
 			name      string
 			got, want float64
@@ -82,6 +85,9 @@ func TestIAPWS95Grid(t *testing.T) {
 			{"s (J/(kg K))", st.S, s, math.Abs(st.S - s), 1},
 			{"cp (rel.)", st.Cp, cp, math.Abs(st.Cp-cp) / cp, 1e-2},
 			{"w (rel.)", st.W, w, math.Abs(st.W-w) / w, 5e-3},
+			// Not in the suggestion: cv with the cp tolerance, u with h's.
+			{"cv (rel.)", st.Cv, cv, math.Abs(st.Cv-cv) / cv, 1e-2},
+			{"u (J/kg)", st.U, u, math.Abs(st.U - u), 500},
 		}
 		for _, c := range checks {
 			if !(c.dev <= c.tol) {

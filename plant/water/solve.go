@@ -419,8 +419,10 @@ func (sol *solution) state(fn string, p float64, sat *[2]State) (State, error) {
 
 // PH returns the state at pressure p (Pa) and specific enthalpy h (J/kg).
 // Regions 1 and 2 start from the IF97 backward equations T(p,h) and refine
-// T by Newton steps on the basic equation; region 3 and 5 iterate on the
-// basic equation; wet states get their vapour fraction from h.
+// T by Newton steps on the basic equation; regions 3 and 5 iterate on the
+// basic equation; wet states get their vapour fraction from h. An h below
+// its value at 273.15 K, or above its value at 2273.15 K (1073.15 K above
+// 50 MPa), is a *RangeError.
 func PH(p, h float64) (State, error) {
 	var sat [2]State
 	sol, err := solve("PH", byH, p, h, &sat)
@@ -442,14 +444,16 @@ func PS(p, s float64) (State, error) {
 }
 
 // TPH returns the temperature (K) at pressure p (Pa) and specific enthalpy
-// h (J/kg), the fast path of PH(p, h).T. It does not allocate.
+// h (J/kg), the fast path of PH(p, h).T (T_sat(p) for a wet state). It
+// does not allocate.
 func TPH(p, h float64) (float64, error) {
 	sol, err := solve("TPH", byH, p, h, nil)
 	return sol.t, err
 }
 
 // SPH returns the specific entropy (J/(kg K)) at pressure p (Pa) and
-// specific enthalpy h (J/kg), the fast path of PH(p, h).S.
+// specific enthalpy h (J/kg), the fast path of PH(p, h).S. It does not
+// allocate.
 func SPH(p, h float64) (float64, error) {
 	var sat [2]State
 	sol, err := solve("SPH", byH, p, h, &sat)
@@ -460,7 +464,7 @@ func SPH(p, h float64) (float64, error) {
 }
 
 // HPS returns the specific enthalpy (J/kg) at pressure p (Pa) and specific
-// entropy s (J/(kg K)), the fast path of PS(p, s).H.
+// entropy s (J/(kg K)), the fast path of PS(p, s).H. It does not allocate.
 func HPS(p, s float64) (float64, error) {
 	var sat [2]State
 	sol, err := solve("HPS", byS, p, s, &sat)

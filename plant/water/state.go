@@ -62,7 +62,9 @@ func (ph Phase) String() string {
 // For a two-phase state (Region == RegionTwoPhase, 0 < X < 1) the specific
 // heats Cp and Cv and the speed of sound W are not defined and are set to 0.
 // H, S, U and V are the mass-weighted mixtures of the saturated liquid and
-// vapour, and Rho = 1/V.
+// vapour, and Rho = 1/V. The end points of the saturation line, x = 0 and
+// x = 1, are returned as the single-phase saturated liquid and vapour (see
+// SatLiquid and SatVapour), so Cp, Cv and W are defined there.
 type State struct {
 	P, T    float64 // pressure (Pa), temperature (K)
 	H, S, U float64 // specific enthalpy (J/kg), entropy (J/(kg K)), internal energy (J/kg)
@@ -263,8 +265,9 @@ func mix(l, v *State, x float64) State {
 }
 
 // SatLiquid returns the saturated liquid at pressure p (Pa), 611.213 Pa <=
-// p <= 22.064 MPa. It is a single-phase state with X = 0 and Cp, Cv, W of
-// the liquid side.
+// p <= 22.064 MPa. It is a single-phase state with X = 0, Phase Liquid,
+// Cp, Cv and W of the liquid side, and Region 1 (or 3 above 623.15 K,
+// where the density comes from Eq. 28 at p = p_sat).
 func SatLiquid(p float64) (State, error) {
 	if err := checkSatP("SatLiquid", p); err != nil {
 		return State{}, err
@@ -274,8 +277,8 @@ func SatLiquid(p float64) (State, error) {
 }
 
 // SatVapour returns the saturated vapour at pressure p (Pa), 611.213 Pa <=
-// p <= 22.064 MPa. It is a single-phase state with X = 1 and Cp, Cv, W of
-// the vapour side.
+// p <= 22.064 MPa. It is a single-phase state with X = 1, Phase Vapour,
+// Cp, Cv and W of the vapour side, and Region 2 (or 3 above 623.15 K).
 func SatVapour(p float64) (State, error) {
 	if err := checkSatP("SatVapour", p); err != nil {
 		return State{}, err
