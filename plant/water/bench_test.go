@@ -191,3 +191,16 @@ func TestZeroAllocations(t *testing.T) {
 		}
 	}
 }
+
+func BenchmarkTPHWet(b *testing.B) {
+	ps := [4]float64{5e3, 1e5, 1e6, 8e6}
+	hs := [4]float64{1.2e6, 1.5e6, 2.0e6, 2.4e6}
+	m := startCPU()
+	defer m.report(b)
+	i := 0
+	for b.Loop() {
+		t, _ := TPH(ps[i&3], hs[i&3])
+		sink += t
+		i++
+	}
+}

@@ -88,12 +88,13 @@ func fmtQuantity(q string, v float64) string {
 	return fmtNum(v)
 }
 
+// fmtNum prints 9 significant figures, without trailing zeros.
 func fmtNum(v float64) string { return strconv.FormatFloat(v, 'g', 9, 64) }
 
 func fmtPressure(p float64) string {
 	a := math.Abs(p)
 	switch {
-	case a >= 1e6:
+	case a >= 1e6*(1-1e-9): // 999999.9999 Pa prints as 1 MPa
 		return fmtNum(p/1e6) + " MPa"
 	case a >= 1e3:
 		return fmtNum(p/1e3) + " kPa"

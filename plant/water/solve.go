@@ -260,6 +260,16 @@ func value(k kind, st *State) float64 {
 
 // at returns h or s at (p,T) in region 1, 2 or 5.
 func at(k kind, reg Region, p, t float64) float64 {
+	switch {
+	case reg == Region1 && k == byH:
+		return h1(p, t)
+	case reg == Region1:
+		return s1(p, t)
+	case reg == Region2 && k == byH:
+		return h2(p, t)
+	case reg == Region2:
+		return s2(p, t)
+	}
 	f, _, _, _ := propT(k, reg, p, t)
 	return f
 }
@@ -316,11 +326,16 @@ func solveSlow(fn string, k kind, p, f, tb1, tb2 float64, sat *[2]State) (soluti
 		return sol, nil
 	}
 	if p <= pSat13 {
-		l, v, err := satStates(fn, p, tb1)
-		if err != nil {
-			return sol, err
+		// The saturated states come from regions 1 and 2 here; the full
+		// states are built only when the caller wants them.
+		var l, v State
+		var fl, fv float64
+		if sat != nil {
+			l, v, _ = satStates(fn, p, tb1)
+			fl, fv = value(k, &l), value(k, &v)
+		} else {
+			fl, fv = at(k, Region1, p, tb1), at(k, Region2, p, tb1)
 		}
-		fl, fv := value(k, &l), value(k, &v)
 		switch {
 		case f <= fl:
 			t, _, ok := bracket(k, Region1, p, f, tMin, tb1, 0)
@@ -455,36 +470,44 @@ func TPH(p, h float64) (float64, error) {
 // specific enthalpy h (J/kg), the fast path of PH(p, h).S. It does not
 // allocate.
 func SPH(p, h float64) (float64, error) {
-	var sat [2]State
-	sol, err := solve("SPH", byH, p, h, &sat)
+	sol, err := solve("SPH", byH, p, h, nil)
 	if err != nil {
 		return 0, err
 	}
-	return sol.other(byS, p, &sat), nil
+	return sol.other("SPH", byS, p)
 }
 
 // HPS returns the specific enthalpy (J/kg) at pressure p (Pa) and specific
 // entropy s (J/(kg K)), the fast path of PS(p, s).H. It does not allocate.
 func HPS(p, s float64) (float64, error) {
-	var sat [2]State
-	sol, err := solve("HPS", byS, p, s, &sat)
+	sol, err := solve("HPS", byS, p, s, nil)
 	if err != nil {
 		return 0, err
 	}
-	return sol.other(byH, p, &sat), nil
+	return sol.other("HPS", byH, p)
 }
 
 // other returns h or s of a solved state.
-func (sol *solution) other(k kind, p float64, sat *[2]State) float64 {
+func (sol *solution) other(fn string, k kind, p float64) (float64, error) {
 	switch sol.reg {
 	case RegionTwoPhase:
-		return value(k, &sat[0]) + sol.x*(value(k, &sat[1])-value(k, &sat[0]))
+		var fl, fv float64
+		if sol.t <= t13 {
+			fl, fv = at(k, Region1, p, sol.t), at(k, Region2, p, sol.t)
+		} else {
+			l, v, err := satStates(fn, p, sol.t)
+			if err != nil {
+				return 0, err
+			}
+			fl, fv = value(k, &l), value(k, &v)
+		}
+		return fl + sol.x*(fv-fl), nil
 	case Region3:
 		f := helm3(sol.rho, sol.t)
 		if k == byH {
-			return rGas * sol.t * (f.ft + f.fd)
+			return rGas * sol.t * (f.ft + f.fd), nil
 		}
-		return rGas * (f.ft - f.f)
+		return rGas * (f.ft - f.f), nil
 	}
-	return at(k, sol.reg, p, sol.t)
+	return at(k, sol.reg, p, sol.t), nil
 }
