@@ -80,6 +80,16 @@ func writeCase(w io.Writer, n, total int, c Case) {
 		}
 		fmt.Fprintf(tw, "      %s\t%s\t%10s\t%10s\t%s\n", b.Name, "oil-fired boiler", fix(b.SteamKgS*kgh, 1), fix(b.HeatW/1e3, 1), note)
 	}
+	for _, g := range r.EGEs {
+		note := "not in service"
+		if g.InService {
+			note = fmt.Sprintf("exhaust %s -> %s °C", fix(g.GasInT-273.15, 0), fix(g.GasOutT-273.15, 0))
+			if g.BypassFraction > 0 {
+				note += fmt.Sprintf(", %s %% bypassed", fix(g.BypassFraction*100, 0))
+			}
+		}
+		fmt.Fprintf(tw, "      %s\t%s\t%10s\t%10s\t%s\n", g.Name, "exhaust-gas economiser", fix(g.SteamKgS*kgh, 1), fix(g.DutyW/1e3, 1), note)
+	}
 	fmt.Fprintf(tw, "    taken\t\t\t\t\n")
 	for _, cs := range r.Consumers {
 		note := "duty"
@@ -128,7 +138,8 @@ func writeCase(w io.Writer, n, total int, c Case) {
 	}
 	fmt.Fprintf(w, "\n  Boilers: %s\n", firing)
 	tw = tabwriter.NewWriter(w, 0, 8, 2, ' ', 0)
-	fmt.Fprintf(tw, "    boiler\tfiring\t%10s\t%10s\t%10s\t%10s\t%10s\tburner\n", "load %MCR", "MCR kg/h", "steam kg/h", "fuel kg/h", "eff. %")
+	fmt.Fprintf(tw, "    boiler\tfiring\t%10s\t%10s\t%10s\t%10s\t%10s\t%7s\t%7s\tburner\n",
+		"load %MCR", "MCR kg/h", "steam kg/h", "fuel kg/h", "eff. %", "feed °C", "flue °C")
 	for _, b := range r.Boilers {
 		yes, burner, eff := "no", "off", "-"
 		if b.Firing {
@@ -138,8 +149,15 @@ func writeCase(w io.Writer, n, total int, c Case) {
 			}
 			eff = fix(b.Efficiency*100, 1) + " " + b.EfficiencyBasis
 		}
-		fmt.Fprintf(tw, "    %s\t%s\t%10s\t%10s\t%10s\t%10s\t%10s\t%s\n", b.Name, yes, fix(b.LoadFraction*100, 1),
-			fix(b.MCRKgS*kgh, 1), fix(b.SteamKgS*kgh, 1), fix(b.FuelKgS*kgh, 1), eff, burner)
+		feed, flue := "-", "-"
+		if b.Firing && b.FeedT > 0 {
+			feed = fix(b.FeedT-273.15, 1)
+		}
+		if b.Firing && b.FlueT > 0 {
+			flue = fix(b.FlueT-273.15, 0)
+		}
+		fmt.Fprintf(tw, "    %s\t%s\t%10s\t%10s\t%10s\t%10s\t%10s\t%7s\t%7s\t%s\n", b.Name, yes, fix(b.LoadFraction*100, 1),
+			fix(b.MCRKgS*kgh, 1), fix(b.SteamKgS*kgh, 1), fix(b.FuelKgS*kgh, 1), eff, feed, flue, burner)
 	}
 	tw.Flush()
 	if !r.CanCarry {
@@ -151,6 +169,9 @@ func writeCase(w io.Writer, n, total int, c Case) {
 	fmt.Fprintf(w, "\n")
 	tw = tabwriter.NewWriter(w, 0, 8, 2, ' ', 0)
 	fmt.Fprintf(tw, "  fuel\t%s kg/h\t%s t/day\n", fix(r.FuelKgS*kgh, 1), fix(r.FuelKgS*86.4, 3))
+	if len(r.EGEs) > 0 {
+		fmt.Fprintf(tw, "  fuel saved by EGE\t%s kg/h\t%s t/day\n", fix(r.EGEFuelSavedKgS*kgh, 1), fix(r.EGEFuelSavedKgS*86.4, 3))
+	}
 	fmt.Fprintf(tw, "  CO2\t\t%s t/day\n", fix(r.CO2KgS*86.4, 2))
 	fmt.Fprintf(tw, "  electrical load\t%s kW\t\n", fix(r.ElectricW/1e3, 1))
 	fmt.Fprintf(tw, "  feed tank\t%s °C\t\n", fix(r.FeedTankT-273.15, 1))

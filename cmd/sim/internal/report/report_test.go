@@ -90,6 +90,50 @@ func demoCases(t testing.TB) []Case {
 	return out
 }
 
+// egeCases solves three cases on an invented plant with an exhaust-gas
+// economiser beside one oil-fired boiler (the plant package's EGE test
+// plant, with the indicative engine of plant-checks.md §7 [C]): at sea the
+// economiser and the boiler share the demand, on a light demand the
+// economiser's surplus goes to the dump condenser, in port it is out of
+// service.
+func egeCases(t testing.TB) []Case {
+	p := plant.New("Invented EGE Ship", plant.Options{})
+	drum := gauge(7)
+	engine := plant.EngineExhaust{MCR: 15e6, Load: []float64{0.3, 1}, Specific: []float64{8.5 / 3.6e6, 8.5 / 3.6e6}, T: []float64{513.15, 513.15}}
+	must(t, p.Add(&plant.MakeUp{UnitBase: plant.UnitBase{Name: "makeup"}, T: 333.15, P: 1e5}))
+	must(t, p.Add(&plant.FeedTank{UnitBase: plant.UnitBase{Name: "hotwell"}, P: 1e5}))
+	must(t, p.Add(&plant.Header{UnitBase: plant.UnitBase{Name: "feed header"}}))
+	must(t, p.Add(&plant.ExhaustGasEconomiser{UnitBase: plant.UnitBase{Name: "EGE"}, Engine: engine, DrumP: drum,
+		DesignLoad: 1, DesignPinch: 15, GasCp: 1060}))
+	must(t, p.Add(&plant.Boiler{UnitBase: plant.UnitBase{Name: "AB1"}, MCR: 10000.0 / 3600, DrumP: drum,
+		Efficiency: &plant.EfficiencyTable{Load: []float64{0.25, 1.1}, Eta: []float64{0.85, 0.85}},
+		Fuel: plant.FuelSpec{Name: "HFO", LHV: 40.2e6, CO2Factor: 3.114}}))
+	must(t, p.Add(&plant.Header{UnitBase: plant.UnitBase{Name: "main"}}))
+	must(t, p.Add(&plant.Consumer{UnitBase: plant.UnitBase{Name: "heating"}, SteamFlow: 5000.0 / 3600}))
+	must(t, p.Add(&plant.Condenser{UnitBase: plant.UnitBase{Name: "dump"}, Dump: true}))
+	p.Connect("mu", plant.Pos{}, "makeup", "out", "hotwell", "in")
+	p.Connect("feed", plant.Pos{}, "hotwell", "out", "feed header", "in")
+	p.Connect("ege feed", plant.Pos{}, "feed header", "out", "EGE", "feed")
+	p.Connect("boiler feed", plant.Pos{}, "feed header", "out", "AB1", "feed")
+	p.Connect("ege steam", plant.Pos{}, "EGE", "steam", "main", "in")
+	p.Connect("boiler steam", plant.Pos{}, "AB1", "steam", "main", "in")
+	p.Connect("to heating", plant.Pos{}, "main", "out", "heating", "in")
+	p.Connect("to dump", plant.Pos{}, "main", "out", "dump", "in")
+	p.Connect("dump return", plant.Pos{}, "dump", "out", "hotwell", "in")
+	var out []Case
+	for _, c := range []plant.Case{
+		{Name: "at sea", Conditions: plant.Conditions{SeaT: 288.15, AirT: 288.15, EngineLoad: 1}},
+		{Name: "at sea, light load", Conditions: plant.Conditions{SeaT: 288.15, AirT: 288.15, EngineLoad: 1},
+			Set: []plant.Setting{{Unit: "heating", Param: "steam_flow", Value: 500.0 / 3600}}},
+		{Name: "in port", Conditions: plant.Conditions{SeaT: 288.15, AirT: 288.15}},
+	} {
+		cr, err := p.Solve(context.Background(), c)
+		must(t, err)
+		out = append(out, Case{Plant: p.Name, Result: cr})
+	}
+	return out
+}
+
 func golden(t *testing.T, name string, got []byte) []byte {
 	t.Helper()
 	path := filepath.Join("testdata", name)
@@ -117,6 +161,7 @@ func TestGolden(t *testing.T) {
 		{"json.golden", func(b *bytes.Buffer) error { return JSON(b, cases) }},
 		{"csv.golden", func(b *bytes.Buffer) error { return CSV(b, cases) }},
 		{"table_empty.golden", func(b *bytes.Buffer) error { return Table(b, nil) }},
+		{"table_ege.golden", func(b *bytes.Buffer) error { return Table(b, egeCases(t)) }},
 	} {
 		var b bytes.Buffer
 		must(t, f.render(&b))
@@ -429,4 +474,25 @@ func contains(g, w any, path string) error {
 		}
 	}
 	return nil
+}
+
+// TestEGETable checks the economiser's rows: its steam among the
+// producers, the dumped surplus, and the fuel it saves. The saving at the
+// design point is plant-checks.md §7 [C]: 215.6 kg/h = 5.175 t/d against a
+// boiler at η 0.85 on LCV 40 200 kJ/kg.
+func TestEGETable(t *testing.T) {
+	var b bytes.Buffer
+	must(t, Table(&b, egeCases(t)))
+	out := b.String()
+	for _, s := range []string{
+		"EGE                      exhaust-gas economiser",
+		"fuel saved by EGE  215.6 kg/h   5.175 t/day", // plant-checks.md §7 [C]
+		"dumped                   to the dump condenser",
+		"margin with no boiler firing (steam dumped)",
+		"not in service",
+	} {
+		if !strings.Contains(out, s) {
+			t.Errorf("the table does not say %q", s)
+		}
+	}
 }
