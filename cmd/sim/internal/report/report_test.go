@@ -107,7 +107,7 @@ func egeCases(t testing.TB) []Case {
 		DesignLoad: 1, DesignPinch: 15, GasCp: 1060}))
 	must(t, p.Add(&plant.Boiler{UnitBase: plant.UnitBase{Name: "AB1"}, MCR: 10000.0 / 3600, DrumP: drum,
 		Efficiency: &plant.EfficiencyTable{Load: []float64{0.25, 1.1}, Eta: []float64{0.85, 0.85}},
-		Fuel: plant.FuelSpec{Name: "HFO", LHV: 40.2e6, CO2Factor: 3.114}}))
+		Fuel:       plant.FuelSpec{Name: "HFO", LHV: 40.2e6, CO2Factor: 3.114}}))
 	must(t, p.Add(&plant.Header{UnitBase: plant.UnitBase{Name: "main"}}))
 	must(t, p.Add(&plant.Consumer{UnitBase: plant.UnitBase{Name: "heating"}, SteamFlow: 5000.0 / 3600}))
 	must(t, p.Add(&plant.Condenser{UnitBase: plant.UnitBase{Name: "dump"}, Dump: true}))
