@@ -275,55 +275,17 @@ func at(k kind, reg Region, p, t float64) float64 {
 }
 
 // solveSlow decides the region from boundary values computed exactly.
+// The range of validity is checked only on the side where the value lies
+// (below 273.15 K from region 1, or 2 below the triple-point pressure;
+// above 1073.15 K from region 2), so a wet state costs no range checks.
 func solveSlow(fn string, k kind, p, f, tb1, tb2 float64, sat *[2]State) (solution, error) {
 	var sol solution
 	q := k.quantity()
-	// Below 273.15 K: out of range.
-	lowReg := Region1
-	if p < pSatMinT {
-		lowReg = Region2
-	}
-	if fmin := at(k, lowReg, p, tMin); f < fmin-1e-11*math.Max(math.Abs(fmin), 1e3) {
-		return sol, &RangeError{Func: fn, Quantity: q, Value: f, Bound: "below", LimitSI: fmin,
-			Limit: "the IF97 limit of " + fmtQuantity(q, fmin) + " at " + fmtPressure(p) + " (its value at 273.15 K)"}
-	}
-	// Above 1073.15 K: region 5 up to 50 MPa, else out of range.
-	if fmid := at(k, Region2, p, tMid); f > fmid+1e-11*math.Abs(fmid) {
-		if p > pMax5 {
-			return sol, &RangeError{Func: fn, Quantity: q, Value: f, Bound: "above", LimitSI: fmid,
-				Limit: "the IF97 limit of " + fmtQuantity(q, fmid) + " at " + fmtPressure(p) +
-					" (its value at 1073.15 K; above 50 MPa IF97 ends at 1073.15 K)"}
+	if p < pSatMinT { // vapour only
+		if err := checkBelow(fn, k, Region2, p, f); err != nil {
+			return sol, err
 		}
-		fmax := at(k, Region5, p, tMax)
-		if f > fmax+1e-11*math.Abs(fmax) {
-			return sol, &RangeError{Func: fn, Quantity: q, Value: f, Bound: "above", LimitSI: fmax,
-				Limit: "the IF97 limit of " + fmtQuantity(q, fmax) + " at " + fmtPressure(p) + " (its value at 2273.15 K)"}
-		}
-		if f5 := at(k, Region5, p, tMid); f >= f5 {
-			t, _, ok := bracket(k, Region5, p, f, tMid, tMax, tMid+(tMax-tMid)*(f-f5)/(fmax-f5))
-			if !ok {
-				return sol, &ConvergenceError{Func: fn, What: "region 5 temperature from " + q, P: p, Arg: f}
-			}
-			sol.t, sol.reg = t, Region5
-			return sol, nil
-		}
-		// Between the region 2 and region 5 values at 1073.15 K (the two
-		// equations differ there by less than IF97's boundary
-		// consistency): region 2, extended by a fraction of a kelvin.
-		t, ok := refine(k, Region2, p, f, tMid)
-		if !ok {
-			return sol, &ConvergenceError{Func: fn, What: "region 2 temperature from " + q, P: p, Arg: f}
-		}
-		sol.t, sol.reg = t, Region2
-		return sol, nil
-	}
-	if p < pSatMinT {
-		t, _, ok := bracket(k, Region2, p, f, tMin, tMid, 0)
-		if !ok {
-			return sol, &ConvergenceError{Func: fn, What: "region 2 temperature from " + q, P: p, Arg: f}
-		}
-		sol.t, sol.reg = t, Region2
-		return sol, nil
+		return solveUpper(fn, k, p, f, tMin)
 	}
 	if p <= pSat13 {
 		// The saturated states come from regions 1 and 2 here; the full
@@ -331,48 +293,29 @@ func solveSlow(fn string, k kind, p, f, tb1, tb2 float64, sat *[2]State) (soluti
 		var l, v State
 		var fl, fv float64
 		if sat != nil {
-			l, v, _ = satStates(fn, p, tb1)
+			l, v, _ = satStates(fn, p, tb1) // no iteration, no error below 623.15 K
 			fl, fv = value(k, &l), value(k, &v)
 		} else {
 			fl, fv = at(k, Region1, p, tb1), at(k, Region2, p, tb1)
 		}
 		switch {
 		case f <= fl:
-			t, _, ok := bracket(k, Region1, p, f, tMin, tb1, 0)
-			if !ok {
-				return sol, &ConvergenceError{Func: fn, What: "region 1 temperature from " + q, P: p, Arg: f}
-			}
-			sol.t, sol.reg = t, Region1
+			return solveRegion1(fn, k, p, f, tb1)
 		case f >= fv:
-			t, _, ok := bracket(k, Region2, p, f, tb2, tMid, 0)
-			if !ok {
-				return sol, &ConvergenceError{Func: fn, What: "region 2 temperature from " + q, P: p, Arg: f}
-			}
-			sol.t, sol.reg = t, Region2
-		default:
-			sol.t, sol.reg, sol.x = tb1, RegionTwoPhase, (f-fl)/(fv-fl)
-			if sat != nil {
-				sat[0], sat[1] = l, v
-			}
+			return solveUpper(fn, k, p, f, tb2)
+		}
+		sol.t, sol.reg, sol.x = tb1, RegionTwoPhase, (f-fl)/(fv-fl)
+		if sat != nil {
+			sat[0], sat[1] = l, v
 		}
 		return sol, nil
 	}
 	// p above p_sat(623.15 K): regions 1, 3 and 2 in turn.
-	if f13 := at(k, Region1, p, t13); f <= f13 {
-		t, _, ok := bracket(k, Region1, p, f, tMin, t13, 0)
-		if !ok {
-			return sol, &ConvergenceError{Func: fn, What: "region 1 temperature from " + q, P: p, Arg: f}
-		}
-		sol.t, sol.reg = t, Region1
-		return sol, nil
+	if f <= at(k, Region1, p, t13) {
+		return solveRegion1(fn, k, p, f, t13)
 	}
-	if f23 := at(k, Region2, p, tb2); f >= f23 {
-		t, _, ok := bracket(k, Region2, p, f, tb2, tMid, 0)
-		if !ok {
-			return sol, &ConvergenceError{Func: fn, What: "region 2 temperature from " + q, P: p, Arg: f}
-		}
-		sol.t, sol.reg = t, Region2
-		return sol, nil
+	if f >= at(k, Region2, p, tb2) {
+		return solveUpper(fn, k, p, f, tb2)
 	}
 	lo, hi := t13, tb2
 	if p < pCrit {
@@ -405,6 +348,71 @@ func solveSlow(fn string, k kind, p, f, tb1, tb2 float64, sat *[2]State) (soluti
 		return sol, &ConvergenceError{Func: fn, What: "region 3 temperature from " + q, P: p, Arg: f}
 	}
 	sol.t, sol.rho, sol.reg, sol.sd = t, rho, Region3, sideFor(p, t)
+	return sol, nil
+}
+
+// checkBelow returns a RangeError if f lies below its value at 273.15 K.
+func checkBelow(fn string, k kind, reg Region, p, f float64) error {
+	if fmin := at(k, reg, p, tMin); f < fmin-1e-11*math.Max(math.Abs(fmin), 1e3) {
+		q := k.quantity()
+		return &RangeError{Func: fn, Quantity: q, Value: f, Bound: "below", LimitSI: fmin,
+			Limit: "the IF97 limit of " + fmtQuantity(q, fmin) + " at " + fmtPressure(p) + " (its value at 273.15 K)"}
+	}
+	return nil
+}
+
+// solveRegion1 solves region 1 between 273.15 K and hi.
+func solveRegion1(fn string, k kind, p, f, hi float64) (solution, error) {
+	if err := checkBelow(fn, k, Region1, p, f); err != nil {
+		return solution{}, err
+	}
+	t, _, ok := bracket(k, Region1, p, f, tMin, hi, 0)
+	if !ok {
+		return solution{}, &ConvergenceError{Func: fn, What: "region 1 temperature from " + k.quantity(), P: p, Arg: f}
+	}
+	return solution{t: t, reg: Region1}, nil
+}
+
+// solveUpper solves region 2 from lo to 1073.15 K, or region 5 above.
+func solveUpper(fn string, k kind, p, f, lo float64) (solution, error) {
+	var sol solution
+	q := k.quantity()
+	fmid := at(k, Region2, p, tMid)
+	if f <= fmid+1e-11*math.Abs(fmid) {
+		t, _, ok := bracket(k, Region2, p, f, lo, tMid, 0)
+		if !ok {
+			return sol, &ConvergenceError{Func: fn, What: "region 2 temperature from " + q, P: p, Arg: f}
+		}
+		sol.t, sol.reg = t, Region2
+		return sol, nil
+	}
+	// Above 1073.15 K: region 5 up to 50 MPa, else out of range.
+	if p > pMax5 {
+		return sol, &RangeError{Func: fn, Quantity: q, Value: f, Bound: "above", LimitSI: fmid,
+			Limit: "the IF97 limit of " + fmtQuantity(q, fmid) + " at " + fmtPressure(p) +
+				" (its value at 1073.15 K; above 50 MPa IF97 ends at 1073.15 K)"}
+	}
+	fmax := at(k, Region5, p, tMax)
+	if f > fmax+1e-11*math.Abs(fmax) {
+		return sol, &RangeError{Func: fn, Quantity: q, Value: f, Bound: "above", LimitSI: fmax,
+			Limit: "the IF97 limit of " + fmtQuantity(q, fmax) + " at " + fmtPressure(p) + " (its value at 2273.15 K)"}
+	}
+	if f5 := at(k, Region5, p, tMid); f >= f5 {
+		t, _, ok := bracket(k, Region5, p, f, tMid, tMax, tMid+(tMax-tMid)*(f-f5)/(fmax-f5))
+		if !ok {
+			return sol, &ConvergenceError{Func: fn, What: "region 5 temperature from " + q, P: p, Arg: f}
+		}
+		sol.t, sol.reg = t, Region5
+		return sol, nil
+	}
+	// Between the region 2 and region 5 values at 1073.15 K (the two
+	// equations differ there within IF97's boundary consistency): region
+	// 2, extended by a fraction of a kelvin.
+	t, ok := refine(k, Region2, p, f, tMid)
+	if !ok {
+		return sol, &ConvergenceError{Func: fn, What: "region 2 temperature from " + q, P: p, Arg: f}
+	}
+	sol.t, sol.reg = t, Region2
 	return sol, nil
 }
 
