@@ -17,8 +17,8 @@
 //     B2bc equation and s = 5.85 kJ/(kg K)). Their result is a start value
 //     only: it is refined by simplified Newton steps on the basic equation
 //     (derivative cp, or cp/T, from the first step) until the remaining
-//     error is below about 1e-10·T, so the returned T reproduces h (or s)
-//     through the forward equation to 1e-9 relative or better.
+//     error is below about 2e-10·T, so the returned T reproduces h (or s)
+//     through the forward equation to 1e-9 relative.
 //   - Region 3 from (p,T): Newton's method on the basic equation for the
 //     density, started on the proper side of the root (from above the
 //     liquid root, where the isotherm is convex; from the ideal-gas density
