@@ -1,0 +1,711 @@
+package scripting
+
+import (
+	"errors"
+	"fmt"
+	"strings"
+
+	lua "github.com/yuin/gopher-lua"
+
+	"steamcase/plant"
+	"steamcase/plant/fuel"
+	"steamcase/plant/units"
+)
+
+// plantHandle is a plant as the script sees it.
+type plantHandle struct {
+	p     *plant.Plant
+	pos   Pos
+	uopt  units.Options
+	kinds map[string]string // unit name -> script kind ("boiler")
+	// broken are units whose table had errors: the plant's own checks of
+	// them would only repeat those errors.
+	broken map[string]bool
+	// badLines are lines already reported by the binding.
+	badLines map[string]bool
+	pending  []pendingLine
+	nLines   int
+	checked  bool
+	nCases   int
+}
+
+type pendingLine struct {
+	name     string
+	pos      Pos
+	from, to string
+}
+
+const plantTypeName = "steamcase.plant"
+
+// register installs the script API in the interpreter's globals.
+func (r *runner) register() {
+	L := r.L
+	r.errMT = L.NewTable()
+	r.errMT.RawSetString("__tostring", L.NewFunction(errString))
+
+	mt := L.NewTypeMetatable(plantTypeName)
+	methods := L.NewTable()
+	for kind, b := range unitBuilders {
+		methods.RawSetString(kind, L.NewFunction(r.unitMethod(kind, b)))
+	}
+	r.registerLoads(methods)
+	methods.RawSetString("line", L.NewFunction(r.luaLine))
+	mt.RawSetString("__index", L.NewFunction(func(L *lua.LState) int {
+		ph := r.checkPlant(1)
+		key := L.CheckString(2)
+		if key == "name" {
+			L.Push(lua.LString(ph.p.Name))
+			return 1
+		}
+		if m := methods.RawGetString(key); m != lua.LNil {
+			L.Push(m)
+			return 1
+		}
+		r.fail(fmt.Sprintf("plant %q", ph.p.Name), "%s", unknownMethodMsg(key, methods))
+		return 0
+	}))
+	mt.RawSetString("__tostring", L.NewFunction(func(L *lua.LState) int {
+		L.Push(lua.LString(fmt.Sprintf("plant %q", r.checkPlant(1).p.Name)))
+		return 1
+	}))
+	mt.RawSetString("__metatable", lua.LString("locked"))
+
+	L.SetGlobal("plant", L.NewFunction(r.luaPlant))
+	L.SetGlobal("steam_plant", L.NewFunction(r.luaSteamPlant))
+	L.SetGlobal("case", L.NewFunction(r.luaCase))
+	L.SetGlobal("check", L.NewFunction(r.luaCheck))
+	L.SetGlobal("include", L.NewFunction(r.luaInclude))
+	L.SetGlobal("read_csv", L.NewFunction(r.luaReadCSV))
+	L.SetGlobal("to_number", L.NewFunction(r.luaToNumber))
+}
+
+func unknownMethodMsg(key string, methods *lua.LTable) string {
+	var names []string
+	methods.ForEach(func(k, _ lua.LValue) { names = append(names, k.String()) })
+	sortStrings(names)
+	msg := fmt.Sprintf("no unit kind or method '%s'", key)
+	if s := suggest(key, names); s != "" {
+		msg += fmt.Sprintf("; did you mean '%s'?", s)
+	}
+	return msg + " (known: " + strings.Join(names, ", ") + ")"
+}
+
+func (r *runner) checkPlant(n int) *plantHandle {
+	ud, ok := r.L.Get(n).(*lua.LUserData)
+	if ok {
+		if ph, ok := ud.Value.(*plantHandle); ok {
+			return ph
+		}
+	}
+	r.fail("", "argument %d must be a plant made by plant{...} or steam_plant{...}; got %s", n, describe(r.L.Get(n)))
+	return nil
+}
+
+func (r *runner) checkTable(n int, what string) *lua.LTable {
+	t, ok := r.L.Get(n).(*lua.LTable)
+	if !ok {
+		r.fail("", "%s takes a table, such as %s{ name = \"...\" }; got %s", what, what, describe(r.L.Get(n)))
+	}
+	return t
+}
+
+// plantOptions reads the plant-wide keys shared by plant{} and
+// steam_plant{}: name, ambient, usable, sharing, lead_load,
+// feed_suction_max_T.
+func (r *runner) plantOptions(t *lua.LTable, what string, pos Pos) (*args, string, plant.Options) {
+	a := r.args(t, what, pos, units.Options{})
+	name, _ := a.str("name", true)
+	a.what = fmt.Sprintf("plant %q", name)
+	var opt plant.Options
+	if p, ok := a.quantity("ambient", units.Pressure, false); ok {
+		u := units.Options{AmbientPressure: p}
+		if err := u.Validate(); err != nil {
+			a.errorf(err, "ambient: %v", err)
+		} else {
+			opt.AmbientPressure = p
+			a.uopt = u
+		}
+	}
+	opt.UsableFraction, _ = a.quantity("usable", units.Fraction, false)
+	if s, ok := a.str("sharing", false); ok {
+		switch s {
+		case "equal":
+			opt.Sharing = plant.EqualLoad
+		case "lead":
+			opt.Sharing = plant.LeadLag
+		default:
+			a.errorf(nil, "sharing must be \"equal\" or \"lead\"; got %q", s)
+		}
+	}
+	opt.LeadLoad, _ = a.quantity("lead_load", units.Fraction, false)
+	opt.FeedSuctionMaxT, _ = a.quantity("feed_suction_max_T", units.Temperature, false)
+	opt.Logger = r.log
+	return a, name, opt
+}
+
+func (r *runner) newPlant(name string, pos Pos, opt plant.Options, uopt units.Options) *lua.LUserData {
+	if len(r.plants) >= r.opt.MaxPlants {
+		r.fail("", "more than %d plants in one run", r.opt.MaxPlants)
+	}
+	p := plant.New(name, opt)
+	p.Pos = plant.Pos{File: pos.File, Line: pos.Line}
+	ph := &plantHandle{p: p, pos: pos, uopt: uopt, kinds: map[string]string{},
+		broken: map[string]bool{}, badLines: map[string]bool{}}
+	r.plants = append(r.plants, ph)
+	r.out.Plants = append(r.out.Plants, p)
+	ud := r.L.NewUserData()
+	ud.Value = ph
+	r.L.SetMetatable(ud, r.L.GetTypeMetatable(plantTypeName))
+	return ud
+}
+
+// luaPlant is plant{ name = ..., ambient = ..., usable = ..., sharing = ...,
+// lead_load = ... }.
+func (r *runner) luaPlant(L *lua.LState) int {
+	t := r.checkTable(1, "plant")
+	pos := r.where()
+	a, name, opt := r.plantOptions(t, "plant", pos)
+	a.done()
+	L.Push(r.newPlant(name, pos, opt, a.uopt))
+	return 1
+}
+
+// unitBuilder reads a unit's keys and returns the unit (its UnitBase is
+// filled by the caller).
+type unitBuilder func(r *runner, a *args, ph *plantHandle) plant.Unit
+
+// unitBuilders are the unit kinds of the full graph, by method name.
+var unitBuilders = map[string]unitBuilder{
+	"makeup":         buildMakeUp,
+	"feed_tank":      buildFeedTank,
+	"feed_pump":      buildFeedPump,
+	"boiler":         buildBoiler,
+	"header":         buildHeader,
+	"reducing_valve": buildReducingValve,
+	"consumer":       buildConsumer,
+	"turbine":        buildTurbine,
+	"condenser":      buildCondenser,
+}
+
+// unitMethod makes the plant method that declares a unit of a kind.
+func (r *runner) unitMethod(kind string, b unitBuilder) lua.LGFunction {
+	return func(L *lua.LState) int {
+		ph := r.checkPlant(1)
+		t := r.checkTable(2, "ship:"+kind)
+		pos := r.where()
+		name := r.addUnit(ph, kind, t, pos, b, nil)
+		L.Push(r.unitHandle(name, kind))
+		return 1
+	}
+}
+
+// addUnit reads t with b, adds the unit to the plant and returns its name.
+// extra reads keys the caller accepts besides the unit's own.
+func (r *runner) addUnit(ph *plantHandle, kind string, t *lua.LTable, pos Pos, b unitBuilder, extra func(a *args)) string {
+	if len(ph.kinds) >= r.opt.MaxUnits {
+		r.fail(fmt.Sprintf("plant %q", ph.p.Name), "more than %d units in one plant", r.opt.MaxUnits)
+	}
+	r.checkSize(t, kind)
+	a := r.args(t, strings.ReplaceAll(kind, "_", " "), pos, ph.uopt)
+	name, ok := a.str("name", true)
+	if ok && strings.TrimSpace(name) == "" {
+		a.errorf(nil, "name must not be empty")
+		ok = false
+	}
+	if ok {
+		a.what = fmt.Sprintf("%s %q", strings.ReplaceAll(kind, "_", " "), name)
+	}
+	if extra != nil {
+		extra(a)
+	}
+	u := b(r, a, ph)
+	a.done()
+	if !ok {
+		return ""
+	}
+	setBase(u, name, pos)
+	if err := ph.p.Add(u); err != nil {
+		r.addPlantErr(ph, err, a.what)
+		return name
+	}
+	ph.kinds[name] = kind
+	if a.nerr > 0 {
+		ph.broken[name] = true
+	}
+	return name
+}
+
+// checkSize raises an error if t has more entries than the bindings accept.
+func (r *runner) checkSize(t *lua.LTable, what string) {
+	n := 0
+	k, _ := t.Next(lua.LNil)
+	for k != lua.LNil {
+		n++
+		if n > r.opt.MaxTable {
+			r.fail("", "%s: table has more than %d entries", what, r.opt.MaxTable)
+		}
+		k, _ = t.Next(k)
+	}
+}
+
+func setBase(u plant.Unit, name string, pos Pos) {
+	base := plant.UnitBase{Name: name, Pos: plant.Pos{File: pos.File, Line: pos.Line}}
+	switch v := u.(type) {
+	case *plant.MakeUp:
+		v.UnitBase = base
+	case *plant.FeedTank:
+		v.UnitBase = base
+	case *plant.FeedPump:
+		v.UnitBase = base
+	case *plant.Boiler:
+		v.UnitBase = base
+	case *plant.Header:
+		v.UnitBase = base
+	case *plant.ReducingValve:
+		v.UnitBase = base
+	case *plant.Consumer:
+		v.UnitBase = base
+	case *plant.Turbine:
+		v.UnitBase = base
+	case *plant.Condenser:
+		v.UnitBase = base
+	default:
+		panic(fmt.Sprintf("scripting: setBase: unit type %T not handled", u))
+	}
+}
+
+// unitHandle is what a unit constructor returns: a table with the unit's
+// name and kind, usable in line() as the unit's name.
+func (r *runner) unitHandle(name, kind string) lua.LValue {
+	t := r.L.NewTable()
+	t.RawSetString("name", lua.LString(name))
+	t.RawSetString("kind", lua.LString(kind))
+	return t
+}
+
+// addPlantErr records an error returned by the plant package, fault by
+// fault.
+func (r *runner) addPlantErr(ph *plantHandle, err error, unit string) {
+	var ge *plant.GraphError
+	if errors.As(err, &ge) {
+		for _, f := range ge.Faults {
+			if ph != nil && (ph.broken[f.Unit] || ph.badLines[f.Line]) {
+				continue
+			}
+			pos := Pos{File: f.Pos.File, Line: f.Pos.Line}
+			if pos.File == "" && ph != nil {
+				pos = ph.pos
+			}
+			r.errs = append(r.errs, &Error{Pos: pos, Msg: plant.Fault{Unit: f.Unit, Line: f.Line, Msg: f.Msg}.String(), Err: err})
+		}
+		return
+	}
+	var ue *plant.UnitError
+	if errors.As(err, &ue) {
+		pos := Pos{File: ue.Pos.File, Line: ue.Pos.Line}
+		r.errs = append(r.errs, &Error{Pos: pos, Unit: fmt.Sprintf("%s %q", ue.Kind, ue.Unit), Msg: ue.Err.Error(), Err: err})
+		return
+	}
+	pos := r.where()
+	if ph != nil && pos.File == "" {
+		pos = ph.pos
+	}
+	r.errs = append(r.errs, &Error{Pos: pos, Unit: unit, Msg: err.Error(), Err: err})
+}
+
+// ---------------------------------------------------------------------------
+// Unit kinds of the full graph.
+
+func buildMakeUp(r *runner, a *args, ph *plantHandle) plant.Unit {
+	u := &plant.MakeUp{}
+	u.T, _ = a.quantity("T", units.Temperature, true)
+	u.P, _ = a.quantity("p", units.Pressure, false)
+	return u
+}
+
+func buildFeedTank(r *runner, a *args, ph *plantHandle) plant.Unit {
+	u := &plant.FeedTank{}
+	u.P, _ = a.quantity("p", units.Pressure, false)
+	u.HeatLoss, _ = a.quantity("heat_loss", units.Power, false)
+	u.UA, _ = a.quantity("UA", units.ThermalConductance, false)
+	u.RoomT, _ = a.quantity("room_T", units.Temperature, false)
+	u.SetT, _ = a.quantity("set_T", units.Temperature, false)
+	return u
+}
+
+func buildFeedPump(r *runner, a *args, ph *plantHandle) plant.Unit {
+	u := &plant.FeedPump{}
+	u.Discharge, _ = a.quantity("discharge", units.Pressure, false)
+	u.Boilers = a.names("boilers")
+	u.Margin, _ = a.pressureDiff("margin", false)
+	u.Eta, _ = a.quantity("eta", units.Fraction, true)
+	u.MotorEta, _ = a.quantity("motor_eta", units.Fraction, false)
+	return u
+}
+
+// names reads a list of unit names.
+func (a *args) names(key string) []string {
+	switch v := a.get(key).(type) {
+	case *lua.LNilType:
+		return nil
+	case lua.LString:
+		return []string{string(v)}
+	case *lua.LTable:
+		n := v.Len()
+		if n > a.r.opt.MaxTable {
+			a.errorf(nil, "%s: more than %d names", key, a.r.opt.MaxTable)
+			return nil
+		}
+		out := make([]string, 0, n)
+		for i := 1; i <= n; i++ {
+			switch s := v.RawGetInt(i).(type) {
+			case lua.LString:
+				out = append(out, string(s))
+			case *lua.LTable:
+				if nm, ok := s.RawGetString("name").(lua.LString); ok {
+					out = append(out, string(nm))
+					continue
+				}
+				a.errorf(nil, "%s[%d] must be a unit name; got a table", key, i)
+			default:
+				a.errorf(nil, "%s[%d] must be a unit name; got %s", key, i, describe(s))
+			}
+		}
+		return out
+	default:
+		a.errorf(nil, "%s must be a list of unit names; got %s", key, describe(v))
+		return nil
+	}
+}
+
+func buildBoiler(r *runner, a *args, ph *plantHandle) plant.Unit {
+	u := &plant.Boiler{}
+	u.MCR, _ = a.quantity("mcr", units.MassFlow, true)
+	u.DrumP, _ = a.quantity("drum", units.Pressure, true)
+	u.Dryness, _ = a.quantity("dryness", units.Fraction, false)
+	u.Blowdown, _ = a.quantity("blowdown", units.Fraction, false)
+	u.TDSFeed, _ = a.number("tds_feed")
+	u.TDSMax, _ = a.number("tds_max")
+	u.Turndown, _ = a.number("turndown")
+	u.CyclingLoss, _ = a.quantity("cycling_loss", units.Fraction, false)
+	u.Fuel = a.fuelSpec()
+	if eta := a.efficiency(); eta != nil {
+		u.Efficiency = eta
+	}
+	return u
+}
+
+// fuelSpec reads fuel (a grade name, or the name of the user's fuel),
+// lhv and co2_factor.
+func (a *args) fuelSpec() plant.FuelSpec {
+	name, hasName := a.str("fuel", false)
+	lhv, hasLHV := a.quantity("lhv", units.SpecificEnergy, false)
+	co2, hasCO2 := a.number("co2_factor")
+	var spec plant.FuelSpec
+	if hasName {
+		spec.Name = name
+		if f, err := fuel.Grade(name); err == nil {
+			spec.Name = f.Name
+			if e, err := f.Energy(); err != nil {
+				a.errorf(err, "fuel %q: %v", name, err)
+			} else {
+				spec.LHV = e.Net
+			}
+			if c, err := f.CO2(); err != nil {
+				a.errorf(err, "fuel %q: %v", name, err)
+			} else {
+				spec.CO2Factor = c.Value
+			}
+		} else if !(hasLHV && hasCO2) {
+			grades := fuel.GradeNames()
+			msg := fmt.Sprintf("fuel %q is not a built-in grade", name)
+			if s := suggest(name, grades); s != "" {
+				msg += fmt.Sprintf("; did you mean %q?", s)
+			}
+			a.errorf(err, "%s (grades: %s; or give lhv and co2_factor for your own fuel)", msg, strings.Join(grades, ", "))
+		}
+	}
+	if hasLHV {
+		spec.LHV = lhv
+		if !hasName {
+			spec.Name = "fuel (set LHV)"
+		}
+	}
+	if hasCO2 {
+		if co2 <= 0 || co2 > 5 {
+			a.errorf(nil, "co2_factor is kg CO2 per kg fuel, between 0 and 5; got %g", co2)
+		}
+		spec.CO2Factor = co2
+	}
+	switch {
+	case !hasName && !hasLHV:
+		a.errorf(nil, "needs a fuel: fuel = \"HSFO\" (grades: %s), or lhv = \"40.2 MJ/kg\" with co2_factor = 3.114", strings.Join(fuel.GradeNames(), ", "))
+	case hasLHV && !hasCO2 && !isGrade(name):
+		a.errorf(nil, "a fuel given by its lhv needs co2_factor too (kg CO2 per kg fuel, such as 3.114)")
+	}
+	return spec
+}
+
+func isGrade(name string) bool {
+	_, err := fuel.Grade(name)
+	return name != "" && err == nil
+}
+
+// efficiency reads efficiency: a table of {load, efficiency} pairs, or a
+// single efficiency for every load.
+func (a *args) efficiency() *plant.EfficiencyTable {
+	v := a.get("efficiency")
+	switch x := v.(type) {
+	case *lua.LNilType:
+		a.errorf(nil, "efficiency is required: a table of {load, efficiency} pairs such as { {\"25 %%\", \"80 %%\"}, {\"100 %%\", \"85 %%\"} }, or one figure such as \"85 %%\"")
+		return nil
+	case lua.LString, lua.LNumber:
+		eta, err := parseQuantity(x, "efficiency", units.Fraction, a.uopt)
+		if err != nil {
+			a.errorf(err, "%v", err)
+			return nil
+		}
+		// One figure holds at every load: a table flat from no load to
+		// 150 % of MCR.
+		t := &plant.EfficiencyTable{Load: []float64{0, 1.5}, Eta: []float64{eta, eta}}
+		if err := t.Validate(); err != nil {
+			a.errorf(err, "efficiency: %v", err)
+			return nil
+		}
+		return t
+	case *lua.LTable:
+		n := x.Len()
+		if n == 0 || n > 200 {
+			a.errorf(nil, "efficiency table needs 1 to 200 {load, efficiency} pairs; got %d", n)
+			return nil
+		}
+		t := &plant.EfficiencyTable{Load: make([]float64, 0, n), Eta: make([]float64, 0, n)}
+		for i := 1; i <= n; i++ {
+			pair, ok := x.RawGetInt(i).(*lua.LTable)
+			if !ok || pair.Len() != 2 {
+				a.errorf(nil, "efficiency[%d] must be a pair {load, efficiency} such as {\"50 %%\", \"84 %%\"}", i)
+				return nil
+			}
+			load, err1 := parseQuantity(pair.RawGetInt(1), fmt.Sprintf("efficiency[%d] load", i), units.Fraction, a.uopt)
+			eta, err2 := parseQuantity(pair.RawGetInt(2), fmt.Sprintf("efficiency[%d] efficiency", i), units.Fraction, a.uopt)
+			if err := errors.Join(err1, err2); err != nil {
+				a.errorf(err, "%v", strings.ReplaceAll(err.Error(), "\n", "; "))
+				return nil
+			}
+			t.Load = append(t.Load, load)
+			t.Eta = append(t.Eta, eta)
+		}
+		if err := t.Validate(); err != nil {
+			a.errorf(err, "%v", err)
+			return nil
+		}
+		return t
+	}
+	a.errorf(nil, "efficiency must be a table of {load, efficiency} pairs or one figure; got %s", describe(v))
+	return nil
+}
+
+func buildHeader(r *runner, a *args, ph *plantHandle) plant.Unit {
+	u := &plant.Header{}
+	u.HeatLoss, _ = a.quantity("heat_loss", units.Power, false)
+	return u
+}
+
+func buildReducingValve(r *runner, a *args, ph *plantHandle) plant.Unit {
+	u := &plant.ReducingValve{}
+	u.P, _ = a.quantity("p", units.Pressure, true)
+	return u
+}
+
+// consumerCommon reads the keys every steam consumer has: subcool,
+// returns, return_T, off.
+func consumerCommon(a *args, u *plant.Consumer) {
+	u.SubCooling, _ = a.quantity("subcool", units.TemperatureDifference, false)
+	u.ReturnFraction, _ = a.quantity("returns", units.Fraction, false)
+	u.ReturnT, _ = a.quantity("return_T", units.Temperature, false)
+	if a.boolean("off") {
+		u.Off = 1
+	}
+}
+
+func buildConsumer(r *runner, a *args, ph *plantHandle) plant.Unit {
+	u := &plant.Consumer{}
+	duty, hasDuty := a.quantity("duty", units.Power, false)
+	steam, hasSteam := a.quantity("steam", units.MassFlow, false)
+	switch {
+	case hasDuty && hasSteam:
+		a.errorf(nil, "give duty or steam, not both")
+	case !hasDuty && !hasSteam && a.nerr == 0:
+		a.errorf(nil, "needs a duty (such as duty = \"450 kW\") or a steam flow (such as steam = \"0.2 t/h\")")
+	}
+	u.Duty, u.SteamFlow = duty, steam
+	consumerCommon(a, u)
+	return u
+}
+
+func buildTurbine(r *runner, a *args, ph *plantHandle) plant.Unit {
+	u := &plant.Turbine{}
+	u.Power, _ = a.quantity("power", units.Power, true)
+	u.ExhaustP, _ = a.quantity("exhaust", units.Pressure, true)
+	u.EtaIs, _ = a.quantity("eta_is", units.Fraction, true)
+	u.EtaMech, _ = a.quantity("eta_mech", units.Fraction, false)
+	if a.boolean("off") {
+		u.Off = 1
+	}
+	return u
+}
+
+func buildCondenser(r *runner, a *args, ph *plantHandle) plant.Unit {
+	u := &plant.Condenser{}
+	u.SubCooling, _ = a.quantity("subcool", units.TemperatureDifference, false)
+	u.Dump = a.boolean("dump")
+	return u
+}
+
+// ---------------------------------------------------------------------------
+// Lines.
+
+// luaLine is ship:line("name", "from.port", "to.port"). A port may be left
+// out when the unit has one outlet (from) or one required inlet (to).
+func (r *runner) luaLine(L *lua.LState) int {
+	ph := r.checkPlant(1)
+	pos := r.where()
+	var parts [3]string
+	for i := range parts {
+		switch v := L.Get(i + 2).(type) {
+		case lua.LString:
+			parts[i] = string(v)
+		case *lua.LTable:
+			if nm, ok := v.RawGetString("name").(lua.LString); ok && i > 0 {
+				parts[i] = string(nm)
+				continue
+			}
+			r.fail("", "line: argument %d must be a string; got a table", i+1)
+		default:
+			r.fail("", "line(name, \"from.port\", \"to.port\"): argument %d must be a string; got %s", i+1, describe(v))
+		}
+	}
+	if ph.nLines >= r.opt.MaxUnits*4 {
+		r.fail(fmt.Sprintf("plant %q", ph.p.Name), "more than %d lines in one plant", r.opt.MaxUnits*4)
+	}
+	ph.nLines++
+	ph.pending = append(ph.pending, pendingLine{name: parts[0], pos: pos, from: parts[1], to: parts[2]})
+	return 0
+}
+
+// flushLines connects the lines declared so far, now that every unit they
+// name may be known, reporting unknown units and ports with suggestions.
+func (r *runner) flushLines(ph *plantHandle) {
+	for _, pl := range ph.pending {
+		what := fmt.Sprintf("line %q", pl.name)
+		fu, fp, err1 := r.endpoint(ph, pl.from, plant.Out)
+		tu, tp, err2 := r.endpoint(ph, pl.to, plant.In)
+		if err1 != "" || err2 != "" {
+			for _, e := range []string{err1, err2} {
+				if e != "" {
+					r.errs = append(r.errs, &Error{Pos: pl.pos, Unit: what, Msg: e})
+				}
+			}
+			ph.badLines[pl.name] = true
+			// Connect anyway so that the plant does not also report the
+			// units' ports as unconnected.
+		}
+		ph.p.Connect(pl.name, plant.Pos{File: pl.pos.File, Line: pl.pos.Line}, fu, fp, tu, tp)
+	}
+	ph.pending = ph.pending[:0]
+}
+
+// endpoint splits "unit.port" into unit and port, taking the unit's only
+// port of the direction when the port is left out. It returns a message if
+// the unit or port is not known.
+func (r *runner) endpoint(ph *plantHandle, s string, dir plant.Direction) (unit, port, msg string) {
+	side := "from"
+	if dir == plant.In {
+		side = "to"
+	}
+	if u := ph.p.Unit(s); u != nil {
+		// No port given: the unit's single port of the direction.
+		var all, required []string
+		for _, ps := range u.Ports() {
+			if ps.Dir == dir {
+				all = append(all, ps.Name)
+				if !ps.Optional {
+					required = append(required, ps.Name)
+				}
+			}
+		}
+		cands := required
+		if len(all) == 1 {
+			cands = all
+		}
+		if len(cands) == 1 {
+			return s, cands[0], ""
+		}
+		return s, "", fmt.Sprintf("%s %q: say which port of the %s, such as %q (ports: %s)", side, s, u.Kind(), s+"."+firstOr(cands, "in"), portList(u))
+	}
+	i := strings.LastIndexByte(s, '.')
+	if i < 0 {
+		return s, "", fmt.Sprintf("%s: %s", side, r.unknownUnitMsg(ph, s))
+	}
+	unit, port = s[:i], s[i+1:]
+	u := ph.p.Unit(unit)
+	if u == nil {
+		return unit, port, fmt.Sprintf("%s %q: %s", side, s, r.unknownUnitMsg(ph, unit))
+	}
+	var names []string
+	for _, ps := range u.Ports() {
+		names = append(names, ps.Name)
+		if ps.Name == port {
+			return unit, port, ""
+		}
+	}
+	msg = fmt.Sprintf("%s %q: the %s %q has no port %q", side, s, u.Kind(), unit, port)
+	if sg := suggest(port, names); sg != "" {
+		msg += fmt.Sprintf("; did you mean %q?", unit+"."+sg)
+	}
+	return unit, port, msg + " (ports: " + portList(u) + ")"
+}
+
+func firstOr(list []string, def string) string {
+	if len(list) > 0 {
+		return list[0]
+	}
+	return def
+}
+
+func portList(u plant.Unit) string {
+	var b []string
+	for _, ps := range u.Ports() {
+		dir := "in"
+		if ps.Dir == plant.Out {
+			dir = "out"
+		}
+		s := ps.Name + " (" + dir
+		if ps.Optional {
+			s += ", optional"
+		}
+		b = append(b, s+")")
+	}
+	return strings.Join(b, ", ")
+}
+
+// unknownUnitMsg says a unit is not in the plant, with a suggestion.
+func (r *runner) unknownUnitMsg(ph *plantHandle, name string) string {
+	var names []string
+	for _, u := range ph.p.Units() {
+		names = append(names, u.UnitName())
+	}
+	msg := fmt.Sprintf("plant %q has no unit %q", ph.p.Name, name)
+	if s := suggest(name, names); s != "" {
+		msg += fmt.Sprintf("; did you mean %q?", s)
+	}
+	return msg
+}
+
+func sortStrings(s []string) {
+	for i := 1; i < len(s); i++ {
+		for j := i; j > 0 && s[j] < s[j-1]; j-- {
+			s[j], s[j-1] = s[j-1], s[j]
+		}
+	}
+}

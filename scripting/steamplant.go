@@ -1,0 +1,211 @@
+package scripting
+
+import (
+	"fmt"
+
+	lua "github.com/yuin/gopher-lua"
+
+	"steamcase/plant"
+)
+
+// Defaults of the short form, each documented in doc.go.
+const (
+	defaultMakeUpT    = "15 C"  // make-up water temperature: common practice, no source
+	defaultPumpMargin = "3 bar" // feed pump margin over the drum: common practice, no source
+	defaultPumpEta    = "45 %"  // feed pump efficiency: common practice, no source
+)
+
+// copyTable returns a shallow copy of t (nil gives an empty table) with
+// defaults set where the key is absent.
+func (r *runner) copyTable(t *lua.LTable, what string, defaults map[string]string) *lua.LTable {
+	out := r.L.NewTable()
+	if t != nil {
+		r.checkSize(t, what)
+		t.ForEach(func(k, v lua.LValue) { out.RawSet(k, v) })
+	}
+	for k, v := range defaults {
+		if out.RawGetString(k) == lua.LNil {
+			out.RawSetString(k, lua.LString(v))
+		}
+	}
+	return out
+}
+
+// subTable reads an optional table key of the short form.
+func (r *runner) subTable(a *args, key string) *lua.LTable {
+	switch v := a.get(key).(type) {
+	case *lua.LNilType:
+		return nil
+	case *lua.LTable:
+		return v
+	default:
+		a.errorf(nil, "%s must be a table; got %s", key, describe(v))
+		return nil
+	}
+}
+
+// list reads an optional list of tables of the short form.
+func (r *runner) list(a *args, key string) []*lua.LTable {
+	t := r.subTable(a, key)
+	if t == nil {
+		return nil
+	}
+	r.checkSize(t, key)
+	n := t.Len()
+	var out []*lua.LTable
+	for i := 1; i <= n; i++ {
+		e, ok := t.RawGetInt(i).(*lua.LTable)
+		if !ok {
+			a.errorf(nil, "%s[%d] must be a table such as { name = \"...\" }; got %s", key, i, describe(t.RawGetInt(i)))
+			continue
+		}
+		out = append(out, e)
+	}
+	if extra := r.unknownKeys(t, nil); len(extra) > n {
+		a.errorf(nil, "%s must be a list { {...}, {...} } without named keys", key)
+	}
+	return out
+}
+
+// luaSteamPlant is the short form: steam_plant{ name, boilers, hotwell,
+// feed_pump, makeup, headers, consumers, turbines, and the plant keys }.
+func (r *runner) luaSteamPlant(L *lua.LState) int {
+	t := r.checkTable(1, "steam_plant")
+	pos := r.where()
+	a, name, opt := r.plantOptions(t, "steam_plant", pos)
+	boilers := r.list(a, "boilers")
+	makeup := r.subTable(a, "makeup")
+	hotwell := r.subTable(a, "hotwell")
+	pump := r.subTable(a, "feed_pump")
+	headers := r.list(a, "headers")
+	consumers := r.list(a, "consumers")
+	turbines := r.list(a, "turbines")
+	if len(boilers) == 0 && a.nerr == 0 {
+		a.errorf(nil, "boilers is required: a list such as { {name = \"AB1\", mcr = \"3 t/h\", drum = \"7 bar(g)\", fuel = \"MGO\", efficiency = \"85 %%\"} }")
+	}
+	a.done()
+	ud := r.newPlant(name, pos, opt, a.uopt)
+	ph := ud.Value.(*plantHandle)
+
+	line := func(name, from, to string) {
+		ph.nLines++
+		ph.pending = append(ph.pending, pendingLine{name: name, pos: pos, from: from, to: to})
+	}
+	named := func(t *lua.LTable, def string) *lua.LTable {
+		return r.copyTable(t, def, map[string]string{"name": def})
+	}
+
+	r.addUnit(ph, "makeup", r.copyTable(named(makeup, "makeup"), "makeup", map[string]string{"T": defaultMakeUpT}), pos, buildMakeUp, nil)
+	hw := named(hotwell, "hotwell")
+	hwName := r.addUnit(ph, "feed_tank", hw, pos, buildFeedTank, nil)
+	var boilerNames []string
+	for _, b := range boilers {
+		if n, ok := b.RawGetString("name").(lua.LString); ok {
+			boilerNames = append(boilerNames, string(n))
+		}
+	}
+	fp := named(pump, "feed pump")
+	if fp.RawGetString("discharge") == lua.LNil && fp.RawGetString("margin") == lua.LNil {
+		fp.RawSetString("margin", lua.LString(defaultPumpMargin))
+	}
+	if fp.RawGetString("eta") == lua.LNil {
+		fp.RawSetString("eta", lua.LString(defaultPumpEta))
+	}
+	if fp.RawGetString("boilers") == lua.LNil {
+		bl := r.L.NewTable()
+		for _, n := range boilerNames {
+			bl.Append(lua.LString(n))
+		}
+		fp.RawSetString("boilers", bl)
+	}
+	fpName := r.addUnit(ph, "feed_pump", fp, pos, buildFeedPump, nil)
+	fh := r.addUnit(ph, "header", named(nil, "feed header"), pos, buildHeader, nil)
+	line("makeup", "makeup.out", hwName+".in")
+	line("feed suction", hwName+".out", fpName+".in")
+	line("feed discharge", fpName+".out", fh+".in")
+
+	if len(headers) == 0 {
+		headers = []*lua.LTable{named(nil, "main")}
+	}
+	var main string
+	for i, h := range headers {
+		var p lua.LValue
+		hn := r.addUnit(ph, "header", h, pos, buildHeader, func(a *args) {
+			p = a.get("p")
+			if i == 0 && p != lua.LNil {
+				a.errorf(nil, "the first header is the main header at the boilers' pressure; it takes no p")
+			}
+			if i > 0 && p == lua.LNil {
+				a.errorf(nil, "p is required for a header after the first, such as p = \"7 bar(g)\" (it is fed from the main header through a reducing valve)")
+			}
+		})
+		if i == 0 {
+			main = hn
+			continue
+		}
+		if p == lua.LNil {
+			continue
+		}
+		prv := r.L.NewTable()
+		prv.RawSetString("name", lua.LString("PRV "+hn))
+		prv.RawSetString("p", p)
+		pn := r.addUnit(ph, "reducing_valve", prv, pos, buildReducingValve, nil)
+		line("to "+pn, main+".out", pn+".in")
+		line("from "+pn, pn+".out", hn+".in")
+	}
+	for _, b := range boilers {
+		bn := r.addUnit(ph, "boiler", b, pos, buildBoiler, nil)
+		line("feed "+bn, fh+".out", bn+".feed")
+		line("steam "+bn, bn+".steam", main+".in")
+	}
+	if hw.RawGetString("set_T") != lua.LNil {
+		line("hotwell heating", main+".out", hwName+".steam")
+	}
+	header := func(a *args) string {
+		h, ok := a.str("header", false)
+		if !ok {
+			return main
+		}
+		return h
+	}
+	for _, c := range consumers {
+		var hn string
+		kind := "consumer"
+		b := buildConsumer
+		if k, ok := c.RawGetString("kind").(lua.LString); ok {
+			if lb, ok := r.loadsBuilder(string(k)); ok {
+				kind, b = string(k), lb
+			}
+		}
+		cn := r.addUnit(ph, kind, c, pos, b, func(a *args) {
+			hn = header(a)
+			if k, ok := a.str("kind", false); ok && k != kind {
+				a.errorf(nil, "%s", unknownKindMsg(k))
+			}
+		})
+		if cn == "" {
+			continue
+		}
+		line("steam to "+cn, hn+".out", cn+".in")
+		if cu, ok := ph.p.Unit(cn).(*plant.Consumer); ok && cu.ReturnFraction > 0 {
+			line("return from "+cn, cn+".out", hwName+".in")
+		}
+	}
+	for _, tt := range turbines {
+		var hn string
+		var cond *lua.LTable
+		tn := r.addUnit(ph, "turbine", tt, pos, buildTurbine, func(a *args) {
+			hn = header(a)
+			cond = r.subTable(a, "condenser")
+		})
+		if tn == "" {
+			continue
+		}
+		cn := r.addUnit(ph, "condenser", named(cond, tn+" condenser"), pos, buildCondenser, nil)
+		line(fmt.Sprintf("steam to %s", tn), hn+".out", tn+".in")
+		line(fmt.Sprintf("exhaust of %s", tn), tn+".out", cn+".in")
+		line(fmt.Sprintf("condensate of %s", tn), cn+".out", hwName+".in")
+	}
+	L.Push(ud)
+	return 1
+}

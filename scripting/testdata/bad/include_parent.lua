@@ -1,0 +1,1 @@
+local x = include("../good/plant_tanker.lua")

@@ -1,0 +1,1 @@
+local rows = read_csv("/etc/passwd")

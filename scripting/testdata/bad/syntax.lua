@@ -1,0 +1,3 @@
+-- A syntax error on line 3.
+local ship = plant { name = "x" }
+local mcr = = "3 t/h"

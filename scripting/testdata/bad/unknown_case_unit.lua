@@ -1,0 +1,1 @@
+local ship = include("../good/plant_tanker.lua")
