@@ -24,6 +24,7 @@ type Unit interface {
 	guess(x []float64)
 	report(ev *eval, cr *CaseResult) error
 	param(name string) (*float64, error)
+	clone() Unit
 }
 
 // UnitBase holds what every unit has: a name and the place it was declared.

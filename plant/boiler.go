@@ -165,8 +165,11 @@ type Boiler struct {
 	// CyclingLoss is the fraction of efficiency lost to pre-purges when the
 	// boiler cycles below its burner minimum; zero means none is counted.
 	CyclingLoss float64
-	Efficiency  EfficiencyModel
-	Fuel        FuelSpec
+	// EtaFactor scales the efficiency model's figure (zero means 1): the
+	// knob an audit turns for an uncertain efficiency.
+	EtaFactor  float64
+	Efficiency EfficiencyModel
+	Fuel       FuelSpec
 
 	// Burner holds the burner and forced-draught fan; its zero value is a
 	// burner whose fan is not modelled.
@@ -237,6 +240,9 @@ func (u *Boiler) check(fs *faults) {
 		checkRange(fs, u, "burner turndown ratio", u.Turndown, 1, 20, "")
 	}
 	checkRange(fs, u, "cycling loss", u.CyclingLoss, 0, 0.2, "")
+	if u.EtaFactor != 0 {
+		checkRange(fs, u, "efficiency factor", u.EtaFactor, 0.5, 1.5, "")
+	}
 	if u.Burner.AirT != 0 {
 		checkRange(fs, u, "combustion air temperature", u.Burner.AirT, 243.15, 343.15, "K")
 	}
@@ -320,6 +326,12 @@ func (u *Boiler) eta(ev *eval) (pt EfficiencyPoint, cycling bool, err error) {
 	}
 	if cycling {
 		pt.Eta *= 1 - u.CyclingLoss
+	}
+	if u.EtaFactor != 0 {
+		pt.Eta *= u.EtaFactor
+		if pt.Eta > 1 {
+			return EfficiencyPoint{}, false, fmt.Errorf("efficiency %.4f times factor %g exceeds 1", pt.Eta/u.EtaFactor, u.EtaFactor)
+		}
 	}
 	return pt, cycling, nil
 }
@@ -455,6 +467,8 @@ func (u *Boiler) param(name string) (*float64, error) {
 		return &u.MCR, nil
 	case "drum_p":
 		return &u.DrumP, nil
+	case "eta_factor":
+		return &u.EtaFactor, nil
 	}
-	return nil, paramErr(u, name, "dryness", "blowdown", "mcr", "drum_p")
+	return nil, paramErr(u, name, "dryness", "blowdown", "mcr", "drum_p", "eta_factor")
 }

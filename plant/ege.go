@@ -108,6 +108,7 @@ type ExhaustGasEconomiser struct {
 // egeOperation is the economiser's gas side in a case.
 type egeOperation struct {
 	load, mGas, tIn, tOut, tSat, q, bypass, cp, ua, ntu float64
+	belowMin                                            bool
 	warn                                                []string
 }
 
@@ -261,6 +262,7 @@ func (u *ExhaustGasEconomiser) prepare(c Conditions) error {
 		u.op.ntu = ua / (m * cp)
 	}
 	if u.MinGasOutT > 0 && tOut < u.MinGasOutT-1e-9 {
+		u.op.belowMin = true
 		if u.Bypass {
 			if err := u.bypass(h, m, tIn, ts, ua); err != nil {
 				return wrapUnitErr(u, err)
@@ -368,7 +370,7 @@ func (u *ExhaustGasEconomiser) report(ev *eval, cr *CaseResult) error {
 		Name: u.Name, SteamKgS: m, DutyW: u.op.q, EngineLoad: u.op.load,
 		GasKgS: u.op.mGas, GasInT: u.op.tIn, GasOutT: u.op.tOut, TSat: u.op.tSat,
 		BypassFraction: u.op.bypass, UA: u.op.ua, NTU: u.op.ntu,
-		InService: u.Off == 0 && u.op.q > 0,
+		InService: u.Off == 0 && u.op.q > 0, BelowMin: u.op.belowMin, MinGasOutT: u.MinGasOutT,
 	}
 	if er.InService {
 		er.Pinch = u.op.tOut - u.op.tSat
@@ -406,7 +408,11 @@ type EGEResult struct {
 	TSat           float64
 	Pinch          float64 // gas outlet above saturation, K
 	BypassFraction float64 // of the exhaust sent past the economiser
-	UA, NTU        float64
+	// BelowMin is true when the gas through the economiser would leave
+	// below MinGasOutT (the bypass, if any, then holds the funnel at it).
+	BelowMin   bool
+	MinGasOutT float64
+	UA, NTU    float64
 	// FuelSavedKgS is the oil-fired boilers' fuel that the economisers save
 	// against the same case without them (all economisers together).
 	FuelSavedKgS float64

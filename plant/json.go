@@ -59,6 +59,7 @@ type EGEJSON struct {
 	GasOutTK       float64 `json:"gas_out_T_K"`
 	PinchK         float64 `json:"pinch_K"`
 	BypassFraction float64 `json:"bypass_fraction"`
+	BelowMinGasT   bool    `json:"below_min_gas_T"`
 	FuelSavedKgH   float64 `json:"fuel_saved_kg_h"`
 }
 
@@ -214,7 +215,7 @@ func (cr *CaseResult) JSON() CaseJSON {
 		j.EGEs = append(j.EGEs, EGEJSON{
 			Name: e.Name, InService: e.InService, SteamKgH: r6(e.SteamKgS * h), DutyKW: r6(e.DutyW / 1e3),
 			GasKgS: r6(e.GasKgS), GasInTK: r6(e.GasInT), GasOutTK: r6(e.GasOutT), PinchK: r6(e.Pinch),
-			BypassFraction: r6(e.BypassFraction), FuelSavedKgH: r6(e.FuelSavedKgS * h),
+			BypassFraction: r6(e.BypassFraction), BelowMinGasT: e.BelowMin, FuelSavedKgH: r6(e.FuelSavedKgS * h),
 		})
 	}
 	for _, c := range cr.Consumers {

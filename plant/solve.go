@@ -280,7 +280,7 @@ func (p *Plant) egeSaving(ctx context.Context, c Case, cr *CaseResult) error {
 // MCR; else all.
 func (p *Plant) decide(ctx context.Context, fire []bool) error {
 	n := len(p.boilers)
-	if n == 0 || len(p.dumps) > 0 {
+	if n == 0 || (len(p.dumps) > 0 && p.egeHeat() > 0) {
 		for i := range fire {
 			fire[i] = false
 		}
@@ -312,6 +312,18 @@ func (p *Plant) decide(ctx context.Context, fire []bool) error {
 		}
 	}
 	return nil
+}
+
+// egeHeat is the heat the exhaust-gas economisers take from the exhaust in
+// the present case, W.
+func (p *Plant) egeHeat() float64 {
+	var q float64
+	for _, u := range p.units {
+		if e, ok := u.(*ExhaustGasEconomiser); ok {
+			q += e.op.q
+		}
+	}
+	return q
 }
 
 func (p *Plant) dumpFlow() float64 {

@@ -675,6 +675,9 @@ type Consumer struct {
 	// Label is the consumer's kind in reports ("tank heating"); empty
 	// means "heat consumer".
 	Label string
+	// Factor scales the duty or steam flow however it is given (zero
+	// means 1): the knob an audit turns for an uncertain U-value.
+	Factor float64
 
 	in, out  *Line
 	eqs      [4]int
@@ -754,6 +757,9 @@ func (u *Consumer) check(fs *faults) {
 	}
 	checkRange(fs, u, "condensate subcooling", u.SubCooling, 0, 250, "K")
 	checkRange(fs, u, "return fraction", u.ReturnFraction, 0, 1, "")
+	if u.Factor != 0 {
+		checkRange(fs, u, "duty factor", u.Factor, 0.01, 10, "")
+	}
 	if u.ReturnT != 0 {
 		checkRange(fs, u, "condensate return temperature", u.ReturnT, 274.15, 473.15, "K")
 	}
@@ -793,6 +799,13 @@ func (u *Consumer) assemble(a *assembly, ports map[string][]*Line) {
 	}
 }
 
+func (u *Consumer) factor() float64 {
+	if u.Factor == 0 {
+		return 1
+	}
+	return u.Factor
+}
+
 func (u *Consumer) returnFraction() float64 {
 	if u.out == nil {
 		return 0
@@ -807,17 +820,18 @@ func (u *Consumer) residual(ev *eval, r []float64) error {
 		return wrapUnitErr(u, err)
 	}
 	m := ev.m(u.in)
+	f := u.factor()
 	switch {
 	case u.Off != 0:
 		r[u.eqs[0]] = m * scaleQ
 	case u.SteamPerFuel > 0 && u.fuel >= 0:
-		r[u.eqs[0]] = (m - u.SteamPerFuel*ev.x[u.fuel]) * scaleQ
+		r[u.eqs[0]] = (m - f*u.SteamPerFuel*ev.x[u.fuel]) * scaleQ
 	case u.SteamFlow > 0:
-		r[u.eqs[0]] = (m - u.SteamFlow) * scaleQ
+		r[u.eqs[0]] = (m - f*u.SteamFlow) * scaleQ
 	case u.DutyPerFuel > 0 && u.fuel >= 0:
-		r[u.eqs[0]] = m*(ev.h(u.in)-hc) - u.DutyPerFuel*ev.x[u.fuel]
+		r[u.eqs[0]] = m*(ev.h(u.in)-hc) - f*u.DutyPerFuel*ev.x[u.fuel]
 	default:
-		r[u.eqs[0]] = m*(ev.h(u.in)-hc) - u.caseDuty.W
+		r[u.eqs[0]] = m*(ev.h(u.in)-hc) - f*u.caseDuty.W
 	}
 	if u.out != nil {
 		hr, err := u.hReturn(p, hc)
@@ -885,8 +899,10 @@ func (u *Consumer) param(name string) (*float64, error) {
 		return &u.ReturnT, nil
 	case "off":
 		return &u.Off, nil
+	case "factor":
+		return &u.Factor, nil
 	}
-	return nil, paramErr(u, name, "duty", "steam_flow", "return_fraction", "subcooling", "return_T", "off")
+	return nil, paramErr(u, name, "duty", "steam_flow", "return_fraction", "subcooling", "return_T", "off", "factor")
 }
 
 // ---------------------------------------------------------------------------
@@ -1048,6 +1064,15 @@ func (u *Condenser) check(fs *faults) {
 
 func (u *Condenser) assemble(a *assembly, ports map[string][]*Line) {
 	u.in, u.out = one(ports["in"]), one(ports["out"])
+	if u.Dump {
+		// The dispatch first tries a case with no boiler firing, in which
+		// the dump condenser takes what the steam system has over. Letting
+		// that flow go negative in the trial makes a shortfall a solved
+		// answer (fire a boiler) rather than a failed solve; the dispatch
+		// never accepts a negative dump flow.
+		a.lo[u.in.mIdx()] = math.Inf(-1)
+		a.lo[u.out.mIdx()] = math.Inf(-1)
+	}
 	u.eqs[0] = a.equation(u.Name+": mass balance", 1, u.in.mIdx(), u.out.mIdx())
 	u.eqs[1] = a.equation(u.Name+": condensate pressure", scaleP, u.in.pIdx(), u.out.pIdx())
 	u.eqs[2] = a.equation(u.Name+": condensate temperature", scaleH, u.in.pIdx(), u.out.hIdx())

@@ -1,0 +1,248 @@
+package profile
+
+import (
+	"context"
+	"fmt"
+	"math"
+	"runtime"
+	"sync"
+
+	"steamcase/plant"
+)
+
+// Row is one period of a profile: a load case that lasts Hours, in a
+// phase of the voyage or year (port stay, loaded passage, ...).
+type Row struct {
+	Phase string
+	Hours float64
+	Case  plant.Case
+}
+
+// Options control how a profile is run. The zero value runs on all cores.
+type Options struct {
+	// Workers is the number of goroutines; zero means GOMAXPROCS. The
+	// results do not depend on it.
+	Workers int
+	// ChunkRows is the number of consecutive rows one worker solves in
+	// turn, each warm-started from the one before; each chunk starts cold.
+	// Zero means 64. The results depend on it only in the last bits of
+	// the solver's tolerance, and not at all on Workers.
+	ChunkRows int
+	// Progress, if not nil, is called after each chunk with the rows done
+	// so far and the total, from one goroutine at a time.
+	Progress func(done, total int)
+}
+
+func (o *Options) defaults() {
+	if o.Workers <= 0 {
+		o.Workers = runtime.GOMAXPROCS(0)
+	}
+	if o.ChunkRows <= 0 {
+		o.ChunkRows = 64
+	}
+}
+
+// RowResult is one solved row.
+type RowResult struct {
+	Index  int
+	Phase  string
+	Hours  float64
+	Result *plant.CaseResult
+}
+
+// Totals sum a set of rows. Masses in tonnes, energies in MWh, flows in
+// kg/s.
+type Totals struct {
+	Rows  int
+	Hours float64
+	// Boiler fuel and CO2 burnt, and steam raised, in tonnes.
+	FuelT, CO2T, SteamT, EGESteamT, DumpedT, MakeUpT float64
+	// FuelSavedT is the boiler fuel the exhaust-gas economisers saved.
+	FuelSavedT  float64
+	ElectricMWh float64
+	// HoursFiring[k] is the hours with k oil-fired boilers firing.
+	HoursFiring []float64
+	// Peak demand on the oil-fired boilers and the row it occurs in, and
+	// the capacity (all boilers' MCR) it is measured against.
+	PeakBoilerKgS float64
+	PeakRow       int
+	CapacityKgS   float64
+	// TightestMarginKgS is the smallest margin to the next boiler (or to
+	// all boilers' MCR) over the rows, and its row.
+	TightestMarginKgS float64
+	TightestRow       int
+	// ShortRows are the rows the plant cannot carry; WarningRows those
+	// with any warning.
+	ShortRows, WarningRows []int
+}
+
+// PhaseTotals are the totals of one phase.
+type PhaseTotals struct {
+	Phase string
+	Totals
+}
+
+// Result is a solved profile: every row, the totals by phase in the order
+// phases first appear, and the totals of the whole profile.
+type Result struct {
+	Rows   []RowResult
+	Phases []PhaseTotals
+	Total  Totals
+}
+
+// Validate checks the rows: a positive number of hours each.
+func Validate(rows []Row) error {
+	if len(rows) == 0 {
+		return fmt.Errorf("profile has no rows")
+	}
+	for i, r := range rows {
+		if !(r.Hours > 0) || math.IsInf(r.Hours, 0) {
+			pos := r.Case.Pos.String()
+			if pos != "" {
+				pos += ": "
+			}
+			return fmt.Errorf("%sprofile row %d (%q): hours must be positive; got %g", pos, i+1, r.Case.Name, r.Hours)
+		}
+	}
+	return nil
+}
+
+// Run solves every row of the profile on p and its clones and sums the
+// results. It stops at the first row that fails, reporting it.
+func Run(ctx context.Context, p *plant.Plant, rows []Row, opt Options) (*Result, error) {
+	if err := Validate(rows); err != nil {
+		return nil, err
+	}
+	if err := p.Check(); err != nil {
+		return nil, err
+	}
+	opt.defaults()
+	res := make([]*plant.CaseResult, len(rows))
+	nChunks := (len(rows) + opt.ChunkRows - 1) / opt.ChunkRows
+	workers := min(opt.Workers, nChunks)
+
+	ctx, cancel := context.WithCancel(ctx)
+	defer cancel()
+	chunks := make(chan int)
+	var (
+		mu       sync.Mutex
+		firstErr error
+		errRow   = len(rows)
+		done     int
+		wg       sync.WaitGroup
+	)
+	fail := func(row int, err error) {
+		mu.Lock()
+		if row < errRow {
+			errRow, firstErr = row, err
+		}
+		mu.Unlock()
+		cancel()
+	}
+	for w := 0; w < workers; w++ {
+		pl := p
+		if w > 0 {
+			pl = p.Clone()
+		}
+		wg.Add(1)
+		go func(pl *plant.Plant) {
+			defer wg.Done()
+			for c := range chunks {
+				pl.ColdStart()
+				lo, hi := c*opt.ChunkRows, min((c+1)*opt.ChunkRows, len(rows))
+				for i := lo; i < hi; i++ {
+					cr, err := pl.Solve(ctx, rows[i].Case)
+					if err != nil {
+						fail(i, fmt.Errorf("profile row %d (%s, %q): %w", i+1, rows[i].Phase, rows[i].Case.Name, err))
+						return
+					}
+					res[i] = cr
+				}
+				if opt.Progress != nil {
+					mu.Lock()
+					done += hi - lo
+					opt.Progress(done, len(rows))
+					mu.Unlock()
+				}
+			}
+		}(pl)
+	}
+feed:
+	for c := 0; c < nChunks; c++ {
+		select {
+		case chunks <- c:
+		case <-ctx.Done():
+			break feed
+		}
+	}
+	close(chunks)
+	wg.Wait()
+	if firstErr != nil {
+		return nil, firstErr
+	}
+	if err := ctx.Err(); err != nil {
+		return nil, err
+	}
+	return Sum(rows, res), nil
+}
+
+// Sum builds the totals of solved rows.
+func Sum(rows []Row, res []*plant.CaseResult) *Result {
+	out := &Result{Rows: make([]RowResult, len(rows))}
+	byPhase := map[string]int{}
+	for i, r := range rows {
+		out.Rows[i] = RowResult{Index: i, Phase: r.Phase, Hours: r.Hours, Result: res[i]}
+		k, ok := byPhase[r.Phase]
+		if !ok {
+			k = len(out.Phases)
+			byPhase[r.Phase] = k
+			out.Phases = append(out.Phases, PhaseTotals{Phase: r.Phase, Totals: newTotals()})
+		}
+		out.Phases[k].add(i, r.Hours, res[i])
+	}
+	out.Total = newTotals()
+	for i, r := range rows {
+		out.Total.add(i, r.Hours, res[i])
+	}
+	return out
+}
+
+func newTotals() Totals {
+	return Totals{TightestMarginKgS: math.Inf(1), PeakRow: -1, TightestRow: -1}
+}
+
+func (t *Totals) add(i int, hours float64, cr *plant.CaseResult) {
+	s := hours * 3600 / 1000 // kg/s over the row → t
+	t.Rows++
+	t.Hours += hours
+	t.FuelT += cr.FuelKgS * s
+	t.CO2T += cr.CO2KgS * s
+	t.SteamT += cr.SteamProductionKgS * s
+	t.EGESteamT += cr.EGESteamKgS * s
+	t.DumpedT += cr.DumpedKgS * s
+	t.MakeUpT += cr.MakeUpKgS * s
+	t.FuelSavedT += cr.EGEFuelSavedKgS * s
+	t.ElectricMWh += cr.ElectricW * hours / 1e6
+	for len(t.HoursFiring) <= cr.BoilersFiring {
+		t.HoursFiring = append(t.HoursFiring, 0)
+	}
+	t.HoursFiring[cr.BoilersFiring] += hours
+	var fired, capAll float64
+	for _, b := range cr.Boilers {
+		fired += b.SteamKgS
+		capAll += b.MCRKgS
+	}
+	t.CapacityKgS = capAll
+	if t.PeakRow < 0 || fired > t.PeakBoilerKgS {
+		t.PeakBoilerKgS, t.PeakRow = fired, i
+	}
+	if cr.MarginNextKgS < t.TightestMarginKgS {
+		t.TightestMarginKgS, t.TightestRow = cr.MarginNextKgS, i
+	}
+	if !cr.CanCarry {
+		t.ShortRows = append(t.ShortRows, i)
+	}
+	if len(cr.Warnings) > 0 {
+		t.WarningRows = append(t.WarningRows, i)
+	}
+}
