@@ -52,6 +52,10 @@
 // by a small amount within IF97's boundary consistency) is placed in region
 // 2 a fraction of a kelvin above 1073.15 K.
 //
+// Property values feed the plant's planning and audit estimates; they are
+// not a substitute for the makers' manuals, class and flag rules, or
+// licensed engineering practice.
+//
 // # Units
 //
 // All inputs and outputs are SI: Pa, K, J/kg, J/(kg K), m3/kg, kg/m3, m/s.

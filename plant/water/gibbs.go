@@ -64,14 +64,14 @@ func (g *gsum) props(st *State, p, t float64) {
 	rt := rGas * t
 	st.P, st.T = p, t
 	st.V = rt * g.gp / p
-	st.Rho = 1 / st.V
+	st.Rho = p / (rt * g.gp)
 	st.H = rt * g.gt
 	st.U = rt * (g.gt - g.gp)
 	st.S = rGas * (g.gt - g.g)
 	st.Cp = -rGas * g.gtt
 	b := g.gp - g.gpt
 	st.Cv = rGas * (-g.gtt + b*b/g.gpp)
-	w2 := rt * g.gp * g.gp / (b*b/g.gtt - g.gpp)
+	w2 := rt * g.gp * g.gp * g.gtt / (b*b - g.gpp*g.gtt)
 	st.W = math.Sqrt(w2)
 }
 
@@ -143,12 +143,12 @@ const (
 	t2Star = 540.0
 )
 
-// ideal2 returns the ideal-gas part γ° of region 2 (Eq. 16) as τ·γ°τ and
-// τ²·γ°ττ, and γ° without its ln π when full is set.
-func ideal2(tau float64, full bool) (g0, g0t, g0tt float64) {
+// ideal2 returns the ideal-gas part γ° of region 2 (Eq. 16) at τ = 540 K/t
+// as τ·γ°τ and τ²·γ°ττ, and γ° without its ln π when full is set.
+func ideal2(tau, t float64, full bool) (g0, g0t, g0tt float64) {
 	t2 := tau * tau
 	t3 := t2 * tau
-	tm1 := 1 / tau
+	tm1 := t * (1 / t2Star) // 1/τ without a division
 	tm2 := tm1 * tm1
 	tm3 := tm2 * tm1
 	tm4 := tm2 * tm2
@@ -167,7 +167,7 @@ func ideal2(tau float64, full bool) (g0, g0t, g0tt float64) {
 func gibbs2(p, t float64) gsum {
 	pi := p / p2Star
 	tau := t2Star / t
-	g0, g0t, g0tt := ideal2(tau, true)
+	g0, g0t, g0tt := ideal2(tau, t, true)
 	b := tau - 0.5
 	s0, sI, sII, sJ, sJJ, sIJ := poly2All(pi, b)
 	tb := tau / b
@@ -184,7 +184,7 @@ func gibbs2(p, t float64) gsum {
 // hcp2 returns h and cp of region 2.
 func hcp2(p, t float64) (h, cp float64) {
 	tau := t2Star / t
-	_, g0t, g0tt := ideal2(tau, false)
+	_, g0t, g0tt := ideal2(tau, t, false)
 	b := tau - 0.5
 	sJ, sJJ := poly2JJJ(p/p2Star, b)
 	tb := tau / b
@@ -194,7 +194,7 @@ func hcp2(p, t float64) (h, cp float64) {
 // h2 returns the specific enthalpy of region 2 in J/kg.
 func h2(p, t float64) float64 {
 	tau := t2Star / t
-	_, g0t, _ := ideal2(tau, false)
+	_, g0t, _ := ideal2(tau, t, false)
 	b := tau - 0.5
 	return rGas * t * (g0t + tau/b*poly2J(p/p2Star, b))
 }
@@ -203,7 +203,7 @@ func h2(p, t float64) float64 {
 func s2(p, t float64) float64 {
 	pi := p / p2Star
 	tau := t2Star / t
-	g0, g0t, _ := ideal2(tau, true)
+	g0, g0t, _ := ideal2(tau, t, true)
 	b := tau - 0.5
 	s0, sJ := poly2S0J(pi, b)
 	return rGas * (g0t + tau/b*sJ - math.Log(pi) - g0 - s0)
@@ -213,7 +213,7 @@ func s2(p, t float64) float64 {
 func scp2(p, t float64) (s, cp float64) {
 	pi := p / p2Star
 	tau := t2Star / t
-	g0, g0t, g0tt := ideal2(tau, true)
+	g0, g0t, g0tt := ideal2(tau, t, true)
 	b := tau - 0.5
 	s0, sJ, sJJ := poly2S(pi, b)
 	tb := tau / b

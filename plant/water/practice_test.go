@@ -92,8 +92,8 @@ func TestBackwardConsistency(t *testing.T) {
 		if err != nil || (reg != Region1 && reg != Region2) {
 			continue
 		}
-		st, err := statePT("test", p, tk, reg, 0)
-		if err != nil {
+		var st State
+		if err := statePT(&st, "test", p, tk, reg, 0); err != nil {
 			t.Fatal(err)
 		}
 		if reg == Region1 {

@@ -438,7 +438,9 @@ func (sol *solution) state(fn string, p float64, sat *[2]State) (State, error) {
 		st.classify(sol.sd == sideLiquid)
 		return st, nil
 	}
-	return statePT(fn, p, sol.t, sol.reg, 0)
+	var st State
+	err := statePT(&st, fn, p, sol.t, sol.reg, 0)
+	return st, err
 }
 
 // PH returns the state at pressure p (Pa) and specific enthalpy h (J/kg).

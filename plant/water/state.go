@@ -162,34 +162,35 @@ func PT(p, t float64) (State, error) {
 	if err != nil {
 		return st, err
 	}
-	return statePT("PT", p, t, reg, sd)
+	err = statePT(&st, "PT", p, t, reg, sd)
+	return st, err
 }
 
 // statePT evaluates the state of a (p,T) pair whose region is known.
-func statePT(fn string, p, t float64, reg Region, sd side3) (State, error) {
-	var st State
+func statePT(st *State, fn string, p, t float64, reg Region, sd side3) error {
 	switch reg {
 	case Region1:
 		g := gibbs1(p, t)
-		g.props(&st, p, t)
+		g.props(st, p, t)
 	case Region2:
 		g := gibbs2(p, t)
-		g.props(&st, p, t)
+		g.props(st, p, t)
 	case Region5:
 		g := gibbs5(p, t)
-		g.props(&st, p, t)
+		g.props(st, p, t)
 	case Region3:
 		rho, ok := rho3(p, t, sd)
 		if !ok {
-			return State{}, &ConvergenceError{Func: fn, What: "region 3 density from (p,T)", P: p, Arg: t}
+			*st = State{}
+			return &ConvergenceError{Func: fn, What: "region 3 density from (p,T)", P: p, Arg: t}
 		}
 		f := helm3(rho, t)
-		f.props(&st, rho, t)
+		f.props(st, rho, t)
 		st.P = p
 	}
 	st.Region = reg
 	st.classify(sd == sideLiquid)
-	return st, nil
+	return nil
 }
 
 // HPT returns the specific enthalpy (J/kg) at pressure p (Pa) and
