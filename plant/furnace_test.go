@@ -3,8 +3,10 @@ package plant
 import (
 	"context"
 	"math"
+	"strings"
 	"testing"
 
+	"steamcase/plant/combustion"
 	"steamcase/plant/fuel"
 	"steamcase/plant/heat"
 )
@@ -121,5 +123,23 @@ func TestFurnaceBoilerInPlant(t *testing.T) {
 	within(t, "fuel from the energy balance", b.FuelKgS*b.FuelLHV*b.Efficiency, b.HeatW, 1e-9)
 	if cr.Balance.EnergyRel > 1e-6 || b.FlueT == 0 {
 		t.Errorf("balance %+v, exit %g", cr.Balance, b.FlueT)
+	}
+}
+
+func TestBurnerCannotFire(t *testing.T) {
+	// A burner given less air than the fuel needs (λ < 1), or air without
+	// oxygen, cannot fire: a clear error, never a NaN (common practice,
+	// no source: combustion needs fuel, oxygen and ignition).
+	m := smallFireTube()
+	m.ExcessAir.Lambda = []float64{0.8, 0.9}
+	if err := m.Validate(); err == nil || !strings.Contains(err.Error(), "cannot fire") {
+		t.Errorf("λ below 1: error %v, want one saying the burner cannot fire", err)
+	}
+	op := BoilerOperation{Load: 1, DrumP: gauge(7), AirT: 308.15, FuelFlow: 0.05, Fuel: hsfo(t)}
+	f := *op.Fuel.Fuel
+	op.Fuel.Fuel = &f
+	_, err := lossMethod(op, 523.15, combustion.Conditions{O2Dry: 0.03, DryAir: [combustion.NumSpecies]float64{combustion.N2: 1}}, 0, 0, 0, 0, "")
+	if err == nil || !strings.Contains(err.Error(), "cannot fire") {
+		t.Errorf("air without oxygen: error %v, want one saying the burner cannot fire", err)
 	}
 }
