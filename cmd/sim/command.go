@@ -45,6 +45,8 @@ type command struct {
 // load-case runner ("run") joins it when it is built.
 func commands() []*command {
 	return []*command{
+		runCommand(),
+		checkCommand(),
 		steamCommand(),
 		fluegasCommand(),
 		helpCommand(),
@@ -97,9 +99,12 @@ func run(ctx context.Context, args []string, stdout, stderr io.Writer) int {
 	}
 	err := c.Run(ctx, e, args[1:])
 	var ue *usageError
+	var re *reportedError
 	switch {
 	case err == nil:
 		return exitOK
+	case errors.As(err, &re):
+		return exitFail // the command wrote its errors
 	case errors.Is(err, flag.ErrHelp):
 		writeCommandHelp(stdout, c)
 		return exitOK

@@ -23,9 +23,8 @@ engine for a ship's steam plant. Water and steam properties follow
 IAPWS-IF97. Quantities are written with their units, such as "7 bar(g)",
 "250 C", "18 t/h" or "2768 kJ/kg"; pressures must say gauge or absolute.`
 
-const mainNotYet = `Not built yet: the load-case runner ("sim run"), which will solve a plant and
-its load cases from Lua scripts, and the built-in demo plant. Until they
-land, "sim" with no arguments prints this help.`
+const mainNotYet = `Not built yet: the built-in demo plant. Until it lands, "sim" with no
+arguments prints this help; "sim run" solves the load cases of your scripts.`
 
 func writeMainHelp(w io.Writer) {
 	fmt.Fprintf(w, "%s\n\nUsage:\n\n\tsim <command> [flags]\n\nThe commands are:\n\n", mainIntro)

@@ -126,7 +126,7 @@ func TestHelpForms(t *testing.T) {
 			t.Errorf("sim %q: exit %d, same as 'sim help steam': %v", args, code, out == steam)
 		}
 	}
-	for _, s := range []string{"steam", "help", "Not built yet", "sim run", "Caution: boilers can kill"} {
+	for _, s := range []string{"steam", "help", "run", "check", "sim run", "Caution: boilers can kill"} {
 		if !strings.Contains(main, s) {
 			t.Errorf("'sim' help does not mention %q", s)
 		}
@@ -174,7 +174,7 @@ func TestExitCodes(t *testing.T) {
 			`sim steam: --ambient "1.013 kPa" is 0.01013 bar(a); an ambient pressure must lie between 0.5 and 1.5 bar(a)`},
 		{[]string{"stem"}, exitUsage, `sim: unknown command "stem"`},
 		{[]string{"--p", "7 bar(g)"}, exitUsage, "sim: flag --p given before a command; the flags belong to a command, such as: sim steam --p ..."},
-		{[]string{"help", "stem"}, exitUsage, `sim help: unknown help topic "stem"; the commands are: steam, fluegas, help`},
+		{[]string{"help", "stem"}, exitUsage, `sim help: unknown help topic "stem"; the commands are: run, check, steam, fluegas, help`},
 		// Failures: well-formed values that give no state.
 		{[]string{"steam", "--p", "7 bar(g)", "--x", "1.5"}, exitFail,
 			`sim steam: --x "1.5": the quality must be from 0 to 1 (as a percentage, 0 % to 100 %); got 1.5`},

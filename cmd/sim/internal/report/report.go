@@ -26,6 +26,7 @@ type Case struct {
 const (
 	kindHeader   = "steam header"
 	kindFeedTank = "feed tank"
+	kindDump     = "dump condenser"
 	keyDrained   = "drained_kg_s"
 	keyTankSteam = "heating_steam_kg_s"
 	kgh          = 3600.0 // kg/s to kg/h
@@ -62,7 +63,7 @@ func writeCase(w io.Writer, n, total int, c Case) {
 	fmt.Fprintf(w, "  conditions: sea %s °C, air %s °C, main engine load %s %%\n",
 		fix(r.Conditions.SeaT-273.15, 1), fix(r.Conditions.AirT-273.15, 1), fix(r.Conditions.EngineLoad*100, 1))
 	if r.Converged {
-		fmt.Fprintf(w, "  solution: converged in %d iterations\n", r.Iterations)
+		fmt.Fprintf(w, "  solution: converged, balances closed\n")
 	} else {
 		fmt.Fprintf(w, "  solution: NOT CONVERGED after %d iterations (residual %s); the figures below are not a balance\n",
 			r.Iterations, sci(r.ResidualNorm))
@@ -114,8 +115,10 @@ func writeCase(w io.Writer, n, total int, c Case) {
 				fix(u.Figures["heat_loss_W"]/1e3, 1), "heat loss, drained and lost")
 		}
 	}
-	if r.DumpedKgS != 0 {
-		fmt.Fprintf(tw, "      %s\t%s\t%10s\t%10s\t\n", "dumped", "to the dump condenser", fix(r.DumpedKgS*kgh, 1), "")
+	for _, u := range r.Units {
+		if u.Kind == kindDump {
+			fmt.Fprintf(tw, "      %s\t%s\t%10s\t%10s\t\n", u.Name, "dumped", fix(u.Figures["steam_kg_s"]*kgh, 1), "")
+		}
 	}
 	fmt.Fprintf(tw, "    demand\t\t%10s\t\t\n", fix(r.SteamDemandKgS*kgh, 1))
 	fmt.Fprintf(tw, "    production\t\t%10s\t\t\n", fix(r.SteamProductionKgS*kgh, 1))

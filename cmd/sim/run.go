@@ -1,0 +1,362 @@
+package main
+
+import (
+	"bytes"
+	"context"
+	"errors"
+	"flag"
+	"fmt"
+	"io"
+	"os"
+	"time"
+
+	"github.com/rs/zerolog"
+	"golang.org/x/term"
+
+	"steamcase/cmd/sim/internal/report"
+	"steamcase/scripting"
+)
+
+// maxTimeout bounds --timeout: a longer run is a mistake, not a plan.
+const maxTimeout = 24 * time.Hour
+
+func runCommand() *command {
+	return &command{
+		Name:      "run",
+		UsageLine: "[--json | --csv] [--plot FILE] [-o FILE] [--timeout DURATION] [-v | --quiet] SCRIPT...",
+		Short:     "solve the plants and load cases of Lua scripts and report them",
+		Long: `Run runs each load-case script in turn, solving the plants and load cases
+it describes, and prints a report of every case: the conditions (sea and
+air temperatures, main engine load); the steam balance, with each boiler's
+steam and heat and each consumer's steam and duty in kg/h and kW, and the
+water lost to blowdown, venting, condensate not returned and header drains;
+how many boilers fire, each one's load in % of MCR and whether its burner
+cycles; the margin before the next boiler must fire; the fuel burnt in kg/h
+and t/day; the CO2 in t/day; the electrical load; the feed tank
+temperature; the closures of the mass and energy balances; and every
+warning. The cases of several scripts form one report, in the order given.
+
+Scripts are written in Lua with the functions plant, steam_plant, case,
+check, include and read_csv; quantities are strings with their units, such
+as "7 bar(g)" or "18 t/h". A script reads files only from its own folder
+and the folders below it.
+
+The report is a table for people unless --json or --csv asks for a form for
+programs: --json prints one JSON document (schema 1: the caution, the plant
+and every case with its figures, each key naming its unit), --csv one row
+per case with the main figures under a header naming their units. --plot
+also draws the steam demand of each case, stacked by consumer, against the
+MCR of the boilers firing and of all boilers, as an SVG or PNG file chosen
+by the file name's extension. -o writes the report to a file instead of
+standard output.
+
+What the scripts print, and the solver's messages with -v, go to standard
+error; --quiet leaves only errors. An error in a script is printed as
+"file:line: message" and sim exits with status 1. So does a failed check(),
+after the report of the cases solved before it, so that the figures it
+tested can be seen. A script that runs longer than --timeout is stopped.
+
+Examples:
+
+	sim run tanker.lua
+	sim run --json -o tanker.json tanker.lua
+	sim run --csv plant.lua voyage.lua > cases.csv
+	sim run --plot demand.svg tanker.lua`,
+		Flags: func() *flag.FlagSet { return new(runArgs).flagSet("run") },
+		Run:   runRun,
+	}
+}
+
+func checkCommand() *command {
+	return &command{
+		Name:      "check",
+		UsageLine: "[--timeout DURATION] [-v | --quiet] SCRIPT...",
+		Short:     "check load-case scripts without solving them",
+		Long: `Check reads each load-case script and validates it without solving any
+case: the Lua syntax, the units and keys of every table, the lines of every
+plant and the balance of its equations against its unknowns. It lists every
+error it finds, one per line as "file:line: message", and exits with
+status 1 if there is any. Otherwise it prints one line per script with the
+plants and load cases it declares, and exits with status 0.
+
+As no case is solved, the conditions of check() are not tested and figures
+that depend on a solution are zero while checking; "sim run" tests them.
+
+Examples:
+
+	sim check tanker.lua
+	sim check plant.lua voyage.lua`,
+		Flags: func() *flag.FlagSet { return new(runArgs).flagSet("check") },
+		Run:   runCheck,
+	}
+}
+
+// runArgs holds the flags of sim run and sim check, as given.
+type runArgs struct {
+	json, csv      bool
+	plot, out      string
+	timeout        time.Duration
+	verbose, quiet bool
+}
+
+func (a *runArgs) flagSet(name string) *flag.FlagSet {
+	fs := flag.NewFlagSet(name, flag.ContinueOnError)
+	if name == "run" {
+		fs.BoolVar(&a.json, "json", false, "print the report as one JSON document")
+		fs.BoolVar(&a.csv, "csv", false, "print the report as CSV, one row per load case")
+		fs.StringVar(&a.plot, "plot", "", "also draw the steam demand against the boilers' capacity in `FILE`,\nan SVG or PNG image by the name's extension (.svg, .png)")
+		fs.StringVar(&a.out, "o", "", "write the report to `FILE` instead of standard output")
+	}
+	a.timeout = 10 * time.Second
+	fs.Var((*durationFlag)(&a.timeout), "timeout", "stop a script that runs longer than `DURATION`, such as 10s or 2m (default 10s)")
+	fs.BoolVar(&a.verbose, "v", false, "log more: the solver's records as well as the scripts' messages")
+	fs.BoolVar(&a.quiet, "quiet", false, "log errors only")
+	return fs
+}
+
+// durationFlag is a time.Duration flag whose error says what is expected.
+type durationFlag time.Duration
+
+func (d *durationFlag) String() string { return time.Duration(*d).String() }
+
+func (d *durationFlag) Set(s string) error {
+	v, err := time.ParseDuration(s)
+	if err != nil {
+		return fmt.Errorf("a duration with its unit is expected, such as 10s, 2m or 1h30m")
+	}
+	*d = durationFlag(v)
+	return nil
+}
+
+// parse reads the flags and the script names, which may come before,
+// between or after the flags; after "--" every argument is a script.
+func (a *runArgs) parse(name string, args []string) ([]string, error) {
+	fs := a.flagSet(name)
+	fs.SetOutput(io.Discard)
+	fs.Usage = func() {}
+	var scripts []string
+	for {
+		if err := fs.Parse(args); err != nil {
+			if errors.Is(err, flag.ErrHelp) {
+				return nil, err
+			}
+			return nil, &usageError{msg: err.Error()}
+		}
+		rest := fs.Args()
+		if len(rest) == 0 {
+			break
+		}
+		if used := len(args) - len(rest); used > 0 && args[used-1] == "--" {
+			scripts = append(scripts, rest...)
+			break
+		}
+		scripts = append(scripts, rest[0])
+		args = rest[1:]
+	}
+	switch {
+	case len(scripts) == 0:
+		return nil, usagef("no script given: name one or more Lua load-case scripts, such as: sim %s tanker.lua", name)
+	case a.json && a.csv:
+		return nil, usagef("--json and --csv given together: choose one form of the report")
+	case a.verbose && a.quiet:
+		return nil, usagef("-v and --quiet given together: choose one")
+	case a.timeout <= 0 || a.timeout > maxTimeout:
+		return nil, usagef("--timeout %v: the time limit must be above zero and at most %v, such as 10s or 2m", a.timeout, maxTimeout)
+	}
+	if a.plot != "" {
+		if _, err := report.FormatOf(a.plot); err != nil {
+			return nil, usagef("--plot: %s", err)
+		}
+	}
+	return scripts, nil
+}
+
+// newLogger logs to w: readable lines when w is a terminal, JSON lines
+// otherwise; at debug level with -v, errors only with --quiet.
+func newLogger(w io.Writer, a *runArgs) zerolog.Logger {
+	out := w
+	if f, ok := w.(*os.File); ok && term.IsTerminal(int(f.Fd())) {
+		out = zerolog.ConsoleWriter{Out: f, TimeFormat: "15:04:05"}
+	}
+	level := zerolog.InfoLevel
+	switch {
+	case a.verbose:
+		level = zerolog.DebugLevel
+	case a.quiet:
+		level = zerolog.ErrorLevel
+	}
+	return zerolog.New(out).Level(level).With().Timestamp().Logger()
+}
+
+// reportedError is a failure whose messages the command has already
+// written to standard error; sim exits with status 1 and adds nothing.
+type reportedError struct{ n int }
+
+func (e *reportedError) Error() string { return fmt.Sprintf("%d errors reported", e.n) }
+
+// writeScriptError writes a script's error to w, one line per error as
+// "file:line: message", and returns a reportedError. Errors that are not
+// the script's (a file that cannot be read, a cancelled run) are returned
+// as they are, for sim to print as one line.
+func writeScriptError(w io.Writer, err error) error {
+	var list scripting.ErrorList
+	var se *scripting.Error
+	var ae *scripting.AssertionError
+	var te *scripting.TimeoutError
+	switch {
+	case errors.As(err, &list):
+		for _, e := range list {
+			fmt.Fprintln(w, oneLine(e.Error()))
+		}
+		return &reportedError{n: len(list)}
+	case errors.As(err, &se), errors.As(err, &ae), errors.As(err, &te):
+		fmt.Fprintln(w, oneLine(err.Error()))
+		return &reportedError{n: 1}
+	}
+	return err
+}
+
+// scriptRunner runs one script; the demo swaps in RunSource.
+type scriptRunner func(ctx context.Context, opt scripting.Options) (*scripting.Run, error)
+
+func runRun(ctx context.Context, e env, args []string) error {
+	var a runArgs
+	scripts, err := a.parse("run", args)
+	if err != nil {
+		return err
+	}
+	runners := make([]scriptRunner, len(scripts))
+	for i, s := range scripts {
+		runners[i] = func(ctx context.Context, opt scripting.Options) (*scripting.Run, error) {
+			return scripting.RunFile(ctx, s, opt)
+		}
+	}
+	return runScripts(ctx, e, &a, runners, "")
+}
+
+// runScripts runs the scripts in turn and writes one report of their
+// cases, preceded by the line first if it is not empty.
+func runScripts(ctx context.Context, e env, a *runArgs, runners []scriptRunner, first string) error {
+	log := newLogger(e.stderr, a)
+	opt := scripting.Options{Timeout: a.timeout, Logger: log}
+	var cases []report.Case
+	var failed error
+	for _, run := range runners {
+		r, err := run(ctx, opt)
+		if r != nil && err == nil {
+			log.Debug().Int("cases", len(r.Cases)).Int("checks", r.Checks).Msg("script done")
+		}
+		if r != nil {
+			for _, c := range r.Cases {
+				if c.Result != nil {
+					cases = append(cases, report.Case{Plant: c.Plant, Result: c.Result})
+				}
+			}
+		}
+		if err != nil {
+			var ae *scripting.AssertionError
+			if !errors.As(err, &ae) {
+				return writeScriptError(e.stderr, err)
+			}
+			// A failed check: report what was solved, then the failure.
+			failed = err
+			break
+		}
+	}
+	if err := writeReport(e, a, cases, first); err != nil {
+		return err
+	}
+	if failed != nil {
+		return writeScriptError(e.stderr, failed)
+	}
+	return nil
+}
+
+// writeReport renders the cases in the form asked for to -o or standard
+// output, and the chart to --plot.
+func writeReport(e env, a *runArgs, cases []report.Case, first string) error {
+	var b bytes.Buffer
+	if first != "" && !a.json && !a.csv {
+		fmt.Fprintln(&b, first)
+		fmt.Fprintln(&b)
+	}
+	var err error
+	switch {
+	case a.json:
+		err = report.JSON(&b, cases)
+	case a.csv:
+		err = report.CSV(&b, cases)
+		// The CSV has no room for the caution; it goes to standard error.
+		fmt.Fprintln(e.stderr, report.Caution)
+	default:
+		err = report.Table(&b, cases)
+	}
+	if err != nil {
+		return err
+	}
+	if a.plot != "" {
+		if len(cases) == 0 {
+			return fmt.Errorf("--plot %s: no load case was solved, so there is nothing to draw", a.plot)
+		}
+		format, err := report.FormatOf(a.plot)
+		if err != nil {
+			return err
+		}
+		var pb bytes.Buffer
+		if err := report.Plot(&pb, format, cases); err != nil {
+			return err
+		}
+		if err := os.WriteFile(a.plot, pb.Bytes(), 0o644); err != nil {
+			return fmt.Errorf("--plot: %w", err)
+		}
+	}
+	if a.out != "" {
+		if err := os.WriteFile(a.out, b.Bytes(), 0o644); err != nil {
+			return fmt.Errorf("-o: %w", err)
+		}
+		return nil
+	}
+	_, err = e.stdout.Write(b.Bytes())
+	return err
+}
+
+func runCheck(ctx context.Context, e env, args []string) error {
+	var a runArgs
+	scripts, err := a.parse("check", args)
+	if err != nil {
+		return err
+	}
+	opt := scripting.Options{Timeout: a.timeout, Logger: newLogger(e.stderr, &a), CheckOnly: true}
+	errs := 0
+	for _, s := range scripts {
+		r, err := scripting.RunFile(ctx, s, opt)
+		if err == nil {
+			fmt.Fprintf(e.stdout, "%s: ok: %s, %s\n", s, count(len(r.Plants), "plant"), count(len(r.Cases), "load case"))
+			continue
+		}
+		if ctx.Err() != nil {
+			return ctx.Err()
+		}
+		var re *reportedError
+		if werr := writeScriptError(e.stderr, err); errors.As(werr, &re) {
+			errs += re.n
+		} else {
+			// Not the script's own error (a file that cannot be read):
+			// one line, and on with the others.
+			fmt.Fprintf(e.stderr, "sim check: %s\n", oneLine(werr.Error()))
+			errs++
+		}
+	}
+	if errs > 0 {
+		return &reportedError{n: errs}
+	}
+	return nil
+}
+
+// count writes "1 plant", "2 plants".
+func count(n int, what string) string {
+	if n == 1 {
+		return "1 " + what
+	}
+	return fmt.Sprintf("%d %ss", n, what)
+}

@@ -1,0 +1,245 @@
+package main
+
+import (
+	"bytes"
+	"encoding/csv"
+	"encoding/json"
+	"os"
+	"path/filepath"
+	"strings"
+	"testing"
+
+	"steamcase/cmd/sim/internal/report"
+)
+
+const (
+	smallScript = "testdata/run/small.lua"
+	failScript  = "testdata/run/fail_check.lua"
+	errScript   = "testdata/run/errors.lua"
+	endless     = "testdata/run/endless.lua"
+)
+
+// TestRunGolden runs a small script end to end and compares the table with
+// testdata/run_small.golden. The figures come from the plant package,
+// whose balances are checked in its own tests; the file pins what reaches
+// the user. Rewrite with: go test ./cmd/sim -update
+func TestRunGolden(t *testing.T) {
+	code, out, errOut := runSim(t, "run", "--quiet", smallScript)
+	if code != exitOK || errOut != "" {
+		t.Fatalf("exit %d, stderr %q", code, errOut)
+	}
+	path := filepath.Join("testdata", "run_small.golden")
+	if *update {
+		if err := os.WriteFile(path, []byte(out), 0o644); err != nil {
+			t.Fatal(err)
+		}
+	}
+	want, err := os.ReadFile(path)
+	if err != nil {
+		t.Fatalf("%v (run with -update to create it)", err)
+	}
+	if out != string(want) {
+		t.Errorf("sim run %s differs from %s:\n--- got\n%s\n--- want\n%s", smallScript, path, out, want)
+	}
+	for _, s := range []string{"Load case 1 of 2: port stay", "Load case 2 of 2: cold discharge",
+		`plant "Invented Test Coaster", solved at testdata/run/small.lua:20`, report.Caution} {
+		if !strings.Contains(out, s) {
+			t.Errorf("the report does not say %q", s)
+		}
+	}
+}
+
+// TestRunForms checks that --json and --csv give the same cases as the
+// table, in the forms for programs, and that the script's print goes to
+// the log on stderr.
+func TestRunForms(t *testing.T) {
+	code, out, errOut := runSim(t, "run", "--json", smallScript)
+	if code != exitOK {
+		t.Fatalf("--json: exit %d, stderr %q", code, errOut)
+	}
+	var doc struct {
+		Schema  int    `json:"schema"`
+		Caution string `json:"caution"`
+		Plant   struct {
+			Name string `json:"name"`
+		} `json:"plant"`
+		Cases []struct {
+			Name          string `json:"name"`
+			Source        string `json:"source"`
+			BoilersFiring int    `json:"boilers_firing"`
+		} `json:"cases"`
+	}
+	if err := json.Unmarshal([]byte(out), &doc); err != nil {
+		t.Fatalf("--json: %v\n%s", err, out)
+	}
+	if doc.Schema != 1 || doc.Caution != cautionLine || doc.Plant.Name != "Invented Test Coaster" || len(doc.Cases) != 2 ||
+		doc.Cases[0].Source != "testdata/run/small.lua:20" || doc.Cases[1].BoilersFiring != 2 {
+		t.Errorf("--json: %+v", doc)
+	}
+	// The log: one JSON record at info level with the script position.
+	if !strings.Contains(errOut, `"level":"info"`) || !strings.Contains(errOut, `"pos":"testdata/run/small.lua:21"`) ||
+		!strings.Contains(errOut, "port stay fuel") {
+		t.Errorf("the script's print is not logged on stderr: %q", errOut)
+	}
+
+	code, out, errOut = runSim(t, "run", "--csv", "--quiet", smallScript, smallScript)
+	if code != exitOK {
+		t.Fatalf("--csv: exit %d, stderr %q", code, errOut)
+	}
+	rows, err := csv.NewReader(strings.NewReader(out)).ReadAll()
+	if err != nil || len(rows) != 5 || rows[0][0] != "case" || rows[1][0] != "port stay" || rows[4][0] != "cold discharge" {
+		t.Errorf("--csv of two scripts: %v rows %q", err, rows)
+	}
+	if errOut != cautionLine+"\n" {
+		t.Errorf("--csv must put the caution on stderr; got %q", errOut)
+	}
+}
+
+// TestRunOutputFiles checks -o and --plot.
+func TestRunOutputFiles(t *testing.T) {
+	dir := t.TempDir()
+	_, table, _ := runSim(t, "run", "--quiet", smallScript)
+	outFile := filepath.Join(dir, "report.txt")
+	svg := filepath.Join(dir, "demand.svg")
+	png := filepath.Join(dir, "demand.png")
+	// Flags after the script are read too.
+	code, out, errOut := runSim(t, "run", "--quiet", smallScript, "-o", outFile, "--plot", svg)
+	if code != exitOK || out != "" || errOut != "" {
+		t.Fatalf("-o: exit %d, stdout %q, stderr %q", code, out, errOut)
+	}
+	got, err := os.ReadFile(outFile)
+	if err != nil || string(got) != table {
+		t.Errorf("-o wrote %q (%v); want the table printed without -o", got, err)
+	}
+	b, err := os.ReadFile(svg)
+	if err != nil || !bytes.Contains(b, []byte("<svg")) {
+		t.Fatalf("--plot %s: %v, %d bytes", svg, err, len(b))
+	}
+	for _, s := range []string{"port stay", "cold discharge", "fuel heating", "galley", "steam, kg/h"} {
+		if !bytes.Contains(b, []byte(s)) {
+			t.Errorf("the SVG does not contain %q", s)
+		}
+	}
+	code, _, errOut = runSim(t, "run", "--quiet", "--json", "--plot", png, smallScript)
+	b, err = os.ReadFile(png)
+	if code != exitOK || err != nil || !bytes.HasPrefix(b, []byte("\x89PNG")) {
+		t.Errorf("--plot %s: exit %d, %q, %v, %d bytes", png, code, errOut, err, len(b))
+	}
+	// A folder that does not exist: a failure, one line.
+	code, _, errOut = runSim(t, "run", "--quiet", "-o", filepath.Join(dir, "no", "such", "r.txt"), smallScript)
+	if code != exitFail || strings.Count(errOut, "\n") != 1 || !strings.HasPrefix(errOut, "sim run: -o: ") {
+		t.Errorf("-o into a missing folder: exit %d, stderr %q", code, errOut)
+	}
+}
+
+// TestRunExitCodes checks usage errors (2), failures (1, with the script
+// position on one line) and success (0) of run and check.
+func TestRunExitCodes(t *testing.T) {
+	cases := []struct {
+		args   []string
+		code   int
+		stderr string // the whole of stderr, or its first line for usage errors
+		stdout string // a part of stdout; "" means stdout must be empty
+	}{
+		{[]string{"run"}, exitUsage, "sim run: no script given: name one or more Lua load-case scripts, such as: sim run tanker.lua", ""},
+		{[]string{"check"}, exitUsage, "sim check: no script given: name one or more Lua load-case scripts, such as: sim check tanker.lua", ""},
+		{[]string{"run", "--json", "--csv", smallScript}, exitUsage, "sim run: --json and --csv given together: choose one form of the report", ""},
+		{[]string{"run", "-v", "--quiet", smallScript}, exitUsage, "sim run: -v and --quiet given together: choose one", ""},
+		{[]string{"run", "--plot", "x.pdf", smallScript}, exitUsage, `sim run: --plot: plot file "x.pdf": the name must end in .svg or .png, which sets the format`, ""},
+		{[]string{"run", "--timeout", "0s", smallScript}, exitUsage, "sim run: --timeout 0s: the time limit must be above zero and at most 24h0m0s, such as 10s or 2m", ""},
+		{[]string{"run", "--timeout", "10", smallScript}, exitUsage, `sim run: invalid value "10" for flag -timeout: a duration with its unit is expected, such as 10s, 2m or 1h30m`, ""},
+		{[]string{"check", "--json", smallScript}, exitUsage, "sim check: flag provided but not defined: -json", ""},
+		{[]string{"run", "--quiet", "testdata/run/nope.lua"}, exitFail, "sim run: scripting: openat nope.lua: no such file or directory\n", ""},
+		{[]string{"run", "--quiet", failScript}, exitFail, "testdata/run/fail_check.lua:9: assertion failed: harbour fuel above 1 t/h\n", "Load case 1 of 1: harbour"},
+		{[]string{"run", "--quiet", endless, "--timeout", "200ms"}, exitFail, "testdata/run/endless.lua:2: script stopped: it ran longer than its time limit of 200ms (an endless loop?)\n", ""},
+		{[]string{"check", "--quiet", smallScript, failScript}, exitOK, "",
+			"testdata/run/small.lua: ok: 1 plant, 2 load cases\ntestdata/run/fail_check.lua: ok: 1 plant, 1 load case\n"},
+	}
+	for _, c := range cases {
+		code, out, errOut := runSim(t, c.args...)
+		gotErr := errOut
+		if c.code == exitUsage {
+			gotErr, _, _ = strings.Cut(errOut, "\n")
+		}
+		if code != c.code || gotErr != c.stderr {
+			t.Errorf("sim %q: exit %d, stderr:\n%s\nwant exit %d and stderr:\n%s", c.args, code, errOut, c.code, c.stderr)
+		}
+		if (c.stdout == "" && out != "") || !strings.Contains(out, c.stdout) {
+			t.Errorf("sim %q: stdout %q, want it to contain %q", c.args, out, c.stdout)
+		}
+		if c.code == exitUsage && !strings.Contains(errOut, "\nusage: sim "+c.args[0]+" ") {
+			t.Errorf("sim %q: a usage error must show the usage; got %q", c.args, errOut)
+		}
+	}
+}
+
+// TestScriptErrors checks that every error of a script is listed on its
+// own line as "file:line: message", by run and by check, and that check
+// goes on to the other scripts. The wording is the scripting package's and
+// is tested there; here only the lines and positions are.
+func TestScriptErrors(t *testing.T) {
+	for _, args := range [][]string{
+		{"run", "--quiet", errScript},
+		{"check", "--quiet", smallScript, errScript, "testdata/run/nope.lua"},
+	} {
+		code, out, errOut := runSim(t, args...)
+		if code != exitFail {
+			t.Errorf("sim %q: exit %d, want 1", args, code)
+		}
+		lines := strings.Split(strings.TrimSuffix(errOut, "\n"), "\n")
+		for _, l := range lines {
+			if !strings.HasPrefix(l, errScript+":") && !strings.HasPrefix(l, "sim check: ") {
+				t.Errorf("sim %q: line %q is not \"file:line: message\"", args, l)
+			}
+		}
+		for _, want := range []string{
+			errScript + `:3: makeup "makeup": T needs a unit`,
+			errScript + `:4: feed tank "hotwell": unknown key 'heat_los'`,
+			errScript + `:5: boiler "AB1": drum: pressure '7 bar' is ambiguous`,
+		} {
+			if !strings.Contains(errOut, "\n"+want) && !strings.HasPrefix(errOut, want) {
+				t.Errorf("sim %q: stderr lacks a line starting %q:\n%s", args, want, errOut)
+			}
+		}
+		if args[0] == "check" {
+			if out != "testdata/run/small.lua: ok: 1 plant, 2 load cases\n" {
+				t.Errorf("sim check: stdout %q", out)
+			}
+			if !strings.HasSuffix(errOut, "\nsim check: scripting: openat nope.lua: no such file or directory\n") {
+				t.Errorf("sim check: the missing file is not reported last: %q", errOut)
+			}
+		} else if out != "" {
+			t.Errorf("sim run with errors printed a report: %q", out)
+		}
+	}
+}
+
+// TestRunHelp checks that the help of run and check names every flag and
+// carries the caution.
+func TestRunHelp(t *testing.T) {
+	for _, c := range []struct {
+		name  string
+		wants []string
+	}{
+		{"run", []string{"usage: sim run [--json | --csv]", "--json", "--csv", "--plot FILE", "--o FILE", "--timeout DURATION",
+			"--v", "--quiet", "sim run --plot demand.svg tanker.lua", "Caution: boilers can kill"}},
+		{"check", []string{"usage: sim check [--timeout DURATION]", "--timeout DURATION", "--v", "--quiet",
+			"sim check tanker.lua", "Caution: boilers can kill"}},
+	} {
+		code, out, _ := runSim(t, "help", c.name)
+		if code != exitOK {
+			t.Errorf("sim help %s: exit %d", c.name, code)
+		}
+		for _, s := range c.wants {
+			if !strings.Contains(out, s) {
+				t.Errorf("'sim help %s' does not mention %q", c.name, s)
+			}
+		}
+		if _, out2, _ := runSim(t, c.name, "--help"); out2 != out {
+			t.Errorf("'sim %s --help' differs from 'sim help %s'", c.name, c.name)
+		}
+	}
+	if cautionLine != report.Caution {
+		t.Errorf("the report's caution differs from the command's:\n%s\n%s", report.Caution, cautionLine)
+	}
+}

@@ -1,0 +1,2 @@
+-- Never ends (for the command's timeout test).
+while true do end
