@@ -49,8 +49,8 @@
 // PX or TX). No function returns NaN with a nil error and none extrapolates
 // quietly, with one exception: a (p,h) or (p,s) pair that falls between the
 // region 2 and region 5 values at 1073.15 K (the two equations differ there
-// by a small amount within IF97's boundary consistency) is placed in region
-// 2 a fraction of a kelvin above 1073.15 K.
+// by up to about 0.1 kJ/kg in h, within IF97's boundary consistency) is
+// placed in region 2 at most a few hundredths of a kelvin above 1073.15 K.
 //
 // Property values feed the plant's planning and audit estimates; they are
 // not a substitute for the makers' manuals, class and flag rules, or

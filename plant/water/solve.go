@@ -408,7 +408,7 @@ func solveUpper(fn string, k kind, p, f, lo float64) (solution, error) {
 	}
 	// Between the region 2 and region 5 values at 1073.15 K (the two
 	// equations differ there within IF97's boundary consistency): region
-	// 2, extended by a fraction of a kelvin.
+	// 2, extended by at most a few hundredths of a kelvin.
 	t, ok := refine(k, Region2, p, f, tMid)
 	if !ok {
 		return sol, &ConvergenceError{Func: fn, What: "region 2 temperature from " + q, P: p, Arg: f}
