@@ -1,6 +1,72 @@
 // Package plant describes a ship's steam plant as units joined by lines,
 // assembles its mass and energy balance as one nonlinear system, hands it to
-// the solver and returns a result whose balances are checked independently.
+// the Newton solver (package solver), decides which boilers must fire, and
+// returns a result whose balances are checked independently of the
+// residuals.
 //
-// Inside the package every quantity is SI: Pa, K, J/kg, kg/s, W.
+// Inside the package every quantity is SI: Pa, K, J/kg, kg/s, W. Water and
+// steam properties come from IAPWS-IF97 (plant/water).
+//
+// # The graph
+//
+// A plant is built with New, Add (one unit at a time) and Connect (an
+// outlet port to an inlet port). A water or steam line carries three
+// unknowns: mass flow, pressure and specific enthalpy. Each unit sets the
+// pressure and enthalpy of its outlet lines and adds one equation for each
+// mass flow it determines, and may add unknowns of its own (a boiler's fuel
+// flow, a feed tank's vented steam). Check reports every fault at once, by
+// unit and line and script position: ports left open or connected twice,
+// unknown ports, media that do not match, parameters out of range, and
+// degrees of freedom that do not balance (by the solver's structural
+// diagnosis, which names the equations and unknowns concerned).
+//
+// # Units
+//
+//   - MakeUp: fresh water at a set temperature; its flow is what the plant
+//     loses.
+//   - FeedTank (hotwell, cascade tank): mixing, heat loss, optional steam
+//     heating to a set temperature, venting of flash steam when the mix
+//     would boil.
+//   - FeedPump: discharge at drum pressure plus a margin; enthalpy rise
+//     v·Δp/η (water taken as incompressible across the pump).
+//   - Boiler (oil-fired): drum pressure, dryness, blowdown (fraction or TDS
+//     ratio), fuel from the energy balance with an EfficiencyModel, MCR,
+//     burner turndown and cycling, burner and forced-draught fan.
+//   - EfficiencyTable (maker's test: efficiency against load),
+//     FlueGasTable (exit temperature and O2 against load, heat-loss
+//     method) and FurnaceTubes (furnace radiation and smoke-tube convection
+//     from geometry, heat-loss method at the computed exit temperature).
+//   - Economiser: feed water heated by the boiler's flue gas, counterflow
+//     ε-NTU.
+//   - ExhaustGasEconomiser: steam from the main engine's exhaust by an
+//     evaporator at saturation, sized by UA or a design pinch, with an
+//     optional bypass damper holding a minimum gas temperature.
+//   - Header (steam header or any junction, with heat loss condensing
+//     steam), ReducingValve (isenthalpic), Consumer (a duty, a steam flow,
+//     a duty model evaluated per case, or a duty per kg of a boiler's fuel;
+//     subcooling, return fraction, drain cooler), Turbine (isentropic and
+//     mechanical efficiency), Condenser and dump condenser.
+//
+// # Which boilers fire
+//
+// Exhaust-gas economisers first: if the plant has a dump condenser and the
+// economisers cover the demand, no boiler fires and the surplus is dumped.
+// Otherwise the boilers fire in the order they were declared: one while
+// the demand is at most Options.UsableFraction of its MCR, more above that,
+// sharing by Options.Sharing. A boiler below its burner minimum (MCR /
+// turndown) cycles and its fuel is the time average. Demand beyond every
+// boiler's MCR is solved and reported with CanCarry false and the
+// shortfall, not as a failure. A case may force which boilers fire.
+//
+// # Results
+//
+// CaseResult holds each line's state, each unit's figures, each boiler's
+// load, fuel, efficiency and basis, the totals, the margin to the next
+// boiler, the warnings, and the mass and energy balance closures computed
+// from the solved lines and the units' boundary flows. JSON gives the
+// documented schema (keys carry their units; see SchemaVersion).
+//
+// Results are planning and audit estimates, not a substitute for the
+// makers' manuals, class and flag rules, or licensed practice; local codes
+// come first.
 package plant
