@@ -41,8 +41,7 @@ type command struct {
 	Run func(ctx context.Context, e env, args []string) error
 }
 
-// commands returns the command table, in the order help lists it. The
-// load-case runner ("run") joins it when it is built.
+// commands returns the command table, in the order help lists it.
 func commands() []*command {
 	return []*command{
 		runCommand(),
@@ -76,10 +75,7 @@ func usagef(format string, args ...any) error {
 func run(ctx context.Context, args []string, stdout, stderr io.Writer) int {
 	e := env{stdout: stdout, stderr: stderr}
 	if len(args) == 0 {
-		// When the built-in demo lands, no arguments will run it; until
-		// then the help says what there is.
-		writeMainHelp(stdout)
-		return exitOK
+		return runDefault(ctx, e) // the built-in demo, or the help
 	}
 	name := args[0]
 	switch name {

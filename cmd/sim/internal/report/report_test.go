@@ -409,8 +409,7 @@ var solverKeys = map[string]bool{"iterations": true}
 // value. Strings, booleans and nulls must be equal, lists of the same
 // length, and numbers equal to 1e-9 relative (they are rounded to six
 // digits by plant.CaseResult.JSON); the solver keys are skipped and the
-// noise keys need only both be below
-// 1e-9.
+// noise keys need only both be below 1e-9.
 func sameJSON(got, want string) error {
 	decode := func(s string) (any, error) {
 		d := json.NewDecoder(strings.NewReader(s))

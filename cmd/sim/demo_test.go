@@ -1,0 +1,37 @@
+package main
+
+import (
+	"bytes"
+	"context"
+	"os"
+	"strings"
+	"testing"
+	"testing/fstest"
+)
+
+// TestDemoRunner runs a script from an in-memory file system the way the
+// built-in demo runs its embedded one: the report, headed by the demo's
+// line, with the script's path in the positions.
+func TestDemoRunner(t *testing.T) {
+	src, err := os.ReadFile(smallScript)
+	if err != nil {
+		t.Fatal(err)
+	}
+	fsys := fstest.MapFS{"demo/coaster.lua": {Data: src}}
+	var out, errw bytes.Buffer
+	if err := runDemo(context.Background(), env{stdout: &out, stderr: &errw}, fsys, "demo/coaster.lua"); err != nil {
+		t.Fatalf("demo: %v\n%s", err, errw.String())
+	}
+	got := out.String()
+	if !strings.HasPrefix(got, demoFirstLine+"\n\nLoad case 1 of 2: port stay\n") ||
+		!strings.Contains(got, "solved at demo/coaster.lua:20") || !strings.HasSuffix(got, cautionLine+"\n") {
+		t.Errorf("demo report:\n%s", got)
+	}
+	if errw.Len() != 0 {
+		t.Errorf("the demo logged on stderr: %q", errw.String())
+	}
+	// A missing script is a failure.
+	if err := runDemo(context.Background(), env{stdout: &out, stderr: &errw}, fsys, "demo/none.lua"); err == nil {
+		t.Error("a missing demo script ran")
+	}
+}
