@@ -41,7 +41,8 @@
 // # Range of validity
 //
 // 273.15 K <= T <= 1073.15 K for 0 < p <= 100 MPa, and 1073.15 K < T <=
-// 2273.15 K for 0 < p <= 50 MPa. The saturation line runs from 273.15 K
+// 2273.15 K for 0 < p <= 50 MPa (in practice p >= 1e-30 Pa: far smaller
+// pressures would overflow the specific volume). The saturation line runs from 273.15 K
 // (611.213 Pa) to the critical point (647.096 K, 22.064 MPa). Inputs
 // outside are an error of type *RangeError that names the bound crossed;
 // NaN and infinite inputs are an *InputError; a (p,T) pair on the
@@ -83,8 +84,10 @@
 //
 // # Speed
 //
-// Every polynomial sum is straight-line code generated from the coefficient
-// tables (poly_gen.go, kept in step by TestGeneratedPolynomials): each
+// Every polynomial sum of regions 1 to 3 and of the backward equations is
+// straight-line code generated from the coefficient tables (poly_gen.go,
+// kept in step by TestGeneratedPolynomials; region 5's twelve terms use a
+// small power table filled by multiplication): each
 // needed power of the reduced variables is one multiplication of two
 // powers already at hand (chains of about log2 of the exponent), terms are
 // grouped by their power of the first variable, and math.Pow is never

@@ -121,6 +121,10 @@ func checkP(fn string, p float64) error {
 		return &RangeError{Func: fn, Quantity: "pressure", Value: p, Bound: "below",
 			Limit: "the IF97 limit of 0 Pa (an absolute pressure above zero is expected)", LimitSI: 0}
 	}
+	if p < pTiny {
+		return &RangeError{Func: fn, Quantity: "pressure", Value: p, Bound: "below",
+			Limit: "1e-30 Pa, the smallest pressure this package handles (IF97's range is p > 0; far smaller values overflow the specific volume)", LimitSI: pTiny}
+	}
 	if p > pMax {
 		return &RangeError{Func: fn, Quantity: "pressure", Value: p, Bound: "above",
 			Limit: "the IF97 limit of 100 MPa", LimitSI: pMax}

@@ -8,11 +8,11 @@ const (
 	tCrit   = 647.096  // critical temperature, K, Eq. 2
 	pCrit   = 22.064e6 // critical pressure, Pa, Eq. 3
 	rhoCrit = 322.0    // critical density, kg/m3, Eq. 4
-	tTriple = 273.16   // triple-point temperature, K
 	tMin    = 273.15   // lowest temperature of IF97, K
 	tMid    = 1073.15  // upper temperature of regions 1-3, lower of region 5, K
 	tMax    = 2273.15  // highest temperature of region 5, K
 	pMax    = 100e6    // highest pressure of regions 1-3, Pa
+	pTiny   = 1e-30    // smallest pressure handled, Pa (IF97: p > 0)
 	pMax5   = 50e6     // highest pressure of region 5, Pa
 	t13     = 623.15   // boundary temperature between regions 1 and 3, K
 	t23max  = 863.15   // B23 temperature at 100 MPa, K

@@ -159,6 +159,7 @@ func TestRangeErrors(t *testing.T) {
 		{"PT T above 2273.15 K", pt(1e6, 2500), "range", "temperature 2500 K above the IF97 limit of 2273.15 K (2000 °C)"},
 		{"PT p zero", pt(0, 300), "range", "pressure 0 Pa below the IF97 limit of 0 Pa"},
 		{"PT p negative", pt(-5e5, 300), "range", "pressure -500 kPa below the IF97 limit of 0 Pa"},
+		{"PT p far below any vacuum", pt(1e-320, 300), "range", "below 1e-30 Pa, the smallest pressure this package handles"},
 		{"PT p NaN", pt(nan, 300), "input", "pressure is NaN"},
 		{"PT T Inf", pt(1e6, inf), "input", "temperature is +Inf"},
 		{"PT on the saturation line", pt(1e6, tsat4(1e6)), "sat", "saturation line"},

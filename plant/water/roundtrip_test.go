@@ -166,6 +166,8 @@ func FuzzNoNaN(f *testing.F) {
 	f.Add(611.0, 8000.0)
 	f.Add(100e6, 0.5)
 	f.Add(-1.0, math.Inf(1))
+	f.Add(1e-320, 300.0)
+	f.Add(1e-30, 2.6e6)
 	f.Fuzz(func(t *testing.T, a, b float64) {
 		check := func(name string, st State, err error) {
 			if err == nil && !allFinite(st) {
