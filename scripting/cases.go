@@ -58,6 +58,12 @@ var modelKeys = []setKey{
 
 func (r *runner) keysFor(ph *plantHandle, unit string) []setKey {
 	kind := ph.kinds[unit]
+	switch kind {
+	case "cargo_pump":
+		kind = "turbine"
+	case "steam_tracing", "fresh_water_generator", "soot_blowing":
+		kind = "consumer" // a duty or steam flow fixed when declared
+	}
 	if k, ok := caseKeys[kind]; ok {
 		return k
 	}
@@ -125,7 +131,7 @@ func (r *runner) luaCase(L *lua.LState) int {
 		if errors.As(err, &se) {
 			r.raise(&Error{Pos: pos, Unit: a.what, Msg: fmt.Sprintf("no balance found (%s): %v", se.Status, se.Err), Err: err})
 		}
-		r.addPlantErr(ph, err, a.what)
+		r.addPlantErrIn(ph, err, a.what, fmt.Sprintf(" (solving %s at %s)", a.what, pos))
 		r.raise(stopRun{})
 	}
 	ph.checked = true

@@ -21,8 +21,11 @@ type plantHandle struct {
 	// broken are units whose table had errors: the plant's own checks of
 	// them would only repeat those errors.
 	broken map[string]bool
-	// badLines are lines already reported by the binding.
+	// badLines are lines already reported by the binding; badEnds the
+	// ports they named (or likely meant), whose "not connected" faults
+	// would repeat the report.
 	badLines map[string]bool
+	badEnds  map[string]bool // "unit\x00port"; port "*" for any
 	pending  []pendingLine
 	nLines   int
 	checked  bool
@@ -150,7 +153,7 @@ func (r *runner) newPlant(name string, pos Pos, opt plant.Options, uopt units.Op
 	p := plant.New(name, opt)
 	p.Pos = plant.Pos{File: pos.File, Line: pos.Line}
 	ph := &plantHandle{p: p, pos: pos, uopt: uopt, kinds: map[string]string{},
-		broken: map[string]bool{}, badLines: map[string]bool{}}
+		broken: map[string]bool{}, badLines: map[string]bool{}, badEnds: map[string]bool{}}
 	r.plants = append(r.plants, ph)
 	r.out.Plants = append(r.out.Plants, p)
 	ud := r.L.NewUserData()
@@ -286,31 +289,37 @@ func (r *runner) unitHandle(name, kind string) lua.LValue {
 // addPlantErr records an error returned by the plant package, fault by
 // fault.
 func (r *runner) addPlantErr(ph *plantHandle, err error, unit string) {
+	r.addPlantErrIn(ph, err, unit, "")
+}
+
+// addPlantErrIn is addPlantErr with a note appended to each message (the
+// case whose solve met the error).
+func (r *runner) addPlantErrIn(ph *plantHandle, err error, unit, note string) {
 	var ge *plant.GraphError
 	if errors.As(err, &ge) {
 		for _, f := range ge.Faults {
-			if ph != nil && (ph.broken[f.Unit] || ph.badLines[f.Line]) {
+			if ph != nil && (ph.broken[f.Unit] || ph.badLines[f.Line] || ph.badEnd(f)) {
 				continue
 			}
 			pos := Pos{File: f.Pos.File, Line: f.Pos.Line}
 			if pos.File == "" && ph != nil {
 				pos = ph.pos
 			}
-			r.errs = append(r.errs, &Error{Pos: pos, Msg: plant.Fault{Unit: f.Unit, Line: f.Line, Msg: f.Msg}.String(), Err: err})
+			r.errs = append(r.errs, &Error{Pos: pos, Msg: plant.Fault{Unit: f.Unit, Line: f.Line, Msg: f.Msg}.String() + note, Err: err})
 		}
 		return
 	}
 	var ue *plant.UnitError
 	if errors.As(err, &ue) {
 		pos := Pos{File: ue.Pos.File, Line: ue.Pos.Line}
-		r.errs = append(r.errs, &Error{Pos: pos, Unit: fmt.Sprintf("%s %q", ue.Kind, ue.Unit), Msg: ue.Err.Error(), Err: err})
+		r.errs = append(r.errs, &Error{Pos: pos, Unit: fmt.Sprintf("%s %q", ue.Kind, ue.Unit), Msg: ue.Err.Error() + note, Err: err})
 		return
 	}
 	pos := r.where()
 	if ph != nil && pos.File == "" {
 		pos = ph.pos
 	}
-	r.errs = append(r.errs, &Error{Pos: pos, Unit: unit, Msg: err.Error(), Err: err})
+	r.errs = append(r.errs, &Error{Pos: pos, Unit: unit, Msg: err.Error() + note, Err: err})
 }
 
 // ---------------------------------------------------------------------------
@@ -607,6 +616,8 @@ func (r *runner) flushLines(ph *plantHandle) {
 				}
 			}
 			ph.badLines[pl.name] = true
+			ph.markEnd(fu, fp, err1 == "")
+			ph.markEnd(tu, tp, err2 == "")
 			// Connect anyway so that the plant does not also report the
 			// units' ports as unconnected.
 		}
@@ -708,4 +719,40 @@ func sortStrings(s []string) {
 			s[j], s[j-1] = s[j-1], s[j]
 		}
 	}
+}
+
+// markEnd remembers an end of a reported line: the unit and port as given
+// when valid, else the unit the name most likely meant.
+func (ph *plantHandle) markEnd(unit, port string, valid bool) {
+	if !valid {
+		if ph.p.Unit(unit) == nil {
+			var names []string
+			for _, u := range ph.p.Units() {
+				names = append(names, u.UnitName())
+			}
+			unit = suggest(unit, names)
+		}
+		port = "*"
+	}
+	if unit != "" {
+		ph.badEnds[unit+"\x00"+port] = true
+	}
+}
+
+// badEnd reports whether f is a "not connected" fault of a port that a
+// reported line named.
+func (ph *plantHandle) badEnd(f plant.Fault) bool {
+	if !strings.Contains(f.Msg, "is not connected") {
+		return false
+	}
+	if ph.badEnds[f.Unit+"\x00*"] {
+		return true
+	}
+	for k := range ph.badEnds {
+		unit, port, _ := strings.Cut(k, "\x00")
+		if unit == f.Unit && strings.Contains(f.Msg, fmt.Sprintf("%q", port)) {
+			return true
+		}
+	}
+	return false
 }

@@ -32,6 +32,7 @@ func TestGoodScripts(t *testing.T) {
 		{"short_form.lua", 1, 1, 5},
 		{"sweep.lua", 4, 1, 8},
 		{"profile.lua", 3, 1, 3},
+		{"loads.lua", 3, 1, 12},
 	}
 	for _, tc := range tests {
 		for _, checkOnly := range []bool{false, true} {
@@ -145,6 +146,13 @@ func TestBadScripts(t *testing.T) {
 			`fuel "HSF0" is not a built-in grade; did you mean "HSFO"?`,
 			at("many_errors.lua", 8) + ` line "bad": from "AB1.stem"`}},
 		{file: "graph_fault.lua", kind: "list", want: []string{at("graph_fault.lua", 3) + ` unit "hotwell": outlet "out" is not connected`}},
+		{file: "loads_errors.lua", kind: "list", want: []string{
+			"3 errors:",
+			at("loads_errors.lua", 1) + ` tank heating "COT 1": boundaries[1].beyond must be "sea", "air" or "space"; got "see"`,
+			`consumer "acc": unknown consumer kind "acommodation"; did you mean "accommodation"?`,
+			`fuel heater "FO heater": flow needs a unit, such as '18 t/h'; got 2.5`}},
+		{file: "loads_no_sea.lua", kind: "list", want: []string{
+			at("loads_no_sea.lua", 1) + ` unit "COT 1": needs the case's sea temperature: give sea = "12 C" in the case (solving case "no sea" at ` + filepath.Join(bad, "loads_no_sea.lua") + ":9)"}},
 		{file: "huge_table.lua", kind: "list", want: []string{at("huge_table.lua", 6) + " boiler: table has more than 1000 entries"}},
 		{file: "include_parent.lua", kind: "list", want: []string{at("include_parent.lua", 1) + ` include("../good/plant_tanker.lua"): '..' is not allowed`}},
 		{file: "read_abs.lua", kind: "list", want: []string{at("read_abs.lua", 1) + ` read_csv("/etc/passwd"): absolute paths are not allowed`}},
@@ -333,5 +341,41 @@ func TestCancelledContext(t *testing.T) {
 	_, err := RunSource(ctx, "c.lua", []byte("while true do end"), nil, Options{})
 	if !errors.Is(err, context.Canceled) {
 		t.Errorf("got %v; want context.Canceled", err)
+	}
+}
+
+// TestCheckModeListsAll checks that check mode reports errors of keys,
+// units, lines and the graph of a script together, in line order.
+func TestCheckModeListsAll(t *testing.T) {
+	src := []byte(`local ship = plant { name = "check" }
+ship:makeup    { name = "makeup", T = "15 C" }
+ship:feed_tank { name = "hotwell", heat_loss = 5 }
+ship:boiler    { name = "AB1", mcr = "5 t/h", drum = "7 bar(g)", fuel = "MGO", efficiency = "85 %" }
+ship:header    { name = "main" }
+ship:line("makeup", "makeup", "hotwell")
+ship:line("steam", "AB1", "mian")
+local r = case(ship, { name = "port", sea = "12 C", air = "5 C" })
+check(r.fuel_kg_h == 1, "not evaluated in check mode")
+`)
+	run, err := RunSource(context.Background(), "c.lua", src, nil, Options{CheckOnly: true})
+	var list ErrorList
+	if !errors.As(err, &list) {
+		t.Fatalf("got %v; want an ErrorList", err)
+	}
+	want := []string{
+		`c.lua:3: feed tank "hotwell": heat_loss needs a unit`,
+		`c.lua:4: unit "AB1": inlet "feed" is not connected`,
+		`c.lua:7: line "steam": to: plant "check" has no unit "mian"; did you mean "main"?`,
+	}
+	if len(list) != len(want) {
+		t.Fatalf("got %d errors; want %d:\n%v", len(list), len(want), err)
+	}
+	for i, w := range want {
+		if !strings.HasPrefix(list[i].Error(), w) {
+			t.Errorf("error %d is\n%s\nwant prefix\n%s", i, list[i], w)
+		}
+	}
+	if len(run.Cases) != 1 || run.Cases[0].Result != nil || run.Checks != 1 {
+		t.Errorf("check mode run: %+v", run)
 	}
 }

@@ -172,16 +172,25 @@ func (r *runner) luaSteamPlant(L *lua.LState) int {
 		var hn string
 		kind := "consumer"
 		b := buildConsumer
-		if k, ok := c.RawGetString("kind").(lua.LString); ok {
-			if lb, ok := r.loadsBuilder(string(k)); ok {
-				kind, b = string(k), lb
+		if k, ok := c.RawGetString("kind").(lua.LString); ok && k != "consumer" {
+			lb, ok := r.loadsBuilder(string(k))
+			if !ok || k == "cargo_pump" {
+				what := "consumer"
+				if n, ok := c.RawGetString("name").(lua.LString); ok {
+					what = fmt.Sprintf("consumer %q", string(n))
+				}
+				msg := unknownKindMsg(string(k))
+				if k == "cargo_pump" {
+					msg = "a cargo pump is a turbine: list it under turbines"
+				}
+				r.errs = append(r.errs, &Error{Pos: pos, Unit: what, Msg: msg})
+				continue
 			}
+			kind, b = string(k), lb
 		}
 		cn := r.addUnit(ph, kind, c, pos, b, func(a *args) {
 			hn = header(a)
-			if k, ok := a.str("kind", false); ok && k != kind {
-				a.errorf(nil, "%s", unknownKindMsg(k))
-			}
+			a.get("kind")
 		})
 		if cn == "" {
 			continue
@@ -194,9 +203,16 @@ func (r *runner) luaSteamPlant(L *lua.LState) int {
 	for _, tt := range turbines {
 		var hn string
 		var cond *lua.LTable
-		tn := r.addUnit(ph, "turbine", tt, pos, buildTurbine, func(a *args) {
+		kind, b := "turbine", buildTurbine
+		if k, ok := tt.RawGetString("kind").(lua.LString); ok && k == "cargo_pump" {
+			kind, b = "cargo_pump", buildCargoPump
+		}
+		tn := r.addUnit(ph, kind, tt, pos, b, func(a *args) {
 			hn = header(a)
 			cond = r.subTable(a, "condenser")
+			if k, ok := a.str("kind", false); ok && k != kind {
+				a.errorf(nil, "kind of a turbine must be \"turbine\" or \"cargo_pump\"; got %q", k)
+			}
 		})
 		if tn == "" {
 			continue
