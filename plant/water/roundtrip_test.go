@@ -283,3 +283,58 @@ func TestNearCritical(t *testing.T) {
 		t.Errorf("PT at the critical point: %+v, %v (want ρ near 322 kg/m3, IAPWS R7-97(2012) Eq. 4)", st, err)
 	}
 }
+
+// TestNoNaNSweep sweeps every constructor over a wide grid, far beyond the
+// range of validity on each side: each result is an error or finite.
+// Source: the package's contract (rule: no NaN without an error).
+func TestNoNaNSweep(t *testing.T) {
+	t.Parallel()
+	var ps []float64
+	for e := -35.0; e <= 9; e += 0.25 {
+		ps = append(ps, math.Pow(10, e))
+	}
+	ps = append(ps, 0, -1, pSatMinT, pSat13, pCrit, pMax, pMax5, math.MaxFloat64, math.SmallestNonzeroFloat64)
+	var ts, hs, ss, xs []float64
+	for v := 0.0; v <= 2500; v += 7.3 {
+		ts = append(ts, v)
+	}
+	ts = append(ts, tMin, tTripleK, t13, tCrit, tMid, tMax)
+	for v := -1e5; v <= 8e6; v += 3.7e4 {
+		hs = append(hs, v)
+	}
+	for v := -500.0; v <= 14e3; v += 61 {
+		ss = append(ss, v)
+	}
+	for v := -0.5; v <= 1.5; v += 0.125 {
+		xs = append(xs, v)
+	}
+	check := func(name string, a, b float64, st State, err error) {
+		if err == nil && !allFinite(st) {
+			t.Errorf("%s(%g, %g) = %+v with nil error", name, a, b, st)
+		}
+	}
+	for _, p := range ps {
+		for _, tk := range ts {
+			st, err := PT(p, tk)
+			check("PT", p, tk, st, err)
+			st, err = TX(tk, 0.5)
+			check("TX", tk, 0.5, st, err)
+		}
+		for _, h := range hs {
+			st, err := PH(p, h)
+			check("PH", p, h, st, err)
+		}
+		for _, s := range ss {
+			st, err := PS(p, s)
+			check("PS", p, s, st, err)
+		}
+		for _, x := range xs {
+			st, err := PX(p, x)
+			check("PX", p, x, st, err)
+		}
+	}
+}
+
+// tTripleK is the triple-point temperature, 273.16 K (IAPWS R7-97(2012)
+// Sec. 1), a point the sweep should include.
+const tTripleK = 273.16
