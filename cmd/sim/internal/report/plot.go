@@ -55,21 +55,39 @@ var (
 	ink         = color.NRGBA{0x22, 0x22, 0x22, 0xff}
 	firingColor = color.NRGBA{0xc0, 0x1c, 0x1c, 0xff}
 	allColor    = color.NRGBA{0x22, 0x22, 0x22, 0xff}
+	egeColor    = color.NRGBA{0x1b, 0x7f, 0x3a, 0xff}
 )
+
+// fill is the colour of the i-th consumer's bars: the palette, then the
+// palette darkened, then lightened, so that neighbours differ.
+func fill(i int) color.NRGBA {
+	c := palette[i%len(palette)]
+	scale := func(v uint8, f float64) uint8 { return uint8(math.Min(255, math.Round(float64(v)*f))) }
+	lift := func(v uint8, f float64) uint8 { return uint8(math.Round(float64(v) + (255-float64(v))*f)) }
+	switch (i / len(palette)) % 3 {
+	case 1:
+		return color.NRGBA{scale(c.R, 0.6), scale(c.G, 0.6), scale(c.B, 0.6), 0xff}
+	case 2:
+		return color.NRGBA{lift(c.R, 0.45), lift(c.G, 0.45), lift(c.B, 0.45), 0xff}
+	}
+	return c
+}
 
 // Series of the chart other than the consumers.
 const (
 	seriesTank   = "feed tank heating"
 	seriesDrains = "header drains"
 	seriesOther  = "other (balance of demand)"
+	seriesEGE    = "steam from exhaust-gas economisers"
 )
 
 // Plot draws the run as a chart in format (SVG or PNG) to w: for each
 // case a bar of the steam demand stacked by consumer (with the feed tank's
 // heating steam and the header drains, and any rest of the demand not
 // taken by a listed consumer), a short red bar at the MCR of the boilers
-// firing and a dashed line with squares at the MCR of all boilers, in
-// kg/h. The legend stands to the right of the chart.
+// firing, a dashed line with squares at the MCR of all boilers and, where
+// there are exhaust-gas economisers, a green triangle at the steam they
+// raise, all in kg/h. The legend stands to the right of the chart.
 func Plot(w io.Writer, format string, cases []Case) error {
 	if len(cases) == 0 {
 		return fmt.Errorf("plot: no load case to draw")
@@ -100,20 +118,25 @@ func Plot(w io.Writer, format string, cases []Case) error {
 	legend.Top, legend.Left = true, true
 	barW := vg.Points(math.Max(12, math.Min(48, 360/float64(len(cases)))))
 	var below *plotter.BarChart
+	bars := make([]*plotter.BarChart, len(order))
 	for i, name := range order {
 		bc, err := plotter.NewBarChart(series[name], barW)
 		if err != nil {
 			return fmt.Errorf("plot: %s: %w", name, err)
 		}
-		bc.Color = palette[i%len(palette)]
+		bc.Color = fill(i)
 		bc.LineStyle.Width = vg.Points(0.5)
 		bc.LineStyle.Color = color.White
 		if below != nil {
 			bc.StackOn(below)
 		}
 		below = bc
+		bars[i] = bc
 		p.Add(bc)
-		legend.Add(name, bc)
+	}
+	// The legend lists the bars from the top of the stack down, as drawn.
+	for i := len(order) - 1; i >= 0; i-- {
+		legend.Add(order[i], bars[i])
 	}
 
 	// The capacity: the firing boilers' MCR as a short bar over each case,
@@ -152,6 +175,28 @@ func Plot(w io.Writer, format string, cases []Case) error {
 	p.Add(all, pts)
 	legend.Add("MCR of the boilers firing", firing)
 	legend.Add("MCR of all boilers", all, pts)
+	extra := []string{"MCR of the boilers firing", "MCR of all boilers"}
+
+	// The steam of the exhaust-gas economisers, where there is any: it
+	// takes its share of the demand off the boilers.
+	egePts := make(plotter.XYs, 0, len(cases))
+	for i, c := range cases {
+		if m := c.Result.EGESteamKgS * kgh; m > 0.5 {
+			egePts = append(egePts, plotter.XY{X: float64(i), Y: m})
+		}
+	}
+	if len(egePts) > 0 {
+		sc, err := plotter.NewScatter(egePts)
+		if err != nil {
+			return fmt.Errorf("plot: exhaust-gas economiser steam: %w", err)
+		}
+		sc.Shape = draw.PyramidGlyph{}
+		sc.Color = egeColor
+		sc.Radius = vg.Points(4.5)
+		p.Add(sc)
+		legend.Add(seriesEGE, sc)
+		extra = append(extra, seriesEGE)
+	}
 	p.Y.Min = 0
 	if p.Y.Max > 0 {
 		p.Y.Max *= 1.08
@@ -167,7 +212,7 @@ func Plot(w io.Writer, format string, cases []Case) error {
 
 	// Size: wider with more cases; the legend takes a strip on the right.
 	legW := vg.Length(0)
-	for _, n := range append(order, "MCR of the boilers firing", "MCR of all boilers") {
+	for _, n := range append(order, extra...) {
 		if wd := legend.TextStyle.Width(n); wd > legW {
 			legW = wd
 		}

@@ -361,6 +361,11 @@ func TestPlot(t *testing.T) {
 	if !bytes.HasPrefix(png.Bytes(), []byte("\x89PNG\r\n\x1a\n")) || png.Len() < 1000 {
 		t.Errorf("not a PNG of any size: %d bytes", png.Len())
 	}
+	svg.Reset()
+	must(t, Plot(&svg, SVG, egeCases(t)))
+	if !strings.Contains(svg.String(), "steam from exhaust-gas economisers") {
+		t.Error("the chart of a plant with an economiser does not show its steam")
+	}
 	if err := Plot(&png, "pdf", cases); err == nil {
 		t.Error("format pdf accepted")
 	}
@@ -377,6 +382,20 @@ func TestFormatOf(t *testing.T) {
 		if got != c.want || (err == nil) != (c.want != "") {
 			t.Errorf("FormatOf(%q) = %q, %v; want %q", c.name, got, err, c.want)
 		}
+	}
+}
+
+// TestFill checks that the bar colours do not repeat over three rounds of
+// the palette.
+func TestFill(t *testing.T) {
+	seen := map[[3]uint8]int{}
+	for i := range 3 * len(palette) {
+		c := fill(i)
+		k := [3]uint8{c.R, c.G, c.B}
+		if j, ok := seen[k]; ok {
+			t.Errorf("fill(%d) = fill(%d) = %v", i, j, c)
+		}
+		seen[k] = i
 	}
 }
 
