@@ -36,7 +36,7 @@
 //	"source"  where the script solved it, "file:line" ("" when built in Go)
 //
 // followed by, in this order (every key names its unit; SI unless the key
-// says kg_h, kW or t_per_day):
+// says kg_h, kW, pct or t_per_day):
 //
 //	name                    the case's name
 //	converged               the solver brought the balance to its tolerance
@@ -50,9 +50,9 @@
 //	shortfall_kg_h          demand beyond the boilers' MCR, kg/h
 //	margin_kg_h             steam the firing boilers can add before the
 //	                        next boiler must fire (with all firing: before
-//	                        their MCR), kg/h
+//	                        their MCR; with none: the steam dumped), kg/h
 //	steam_demand_kg_h       steam taken by the plant, kg/h
-//	steam_production_kg_h   steam raised by the boilers, kg/h
+//	steam_production_kg_h   steam raised by boilers and economisers, kg/h
 //	dumped_kg_h             steam sent to a dump condenser, kg/h
 //	fuel_kg_h, fuel_t_per_day   fuel burnt, kg/h and t/day
 //	co2_t_per_day           CO2 from the fuel, t/day
@@ -63,13 +63,26 @@
 //	                        included, kg/h
 //	feed_tank_T_K           feed tank temperature, K
 //	electric_kW             electrical load of pumps and fans, kW
-//	balance                 {"mass_rel", "energy_rel"}: relative closures
-//	                        of the mass and energy balances
+//	balance                 {mass_rel, energy_rel}: relative closures of
+//	                        the mass and energy balances
+//	ege_steam_kg_h          steam raised by exhaust-gas economisers, kg/h
+//	ege_fuel_saved_kg_h     boiler fuel the economisers save against the
+//	                        same case without them, kg/h
 //	boilers                 [{name, firing, cycling, on_fraction,
 //	                        load_fraction, mcr_kg_h, steam_kg_h, fuel_kg_h,
 //	                        efficiency, efficiency_basis, fuel,
 //	                        fuel_lhv_J_per_kg, drum_p_Pa, feed_T_K,
-//	                        steam_dryness, blowdown_kg_h, heat_kW}]
+//	                        steam_dryness, blowdown_kg_h, heat_kW,
+//	                        flue_gas_exit_T_K, excess_air, losses,
+//	                        fan_electric_kW}]: the last four from a
+//	                        combustion model, null (0 for the fan) with a
+//	                        plain efficiency table; losses is {basis,
+//	                        dry_gas_pct, moisture_pct, radiation_pct,
+//	                        unburnt_pct, credits_pct, total_pct}
+//	exhaust_gas_economisers [{name, in_service, steam_kg_h, duty_kW,
+//	                        gas_kg_s, gas_in_T_K, gas_out_T_K, pinch_K,
+//	                        bypass_fraction, below_min_gas_T,
+//	                        fuel_saved_kg_h}]
 //	consumers               [{name, kind, duty_kW (shaft power for a
 //	                        turbine), steam_kg_h, condensate_return_kg_h,
 //	                        condensate_lost_kg_h, drain_cooler_kW,

@@ -10,6 +10,7 @@ import (
 	"math"
 	"os"
 	"path/filepath"
+	"regexp"
 	"strconv"
 	"strings"
 	"testing"
@@ -519,6 +520,44 @@ func TestEGETable(t *testing.T) {
 	} {
 		if !strings.Contains(out, s) {
 			t.Errorf("the table does not say %q", s)
+		}
+	}
+}
+
+// TestSchemaDocumented keeps the schema in the package doc in step with
+// the JSON: every key the renderer writes (in the envelope, the cases and
+// their boilers, economisers, consumers, units and lines) must be named in
+// doc.go. The keys inside "inputs" and the figures' own keys are data,
+// not schema.
+func TestSchemaDocumented(t *testing.T) {
+	src, err := os.ReadFile("doc.go")
+	must(t, err)
+	doc := string(src)
+	var b bytes.Buffer
+	must(t, JSON(&b, append(demoCases(t), egeCases(t)...)))
+	var v any
+	must(t, json.Unmarshal(b.Bytes(), &v))
+	keys := map[string]bool{}
+	var walk func(v any)
+	walk = func(v any) {
+		switch v := v.(type) {
+		case map[string]any:
+			for k, x := range v {
+				keys[k] = true
+				if k != "inputs" {
+					walk(x)
+				}
+			}
+		case []any:
+			for _, x := range v {
+				walk(x)
+			}
+		}
+	}
+	walk(v)
+	for k := range keys {
+		if !regexp.MustCompile(`\b` + regexp.QuoteMeta(k) + `\b`).MatchString(doc) {
+			t.Errorf("JSON key %q is not documented in doc.go", k)
 		}
 	}
 }
