@@ -2,6 +2,7 @@ package main
 
 import (
 	"bytes"
+	"context"
 	"encoding/csv"
 	"encoding/json"
 	"os"
@@ -241,5 +242,17 @@ func TestRunHelp(t *testing.T) {
 	}
 	if cautionLine != report.Caution {
 		t.Errorf("the report's caution differs from the command's:\n%s\n%s", report.Caution, cautionLine)
+	}
+}
+
+// TestRunCancelled checks that a cancelled run stops with exit 1, one
+// line on stderr and no report.
+func TestRunCancelled(t *testing.T) {
+	ctx, cancel := context.WithCancel(context.Background())
+	cancel()
+	var out, errw bytes.Buffer
+	code := run(ctx, []string{"run", "--quiet", smallScript}, &out, &errw)
+	if code != exitFail || out.Len() != 0 || strings.Count(errw.String(), "\n") != 1 || !strings.HasPrefix(errw.String(), "sim run: ") {
+		t.Errorf("cancelled: exit %d, stdout %q, stderr %q", code, out.String(), errw.String())
 	}
 }
