@@ -19,6 +19,9 @@ type setKey struct {
 	key, param string
 	dim        units.Dimension // zero: see how
 	how        int
+	// model, when set, is a parameter of a loads model rather than of
+	// the plant: it returns a pointer to the field to set for the case.
+	model func(u plant.Unit) *float64
 }
 
 const (
@@ -56,6 +59,37 @@ var modelKeys = []setKey{
 	{key: "off", param: "off", how: setBool},
 }
 
+// loadsKeys are the case keys of the loads models besides modelKeys.
+var loadsKeys = map[string][]setKey{
+	"tank_heating": {
+		{key: "T", dim: units.Temperature, model: func(u plant.Unit) *float64 { return &tankOf(u).t.To }},
+		{key: "to", dim: units.Temperature, model: func(u plant.Unit) *float64 { return &tankOf(u).t.To }},
+		{key: "from", dim: units.Temperature, model: func(u plant.Unit) *float64 { return &tankOf(u).t.From }},
+		{key: "duration", dim: units.Time, model: func(u plant.Unit) *float64 { return &tankOf(u).t.Duration }},
+	},
+	"tank_cleaning": {
+		{key: "flow", dim: units.MassFlow, model: func(u plant.Unit) *float64 { return &cleaningOf(u).t.Flow }},
+		{key: "outlet_T", dim: units.Temperature, model: func(u plant.Unit) *float64 { return &cleaningOf(u).t.OutletT }},
+	},
+	"accommodation": {
+		{key: "inside_T", dim: units.Temperature, model: func(u plant.Unit) *float64 { return &accommodationOf(u).a.InsideT }},
+	},
+}
+
+func tankOf(u plant.Unit) *tankModel { return u.(*plant.Consumer).Model.(*tankModel) }
+func cleaningOf(u plant.Unit) *cleaningModel {
+	return u.(*plant.Consumer).Model.(*cleaningModel)
+}
+func accommodationOf(u plant.Unit) *accommodationModel {
+	return u.(*plant.Consumer).Model.(*accommodationModel)
+}
+
+// modelSetting is a case's value for a field of a loads model.
+type modelSetting struct {
+	ptr *float64
+	v   float64
+}
+
 func (r *runner) keysFor(ph *plantHandle, unit string) []setKey {
 	kind := ph.kinds[unit]
 	switch kind {
@@ -67,7 +101,10 @@ func (r *runner) keysFor(ph *plantHandle, unit string) []setKey {
 	if k, ok := caseKeys[kind]; ok {
 		return k
 	}
-	return modelKeys
+	if ph.broken[unit] {
+		return modelKeys
+	}
+	return append(modelKeys[:len(modelKeys):len(modelKeys)], loadsKeys[kind]...)
 }
 
 // luaCase is case(plant, { name, sea, air, engine, set, fire }).
@@ -91,8 +128,9 @@ func (r *runner) luaCase(L *lua.LState) int {
 	c.Conditions.SeaT, _ = a.quantity("sea", units.Temperature, false)
 	c.Conditions.AirT, _ = a.quantity("air", units.Temperature, false)
 	c.Conditions.EngineLoad, _ = a.quantity("engine", units.Fraction, false)
+	var models []modelSetting
 	if v := a.get("set"); v != lua.LNil {
-		c.Set = r.caseSettings(ph, a, v, c.Pos)
+		c.Set, models = r.caseSettings(ph, a, v, c.Pos)
 	}
 	if a.has("fire") {
 		c.Fire = a.names("fire")
@@ -121,6 +159,16 @@ func (r *runner) luaCase(L *lua.LState) int {
 	if r.emptyPlant(ph) || len(r.errs) > 0 {
 		r.raise(stopRun{})
 	}
+	// The loads models' fields hold for this case only.
+	for i := range models {
+		m := &models[i]
+		*m.ptr, m.v = m.v, *m.ptr
+	}
+	defer func() {
+		for _, m := range models {
+			*m.ptr = m.v
+		}
+	}()
 	res, err := ph.p.Solve(L.Context(), c)
 	if err != nil {
 		if lerr := r.limitErr(pos); lerr != nil {
@@ -151,12 +199,13 @@ func (ph *plantHandle) boilerNames() []string {
 }
 
 // caseSettings reads set = { unit = { key = value, ... }, ... }.
-func (r *runner) caseSettings(ph *plantHandle, a *args, v lua.LValue, pos plant.Pos) []plant.Setting {
+func (r *runner) caseSettings(ph *plantHandle, a *args, v lua.LValue, pos plant.Pos) ([]plant.Setting, []modelSetting) {
 	t, ok := v.(*lua.LTable)
 	if !ok {
 		a.errorf(nil, "set must be a table of units, such as set = { galley = { duty = \"60 kW\" } }; got %s", describe(v))
-		return nil
+		return nil, nil
 	}
+	var models []modelSetting
 	r.checkSize(t, "set")
 	var units_ []string
 	t.ForEach(func(k, _ lua.LValue) {
@@ -210,6 +259,10 @@ func (r *runner) caseSettings(ph *plantHandle, a *args, v lua.LValue, pos plant.
 				sub.errorf(err, "%v", err)
 				continue
 			}
+			if k.model != nil {
+				models = append(models, modelSetting{ptr: k.model(ph.p.Unit(unit)), v: f})
+				continue
+			}
 			out = append(out, plant.Setting{Unit: unit, Param: k.param, Value: f, Pos: pos})
 			if k.param == "duty" {
 				// a duty replaces a set steam flow
@@ -221,7 +274,7 @@ func (r *runner) caseSettings(ph *plantHandle, a *args, v lua.LValue, pos plant.
 		}
 		a.nerr += sub.nerr
 	}
-	return out
+	return out, models
 }
 
 // checkPlantOnce runs the plant's own checks (graph, parameters, degrees

@@ -89,6 +89,56 @@
 // is solved or the script ends, and unknown units and ports are reported
 // with suggestions.
 //
+// # Consumers computed by plant/loads
+//
+// These declare a steam consumer (a turbine for cargo_pump) whose duty
+// package plant/loads computes from what the engineer knows. Each also
+// takes the consumer keys subcool, returns, return_T and off (cargo_pump:
+// the turbine keys). Models that depend on the case read its sea and air
+// temperatures; a case that leaves out one a model needs is an error naming
+// the unit and the case. Input errors are found when the unit is declared
+// (the model is tried at 15 C sea and air).
+//
+//	ship:tank_heating { name, fuel (grade: density and Cragoe specific heat) or density
+//	                    (density) with cp (specific heat; default Cragoe), cargo (a name),
+//	                    flash_point (temperature),
+//	                    mode ("hold", default, or "heat_up"), T (hold: temperature held),
+//	                    from, to (heat_up: temperatures), duration (heat_up: time),
+//	                    and either dimensions = { length, breadth, depth (lengths), fill (fraction),
+//	                      double_bottom, double_side (lengths), layout ("full_breadth", "wing",
+//	                      "centre"), weather_deck (boolean), deck_space_T, adjacent_T
+//	                      (temperatures), side_above_water (fraction), adjacent_heated (boolean),
+//	                      U = { deck_ullage, deck_wetted, shell, double_hull, bulkhead, dry }
+//	                      (heat transfer coefficients; default plant/loads DefaultU) }
+//	                    or volume (volume) with boundaries = { {name, area (area),
+//	                      U (heat transfer coefficient), beyond ("sea", "air" or "space"),
+//	                      T (temperature beyond a space)}, ... } }
+//	ship:fuel_heater  { name, service ("engine", "burner", "purifier", "transfer"),
+//	                    fuel (grade), density15 (density), viscosity (kinematic viscosity at the
+//	                    grade's reference temperature), inlet_T, and outlet_T or
+//	                    target_viscosity ("13 cSt"), outlet_limit, flash_point (temperatures),
+//	                    flow (mass flow of oil; not for "burner"), boiler (for "burner": the
+//	                    boiler whose fuel flow it heats; its duty follows that flow in the solve) }
+//	ship:accommodation { name, UA (thermal conductance), inside_T, balance_T (temperatures;
+//	                    no heating at and above balance_T, default inside_T),
+//	                    or table = { {air temperature, duty}, ... } }
+//	ship:tank_cleaning { name, flow (mass flow of water), inlet_T (temperature; default the
+//	                    case's sea temperature), outlet_T (temperature), p (pressure),
+//	                    cp (specific heat; default IAPWS-IF97 pure water) }
+//	ship:cargo_pump   { name, flow (volume flow), head (length), density (density),
+//	                    efficiency (fraction), exhaust (pressure), eta_is, eta_mech (fractions) }
+//	                    -- a turbine of shaft power rho*g*flow*head/efficiency
+//	ship:atomising_steam { name, boiler, ratio (fraction: kg steam per kg fuel) } -- nothing returns
+//	ship:soot_blowing { name, flow (mass flow while blowing), duration, interval (times) }
+//	ship:steam_tracing { name, per_metre ("30 W/m"), length (length) }
+//	ship:fresh_water_generator { name, production (mass flow of distillate),
+//	                    specific_energy (specific energy) or evaporation_T, feed_T
+//	                    (temperatures) with feed_ratio (number, kg feed per kg distillate) }
+//
+// A case may set, besides returns, subcool and off: tank_heating T, to,
+// from, duration; tank_cleaning flow, outlet_T; accommodation inside_T.
+// These hold for that case only.
+//
 // # Plant, short form
 //
 //	local ship = steam_plant {
@@ -98,16 +148,18 @@
 //	  hotwell   = { heat_loss = "5 kW", set_T = "60 C" }, -- optional, feed_tank keys
 //	  feed_pump = { margin = "3 bar", eta = "40 %" },    -- optional, feed_pump keys
 //	  headers   = { {name = "main"}, {name = "LP", p = "4 bar(g)"} },
-//	  consumers = { {name = "galley", header = "LP", duty = "40 kW", returns = "90 %"} },
+//	  consumers = { {name = "galley", header = "LP", duty = "40 kW", returns = "90 %"},
+//	                {name = "COT 1", kind = "tank_heating", fuel = "HSFO", T = "60 C", ...} },
 //	  turbines  = { {name = "COP1", power = "800 kW", exhaust = "0.2 bar(a)", eta_is = "65 %",
-//	                 condenser = { subcool = "5 K" }} },
+//	                 condenser = { subcool = "5 K" }} },     -- kind = "cargo_pump" also fits here
 //	}
 //
 // It takes the plant{} keys and builds, with the unit types of the full
 // graph: "makeup" → "hotwell" → "feed pump" → "feed header" → each boiler →
 // the first header (default "main"); each further header (p required) fed
 // from the main one through a reducing valve "PRV <header>"; each consumer
-// on its header (key header; default the main one) returning condensate to
+// on its header (key header; default the main one; key kind, default
+// "consumer", or one of the plant/loads kinds but cargo_pump) returning condensate to
 // the hotwell when returns is above zero; each turbine on its header
 // exhausting to a condenser "<turbine> condenser" that drains to the
 // hotwell; steam heating of the hotwell from the main header when set_T is
@@ -117,7 +169,9 @@
 // discharge", "feed <boiler>", "steam <boiler>", "steam to <consumer>",
 // "return from <consumer>", "to PRV <header>", "from PRV <header>",
 // "hotwell heating", "steam to/exhaust of/condensate of <turbine>". The
-// graph methods can add to the plant afterwards.
+// graph methods can add to the plant afterwards. Errors in the short form
+// point at the line of steam_plant (a table entry has no line of its own)
+// and name the unit.
 //
 // # Load cases
 //
@@ -146,7 +200,8 @@
 //	check(cond, "message")   -- fails the run with an *AssertionError at this line
 //	include("plant.lua")     -- runs a script of the same folder, returns what it returns
 //	read_csv("profile.csv")  -- rows of the CSV beside the script, as tables of strings by header
-//	to_number("18 t/h", "kg/h") -- a quantity as a number in the unit asked for (18000)
+//	to_number("18 t/h", "kg/h") -- a quantity as a number in the unit asked for (18000;
+//	                         -- gauge pressures refer to the standard atmosphere)
 //	print(...)               -- to the run's logger (info level, with "pos"), not stdout
 //
 // include and read_csv accept only relative names inside the script's

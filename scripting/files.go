@@ -98,10 +98,13 @@ func (r *runner) luaInclude(L *lua.LState) int {
 		r.raise(syntaxError(err, show))
 	}
 	r.including = append(r.including, show)
+	depth := len(r.including) - 1
+	// Lua errors unwind as Go panics: the deferred pop runs for them too,
+	// so a pcall around include leaves the include stack right.
+	defer func() { r.including = r.including[:depth] }()
 	top := L.GetTop()
 	L.Push(fn)
 	L.Call(0, lua.MultRet)
-	r.including = r.including[:len(r.including)-1]
 	return L.GetTop() - top
 }
 

@@ -32,7 +32,7 @@ func TestGoodScripts(t *testing.T) {
 		{"short_form.lua", 1, 1, 5},
 		{"sweep.lua", 4, 1, 8},
 		{"profile.lua", 3, 1, 3},
-		{"loads.lua", 3, 1, 12},
+		{"loads.lua", 5, 1, 14},
 	}
 	for _, tc := range tests {
 		for _, checkOnly := range []bool{false, true} {

@@ -59,3 +59,9 @@ check(math.abs(consumer(discharge, "FWG").duty_kW - 723.38) < 0.01, "FWG duty")
 check(math.abs(consumer(discharge, "tracing").duty_kW - 12) < 1e-6, "tracing duty")
 check(math.abs(consumer(discharge, "soot blowers").steam_kg_h - 31.25) < 1e-6, "soot blowing mean flow")
 check(discharge.fuel_kg_h > warm.fuel_kg_h, "discharge burns more")
+
+-- Case settings of a loads model hold for that case only.
+local hotter = case(ship, { name = "hold 70 C", sea = "5 C", air = "0 C", set = { ["COT 3P"] = { T = "70 C" } } })
+local again = case(ship, { name = "loaded, cold sea again", sea = "5 C", air = "0 C" })
+check(consumer(hotter, "COT 3P").duty_kW > consumer(cold, "COT 3P").duty_kW, "holding hotter takes more heat")
+check(consumer(again, "COT 3P").duty_kW == consumer(cold, "COT 3P").duty_kW, "the tank's own temperature is back")
