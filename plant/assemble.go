@@ -3,6 +3,8 @@ package plant
 import (
 	"fmt"
 	"math"
+
+	"gonum.org/v1/gonum/mat"
 )
 
 // Unit is one component of the plant. The units of this package are the
@@ -21,6 +23,7 @@ type Unit interface {
 	check(fs *faults)
 	assemble(a *assembly, ports map[string][]*Line)
 	residual(ev *eval, r []float64) error
+	jacobian(ev *eval, j *mat.Dense) error
 	guess(x []float64)
 	report(ev *eval, cr *CaseResult) error
 	param(name string) (*float64, error)

@@ -60,6 +60,10 @@ type Options struct {
 	// NoEGESaving skips the second solve of each case without its
 	// exhaust-gas economisers that gives the fuel they save.
 	NoEGESaving bool
+	// FiniteDifferences makes the solver form the Jacobian by its own
+	// coloured finite differences instead of the plant's analytic partial
+	// derivatives (jacobian.go): a fallback and a check.
+	FiniteDifferences bool
 }
 
 func (o *Options) defaults() {
@@ -312,6 +316,9 @@ func (p *Plant) compile() error {
 		return err
 	}
 	p.prob.Residual = p.residual
+	if !p.Opt.FiniteDifferences {
+		p.prob.Jacobian = p.jacobian
+	}
 	slv, err := solver.New(p.prob, p.solverSettings())
 	if err != nil {
 		return err

@@ -1,0 +1,422 @@
+package plant
+
+import (
+	"context"
+	"fmt"
+	"math"
+	"math/rand/v2"
+	"testing"
+
+	"gonum.org/v1/gonum/mat"
+)
+
+// jacFixture is a plant of the package's tests with the cases it is
+// checked at.
+type jacFixture struct {
+	name  string
+	build func(t testing.TB) *Plant
+	cases []Case
+}
+
+// coupledPlant is the plant of TestCoupledConsumers: consumers driven by a
+// boiler's fuel flow and one with a duty model.
+func coupledPlant(t testing.TB) *Plant {
+	p := twoBoilers(t, Options{})
+	must(t, p.Add(&Consumer{UnitBase: UnitBase{Name: "b1 fo heater"}, FuelOf: "b1", DutyPerFuel: 2.0e5, ReturnFraction: 1, Label: "fuel oil heater"}))
+	must(t, p.Add(&Consumer{UnitBase: UnitBase{Name: "b1 atomising"}, FuelOf: "b1", SteamPerFuel: 0.3, Label: "atomising steam"}))
+	must(t, p.Add(&Consumer{UnitBase: UnitBase{Name: "accommodation"}, Model: fixedModel{w: 20e3}, ReturnFraction: 1}))
+	p.Connect("to fo heater", Pos{}, "main", "out", "b1 fo heater", "in")
+	p.Connect("fo heater return", Pos{}, "b1 fo heater", "out", "hotwell", "in")
+	p.Connect("to atomising", Pos{}, "main", "out", "b1 atomising", "in")
+	p.Connect("to accommodation", Pos{}, "main", "out", "accommodation", "in")
+	p.Connect("accommodation return", Pos{}, "accommodation", "out", "hotwell", "in")
+	return p
+}
+
+// egeBoilerPlant is the plant of TestEGEFuelSaved: an exhaust-gas
+// economiser and an oil-fired boiler on one header, with a dump condenser.
+func egeBoilerPlant(t testing.TB) *Plant {
+	p := New("EGE and boiler", Options{})
+	drum := gauge(7)
+	must(t, p.Add(&MakeUp{UnitBase: UnitBase{Name: "makeup"}, T: 333.15, P: 1e5}))
+	must(t, p.Add(&FeedTank{UnitBase: UnitBase{Name: "hotwell"}, P: 1e5}))
+	must(t, p.Add(&Header{UnitBase: UnitBase{Name: "feed header"}}))
+	must(t, p.Add(&ExhaustGasEconomiser{UnitBase: UnitBase{Name: "ege"}, Engine: egeEngine(), DrumP: drum,
+		DesignLoad: 1, DesignPinch: 15, GasCp: 1060}))
+	must(t, p.Add(&Boiler{UnitBase: UnitBase{Name: "b1"}, MCR: 10000.0 / 3600, DrumP: drum,
+		Efficiency: flatEta(0.85), Fuel: FuelSpec{Name: "HFO", LHV: 40.2e6, CO2Factor: 3.114}}))
+	must(t, p.Add(&Header{UnitBase: UnitBase{Name: "main"}}))
+	must(t, p.Add(&Consumer{UnitBase: UnitBase{Name: "heating"}, SteamFlow: 5000.0 / 3600}))
+	must(t, p.Add(&Condenser{UnitBase: UnitBase{Name: "dump"}, Dump: true}))
+	p.Connect("mu", Pos{}, "makeup", "out", "hotwell", "in")
+	p.Connect("feed", Pos{}, "hotwell", "out", "feed header", "in")
+	p.Connect("ege feed", Pos{}, "feed header", "out", "ege", "feed")
+	p.Connect("boiler feed", Pos{}, "feed header", "out", "b1", "feed")
+	p.Connect("ege steam", Pos{}, "ege", "steam", "main", "in")
+	p.Connect("boiler steam", Pos{}, "b1", "steam", "main", "in")
+	p.Connect("to heating", Pos{}, "main", "out", "heating", "in")
+	p.Connect("to dump", Pos{}, "main", "out", "dump", "in")
+	p.Connect("dump return", Pos{}, "dump", "out", "hotwell", "in")
+	return p
+}
+
+// flueTablePlant is the plant of TestFlueGasTableEfficiency: a boiler
+// whose efficiency comes from the heat-loss method on a flue-gas table.
+func flueTablePlant(t testing.TB) *Plant {
+	spec, err := SpecFromFuel(testFuel())
+	must(t, err)
+	tab := &FlueGasTable{Load: []float64{0.5, 1}, FlueT: []float64{503.15, 523.15}, O2Dry: []float64{0.04, 0.03}, RadiationAtMCR: 0.007}
+	p := New("flue-gas table", Options{})
+	must(t, p.Add(&MakeUp{UnitBase: UnitBase{Name: "makeup"}, T: 333.15, P: 1e5}))
+	must(t, p.Add(&Boiler{UnitBase: UnitBase{Name: "b1"}, MCR: 1, DrumP: gauge(7), Efficiency: tab, Fuel: spec,
+		Burner: Burner{AirT: 308.15, FanRise: 3000, FanEta: 0.6, MotorEta: 0.9}}))
+	must(t, p.Add(&Consumer{UnitBase: UnitBase{Name: "load"}, SteamFlow: 0.8}))
+	p.Connect("feed", Pos{}, "makeup", "out", "b1", "feed")
+	p.Connect("steam", Pos{}, "b1", "steam", "load", "in")
+	return p
+}
+
+// furnacePlant is the plant of TestFurnaceBoilerInPlant: a boiler whose
+// efficiency comes from its furnace and smoke tubes.
+func furnacePlant(t testing.TB) *Plant {
+	p := New("fire-tube", Options{})
+	must(t, p.Add(&MakeUp{UnitBase: UnitBase{Name: "makeup"}, T: 333.15, P: 1e5}))
+	must(t, p.Add(&Boiler{UnitBase: UnitBase{Name: "b1"}, MCR: 2000.0 / 3600, DrumP: gauge(7), Efficiency: smallFireTube(), Fuel: hsfo(t)}))
+	must(t, p.Add(&Consumer{UnitBase: UnitBase{Name: "load"}, SteamFlow: 1500.0 / 3600}))
+	p.Connect("feed", Pos{}, "makeup", "out", "b1", "feed")
+	p.Connect("steam", Pos{}, "b1", "steam", "load", "in")
+	return p
+}
+
+// economiserPlant is ecoPlant with its economiser of UA 2000 W/K.
+func economiserPlant(t testing.TB) *Plant {
+	spec := hsfo(t)
+	tab := &FlueGasTable{Load: []float64{0.3, 1}, FlueT: []float64{553.15, 603.15}, O2Dry: []float64{0.05, 0.03}, RadiationAtMCR: 0.01}
+	p := New("economiser", Options{})
+	must(t, p.Add(&MakeUp{UnitBase: UnitBase{Name: "makeup"}, T: 333.15}))
+	must(t, p.Add(&FeedTank{UnitBase: UnitBase{Name: "hotwell"}}))
+	must(t, p.Add(&FeedPump{UnitBase: UnitBase{Name: "fp"}, Boilers: []string{"b1"}, Margin: 2e5, Eta: 0.5}))
+	must(t, p.Add(&Boiler{UnitBase: UnitBase{Name: "b1"}, MCR: 10000.0 / 3600, DrumP: gauge(7), Turndown: 4, CyclingLoss: 0.02, Efficiency: tab, Fuel: spec}))
+	must(t, p.Add(&Consumer{UnitBase: UnitBase{Name: "load"}, SteamFlow: 6000.0 / 3600}))
+	must(t, p.Add(&Economiser{UnitBase: UnitBase{Name: "eco"}, Boiler: "b1", UA: 2000, DesignGasFlow: 1.5}))
+	p.Connect("mu", Pos{}, "makeup", "out", "hotwell", "in")
+	p.Connect("suction", Pos{}, "hotwell", "out", "fp", "in")
+	p.Connect("discharge", Pos{}, "fp", "out", "eco", "in")
+	p.Connect("feed", Pos{}, "eco", "out", "b1", "feed")
+	p.Connect("steam", Pos{}, "b1", "steam", "load", "in")
+	return p
+}
+
+// everyUnit adds what the other fixtures lack: a feed tank with a heat
+// loss through UA and steam heating to a set temperature, a reducing
+// valve, a header with a heat loss, a turbine and a consumer with a drain
+// cooler. Figures are invented, of realistic size.
+func everyUnit(t testing.TB) *Plant {
+	p := New("every unit", Options{})
+	must(t, p.Add(&MakeUp{UnitBase: UnitBase{Name: "makeup"}, T: 293.15}))
+	must(t, p.Add(&FeedTank{UnitBase: UnitBase{Name: "cascade tank"}, HeatLoss: 2e3, UA: 150, RoomT: 313.15, SetT: 353.15}))
+	must(t, p.Add(&FeedPump{UnitBase: UnitBase{Name: "fp"}, Boilers: []string{"b1"}, Margin: 3 * bar, Eta: 0.5, MotorEta: 0.92}))
+	must(t, p.Add(&Boiler{UnitBase: UnitBase{Name: "b1"}, MCR: 8000.0 / 3600, DrumP: gauge(14), Turndown: 4, CyclingLoss: 0.02,
+		Blowdown: 0.02, Efficiency: &EfficiencyTable{Load: []float64{0.25, 0.5, 1}, Eta: []float64{0.8, 0.85, 0.84}},
+		Fuel: FuelSpec{Name: "MGO", LHV: 42.7e6, CO2Factor: 3.206}}))
+	must(t, p.Add(&Header{UnitBase: UnitBase{Name: "hp"}, HeatLoss: 8e3}))
+	must(t, p.Add(&ReducingValve{UnitBase: UnitBase{Name: "prv"}, P: gauge(4)}))
+	must(t, p.Add(&Header{UnitBase: UnitBase{Name: "lp"}}))
+	must(t, p.Add(&Consumer{UnitBase: UnitBase{Name: "tank heating"}, Duty: 1.2e6, SubCooling: 5, ReturnFraction: 0.97, ReturnT: 343.15}))
+	must(t, p.Add(&Turbine{UnitBase: UnitBase{Name: "tg"}, Power: 300e3, ExhaustP: 0.15 * bar, EtaIs: 0.6, EtaMech: 0.95}))
+	must(t, p.Add(&Condenser{UnitBase: UnitBase{Name: "vac cond"}, SubCooling: 3}))
+	c := func(name, from, fp, to, tp string) { p.Connect(name, Pos{}, from, fp, to, tp) }
+	c("makeup", "makeup", "out", "cascade tank", "in")
+	c("suction", "cascade tank", "out", "fp", "in")
+	c("feed", "fp", "out", "b1", "feed")
+	c("steam", "b1", "steam", "hp", "in")
+	c("to tg", "hp", "out", "tg", "in")
+	c("exhaust", "tg", "out", "vac cond", "in")
+	c("condensate", "vac cond", "out", "cascade tank", "in")
+	c("to prv", "hp", "out", "prv", "in")
+	c("prv out", "prv", "out", "lp", "in")
+	c("to heating", "lp", "out", "tank heating", "in")
+	c("heating return", "tank heating", "out", "cascade tank", "in")
+	c("tank steam", "lp", "out", "cascade tank", "steam")
+	return p
+}
+
+func jacFixtures() []jacFixture {
+	ege := func(load float64) Case {
+		return Case{Name: fmt.Sprintf("engine %.0f %%", 100*load), Conditions: Conditions{EngineLoad: load}}
+	}
+	return []jacFixture{
+		{"boiler only", func(t testing.TB) *Plant { return boilerOnly(t) }, []Case{{Name: "check"}}},
+		{"turbine", func(t testing.TB) *Plant { return turbinePlant(t) }, []Case{{Name: "discharge"}}},
+		{"two boilers", func(t testing.TB) *Plant { return twoBoilers(t, Options{}) }, []Case{
+			{Name: "port"}, demandCase("one boiler", 6000), demandCase("cycling", 2300),
+			demandCase("two boilers", 8600), {Name: "drain cooler", Set: []Setting{{Unit: "heating", Param: "return_T", Value: 353.15}}},
+		}},
+		{"two boilers lead-lag", func(t testing.TB) *Plant { return twoBoilers(t, Options{Sharing: LeadLag}) }, []Case{
+			demandCase("two boilers", 12000),
+		}},
+		{"coupled consumers", coupledPlant, []Case{{Name: "winter", Conditions: Conditions{AirT: 263.15}}}},
+		{"exhaust-gas economiser", func(t testing.TB) *Plant { p, _ := egeOnly(t, 0.65); return p }, []Case{ege(1), ege(0.5)}},
+		{"exhaust-gas economiser with bypass", func(t testing.TB) *Plant {
+			p, e := egeOnly(t, 0.65)
+			e.MinGasOutT, e.Bypass = 273.15+200, true
+			return p
+		}, []Case{ege(1)}},
+		{"exhaust-gas economiser and boiler", egeBoilerPlant, []Case{ege(1), ege(0.3), {Name: "port"}}},
+		{"flue-gas table", flueTablePlant, []Case{{Name: "80 %", Conditions: Conditions{AirT: 308.15}}}},
+		{"furnace", furnacePlant, []Case{{Name: "75 %", Conditions: Conditions{AirT: 308.15}}}},
+		{"economiser", economiserPlant, []Case{
+			{Name: "sea", Conditions: Conditions{AirT: 308.15}},
+			{Name: "cycling", Conditions: Conditions{AirT: 308.15}, Set: []Setting{{Unit: "load", Param: "steam_flow", Value: 500.0 / 3600}}},
+		}},
+		{"every unit", everyUnit, []Case{
+			{Name: "design"},
+			{Name: "warm returns", Set: []Setting{{Unit: "tank heating", Param: "return_T", Value: 363.15}}},
+			{Name: "turbine off", Set: []Setting{{Unit: "tg", Param: "off", Value: 1}}},
+		}},
+	}
+}
+
+// centralJacobian is the plant's Jacobian by central differences of its
+// whole residual, one unknown at a time, with the step 1e-6·max(|x_j|,
+// XScale_j): the reference the analytic Jacobian is checked against
+// (checked against central finite differences, no outside source).
+func centralJacobian(t *testing.T, p *Plant, x []float64) *mat.Dense {
+	n := p.prob.Dim
+	j := mat.NewDense(n, n, nil)
+	rp, rm := make([]float64, n), make([]float64, n)
+	xt := append([]float64(nil), x...)
+	for c := 0; c < n; c++ {
+		h := 1e-6 * math.Max(math.Abs(x[c]), p.asm.xScale[c])
+		xt[c] = x[c] + h
+		errP := p.residual(rp, xt)
+		xt[c] = x[c] - h
+		errM := p.residual(rm, xt)
+		xt[c] = x[c]
+		if errP != nil || errM != nil {
+			t.Fatalf("residual fails beside the state (unknown %q): %v %v", p.asm.varNames[c], errP, errM)
+		}
+		for i := 0; i < n; i++ {
+			j.Set(i, c, (rp[i]-rm[i])/(2*h))
+		}
+	}
+	return j
+}
+
+// nearState returns the solved unknowns moved by a seeded random relative
+// amount (spread rel of max(|x|, XScale)), kept inside the bounds.
+func nearState(p *Plant, x []float64, rng *rand.Rand, rel float64) []float64 {
+	y := make([]float64, len(x))
+	for i := range x {
+		y[i] = x[i] + rel*rng.NormFloat64()*math.Max(math.Abs(x[i]), p.asm.xScale[i])
+		y[i] = math.Min(math.Max(y[i], p.asm.lo[i]), p.asm.hi[i])
+	}
+	return y
+}
+
+// TestJacobianAgainstFiniteDifferences checks the analytic Jacobian of
+// every unit type and of the dispatch equations, entry by entry, against
+// central finite differences of the residual (no outside source) at
+// seeded random states near each solved fixture. An entry passes when it
+// is within 1e-6 of its row's scale: the largest entry of the scaled row
+// (D_F⁻¹·J·D_X, the matrix the solver factorises).
+func TestJacobianAgainstFiniteDifferences(t *testing.T) {
+	const tol = 1e-6
+	rng := rand.New(rand.NewPCG(20261201, 7))
+	covered := map[string]int{}
+	for _, fx := range jacFixtures() {
+		p := fx.build(t)
+		for _, c := range fx.cases {
+			ctx := context.Background()
+			if _, err := p.Solve(ctx, c); err != nil {
+				t.Fatalf("%s, %s: %v", fx.name, c.Name, err)
+			}
+			// Keep the case's settings in force for the check.
+			restore, err := p.applySettings(&c)
+			must(t, err)
+			n := p.prob.Dim
+			ja := mat.NewDense(n, n, nil)
+			for k := 1; k <= 3; k++ {
+				// Not the solved point itself: there a state can sit
+				// exactly on a kink (a venting feed tank delivers
+				// saturated water, and v(p,h) changes phase there), where
+				// any difference straddles the two sides.
+				x := nearState(p, p.last, rng, 2e-3)
+				r := make([]float64, n)
+				if err := p.residual(r, x); err != nil {
+					t.Fatalf("%s, %s, state %d: %v", fx.name, c.Name, k, err)
+				}
+				must(t, p.slv.Jacobian(ja, x, true))
+				jf := centralJacobian(t, p, x)
+				inPattern := make([]bool, n)
+				for i := 0; i < n; i++ {
+					for col := range inPattern {
+						inPattern[col] = false
+					}
+					for _, col := range p.asm.pattern[i] {
+						inPattern[col] = true
+					}
+					scale := 0.0
+					for col := 0; col < n; col++ {
+						s := p.asm.xScale[col] / p.asm.fScale[i]
+						scale = math.Max(scale, math.Max(math.Abs(ja.At(i, col)), math.Abs(jf.At(i, col)))*s)
+					}
+					for col := 0; col < n; col++ {
+						s := p.asm.xScale[col] / p.asm.fScale[i]
+						a, f := ja.At(i, col), jf.At(i, col)
+						if !inPattern[col] && a != 0 {
+							t.Errorf("%s, %s: analytic entry (%q, %q) = %g outside the pattern", fx.name, c.Name, p.asm.eqNames[i], p.asm.varNames[col], a)
+						}
+						if d := math.Abs(a-f) * s; !(d <= tol*scale) {
+							t.Errorf("%s, %s, state %d: d(%s)/d(%s): analytic %.9g, central differences %.9g (scaled difference %.2g, row scale %.2g)",
+								fx.name, c.Name, k, p.asm.eqNames[i], p.asm.varNames[col], a, f, d, scale)
+						}
+					}
+				}
+			}
+			restore()
+			for _, u := range p.units {
+				covered[u.Kind()]++
+			}
+			covered["dispatch"] += len(p.dispEqs)
+		}
+	}
+	// Every unit type and the dispatch equations took part.
+	want := []Unit{&MakeUp{}, &FeedTank{}, &FeedPump{}, &Header{}, &ReducingValve{}, &Consumer{}, &Turbine{},
+		&Condenser{}, &Condenser{Dump: true}, &Boiler{}, &Economiser{}, &ExhaustGasEconomiser{}}
+	for _, u := range want {
+		if covered[u.Kind()] == 0 {
+			t.Errorf("no fixture checks a %s", u.Kind())
+		}
+	}
+	if covered["dispatch"] == 0 {
+		t.Errorf("no fixture checks the dispatch equations")
+	}
+}
+
+// TestAnalyticJacobianSameResults solves every fixture with the analytic
+// Jacobian and with the solver's coloured finite differences: both
+// converge, and every line's flow, pressure and enthalpy and every
+// boiler's fuel agree within 1e-9 relative (of the value, or of the
+// unknown's scale for values near zero). The finite-difference plant's
+// pattern is checked by the solver's dense differences (CheckPattern) at
+// its solution.
+func TestAnalyticJacobianSameResults(t *testing.T) {
+	const tol = 1e-9
+	ctx := context.Background()
+	for _, fx := range jacFixtures() {
+		pa := fx.build(t)
+		pf := fx.build(t)
+		pf.Opt.FiniteDifferences = true
+		for _, c := range fx.cases {
+			ca, err := pa.Solve(ctx, c)
+			if err != nil {
+				t.Fatalf("%s, %s, analytic: %v", fx.name, c.Name, err)
+			}
+			cf, err := pf.Solve(ctx, c)
+			if err != nil {
+				t.Fatalf("%s, %s, finite differences: %v", fx.name, c.Name, err)
+			}
+			if !ca.Converged || !cf.Converged {
+				t.Errorf("%s, %s: converged %v (analytic), %v (finite differences)", fx.name, c.Name, ca.Converged, cf.Converged)
+			}
+			if pa.slvRes.Colors != 0 || pf.slvRes.Colors == 0 {
+				t.Errorf("%s, %s: %d colours with the analytic Jacobian, %d without; want 0 and some",
+					fx.name, c.Name, pa.slvRes.Colors, pf.slvRes.Colors)
+			}
+			if err := pf.slv.CheckPattern(pf.last); err != nil {
+				t.Errorf("%s, %s: %v", fx.name, c.Name, err)
+			}
+			same := func(what string, a, f, scale float64) {
+				if d := math.Abs(a - f); !(d <= tol*math.Max(math.Max(math.Abs(a), math.Abs(f)), scale)) {
+					t.Errorf("%s, %s: %s = %.12g (analytic), %.12g (finite differences)", fx.name, c.Name, what, a, f)
+				}
+			}
+			if len(ca.Lines) != len(cf.Lines) || len(ca.Boilers) != len(cf.Boilers) {
+				t.Fatalf("%s, %s: results differ in shape", fx.name, c.Name)
+			}
+			for i, l := range ca.Lines {
+				lf := cf.Lines[i]
+				same("line "+l.Name+" flow", l.M, lf.M, 1e-6)
+				same("line "+l.Name+" pressure", l.P, lf.P, 1)
+				same("line "+l.Name+" enthalpy", l.H, lf.H, 1)
+			}
+			for i, b := range ca.Boilers {
+				same("boiler "+b.Name+" fuel", b.FuelKgS, cf.Boilers[i].FuelKgS, 1e-8)
+			}
+			same("fuel saved by the exhaust-gas economisers", ca.EGEFuelSavedKgS, cf.EGEFuelSavedKgS, 1e-8)
+			if ca.BoilersFiring != cf.BoilersFiring {
+				t.Errorf("%s, %s: %d boilers fire (analytic), %d (finite differences)", fx.name, c.Name, ca.BoilersFiring, cf.BoilersFiring)
+			}
+		}
+	}
+}
+
+// TestJacobianAllocatesNothing: after its first call the analytic
+// Jacobian allocates nothing (the project's rule for hot paths).
+func TestJacobianAllocatesNothing(t *testing.T) {
+	for _, fx := range jacFixtures() {
+		if fx.name == "furnace" || fx.name == "economiser" || fx.name == "flue-gas table" {
+			continue // the combustion models' own allocations are theirs
+		}
+		p := fx.build(t)
+		_, err := p.Solve(context.Background(), fx.cases[0])
+		must(t, err)
+		n := p.prob.Dim
+		j := mat.NewDense(n, n, nil)
+		x := append([]float64(nil), p.last...)
+		must(t, p.jacobian(j, x))
+		if a := testing.AllocsPerRun(20, func() {
+			j.Zero()
+			if err := p.jacobian(j, x); err != nil {
+				t.Fatal(err)
+			}
+		}); a != 0 {
+			t.Errorf("%s: %g allocations per Jacobian, want 0", fx.name, a)
+		}
+	}
+}
+
+// TestJacobianKeepsUnknowns: the differences a unit takes of its own
+// function move the unknowns and must put them back bit for bit.
+func TestJacobianKeepsUnknowns(t *testing.T) {
+	for _, fx := range jacFixtures() {
+		p := fx.build(t)
+		_, err := p.Solve(context.Background(), fx.cases[0])
+		must(t, err)
+		n := p.prob.Dim
+		x := append([]float64(nil), p.last...)
+		must(t, p.jacobian(mat.NewDense(n, n, nil), x))
+		for i := range x {
+			if math.Float64bits(x[i]) != math.Float64bits(p.last[i]) {
+				t.Errorf("%s: the Jacobian changed %q from %v to %v", fx.name, p.asm.varNames[i], p.last[i], x[i])
+			}
+		}
+	}
+}
+
+// BenchmarkJacobian times one analytic Jacobian against one coloured
+// finite-difference Jacobian of the solver, on the two-boiler plant.
+func BenchmarkJacobian(b *testing.B) {
+	for _, fd := range []bool{false, true} {
+		name := "analytic"
+		if fd {
+			name = "finite-differences"
+		}
+		b.Run(name, func(b *testing.B) {
+			p := twoBoilers(b, Options{FiniteDifferences: fd})
+			if _, err := p.Solve(context.Background(), demandCase("bench", 6000)); err != nil {
+				b.Fatal(err)
+			}
+			n := p.prob.Dim
+			j := mat.NewDense(n, n, nil)
+			x := append([]float64(nil), p.last...)
+			for b.Loop() {
+				if err := p.slv.Jacobian(j, x, !fd); err != nil {
+					b.Fatal(err)
+				}
+			}
+			b.ReportMetric(float64(p.slv.Colors()), "colours")
+		})
+	}
+}
