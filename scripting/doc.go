@@ -222,8 +222,12 @@
 // Options.Seed. The run's context carries the time limit (default 10 s),
 // checked by the interpreter at every instruction and by the solver at
 // every iteration; a watchdog stops a run whose heap grows by more than
-// Options.MaxMemory (default 1 GiB); string.rep and the pattern functions
-// bound their sizes; bindings bound the tables, units, lines, plants,
+// Options.MaxMemory (default 1 GiB); string.rep (Options.MaxString) and
+// unpack (10000 values) bound their results; the pattern functions refuse
+// searches whose backtracking could run long (about n^(1+q) steps for n
+// bytes and q repetitions '*', '+', '-', times the replacements for gsub,
+// above 2e7), since they run inside Go where the time limit cannot stop
+// them; bindings bound the tables, units, lines, plants,
 // cases, CSV rows and bytes they accept. If the interpreter does not stop
 // within 2 s after a limit (a library call that does not look at the
 // context), the run returns a *TimeoutError with Abandoned set and leaves

@@ -25,6 +25,10 @@ func (r *runner) newState() (*lua.LState, error) {
 		CallStackSize:   r.opt.CallStackSize,
 		RegistrySize:    r.opt.RegistrySize,
 		RegistryMaxSize: r.opt.RegistryMaxSize,
+		// Grow the data stack in large steps: with the default step of
+		// 32 a long unpack copies the stack quadratically, inside Go where
+		// the time limit cannot stop it.
+		RegistryGrowStep: 4096,
 	})
 	for _, lib := range []struct {
 		name string
@@ -44,6 +48,9 @@ func (r *runner) newState() (*lua.LState, error) {
 		L.SetGlobal(name, lua.LNil)
 	}
 	L.SetGlobal("print", L.NewFunction(r.luaPrint))
+	if fn, ok := L.GetGlobal("unpack").(*lua.LFunction); ok {
+		L.SetGlobal("unpack", L.NewFunction(r.boundedUnpack(fn)))
+	}
 
 	if m, ok := L.GetGlobal(lua.MathLibName).(*lua.LTable); ok {
 		m.RawSetString("random", L.NewFunction(r.luaRandom))
@@ -134,17 +141,50 @@ func (r *runner) luaStrRep(L *lua.LState) int {
 	return 1
 }
 
-// boundedPattern wraps a pattern function so that its subject and pattern
-// have bounded lengths: Lua patterns backtrack, and a long subject with a
-// pathological pattern would run inside Go where the time limit cannot
-// interrupt it.
+// boundedPattern wraps a pattern function so that its work is bounded:
+// Lua patterns backtrack, and a long subject with a pattern of several
+// repetitions would run inside Go, where the time limit cannot interrupt
+// it. The work of a search is taken as n^(1+q) steps for a subject of n
+// bytes and a pattern of q repetitions ('*', '+', '-'), and refused above
+// maxPatternWork; plain finds (string.find(s, p, init, true)) are linear.
+// gsub copies the subject for each replacement: its work is multiplied by
+// the number of replacements it may make.
 func (r *runner) boundedPattern(name string, fn *lua.LFunction) lua.LGFunction {
 	return func(L *lua.LState) int {
-		if s, ok := L.Get(1).(lua.LString); ok && len(s) > maxPatternSubject {
+		s, _ := L.Get(1).(lua.LString)
+		p, _ := L.Get(2).(lua.LString)
+		if len(s) > maxPatternSubject {
 			L.RaiseError("string.%s: subject of %d bytes is longer than %d", name, len(s), maxPatternSubject)
 		}
-		if p, ok := L.Get(2).(lua.LString); ok && len(p) > maxPattern {
+		if len(p) > maxPattern {
 			L.RaiseError("string.%s: pattern of %d bytes is longer than %d", name, len(p), maxPattern)
+		}
+		plain := name == "find" && lua.LVAsBool(L.Get(4))
+		if !plain {
+			q := 0
+			for i := 0; i < len(p); i++ {
+				switch p[i] {
+				case '%':
+					i++ // an escaped character is not a repetition
+				case '*', '+', '-':
+					q++
+				}
+			}
+			work := math.Pow(float64(len(s)+1), float64(1+q))
+			if name == "gsub" {
+				// each replacement copies the subject
+				reps := float64(len(s) + 1)
+				if n, ok := L.Get(4).(lua.LNumber); ok && float64(n) >= 0 && float64(n) < reps {
+					reps = float64(n) + 1
+				}
+				work *= reps
+			}
+			if work > maxPatternWork && name == "gsub" {
+				L.RaiseError("string.gsub: %d bytes with a pattern of %d repetitions may take too long (each replacement copies the subject); give a shorter subject or a maximum number of replacements", len(s), q)
+			}
+			if work > maxPatternWork {
+				L.RaiseError("string.%s: a pattern with %d repetitions on %d bytes may take too long; use a shorter subject, fewer '*', '+' or '-', or a plain find", name, q, len(s))
+			}
 		}
 		top := L.GetTop()
 		L.Push(fn)
@@ -160,4 +200,27 @@ func (r *runner) boundedPattern(name string, fn *lua.LFunction) lua.LGFunction {
 const (
 	maxPatternSubject = 1 << 20
 	maxPattern        = 256
+	maxPatternWork    = 2e7
 )
+
+// maxUnpack bounds the values unpack returns.
+const maxUnpack = 10000
+
+// boundedUnpack wraps unpack so that it returns at most maxUnpack values.
+func (r *runner) boundedUnpack(fn *lua.LFunction) lua.LGFunction {
+	return func(L *lua.LState) int {
+		t := L.CheckTable(1)
+		i := L.OptInt(2, 1)
+		j := L.OptInt(3, t.Len())
+		if j >= i && j-i >= maxUnpack {
+			L.RaiseError("unpack: %d values are more than %d", j-i+1, maxUnpack)
+		}
+		top := L.GetTop()
+		L.Push(fn)
+		for k := 1; k <= top; k++ {
+			L.Push(L.Get(k))
+		}
+		L.Call(top, lua.MultRet)
+		return L.GetTop() - top
+	}
+}

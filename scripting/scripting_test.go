@@ -305,6 +305,10 @@ func TestSandboxLimits(t *testing.T) {
 		  local p = plant { name = "x" }
 		  p:boiler { name = "b", mcr = "1 t/h", drum = "7 bar(g)", fuel = "MGO", efficiency = t }`, "main.lua:3: boiler \"b\": efficiency table needs 1 to 200"},
 		{`while true do pcall(function() while true do end end) end`, "time limit"},
+		{`local x = unpack({}, 1, 1e8)`, "main.lua:1: unpack: 100000000 values are more than 10000"},
+		{`string.find(string.rep("a", 1e5), ".-.-b")`, "main.lua:1: string.find: a pattern with 2 repetitions on 100000 bytes may take too long"},
+		{`string.gsub(string.rep("a", 1e5), "a", "b")`, "main.lua:1: string.gsub: 100000 bytes with a pattern of 0 repetitions may take too long"},
+		{`local p = plant { name = "x" } p:boilr { name = "b" }`, "main.lua:1: plant \"x\": no unit kind or method 'boilr'; did you mean 'boiler'?"},
 	}
 	for _, tc := range tests {
 		_, err := RunSource(context.Background(), "main.lua", []byte(tc.src), nil, Options{Timeout: 300 * time.Millisecond})
