@@ -169,9 +169,11 @@
 // discharge", "feed <boiler>", "steam <boiler>", "steam to <consumer>",
 // "return from <consumer>", "to PRV <header>", "from PRV <header>",
 // "hotwell heating", "steam to/exhaust of/condensate of <turbine>". The
-// graph methods can add to the plant afterwards. Errors in the short form
-// point at the line of steam_plant (a table entry has no line of its own)
-// and name the unit.
+// graph methods can add to the plant afterwards. Each unit of the short
+// form takes the line of its own table in the source (the first table
+// with its name = "..." at or after the steam_plant call, or for makeup,
+// hotwell and feed_pump the table of that key), so errors point at the
+// entry; units built from a table made elsewhere take the call's line.
 //
 // # Load cases
 //

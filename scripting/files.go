@@ -93,6 +93,7 @@ func (r *runner) luaInclude(L *lua.LState) int {
 	}
 	src := r.readFile("include", name, fsPath, r.opt.MaxScriptBytes)
 	r.chunks[show] = chunk{fsDir: path.Dir(fsPath), showDir: path.Dir(show)}
+	r.sources[show] = src
 	fn, err := L.Load(bytes.NewReader(src), show)
 	if err != nil {
 		r.raise(syntaxError(err, show))

@@ -196,9 +196,11 @@ type runner struct {
 	fsys fs.FS
 	ctx  context.Context
 
-	main      string           // chunk name of the main script
-	chunks    map[string]chunk // by chunk name
-	including []string         // chunk names of the active includes
+	main      string                      // chunk name of the main script
+	chunks    map[string]chunk            // by chunk name
+	sources   map[string][]byte           // source of each chunk
+	tlines    map[string]map[string][]int // tableLines of each chunk, when needed
+	including []string                    // chunk names of the active includes
 	errs      ErrorList
 	out       *Run
 	plants    []*plantHandle
@@ -218,13 +220,15 @@ const grace = 2 * time.Second
 
 func run(parent context.Context, name string, src []byte, fsys fs.FS, fsDir, showDir string, opt Options) (*Run, error) {
 	r := &runner{
-		opt:    opt,
-		log:    opt.Logger,
-		rng:    rand.New(rand.NewPCG(opt.Seed, 0x5ca1ab1e)),
-		fsys:   fsys,
-		main:   name,
-		chunks: map[string]chunk{name: {fsDir: fsDir, showDir: showDir}},
-		out:    &Run{},
+		opt:     opt,
+		log:     opt.Logger,
+		rng:     rand.New(rand.NewPCG(opt.Seed, 0x5ca1ab1e)),
+		fsys:    fsys,
+		main:    name,
+		chunks:  map[string]chunk{name: {fsDir: fsDir, showDir: showDir}},
+		sources: map[string][]byte{name: src},
+		tlines:  map[string]map[string][]int{},
+		out:     &Run{},
 	}
 	ctx, cancelTime := context.WithTimeoutCause(parent, opt.Timeout, errTimeLimit)
 	defer cancelTime()

@@ -148,11 +148,12 @@ func TestBadScripts(t *testing.T) {
 		{file: "graph_fault.lua", kind: "list", want: []string{at("graph_fault.lua", 3) + ` unit "hotwell": outlet "out" is not connected`}},
 		{file: "loads_errors.lua", kind: "list", want: []string{
 			"3 errors:",
-			at("loads_errors.lua", 1) + ` tank heating "COT 1": boundaries[1].beyond must be "sea", "air" or "space"; got "see"`,
-			`consumer "acc": unknown consumer kind "acommodation"; did you mean "accommodation"?`,
-			`fuel heater "FO heater": flow needs a unit, such as '18 t/h'; got 2.5`}},
+			// each entry of the short form at the line of its own table
+			at("loads_errors.lua", 5) + ` tank heating "COT 1": boundaries[1].beyond must be "sea", "air" or "space"; got "see"`,
+			at("loads_errors.lua", 7) + ` consumer "acc": unknown consumer kind "acommodation"; did you mean "accommodation"?`,
+			at("loads_errors.lua", 8) + ` fuel heater "FO heater": flow needs a unit, such as '18 t/h'; got 2.5`}},
 		{file: "loads_no_sea.lua", kind: "list", want: []string{
-			at("loads_no_sea.lua", 1) + ` unit "COT 1": needs the case's sea temperature: give sea = "12 C" in the case (solving case "no sea" at ` + filepath.Join(bad, "loads_no_sea.lua") + ":9)"}},
+			at("loads_no_sea.lua", 5) + ` unit "COT 1": needs the case's sea temperature: give sea = "12 C" in the case (solving case "no sea" at ` + filepath.Join(bad, "loads_no_sea.lua") + ":9)"}},
 		{file: "huge_table.lua", kind: "list", want: []string{at("huge_table.lua", 6) + " boiler: table has more than 1000 entries"}},
 		{file: "include_parent.lua", kind: "list", want: []string{at("include_parent.lua", 1) + ` include("../good/plant_tanker.lua"): '..' is not allowed`}},
 		{file: "read_abs.lua", kind: "list", want: []string{at("read_abs.lua", 1) + ` read_csv("/etc/passwd"): absolute paths are not allowed`}},

@@ -87,17 +87,32 @@ func (r *runner) luaSteamPlant(L *lua.LState) int {
 	ud := r.newPlant(name, pos, opt, a.uopt)
 	ph := ud.Value.(*plantHandle)
 
-	line := func(name, from, to string) {
+	line := func(pos Pos, name, from, to string) {
 		ph.nLines++
 		ph.pending = append(ph.pending, pendingLine{name: name, pos: pos, from: from, to: to})
+	}
+	// at is the position of an entry: the line of its own table.
+	at := func(t *lua.LTable, key string) Pos {
+		if t != nil {
+			if n, ok := t.RawGetString("name").(lua.LString); ok {
+				if p := r.entryPos(pos, string(n)); p != pos {
+					return p
+				}
+			}
+		}
+		if key != "" {
+			return r.entryPos(pos, "="+key)
+		}
+		return pos
 	}
 	named := func(t *lua.LTable, def string) *lua.LTable {
 		return r.copyTable(t, def, map[string]string{"name": def})
 	}
 
-	r.addUnit(ph, "makeup", r.copyTable(named(makeup, "makeup"), "makeup", map[string]string{"T": defaultMakeUpT}), pos, buildMakeUp, nil)
+	muPos, hwPos, fpPos := at(makeup, "makeup"), at(hotwell, "hotwell"), at(pump, "feed_pump")
+	r.addUnit(ph, "makeup", r.copyTable(named(makeup, "makeup"), "makeup", map[string]string{"T": defaultMakeUpT}), muPos, buildMakeUp, nil)
 	hw := named(hotwell, "hotwell")
-	hwName := r.addUnit(ph, "feed_tank", hw, pos, buildFeedTank, nil)
+	hwName := r.addUnit(ph, "feed_tank", hw, hwPos, buildFeedTank, nil)
 	var boilerNames []string
 	for _, b := range boilers {
 		if n, ok := b.RawGetString("name").(lua.LString); ok {
@@ -118,11 +133,11 @@ func (r *runner) luaSteamPlant(L *lua.LState) int {
 		}
 		fp.RawSetString("boilers", bl)
 	}
-	fpName := r.addUnit(ph, "feed_pump", fp, pos, buildFeedPump, nil)
-	fh := r.addUnit(ph, "header", named(nil, "feed header"), pos, buildHeader, nil)
-	line("makeup", "makeup.out", hwName+".in")
-	line("feed suction", hwName+".out", fpName+".in")
-	line("feed discharge", fpName+".out", fh+".in")
+	fpName := r.addUnit(ph, "feed_pump", fp, fpPos, buildFeedPump, nil)
+	fh := r.addUnit(ph, "header", named(nil, "feed header"), fpPos, buildHeader, nil)
+	line(muPos, "makeup", "makeup.out", hwName+".in")
+	line(hwPos, "feed suction", hwName+".out", fpName+".in")
+	line(fpPos, "feed discharge", fpName+".out", fh+".in")
 
 	if len(headers) == 0 {
 		headers = []*lua.LTable{named(nil, "main")}
@@ -130,7 +145,8 @@ func (r *runner) luaSteamPlant(L *lua.LState) int {
 	var main string
 	for i, h := range headers {
 		var p lua.LValue
-		hn := r.addUnit(ph, "header", h, pos, buildHeader, func(a *args) {
+		hPos := at(h, "")
+		hn := r.addUnit(ph, "header", h, hPos, buildHeader, func(a *args) {
 			p = a.get("p")
 			if i == 0 && p != lua.LNil {
 				a.errorf(nil, "the first header is the main header at the boilers' pressure; it takes no p")
@@ -149,17 +165,18 @@ func (r *runner) luaSteamPlant(L *lua.LState) int {
 		prv := r.L.NewTable()
 		prv.RawSetString("name", lua.LString("PRV "+hn))
 		prv.RawSetString("p", p)
-		pn := r.addUnit(ph, "reducing_valve", prv, pos, buildReducingValve, nil)
-		line("to "+pn, main+".out", pn+".in")
-		line("from "+pn, pn+".out", hn+".in")
+		pn := r.addUnit(ph, "reducing_valve", prv, hPos, buildReducingValve, nil)
+		line(hPos, "to "+pn, main+".out", pn+".in")
+		line(hPos, "from "+pn, pn+".out", hn+".in")
 	}
 	for _, b := range boilers {
-		bn := r.addUnit(ph, "boiler", b, pos, buildBoiler, nil)
-		line("feed "+bn, fh+".out", bn+".feed")
-		line("steam "+bn, bn+".steam", main+".in")
+		bPos := at(b, "")
+		bn := r.addUnit(ph, "boiler", b, bPos, buildBoiler, nil)
+		line(bPos, "feed "+bn, fh+".out", bn+".feed")
+		line(bPos, "steam "+bn, bn+".steam", main+".in")
 	}
 	if hw.RawGetString("set_T") != lua.LNil {
-		line("hotwell heating", main+".out", hwName+".steam")
+		line(hwPos, "hotwell heating", main+".out", hwName+".steam")
 	}
 	header := func(a *args) string {
 		h, ok := a.str("header", false)
@@ -170,6 +187,7 @@ func (r *runner) luaSteamPlant(L *lua.LState) int {
 	}
 	for _, c := range consumers {
 		var hn string
+		cPos := at(c, "")
 		kind := "consumer"
 		b := buildConsumer
 		if k, ok := c.RawGetString("kind").(lua.LString); ok && k != "consumer" {
@@ -183,21 +201,21 @@ func (r *runner) luaSteamPlant(L *lua.LState) int {
 				if k == "cargo_pump" {
 					msg = "a cargo pump is a turbine: list it under turbines"
 				}
-				r.errs = append(r.errs, &Error{Pos: pos, Unit: what, Msg: msg})
+				r.errs = append(r.errs, &Error{Pos: cPos, Unit: what, Msg: msg})
 				continue
 			}
 			kind, b = string(k), lb
 		}
-		cn := r.addUnit(ph, kind, c, pos, b, func(a *args) {
+		cn := r.addUnit(ph, kind, c, cPos, b, func(a *args) {
 			hn = header(a)
 			a.get("kind")
 		})
 		if cn == "" {
 			continue
 		}
-		line("steam to "+cn, hn+".out", cn+".in")
+		line(cPos, "steam to "+cn, hn+".out", cn+".in")
 		if cu, ok := ph.p.Unit(cn).(*plant.Consumer); ok && cu.ReturnFraction > 0 {
-			line("return from "+cn, cn+".out", hwName+".in")
+			line(cPos, "return from "+cn, cn+".out", hwName+".in")
 		}
 	}
 	for _, tt := range turbines {
@@ -207,7 +225,8 @@ func (r *runner) luaSteamPlant(L *lua.LState) int {
 		if k, ok := tt.RawGetString("kind").(lua.LString); ok && k == "cargo_pump" {
 			kind, b = "cargo_pump", buildCargoPump
 		}
-		tn := r.addUnit(ph, kind, tt, pos, b, func(a *args) {
+		tPos := at(tt, "")
+		tn := r.addUnit(ph, kind, tt, tPos, b, func(a *args) {
 			hn = header(a)
 			cond = r.subTable(a, "condenser")
 			if k, ok := a.str("kind", false); ok && k != kind {
@@ -217,10 +236,10 @@ func (r *runner) luaSteamPlant(L *lua.LState) int {
 		if tn == "" {
 			continue
 		}
-		cn := r.addUnit(ph, "condenser", named(cond, tn+" condenser"), pos, buildCondenser, nil)
-		line(fmt.Sprintf("steam to %s", tn), hn+".out", tn+".in")
-		line(fmt.Sprintf("exhaust of %s", tn), tn+".out", cn+".in")
-		line(fmt.Sprintf("condensate of %s", tn), cn+".out", hwName+".in")
+		cn := r.addUnit(ph, "condenser", named(cond, tn+" condenser"), tPos, buildCondenser, nil)
+		line(tPos, fmt.Sprintf("steam to %s", tn), hn+".out", tn+".in")
+		line(tPos, fmt.Sprintf("exhaust of %s", tn), tn+".out", cn+".in")
+		line(tPos, fmt.Sprintf("condensate of %s", tn), cn+".out", hwName+".in")
 	}
 	L.Push(ud)
 	return 1
