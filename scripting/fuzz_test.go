@@ -1,6 +1,7 @@
 package scripting
 
 import (
+	"bytes"
 	"context"
 	"errors"
 	"os"
@@ -50,6 +51,30 @@ func FuzzRunSource(f *testing.F) {
 		var te *TimeoutError
 		if errors.As(err, &te) && te.Abandoned {
 			t.Logf("interpreter abandoned for %q", src)
+		}
+	})
+}
+
+// FuzzTableLines checks that the token scan behind the short form's
+// entry lines never panics and gives only lines that exist in the source.
+func FuzzTableLines(f *testing.F) {
+	files, _ := filepath.Glob(filepath.Join("testdata", "good", "*.lua"))
+	for _, file := range files {
+		b, err := os.ReadFile(file)
+		if err != nil {
+			f.Fatal(err)
+		}
+		f.Add(b)
+	}
+	f.Add([]byte(`x = { name = "a", y = { name = "b" } } }} {{ name = [[c]]`))
+	f.Fuzz(func(t *testing.T, src []byte) {
+		lines := 1 + bytes.Count(src, []byte("\n")) + bytes.Count(src, []byte("\r"))
+		for name, ls := range tableLines(src, "f.lua") {
+			for _, l := range ls {
+				if l < 1 || l > lines {
+					t.Fatalf("%q: line %d of a %d-line source", name, l, lines)
+				}
+			}
 		}
 	})
 }

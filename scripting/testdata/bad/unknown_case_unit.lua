@@ -1,1 +1,0 @@
-local ship = include("../good/plant_tanker.lua")
