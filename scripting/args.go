@@ -169,19 +169,18 @@ func (r *runner) dropError(e *Error) {
 // keys are given as their text.
 func (r *runner) unknownKeys(t *lua.LTable, accepted []string) []string {
 	var out []string
-	k, v := t.Next(lua.LNil)
+	k, _ := t.Next(lua.LNil)
 	for n := 0; k != lua.LNil; n++ {
 		if n >= r.opt.MaxTable {
 			break
 		}
-		_ = v
 		ks, isStr := k.(lua.LString)
 		if !isStr {
 			out = append(out, fmt.Sprintf("[%s]", k.String()))
 		} else if !contains(accepted, string(ks)) {
 			out = append(out, string(ks))
 		}
-		k, v = t.Next(k)
+		k, _ = t.Next(k)
 	}
 	sort.Strings(out)
 	return out

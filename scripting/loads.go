@@ -3,6 +3,7 @@ package scripting
 import (
 	"errors"
 	"fmt"
+	"sort"
 	"strings"
 
 	lua "github.com/yuin/gopher-lua"
@@ -45,7 +46,7 @@ func unknownKindMsg(k string) string {
 	for n := range loadsBuilders {
 		names = append(names, n)
 	}
-	sortStrings(names)
+	sort.Strings(names)
 	msg := fmt.Sprintf("unknown consumer kind %q", k)
 	if s := suggest(k, names); s != "" {
 		msg += fmt.Sprintf("; did you mean %q?", s)

@@ -3,6 +3,7 @@ package scripting
 import (
 	"errors"
 	"fmt"
+	"sort"
 	"strings"
 
 	lua "github.com/yuin/gopher-lua"
@@ -85,7 +86,7 @@ func (r *runner) register() {
 func unknownMethodMsg(key string, methods *lua.LTable) string {
 	var names []string
 	methods.ForEach(func(k, _ lua.LValue) { names = append(names, k.String()) })
-	sortStrings(names)
+	sort.Strings(names)
 	msg := fmt.Sprintf("no unit kind or method '%s'", key)
 	if s := suggest(key, names); s != "" {
 		msg += fmt.Sprintf("; did you mean '%s'?", s)
@@ -711,14 +712,6 @@ func (r *runner) unknownUnitMsg(ph *plantHandle, name string) string {
 		msg += fmt.Sprintf("; did you mean %q?", s)
 	}
 	return msg
-}
-
-func sortStrings(s []string) {
-	for i := 1; i < len(s); i++ {
-		for j := i; j > 0 && s[j] < s[j-1]; j-- {
-			s[j], s[j-1] = s[j-1], s[j]
-		}
-	}
 }
 
 // markEnd remembers an end of a reported line: the unit and port as given
