@@ -151,12 +151,13 @@ func dProp2(f func(a, b float64) (float64, error), a, b, f0 float64) (da, db flo
 	return da, db, err
 }
 
-// unitFD is the derivative of a unit's own function f with respect to the
-// unknown col, by a forward difference (a backward one where the forward
-// step leaves the bounds, the domain, or the branch the base point is on).
-// f returns its value and a branch key; f0 and branch0 are those at the
-// base point. ev.x is changed during the call and restored exactly.
-func unitFD(ev *eval, col int, f0 float64, branch0 int, f func() (float64, int, error)) (float64, error) {
+// unitFD is the derivative of a unit's own function f (up to two values)
+// with respect to the unknown col, by a forward difference (a backward one
+// where the forward step leaves the bounds, the domain, or the branch the
+// base point is on). f returns its values and a branch key; f0 and
+// branch0 are those at the base point. ev.x is changed during the call and
+// restored exactly.
+func unitFD(ev *eval, col int, f0 [2]float64, branch0 int, f func() ([2]float64, int, error)) ([2]float64, error) {
 	a := ev.pl.asm
 	x := ev.x
 	x0 := x[col]
@@ -179,14 +180,15 @@ func unitFD(ev *eval, col int, f0 float64, branch0 int, f func() (float64, int, 
 		if br != branch0 {
 			continue
 		}
-		return (v - f0) / (xt - x0), nil
+		d := xt - x0
+		return [2]float64{(v[0] - f0[0]) / d, (v[1] - f0[1]) / d}, nil
 	}
 	if firstErr != nil {
-		return 0, firstErr
+		return [2]float64{}, firstErr
 	}
 	// Both sides change branch (a point exactly on a switch, or a step
 	// across a narrow branch): the active branch is constant there.
-	return 0, nil
+	return [2]float64{}, nil
 }
 
 // ---------------------------------------------------------------------------
@@ -546,20 +548,31 @@ func (u *Boiler) jacobian(ev *eval, j *mat.Dense) error {
 		}
 		return nil
 	}
-	etaOf := func() (float64, int, error) {
+	if u.economiser(ev) != nil {
+		// The economiser on this boiler's gas differences the efficiency
+		// together with its own duty (one model evaluation per unknown).
+		return nil
+	}
+	etaOf := func() ([2]float64, int, error) {
 		pt, c, err := u.eta(ev)
-		return pt.Eta, b2i(c), err
+		return [2]float64{pt.Eta}, b2i(c), err
 	}
 	for _, col := range [4]int{u.steam.mIdx(), u.feed.pIdx(), u.feed.hIdx(), u.fuel} {
-		d, err := unitFD(ev, col, eta, b2i(cycling), etaOf)
+		d, err := unitFD(ev, col, [2]float64{eta}, b2i(cycling), etaOf)
 		if err != nil {
 			return wrapUnitErr(u, err)
 		}
-		a.add(e[3], col, fuel*lhv*d)
+		a.add(e[3], col, fuel*lhv*d[0])
 	}
-	// Leave the efficiency's cache at the base point.
-	if _, _, err := u.eta(ev); err != nil {
-		return wrapUnitErr(u, err)
+	return nil
+}
+
+// economiser returns the flue-gas economiser on the boiler's gas, or nil.
+func (u *Boiler) economiser(ev *eval) *Economiser {
+	for _, x := range ev.pl.units {
+		if e, ok := x.(*Economiser); ok && e.b == u {
+			return e
+		}
 	}
 	return nil
 }
@@ -606,30 +619,36 @@ func (u *Economiser) jacobian(ev *eval, j *mat.Dense) error {
 	a.add(e, u.out.hIdx(), m)
 	a.add(e, u.in.hIdx(), -m)
 	// The duty: a rating of the exchanger on the boiler's flue gas, by
-	// differences of the economiser's own duty.
-	res, _, err := u.duty(ev)
+	// differences of the economiser's own duty. The boiler's efficiency
+	// (its row) is differenced in the same evaluations: the duty evaluates
+	// it at the same point.
+	res, g, err := u.duty(ev)
 	if err != nil {
 		return wrapUnitErr(u, err)
 	}
-	branch := b2i(u.b.cycles(ev))
-	q := func() (float64, int, error) {
-		r, _, err := u.duty(ev)
-		return r.Q, b2i(u.b.cycles(ev)), err
+	b := u.b
+	f0 := [2]float64{res.Q, g.pt.Eta}
+	branch := b2i(b.cycles(ev))
+	q := func() ([2]float64, int, error) {
+		r, g, err := u.duty(ev)
+		return [2]float64{r.Q, g.pt.Eta}, b2i(b.cycles(ev)), err
 	}
-	cols := [7]int{u.in.mIdx(), u.in.pIdx(), u.in.hIdx(), u.b.fuel, u.b.steam.mIdx(), u.b.feed.pIdx(), u.b.feed.hIdx()}
+	// The water inlet first: it leaves the boiler's operating point, and
+	// so its cached efficiency, as it is.
+	cols := [7]int{u.in.mIdx(), u.in.pIdx(), u.in.hIdx(), b.fuel, b.steam.mIdx(), b.feed.pIdx(), b.feed.hIdx()}
+	fuelLHV := ev.x[b.fuel] * b.Fuel.LHV
 	for i, col := range cols {
 		if seen(cols[:i], col) {
 			continue // the same unknown reached twice
 		}
-		d, err := unitFD(ev, col, res.Q, branch, q)
+		d, err := unitFD(ev, col, f0, branch, q)
 		if err != nil {
 			return wrapUnitErr(u, err)
 		}
-		a.add(e, col, -d)
-	}
-	// Leave the boiler's efficiency cache at the base point.
-	if _, _, err := u.b.eta(ev); err != nil {
-		return wrapUnitErr(u, err)
+		a.add(e, col, -d[0])
+		if i >= 3 {
+			a.add(b.eqs[3], col, fuelLHV*d[1])
+		}
 	}
 	return nil
 }

@@ -396,27 +396,74 @@ func TestJacobianKeepsUnknowns(t *testing.T) {
 }
 
 // BenchmarkJacobian times one analytic Jacobian against one coloured
-// finite-difference Jacobian of the solver, on the two-boiler plant.
+// finite-difference Jacobian of the solver at a solved point, through
+// Solver.Jacobian (which also unscales into the caller's matrix).
 func BenchmarkJacobian(b *testing.B) {
-	for _, fd := range []bool{false, true} {
-		name := "analytic"
-		if fd {
-			name = "finite-differences"
-		}
-		b.Run(name, func(b *testing.B) {
-			p := twoBoilers(b, Options{FiniteDifferences: fd})
-			if _, err := p.Solve(context.Background(), demandCase("bench", 6000)); err != nil {
-				b.Fatal(err)
-			}
-			n := p.prob.Dim
-			j := mat.NewDense(n, n, nil)
-			x := append([]float64(nil), p.last...)
-			for b.Loop() {
-				if err := p.slv.Jacobian(j, x, !fd); err != nil {
+	for _, fx := range benchFixtures() {
+		for _, fd := range []bool{false, true} {
+			b.Run(fx.name+"/"+jacName(fd), func(b *testing.B) {
+				p := fx.build(b)
+				p.Opt.FiniteDifferences = fd
+				if _, err := p.Solve(context.Background(), fx.cases[0]); err != nil {
 					b.Fatal(err)
 				}
-			}
-			b.ReportMetric(float64(p.slv.Colors()), "colours")
-		})
+				n := p.prob.Dim
+				j := mat.NewDense(n, n, nil)
+				x := append([]float64(nil), p.last...)
+				for b.Loop() {
+					if err := p.slv.Jacobian(j, x, !fd); err != nil {
+						b.Fatal(err)
+					}
+				}
+				b.ReportMetric(float64(p.slv.Colors()), "colours")
+			})
+		}
 	}
+}
+
+// BenchmarkCaseJacobian solves a case from the plant's own guess with
+// each Jacobian; residual-evals counts the calls of the residual in the
+// last solve of the case (the one whose firing set the plant keeps).
+func BenchmarkCaseJacobian(b *testing.B) {
+	for _, fx := range benchFixtures() {
+		for _, fd := range []bool{false, true} {
+			b.Run(fx.name+"/"+jacName(fd), func(b *testing.B) {
+				p := fx.build(b)
+				p.Opt.FiniteDifferences = fd
+				ctx := context.Background()
+				var iters, evals int
+				for b.Loop() {
+					p.ColdStart()
+					cr, err := p.Solve(ctx, fx.cases[0])
+					if err != nil {
+						b.Fatal(err)
+					}
+					iters += cr.Iterations
+					evals += p.slvRes.Stats.ResidualEvals
+				}
+				b.ReportMetric(float64(iters)/float64(b.N), "newton-iters/op")
+				b.ReportMetric(float64(evals)/float64(b.N), "residual-evals/op")
+			})
+		}
+	}
+}
+
+func jacName(fd bool) string {
+	if fd {
+		return "finite-differences"
+	}
+	return "analytic"
+}
+
+// benchFixtures are the fixtures the benchmarks run: one per kind of
+// efficiency model and the plant with every unit.
+func benchFixtures() []jacFixture {
+	var fs []jacFixture
+	for _, fx := range jacFixtures() {
+		switch fx.name {
+		case "two boilers", "every unit", "economiser", "furnace", "exhaust-gas economiser and boiler":
+			fs = append(fs, fx)
+		}
+	}
+	return fs
 }
