@@ -163,6 +163,10 @@ func (p *Plant) compile() error {
 		return nil
 	}
 	var fs faults
+	if len(p.units) == 0 {
+		fs.add(p.Pos, "", "", "plant %q has no units", p.Name)
+		return fs.err()
+	}
 	lineNames := map[string]*Line{}
 	ports := map[string]map[string][]*Line{}
 	for _, u := range p.units {

@@ -494,3 +494,16 @@ func TestCoupledConsumers(t *testing.T) {
 		t.Errorf("balances do not close: %+v", cr.Balance)
 	}
 }
+
+func TestEmptyPlant(t *testing.T) {
+	p := New("nothing", Options{})
+	if err := p.Check(); err == nil || !strings.Contains(err.Error(), "no units") {
+		t.Errorf("empty plant: %v", err)
+	}
+	// A unit whose ports are all optional or unconnected still fails
+	// cleanly: a make-up with nowhere to go.
+	must(t, p.Add(&MakeUp{UnitBase: UnitBase{Name: "makeup"}, T: 300}))
+	if err := p.Check(); err == nil || !strings.Contains(err.Error(), "not connected") {
+		t.Errorf("lone make-up: %v", err)
+	}
+}
