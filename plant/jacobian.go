@@ -493,12 +493,6 @@ func (u *Condenser) jacobian(ev *eval, j *mat.Dense) error {
 	return nil
 }
 
-// cycles reports whether the boiler cycles below its burner minimum at
-// the present unknowns, as operation decides it.
-func (u *Boiler) cycles(ev *eval) bool {
-	return ev.m(u.steam)/u.MCR < u.MinLoad()-1e-12
-}
-
 func b2i(b bool) int {
 	if b {
 		return 1
@@ -628,10 +622,19 @@ func (u *Economiser) jacobian(ev *eval, j *mat.Dense) error {
 	}
 	b := u.b
 	f0 := [2]float64{res.Q, g.pt.Eta}
-	branch := b2i(b.cycles(ev))
+	// The branch is whether the boiler cycles below its burner minimum;
+	// eta answers from its cache, just filled by duty.
+	_, cycling, err := b.eta(ev)
+	if err != nil {
+		return wrapUnitErr(u, err)
+	}
 	q := func() ([2]float64, int, error) {
 		r, g, err := u.duty(ev)
-		return [2]float64{r.Q, g.pt.Eta}, b2i(b.cycles(ev)), err
+		if err != nil {
+			return [2]float64{}, 0, err
+		}
+		_, c, err := b.eta(ev)
+		return [2]float64{r.Q, g.pt.Eta}, b2i(c), err
 	}
 	// The water inlet first: it leaves the boiler's operating point, and
 	// so its cached efficiency, as it is.
@@ -641,7 +644,7 @@ func (u *Economiser) jacobian(ev *eval, j *mat.Dense) error {
 		if seen(cols[:i], col) {
 			continue // the same unknown reached twice
 		}
-		d, err := unitFD(ev, col, f0, branch, q)
+		d, err := unitFD(ev, col, f0, b2i(cycling), q)
 		if err != nil {
 			return wrapUnitErr(u, err)
 		}

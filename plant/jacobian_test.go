@@ -523,3 +523,42 @@ func TestAnalyticJacobianSweep(t *testing.T) {
 			sw.name, len(sw.cases), itA, itF, evA, evF)
 	}
 }
+
+// TestJacobianAtBurnerMinimum: a boiler at its burner minimum switches
+// between firing continuously and cycling (with the cycling loss), a jump
+// in its fuel equation. On either side of the switch, within a difference
+// step of it, the Jacobian is the derivative of the side the residual is
+// on: it matches central differences of the residual taken a little
+// further inside that side (within 1 %, which the jump would exceed by
+// orders of magnitude; checked against central finite differences, no
+// outside source).
+func TestJacobianAtBurnerMinimum(t *testing.T) {
+	p := economiserPlant(t)
+	_, err := p.Solve(context.Background(), Case{Name: "sea", Conditions: Conditions{AirT: 308.15}})
+	must(t, err)
+	b := p.Unit("b1").(*Boiler)
+	n := p.prob.Dim
+	ms := b.steam.mIdx()
+	row, col := b.eqs[3], ms
+	edge := b.MinLoad() * b.MCR
+	r := make([]float64, n)
+	for _, side := range []struct {
+		name       string
+		at, inside float64
+	}{
+		{"just cycling", edge * (1 - 1e-10), edge * (1 - 1e-3)},
+		{"just firing", edge, edge * (1 + 1e-3)},
+	} {
+		x := append([]float64(nil), p.last...)
+		x[ms] = side.at
+		must(t, p.residual(r, x))
+		j := mat.NewDense(n, n, nil)
+		must(t, p.slv.Jacobian(j, x, true))
+		got := j.At(row, col)
+		x[ms] = side.inside
+		want := centralJacobian(t, p, x).At(row, col)
+		if math.Abs(got-want) > 0.01*math.Abs(want) {
+			t.Errorf("%s: d(%s)/d(%s) = %g, want %g (the derivative of that side)", side.name, p.asm.eqNames[row], p.asm.varNames[col], got, want)
+		}
+	}
+}
