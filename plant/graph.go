@@ -81,6 +81,7 @@ type Line struct {
 
 	medium Medium
 	idx    int // index of the mass flow in the unknown vector; p at idx+1, h at idx+2
+	sat    satMemo
 }
 
 // Index of the line's unknowns in the plant's unknown vector.

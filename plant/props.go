@@ -87,3 +87,65 @@ func vPH(p, h float64) (float64, error) {
 
 // waterTsat is the saturation temperature at p.
 func waterTsat(p float64) (float64, error) { return water.Tsat(p) }
+
+// The critical point of water, IAPWS-IF97 Eqs. 2 and 3.
+const (
+	tCrit = 647.096  // K
+	pCrit = 22.064e6 // Pa
+)
+
+// satMemo keeps a line's saturation state at its last pressure: a line's
+// pressure is nearly always a set point, so across the cases of a profile
+// the report finds it here.
+type satMemo struct {
+	p, tSat, hf, hg float64
+	set             bool
+}
+
+// state is the reported state of a line at (p, h): temperature, quality
+// and phase, with the saturation figures memoised by pressure.
+func (l *Line) state(p, h float64) (LineResult, error) {
+	r := LineResult{P: p, H: h}
+	if p >= pCrit {
+		t, err := tPH(p, h)
+		if err != nil {
+			return r, err
+		}
+		r.T, r.Phase, r.X = t, water.Supercritical.String(), 1
+		if t < tCrit {
+			r.Phase, r.X = water.Liquid.String(), 0
+		}
+		return r, nil
+	}
+	m := &l.sat
+	if !m.set || m.p != p {
+		ts, err := water.Tsat(p)
+		if err != nil {
+			return r, err
+		}
+		hf, err := hLiquidSat(p)
+		if err != nil {
+			return r, err
+		}
+		hg, err := hVapourSat(p)
+		if err != nil {
+			return r, err
+		}
+		*m = satMemo{p: p, tSat: ts, hf: hf, hg: hg, set: true}
+	}
+	switch {
+	case h > m.hf && h < m.hg:
+		r.T, r.X, r.Phase, r.TwoPhase = m.tSat, (h-m.hf)/(m.hg-m.hf), water.TwoPhase.String(), true
+		return r, nil
+	case h <= m.hf:
+		r.Phase, r.X = water.Liquid.String(), 0
+	default:
+		r.Phase, r.X = water.Vapour.String(), 1
+	}
+	t, err := tPH(p, h)
+	if err != nil {
+		return r, err
+	}
+	r.T = t
+	return r, nil
+}

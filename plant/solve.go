@@ -6,7 +6,6 @@ import (
 	"fmt"
 	"math"
 
-	"steamcase/plant/water"
 	"steamcase/solver"
 )
 
@@ -384,14 +383,12 @@ func (p *Plant) report(cr *CaseResult) error {
 		if l.medium != WaterSteam {
 			continue
 		}
-		st, err := water.PH(ev.p(l), ev.h(l))
+		lr, err := l.state(ev.p(l), ev.h(l))
 		if err != nil {
 			return fmt.Errorf("line %q: %w", l.Name, err)
 		}
-		cr.Lines = append(cr.Lines, LineResult{
-			Name: l.Name, M: ev.m(l), P: st.P, T: st.T, H: st.H, X: st.X,
-			Phase: st.Phase.String(), TwoPhase: st.Phase == water.TwoPhase,
-		})
+		lr.Name, lr.M = l.Name, ev.m(l)
+		cr.Lines = append(cr.Lines, lr)
 	}
 
 	var capFiring, capAll, fired float64
