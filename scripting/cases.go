@@ -40,15 +40,18 @@ var caseKeys = map[string][]setKey{
 		{key: "subcool", param: "subcooling", dim: units.TemperatureDifference},
 		{key: "return_T", param: "return_T", dim: units.Temperature},
 		{key: "off", param: "off", how: setBool},
+		{key: "factor", param: "factor", dim: units.Fraction},
 	},
-	"turbine":        {{key: "power", param: "power", dim: units.Power}, {key: "off", param: "off", how: setBool}},
-	"boiler":         {{key: "mcr", param: "mcr", dim: units.MassFlow}, {key: "drum", param: "drum_p", dim: units.Pressure}, {key: "dryness", param: "dryness", dim: units.Fraction}, {key: "blowdown", param: "blowdown", dim: units.Fraction}},
-	"feed_tank":      {{key: "heat_loss", param: "heat_loss", dim: units.Power}, {key: "set_T", param: "set_T", dim: units.Temperature}, {key: "room_T", param: "room_T", dim: units.Temperature}},
-	"feed_pump":      {{key: "eta", param: "eta", dim: units.Fraction}, {key: "margin", param: "margin", how: setPressureDiff}},
-	"header":         {{key: "heat_loss", param: "heat_loss", dim: units.Power}},
-	"reducing_valve": {{key: "p", param: "p", dim: units.Pressure}},
-	"makeup":         {{key: "T", param: "T", dim: units.Temperature}},
-	"condenser":      {{key: "subcool", param: "subcooling", dim: units.TemperatureDifference}},
+	"turbine":                {{key: "power", param: "power", dim: units.Power}, {key: "off", param: "off", how: setBool}},
+	"boiler":                 {{key: "mcr", param: "mcr", dim: units.MassFlow}, {key: "drum", param: "drum_p", dim: units.Pressure}, {key: "dryness", param: "dryness", dim: units.Fraction}, {key: "blowdown", param: "blowdown", dim: units.Fraction}, {key: "eta_factor", param: "eta_factor", dim: units.Fraction}},
+	"feed_tank":              {{key: "heat_loss", param: "heat_loss", dim: units.Power}, {key: "set_T", param: "set_T", dim: units.Temperature}, {key: "room_T", param: "room_T", dim: units.Temperature}},
+	"feed_pump":              {{key: "eta", param: "eta", dim: units.Fraction}, {key: "margin", param: "margin", how: setPressureDiff}},
+	"header":                 {{key: "heat_loss", param: "heat_loss", dim: units.Power}},
+	"reducing_valve":         {{key: "p", param: "p", dim: units.Pressure}},
+	"makeup":                 {{key: "T", param: "T", dim: units.Temperature}},
+	"condenser":              {{key: "subcool", param: "subcooling", dim: units.TemperatureDifference}},
+	"exhaust_gas_economiser": {{key: "off", param: "off", how: setBool}, {key: "ua", param: "ua", dim: units.ThermalConductance}},
+	"economiser":             {{key: "ua", param: "ua", dim: units.ThermalConductance}},
 }
 
 // modelKeys are the case keys of consumers driven by a loads model: they
@@ -57,6 +60,7 @@ var modelKeys = []setKey{
 	{key: "returns", param: "return_fraction", dim: units.Fraction},
 	{key: "subcool", param: "subcooling", dim: units.TemperatureDifference},
 	{key: "off", param: "off", how: setBool},
+	{key: "factor", param: "factor", dim: units.Fraction},
 }
 
 // loadsKeys are the case keys of the loads models besides modelKeys.

@@ -189,6 +189,9 @@ var unitBuilders = map[string]unitBuilder{
 	"consumer":       buildConsumer,
 	"turbine":        buildTurbine,
 	"condenser":      buildCondenser,
+	// exhaust_gas_economiser and economiser: combustion.go
+	"exhaust_gas_economiser": buildEGE,
+	"economiser":             buildEconomiser,
 }
 
 // unitMethod makes the plant method that declares a unit of a kind.
@@ -272,6 +275,10 @@ func setBase(u plant.Unit, name string, pos Pos) {
 	case *plant.Turbine:
 		v.UnitBase = base
 	case *plant.Condenser:
+		v.UnitBase = base
+	case *plant.ExhaustGasEconomiser:
+		v.UnitBase = base
+	case *plant.Economiser:
 		v.UnitBase = base
 	default:
 		panic(fmt.Sprintf("scripting: setBase: unit type %T not handled", u))
@@ -401,7 +408,14 @@ func buildBoiler(r *runner, a *args, ph *plantHandle) plant.Unit {
 	u.Fuel = a.fuelSpec()
 	if eta := a.efficiency(); eta != nil {
 		u.Efficiency = eta
+		if _, plain := eta.(*plant.EfficiencyTable); !plain {
+			if u.Fuel.Fuel == nil && u.Fuel.Name != "" {
+				a.errorf(nil, "a combustion model of the efficiency (flue_gas or furnace) needs a fuel grade (%s) for the fuel's analysis; got %q", strings.Join(fuel.GradeNames(), ", "), u.Fuel.Name)
+			}
+			wsggFor(eta, u.Fuel.Fuel)
+		}
 	}
+	u.Burner = r.burner(a)
 	return u
 }
 
@@ -415,17 +429,14 @@ func (a *args) fuelSpec() plant.FuelSpec {
 	if hasName {
 		spec.Name = name
 		if f, err := fuel.Grade(name); err == nil {
+			// The full fuel goes with the spec: the combustion models
+			// need its analysis.
+			s, err := plant.SpecFromFuel(f)
+			if err != nil {
+				a.errorf(err, "fuel %q: %v", name, err)
+			}
+			spec = s
 			spec.Name = f.Name
-			if e, err := f.Energy(); err != nil {
-				a.errorf(err, "fuel %q: %v", name, err)
-			} else {
-				spec.LHV = e.Net
-			}
-			if c, err := f.CO2(); err != nil {
-				a.errorf(err, "fuel %q: %v", name, err)
-			} else {
-				spec.CO2Factor = c.Value
-			}
 		} else if !(hasLHV && hasCO2) {
 			grades := fuel.GradeNames()
 			msg := fmt.Sprintf("fuel %q is not a built-in grade", name)
@@ -461,9 +472,10 @@ func isGrade(name string) bool {
 	return name != "" && err == nil
 }
 
-// efficiency reads efficiency: a table of {load, efficiency} pairs, or a
-// single efficiency for every load.
-func (a *args) efficiency() *plant.EfficiencyTable {
+// efficiency reads efficiency: a table of {load, efficiency} pairs, a
+// single efficiency for every load, or a combustion model (a table with
+// the key flue_gas or furnace).
+func (a *args) efficiency() plant.EfficiencyModel {
 	v := a.get("efficiency")
 	switch x := v.(type) {
 	case *lua.LNilType:
@@ -484,6 +496,12 @@ func (a *args) efficiency() *plant.EfficiencyTable {
 		}
 		return t
 	case *lua.LTable:
+		if x.RawGetString("flue_gas") != lua.LNil || x.RawGetString("furnace") != lua.LNil {
+			if m := a.r.combustionEfficiency(a, x); m != nil {
+				return m
+			}
+			return nil
+		}
 		n := x.Len()
 		if n == 0 || n > 200 {
 			a.errorf(nil, "efficiency table needs 1 to 200 {load, efficiency} pairs; got %d", n)

@@ -33,6 +33,8 @@ func TestGoodScripts(t *testing.T) {
 		{"sweep.lua", 4, 1, 8},
 		{"profile.lua", 3, 1, 3},
 		{"loads.lua", 5, 1, 14},
+		{"ege_short.lua", 3, 1, 5},
+		{"ege_full.lua", 2, 1, 4},
 	}
 	for _, tc := range tests {
 		for _, checkOnly := range []bool{false, true} {

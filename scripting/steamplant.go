@@ -13,6 +13,10 @@ const (
 	defaultMakeUpT    = "15 C"  // make-up water temperature: common practice, no source
 	defaultPumpMargin = "3 bar" // feed pump margin over the drum: common practice, no source
 	defaultPumpEta    = "45 %"  // feed pump efficiency: common practice, no source
+	// dump condenser subcooling below saturation at the main header's
+	// pressure: condensate at about 90 C from a 7 bar(g) header, below the
+	// boiling point of a vented hotwell (common practice, no source)
+	defaultDumpSubcool = "80 K"
 )
 
 // copyTable returns a shallow copy of t (nil gives an empty table) with
@@ -80,6 +84,12 @@ func (r *runner) luaSteamPlant(L *lua.LState) int {
 	headers := r.list(a, "headers")
 	consumers := r.list(a, "consumers")
 	turbines := r.list(a, "turbines")
+	ege := r.subTable(a, "exhaust_gas_economiser")
+	dump := r.subTable(a, "dump_condenser")
+	economisers := r.list(a, "economisers")
+	if dump != nil && ege == nil {
+		a.errorf(nil, "dump_condenser is only built with an exhaust_gas_economiser")
+	}
 	if len(boilers) == 0 && a.nerr == 0 {
 		a.errorf(nil, "boilers is required: a list such as { {name = \"AB1\", mcr = \"3 t/h\", drum = \"7 bar(g)\", fuel = \"MGO\", efficiency = \"85 %%\"} }")
 	}
@@ -169,11 +179,55 @@ func (r *runner) luaSteamPlant(L *lua.LState) int {
 		line(hPos, "to "+pn, main+".out", pn+".in")
 		line(hPos, "from "+pn, pn+".out", hn+".in")
 	}
+	// Economisers sit on the feed line of their boiler.
+	ecoOf := map[string]string{}
+	for _, e := range economisers {
+		ePos := at(e, "")
+		var boiler string
+		en := r.addUnit(ph, "economiser", e, ePos, buildEconomiser, func(a *args) {
+			boiler, _ = a.str("boiler", false)
+		})
+		if en == "" {
+			continue
+		}
+		if !contains(boilerNames, boiler) {
+			continue // the plant reports the unknown boiler
+		}
+		if prev, dup := ecoOf[boiler]; dup {
+			r.errs = append(r.errs, &Error{Pos: ePos, Unit: fmt.Sprintf("economiser %q", en), Msg: fmt.Sprintf("boiler %q already has the economiser %q; the short form takes one per boiler", boiler, prev)})
+			continue
+		}
+		ecoOf[boiler] = en
+		line(ePos, "feed "+en, fh+".out", en+".in")
+	}
 	for _, b := range boilers {
 		bPos := at(b, "")
 		bn := r.addUnit(ph, "boiler", b, bPos, buildBoiler, nil)
-		line(bPos, "feed "+bn, fh+".out", bn+".feed")
+		if en, ok := ecoOf[bn]; ok && bn != "" {
+			line(bPos, "feed "+bn, en+".out", bn+".feed")
+		} else {
+			line(bPos, "feed "+bn, fh+".out", bn+".feed")
+		}
 		line(bPos, "steam "+bn, bn+".steam", main+".in")
+	}
+	if ege != nil {
+		ePos := at(ege, "exhaust_gas_economiser")
+		en := r.addUnit(ph, "exhaust_gas_economiser", named(ege, "EGE"), ePos, buildEGE, nil)
+		if en != "" {
+			line(ePos, "feed "+en, fh+".out", en+".feed")
+			line(ePos, "steam "+en, en+".steam", main+".in")
+		}
+		dPos := ePos
+		if dump != nil {
+			dPos = at(dump, "dump_condenser")
+		}
+		dc := r.copyTable(named(dump, "dump condenser"), "dump_condenser", map[string]string{"subcool": defaultDumpSubcool})
+		dc.RawSetString("dump", lua.LTrue)
+		dn := r.addUnit(ph, "condenser", dc, dPos, buildCondenser, nil)
+		if dn != "" {
+			line(dPos, "to "+dn, main+".out", dn+".in")
+			line(dPos, "condensate of "+dn, dn+".out", hwName+".in")
+		}
 	}
 	if hw.RawGetString("set_T") != lua.LNil {
 		line(hwPos, "hotwell heating", main+".out", hwName+".steam")
