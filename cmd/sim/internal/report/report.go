@@ -97,7 +97,7 @@ func writeCase(w io.Writer, n, total int, c Case) {
 		if cs.Kind == "steam turbine" {
 			note = "shaft power"
 		}
-		if cs.DrainCoolerW != 0 {
+		if fix(cs.DrainCoolerW/1e3, 1) != "0.0" { // a cooler that gives up heat
 			note += fmt.Sprintf("; drain cooler %s kW", fix(cs.DrainCoolerW/1e3, 1))
 		}
 		fmt.Fprintf(tw, "      %s\t%s\t%10s\t%10s\t%s\n", cs.Name, cs.Kind, fix(cs.SteamKgS*kgh, 1), fix(cs.DutyW/1e3, 1), note)
