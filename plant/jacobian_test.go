@@ -418,6 +418,22 @@ func BenchmarkJacobian(b *testing.B) {
 				b.ReportMetric(float64(p.slv.Colors()), "colours")
 			})
 		}
+		// The plant's own part of the analytic Jacobian, without the
+		// solver's scaling, checks and copy.
+		b.Run(fx.name+"/plant-only", func(b *testing.B) {
+			p := fx.build(b)
+			if _, err := p.Solve(context.Background(), fx.cases[0]); err != nil {
+				b.Fatal(err)
+			}
+			n := p.prob.Dim
+			j := mat.NewDense(n, n, nil)
+			x := append([]float64(nil), p.last...)
+			for b.Loop() {
+				if err := p.jacobian(j, x); err != nil {
+					b.Fatal(err)
+				}
+			}
+		})
 	}
 }
 
