@@ -34,12 +34,19 @@ import (
 //     not cheap to differentiate: their terms are one-sided (forward, else
 //     backward) differences of the unit's own function over the columns of
 //     its pattern (unitFD), with the step the solver's own differences use.
+//     A boiler with a flue-gas economiser has its efficiency differenced by
+//     the economiser, in the same evaluations as the duty.
+//   - The exhaust-gas economiser's gas side is fixed for the case, so its
+//     rows are exact.
 //   - At non-smooth points the derivative is that of the active branch, as
 //     the residual chose it: the feed tank's mix / heating set point /
 //     saturation switch, heating or venting, a boiler cycling below its
-//     burner minimum (unitFD keeps the step on the side of the branch).
+//     burner minimum (unitFD keeps the step on the side of the branch). A
+//     state exactly on a phase boundary (a venting feed tank delivers
+//     saturated water to the pump) takes the side a forward step reaches.
 //
-// After its first call the Jacobian allocates nothing.
+// After its first call the Jacobian allocates nothing, apart from what a
+// combustion efficiency model allocates in its own evaluations.
 
 // propRel is the relative step of the differences of water properties:
 // √ε, the usual step of a forward difference, whose error is then near
