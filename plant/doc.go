@@ -47,6 +47,19 @@
 //     subcooling, return fraction, drain cooler), Turbine (isentropic and
 //     mechanical efficiency), Condenser and dump condenser.
 //
+// # Solving
+//
+// The unknowns are scaled (flows ~1 kg/s, pressures and enthalpies ~1e6)
+// and bounded (flows not negative, pressures and enthalpies inside the
+// range of IF97) and solved by damped Newton with a sparse LU. The plant
+// gives the solver an analytic Jacobian: exact for everything linear or
+// bilinear in the unknowns, with the derivatives of water properties and
+// of combustion efficiency models taken by small differences of those
+// functions alone (Options.FiniteDifferences falls back to the solver's
+// coloured finite differences of the whole residual). Successive cases
+// start from the last solution, so a sequence of nearby cases takes one
+// to three iterations each.
+//
 // # Which boilers fire
 //
 // Exhaust-gas economisers first: if the plant has a dump condenser and the
