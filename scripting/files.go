@@ -124,7 +124,7 @@ func (r *runner) luaReadCSV(L *lua.LState) int {
 		r.fail("", "read_csv(%q): the file is empty; it needs a header row", name)
 	}
 	if err != nil {
-		r.csvErr(show, name, err)
+		r.csvErrIn("read_csv", show, name, err)
 	}
 	const maxCols = 256
 	if len(header) > maxCols {
@@ -149,7 +149,7 @@ func (r *runner) luaReadCSV(L *lua.LState) int {
 			break
 		}
 		if err != nil {
-			r.csvErr(show, name, err)
+			r.csvErrIn("read_csv", show, name, err)
 		}
 		if n >= r.opt.MaxRows {
 			r.fail("", "read_csv(%q): more than %d rows", name, r.opt.MaxRows)
@@ -164,15 +164,15 @@ func (r *runner) luaReadCSV(L *lua.LState) int {
 	return 1
 }
 
-// csvErr raises a CSV parse error at the file's line.
-func (r *runner) csvErr(show, name string, err error) {
+// csvErrIn raises a CSV parse error of function fn at the file's line.
+func (r *runner) csvErrIn(fn, show, name string, err error) {
 	var pe *csv.ParseError
 	if errors.As(err, &pe) {
 		msg := pe.Err.Error()
 		if errors.Is(pe.Err, csv.ErrFieldCount) {
 			msg = "this row has a different number of fields from the header"
 		}
-		r.raise(&Error{Pos: Pos{File: show, Line: pe.Line, Col: pe.Column}, Msg: "read_csv: " + msg, Err: err})
+		r.raise(&Error{Pos: Pos{File: show, Line: pe.Line, Col: pe.Column}, Msg: fn + ": " + msg, Err: err})
 	}
-	r.failErr("", err, "read_csv(%q): %v", name, err)
+	r.failErr("", err, "%s(%q): %v", fn, name, err)
 }

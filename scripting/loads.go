@@ -161,9 +161,11 @@ func (a *args) cargo() loads.Cargo {
 	return c
 }
 
-func buildTankHeating(r *runner, a *args, ph *plantHandle) plant.Unit {
-	u := &plant.Consumer{Label: "tank heating"}
-	m := &tankModel{}
+// tankGeometry reads the tank of a tank_heating (or of cool_down's tank
+// table): the cargo (fuel or density, cp, cargo), flash_point, and
+// dimensions or volume with boundaries.
+func (r *runner) tankGeometry(a *args) loads.TankHeating {
+	var m struct{ t loads.TankHeating } // the fields as buildTankHeating names them
 	cargo := a.cargo()
 	m.t.FlashPoint, _ = a.quantity("flash_point", units.Temperature, false)
 	dims, hasDims := a.get("dimensions").(*lua.LTable)
@@ -187,6 +189,12 @@ func buildTankHeating(r *runner, a *args, ph *plantHandle) plant.Unit {
 		a.errorf(nil, "needs the tank's dimensions = {...} or its boundaries = { {area, U, beyond}, ... }")
 	}
 	m.t.Cargo = cargo
+	return m.t
+}
+
+func buildTankHeating(r *runner, a *args, ph *plantHandle) plant.Unit {
+	u := &plant.Consumer{Label: "tank heating"}
+	m := &tankModel{t: r.tankGeometry(a)}
 	mode, _ := a.str("mode", false)
 	switch mode {
 	case "", "hold":

@@ -81,6 +81,11 @@ func (r *runner) register() {
 	L.SetGlobal("include", L.NewFunction(r.luaInclude))
 	L.SetGlobal("read_csv", L.NewFunction(r.luaReadCSV))
 	L.SetGlobal("to_number", L.NewFunction(r.luaToNumber))
+	L.SetGlobal("voyage", L.NewFunction(r.luaVoyage))
+	L.SetGlobal("study", L.NewFunction(r.luaStudy))
+	L.SetGlobal("audit", L.NewFunction(r.luaAudit))
+	L.SetGlobal("cool_down", L.NewFunction(r.luaCoolDown))
+	L.SetGlobal("time_to_cool", L.NewFunction(r.luaTimeToCool))
 }
 
 func unknownMethodMsg(key string, methods *lua.LTable) string {

@@ -69,6 +69,17 @@ type Options struct {
 	// The heap is the process's, so runs in parallel share the budget.
 	// Zero means 1 GiB.
 	MaxMemory uint64
+	// Workers is the number of goroutines voyage, study and audit solve
+	// their rows on; zero means all cores (GOMAXPROCS). Their results do
+	// not depend on it.
+	Workers int
+	// Progress, if not nil, is called as voyage, study and audit go on,
+	// with the job (such as `voyage "ballast leg"`), the rows (or audit
+	// days, or rows times variants) done and the total; from one goroutine
+	// at a time. A command may show it on stderr. Long jobs may need a
+	// longer Timeout.
+	Progress func(job string, done, total int)
+
 	// CallStackSize, RegistrySize and RegistryMaxSize bound the Lua call
 	// depth and data stack (see gopher-lua's Options). Zero means 200,
 	// 4096 and 262144.
@@ -118,6 +129,11 @@ type Run struct {
 	// Checks counts the check() calls that passed (in check mode: that
 	// were reached).
 	Checks int
+	// Voyages, Studies and Audits are the jobs of voyage(), study() and
+	// audit(), in the order they ran; their results are nil in check mode.
+	Voyages []VoyageRecord
+	Studies []StudyRecord
+	Audits  []AuditRecord
 }
 
 // CaseRecord is one load case of a run.
@@ -205,6 +221,7 @@ type runner struct {
 	out       *Run
 	plants    []*plantHandle
 	nCases    int
+	nJobs     int
 	errMT     *lua.LTable
 }
 

@@ -35,6 +35,9 @@ func TestGoodScripts(t *testing.T) {
 		{"loads.lua", 5, 1, 14},
 		{"ege_short.lua", 3, 1, 5},
 		{"ege_full.lua", 2, 1, 4},
+		{"voyage.lua", 5, 1, 6},
+		{"study.lua", 0, 1, 6},
+		{"audit.lua", 0, 1, 4},
 	}
 	for _, tc := range tests {
 		for _, checkOnly := range []bool{false, true} {

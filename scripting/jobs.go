@@ -1,0 +1,1008 @@
+package scripting
+
+import (
+	"bytes"
+	"encoding/csv"
+	"errors"
+	"fmt"
+	"io"
+	"math"
+	"strconv"
+	"strings"
+
+	lua "github.com/yuin/gopher-lua"
+
+	"steamcase/plant"
+	"steamcase/plant/profile"
+	"steamcase/plant/units"
+)
+
+// VoyageRecord is one voyage() of a run.
+type VoyageRecord struct {
+	Name  string
+	Plant string
+	Pos   Pos // where voyage() was called
+	// Rows are where each row was given: the CSV file and line, or the
+	// voyage() call for rows given as tables.
+	Rows []Pos
+	// Result holds every row's case result and the totals; nil in check
+	// mode.
+	Result *profile.Result
+}
+
+// StudyRecord is one study() of a run.
+type StudyRecord struct {
+	Name   string
+	Plant  string
+	Pos    Pos
+	Rows   []Pos
+	Result *profile.StudyResult // nil in check mode
+}
+
+// AuditRecord is one audit() of a run.
+type AuditRecord struct {
+	Name   string
+	Plant  string
+	Pos    Pos
+	Days   []Pos
+	Result *profile.AuditResult // nil in check mode
+}
+
+// maxJobErrors bounds the errors one CSV file or row list reports before
+// the job gives up reading it.
+const maxJobErrors = 50
+
+// jobRows are the rows of a voyage or study, or the days of an audit, as
+// read from the script or a CSV file.
+type jobRows struct {
+	rows    []profile.Row
+	pos     []Pos
+	dates   []string  // audit
+	claimed []float64 // audit, tonnes
+}
+
+// rowSpec says which columns or keys a kind of job takes.
+type rowSpec struct {
+	job   string // "voyage", "study", "audit"
+	audit bool
+}
+
+// ---------------------------------------------------------------------------
+// Rows from Lua tables.
+
+// tableRows reads rows = { {phase, hours, sea, air, engine, set, fire}, ... }
+// (or days = {...} for an audit, with date and claimed).
+func (r *runner) tableRows(ph *plantHandle, a *args, key string, spec rowSpec) *jobRows {
+	t, ok := a.get(key).(*lua.LTable)
+	if !ok {
+		a.errorf(nil, "%s must be a list of tables; got %s", key, describe(a.t.RawGetString(key)))
+		return nil
+	}
+	n := t.Len()
+	if n == 0 || n > r.opt.MaxRows {
+		a.errorf(nil, "%s needs 1 to %d entries; got %d", key, r.opt.MaxRows, n)
+		return nil
+	}
+	out := &jobRows{}
+	for i := 1; i <= n; i++ {
+		if a.nerr >= maxJobErrors {
+			a.errorf(nil, "%s: too many errors; stopped reading at entry %d", key, i)
+			break
+		}
+		rt, ok := t.RawGetInt(i).(*lua.LTable)
+		if !ok {
+			a.errorf(nil, "%s[%d] must be a table such as { phase = \"sea passage\", hours = 24, sea = \"15 C\" }; got %s", key, i, describe(t.RawGetInt(i)))
+			continue
+		}
+		r.checkSize(rt, key)
+		ra := r.args(rt, fmt.Sprintf("%s %s[%d]", a.what, key, i), a.pos, ph.uopt)
+		var row profile.Row
+		row.Case.Pos = plant.Pos{File: a.pos.File, Line: a.pos.Line}
+		var date string
+		var claimed float64
+		if spec.audit {
+			date, _ = ra.str("date", true)
+			claimed = r.tonnes(ra, "claimed")
+			row.Phase, _ = ra.str("phase", false)
+			row.Hours = 24
+		} else {
+			row.Phase, _ = ra.str("phase", true)
+		}
+		if v := ra.get("hours"); v != lua.LNil || !spec.audit {
+			h, err := parseHours(v, "hours")
+			if err != nil {
+				ra.errorf(err, "%v", err)
+			}
+			row.Hours = h
+		}
+		if nm, ok := ra.str("name", false); ok {
+			row.Case.Name = nm
+		} else if spec.audit {
+			row.Case.Name = date
+		} else {
+			row.Case.Name = fmt.Sprintf("%s %d", key, i)
+		}
+		row.Case.Conditions.SeaT, _ = ra.quantity("sea", units.Temperature, false)
+		row.Case.Conditions.AirT, _ = ra.quantity("air", units.Temperature, false)
+		row.Case.Conditions.EngineLoad, _ = ra.quantity("engine", units.Fraction, false)
+		if v := ra.get("set"); v != lua.LNil {
+			row.Case.Set = r.plainSettings(ph, ra, v, row.Case.Pos)
+		}
+		if ra.has("fire") {
+			row.Case.Fire = r.fireList(ph, ra)
+		}
+		ra.done()
+		a.nerr += ra.nerr
+		out.rows = append(out.rows, row)
+		out.pos = append(out.pos, a.pos)
+		out.dates = append(out.dates, date)
+		out.claimed = append(out.claimed, claimed)
+	}
+	return out
+}
+
+// fireList reads fire = { "AB1", ... } and checks the names are boilers.
+func (r *runner) fireList(ph *plantHandle, a *args) []string {
+	fire := a.names("fire")
+	if fire == nil {
+		fire = []string{}
+	}
+	for _, b := range fire {
+		if ph.kinds[b] != "boiler" {
+			msg := fmt.Sprintf("fire: %q is not a boiler of the plant", b)
+			if s := suggest(b, ph.boilerNames()); s != "" {
+				msg += fmt.Sprintf("; did you mean %q?", s)
+			}
+			a.errorf(nil, "%s", msg)
+		}
+	}
+	return fire
+}
+
+// plainSettings reads set = {...} as case() does, but refuses the keys of
+// the loads models: the rows of a job are solved in parallel on clones of
+// the plant that share its models, so a model's field cannot vary by row.
+func (r *runner) plainSettings(ph *plantHandle, a *args, v lua.LValue, pos plant.Pos) []plant.Setting {
+	set, models := r.caseSettings(ph, a, v, pos)
+	if len(models) > 0 {
+		a.errorf(nil, "set: the keys of a loads model (a tank_heating's T, from, to, duration; tank_cleaning flow, outlet_T; accommodation inside_T) cannot change from row to row: the rows are solved in parallel on clones of the plant that share the model; use case() for such rows, or declare a unit for each setting and switch them with off")
+	}
+	return set
+}
+
+// parseHours reads hours: a number of hours, or a time ("6 h", "2 d").
+func parseHours(v lua.LValue, key string) (float64, error) {
+	switch x := v.(type) {
+	case lua.LNumber:
+		f := float64(x)
+		if !(f > 0) || math.IsInf(f, 0) {
+			return 0, fmt.Errorf("%s must be a positive number of hours; got %s", key, describe(v))
+		}
+		return f, nil
+	case lua.LString:
+		s := strings.TrimSpace(string(x))
+		if f, err := strconv.ParseFloat(s, 64); err == nil {
+			return parseHours(lua.LNumber(f), key)
+		}
+		sec, err := units.Parse(s, units.Time, units.Options{})
+		if err != nil {
+			return 0, fmt.Errorf("%s: %w", key, err)
+		}
+		if !(sec > 0) {
+			return 0, fmt.Errorf("%s must be positive; got %q", key, s)
+		}
+		return sec / 3600, nil
+	case *lua.LNilType:
+		return 0, fmt.Errorf("%s is required: a number of hours such as 24, or a time such as \"6 h\"", key)
+	}
+	return 0, fmt.Errorf("%s must be a number of hours or a time such as \"6 h\"; got %s", key, describe(v))
+}
+
+// tonnes reads a required mass of fuel: "12.5 t", "12500 kg", or a bare
+// number of tonnes.
+func (r *runner) tonnes(a *args, key string) float64 {
+	v := a.get(key)
+	if v == lua.LNil {
+		a.errorf(nil, "%s is required: the fuel reported, such as %s = \"12.5 t\"", key, key)
+		return 0
+	}
+	t, err := parseTonnes(v, key)
+	if err != nil {
+		a.errorf(err, "%v", err)
+	}
+	return t
+}
+
+func parseTonnes(v lua.LValue, key string) (float64, error) {
+	var t float64
+	switch x := v.(type) {
+	case lua.LNumber:
+		t = float64(x)
+	case lua.LString:
+		s := strings.TrimSpace(string(x))
+		if f, err := strconv.ParseFloat(s, 64); err == nil {
+			t = f
+		} else {
+			kg, err := units.Parse(s, units.Mass, units.Options{})
+			if err != nil {
+				return 0, fmt.Errorf("%s: %w", key, err)
+			}
+			t = kg / 1000
+		}
+	default:
+		return 0, fmt.Errorf("%s must be a mass of fuel such as \"12.5 t\"; got %s", key, describe(v))
+	}
+	if !(t >= 0) || math.IsInf(t, 0) {
+		return 0, fmt.Errorf("%s must be zero or more tonnes; got %g", key, t)
+	}
+	return t, nil
+}
+
+// ---------------------------------------------------------------------------
+// Rows from CSV files.
+
+// readCSVFile reads a CSV file beside the calling script: its header and
+// records, each with its line in the file.
+func (r *runner) readCSVFile(fn, name string) (show string, hline int, header []string, recs [][]string, lines []int) {
+	fsPath, show := r.resolve(fn, name)
+	b := r.readFile(fn, name, fsPath, r.opt.MaxCSVBytes)
+	cr := csv.NewReader(bytes.NewReader(b))
+	cr.Comment = '#'
+	cr.TrimLeadingSpace = true
+	header, err := cr.Read()
+	if err == io.EOF {
+		r.fail("", "%s(%q): the file is empty; it needs a header row", fn, name)
+	}
+	if err != nil {
+		r.csvErrIn(fn, show, name, err)
+	}
+	hline, _ = cr.FieldPos(0)
+	const maxCols = 256
+	if len(header) > maxCols {
+		r.raise(&Error{Pos: Pos{File: show, Line: hline}, Msg: fmt.Sprintf("%d columns; at most %d are accepted", len(header), maxCols)})
+	}
+	seen := map[string]bool{}
+	for i, h := range header {
+		h = strings.TrimSpace(h)
+		header[i] = h
+		if h == "" {
+			r.raise(&Error{Pos: Pos{File: show, Line: hline}, Msg: fmt.Sprintf("column %d of the header is empty", i+1)})
+		}
+		if seen[h] {
+			r.raise(&Error{Pos: Pos{File: show, Line: hline}, Msg: fmt.Sprintf("column %q appears twice in the header", h)})
+		}
+		seen[h] = true
+	}
+	for {
+		rec, err := cr.Read()
+		if err == io.EOF {
+			break
+		}
+		if err != nil {
+			r.csvErrIn(fn, show, name, err)
+		}
+		if len(recs) >= r.opt.MaxRows {
+			r.fail("", "%s(%q): more than %d rows", fn, name, r.opt.MaxRows)
+		}
+		line, _ := cr.FieldPos(0)
+		for i := range rec {
+			rec[i] = strings.TrimSpace(rec[i])
+		}
+		recs = append(recs, rec)
+		lines = append(lines, line)
+	}
+	if len(recs) == 0 {
+		r.raise(&Error{Pos: Pos{File: show, Line: hline}, Msg: fmt.Sprintf("%s(%q): the file has a header but no rows", fn, name)})
+	}
+	return show, hline, header, recs, lines
+}
+
+// csvColumn is a column of a job's CSV file: one of the row's own fields,
+// or a unit's key.
+type csvColumn struct {
+	field string // "phase", "hours", ...; empty for a unit's key
+	unit  string
+	key   setKey
+	name  string // the header
+}
+
+// csvRows reads the rows (or audit days) of a job from a CSV file. Its
+// header names the columns: phase, hours, sea, air, engine, name (and for
+// an audit date and claimed), and any number of "unit.key" columns.
+func (r *runner) csvRows(ph *plantHandle, fn, name string, spec rowSpec) *jobRows {
+	show, hline, header, recs, lines := r.readCSVFile(fn, name)
+	fields := []string{"phase", "hours", "sea", "air", "engine", "name", "fire"}
+	required := []string{"phase", "hours"}
+	if spec.audit {
+		fields = append(fields, "date", "claimed")
+		required = []string{"date", "claimed"}
+	}
+	nerr := len(r.errs)
+	hdr := Pos{File: show, Line: hline}
+	bad := func(pos Pos, format string, v ...any) {
+		r.errs = append(r.errs, &Error{Pos: pos, Msg: fmt.Sprintf(format, v...)})
+	}
+	cols := make([]csvColumn, len(header))
+	for i, h := range header {
+		cols[i].name = h
+		if contains(fields, h) {
+			cols[i].field = h
+			continue
+		}
+		dot := strings.LastIndexByte(h, '.')
+		if dot <= 0 || dot == len(h)-1 {
+			msg := fmt.Sprintf("unknown column %q", h)
+			if s := suggest(h, fields); s != "" {
+				msg += fmt.Sprintf("; did you mean %q?", s)
+			}
+			bad(hdr, "%s (columns: %s, or \"unit.key\" such as \"cargo heating.duty\")", msg, strings.Join(fields, ", "))
+			continue
+		}
+		unit, key := h[:dot], h[dot+1:]
+		if ph.p.Unit(unit) == nil {
+			bad(hdr, "column %q: %s", h, r.unknownUnitMsg(ph, unit))
+			continue
+		}
+		keys := r.keysFor(ph, unit)
+		var accepted []string
+		found := false
+		for _, k := range keys {
+			accepted = append(accepted, k.key)
+			if k.key == key {
+				cols[i].unit, cols[i].key, found = unit, k, true
+			}
+		}
+		switch {
+		case !found:
+			bad(hdr, "column %q: %s", h, unknownKeyMsg(key, accepted))
+		case cols[i].key.model != nil:
+			bad(hdr, "column %q: the key %q of a loads model cannot change from row to row of a %s (the rows are solved in parallel on clones sharing the model); use case() for such rows", h, key, spec.job)
+		}
+	}
+	for _, req := range required {
+		if !contains(header, req) {
+			bad(hdr, "missing column %q (the header has: %s)", req, strings.Join(header, ", "))
+		}
+	}
+	if len(r.errs) > nerr {
+		r.raise(stopRun{})
+	}
+
+	out := &jobRows{}
+	uopt := ph.uopt
+	for n, rec := range recs {
+		if len(r.errs)-nerr >= maxJobErrors {
+			bad(Pos{File: show, Line: lines[n]}, "too many errors; stopped reading %s here", name)
+			break
+		}
+		pos := Pos{File: show, Line: lines[n]}
+		at := func(c csvColumn, err error) {
+			// the parsers name the key; the column says it already
+			msg := strings.TrimPrefix(strings.TrimPrefix(err.Error(), c.field+": "), c.key.key+": ")
+			r.errs = append(r.errs, &Error{Pos: pos, Msg: fmt.Sprintf("column %q: %s", c.name, msg), Err: err})
+		}
+		var row profile.Row
+		row.Case.Pos = plant.Pos{File: show, Line: lines[n]}
+		row.Hours = 24
+		var date string
+		var claimed float64
+		for i, c := range cols {
+			cell := rec[i]
+			if cell == "" {
+				continue
+			}
+			v := lua.LString(cell)
+			var err error
+			switch c.field {
+			case "phase":
+				row.Phase = cell
+			case "name":
+				row.Case.Name = cell
+			case "fire":
+				for _, b := range strings.Split(cell, "+") {
+					b = strings.TrimSpace(b)
+					if ph.kinds[b] != "boiler" {
+						msg := fmt.Sprintf("%q is not a boiler of the plant (list boilers as \"AB1+AB2\")", b)
+						if s := suggest(b, ph.boilerNames()); s != "" {
+							msg += fmt.Sprintf("; did you mean %q?", s)
+						}
+						err = errors.New(msg)
+						break
+					}
+					row.Case.Fire = append(row.Case.Fire, b)
+				}
+			case "date":
+				date = cell
+			case "hours":
+				row.Hours, err = parseHours(v, "hours")
+			case "claimed":
+				claimed, err = parseTonnes(v, "claimed")
+			case "sea":
+				row.Case.Conditions.SeaT, err = parseQuantity(v, "sea", units.Temperature, uopt)
+			case "air":
+				row.Case.Conditions.AirT, err = parseQuantity(v, "air", units.Temperature, uopt)
+			case "engine":
+				row.Case.Conditions.EngineLoad, err = parseCell(cell, "engine", units.Fraction, uopt)
+			case "":
+				var f float64
+				f, err = parseSetCell(cell, c.key, uopt)
+				if err == nil {
+					row.Case.Set = append(row.Case.Set, plant.Setting{Unit: c.unit, Param: c.key.param, Value: f, Pos: row.Case.Pos})
+					if c.key.param == "duty" {
+						row.Case.Set = append(row.Case.Set, plant.Setting{Unit: c.unit, Param: "steam_flow", Value: 0, Pos: row.Case.Pos})
+					}
+				}
+			}
+			if err != nil {
+				at(c, err)
+			}
+		}
+		for _, req := range required {
+			if i := indexOfString(header, req); i >= 0 && rec[i] == "" {
+				at(csvColumn{name: req}, fmt.Errorf("is empty; it is required in every row"))
+			}
+		}
+		if row.Case.Name == "" {
+			row.Case.Name = fmt.Sprintf("%s:%d", show, lines[n])
+			if date != "" {
+				row.Case.Name = date
+			}
+		}
+		out.rows = append(out.rows, row)
+		out.pos = append(out.pos, pos)
+		out.dates = append(out.dates, date)
+		out.claimed = append(out.claimed, claimed)
+	}
+	if len(r.errs) > nerr {
+		r.raise(stopRun{})
+	}
+	return out
+}
+
+func indexOfString(list []string, s string) int {
+	for i, x := range list {
+		if x == s {
+			return i
+		}
+	}
+	return -1
+}
+
+// parseCell reads a CSV cell as a quantity; a fraction may be a bare
+// number (0.85).
+func parseCell(cell, key string, dim units.Dimension, uopt units.Options) (float64, error) {
+	if dim == units.Fraction {
+		if f, err := strconv.ParseFloat(cell, 64); err == nil {
+			return parseQuantity(lua.LNumber(f), key, dim, uopt)
+		}
+	}
+	return parseQuantity(lua.LString(cell), key, dim, uopt)
+}
+
+// parseSetCell reads a CSV cell for a unit's key: true/false for a switch,
+// a pressure difference, or a quantity.
+func parseSetCell(cell string, k setKey, uopt units.Options) (float64, error) {
+	switch k.how {
+	case setBool:
+		switch strings.ToLower(cell) {
+		case "true", "yes", "1":
+			return 1, nil
+		case "false", "no", "0":
+			return 0, nil
+		}
+		return 0, fmt.Errorf("%s must be true or false; got %q", k.key, cell)
+	case setPressureDiff:
+		return parsePressureDiff(lua.LString(cell), k.key)
+	}
+	return parseCell(cell, k.key, k.dim, uopt)
+}
+
+// ---------------------------------------------------------------------------
+// The jobs.
+
+// jobStart reads what voyage, study and audit share: the plant, the table,
+// the name, and the rows (rows or csv; days for an audit).
+func (r *runner) jobStart(job string, spec rowSpec, extra func(a *args)) (*plantHandle, *args, string, *jobRows) {
+	ph := r.checkPlant(1)
+	t := r.checkTable(2, job)
+	pos := r.where()
+	r.checkSize(t, job)
+	a := r.args(t, job, pos, ph.uopt)
+	name, ok := a.str("name", false)
+	if !ok {
+		name = fmt.Sprintf("%s %d", job, r.nJobs+1)
+	}
+	r.nJobs++
+	a.what = fmt.Sprintf("%s %q", job, name)
+	r.flushLines(ph)
+	listKey := "rows"
+	if spec.audit {
+		listKey = "days"
+	}
+	var rows *jobRows
+	hasList, hasCSV := a.has(listKey), a.has("csv")
+	switch {
+	case hasList && hasCSV:
+		a.errorf(nil, "give %s or csv, not both", listKey)
+	case hasCSV:
+		file, _ := a.str("csv", true)
+		if file != "" {
+			rows = r.csvRows(ph, job, file, spec)
+		}
+	case hasList:
+		rows = r.tableRows(ph, a, listKey, spec)
+	default:
+		a.errorf(nil, "needs its %s: %s = { {...}, ... } or csv = \"file.csv\"", listKey, listKey)
+	}
+	if extra != nil {
+		extra(a)
+	}
+	a.done()
+	r.checkPlantOnce(ph)
+	if r.opt.CheckOnly {
+		// Check mode goes on to find more errors.
+		if rows == nil {
+			rows = &jobRows{}
+		}
+		return ph, a, name, rows
+	}
+	if r.emptyPlant(ph) || len(r.errs) > 0 || rows == nil {
+		r.raise(stopRun{})
+	}
+	return ph, a, name, rows
+}
+
+// progress returns the profile's progress callback for a job, or nil.
+func (r *runner) progress(job string) func(done, total int) {
+	if r.opt.Progress == nil {
+		return nil
+	}
+	return func(done, total int) { r.opt.Progress(job, done, total) }
+}
+
+// jobErr raises the error of a profile run at the row it names, when it
+// names one.
+func (r *runner) jobErr(pos Pos, what string, err error) {
+	if lerr := r.limitErr(pos); lerr != nil {
+		r.raise(&Error{Pos: pos, Msg: lerr.Error(), Err: lerr})
+	}
+	var se *plant.SolveError
+	if errors.As(err, &se) && se.Pos.File != "" {
+		pos = Pos{File: se.Pos.File, Line: se.Pos.Line}
+	}
+	r.raise(&Error{Pos: pos, Unit: what, Msg: err.Error(), Err: err})
+}
+
+// luaVoyage is voyage(plant, { name, rows or csv }).
+func (r *runner) luaVoyage(L *lua.LState) int {
+	ph, a, name, rows := r.jobStart("voyage", rowSpec{job: "voyage"}, nil)
+	rec := VoyageRecord{Name: name, Plant: ph.p.Name, Pos: a.pos, Rows: rows.pos}
+	if r.opt.CheckOnly {
+		r.out.Voyages = append(r.out.Voyages, rec)
+		L.Push(r.profileTable(name, placeholderResult(rows.rows), true))
+		return 1
+	}
+	res, err := profile.Run(L.Context(), ph.p, rows.rows, profile.Options{Workers: r.opt.Workers, Progress: r.progress(a.what)})
+	if err != nil {
+		r.jobErr(a.pos, a.what, err)
+	}
+	rec.Result = res
+	r.out.Voyages = append(r.out.Voyages, rec)
+	L.Push(r.profileTable(name, res, false))
+	return 1
+}
+
+// luaStudy is study(plant, { name, rows or csv, variants, fuel_price,
+// installed_cost, currency }).
+func (r *runner) luaStudy(L *lua.LState) int {
+	var variants []profile.Variant
+	var econ profile.Economics
+	var ph0 *plantHandle
+	ph, a, name, rows := r.jobStart("study", rowSpec{job: "study"}, func(a *args) {
+		ph0 = r.checkPlant(1)
+		vt, ok := a.get("variants").(*lua.LTable)
+		if !ok {
+			a.errorf(nil, "variants is required: a list of at least two { name = \"...\", set = { unit = { key = value } } }, the first the base")
+			return
+		}
+		n := vt.Len()
+		if n < 2 || n > 100 {
+			a.errorf(nil, "variants needs 2 to 100 entries (the first is the base); got %d", n)
+			return
+		}
+		names := map[string]bool{}
+		for i := 1; i <= n; i++ {
+			v, ok := vt.RawGetInt(i).(*lua.LTable)
+			if !ok {
+				a.errorf(nil, "variants[%d] must be a table { name = \"...\", set = {...} }", i)
+				continue
+			}
+			va := r.args(v, fmt.Sprintf("%s variants[%d]", a.what, i), a.pos, ph0.uopt)
+			vn, _ := va.str("name", true)
+			if names[vn] && vn != "" {
+				va.errorf(nil, "name %q is given to two variants", vn)
+			}
+			names[vn] = true
+			var set []plant.Setting
+			if s := va.get("set"); s != lua.LNil {
+				set = r.plainSettings(ph0, va, s, plant.Pos{File: a.pos.File, Line: a.pos.Line})
+			}
+			va.done()
+			a.nerr += va.nerr
+			variants = append(variants, profile.Variant{Name: vn, Set: set})
+		}
+		if p, ok := a.number("fuel_price"); ok {
+			if p < 0 {
+				a.errorf(nil, "fuel_price must not be negative; got %g", p)
+			}
+			econ.FuelPrice = p
+		}
+		if c, ok := a.number("installed_cost"); ok {
+			if c < 0 {
+				a.errorf(nil, "installed_cost must not be negative; got %g", c)
+			}
+			econ.InstalledCost = c
+		}
+		econ.Currency, _ = a.str("currency", false)
+	})
+	rec := StudyRecord{Name: name, Plant: ph.p.Name, Pos: a.pos, Rows: rows.pos}
+	if r.opt.CheckOnly {
+		res := &profile.StudyResult{Economics: econ}
+		empty := placeholderResult(rows.rows)
+		for _, v := range variants {
+			res.Variants = append(res.Variants, profile.VariantResult{Name: v.Name, Totals: empty.Total})
+		}
+		r.out.Studies = append(r.out.Studies, rec)
+		L.Push(r.studyTable(name, res))
+		return 1
+	}
+	// One progress over all variants: each variant's run counts its rows
+	// from zero.
+	var prog func(done, total int)
+	if p := r.progress(a.what); p != nil {
+		k, last, nv := 0, 0, len(variants)
+		prog = func(done, total int) {
+			if last >= total {
+				k, last = k+1, 0
+			}
+			last = done
+			p(k*total+done, nv*total)
+		}
+	}
+	res, err := profile.Study(L.Context(), ph.p, rows.rows, variants, econ, profile.Options{Workers: r.opt.Workers, Progress: prog})
+	if err != nil {
+		r.jobErr(a.pos, a.what, err)
+	}
+	rec.Result = res
+	r.out.Studies = append(r.out.Studies, rec)
+	L.Push(r.studyTable(name, res))
+	return 1
+}
+
+// luaAudit is audit(plant, { name, csv or days, uncertain, samples, seed,
+// band }).
+func (r *runner) luaAudit(L *lua.LState) int {
+	var unc []profile.Uncertain
+	var opt profile.AuditOptions
+	ph, a, name, rows := r.jobStart("audit", rowSpec{job: "audit", audit: true}, func(a *args) {
+		ph := r.checkPlant(1)
+		unc = r.uncertainties(ph, a)
+		if n, ok := a.number("samples"); ok {
+			if n != math.Trunc(n) || n < 10 || n > 100000 {
+				a.errorf(nil, "samples must be a whole number from 10 to 100000; got %g", n)
+			}
+			opt.Samples = int(n)
+		}
+		if s, ok := a.number("seed"); ok {
+			if s != math.Trunc(s) || s < 0 || s > 1<<53 {
+				a.errorf(nil, "seed must be a whole number from 0 to 2^53; got %g", s)
+			}
+			opt.Seed = uint64(s)
+		}
+		if v := a.get("band"); v != lua.LNil {
+			bt, ok := v.(*lua.LTable)
+			if !ok || bt.Len() != 2 {
+				a.errorf(nil, "band must be a pair of quantiles such as band = {\"5 %%\", \"95 %%\"}; got %s", describe(v))
+			} else {
+				lo, err1 := parseQuantity(bt.RawGetInt(1), "band[1]", units.Fraction, a.uopt)
+				hi, err2 := parseQuantity(bt.RawGetInt(2), "band[2]", units.Fraction, a.uopt)
+				if err := errors.Join(err1, err2); err != nil {
+					a.errorf(err, "%s", strings.ReplaceAll(err.Error(), "\n", "; "))
+				} else if !(lo > 0 && lo < hi && hi < 1) {
+					a.errorf(nil, "band must satisfy 0 < low < high < 100 %%; got %g %% and %g %%", 100*lo, 100*hi)
+				}
+				opt.Low, opt.High = lo, hi
+			}
+		}
+	})
+	days := make([]profile.Day, len(rows.rows))
+	for i, row := range rows.rows {
+		days[i] = profile.Day{Date: rows.dates[i], Phase: row.Phase, Hours: row.Hours, Case: row.Case, ClaimedT: rows.claimed[i], Pos: row.Case.Pos}
+	}
+	rec := AuditRecord{Name: name, Plant: ph.p.Name, Pos: a.pos, Days: rows.pos}
+	if r.opt.CheckOnly {
+		res := &profile.AuditResult{Days: make([]profile.DayResult, len(days)), Samples: opt.Samples, Seed: opt.Seed, LowQ: opt.Low, HighQ: opt.High, Uncertainties: unc}
+		for i, d := range days {
+			res.Days[i] = profile.DayResult{Date: d.Date, Phase: d.Phase, ClaimedT: d.ClaimedT}
+		}
+		r.out.Audits = append(r.out.Audits, rec)
+		L.Push(r.auditTable(name, res))
+		return 1
+	}
+	opt.Workers = r.opt.Workers
+	opt.Progress = r.progress(a.what)
+	res, err := profile.Audit(L.Context(), ph.p, days, unc, opt)
+	if err != nil {
+		r.jobErr(a.pos, a.what, err)
+	}
+	rec.Result = res
+	r.out.Audits = append(r.out.Audits, rec)
+	L.Push(r.auditTable(name, res))
+	return 1
+}
+
+// uncertainties reads uncertain = { {unit, key, low, high}, ... }.
+func (r *runner) uncertainties(ph *plantHandle, a *args) []profile.Uncertain {
+	v := a.get("uncertain")
+	if v == lua.LNil {
+		return nil
+	}
+	t, ok := v.(*lua.LTable)
+	if !ok {
+		a.errorf(nil, "uncertain must be a list such as { {unit = \"cargo heating\", key = \"factor\", low = 0.85, high = 1.15} }; got %s", describe(v))
+		return nil
+	}
+	r.checkSize(t, "uncertain")
+	var out []profile.Uncertain
+	for i := 1; i <= t.Len(); i++ {
+		et, ok := t.RawGetInt(i).(*lua.LTable)
+		if !ok {
+			a.errorf(nil, "uncertain[%d] must be a table {unit, key, low, high}", i)
+			continue
+		}
+		ea := r.args(et, fmt.Sprintf("%s uncertain[%d]", a.what, i), a.pos, ph.uopt)
+		unit, _ := ea.str("unit", true)
+		key, _ := ea.str("key", true)
+		lo, hi := ea.get("low"), ea.get("high")
+		ea.done()
+		if ea.nerr > 0 {
+			a.nerr += ea.nerr
+			continue
+		}
+		if ph.p.Unit(unit) == nil {
+			ea.errorf(nil, "%s", r.unknownUnitMsg(ph, unit))
+			a.nerr += ea.nerr
+			continue
+		}
+		var k setKey
+		var accepted []string
+		found := false
+		for _, x := range r.keysFor(ph, unit) {
+			accepted = append(accepted, x.key)
+			if x.key == key {
+				k, found = x, true
+			}
+		}
+		switch {
+		case !found:
+			ea.errorf(nil, "%s: %s", unit, unknownKeyMsg(key, accepted))
+		case k.model != nil || k.how == setBool:
+			ea.errorf(nil, "%s.%s cannot be sampled (a switch, or a loads model's field); sample a number such as factor", unit, key)
+		default:
+			parse := func(v lua.LValue, what string) float64 {
+				if v == lua.LNil {
+					ea.errorf(nil, "%s is required, such as %s = 0.85", what, what)
+					return 0
+				}
+				var f float64
+				var err error
+				if k.how == setPressureDiff {
+					f, err = parsePressureDiff(v, what)
+				} else {
+					f, err = parseQuantity(v, what, k.dim, ph.uopt)
+				}
+				if err != nil {
+					ea.errorf(err, "%v", err)
+				}
+				return f
+			}
+			l, h := parse(lo, "low"), parse(hi, "high")
+			if ea.nerr == 0 && !(l <= h) {
+				ea.errorf(nil, "low must not exceed high; got %s and %s", describe(lo), describe(hi))
+			}
+			out = append(out, profile.Uncertain{Unit: unit, Param: k.param, Low: l, High: h, Pos: plant.Pos{File: a.pos.File, Line: a.pos.Line}})
+		}
+		a.nerr += ea.nerr
+	}
+	return out
+}
+
+// ---------------------------------------------------------------------------
+// Results as Lua tables.
+
+// totalsTable is one set of totals, keys with units.
+func (r *runner) totalsTable(t profile.Totals) *lua.LTable {
+	L := r.L
+	o := L.CreateTable(0, 24)
+	set := func(k string, v float64) { o.RawSetString(k, lua.LNumber(finiteOr(v, 0))) }
+	set("rows", float64(t.Rows))
+	set("hours", t.Hours)
+	set("fuel_t", t.FuelT)
+	set("co2_t", t.CO2T)
+	set("steam_t", t.SteamT)
+	set("ege_steam_t", t.EGESteamT)
+	set("dumped_t", t.DumpedT)
+	set("makeup_t", t.MakeUpT)
+	set("fuel_saved_t", t.FuelSavedT)
+	set("electric_MWh", t.ElectricMWh)
+	hf := L.CreateTable(len(t.HoursFiring), 0)
+	for _, h := range t.HoursFiring {
+		hf.Append(lua.LNumber(h))
+	}
+	o.RawSetString("hours_firing", hf)
+	firing := func(k int) float64 {
+		if k < len(t.HoursFiring) {
+			return t.HoursFiring[k]
+		}
+		return 0
+	}
+	set("hours_no_boiler", firing(0))
+	set("hours_one_boiler", firing(1))
+	set("hours_two_boilers", firing(2))
+	set("peak_boiler_kg_h", t.PeakBoilerKgS*3600)
+	set("capacity_kg_h", t.CapacityKgS*3600)
+	if t.PeakRow >= 0 {
+		set("peak_row", float64(t.PeakRow+1))
+	}
+	if t.TightestRow >= 0 && !math.IsInf(t.TightestMarginKgS, 0) {
+		set("tightest_margin_kg_h", t.TightestMarginKgS*3600)
+		set("tightest_row", float64(t.TightestRow+1))
+	}
+	rowList := func(k string, rows []int) {
+		l := L.CreateTable(len(rows), 0)
+		for _, i := range rows {
+			l.Append(lua.LNumber(i + 1))
+		}
+		o.RawSetString(k, l)
+	}
+	rowList("short_rows", t.ShortRows)
+	rowList("warning_rows", t.WarningRows)
+	return o
+}
+
+func finiteOr(v, def float64) float64 {
+	if math.IsNaN(v) || math.IsInf(v, 0) {
+		return def
+	}
+	return v
+}
+
+// profileTable is what voyage() returns.
+func (r *runner) profileTable(name string, res *profile.Result, placeholder bool) lua.LValue {
+	L := r.L
+	o := L.NewTable()
+	o.RawSetString("name", lua.LString(name))
+	o.RawSetString("total", r.totalsTable(res.Total))
+	phases := L.CreateTable(len(res.Phases), 0)
+	byPhase := L.CreateTable(0, len(res.Phases))
+	for _, p := range res.Phases {
+		pt := r.totalsTable(p.Totals)
+		pt.RawSetString("phase", lua.LString(p.Phase))
+		phases.Append(pt)
+		byPhase.RawSetString(p.Phase, pt)
+	}
+	o.RawSetString("phases", phases)
+	o.RawSetString("by_phase", byPhase)
+	rows := L.CreateTable(len(res.Rows), 0)
+	for _, row := range res.Rows {
+		rt := L.CreateTable(0, 12)
+		rt.RawSetString("phase", lua.LString(row.Phase))
+		rt.RawSetString("hours", lua.LNumber(row.Hours))
+		var fuel, co2, steam, ege, dumped float64
+		firing, carry, warns := 0, true, 0
+		if cr := row.Result; cr != nil && !placeholder {
+			fuel, co2, steam, ege, dumped = cr.FuelKgS, cr.CO2KgS, cr.SteamProductionKgS, cr.EGESteamKgS, cr.DumpedKgS
+			firing, carry, warns = cr.BoilersFiring, cr.CanCarry, len(cr.Warnings)
+			rt.RawSetString("name", lua.LString(cr.Name))
+		}
+		rt.RawSetString("fuel_kg_h", lua.LNumber(fuel*3600))
+		rt.RawSetString("fuel_t", lua.LNumber(fuel*3.6*row.Hours))
+		rt.RawSetString("co2_t", lua.LNumber(co2*3.6*row.Hours))
+		rt.RawSetString("steam_kg_h", lua.LNumber(steam*3600))
+		rt.RawSetString("ege_steam_kg_h", lua.LNumber(ege*3600))
+		rt.RawSetString("dumped_kg_h", lua.LNumber(dumped*3600))
+		rt.RawSetString("boilers_firing", lua.LNumber(firing))
+		rt.RawSetString("can_carry", lua.LBool(carry))
+		rt.RawSetString("warnings", lua.LNumber(warns))
+		rows.Append(rt)
+	}
+	o.RawSetString("rows", rows)
+	return o
+}
+
+// studyTable is what study() returns.
+func (r *runner) studyTable(name string, res *profile.StudyResult) lua.LValue {
+	L := r.L
+	o := L.NewTable()
+	o.RawSetString("name", lua.LString(name))
+	o.RawSetString("hours", lua.LNumber(res.Hours))
+	o.RawSetString("fuel_price", lua.LNumber(res.FuelPrice))
+	o.RawSetString("installed_cost", lua.LNumber(res.InstalledCost))
+	o.RawSetString("currency", lua.LString(res.Currency))
+	vs := L.CreateTable(len(res.Variants), 0)
+	byName := L.CreateTable(0, len(res.Variants))
+	for _, v := range res.Variants {
+		vt := r.totalsTable(v.Totals)
+		vt.RawSetString("name", lua.LString(v.Name))
+		vt.RawSetString("saved_fuel_t", lua.LNumber(v.FuelSavedT))
+		vt.RawSetString("co2_avoided_t", lua.LNumber(v.CO2AvoidedT))
+		vt.RawSetString("cost_saved", lua.LNumber(v.CostSaved))
+		if v.PaybackYears != 0 {
+			// math.huge when the variant saves nothing
+			vt.RawSetString("payback_years", lua.LNumber(v.PaybackYears))
+		}
+		vt.RawSetString("hours_below_min_gas_T", lua.LNumber(v.HoursBelowMinGasT))
+		vs.Append(vt)
+		byName.RawSetString(v.Name, vt)
+	}
+	o.RawSetString("variants", vs)
+	o.RawSetString("by_name", byName)
+	return o
+}
+
+// auditTable is what audit() returns.
+func (r *runner) auditTable(name string, res *profile.AuditResult) lua.LValue {
+	L := r.L
+	o := L.NewTable()
+	o.RawSetString("name", lua.LString(name))
+	for k, v := range map[string]float64{
+		"claimed_t": res.ClaimedT, "nominal_t": res.NominalT, "low_t": res.LowT, "high_t": res.HighT,
+		"excess_t": res.ExcessT, "flagged": float64(res.Flagged), "samples": float64(res.Samples),
+		"seed": float64(res.Seed), "low_quantile": res.LowQ, "high_quantile": res.HighQ,
+	} {
+		o.RawSetString(k, lua.LNumber(v))
+	}
+	days := L.CreateTable(len(res.Days), 0)
+	flagged := L.NewTable()
+	for i, d := range res.Days {
+		dt := L.CreateTable(0, 9)
+		dt.RawSetString("day", lua.LNumber(i+1))
+		dt.RawSetString("date", lua.LString(d.Date))
+		dt.RawSetString("phase", lua.LString(d.Phase))
+		dt.RawSetString("claimed_t", lua.LNumber(d.ClaimedT))
+		dt.RawSetString("nominal_t", lua.LNumber(d.NominalT))
+		dt.RawSetString("low_t", lua.LNumber(d.LowT))
+		dt.RawSetString("median_t", lua.LNumber(d.MedianT))
+		dt.RawSetString("high_t", lua.LNumber(d.HighT))
+		dt.RawSetString("flag", lua.LString(d.Flag))
+		days.Append(dt)
+		if d.Flag != "" {
+			flagged.Append(dt)
+		}
+	}
+	o.RawSetString("days", days)
+	o.RawSetString("flagged_days", flagged)
+	return o
+}
+
+// placeholderResult is a voyage's result in check mode: the rows, phases
+// and hours, zero figures.
+func placeholderResult(rows []profile.Row) *profile.Result {
+	zero := func() profile.Totals { return profile.Totals{PeakRow: -1, TightestRow: -1} }
+	out := &profile.Result{Total: zero()}
+	byPhase := map[string]int{}
+	for i, row := range rows {
+		out.Rows = append(out.Rows, profile.RowResult{Index: i, Phase: row.Phase, Hours: row.Hours})
+		k, ok := byPhase[row.Phase]
+		if !ok {
+			k = len(out.Phases)
+			byPhase[row.Phase] = k
+			out.Phases = append(out.Phases, profile.PhaseTotals{Phase: row.Phase, Totals: zero()})
+		}
+		for _, t := range []*profile.Totals{&out.Total, &out.Phases[k].Totals} {
+			t.Rows++
+			t.Hours += row.Hours
+		}
+	}
+	return out
+}

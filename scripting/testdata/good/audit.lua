@@ -1,0 +1,21 @@
+-- An auditor's check of claimed boiler fuel: day 3 claims far more than
+-- the plant can burn on such a day.
+local ship = include("jobs_plant.lua")
+local a = audit(ship, {
+  name = "March log",
+  csv = "audit_log.csv",
+  uncertain = {
+    { unit = "cargo heating", key = "factor", low = 0.85, high = 1.15 },
+    { unit = "AB1", key = "eta_factor", low = 0.97, high = 1.03 },
+    { unit = "AB2", key = "eta_factor", low = "97 %", high = "103 %" },
+  },
+  samples = 40, seed = 1, band = { "5 %", "95 %" },
+})
+check(a.days[3].flag == "above", "day 3 claims too much")
+check(#a.flagged_days >= 1 and a.flagged_days[1].date ~= nil, "flagged days listed")
+check(a.claimed_t > 0 and a.low_t <= a.nominal_t and a.nominal_t <= a.high_t, "band around the nominal")
+local d = audit(ship, { name = "from tables", samples = 10, days = {
+  { date = "2026-03-05", phase = "at anchor", hours = 24, sea = "12 C", air = "8 C", engine = "0 %", claimed = 0.6,
+    set = { ["cargo heating"] = { off = true } } } },
+  uncertain = { { unit = "galley", key = "duty", low = "20 kW", high = "60 kW" } } })
+check(#d.days == 1, "one day")
