@@ -8,7 +8,13 @@
 //	run, err := scripting.RunSource(ctx, "demo/tanker.lua", src, embeddedFS, opt)
 //
 // Run holds the plants and the solved cases (plant name, script position,
-// *plant.CaseResult). The error is one of:
+// *plant.CaseResult), and the jobs voyage, study and audit (Run.Voyages,
+// Run.Studies, Run.Audits: name, plant, script position, the positions of
+// their rows, and the result of package plant/profile). Options.Workers
+// sets the goroutines the jobs solve on (zero: all cores; the results do
+// not depend on it) and Options.Progress, if set, is called with the job,
+// the rows done and the total, for a command to show on stderr; long jobs
+// may need a longer Options.Timeout. The error is one of:
 //
 //   - ErrorList: script errors, sorted by position, each an *Error printing
 //     as "file:line: unit: message" ("file:line:col:" for syntax errors);
@@ -65,9 +71,14 @@
 //	                 turndown (number, 4 means 1:4), cycling_loss (fraction),
 //	                 fuel (grade "MGO", "VLSFO", "HSFO", "LNG", or a name for your own fuel),
 //	                 lhv (specific energy, "40.2 MJ/kg"), co2_factor (number, kg CO2/kg fuel),
-//	                 efficiency (required: "85 %" at every load, or a table of
+//	                 efficiency (required: "85 %" at every load, a table of
 //	                 {load, efficiency} pairs such as { {"25 %","80 %"}, {"100 %","85 %"} },
-//	                 loads increasing, interpolated linearly, LHV basis) }
+//	                 loads increasing, interpolated linearly, LHV basis; or a
+//	                 combustion model, below),
+//	                 burner = { fan_rise (pressure difference, "3 kPa"; without it the
+//	                   fan is not counted), fan_eta (fraction; required with fan_rise),
+//	                   motor_eta (fraction; default 0.9), air_T (temperature of the
+//	                   combustion air; default the case's air, or 25 C without one) } }
 //	ship:header    { name, heat_loss (power) }
 //	ship:reducing_valve { name, p (pressure, required) }
 //	ship:consumer  { name, duty (power) or steam (mass flow), subcool (temperature
@@ -78,8 +89,77 @@
 //	ship:condenser { name, subcool (temperature difference), dump (boolean) }
 //	ship:line("name", "fromunit.port", "tounit.port")
 //
-// A fuel by grade takes its LHV and CO2 factor from package plant/fuel;
-// lhv and co2_factor override them; a fuel that is not a grade needs both.
+// A fuel by grade takes its LHV and CO2 factor from package plant/fuel
+// (plant.SpecFromFuel, which also carries the full fuel the combustion
+// models need); lhv and co2_factor override the figures of the energy
+// balance (the combustion models keep the grade's analysis); a fuel that
+// is not a grade needs both, and cannot take a combustion model.
+//
+// # Boiler efficiency from combustion
+//
+// Instead of a table of efficiencies, a boiler's efficiency may come from
+// the heat-loss method (plant/combustion) in one of two ways:
+//
+//	efficiency = { flue_gas = { {"30 %", "250 C", "5 %"}, {"100 %", "300 C", "3 %"} },
+//	               radiation = "1 %", humidity = "60 %", atomising = "2 %" }
+//
+// flue_gas lists {load, exit temperature, dry O2} as the maker's test gives
+// them (plant.FlueGasTable: interpolated linearly, the end values held
+// outside with a warning); radiation is the radiation and convection loss
+// at MCR as a fraction of the heat input (default 0; 0.5-1.5 % is common
+// practice), taken as a constant heat flow; humidity the combustion air's
+// relative humidity (default 0, dry air); atomising the atomising steam in
+// kg per kg fuel as a fraction (default 0).
+//
+//	efficiency = { furnace = { wall_area = "10 m2", volume = "2.4 m3", soot = 2e-7 },
+//	               passes = { { tubes = 90, di = "50 mm", length = "3 m", wall = "3.5 mm",
+//	                            fouling_gas = "0.002 m2K/W" }, ... },
+//	               excess_air = { {"30 %", 1.4}, {"100 %", 1.15} },
+//	               radiation_loss = "15 kW", humidity = "60 %", atomising = "2 %" }
+//
+// computes the efficiency from the boiler's geometry (plant.FurnaceTubes):
+// furnace keys wall_area (area, required), volume (volume; the mean beam
+// length is 3.6·volume/wall_area) or beam_length (length), wall_T
+// (temperature; default T_sat + 20 K), wall_emissivity (fraction; default
+// 0.8), soot (number, the flame's soot volume fraction; default 0, a
+// non-luminous gas); each pass tubes (count, required), di, length, wall
+// (lengths: inside diameter, tube length and wall thickness, required),
+// fouling_gas, fouling_water (fouling resistances; default 0),
+// wall_emissivity (fraction; default 0: no gas radiation in the tubes);
+// excess_air lists {load, air ratio λ} (a number such as 1.15, not O2);
+// radiation_loss is the casing's loss (power, constant with load; default
+// 0). The grey-gas set is fixed by the fuel: pw/pc 1 for oils, 2 for LNG.
+// Both models need the boiler's fuel as a grade.
+//
+// # Economisers
+//
+//	ship:exhaust_gas_economiser { name, drum (pressure, required), dryness (fraction; default 1),
+//	    engine = { mcr = "12 MW", { load = "25 %", gas = "11 kg/kWh", T = "250 C" }, ... },
+//	    ua (thermal conductance, "60 kW/K") with design_gas (mass flow at which ua holds;
+//	      default: ua is constant), or design_load (fraction of engine MCR) with pinch
+//	      (temperature difference: gas outlet above saturation at that load),
+//	    exponent (number n of UA ∝ gas flow^n; default 0.65),
+//	    gas_cp (specific heat of the exhaust; default 1.06 kJ/kgK), or exhaust_fuel
+//	      (grade) with exhaust_O2 (fraction, dry) for the NASA-polynomial enthalpy,
+//	    min_gas_T (temperature; default not checked), bypass (boolean: a damper holds
+//	      the funnel at min_gas_T), off (boolean) }
+//	ship:economiser { name, boiler (required), ua (thermal conductance, required),
+//	    design_gas (mass flow; default: ua is constant), exponent (number; default 0.65) }
+//
+// The engine table gives, at each load (fraction of mcr, increasing), the
+// exhaust gas as kg per kWh of engine power ("8.5 kg/kWh") or as a mass
+// flow ("35 kg/s", then the load must be above zero), and its temperature
+// after the turbocharger; plant-checks.md §7 gives indicative values only:
+// use the engine's own data. The EGE's ports are feed (in) and steam (out);
+// steam beyond demand goes to a condenser with dump = true on its header.
+// The economiser's ports are in and out (feed water, between the feed
+// header and its boiler); it needs its boiler's efficiency from a
+// combustion model.
+//
+// Known limit (package plant): a flue-gas economiser whose boiler does not
+// fire in a case (say, the EGE covers the demand) makes the solve fail
+// with a singular Jacobian; force its boiler to fire (fire = {...}) in
+// such cases, or leave the economiser out of such plants.
 // Ports are named as package plant names them: makeup out; feed_tank in
 // (any number), out, steam (optional); feed_pump, header, reducing_valve,
 // consumer, turbine, condenser in and out (consumer out optional, header
@@ -135,9 +215,12 @@
 //	                    specific_energy (specific energy) or evaporation_T, feed_T
 //	                    (temperatures) with feed_ratio (number, kg feed per kg distillate) }
 //
-// A case may set, besides returns, subcool and off: tank_heating T, to,
-// from, duration; tank_cleaning flow, outlet_T; accommodation inside_T.
-// These hold for that case only.
+// A case may set, besides returns, subcool, off and factor: tank_heating
+// T, to, from, duration; tank_cleaning flow, outlet_T; accommodation
+// inside_T. These hold for that case only. The rows of voyage, study and
+// audit may not set these model keys (T, to, from, duration, flow,
+// outlet_T, inside_T): their rows are solved in parallel on clones of the
+// plant that share the model.
 //
 // # Plant, short form
 //
@@ -152,6 +235,10 @@
 //	                {name = "COT 1", kind = "tank_heating", fuel = "HSFO", T = "60 C", ...} },
 //	  turbines  = { {name = "COP1", power = "800 kW", exhaust = "0.2 bar(a)", eta_is = "65 %",
 //	                 condenser = { subcool = "5 K" }} },     -- kind = "cargo_pump" also fits here
+//	  exhaust_gas_economiser = { name = "EGE", drum = "7 bar(g)", engine = {...},
+//	                             design_load = "85 %", pinch = "15 K" },  -- optional
+//	  dump_condenser = { subcool = "80 K" },                -- optional, with an EGE
+//	  economisers = { {name = "ECO1", boiler = "AB1", ua = "4 kW/K"} }, -- optional
 //	}
 //
 // It takes the plant{} keys and builds, with the unit types of the full
@@ -163,12 +250,22 @@
 // the hotwell when returns is above zero; each turbine on its header
 // exhausting to a condenser "<turbine> condenser" that drains to the
 // hotwell; steam heating of the hotwell from the main header when set_T is
-// given. Defaults of the short form (common practice, no source): make-up
-// at 15 C; feed pump margin 3 bar over the highest drum pressure and
-// efficiency 45 %. Lines are named "makeup", "feed suction", "feed
+// given. An exhaust_gas_economiser (name default "EGE") is fed from the
+// feed header and delivers to the main header, and brings a dump condenser
+// "dump condenser" (condenser keys from dump_condenser; dump = true) on
+// the main header draining to the hotwell. Each of economisers sits
+// between the feed header and its boiler (one per boiler). Defaults of the
+// short form (common practice, no source): make-up at 15 C; feed pump
+// margin 3 bar over the highest drum pressure and efficiency 45 %; dump
+// condenser subcooling 80 K (condensate about 90 C from a 7 bar(g)
+// header; give more at higher pressures, so that it does not flash in a
+// vented hotwell). Lines are named "makeup", "feed suction", "feed
 // discharge", "feed <boiler>", "steam <boiler>", "steam to <consumer>",
 // "return from <consumer>", "to PRV <header>", "from PRV <header>",
-// "hotwell heating", "steam to/exhaust of/condensate of <turbine>". The
+// "hotwell heating", "steam to/exhaust of/condensate of <turbine>",
+// "feed EGE", "steam EGE", "to dump condenser", "condensate of dump
+// condenser", "feed <economiser>" (and "feed <boiler>" then leaves the
+// economiser). The
 // graph methods can add to the plant afterwards. Each unit of the short
 // form takes the line of its own table in the source (the first table
 // with its name = "..." at or after the steam_plant call, or for makeup,
@@ -185,10 +282,13 @@
 // (fraction of main engine MCR); set (per unit, the keys below); fire
 // (list of boilers that must fire; the others stay cold; without it the
 // plant's firing rule decides). Keys of set, by unit kind:
-// consumer duty, steam, returns, subcool, return_T, off; turbine power,
-// off; boiler mcr, drum, dryness, blowdown; feed_tank heat_loss, set_T,
-// room_T; feed_pump eta, margin; header heat_loss; reducing_valve p;
-// makeup T; condenser subcool.
+// consumer duty, steam, returns, subcool, return_T, off, factor (fraction
+// scaling the duty or steam flow however given, 1 = as declared; also for
+// the plant/loads kinds); turbine power, off; boiler mcr, drum, dryness,
+// blowdown, eta_factor (fraction scaling the efficiency model's figure);
+// feed_tank heat_loss, set_T, room_T; feed_pump eta, margin; header
+// heat_loss; reducing_valve p; makeup T; condenser subcool;
+// exhaust_gas_economiser off, ua; economiser ua.
 //
 // case solves at once (warm-started from the plant's previous case),
 // records the result in the Run and returns a table mirroring the JSON of
@@ -196,6 +296,104 @@
 // r.boilers_firing, r.can_carry, r.boilers[1].load_fraction,
 // r.consumers[i].steam_kg_h, r.warnings, ... In check mode it returns a
 // table of the same shape with zero figures.
+//
+// # Voyages, studies and audits
+//
+//	local v = voyage(ship, { name = "ballast leg", csv = "voyage.csv" })
+//	local v = voyage(ship, { name = "ballast leg", rows = {
+//	    { phase = "loading", hours = 12, sea = "18 C", air = "12 C", engine = "0 %",
+//	      set = { ["cargo heating"] = { off = true } }, fire = { "AB1" } },
+//	    { phase = "loaded passage", hours = "3 d", sea = "15 C", air = "10 C", engine = "85 %" } } })
+//
+// voyage runs a plan (package plant/profile, on all cores) and returns its
+// totals. Row keys: phase (required), hours (required: a number of hours
+// or a time such as "3 d"), name (default "rows N"), sea, air, engine,
+// set and fire as for case(). A CSV file has a header row naming its
+// columns: phase and hours (required), sea, air (temperatures with their
+// unit, "15 C"), engine ("85 %" or 0.85), name, fire (boiler names joined
+// by '+', "AB1+AB2"), and any number of columns "unit.key" setting that
+// key of that unit as in case{set = ...} ("cargo heating.duty" with cells
+// such as "2.5 MW", "EGE.off" with true or false). An empty cell leaves
+// the value as declared; hours in a cell are a number of hours or a time.
+// At most Options.MaxRows rows (default 100000). Every error names the
+// file and the line of the row (voyage.csv:7: column "sea": ...) or of
+// the header for a bad column, and what was expected.
+//
+// The result: v.name; v.total, each v.phases[i] (with .phase, in order of
+// first appearance) and v.by_phase["loaded passage"] hold the totals
+// rows, hours, fuel_t, co2_t, steam_t, ege_steam_t, dumped_t, makeup_t,
+// fuel_saved_t (by the EGEs), electric_MWh, hours_firing (a list: [1] no
+// boiler, [2] one, ...), hours_no_boiler, hours_one_boiler,
+// hours_two_boilers, peak_boiler_kg_h with peak_row, capacity_kg_h,
+// tightest_margin_kg_h with tightest_row (absent if no row had a margin),
+// short_rows and warning_rows (lists of row numbers); v.rows[i] has
+// phase, hours, name, fuel_kg_h, fuel_t, co2_t, steam_kg_h,
+// ege_steam_kg_h, dumped_kg_h, boilers_firing, can_carry and warnings (a
+// count; the texts and every case result are in the Run).
+//
+//	local s = study(ship, { name = "EGE", csv = "year.csv", variants = {
+//	    { name = "without EGE", set = { EGE = { off = true } } },
+//	    { name = "with EGE" } }, fuel_price = 650, installed_cost = 250000, currency = "USD" })
+//
+// study runs the rows (rows or csv, as for voyage) once per variant (2 to
+// 100; name required, set optional, added to every row) and compares each
+// with the first. fuel_price (number, per tonne of boiler fuel),
+// installed_cost (number) and currency (a string) are optional. The
+// result: s.name, s.hours, s.fuel_price, s.installed_cost, s.currency;
+// s.variants[i] and s.by_name["with EGE"] hold the variant's totals (as a
+// voyage's) and saved_fuel_t, co2_avoided_t, cost_saved (against the
+// first), payback_years (when both money figures are given; math.huge if
+// nothing is saved; the saving is scaled to a year when the rows' hours
+// are not one), hours_below_min_gas_T.
+//
+//	local a = audit(ship, { name = "March", csv = "log.csv",
+//	    uncertain = { { unit = "cargo heating", key = "factor", low = 0.85, high = 1.15 },
+//	                  { unit = "AB1", key = "eta_factor", low = "97 %", high = "103 %" } },
+//	    samples = 1000, seed = 1, band = { "5 %", "95 %" } })
+//
+// audit models each day's boiler fuel with the uncertain inputs drawn
+// uniformly from low to high (Monte Carlo; samples per day 10 to 100000,
+// default 200; seed a whole number, default 0; band the quantiles, default
+// 5 % and 95 %) and flags the days whose claim lies outside the band.
+// Days come from days = { {date, claimed, phase, hours, sea, air, engine,
+// set, fire}, ... } or a CSV file with columns date and claimed
+// (required), phase, hours (default 24), sea, air, engine, name, fire and
+// "unit.key" columns. claimed is the boiler fuel reported for the day:
+// "12.5 t", "12500 kg", or a bare number of tonnes. uncertain keys: unit,
+// key (a case key of the unit that is a number: factor, eta_factor, duty,
+// returns, ua, ...), low and high in that key's unit. The result: a.name,
+// a.claimed_t, a.nominal_t, a.low_t, a.high_t (sums of the days' band
+// ends), a.excess_t (the claims above the band, beyond its top), a.flagged
+// (a count), a.samples, a.seed, a.low_quantile, a.high_quantile; a.days[i]
+// and a.flagged_days[i] have day (number), date, phase, claimed_t,
+// nominal_t, low_t, median_t, high_t and flag ("above", "below" or "").
+//
+// In check mode the jobs read and check everything but solve nothing, and
+// return tables of the same shape with zero figures.
+//
+// # Cargo temperatures with the heating off
+//
+//	local T, info = cool_down { tank = cot1, from = "60 C", hours = 72, sea = "12 C", air = "5 C" }
+//	local h, info = time_to_cool { tank = "COT 1", from = "60 C", to = "45 C", sea = "12 C", air = "5 C" }
+//
+// cool_down returns the cargo temperature in °C (a number) after hours (a
+// number of hours or a time) with the heating off, by the lumped model of
+// plant/loads (TankHeating.CoolDownAfter, plant-checks.md §6);
+// time_to_cool returns the hours until the cargo reaches to (nil if it
+// never does: a target at or below the surroundings). Both return a
+// second table: T_C, from_C, hours, reached, tau_h, mass_t,
+// cp_kJ_per_kgK, UA_kW_per_K, ambient_C, warnings. tank is a tank_heating
+// unit (the table ship:tank_heating returned, or its name), a table of
+// the tank keys of ship:tank_heating (fuel or density, cp, volume with
+// boundaries, or dimensions), or a lumped tank { mass, cp, UA } whose
+// surroundings are the call's key ambient (a temperature). sea and air
+// are needed when the tank has boundaries to them. A voyage that switches
+// a tank's heating off (set = { ["COT 1"] = { off = true } }) does not
+// compute the cargo's temperature; the script does:
+//
+//	local v = voyage(ship, { csv = "ballast.csv" })  -- COT 1 off in every row
+//	local arrival = cool_down { tank = cot1, from = "60 C", hours = v.total.hours, sea = "12 C" }
+//	check(arrival > 45, "cargo pumpable at arrival")
 //
 // # Other functions
 //

@@ -227,3 +227,27 @@ func runValues(t *testing.T, src string, n int) []float64 {
 	}
 	return out
 }
+
+// TestCoolDownOfUnit takes the tank of a ship:tank_heating: the same
+// figures as plant-checks.md §6 [C] (10 000 t at a constant 2.0 kJ/kgK,
+// ΣUA 50 kW/K to a 20 °C sea: 60 °C → 40.92 °C in 3 days), reached by
+// its handle and by its name, while a voyage keeps its heating off.
+func TestCoolDownOfUnit(t *testing.T) {
+	src := `
+local ship = steam_plant { name = "tank",
+  boilers = { { name = "AB1", mcr = "3 t/h", drum = "7 bar(g)", fuel = "MGO", efficiency = "84 %" } } }
+local cot = ship:tank_heating { name = "COT 1", density = "1000 kg/m3", cp = "2.0 kJ/kgK", volume = "10000 m3",
+  boundaries = { { area = "10000 m2", U = "5 W/m2K", beyond = "sea" } }, T = "60 C" }
+ship:line("steam to COT 1", "main", "COT 1")
+local v = voyage(ship, { rows = { { phase = "passage", hours = 72, sea = "20 C", air = "20 C", set = { ["COT 1"] = { off = true } } } } })
+local T = cool_down { tank = cot, from = "60 C", hours = v.total.hours, sea = "20 C" }
+local T2 = cool_down { tank = "COT 1", from = "60 C", hours = "3 d", sea = "20 C" }
+return T, T2, v.rows[1].steam_kg_h`
+	got := runValues(t, src, 3)
+	if math.Abs(got[0]-40.92) > 0.005 || got[1] != got[0] {
+		t.Errorf("cool_down of the unit gives %.4f °C by handle and %.4f °C by name; want 40.92 °C", got[0], got[1])
+	}
+	if got[2] != 0 {
+		t.Errorf("the voyage raises %g kg/h of steam with the only consumer off; want 0", got[2])
+	}
+}
