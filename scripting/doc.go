@@ -51,7 +51,9 @@
 // default 85 %); sharing ("equal" or "lead"); lead_load (fraction, lead
 // boiler's load under "lead"; default 80 %); feed_suction_max_T
 // (temperature above which the feed pump's suction is warned about;
-// default 90 C).
+// default 90 C); ege_saving (boolean, default true: each case is solved a
+// second time without its exhaust-gas economisers to give the fuel they
+// save; false skips that solve, for speed, and the saving reads zero).
 //
 // Units are declared with methods of the plant; each returns a table
 // { name = ..., kind = ... } and records its script line, so that every

@@ -73,3 +73,27 @@ return case(ship, { name = "c", sea = "10 C", air = "5 C", engine = "85 %" })`
 		}
 	}
 }
+
+// TestEGESavingSwitch: ege_saving = false skips the second solve, so the
+// saving reads zero while the case itself is unchanged (the option's
+// documented effect, plant.Options.NoEGESaving).
+func TestEGESavingSwitch(t *testing.T) {
+	src := `
+local ship = steam_plant { name = "s", ege_saving = SAVE,
+  boilers = { { name = "AB1", mcr = "4 t/h", drum = "7 bar(g)", fuel = "HSFO", efficiency = "84 %" } },
+  exhaust_gas_economiser = { drum = "7 bar(g)", design_load = "85 %", pinch = "15 K",
+    engine = { mcr = "12 MW", { load = "25 %", gas = "11 kg/kWh", T = "250 C" }, { load = "100 %", gas = "8.1 kg/kWh", T = "245 C" } } },
+  consumers = { { name = "heating", duty = "2 MW", returns = "90 %" } } }
+return case(ship, { name = "c", engine = "85 %" })`
+	var fuel, saved [2]float64
+	for i, save := range []string{"true", "false"} {
+		run, err := RunSource(context.Background(), "s.lua", []byte(strings.ReplaceAll(src, "SAVE", save)), nil, Options{})
+		if err != nil {
+			t.Fatal(err)
+		}
+		fuel[i], saved[i] = run.Cases[0].Result.FuelKgS, run.Cases[0].Result.EGEFuelSavedKgS
+	}
+	if saved[0] <= 0 || saved[1] != 0 || math.Abs(fuel[0]-fuel[1]) > 1e-9*fuel[0] {
+		t.Errorf("saved %v kg/s, fuel %v kg/s; want a saving only with ege_saving = true and the same fuel", saved, fuel)
+	}
+}

@@ -148,6 +148,11 @@ func (r *runner) plantOptions(t *lua.LTable, what string, pos Pos) (*args, strin
 	}
 	opt.LeadLoad, _ = a.quantity("lead_load", units.Fraction, false)
 	opt.FeedSuctionMaxT, _ = a.quantity("feed_suction_max_T", units.Temperature, false)
+	if a.has("ege_saving") {
+		// false skips the second solve of each case without the
+		// exhaust-gas economisers that gives the fuel they save
+		opt.NoEGESaving = !a.boolean("ege_saving")
+	}
 	opt.Logger = r.log
 	return a, name, opt
 }
