@@ -72,7 +72,7 @@ func buildEGE(r *runner, a *args, ph *plantHandle) plant.Unit {
 // gas is exhaust per energy ("8.5 kg/kWh") or a mass flow ("35 kg/s").
 func (r *runner) engineExhaust(a *args, t *lua.LTable) plant.EngineExhaust {
 	r.checkSize(t, "engine")
-	e := r.args(t, a.what, a.pos, a.uopt)
+	e := r.args(t, a.what+" engine", a.pos, a.uopt)
 	var out plant.EngineExhaust
 	out.MCR, _ = e.quantity("mcr", units.Power, true)
 	n := t.Len()
@@ -125,7 +125,7 @@ func (r *runner) engineExhaust(a *args, t *lua.LTable) plant.EngineExhaust {
 	// mcr nor a point.
 	for _, k := range r.unknownKeys(t, nil) {
 		if !contains(e.asked, k) {
-			e.errorf(nil, "engine: %s", unknownKeyMsg(k, []string{"mcr"}))
+			e.errorf(nil, "%s", unknownKeyMsg(k, []string{"mcr"}))
 		}
 	}
 	a.nerr += e.nerr
@@ -267,24 +267,24 @@ func (r *runner) furnaceTubes(e *args) plant.EfficiencyModel {
 // wall_emissivity, soot }.
 func (r *runner) furnace(e *args, t *lua.LTable) heat.Furnace {
 	r.checkSize(t, "furnace")
-	f := r.args(t, e.what, e.pos, e.uopt)
+	f := r.args(t, e.what+" furnace", e.pos, e.uopt)
 	var out heat.Furnace
 	out.WallArea, _ = f.quantity("wall_area", units.Area, true)
 	vol, hasVol := f.quantity("volume", units.Volume, false)
 	lm, hasLm := f.quantity("beam_length", units.Length, false)
 	switch {
 	case hasVol && hasLm:
-		f.errorf(nil, "furnace: give volume or beam_length, not both")
+		f.errorf(nil, "give volume or beam_length, not both")
 	case hasLm:
 		out.BeamLength = lm
 	case hasVol && out.WallArea > 0:
 		b, err := heat.BeamLength(vol, out.WallArea)
 		if err != nil {
-			f.errorf(err, "furnace: %v", err)
+			f.errorf(err, "%v", err)
 		}
 		out.BeamLength = b
 	case !hasVol:
-		f.errorf(nil, "furnace needs its volume (such as volume = \"2.4 m3\") or beam_length")
+		f.errorf(nil, "needs its volume (such as volume = \"2.4 m3\") or beam_length")
 	}
 	out.WallTemperature, _ = f.quantity("wall_T", units.Temperature, false)
 	out.WallEmissivity = 0.8 // oxidised or sooted steel, plant/heat [M]
@@ -314,10 +314,10 @@ func (r *runner) passes(e *args, t *lua.LTable) []heat.SmokeTubes {
 			continue
 		}
 		r.checkSize(pt, "passes")
-		p := r.args(pt, e.what, e.pos, e.uopt)
+		p := r.args(pt, fmt.Sprintf("%s passes[%d]", e.what, i), e.pos, e.uopt)
 		var s heat.SmokeTubes
 		if c, ok := p.number("tubes"); !ok || c < 1 || c > 1e5 || c != float64(int(c)) {
-			p.errorf(nil, "efficiency.passes[%d].tubes must be a whole number of tubes from 1, such as tubes = 45", i)
+			p.errorf(nil, "tubes must be a whole number of tubes from 1, such as tubes = 45")
 		} else {
 			s.Count = int(c)
 		}
@@ -365,7 +365,7 @@ func (r *runner) burner(a *args) plant.Burner {
 		return b
 	}
 	r.checkSize(t, "burner")
-	p := r.args(t, a.what, a.pos, a.uopt)
+	p := r.args(t, a.what+" burner", a.pos, a.uopt)
 	b.AirT, _ = p.quantity("air_T", units.Temperature, false)
 	b.FanRise, _ = p.pressureDiff("fan_rise", false)
 	b.FanEta, _ = p.quantity("fan_eta", units.Fraction, b.FanRise > 0)
