@@ -3,25 +3,28 @@ package solver
 import (
 	"context"
 	"strconv"
+	"strings"
 	"testing"
 )
 
 // BenchmarkBroyden solves Broyden tridiagonal (MGH (30)) and Broyden
 // banded (MGH (31)) from the standard start with an analytic, a dense
 // finite-difference and a coloured finite-difference Jacobian, reusing one
-// Solver; the last two variants replace DenseLU with SparseLU.
+// Solver; the "sparse-lu" variants replace DenseLU with SparseLU, and the
+// "pattern" variant gives the analytic Jacobian its Pattern too.
 func BenchmarkBroyden(b *testing.B) {
 	ctx := context.Background()
 	for _, mk := range []func(int) mghProblem{broydenTridiagonal, broydenBanded} {
 		for _, n := range []int{50, 500} {
 			m := mk(n)
-			for _, mode := range []string{"analytic", "dense-fd", "colored-fd", "analytic+sparse-lu", "colored-fd+sparse-lu"} {
-				p := m.problem(mode == "analytic" || mode == "analytic+sparse-lu")
-				if mode != "colored-fd" && mode != "colored-fd+sparse-lu" {
+			for _, mode := range []string{"analytic", "dense-fd", "colored-fd", "analytic+sparse-lu", "colored-fd+sparse-lu", "analytic+pattern+sparse-lu"} {
+				analytic := strings.HasPrefix(mode, "analytic")
+				p := m.problem(analytic)
+				if !strings.Contains(mode, "colored") && !strings.Contains(mode, "pattern") {
 					p.Pattern = nil
 				}
 				var set *Settings
-				if mode == "analytic+sparse-lu" || mode == "colored-fd+sparse-lu" {
+				if strings.HasSuffix(mode, "sparse-lu") {
 					set = &Settings{Factorizer: &SparseLU{}}
 				}
 				name := m.name + "/n=" + strconv.Itoa(n) + "/" + mode
@@ -57,9 +60,15 @@ func BenchmarkBroyden(b *testing.B) {
 func BenchmarkWarmVoyage(b *testing.B) {
 	ctx := context.Background()
 	for _, n := range []int{50, 500} {
-		for _, mode := range []string{"analytic", "colored"} {
+		for _, mode := range []string{"analytic", "colored", "analytic+pattern+sparse-lu"} {
 			b.Run("n="+strconv.Itoa(n)+"/"+mode, func(b *testing.B) {
-				v := newVoyage(n, mode, nil)
+				var set *Settings
+				vmode := mode
+				if mode == "analytic+pattern+sparse-lu" {
+					set = &Settings{Factorizer: &SparseLU{}}
+					vmode = "analytic+pattern"
+				}
+				v := newVoyage(n, vmode, set)
 				start := filled(n, -1)
 				v.c = voyageLoad(0)
 				res, err := v.sv.Solve(ctx, start)

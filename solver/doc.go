@@ -64,12 +64,19 @@
 // the column intersection graph (Curtis, Powell and Reid, J. Inst. Maths
 // Applics 13, 1974): columns that share no equation are perturbed together,
 // so a banded or sparse Jacobian costs a handful of residual evaluations
-// (Result.Colors). The pattern must contain every nonzero of the Jacobian:
-// an analytic Jacobian is checked against it at every iteration (a
-// *PatternError names the equation and unknown), and Solver.CheckPattern
-// checks a model without one by dense differences. A difference step that
-// leaves the model's domain (the residual returns an error wrapping
-// ErrDomain) is retried from the other side.
+// (Result.Colors). The pattern must contain every nonzero of the Jacobian.
+// With a Pattern, the work per iteration on the Jacobian (zeroing,
+// checking for NaN and Inf, scaling, the gradient, handing it to a
+// PatternFactorizer such as SparseLU) is proportional to its nonzeros, not
+// to Dim²: entries outside the pattern are taken as zero and an analytic
+// Jacobian's entries there are not read. Settings.VerifyPattern makes the
+// solver check an analytic Jacobian against the pattern at every iteration
+// instead (a *PatternError names the equation and unknown); Solver.Jacobian
+// with analytic true always checks, and Solver.CheckPattern checks a model
+// without an analytic Jacobian by dense differences. A model's tests should
+// use one of these. A difference step that leaves the model's domain (the
+// residual returns an error wrapping ErrDomain) is retried from the other
+// side.
 //
 // # Structural diagnosis
 //
@@ -104,7 +111,12 @@
 // SparseLU, a left-looking sparse LU with threshold partial pivoting
 // (Gilbert and Peierls 1988), can be set in Settings.Factorizer for large
 // sparse Jacobians; it takes the columns in their natural order (no
-// fill-reducing ordering) and allocates nothing once warm.
+// fill-reducing ordering) and allocates nothing once warm. Told the
+// Pattern (New does so), it reads only the pattern's entries; its
+// condition estimate is made only when asked for, and while no Recorder
+// wants the estimate the solver first tries SparseLU.CondBound, a cheaper
+// upper bound of the condition number: when that is within MaxCondition,
+// so is the estimate, and the estimate is skipped.
 //
 // # Errors and allocation
 //

@@ -30,6 +30,26 @@ type Factorizer interface {
 	Solve(dst, b []float64) error
 }
 
+// PatternFactorizer is a Factorizer that can be told once which entries
+// of the matrices it will factorise may be nonzero. New calls SetPattern
+// with the Problem's Dim and Pattern (pattern[i] lists the columns of row
+// i) when the Problem has a Pattern; from then on the factorizer may read
+// only those entries, taking the others as zero, which the solver
+// guarantees for the scaled Jacobians it hands over. SparseLU implements
+// it.
+type PatternFactorizer interface {
+	Factorizer
+	SetPattern(n int, pattern [][]int)
+}
+
+// condBounder is a Factorizer with a cheap upper bound of the condition
+// number of its last factorisation (≥ the true 1-norm condition number,
+// +Inf if unknown), so that the solver can skip the dearer estimate when
+// the bound is within Settings.MaxCondition.
+type condBounder interface {
+	CondBound() float64
+}
+
 // ErrExactlySingular is returned by a Factorizer for an exactly singular matrix.
 var ErrExactlySingular = errors.New("solver: matrix is exactly singular")
 

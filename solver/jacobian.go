@@ -119,6 +119,7 @@ func (s *Solver) fdJacobian(x, r []float64, it int) error {
 	raw := s.jac.RawMatrix()
 	copy(s.xt, x)
 	if s.color == nil {
+		s.outside = true
 		for j := 0; j < n; j++ {
 			s.one[0] = j
 			if err := s.perturb(s.one[:], x, it); err != nil {
@@ -131,12 +132,8 @@ func (s *Solver) fdJacobian(x, r []float64, it int) error {
 		}
 		return nil
 	}
-	for i := 0; i < n; i++ {
-		row := raw.Data[i*raw.Stride : i*raw.Stride+n]
-		for j := range row {
-			row[j] = 0
-		}
-	}
+	// The groups write exactly the pattern's entries; the others stay zero.
+	s.clearOutside()
 	for _, group := range s.color.groups {
 		if err := s.perturb(group, x, it); err != nil {
 			return err
@@ -176,10 +173,50 @@ func (s *Solver) perturb(group []int, x []float64, it int) error {
 	return err
 }
 
-// analyticJacobian calls Problem.Jacobian and scales the result in place:
-// J̃_ij = J_ij·XScale_j/FScale_i.
-func (s *Solver) analyticJacobian(x []float64, it int) error {
+// analyticJacobian calls Problem.Jacobian and scales the result:
+// J̃_ij = J_ij·XScale_j/FScale_i. With full false and a Pattern (the
+// default during a solve, Settings.VerifyPattern false) the model writes
+// into s.model, of which only the pattern's entries are zeroed before the
+// call and read after it, so the cost is proportional to the nonzeros;
+// s.jac keeps zeros outside the pattern. With full true, or without a
+// Pattern, the model writes into s.jac itself, every entry is checked and
+// scaled, and with a Pattern the entries outside it are checked to be
+// zero (checkPattern).
+func (s *Solver) analyticJacobian(x []float64, it int, full bool) error {
+	if full || s.p.Pattern == nil {
+		return s.analyticJacobianFull(x, it)
+	}
+	mraw := s.model.RawMatrix()
+	for i := 0; i < s.n; i++ {
+		row := mraw.Data[i*mraw.Stride : i*mraw.Stride+s.n]
+		for _, j := range s.prow(i) {
+			row[j] = 0
+		}
+	}
+	if err := s.p.Jacobian(s.model, x); err != nil {
+		return &statusError{status: ResidualFailed, msg: "solver: Jacobian at iteration " + itoa(it), err: err}
+	}
+	s.clearOutside()
+	raw := s.jac.RawMatrix()
+	for i := 0; i < s.n; i++ {
+		mrow := mraw.Data[i*mraw.Stride : i*mraw.Stride+s.n]
+		row := raw.Data[i*raw.Stride : i*raw.Stride+s.n]
+		fi := 1 / s.fs[i]
+		for _, j := range s.prow(i) {
+			v := mrow[j]
+			if math.IsNaN(v) || math.IsInf(v, 0) {
+				return &NumberError{Equation: s.p.eqName(i), Unknown: s.p.varName(j), Value: v, Iter: it}
+			}
+			row[j] = v * s.xs[j] * fi
+		}
+	}
+	return nil
+}
+
+// analyticJacobianFull is analyticJacobian over the whole matrix.
+func (s *Solver) analyticJacobianFull(x []float64, it int) error {
 	s.jac.Zero()
+	s.outside = true
 	if err := s.p.Jacobian(s.jac, x); err != nil {
 		return &statusError{status: ResidualFailed, msg: "solver: Jacobian at iteration " + itoa(it), err: err}
 	}
@@ -195,9 +232,46 @@ func (s *Solver) analyticJacobian(x []float64, it int) error {
 		}
 	}
 	if s.p.Pattern != nil {
-		return s.checkPattern(it)
+		if err := s.checkPattern(it); err != nil {
+			return err
+		}
+		s.outside = false // checked: zero outside the pattern
 	}
 	return nil
+}
+
+// prow returns the columns of row i of the Pattern, sorted, without
+// duplicates.
+func (s *Solver) prow(i int) []int { return s.pcol[s.pptr[i]:s.pptr[i+1]] }
+
+// clearOutside zeroes s.jac if entries outside the Pattern may be nonzero
+// (after a dense finite-difference or a full analytic Jacobian), so that
+// the pattern-only paths may leave those entries alone.
+func (s *Solver) clearOutside() {
+	if s.outside {
+		s.jac.Zero()
+		s.outside = false
+	}
+}
+
+// compressPattern returns the rows of pattern (n columns) in compressed
+// form, each row sorted and without duplicates: row i is
+// idx[ptr[i]:ptr[i+1]].
+func compressPattern(pattern [][]int, n int) (ptr, idx []int) {
+	ptr = make([]int, len(pattern)+1)
+	mark := make([]int, n)
+	for i, row := range pattern {
+		start := len(idx)
+		for _, j := range row {
+			if mark[j] != i+1 {
+				mark[j] = i + 1
+				idx = append(idx, j)
+			}
+		}
+		sort.Ints(idx[start:])
+		ptr[i+1] = len(idx)
+	}
+	return ptr, idx
 }
 
 // checkPattern reports the entries of the scaled Jacobian that are nonzero
@@ -251,9 +325,21 @@ func (s *Solver) CheckPattern(x []float64) error {
 	return s.checkPattern(0)
 }
 
-// checkJacobian reports the first non-finite entry of the scaled Jacobian.
+// checkJacobian reports the first non-finite entry of the scaled Jacobian
+// (only the pattern's entries when the rest are known to be zero).
 func (s *Solver) checkJacobian(it int) error {
 	raw := s.jac.RawMatrix()
+	if s.pptr != nil && !s.outside {
+		for i := 0; i < s.n; i++ {
+			row := raw.Data[i*raw.Stride : i*raw.Stride+s.n]
+			for _, j := range s.prow(i) {
+				if v := row[j]; math.IsNaN(v) || math.IsInf(v, 0) {
+					return &NumberError{Equation: s.p.eqName(i), Unknown: s.p.varName(j), Value: v, Iter: it}
+				}
+			}
+		}
+		return nil
+	}
 	for i := 0; i < s.n; i++ {
 		row := raw.Data[i*raw.Stride : i*raw.Stride+s.n]
 		for j, v := range row {
@@ -269,7 +355,7 @@ func (s *Solver) checkJacobian(it int) error {
 func (s *Solver) jacobian(it int) error {
 	s.res.Stats.JacobianEvals++
 	if s.p.Jacobian != nil {
-		return s.analyticJacobian(s.x, it)
+		return s.analyticJacobian(s.x, it, s.set.VerifyPattern)
 	}
 	if err := s.fdJacobian(s.x, s.r, it); err != nil {
 		return err
@@ -295,7 +381,7 @@ func (s *Solver) Jacobian(dst *mat.Dense, x []float64, analytic bool) error {
 		if s.p.Jacobian == nil {
 			panic("solver: Solver.Jacobian: the problem has no analytic Jacobian")
 		}
-		err = s.analyticJacobian(x, 0)
+		err = s.analyticJacobian(x, 0, true)
 	} else {
 		if err = s.residual(s.r, x, 0, false); err == nil {
 			err = s.fdJacobian(x, s.r, 0)

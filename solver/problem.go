@@ -25,7 +25,10 @@ type Problem struct {
 
 	// Jacobian, if not nil, writes dF_i/dx_j into j (Dim×Dim, already sized;
 	// the solver zeroes it before each call). If nil, the solver uses
-	// forward finite differences (coloured when Pattern is given).
+	// forward finite differences (coloured when Pattern is given). With a
+	// Pattern, Jacobian must write only the pattern's entries: unless
+	// Settings.VerifyPattern is set, the solver zeroes and reads only
+	// those, and ignores anything written elsewhere.
 	Jacobian func(j *mat.Dense, x []float64) error
 
 	// XScale is the typical magnitude of each unknown (nil: all 1). The solver
@@ -38,9 +41,12 @@ type Problem struct {
 	FScale []float64
 
 	// Pattern, if not nil, has Dim rows; Pattern[i] lists the unknowns that
-	// equation i depends on. It is used for the structural diagnosis (see
-	// Diagnose) and to colour the columns of a finite-difference Jacobian.
-	// Entries outside the pattern are taken to be exactly zero.
+	// equation i depends on (in any order; duplicates are ignored). It is
+	// used for the structural diagnosis (see Diagnose), to colour the
+	// columns of a finite-difference Jacobian, and to keep the work on a
+	// Jacobian proportional to its nonzeros: entries outside the pattern
+	// are taken to be exactly zero and are neither read nor checked unless
+	// Settings.VerifyPattern is set.
 	Pattern [][]int
 
 	// Lower and Upper are optional bounds on the unknowns (nil: unbounded;
@@ -195,6 +201,17 @@ type Settings struct {
 	// in Result.RegularizedSteps. Default false: a singular Jacobian stops
 	// the solve and is reported by name.
 	Regularize bool
+
+	// VerifyPattern makes the solver check an analytic Jacobian against the
+	// Pattern at every iteration: it zeroes, reads and checks for NaN and
+	// Inf every entry, and stops with a *PatternError (status
+	// InvalidProblem) naming the equation and unknown of any nonzero entry
+	// outside the pattern. That costs O(Dim²) per iteration. Default
+	// false: only the pattern's entries are zeroed, read, checked and
+	// scaled, O(nonzeros). Turn it on in a model's tests; Solver.Jacobian
+	// with analytic true and Solver.CheckPattern always check the whole
+	// matrix. Without a Pattern every entry is always read.
+	VerifyPattern bool
 
 	// SkipDiagnosis skips the structural diagnosis that New runs when the
 	// problem has a Pattern. Use it for a warm sequence of solves of the same

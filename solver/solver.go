@@ -27,6 +27,15 @@ type Solver struct {
 	jac   *mat.Dense // scaled Jacobian
 	color *coloring  // nil without a Pattern: dense finite differences
 
+	// With a Pattern: its rows sorted and without duplicates (row i is
+	// pcol[pptr[i]:pptr[i+1]]), the matrix an analytic Jacobian is written
+	// into when only the pattern is read, and whether s.jac may hold
+	// nonzeros outside the pattern (see clearOutside).
+	pptr, pcol []int
+	model      *mat.Dense
+	outside    bool
+	bounder    condBounder // s.fact's cheap condition bound, if it has one
+
 	jtj    *mat.Dense // J̃ᵀJ̃ + μI for Levenberg–Marquardt steps (Regularize only)
 	lmFact *DenseLU
 
@@ -105,7 +114,15 @@ func New(p Problem, s *Settings) (*Solver, error) {
 	}
 	if p.Pattern != nil {
 		sv.color = colorColumns(p.Pattern, n)
+		sv.pptr, sv.pcol = compressPattern(p.Pattern, n)
+		if p.Jacobian != nil && !set.VerifyPattern {
+			sv.model = mat.NewDense(n, n, nil)
+		}
+		if pf, ok := sv.fact.(PatternFactorizer); ok {
+			pf.SetPattern(n, p.Pattern)
+		}
 	}
+	sv.bounder, _ = sv.fact.(condBounder)
 	work := make([]float64, 9*n)
 	next := func() []float64 { v := work[:n:n]; work = work[n:]; return v }
 	sv.x, sv.r, sv.xt, sv.rt = next(), next(), next(), next()
@@ -240,7 +257,7 @@ func (s *Solver) run(ctx context.Context) error {
 		}
 		s.gradient()
 		ferr := s.fact.Factorize(s.jac)
-		cond := s.fact.Cond()
+		cond := s.condition(ferr)
 		regularized := false
 		if ferr != nil || !(cond <= set.MaxCondition) {
 			if math.IsNaN(cond) {
@@ -360,18 +377,41 @@ func (s *Solver) levenbergMarquardt() bool {
 	return s.lmFact.Solve(s.step, s.rt) == nil
 }
 
+// condition returns the condition estimate of the factorisation, or,
+// when nobody will see the estimate (no Recorder) and the Factorizer has a
+// cheap upper bound of the condition number that is within
+// Settings.MaxCondition, that bound. Since the estimate is never above
+// the true condition number and the bound never below it, the bound
+// passing the limit means the estimate would have passed it too: the
+// SingularJacobian decision is the same, only the estimate is skipped.
+func (s *Solver) condition(ferr error) float64 {
+	if ferr == nil && s.bounder != nil && s.set.Recorder == nil {
+		if b := s.bounder.CondBound(); b <= s.set.MaxCondition {
+			return b
+		}
+	}
+	return s.fact.Cond()
+}
+
 // gradient sets s.grad = J̃ᵀ·F̃, the gradient of ½‖F̃‖² in scaled unknowns.
 func (s *Solver) gradient() {
 	raw := s.jac.RawMatrix()
 	for j := range s.grad {
 		s.grad[j] = 0
 	}
+	sparse := s.pptr != nil && !s.outside
 	for i := 0; i < s.n; i++ {
 		ri := s.r[i]
 		if ri == 0 {
 			continue
 		}
 		row := raw.Data[i*raw.Stride : i*raw.Stride+s.n]
+		if sparse {
+			for _, j := range s.prow(i) {
+				s.grad[j] += row[j] * ri
+			}
+			continue
+		}
 		for j, v := range row {
 			s.grad[j] += v * ri
 		}
@@ -501,9 +541,17 @@ func cubicStep(f, slope, a1, f1, a2, f2 float64) float64 {
 func (s *Solver) jgNormSq() float64 {
 	raw := s.jac.RawMatrix()
 	sum := 0.0
+	sparse := s.pptr != nil && !s.outside
 	for i := 0; i < s.n; i++ {
 		row := raw.Data[i*raw.Stride : i*raw.Stride+s.n]
 		v := 0.0
+		if sparse {
+			for _, j := range s.prow(i) {
+				v += row[j] * s.grad[j]
+			}
+			sum += v * v
+			continue
+		}
 		for j, a := range row {
 			v += a * s.grad[j]
 		}

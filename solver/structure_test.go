@@ -7,6 +7,8 @@ import (
 	"reflect"
 	"strings"
 	"testing"
+
+	"gonum.org/v1/gonum/mat"
 )
 
 // TestDiagnose checks the Dulmage–Mendelsohn coarse decomposition on small
@@ -245,8 +247,11 @@ func TestDiagnoseBadPattern(t *testing.T) {
 }
 
 // TestPatternCheck: a pattern that leaves out a dependency is caught with
-// an analytic Jacobian during the solve and by CheckPattern for finite
-// differences (constructed case, no source).
+// an analytic Jacobian during the solve when Settings.VerifyPattern is
+// set, by Solver.Jacobian with analytic true in any case, and by
+// CheckPattern for finite differences (constructed case, no source).
+// Without VerifyPattern the entry outside the pattern is ignored, as
+// documented.
 func TestPatternCheck(t *testing.T) {
 	t.Parallel()
 	m := broydenTridiagonal(6)
@@ -255,13 +260,29 @@ func TestPatternCheck(t *testing.T) {
 	p.VarNames = []string{"x0", "x1", "x2", "x3", "x4", "x5"}
 	p.Pattern = band(6, 1, 1)
 	p.Pattern[2] = []int{1, 2} // drops x3 from e2
-	res, err := Solve(context.Background(), p, m.x0, nil)
+	for _, fact := range []Factorizer{nil, &SparseLU{}} {
+		res, err := Solve(context.Background(), p, m.x0, &Settings{VerifyPattern: true, Factorizer: fact})
+		var pe *PatternError
+		if res.Status != InvalidProblem || !errors.As(err, &pe) || len(pe.Entries) != 1 || pe.Entries[0] != [2]string{"e2", "x3"} {
+			t.Fatalf("analytic, %T: status %v, error %v; want InvalidProblem naming e2 and x3", fact, res.Status, err)
+		}
+	}
+	sv, err := New(p, nil)
+	if err != nil {
+		t.Fatal(err)
+	}
 	var pe *PatternError
-	if res.Status != InvalidProblem || !errors.As(err, &pe) || len(pe.Entries) != 1 || pe.Entries[0] != [2]string{"e2", "x3"} {
-		t.Fatalf("analytic: status %v, error %v; want InvalidProblem naming e2 and x3", res.Status, err)
+	err = sv.Jacobian(mat.NewDense(6, 6, nil), m.x0, true)
+	if !errors.As(err, &pe) || len(pe.Entries) != 1 || pe.Entries[0] != [2]string{"e2", "x3"} {
+		t.Errorf("Solver.Jacobian: %v; want e2 depends on x3", err)
+	}
+	// Unverified, the solve uses the Jacobian without d e2/d x3 (a
+	// quasi-Newton step) and still converges.
+	if res, err := sv.Solve(context.Background(), m.x0); err != nil || res.Status != Converged {
+		t.Errorf("unverified: status %v, error %v; want Converged", res.Status, err)
 	}
 	p.Jacobian = nil
-	sv, err := New(p, nil)
+	sv, err = New(p, nil)
 	if err != nil {
 		t.Fatal(err)
 	}

@@ -29,6 +29,9 @@ func newVoyage(n int, mode string, s *Settings) *voyage {
 	switch mode {
 	case "analytic":
 		p.Jacobian = func(j *mat.Dense, x []float64) error { m.jac(j, x); return nil }
+	case "analytic+pattern":
+		p.Jacobian = func(j *mat.Dense, x []float64) error { m.jac(j, x); return nil }
+		p.Pattern = m.pattern
 	case "colored":
 		p.Pattern = m.pattern
 	}
@@ -78,15 +81,21 @@ type countRecorder struct{ n int }
 func (c *countRecorder) Record(it Iteration) error { c.n++; return nil }
 
 // TestZeroAllocs checks that a warm Solver allocates nothing per Solve,
-// with each kind of Jacobian and with a Recorder.
+// with each kind of Jacobian, with a Recorder, and with an analytic
+// Jacobian and a Pattern with either factorisation.
 func TestZeroAllocs(t *testing.T) {
-	for _, mode := range []string{"analytic", "dense", "colored", "recorded"} {
+	for _, mode := range []string{"analytic", "dense", "colored", "recorded", "analytic+pattern", "analytic+pattern+sparse"} {
 		var set *Settings
 		rec := &countRecorder{}
-		if mode == "recorded" {
+		vmode := mode
+		switch mode {
+		case "recorded":
 			set = &Settings{Recorder: rec}
+		case "analytic+pattern+sparse":
+			set = &Settings{Factorizer: &SparseLU{}}
+			vmode = "analytic+pattern"
 		}
-		v := newVoyage(50, mode, set)
+		v := newVoyage(50, vmode, set)
 		x := filled(50, -1)
 		res, err := v.sv.Solve(context.Background(), x)
 		if err != nil {
