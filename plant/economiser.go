@@ -38,6 +38,11 @@ type Economiser struct {
 	lastGas gasSide
 }
 
+// ecoFlowFloor is added to the feed flow in the economiser's energy
+// balance, kg/s. It biases the balance by at most ecoFlowFloor·Δh, under
+// 0.1 W for any real economiser, far inside the plant's energy closure.
+const ecoFlowFloor = 1e-6
+
 // Kind returns "economiser".
 func (u *Economiser) Kind() string { return "economiser" }
 
@@ -156,7 +161,9 @@ func (u *Economiser) residual(ev *eval, r []float64) error {
 	}
 	r[u.eqs[0]] = ev.m(u.out) - ev.m(u.in)
 	r[u.eqs[1]] = ev.p(u.out) - ev.p(u.in)
-	r[u.eqs[2]] = ev.m(u.in)*(ev.h(u.out)-ev.h(u.in)) - res.Q
+	// ecoFlowFloor keeps the outlet enthalpy defined when no feed passes
+	// (the boiler is not firing): the water then leaves as it came.
+	r[u.eqs[2]] = (ev.m(u.in)+ecoFlowFloor)*(ev.h(u.out)-ev.h(u.in)) - res.Q
 	return nil
 }
 

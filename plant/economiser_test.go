@@ -94,3 +94,39 @@ func TestEconomiser(t *testing.T) {
 		t.Errorf("no steaming warning among %q", cr.Warnings)
 	}
 }
+
+func TestEconomiserOfColdBoiler(t *testing.T) {
+	// With the exhaust-gas economiser covering the demand, the oil-fired
+	// boiler and its economiser carry no flow: the solve must still find
+	// the balance (the economiser's water leaves as it came).
+	p := New("cold boiler", Options{})
+	drum := gauge(7)
+	tab := &FlueGasTable{Load: []float64{1}, FlueT: []float64{603.15}, O2Dry: []float64{0.03}}
+	must(t, p.Add(&MakeUp{UnitBase: UnitBase{Name: "makeup"}, T: 333.15, P: 1e5}))
+	must(t, p.Add(&FeedTank{UnitBase: UnitBase{Name: "hotwell"}, P: 1e5}))
+	must(t, p.Add(&FeedPump{UnitBase: UnitBase{Name: "fp"}, Boilers: []string{"b1"}, Margin: 2e5, Eta: 0.5}))
+	must(t, p.Add(&Header{UnitBase: UnitBase{Name: "feed header"}}))
+	must(t, p.Add(&ExhaustGasEconomiser{UnitBase: UnitBase{Name: "ege"}, Engine: egeEngine(), DrumP: drum,
+		DesignLoad: 1, DesignPinch: 15, GasCp: 1060}))
+	must(t, p.Add(&Economiser{UnitBase: UnitBase{Name: "eco"}, Boiler: "b1", UA: 2000}))
+	must(t, p.Add(&Boiler{UnitBase: UnitBase{Name: "b1"}, MCR: 10000.0 / 3600, DrumP: drum, Efficiency: tab, Fuel: hsfo(t)}))
+	must(t, p.Add(&Header{UnitBase: UnitBase{Name: "main"}}))
+	must(t, p.Add(&Consumer{UnitBase: UnitBase{Name: "heating"}, SteamFlow: 1000.0 / 3600}))
+	must(t, p.Add(&Condenser{UnitBase: UnitBase{Name: "dump"}, Dump: true, SubCooling: 80}))
+	for _, c := range [][4]string{
+		{"makeup", "out", "hotwell", "in"}, {"hotwell", "out", "fp", "in"}, {"fp", "out", "feed header", "in"},
+		{"feed header", "out", "ege", "feed"}, {"feed header", "out", "eco", "in"}, {"eco", "out", "b1", "feed"},
+		{"ege", "steam", "main", "in"}, {"b1", "steam", "main", "in"}, {"main", "out", "heating", "in"},
+		{"main", "out", "dump", "in"}, {"dump", "out", "hotwell", "in"},
+	} {
+		p.Connect(c[0]+" to "+c[2], Pos{}, c[0], c[1], c[2], c[3])
+	}
+	cr, err := p.Solve(context.Background(), Case{Name: "sea", Conditions: Conditions{EngineLoad: 1}})
+	must(t, err)
+	if cr.BoilersFiring != 0 || !(cr.DumpedKgS > 0) {
+		t.Errorf("firing %d, dumped %g; want the economiser alone and steam dumped", cr.BoilersFiring, cr.DumpedKgS)
+	}
+	if cr.Balance.MassRel > 1e-9 || cr.Balance.EnergyRel > 1e-6 {
+		t.Errorf("balances %+v", cr.Balance)
+	}
+}

@@ -610,7 +610,7 @@ func (u *ExhaustGasEconomiser) jacobian(ev *eval, j *mat.Dense) error {
 
 func (u *Economiser) jacobian(ev *eval, j *mat.Dense) error {
 	a := jacOf(j)
-	m := ev.m(u.in)
+	m := ev.m(u.in) + ecoFlowFloor
 	a.add(u.eqs[0], u.out.mIdx(), 1)
 	a.add(u.eqs[0], u.in.mIdx(), -1)
 	a.add(u.eqs[1], u.out.pIdx(), 1)
