@@ -158,10 +158,6 @@
 // header and its boiler); it needs its boiler's efficiency from a
 // combustion model.
 //
-// Known limit (package plant): a flue-gas economiser whose boiler does not
-// fire in a case (say, the EGE covers the demand) makes the solve fail
-// with a singular Jacobian; force its boiler to fire (fire = {...}) in
-// such cases, or leave the economiser out of such plants.
 // Ports are named as package plant names them: makeup out; feed_tank in
 // (any number), out, steam (optional); feed_pump, header, reducing_valve,
 // consumer, turbine, condenser in and out (consumer out optional, header
