@@ -220,6 +220,14 @@ func Plot(w io.Writer, format string, cases []Case) error {
 	legW += legend.ThumbnailWidth + vg.Centimeter
 	plotW := vg.Length(math.Max(12, math.Min(40, 2.2*float64(len(cases))+6))) * vg.Centimeter
 	width, height := plotW+legW, 11*vg.Centimeter
+	if len(cases) > 3 {
+		// Slanted case names take height from the chart: give it back.
+		longest := vg.Length(0)
+		for _, n := range names {
+			longest = max(longest, p.X.Tick.Label.Width(n))
+		}
+		height += longest / 2
+	}
 
 	var canvas interface {
 		vg.CanvasSizer
