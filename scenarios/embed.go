@@ -1,0 +1,30 @@
+// Package scenarios holds the load-case scripts of an invented fleet: the
+// built-in demo of the command line and the worked examples of the README.
+// Every ship, name and figure in them is invented for the demo; none
+// describes a real vessel, maker or product.
+//
+//   - tanker_plant.lua, tanker.lua: a product tanker with two oil-fired
+//     boilers, an exhaust-gas economiser and turbine-driven cargo pumps: port
+//     stay, discharge, loaded passage with cargo heating in winter, ballast
+//     passage with tank cleaning, and which of them one boiler carries (the
+//     built-in demo).
+//   - container_plant.lua, container.lua: a container ship at sea and in
+//     port, with and without its exhaust-gas economiser.
+//   - audit_heating.lua: an auditor's check of a claimed cargo-heating
+//     consumption for one loaded passage.
+//   - voyage.lua with voyage.csv: a voyage plan, period by period.
+//   - ege_study.lua with year_profile.csv: a year's saving of exhaust-gas
+//     economisers of several sizes.
+//   - audit.lua with passage_log.csv: a day-by-day audit of reported boiler
+//     fuel against a Monte Carlo band.
+package scenarios
+
+import "embed"
+
+// FS holds the scripts and their data files.
+//
+//go:embed *.lua *.csv
+var FS embed.FS
+
+// Demo is the script of FS that "sim" runs with no arguments.
+const Demo = "tanker.lua"

@@ -1,0 +1,76 @@
+-- The steam plant of an invented product tanker, "Invented Product Tanker 1".
+-- Every name and figure here is invented for the demo; none describes a real
+-- ship, maker or product. The sizes follow the typical ranges of the trade
+-- (common practice, no source): two oil-fired boilers at 16 bar(g) for the
+-- turbine-driven cargo pumps, heating at 7 bar(g) through a reducing valve,
+-- a hotwell held at 60 C by steam.
+
+local heavy_fuel_efficiency = {
+  -- A maker's shop test (invented): load against efficiency, LHV basis.
+  { "25 %", "80.5 %" }, { "50 %", "84.0 %" }, { "75 %", "85.0 %" }, { "100 %", "84.5 %" },
+}
+
+local ship = steam_plant {
+  name = "Invented Product Tanker 1",
+  usable = "85 %",
+  sharing = "equal",
+  boilers = {
+    { name = "AB1", mcr = "20 t/h", drum = "16 bar(g)", dryness = "99 %", blowdown = "1 %",
+      turndown = 4, fuel = "HSFO", efficiency = heavy_fuel_efficiency },
+    { name = "AB2", mcr = "20 t/h", drum = "16 bar(g)", dryness = "99 %", blowdown = "1 %",
+      turndown = 4, fuel = "HSFO", efficiency = heavy_fuel_efficiency },
+  },
+  makeup = { T = "15 C" },
+  hotwell = { heat_loss = "8 kW", set_T = "60 C" },
+  feed_pump = { margin = "3 bar", eta = "45 %" },
+  headers = { { name = "HP", heat_loss = "20 kW" }, { name = "LP", p = "7 bar(g)", heat_loss = "15 kW" } },
+  -- An exhaust-gas economiser on the 11 MW main engine raising steam into the
+  -- 16 bar(g) system: with saturation at 204 C it recovers little (invented
+  -- engine data, within the indicative ranges of plant-checks.md §7).
+  exhaust_gas_economiser = {
+    name = "EGE", drum = "16 bar(g)",
+    engine = { mcr = "11 MW",
+      { load = "25 %", gas = "11.0 kg/kWh", T = "255 C" },
+      { load = "50 %", gas = "9.2 kg/kWh", T = "240 C" },
+      { load = "75 %", gas = "8.5 kg/kWh", T = "242 C" },
+      { load = "100 %", gas = "8.2 kg/kWh", T = "258 C" } },
+    design_load = "85 %", pinch = "20 K", min_gas_T = "170 C",
+  },
+  dump_condenser = { subcool = "80 K" },
+  consumers = {
+    { name = "cargo heating", kind = "tank_heating", header = "LP", fuel = "HSFO",
+      mode = "hold", T = "55 C", returns = "98 %", subcool = "10 K", return_T = "85 C",
+      volume = "30000 m3",
+      boundaries = {
+        { name = "deck", area = "4800 m2", U = "4.5 W/m2K", beyond = "air" },
+        { name = "bottom over double bottom", area = "4800 m2", U = "3.5 W/m2K", beyond = "sea" },
+        { name = "sides over ballast tanks", area = "5200 m2", U = "3.5 W/m2K", beyond = "sea" },
+        { name = "bulkhead to engine room", area = "600 m2", U = "6 W/m2K", beyond = "space", T = "40 C" },
+      } },
+    { name = "HFO purifier heater", kind = "fuel_heater", service = "purifier", header = "LP",
+      fuel = "HSFO", flow = "2.2 t/h", inlet_T = "60 C", outlet_T = "98 C",
+      returns = "100 %", return_T = "85 C" },
+    { name = "AB1 burner heater", kind = "fuel_heater", service = "burner", boiler = "AB1", header = "LP",
+      fuel = "HSFO", inlet_T = "70 C", target_viscosity = "15 cSt", returns = "100 %", return_T = "85 C" },
+    { name = "AB2 burner heater", kind = "fuel_heater", service = "burner", boiler = "AB2", header = "LP",
+      fuel = "HSFO", inlet_T = "70 C", target_viscosity = "15 cSt", returns = "100 %", return_T = "85 C" },
+    { name = "accommodation", kind = "accommodation", header = "LP", UA = "18 kW/K",
+      inside_T = "21 C", balance_T = "16 C", returns = "100 %", return_T = "80 C" },
+    { name = "galley and sundry", header = "LP", duty = "60 kW", returns = "80 %", return_T = "80 C" },
+    { name = "tank cleaning heater", kind = "tank_cleaning", header = "LP", flow = "40 t/h",
+      outlet_T = "75 C", returns = "95 %", return_T = "85 C", off = true },
+  },
+  turbines = {
+    { name = "COP1", kind = "cargo_pump", header = "HP", flow = "2000 m3/h", head = "140 m",
+      density = "800 kg/m3", efficiency = "78 %", exhaust = "0.2 bar(a)", eta_is = "65 %", eta_mech = "95 %",
+      condenser = { subcool = "5 K" }, off = true },
+    { name = "COP2", kind = "cargo_pump", header = "HP", flow = "2000 m3/h", head = "140 m",
+      density = "800 kg/m3", efficiency = "78 %", exhaust = "0.2 bar(a)", eta_is = "65 %", eta_mech = "95 %",
+      condenser = { subcool = "5 K" }, off = true },
+    { name = "COP3", kind = "cargo_pump", header = "HP", flow = "2000 m3/h", head = "140 m",
+      density = "800 kg/m3", efficiency = "78 %", exhaust = "0.2 bar(a)", eta_is = "65 %", eta_mech = "95 %",
+      condenser = { subcool = "5 K" }, off = true },
+  },
+}
+
+return ship
