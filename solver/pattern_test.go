@@ -8,6 +8,7 @@ import (
 	"strings"
 	"testing"
 
+	"gonum.org/v1/gonum/floats"
 	"gonum.org/v1/gonum/mat"
 )
 
@@ -328,6 +329,19 @@ func TestPatternSingular(t *testing.T) {
 			if !(se.Cond > 1e14) {
 				t.Errorf("eps %g, %T: reported condition %g, want above 1e14", eps, fact, se.Cond)
 			}
+		}
+	}
+}
+
+// TestInfNorm: infNorm agrees with gonum's floats.Norm(v, +Inf), NaN
+// included (constructed values, no source).
+func TestInfNorm(t *testing.T) {
+	t.Parallel()
+	nan, inf := math.NaN(), math.Inf(1)
+	for _, v := range [][]float64{nil, {0}, {math.Copysign(0, -1)}, {-3, 2}, {1, -inf, 2}, {1, nan, 2}, {nan}, {inf, nan}, {nan, -inf}, {nan, 1}, {-1e308, 5}} {
+		got, want := infNorm(v), floats.Norm(v, math.Inf(1))
+		if math.Float64bits(got) != math.Float64bits(want) && !(math.IsNaN(got) && math.IsNaN(want)) {
+			t.Errorf("infNorm(%v) = %v, floats.Norm %v", v, got, want)
 		}
 	}
 }

@@ -586,7 +586,25 @@ func clamp(v, lo, hi float64) float64 {
 	return v
 }
 
-func infNorm(v []float64) float64 { return floats.Norm(v, math.Inf(1)) }
+// infNorm returns max_i |v_i| exactly as floats.Norm(v, +Inf) does (+Inf
+// if any entry is infinite, else NaN if any is NaN), without its call of
+// math.Max per entry.
+func infNorm(v []float64) float64 {
+	m := 0.0
+	nan := false
+	for _, a := range v {
+		a = math.Abs(a)
+		if a > m {
+			m = a
+		} else if a != a {
+			nan = true
+		}
+	}
+	if nan && !math.IsInf(m, 1) {
+		return math.NaN()
+	}
+	return m
+}
 
 func dot(a, b []float64) float64 { return floats.Dot(a, b) }
 

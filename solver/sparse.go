@@ -334,10 +334,11 @@ func (s *SparseLU) CondBound() float64 {
 	}
 	m := 0.0
 	for _, v := range z {
-		m = math.Max(m, v)
-	}
-	if math.IsNaN(m) { // Inf·0 after an overflow
-		return math.Inf(1)
+		if v > m {
+			m = v
+		} else if v != v { // NaN: Inf·0 after an overflow
+			return math.Inf(1)
+		}
 	}
 	// Every operation above adds positive terms, so its relative rounding
 	// error is below about (number of operations)·ε; 4n²ε is generous.
