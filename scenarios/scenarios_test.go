@@ -1,33 +1,104 @@
-package scenarios
+package scenarios_test
 
 import (
+	"bytes"
 	"context"
+	"flag"
+	"fmt"
 	"io/fs"
+	"os"
+	"path/filepath"
+	"strings"
 	"testing"
+	"time"
 
+	"steamcase/scenarios"
 	"steamcase/scripting"
 )
 
-// TestScriptsCheck checks every embedded script without solving it (the
-// scripting package's check mode): syntax, units, keys, lines and the
-// degrees of freedom of every plant. Solving them is "sim run"'s test.
-func TestScriptsCheck(t *testing.T) {
-	names, err := fs.Glob(FS, "*.lua")
-	if err != nil || len(names) == 0 {
-		t.Fatalf("no scripts embedded: %v", err)
+var update = flag.Bool("update", false, "rewrite the golden files in testdata/")
+
+// scripts are the scenarios a user runs; *_plant.lua are included by them.
+func scripts(t *testing.T) []string {
+	t.Helper()
+	names, err := fs.Glob(scenarios.FS, "*.lua")
+	if err != nil {
+		t.Fatal(err)
 	}
-	found := false
-	for _, name := range names {
-		found = found || name == Demo
-		src, err := fs.ReadFile(FS, name)
-		if err != nil {
-			t.Fatal(err)
-		}
-		if _, err := scripting.RunSource(context.Background(), name, src, FS, scripting.Options{CheckOnly: true}); err != nil {
-			t.Errorf("%s: %v", name, err)
+	var out []string
+	for _, n := range names {
+		if !strings.HasSuffix(n, "_plant.lua") {
+			out = append(out, n)
 		}
 	}
-	if !found {
-		t.Errorf("the demo script %q is not embedded", Demo)
+	return out
+}
+
+// TestScenarios runs every scenario script as a test: its own check()
+// assertions must hold, every case must close its balances (mass 1e-9,
+// energy 1e-6 relative, the plant's own limits), and its figures are
+// compared with a golden summary (go test ./scenarios -update rewrites
+// it; read the diff before committing). The figures are the engine's own:
+// the golden file guards against unintended change, not against an
+// outside source.
+func TestScenarios(t *testing.T) {
+	for _, name := range scripts(t) {
+		t.Run(name, func(t *testing.T) {
+			src, err := fs.ReadFile(scenarios.FS, name)
+			if err != nil {
+				t.Fatal(err)
+			}
+			ctx := context.Background()
+			run, err := scripting.RunSource(ctx, name, src, scenarios.FS, scripting.Options{Timeout: 2 * time.Minute, Workers: 2})
+			if err != nil {
+				t.Fatalf("%s: %v", name, err)
+			}
+			var b bytes.Buffer
+			fmt.Fprintf(&b, "%s: %d cases, %d checks passed\n", name, len(run.Cases), run.Checks)
+			for _, c := range run.Cases {
+				r := c.Result
+				if r.Balance.MassRel > 1e-9 || r.Balance.EnergyRel > 1e-6 {
+					t.Errorf("case %q at %v: balances %+v", r.Name, c.Pos, r.Balance)
+				}
+				fmt.Fprintf(&b, "case %q: boilers firing %d, fuel %.3f t/d, steam %.1f kg/h, EGE %.1f kg/h, warnings %d\n",
+					r.Name, r.BoilersFiring, r.FuelKgS*86.4, r.SteamProductionKgS*3600, r.EGESteamKgS*3600, len(r.Warnings))
+			}
+			for _, v := range run.Voyages {
+				tot := v.Result.Total
+				fmt.Fprintf(&b, "voyage %q: %d rows, %.0f h, fuel %.3f t, CO2 %.3f t, hours firing %.0f\n",
+					v.Name, tot.Rows, tot.Hours, tot.FuelT, tot.CO2T, tot.HoursFiring)
+				for _, ph := range v.Result.Phases {
+					fmt.Fprintf(&b, "  phase %q: %.0f h, fuel %.3f t\n", ph.Phase, ph.Hours, ph.FuelT)
+				}
+			}
+			for _, s := range run.Studies {
+				for _, v := range s.Result.Variants {
+					fmt.Fprintf(&b, "study %q, variant %q: fuel %.3f t, saved %.3f t, CO2 avoided %.3f t\n",
+						s.Name, v.Name, v.Totals.FuelT, v.FuelSavedT, v.CO2AvoidedT)
+				}
+			}
+			for _, a := range run.Audits {
+				r := a.Result
+				fmt.Fprintf(&b, "audit %q: claimed %.3f t, nominal %.3f t, band %.3f to %.3f t, flagged %d\n",
+					a.Name, r.ClaimedT, r.NominalT, r.LowT, r.HighT, r.Flagged)
+				for _, d := range r.Days {
+					fmt.Fprintf(&b, "  %s: claimed %.3f, band %.3f to %.3f %s\n", d.Date, d.ClaimedT, d.LowT, d.HighT, d.Flag)
+				}
+			}
+			golden := filepath.Join("testdata", strings.TrimSuffix(name, ".lua")+".golden")
+			if *update {
+				if err := os.WriteFile(golden, b.Bytes(), 0o644); err != nil {
+					t.Fatal(err)
+				}
+				return
+			}
+			want, err := os.ReadFile(golden)
+			if err != nil {
+				t.Fatalf("%v (run go test ./scenarios -update to create it)", err)
+			}
+			if got := b.String(); got != string(want) {
+				t.Errorf("%s differs from %s:\n--- got\n%s\n--- want\n%s", name, golden, got, want)
+			}
+		})
 	}
 }
