@@ -26,6 +26,12 @@ import (
 // first called after a factorisation; CondBound gives a cheaper upper
 // bound.
 //
+// The symbolic part (the reach of each column, found by depth-first
+// search) is kept and reused in the next factorisation for as long as the
+// structure of A and the pivot rows stay the same, which on a sequence of
+// Newton iterations they mostly do; the factors are bit for bit those of
+// a fresh factorisation.
+//
 // After the first factorisation of a given fill, SparseLU allocates
 // nothing. The zero value is ready to use.
 type SparseLU struct {
@@ -51,6 +57,14 @@ type SparseLU struct {
 
 	pn     int   // order of the pattern; 0 without one
 	pp, pr []int // the pattern in compressed columns (rows ascending)
+
+	// The symbolic part of the last factorisation, reused while nothing
+	// changes it: the structure of A (ap0, ai0), the reach of each column
+	// (rr[rp[k]:rp[k+1]], in topological order) and each step's pivot row.
+	ap0, ai0 []int
+	rp, rr   []int
+	piv      []int
+	symOK    bool
 }
 
 // SetPattern implements PatternFactorizer: from now on Factorize reads
@@ -121,12 +135,18 @@ func (s *SparseLU) Factorize(j *mat.Dense) error {
 		s.y = make([]float64, n)
 		s.z = make([]float64, n)
 		s.w = make([]float64, n)
+		s.ap0 = make([]int, n+1)
+		s.rp = make([]int, n+1)
+		s.piv = make([]int, n)
+		s.symOK = false
 	}
 	s.ok = false
 	s.cond = math.Inf(1)
 	s.condDone = true
 	// Compressed columns of A, and its 1-norm.
 	raw := j.RawMatrix()
+	s.ap, s.ap0 = s.ap0, s.ap // keep the last structure for comparison
+	s.ai, s.ai0 = s.ai0, s.ai
 	s.ai, s.ax = s.ai[:0], s.ax[:0]
 	s.anorm = 0
 	if s.pp != nil && s.pn != n {
@@ -166,10 +186,31 @@ func (s *SparseLU) Factorize(j *mat.Dense) error {
 	}
 	s.li, s.lx, s.ui, s.ux = s.li[:0], s.lx[:0], s.ui[:0], s.ux[:0]
 	x := s.x
+	// The reach of column k depends only on the structure of A(:,k) and
+	// on the structure of L and the pivots of the steps before k, so it
+	// is taken from the last factorisation as long as those are the same;
+	// from the first difference on it is found again by depth-first
+	// search (Gilbert and Peierls 1988).
+	same := s.symOK
+	s.symOK = false
+	s.rp[0] = 0
 	for k := 0; k < n; k++ {
 		s.lp[k] = len(s.li)
 		s.up[k] = len(s.ui)
-		top := s.spsolve(k)
+		if same && !s.sameColumn(k) {
+			same = false
+		}
+		var top int
+		if same {
+			r := s.rr[s.rp[k]:s.rp[k+1]]
+			top = n - len(r)
+			copy(s.xi[top:n], r)
+		} else {
+			top = s.reach(k)
+			s.rr = append(s.rr[:s.rp[k]], s.xi[top:n]...)
+			s.rp[k+1] = len(s.rr)
+		}
+		s.numeric(k, top)
 		ipiv, amax := -1, -1.0
 		for p := top; p < n; p++ {
 			i := s.xi[p]
@@ -191,6 +232,10 @@ func (s *SparseLU) Factorize(j *mat.Dense) error {
 		if s.pinv[k] < 0 && math.Abs(x[k]) >= tol*amax {
 			ipiv = k
 		}
+		if ipiv != s.piv[k] {
+			same = false // the later columns' reaches may differ
+		}
+		s.piv[k] = ipiv
 		pivot := x[ipiv]
 		s.ui = append(s.ui, k)
 		s.ux = append(s.ux, pivot)
@@ -212,14 +257,31 @@ func (s *SparseLU) Factorize(j *mat.Dense) error {
 		s.li[p] = s.pinv[s.li[p]]
 	}
 	s.ok = true
+	s.symOK = true
 	s.condDone = false // estimated by the first Cond
 	return nil
 }
 
-// spsolve sets x = L \ A(:,k) on the reach of A(:,k) and returns top: the
-// nonzero pattern is s.xi[top:n] in topological order. L's row indices
-// are still original rows here.
-func (s *SparseLU) spsolve(k int) int {
+// sameColumn reports whether column k of A has the same rows as in the
+// last factorisation.
+func (s *SparseLU) sameColumn(k int) bool {
+	a := s.ai[s.ap[k]:s.ap[k+1]]
+	b := s.ai0[s.ap0[k]:s.ap0[k+1]]
+	if len(a) != len(b) {
+		return false
+	}
+	for i, r := range a {
+		if b[i] != r {
+			return false
+		}
+	}
+	return true
+}
+
+// reach finds the rows that x = L \ A(:,k) can make nonzero and returns
+// top: they are s.xi[top:n] in topological order. L's row indices are
+// still original rows here.
+func (s *SparseLU) reach(k int) int {
 	n := s.n
 	top := n
 	for p := s.ap[k]; p < s.ap[k+1]; p++ {
@@ -230,6 +292,12 @@ func (s *SparseLU) spsolve(k int) int {
 	for p := top; p < n; p++ {
 		s.mark[s.xi[p]] = false
 	}
+	return top
+}
+
+// numeric sets x = L \ A(:,k) on the reach s.xi[top:n].
+func (s *SparseLU) numeric(k, top int) {
+	n := s.n
 	x := s.x
 	for p := s.ap[k]; p < s.ap[k+1]; p++ {
 		x[s.ai[p]] = s.ax[p]
@@ -246,7 +314,6 @@ func (s *SparseLU) spsolve(k int) int {
 			x[s.li[p]] -= s.lx[p] * xj
 		}
 	}
-	return top
 }
 
 // dfs runs a depth-first search in the graph of L from row j, pushing
