@@ -7,16 +7,18 @@ import (
 	"io/fs"
 	"time"
 
+	"steamcase/scenarios"
 	"steamcase/scripting"
 )
 
-// demoFirstLine heads the report of the built-in demo.
-const demoFirstLine = `Built-in demo of an invented ship (no real vessel): its load cases solved and reported. Run "sim help" for the commands.`
+// demoFirstLine heads the report of the built-in demo (two lines).
+const demoFirstLine = `Built-in demo of an invented ship (no real vessel): its load cases, solved.
+Run "sim help" for the commands, "sim run SCRIPT" for your own load cases.`
 
 // demoScript returns the file system and the path in it of the built-in
-// demo's script, or nil while there is none.
+// demo's script, or nil if there is none.
 func demoScript() (fs.FS, string) {
-	return nil, ""
+	return scenarios.FS, scenarios.Demo
 }
 
 // runDefault is sim without arguments: the built-in demo when there is

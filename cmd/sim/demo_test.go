@@ -35,3 +35,19 @@ func TestDemoRunner(t *testing.T) {
 		t.Error("a missing demo script ran")
 	}
 }
+
+// TestDemo runs "sim" without arguments: the built-in demo's report of the
+// embedded scenario, headed by the demo's line and closed by the caution.
+// The figures are the plant's; the scenario's own checks must pass.
+func TestDemo(t *testing.T) {
+	code, out, errOut := runSim(t)
+	if code != exitOK || errOut != "" {
+		t.Fatalf("sim: exit %d, stderr %q", code, errOut)
+	}
+	if !strings.HasPrefix(out, demoFirstLine+"\n\nLoad case 1 of ") || !strings.HasSuffix(out, cautionLine+"\n") {
+		t.Errorf("sim:\n%s", out)
+	}
+	if !strings.Contains(out, "invented") || !strings.Contains(out, `plant "Invented `) {
+		t.Errorf("the demo does not say its ship is invented:\n%.300s", out)
+	}
+}

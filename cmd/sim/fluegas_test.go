@@ -447,7 +447,7 @@ func TestFluegasHelp(t *testing.T) {
 	if n != 4 {
 		t.Errorf("found %d examples in the help, want 4", n)
 	}
-	_, main, _ := runSim(t)
+	_, main, _ := runSim(t, "help")
 	if !strings.Contains(main, "fluegas") {
 		t.Error("'sim help' does not list fluegas")
 	}

@@ -23,8 +23,9 @@ engine for a ship's steam plant. Water and steam properties follow
 IAPWS-IF97. Quantities are written with their units, such as "7 bar(g)",
 "250 C", "18 t/h" or "2768 kJ/kg"; pressures must say gauge or absolute.`
 
-const mainNotYet = `Not built yet: the built-in demo plant. Until it lands, "sim" with no
-arguments prints this help; "sim run" solves the load cases of your scripts.`
+const mainDemo = `With no arguments, sim runs its built-in demo: the load cases of an
+invented product tanker, solved and reported. Its scripts are in the
+scenarios folder of the source, to read and to run with "sim run".`
 
 func writeMainHelp(w io.Writer) {
 	fmt.Fprintf(w, "%s\n\nUsage:\n\n\tsim <command> [flags]\n\nThe commands are:\n\n", mainIntro)
@@ -33,7 +34,7 @@ func writeMainHelp(w io.Writer) {
 		fmt.Fprintf(tw, "\t%s\t%s\n", c.Name, c.Short)
 	}
 	tw.Flush()
-	fmt.Fprintf(w, "\nUse \"sim help <command>\" for more about a command.\n\n%s\n\n%s\n", mainNotYet, caution)
+	fmt.Fprintf(w, "\nUse \"sim help <command>\" for more about a command.\n\n%s\n\n%s\n", mainDemo, caution)
 }
 
 // writeUsage writes the usage lines of c.

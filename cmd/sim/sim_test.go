@@ -35,7 +35,7 @@ func TestGolden(t *testing.T) {
 		name string
 		args []string
 	}{
-		{"help", nil},
+		{"help", []string{"help"}},
 		{"help_steam", []string{"help", "steam"}},
 		{"steam_7barg_x1", []string{"steam", "--p", "7 bar(g)", "--x", "1"}},
 		{"steam_7barg_x1_json", []string{"steam", "--p", "7 bar(g)", "--x", "1", "--json"}},
@@ -111,11 +111,11 @@ func sameJSON(got, want string) error {
 
 // TestHelpForms checks that the spellings of help agree.
 func TestHelpForms(t *testing.T) {
-	_, main, _ := runSim(t)
-	for _, args := range [][]string{{"--help"}, {"-h"}, {"help"}} {
+	_, main, _ := runSim(t, "help")
+	for _, args := range [][]string{{"--help"}, {"-h"}} {
 		code, out, errOut := runSim(t, args...)
 		if code != exitOK || out != main || errOut != "" {
-			t.Errorf("sim %q: exit %d, stderr %q, same as 'sim': %v", args, code, errOut, out == main)
+			t.Errorf("sim %q: exit %d, stderr %q, same as 'sim help': %v", args, code, errOut, out == main)
 		}
 	}
 	_, steam, _ := runSim(t, "help", "steam")
