@@ -6,12 +6,14 @@ import (
 	"flag"
 	"fmt"
 	"io/fs"
+	"math"
 	"os"
 	"path/filepath"
 	"strings"
 	"testing"
 	"time"
 
+	"steamcase/plant/water"
 	"steamcase/scenarios"
 	"steamcase/scripting"
 )
@@ -100,5 +102,66 @@ func TestScenarios(t *testing.T) {
 				t.Errorf("%s differs from %s:\n--- got\n%s\n--- want\n%s", name, golden, got, want)
 			}
 		})
+	}
+}
+
+// TestHandCheckTankerPort checks one demo case by hand: the fuel of the
+// tanker's port stay from its boiler's steam, blowdown and feed, the steam
+// and feed enthalpies from IAPWS-IF97 (package water, itself checked
+// against the IF97 verification tables), the efficiency interpolated by
+// hand in the script's maker's table, and the IMO lower calorific value of HSFO (MEPC.364(79), 40 200 kJ/kg,
+// plant-checks.md §1.3 [S]):
+//
+//	ṁ_fuel = [ṁ_s·(h_s − h_fw) + ṁ_bd·(h_f,drum − h_fw)] / (η·LHV)
+//
+// (plant-checks.md §3.6 [C]).
+func TestHandCheckTankerPort(t *testing.T) {
+	src, err := fs.ReadFile(scenarios.FS, "tanker.lua")
+	if err != nil {
+		t.Fatal(err)
+	}
+	run, err := scripting.RunSource(context.Background(), "tanker.lua", src, scenarios.FS, scripting.Options{Timeout: time.Minute})
+	if err != nil {
+		t.Fatal(err)
+	}
+	r := run.Cases[0].Result
+	b := r.Boilers[0]
+	if !b.Firing || b.Name != "AB1" {
+		t.Fatalf("port stay: boiler %q firing %v", b.Name, b.Firing)
+	}
+	drum := 16e5 + 101325 // 16 bar(g), the script's drum pressure
+	steam, err := water.PX(drum, 0.99)
+	if err != nil {
+		t.Fatal(err)
+	}
+	sat, err := water.SatLiquid(drum)
+	if err != nil {
+		t.Fatal(err)
+	}
+	var hfw float64
+	for _, l := range r.Lines {
+		if l.Name == "feed AB1" {
+			hfw = l.H
+		}
+	}
+	if hfw == 0 {
+		t.Fatal("no line \"feed AB1\" in the result")
+	}
+	// The maker's table of the script: 80.5 % at 25 % load, 84.0 % at 50 %.
+	if b.LoadFraction < 0.25 || b.LoadFraction > 0.5 {
+		t.Fatalf("load %.3f outside the table segment the hand check uses", b.LoadFraction)
+	}
+	eta := 0.805 + (b.LoadFraction-0.25)/0.25*(0.840-0.805)
+	if math.Abs(eta-b.Efficiency) > 1e-12 {
+		t.Errorf("efficiency by hand %.6f, engine %.6f", eta, b.Efficiency)
+	}
+	const lhv = 40.2e6 // J/kg, IMO LCV of HFO (RME-RMK)
+	fuel := (b.SteamKgS*(steam.H-hfw) + b.BlowdownKgS*(sat.H-hfw)) / (eta * lhv)
+	if d := math.Abs(fuel-b.FuelKgS) / fuel; d > 1e-9 {
+		t.Errorf("fuel by hand %.6f kg/s, engine %.6f kg/s (%.1e relative)", fuel, b.FuelKgS, d)
+	}
+	// Blowdown is 1 % of the feed (the script's figure).
+	if d := math.Abs(b.BlowdownKgS/(b.SteamKgS+b.BlowdownKgS) - 0.01); d > 1e-12 {
+		t.Errorf("blowdown fraction off by %g", d)
 	}
 }
