@@ -4,7 +4,6 @@ import (
 	"errors"
 	"fmt"
 	"math"
-	"sort"
 	"strings"
 
 	"github.com/rs/zerolog"
@@ -351,14 +350,4 @@ func (p *Plant) guess(x []float64) {
 			u.guess(x)
 		}
 	}
-}
-
-// sortedNames returns the keys of m in order.
-func sortedNames[V any](m map[string]V) []string {
-	ks := make([]string, 0, len(m))
-	for k := range m {
-		ks = append(ks, k)
-	}
-	sort.Strings(ks)
-	return ks
 }
