@@ -36,19 +36,26 @@ and t/day; the CO2 in t/day; the electrical load; the feed tank
 temperature; the closures of the mass and energy balances; and every
 warning. The cases of several scripts form one report, in the order given.
 
+A script that runs a voyage plan, a study of plant variants or an audit of
+reported boiler fuel adds a section for each: the totals by phase and for
+the whole voyage (fuel and CO2 in t, steam, hours with each number of
+boilers firing, the peak demand on the boilers, the tightest margin and the
+periods the plant cannot carry); each variant's totals, savings and
+payback; or each day's claimed fuel against the modelled band.
+
 Scripts are written in Lua with the functions plant, steam_plant, case,
-check, include and read_csv; quantities are strings with their units, such
-as "7 bar(g)" or "18 t/h". A script reads files only from its own folder
-and the folders below it.
+check, voyage, study, audit, include and read_csv; quantities are strings
+with their units, such as "7 bar(g)" or "18 t/h". A script reads files only
+from its own folder and the folders below it.
 
 The report is a table for people unless --json or --csv asks for a form for
-programs: --json prints one JSON document (schema 1: the caution, the plant
-and every case with its figures, each key naming its unit), --csv one row
-per case with the main figures under a header naming their units. --plot
-also draws the steam demand of each case, stacked by consumer, against the
-MCR of the boilers firing and of all boilers, as an SVG or PNG file chosen
-by the file name's extension. -o writes the report to a file instead of
-standard output.
+programs: --json prints one JSON document (schema 1: the caution, the plant,
+every case with its figures and every voyage, study and audit, each key
+naming its unit), --csv one row per load case with the main figures under
+a header naming their units. --plot also draws the steam demand of each
+load case, stacked by consumer, against the MCR of the boilers firing and
+of all boilers, as an SVG or PNG file chosen by the file name's extension.
+-o writes the report to a file instead of standard output.
 
 What the scripts print, and the solver's messages with -v, go to standard
 error; --quiet leaves only errors. An error in a script is printed as
@@ -239,19 +246,16 @@ func runRun(ctx context.Context, e env, args []string) error {
 func runScripts(ctx context.Context, e env, a *runArgs, runners []scriptRunner, first string) error {
 	log := newLogger(e.stderr, a)
 	opt := scripting.Options{Timeout: a.timeout, Logger: log}
-	var cases []report.Case
+	var all report.Run
 	var failed error
 	for _, run := range runners {
 		r, err := run(ctx, opt)
 		if r != nil && err == nil {
-			log.Debug().Int("cases", len(r.Cases)).Int("checks", r.Checks).Msg("script done")
+			log.Debug().Int("cases", len(r.Cases)).Int("voyages", len(r.Voyages)).Int("studies", len(r.Studies)).
+				Int("audits", len(r.Audits)).Int("checks", r.Checks).Msg("script done")
 		}
 		if r != nil {
-			for _, c := range r.Cases {
-				if c.Result != nil {
-					cases = append(cases, report.Case{Plant: c.Plant, Result: c.Result})
-				}
-			}
+			collect(&all, r)
 		}
 		if err != nil {
 			var ae *scripting.AssertionError
@@ -263,7 +267,7 @@ func runScripts(ctx context.Context, e env, a *runArgs, runners []scriptRunner, 
 			break
 		}
 	}
-	if err := writeReport(e, a, cases, first); err != nil {
+	if err := writeReport(e, a, all, first); err != nil {
 		return err
 	}
 	if failed != nil {
@@ -272,9 +276,41 @@ func runScripts(ctx context.Context, e env, a *runArgs, runners []scriptRunner, 
 	return nil
 }
 
-// writeReport renders the cases in the form asked for to -o or standard
-// output, and the chart to --plot.
-func writeReport(e env, a *runArgs, cases []report.Case, first string) error {
+// collect adds what a script solved to the run's report.
+func collect(all *report.Run, r *scripting.Run) {
+	for _, c := range r.Cases {
+		if c.Result != nil {
+			all.Cases = append(all.Cases, report.Case{Plant: c.Plant, Result: c.Result})
+		}
+	}
+	job := func(name, plant string, pos scripting.Pos, rows []scripting.Pos) report.Job {
+		j := report.Job{Name: name, Plant: plant, Source: pos.String()}
+		for _, p := range rows {
+			j.Rows = append(j.Rows, p.String())
+		}
+		return j
+	}
+	for _, v := range r.Voyages {
+		if v.Result != nil {
+			all.Voyages = append(all.Voyages, report.Voyage{Job: job(v.Name, v.Plant, v.Pos, v.Rows), Result: v.Result})
+		}
+	}
+	for _, s := range r.Studies {
+		if s.Result != nil {
+			all.Studies = append(all.Studies, report.Study{Job: job(s.Name, s.Plant, s.Pos, s.Rows), Result: s.Result})
+		}
+	}
+	for _, a := range r.Audits {
+		if a.Result != nil {
+			all.Audits = append(all.Audits, report.Audit{Job: job(a.Name, a.Plant, a.Pos, a.Days), Result: a.Result})
+		}
+	}
+}
+
+// writeReport renders the run in the form asked for to -o or standard
+// output, and the chart of its cases to --plot.
+func writeReport(e env, a *runArgs, all report.Run, first string) error {
+	cases := all.Cases
 	var b bytes.Buffer
 	if first != "" && !a.json && !a.csv {
 		fmt.Fprintln(&b, first)
@@ -283,20 +319,20 @@ func writeReport(e env, a *runArgs, cases []report.Case, first string) error {
 	var err error
 	switch {
 	case a.json:
-		err = report.JSON(&b, cases)
+		err = report.JSON(&b, all)
 	case a.csv:
-		err = report.CSV(&b, cases)
+		err = report.CSV(&b, all)
 		// The CSV has no room for the caution; it goes to standard error.
 		fmt.Fprintln(e.stderr, report.Caution)
 	default:
-		err = report.Table(&b, cases)
+		err = report.Table(&b, all)
 	}
 	if err != nil {
 		return err
 	}
 	if a.plot != "" {
 		if len(cases) == 0 {
-			return fmt.Errorf("--plot %s: no load case was solved, so there is nothing to draw", a.plot)
+			return fmt.Errorf("--plot %s: the chart draws load cases, and no case() was solved (voyages, studies and audits are in the report)", a.plot)
 		}
 		format, err := report.FormatOf(a.plot)
 		if err != nil {

@@ -256,3 +256,40 @@ func TestRunCancelled(t *testing.T) {
 		t.Errorf("cancelled: exit %d, stdout %q, stderr %q", code, out.String(), errw.String())
 	}
 }
+
+// TestRunVoyage runs a voyage plan end to end: the table shows its
+// phases and totals, the JSON carries it under "voyages", and a chart,
+// which draws load cases, is refused.
+func TestRunVoyage(t *testing.T) {
+	const script = "testdata/run/voyage.lua"
+	code, out, errOut := runSim(t, "run", "--quiet", script)
+	if code != exitOK || errOut != "" {
+		t.Fatalf("exit %d, stderr %q", code, errOut)
+	}
+	for _, s := range []string{"Voyage: short trip", "run at testdata/run/voyage.lua:4", "2 periods, 36.0 h",
+		"    port ", "    passage ", "    whole voyage ", "row 2 (testdata/run/voyage.lua:4)", cautionLine} {
+		if !strings.Contains(out, s) {
+			t.Errorf("the report does not say %q:\n%s", s, out)
+		}
+	}
+	code, out, _ = runSim(t, "run", "--quiet", "--json", script)
+	var doc struct {
+		Voyages []struct {
+			Name  string `json:"name"`
+			Total struct {
+				Hours float64 `json:"hours"`
+			} `json:"total"`
+			Phases []struct {
+				Phase string `json:"phase"`
+			} `json:"phases"`
+		} `json:"voyages"`
+	}
+	if err := json.Unmarshal([]byte(out), &doc); err != nil || code != exitOK || len(doc.Voyages) != 1 ||
+		doc.Voyages[0].Total.Hours != 36 || len(doc.Voyages[0].Phases) != 2 || doc.Voyages[0].Phases[1].Phase != "passage" {
+		t.Errorf("--json: exit %d, %v, %+v", code, err, doc)
+	}
+	code, out, errOut = runSim(t, "run", "--quiet", "--plot", filepath.Join(t.TempDir(), "v.svg"), script)
+	if code != exitFail || out != "" || !strings.Contains(errOut, "the chart draws load cases") {
+		t.Errorf("--plot of a voyage: exit %d, stdout %q, stderr %q", code, out, errOut)
+	}
+}

@@ -12,7 +12,7 @@ func BenchmarkTable(b *testing.B) {
 	cases := demoCases(b)
 	b.ReportAllocs()
 	for b.Loop() {
-		if err := Table(io.Discard, cases); err != nil {
+		if err := Table(io.Discard, Run{Cases: cases}); err != nil {
 			b.Fatal(err)
 		}
 	}
@@ -23,7 +23,7 @@ func BenchmarkJSON(b *testing.B) {
 	cases := demoCases(b)
 	b.ReportAllocs()
 	for b.Loop() {
-		if err := JSON(io.Discard, cases); err != nil {
+		if err := JSON(io.Discard, Run{Cases: cases}); err != nil {
 			b.Fatal(err)
 		}
 	}
@@ -34,7 +34,7 @@ func BenchmarkCSV(b *testing.B) {
 	cases := demoCases(b)
 	b.ReportAllocs()
 	for b.Loop() {
-		if err := CSV(io.Discard, cases); err != nil {
+		if err := CSV(io.Discard, Run{Cases: cases}); err != nil {
 			b.Fatal(err)
 		}
 	}

@@ -14,7 +14,9 @@ var csvHeader = [...]string{
 	"makeup_kg_h", "electric_kW", "margin_kg_h", "warnings",
 }
 
-// CSV writes a header row and one row per case with the main figures:
+// CSV writes a header row and one row per load case of the run with the
+// main figures (the voyages, studies and audits are in the table and the
+// JSON):
 //
 //	case, plant                      names
 //	sea_T_C, air_T_C                 °C, one decimal
@@ -30,12 +32,12 @@ var csvHeader = [...]string{
 //
 // The caution is not part of the CSV (it would break the table); a
 // program that shows these figures to people must show it.
-func CSV(w io.Writer, cases []Case) error {
+func CSV(w io.Writer, run Run) error {
 	cw := csv.NewWriter(w)
 	if err := cw.Write(csvHeader[:]); err != nil {
 		return err
 	}
-	for _, c := range cases {
+	for _, c := range run.Cases {
 		r := c.Result
 		row := [...]string{
 			r.Name, c.Plant,

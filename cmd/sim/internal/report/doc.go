@@ -20,15 +20,20 @@
 //	  "schema": 1,
 //	  "caution": "Caution: planning and audit estimate only; ...",
 //	  "plant": {"name": "Invented Product Tanker 1"},
-//	  "cases": [ CASE, ... ]
+//	  "cases": [ CASE, ... ],
+//	  "voyages": [ VOYAGE, ... ],
+//	  "studies": [ STUDY, ... ],
+//	  "audits": [ AUDIT, ... ]
 //	}
 //
 // "schema" is plant.SchemaVersion; it changes only when a key is removed
 // or changes meaning, and new keys may be added without a change.
-// "plant" names the plant the cases were solved on; it is null when the
-// run has no case or its cases were solved on more than one plant (each
-// case names its plant in any event). "cases" lists the load cases in the
-// order the script solved them.
+// "plant" names the plant the cases and jobs were solved on; it is null
+// when the run solved nothing or used more than one plant (each case and
+// job names its plant in any event). "cases" lists the load cases in the
+// order the scripts solved them; "voyages", "studies" and "audits" the
+// jobs over profiles that the scripts ran with voyage(), study() and
+// audit(). Every list is present, empty when there is nothing in it.
 //
 // Each CASE is the object of plant.CaseJSON with two keys in front:
 //
@@ -94,5 +99,49 @@
 //	                        x is null for a single phase
 //	warnings                [string]: every warning of the case
 //
-// Numbers are rounded to six significant digits by plant.CaseResult.JSON.
+// Each job (VOYAGE, STUDY, AUDIT) starts with
+//
+//	name, plant             the job's name and its plant's
+//	source                  where the script ran it, "file:line"
+//	row_sources             where each row (day) was given, "file:line"
+//
+// TOTALS, the sums over a set of rows (each row's figures times its
+// hours), are
+//
+//	rows, hours             how many rows, and their hours
+//	fuel_t, co2_t           boiler fuel burnt and its CO2, t
+//	steam_t, ege_steam_t    steam raised in all and by economisers, t
+//	ege_fuel_saved_t        boiler fuel the economisers saved, t
+//	dumped_t, makeup_t      steam dumped and water made up, t
+//	electric_MWh            electrical energy, MWh
+//	hours_firing            [h]: hours with 0, 1, 2, ... boilers firing
+//	peak_boiler_kg_h, peak_row   highest demand on the oil-fired boilers,
+//	                        kg/h, and its row (numbered from 1)
+//	capacity_kg_h           MCR of all boilers, kg/h
+//	tightest_margin_kg_h, tightest_row   smallest margin, kg/h, and its row
+//	short_rows              [row]: rows the plant cannot carry
+//	warning_rows            [row]: rows with any warning
+//
+// A VOYAGE has "total" (TOTALS), "phases" ([TOTALS with "phase" in
+// front], in the order the phases first appear) and "rows" ([{row, phase,
+// hours, case, boilers_firing, can_carry, steam_demand_kg_h, fuel_kg_h,
+// margin_kg_h, warnings (a count)}]).
+//
+// A STUDY has "hours" (of its profile), "fuel_price_per_t",
+// "installed_cost", "currency" and "variants" ([{name, totals (TOTALS),
+// fuel_saved_t, co2_avoided_t, cost_saved, payback_years (null for the
+// base, without an installed cost, or when nothing is saved),
+// hours_below_min_gas_T}]), each saving against the first variant.
+//
+// An AUDIT has "samples" (per day), "seed", "low_quantile" and
+// "high_quantile" of the band; "claimed_t", "nominal_t", "low_t" and
+// "high_t" summed over the days (the band's ends added day by day, a
+// conservative band); "excess_t" (the claims beyond the band's top, on the
+// days above it); "flagged" (days outside the band); "days" ([{date,
+// phase, claimed_t, nominal_t, low_t, median_t, high_t, flag ("above",
+// "below" or "")}]); and "uncertainties" ([{unit, param, low, high}]: the
+// inputs drawn uniformly between low and high, in SI units or as
+// fractions).
+//
+// Numbers are rounded to six significant digits.
 package report

@@ -32,21 +32,33 @@ const (
 	kgh          = 3600.0 // kg/s to kg/h
 )
 
-// Table writes the cases as a text table for people, one block per case,
-// and the caution at the end.
-func Table(w io.Writer, cases []Case) error {
+// Table writes the run as a text table for people: one block per load
+// case, then one per voyage, study and audit, and the caution at the end.
+func Table(w io.Writer, run Run) error {
 	ew := &errWriter{w: w}
-	if len(cases) == 0 {
-		fmt.Fprintln(ew, "No load case was solved.")
+	if run.empty() {
+		fmt.Fprintln(ew, "Nothing was solved: the scripts ran no load case, voyage, study or audit.")
 	}
 	var b bytes.Buffer
-	for i, c := range cases {
-		if i > 0 {
+	block := func(write func(io.Writer)) {
+		if b.Len() > 0 {
 			fmt.Fprintln(ew)
 		}
 		b.Reset()
-		writeCase(&b, i+1, len(cases), c)
+		write(&b)
 		writeTrimmed(ew, b.Bytes())
+	}
+	for i, c := range run.Cases {
+		block(func(w io.Writer) { writeCase(w, i+1, len(run.Cases), c) })
+	}
+	for _, v := range run.Voyages {
+		block(func(w io.Writer) { writeVoyage(w, v) })
+	}
+	for _, s := range run.Studies {
+		block(func(w io.Writer) { writeStudy(w, s) })
+	}
+	for _, a := range run.Audits {
+		block(func(w io.Writer) { writeAudit(w, a) })
 	}
 	fmt.Fprintf(ew, "\n%s\n", Caution)
 	return ew.err

@@ -158,11 +158,11 @@ func TestGolden(t *testing.T) {
 		file   string
 		render func(*bytes.Buffer) error
 	}{
-		{"table.golden", func(b *bytes.Buffer) error { return Table(b, cases) }},
-		{"json.golden", func(b *bytes.Buffer) error { return JSON(b, cases) }},
-		{"csv.golden", func(b *bytes.Buffer) error { return CSV(b, cases) }},
-		{"table_empty.golden", func(b *bytes.Buffer) error { return Table(b, nil) }},
-		{"table_ege.golden", func(b *bytes.Buffer) error { return Table(b, egeCases(t)) }},
+		{"table.golden", func(b *bytes.Buffer) error { return Table(b, Run{Cases: cases}) }},
+		{"json.golden", func(b *bytes.Buffer) error { return JSON(b, Run{Cases: cases}) }},
+		{"csv.golden", func(b *bytes.Buffer) error { return CSV(b, Run{Cases: cases}) }},
+		{"table_empty.golden", func(b *bytes.Buffer) error { return Table(b, Run{Cases: nil}) }},
+		{"table_ege.golden", func(b *bytes.Buffer) error { return Table(b, Run{Cases: egeCases(t)}) }},
 	} {
 		var b bytes.Buffer
 		must(t, f.render(&b))
@@ -198,7 +198,7 @@ func TestCasesCoverTheStates(t *testing.T) {
 		t.Errorf("one boiler forced: forced %v, firing %v %v", r(3).Forced, r(3).Boilers[0].Firing, r(3).Boilers[1].Firing)
 	}
 	var b bytes.Buffer
-	must(t, Table(&b, cases))
+	must(t, Table(&b, Run{Cases: cases}))
 	out := b.String()
 	for _, s := range []string{
 		"Load case 1 of 4: port stay", `plant "Invented Test Tanker", solved at demo.lua:12`,
@@ -220,7 +220,7 @@ func TestCasesCoverTheStates(t *testing.T) {
 	quiet.Consumers = append([]plant.ConsumerResult(nil), quiet.Consumers...)
 	quiet.Consumers[0].DrainCoolerW = 12345 // W: shown as 12.3 kW
 	b.Reset()
-	must(t, Table(&b, []Case{{Plant: "x", Result: &quiet}}))
+	must(t, Table(&b, Run{Cases: []Case{{Plant: "x", Result: &quiet}}}))
 	if !strings.Contains(b.String(), "duty; drain cooler 12.3 kW\n") {
 		t.Errorf("the drain cooler's heat is not shown:\n%s", b.String())
 	}
@@ -242,7 +242,7 @@ func TestCasesCoverTheStates(t *testing.T) {
 func TestCSV(t *testing.T) {
 	cases := demoCases(t)
 	var b bytes.Buffer
-	must(t, CSV(&b, cases))
+	must(t, CSV(&b, Run{Cases: cases}))
 	rows, err := csv.NewReader(&b).ReadAll()
 	must(t, err)
 	if len(rows) != len(cases)+1 {
@@ -290,7 +290,7 @@ func TestJSONDocument(t *testing.T) {
 	cases := demoCases(t)
 	decode := func(cs []Case) map[string]json.RawMessage {
 		var b bytes.Buffer
-		must(t, JSON(&b, cs))
+		must(t, JSON(&b, Run{Cases: cs}))
 		var doc map[string]json.RawMessage
 		must(t, json.Unmarshal(b.Bytes(), &doc))
 		return doc
@@ -509,7 +509,7 @@ func contains(g, w any, path string) error {
 // boiler at η 0.85 on LCV 40 200 kJ/kg.
 func TestEGETable(t *testing.T) {
 	var b bytes.Buffer
-	must(t, Table(&b, egeCases(t)))
+	must(t, Table(&b, Run{Cases: egeCases(t)}))
 	out := b.String()
 	for _, s := range []string{
 		"EGE                      exhaust-gas economiser",
@@ -534,7 +534,9 @@ func TestSchemaDocumented(t *testing.T) {
 	must(t, err)
 	doc := string(src)
 	var b bytes.Buffer
-	must(t, JSON(&b, append(demoCases(t), egeCases(t)...)))
+	run := profileRun(t)
+	run.Cases = append(demoCases(t), egeCases(t)...)
+	must(t, JSON(&b, run))
 	var v any
 	must(t, json.Unmarshal(b.Bytes(), &v))
 	keys := map[string]bool{}
