@@ -8,6 +8,7 @@ import (
 	"fmt"
 	"io"
 	"os"
+	"strings"
 	"time"
 
 	"github.com/rs/zerolog"
@@ -246,6 +247,11 @@ func runRun(ctx context.Context, e env, args []string) error {
 func runScripts(ctx context.Context, e env, a *runArgs, runners []scriptRunner, first string) error {
 	log := newLogger(e.stderr, a)
 	opt := scripting.Options{Timeout: a.timeout, Logger: log}
+	if a.verbose {
+		opt.Progress = func(job string, done, total int) {
+			log.Debug().Str("job", job).Int("done", done).Int("total", total).Msg("progress")
+		}
+	}
 	var all report.Run
 	var failed error
 	for _, run := range runners {
@@ -367,7 +373,16 @@ func runCheck(ctx context.Context, e env, args []string) error {
 	for _, s := range scripts {
 		r, err := scripting.RunFile(ctx, s, opt)
 		if err == nil {
-			fmt.Fprintf(e.stdout, "%s: ok: %s, %s\n", s, count(len(r.Plants), "plant"), count(len(r.Cases), "load case"))
+			line := fmt.Sprintf("%s: ok: %s, %s", s, count(len(r.Plants), "plant"), count(len(r.Cases), "load case"))
+			for _, j := range []struct {
+				n    int
+				what string
+			}{{len(r.Voyages), "voyage"}, {len(r.Studies), "study"}, {len(r.Audits), "audit"}} {
+				if j.n > 0 {
+					line += ", " + count(j.n, j.what)
+				}
+			}
+			fmt.Fprintln(e.stdout, line)
 			continue
 		}
 		if ctx.Err() != nil {
@@ -389,10 +404,13 @@ func runCheck(ctx context.Context, e env, args []string) error {
 	return nil
 }
 
-// count writes "1 plant", "2 plants".
+// count writes "1 plant", "2 plants", "2 studies".
 func count(n int, what string) string {
 	if n == 1 {
 		return "1 " + what
+	}
+	if strings.HasSuffix(what, "y") && !strings.HasSuffix(what, "ay") && !strings.HasSuffix(what, "ey") {
+		return fmt.Sprintf("%d %sies", n, what[:len(what)-1])
 	}
 	return fmt.Sprintf("%d %ss", n, what)
 }

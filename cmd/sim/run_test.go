@@ -272,6 +272,9 @@ func TestRunVoyage(t *testing.T) {
 			t.Errorf("the report does not say %q:\n%s", s, out)
 		}
 	}
+	if code, out, _ := runSim(t, "check", "--quiet", script); code != exitOK || out != script+": ok: 1 plant, 0 load cases, 1 voyage\n" {
+		t.Errorf("sim check %s: exit %d, %q", script, code, out)
+	}
 	code, out, _ = runSim(t, "run", "--quiet", "--json", script)
 	var doc struct {
 		Voyages []struct {
@@ -291,5 +294,18 @@ func TestRunVoyage(t *testing.T) {
 	code, out, errOut = runSim(t, "run", "--quiet", "--plot", filepath.Join(t.TempDir(), "v.svg"), script)
 	if code != exitFail || out != "" || !strings.Contains(errOut, "the chart draws load cases") {
 		t.Errorf("--plot of a voyage: exit %d, stdout %q, stderr %q", code, out, errOut)
+	}
+}
+
+func TestCount(t *testing.T) {
+	for _, c := range []struct {
+		n    int
+		what string
+		want string
+	}{{1, "plant", "1 plant"}, {2, "plant", "2 plants"}, {0, "load case", "0 load cases"},
+		{3, "study", "3 studies"}, {2, "voyage", "2 voyages"}, {1, "audit", "1 audit"}, {2, "day", "2 days"}} {
+		if got := count(c.n, c.what); got != c.want {
+			t.Errorf("count(%d, %q) = %q, want %q", c.n, c.what, got, c.want)
+		}
 	}
 }
