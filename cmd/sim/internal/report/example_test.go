@@ -1,0 +1,31 @@
+package report_test
+
+import (
+	"fmt"
+	"os"
+
+	"steamcase/cmd/sim/internal/report"
+)
+
+// The file name of a chart sets its format.
+func ExampleFormatOf() {
+	for _, name := range []string{"demand.svg", "demand.PNG", "demand.pdf"} {
+		format, err := report.FormatOf(name)
+		fmt.Println(format, err)
+	}
+	// Output:
+	// svg <nil>
+	// png <nil>
+	//  plot file "demand.pdf": the name must end in .svg or .png, which sets the format
+}
+
+// A run that solved nothing still says so, and still carries the caution.
+func ExampleTable() {
+	if err := report.Table(os.Stdout, report.Run{}); err != nil {
+		fmt.Println(err)
+	}
+	// Output:
+	// Nothing was solved: the scripts ran no load case, voyage, study or audit.
+	//
+	// Caution: planning and audit estimate only; the makers' manuals, class and flag rules and licensed practice govern, and local codes come first.
+}
