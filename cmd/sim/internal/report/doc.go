@@ -1,10 +1,13 @@
-// Package report renders the results of load cases for people and for
-// programs: a text table (Table), one JSON document (JSON), one CSV row per
-// case (CSV) and a chart of steam demand against boiler capacity (Plot).
+// Package report renders what a run of load-case scripts solved, for
+// people and for programs: a text table (Table), one JSON document (JSON),
+// one CSV row per load case (CSV) and a chart of the cases' steam demand
+// against boiler capacity (Plot).
 //
-// The renderers take the cases of one run in script order, each with the
-// name of the plant it was solved on; the case's script position is the
-// plant.CaseResult's Pos. Output is stable: a fixed order, fixed number
+// A Run holds the load cases in script order, each with the name of the
+// plant it was solved on (the case's script position is the
+// plant.CaseResult's Pos), and the voyages, studies and audits the scripts
+// ran over profiles (package plant/profile), each with where it and its
+// rows were given. Output is stable: a fixed order, fixed number
 // formats and no timestamps, so that two runs of the same script give the
 // same bytes.
 //
