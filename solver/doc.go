@@ -120,8 +120,9 @@
 //
 // # Errors and allocation
 //
-// NaN or Inf in a residual or Jacobian entry stops the solve with a
-// *NumberError naming the equation (and the unknown). An error returned by
+// NaN or Inf in a residual or Jacobian entry (with a Pattern, an entry
+// of the pattern; any entry with Settings.VerifyPattern) stops the solve
+// with a *NumberError naming the equation (and the unknown). An error returned by
 // Residual is returned wrapped. The context is checked every iteration.
 // Contradictory data (crossed bounds, non-positive scales, bad settings)
 // is an error wrapping ErrInvalidProblem; a start point outside the
