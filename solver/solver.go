@@ -381,9 +381,13 @@ func (s *Solver) levenbergMarquardt() bool {
 // when nobody will see the estimate (no Recorder) and the Factorizer has a
 // cheap upper bound of the condition number that is within
 // Settings.MaxCondition, that bound. Since the estimate is never above
-// the true condition number and the bound never below it, the bound
+// the true condition number (in exact arithmetic: Hager's estimate is
+// ‖A⁻¹x‖₁ for some ‖x‖₁ = 1) and the bound never below it, the bound
 // passing the limit means the estimate would have passed it too: the
 // SingularJacobian decision is the same, only the estimate is skipped.
+// (Within the estimate's own rounding error, about cond·ε relative, of
+// the limit the two could differ; there the verdict is a coin toss
+// either way.)
 func (s *Solver) condition(ferr error) float64 {
 	if ferr == nil && s.bounder != nil && s.set.Recorder == nil {
 		if b := s.bounder.CondBound(); b <= s.set.MaxCondition {
