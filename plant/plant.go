@@ -103,9 +103,16 @@ type Plant struct {
 	last     []float64 // last converged unknowns, for warm starts
 	x0       []float64 // starting point scratch
 	lastCopy []float64
-	slvRes   solver.Result
-	solves   int
-	ev       eval
+	// hint is how many boilers fired in the last case, where the firing
+	// decision of the next starts; keep* hold a solution during a trial.
+	hint       int
+	hintSet    bool
+	keepX      []float64
+	keepRes    solver.Result
+	keepSolves int
+	slvRes     solver.Result
+	solves     int
+	ev         eval
 }
 
 // New returns an empty plant.

@@ -98,7 +98,7 @@ func (p *Plant) solveConfig(ctx context.Context, fire []bool) error {
 
 // ColdStart forgets the last solution, so that the next case starts from
 // the plant's own guess.
-func (p *Plant) ColdStart() { p.last = nil }
+func (p *Plant) ColdStart() { p.last, p.hintSet = nil, false }
 
 // applySettings sets the case's parameters and returns a function that
 // restores the plant's own.
@@ -234,7 +234,9 @@ func (p *Plant) egeSaving(ctx context.Context, c Case, cr *CaseResult) error {
 	}
 	copy(p.lastCopy, p.last)
 	saved := p.slvRes
+	hint, hintSet := p.hint, p.hintSet
 	defer func() {
+		p.hint, p.hintSet = hint, hintSet
 		for _, e := range eges {
 			e.Off = 0
 		}
@@ -280,43 +282,136 @@ func (p *Plant) egeSaving(ctx context.Context, c Case, cr *CaseResult) error {
 }
 
 // decide finds how many boilers must fire: none if the steam system has a
-// dump condenser and steam over without them; else the fewest, in
-// declaration order, whose demand stays within UsableFraction of their
-// MCR; else all.
+// dump condenser and the exhaust-gas economisers leave steam over without
+// them; else the fewest, in declaration order, whose demand stays within
+// UsableFraction of their MCR; else all.
+//
+// It starts from the number that fired in the plant's previous case (a
+// voyage's hours rarely change it) and moves up while the demand does not
+// fit, then down while fewer boilers would do. A step down is only tried
+// when it could succeed: one boiler fewer only if the demand is within 5 %
+// of what the fewer could carry (the demand hardly depends on how many
+// boilers share it: only consumers driven by the boilers' fuel flow change
+// with it), and no boiler at all only if the boilers raise no more than
+// those fuel-driven consumers take. Without a previous case it starts from
+// none (or one) and moves up, as the rule reads.
 func (p *Plant) decide(ctx context.Context, fire []bool) error {
 	n := len(p.boilers)
-	if n == 0 || (len(p.dumps) > 0 && p.egeHeat() > 0) {
-		for i := range fire {
-			fire[i] = false
+	try0 := len(p.dumps) > 0 && p.egeHeat() > 0
+	if n == 0 {
+		return p.solveConfig(ctx, fire)
+	}
+	lowest := 1
+	if try0 {
+		lowest = 0
+	}
+	k := lowest
+	hinted := p.hintSet && p.hint > lowest && p.hint <= n
+	if hinted {
+		k = p.hint
+	}
+	// Up: the first k from the start that fits.
+	for {
+		ok, err := p.fits(ctx, fire, k)
+		if err != nil && hinted && ctx.Err() == nil {
+			// The last case's number does not solve here (the economisers
+			// now leave steam over, say): scan from the bottom instead.
+			k, hinted = lowest, false
+			continue
 		}
-		err := p.solveConfig(ctx, fire)
-		if n == 0 {
+		if err != nil && (k > 0 || ctx.Err() != nil) {
 			return err
 		}
-		if err == nil && p.dumpFlow() >= 0 {
-			return nil
+		if ok {
+			break
 		}
+		k++
+	}
+	// Down: while one boiler fewer would do.
+	for k > lowest && p.mayFit(k-1) {
+		p.keep()
+		ok, err := p.fits(ctx, fire, k-1)
 		if ctx.Err() != nil {
 			return ctx.Err()
 		}
+		if err == nil && ok {
+			k--
+			continue
+		}
+		p.restore(fire, k)
+		break
 	}
-	for k := 1; k <= n; k++ {
-		for i := range fire {
-			fire[i] = i < k
-		}
-		if err := p.solveConfig(ctx, fire); err != nil {
-			return err
-		}
-		var demand, mcr float64
-		for _, b := range p.boilers[:k] {
-			demand += p.last[b.steam.mIdx()]
-			mcr += b.MCR
-		}
-		if k == n || demand <= p.Opt.UsableFraction*mcr*(1+1e-12) {
-			return nil
-		}
-	}
+	p.hint, p.hintSet = k, true
 	return nil
+}
+
+// fits solves the plant with the first k boilers firing and says whether
+// the firing rule accepts it.
+func (p *Plant) fits(ctx context.Context, fire []bool, k int) (bool, error) {
+	for i := range fire {
+		fire[i] = i < k
+	}
+	if err := p.solveConfig(ctx, fire); err != nil {
+		return false, err
+	}
+	if k == 0 {
+		return p.dumpFlow() >= 0, nil
+	}
+	if k == len(p.boilers) {
+		return true, nil
+	}
+	demand, mcr := p.firedDemand(k)
+	return demand <= p.Opt.UsableFraction*mcr*(1+1e-12), nil
+}
+
+// firedDemand is the steam of the first k boilers and their MCR at the
+// last solution.
+func (p *Plant) firedDemand(k int) (demand, mcr float64) {
+	for _, b := range p.boilers[:k] {
+		demand += p.last[b.steam.mIdx()]
+		mcr += b.MCR
+	}
+	return demand, mcr
+}
+
+// mayFit says whether j boilers could carry the demand of the present
+// solution (see decide).
+func (p *Plant) mayFit(j int) bool {
+	k := j + 1
+	demand, _ := p.firedDemand(k)
+	if j == 0 {
+		var coupled float64
+		for _, u := range p.units {
+			if c, ok := u.(*Consumer); ok && c.fuel >= 0 {
+				coupled += p.last[c.in.mIdx()]
+			}
+		}
+		return demand <= 1.1*coupled+1e-6
+	}
+	_, mcr := p.firedDemand(j)
+	return demand <= 1.05*p.Opt.UsableFraction*mcr
+}
+
+// keep saves the last solution before a trial that may be refused.
+func (p *Plant) keep() {
+	if len(p.keepX) != len(p.last) {
+		p.keepX = make([]float64, len(p.last))
+	}
+	copy(p.keepX, p.last)
+	p.keepRes = p.slvRes
+	p.keepSolves = p.solves
+}
+
+// restore brings back the solution kept before a refused trial, with k
+// boilers firing.
+func (p *Plant) restore(fire []bool, k int) {
+	copy(p.last, p.keepX)
+	p.slvRes = p.keepRes
+	p.solves++
+	for i := range fire {
+		fire[i] = i < k
+	}
+	copy(p.disp.fire, fire)
 }
 
 // egeHeat is the heat the exhaust-gas economisers take from the exhaust in
