@@ -8,6 +8,7 @@ import (
 	"fmt"
 	"io"
 	"os"
+	"strconv"
 	"strings"
 	"time"
 
@@ -53,10 +54,23 @@ The report is a table for people unless --json or --csv asks for a form for
 programs: --json prints one JSON document (schema 1: the caution, the plant,
 every case with its figures and every voyage, study and audit, each key
 naming its unit), --csv one row per load case with the main figures under
-a header naming their units. --plot also draws the steam demand of each
-load case, stacked by consumer, against the MCR of the boilers firing and
-of all boilers, as an SVG or PNG file chosen by the file name's extension.
--o writes the report to a file instead of standard output.
+a header naming their units. -o writes the report to a file instead of
+standard output.
+
+--plot FILE also draws what the run solved, as an SVG or PNG image chosen
+by the file name's extension: the load cases on one chart (the steam
+demand of each, stacked by consumer, against the MCR of the boilers firing
+and of all boilers); a voyage against the hours from its start, each
+period a step (the steam demand on the boilers and their capacity above,
+the fuel burnt in kg/h below, the phases shaded and named); a study as a
+bar for each variant of the fuel it saves against the first, in t/yr; an
+audit as each day's modelled band with its median, and the fuel claimed,
+the days outside the band ringed in red. A run with one of these writes
+FILE. A run with several writes one file for each, named FILE with a
+suffix before the extension: "-cases" for the load cases and "-voyage-N",
+"-study-N" or "-audit-N" for the N-th job of that kind, counted over all
+the scripts in order (demand.svg gives demand-cases.svg,
+demand-voyage-1.svg, ...), and lists them on standard error.
 
 What the scripts print, and the solver's messages with -v, go to standard
 error; --quiet leaves only errors. An error in a script is printed as
@@ -112,7 +126,7 @@ func (a *runArgs) flagSet(name string) *flag.FlagSet {
 	if name == "run" {
 		fs.BoolVar(&a.json, "json", false, "print the report as one JSON document")
 		fs.BoolVar(&a.csv, "csv", false, "print the report as CSV, one row per load case")
-		fs.StringVar(&a.plot, "plot", "", "also draw the steam demand against the boilers' capacity in `FILE`,\nan SVG or PNG image by the name's extension (.svg, .png)")
+		fs.StringVar(&a.plot, "plot", "", "also draw the cases and each voyage, study and audit in `FILE`,\nan SVG or PNG image by the name's extension (.svg, .png); with\nseveral charts, one file each: FILE-cases.svg, FILE-voyage-1.svg, ...")
 		fs.StringVar(&a.out, "o", "", "write the report to `FILE` instead of standard output")
 	}
 	a.timeout = 10 * time.Second
@@ -314,9 +328,8 @@ func collect(all *report.Run, r *scripting.Run) {
 }
 
 // writeReport renders the run in the form asked for to -o or standard
-// output, and the chart of its cases to --plot.
+// output, and its charts to --plot.
 func writeReport(e env, a *runArgs, all report.Run, first string) error {
-	cases := all.Cases
 	var b bytes.Buffer
 	if first != "" && !a.json && !a.csv {
 		fmt.Fprintln(&b, first)
@@ -337,19 +350,8 @@ func writeReport(e env, a *runArgs, all report.Run, first string) error {
 		return err
 	}
 	if a.plot != "" {
-		if len(cases) == 0 {
-			return fmt.Errorf("--plot %s: the chart draws load cases, and no case() was solved (voyages, studies and audits are in the report)", a.plot)
-		}
-		format, err := report.FormatOf(a.plot)
-		if err != nil {
+		if err := writePlots(e, a, all); err != nil {
 			return err
-		}
-		var pb bytes.Buffer
-		if err := report.Plot(&pb, format, cases); err != nil {
-			return err
-		}
-		if err := os.WriteFile(a.plot, pb.Bytes(), 0o644); err != nil {
-			return fmt.Errorf("--plot: %w", err)
 		}
 	}
 	if a.out != "" {
@@ -413,4 +415,54 @@ func count(n int, what string) string {
 		return fmt.Sprintf("%d %sies", n, what[:len(what)-1])
 	}
 	return fmt.Sprintf("%d %ss", n, what)
+}
+
+// writePlots draws the charts of the run to --plot: the one chart a run
+// has to the file named, or, when it has several, each to the name with a
+// suffix (plotFile). Every chart is drawn before any file is written.
+func writePlots(e env, a *runArgs, all report.Run) error {
+	charts := report.Charts(all)
+	if len(charts) == 0 {
+		return fmt.Errorf("--plot %s: nothing to draw: the scripts solved no load case, voyage, study or audit", a.plot)
+	}
+	format, err := report.FormatOf(a.plot)
+	if err != nil {
+		return err
+	}
+	files := make([]string, len(charts))
+	bufs := make([]bytes.Buffer, len(charts))
+	for i, c := range charts {
+		files[i] = plotFile(a.plot, c, len(charts) > 1)
+		if err := c.Draw(&bufs[i], format); err != nil {
+			return fmt.Errorf("--plot %s: %w", files[i], err)
+		}
+	}
+	for i, f := range files {
+		if err := os.WriteFile(f, bufs[i].Bytes(), 0o644); err != nil {
+			return fmt.Errorf("--plot: %w", err)
+		}
+	}
+	if len(files) > 1 && !a.quiet {
+		fmt.Fprintf(e.stderr, "sim run: %d charts written: %s\n", len(files), strings.Join(files, ", "))
+	}
+	return nil
+}
+
+// plotFile is the file of a chart: name itself when the run draws one
+// chart; with several, name with a suffix before its extension: "-cases"
+// for the load cases, "-voyage-N", "-study-N" or "-audit-N" for the N-th
+// job of that kind (demand.svg: demand-cases.svg, demand-voyage-1.svg).
+func plotFile(name string, c report.Chart, several bool) string {
+	if !several {
+		return name
+	}
+	suffix := "-" + c.Kind
+	if c.N > 0 {
+		suffix += "-" + strconv.Itoa(c.N)
+	}
+	dot := strings.LastIndexByte(name, '.')
+	if dot < 0 || strings.ContainsAny(name[dot:], `/\`) {
+		return name + suffix
+	}
+	return name[:dot] + suffix + name[dot:]
 }

@@ -300,9 +300,79 @@ func TestRunVoyage(t *testing.T) {
 		doc.Voyages[0].Total.Hours != 36 || len(doc.Voyages[0].Phases) != 2 || doc.Voyages[0].Phases[1].Phase != "passage" {
 		t.Errorf("--json: exit %d, %v, %+v", code, err, doc)
 	}
-	code, out, errOut = runSim(t, "run", "--quiet", "--plot", filepath.Join(t.TempDir(), "v.svg"), script)
-	if code != exitFail || out != "" || !strings.Contains(errOut, "the chart draws load cases") {
-		t.Errorf("--plot of a voyage: exit %d, stdout %q, stderr %q", code, out, errOut)
+	// The chart of the voyage: one job, so the file named.
+	svg := filepath.Join(t.TempDir(), "v.svg")
+	code, _, errOut = runSim(t, "run", "--quiet", "--plot", svg, script)
+	b, err := os.ReadFile(svg)
+	if code != exitOK || errOut != "" || err != nil || len(b) == 0 {
+		t.Fatalf("--plot of a voyage: exit %d, stderr %q, %v, %d bytes", code, errOut, err, len(b))
+	}
+	for _, s := range []string{"<svg", "Voyage: short trip", "Invented Test Coaster", "port", "passage", "hours from the start of the voyage"} {
+		if !bytes.Contains(b, []byte(s)) {
+			t.Errorf("the voyage's SVG does not contain %q", s)
+		}
+	}
+}
+
+// TestRunPlotSeveral runs a script with load cases and two scripts with a
+// voyage each: one chart per case set and job, each in its own file named
+// with a suffix, listed on stderr unless --quiet.
+func TestRunPlotSeveral(t *testing.T) {
+	dir := t.TempDir()
+	base := filepath.Join(dir, "demand.svg")
+	code, _, errOut := runSim(t, "run", "--plot", base, smallScript, "testdata/run/voyage.lua", "testdata/run/voyage.lua")
+	if code != exitOK {
+		t.Fatalf("exit %d, stderr %q", code, errOut)
+	}
+	files := []string{"demand-cases.svg", "demand-voyage-1.svg", "demand-voyage-2.svg"}
+	for i, f := range files {
+		b, err := os.ReadFile(filepath.Join(dir, f))
+		if err != nil || len(b) == 0 {
+			t.Errorf("%s: %v, %d bytes", f, err, len(b))
+			continue
+		}
+		want := "Voyage: short trip"
+		if i == 0 {
+			want = "cold discharge"
+		}
+		if !bytes.Contains(b, []byte(want)) {
+			t.Errorf("%s does not contain %q", f, want)
+		}
+		files[i] = filepath.Join(dir, f)
+	}
+	if _, err := os.Stat(base); err == nil {
+		t.Errorf("%s written as well as the suffixed files", base)
+	}
+	if !strings.Contains(errOut, "sim run: 3 charts written: "+strings.Join(files, ", ")+"\n") {
+		t.Errorf("stderr does not list the charts: %q", errOut)
+	}
+	// Nothing solved: nothing to draw, an error naming the flag.
+	empty := filepath.Join(dir, "empty.lua")
+	if err := os.WriteFile(empty, []byte("-- nothing\n"), 0o644); err != nil {
+		t.Fatal(err)
+	}
+	code, _, errOut = runSim(t, "run", "--quiet", "--plot", base, empty)
+	if code != exitFail || !strings.HasPrefix(errOut, "sim run: --plot "+base+": nothing to draw") {
+		t.Errorf("--plot of nothing: exit %d, stderr %q", code, errOut)
+	}
+}
+
+func TestPlotFile(t *testing.T) {
+	for _, c := range []struct {
+		name    string
+		chart   report.Chart
+		several bool
+		want    string
+	}{
+		{"demand.svg", report.Chart{Kind: "voyage", N: 1}, false, "demand.svg"},
+		{"demand.svg", report.Chart{Kind: "voyage", N: 1}, true, "demand-voyage-1.svg"},
+		{"out/run.2.PNG", report.Chart{Kind: "cases"}, true, "out/run.2-cases.PNG"},
+		{"a.b/plot.svg", report.Chart{Kind: "audit", N: 12}, true, "a.b/plot-audit-12.svg"},
+		{"plots/study", report.Chart{Kind: "study", N: 2}, true, "plots/study-study-2"},
+	} {
+		if got := plotFile(c.name, c.chart, c.several); got != c.want {
+			t.Errorf("plotFile(%q, %s %d, %v) = %q, want %q", c.name, c.chart.Kind, c.chart.N, c.several, got, c.want)
+		}
 	}
 }
 

@@ -1,7 +1,10 @@
 // Package report renders what a run of load-case scripts solved, for
 // people and for programs: a text table (Table), one JSON document (JSON),
-// one CSV row per load case (CSV) and a chart of the cases' steam demand
-// against boiler capacity (Plot).
+// CSV tables of the cases and the jobs (CSV), and charts (Charts): the
+// cases' steam demand against boiler capacity (Plot), a voyage's demand,
+// capacity and fuel against its hours (PlotVoyage), a study's fuel saved
+// by variant (PlotStudy) and an audit's claimed fuel against the modelled
+// band (PlotAudit), each as SVG or PNG.
 //
 // A Run holds the load cases in script order, each with the name of the
 // plant it was solved on (the case's script position is the

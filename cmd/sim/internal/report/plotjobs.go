@@ -1,0 +1,615 @@
+package report
+
+import (
+	"fmt"
+	"image/color"
+	"io"
+	"math"
+
+	"gonum.org/v1/plot"
+	"gonum.org/v1/plot/plotter"
+	"gonum.org/v1/plot/vg"
+	"gonum.org/v1/plot/vg/draw"
+	"gonum.org/v1/plot/vg/vgimg"
+	"gonum.org/v1/plot/vg/vgsvg"
+)
+
+// Chart is one chart a run can draw: the chart of its load cases, or the
+// chart of one of its jobs.
+type Chart struct {
+	// Kind is "cases", "voyage", "study" or "audit".
+	Kind string
+	// N numbers the job among the run's jobs of its kind, from 1; it is
+	// 0 for the chart of the cases.
+	N int
+	// Name is the job's name ("" for the cases).
+	Name string
+
+	draw func(w io.Writer, format string) error
+}
+
+// Draw writes the chart in format (SVG or PNG) to w.
+func (c Chart) Draw(w io.Writer, format string) error { return c.draw(w, format) }
+
+// Charts lists the charts of a run, in this order: the load cases (all on
+// one chart, by Plot) if there are any, then each voyage (PlotVoyage),
+// study (PlotStudy) and audit (PlotAudit) in the order the scripts ran
+// them.
+func Charts(run Run) []Chart {
+	var out []Chart
+	if len(run.Cases) > 0 {
+		cases := run.Cases
+		out = append(out, Chart{Kind: "cases", draw: func(w io.Writer, f string) error { return Plot(w, f, cases) }})
+	}
+	for i, v := range run.Voyages {
+		out = append(out, Chart{Kind: "voyage", N: i + 1, Name: v.Name,
+			draw: func(w io.Writer, f string) error { return PlotVoyage(w, f, v) }})
+	}
+	for i, s := range run.Studies {
+		out = append(out, Chart{Kind: "study", N: i + 1, Name: s.Name,
+			draw: func(w io.Writer, f string) error { return PlotStudy(w, f, s) }})
+	}
+	for i, a := range run.Audits {
+		out = append(out, Chart{Kind: "audit", N: i + 1, Name: a.Name,
+			draw: func(w io.Writer, f string) error { return PlotAudit(w, f, a) }})
+	}
+	return out
+}
+
+// Colours of the job charts.
+var (
+	demandColor  = color.NRGBA{0x2f, 0x5d, 0x8a, 0xff} // deep blue
+	totalColor   = color.NRGBA{0x4c, 0xaa, 0xb0, 0xff} // teal
+	fuelColor    = color.NRGBA{0xb8, 0x6a, 0x1e, 0xff} // dark amber
+	fuelFill     = color.NRGBA{0xf3, 0xd9, 0xb1, 0xff} // pale amber
+	bandShade    = color.NRGBA{0xee, 0xee, 0xee, 0xff} // phase bands
+	baseColor    = color.NRGBA{0x9a, 0x9a, 0x9a, 0xff} // the study's base
+	savedColor   = color.NRGBA{0x5b, 0x9e, 0x6b, 0xff} // green
+	lossColor    = color.NRGBA{0xb8, 0x4f, 0x46, 0xff} // brick
+	bandColor    = color.NRGBA{0x2f, 0x5d, 0x8a, 0xff}
+	medianColor  = color.NRGBA{0x86, 0x6f, 0xb0, 0xff} // violet
+	flaggedColor = color.NRGBA{0xc0, 0x1c, 0x1c, 0xff}
+)
+
+// newCanvas returns a canvas of the size and format asked for.
+func newCanvas(format string, width, height vg.Length) (interface {
+	vg.CanvasSizer
+	io.WriterTo
+}, error) {
+	switch format {
+	case SVG:
+		return vgsvg.New(width, height), nil
+	case PNG:
+		return vgimg.PngCanvas{Canvas: vgimg.NewWith(vgimg.UseWH(width, height), vgimg.UseDPI(120))}, nil
+	}
+	return nil, fmt.Errorf("plot: unknown format %q; the formats are svg and png", format)
+}
+
+// styleAxes gives a plot the look of the case chart.
+func styleAxes(p *plot.Plot) {
+	p.Title.Padding = vg.Millimeter * 3
+	for _, ax := range []*plot.Axis{&p.X, &p.Y} {
+		ax.Color = ink
+		ax.Tick.Color = ink
+	}
+}
+
+// legendEntry is a name and the thumbnails beside it.
+type legendEntry struct {
+	name  string
+	thumb []plot.Thumbnailer
+}
+
+// sideLegend builds a legend to stand right of a chart and returns it
+// with the width it needs.
+func sideLegend(entries []legendEntry) (plot.Legend, vg.Length) {
+	legend := plot.NewLegend()
+	legend.Top, legend.Left = true, true
+	legend.TextStyle.Font.Size = vg.Points(10)
+	legend.YOffs = -vg.Millimeter * 8
+	w := vg.Length(0)
+	for _, e := range entries {
+		legend.Add(e.name, e.thumb...)
+		w = max(w, legend.TextStyle.Width(e.name))
+	}
+	return legend, w + legend.ThumbnailWidth + vg.Centimeter
+}
+
+// span is a run of consecutive rows of one phase, in hours from the start.
+type span struct {
+	phase    string
+	from, to float64
+}
+
+// PlotVoyage draws a voyage plan in format (SVG or PNG) to w, against the
+// hours from the start of the voyage, each row a step as long as its
+// hours: on the upper panel the steam demand on the oil-fired boilers
+// (and the whole steam demand, where exhaust-gas economisers take a share
+// of it), the MCR of the boilers firing and the MCR of all boilers, in
+// kg/h, with the periods the plant cannot carry marked by a red cross
+// and the phases shaded in turn and named; on the lower panel the boiler
+// fuel burnt, kg/h. The legend stands to the right.
+func PlotVoyage(w io.Writer, format string, v Voyage) error {
+	if v.Result == nil || len(v.Result.Rows) == 0 {
+		return fmt.Errorf("plot: voyage %q has no rows to draw", v.Name)
+	}
+	rows := v.Result.Rows
+	var boilers, total, capF, capA, fuel, short plotter.XYs
+	var spans []span
+	var t, top, topFuel float64
+	ege := false
+	for _, row := range rows {
+		c := row.Result
+		var fired, mcrF, mcrA float64
+		for _, b := range c.Boilers {
+			fired += b.SteamKgS
+			mcrA += b.MCRKgS
+			if b.Firing {
+				mcrF += b.MCRKgS
+			}
+		}
+		boilers = append(boilers, plotter.XY{X: t, Y: fired * kgh})
+		total = append(total, plotter.XY{X: t, Y: c.SteamDemandKgS * kgh})
+		capF = append(capF, plotter.XY{X: t, Y: mcrF * kgh})
+		capA = append(capA, plotter.XY{X: t, Y: mcrA * kgh})
+		fuel = append(fuel, plotter.XY{X: t, Y: c.FuelKgS * kgh})
+		if c.EGESteamKgS*kgh > 0.5 {
+			ege = true
+		}
+		if !c.CanCarry {
+			short = append(short, plotter.XY{X: t + row.Hours/2, Y: fired * kgh})
+		}
+		if len(spans) == 0 || spans[len(spans)-1].phase != row.Phase {
+			spans = append(spans, span{phase: row.Phase, from: t})
+		}
+		t += row.Hours
+		spans[len(spans)-1].to = t
+		top = max(top, fired*kgh, c.SteamDemandKgS*kgh, mcrA*kgh)
+		topFuel = max(topFuel, c.FuelKgS*kgh)
+	}
+	// The last step ends at the end of the voyage.
+	for _, s := range []*plotter.XYs{&boilers, &total, &capF, &capA, &fuel} {
+		*s = append(*s, plotter.XY{X: t, Y: (*s)[len(*s)-1].Y})
+	}
+	if !(top > 0) {
+		top = 1
+	}
+	if !(topFuel > 0) {
+		topFuel = 1
+	}
+	ymax := top * 1.22 // room for the phase names
+
+	up := plot.New()
+	up.Title.Text = "Voyage: " + v.Name
+	if v.Plant != "" {
+		up.Title.Text += " (" + v.Plant + ")"
+	}
+	up.Y.Label.Text = "steam, kg/h"
+	up.X.Min, up.X.Max = 0, t
+	up.Y.Min, up.Y.Max = 0, ymax
+	up.Y.Tick.Marker = flowTicks{}
+	up.X.Tick.Marker = hourTicks{}
+	styleAxes(up)
+
+	// The phases: every other one shaded, each named at the top; names of
+	// narrow phases alternate between two heights.
+	narrow := false
+	for _, s := range spans {
+		if s.to-s.from < 0.14*t {
+			narrow = true
+		}
+	}
+	var names plotter.XYLabels
+	for i, s := range spans {
+		if i%2 == 1 {
+			poly, err := plotter.NewPolygon(plotter.XYs{{X: s.from, Y: 0}, {X: s.to, Y: 0}, {X: s.to, Y: ymax}, {X: s.from, Y: ymax}})
+			if err != nil {
+				return fmt.Errorf("plot: phase %q: %w", s.phase, err)
+			}
+			poly.Color = bandShade
+			poly.LineStyle.Width = 0
+			up.Add(poly)
+		}
+		y := top * 1.15
+		if narrow && i%2 == 1 {
+			y = top * 1.07
+		}
+		names.XYs = append(names.XYs, plotter.XY{X: (s.from + s.to) / 2, Y: y})
+		names.Labels = append(names.Labels, s.phase)
+	}
+	up.Add(plotter.NewGrid())
+	lbl, err := plotter.NewLabels(names)
+	if err != nil {
+		return fmt.Errorf("plot: phase names: %w", err)
+	}
+	for i := range lbl.TextStyle {
+		lbl.TextStyle[i].XAlign = draw.XCenter
+		lbl.TextStyle[i].Font.Size = vg.Points(8.5)
+		lbl.TextStyle[i].Color = ink
+	}
+
+	step := func(xys plotter.XYs, c color.Color, width vg.Length, dashes ...vg.Length) (*plotter.Line, error) {
+		l, err := plotter.NewLine(xys)
+		if err != nil {
+			return nil, err
+		}
+		l.StepStyle = plotter.PostStep
+		l.Color = c
+		l.Width = width
+		l.Dashes = dashes
+		return l, nil
+	}
+	var entries []legendEntry
+	lAll, err := step(capA, allColor, vg.Points(1.2), vg.Points(5), vg.Points(3))
+	if err != nil {
+		return fmt.Errorf("plot: MCR of all boilers: %w", err)
+	}
+	lFiring, err := step(capF, firingColor, vg.Points(1.8))
+	if err != nil {
+		return fmt.Errorf("plot: MCR of the boilers firing: %w", err)
+	}
+	lBoil, err := step(boilers, demandColor, vg.Points(2.2))
+	if err != nil {
+		return fmt.Errorf("plot: steam demand on the boilers: %w", err)
+	}
+	up.Add(lAll, lFiring)
+	entries = append(entries, legendEntry{"MCR of all boilers", []plot.Thumbnailer{lAll}},
+		legendEntry{"MCR of the boilers firing", []plot.Thumbnailer{lFiring}})
+	if ege {
+		lTot, err := step(total, totalColor, vg.Points(1.2), vg.Points(2), vg.Points(2))
+		if err != nil {
+			return fmt.Errorf("plot: steam demand: %w", err)
+		}
+		up.Add(lTot)
+		entries = append(entries, legendEntry{"steam demand, economisers included", []plot.Thumbnailer{lTot}})
+	}
+	up.Add(lBoil)
+	entries = append(entries, legendEntry{"steam demand on the oil-fired boilers", []plot.Thumbnailer{lBoil}})
+	if len(short) > 0 {
+		sc, err := plotter.NewScatter(short)
+		if err != nil {
+			return fmt.Errorf("plot: periods the plant cannot carry: %w", err)
+		}
+		sc.Shape = draw.CrossGlyph{}
+		sc.Color = flaggedColor
+		sc.Radius = vg.Points(5)
+		up.Add(sc)
+		entries = append(entries, legendEntry{"period the plant cannot carry", []plot.Thumbnailer{sc}})
+	}
+	up.Add(lbl)
+
+	down := plot.New()
+	down.X.Label.Text = "hours from the start of the voyage"
+	down.Y.Label.Text = "fuel, kg/h"
+	down.X.Min, down.X.Max = 0, t
+	down.Y.Min, down.Y.Max = 0, topFuel*1.12
+	down.Y.Tick.Marker = flowTicks{}
+	down.X.Tick.Marker = hourTicks{}
+	styleAxes(down)
+	for i, s := range spans {
+		if i%2 == 1 {
+			poly, err := plotter.NewPolygon(plotter.XYs{{X: s.from, Y: 0}, {X: s.to, Y: 0}, {X: s.to, Y: down.Y.Max}, {X: s.from, Y: down.Y.Max}})
+			if err != nil {
+				return fmt.Errorf("plot: phase %q: %w", s.phase, err)
+			}
+			poly.Color = bandShade
+			poly.LineStyle.Width = 0
+			down.Add(poly)
+		}
+	}
+	down.Add(plotter.NewGrid())
+	lFuel, err := step(fuel, fuelColor, vg.Points(1.6))
+	if err != nil {
+		return fmt.Errorf("plot: fuel: %w", err)
+	}
+	lFuel.FillColor = fuelFill
+	down.Add(lFuel)
+	entries = append(entries, legendEntry{"boiler fuel burnt (lower panel)", []plot.Thumbnailer{lFuel}})
+
+	legend, legW := sideLegend(entries)
+	plotW := 20 * vg.Centimeter
+	width, height := plotW+legW, 15*vg.Centimeter
+	canvas, err := newCanvas(format, width, height)
+	if err != nil {
+		return err
+	}
+	dc := draw.New(canvas)
+	area := draw.Crop(dc, 0, -legW, 0, 0)
+	cs := plot.Align([][]*plot.Plot{{up}, {down}}, draw.Tiles{Rows: 2, Cols: 1, PadY: vg.Millimeter * 2}, area)
+	// Align lines up the panels' data areas; the upper panel takes 62 %
+	// of the height.
+	split := area.Min.Y + (area.Max.Y-area.Min.Y)*0.38
+	cs[0][0].Min.Y = split + vg.Millimeter
+	cs[1][0].Max.Y = split - vg.Millimeter
+	up.Draw(cs[0][0])
+	down.Draw(cs[1][0])
+	legend.Draw(draw.Crop(dc, plotW+vg.Millimeter*3, 0, 0, 0))
+	_, err = canvas.WriteTo(w)
+	return err
+}
+
+// hourTicks marks an axis of hours at a step a watch-keeper reads: 1, 2,
+// 3, 6 or 12 h, a day, or whole days and weeks, giving at most 14 marks.
+type hourTicks struct{}
+
+func (hourTicks) Ticks(lo, hi float64) []plot.Tick {
+	if !(hi > lo) {
+		return []plot.Tick{{Value: lo, Label: fix(lo, 0)}}
+	}
+	steps := [...]float64{1, 2, 3, 6, 12, 24, 48, 72, 168, 336, 720, 1464, 2190, 4380, 8760}
+	step := steps[len(steps)-1]
+	for _, s := range steps {
+		if (hi-lo)/s <= 14 {
+			step = s
+			break
+		}
+	}
+	var ticks []plot.Tick
+	for v := math.Ceil(lo/step) * step; v <= hi+step*1e-9; v += step {
+		ticks = append(ticks, plot.Tick{Value: v, Label: fix(v, 0)})
+	}
+	return ticks
+}
+
+// hoursPerYear is the year the study's savings are scaled to.
+const hoursPerYear = 8760
+
+// PlotStudy draws a study in format (SVG or PNG) to w: a bar for each
+// variant, in the order given, of the boiler fuel it saves against the
+// first, in t/yr (the profile's savings scaled to 8760 h when its hours
+// are not a year), green for a saving and brick for a loss, each bar
+// labelled with its figure and, when the study has money figures, its
+// payback.
+func PlotStudy(w io.Writer, format string, s Study) error {
+	r := s.Result
+	if r == nil || len(r.Variants) == 0 || !(r.Hours > 0) {
+		return fmt.Errorf("plot: study %q has no variants to draw", s.Name)
+	}
+	perYear := hoursPerYear / r.Hours
+	p := plot.New()
+	p.Title.Text = "Study: " + s.Name
+	if s.Plant != "" {
+		p.Title.Text += " (" + s.Plant + ")"
+	}
+	p.Y.Label.Text = fmt.Sprintf("boiler fuel saved against %q, t/yr", r.Variants[0].Name)
+	if math.Abs(r.Hours-hoursPerYear) > 1e-6 {
+		p.Y.Label.Text += fmt.Sprintf(" (%s h scaled)", fix(r.Hours, 0))
+	}
+	names := make([]string, len(r.Variants))
+	longest := 0
+	for i, v := range r.Variants {
+		names[i] = v.Name
+		longest = max(longest, len(v.Name))
+	}
+	p.NominalX(names...)
+	if len(names) > 3 || longest > 14 {
+		p.X.Tick.Label.Rotation = math.Pi / 8
+		p.X.Tick.Label.XAlign = draw.XRight
+		p.X.Tick.Label.YAlign = draw.YTop
+	}
+	p.Add(plotter.NewGrid())
+	barW := vg.Points(math.Max(16, math.Min(60, 420/float64(len(names)))))
+	var lo, hi float64
+	var labels plotter.XYLabels
+	for i, v := range r.Variants {
+		y := v.FuelSavedT * perYear
+		bc, err := plotter.NewBarChart(plotter.Values{y}, barW)
+		if err != nil {
+			return fmt.Errorf("plot: variant %q: %w", v.Name, err)
+		}
+		bc.XMin = float64(i)
+		switch {
+		case i == 0:
+			bc.Color = baseColor
+		case y < 0:
+			bc.Color = lossColor
+		default:
+			bc.Color = savedColor
+		}
+		bc.LineStyle.Width = 0
+		p.Add(bc)
+		lo, hi = min(lo, y), max(hi, y)
+		text := fix(y, 0) + " t/yr"
+		if i == 0 {
+			text = "base"
+		} else if r.FuelPrice > 0 && r.InstalledCost > 0 && v.CostSaved > 0 && !math.IsInf(v.PaybackYears, 0) {
+			text += "\npayback " + fix(v.PaybackYears, 1) + " yr"
+		}
+		labels.XYs = append(labels.XYs, plotter.XY{X: float64(i), Y: max(y, 0)})
+		labels.Labels = append(labels.Labels, text)
+	}
+	if !(hi > lo) {
+		hi = lo + 1
+	}
+	pad := (hi - lo) * 0.04
+	for i := range labels.XYs {
+		labels.XYs[i].Y += pad
+	}
+	lbl, err := plotter.NewLabels(labels)
+	if err != nil {
+		return fmt.Errorf("plot: labels: %w", err)
+	}
+	for i := range lbl.TextStyle {
+		lbl.TextStyle[i].XAlign = draw.XCenter
+		lbl.TextStyle[i].Font.Size = vg.Points(9)
+		lbl.TextStyle[i].Color = ink
+	}
+	p.Add(lbl)
+	p.X.Min, p.X.Max = -0.6, float64(len(names))-0.4
+	p.Y.Min = min(0, lo*1.1)
+	p.Y.Max = hi + (hi-lo)*0.22
+	p.Y.Tick.Marker = flowTicks{}
+	styleAxes(p)
+
+	width := vg.Length(math.Max(14, math.Min(36, 3.2*float64(len(names))+6))) * vg.Centimeter
+	height := 11 * vg.Centimeter
+	if p.X.Tick.Label.Rotation != 0 {
+		l := vg.Length(0)
+		for _, n := range names {
+			l = max(l, p.X.Tick.Label.Width(n))
+		}
+		height += l * vg.Length(math.Sin(p.X.Tick.Label.Rotation))
+	}
+	canvas, err := newCanvas(format, width, height)
+	if err != nil {
+		return err
+	}
+	p.Draw(draw.New(canvas))
+	_, err = canvas.WriteTo(w)
+	return err
+}
+
+// auditBand is the days' bands as error bars about the median.
+type auditBand struct{ x, y, lo, hi []float64 }
+
+func (b auditBand) Len() int                        { return len(b.x) }
+func (b auditBand) XY(i int) (float64, float64)     { return b.x[i], b.y[i] }
+func (b auditBand) YError(i int) (float64, float64) { return b.y[i] - b.lo[i], b.hi[i] - b.y[i] }
+
+// barThumb draws an error bar with its caps as a legend thumbnail.
+type barThumb struct{ draw.LineStyle }
+
+func (b barThumb) Thumbnail(c *draw.Canvas) {
+	x := (c.Min.X + c.Max.X) / 2
+	cap := (c.Max.X - c.Min.X) / 4
+	c.StrokeLine2(b.LineStyle, x, c.Min.Y, x, c.Max.Y)
+	c.StrokeLine2(b.LineStyle, x-cap, c.Min.Y, x+cap, c.Min.Y)
+	c.StrokeLine2(b.LineStyle, x-cap, c.Max.Y, x+cap, c.Max.Y)
+}
+
+// PlotAudit draws an audit in format (SVG or PNG) to w: for each day, in
+// the order of the log, the modelled band of its boiler fuel (from the low
+// to the high quantile, as an error bar), the median of the samples (a
+// line across the days) and the nominal figure (every uncertain input at
+// the middle of its range; a dashed line), in tonnes, with the fuel
+// claimed as a dot, red and ringed on a day flagged above or below the
+// band. The legend stands to the right.
+func PlotAudit(w io.Writer, format string, a Audit) error {
+	r := a.Result
+	if r == nil || len(r.Days) == 0 {
+		return fmt.Errorf("plot: audit %q has no days to draw", a.Name)
+	}
+	n := len(r.Days)
+	band := auditBand{x: make([]float64, n), y: make([]float64, n), lo: make([]float64, n), hi: make([]float64, n)}
+	median := make(plotter.XYs, n)
+	nominal := make(plotter.XYs, n)
+	var claimed, flagged plotter.XYs
+	dates := make([]string, n)
+	top := 0.0
+	for i, d := range r.Days {
+		x := float64(i)
+		band.x[i], band.y[i], band.lo[i], band.hi[i] = x, d.MedianT, min(d.LowT, d.MedianT), max(d.HighT, d.MedianT)
+		median[i] = plotter.XY{X: x, Y: d.MedianT}
+		nominal[i] = plotter.XY{X: x, Y: d.NominalT}
+		if d.Flag != "" {
+			flagged = append(flagged, plotter.XY{X: x, Y: d.ClaimedT})
+		} else {
+			claimed = append(claimed, plotter.XY{X: x, Y: d.ClaimedT})
+		}
+		dates[i] = d.Date
+		if dates[i] == "" {
+			dates[i] = "day " + fix(x+1, 0)
+		}
+		top = max(top, d.HighT, d.ClaimedT, d.NominalT)
+	}
+	if !(top > 0) {
+		top = 1
+	}
+	p := plot.New()
+	p.Title.Text = "Audit: " + a.Name
+	if a.Plant != "" {
+		p.Title.Text += " (" + a.Plant + ")"
+	}
+	p.Y.Label.Text = "boiler fuel of the day, t"
+	p.NominalX(dates...)
+	if n > 6 {
+		p.X.Tick.Label.Rotation = math.Pi / 4
+		p.X.Tick.Label.XAlign = draw.XRight
+		p.X.Tick.Label.YAlign = draw.YTop
+	}
+	p.Add(plotter.NewGrid())
+	var entries []legendEntry
+
+	eb, err := plotter.NewYErrorBars(band)
+	if err != nil {
+		return fmt.Errorf("plot: the band: %w", err)
+	}
+	eb.LineStyle.Color = bandColor
+	eb.LineStyle.Width = vg.Points(2)
+	eb.CapWidth = vg.Points(10)
+	p.Add(eb)
+	entries = append(entries, legendEntry{fmt.Sprintf("modelled band, %s %% to %s %%", fix(r.LowQ*100, 0), fix(r.HighQ*100, 0)),
+		[]plot.Thumbnailer{barThumb{eb.LineStyle}}})
+
+	ml, err := plotter.NewLine(median)
+	if err != nil {
+		return fmt.Errorf("plot: the median: %w", err)
+	}
+	ml.Color = medianColor
+	ml.Width = vg.Points(1.5)
+	p.Add(ml)
+	entries = append(entries, legendEntry{"median of the samples", []plot.Thumbnailer{ml}})
+	nl, err := plotter.NewLine(nominal)
+	if err != nil {
+		return fmt.Errorf("plot: the nominal: %w", err)
+	}
+	nl.Color = ink
+	nl.Width = vg.Points(0.8)
+	nl.Dashes = []vg.Length{vg.Points(4), vg.Points(3)}
+	p.Add(nl)
+	entries = append(entries, legendEntry{"nominal (inputs mid-range)", []plot.Thumbnailer{nl}})
+
+	if len(claimed) > 0 {
+		sc, err := plotter.NewScatter(claimed)
+		if err != nil {
+			return fmt.Errorf("plot: the claims: %w", err)
+		}
+		sc.Shape = draw.CircleGlyph{}
+		sc.Color = ink
+		sc.Radius = vg.Points(3.5)
+		p.Add(sc)
+		entries = append(entries, legendEntry{"fuel claimed, within the band", []plot.Thumbnailer{sc}})
+	}
+	if len(flagged) > 0 {
+		dot, err := plotter.NewScatter(flagged)
+		if err != nil {
+			return fmt.Errorf("plot: the flagged days: %w", err)
+		}
+		dot.Shape = draw.CircleGlyph{}
+		dot.Color = flaggedColor
+		dot.Radius = vg.Points(3.5)
+		ring, err := plotter.NewScatter(flagged)
+		if err != nil {
+			return fmt.Errorf("plot: the flagged days: %w", err)
+		}
+		ring.Shape = draw.RingGlyph{}
+		ring.Color = flaggedColor
+		ring.Radius = vg.Points(7)
+		p.Add(dot, ring)
+		entries = append(entries, legendEntry{"fuel claimed, flagged outside", []plot.Thumbnailer{ring, dot}})
+	}
+	p.Y.Min = 0
+	p.Y.Max = top * 1.1
+	p.X.Min, p.X.Max = -0.5, float64(n)-0.5
+	styleAxes(p)
+
+	legend, legW := sideLegend(entries)
+	plotW := vg.Length(math.Max(14, math.Min(36, 1.3*float64(n)+6))) * vg.Centimeter
+	width, height := plotW+legW, 11*vg.Centimeter
+	if p.X.Tick.Label.Rotation != 0 {
+		l := vg.Length(0)
+		for _, d := range dates {
+			l = max(l, p.X.Tick.Label.Width(d))
+		}
+		height += l * vg.Length(math.Sin(p.X.Tick.Label.Rotation))
+	}
+	canvas, err := newCanvas(format, width, height)
+	if err != nil {
+		return err
+	}
+	dc := draw.New(canvas)
+	p.Draw(draw.Crop(dc, 0, -legW, 0, 0))
+	legend.Draw(draw.Crop(dc, plotW+vg.Millimeter*3, 0, 0, 0))
+	_, err = canvas.WriteTo(w)
+	return err
+}

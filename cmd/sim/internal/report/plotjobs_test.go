@@ -1,0 +1,96 @@
+package report
+
+import (
+	"bytes"
+	"strings"
+	"testing"
+)
+
+// TestPlotJobs draws each job of a run in both formats. As with TestPlot,
+// the bytes are not compared (they depend on the plotting library's
+// version), only that a real file comes out with the job's name and the
+// figures' labels in it.
+func TestPlotJobs(t *testing.T) {
+	run := profileRun(t)
+	charts := Charts(run)
+	if len(charts) != 3 {
+		t.Fatalf("%d charts of a run with a voyage, a study and an audit, want 3", len(charts))
+	}
+	wants := [][]string{
+		{"Voyage: four periods", "Invented Test Tanker", "steam, kg/h", "fuel, kg/h", "hours from the start of the voyage",
+			"MCR of all boilers", "MCR of the boilers firing", "steam demand on the oil-fired boilers",
+			"period the plant cannot carry", "port", "discharge"},
+		{"Study: lagging", "as built", "better lagging", "t/yr", "base", "payback"},
+		{"Audit: three days", "2026-01-01", "2026-01-03", "modelled band, 5 % to 95 %", "median of the samples",
+			"fuel claimed, flagged outside", "boiler fuel of the day, t"},
+	}
+	for i, c := range charts {
+		if want := []string{"voyage", "study", "audit"}[i]; c.Kind != want || c.N != 1 {
+			t.Errorf("chart %d: %s %d, want %s 1", i, c.Kind, c.N, want)
+		}
+		var svg bytes.Buffer
+		must(t, c.Draw(&svg, SVG))
+		s := svg.String()
+		if !strings.HasPrefix(strings.TrimSpace(s), "<?xml") || !strings.Contains(s, "<svg") {
+			t.Fatalf("%s: not an SVG: %.80q", c.Kind, s)
+		}
+		for _, w := range wants[i] {
+			if !strings.Contains(s, w) {
+				t.Errorf("the %s chart does not contain %q", c.Kind, w)
+			}
+		}
+		if strings.Contains(s, "NaN") {
+			t.Errorf("the %s chart has NaN in it", c.Kind)
+		}
+		var png bytes.Buffer
+		must(t, c.Draw(&png, PNG))
+		if !bytes.HasPrefix(png.Bytes(), []byte("\x89PNG\r\n\x1a\n")) || png.Len() < 1000 {
+			t.Errorf("%s: not a PNG of any size: %d bytes", c.Kind, png.Len())
+		}
+		if err := c.Draw(&png, "pdf"); err == nil {
+			t.Errorf("%s: format pdf accepted", c.Kind)
+		}
+	}
+	// The cases come first, then the jobs, numbered by kind.
+	run.Cases = demoCases(t)
+	run.Voyages = append(run.Voyages, run.Voyages[0])
+	var got []string
+	for _, c := range Charts(run) {
+		got = append(got, c.Kind+" "+string(rune('0'+c.N)))
+	}
+	if strings.Join(got, ", ") != "cases 0, voyage 1, voyage 2, study 1, audit 1" {
+		t.Errorf("charts %v", got)
+	}
+	if len(Charts(Run{})) != 0 {
+		t.Error("an empty run has charts")
+	}
+}
+
+// TestPlotJobsEmpty checks that a job without rows is refused with an
+// error naming it, not drawn as an empty frame or a panic.
+func TestPlotJobsEmpty(t *testing.T) {
+	var b bytes.Buffer
+	for _, err := range []error{
+		PlotVoyage(&b, SVG, Voyage{Job: Job{Name: "v"}}),
+		PlotStudy(&b, SVG, Study{Job: Job{Name: "s"}}),
+		PlotAudit(&b, SVG, Audit{Job: Job{Name: "a"}}),
+	} {
+		if err == nil || !strings.Contains(err.Error(), "to draw") {
+			t.Errorf("an empty job: %v", err)
+		}
+	}
+}
+
+// TestHourTicks checks the steps of the hours axis: a day for two weeks,
+// whole hours for a short plan, and a month for a year.
+func TestHourTicks(t *testing.T) {
+	for _, c := range []struct {
+		hi   float64
+		step float64
+	}{{336, 24}, {10, 1}, {36, 3}, {8760, 720}} {
+		ticks := hourTicks{}.Ticks(0, c.hi)
+		if len(ticks) < 2 || ticks[1].Value-ticks[0].Value != c.step || len(ticks) > 15 {
+			t.Errorf("0 to %g h: %d ticks, step %g; want step %g", c.hi, len(ticks), ticks[1].Value-ticks[0].Value, c.step)
+		}
+	}
+}
