@@ -133,8 +133,12 @@ func (l *Line) state(p, h float64) (LineResult, error) {
 		}
 		*m = satMemo{p: p, tSat: ts, hf: hf, hg: hg, set: true}
 	}
+	// A line within a part in 1e9 of a saturation enthalpy is reported as
+	// saturated liquid or vapour, so that the last bit of a solve does not
+	// flip its phase (dry saturated steam sits exactly on h_g).
+	tol := 1e-9 * m.hg
 	switch {
-	case h > m.hf && h < m.hg:
+	case h > m.hf+tol && h < m.hg-tol:
 		r.T, r.X, r.Phase, r.TwoPhase = m.tSat, (h-m.hf)/(m.hg-m.hf), water.TwoPhase.String(), true
 		return r, nil
 	case h <= m.hf:

@@ -464,6 +464,10 @@ func (p *Plant) report(cr *CaseResult) error {
 	cr.Iterations = p.slvRes.Stats.Iterations
 	cr.ResidualNorm = p.slvRes.ResidualNorm
 	cr.Solves = p.solves
+	cr.Units = make([]UnitResult, 0, len(p.units))
+	cr.Consumers = make([]ConsumerResult, 0, len(p.units))
+	cr.Boilers = make([]BoilerResult, 0, len(p.boilers))
+	cr.Lines = make([]LineResult, 0, len(p.lines))
 	for _, u := range p.units {
 		if err := u.report(ev, cr); err != nil {
 			return err
