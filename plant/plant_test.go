@@ -507,3 +507,20 @@ func TestEmptyPlant(t *testing.T) {
 		t.Errorf("lone make-up: %v", err)
 	}
 }
+
+func TestLeadLagSharing(t *testing.T) {
+	// Lead-lag (common practice, no source): the lead boiler holds its set
+	// load and the other takes the rest.
+	p := twoBoilers(t, Options{Sharing: LeadLag, LeadLoad: 0.7})
+	cr, err := p.Solve(context.Background(), demandCase("both", 12000))
+	must(t, err)
+	if cr.BoilersFiring != 2 {
+		t.Fatalf("%d boilers fire, want 2", cr.BoilersFiring)
+	}
+	within(t, "lead load", cr.Boilers[0].LoadFraction, 0.7, 1e-9)
+	want := cr.SteamProductionKgS - cr.Boilers[0].SteamKgS
+	within(t, "lag steam", cr.Boilers[1].SteamKgS, want, 1e-9)
+	if cr.Balance.MassRel > 1e-9 || cr.Balance.EnergyRel > 1e-6 {
+		t.Errorf("balances %+v", cr.Balance)
+	}
+}
