@@ -53,9 +53,16 @@ from its own folder and the folders below it.
 The report is a table for people unless --json or --csv asks for a form for
 programs: --json prints one JSON document (schema 1: the caution, the plant,
 every case with its figures and every voyage, study and audit, each key
-naming its unit), --csv one row per load case with the main figures under
-a header naming their units. -o writes the report to a file instead of
-standard output.
+naming its unit), --csv tables of comma-separated values under headers
+naming their units: the load cases, one row each with the main figures,
+then the rows of the voyages (each period's conditions, boilers firing,
+steam, fuel and CO2), the variants of the studies (fuel, savings, payback)
+and the days of the audits (claimed, nominal and band). Each table starts
+with a header row whose first field is "table"; its rows carry the
+table's name there ("cases", "voyage rows", "study variants" or "audit
+days"), and a blank line separates two tables. The cases table always
+comes first; a job's table only when the run has such a job. -o writes the
+report to a file instead of standard output.
 
 --plot FILE also draws what the run solved, as an SVG or PNG image chosen
 by the file name's extension: the load cases on one chart (the steam
@@ -125,7 +132,7 @@ func (a *runArgs) flagSet(name string) *flag.FlagSet {
 	fs := flag.NewFlagSet(name, flag.ContinueOnError)
 	if name == "run" {
 		fs.BoolVar(&a.json, "json", false, "print the report as one JSON document")
-		fs.BoolVar(&a.csv, "csv", false, "print the report as CSV, one row per load case")
+		fs.BoolVar(&a.csv, "csv", false, "print the report as CSV tables: the cases, then the rows of voyages,\nthe variants of studies and the days of audits, a blank line between")
 		fs.StringVar(&a.plot, "plot", "", "also draw the cases and each voyage, study and audit in `FILE`,\nan SVG or PNG image by the name's extension (.svg, .png); with\nseveral charts, one file each: FILE-cases.svg, FILE-voyage-1.svg, ...")
 		fs.StringVar(&a.out, "o", "", "write the report to `FILE` instead of standard output")
 	}

@@ -88,7 +88,8 @@ func TestRunForms(t *testing.T) {
 		t.Fatalf("--csv: exit %d, stderr %q", code, errOut)
 	}
 	rows, err := csv.NewReader(strings.NewReader(out)).ReadAll()
-	if err != nil || len(rows) != 5 || rows[0][0] != "case" || rows[1][0] != "port stay" || rows[4][0] != "cold discharge" {
+	if err != nil || len(rows) != 5 || rows[0][0] != "table" || rows[0][1] != "case" || rows[1][0] != "cases" ||
+		rows[1][1] != "port stay" || rows[4][1] != "cold discharge" {
 		t.Errorf("--csv of two scripts: %v rows %q", err, rows)
 	}
 	if errOut != cautionLine+"\n" {
@@ -299,6 +300,15 @@ func TestRunVoyage(t *testing.T) {
 	if err := json.Unmarshal([]byte(out), &doc); err != nil || code != exitOK || len(doc.Voyages) != 1 ||
 		doc.Voyages[0].Total.Hours != 36 || len(doc.Voyages[0].Phases) != 2 || doc.Voyages[0].Phases[1].Phase != "passage" {
 		t.Errorf("--json: exit %d, %v, %+v", code, err, doc)
+	}
+	// The CSV: the cases' header alone (no case), a blank line, then the
+	// voyage's rows.
+	code, out, _ = runSim(t, "run", "--quiet", "--csv", script)
+	tables := strings.Split(out, "\n\n")
+	if code != exitOK || len(tables) != 2 || !strings.HasPrefix(tables[0], "table,case,plant,") ||
+		!strings.HasPrefix(tables[1], "table,voyage,row,source,phase,") ||
+		!strings.Contains(tables[1], "\nvoyage rows,short trip,2,testdata/run/voyage.lua:4,passage,") {
+		t.Errorf("--csv of a voyage: exit %d:\n%s", code, out)
 	}
 	// The chart of the voyage: one job, so the file named.
 	svg := filepath.Join(t.TempDir(), "v.svg")

@@ -150,4 +150,18 @@
 // fractions).
 //
 // Numbers are rounded to six significant digits.
+//
+// # CSV tables
+//
+// CSV writes several tables in one stream, by one rule: each table starts
+// with a header row whose first field is "table" and whose other fields
+// name the columns with their units; each data row carries the table's
+// name in its first field ("cases", "voyage rows", "study variants",
+// "audit days"); one blank line separates two tables. The cases table
+// always comes first (its header alone when no case was solved); the
+// others follow in that order when the run has such a job, each holding
+// every job of its kind, named in its second column. The columns, units
+// and decimals of each table are listed in CSV's doc comment. A program
+// reads the stream with a CSV reader that accepts records of different
+// lengths, or picks the lines of one table by their first field.
 package report

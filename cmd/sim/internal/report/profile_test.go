@@ -3,6 +3,8 @@ package report
 import (
 	"bytes"
 	"context"
+	"encoding/csv"
+	"math"
 	"strconv"
 	"strings"
 	"testing"
@@ -112,5 +114,168 @@ func TestProfileTable(t *testing.T) {
 	}
 	if d := sum - v.Total.FuelT; d > 1e-9*v.Total.FuelT || d < -1e-9*v.Total.FuelT {
 		t.Errorf("phases' fuel %g t, whole voyage %g t", sum, v.Total.FuelT)
+	}
+}
+
+// readTables reads the CSV stream of a run into its tables by name, each
+// a header and rows, checking the rule of the stream: a blank line between
+// tables, a header whose first field is "table", data rows whose first
+// field names the table.
+func readTables(t *testing.T, text string) (order []string, tables map[string][][]string) {
+	t.Helper()
+	tables = map[string][][]string{}
+	for i, block := range strings.Split(text, "\n\n") {
+		r := csv.NewReader(strings.NewReader(block))
+		recs, err := r.ReadAll()
+		if err != nil {
+			t.Fatalf("table %d: %v", i+1, err)
+		}
+		if len(recs) == 0 || recs[0][0] != "table" {
+			t.Fatalf("table %d does not start with a header whose first field is \"table\": %q", i+1, recs)
+		}
+		name := TableCases
+		if len(recs) > 1 {
+			name = recs[1][0]
+		}
+		for _, rec := range recs[1:] {
+			if rec[0] != name {
+				t.Errorf("table %q has a row of %q", name, rec[0])
+			}
+		}
+		order = append(order, name)
+		tables[name] = recs
+	}
+	return order, tables
+}
+
+// TestCSVJobs reads the CSV of a run with cases and jobs back and checks
+// each job's figures against the results they came from, in the units the
+// headers name (1 kg/s = 3600 kg/h, 1 t = 1000 kg, °C = K − 273.15, exact
+// by definition), to the decimals written.
+func TestCSVJobs(t *testing.T) {
+	run := profileRun(t)
+	run.Cases = demoCases(t)
+	var b bytes.Buffer
+	must(t, CSV(&b, run))
+	order, tables := readTables(t, b.String())
+	if strings.Join(order, "|") != "cases|voyage rows|study variants|audit days" {
+		t.Fatalf("tables %q", order)
+	}
+	get := func(table string, i int, key string) string {
+		t.Helper()
+		recs := tables[table]
+		for k, h := range recs[0] {
+			if h == key {
+				return recs[i+1][k]
+			}
+		}
+		t.Fatalf("table %q has no column %q", table, key)
+		return ""
+	}
+	num := func(table string, i int, key string, want, tol float64) {
+		t.Helper()
+		s := get(table, i, key)
+		got, err := strconv.ParseFloat(s, 64)
+		if err != nil || math.Abs(got-want) > tol {
+			t.Errorf("%s row %d: %s = %q, want %.6g ± %g", table, i+1, key, s, want, tol)
+		}
+	}
+	if n := len(tables[TableCases]) - 1; n != len(run.Cases) {
+		t.Errorf("%d case rows, want %d", n, len(run.Cases))
+	}
+
+	v := run.Voyages[0]
+	if n := len(tables[TableVoyage]) - 1; n != len(v.Result.Rows) {
+		t.Fatalf("%d voyage rows, want %d", n, len(v.Result.Rows))
+	}
+	var fuel float64
+	for i, row := range v.Result.Rows {
+		c := row.Result
+		if get(TableVoyage, i, "voyage") != v.Name || get(TableVoyage, i, "phase") != row.Phase ||
+			get(TableVoyage, i, "case") != c.Name || get(TableVoyage, i, "source") != v.Rows[i] ||
+			get(TableVoyage, i, "can_carry") != strconv.FormatBool(c.CanCarry) {
+			t.Errorf("voyage row %d: %q", i+1, tables[TableVoyage][i+1])
+		}
+		num(TableVoyage, i, "row", float64(i+1), 0)
+		num(TableVoyage, i, "hours", row.Hours, 0.005)
+		num(TableVoyage, i, "sea_T_C", c.Conditions.SeaT-273.15, 0.05)
+		num(TableVoyage, i, "air_T_C", c.Conditions.AirT-273.15, 0.05)
+		num(TableVoyage, i, "engine_load_pct", c.Conditions.EngineLoad*100, 0.05)
+		num(TableVoyage, i, "boilers_firing", float64(c.BoilersFiring), 0)
+		num(TableVoyage, i, "steam_demand_kg_h", c.SteamDemandKgS*3600, 0.05)
+		num(TableVoyage, i, "fuel_kg_h", c.FuelKgS*3600, 0.05)
+		num(TableVoyage, i, "fuel_t", c.FuelKgS*row.Hours*3600/1000, 0.0005)
+		num(TableVoyage, i, "co2_t", c.CO2KgS*row.Hours*3600/1000, 0.0005)
+		num(TableVoyage, i, "warnings", float64(len(c.Warnings)), 0)
+		fuel += c.FuelKgS * row.Hours * 3.6
+	}
+	// The rows' fuel adds up to the voyage's total (profile.Totals).
+	if math.Abs(fuel-v.Result.Total.FuelT) > 1e-9*v.Result.Total.FuelT {
+		t.Errorf("rows' fuel %g t, total %g t", fuel, v.Result.Total.FuelT)
+	}
+
+	s := run.Studies[0].Result
+	for i, x := range s.Variants {
+		if get(TableStudy, i, "study") != "lagging" || get(TableStudy, i, "variant") != x.Name || get(TableStudy, i, "currency") != "EUR" {
+			t.Errorf("study row %d: %q", i+1, tables[TableStudy][i+1])
+		}
+		num(TableStudy, i, "hours", s.Hours, 0.005)
+		num(TableStudy, i, "fuel_t", x.Totals.FuelT, 0.0005)
+		num(TableStudy, i, "fuel_saved_t", x.FuelSavedT, 0.0005)
+		num(TableStudy, i, "co2_avoided_t", x.CO2AvoidedT, 0.0005)
+		num(TableStudy, i, "cost_saved", x.CostSaved, 0.005)
+		num(TableStudy, i, "hours_below_min_gas_T", x.HoursBelowMinGasT, 0.005)
+	}
+	if p := get(TableStudy, 0, "payback_years"); p != "" {
+		t.Errorf("the base variant has a payback %q", p)
+	}
+	if x := s.Variants[1]; x.CostSaved > 0 {
+		num(TableStudy, 1, "payback_years", x.PaybackYears, 0.005)
+	} else if p := get(TableStudy, 1, "payback_years"); p != "" {
+		t.Errorf("a variant that saves nothing has a payback %q", p)
+	}
+
+	a := run.Audits[0]
+	for i, d := range a.Result.Days {
+		if get(TableAudit, i, "audit") != a.Name || get(TableAudit, i, "date") != d.Date || get(TableAudit, i, "flag") != d.Flag ||
+			get(TableAudit, i, "source") != a.Rows[i] {
+			t.Errorf("audit row %d: %q", i+1, tables[TableAudit][i+1])
+		}
+		num(TableAudit, i, "claimed_t", d.ClaimedT, 0.0005)
+		num(TableAudit, i, "nominal_t", d.NominalT, 0.0005)
+		num(TableAudit, i, "low_t", d.LowT, 0.0005)
+		num(TableAudit, i, "median_t", d.MedianT, 0.0005)
+		num(TableAudit, i, "high_t", d.HighT, 0.0005)
+	}
+
+	// Only the cases: one table. Only a voyage: the cases' header alone,
+	// then the voyage's rows.
+	b.Reset()
+	must(t, CSV(&b, Run{Cases: run.Cases}))
+	if order, _ := readTables(t, b.String()); len(order) != 1 {
+		t.Errorf("a run of cases: tables %q", order)
+	}
+	b.Reset()
+	must(t, CSV(&b, Run{Voyages: run.Voyages}))
+	if !strings.HasPrefix(b.String(), strings.Join(csvHeader[:], ",")+"\n\ntable,voyage,") {
+		t.Errorf("a run of a voyage: %.200q", b.String())
+	}
+	// Go's reader takes the whole stream when told records vary in length.
+	r := csv.NewReader(strings.NewReader(b.String()))
+	r.FieldsPerRecord = -1
+	if recs, err := r.ReadAll(); err != nil || len(recs) != 2+len(v.Result.Rows) {
+		t.Errorf("the stream read whole: %d records, %v", len(recs), err)
+	}
+}
+
+// TestCSVGolden pins the CSV stream of a run with cases and jobs. Rewrite
+// with: go test ./cmd/sim/internal/report -update
+func TestCSVGolden(t *testing.T) {
+	run := profileRun(t)
+	run.Cases = demoCases(t)[:2]
+	var b bytes.Buffer
+	must(t, CSV(&b, run))
+	if want := golden(t, "csv_profile.golden", b.Bytes()); !bytes.Equal(b.Bytes(), want) {
+		t.Errorf("csv_profile.golden differs:\n--- got\n%s\n--- want\n%s", b.String(), want)
 	}
 }

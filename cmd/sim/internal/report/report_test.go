@@ -261,7 +261,7 @@ func TestCSV(t *testing.T) {
 				t.Errorf("case %q: %s = %q, want %.6g ± %g", r.Name, key, row[col[key]], want, tol)
 			}
 		}
-		if row[col["case"]] != r.Name || row[col["plant"]] != c.Plant {
+		if row[col["table"]] != TableCases || row[col["case"]] != r.Name || row[col["plant"]] != c.Plant {
 			t.Errorf("row %d names %q on %q", i+1, row[col["case"]], row[col["plant"]])
 		}
 		num("sea_T_C", r.Conditions.SeaT-273.15, 0.05)
