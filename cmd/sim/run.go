@@ -13,7 +13,6 @@ import (
 	"time"
 
 	"github.com/rs/zerolog"
-	"golang.org/x/term"
 
 	"steamcase/cmd/sim/internal/report"
 	"steamcase/scripting"
@@ -80,7 +79,11 @@ the scripts in order (demand.svg gives demand-cases.svg,
 demand-voyage-1.svg, ...), and lists them on standard error.
 
 What the scripts print, and the solver's messages with -v, go to standard
-error; --quiet leaves only errors. An error in a script is printed as
+error; --quiet leaves only errors. When standard error is a terminal, and
+without --quiet, the progress of each voyage, study and audit is shown
+there on one line redrawn in place a few times a second: the rows (an
+audit's days; a study's rows times its variants) done of all, the share,
+the rate and the time left at that rate, and the time taken when done. An error in a script is printed as
 "file:line: message" and sim exits with status 1. So does a failed check(),
 after the report of the cases solved before it, so that the figures it
 tested can be seen. A script that runs longer than --timeout is stopped.
@@ -139,7 +142,7 @@ func (a *runArgs) flagSet(name string) *flag.FlagSet {
 	a.timeout = 10 * time.Second
 	fs.Var((*durationFlag)(&a.timeout), "timeout", "stop a script that runs longer than `DURATION`, such as 10s or 2m (default 10s)")
 	fs.BoolVar(&a.verbose, "v", false, "log more: the solver's records as well as the scripts' messages")
-	fs.BoolVar(&a.quiet, "quiet", false, "log errors only")
+	fs.BoolVar(&a.quiet, "quiet", false, "log errors only (and, for run, show no progress)")
 	return fs
 }
 
@@ -203,9 +206,15 @@ func (a *runArgs) parse(name string, args []string) ([]string, error) {
 // newLogger logs to w: readable lines when w is a terminal, JSON lines
 // otherwise; at debug level with -v, errors only with --quiet.
 func newLogger(w io.Writer, a *runArgs) zerolog.Logger {
+	_, tty := terminalFd(w)
+	return loggerOn(w, tty, a)
+}
+
+// loggerOn logs to w, as readable lines if console is set.
+func loggerOn(w io.Writer, console bool, a *runArgs) zerolog.Logger {
 	out := w
-	if f, ok := w.(*os.File); ok && term.IsTerminal(int(f.Fd())) {
-		out = zerolog.ConsoleWriter{Out: f, TimeFormat: "15:04:05"}
+	if console {
+		out = zerolog.ConsoleWriter{Out: w, TimeFormat: "15:04:05"}
 	}
 	level := zerolog.InfoLevel
 	switch {
@@ -266,9 +275,19 @@ func runRun(ctx context.Context, e env, args []string) error {
 // runScripts runs the scripts in turn and writes one report of their
 // cases, preceded by the line first if it is not empty.
 func runScripts(ctx context.Context, e env, a *runArgs, runners []scriptRunner, first string) error {
+	// On a terminal, unless --quiet, the jobs' progress is one line
+	// redrawn in place, which the log records share.
+	var meter *progressMeter
 	log := newLogger(e.stderr, a)
+	if fd, tty := terminalFd(e.stderr); tty && !a.quiet {
+		meter = newProgressMeter(e.stderr, fd)
+		log = loggerOn(meter, true, a)
+	}
 	opt := scripting.Options{Timeout: a.timeout, Logger: log}
-	if a.verbose {
+	switch {
+	case meter != nil:
+		opt.Progress = meter.update
+	case a.verbose:
 		opt.Progress = func(job string, done, total int) {
 			log.Debug().Str("job", job).Int("done", done).Int("total", total).Msg("progress")
 		}
@@ -287,12 +306,18 @@ func runScripts(ctx context.Context, e env, a *runArgs, runners []scriptRunner, 
 		if err != nil {
 			var ae *scripting.AssertionError
 			if !errors.As(err, &ae) {
+				if meter != nil {
+					meter.finish()
+				}
 				return writeScriptError(e.stderr, err)
 			}
 			// A failed check: report what was solved, then the failure.
 			failed = err
 			break
 		}
+	}
+	if meter != nil {
+		meter.finish()
 	}
 	if err := writeReport(e, a, all, first); err != nil {
 		return err
