@@ -351,6 +351,29 @@ func (hourTicks) Ticks(lo, hi float64) []plot.Tick {
 	return ticks
 }
 
+// decimalTicks marks an axis at a round step (1, 2 or 5 times a power of
+// ten) giving five to ten marks, labelled with the decimals the step needs.
+type decimalTicks struct{}
+
+func (decimalTicks) Ticks(lo, hi float64) []plot.Tick {
+	if !(hi > lo) {
+		return []plot.Tick{{Value: lo, Label: fix(lo, 0)}}
+	}
+	step := math.Pow(10, math.Floor(math.Log10((hi-lo)/5)))
+	for _, m := range []float64{1, 2, 5, 10} {
+		if (hi-lo)/(step*m) <= 10 {
+			step *= m
+			break
+		}
+	}
+	dec := max(0, int(-math.Floor(math.Log10(step)+1e-9)))
+	var ticks []plot.Tick
+	for k := math.Ceil(lo/step - 1e-9); k*step <= hi+step*1e-9; k++ {
+		ticks = append(ticks, plot.Tick{Value: k * step, Label: fix(k*step, dec)})
+	}
+	return ticks
+}
+
 // hoursPerYear is the year the study's savings are scaled to.
 const hoursPerYear = 8760
 
@@ -591,6 +614,7 @@ func PlotAudit(w io.Writer, format string, a Audit) error {
 	p.Y.Min = 0
 	p.Y.Max = top * 1.1
 	p.X.Min, p.X.Max = -0.5, float64(n)-0.5
+	p.Y.Tick.Marker = decimalTicks{}
 	styleAxes(p)
 
 	legend, legW := sideLegend(entries)

@@ -94,3 +94,25 @@ func TestHourTicks(t *testing.T) {
 		}
 	}
 }
+
+// TestDecimalTicks checks the labels of the audit's axis of tonnes: round
+// steps, with the decimals the step needs and no more.
+func TestDecimalTicks(t *testing.T) {
+	for _, c := range []struct {
+		lo, hi float64
+		want   string
+	}{
+		{0, 14, "0 2 4 6 8 10 12 14"},
+		{0, 0.7, "0.0 0.1 0.2 0.3 0.4 0.5 0.6 0.7"},
+		{0, 0.03, "0.000 0.005 0.010 0.015 0.020 0.025 0.030"},
+		{0, 120, "0 20 40 60 80 100 120"},
+	} {
+		var labels []string
+		for _, tk := range (decimalTicks{}).Ticks(c.lo, c.hi) {
+			labels = append(labels, tk.Label)
+		}
+		if got := strings.Join(labels, " "); got != c.want {
+			t.Errorf("%g to %g: %q, want %q", c.lo, c.hi, got, c.want)
+		}
+	}
+}
