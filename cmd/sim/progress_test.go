@@ -134,3 +134,10 @@ func TestNoProgressWhenNotATerminal(t *testing.T) {
 		t.Errorf("progress drawn on a buffer: %q", s)
 	}
 }
+
+func BenchmarkFormatProgress(b *testing.B) {
+	b.ReportAllocs()
+	for b.Loop() {
+		_ = formatProgress(`voyage "ballast leg"`, 120, 500, 3400*time.Millisecond, 120)
+	}
+}

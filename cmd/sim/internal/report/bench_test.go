@@ -3,6 +3,9 @@ package report
 import (
 	"io"
 	"testing"
+
+	"steamcase/plant"
+	"steamcase/plant/profile"
 )
 
 // The renderers run once per run, not in a solve's inner loop; these
@@ -50,4 +53,65 @@ func BenchmarkPlotSVG(b *testing.B) {
 		}
 	}
 	b.ReportMetric(float64(len(cases)), "cases/op")
+}
+
+// longVoyage repeats the four periods of profileRun's voyage 100 times:
+// a plan of 400 rows, as a two-week plan in hourly steps would be.
+func longVoyage(b *testing.B) Voyage {
+	v := profileRun(b).Voyages[0]
+	var rows []profile.Row
+	var res []*plant.CaseResult
+	for range 100 {
+		for _, r := range v.Result.Rows {
+			rows = append(rows, profile.Row{Phase: r.Phase, Hours: r.Hours})
+			res = append(res, r.Result)
+		}
+	}
+	v.Result = profile.Sum(rows, res)
+	return v
+}
+
+func BenchmarkPlotVoyageSVG(b *testing.B) {
+	v := longVoyage(b)
+	b.ReportAllocs()
+	for b.Loop() {
+		if err := PlotVoyage(io.Discard, SVG, v); err != nil {
+			b.Fatal(err)
+		}
+	}
+	b.ReportMetric(float64(len(v.Result.Rows)), "rows/op")
+}
+
+func BenchmarkPlotStudySVG(b *testing.B) {
+	s := profileRun(b).Studies[0]
+	b.ReportAllocs()
+	for b.Loop() {
+		if err := PlotStudy(io.Discard, SVG, s); err != nil {
+			b.Fatal(err)
+		}
+	}
+	b.ReportMetric(float64(len(s.Result.Variants)), "variants/op")
+}
+
+func BenchmarkPlotAuditSVG(b *testing.B) {
+	a := profileRun(b).Audits[0]
+	b.ReportAllocs()
+	for b.Loop() {
+		if err := PlotAudit(io.Discard, SVG, a); err != nil {
+			b.Fatal(err)
+		}
+	}
+	b.ReportMetric(float64(len(a.Result.Days)), "days/op")
+}
+
+func BenchmarkCSVJobs(b *testing.B) {
+	run := profileRun(b)
+	run.Voyages[0] = longVoyage(b)
+	b.ReportAllocs()
+	for b.Loop() {
+		if err := CSV(io.Discard, run); err != nil {
+			b.Fatal(err)
+		}
+	}
+	b.ReportMetric(float64(len(run.Voyages[0].Result.Rows)), "voyage-rows/op")
 }
