@@ -3,6 +3,7 @@ package solver
 import (
 	"fmt"
 	"math"
+	"slices"
 
 	"gonum.org/v1/gonum/mat"
 )
@@ -30,7 +31,17 @@ import (
 // search) is kept and reused in the next factorisation for as long as the
 // structure of A and the pivot rows stay the same, which on a sequence of
 // Newton iterations they mostly do; the factors are bit for bit those of
-// a fresh factorisation.
+// a fresh factorisation. After SetPattern the structure of A is the
+// pattern itself, entries that happen to be zero included, so only a
+// change of pivot row makes the symbolic part be found again.
+//
+// The arithmetic does not depend on the structure: the updates of
+// L \ A(:,k) are applied in the order of the pivot steps, ties between
+// candidate pivots go to the lowest row, and each column of L and U is
+// kept in that order, so entries that are zero (explicit zeros of a
+// pattern, or structural zeros the full scan drops) change no nonzero
+// value of the factors, of a solve or of the condition estimate and
+// bound, as long as the values are finite.
 //
 // After the first factorisation of a given fill, SparseLU allocates
 // nothing. The zero value is ready to use.
@@ -58,13 +69,20 @@ type SparseLU struct {
 	pn     int   // order of the pattern; 0 without one
 	pp, pr []int // the pattern in compressed columns (rows ascending)
 
+	// The structure found by the full scan (without a pattern), of this
+	// factorisation and of the last, for comparison. With a pattern
+	// ap, ai are pp, pr.
+	sp, si   []int
+	sp0, si0 []int
+
 	// The symbolic part of the last factorisation, reused while nothing
-	// changes it: the structure of A (ap0, ai0), the reach of each column
-	// (rr[rp[k]:rp[k+1]], in topological order) and each step's pivot row.
-	ap0, ai0 []int
-	rp, rr   []int
-	piv      []int
-	symOK    bool
+	// changes it: the reach of each column (rr[rp[k]:rp[k+1]], in the
+	// order of sortReach) and each step's pivot row. symOK is cleared by
+	// SetPattern; without a pattern the structure of A is compared too.
+	rp, rr  []int
+	piv     []int
+	symOK   bool
+	dfsCols int // columns whose reach was searched, not reused (for tests)
 }
 
 // SetPattern implements PatternFactorizer: from now on Factorize reads
@@ -75,6 +93,9 @@ type SparseLU struct {
 // scan. It panics if the pattern does not have n rows or lists a column
 // outside [0, n).
 func (s *SparseLU) SetPattern(n int, pattern [][]int) {
+	if pattern != nil || s.pp != nil {
+		s.symOK = false // the structure of A changes
+	}
 	if pattern == nil {
 		s.pn, s.pp, s.pr = 0, nil, nil
 		return
@@ -135,7 +156,8 @@ func (s *SparseLU) Factorize(j *mat.Dense) error {
 		s.y = make([]float64, n)
 		s.z = make([]float64, n)
 		s.w = make([]float64, n)
-		s.ap0 = make([]int, n+1)
+		s.sp = make([]int, n+1)
+		s.sp0 = make([]int, n+1)
 		s.rp = make([]int, n+1)
 		s.piv = make([]int, n)
 		s.symOK = false
@@ -145,37 +167,45 @@ func (s *SparseLU) Factorize(j *mat.Dense) error {
 	s.condDone = true
 	// Compressed columns of A, and its 1-norm.
 	raw := j.RawMatrix()
-	s.ap, s.ap0 = s.ap0, s.ap // keep the last structure for comparison
-	s.ai, s.ai0 = s.ai0, s.ai
-	s.ai, s.ax = s.ai[:0], s.ax[:0]
 	s.anorm = 0
-	if s.pp != nil && s.pn != n {
-		panic(fmt.Sprintf("solver: SparseLU.Factorize of order %d with a pattern of order %d", n, s.pn))
-	}
-	for col := 0; col < n; col++ {
-		s.ap[col] = len(s.ai)
-		sum := 0.0
-		if s.pp != nil {
+	if s.pp != nil {
+		// The pattern is the structure, zeros included: it never changes.
+		if s.pn != n {
+			panic(fmt.Sprintf("solver: SparseLU.Factorize of order %d with a pattern of order %d", n, s.pn))
+		}
+		s.ap, s.ai = s.pp, s.pr
+		if cap(s.ax) < len(s.pr) {
+			s.ax = make([]float64, len(s.pr))
+		}
+		s.ax = s.ax[:len(s.pr)]
+		for col := 0; col < n; col++ {
+			sum := 0.0
 			for p := s.pp[col]; p < s.pp[col+1]; p++ {
-				row := s.pr[p]
-				if v := raw.Data[row*raw.Stride+col]; v != 0 {
-					s.ai = append(s.ai, row)
-					s.ax = append(s.ax, v)
-					sum += math.Abs(v)
-				}
+				v := raw.Data[s.pr[p]*raw.Stride+col]
+				s.ax[p] = v
+				sum += math.Abs(v)
 			}
-		} else {
+			s.anorm = math.Max(s.anorm, sum)
+		}
+	} else {
+		s.sp, s.sp0 = s.sp0, s.sp // keep the last structure for comparison
+		s.si, s.si0 = s.si0, s.si
+		s.si, s.ax = s.si[:0], s.ax[:0]
+		for col := 0; col < n; col++ {
+			s.sp[col] = len(s.si)
+			sum := 0.0
 			for row := 0; row < n; row++ {
 				if v := raw.Data[row*raw.Stride+col]; v != 0 {
-					s.ai = append(s.ai, row)
+					s.si = append(s.si, row)
 					s.ax = append(s.ax, v)
 					sum += math.Abs(v)
 				}
 			}
+			s.anorm = math.Max(s.anorm, sum)
 		}
-		s.anorm = math.Max(s.anorm, sum)
+		s.sp[n] = len(s.si)
+		s.ap, s.ai = s.sp, s.si
 	}
-	s.ap[n] = len(s.ai)
 
 	tol := s.DiagTol
 	if tol <= 0 || tol > 1 {
@@ -190,14 +220,16 @@ func (s *SparseLU) Factorize(j *mat.Dense) error {
 	// on the structure of L and the pivots of the steps before k, so it
 	// is taken from the last factorisation as long as those are the same;
 	// from the first difference on it is found again by depth-first
-	// search (Gilbert and Peierls 1988).
+	// search (Gilbert and Peierls 1988). With a pattern the structure of
+	// A is always the same.
 	same := s.symOK
+	scan := s.pp == nil
 	s.symOK = false
 	s.rp[0] = 0
 	for k := 0; k < n; k++ {
 		s.lp[k] = len(s.li)
 		s.up[k] = len(s.ui)
-		if same && !s.sameColumn(k) {
+		if same && scan && !s.sameColumn(k) {
 			same = false
 		}
 		var top int
@@ -207,6 +239,8 @@ func (s *SparseLU) Factorize(j *mat.Dense) error {
 			copy(s.xi[top:n], r)
 		} else {
 			top = s.reach(k)
+			s.sortReach(top)
+			s.dfsCols++
 			s.rr = append(s.rr[:s.rp[k]], s.xi[top:n]...)
 			s.rp[k+1] = len(s.rr)
 		}
@@ -262,11 +296,11 @@ func (s *SparseLU) Factorize(j *mat.Dense) error {
 	return nil
 }
 
-// sameColumn reports whether column k of A has the same rows as in the
-// last factorisation.
+// sameColumn reports whether column k of A, as found by the full scan,
+// has the same rows as in the last factorisation.
 func (s *SparseLU) sameColumn(k int) bool {
-	a := s.ai[s.ap[k]:s.ap[k+1]]
-	b := s.ai0[s.ap0[k]:s.ap0[k+1]]
+	a := s.si[s.sp[k]:s.sp[k+1]]
+	b := s.si0[s.sp0[k]:s.sp0[k+1]]
 	if len(a) != len(b) {
 		return false
 	}
@@ -293,6 +327,33 @@ func (s *SparseLU) reach(k int) int {
 		s.mark[s.xi[p]] = false
 	}
 	return top
+}
+
+// sortReach puts the reach s.xi[top:n] of the current step in a order
+// that does not depend on which other rows are in it: first the rows
+// already pivoted, by ascending pivot step (a topological order of L's
+// graph, as L is lower triangular in step order), then the others by
+// ascending row. The numeric update, the choice among equal pivot
+// candidates and the order of each column of L and U follow it, so a
+// reach with more rows (explicit zeros) gives the same nonzero values.
+func (s *SparseLU) sortReach(top int) {
+	n := s.n
+	r := s.xi[top:n]
+	for p, i := range r {
+		if c := s.pinv[i]; c >= 0 {
+			r[p] = c
+		} else {
+			r[p] = n + i
+		}
+	}
+	slices.Sort(r)
+	for p, key := range r {
+		if key < n {
+			r[p] = s.piv[key] // this factorisation's pivot row of step key
+		} else {
+			r[p] = key - n
+		}
+	}
 }
 
 // numeric sets x = L \ A(:,k) on the reach s.xi[top:n].
