@@ -136,7 +136,7 @@ func (a *runArgs) flagSet(name string) *flag.FlagSet {
 	if name == "run" {
 		fs.BoolVar(&a.json, "json", false, "print the report as one JSON document")
 		fs.BoolVar(&a.csv, "csv", false, "print the report as CSV tables: the cases, then the rows of voyages,\nthe variants of studies and the days of audits, a blank line between")
-		fs.StringVar(&a.plot, "plot", "", "also draw the cases and each voyage, study and audit in `FILE`,\nan SVG or PNG image by the name's extension (.svg, .png); with\nseveral charts, one file each: FILE-cases.svg, FILE-voyage-1.svg, ...")
+		fs.StringVar(&a.plot, "plot", "", "also draw the cases and each voyage, study and audit in `FILE`,\nan SVG or PNG image by the name's extension (.svg, .png); with\nseveral charts, one file each, named with a suffix before the\nextension: demand-cases.svg, demand-voyage-1.svg, ...")
 		fs.StringVar(&a.out, "o", "", "write the report to `FILE` instead of standard output")
 	}
 	a.timeout = 10 * time.Second

@@ -53,7 +53,8 @@ var auditHeader = [...]string{
 // the variants of its studies and the days of its audits. Each table
 // starts with a header row whose first field is "table", and each of its
 // data rows has the table's name in that field: "cases", "voyage rows",
-// "study variants" or "audit days". One blank line separates two tables.
+// "study variants" or "audit days". One blank line separates two tables
+// (a name with a blank line in it is quoted, and the line is part of it).
 // The cases table always comes first (its header alone when no case was
 // solved); a job table is written only when the run has such a job, and
 // holds the rows of every job of its kind, each naming its job in the

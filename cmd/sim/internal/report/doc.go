@@ -157,7 +157,8 @@
 // with a header row whose first field is "table" and whose other fields
 // name the columns with their units; each data row carries the table's
 // name in its first field ("cases", "voyage rows", "study variants",
-// "audit days"); one blank line separates two tables. The cases table
+// "audit days"); one blank line separates two tables (outside quotes:
+// a quoted name may hold a blank line of its own). The cases table
 // always comes first (its header alone when no case was solved); the
 // others follow in that order when the run has such a job, each holding
 // every job of its kind, named in its second column. The columns, units

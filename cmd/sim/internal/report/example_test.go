@@ -29,3 +29,13 @@ func ExampleTable() {
 	//
 	// Caution: planning and audit estimate only; the makers' manuals, class and flag rules and licensed practice govern, and local codes come first.
 }
+
+// A run that solved nothing still writes the header of the cases table:
+// the first field of every table's header is "table".
+func ExampleCSV() {
+	if err := report.CSV(os.Stdout, report.Run{}); err != nil {
+		fmt.Println(err)
+	}
+	// Output:
+	// table,case,plant,sea_T_C,air_T_C,engine_load_pct,boilers_firing,can_carry,shortfall_kg_h,steam_demand_kg_h,steam_production_kg_h,fuel_kg_h,fuel_t_per_day,co2_t_per_day,makeup_kg_h,electric_kW,margin_kg_h,warnings
+}
