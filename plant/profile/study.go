@@ -46,8 +46,8 @@ type StudyResult struct {
 }
 
 // Study runs the profile once per variant and compares each with the first.
-// The profile's hours are taken as one year for the payback when they add
-// up to 8760 (or 8784); otherwise the savings are scaled to a year.
+// For the payback the savings are scaled to a year of 8760 h (by
+// 8760 / the profile's hours; a profile of 8760 h is one year as it is).
 func Study(ctx context.Context, p *plant.Plant, rows []Row, variants []Variant, econ Economics, opt Options) (*StudyResult, error) {
 	if len(variants) < 2 {
 		return nil, fmt.Errorf("a study needs at least two variants (a base and one to compare); got %d", len(variants))
