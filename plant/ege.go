@@ -7,6 +7,7 @@ import (
 	"steamcase/plant/combustion"
 	"steamcase/plant/fuel"
 	"steamcase/plant/heat"
+	"steamcase/plant/water"
 )
 
 // EngineExhaust describes the main engine's exhaust against its load, as
@@ -99,8 +100,19 @@ type ExhaustGasEconomiser struct {
 	Bypass     bool
 	Off        float64 // non-zero: out of service this case
 
+	// PreheatUA, if positive, adds a preheating section after the
+	// evaporator: the gas leaving the evaporator heats the feed in
+	// counterflow (ε-NTU, plant/heat) before it enters the drum. It is
+	// given at the same gas flow as the evaporator's size and scales with
+	// the same exponent. The water's cp is taken at the section's inlet.
+	// The gas leaving it is the economiser's final outlet; a minimum gas
+	// temperature held by the bypass applies to the evaporator, and the
+	// preheater falling below it is a warning.
+	PreheatUA float64
+
 	feed, steam *Line
 	eqs         [4]int
+	mcpw        memo
 	mh          memo
 	op          egeOperation
 }
@@ -108,6 +120,7 @@ type ExhaustGasEconomiser struct {
 // egeOperation is the economiser's gas side in a case.
 type egeOperation struct {
 	load, mGas, tIn, tOut, tSat, q, bypass, cp, ua, ntu float64
+	ua0                                                 float64 // UA at the size's reference gas flow
 	belowMin                                            bool
 	warn                                                []string
 }
@@ -166,6 +179,9 @@ func (u *ExhaustGasEconomiser) check(fs *faults) {
 	if u.MinGasOutT != 0 {
 		checkRange(fs, u, "minimum gas outlet temperature", u.MinGasOutT, 353.15, 573.15, "K")
 	}
+	if u.PreheatUA != 0 {
+		checkRange(fs, u, "preheating section UA", u.PreheatUA, 1, 1e8, "W/K")
+	}
 }
 
 func (u *ExhaustGasEconomiser) assemble(a *assembly, ports map[string][]*Line) {
@@ -174,7 +190,7 @@ func (u *ExhaustGasEconomiser) assemble(a *assembly, ports map[string][]*Line) {
 	u.eqs[1] = a.equation(u.Name+": steam dryness", scaleH, u.steam.pIdx(), u.steam.hIdx())
 	u.eqs[2] = a.equation(u.Name+": mass balance", 1, u.feed.mIdx(), u.steam.mIdx())
 	u.eqs[3] = a.equation(u.Name+": steam from the exhaust's heat", scaleQ,
-		u.feed.hIdx(), u.steam.mIdx(), u.steam.hIdx())
+		u.feed.mIdx(), u.feed.pIdx(), u.feed.hIdx(), u.steam.mIdx(), u.steam.hIdx())
 }
 
 // gasH returns the exhaust's enthalpy function per kg of gas.
@@ -253,6 +269,7 @@ func (u *ExhaustGasEconomiser) prepare(c Conditions) error {
 	if err != nil {
 		return wrapUnitErr(u, err)
 	}
+	u.op.ua0 = ua / u.flowScale(m)
 	tOut, cp, err := evaporate(h, m, tIn, ts, ua)
 	if err != nil {
 		return wrapUnitErr(u, err)
@@ -276,6 +293,20 @@ func (u *ExhaustGasEconomiser) prepare(c Conditions) error {
 	hOut, _ := h(u.op.tOut)
 	u.op.q = frac * m * (hIn - hOut)
 	return nil
+}
+
+// flowScale is (m/m_ref)^n, the factor by which the size's UA changes at
+// gas flow m (1 when UA is given without a reference flow).
+func (u *ExhaustGasEconomiser) flowScale(m float64) float64 {
+	n := u.exponent()
+	switch {
+	case u.UA > 0 && u.DesignGasFlow > 0:
+		return math.Pow(m/u.DesignGasFlow, n)
+	case u.UA > 0:
+		return 1
+	}
+	md, _, _ := u.Engine.At(u.DesignLoad)
+	return math.Pow(m/md, n)
 }
 
 // conductance returns UA at gas flow m.
@@ -349,8 +380,41 @@ func (u *ExhaustGasEconomiser) residual(ev *eval, r []float64) error {
 	r[u.eqs[0]] = ev.p(u.steam) - u.DrumP
 	r[u.eqs[1]] = ev.h(u.steam) - hs
 	r[u.eqs[2]] = ev.m(u.feed) - ev.m(u.steam)
-	r[u.eqs[3]] = ev.m(u.steam)*(ev.h(u.steam)-ev.h(u.feed)) - u.op.q
+	pre, err := u.preheat(ev)
+	if err != nil {
+		return wrapUnitErr(u, err)
+	}
+	r[u.eqs[3]] = ev.m(u.steam)*(ev.h(u.steam)-ev.h(u.feed)) - u.op.q - pre.Q
 	return nil
+}
+
+// preheat rates the preheating section at the present feed.
+func (u *ExhaustGasEconomiser) preheat(ev *eval) (heat.ExchangerResult, error) {
+	if u.PreheatUA <= 0 || u.Off != 0 || u.op.mGas <= 0 {
+		return heat.ExchangerResult{}, nil
+	}
+	mw, pw, hw := ev.m(u.feed), ev.p(u.feed), ev.h(u.feed)
+	tw, err := tPH(pw, hw)
+	if err != nil {
+		return heat.ExchangerResult{}, err
+	}
+	gasT := u.op.tOut
+	if mw <= 0 || gasT <= tw {
+		return heat.ExchangerResult{HotOut: gasT, ColdOut: tw}, nil
+	}
+	cpw, err := u.mcpw.get2(pw, tw, func(p, t float64) (float64, error) {
+		st, err := water.PT(p, t)
+		return st.Cp, err
+	})
+	if err != nil {
+		return heat.ExchangerResult{}, err
+	}
+	mg := (1 - u.op.bypass) * u.op.mGas
+	ua := u.PreheatUA
+	if u.op.ua0 > 0 {
+		ua *= u.op.ua / u.op.ua0
+	}
+	return heat.Counterflow(mg*u.op.cp, mw*cpw, ua, gasT, tw)
 }
 
 func (u *ExhaustGasEconomiser) guess(x []float64) {
@@ -366,8 +430,12 @@ func (u *ExhaustGasEconomiser) guess(x []float64) {
 
 func (u *ExhaustGasEconomiser) report(ev *eval, cr *CaseResult) error {
 	m := ev.m(u.steam)
+	pre, err := u.preheat(ev)
+	if err != nil {
+		return wrapUnitErr(u, err)
+	}
 	er := EGEResult{
-		Name: u.Name, SteamKgS: m, DutyW: u.op.q, EngineLoad: u.op.load,
+		Name: u.Name, SteamKgS: m, DutyW: u.op.q + pre.Q, PreheatW: pre.Q, EngineLoad: u.op.load,
 		GasKgS: u.op.mGas, GasInT: u.op.tIn, GasOutT: u.op.tOut, TSat: u.op.tSat,
 		BypassFraction: u.op.bypass, UA: u.op.ua, NTU: u.op.ntu,
 		InService: u.Off == 0 && u.op.q > 0, BelowMin: u.op.belowMin, MinGasOutT: u.MinGasOutT,
@@ -375,13 +443,27 @@ func (u *ExhaustGasEconomiser) report(ev *eval, cr *CaseResult) error {
 	if er.InService {
 		er.Pinch = u.op.tOut - u.op.tSat
 	}
+	if pre.Q > 0 {
+		er.EvaporatorOutT = u.op.tOut
+		er.GasOutT = pre.HotOut
+		er.PreheatWaterOutT = pre.ColdOut
+		if pre.ColdOut >= u.op.tSat-1 {
+			cr.warn("%s %q: the preheating section brings the feed to %.1f °C, within 1 K of saturation (%.1f °C): it would steam",
+				u.Kind(), u.Name, pre.ColdOut-273.15, u.op.tSat-273.15)
+		}
+		if u.MinGasOutT > 0 && pre.HotOut < u.MinGasOutT-1e-9 {
+			er.BelowMin = true
+			cr.warn("%s %q: gas leaves the preheating section at %.1f °C, below its minimum of %.1f °C",
+				u.Kind(), u.Name, pre.HotOut-273.15, u.MinGasOutT-273.15)
+		}
+	}
 	for _, w := range u.op.warn {
 		cr.warn("%s %q: %s", u.Kind(), u.Name, w)
 	}
 	cr.EGEs = append(cr.EGEs, er)
 	cr.SteamProductionKgS += m
 	cr.EGESteamKgS += m
-	cr.boundary.heatIn += u.op.q
+	cr.boundary.heatIn += u.op.q + pre.Q
 	return nil
 }
 
@@ -391,8 +473,10 @@ func (u *ExhaustGasEconomiser) param(name string) (*float64, error) {
 		return &u.Off, nil
 	case "ua":
 		return &u.UA, nil
+	case "preheat_ua":
+		return &u.PreheatUA, nil
 	}
-	return nil, paramErr(u, name, "off", "ua")
+	return nil, paramErr(u, name, "off", "ua", "preheat_ua")
 }
 
 // EGEResult is an exhaust-gas economiser's part in a case.
@@ -408,6 +492,10 @@ type EGEResult struct {
 	TSat           float64
 	Pinch          float64 // gas outlet above saturation, K
 	BypassFraction float64 // of the exhaust sent past the economiser
+	// With a preheating section: its duty (included in DutyW), the gas
+	// leaving the evaporator (GasOutT is then after the preheater) and the
+	// feed leaving the preheater.
+	PreheatW, EvaporatorOutT, PreheatWaterOutT float64
 	// BelowMin is true when the gas through the economiser would leave
 	// below MinGasOutT (the bypass, if any, then holds the funnel at it).
 	BelowMin   bool

@@ -605,6 +605,27 @@ func (u *ExhaustGasEconomiser) jacobian(ev *eval, j *mat.Dense) error {
 	a.add(u.eqs[3], u.steam.mIdx(), ev.h(u.steam)-ev.h(u.feed))
 	a.add(u.eqs[3], u.steam.hIdx(), ms)
 	a.add(u.eqs[3], u.feed.hIdx(), -ms)
+	if u.PreheatUA <= 0 {
+		return nil
+	}
+	// The preheating section's duty depends on the feed's flow and state:
+	// its derivatives by differences of that duty alone.
+	pre, err := u.preheat(ev)
+	if err != nil {
+		return wrapUnitErr(u, err)
+	}
+	f0 := [2]float64{pre.Q}
+	q := func() ([2]float64, int, error) {
+		r, err := u.preheat(ev)
+		return [2]float64{r.Q}, 0, err
+	}
+	for _, col := range [3]int{u.feed.mIdx(), u.feed.pIdx(), u.feed.hIdx()} {
+		d, err := unitFD(ev, col, f0, 0, q)
+		if err != nil {
+			return wrapUnitErr(u, err)
+		}
+		a.add(u.eqs[3], col, -d[0])
+	}
 	return nil
 }
 

@@ -59,6 +59,8 @@ type EGEJSON struct {
 	GasOutTK       float64 `json:"gas_out_T_K"`
 	PinchK         float64 `json:"pinch_K"`
 	BypassFraction float64 `json:"bypass_fraction"`
+	PreheatKW      float64 `json:"preheat_kW"`
+	EvaporatorOutT float64 `json:"evaporator_gas_out_T_K"`
 	BelowMinGasT   bool    `json:"below_min_gas_T"`
 	FuelSavedKgH   float64 `json:"fuel_saved_kg_h"`
 }
@@ -215,7 +217,8 @@ func (cr *CaseResult) JSON() CaseJSON {
 		j.EGEs = append(j.EGEs, EGEJSON{
 			Name: e.Name, InService: e.InService, SteamKgH: r6(e.SteamKgS * h), DutyKW: r6(e.DutyW / 1e3),
 			GasKgS: r6(e.GasKgS), GasInTK: r6(e.GasInT), GasOutTK: r6(e.GasOutT), PinchK: r6(e.Pinch),
-			BypassFraction: r6(e.BypassFraction), BelowMinGasT: e.BelowMin, FuelSavedKgH: r6(e.FuelSavedKgS * h),
+			BypassFraction: r6(e.BypassFraction), PreheatKW: r6(e.PreheatW / 1e3), EvaporatorOutT: r6(evapOut(e)),
+			BelowMinGasT: e.BelowMin, FuelSavedKgH: r6(e.FuelSavedKgS * h),
 		})
 	}
 	for _, c := range cr.Consumers {
@@ -270,4 +273,13 @@ func roundMap(m map[string]float64) map[string]float64 {
 		out[k] = r6(v)
 	}
 	return out
+}
+
+// evapOut is the gas temperature leaving the evaporator: the outlet itself
+// when there is no preheating section.
+func evapOut(e EGEResult) float64 {
+	if e.PreheatW > 0 {
+		return e.EvaporatorOutT
+	}
+	return e.GasOutT
 }

@@ -62,6 +62,7 @@ func buildEGE(r *runner, a *args, ph *plantHandle) plant.Unit {
 	}
 	u.MinGasOutT, _ = a.quantity("min_gas_T", units.Temperature, false)
 	u.Bypass = a.boolean("bypass")
+	u.PreheatUA, _ = a.quantity("preheat_ua", units.ThermalConductance, false)
 	if a.boolean("off") {
 		u.Off = 1
 	}

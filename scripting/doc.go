@@ -144,7 +144,9 @@
 //	    gas_cp (specific heat of the exhaust; default 1.06 kJ/kgK), or exhaust_fuel
 //	      (grade) with exhaust_O2 (fraction, dry) for the NASA-polynomial enthalpy,
 //	    min_gas_T (temperature; default not checked), bypass (boolean: a damper holds
-//	      the funnel at min_gas_T), off (boolean) }
+//	      the funnel at min_gas_T), preheat_ua (thermal conductance of a preheating
+//	      section after the evaporator, at the same reference gas flow; default none),
+//	      off (boolean) }
 //	ship:economiser { name, boiler (required), ua (thermal conductance, required),
 //	    design_gas (mass flow; default: ua is constant), exponent (number; default 0.65) }
 //
@@ -286,7 +288,7 @@
 // blowdown, eta_factor (fraction scaling the efficiency model's figure);
 // feed_tank heat_loss, set_T, room_T; feed_pump eta, margin; header
 // heat_loss; reducing_valve p; makeup T; condenser subcool;
-// exhaust_gas_economiser off, ua; economiser ua.
+// exhaust_gas_economiser off, ua, preheat_ua; economiser ua.
 //
 // case solves at once (warm-started from the plant's previous case),
 // records the result in the Run and returns a table mirroring the JSON of

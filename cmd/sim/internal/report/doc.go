@@ -92,7 +92,9 @@
 //	                        unburnt_pct, credits_pct, total_pct}
 //	exhaust_gas_economisers [{name, in_service, steam_kg_h, duty_kW,
 //	                        gas_kg_s, gas_in_T_K, gas_out_T_K, pinch_K,
-//	                        bypass_fraction, below_min_gas_T,
+//	                        bypass_fraction, preheat_kW (a preheating
+//	                        section's duty, in duty_kW),
+//	                        evaporator_gas_out_T_K, below_min_gas_T,
 //	                        fuel_saved_kg_h}]
 //	consumers               [{name, kind, duty_kW (shaft power for a
 //	                        turbine), steam_kg_h, condensate_return_kg_h,
