@@ -524,3 +524,45 @@ func TestLeadLagSharing(t *testing.T) {
 		t.Errorf("balances %+v", cr.Balance)
 	}
 }
+
+func TestObservationTank(t *testing.T) {
+	// Returning condensate through a vented observation tank: what flashes
+	// there is vented and made up, the rest drains to the hotwell, and
+	// the tank's temperature is not reported as the feed's.
+	p := New("observation", Options{})
+	fuel := FuelSpec{Name: "HFO", LHV: 40.2e6, CO2Factor: 3.114}
+	must(t, p.Add(&MakeUp{UnitBase: UnitBase{Name: "makeup"}, T: 288.15}))
+	must(t, p.Add(&FeedTank{UnitBase: UnitBase{Name: "hotwell"}}))
+	must(t, p.Add(&FeedTank{UnitBase: UnitBase{Name: "obs"}, Observation: true, HeatLoss: 3e3}))
+	must(t, p.Add(&FeedPump{UnitBase: UnitBase{Name: "fp"}, Boilers: []string{"b1"}, Margin: 2e5, Eta: 0.5}))
+	must(t, p.Add(&Boiler{UnitBase: UnitBase{Name: "b1"}, MCR: 3, DrumP: gauge(7), Efficiency: flatEta(0.85), Fuel: fuel}))
+	must(t, p.Add(&Consumer{UnitBase: UnitBase{Name: "heating"}, Duty: 1e6, ReturnFraction: 1}))
+	for _, c := range [][5]string{
+		{"mu", "makeup", "out", "hotwell", "in"}, {"suction", "hotwell", "out", "fp", "in"},
+		{"feed", "fp", "out", "b1", "feed"}, {"steam", "b1", "steam", "heating", "in"},
+		{"return", "heating", "out", "obs", "in"}, {"drain", "obs", "out", "hotwell", "in"},
+	} {
+		p.Connect(c[0], Pos{}, c[1], c[2], c[3], c[4])
+	}
+	cr, err := p.Solve(context.Background(), Case{Name: "c"})
+	must(t, err)
+	if !(cr.VentedKgS > 0) {
+		t.Errorf("condensate at 8 bar(a) must flash in the vented tank; vented %g", cr.VentedKgS)
+	}
+	within(t, "make-up replaces the flash and blowdown", cr.MakeUpKgS, cr.VentedKgS+cr.BlowdownKgS, 1e-9)
+	var obsT float64
+	for _, u := range cr.Units {
+		if u.Name == "obs" {
+			obsT = u.Figures["T_K"]
+			if u.Kind != "observation tank" {
+				t.Errorf("kind %q", u.Kind)
+			}
+		}
+	}
+	if obsT == cr.FeedTankT || cr.FeedTankT == 0 {
+		t.Errorf("feed tank %g K taken from the observation tank (%g K)?", cr.FeedTankT, obsT)
+	}
+	if cr.Balance.MassRel > 1e-9 || cr.Balance.EnergyRel > 1e-6 {
+		t.Errorf("balances %+v", cr.Balance)
+	}
+}

@@ -130,6 +130,13 @@ type FeedTank struct {
 	// SetT is the temperature that steam heating holds, K; used when the
 	// "steam" inlet is connected.
 	SetT float64
+	// Observation makes the tank an observation (inspection) tank: the
+	// vented tank that returning condensate passes so that oil from a
+	// leaking heating coil can be seen before it reaches the feed water.
+	// Its model is the feed tank's (mixing, heat loss, flash steam
+	// vented); it is reported as such and its temperature is not the
+	// feed's.
+	Observation bool
 
 	ins        []*Line
 	out, steam *Line
@@ -139,8 +146,13 @@ type FeedTank struct {
 	mset       memo
 }
 
-// Kind returns "feed tank".
-func (u *FeedTank) Kind() string { return "feed tank" }
+// Kind returns "feed tank" or "observation tank".
+func (u *FeedTank) Kind() string {
+	if u.Observation {
+		return "observation tank"
+	}
+	return "feed tank"
+}
 
 // Ports: returns and make-up in, feed out, optional heating steam in.
 func (u *FeedTank) Ports() []PortSpec {
@@ -297,6 +309,9 @@ func (u *FeedTank) report(ev *eval, cr *CaseResult) error {
 	cr.VentedKgS += mv
 	if mv > 1e-9 {
 		cr.warn("%s %q: the mix would boil at the tank pressure; %.1f kg/h of flash steam is vented and lost", u.Kind(), u.Name, mv*3600)
+	}
+	if u.Observation {
+		return nil
 	}
 	if t > ev.pl.Opt.FeedSuctionMaxT {
 		cr.warn("%s %q at %.1f °C is above %.0f °C: too hot for the feed pump's suction (common practice); check the pump's NPSH",

@@ -64,6 +64,9 @@
 //	ship:feed_tank { name, p (pressure; default ambient: vented), heat_loss (power),
 //	                 UA (thermal conductance, W/K), room_T (temperature),
 //	                 set_T (temperature held by steam heating on port "steam") }
+//	ship:observation_tank { name, heat_loss (power), UA (thermal conductance, W/K), room_T
+//	                 (temperature) } -- a vented tank the returning condensate passes
+//	                 (ports in, any number, and out); flash steam is vented and made up
 //	ship:feed_pump { name, boilers (list of boiler names), margin (pressure
 //	                 difference, "3 bar"), discharge (pressure; instead of
 //	                 boilers+margin), eta (fraction, required), motor_eta (fraction; default 0.9) }
@@ -238,6 +241,7 @@
 //	  exhaust_gas_economiser = { name = "EGE", drum = "7 bar(g)", engine = {...},
 //	                             design_load = "85 %", pinch = "15 K" },  -- optional
 //	  dump_condenser = { subcool = "80 K" },                -- optional, with an EGE
+//	  observation_tank = { heat_loss = "2 kW" },  -- optional: returns pass it to the hotwell
 //	  economisers = { {name = "ECO1", boiler = "AB1", ua = "4 kW/K"} }, -- optional
 //	}
 //

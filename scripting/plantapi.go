@@ -190,15 +190,16 @@ type unitBuilder func(r *runner, a *args, ph *plantHandle) plant.Unit
 
 // unitBuilders are the unit kinds of the full graph, by method name.
 var unitBuilders = map[string]unitBuilder{
-	"makeup":         buildMakeUp,
-	"feed_tank":      buildFeedTank,
-	"feed_pump":      buildFeedPump,
-	"boiler":         buildBoiler,
-	"header":         buildHeader,
-	"reducing_valve": buildReducingValve,
-	"consumer":       buildConsumer,
-	"turbine":        buildTurbine,
-	"condenser":      buildCondenser,
+	"makeup":           buildMakeUp,
+	"feed_tank":        buildFeedTank,
+	"observation_tank": buildObservationTank,
+	"feed_pump":        buildFeedPump,
+	"boiler":           buildBoiler,
+	"header":           buildHeader,
+	"reducing_valve":   buildReducingValve,
+	"consumer":         buildConsumer,
+	"turbine":          buildTurbine,
+	"condenser":        buildCondenser,
 	// exhaust_gas_economiser and economiser: combustion.go
 	"exhaust_gas_economiser": buildEGE,
 	"economiser":             buildEconomiser,
@@ -357,6 +358,16 @@ func buildFeedTank(r *runner, a *args, ph *plantHandle) plant.Unit {
 	u.UA, _ = a.quantity("UA", units.ThermalConductance, false)
 	u.RoomT, _ = a.quantity("room_T", units.Temperature, false)
 	u.SetT, _ = a.quantity("set_T", units.Temperature, false)
+	return u
+}
+
+// buildObservationTank reads a vented observation tank: a feed tank's
+// model (mixing, heat loss, flash steam vented) reported as such.
+func buildObservationTank(r *runner, a *args, ph *plantHandle) plant.Unit {
+	u := &plant.FeedTank{Observation: true}
+	u.HeatLoss, _ = a.quantity("heat_loss", units.Power, false)
+	u.UA, _ = a.quantity("UA", units.ThermalConductance, false)
+	u.RoomT, _ = a.quantity("room_T", units.Temperature, false)
 	return u
 }
 

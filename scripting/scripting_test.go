@@ -38,6 +38,7 @@ func TestGoodScripts(t *testing.T) {
 		{"voyage.lua", 5, 1, 6},
 		{"study.lua", 0, 1, 6},
 		{"audit.lua", 0, 1, 4},
+		{"observation_tank.lua", 1, 1, 1},
 	}
 	for _, tc := range tests {
 		for _, checkOnly := range []bool{false, true} {

@@ -87,6 +87,7 @@ func (r *runner) luaSteamPlant(L *lua.LState) int {
 	ege := r.subTable(a, "exhaust_gas_economiser")
 	dump := r.subTable(a, "dump_condenser")
 	economisers := r.list(a, "economisers")
+	obs := r.subTable(a, "observation_tank")
 	if dump != nil && ege == nil {
 		a.errorf(nil, "dump_condenser is only built with an exhaust_gas_economiser")
 	}
@@ -123,6 +124,16 @@ func (r *runner) luaSteamPlant(L *lua.LState) int {
 	r.addUnit(ph, "makeup", r.copyTable(named(makeup, "makeup"), "makeup", map[string]string{"T": defaultMakeUpT}), muPos, buildMakeUp, nil)
 	hw := named(hotwell, "hotwell")
 	hwName := r.addUnit(ph, "feed_tank", hw, hwPos, buildFeedTank, nil)
+	// Returns go to the hotwell, or through an observation tank draining
+	// to it.
+	returnTo := hwName
+	if obs != nil {
+		obsPos := at(obs, "observation_tank")
+		if on := r.addUnit(ph, "observation_tank", named(obs, "observation tank"), obsPos, buildObservationTank, nil); on != "" {
+			line(obsPos, on+" drain", on+".out", hwName+".in")
+			returnTo = on
+		}
+	}
 	var boilerNames []string
 	for _, b := range boilers {
 		if n, ok := b.RawGetString("name").(lua.LString); ok {
@@ -269,7 +280,7 @@ func (r *runner) luaSteamPlant(L *lua.LState) int {
 		}
 		line(cPos, "steam to "+cn, hn+".out", cn+".in")
 		if cu, ok := ph.p.Unit(cn).(*plant.Consumer); ok && cu.ReturnFraction > 0 {
-			line(cPos, "return from "+cn, cn+".out", hwName+".in")
+			line(cPos, "return from "+cn, cn+".out", returnTo+".in")
 		}
 	}
 	for _, tt := range turbines {
