@@ -110,9 +110,12 @@
 // faster blocked Dgetrf, whose parallel matrix products allocate.
 // SparseLU, a left-looking sparse LU with threshold partial pivoting
 // (Gilbert and Peierls 1988), can be set in Settings.Factorizer for large
-// sparse Jacobians; it takes the columns in their natural order (no
-// fill-reducing ordering) and allocates nothing once warm. Told the
-// Pattern (New does so), it reads only the pattern's entries; its
+// sparse Jacobians; it takes the columns in their natural order unless
+// SparseLU.MinDegree asks for a minimum degree order found once from the
+// Pattern (the pattern's zeros are then kept in the structure, so the
+// symbolic work is redone only when a pivot changes), and allocates
+// nothing once warm. Told the Pattern (New does so), it reads only the
+// pattern's entries; its
 // condition estimate is made only when asked for, and while no Recorder
 // wants the estimate the solver first tries SparseLU.CondBound, a cheaper
 // upper bound of the condition number: when that is within MaxCondition,

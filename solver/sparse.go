@@ -17,11 +17,11 @@ import (
 // which for banded or plant-like Jacobians is far below the O(n³) of
 // DenseLU.
 //
-// Columns are taken in their natural order: there is no fill-reducing
-// ordering, so number the unknowns so that coupled ones are near each
-// other. Among the rows eligible as pivot the diagonal entry is preferred
-// while it is at least DiagTol times the largest (threshold pivoting, to
-// keep the band); otherwise the largest is taken. The condition number is
+// Columns are taken in their natural order unless MinDegree is set: then
+// number the unknowns so that coupled ones are near each other. Among the
+// rows eligible as pivot the diagonal entry of A is preferred while it is
+// at least DiagTol times the largest (threshold pivoting, to keep the
+// band); otherwise the largest is taken. The condition number is
 // estimated in the 1-norm by Hager's method with Higham's refinement
 // (Higham, ACM TOMS 14(4), 1988), as LAPACK's Dlacn2 does, when Cond is
 // first called after a factorisation; CondBound gives a cheaper upper
@@ -31,17 +31,21 @@ import (
 // search) is kept and reused in the next factorisation for as long as the
 // structure of A and the pivot rows stay the same, which on a sequence of
 // Newton iterations they mostly do; the factors are bit for bit those of
-// a fresh factorisation. After SetPattern the structure of A is the
-// pattern itself, entries that happen to be zero included, so only a
-// change of pivot row makes the symbolic part be found again.
+// a fresh factorisation. Entries that are exactly zero are dropped from
+// the structure, so a Jacobian entry that is zero at one iteration and
+// not at the next (a line without flow) changes the structure.
 //
-// The arithmetic does not depend on the structure: the updates of
+// With MinDegree and a pattern (SetPattern), the columns are taken in a
+// fill-reducing order found once from the pattern, and the structure of
+// A is the pattern itself, zeros included: it never changes, and only a
+// change of pivot row makes the symbolic part be found again. In that
+// mode the arithmetic does not depend on the structure: the updates of
 // L \ A(:,k) are applied in the order of the pivot steps, ties between
 // candidate pivots go to the lowest row, and each column of L and U is
-// kept in that order, so entries that are zero (explicit zeros of a
-// pattern, or structural zeros the full scan drops) change no nonzero
-// value of the factors, of a solve or of the condition estimate and
-// bound, as long as the values are finite.
+// kept in that order, so the explicit zeros change no nonzero value of
+// the factors, of a solve or of the condition estimate and bound (for
+// finite values). The factors are not those of the natural order: the
+// results differ from it by rounding.
 //
 // After the first factorisation of a given fill, SparseLU allocates
 // nothing. The zero value is ready to use.
@@ -49,6 +53,14 @@ type SparseLU struct {
 	// DiagTol is the threshold for preferring the diagonal pivot, in
 	// (0, 1]. Zero means 0.1; 1 gives plain partial pivoting.
 	DiagTol float64
+
+	// MinDegree makes SetPattern order the columns by minimum degree on
+	// the graph of the pattern's AᵀA (see minDegreeOrder) and keep the
+	// pattern's zeros in the structure, for patterns of order up to 4096.
+	// On Jacobians whose entries come and go (a plant's lines with and
+	// without flow) that saves most of the symbolic work and much of the
+	// fill. Set it before SetPattern; it has no effect without a pattern.
+	MinDegree bool
 
 	n          int
 	ap, ai     []int // A in compressed columns
@@ -67,7 +79,11 @@ type SparseLU struct {
 	ok         bool
 
 	pn     int   // order of the pattern; 0 without one
-	pp, pr []int // the pattern in compressed columns (rows ascending)
+	pp, pr []int // the pattern in compressed columns (rows ascending), in the order q
+	// q is the column order: step k factorises column q[k] of A (nil:
+	// the natural order). SetPattern sets it.
+	q      []int
+	static bool // the structure of A is the pattern, zeros included
 
 	// The structure found by the full scan (without a pattern), of this
 	// factorisation and of the last, for comparison. With a pattern
@@ -97,7 +113,7 @@ func (s *SparseLU) SetPattern(n int, pattern [][]int) {
 		s.symOK = false // the structure of A changes
 	}
 	if pattern == nil {
-		s.pn, s.pp, s.pr = 0, nil, nil
+		s.pn, s.pp, s.pr, s.q, s.static = 0, nil, nil, nil, false
 		return
 	}
 	if len(pattern) != n {
@@ -136,6 +152,12 @@ func (s *SparseLU) SetPattern(n int, pattern [][]int) {
 		}
 	}
 	s.pn = n
+	s.q = nil
+	s.static = s.MinDegree && n <= maxOrderN
+	if s.static {
+		s.q = minDegreeOrder(n, s.pp, s.pr)
+		s.pp, s.pr = permuteColumns(s.q, s.pp, s.pr)
+	}
 }
 
 // Factorize implements Factorizer.
@@ -168,19 +190,26 @@ func (s *SparseLU) Factorize(j *mat.Dense) error {
 	// Compressed columns of A, and its 1-norm.
 	raw := j.RawMatrix()
 	s.anorm = 0
-	if s.pp != nil {
+	if s.pp != nil && s.pn != n {
+		panic(fmt.Sprintf("solver: SparseLU.Factorize of order %d with a pattern of order %d", n, s.pn))
+	}
+	if s.q != nil && len(s.q) != n {
+		panic(fmt.Sprintf("solver: SparseLU.Factorize of order %d with a column order of %d", n, len(s.q)))
+	}
+	if s.static {
 		// The pattern is the structure, zeros included: it never changes.
-		if s.pn != n {
-			panic(fmt.Sprintf("solver: SparseLU.Factorize of order %d with a pattern of order %d", n, s.pn))
-		}
 		s.ap, s.ai = s.pp, s.pr
 		if cap(s.ax) < len(s.pr) {
 			s.ax = make([]float64, len(s.pr))
 		}
 		s.ax = s.ax[:len(s.pr)]
-		for col := 0; col < n; col++ {
+		for k := 0; k < n; k++ {
+			col := k
+			if s.q != nil {
+				col = s.q[k]
+			}
 			sum := 0.0
-			for p := s.pp[col]; p < s.pp[col+1]; p++ {
+			for p := s.pp[k]; p < s.pp[k+1]; p++ {
 				v := raw.Data[s.pr[p]*raw.Stride+col]
 				s.ax[p] = v
 				sum += math.Abs(v)
@@ -191,14 +220,29 @@ func (s *SparseLU) Factorize(j *mat.Dense) error {
 		s.sp, s.sp0 = s.sp0, s.sp // keep the last structure for comparison
 		s.si, s.si0 = s.si0, s.si
 		s.si, s.ax = s.si[:0], s.ax[:0]
-		for col := 0; col < n; col++ {
-			s.sp[col] = len(s.si)
+		for k := 0; k < n; k++ {
+			s.sp[k] = len(s.si)
+			col := k
+			if s.q != nil {
+				col = s.q[k]
+			}
 			sum := 0.0
-			for row := 0; row < n; row++ {
-				if v := raw.Data[row*raw.Stride+col]; v != 0 {
-					s.si = append(s.si, row)
-					s.ax = append(s.ax, v)
-					sum += math.Abs(v)
+			if s.pp != nil {
+				for p := s.pp[k]; p < s.pp[k+1]; p++ {
+					row := s.pr[p]
+					if v := raw.Data[row*raw.Stride+col]; v != 0 {
+						s.si = append(s.si, row)
+						s.ax = append(s.ax, v)
+						sum += math.Abs(v)
+					}
+				}
+			} else {
+				for row := 0; row < n; row++ {
+					if v := raw.Data[row*raw.Stride+col]; v != 0 {
+						s.si = append(s.si, row)
+						s.ax = append(s.ax, v)
+						sum += math.Abs(v)
+					}
 				}
 			}
 			s.anorm = math.Max(s.anorm, sum)
@@ -223,7 +267,7 @@ func (s *SparseLU) Factorize(j *mat.Dense) error {
 	// search (Gilbert and Peierls 1988). With a pattern the structure of
 	// A is always the same.
 	same := s.symOK
-	scan := s.pp == nil
+	scan := !s.static
 	s.symOK = false
 	s.rp[0] = 0
 	for k := 0; k < n; k++ {
@@ -239,7 +283,9 @@ func (s *SparseLU) Factorize(j *mat.Dense) error {
 			copy(s.xi[top:n], r)
 		} else {
 			top = s.reach(k)
-			s.sortReach(top)
+			if s.q != nil {
+				s.sortReach(top)
+			}
 			s.dfsCols++
 			s.rr = append(s.rr[:s.rp[k]], s.xi[top:n]...)
 			s.rp[k+1] = len(s.rr)
@@ -263,8 +309,12 @@ func (s *SparseLU) Factorize(j *mat.Dense) error {
 			}
 			return ErrExactlySingular
 		}
-		if s.pinv[k] < 0 && math.Abs(x[k]) >= tol*amax {
-			ipiv = k
+		diag := k // the diagonal entry of the column of A taken at step k
+		if s.q != nil {
+			diag = s.q[k]
+		}
+		if s.pinv[diag] < 0 && math.Abs(x[diag]) >= tol*amax {
+			ipiv = diag
 		}
 		if ipiv != s.piv[k] {
 			same = false // the later columns' reaches may differ
@@ -506,13 +556,25 @@ func (s *SparseLU) solve(dst, b []float64) {
 			y[s.ui[p]] -= s.ux[p] * yj
 		}
 	}
-	copy(dst, y)
+	if s.q == nil {
+		copy(dst, y)
+		return
+	}
+	for k, j := range s.q {
+		dst[j] = y[k]
+	}
 }
 
 // solveT sets dst = A⁻ᵀ·b, with A = Pᵀ·L·U so Aᵀ = Uᵀ·Lᵀ·P.
 func (s *SparseLU) solveT(dst, b []float64) {
 	z := s.y
-	copy(z, b)
+	if s.q == nil {
+		copy(z, b)
+	} else {
+		for k, j := range s.q {
+			z[k] = b[j]
+		}
+	}
 	for j := 0; j < s.n; j++ { // Uᵀ·z' = z
 		d := s.up[j+1] - 1
 		v := z[j]
