@@ -10,22 +10,23 @@ import (
 // BenchmarkBroyden solves Broyden tridiagonal (MGH (30)) and Broyden
 // banded (MGH (31)) from the standard start with an analytic, a dense
 // finite-difference and a coloured finite-difference Jacobian, reusing one
-// Solver; the "sparse-lu" variants replace DenseLU with SparseLU, and the
-// "pattern" variant gives the analytic Jacobian its Pattern too.
+// Solver; the "sparse-lu" variants replace DenseLU with SparseLU, the
+// "pattern" variant gives the analytic Jacobian its Pattern too, and
+// "min-degree" sets SparseLU.MinDegree.
 func BenchmarkBroyden(b *testing.B) {
 	ctx := context.Background()
 	for _, mk := range []func(int) mghProblem{broydenTridiagonal, broydenBanded} {
 		for _, n := range []int{50, 500} {
 			m := mk(n)
-			for _, mode := range []string{"analytic", "dense-fd", "colored-fd", "analytic+sparse-lu", "colored-fd+sparse-lu", "analytic+pattern+sparse-lu"} {
+			for _, mode := range []string{"analytic", "dense-fd", "colored-fd", "analytic+sparse-lu", "colored-fd+sparse-lu", "analytic+pattern+sparse-lu", "analytic+pattern+sparse-lu+min-degree"} {
 				analytic := strings.HasPrefix(mode, "analytic")
 				p := m.problem(analytic)
 				if !strings.Contains(mode, "colored") && !strings.Contains(mode, "pattern") {
 					p.Pattern = nil
 				}
 				var set *Settings
-				if strings.HasSuffix(mode, "sparse-lu") {
-					set = &Settings{Factorizer: &SparseLU{}}
+				if strings.Contains(mode, "sparse-lu") {
+					set = &Settings{Factorizer: &SparseLU{MinDegree: strings.HasSuffix(mode, "min-degree")}}
 				}
 				name := m.name + "/n=" + strconv.Itoa(n) + "/" + mode
 				b.Run(name, func(b *testing.B) {
@@ -60,12 +61,12 @@ func BenchmarkBroyden(b *testing.B) {
 func BenchmarkWarmVoyage(b *testing.B) {
 	ctx := context.Background()
 	for _, n := range []int{50, 500} {
-		for _, mode := range []string{"analytic", "colored", "analytic+pattern+sparse-lu"} {
+		for _, mode := range []string{"analytic", "colored", "analytic+pattern+sparse-lu", "analytic+pattern+sparse-lu+min-degree"} {
 			b.Run("n="+strconv.Itoa(n)+"/"+mode, func(b *testing.B) {
 				var set *Settings
 				vmode := mode
-				if mode == "analytic+pattern+sparse-lu" {
-					set = &Settings{Factorizer: &SparseLU{}}
+				if strings.HasPrefix(mode, "analytic+pattern+sparse-lu") {
+					set = &Settings{Factorizer: &SparseLU{MinDegree: strings.HasSuffix(mode, "min-degree")}}
 					vmode = "analytic+pattern"
 				}
 				v := newVoyage(n, vmode, set)

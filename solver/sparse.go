@@ -420,6 +420,11 @@ func (s *SparseLU) numeric(k, top int) {
 			continue
 		}
 		xj := x[j] // L(j, col) = 1
+		if xj == 0 {
+			// Nothing to subtract (as long as L is finite): x[j] is zero
+			// where the structure has an entry but the values do not.
+			continue
+		}
 		// Columns before the current step are complete: lp[col+1] is set.
 		for p := s.lp[col] + 1; p < s.lp[col+1]; p++ {
 			x[s.li[p]] -= s.lx[p] * xj
