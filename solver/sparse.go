@@ -17,8 +17,9 @@ import (
 // which for banded or plant-like Jacobians is far below the O(n³) of
 // DenseLU.
 //
-// Columns are taken in their natural order unless MinDegree is set: then
-// number the unknowns so that coupled ones are near each other. Among the
+// Columns are taken in their natural order unless MinDegree is set; for
+// the natural order, number the unknowns so that coupled ones are near
+// each other. Among the
 // rows eligible as pivot the diagonal entry of A is preferred while it is
 // at least DiagTol times the largest (threshold pivoting, to keep the
 // band); otherwise the largest is taken. The condition number is
@@ -85,16 +86,17 @@ type SparseLU struct {
 	q      []int
 	static bool // the structure of A is the pattern, zeros included
 
-	// The structure found by the full scan (without a pattern), of this
-	// factorisation and of the last, for comparison. With a pattern
-	// ap, ai are pp, pr.
+	// The structure of A with its zeros dropped (read from the pattern's
+	// entries or by the full scan), of this factorisation and of the
+	// last, for comparison. In the static mode ap, ai are pp, pr instead.
 	sp, si   []int
 	sp0, si0 []int
 
 	// The symbolic part of the last factorisation, reused while nothing
-	// changes it: the reach of each column (rr[rp[k]:rp[k+1]], in the
-	// order of sortReach) and each step's pivot row. symOK is cleared by
-	// SetPattern; without a pattern the structure of A is compared too.
+	// changes it: the reach of each column (rr[rp[k]:rp[k+1]], in
+	// topological order, sorted by sortReach when there is a column order)
+	// and each step's pivot row. symOK is cleared by SetPattern; unless
+	// the structure is static it is compared column by column too.
 	rp, rr  []int
 	piv     []int
 	symOK   bool
@@ -264,8 +266,8 @@ func (s *SparseLU) Factorize(j *mat.Dense) error {
 	// on the structure of L and the pivots of the steps before k, so it
 	// is taken from the last factorisation as long as those are the same;
 	// from the first difference on it is found again by depth-first
-	// search (Gilbert and Peierls 1988). With a pattern the structure of
-	// A is always the same.
+	// search (Gilbert and Peierls 1988). In the static mode (MinDegree
+	// with a pattern) the structure of A is always the same.
 	same := s.symOK
 	scan := !s.static
 	s.symOK = false
@@ -379,7 +381,7 @@ func (s *SparseLU) reach(k int) int {
 	return top
 }
 
-// sortReach puts the reach s.xi[top:n] of the current step in a order
+// sortReach puts the reach s.xi[top:n] of the current step in an order
 // that does not depend on which other rows are in it: first the rows
 // already pivoted, by ascending pivot step (a topological order of L's
 // graph, as L is lower triangular in step order), then the others by
