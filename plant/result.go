@@ -155,3 +155,46 @@ func closure(a, b, scale float64) float64 {
 	}
 	return d / scale
 }
+
+// FlowFloor is the smallest mass flow a result reports, kg/s: the solver
+// converges its scaled residuals to 1e-10 (flows are scaled by 1 kg/s),
+// so a flow below this is indistinguishable from none (0.36 g/h), and a
+// result shows it as 0 rather than as solver noise (a cold boiler's fuel
+// of 4e-24 kg/s). The balance closures are computed before, from the
+// unrounded figures.
+const FlowFloor = 1e-10
+
+// clean sets the flows below FlowFloor to zero.
+func (cr *CaseResult) clean() {
+	z := func(v *float64) {
+		if math.Abs(*v) < FlowFloor {
+			*v = 0
+		}
+	}
+	for _, v := range []*float64{&cr.ShortfallKgS, &cr.SteamProductionKgS, &cr.SteamDemandKgS, &cr.FuelKgS, &cr.CO2KgS,
+		&cr.MakeUpKgS, &cr.BlowdownKgS, &cr.VentedKgS, &cr.CondensateLostKgS, &cr.DumpedKgS, &cr.EGESteamKgS, &cr.EGEFuelSavedKgS} {
+		z(v)
+	}
+	for i := range cr.Boilers {
+		b := &cr.Boilers[i]
+		for _, v := range []*float64{&b.SteamKgS, &b.FuelKgS, &b.CO2KgS, &b.BlowdownKgS, &b.AirKgS, &b.FlueGasKgS} {
+			z(v)
+		}
+		if b.SteamKgS == 0 {
+			b.LoadFraction = 0
+		}
+	}
+	for i := range cr.EGEs {
+		z(&cr.EGEs[i].SteamKgS)
+		z(&cr.EGEs[i].FuelSavedKgS)
+	}
+	for i := range cr.Consumers {
+		c := &cr.Consumers[i]
+		for _, v := range []*float64{&c.SteamKgS, &c.ReturnKgS, &c.LostKgS} {
+			z(v)
+		}
+	}
+	for i := range cr.Lines {
+		z(&cr.Lines[i].M)
+	}
+}

@@ -60,8 +60,10 @@ func (p *Plant) solverSettings() *solver.Settings {
 	if s.Factorizer == nil {
 		// A plant's Jacobian is sparse (each equation touches a few
 		// lines): the sparse LU is several times faster than the dense
-		// one at a plant's size. Each plant (and clone) has its own.
-		s.Factorizer = &solver.SparseLU{}
+		// one at a plant's size, and a minimum-degree column order on the
+		// pattern keeps its fill and its symbolic work small. Each plant
+		// (and clone) has its own.
+		s.Factorizer = &solver.SparseLU{MinDegree: true}
 	}
 	return &s
 }
@@ -532,5 +534,6 @@ func (p *Plant) report(cr *CaseResult) error {
 	eIn := b.energyIn + b.heatIn + b.workIn
 	eOut := b.energyOut + b.heatOut + b.workOut
 	cr.Balance.EnergyRel = closure(eIn, eOut, math.Max(eIn, eOut))
+	cr.clean()
 	return nil
 }
