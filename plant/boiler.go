@@ -384,7 +384,7 @@ func (u *Boiler) report(ev *eval, cr *CaseResult) error {
 	eta, warn := pt.Eta, pt.Warning
 	ms, mf := ev.m(u.steam), ev.m(u.feed)
 	mbd := mf - ms
-	hf, err := hLiquidSat(u.DrumP)
+	hf, err := u.mf.get1(u.DrumP, hLiquidSat)
 	if err != nil {
 		return wrapUnitErr(u, err)
 	}

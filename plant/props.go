@@ -8,15 +8,9 @@ import (
 // residuals. Each returns the water package's error, which names the bound
 // crossed; the caller wraps it with its unit.
 
-func hLiquidSat(p float64) (float64, error) {
-	s, err := water.SatLiquid(p)
-	return s.H, err
-}
+func hLiquidSat(p float64) (float64, error) { return water.HSatLiquid(p) }
 
-func hVapourSat(p float64) (float64, error) {
-	s, err := water.SatVapour(p)
-	return s.H, err
-}
+func hVapourSat(p float64) (float64, error) { return water.HSatVapour(p) }
 
 // hPX is the enthalpy of wet steam of dryness x at pressure p.
 func hPX(p, x float64) (float64, error) {

@@ -561,7 +561,7 @@ func (u *Header) report(ev *eval, cr *CaseResult) error {
 	md := 0.0
 	if u.drain >= 0 {
 		md = ev.x[u.drain]
-		hf, _ := hLiquidSat(p0)
+		hf, _ := u.mf.get1(p0, hLiquidSat)
 		cr.boundary.massOut += md
 		cr.boundary.energyOut += md * hf
 		cr.boundary.heatOut += u.HeatLoss
@@ -874,7 +874,7 @@ func (u *Consumer) guess(x []float64) {
 
 func (u *Consumer) report(ev *eval, cr *CaseResult) error {
 	p := ev.p(u.in)
-	hc, err := hCondensate(p, u.SubCooling)
+	hc, err := u.mc.get2(p, u.SubCooling, hCondensate)
 	if err != nil {
 		return wrapUnitErr(u, err)
 	}

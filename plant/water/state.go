@@ -327,3 +327,34 @@ func wet(fn string, p, t, x float64) (State, error) {
 	}
 	return mix(&l, &v, x), nil
 }
+
+// HSatLiquid returns the specific enthalpy (J/kg) of the saturated liquid
+// at pressure p (Pa): SatLiquid(p).H without the other properties, the
+// fast path the plant's units call in their residuals. It does not
+// allocate.
+func HSatLiquid(p float64) (float64, error) {
+	if err := checkSatP("HSatLiquid", p); err != nil {
+		return 0, err
+	}
+	t := tsat4(p)
+	if t <= t13 {
+		return h1(p, t), nil
+	}
+	l, err := SatLiquid(p)
+	return l.H, err
+}
+
+// HSatVapour returns the specific enthalpy (J/kg) of the saturated vapour
+// at pressure p (Pa): SatVapour(p).H without the other properties. It does
+// not allocate.
+func HSatVapour(p float64) (float64, error) {
+	if err := checkSatP("HSatVapour", p); err != nil {
+		return 0, err
+	}
+	t := tsat4(p)
+	if t <= t13 {
+		return h2(p, t), nil
+	}
+	v, err := SatVapour(p)
+	return v.H, err
+}
