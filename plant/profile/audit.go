@@ -7,7 +7,6 @@ import (
 	"math/rand/v2"
 	"runtime"
 	"sort"
-	"sync"
 
 	"steamcase/plant"
 )
@@ -116,64 +115,25 @@ func Audit(ctx context.Context, p *plant.Plant, days []Day, unc []Uncertain, opt
 	if workers <= 0 {
 		workers = runtime.GOMAXPROCS(0)
 	}
-	workers = min(workers, len(days))
-
 	out := &AuditResult{Days: make([]DayResult, len(days)), Samples: opt.Samples, Seed: opt.Seed,
 		LowQ: opt.Low, HighQ: opt.High, Uncertainties: unc}
-	ctx, cancel := context.WithCancel(ctx)
-	defer cancel()
-	jobs := make(chan int)
-	var (
-		mu       sync.Mutex
-		firstErr error
-		errDay   = len(days)
-		done     int
-		wg       sync.WaitGroup
-	)
-	for w := 0; w < workers; w++ {
-		pl := p
-		if w > 0 {
-			pl = p.Clone()
-		}
-		wg.Add(1)
-		go func(pl *plant.Plant) {
-			defer wg.Done()
-			fuel := make([]float64, opt.Samples)
-			for d := range jobs {
-				r, err := auditDay(ctx, pl, days[d], d, unc, opt, fuel)
-				if err != nil {
-					mu.Lock()
-					if d < errDay {
-						errDay, firstErr = d, fmt.Errorf("audit day %d (%s): %w", d+1, days[d].Date, err)
-					}
-					mu.Unlock()
-					cancel()
-					return
-				}
-				out.Days[d] = r
-				if opt.Progress != nil {
-					mu.Lock()
-					done++
-					opt.Progress(done, len(days))
-					mu.Unlock()
-				}
-			}
-		}(pl)
-	}
-feed:
-	for d := range days {
-		select {
-		case jobs <- d:
-		case <-ctx.Done():
-			break feed
+	done := 0
+	var progress func(int)
+	if opt.Progress != nil {
+		progress = func(int) {
+			done++
+			opt.Progress(done, len(days))
 		}
 	}
-	close(jobs)
-	wg.Wait()
-	if firstErr != nil {
-		return nil, firstErr
-	}
-	if err := ctx.Err(); err != nil {
+	err := forEach(ctx, p, len(days), workers, func(ctx context.Context, pl *plant.Plant, d int) error {
+		r, err := auditDay(ctx, pl, days[d], d, unc, opt, make([]float64, opt.Samples))
+		if err != nil {
+			return fmt.Errorf("audit day %d (%s): %w", d+1, days[d].Date, err)
+		}
+		out.Days[d] = r
+		return nil
+	}, progress)
+	if err != nil {
 		return nil, err
 	}
 	for _, d := range out.Days {

@@ -5,7 +5,6 @@ import (
 	"fmt"
 	"math"
 	"runtime"
-	"sync"
 
 	"steamcase/plant"
 )
@@ -119,68 +118,29 @@ func Run(ctx context.Context, p *plant.Plant, rows []Row, opt Options) (*Result,
 	opt.defaults()
 	res := make([]*plant.CaseResult, len(rows))
 	nChunks := (len(rows) + opt.ChunkRows - 1) / opt.ChunkRows
-	workers := min(opt.Workers, nChunks)
-
-	ctx, cancel := context.WithCancel(ctx)
-	defer cancel()
-	chunks := make(chan int)
-	var (
-		mu       sync.Mutex
-		firstErr error
-		errRow   = len(rows)
-		done     int
-		wg       sync.WaitGroup
-	)
-	fail := func(row int, err error) {
-		mu.Lock()
-		if row < errRow {
-			errRow, firstErr = row, err
+	chunk := func(c int) (lo, hi int) { return c * opt.ChunkRows, min((c+1)*opt.ChunkRows, len(rows)) }
+	done := 0
+	var progress func(int)
+	if opt.Progress != nil {
+		progress = func(c int) {
+			lo, hi := chunk(c)
+			done += hi - lo
+			opt.Progress(done, len(rows))
 		}
-		mu.Unlock()
-		cancel()
 	}
-	for w := 0; w < workers; w++ {
-		pl := p
-		if w > 0 {
-			pl = p.Clone()
-		}
-		wg.Add(1)
-		go func(pl *plant.Plant) {
-			defer wg.Done()
-			for c := range chunks {
-				pl.ColdStart()
-				lo, hi := c*opt.ChunkRows, min((c+1)*opt.ChunkRows, len(rows))
-				for i := lo; i < hi; i++ {
-					cr, err := pl.Solve(ctx, rows[i].Case)
-					if err != nil {
-						fail(i, fmt.Errorf("profile row %d (%s, %q): %w", i+1, rows[i].Phase, rows[i].Case.Name, err))
-						return
-					}
-					res[i] = cr
-				}
-				if opt.Progress != nil {
-					mu.Lock()
-					done += hi - lo
-					opt.Progress(done, len(rows))
-					mu.Unlock()
-				}
+	err := forEach(ctx, p, nChunks, opt.Workers, func(ctx context.Context, pl *plant.Plant, c int) error {
+		pl.ColdStart()
+		lo, hi := chunk(c)
+		for i := lo; i < hi; i++ {
+			cr, err := pl.Solve(ctx, rows[i].Case)
+			if err != nil {
+				return fmt.Errorf("profile row %d (%s, %q): %w", i+1, rows[i].Phase, rows[i].Case.Name, err)
 			}
-		}(pl)
-	}
-feed:
-	for c := 0; c < nChunks; c++ {
-		select {
-		case chunks <- c:
-		case <-ctx.Done():
-			break feed
+			res[i] = cr
 		}
-	}
-	close(chunks)
-	wg.Wait()
-	if firstErr != nil {
-		return nil, firstErr
-	}
-	if err := ctx.Err(); err != nil {
+		return nil
+	}, progress)
+	if err != nil {
 		return nil, err
 	}
 	return Sum(rows, res), nil
