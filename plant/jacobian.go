@@ -217,38 +217,15 @@ func (u *MakeUp) jacobian(ev *eval, j *mat.Dense) error {
 	return nil
 }
 
-// Branches of the feed tank's outlet temperature.
-const (
-	tankMix = iota // the mix of the inlets less the heat loss
-	tankSet        // held at the steam heating's set temperature
-	tankSat        // saturation at the tank pressure (the surplus vents)
-)
-
 func (u *FeedTank) jacobian(ev *eval, j *mat.Dense) error {
 	a := jacOf(j)
-	pt := u.pressure(ev)
-	pOut, hOut, mOut := ev.p(u.out), ev.h(u.out), ev.m(u.out)
-	var mIn, eIn float64
-	for _, l := range u.ins {
-		mIn += ev.m(l)
-		eIn += ev.m(l) * ev.h(l)
-	}
-	var mSt, hSt float64
-	if u.steam != nil {
-		mSt, hSt = ev.m(u.steam), ev.h(u.steam)
-	}
-	hf, err := u.mf.get1(pt, hLiquidSat)
+	t, err := u.evaluate(ev)
 	if err != nil {
 		return wrapUnitErr(u, err)
 	}
-	hg, err := u.mg.get1(pt, hVapourSat)
-	if err != nil {
-		return wrapUnitErr(u, err)
-	}
-	q, err := u.loss(pOut, hOut)
-	if err != nil {
-		return wrapUnitErr(u, err)
-	}
+	pOut, hOut, mOut := t.pOut, t.hOut, t.mOut
+	mSt, hSt, hg := t.mSt, t.hSt, t.hg
+	hMix, branch, heating := t.hMix, t.branch, t.heating
 	var dqdp, dqdh float64
 	if u.UA > 0 {
 		t0, err := u.mt.get2(pOut, hOut, tPH)
@@ -262,23 +239,7 @@ func (u *FeedTank) jacobian(ev *eval, j *mat.Dense) error {
 		dqdp, dqdh = u.UA*dtdp, u.UA*dtdh
 	}
 	ref := u.ins[0]
-	den := mIn + epsFlow
-	hMix := (eIn - q + epsFlow*ev.h(ref)) / den
-	target, branch := hMix, tankMix
-	heating := false
-	if u.steam != nil && u.SetT > 0 {
-		hSet, err := u.mset.get2(pt, u.SetT, hPT)
-		if err != nil {
-			return wrapUnitErr(u, err)
-		}
-		if hSet > target {
-			target, branch = hSet, tankSet
-		}
-		heating = hMix < hSet
-	}
-	if hf < target {
-		branch = tankSat
-	}
+	den := t.mIn + epsFlow
 
 	e := u.eqs
 	a.add(e[0], u.out.pIdx(), 1)

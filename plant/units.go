@@ -218,54 +218,77 @@ func (u *FeedTank) loss(p, h float64) (float64, error) {
 	return q, nil
 }
 
-func (u *FeedTank) residual(ev *eval, r []float64) error {
-	pt := u.pressure(ev)
-	pOut, hOut, mOut := ev.p(u.out), ev.h(u.out), ev.m(u.out)
-	mv := ev.x[u.vent]
-	var mIn, eIn float64
+// tankEval is the state of a feed tank at the present unknowns, shared by
+// its residual and its Jacobian.
+type tankEval struct {
+	pt, pOut, hOut, mOut float64 // tank pressure; outlet line
+	mIn, eIn             float64 // inflow and its enthalpy flow, heating steam apart
+	mSt, hSt             float64 // heating steam
+	hf, hg, q            float64 // saturation at the tank pressure; heat loss
+	hMix, hSet, target   float64 // the mix, the set point's enthalpy, the outlet's
+	branch               int     // which of the three sets the outlet
+	heating              bool    // steam heating is on
+}
+
+// The branches of the outlet enthalpy.
+const (
+	tankMix = iota // the mix of the inlets less the heat loss
+	tankSet        // held at the steam heating's set temperature
+	tankSat        // saturation at the tank pressure (the surplus vents)
+)
+
+func (u *FeedTank) evaluate(ev *eval) (tankEval, error) {
+	t := tankEval{pt: u.pressure(ev), pOut: ev.p(u.out), hOut: ev.h(u.out), mOut: ev.m(u.out)}
 	for _, l := range u.ins {
-		mIn += ev.m(l)
-		eIn += ev.m(l) * ev.h(l)
+		t.mIn += ev.m(l)
+		t.eIn += ev.m(l) * ev.h(l)
 	}
-	var mSt, hSt float64
 	if u.steam != nil {
-		mSt, hSt = ev.m(u.steam), ev.h(u.steam)
+		t.mSt, t.hSt = ev.m(u.steam), ev.h(u.steam)
 	}
-	hf, err := u.mf.get1(pt, hLiquidSat)
-	if err != nil {
-		return wrapUnitErr(u, err)
+	var err error
+	if t.hf, err = u.mf.get1(t.pt, hLiquidSat); err != nil {
+		return t, err
 	}
-	hg, err := u.mg.get1(pt, hVapourSat)
-	if err != nil {
-		return wrapUnitErr(u, err)
+	if t.hg, err = u.mg.get1(t.pt, hVapourSat); err != nil {
+		return t, err
 	}
-	q, err := u.loss(pOut, hOut)
-	if err != nil {
-		return wrapUnitErr(u, err)
+	if t.q, err = u.loss(t.pOut, t.hOut); err != nil {
+		return t, err
 	}
 	// The mix without heating steam and without venting.
-	ref := ev.h(u.ins[0])
-	hMix := (eIn - q + epsFlow*ref) / (mIn + epsFlow)
-	target := hMix
-	var hSet float64
+	t.hMix = (t.eIn - t.q + epsFlow*ev.h(u.ins[0])) / (t.mIn + epsFlow)
+	t.target, t.branch = t.hMix, tankMix
 	if u.steam != nil && u.SetT > 0 {
-		hSet, err = u.mset.get2(pt, u.SetT, hPT)
-		if err != nil {
-			return wrapUnitErr(u, err)
+		if t.hSet, err = u.mset.get2(t.pt, u.SetT, hPT); err != nil {
+			return t, err
 		}
-		target = math.Max(target, hSet)
+		if t.hSet > t.target {
+			t.target, t.branch = t.hSet, tankSet
+		}
+		t.heating = t.hMix < t.hSet
 	}
-	target = math.Min(target, hf)
+	if t.hf < t.target {
+		t.target, t.branch = t.hf, tankSat
+	}
+	return t, nil
+}
 
-	r[u.eqs[0]] = pOut - pt
-	r[u.eqs[1]] = mIn + mSt - mOut - mv
-	r[u.eqs[2]] = eIn + mSt*hSt - q - mOut*hOut - mv*hg
-	r[u.eqs[3]] = hOut - target
+func (u *FeedTank) residual(ev *eval, r []float64) error {
+	t, err := u.evaluate(ev)
+	if err != nil {
+		return wrapUnitErr(u, err)
+	}
+	mv := ev.x[u.vent]
+	r[u.eqs[0]] = t.pOut - t.pt
+	r[u.eqs[1]] = t.mIn + t.mSt - t.mOut - mv
+	r[u.eqs[2]] = t.eIn + t.mSt*t.hSt - t.q - t.mOut*t.hOut - mv*t.hg
+	r[u.eqs[3]] = t.hOut - t.target
 	if u.steam != nil {
-		if u.SetT > 0 && hMix < hSet {
+		if t.heating {
 			r[u.eqs[4]] = mv // heating: nothing vents
 		} else {
-			r[u.eqs[4]] = mSt // warm enough: no heating steam
+			r[u.eqs[4]] = t.mSt // warm enough: no heating steam
 		}
 	}
 	return nil
