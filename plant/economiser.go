@@ -194,17 +194,17 @@ func (u *Economiser) report(ev *eval, cr *CaseResult) error {
 	if hf, err := hLiquidSat(pOut); err == nil && ev.h(u.out) > hf {
 		cr.warn("%s %q: the feed water boils in the economiser (%.1f °C at %.2f bar(a)); an economiser must not steam", u.Kind(), u.Name, tOut-273.15, pOut/1e5)
 	}
-	cr.Units = append(cr.Units, UnitResult{Name: u.Name, Kind: u.Kind(), Figures: map[string]float64{
-		"duty_W":        res.Q,
-		"gas_kg_s":      g.m,
-		"gas_in_T_K":    g.tIn,
-		"gas_out_T_K":   res.HotOut,
-		"water_in_T_K":  tIn,
-		"water_out_T_K": tOut,
-		"approach_K":    ts - tOut,
-		"effectiveness": res.Eff,
-		"NTU":           res.NTU,
-		"UA_W_per_K":    u.ua(g.m),
+	cr.Units = append(cr.Units, UnitResult{Name: u.Name, Kind: u.Kind(), Figures: Figures{
+		{"duty_W", res.Q},
+		{"gas_kg_s", g.m},
+		{"gas_in_T_K", g.tIn},
+		{"gas_out_T_K", res.HotOut},
+		{"water_in_T_K", tIn},
+		{"water_out_T_K", tOut},
+		{"approach_K", ts - tOut},
+		{"effectiveness", res.Eff},
+		{"NTU", res.NTU},
+		{"UA_W_per_K", u.ua(g.m)},
 	}})
 	cr.boundary.heatIn += res.Q
 	u.last, u.lastGas = res, g

@@ -41,7 +41,7 @@ func TestEconomiser(t *testing.T) {
 	var eco map[string]float64
 	for _, u := range cr.Units {
 		if u.Name == "eco" {
-			eco = u.Figures
+			eco = u.Figures.Map()
 		}
 	}
 	b := cr.Boilers[0]

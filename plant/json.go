@@ -229,14 +229,10 @@ func (cr *CaseResult) JSON() CaseJSON {
 	}
 	for _, u := range cr.Units {
 		uj := UnitJSON{Name: u.Name, Kind: u.Kind, Figures: []FigureJSON{}}
-		keys := make([]string, 0, len(u.Figures))
-		for k := range u.Figures {
-			keys = append(keys, k)
+		for _, f := range u.Figures {
+			uj.Figures = append(uj.Figures, FigureJSON{Key: f.Key, Value: r6(f.Value)})
 		}
-		sort.Strings(keys)
-		for _, k := range keys {
-			uj.Figures = append(uj.Figures, FigureJSON{Key: k, Value: r6(u.Figures[k])})
-		}
+		sort.Slice(uj.Figures, func(a, b int) bool { return uj.Figures[a].Key < uj.Figures[b].Key })
 		j.Units = append(j.Units, uj)
 	}
 	for _, l := range cr.Lines {

@@ -96,7 +96,7 @@ func TestTurbineSteamRate(t *testing.T) {
 	var fig map[string]float64
 	for _, u := range cr.Units {
 		if u.Name == "cargo pump 1" {
-			fig = u.Figures
+			fig = u.Figures.Map()
 		}
 	}
 	within(t, "isentropic drop kJ/kg", fig["isentropic_drop_J_kg"]/1e3, 688.5, 0.003)
@@ -130,7 +130,7 @@ func TestFeedPumpPower(t *testing.T) {
 	var fig map[string]float64
 	for _, u := range cr.Units {
 		if u.Name == "fp" {
-			fig = u.Figures
+			fig = u.Figures.Map()
 		}
 	}
 	within(t, "pump shaft kW", fig["shaft_W"]/1e3, 5.135, 0.001)
@@ -193,7 +193,7 @@ func TestClosedPlantBalances(t *testing.T) {
 	}
 	for _, u := range cr.Units {
 		if u.Name == "main" {
-			used += u.Figures["drained_kg_s"]
+			used += u.Figures.Of("drained_kg_s")
 		}
 	}
 	within(t, "steam production", cr.SteamProductionKgS, used, 1e-9)
@@ -553,7 +553,7 @@ func TestObservationTank(t *testing.T) {
 	var obsT float64
 	for _, u := range cr.Units {
 		if u.Name == "obs" {
-			obsT = u.Figures["T_K"]
+			obsT = u.Figures.Of("T_K")
 			if u.Kind != "observation tank" {
 				t.Errorf("kind %q", u.Kind)
 			}

@@ -130,7 +130,41 @@ type ConsumerResult struct {
 type UnitResult struct {
 	Name    string
 	Kind    string
-	Figures map[string]float64
+	Figures Figures
+}
+
+// Figure is one named figure of a unit; the key carries its SI unit.
+type Figure struct {
+	Key   string
+	Value float64
+}
+
+// Figures are a unit's figures in the order the unit gives them.
+type Figures []Figure
+
+// Get returns the figure called key and whether the unit has it.
+func (f Figures) Get(key string) (float64, bool) {
+	for _, x := range f {
+		if x.Key == key {
+			return x.Value, true
+		}
+	}
+	return 0, false
+}
+
+// Of returns the figure called key, or 0 if the unit has none.
+func (f Figures) Of(key string) float64 {
+	v, _ := f.Get(key)
+	return v
+}
+
+// Map returns the figures as a map by key.
+func (f Figures) Map() map[string]float64 {
+	m := make(map[string]float64, len(f))
+	for _, x := range f {
+		m[x.Key] = x.Value
+	}
+	return m
 }
 
 // LineResult is the solved state of one line.

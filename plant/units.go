@@ -317,13 +317,13 @@ func (u *FeedTank) report(ev *eval, cr *CaseResult) error {
 	}
 	mv := ev.x[u.vent]
 	hg, _ := hVapourSat(pt)
-	ur := UnitResult{Name: u.Name, Kind: u.Kind(), Figures: map[string]float64{
-		"T_K":         t,
-		"heat_loss_W": q,
-		"vent_kg_s":   mv,
+	ur := UnitResult{Name: u.Name, Kind: u.Kind(), Figures: Figures{
+		{"T_K", t},
+		{"heat_loss_W", q},
+		{"vent_kg_s", mv},
 	}}
 	if u.steam != nil {
-		ur.Figures["heating_steam_kg_s"] = ev.m(u.steam)
+		ur.Figures = append(ur.Figures, Figure{"heating_steam_kg_s", ev.m(u.steam)})
 	}
 	cr.Units = append(cr.Units, ur)
 	cr.boundary.heatOut += q
@@ -452,11 +452,11 @@ func (u *FeedPump) report(ev *eval, cr *CaseResult) error {
 	m := ev.m(u.in)
 	shaft := m * (ev.h(u.out) - ev.h(u.in))
 	el := shaft / u.motorEta()
-	cr.Units = append(cr.Units, UnitResult{Name: u.Name, Kind: u.Kind(), Figures: map[string]float64{
-		"head_Pa":      ev.p(u.out) - ev.p(u.in),
-		"shaft_W":      shaft,
-		"electric_W":   el,
-		"discharge_Pa": ev.p(u.out),
+	cr.Units = append(cr.Units, UnitResult{Name: u.Name, Kind: u.Kind(), Figures: Figures{
+		{"head_Pa", ev.p(u.out) - ev.p(u.in)},
+		{"shaft_W", shaft},
+		{"electric_W", el},
+		{"discharge_Pa", ev.p(u.out)},
 	}})
 	cr.ElectricW += el
 	cr.boundary.workIn += shaft
@@ -596,12 +596,12 @@ func (u *Header) report(ev *eval, cr *CaseResult) error {
 				u.Kind(), u.Name, l.Name, ev.p(l)/1e5, u.ins[0].Name, p0/1e5)
 		}
 	}
-	cr.Units = append(cr.Units, UnitResult{Name: u.Name, Kind: u.Kind(), Figures: map[string]float64{
-		"p_Pa":         p0,
-		"flow_kg_s":    mIn,
-		"h_J_per_kg":   hMix,
-		"heat_loss_W":  u.HeatLoss,
-		"drained_kg_s": md,
+	cr.Units = append(cr.Units, UnitResult{Name: u.Name, Kind: u.Kind(), Figures: Figures{
+		{"p_Pa", p0},
+		{"flow_kg_s", mIn},
+		{"h_J_per_kg", hMix},
+		{"heat_loss_W", u.HeatLoss},
+		{"drained_kg_s", md},
 	}})
 	return nil
 }
@@ -663,10 +663,10 @@ func (u *ReducingValve) report(ev *eval, cr *CaseResult) error {
 		cr.warn("%s %q: inlet pressure %.2f bar(a) is below its set pressure %.2f bar(a); a reducing valve cannot raise pressure",
 			u.Kind(), u.Name, ev.p(u.in)/1e5, u.P/1e5)
 	}
-	cr.Units = append(cr.Units, UnitResult{Name: u.Name, Kind: u.Kind(), Figures: map[string]float64{
-		"flow_kg_s": ev.m(u.in),
-		"p_in_Pa":   ev.p(u.in),
-		"p_out_Pa":  ev.p(u.out),
+	cr.Units = append(cr.Units, UnitResult{Name: u.Name, Kind: u.Kind(), Figures: Figures{
+		{"flow_kg_s", ev.m(u.in)},
+		{"p_in_Pa", ev.p(u.in)},
+		{"p_out_Pa", ev.p(u.out)},
 	}})
 	return nil
 }
@@ -1044,11 +1044,11 @@ func (u *Turbine) report(ev *eval, cr *CaseResult) error {
 	if shaft > 0 {
 		rate = m / shaft * 3.6e6 // kg/kWh
 	}
-	cr.Units = append(cr.Units, UnitResult{Name: u.Name, Kind: u.Kind(), Figures: map[string]float64{
-		"shaft_W":               shaft,
-		"steam_kg_s":            m,
-		"isentropic_drop_J_kg":  dhs,
-		"steam_rate_kg_per_kWh": rate,
+	cr.Units = append(cr.Units, UnitResult{Name: u.Name, Kind: u.Kind(), Figures: Figures{
+		{"shaft_W", shaft},
+		{"steam_kg_s", m},
+		{"isentropic_drop_J_kg", dhs},
+		{"steam_rate_kg_per_kWh", rate},
 	}})
 	cr.Consumers = append(cr.Consumers, ConsumerResult{Name: u.Name, Kind: u.Kind(), DutyW: shaft, SteamKgS: m, ReturnKgS: m})
 	cr.boundary.workOut += m * (ev.h(u.in) - ev.h(u.out))
@@ -1142,9 +1142,9 @@ func (u *Condenser) guess(x []float64) {
 func (u *Condenser) report(ev *eval, cr *CaseResult) error {
 	m := ev.m(u.in)
 	duty := m * (ev.h(u.in) - ev.h(u.out))
-	cr.Units = append(cr.Units, UnitResult{Name: u.Name, Kind: u.Kind(), Figures: map[string]float64{
-		"duty_W":     duty,
-		"steam_kg_s": m,
+	cr.Units = append(cr.Units, UnitResult{Name: u.Name, Kind: u.Kind(), Figures: Figures{
+		{"duty_W", duty},
+		{"steam_kg_s", m},
 	}})
 	cr.boundary.heatOut += duty
 	if u.Dump {

@@ -306,7 +306,7 @@ func demandSeries(cases []Case) (map[string]plotter.Values, []string) {
 			listed += cs.SteamKgS
 		}
 		for _, u := range r.Units {
-			if m, ok := u.Figures[keyTankSteam]; ok && u.Kind == kindFeedTank {
+			if m, ok := u.Figures.Get(keyTankSteam); ok && u.Kind == kindFeedTank {
 				add(seriesTank, i, math.Max(0, m*kgh))
 				listed += m
 			}

@@ -116,20 +116,20 @@ func writeCase(w io.Writer, n, total int, c Case) {
 	}
 	for _, u := range r.Units {
 		if u.Kind == kindFeedTank {
-			if m, ok := u.Figures[keyTankSteam]; ok {
+			if m, ok := u.Figures.Get(keyTankSteam); ok {
 				fmt.Fprintf(tw, "      %s\t%s\t%10s\t%10s\t\n", u.Name, "feed tank heating", fix(m*kgh, 1), "")
 			}
 		}
 	}
 	for _, u := range r.Units {
-		if u.Kind == kindHeader && (u.Figures[keyDrained] != 0 || u.Figures["heat_loss_W"] != 0) {
-			fmt.Fprintf(tw, "      %s\t%s\t%10s\t%10s\t%s\n", u.Name, "header drains", fix(u.Figures[keyDrained]*kgh, 1),
-				fix(u.Figures["heat_loss_W"]/1e3, 1), "heat loss, drained and lost")
+		if u.Kind == kindHeader && (u.Figures.Of(keyDrained) != 0 || u.Figures.Of("heat_loss_W") != 0) {
+			fmt.Fprintf(tw, "      %s\t%s\t%10s\t%10s\t%s\n", u.Name, "header drains", fix(u.Figures.Of(keyDrained)*kgh, 1),
+				fix(u.Figures.Of("heat_loss_W")/1e3, 1), "heat loss, drained and lost")
 		}
 	}
 	for _, u := range r.Units {
 		if u.Kind == kindDump {
-			fmt.Fprintf(tw, "      %s\t%s\t%10s\t%10s\t\n", u.Name, "dumped", fix(u.Figures["steam_kg_s"]*kgh, 1), "")
+			fmt.Fprintf(tw, "      %s\t%s\t%10s\t%10s\t\n", u.Name, "dumped", fix(u.Figures.Of("steam_kg_s")*kgh, 1), "")
 		}
 	}
 	fmt.Fprintf(tw, "    demand\t\t%10s\t\t\n", fix(r.SteamDemandKgS*kgh, 1))
@@ -207,7 +207,7 @@ func headerDrains(r *plant.CaseResult) float64 {
 	var m float64
 	for _, u := range r.Units {
 		if u.Kind == kindHeader {
-			m += u.Figures[keyDrained]
+			m += u.Figures.Of(keyDrained)
 		}
 	}
 	return m
