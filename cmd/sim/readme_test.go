@@ -3,6 +3,7 @@ package main
 import (
 	"bytes"
 	"context"
+	"flag"
 	"os"
 	"path/filepath"
 	"strings"
@@ -47,5 +48,32 @@ func TestReadmeExample(t *testing.T) {
 		if !strings.Contains(out.String(), line) {
 			t.Errorf("README line not in the report:\n%s\nreport:\n%s", line, out.String())
 		}
+	}
+}
+
+// TestReadmeCommands keeps the README's command section in step with the
+// command table: every command is listed there, and every flag of each
+// command appears in its row or in the README's text.
+func TestReadmeCommands(t *testing.T) {
+	readme, err := os.ReadFile(filepath.Join("..", "..", "README.md"))
+	if err != nil {
+		t.Fatal(err)
+	}
+	s := string(readme)
+	i := strings.Index(s, "## Commands")
+	j := strings.Index(s[i+1:], "\n## ")
+	section := s[i : i+1+j]
+	for _, c := range commands() {
+		if !strings.Contains(section, "`sim "+c.Name) {
+			t.Errorf("README's command section does not list sim %s", c.Name)
+		}
+		if c.Flags == nil {
+			continue
+		}
+		c.Flags().VisitAll(func(f *flag.Flag) {
+			if !strings.Contains(s, "--"+f.Name) && !strings.Contains(s, "-"+f.Name+" ") && !strings.Contains(s, "`-"+f.Name) {
+				t.Errorf("README does not mention flag %s of sim %s", f.Name, c.Name)
+			}
+		})
 	}
 }
