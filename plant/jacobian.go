@@ -410,22 +410,25 @@ func (u *Consumer) jacobian(ev *eval, j *mat.Dense) error {
 func (u *Turbine) jacobian(ev *eval, j *mat.Dense) error {
 	a := jacOf(j)
 	pIn, hIn, pOut := ev.p(u.in), ev.h(u.in), ev.p(u.out)
-	s, err := u.ms.get2(pIn, hIn, water.SPH)
-	if err != nil {
-		return wrapUnitErr(u, err)
+	key := [3]float64{pIn, hIn, pOut}
+	if !u.jset || u.jkey != key {
+		s, err := u.ms.get2(pIn, hIn, water.SPH)
+		if err != nil {
+			return wrapUnitErr(u, err)
+		}
+		in, err := water.PH(pIn, hIn)
+		if err != nil {
+			return wrapUnitErr(u, err)
+		}
+		out, err := water.PS(pOut, s)
+		if err != nil {
+			return wrapUnitErr(u, err)
+		}
+		// h_s = h(p_out, s(p_in, h_in)) by dh = T·ds + v·dp at both ends.
+		u.jval = [3]float64{out.T / in.T, -out.T * in.V / in.T, out.V}
+		u.jkey, u.jset = key, true
 	}
-	in, err := water.PH(pIn, hIn)
-	if err != nil {
-		return wrapUnitErr(u, err)
-	}
-	out, err := water.PS(pOut, s)
-	if err != nil {
-		return wrapUnitErr(u, err)
-	}
-	// h_s = h(p_out, s(p_in, h_in)) by dh = T·ds + v·dp at both ends.
-	dhsdh := out.T / in.T
-	dhsdp := -out.T * in.V / in.T
-	dhsdpo := out.V
+	dhsdh, dhsdp, dhsdpo := u.jval[0], u.jval[1], u.jval[2]
 	em := u.etaMech()
 	m := ev.m(u.in)
 	a.add(u.eqs[0], u.out.pIdx(), 1)

@@ -960,6 +960,10 @@ type Turbine struct {
 	in, out *Line
 	eqs     [4]int
 	ms, mhs memo
+	// The Jacobian's derivatives of the isentropic enthalpy, memoised by
+	// (p_in, h_in, p_out): a turbine that is off keeps its state.
+	jkey, jval [3]float64
+	jset       bool
 }
 
 // Kind returns "steam turbine".
