@@ -119,34 +119,12 @@ func dProp1(f func(float64) (float64, error), a, f0 float64) (float64, error) {
 
 // dPropA is ∂f(a, b)/∂a by a one-sided difference of f alone, as dProp1.
 func dPropA(f func(a, b float64) (float64, error), a, b, f0 float64) (float64, error) {
-	h := propStep(a)
-	ap := a + h
-	fp, err := f(ap, b)
-	if err == nil {
-		return (fp - f0) / (ap - a), nil
-	}
-	am := a - h
-	fm, err2 := f(am, b)
-	if err2 == nil {
-		return (f0 - fm) / (a - am), nil
-	}
-	return 0, err
+	return dProp1(func(x float64) (float64, error) { return f(x, b) }, a, f0)
 }
 
 // dPropB is ∂f(a, b)/∂b by a one-sided difference of f alone, as dProp1.
 func dPropB(f func(a, b float64) (float64, error), a, b, f0 float64) (float64, error) {
-	h := propStep(b)
-	bp := b + h
-	fp, err := f(a, bp)
-	if err == nil {
-		return (fp - f0) / (bp - b), nil
-	}
-	bm := b - h
-	fm, err2 := f(a, bm)
-	if err2 == nil {
-		return (f0 - fm) / (b - bm), nil
-	}
-	return 0, err
+	return dProp1(func(x float64) (float64, error) { return f(a, x) }, b, f0)
 }
 
 // dProp2 returns both partial derivatives of f(a, b), as dProp1.
