@@ -256,13 +256,7 @@ func (flowTicks) Ticks(lo, hi float64) []plot.Tick {
 	if !(hi > lo) {
 		return []plot.Tick{{Value: lo, Label: fix(lo, 0)}}
 	}
-	step := math.Pow(10, math.Floor(math.Log10((hi-lo)/5)))
-	for _, m := range []float64{1, 2, 5, 10} {
-		if (hi-lo)/(step*m) <= 10 {
-			step *= m
-			break
-		}
-	}
+	step := roundStep(lo, hi)
 	var ticks []plot.Tick
 	for v := math.Ceil(lo/step) * step; v <= hi+step*1e-9; v += step {
 		ticks = append(ticks, plot.Tick{Value: v, Label: fix(v, 0)})
@@ -273,6 +267,18 @@ func (flowTicks) Ticks(lo, hi float64) []plot.Tick {
 		}
 	}
 	return ticks
+}
+
+// roundStep is the step, 1, 2 or 5 times a power of ten, that cuts
+// lo..hi (hi > lo) into five to ten parts.
+func roundStep(lo, hi float64) float64 {
+	step := math.Pow(10, math.Floor(math.Log10((hi-lo)/5)))
+	for _, m := range []float64{1, 2, 5, 10} {
+		if (hi-lo)/(step*m) <= 10 {
+			return step * m
+		}
+	}
+	return step * 10
 }
 
 func samePlant(cases []Case) bool {

@@ -359,13 +359,7 @@ func (decimalTicks) Ticks(lo, hi float64) []plot.Tick {
 	if !(hi > lo) {
 		return []plot.Tick{{Value: lo, Label: fix(lo, 0)}}
 	}
-	step := math.Pow(10, math.Floor(math.Log10((hi-lo)/5)))
-	for _, m := range []float64{1, 2, 5, 10} {
-		if (hi-lo)/(step*m) <= 10 {
-			step *= m
-			break
-		}
-	}
+	step := roundStep(lo, hi)
 	dec := max(0, int(-math.Floor(math.Log10(step)+1e-9)))
 	var ticks []plot.Tick
 	for k := math.Ceil(lo/step - 1e-9); k*step <= hi+step*1e-9; k++ {
