@@ -18,15 +18,15 @@ func egeEngine() EngineExhaust {
 func egeOnly(t testing.TB, n float64) (*Plant, *ExhaustGasEconomiser) {
 	p := New("EGE check", Options{})
 	drum := gauge(7)
-	e := &ExhaustGasEconomiser{UnitBase: UnitBase{Name: "ege"}, Engine: egeEngine(), DrumP: drum,
+	e := &ExhaustGasEconomiser{Base: Base{Name: "ege"}, Engine: egeEngine(), DrumP: drum,
 		DesignLoad: 1, DesignPinch: 15, GasCp: 1060, Exponent: n}
 	ts, err := waterTsat(drum)
 	must(t, err)
-	must(t, p.Add(&MakeUp{UnitBase: UnitBase{Name: "makeup"}, T: 333.15, P: 1e5}))
-	must(t, p.Add(&FeedTank{UnitBase: UnitBase{Name: "hotwell"}, P: 1e5}))
+	must(t, p.Add(&MakeUp{Base: Base{Name: "makeup"}, T: 333.15, P: 1e5}))
+	must(t, p.Add(&FeedTank{Base: Base{Name: "hotwell"}, P: 1e5}))
 	must(t, p.Add(e))
-	must(t, p.Add(&Header{UnitBase: UnitBase{Name: "main"}}))
-	must(t, p.Add(&Condenser{UnitBase: UnitBase{Name: "dump"}, Dump: true, SubCooling: ts - 333.15}))
+	must(t, p.Add(&Header{Base: Base{Name: "main"}}))
+	must(t, p.Add(&Condenser{Base: Base{Name: "dump"}, Dump: true, SubCooling: ts - 333.15}))
 	p.Connect("mu", Pos{}, "makeup", "out", "hotwell", "in")
 	p.Connect("feed", Pos{}, "hotwell", "out", "ege", "feed")
 	p.Connect("steam", Pos{}, "ege", "steam", "main", "in")
@@ -116,16 +116,16 @@ func TestEGEFuelSaved(t *testing.T) {
 	// Q_EGE/(η·LCV) exactly, whatever the boiler's load.
 	p := New("EGE saving", Options{})
 	drum := gauge(7)
-	must(t, p.Add(&MakeUp{UnitBase: UnitBase{Name: "makeup"}, T: 333.15, P: 1e5}))
-	must(t, p.Add(&FeedTank{UnitBase: UnitBase{Name: "hotwell"}, P: 1e5}))
-	must(t, p.Add(&Header{UnitBase: UnitBase{Name: "feed header"}}))
-	must(t, p.Add(&ExhaustGasEconomiser{UnitBase: UnitBase{Name: "ege"}, Engine: egeEngine(), DrumP: drum,
+	must(t, p.Add(&MakeUp{Base: Base{Name: "makeup"}, T: 333.15, P: 1e5}))
+	must(t, p.Add(&FeedTank{Base: Base{Name: "hotwell"}, P: 1e5}))
+	must(t, p.Add(&Header{Base: Base{Name: "feed header"}}))
+	must(t, p.Add(&ExhaustGasEconomiser{Base: Base{Name: "ege"}, Engine: egeEngine(), DrumP: drum,
 		DesignLoad: 1, DesignPinch: 15, GasCp: 1060}))
-	must(t, p.Add(&Boiler{UnitBase: UnitBase{Name: "b1"}, MCR: 10000.0 / 3600, DrumP: drum,
+	must(t, p.Add(&Boiler{Base: Base{Name: "b1"}, MCR: 10000.0 / 3600, DrumP: drum,
 		Efficiency: flatEta(0.85), Fuel: FuelSpec{Name: "HFO", LHV: 40.2e6, CO2Factor: 3.114}}))
-	must(t, p.Add(&Header{UnitBase: UnitBase{Name: "main"}}))
-	must(t, p.Add(&Consumer{UnitBase: UnitBase{Name: "heating"}, SteamFlow: 5000.0 / 3600}))
-	must(t, p.Add(&Condenser{UnitBase: UnitBase{Name: "dump"}, Dump: true}))
+	must(t, p.Add(&Header{Base: Base{Name: "main"}}))
+	must(t, p.Add(&Consumer{Base: Base{Name: "heating"}, SteamFlow: 5000.0 / 3600}))
+	must(t, p.Add(&Condenser{Base: Base{Name: "dump"}, Dump: true}))
 	p.Connect("mu", Pos{}, "makeup", "out", "hotwell", "in")
 	p.Connect("feed", Pos{}, "hotwell", "out", "feed header", "in")
 	p.Connect("ege feed", Pos{}, "feed header", "out", "ege", "feed")

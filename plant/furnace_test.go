@@ -108,9 +108,9 @@ func TestFurnaceBoilerInPlant(t *testing.T) {
 	// The physics model inside a plant: the efficiency follows the solved
 	// fuel flow, and the balances close.
 	p := New("fire-tube", Options{})
-	must(t, p.Add(&MakeUp{UnitBase: UnitBase{Name: "makeup"}, T: 333.15, P: 1e5}))
-	must(t, p.Add(&Boiler{UnitBase: UnitBase{Name: "b1"}, MCR: 2000.0 / 3600, DrumP: gauge(7), Efficiency: smallFireTube(), Fuel: hsfo(t)}))
-	must(t, p.Add(&Consumer{UnitBase: UnitBase{Name: "load"}, SteamFlow: 1500.0 / 3600}))
+	must(t, p.Add(&MakeUp{Base: Base{Name: "makeup"}, T: 333.15, P: 1e5}))
+	must(t, p.Add(&Boiler{Base: Base{Name: "b1"}, MCR: 2000.0 / 3600, DrumP: gauge(7), Efficiency: smallFireTube(), Fuel: hsfo(t)}))
+	must(t, p.Add(&Consumer{Base: Base{Name: "load"}, SteamFlow: 1500.0 / 3600}))
 	p.Connect("feed", Pos{}, "makeup", "out", "b1", "feed")
 	p.Connect("steam", Pos{}, "b1", "steam", "load", "in")
 	cr, err := p.Solve(context.Background(), Case{Name: "75 %", Conditions: Conditions{AirT: 308.15}})

@@ -37,10 +37,10 @@ func within(t *testing.T, what string, got, want, relTol float64) {
 // raises saturated steam at 7 bar(g) for a consumer taking a set flow.
 func boilerOnly(t testing.TB) *Plant {
 	p := New("fuel check", Options{})
-	must(t, p.Add(&MakeUp{UnitBase: UnitBase{Name: "makeup"}, T: 333.15, P: 1e5}))
-	must(t, p.Add(&Boiler{UnitBase: UnitBase{Name: "b1"}, MCR: 4, DrumP: gauge(7),
+	must(t, p.Add(&MakeUp{Base: Base{Name: "makeup"}, T: 333.15, P: 1e5}))
+	must(t, p.Add(&Boiler{Base: Base{Name: "b1"}, MCR: 4, DrumP: gauge(7),
 		Efficiency: flatEta(0.85), Fuel: FuelSpec{Name: "HFO", LHV: 40.2e6, CO2Factor: 3.114}}))
-	must(t, p.Add(&Consumer{UnitBase: UnitBase{Name: "load"}, SteamFlow: 10000.0 / 3600}))
+	must(t, p.Add(&Consumer{Base: Base{Name: "load"}, SteamFlow: 10000.0 / 3600}))
 	p.Connect("feed", Pos{}, "makeup", "out", "b1", "feed")
 	p.Connect("steam", Pos{}, "b1", "steam", "load", "in")
 	return p
@@ -70,13 +70,13 @@ func TestBoilerFuelPerDay(t *testing.T) {
 // condenser at 0.2 bar(a), whose condensate returns to the feed tank.
 func turbinePlant(t testing.TB) *Plant {
 	p := New("turbine check", Options{})
-	must(t, p.Add(&MakeUp{UnitBase: UnitBase{Name: "makeup"}, T: 303.15}))
-	must(t, p.Add(&FeedTank{UnitBase: UnitBase{Name: "hotwell"}}))
-	must(t, p.Add(&FeedPump{UnitBase: UnitBase{Name: "fp"}, Boilers: []string{"b1"}, Margin: 2 * bar, Eta: 0.5}))
-	must(t, p.Add(&Boiler{UnitBase: UnitBase{Name: "b1"}, MCR: 10, DrumP: gauge(16),
+	must(t, p.Add(&MakeUp{Base: Base{Name: "makeup"}, T: 303.15}))
+	must(t, p.Add(&FeedTank{Base: Base{Name: "hotwell"}}))
+	must(t, p.Add(&FeedPump{Base: Base{Name: "fp"}, Boilers: []string{"b1"}, Margin: 2 * bar, Eta: 0.5}))
+	must(t, p.Add(&Boiler{Base: Base{Name: "b1"}, MCR: 10, DrumP: gauge(16),
 		Efficiency: flatEta(0.85), Fuel: FuelSpec{Name: "HFO", LHV: 40.2e6, CO2Factor: 3.114}}))
-	must(t, p.Add(&Turbine{UnitBase: UnitBase{Name: "cargo pump 1"}, Power: 1e6, ExhaustP: 0.2 * bar, EtaIs: 0.65, EtaMech: 0.95}))
-	must(t, p.Add(&Condenser{UnitBase: UnitBase{Name: "vac cond"}}))
+	must(t, p.Add(&Turbine{Base: Base{Name: "cargo pump 1"}, Power: 1e6, ExhaustP: 0.2 * bar, EtaIs: 0.65, EtaMech: 0.95}))
+	must(t, p.Add(&Condenser{Base: Base{Name: "vac cond"}}))
 	p.Connect("makeup", Pos{}, "makeup", "out", "hotwell", "in")
 	p.Connect("suction", Pos{}, "hotwell", "out", "fp", "in")
 	p.Connect("feed", Pos{}, "fp", "out", "b1", "feed")
@@ -115,12 +115,12 @@ func TestFeedPumpPower(t *testing.T) {
 	// plant-checks.md §9 [C]: 10 t/h at 60 °C, Δp 10 bar, η 0.55:
 	// P_hyd 2.824 kW, shaft 5.135 kW (the issue quotes 5.14 kW).
 	p := New("pump check", Options{})
-	must(t, p.Add(&MakeUp{UnitBase: UnitBase{Name: "makeup"}, T: 333.15, P: 1e5}))
-	must(t, p.Add(&FeedTank{UnitBase: UnitBase{Name: "tank"}, P: 1e5}))
-	must(t, p.Add(&FeedPump{UnitBase: UnitBase{Name: "fp"}, Discharge: 11 * bar, Eta: 0.55}))
-	must(t, p.Add(&Boiler{UnitBase: UnitBase{Name: "b1"}, MCR: 4, DrumP: 10 * bar,
+	must(t, p.Add(&MakeUp{Base: Base{Name: "makeup"}, T: 333.15, P: 1e5}))
+	must(t, p.Add(&FeedTank{Base: Base{Name: "tank"}, P: 1e5}))
+	must(t, p.Add(&FeedPump{Base: Base{Name: "fp"}, Discharge: 11 * bar, Eta: 0.55}))
+	must(t, p.Add(&Boiler{Base: Base{Name: "b1"}, MCR: 4, DrumP: 10 * bar,
 		Efficiency: flatEta(0.85), Fuel: FuelSpec{LHV: 40.2e6}}))
-	must(t, p.Add(&Consumer{UnitBase: UnitBase{Name: "load"}, SteamFlow: 10000.0 / 3600}))
+	must(t, p.Add(&Consumer{Base: Base{Name: "load"}, SteamFlow: 10000.0 / 3600}))
 	p.Connect("mu", Pos{}, "makeup", "out", "tank", "in")
 	p.Connect("suction", Pos{}, "tank", "out", "fp", "in")
 	p.Connect("feed", Pos{}, "fp", "out", "b1", "feed")
@@ -144,17 +144,17 @@ func twoBoilers(t testing.TB, opt Options) *Plant {
 	p := New("two boilers", opt)
 	fuel := FuelSpec{Name: "HFO", LHV: 40.2e6, CO2Factor: 3.114}
 	eta := &EfficiencyTable{Load: []float64{0.25, 0.5, 0.75, 1.0}, Eta: []float64{0.80, 0.84, 0.85, 0.845}}
-	must(t, p.Add(&MakeUp{UnitBase: UnitBase{Name: "makeup"}, T: 288.15}))
-	must(t, p.Add(&FeedTank{UnitBase: UnitBase{Name: "hotwell"}, HeatLoss: 5e3}))
-	must(t, p.Add(&FeedPump{UnitBase: UnitBase{Name: "fp"}, Boilers: []string{"b1", "b2"}, Margin: 3 * bar, Eta: 0.45}))
-	must(t, p.Add(&Header{UnitBase: UnitBase{Name: "feed header"}}))
-	must(t, p.Add(&Boiler{UnitBase: UnitBase{Name: "b1"}, MCR: 10000.0 / 3600, DrumP: gauge(7), Turndown: 4,
+	must(t, p.Add(&MakeUp{Base: Base{Name: "makeup"}, T: 288.15}))
+	must(t, p.Add(&FeedTank{Base: Base{Name: "hotwell"}, HeatLoss: 5e3}))
+	must(t, p.Add(&FeedPump{Base: Base{Name: "fp"}, Boilers: []string{"b1", "b2"}, Margin: 3 * bar, Eta: 0.45}))
+	must(t, p.Add(&Header{Base: Base{Name: "feed header"}}))
+	must(t, p.Add(&Boiler{Base: Base{Name: "b1"}, MCR: 10000.0 / 3600, DrumP: gauge(7), Turndown: 4,
 		Blowdown: 0.01, Dryness: 0.98, Efficiency: eta, Fuel: fuel}))
-	must(t, p.Add(&Boiler{UnitBase: UnitBase{Name: "b2"}, MCR: 10000.0 / 3600, DrumP: gauge(7), Turndown: 4,
+	must(t, p.Add(&Boiler{Base: Base{Name: "b2"}, MCR: 10000.0 / 3600, DrumP: gauge(7), Turndown: 4,
 		Blowdown: 0.01, Dryness: 0.98, Efficiency: eta, Fuel: fuel}))
-	must(t, p.Add(&Header{UnitBase: UnitBase{Name: "main"}, HeatLoss: 10e3}))
-	must(t, p.Add(&Consumer{UnitBase: UnitBase{Name: "heating"}, Duty: 2e6, SubCooling: 10, ReturnFraction: 0.95}))
-	must(t, p.Add(&Consumer{UnitBase: UnitBase{Name: "sundry"}, SteamFlow: 0.1}))
+	must(t, p.Add(&Header{Base: Base{Name: "main"}, HeatLoss: 10e3}))
+	must(t, p.Add(&Consumer{Base: Base{Name: "heating"}, Duty: 2e6, SubCooling: 10, ReturnFraction: 0.95}))
+	must(t, p.Add(&Consumer{Base: Base{Name: "sundry"}, SteamFlow: 0.1}))
 	p.Connect("makeup", Pos{}, "makeup", "out", "hotwell", "in")
 	p.Connect("suction", Pos{}, "hotwell", "out", "fp", "in")
 	p.Connect("discharge", Pos{}, "fp", "out", "feed header", "in")
@@ -207,7 +207,7 @@ func TestClosedPlantBalances(t *testing.T) {
 func demandCase(name string, kgh float64) Case {
 	return Case{Name: name, Set: []Setting{
 		{Unit: "heating", Param: "duty", Value: 0},
-		{Unit: "sundry", Param: "steam_flow", Value: kgh / 3600},
+		{Unit: "sundry", Param: "steam", Value: kgh / 3600},
 	}}
 }
 
@@ -294,8 +294,8 @@ func TestGraphFaults(t *testing.T) {
 		{
 			name: "missing connection",
 			build: func(p *Plant) {
-				must(t, p.Add(&MakeUp{UnitBase: UnitBase{Name: "makeup"}, T: 300}))
-				must(t, p.Add(&Boiler{UnitBase: UnitBase{Name: "b1"}, MCR: 1, DrumP: 8e5, Efficiency: flatEta(0.85), Fuel: FuelSpec{LHV: 40e6}}))
+				must(t, p.Add(&MakeUp{Base: Base{Name: "makeup"}, T: 300}))
+				must(t, p.Add(&Boiler{Base: Base{Name: "b1"}, MCR: 1, DrumP: 8e5, Efficiency: flatEta(0.85), Fuel: FuelSpec{LHV: 40e6}}))
 				p.Connect("feed", Pos{File: "ship.lua", Line: 7}, "makeup", "out", "b1", "feed")
 			},
 			want: []string{`unit "b1"`, `outlet "steam" is not connected`},
@@ -303,8 +303,8 @@ func TestGraphFaults(t *testing.T) {
 		{
 			name: "unknown port and medium",
 			build: func(p *Plant) {
-				must(t, p.Add(&MakeUp{UnitBase: UnitBase{Name: "makeup"}, T: 300}))
-				must(t, p.Add(&Consumer{UnitBase: UnitBase{Name: "c"}, Duty: 1}))
+				must(t, p.Add(&MakeUp{Base: Base{Name: "makeup"}, T: 300}))
+				must(t, p.Add(&Consumer{Base: Base{Name: "c"}, Duty: 1}))
 				p.Connect("x", Pos{File: "ship.lua", Line: 9}, "makeup", "out", "c", "steam")
 			},
 			want: []string{"ship.lua:9", `has no inlet "steam"`, `"in"`},
@@ -314,10 +314,10 @@ func TestGraphFaults(t *testing.T) {
 			// A back-pressure turbine's power sets its steam flow, and the
 			// consumer it exhausts into has a set steam flow too.
 			build: func(p *Plant) {
-				must(t, p.Add(&MakeUp{UnitBase: UnitBase{Name: "makeup"}, T: 300}))
-				must(t, p.Add(&Boiler{UnitBase: UnitBase{Name: "b1"}, MCR: 1, DrumP: 8e5, Efficiency: flatEta(0.85), Fuel: FuelSpec{LHV: 40e6}}))
-				must(t, p.Add(&Turbine{UnitBase: UnitBase{Name: "tg"}, Power: 1e5, ExhaustP: 3e5, EtaIs: 0.6}))
-				must(t, p.Add(&Consumer{UnitBase: UnitBase{Name: "lp user"}, SteamFlow: 0.1}))
+				must(t, p.Add(&MakeUp{Base: Base{Name: "makeup"}, T: 300}))
+				must(t, p.Add(&Boiler{Base: Base{Name: "b1"}, MCR: 1, DrumP: 8e5, Efficiency: flatEta(0.85), Fuel: FuelSpec{LHV: 40e6}}))
+				must(t, p.Add(&Turbine{Base: Base{Name: "tg"}, Power: 1e5, ExhaustP: 3e5, EtaIs: 0.6}))
+				must(t, p.Add(&Consumer{Base: Base{Name: "lp user"}, SteamFlow: 0.1}))
 				p.Connect("feed", Pos{}, "makeup", "out", "b1", "feed")
 				p.Connect("hp", Pos{}, "b1", "steam", "tg", "in")
 				p.Connect("bp", Pos{}, "tg", "out", "lp user", "in")
@@ -327,10 +327,10 @@ func TestGraphFaults(t *testing.T) {
 		{
 			name: "free pressure",
 			build: func(p *Plant) {
-				must(t, p.Add(&MakeUp{UnitBase: UnitBase{Name: "makeup"}, T: 300}))
-				must(t, p.Add(&FeedPump{UnitBase: UnitBase{Name: "fp"}, Eta: 0.5}))
-				must(t, p.Add(&Boiler{UnitBase: UnitBase{Name: "b1"}, MCR: 1, DrumP: 8e5, Efficiency: flatEta(0.85), Fuel: FuelSpec{LHV: 40e6}}))
-				must(t, p.Add(&Consumer{UnitBase: UnitBase{Name: "c"}, Duty: 1e5}))
+				must(t, p.Add(&MakeUp{Base: Base{Name: "makeup"}, T: 300}))
+				must(t, p.Add(&FeedPump{Base: Base{Name: "fp"}, Eta: 0.5}))
+				must(t, p.Add(&Boiler{Base: Base{Name: "b1"}, MCR: 1, DrumP: 8e5, Efficiency: flatEta(0.85), Fuel: FuelSpec{LHV: 40e6}}))
+				must(t, p.Add(&Consumer{Base: Base{Name: "c"}, Duty: 1e5}))
 				p.Connect("a", Pos{}, "makeup", "out", "fp", "in")
 				p.Connect("b", Pos{}, "fp", "out", "b1", "feed")
 				p.Connect("c", Pos{}, "b1", "steam", "c", "in")
@@ -457,6 +457,8 @@ func BenchmarkCaseWarm(b *testing.B) {
 
 type fixedModel struct{ w float64 }
 
+func (m fixedModel) Clone() DutyModel { return m }
+
 func (m fixedModel) Duty(c Conditions) (Duty, error) {
 	// Duty proportional to how far the air is below 20 °C, as a stand-in
 	// for an accommodation-heating model.
@@ -469,9 +471,9 @@ func TestCoupledConsumers(t *testing.T) {
 	// solved with the plant, so the heater's duty equals DutyPerFuel times
 	// the solved fuel flow (common practice to model it so, no source).
 	p := twoBoilers(t, Options{})
-	must(t, p.Add(&Consumer{UnitBase: UnitBase{Name: "b1 fo heater"}, FuelOf: "b1", DutyPerFuel: 2.0e5, ReturnFraction: 1, Label: "fuel oil heater"}))
-	must(t, p.Add(&Consumer{UnitBase: UnitBase{Name: "b1 atomising"}, FuelOf: "b1", SteamPerFuel: 0.3, Label: "atomising steam"}))
-	must(t, p.Add(&Consumer{UnitBase: UnitBase{Name: "accommodation"}, Model: fixedModel{w: 20e3}, ReturnFraction: 1}))
+	must(t, p.Add(&Consumer{Base: Base{Name: "b1 fo heater"}, FuelOf: "b1", DutyPerFuel: 2.0e5, ReturnFraction: 1, Label: "fuel oil heater"}))
+	must(t, p.Add(&Consumer{Base: Base{Name: "b1 atomising"}, FuelOf: "b1", SteamPerFuel: 0.3, Label: "atomising steam"}))
+	must(t, p.Add(&Consumer{Base: Base{Name: "accommodation"}, Model: fixedModel{w: 20e3}, ReturnFraction: 1}))
 	p.Connect("to fo heater", Pos{}, "main", "out", "b1 fo heater", "in")
 	p.Connect("fo heater return", Pos{}, "b1 fo heater", "out", "hotwell", "in")
 	p.Connect("to atomising", Pos{}, "main", "out", "b1 atomising", "in")
@@ -502,7 +504,7 @@ func TestEmptyPlant(t *testing.T) {
 	}
 	// A unit whose ports are all optional or unconnected still fails
 	// cleanly: a make-up with nowhere to go.
-	must(t, p.Add(&MakeUp{UnitBase: UnitBase{Name: "makeup"}, T: 300}))
+	must(t, p.Add(&MakeUp{Base: Base{Name: "makeup"}, T: 300}))
 	if err := p.Check(); err == nil || !strings.Contains(err.Error(), "not connected") {
 		t.Errorf("lone make-up: %v", err)
 	}
@@ -531,12 +533,12 @@ func TestObservationTank(t *testing.T) {
 	// the tank's temperature is not reported as the feed's.
 	p := New("observation", Options{})
 	fuel := FuelSpec{Name: "HFO", LHV: 40.2e6, CO2Factor: 3.114}
-	must(t, p.Add(&MakeUp{UnitBase: UnitBase{Name: "makeup"}, T: 288.15}))
-	must(t, p.Add(&FeedTank{UnitBase: UnitBase{Name: "hotwell"}}))
-	must(t, p.Add(&FeedTank{UnitBase: UnitBase{Name: "obs"}, Observation: true, HeatLoss: 3e3}))
-	must(t, p.Add(&FeedPump{UnitBase: UnitBase{Name: "fp"}, Boilers: []string{"b1"}, Margin: 2e5, Eta: 0.5}))
-	must(t, p.Add(&Boiler{UnitBase: UnitBase{Name: "b1"}, MCR: 3, DrumP: gauge(7), Efficiency: flatEta(0.85), Fuel: fuel}))
-	must(t, p.Add(&Consumer{UnitBase: UnitBase{Name: "heating"}, Duty: 1e6, ReturnFraction: 1}))
+	must(t, p.Add(&MakeUp{Base: Base{Name: "makeup"}, T: 288.15}))
+	must(t, p.Add(&FeedTank{Base: Base{Name: "hotwell"}}))
+	must(t, p.Add(&FeedTank{Base: Base{Name: "obs"}, Observation: true, HeatLoss: 3e3}))
+	must(t, p.Add(&FeedPump{Base: Base{Name: "fp"}, Boilers: []string{"b1"}, Margin: 2e5, Eta: 0.5}))
+	must(t, p.Add(&Boiler{Base: Base{Name: "b1"}, MCR: 3, DrumP: gauge(7), Efficiency: flatEta(0.85), Fuel: fuel}))
+	must(t, p.Add(&Consumer{Base: Base{Name: "heating"}, Duty: 1e6, ReturnFraction: 1}))
 	for _, c := range [][5]string{
 		{"mu", "makeup", "out", "hotwell", "in"}, {"suction", "hotwell", "out", "fp", "in"},
 		{"feed", "fp", "out", "b1", "feed"}, {"steam", "b1", "steam", "heating", "in"},

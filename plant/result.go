@@ -51,7 +51,7 @@ type CaseResult struct {
 	Boilers   []BoilerResult
 	EGEs      []EGEResult
 	Consumers []ConsumerResult
-	Units     []UnitResult
+	Units     []ComponentResult
 	Lines     []LineResult
 	Warnings  []string
 
@@ -125,9 +125,9 @@ type ConsumerResult struct {
 	Inputs map[string]float64
 }
 
-// UnitResult holds the figures of a unit that is neither a boiler nor a
+// ComponentResult holds the figures of a unit that is neither a boiler nor a
 // consumer, by name with the unit in the key.
-type UnitResult struct {
+type ComponentResult struct {
 	Name    string
 	Kind    string
 	Figures Figures

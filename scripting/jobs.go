@@ -126,7 +126,7 @@ func (r *runner) tableRows(ph *plantHandle, a *args, key string, spec rowSpec) *
 		row.Case.Conditions.AirT, _ = ra.quantity("air", units.Temperature, false)
 		row.Case.Conditions.EngineLoad, _ = ra.quantity("engine", units.Fraction, false)
 		if v := ra.get("set"); v != lua.LNil {
-			row.Case.Set = r.plainSettings(ph, ra, v, row.Case.Pos)
+			row.Case.Set = r.caseSettings(ph, ra, v, row.Case.Pos)
 		}
 		if ra.has("fire") {
 			row.Case.Fire = r.fireList(ph, ra)
@@ -157,17 +157,6 @@ func (r *runner) fireList(ph *plantHandle, a *args) []string {
 		}
 	}
 	return fire
-}
-
-// plainSettings reads set = {...} as case() does, but refuses the keys of
-// the loads models: the rows of a job are solved in parallel on clones of
-// the plant that share its models, so a model's field cannot vary by row.
-func (r *runner) plainSettings(ph *plantHandle, a *args, v lua.LValue, pos plant.Pos) []plant.Setting {
-	set, models := r.caseSettings(ph, a, v, pos)
-	if len(models) > 0 {
-		a.errorf(nil, "set: the keys of a loads model (a tank_heating's T, from, to, duration; tank_cleaning flow, outlet_T; accommodation inside_T) cannot change from row to row: the rows are solved in parallel on clones of the plant that share the model; use case() for such rows, or declare a unit for each setting and switch them with off")
-	}
-	return set
 }
 
 // parseHours reads hours: a number of hours, or a time ("6 h", "2 d").
@@ -302,7 +291,7 @@ func (r *runner) readCSVFile(fn, name string) (show string, hline int, header []
 type csvColumn struct {
 	field string // "phase", "hours", ...; empty for a unit's key
 	unit  string
-	key   setKey
+	key   plant.Key
 	name  string // the header
 }
 
@@ -339,24 +328,21 @@ func (r *runner) csvRows(ph *plantHandle, fn, name string, spec rowSpec) *jobRow
 			continue
 		}
 		unit, key := h[:dot], h[dot+1:]
-		if ph.p.Unit(unit) == nil {
+		if ph.p.Component(unit) == nil {
 			bad(hdr, "column %q: %s", h, r.unknownUnitMsg(ph, unit))
 			continue
 		}
-		keys := r.keysFor(ph, unit)
+		keys := r.caseKeys(ph, unit)
 		var accepted []string
 		found := false
 		for _, k := range keys {
-			accepted = append(accepted, k.key)
-			if k.key == key {
+			accepted = append(accepted, k.Name)
+			if k.Name == key {
 				cols[i].unit, cols[i].key, found = unit, k, true
 			}
 		}
-		switch {
-		case !found:
+		if !found {
 			bad(hdr, "column %q: %s", h, unknownKeyMsg(key, accepted))
-		case cols[i].key.model != nil:
-			bad(hdr, "column %q: the key %q of a loads model cannot change from row to row of a %s (the rows are solved in parallel on clones sharing the model); use case() for such rows", h, key, spec.job)
 		}
 	}
 	for _, req := range required {
@@ -378,7 +364,7 @@ func (r *runner) csvRows(ph *plantHandle, fn, name string, spec rowSpec) *jobRow
 		pos := Pos{File: show, Line: lines[n]}
 		at := func(c csvColumn, err error) {
 			// the parsers name the key; the column says it already
-			msg := strings.TrimPrefix(strings.TrimPrefix(err.Error(), c.field+": "), c.key.key+": ")
+			msg := strings.TrimPrefix(strings.TrimPrefix(err.Error(), c.field+": "), c.key.Name+": ")
 			r.errs = append(r.errs, &Error{Pos: pos, Msg: fmt.Sprintf("column %q: %s", c.name, msg), Err: err})
 		}
 		var row profile.Row
@@ -425,12 +411,9 @@ func (r *runner) csvRows(ph *plantHandle, fn, name string, spec rowSpec) *jobRow
 				row.Case.Conditions.EngineLoad, err = parseCell(cell, "engine", units.Fraction, uopt)
 			case "":
 				var f float64
-				f, err = parseSetCell(cell, c.key, uopt)
+				f, err = parseSetCell(cell, &c.key, uopt)
 				if err == nil {
-					row.Case.Set = append(row.Case.Set, plant.Setting{Unit: c.unit, Param: c.key.param, Value: f, Pos: row.Case.Pos})
-					if c.key.param == "duty" {
-						row.Case.Set = append(row.Case.Set, plant.Setting{Unit: c.unit, Param: "steam_flow", Value: 0, Pos: row.Case.Pos})
-					}
+					row.Case.Set = append(row.Case.Set, plant.Setting{Unit: c.unit, Param: c.key.Name, Value: f, Pos: row.Case.Pos})
 				}
 			}
 			if err != nil {
@@ -480,21 +463,27 @@ func parseCell(cell, key string, dim units.Dimension, uopt units.Options) (float
 }
 
 // parseSetCell reads a CSV cell for a unit's key: true/false for a switch,
-// a pressure difference, or a quantity.
-func parseSetCell(cell string, k setKey, uopt units.Options) (float64, error) {
-	switch k.how {
-	case setBool:
+// a plain number, a choice, a pressure difference, or a quantity.
+func parseSetCell(cell string, k *plant.Key, uopt units.Options) (float64, error) {
+	switch k.Kind {
+	case plant.KeyFlag:
 		switch strings.ToLower(cell) {
 		case "true", "yes", "1":
 			return 1, nil
 		case "false", "no", "0":
 			return 0, nil
 		}
-		return 0, fmt.Errorf("%s must be true or false; got %q", k.key, cell)
-	case setPressureDiff:
-		return parsePressureDiff(lua.LString(cell), k.key)
+		return 0, fmt.Errorf("%s must be true or false; got %q", k.Name, cell)
+	case plant.KeyNumber:
+		f, err := strconv.ParseFloat(cell, 64)
+		if err != nil || math.IsNaN(f) || math.IsInf(f, 0) {
+			return 0, fmt.Errorf("%s must be a finite number; got %q", k.Name, cell)
+		}
+		return f, nil
+	case plant.KeyQuantity:
+		return parseCell(cell, k.Name, k.Dim, uopt)
 	}
-	return parseCell(cell, k.key, k.dim, uopt)
+	return parseSetting(lua.LString(cell), k, k.Name, uopt)
 }
 
 // ---------------------------------------------------------------------------
@@ -625,7 +614,7 @@ func (r *runner) luaStudy(L *lua.LState) int {
 			names[vn] = true
 			var set []plant.Setting
 			if s := va.get("set"); s != lua.LNil {
-				set = r.plainSettings(ph0, va, s, plant.Pos{File: a.pos.File, Line: a.pos.Line})
+				set = r.caseSettings(ph0, va, s, plant.Pos{File: a.pos.File, Line: a.pos.Line})
 			}
 			va.done()
 			a.nerr += va.nerr
@@ -769,25 +758,25 @@ func (r *runner) uncertainties(ph *plantHandle, a *args) []profile.Uncertain {
 			a.nerr += ea.nerr
 			continue
 		}
-		if ph.p.Unit(unit) == nil {
+		if ph.p.Component(unit) == nil {
 			ea.errorf(nil, "%s", r.unknownUnitMsg(ph, unit))
 			a.nerr += ea.nerr
 			continue
 		}
-		var k setKey
+		var k plant.Key
 		var accepted []string
 		found := false
-		for _, x := range r.keysFor(ph, unit) {
-			accepted = append(accepted, x.key)
-			if x.key == key {
+		for _, x := range r.caseKeys(ph, unit) {
+			accepted = append(accepted, x.Name)
+			if x.Name == key {
 				k, found = x, true
 			}
 		}
 		switch {
 		case !found:
 			ea.errorf(nil, "%s: %s", unit, unknownKeyMsg(key, accepted))
-		case k.model != nil || k.how == setBool:
-			ea.errorf(nil, "%s.%s cannot be sampled (a switch, or a loads model's field); sample a number such as factor", unit, key)
+		case k.Kind == plant.KeyFlag || k.Kind == plant.KeyChoice:
+			ea.errorf(nil, "%s.%s cannot be sampled (a switch or a choice); sample a number such as factor", unit, key)
 		default:
 			parse := func(v lua.LValue, what string) float64 {
 				if v == lua.LNil {
@@ -796,11 +785,7 @@ func (r *runner) uncertainties(ph *plantHandle, a *args) []profile.Uncertain {
 				}
 				var f float64
 				var err error
-				if k.how == setPressureDiff {
-					f, err = parsePressureDiff(v, what)
-				} else {
-					f, err = parseQuantity(v, what, k.dim, ph.uopt)
-				}
+				f, err = parseSetting(v, &k, what, ph.uopt)
 				if err != nil {
 					ea.errorf(err, "%v", err)
 				}
@@ -810,7 +795,7 @@ func (r *runner) uncertainties(ph *plantHandle, a *args) []profile.Uncertain {
 			if ea.nerr == 0 && !(l <= h) {
 				ea.errorf(nil, "low must not exceed high; got %s and %s", describe(lo), describe(hi))
 			}
-			out = append(out, profile.Uncertain{Unit: unit, Param: k.param, Low: l, High: h, Pos: plant.Pos{File: a.pos.File, Line: a.pos.Line}})
+			out = append(out, profile.Uncertain{Unit: unit, Param: k.Name, Low: l, High: h, Pos: plant.Pos{File: a.pos.File, Line: a.pos.Line}})
 		}
 		a.nerr += ea.nerr
 	}

@@ -153,9 +153,9 @@ func TestJobErrors(t *testing.T) {
 		{"csv_unknown_key.lua", []string{
 			`unknown_key.csv:1: column "cargo heating.dutty": unknown key 'dutty'; did you mean 'duty'?`,
 			`unknown_key.csv:1: column "boiler 1.off": plant "Invented Small Tanker" has no unit "boiler 1"`,
-			`unknown_key.csv:1: column "COT 1.T": the key "T" of a loads model cannot change`,
+			`unknown_key.csv:1: column "COT 1.To": unknown key 'To'; did you mean 'to'?`,
 			`unknown_key.csv:1: unknown column "speed"`}},
-		{"job_errors.lua", []string{"rows[1]: hours must be a positive", "rows[2]: set: the keys of a loads model", "rows[3]: phase is required", `"AB2" is not a boiler`}},
+		{"job_errors.lua", []string{"rows[1]: hours must be a positive", `rows[2]: set.COT 1.mode must be "hold" or "heat_up"; got "heat"`, "rows[3]: phase is required", `"AB2" is not a boiler`}},
 		{"audit_errors.lua", []string{"claimed: mass expected", "cargo heating.off cannot be sampled", "did you mean 'eta_factor'?", "low must not exceed high", "samples must be a whole number", "band must satisfy"}},
 	}
 	for _, tc := range tests {

@@ -8,16 +8,12 @@ import (
 	"steamcase/plant"
 )
 
-// Defaults of the short form, each documented in doc.go.
-const (
-	defaultMakeUpT    = "15 C"  // make-up water temperature: common practice, no source
-	defaultPumpMargin = "3 bar" // feed pump margin over the drum: common practice, no source
-	defaultPumpEta    = "45 %"  // feed pump efficiency: common practice, no source
-	// dump condenser subcooling below saturation at the main header's
-	// pressure: condensate at about 90 C from a 7 bar(g) header, below the
-	// boiling point of a vented hotwell (common practice, no source)
-	defaultDumpSubcool = "80 K"
-)
+// defaultDumpSubcool is the short form's dump condenser subcooling below
+// saturation at the main header's pressure: condensate at about 90 C from
+// a 7 bar(g) header, below the boiling point of a vented hotwell (common
+// practice, no source). A dump condenser of the full graph takes the
+// condenser's own default (saturated condensate).
+const defaultDumpSubcool = "80 K"
 
 // copyTable returns a shallow copy of t (nil gives an empty table) with
 // defaults set where the key is absent.
@@ -121,15 +117,15 @@ func (r *runner) luaSteamPlant(L *lua.LState) int {
 	}
 
 	muPos, hwPos, fpPos := at(makeup, "makeup"), at(hotwell, "hotwell"), at(pump, "feed_pump")
-	r.addUnit(ph, "makeup", r.copyTable(named(makeup, "makeup"), "makeup", map[string]string{"T": defaultMakeUpT}), muPos, buildMakeUp, nil)
+	r.addUnit(ph, "makeup", named(makeup, "makeup"), muPos, nil)
 	hw := named(hotwell, "hotwell")
-	hwName := r.addUnit(ph, "feed_tank", hw, hwPos, buildFeedTank, nil)
+	hwName := r.addUnit(ph, "feed_tank", hw, hwPos, nil)
 	// Returns go to the hotwell, or through an observation tank draining
 	// to it.
 	returnTo := hwName
 	if obs != nil {
 		obsPos := at(obs, "observation_tank")
-		if on := r.addUnit(ph, "observation_tank", named(obs, "observation tank"), obsPos, buildObservationTank, nil); on != "" {
+		if on := r.addUnit(ph, "observation_tank", named(obs, "observation tank"), obsPos, nil); on != "" {
 			line(obsPos, on+" drain", on+".out", hwName+".in")
 			returnTo = on
 		}
@@ -141,12 +137,6 @@ func (r *runner) luaSteamPlant(L *lua.LState) int {
 		}
 	}
 	fp := named(pump, "feed pump")
-	if fp.RawGetString("discharge") == lua.LNil && fp.RawGetString("margin") == lua.LNil {
-		fp.RawSetString("margin", lua.LString(defaultPumpMargin))
-	}
-	if fp.RawGetString("eta") == lua.LNil {
-		fp.RawSetString("eta", lua.LString(defaultPumpEta))
-	}
 	if fp.RawGetString("boilers") == lua.LNil {
 		bl := r.L.NewTable()
 		for _, n := range boilerNames {
@@ -154,8 +144,8 @@ func (r *runner) luaSteamPlant(L *lua.LState) int {
 		}
 		fp.RawSetString("boilers", bl)
 	}
-	fpName := r.addUnit(ph, "feed_pump", fp, fpPos, buildFeedPump, nil)
-	fh := r.addUnit(ph, "header", named(nil, "feed header"), fpPos, buildHeader, nil)
+	fpName := r.addUnit(ph, "feed_pump", fp, fpPos, nil)
+	fh := r.addUnit(ph, "header", named(nil, "feed header"), fpPos, nil)
 	line(muPos, "makeup", "makeup.out", hwName+".in")
 	line(hwPos, "feed suction", hwName+".out", fpName+".in")
 	line(fpPos, "feed discharge", fpName+".out", fh+".in")
@@ -167,7 +157,7 @@ func (r *runner) luaSteamPlant(L *lua.LState) int {
 	for i, h := range headers {
 		var p lua.LValue
 		hPos := at(h, "")
-		hn := r.addUnit(ph, "header", h, hPos, buildHeader, func(a *args) {
+		hn := r.addUnit(ph, "header", h, hPos, func(a *args) {
 			p = a.get("p")
 			if i == 0 && p != lua.LNil {
 				a.errorf(nil, "the first header is the main header at the boilers' pressure; it takes no p")
@@ -186,7 +176,7 @@ func (r *runner) luaSteamPlant(L *lua.LState) int {
 		prv := r.L.NewTable()
 		prv.RawSetString("name", lua.LString("PRV "+hn))
 		prv.RawSetString("p", p)
-		pn := r.addUnit(ph, "reducing_valve", prv, hPos, buildReducingValve, nil)
+		pn := r.addUnit(ph, "reducing_valve", prv, hPos, nil)
 		line(hPos, "to "+pn, main+".out", pn+".in")
 		line(hPos, "from "+pn, pn+".out", hn+".in")
 	}
@@ -195,9 +185,10 @@ func (r *runner) luaSteamPlant(L *lua.LState) int {
 	for _, e := range economisers {
 		ePos := at(e, "")
 		var boiler string
-		en := r.addUnit(ph, "economiser", e, ePos, buildEconomiser, func(a *args) {
-			boiler, _ = a.str("boiler", false)
-		})
+		en := r.addUnit(ph, "economiser", e, ePos, nil)
+		if u, ok := ph.p.Component(en).(*plant.Economiser); ok {
+			boiler = u.Boiler
+		}
 		if en == "" {
 			continue
 		}
@@ -213,7 +204,7 @@ func (r *runner) luaSteamPlant(L *lua.LState) int {
 	}
 	for _, b := range boilers {
 		bPos := at(b, "")
-		bn := r.addUnit(ph, "boiler", b, bPos, buildBoiler, nil)
+		bn := r.addUnit(ph, "boiler", b, bPos, nil)
 		if en, ok := ecoOf[bn]; ok && bn != "" {
 			line(bPos, "feed "+bn, en+".out", bn+".feed")
 		} else {
@@ -223,7 +214,7 @@ func (r *runner) luaSteamPlant(L *lua.LState) int {
 	}
 	if ege != nil {
 		ePos := at(ege, "exhaust_gas_economiser")
-		en := r.addUnit(ph, "exhaust_gas_economiser", named(ege, "EGE"), ePos, buildEGE, nil)
+		en := r.addUnit(ph, "exhaust_gas_economiser", named(ege, "EGE"), ePos, nil)
 		if en != "" {
 			line(ePos, "feed "+en, fh+".out", en+".feed")
 			line(ePos, "steam "+en, en+".steam", main+".in")
@@ -234,7 +225,7 @@ func (r *runner) luaSteamPlant(L *lua.LState) int {
 		}
 		dc := r.copyTable(named(dump, "dump condenser"), "dump_condenser", map[string]string{"subcool": defaultDumpSubcool})
 		dc.RawSetString("dump", lua.LTrue)
-		dn := r.addUnit(ph, "condenser", dc, dPos, buildCondenser, nil)
+		dn := r.addUnit(ph, "condenser", dc, dPos, nil)
 		if dn != "" {
 			line(dPos, "to "+dn, main+".out", dn+".in")
 			line(dPos, "condensate of "+dn, dn+".out", hwName+".in")
@@ -254,10 +245,8 @@ func (r *runner) luaSteamPlant(L *lua.LState) int {
 		var hn string
 		cPos := at(c, "")
 		kind := "consumer"
-		b := buildConsumer
 		if k, ok := c.RawGetString("kind").(lua.LString); ok && k != "consumer" {
-			lb, ok := r.loadsBuilder(string(k))
-			if !ok || k == "cargo_pump" {
+			if !contains(consumerKinds, string(k)) {
 				what := "consumer"
 				if n, ok := c.RawGetString("name").(lua.LString); ok {
 					what = fmt.Sprintf("consumer %q", string(n))
@@ -269,9 +258,9 @@ func (r *runner) luaSteamPlant(L *lua.LState) int {
 				r.errs = append(r.errs, &Error{Pos: cPos, Unit: what, Msg: msg})
 				continue
 			}
-			kind, b = string(k), lb
+			kind = string(k)
 		}
-		cn := r.addUnit(ph, kind, c, cPos, b, func(a *args) {
+		cn := r.addUnit(ph, kind, c, cPos, func(a *args) {
 			hn = header(a)
 			a.get("kind")
 		})
@@ -279,19 +268,19 @@ func (r *runner) luaSteamPlant(L *lua.LState) int {
 			continue
 		}
 		line(cPos, "steam to "+cn, hn+".out", cn+".in")
-		if cu, ok := ph.p.Unit(cn).(*plant.Consumer); ok && cu.ReturnFraction > 0 {
+		if cu, ok := ph.p.Component(cn).(*plant.Consumer); ok && cu.ReturnFraction > 0 {
 			line(cPos, "return from "+cn, cn+".out", returnTo+".in")
 		}
 	}
 	for _, tt := range turbines {
 		var hn string
 		var cond *lua.LTable
-		kind, b := "turbine", buildTurbine
+		kind := "turbine"
 		if k, ok := tt.RawGetString("kind").(lua.LString); ok && k == "cargo_pump" {
-			kind, b = "cargo_pump", buildCargoPump
+			kind = "cargo_pump"
 		}
 		tPos := at(tt, "")
-		tn := r.addUnit(ph, kind, tt, tPos, b, func(a *args) {
+		tn := r.addUnit(ph, kind, tt, tPos, func(a *args) {
 			hn = header(a)
 			cond = r.subTable(a, "condenser")
 			if k, ok := a.str("kind", false); ok && k != kind {
@@ -301,7 +290,7 @@ func (r *runner) luaSteamPlant(L *lua.LState) int {
 		if tn == "" {
 			continue
 		}
-		cn := r.addUnit(ph, "condenser", named(cond, tn+" condenser"), tPos, buildCondenser, nil)
+		cn := r.addUnit(ph, "condenser", named(cond, tn+" condenser"), tPos, nil)
 		line(tPos, fmt.Sprintf("steam to %s", tn), hn+".out", tn+".in")
 		line(tPos, fmt.Sprintf("exhaust of %s", tn), tn+".out", cn+".in")
 		line(tPos, fmt.Sprintf("condensate of %s", tn), cn+".out", hwName+".in")

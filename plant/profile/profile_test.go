@@ -25,20 +25,20 @@ func tanker(t testing.TB) *plant.Plant {
 	fuel := plant.FuelSpec{Name: "HSFO", LHV: 40.2e6, CO2Factor: 3.114}
 	eta := &plant.EfficiencyTable{Load: []float64{0.25, 0.5, 0.75, 1.0}, Eta: []float64{0.80, 0.84, 0.85, 0.845}}
 	p := plant.New("invented tanker", plant.Options{})
-	add := func(u plant.Unit) { must(t, p.Add(u)) }
-	add(&plant.MakeUp{UnitBase: plant.UnitBase{Name: "makeup"}, T: 288.15})
-	add(&plant.FeedTank{UnitBase: plant.UnitBase{Name: "hotwell"}, HeatLoss: 5e3})
-	add(&plant.FeedPump{UnitBase: plant.UnitBase{Name: "fp"}, Boilers: []string{"AB1", "AB2"}, Margin: 3e5, Eta: 0.45})
-	add(&plant.Header{UnitBase: plant.UnitBase{Name: "feed header"}})
-	add(&plant.Boiler{UnitBase: plant.UnitBase{Name: "AB1"}, MCR: 12000.0 / 3600, DrumP: drum, Turndown: 4, Blowdown: 0.01, Efficiency: eta, Fuel: fuel})
-	add(&plant.Boiler{UnitBase: plant.UnitBase{Name: "AB2"}, MCR: 12000.0 / 3600, DrumP: drum, Turndown: 4, Blowdown: 0.01, Efficiency: eta, Fuel: fuel})
-	add(&plant.ExhaustGasEconomiser{UnitBase: plant.UnitBase{Name: "EGE"}, DrumP: drum, DesignLoad: 0.85, DesignPinch: 20, GasCp: 1060,
+	add := func(u plant.Component) { must(t, p.Add(u)) }
+	add(&plant.MakeUp{Base: plant.Base{Name: "makeup"}, T: 288.15})
+	add(&plant.FeedTank{Base: plant.Base{Name: "hotwell"}, HeatLoss: 5e3})
+	add(&plant.FeedPump{Base: plant.Base{Name: "fp"}, Boilers: []string{"AB1", "AB2"}, Margin: 3e5, Eta: 0.45})
+	add(&plant.Header{Base: plant.Base{Name: "feed header"}})
+	add(&plant.Boiler{Base: plant.Base{Name: "AB1"}, MCR: 12000.0 / 3600, DrumP: drum, Turndown: 4, Blowdown: 0.01, Efficiency: eta, Fuel: fuel})
+	add(&plant.Boiler{Base: plant.Base{Name: "AB2"}, MCR: 12000.0 / 3600, DrumP: drum, Turndown: 4, Blowdown: 0.01, Efficiency: eta, Fuel: fuel})
+	add(&plant.ExhaustGasEconomiser{Base: plant.Base{Name: "EGE"}, DrumP: drum, DesignLoad: 0.85, DesignPinch: 20, GasCp: 1060,
 		Engine: plant.EngineExhaust{MCR: 12e6, Load: []float64{0.25, 0.5, 0.75, 1}, Specific: []float64{11 / 3.6e6, 9 / 3.6e6, 8.4 / 3.6e6, 8.1 / 3.6e6},
 			T: []float64{523.15, 503.15, 498.15, 518.15}}})
-	add(&plant.Header{UnitBase: plant.UnitBase{Name: "main"}, HeatLoss: 10e3})
-	add(&plant.Consumer{UnitBase: plant.UnitBase{Name: "cargo heating"}, Duty: 2e6, SubCooling: 10, ReturnFraction: 0.98, ReturnT: 353.15})
-	add(&plant.Consumer{UnitBase: plant.UnitBase{Name: "sundry"}, Duty: 300e3, ReturnFraction: 0.9, ReturnT: 353.15})
-	add(&plant.Condenser{UnitBase: plant.UnitBase{Name: "dump"}, Dump: true, SubCooling: 80})
+	add(&plant.Header{Base: plant.Base{Name: "main"}, HeatLoss: 10e3})
+	add(&plant.Consumer{Base: plant.Base{Name: "cargo heating"}, Duty: 2e6, SubCooling: 10, ReturnFraction: 0.98, ReturnT: 353.15})
+	add(&plant.Consumer{Base: plant.Base{Name: "sundry"}, Duty: 300e3, ReturnFraction: 0.9, ReturnT: 353.15})
+	add(&plant.Condenser{Base: plant.Base{Name: "dump"}, Dump: true, SubCooling: 80})
 	c := func(name, from, fp, to, tp string) { p.Connect(name, plant.Pos{}, from, fp, to, tp) }
 	c("makeup", "makeup", "out", "hotwell", "in")
 	c("suction", "hotwell", "out", "fp", "in")

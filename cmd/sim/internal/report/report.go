@@ -22,7 +22,7 @@ type Case struct {
 	Result *plant.CaseResult
 }
 
-// Header kinds and figure keys read from plant.UnitResult.
+// Header kinds and figure keys read from plant.ComponentResult.
 const (
 	kindHeader   = "steam header"
 	kindFeedTank = "feed tank"

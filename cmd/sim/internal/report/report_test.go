@@ -40,17 +40,17 @@ func twoBoilers(t testing.TB, name string) *plant.Plant {
 	p := plant.New(name, plant.Options{UsableFraction: 0.85})
 	fuel := plant.FuelSpec{Name: "HFO", LHV: 40.2e6, CO2Factor: 3.114}
 	eta := &plant.EfficiencyTable{Load: []float64{0.25, 0.5, 0.75, 1.0}, Eta: []float64{0.80, 0.84, 0.85, 0.845}}
-	must(t, p.Add(&plant.MakeUp{UnitBase: plant.UnitBase{Name: "makeup"}, T: 288.15}))
-	must(t, p.Add(&plant.FeedTank{UnitBase: plant.UnitBase{Name: "hotwell"}, HeatLoss: 5e3}))
-	must(t, p.Add(&plant.FeedPump{UnitBase: plant.UnitBase{Name: "fp"}, Boilers: []string{"AB1", "AB2"}, Margin: 3 * bar, Eta: 0.45}))
-	must(t, p.Add(&plant.Header{UnitBase: plant.UnitBase{Name: "feed header"}}))
+	must(t, p.Add(&plant.MakeUp{Base: plant.Base{Name: "makeup"}, T: 288.15}))
+	must(t, p.Add(&plant.FeedTank{Base: plant.Base{Name: "hotwell"}, HeatLoss: 5e3}))
+	must(t, p.Add(&plant.FeedPump{Base: plant.Base{Name: "fp"}, Boilers: []string{"AB1", "AB2"}, Margin: 3 * bar, Eta: 0.45}))
+	must(t, p.Add(&plant.Header{Base: plant.Base{Name: "feed header"}}))
 	for _, b := range []string{"AB1", "AB2"} {
-		must(t, p.Add(&plant.Boiler{UnitBase: plant.UnitBase{Name: b}, MCR: 10000.0 / 3600, DrumP: gauge(7), Turndown: 4,
+		must(t, p.Add(&plant.Boiler{Base: plant.Base{Name: b}, MCR: 10000.0 / 3600, DrumP: gauge(7), Turndown: 4,
 			Blowdown: 0.01, Dryness: 0.98, Efficiency: eta, Fuel: fuel}))
 	}
-	must(t, p.Add(&plant.Header{UnitBase: plant.UnitBase{Name: "main"}, HeatLoss: 10e3}))
-	must(t, p.Add(&plant.Consumer{UnitBase: plant.UnitBase{Name: "cargo heating"}, Duty: 2e6, SubCooling: 10, ReturnFraction: 0.95}))
-	must(t, p.Add(&plant.Consumer{UnitBase: plant.UnitBase{Name: "sundry"}, SteamFlow: 0.1}))
+	must(t, p.Add(&plant.Header{Base: plant.Base{Name: "main"}, HeatLoss: 10e3}))
+	must(t, p.Add(&plant.Consumer{Base: plant.Base{Name: "cargo heating"}, Duty: 2e6, SubCooling: 10, ReturnFraction: 0.95}))
+	must(t, p.Add(&plant.Consumer{Base: plant.Base{Name: "sundry"}, SteamFlow: 0.1}))
 	p.Connect("makeup", plant.Pos{}, "makeup", "out", "hotwell", "in")
 	p.Connect("suction", plant.Pos{}, "hotwell", "out", "fp", "in")
 	p.Connect("discharge", plant.Pos{}, "fp", "out", "feed header", "in")
@@ -101,17 +101,17 @@ func egeCases(t testing.TB) []Case {
 	p := plant.New("Invented EGE Ship", plant.Options{})
 	drum := gauge(7)
 	engine := plant.EngineExhaust{MCR: 15e6, Load: []float64{0.3, 1}, Specific: []float64{8.5 / 3.6e6, 8.5 / 3.6e6}, T: []float64{513.15, 513.15}}
-	must(t, p.Add(&plant.MakeUp{UnitBase: plant.UnitBase{Name: "makeup"}, T: 333.15, P: 1e5}))
-	must(t, p.Add(&plant.FeedTank{UnitBase: plant.UnitBase{Name: "hotwell"}, P: 1e5}))
-	must(t, p.Add(&plant.Header{UnitBase: plant.UnitBase{Name: "feed header"}}))
-	must(t, p.Add(&plant.ExhaustGasEconomiser{UnitBase: plant.UnitBase{Name: "EGE"}, Engine: engine, DrumP: drum,
+	must(t, p.Add(&plant.MakeUp{Base: plant.Base{Name: "makeup"}, T: 333.15, P: 1e5}))
+	must(t, p.Add(&plant.FeedTank{Base: plant.Base{Name: "hotwell"}, P: 1e5}))
+	must(t, p.Add(&plant.Header{Base: plant.Base{Name: "feed header"}}))
+	must(t, p.Add(&plant.ExhaustGasEconomiser{Base: plant.Base{Name: "EGE"}, Engine: engine, DrumP: drum,
 		DesignLoad: 1, DesignPinch: 15, GasCp: 1060}))
-	must(t, p.Add(&plant.Boiler{UnitBase: plant.UnitBase{Name: "AB1"}, MCR: 10000.0 / 3600, DrumP: drum,
+	must(t, p.Add(&plant.Boiler{Base: plant.Base{Name: "AB1"}, MCR: 10000.0 / 3600, DrumP: drum,
 		Efficiency: &plant.EfficiencyTable{Load: []float64{0.25, 1.1}, Eta: []float64{0.85, 0.85}},
 		Fuel:       plant.FuelSpec{Name: "HFO", LHV: 40.2e6, CO2Factor: 3.114}}))
-	must(t, p.Add(&plant.Header{UnitBase: plant.UnitBase{Name: "main"}}))
-	must(t, p.Add(&plant.Consumer{UnitBase: plant.UnitBase{Name: "heating"}, SteamFlow: 5000.0 / 3600}))
-	must(t, p.Add(&plant.Condenser{UnitBase: plant.UnitBase{Name: "dump"}, Dump: true}))
+	must(t, p.Add(&plant.Header{Base: plant.Base{Name: "main"}}))
+	must(t, p.Add(&plant.Consumer{Base: plant.Base{Name: "heating"}, SteamFlow: 5000.0 / 3600}))
+	must(t, p.Add(&plant.Condenser{Base: plant.Base{Name: "dump"}, Dump: true}))
 	p.Connect("mu", plant.Pos{}, "makeup", "out", "hotwell", "in")
 	p.Connect("feed", plant.Pos{}, "hotwell", "out", "feed header", "in")
 	p.Connect("ege feed", plant.Pos{}, "feed header", "out", "EGE", "feed")
@@ -125,7 +125,7 @@ func egeCases(t testing.TB) []Case {
 	for _, c := range []plant.Case{
 		{Name: "at sea", Conditions: plant.Conditions{SeaT: 288.15, AirT: 288.15, EngineLoad: 1}},
 		{Name: "at sea, light load", Conditions: plant.Conditions{SeaT: 288.15, AirT: 288.15, EngineLoad: 1},
-			Set: []plant.Setting{{Unit: "heating", Param: "steam_flow", Value: 500.0 / 3600}}},
+			Set: []plant.Setting{{Unit: "heating", Param: "steam", Value: 500.0 / 3600}}},
 		{Name: "in port", Conditions: plant.Conditions{SeaT: 288.15, AirT: 288.15}},
 	} {
 		cr, err := p.Solve(context.Background(), c)
