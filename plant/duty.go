@@ -116,7 +116,7 @@ func gradeText(vals []string) (fuel.Fuel, string, error) {
 
 // text binds a text key: set receives the value as written.
 func text(k Key, set func(Component, []string) error) Key {
-	if k.Kind != KeyNames && k.Kind != KeyTable {
+	if k.Kind != KeyNameList && k.Kind != KeyTable {
 		k.Kind = KeyText
 	}
 	k.text = set

@@ -2,6 +2,7 @@ package plant
 
 import (
 	"fmt"
+	"io"
 	"strconv"
 	"strings"
 
@@ -27,8 +28,8 @@ const (
 	KeyChoice
 	// KeyText is a text: a name, a fuel grade.
 	KeyText
-	// KeyNames is a list of component names.
-	KeyNames
+	// KeyNameList is a list of component names.
+	KeyNameList
 	// KeyTable is a structured value (an efficiency table, an engine's
 	// exhaust table, a tank's boundaries) that the script front end
 	// decodes for the kind.
@@ -111,7 +112,7 @@ func (k *Key) Set(c Component, v float64) bool {
 // SetText.
 func (k *Key) TakesText() bool { return k.text != nil }
 
-// SetText sets a text key (KeyText: one value; KeyNames: a list) on c.
+// SetText sets a text key (KeyText: one value; KeyNameList: a list) on c.
 func (k *Key) SetText(c Component, v []string) error {
 	if k.text == nil {
 		return fmt.Errorf("plant: key %q takes no text", k.Name)
@@ -177,6 +178,8 @@ func (k *Key) DefaultText() string {
 		}
 	case k.Kind == KeyQuantity:
 		return formatLike(k.Default, k.Dim, k.Example)
+	case k.Kind == KeyPressureDiff:
+		return strconv.FormatFloat(k.Default/1e5, 'g', 6, 64) + " bar"
 	}
 	return strconv.FormatFloat(k.Default, 'g', 6, 64)
 }
@@ -324,3 +327,70 @@ func checkRange(fs *faults, c Component, what string, v, lo, hi float64, unit st
 func paramErr(c Component, name string) error {
 	return compErr(c, "has no parameter %q; its parameters are %q", name, keyNames(c.Keys(), true))
 }
+
+// WriteKeyReference writes the reference of the given kinds and their
+// keys, as the documentation shows it: for each kind its name and line of
+// documentation, and for each key how it is written (its dimension and an
+// example), whether it is required or its default and the default's
+// source, whether a load case may set it, the result key that reports it,
+// and its line of documentation.
+func WriteKeyReference(w io.Writer, kinds []KindSpec) error {
+	var b strings.Builder
+	for i, kind := range kinds {
+		if i > 0 {
+			b.WriteString("\n")
+		}
+		fmt.Fprintf(&b, "%s: %s\n", kind.Name, kind.Doc)
+		for _, k := range kind.Keys() {
+			var how []string
+			what := k.Kind.String()
+			if k.Kind == KeyQuantity {
+				what = k.Dim.String()
+			}
+			if k.Kind == KeyChoice {
+				what = "one of " + choices(k.Choices)
+			} else if k.Example != "" {
+				ex := k.Example
+				if (k.Kind == KeyQuantity || k.Kind == KeyPressureDiff) && strings.Contains(ex, " ") {
+					ex = strconv.Quote(ex)
+				}
+				what += ", such as " + ex
+			}
+			how = append(how, what)
+			switch {
+			case k.Required:
+				how = append(how, "required")
+			case k.DefaultText() != "":
+				d := "default " + k.DefaultText()
+				if k.Source != "" {
+					d += " (" + k.Source + ")"
+				}
+				how = append(how, d)
+			}
+			if k.Case {
+				how = append(how, "a case may set it")
+			}
+			if k.JSON != "" {
+				how = append(how, "reported as "+k.JSON)
+			}
+			fmt.Fprintf(&b, "  %s: %s\n      %s\n", k.Name, strings.Join(how, "; "), k.Doc)
+		}
+	}
+	_, err := io.WriteString(w, b.String())
+	return err
+}
+
+// choices writes `"a", "b" or "c"`.
+func choices(cs []string) string {
+	q := make([]string, len(cs))
+	for i, c := range cs {
+		q[i] = strconv.Quote(c)
+	}
+	if len(q) == 1 {
+		return q[0]
+	}
+	return strings.Join(q[:len(q)-1], ", ") + " or " + q[len(q)-1]
+}
+
+// KeyNames lists the names of keys, in their order.
+func KeyNames(keys []Key) []string { return keyNames(keys, false) }

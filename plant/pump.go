@@ -48,7 +48,7 @@ func NewFeedPump() *FeedPump { return &FeedPump{} }
 func pumpKey(k Key, f func(*FeedPump) *float64) Key { return num(k, self[*FeedPump], f) }
 
 var feedPumpKeys = []Key{
-	text(Key{Name: "boilers", Label: "boilers fed", Kind: KeyNames, Example: `{ "AB1", "AB2" }`,
+	text(Key{Name: "boilers", Label: "boilers fed", Kind: KeyNameList, Example: `{ "AB1", "AB2" }`,
 		Doc: "the boilers whose highest drum pressure the pump must exceed by the margin"},
 		func(c Component, v []string) error {
 			if u, ok := self[*FeedPump](c); ok {

@@ -157,7 +157,7 @@ func (r *runner) readKey(a *args, u plant.Component, k *plant.Key, required bool
 			}
 		}
 		return ok
-	case plant.KeyNames:
+	case plant.KeyNameList:
 		names := a.names(k.Name)
 		if names == nil {
 			if required {

@@ -59,16 +59,36 @@ func decodeTankHeating(r *runner, a *args, ph *plantHandle, u plant.Component) {
 	}
 	r.tankGeometry(a, c)
 	mode, _ := a.str("mode", false)
+	// not lists the keys of the other mode that were given.
+	not := func(keys ...string) []string {
+		var out []string
+		for _, k := range keys {
+			if a.has(k) {
+				out = append(out, k)
+			}
+		}
+		return out
+	}
 	switch mode {
 	case "", "hold":
 		m.Tank.Mode = loads.Hold
 		r.readNamed(a, u, "T", true)
+		if extra := not("from", "to", "duration"); len(extra) > 0 {
+			a.errorf(nil, "%s belong to mode = \"heat_up\"; holding takes T", strings.Join(extra, ", "))
+		}
 	case "heat_up":
 		m.Tank.Mode = loads.HeatUp
 		r.readNamed(a, u, "from", true)
 		r.readNamed(a, u, "to", true)
 		r.readNamed(a, u, "duration", true)
+		if extra := not("T"); len(extra) > 0 {
+			a.errorf(nil, "T belongs to mode = \"hold\"; a heat-up takes from, to and duration")
+		}
 	default:
+		a.get("T")
+		a.get("from")
+		a.get("to")
+		a.get("duration")
 		a.errorf(nil, "mode must be \"hold\" or \"heat_up\"; got %q", mode)
 	}
 }
@@ -89,7 +109,11 @@ func (r *runner) tankGeometry(a *args, c *plant.Consumer) {
 	switch {
 	case hasDims && hasBounds:
 		a.errorf(nil, "give dimensions or boundaries, not both")
+		a.get("volume")
 	case hasDims:
+		if a.has("volume") {
+			a.errorf(nil, "the dimensions give the volume (with fill); leave volume out, or give volume with boundaries")
+		}
 		d := r.tankDimensions(a, dims)
 		if a.nerr == 0 {
 			t, err := loads.TankFromDimensions("", m.Tank.Cargo, d)
@@ -102,6 +126,7 @@ func (r *runner) tankGeometry(a *args, c *plant.Consumer) {
 		r.readNamed(a, c, "volume", true)
 		m.Tank.Boundaries = r.tankBoundaries(a, bounds)
 	default:
+		a.get("volume")
 		a.errorf(nil, "needs the tank's dimensions = {...} or its boundaries = { {area, U, beyond}, ... }")
 	}
 }
@@ -210,8 +235,14 @@ func decodeFuelHeater(r *runner, a *args, ph *plantHandle, u plant.Component) {
 	}
 	if m.Heater.Service == loads.BoilerBurner {
 		r.readNamed(a, u, "boiler", true)
+		if a.has("flow") {
+			a.errorf(nil, "a burner's heater heats its boiler's fuel flow: give boiler, not flow")
+		}
 	} else {
 		r.readNamed(a, u, "flow", true)
+		if a.has("boiler") {
+			a.errorf(nil, "boiler is for a burner's heater (service = \"burner\"), whose oil flow is the boiler's fuel; this heater takes flow")
+		}
 	}
 }
 
@@ -235,6 +266,13 @@ func decodeAccommodation(r *runner, a *args, ph *plantHandle, u plant.Component)
 		r.readNamed(a, u, "inside_T", true)
 		r.readNamed(a, u, "balance_T", false)
 		return
+	}
+	given := false
+	for _, k := range []string{"UA", "inside_T", "balance_T"} {
+		given = a.has(k) || given
+	}
+	if given {
+		a.errorf(nil, "give table or UA with inside_T (and balance_T), not both")
 	}
 	t, ok := tv.(*lua.LTable)
 	if !ok || t.Len() < 2 || t.Len() > 200 {
