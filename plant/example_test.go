@@ -46,7 +46,9 @@ func Example() {
 	heating := plant.NewConsumer()
 	heating.Duty, heating.ReturnFraction = 3e6, 0.95
 	add(heating, "heating")
-	line := func(name, from, fromPort, to, toPort string) { p.Connect(name, plant.Pos{}, from, fromPort, to, toPort) }
+	line := func(name, from, fromPort, to, toPort string) {
+		p.Connect(name, plant.Pos{}, from, fromPort, to, toPort)
+	}
 	line("makeup", "makeup", "out", "hotwell", "in")
 	line("suction", "hotwell", "out", "feed pump", "in")
 	line("discharge", "feed pump", "out", "feed header", "in")
