@@ -55,43 +55,16 @@
 // second time without its exhaust-gas economisers to give the fuel they
 // save; false skips that solve, for speed, and the saving reads zero).
 //
-// Units are declared with methods of the plant; each returns a table
+// Components are declared with methods of the plant named by their kind
+// (ship:boiler{...}, ship:tank_heating{...}); each returns a table
 // { name = ..., kind = ... } and records its script line, so that every
-// later error (at check or solve time) points at it. Keys, with their
-// dimension:
+// later error (at check or solve time) points at it. KeyReference lists
+// every kind and every key it takes: how it is written, its default and
+// where the default comes from, and whether a load case may set it. It is
+// generated from package plant's key registry, which is also what the
+// script API reads: a key is accepted exactly when it is listed there.
+// Lines join components:
 //
-//	ship:makeup    { name, T (temperature, required), p (pressure; default ambient) }
-//	ship:feed_tank { name, p (pressure; default ambient: vented), heat_loss (power),
-//	                 UA (thermal conductance, W/K), room_T (temperature),
-//	                 set_T (temperature held by steam heating on port "steam") }
-//	ship:observation_tank { name, heat_loss (power), UA (thermal conductance, W/K), room_T
-//	                 (temperature) } -- a vented tank the returning condensate passes
-//	                 (ports in, any number, and out); flash steam is vented and made up
-//	ship:feed_pump { name, boilers (list of boiler names), margin (pressure
-//	                 difference, "3 bar"), discharge (pressure; instead of
-//	                 boilers+margin), eta (fraction, required), motor_eta (fraction; default 0.9) }
-//	ship:boiler    { name, mcr (mass flow, required), drum (pressure, required),
-//	                 dryness (fraction; default 1), blowdown (fraction),
-//	                 tds_feed, tds_max (numbers in one unit: blowdown = tds_feed/tds_max),
-//	                 turndown (number, 4 means 1:4), cycling_loss (fraction),
-//	                 fuel (grade "MGO", "VLSFO", "HSFO", "LNG", or a name for your own fuel),
-//	                 lhv (specific energy, "40.2 MJ/kg"), co2_factor (number, kg CO2/kg fuel),
-//	                 efficiency (required: "85 %" at every load, a table of
-//	                 {load, efficiency} pairs such as { {"25 %","80 %"}, {"100 %","85 %"} },
-//	                 loads increasing, interpolated linearly, LHV basis; or a
-//	                 combustion model, below),
-//	                 burner = { fan_rise (pressure difference, "3 kPa"; without it the
-//	                   fan is not counted), fan_eta (fraction; required with fan_rise),
-//	                   motor_eta (fraction; default 0.9), air_T (temperature of the
-//	                   combustion air; default the case's air, or 25 C without one) } }
-//	ship:header    { name, heat_loss (power) }
-//	ship:reducing_valve { name, p (pressure, required) }
-//	ship:consumer  { name, duty (power) or steam (mass flow), subcool (temperature
-//	                 difference, "10 K"), returns (fraction of condensate returned),
-//	                 return_T (temperature after a drain cooler), off (boolean) }
-//	ship:turbine   { name, power (power, required), exhaust (pressure, required),
-//	                 eta_is (fraction, required), eta_mech (fraction; default 1), off (boolean) }
-//	ship:condenser { name, subcool (temperature difference), dump (boolean) }
 //	ship:line("name", "fromunit.port", "tounit.port")
 //
 // A fuel by grade takes its LHV and CO2 factor from package plant/fuel
@@ -138,20 +111,7 @@
 //
 // # Economisers
 //
-//	ship:exhaust_gas_economiser { name, drum (pressure, required), dryness (fraction; default 1),
-//	    engine = { mcr = "12 MW", { load = "25 %", gas = "11 kg/kWh", T = "250 C" }, ... },
-//	    ua (thermal conductance, "60 kW/K") with design_gas (mass flow at which ua holds;
-//	      default: ua is constant), or design_load (fraction of engine MCR) with pinch
-//	      (temperature difference: gas outlet above saturation at that load),
-//	    exponent (number n of UA ∝ gas flow^n; default 0.65),
-//	    gas_cp (specific heat of the exhaust; default 1.06 kJ/kgK), or exhaust_fuel
-//	      (grade) with exhaust_O2 (fraction, dry) for the NASA-polynomial enthalpy,
-//	    min_gas_T (temperature; default not checked), bypass (boolean: a damper holds
-//	      the funnel at min_gas_T), preheat_ua (thermal conductance of a preheating
-//	      section after the evaporator, at the same reference gas flow; default none),
-//	      off (boolean) }
-//	ship:economiser { name, boiler (required), ua (thermal conductance, required),
-//	    design_gas (mass flow; default: ua is constant), exponent (number; default 0.65) }
+// See KeyReference for the keys of exhaust_gas_economiser and economiser.
 //
 // The engine table gives, at each load (fraction of mcr, increasing), the
 // exhaust gas as kg per kWh of engine power ("8.5 kg/kWh") or as a mass
@@ -182,48 +142,12 @@
 // the unit and the case. Input errors are found when the unit is declared
 // (the model is tried at 15 C sea and air).
 //
-//	ship:tank_heating { name, fuel (grade: density and Cragoe specific heat) or density
-//	                    (density) with cp (specific heat; default Cragoe), cargo (a name),
-//	                    flash_point (temperature),
-//	                    mode ("hold", default, or "heat_up"), T (hold: temperature held),
-//	                    from, to (heat_up: temperatures), duration (heat_up: time),
-//	                    and either dimensions = { length, breadth, depth (lengths), fill (fraction),
-//	                      double_bottom, double_side (lengths), layout ("full_breadth", "wing",
-//	                      "centre"), weather_deck (boolean), deck_space_T, adjacent_T
-//	                      (temperatures), side_above_water (fraction), adjacent_heated (boolean),
-//	                      U = { deck_ullage, deck_wetted, shell, double_hull, bulkhead, dry }
-//	                      (heat transfer coefficients; default plant/loads DefaultU) }
-//	                    or volume (volume) with boundaries = { {name, area (area),
-//	                      U (heat transfer coefficient), beyond ("sea", "air" or "space"),
-//	                      T (temperature beyond a space)}, ... } }
-//	ship:fuel_heater  { name, service ("engine", "burner", "purifier", "transfer"),
-//	                    fuel (grade), density15 (density), viscosity (kinematic viscosity at the
-//	                    grade's reference temperature), inlet_T, and outlet_T or
-//	                    target_viscosity ("13 cSt"), outlet_limit, flash_point (temperatures),
-//	                    flow (mass flow of oil; not for "burner"), boiler (for "burner": the
-//	                    boiler whose fuel flow it heats; its duty follows that flow in the solve) }
-//	ship:accommodation { name, UA (thermal conductance), inside_T, balance_T (temperatures;
-//	                    no heating at and above balance_T, default inside_T),
-//	                    or table = { {air temperature, duty}, ... } }
-//	ship:tank_cleaning { name, flow (mass flow of water), inlet_T (temperature; default the
-//	                    case's sea temperature), outlet_T (temperature), p (pressure),
-//	                    cp (specific heat; default IAPWS-IF97 pure water) }
-//	ship:cargo_pump   { name, flow (volume flow), head (length), density (density),
-//	                    efficiency (fraction), exhaust (pressure), eta_is, eta_mech (fractions) }
-//	                    -- a turbine of shaft power rho*g*flow*head/efficiency
-//	ship:atomising_steam { name, boiler, ratio (fraction: kg steam per kg fuel) } -- nothing returns
-//	ship:soot_blowing { name, flow (mass flow while blowing), duration, interval (times) }
-//	ship:steam_tracing { name, per_metre ("30 W/m"), length (length) }
-//	ship:fresh_water_generator { name, production (mass flow of distillate),
-//	                    specific_energy (specific energy) or evaporation_T, feed_T
-//	                    (temperatures) with feed_ratio (number, kg feed per kg distillate) }
-//
-// A case may set, besides returns, subcool, off and factor: tank_heating
-// T, to, from, duration; tank_cleaning flow, outlet_T; accommodation
-// inside_T. These hold for that case only. The rows of voyage, study and
-// audit may not set these model keys (T, to, from, duration, flow,
-// outlet_T, inside_T): their rows are solved in parallel on clones of the
-// plant that share the model.
+// Their keys are in KeyReference. A case, and a row of a voyage, study or
+// audit, may set the keys marked "a case may set it" (a tank_heating's
+// mode, T, from, to and duration; a tank_cleaning's flow and outlet_T; a
+// fuel heater's flow and temperatures; ...). They hold for that case or
+// row only: each consumer owns its model, and the parallel copies of a
+// plant that a job solves on own theirs.
 //
 // # Plant, short form
 //
@@ -258,11 +182,12 @@
 // feed header and delivers to the main header, and brings a dump condenser
 // "dump condenser" (condenser keys from dump_condenser; dump = true) on
 // the main header draining to the hotwell. Each of economisers sits
-// between the feed header and its boiler (one per boiler). Defaults of the
-// short form (common practice, no source): make-up at 15 C; feed pump
-// margin 3 bar over the highest drum pressure and efficiency 45 %; dump
-// condenser subcooling 80 K (condensate about 90 C from a 7 bar(g)
-// header; give more at higher pressures, so that it does not flash in a
+// between the feed header and its boiler (one per boiler). The
+// components take their own defaults (KeyReference: make-up at 15 C, a
+// feed pump of 45 % with a 3 bar margin over the highest drum pressure);
+// the short form adds one of its own: a dump condenser's subcooling of
+// 80 K (condensate about 90 C from a 7 bar(g) header; give more at higher
+// pressures, so that it does not flash in a
 // vented hotwell). Lines are named "makeup", "feed suction", "feed
 // discharge", "feed <boiler>", "steam <boiler>", "steam to <consumer>",
 // "return from <consumer>", "to PRV <header>", "from PRV <header>",
@@ -285,14 +210,10 @@
 // case keys: name (default "case N"); sea and air (temperatures); engine
 // (fraction of main engine MCR); set (per unit, the keys below); fire
 // (list of boilers that must fire; the others stay cold; without it the
-// plant's firing rule decides). Keys of set, by unit kind:
-// consumer duty, steam, returns, subcool, return_T, off, factor (fraction
-// scaling the duty or steam flow however given, 1 = as declared; also for
-// the plant/loads kinds); turbine power, off; boiler mcr, drum, dryness,
-// blowdown, eta_factor (fraction scaling the efficiency model's figure);
-// feed_tank heat_loss, set_T, room_T; feed_pump eta, margin; header
-// heat_loss; reducing_valve p; makeup T; condenser subcool;
-// exhaust_gas_economiser off, ua, preheat_ua; economiser ua.
+// plant's firing rule decides). The keys of set are, for each unit, the
+// keys of its kind that KeyReference marks "a case may set it" (a
+// consumer's duty, steam, returns, subcool, return_T, off and factor; a
+// boiler's mcr, drum, dryness, blowdown and eta_factor; ...).
 //
 // case solves at once (warm-started from the plant's previous case),
 // records the result in the Run and returns a table mirroring the JSON of

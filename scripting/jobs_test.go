@@ -251,3 +251,40 @@ return T, T2, v.rows[1].steam_kg_h`
 		t.Errorf("the voyage raises %g kg/h of steam with the only consumer off; want 0", got[2])
 	}
 }
+
+// TestModelKeysByRow: a voyage's rows set a tank's mode and temperatures
+// (the duty models are the consumers' own, copied with each clone of the
+// plant), and the totals do not depend on the number of workers. The
+// duties are checked against the lumped balance of plant-checks.md §6
+// [CP]: holding, Q = ΣUA·(T − T_beyond); heating up, Q = m·c̄·ΔT/t + ΣUA·(T̄
+// − T_beyond), with c̄ by Cragoe (plant/loads' own tested formula).
+func TestModelKeysByRow(t *testing.T) {
+	t.Parallel()
+	file := filepath.Join("testdata", "good", "model_rows.lua")
+	var totals [2]float64
+	for i, workers := range []int{1, 3} {
+		run, err := RunFile(context.Background(), file, Options{Workers: workers})
+		if err != nil {
+			t.Fatal(err)
+		}
+		res := run.Voyages[0].Result
+		duty := func(row int) float64 { return res.Rows[row].Result.Consumers[0].DutyW }
+		ua := 1000*5.0 + 600*4.0 // W/K
+		loss := func(tC float64) float64 { return 1000*5*(tC-10) + 600*4*(tC-5) }
+		if d, want := duty(0), loss(45); math.Abs(d-want) > 1e-6*want {
+			t.Errorf("row 1 (held at 45 C): duty %.1f W, want ΣUA·ΔT = %.1f W", d, want)
+		}
+		if d, want := duty(2), loss(55); math.Abs(d-want) > 1e-6*want {
+			t.Errorf("row 3 (held at 55 C): duty %.1f W, want %.1f W", d, want)
+		}
+		in := res.Rows[1].Result.Consumers[0].Inputs
+		mass, sensible := in["mass_kg"], in["sensible_W"]
+		if d, want := duty(1), sensible+loss(50); math.Abs(d-want) > 1e-6*want || sensible < 0.5*mass*1800*10/(48*3600) {
+			t.Errorf("row 2 (heat-up): duty %.1f W, want sensible %.1f + loss %.1f W (UA %.0f W/K)", d, sensible, loss(50), ua)
+		}
+		totals[i] = res.Total.FuelT
+	}
+	if totals[0] != totals[1] {
+		t.Errorf("fuel %.9g t on one worker, %.9g t on three", totals[0], totals[1])
+	}
+}

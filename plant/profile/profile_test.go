@@ -7,6 +7,7 @@ import (
 	"testing"
 
 	"steamcase/plant"
+	"steamcase/plant/loads"
 )
 
 func must(t testing.TB, err error) {
@@ -245,5 +246,52 @@ func BenchmarkAudit30Days1000Samples(b *testing.B) {
 		if _, err := Audit(context.Background(), p, days, unc, AuditOptions{Samples: 1000, Seed: 1}); err != nil {
 			b.Fatal(err)
 		}
+	}
+}
+
+// TestModelKeysVaryByRow: rows that set a duty model's parameters (a
+// tank's temperature held) solve on clones that own their models, so the
+// result does not depend on the workers or on the chunks, and each row's
+// duty is its own (the loss ΣUA·(T − T_sea), plant-checks.md §6 [CP]).
+func TestModelKeysVaryByRow(t *testing.T) {
+	t.Parallel()
+	build := func() *plant.Plant {
+		p := tanker(t)
+		tank := &plant.TankHeating{Tank: loads.TankHeating{Cargo: loads.Cargo{Density: 950, Cp: 1900}, CargoVolume: 2e4,
+			Boundaries: []loads.Boundary{{Area: 4000, U: 5, Beyond: loads.Sea}}, To: 323.15}}
+		c := plant.NewModelConsumer(tank)
+		c.Name, c.ReturnFraction = "COT", 0.95
+		must(t, p.Add(c))
+		p.Connect("to COT", plant.Pos{}, "main", "out", "COT", "in")
+		p.Connect("COT return", plant.Pos{}, "COT", "out", "hotwell", "in")
+		return p
+	}
+	var rows []Row
+	for i := 0; i < 12; i++ {
+		tC := 40 + float64(i)
+		rows = append(rows, Row{Phase: "p", Hours: 1, Case: plant.Case{Name: "r",
+			Conditions: plant.Conditions{SeaT: 283.15, AirT: 278.15},
+			Set:        []plant.Setting{{Unit: "COT", Param: "T", Value: 273.15 + tC}}}})
+	}
+	seq, err := Run(context.Background(), build(), rows, Options{Workers: 1, ChunkRows: 12})
+	must(t, err)
+	par, err := Run(context.Background(), build(), rows, Options{Workers: 3, ChunkRows: 1})
+	must(t, err)
+	for i := range rows {
+		want := 4000 * 5 * (30 + float64(i))
+		for _, r := range []*Result{seq, par} {
+			var got float64
+			for _, c := range r.Rows[i].Result.Consumers {
+				if c.Name == "COT" {
+					got = c.DutyW
+				}
+			}
+			if math.Abs(got-want) > 1e-6*want {
+				t.Errorf("row %d: COT duty %.1f W, want %.1f W", i+1, got, want)
+			}
+		}
+	}
+	if math.Abs(seq.Total.FuelT-par.Total.FuelT) > 1e-9*seq.Total.FuelT {
+		t.Errorf("fuel %.9g t in sequence, %.9g t on three workers one row a chunk", seq.Total.FuelT, par.Total.FuelT)
 	}
 }
