@@ -32,6 +32,7 @@ func ecoPlant(t *testing.T, withEco bool, ua float64) *Plant {
 }
 
 func TestEconomiser(t *testing.T) {
+	t.Parallel()
 	ctx := context.Background()
 	c := Case{Name: "sea", Conditions: Conditions{AirT: 308.15}}
 	plain, err := ecoPlant(t, false, 0).Solve(ctx, c)
@@ -96,6 +97,7 @@ func TestEconomiser(t *testing.T) {
 }
 
 func TestEconomiserOfColdBoiler(t *testing.T) {
+	t.Parallel()
 	// With the exhaust-gas economiser covering the demand, the oil-fired
 	// boiler and its economiser carry no flow: the solve must still find
 	// the balance (the economiser's water leaves as it came).

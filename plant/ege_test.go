@@ -36,6 +36,7 @@ func egeOnly(t testing.TB, n float64) (*Plant, *ExhaustGasEconomiser) {
 }
 
 func TestEGEDesignPoint(t *testing.T) {
+	t.Parallel()
 	// plant-checks.md §7 [C]: 35.42 kg/s at 240 °C, 7 bar(g) (T_sat
 	// 170.48 °C), pinch 15 K, c̄p 1.06 kJ/kg·K, feed 60 °C:
 	// Q 2046.7 kW, steam 2.928 t/h, NTU 1.5335. The sheet takes feed water
@@ -61,6 +62,7 @@ func TestEGEDesignPoint(t *testing.T) {
 }
 
 func TestEGEOffDesign(t *testing.T) {
+	t.Parallel()
 	// plant-checks.md §7 [C], off-design table: same inlet temperature,
 	// UA ∝ ṁ^n. The sheet rounds T_out to 0.01 °C and Q to 0.1 kW.
 	tests := []struct {
@@ -87,6 +89,7 @@ func TestEGEOffDesign(t *testing.T) {
 }
 
 func TestEGEBypassHoldsMinimum(t *testing.T) {
+	t.Parallel()
 	// With a bypass damper the mixed funnel gas is held at the minimum: by
 	// an energy balance with constant cp the duty is then exactly
 	// ṁ·c̄p·(T_in − T_min) (by hand).
@@ -110,6 +113,7 @@ func TestEGEBypassHoldsMinimum(t *testing.T) {
 }
 
 func TestEGEFuelSaved(t *testing.T) {
+	t.Parallel()
 	// plant-checks.md §7 [C]: the design-point economiser saves, against
 	// an oil-fired boiler at η 0.85 on LCV 40 200 kJ/kg with the same feed,
 	// 215.6 kg/h = 5.175 t/d. With a flat efficiency the saving is
@@ -151,6 +155,7 @@ func TestEGEFuelSaved(t *testing.T) {
 }
 
 func TestEGEPreheatingSection(t *testing.T) {
+	t.Parallel()
 	// A preheating section after the evaporator: the feed takes heat from
 	// the gas leaving the evaporator, so the same exhaust raises more
 	// steam. Its duty is the counterflow ε-NTU rating (checked by hand

@@ -22,6 +22,7 @@ func testFuel() fuel.Fuel {
 }
 
 func TestFlueGasTableEfficiency(t *testing.T) {
+	t.Parallel()
 	// plant-checks.md §3.3 [C]: the test fuel at 250 °C exit, 35 °C air,
 	// 3 % O2: dry-gas and moisture losses 9.60 % (LHV); with 0.7 %
 	// radiation η ≈ 89.6 % before the unburnt loss. The plant's boiler

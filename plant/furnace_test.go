@@ -37,6 +37,7 @@ func hsfo(t testing.TB) FuelSpec {
 }
 
 func TestFurnaceTubesLimits(t *testing.T) {
+	t.Parallel()
 	// Limits of the physics (common practice, no source): with no heating
 	// surface the gas leaves at the adiabatic flame temperature; with a
 	// very large one it approaches the water's saturation temperature;
@@ -82,6 +83,7 @@ func TestFurnaceTubesLimits(t *testing.T) {
 }
 
 func TestCalibrateSoot(t *testing.T) {
+	t.Parallel()
 	// One measured exit temperature at a known firing rate recovers the
 	// fouling that produced it (a round trip, no outside source).
 	op := BoilerOperation{Load: 0.8, DrumP: gauge(7), AirT: 308.15, Fuel: hsfo(t)}
@@ -105,6 +107,7 @@ func TestCalibrateSoot(t *testing.T) {
 }
 
 func TestFurnaceBoilerInPlant(t *testing.T) {
+	t.Parallel()
 	// The physics model inside a plant: the efficiency follows the solved
 	// fuel flow, and the balances close.
 	p := New("fire-tube", Options{})
@@ -127,6 +130,7 @@ func TestFurnaceBoilerInPlant(t *testing.T) {
 }
 
 func TestBurnerCannotFire(t *testing.T) {
+	t.Parallel()
 	// A burner given less air than the fuel needs (λ < 1), or air without
 	// oxygen, cannot fire: a clear error, never a NaN (common practice,
 	// no source: combustion needs fuel, oxygen and ignition).

@@ -221,6 +221,7 @@ func nearState(p *Plant, x []float64, rng *rand.Rand, rel float64) []float64 {
 // is within 1e-6 of its row's scale: the largest entry of the scaled row
 // (D_F⁻¹·J·D_X, the matrix the solver factorises).
 func TestJacobianAgainstFiniteDifferences(t *testing.T) {
+	t.Parallel()
 	const tol = 1e-6
 	rng := rand.New(rand.NewPCG(20261201, 7))
 	covered := map[string]int{}
@@ -302,6 +303,7 @@ func TestJacobianAgainstFiniteDifferences(t *testing.T) {
 // pattern is checked by the solver's dense differences (CheckPattern) at
 // its solution.
 func TestAnalyticJacobianSameResults(t *testing.T) {
+	t.Parallel()
 	const tol = 1e-9
 	ctx := context.Background()
 	for _, fx := range jacFixtures() {
@@ -380,6 +382,7 @@ func TestJacobianAllocatesNothing(t *testing.T) {
 // TestJacobianKeepsUnknowns: the differences a unit takes of its own
 // function move the unknowns and must put them back bit for bit.
 func TestJacobianKeepsUnknowns(t *testing.T) {
+	t.Parallel()
 	for _, fx := range jacFixtures() {
 		p := fx.build(t)
 		_, err := p.Solve(context.Background(), fx.cases[0])
@@ -489,6 +492,7 @@ func benchFixtures() []jacFixture {
 // converges with finite differences converges with the analytic Jacobian
 // in no more iterations plus one, to the same fuel within 1e-9 relative.
 func TestAnalyticJacobianSweep(t *testing.T) {
+	t.Parallel()
 	ctx := context.Background()
 	type sweep struct {
 		name  string
@@ -549,6 +553,7 @@ func TestAnalyticJacobianSweep(t *testing.T) {
 // orders of magnitude; checked against central finite differences, no
 // outside source).
 func TestJacobianAtBurnerMinimum(t *testing.T) {
+	t.Parallel()
 	p := economiserPlant(t)
 	_, err := p.Solve(context.Background(), Case{Name: "sea", Conditions: Conditions{AirT: 308.15}})
 	must(t, err)

@@ -47,6 +47,7 @@ func boilerOnly(t testing.TB) *Plant {
 }
 
 func TestBoilerFuelPerDay(t *testing.T) {
+	t.Parallel()
 	// plant-checks.md §3.6 [C]: 10 t/h of saturated steam at 7 bar(g) from
 	// feed at 60 °C, η 0.85, LCV 40 200 kJ/kg: 736.4 kg/h = 17.674 t/d, and
 	// with C_F 3.114 (IMO MEPC.364(79) [S]) 55.04 t/d of CO2. Tolerance
@@ -87,6 +88,7 @@ func turbinePlant(t testing.TB) *Plant {
 }
 
 func TestTurbineSteamRate(t *testing.T) {
+	t.Parallel()
 	// plant-checks.md §8 [C]: 16 bar(g) dry saturated to 0.2 bar(a),
 	// η_is 0.65, η_mech·gear 0.95: Δh_s 688.5 kJ/kg and 8.47 kg/kWh
 	// (±0.3 %, §11 item 10).
@@ -112,6 +114,7 @@ func TestTurbineSteamRate(t *testing.T) {
 }
 
 func TestFeedPumpPower(t *testing.T) {
+	t.Parallel()
 	// plant-checks.md §9 [C]: 10 t/h at 60 °C, Δp 10 bar, η 0.55:
 	// P_hyd 2.824 kW, shaft 5.135 kW (the issue quotes 5.14 kW).
 	p := New("pump check", Options{})
@@ -169,6 +172,7 @@ func twoBoilers(t testing.TB, opt Options) *Plant {
 }
 
 func TestClosedPlantBalances(t *testing.T) {
+	t.Parallel()
 	// A closed plant with returns, losses and make-up: the balances computed
 	// from the solved lines close (mass ≤ 1e-9, energy ≤ 1e-6 relative; the
 	// limits are the plant issue's, common practice for a converged
@@ -212,6 +216,7 @@ func demandCase(name string, kgh float64) Case {
 }
 
 func TestFiringDecision(t *testing.T) {
+	t.Parallel()
 	// The firing rule (common practice, no source; plant-checks.md §3.6
 	// [CP]): one boiler while the demand is at most 85 % of its MCR, both
 	// above; a boiler below MCR/turndown cycles.
@@ -249,6 +254,7 @@ func TestFiringDecision(t *testing.T) {
 }
 
 func TestShortfallIsAVerdict(t *testing.T) {
+	t.Parallel()
 	p := twoBoilers(t, Options{})
 	cr, err := p.Solve(context.Background(), demandCase("discharge", 25000))
 	must(t, err)
@@ -271,6 +277,7 @@ func TestShortfallIsAVerdict(t *testing.T) {
 }
 
 func TestForcedFiring(t *testing.T) {
+	t.Parallel()
 	p := twoBoilers(t, Options{})
 	c := demandCase("forced", 3000)
 	c.Fire = []string{"b1", "b2"}
@@ -286,6 +293,7 @@ func TestForcedFiring(t *testing.T) {
 }
 
 func TestGraphFaults(t *testing.T) {
+	t.Parallel()
 	tests := []struct {
 		name  string
 		build func(p *Plant)
@@ -360,6 +368,7 @@ func TestGraphFaults(t *testing.T) {
 }
 
 func TestWarmStartIsCheap(t *testing.T) {
+	t.Parallel()
 	p := twoBoilers(t, Options{})
 	ctx := context.Background()
 	_, err := p.Solve(ctx, demandCase("a", 5000))
@@ -374,6 +383,7 @@ func TestWarmStartIsCheap(t *testing.T) {
 }
 
 func TestSteamStateOfBoiler(t *testing.T) {
+	t.Parallel()
 	// The boiler's steam at dryness 0.98 has h = h_f + 0.98·h_fg at the drum
 	// pressure (IAPWS-IF97 via the water package, which its own tests check
 	// against the IF97 verification tables).
@@ -390,6 +400,7 @@ func TestSteamStateOfBoiler(t *testing.T) {
 }
 
 func TestDrainCoolerStopsFlashing(t *testing.T) {
+	t.Parallel()
 	// With the heating condensate cooled to 80 °C before the hotwell nothing
 	// flashes, the hotwell stays below the pump's suction limit, and the
 	// cooler's heat is counted in the energy balance (which must still
@@ -466,6 +477,7 @@ func (m fixedModel) Duty(c Conditions) (Duty, error) {
 }
 
 func TestCoupledConsumers(t *testing.T) {
+	t.Parallel()
 	// The boiler's own burner heater takes steam in proportion to the
 	// boiler's fuel flow, and atomising steam likewise: the coupling is
 	// solved with the plant, so the heater's duty equals DutyPerFuel times
@@ -498,6 +510,7 @@ func TestCoupledConsumers(t *testing.T) {
 }
 
 func TestEmptyPlant(t *testing.T) {
+	t.Parallel()
 	p := New("nothing", Options{})
 	if err := p.Check(); err == nil || !strings.Contains(err.Error(), "no units") {
 		t.Errorf("empty plant: %v", err)
@@ -511,6 +524,7 @@ func TestEmptyPlant(t *testing.T) {
 }
 
 func TestLeadLagSharing(t *testing.T) {
+	t.Parallel()
 	// Lead-lag (common practice, no source): the lead boiler holds its set
 	// load and the other takes the rest.
 	p := twoBoilers(t, Options{Sharing: LeadLag, LeadLoad: 0.7})
@@ -528,6 +542,7 @@ func TestLeadLagSharing(t *testing.T) {
 }
 
 func TestObservationTank(t *testing.T) {
+	t.Parallel()
 	// Returning condensate through a vented observation tank: what flashes
 	// there is vented and made up, the rest drains to the hotwell, and
 	// the tank's temperature is not reported as the feed's.

@@ -44,6 +44,7 @@ func scripts(t *testing.T) []string {
 // the golden file guards against unintended change, not against an
 // outside source.
 func TestScenarios(t *testing.T) {
+	t.Parallel()
 	for _, name := range scripts(t) {
 		t.Run(name, func(t *testing.T) {
 			src, err := fs.ReadFile(scenarios.FS, name)
@@ -116,6 +117,7 @@ func TestScenarios(t *testing.T) {
 //
 // (plant-checks.md §3.6 [C]).
 func TestHandCheckTankerPort(t *testing.T) {
+	t.Parallel()
 	src, err := fs.ReadFile(scenarios.FS, "tanker.lua")
 	if err != nil {
 		t.Fatal(err)

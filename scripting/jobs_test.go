@@ -32,6 +32,7 @@ func runJob(t *testing.T, file string, opt Options) *Run {
 }
 
 func TestVoyageTotals(t *testing.T) {
+	t.Parallel()
 	run := runJob(t, "voyage.lua", Options{})
 	if len(run.Voyages) != 2 || len(run.Cases) != 5 {
 		t.Fatalf("got %d voyages and %d cases; want 2 and 5", len(run.Voyages), len(run.Cases))
@@ -73,6 +74,7 @@ func TestVoyageTotals(t *testing.T) {
 }
 
 func TestStudySaving(t *testing.T) {
+	t.Parallel()
 	run := runJob(t, "study.lua", Options{})
 	if len(run.Studies) != 1 || len(run.Voyages) != 2 {
 		t.Fatalf("got %d studies and %d voyages; want 1 and 2", len(run.Studies), len(run.Voyages))
@@ -89,6 +91,7 @@ func TestStudySaving(t *testing.T) {
 }
 
 func TestAuditFlags(t *testing.T) {
+	t.Parallel()
 	run := runJob(t, "audit.lua", Options{})
 	if len(run.Audits) != 2 {
 		t.Fatalf("got %d audits; want 2", len(run.Audits))
@@ -114,6 +117,7 @@ func TestAuditFlags(t *testing.T) {
 // progress callback: the results must not depend on the workers, and the
 // progress must reach its total.
 func TestJobsWorkers(t *testing.T) {
+	t.Parallel()
 	var mu sync.Mutex
 	last := map[string][2]int{}
 	prog := func(job string, done, total int) {
@@ -141,6 +145,7 @@ func TestJobsWorkers(t *testing.T) {
 }
 
 func TestJobErrors(t *testing.T) {
+	t.Parallel()
 	bad := filepath.Join("testdata", "bad")
 	tests := []struct {
 		file string
@@ -178,6 +183,7 @@ func TestJobErrors(t *testing.T) {
 }
 
 func TestCoolDown(t *testing.T) {
+	t.Parallel()
 	// plant-checks.md §6 [C]: m 10 000 t, c 2.0 kJ/kgK, ΣUA 50 kW/K give
 	// τ = 111.1 h; from 60 °C with 20 °C surroundings, 3 days give
 	// 40.92 °C.
@@ -233,6 +239,7 @@ func runValues(t *testing.T, src string, n int) []float64 {
 // ΣUA 50 kW/K to a 20 °C sea: 60 °C → 40.92 °C in 3 days), reached by
 // its handle and by its name, while a voyage keeps its heating off.
 func TestCoolDownOfUnit(t *testing.T) {
+	t.Parallel()
 	src := `
 local ship = steam_plant { name = "tank",
   boilers = { { name = "AB1", mcr = "3 t/h", drum = "7 bar(g)", fuel = "MGO", efficiency = "84 %" } } }

@@ -44,6 +44,7 @@ func renderKeyDoc(t *testing.T) []byte {
 // TestKeyReference keeps keys_doc.go, the documentation of every key, the
 // registry's own: run with -update (or go generate) after changing a key.
 func TestKeyReference(t *testing.T) {
+	t.Parallel()
 	got := renderKeyDoc(t)
 	if *update {
 		if err := os.WriteFile(keyDoc, got, 0o644); err != nil {

@@ -81,6 +81,7 @@ func voyage(n int) []Row {
 }
 
 func TestVoyageTotalsAreSums(t *testing.T) {
+	t.Parallel()
 	p := tanker(t)
 	rows := voyage(200)
 	res, err := Run(context.Background(), p, rows, Options{Workers: 2, ChunkRows: 16})
@@ -114,6 +115,7 @@ func TestVoyageTotalsAreSums(t *testing.T) {
 }
 
 func TestIdenticalRowsScale(t *testing.T) {
+	t.Parallel()
 	// A profile of identical rows gives the single case's figures times
 	// the hours.
 	p := tanker(t)
@@ -134,6 +136,7 @@ func TestIdenticalRowsScale(t *testing.T) {
 }
 
 func TestWorkersGiveIdenticalResults(t *testing.T) {
+	t.Parallel()
 	p := tanker(t)
 	rows := voyage(150)
 	one, err := Run(context.Background(), p, rows, Options{Workers: 1, ChunkRows: 10})
@@ -152,6 +155,7 @@ func TestWorkersGiveIdenticalResults(t *testing.T) {
 }
 
 func TestStudySavingIsDifference(t *testing.T) {
+	t.Parallel()
 	p := tanker(t)
 	rows := voyage(100)
 	res, err := Study(context.Background(), p, rows, []Variant{
@@ -174,6 +178,7 @@ func TestStudySavingIsDifference(t *testing.T) {
 }
 
 func TestAuditFlagsOutsideBand(t *testing.T) {
+	t.Parallel()
 	p := tanker(t)
 	rows := voyage(96)
 	var days []Day
