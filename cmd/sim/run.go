@@ -50,16 +50,17 @@ with their units, such as "7 bar(g)" or "18 t/h". A script reads files only
 from its own folder and the folders below it.
 
 The report is a table for people unless --json or --csv asks for a form for
-programs: --json prints one JSON document (schema 1: the caution, the plant,
-every case with its figures and every voyage, study and audit, each key
-naming its unit), --csv tables of comma-separated values under headers
+programs: --json prints one JSON document (schema 2: the caution, the
+plants, every case with its figures and every voyage, study and audit,
+each key naming its unit; the same keys as the tables case() and the jobs
+return to a script), --csv tables of comma-separated values under headers
 naming their units: the load cases, one row each with the main figures,
 then the rows of the voyages (each period's conditions, boilers firing,
-steam, fuel and CO2), the variants of the studies (fuel, savings, payback)
+steam, fuel and CO2) and their warnings, the variants of the studies (fuel, savings, payback)
 and the days of the audits (claimed, nominal and band). Each table starts
 with a header row whose first field is "table"; its rows carry the
-table's name there ("cases", "voyage rows", "study variants" or "audit
-days"), and a blank line separates two tables. The cases table always
+table's name there ("cases", "voyage rows", "voyage warnings", "study
+variants" or "audit days"), and a blank line separates two tables. The cases table always
 comes first; a job's table only when the run has such a job. -o writes the
 report to a file instead of standard output.
 

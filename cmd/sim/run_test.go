@@ -61,7 +61,7 @@ func TestRunForms(t *testing.T) {
 	var doc struct {
 		Schema  int    `json:"schema"`
 		Caution string `json:"caution"`
-		Plant   struct {
+		Plant   []struct {
 			Name string `json:"name"`
 		} `json:"plant"`
 		Cases []struct {
@@ -73,7 +73,8 @@ func TestRunForms(t *testing.T) {
 	if err := json.Unmarshal([]byte(out), &doc); err != nil {
 		t.Fatalf("--json: %v\n%s", err, out)
 	}
-	if doc.Schema != 1 || doc.Caution != cautionLine || doc.Plant.Name != "Invented Test Coaster" || len(doc.Cases) != 2 ||
+	if doc.Schema != 2 || doc.Caution != cautionLine || len(doc.Plant) != 1 ||
+		doc.Plant[0].Name != "Invented Test Coaster" || len(doc.Cases) != 2 ||
 		doc.Cases[0].Source != "testdata/run/small.lua:20" || doc.Cases[1].BoilersFiring != 2 {
 		t.Errorf("--json: %+v", doc)
 	}
@@ -302,11 +303,12 @@ func TestRunVoyage(t *testing.T) {
 		t.Errorf("--json: exit %d, %v, %+v", code, err, doc)
 	}
 	// The CSV: the cases' header alone (no case), a blank line, then the
-	// voyage's rows.
+	// voyage's rows and their warnings.
 	code, out, _ = runSim(t, "run", "--quiet", "--csv", script)
 	tables := strings.Split(out, "\n\n")
-	if code != exitOK || len(tables) != 2 || !strings.HasPrefix(tables[0], "table,case,plant,") ||
+	if code != exitOK || len(tables) != 3 || !strings.HasPrefix(tables[0], "table,case,plant,") ||
 		!strings.HasPrefix(tables[1], "table,voyage,row,source,phase,") ||
+		!strings.HasPrefix(tables[2], "table,voyage,row,source,warning\n") ||
 		!strings.Contains(tables[1], "\nvoyage rows,short trip,2,testdata/run/voyage.lua:4,passage,") {
 		t.Errorf("--csv of a voyage: exit %d:\n%s", code, out)
 	}
