@@ -8,8 +8,8 @@ import (
 )
 
 // CaseResult is the answer to one load case. Every figure is SI (kg/s, W,
-// Pa, K, J/kg); JSON gives the documented schema in the units its keys
-// name.
+// Pa, K, J/kg); package plant/schema gives its documented form for
+// reports and scripts, in the units its keys name.
 type CaseResult struct {
 	Name       string
 	Pos        Pos

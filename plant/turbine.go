@@ -242,6 +242,7 @@ func (u *Turbine) report(ev *eval, cr *CaseResult) error {
 }
 
 func (u *Turbine) outline(cr *CaseResult) {
+	cr.Units = append(cr.Units, ComponentResult{Name: u.Name, Kind: u.Kind()})
 	cr.Consumers = append(cr.Consumers, ConsumerResult{Name: u.Name, Kind: u.Kind()})
 }
 

@@ -1,15 +1,17 @@
 package scripting
 
 import (
-	"encoding/json"
 	"errors"
 	"fmt"
 	"math"
+	"reflect"
 	"sort"
+	"strings"
 
 	lua "github.com/yuin/gopher-lua"
 
 	"steamcase/plant"
+	"steamcase/plant/schema"
 	"steamcase/plant/units"
 )
 
@@ -109,7 +111,9 @@ func (r *runner) luaCase(L *lua.LState) int {
 	if r.opt.CheckOnly {
 		r.checkPlantOnce(ph)
 		r.out.Cases = append(r.out.Cases, CaseRecord{Plant: ph.p.Name, Pos: pos})
-		L.Push(r.resultTable(ph.p.Outline(name, c.Conditions).JSON()))
+		cr := ph.p.Outline(name, c.Conditions)
+		cr.Pos = c.Pos
+		L.Push(r.resultTable(schema.NewCase(ph.p.Name, cr)))
 		return 1
 	}
 	if r.emptyPlant(ph) || len(r.errs) > 0 {
@@ -130,7 +134,7 @@ func (r *runner) luaCase(L *lua.LState) int {
 	}
 	ph.checked = true
 	r.out.Cases = append(r.out.Cases, CaseRecord{Plant: ph.p.Name, Pos: pos, Result: res})
-	L.Push(r.resultTable(res.JSON()))
+	L.Push(r.resultTable(schema.NewCase(ph.p.Name, res)))
 	return 1
 }
 
@@ -242,48 +246,153 @@ func (r *runner) finish() error {
 	return nil
 }
 
-// resultTable turns a case result into a Lua table mirroring its JSON.
-func (r *runner) resultTable(j plant.CaseJSON) lua.LValue {
-	b, err := json.Marshal(j)
-	if err != nil {
-		r.fail("", "case %q: result not representable: %v", j.Name, err)
-	}
-	var v any
-	if err := json.Unmarshal(b, &v); err != nil {
-		r.fail("", "case %q: result not representable: %v", j.Name, err)
-	}
-	return r.toLua(v)
+// resultTable is what case() returns: the case's schema object (package
+// plant/schema) as a Lua table, with exactly its JSON keys.
+func (r *runner) resultTable(c schema.Case) *lua.LTable {
+	return r.schemaTable(fmt.Sprintf("case %q", c.Name), c)
 }
 
-func (r *runner) toLua(v any) lua.LValue {
-	switch x := v.(type) {
-	case nil:
-		return lua.LNil
-	case bool:
-		return lua.LBool(x)
-	case float64:
-		return lua.LNumber(x)
-	case string:
-		return lua.LString(x)
-	case []any:
-		t := r.L.CreateTable(len(x), 0)
-		for _, e := range x {
-			t.Append(r.toLua(e))
+// schemaTable turns v, an object of package plant/schema, into a Lua table
+// with the keys and values of its JSON form: a walk of its fields by their
+// JSON tags, as encoding/json reads them. A nil pointer or slice (null in
+// the JSON) is nil, so the key is absent; a field tagged omitempty is left
+// out when empty; an embedded struct's keys are the object's own; a list
+// is a sequence from 1; a map's keys are set in sorted order (so that
+// pairs() goes the same way every run). A test (TestLuaKeysAreJSONKeys)
+// compares the keys with the JSON's. The walk costs a fraction of going
+// through the JSON text and back (see BenchmarkVoyageTable).
+func (r *runner) schemaTable(what string, v any) *lua.LTable {
+	lv, err := r.luaOf(reflect.ValueOf(v))
+	if err != nil {
+		r.fail("", "%s: result not representable: %v", what, err)
+	}
+	t, ok := lv.(*lua.LTable)
+	if !ok {
+		r.fail("", "%s: result not representable: a %T, not a table", what, v)
+	}
+	return t
+}
+
+// luaOf is the Lua form of a value of the schema.
+func (r *runner) luaOf(v reflect.Value) (lua.LValue, error) {
+	switch v.Kind() {
+	case reflect.Pointer, reflect.Interface:
+		if v.IsNil() {
+			return lua.LNil, nil
 		}
-		return t
-	case map[string]any:
-		t := r.L.CreateTable(0, len(x))
-		keys := make([]string, 0, len(x))
-		for k := range x {
-			keys = append(keys, k)
+		return r.luaOf(v.Elem())
+	case reflect.Bool:
+		return lua.LBool(v.Bool()), nil
+	case reflect.String:
+		return lua.LString(v.String()), nil
+	case reflect.Int, reflect.Int8, reflect.Int16, reflect.Int32, reflect.Int64:
+		return lua.LNumber(v.Int()), nil
+	case reflect.Uint, reflect.Uint8, reflect.Uint16, reflect.Uint32, reflect.Uint64:
+		return lua.LNumber(v.Uint()), nil
+	case reflect.Float32, reflect.Float64:
+		f := v.Float()
+		if math.IsNaN(f) || math.IsInf(f, 0) {
+			return nil, fmt.Errorf("a figure is %g", f)
+		}
+		return lua.LNumber(f), nil
+	case reflect.Slice, reflect.Array:
+		if v.Kind() == reflect.Slice && v.IsNil() {
+			return lua.LNil, nil
+		}
+		t := r.L.CreateTable(v.Len(), 0)
+		for i := range v.Len() {
+			e, err := r.luaOf(v.Index(i))
+			if err != nil {
+				return nil, err
+			}
+			t.Append(e)
+		}
+		return t, nil
+	case reflect.Map:
+		if v.IsNil() {
+			return lua.LNil, nil
+		}
+		if v.Type().Key().Kind() != reflect.String {
+			return nil, fmt.Errorf("a map keyed by %s", v.Type().Key())
+		}
+		keys := make([]string, 0, v.Len())
+		for _, k := range v.MapKeys() {
+			keys = append(keys, k.String())
 		}
 		sort.Strings(keys)
+		t := r.L.CreateTable(0, len(keys))
 		for _, k := range keys {
-			t.RawSetString(k, r.toLua(x[k]))
+			e, err := r.luaOf(v.MapIndex(reflect.ValueOf(k).Convert(v.Type().Key())))
+			if err != nil {
+				return nil, err
+			}
+			t.RawSetString(k, e)
 		}
-		return t
+		return t, nil
+	case reflect.Struct:
+		t := r.L.CreateTable(0, v.NumField())
+		if err := r.luaFields(t, v); err != nil {
+			return nil, err
+		}
+		return t, nil
 	}
-	return lua.LString(fmt.Sprint(v))
+	return nil, fmt.Errorf("a %s has no Lua form", v.Type())
+}
+
+// luaFields sets in t the fields of the struct v under their JSON keys.
+func (r *runner) luaFields(t *lua.LTable, v reflect.Value) error {
+	rt := v.Type()
+	for i := range rt.NumField() {
+		f := rt.Field(i)
+		tag := f.Tag.Get("json")
+		if f.Anonymous && tag == "" && f.Type.Kind() == reflect.Struct {
+			if err := r.luaFields(t, v.Field(i)); err != nil {
+				return err
+			}
+			continue
+		}
+		name, opts, _ := strings.Cut(tag, ",")
+		if !f.IsExported() || name == "-" {
+			continue
+		}
+		if name == "" {
+			name = f.Name
+		}
+		fv := v.Field(i)
+		if opts != "" && omitEmpty(opts) && emptyJSON(fv) {
+			continue
+		}
+		e, err := r.luaOf(fv)
+		if err != nil {
+			return fmt.Errorf("%s: %w", name, err)
+		}
+		if e != lua.LNil {
+			t.RawSetString(name, e)
+		}
+	}
+	return nil
+}
+
+// omitEmpty reports whether the options of a JSON tag ("omitempty,string")
+// hold omitempty.
+func omitEmpty(opts string) bool {
+	for o := range strings.SplitSeq(opts, ",") {
+		if o == "omitempty" {
+			return true
+		}
+	}
+	return false
+}
+
+// emptyJSON reports whether encoding/json's omitempty leaves v out.
+func emptyJSON(v reflect.Value) bool {
+	switch v.Kind() {
+	case reflect.Array, reflect.Map, reflect.Slice, reflect.String:
+		return v.Len() == 0
+	case reflect.Pointer, reflect.Interface:
+		return v.IsNil()
+	}
+	return v.IsZero()
 }
 
 // luaCheck is check(cond, "message"): in a run, a false or nil cond stops

@@ -216,11 +216,15 @@
 // boiler's mcr, drum, dryness, blowdown and eta_factor; ...).
 //
 // case solves at once (warm-started from the plant's previous case),
-// records the result in the Run and returns a table mirroring the JSON of
-// plant.CaseResult.JSON() (keys carry their units): r.fuel_t_per_day,
-// r.boilers_firing, r.can_carry, r.boilers[1].load_fraction,
-// r.consumers[i].steam_kg_h, r.warnings, ... In check mode it returns a
-// table of the same shape with zero figures.
+// records the result in the Run and returns the case's object of the JSON
+// schema (package plant/schema, which lists every key) as a table: the
+// same keys, with their units, and the same values, rounded to six
+// significant digits: r.fuel_t_per_day, r.boilers_firing, r.can_carry,
+// r.boilers[1].load_fraction, r.consumers[i].steam_kg_h, r.warnings, ...
+// A key that is null in the JSON is nil here: r.sea_T_K when the case
+// gave no sea temperature, r.boilers[i].losses with a plain efficiency
+// table. In check mode it returns a table of the same shape with zero
+// figures.
 //
 // # Voyages, studies and audits
 //
@@ -244,17 +248,29 @@
 // file and the line of the row (voyage.csv:7: column "sea": ...) or of
 // the header for a bad column, and what was expected.
 //
-// The result: v.name; v.total, each v.phases[i] (with .phase, in order of
-// first appearance) and v.by_phase["loaded passage"] hold the totals
-// rows, hours, fuel_t, co2_t, steam_t, ege_steam_t, dumped_t, makeup_t,
-// fuel_saved_t (by the EGEs), electric_MWh, hours_firing (a list: [1] no
-// boiler, [2] one, ...), hours_no_boiler, hours_one_boiler,
-// hours_two_boilers, peak_boiler_kg_h with peak_row, capacity_kg_h,
-// tightest_margin_kg_h with tightest_row (absent if no row had a margin),
-// short_rows and warning_rows (lists of row numbers); v.rows[i] has
-// phase, hours, name, fuel_kg_h, fuel_t, co2_t, steam_kg_h,
-// ege_steam_kg_h, dumped_kg_h, boilers_firing, can_carry and warnings (a
-// count; the texts and every case result are in the Run).
+// The result of voyage, study and audit is the job's object of the JSON
+// schema (package plant/schema lists every key), as for case(), with a few
+// conveniences the JSON does not carry, all derived from the schema's
+// values: by_phase, by_name, flagged_days, and in every set of totals
+// hours_no_boiler, hours_one_boiler and hours_two_boilers. Every job has
+// name, plant, source and row_sources.
+//
+// A voyage: v.total, each v.phases[i] (with .phase, in order of first
+// appearance) and v.by_phase["loaded passage"] (a convenience: the same
+// table as the phase's entry) hold the totals rows, hours, fuel_t, co2_t,
+// steam_t, ege_steam_t, ege_fuel_saved_t (by the EGEs), dumped_t,
+// makeup_t, electric_MWh, hours_firing (a list: [1] no boiler, [2] one,
+// ...), peak_boiler_kg_h with peak_row, capacity_kg_h,
+// tightest_margin_kg_h with tightest_row (nil if no row was summed),
+// short_rows and warning_rows (lists of row numbers), and the
+// conveniences hours_no_boiler, hours_one_boiler and hours_two_boilers
+// (hours_firing[1], [2] and [3], 0 where the list is shorter); v.rows[i]
+// has row, phase, hours, case (the row's name), sea_T_K and air_T_K (nil
+// when not given), engine_load, boilers_firing, can_carry,
+// steam_demand_kg_h, steam_production_kg_h, boiler_steam_kg_h,
+// ege_steam_kg_h, dumped_kg_h, fuel_kg_h, fuel_t, co2_t, margin_kg_h and
+// warnings (the texts; #v.rows[i].warnings counts them). Every case
+// result is in the Run.
 //
 //	local s = study(ship, { name = "EGE", csv = "year.csv", variants = {
 //	    { name = "without EGE", set = { EGE = { off = true } } },
@@ -264,12 +280,13 @@
 // 100; name required, set optional, added to every row) and compares each
 // with the first. fuel_price (number, per tonne of boiler fuel),
 // installed_cost (number) and currency (a string) are optional. The
-// result: s.name, s.hours, s.fuel_price, s.installed_cost, s.currency;
-// s.variants[i] and s.by_name["with EGE"] hold the variant's totals (as a
-// voyage's) and saved_fuel_t, co2_avoided_t, cost_saved (against the
-// first), payback_years (when both money figures are given; math.huge if
-// nothing is saved; the saving is scaled to a year when the rows' hours
-// are not one), hours_below_min_gas_T.
+// result: s.hours, s.fuel_price_per_t, s.installed_cost, s.currency;
+// s.variants[i] and s.by_name["with EGE"] (a convenience: the same table)
+// hold the variant's name, totals (as a voyage's, under .totals:
+// s.variants[2].totals.fuel_t), fuel_saved_t, co2_avoided_t, cost_saved
+// (against the first), payback_years (when both money figures are given
+// and the variant saves something, nil otherwise; the saving is scaled to
+// a year when the rows' hours are not one), hours_below_min_gas_T.
 //
 //	local a = audit(ship, { name = "March", csv = "log.csv",
 //	    uncertain = { { unit = "cargo heating", key = "factor", low = 0.85, high = 1.15 },
@@ -286,12 +303,14 @@
 // "unit.key" columns. claimed is the boiler fuel reported for the day:
 // "12.5 t", "12500 kg", or a bare number of tonnes. uncertain keys: unit,
 // key (a case key of the unit that is a number: factor, eta_factor, duty,
-// returns, ua, ...), low and high in that key's unit. The result: a.name,
+// returns, ua, ...), low and high in that key's unit. The result:
 // a.claimed_t, a.nominal_t, a.low_t, a.high_t (sums of the days' band
 // ends), a.excess_t (the claims above the band, beyond its top), a.flagged
-// (a count), a.samples, a.seed, a.low_quantile, a.high_quantile; a.days[i]
-// and a.flagged_days[i] have day (number), date, phase, claimed_t,
-// nominal_t, low_t, median_t, high_t and flag ("above", "below" or "").
+// (a count), a.samples, a.seed, a.low_quantile, a.high_quantile,
+// a.uncertainties[i] (unit, param, low, high); a.days[i] and the
+// convenience a.flagged_days[i] (the days flagged, in order; the same
+// tables) have day (number), date, phase, claimed_t, nominal_t, low_t,
+// median_t, high_t and flag ("above", "below" or "").
 //
 // In check mode the jobs read and check everything but solve nothing, and
 // return tables of the same shape with zero figures.

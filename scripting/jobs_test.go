@@ -249,7 +249,7 @@ ship:line("steam to COT 1", "main", "COT 1")
 local v = voyage(ship, { rows = { { phase = "passage", hours = 72, sea = "20 C", air = "20 C", set = { ["COT 1"] = { off = true } } } } })
 local T = cool_down { tank = cot, from = "60 C", hours = v.total.hours, sea = "20 C" }
 local T2 = cool_down { tank = "COT 1", from = "60 C", hours = "3 d", sea = "20 C" }
-return T, T2, v.rows[1].steam_kg_h`
+return T, T2, v.rows[1].steam_production_kg_h`
 	got := runValues(t, src, 3)
 	if math.Abs(got[0]-40.92) > 0.005 || got[1] != got[0] {
 		t.Errorf("cool_down of the unit gives %.4f °C by handle and %.4f °C by name; want 40.92 °C", got[0], got[1])

@@ -15,6 +15,7 @@ import (
 	"github.com/rs/zerolog"
 
 	"steamcase/cmd/sim/internal/report"
+	"steamcase/plant/schema"
 	"steamcase/scripting"
 )
 
@@ -50,16 +51,18 @@ with their units, such as "7 bar(g)" or "18 t/h". A script reads files only
 from its own folder and the folders below it.
 
 The report is a table for people unless --json or --csv asks for a form for
-programs: --json prints one JSON document (schema 1: the caution, the plant,
-every case with its figures and every voyage, study and audit, each key
-naming its unit), --csv tables of comma-separated values under headers
+programs: --json prints one JSON document (schema 2: the program's
+version, the caution, the plants, the checks passed and failed, every case
+with its figures and every voyage, study and audit, each key naming its
+unit; the same keys as the tables case() and the jobs return to a script),
+--csv tables of comma-separated values under headers
 naming their units: the load cases, one row each with the main figures,
 then the rows of the voyages (each period's conditions, boilers firing,
-steam, fuel and CO2), the variants of the studies (fuel, savings, payback)
+steam, fuel and CO2) and their warnings, the variants of the studies (fuel, savings, payback)
 and the days of the audits (claimed, nominal and band). Each table starts
 with a header row whose first field is "table"; its rows carry the
-table's name there ("cases", "voyage rows", "study variants" or "audit
-days"), and a blank line separates two tables. The cases table always
+table's name there ("cases", "voyage rows", "voyage warnings", "study
+variants" or "audit days"), and a blank line separates two tables. The cases table always
 comes first; a job's table only when the run has such a job. -o writes the
 report to a file instead of standard output.
 
@@ -86,7 +89,8 @@ audit's days; a study's rows times its variants) done of all, the share,
 the rate and the time left at that rate, and the time taken when done. An error in a script is printed as
 "file:line: message" and sim exits with status 1. So does a failed check(),
 after the report of the cases solved before it, so that the figures it
-tested can be seen. A script that runs longer than --timeout is stopped.
+tested can be seen; with --json the document marks the failure under
+"checks". A script that runs longer than --timeout is stopped.
 
 Examples:
 
@@ -292,7 +296,7 @@ func runScripts(ctx context.Context, e env, a *runArgs, runners []scriptRunner, 
 			log.Debug().Str("job", job).Int("done", done).Int("total", total).Msg("progress")
 		}
 	}
-	var all report.Run
+	all := report.Run{Version: version()}
 	var failed error
 	for _, run := range runners {
 		r, err := run(ctx, opt)
@@ -311,7 +315,9 @@ func runScripts(ctx context.Context, e env, a *runArgs, runners []scriptRunner, 
 				}
 				return writeScriptError(e.stderr, err)
 			}
-			// A failed check: report what was solved, then the failure.
+			// A failed check: report what was solved and the failure,
+			// then print it.
+			all.Checks.Failed = append(all.Checks.Failed, schema.CheckFailure{Pos: ae.Pos.String(), Message: ae.Msg})
 			failed = err
 			break
 		}
@@ -328,8 +334,10 @@ func runScripts(ctx context.Context, e env, a *runArgs, runners []scriptRunner, 
 	return nil
 }
 
-// collect adds what a script solved to the run's report.
+// collect adds what a script solved, and the checks it passed, to the
+// run's report.
 func collect(all *report.Run, r *scripting.Run) {
+	all.Checks.Passed += r.Checks
 	for _, c := range r.Cases {
 		if c.Result != nil {
 			all.Cases = append(all.Cases, report.Case{Plant: c.Plant, Result: c.Result})

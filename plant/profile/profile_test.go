@@ -144,8 +144,7 @@ func TestWorkersGiveIdenticalResults(t *testing.T) {
 	four, err := Run(context.Background(), tanker(t), rows, Options{Workers: 4, ChunkRows: 10})
 	must(t, err)
 	for i := range one.Rows {
-		a, b := one.Rows[i].Result.JSON(), four.Rows[i].Result.JSON()
-		if !reflect.DeepEqual(a, b) {
+		if !reflect.DeepEqual(one.Rows[i].Result, four.Rows[i].Result) {
 			t.Fatalf("row %d differs between 1 and 4 workers", i)
 		}
 	}

@@ -10,12 +10,12 @@ import (
 	"math"
 	"os"
 	"path/filepath"
-	"regexp"
 	"strconv"
 	"strings"
 	"testing"
 
 	"steamcase/plant"
+	"steamcase/plant/schema"
 )
 
 var update = flag.Bool("update", false, "rewrite the golden files in testdata/")
@@ -284,59 +284,99 @@ func TestCSV(t *testing.T) {
 	}
 }
 
-// TestJSONDocument decodes the JSON strictly and checks the envelope and
-// that each case is the plant's own CaseJSON.
+// TestJSONDocument decodes the JSON strictly and checks the envelope: the
+// schema's version, the program's, the caution, the plants as a list, the
+// checks, and that each case is its schema form.
 func TestJSONDocument(t *testing.T) {
 	cases := demoCases(t)
-	decode := func(cs []Case) map[string]json.RawMessage {
+	decode := func(run Run) map[string]json.RawMessage {
 		var b bytes.Buffer
-		must(t, JSON(&b, Run{Cases: cs}))
+		must(t, JSON(&b, run))
 		var doc map[string]json.RawMessage
 		must(t, json.Unmarshal(b.Bytes(), &doc))
+		var strict schema.Document
+		dec := json.NewDecoder(bytes.NewReader(b.Bytes()))
+		dec.DisallowUnknownFields()
+		must(t, dec.Decode(&strict))
 		return doc
 	}
-	doc := decode(cases)
-	if string(doc["schema"]) != strconv.Itoa(plant.SchemaVersion) {
-		t.Errorf("schema %s, want %d", doc["schema"], plant.SchemaVersion)
+	compact := func(raw json.RawMessage) string {
+		var b bytes.Buffer
+		must(t, json.Compact(&b, raw))
+		return b.String()
 	}
-	var compact bytes.Buffer
-	must(t, json.Compact(&compact, doc["plant"]))
-	if compact.String() != `{"name":"Invented Test Tanker"}` {
-		t.Errorf("plant %s", doc["plant"])
+	doc := decode(Run{Cases: cases, Version: "v9.9.9-test",
+		Checks: schema.Checks{Passed: 4, Failed: []schema.CheckFailure{{Pos: "demo.lua:30", Message: "two boilers carry it"}}}})
+	if string(doc["schema"]) != strconv.Itoa(schema.Version) {
+		t.Errorf("schema %s, want %d", doc["schema"], schema.Version)
+	}
+	if string(doc["version"]) != `"v9.9.9-test"` {
+		t.Errorf("version %s", doc["version"])
+	}
+	if got := compact(doc["plant"]); got != `[{"name":"Invented Test Tanker"}]` {
+		t.Errorf("plant %s", got)
+	}
+	if got := compact(doc["checks"]); got != `{"passed":4,"failed":[{"pos":"demo.lua:30","message":"two boilers carry it"}]}` {
+		t.Errorf("checks %s", got)
 	}
 	var caution string
 	must(t, json.Unmarshal(doc["caution"], &caution))
 	if caution != Caution {
 		t.Errorf("caution %q", caution)
 	}
-	var got []struct {
-		Plant  string `json:"plant"`
-		Source string `json:"source"`
-		plant.CaseJSON
-	}
-	dec := json.NewDecoder(bytes.NewReader(doc["cases"]))
-	dec.DisallowUnknownFields()
-	must(t, dec.Decode(&got))
+	var got []json.RawMessage
+	must(t, json.Unmarshal(doc["cases"], &got))
 	for i, c := range cases {
-		want, _ := json.Marshal(c.Result.JSON())
-		have, _ := json.Marshal(got[i].CaseJSON)
-		if !bytes.Equal(want, have) || got[i].Plant != c.Plant || got[i].Source != c.Result.Pos.String() {
-			t.Errorf("case %d: plant %q source %q, CaseJSON equal %v", i, got[i].Plant, got[i].Source, bytes.Equal(want, have))
+		want, _ := json.Marshal(schema.NewCase(c.Plant, c.Result))
+		if compact(got[i]) != string(want) {
+			t.Errorf("case %d is not its schema form:\n%s\n%s", i, compact(got[i]), want)
 		}
 	}
 
-	// Cases on two plants: the top-level plant is null.
+	// Cases on two plants: both listed, in order.
 	other := twoBoilers(t, "Invented Second Ship")
 	cr, err := other.Solve(context.Background(), plant.Case{Name: "alone"})
 	must(t, err)
-	doc = decode(append(cases[:1:1], Case{Plant: other.Name, Result: cr}))
-	if string(doc["plant"]) != "null" {
-		t.Errorf("two plants: plant %s, want null", doc["plant"])
+	doc = decode(Run{Cases: append(cases[:1:1], Case{Plant: other.Name, Result: cr})})
+	if got := compact(doc["plant"]); got != `[{"name":"Invented Test Tanker"},{"name":"Invented Second Ship"}]` {
+		t.Errorf("two plants: plant %s", got)
 	}
-	// No case: an empty list, not null.
-	doc = decode(nil)
-	if string(doc["cases"]) != "[]" || string(doc["plant"]) != "null" {
-		t.Errorf("no case: cases %s plant %s", doc["cases"], doc["plant"])
+	// No case: empty lists, not null; no check failed.
+	doc = decode(Run{})
+	if string(doc["cases"]) != "[]" || string(doc["plant"]) != "[]" || compact(doc["checks"]) != `{"passed":0,"failed":[]}` {
+		t.Errorf("no case: cases %s plant %s checks %s", doc["cases"], doc["plant"], doc["checks"])
+	}
+}
+
+// TestNotGiven: a case without sea or air temperature shows them as not
+// given in every form: null in the JSON, an empty cell in the CSV, "not
+// given" in the table; never as -273.1 °C or 0 K.
+func TestNotGiven(t *testing.T) {
+	p := twoBoilers(t, "Invented Test Tanker")
+	cr, err := p.Solve(context.Background(), plant.Case{Name: "no weather", Conditions: plant.Conditions{AirT: 278.15}})
+	must(t, err)
+	run := Run{Cases: []Case{{Plant: p.Name, Result: cr}}}
+	var b bytes.Buffer
+	must(t, JSON(&b, run))
+	if !strings.Contains(b.String(), `"sea_T_K": null,`) || !strings.Contains(b.String(), `"air_T_K": 278.15,`) {
+		t.Errorf("JSON: %.600s", b.String())
+	}
+	b.Reset()
+	must(t, Table(&b, run))
+	if !strings.Contains(b.String(), "conditions: sea not given, air 5.0 °C, main engine load 0.0 %") {
+		t.Errorf("table: %.400s", b.String())
+	}
+	b.Reset()
+	must(t, CSV(&b, run))
+	rows, err := csv.NewReader(&b).ReadAll()
+	must(t, err)
+	if rows[0][3] != "sea_T_C" || rows[1][3] != "" || rows[1][4] != "5.0" {
+		t.Errorf("CSV: %q", rows)
+	}
+	for _, s := range []string{"-273.1", "-273.2"} {
+		if strings.Contains(b.String(), s) {
+			t.Errorf("%s in the output", s)
+		}
 	}
 }
 
@@ -425,11 +465,11 @@ var solverKeys = map[string]bool{"iterations": true}
 
 // sameJSON checks that every value of the golden text is in the output:
 // objects may gain keys (the schema allows new keys without a version
-// change, plant.SchemaVersion), but no key may go missing or change its
+// change, schema.Version), but no key may go missing or change its
 // value. Strings, booleans and nulls must be equal, lists of the same
 // length, and numbers equal to 1e-9 relative (they are rounded to six
-// digits by plant.CaseResult.JSON); the solver keys are skipped and the
-// noise keys need only both be below 1e-9.
+// digits by schema.Round); the solver keys are skipped and the noise keys
+// need only both be below 1e-9.
 func sameJSON(got, want string) error {
 	decode := func(s string) (any, error) {
 		d := json.NewDecoder(strings.NewReader(s))
@@ -520,46 +560,6 @@ func TestEGETable(t *testing.T) {
 	} {
 		if !strings.Contains(out, s) {
 			t.Errorf("the table does not say %q", s)
-		}
-	}
-}
-
-// TestSchemaDocumented keeps the schema in the package doc in step with
-// the JSON: every key the renderer writes (in the envelope, the cases and
-// their boilers, economisers, consumers, units and lines) must be named in
-// doc.go. The keys inside "inputs" and the figures' own keys are data,
-// not schema.
-func TestSchemaDocumented(t *testing.T) {
-	src, err := os.ReadFile("doc.go")
-	must(t, err)
-	doc := string(src)
-	var b bytes.Buffer
-	run := profileRun(t)
-	run.Cases = append(demoCases(t), egeCases(t)...)
-	must(t, JSON(&b, run))
-	var v any
-	must(t, json.Unmarshal(b.Bytes(), &v))
-	keys := map[string]bool{}
-	var walk func(v any)
-	walk = func(v any) {
-		switch v := v.(type) {
-		case map[string]any:
-			for k, x := range v {
-				keys[k] = true
-				if k != "inputs" {
-					walk(x)
-				}
-			}
-		case []any:
-			for _, x := range v {
-				walk(x)
-			}
-		}
-	}
-	walk(v)
-	for k := range keys {
-		if !regexp.MustCompile(`\b` + regexp.QuoteMeta(k) + `\b`).MatchString(doc) {
-			t.Errorf("JSON key %q is not documented in doc.go", k)
 		}
 	}
 }
