@@ -325,7 +325,11 @@ func checkRange(fs *faults, c Component, what string, v, lo, hi float64, unit st
 // paramErr is the error of a Setting naming a key the component does not
 // take in a case.
 func paramErr(c Component, name string) error {
-	return compErr(c, "has no parameter %q; its parameters are %q", name, keyNames(c.Keys(), true))
+	return compErr(c, "%s", paramMsg(c, name))
+}
+
+func paramMsg(c Component, name string) string {
+	return fmt.Sprintf("has no parameter %q; its parameters are %q", name, keyNames(c.Keys(), true))
 }
 
 // WriteKeyReference writes the reference of the given kinds and their

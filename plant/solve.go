@@ -155,7 +155,7 @@ func (p *Plant) applySettings(c *Case) (restore func(), err error) {
 		keys := u.Keys()
 		k, ok := findKey(keys, s.Param)
 		if !ok || !k.Case || !k.Settable() {
-			fs.add(s.Pos, s.Unit, "", "%v", paramErr(u, s.Param).(*ComponentError).Err)
+			fs.add(s.Pos, s.Unit, "", "%s", paramMsg(u, s.Param))
 			continue
 		}
 		if !finite(s.Value) {

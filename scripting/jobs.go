@@ -861,7 +861,9 @@ func list(t *lua.LTable, key string) []*lua.LTable {
 // and by_phase, the phases' totals by name.
 func (r *runner) profileTable(job schema.Job, res *profile.Result) lua.LValue {
 	o := r.schemaTable(fmt.Sprintf("voyage %q", job.Name), schema.NewVoyage(job, res))
-	totalsTable(o.RawGetString("total").(*lua.LTable))
+	if t, ok := o.RawGetString("total").(*lua.LTable); ok {
+		totalsTable(t)
+	}
 	phases := list(o, "phases")
 	byPhase := r.L.CreateTable(0, len(phases))
 	for _, p := range phases {
@@ -880,7 +882,9 @@ func (r *runner) studyTable(job schema.Job, res *profile.StudyResult) lua.LValue
 	variants := list(o, "variants")
 	byName := r.L.CreateTable(0, len(variants))
 	for _, v := range variants {
-		totalsTable(v.RawGetString("totals").(*lua.LTable))
+		if t, ok := v.RawGetString("totals").(*lua.LTable); ok {
+			totalsTable(t)
+		}
 		byName.RawSet(v.RawGetString("name"), v)
 	}
 	o.RawSetString("by_name", byName)

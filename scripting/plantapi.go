@@ -156,7 +156,7 @@ func (r *runner) plantOptions(t *lua.LTable, what string, pos Pos) (*args, strin
 	return a, name, opt
 }
 
-func (r *runner) newPlant(name string, pos Pos, opt plant.Options, uopt units.Options) *lua.LUserData {
+func (r *runner) newPlant(name string, pos Pos, opt plant.Options, uopt units.Options) (*lua.LUserData, *plantHandle) {
 	if len(r.plants) >= r.opt.MaxPlants {
 		r.fail("", "more than %d plants in one run", r.opt.MaxPlants)
 	}
@@ -169,7 +169,7 @@ func (r *runner) newPlant(name string, pos Pos, opt plant.Options, uopt units.Op
 	ud := r.L.NewUserData()
 	ud.Value = ph
 	r.L.SetMetatable(ud, r.L.GetTypeMetatable(plantTypeName))
-	return ud
+	return ud, ph
 }
 
 // luaPlant is plant{ name = ..., ambient = ..., usable = ..., sharing = ...,
@@ -179,7 +179,8 @@ func (r *runner) luaPlant(L *lua.LState) int {
 	pos := r.where()
 	a, name, opt := r.plantOptions(t, "plant", pos)
 	a.done()
-	L.Push(r.newPlant(name, pos, opt, a.uopt))
+	ud, _ := r.newPlant(name, pos, opt, a.uopt)
+	L.Push(ud)
 	return 1
 }
 

@@ -93,8 +93,8 @@ func (r *runner) luaSteamPlant(L *lua.LState) int {
 		a.errorf(nil, "boilers is required: a list such as { {name = \"AB1\", mcr = \"3 t/h\", drum = \"7 bar(g)\", fuel = \"MGO\", efficiency = \"85 %%\"} }")
 	}
 	a.done()
-	ud := r.newPlant(name, pos, opt, a.uopt)
-	f := &shortForm{r: r, ph: ud.Value.(*plantHandle), pos: pos}
+	ud, ph := r.newPlant(name, pos, opt, a.uopt)
+	f := &shortForm{r: r, ph: ph, pos: pos}
 	f.feedSide(in)
 	f.headers(in.headers)
 	ecoOf := f.economisers(in.economisers)
