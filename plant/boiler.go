@@ -3,6 +3,7 @@ package plant
 import (
 	"fmt"
 	"math"
+	"strings"
 
 	"steamcase/plant/fuel"
 	"steamcase/plant/units"
@@ -130,8 +131,17 @@ var boilerKeys = []Key{
 		Doc: "scales the efficiency model's figure (an audit's knob)", Default: 1, HasDefault: true,
 		Min: 0.5, Max: 1.5, Case: true},
 		func(u *Boiler) *float64 { return &u.EtaFactor }),
-	{Name: "fuel", Label: "fuel", Kind: KeyText, Example: `"HSFO"`,
-		Doc: "a built-in grade (its LHV, CO2 factor and analysis), or the name of your own fuel with lhv and co2_factor"},
+	{Name: "fuel", Label: "fuel", Kind: KeyText, Example: `"HSFO"`, Case: true, JSON: "fuel",
+		Doc:  "a built-in grade (its LHV, CO2 factor and analysis), or the name of your own fuel with lhv and co2_factor; a case may change it to a built-in grade (0.1 % S fuel in port or in an emission control area)",
+		text: setBoilerGrade,
+		keep: func(c Component) func() {
+			b, ok := self[*Boiler](c)
+			if !ok {
+				return func() {}
+			}
+			old := b.Fuel
+			return func() { b.Fuel, b.effSet = old, false }
+		}},
 	{Name: "lhv", Label: "lower calorific value", Kind: KeyQuantity, Dim: units.SpecificEnergy, Example: "40.2 MJ/kg",
 		Doc: "the fuel's lower calorific value for the energy balance (replaces a grade's)", Min: 1e7, Max: 6e7},
 	{Name: "co2_factor", Label: "CO2 factor", Kind: KeyNumber, Example: "3.114",
@@ -141,6 +151,30 @@ var boilerKeys = []Key{
 		Doc:     "one figure, a table of {load, efficiency} pairs (LHV basis), or a combustion model (flue_gas or furnace)"},
 	{Name: "burner", Label: "burner", Kind: KeyTable, Example: `{ fan_rise = "3 kPa", fan_eta = "60 %" }`,
 		Doc: "the burner's fan: fan_rise, fan_eta, motor_eta, air_T"},
+}
+
+// setBoilerGrade is the fuel a case sets: a built-in grade, with its LHV,
+// CO2 factor and analysis. A case that gives back the fuel the boiler was
+// declared with (the name of one of one's own) keeps it as it is.
+func setBoilerGrade(c Component, v []string) error {
+	b, ok := self[*Boiler](c)
+	if !ok || len(v) != 1 {
+		return nil
+	}
+	if v[0] == b.Fuel.Name {
+		return nil
+	}
+	f, err := fuel.Grade(v[0])
+	if err != nil {
+		return fmt.Errorf("fuel %q is not a built-in grade (grades: %s); a case may change a boiler's fuel to a grade only", v[0], strings.Join(fuel.GradeNames(), ", "))
+	}
+	spec, err := SpecFromFuel(f)
+	if err != nil {
+		return err
+	}
+	b.Fuel = spec
+	b.effSet = false
+	return nil
 }
 
 // Keys lists the boiler's keys.

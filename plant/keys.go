@@ -86,10 +86,14 @@ type Key struct {
 	get  func(Component) (float64, bool)
 	set  func(Component, float64) bool
 	text func(Component, []string) error
+	// keep saves, for a text key a case may set, what the setter changes,
+	// and returns what restores it.
+	keep func(Component) (restore func())
 }
 
-// Settable reports whether the key has a value a Setting can change.
-func (k *Key) Settable() bool { return k.set != nil }
+// Settable reports whether the key has a value a Setting can change: a
+// number (Setting.Value) or, for a text key, a text (Setting.Text).
+func (k *Key) Settable() bool { return k.set != nil || (k.text != nil && k.keep != nil) }
 
 // Get returns the key's value on c (SI; 1 or 0 for a flag, the index for
 // a choice) and whether c has it.

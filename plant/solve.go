@@ -24,11 +24,13 @@ type Case struct {
 
 // Setting changes one parameter of one component for a case: Param is the
 // name of one of the component's keys that a case may set (Key.Case), and
-// Value its value in SI (1 or 0 for a flag, the index of a choice).
+// Value its value in SI (1 or 0 for a flag, the index of a choice), or
+// Text its value for a text key (a boiler's fuel grade).
 type Setting struct {
 	Unit  string
 	Param string
 	Value float64
+	Text  string
 	Pos   Pos
 }
 
@@ -129,21 +131,25 @@ func (p *Plant) ColdStart() {
 // checks every component, prepares each for the case, and returns a
 // function that restores the plant's own parameters.
 func (p *Plant) applySettings(c *Case) (restore func(), err error) {
-	type saved struct {
-		comp Component
-		key  *Key
-		old  float64
-	}
-	var olds []saved
+	var undo []func()
 	restore = func() {
-		for i := len(olds) - 1; i >= 0; i-- {
-			olds[i].key.Set(olds[i].comp, olds[i].old)
+		for i := len(undo) - 1; i >= 0; i-- {
+			undo[i]()
 		}
 	}
 	set := func(u Component, k *Key, v float64) {
 		old, _ := k.Get(u)
-		olds = append(olds, saved{u, k, old})
+		undo = append(undo, func() { k.Set(u, old) })
 		k.Set(u, v)
+	}
+	setText := func(u Component, k *Key, v string) error {
+		back := k.keep(u)
+		if err := k.text(u, []string{v}); err != nil {
+			back()
+			return err
+		}
+		undo = append(undo, back)
+		return nil
 	}
 	var fs faults
 	for _, s := range c.Set {
@@ -156,6 +162,12 @@ func (p *Plant) applySettings(c *Case) (restore func(), err error) {
 		k, ok := findKey(keys, s.Param)
 		if !ok || !k.Case || !k.Settable() {
 			fs.add(s.Pos, s.Unit, "", "%s", paramMsg(u, s.Param))
+			continue
+		}
+		if k.Kind == KeyText {
+			if err := setText(u, k, s.Text); err != nil {
+				fs.add(s.Pos, s.Unit, "", "%v", err)
+			}
 			continue
 		}
 		if !finite(s.Value) {

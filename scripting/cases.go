@@ -189,7 +189,17 @@ func (r *runner) caseSettings(ph *plantHandle, a *args, v lua.LValue, pos plant.
 			if val == lua.LNil {
 				continue
 			}
-			f, err := parseSetting(val, k, fmt.Sprintf("set.%s.%s", unit, k.Name), ph.uopt)
+			name := fmt.Sprintf("set.%s.%s", unit, k.Name)
+			if k.Kind == plant.KeyText {
+				s, ok := val.(lua.LString)
+				if !ok {
+					sub.errorf(nil, "%s must be a string such as %s; got %s", name, k.Example, describe(val))
+					continue
+				}
+				out = append(out, plant.Setting{Unit: unit, Param: k.Name, Text: string(s), Pos: pos})
+				continue
+			}
+			f, err := parseSetting(val, k, name, ph.uopt)
 			if err != nil {
 				sub.errorf(err, "%v", err)
 				continue

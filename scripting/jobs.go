@@ -411,6 +411,10 @@ func (r *runner) csvRows(ph *plantHandle, fn, name string, spec rowSpec) *jobRow
 			case "engine":
 				row.Case.Conditions.EngineLoad, err = parseCell(cell, "engine", units.Fraction, uopt)
 			case "":
+				if c.key.Kind == plant.KeyText {
+					row.Case.Set = append(row.Case.Set, plant.Setting{Unit: c.unit, Param: c.key.Name, Text: cell, Pos: row.Case.Pos})
+					break
+				}
 				var f float64
 				f, err = parseSetCell(cell, &c.key, uopt)
 				if err == nil {
@@ -768,6 +772,9 @@ func (r *runner) uncertainties(ph *plantHandle, a *args) []profile.Uncertain {
 		var accepted []string
 		found := false
 		for _, x := range r.caseKeys(ph, unit) {
+			if x.Kind == plant.KeyText {
+				continue // a text cannot be drawn from a range
+			}
 			accepted = append(accepted, x.Name)
 			if x.Name == key {
 				k, found = x, true

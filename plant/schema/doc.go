@@ -249,6 +249,13 @@
 //	                        was summed
 //	short_rows              [row]: rows the plant cannot carry
 //	warning_rows            [row]: rows with any warning
+//	fuel_by_grade           [GRADE]: the boiler fuel by grade, in the
+//	                        order the grades first fire
+//
+// A GRADE (type GradeTotal) is
+//
+//	grade                   the fuel's grade (or name)
+//	fuel_t, co2_t           its boiler fuel burnt and CO2, t
 //
 // A VOYAGE (type Voyage) has, after the keys of JOB,
 //

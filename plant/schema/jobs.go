@@ -21,24 +21,32 @@ func (j Job) job() Job {
 // Totals are the sums over a set of rows of a profile (each row's figures
 // times its hours).
 type Totals struct {
-	Rows              int       `json:"rows"`
-	Hours             float64   `json:"hours"`
-	FuelT             float64   `json:"fuel_t"`
-	CO2T              float64   `json:"co2_t"`
-	SteamT            float64   `json:"steam_t"`
-	EGESteamT         float64   `json:"ege_steam_t"`
-	EGEFuelSavedT     float64   `json:"ege_fuel_saved_t"`
-	DumpedT           float64   `json:"dumped_t"`
-	MakeUpT           float64   `json:"makeup_t"`
-	ElectricMWh       float64   `json:"electric_MWh"`
-	HoursFiring       []float64 `json:"hours_firing"`
-	PeakBoilerKgH     float64   `json:"peak_boiler_kg_h"`
-	PeakRow           *int      `json:"peak_row"`
-	CapacityKgH       float64   `json:"capacity_kg_h"`
-	TightestMarginKgH *float64  `json:"tightest_margin_kg_h"`
-	TightestRow       *int      `json:"tightest_row"`
-	ShortRows         []int     `json:"short_rows"`
-	WarningRows       []int     `json:"warning_rows"`
+	Rows              int          `json:"rows"`
+	Hours             float64      `json:"hours"`
+	FuelT             float64      `json:"fuel_t"`
+	CO2T              float64      `json:"co2_t"`
+	SteamT            float64      `json:"steam_t"`
+	EGESteamT         float64      `json:"ege_steam_t"`
+	EGEFuelSavedT     float64      `json:"ege_fuel_saved_t"`
+	DumpedT           float64      `json:"dumped_t"`
+	MakeUpT           float64      `json:"makeup_t"`
+	ElectricMWh       float64      `json:"electric_MWh"`
+	HoursFiring       []float64    `json:"hours_firing"`
+	PeakBoilerKgH     float64      `json:"peak_boiler_kg_h"`
+	PeakRow           *int         `json:"peak_row"`
+	CapacityKgH       float64      `json:"capacity_kg_h"`
+	TightestMarginKgH *float64     `json:"tightest_margin_kg_h"`
+	TightestRow       *int         `json:"tightest_row"`
+	ShortRows         []int        `json:"short_rows"`
+	WarningRows       []int        `json:"warning_rows"`
+	FuelByGrade       []GradeTotal `json:"fuel_by_grade"`
+}
+
+// GradeTotal is the boiler fuel of one grade and its CO2.
+type GradeTotal struct {
+	Grade string  `json:"grade"`
+	FuelT float64 `json:"fuel_t"`
+	CO2T  float64 `json:"co2_t"`
 }
 
 // row1 is a 0-based row index as the 1-based number the reports show, or
@@ -77,6 +85,10 @@ func NewTotals(t profile.Totals) Totals {
 	}
 	if t.TightestRow >= 0 {
 		out.TightestMarginKgH = roundPtr(KgPerH(t.TightestMarginKgS), true)
+	}
+	out.FuelByGrade = make([]GradeTotal, len(t.FuelByGrade))
+	for i, g := range t.FuelByGrade {
+		out.FuelByGrade[i] = GradeTotal{Grade: g.Grade, FuelT: Round(g.FuelT), CO2T: Round(g.CO2T)}
 	}
 	return out
 }
