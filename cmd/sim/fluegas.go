@@ -57,6 +57,12 @@ of the input at MCR and scaled by 1/load, because the loss in kW stays
 nearly constant; 0.5 to 1.5 % at MCR is common for marine auxiliary boilers.
 Without --radiation it is taken as zero and a warning says so.
 
+A reading that no firing boiler gives is refused (exit 1): an O2 at or
+within 0.1 point of the air's (analysers show air as 20.9 %), a reading
+that means an air ratio above 20, a flue gas at or below its water dew
+point (the account lets the moisture leave as vapour) or below 25 °C, and
+losses that add up to the whole heat input or more.
+
 The table shows the excess air, the stoichiometric air and the flue gas per
 kg of fuel, the flue-gas composition (dry and wet), each loss and the
 efficiency on both bases, the acid dew point by Verhoff and Banchero with a
