@@ -4,6 +4,7 @@ import (
 	"bytes"
 	"context"
 	"encoding/json"
+	"errors"
 	"math"
 	"sort"
 	"strconv"
@@ -255,4 +256,33 @@ func TestFlueGasCheckOnly(t *testing.T) {
 	if err == nil || !strings.Contains(err.Error(), "unknown key 'air_t'") {
 		t.Errorf("check mode: %v", err)
 	}
+}
+
+// FuzzFlueGas: no value of flue_gas's keys makes the run panic or print a
+// non-finite number; an error is a list of script errors at the call's
+// line.
+func FuzzFlueGas(f *testing.F) {
+	f.Add("HSFO", "3 %", "250 C", "35 C", "60 %", "50 ppm", "1 %")
+	f.Add("LNG", "0 %", "1000 C", "-20 C", "0.2 kg/kg", "0.005 %", "10 %")
+	f.Add("MGO", "20.9 %", "2000 F", "300 K", "12 g/kg", "-5 ppm", "0 %")
+	f.Add("hsfo", "1e-300", "NaN C", "Inf C", "e kg/kg", "ppm", "%")
+	f.Fuzz(func(t *testing.T, grade, o2, gas, air, hum, co, rad string) {
+		q := strconv.Quote
+		src := "local r = flue_gas { fuel = " + q(grade) + ", O2 = " + q(o2) + ", T = " + q(gas) + ", air_T = " + q(air) +
+			", humidity = " + q(hum) + ", CO = " + q(co) + ", radiation = " + q(rad) + " }\n" +
+			"for k, v in pairs(r) do if type(v) == 'number' and (v ~= v or v == math.huge or v == -math.huge) then error('non-finite ' .. k) end end\n"
+		_, err := RunSource(context.Background(), "fuzz.lua", []byte(src), nil, Options{})
+		if err == nil {
+			return
+		}
+		var list ErrorList
+		if !errors.As(err, &list) || len(list) == 0 {
+			t.Fatalf("%s: error %T %v", src, err, err)
+		}
+		for _, e := range list {
+			if e.Pos.Line != 1 || strings.Contains(e.Msg, "internal error") || strings.Contains(e.Msg, "non-finite") {
+				t.Fatalf("%s: %v", src, err)
+			}
+		}
+	})
 }
