@@ -597,26 +597,24 @@ func (r *FlueGasReading) validate(s *CheckSettings) (Conditions, string, error) 
 }
 
 // waterDewPoint returns the temperature (K) at which water vapour of
-// partial pressure pv (Pa) saturates, by bisection on the IAPWS-IF97
-// saturation pressure (psatIF97) to 1e-9 K; 0 for a vapour that would not
-// condense above 0 °C (including no vapour at all).
+// partial pressure pv (Pa) saturates, by the IAPWS-IF97 saturation-
+// temperature equation (IAPWS R7-97(2012) Eq. 31, the exact inverse of the
+// saturation-pressure equation psatIF97 uses), valid 611.213 Pa…22.064 MPa;
+// 0 for a vapour that would not condense above 0 °C (including none).
 func waterDewPoint(pv float64) float64 {
-	lo, hi := 273.15, 647.096
-	if p0, _ := psatIF97(lo); !(pv > p0) {
+	const pmin, pmax = 611.213, 22.064e6
+	if !(pv > pmin) {
 		return 0
 	}
-	if p1, _ := psatIF97(hi); pv >= p1 {
-		return hi
+	if pv >= pmax {
+		return 647.096
 	}
-	for hi-lo > 1e-9 {
-		mid := (lo + hi) / 2
-		if p, _ := psatIF97(mid); p < pv {
-			lo = mid
-		} else {
-			hi = mid
-		}
-	}
-	return (lo + hi) / 2
+	b := math.Sqrt(math.Sqrt(pv / 1e6))
+	e := b*b + sat3*b + sat6
+	f := sat1*b*b + sat4*b + sat7
+	g := sat2*b*b + sat5*b + sat8
+	d := 2 * g / (-f - math.Sqrt(f*f-4*e*g))
+	return (sat10 + d - math.Sqrt((sat10+d)*(sat10+d)-4*(sat9+sat10*d))) / 2
 }
 
 // boundSlack is how near (K) a temperature may come to a bound of the
