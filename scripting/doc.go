@@ -339,6 +339,63 @@
 //	local arrival = cool_down { tank = cot1, from = "60 C", hours = v.total.hours, sea = "12 C" }
 //	check(arrival > 45, "cargo pumpable at arrival")
 //
+// # Flue-gas check
+//
+//	local r = flue_gas { fuel = "HSFO", O2 = "3 %", T = "230 C", air_T = "25 C",
+//	                     humidity = "60 %", CO = "50 ppm", radiation = "1 %", load = "50 %" }
+//	check(r.efficiency_lhv_pct > 85, "AB1 above 85 % at half load")
+//	print(r.flue_gas_T_K - r.acid_dew_point_K, "K above the acid dew point")
+//
+// flue_gas works out a boiler's efficiency from a flue-gas measurement by
+// the heat-loss method, as sim fluegas does (plant/combustion's
+// CheckFlueGas), and returns a table whose keys are those of `sim fluegas
+// --json`: temperatures in K, specific energies in J/kg, flows per kg
+// fuel, fractions and losses in percent (lambda, excess_air_pct,
+// co2_dry_pct, h2o_wet_pct, losses and losses_hhv with dry_gas_pct,
+// moisture_pct, radiation_pct, unburnt_pct, ..., efficiency_lhv_pct,
+// efficiency_hhv_pct, acid_dew_point_K, siegert_loss_pct, lhv_J_per_kg,
+// hhv_J_per_kg, warnings (a list of texts), caution, and the rest). A key
+// that is null in the JSON is nil: acid_dew_point_K for a fuel without
+// sulfur, siegert_loss_pct where the formula does not apply. It is not
+// the boiler key efficiency = { flue_gas = {...} }, which turns a maker's
+// table into a boiler's efficiency curve.
+//
+// The keys, named like the command's flags:
+//
+//   - fuel: a grade (MGO, VLSFO, HSFO, LNG); fuel_analysis: a table of
+//     mass fractions as fired, { C, H, S, N, O, W (free water), A (ash) },
+//     each "86 %" or 0.86, adding up to 100 % within 0.5 %: alone it is
+//     the user's own fuel oil (LHV from the analysis by Channiwala-Parikh),
+//     with fuel it replaces the grade's analysis (the grade keeps its set
+//     LHV); one of the two is required. lhv (specific energy) overrides the
+//     net specific energy.
+//   - O2 or CO2 (fraction, dry; one is required): the analyser's reading;
+//     "0 %" O2 is read as λ = 1 with a warning, an O2 within 0.1 point of
+//     the air's is refused as no combustion, and so is a reading that
+//     means an air ratio above 20.
+//   - T (temperature, required): the flue gas where it was measured, above
+//     the air, above its water dew point, and 25 to 1000 °C; air_T
+//     (temperature, required): the combustion air at the burner intake,
+//     −20 to 50 °C, the reference of the account (the fuel is taken at it).
+//   - humidity: relative, "60 %", or a humidity ratio, "0.012 kg/kg" or
+//     "12 g/kg" (default: dry air). CO: "50 ppm" or "0.005 %" of the dry
+//     flue gas (default 0). radiation (fraction): the radiation and
+//     convection loss at MCR (default 0, with a warning), scaled by 1/load
+//     with load (fraction of MCR, 5 to 120 %, default 100 %). solids
+//     (fraction): the unburnt-solids loss (default 0). atomising (fraction,
+//     kg per kg fuel) and atomising_T (temperature, default air_T): the
+//     atomising steam, whose moisture the losses show as
+//     moisture_from_atomising_steam_pct (only when given). SO3_conversion
+//     (fraction, 0 to 20 %): the share of the SO2 turned to SO3 for the acid
+//     dew point (default 3 %). dew_margin (temperature difference, 0 to 100
+//     K): the margin to the acid dew point below which a warning is given
+//     (default 20 K, common practice).
+//
+// A bad key, unit or value stops the run at the line of the call, naming
+// the key and the value as written (`fg.lua:3: flue_gas: T = "2000 F":
+// the flue-gas temperature must be at most 1832 °F ...`). In check mode
+// flue_gas computes as in a run: it solves no plant.
+//
 // # Other functions
 //
 //	check(cond, "message")   -- fails the run with an *AssertionError at this line

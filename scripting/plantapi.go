@@ -85,6 +85,7 @@ func (r *runner) register() {
 	L.SetGlobal("audit", L.NewFunction(r.luaAudit))
 	L.SetGlobal("cool_down", L.NewFunction(r.luaCoolDown))
 	L.SetGlobal("time_to_cool", L.NewFunction(r.luaTimeToCool))
+	L.SetGlobal("flue_gas", L.NewFunction(r.luaFlueGas))
 }
 
 func unknownMethodMsg(key string, methods *lua.LTable) string {
