@@ -1,7 +1,6 @@
 package scripting
 
 import (
-	"encoding/json"
 	"errors"
 	"math"
 	"strconv"
@@ -116,15 +115,7 @@ func (r *runner) luaFlueGas(L *lua.LState) int {
 		}
 		r.raise(stopRun{})
 	}
-	b, err := json.Marshal(c.JSON())
-	if err != nil {
-		r.fail("flue_gas", "the result is not representable (%v); the reading lies outside what the combustion model covers", err)
-	}
-	var v any
-	if err := json.Unmarshal(b, &v); err != nil {
-		r.fail("flue_gas", "the result is not representable: %v", err)
-	}
-	L.Push(r.toLua(v))
+	L.Push(r.schemaTable("flue_gas", c.JSON()))
 	return 1
 }
 
