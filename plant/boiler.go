@@ -31,7 +31,7 @@ func SpecFromFuel(f fuel.Fuel) (FuelSpec, error) {
 		return FuelSpec{}, err
 	}
 	ff := f
-	return FuelSpec{Name: f.Name, LHV: e.Net, CO2Factor: c.Value, Fuel: &ff}, nil
+	return FuelSpec{Name: f.Name, LHV: e.Net, CO2Factor: c.IMOOrAnalysis(), Fuel: &ff}, nil
 }
 
 // BoilerOperation is the state of a boiler that its efficiency may depend
