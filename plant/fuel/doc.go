@@ -8,8 +8,9 @@
 // water, ash), by its ultimate analysis (C, H, S, N, O, water, ash), or both;
 // it may also carry a stated net specific energy (SetLHV) and the IMO fuel
 // type it reports CO2 under (IMO). Built-in grades MGO, VLSFO, HSFO (RMG 380)
-// and LNG (as methane) are returned by Grade; a user's own fuel is an
-// ordinary Fuel literal. Validate names the fuel and the field of any
+// and LNG (as methane) are returned by Grade; a delivered fuel is built from
+// its bunker delivery note on top of a grade by FromBDN; a user's own fuel
+// is an ordinary Fuel literal. Validate names the fuel and the field of any
 // problem.
 //
 // Two kinds of figure are kept apart. The fuel's own figures (Energy.Net,
@@ -42,6 +43,11 @@
 //   - CO2 per kg fuel (Fuel.CO2): from the analysis carbon, C·44.0095/12.0107
 //     (complete combustion), and the IMO C_F of the fuel's IMO fuel type
 //     (MEPC.364(79), plant-checks.md §1.3 [S]); both are returned, labelled.
+//   - Bunker delivery notes (FromBDN): density, sulfur, water (% V/V),
+//     ash, viscosity and an optional stated LHV on top of a grade, checked
+//     against the envelope of the ISO 8217 grades of the class (errors) and
+//     the declared grade's own limits (warnings), ISO 8217:2017 Tables 1
+//     and 2 from memory; the declared grade chooses the IMO fuel type.
 //   - Viscosity against temperature: ASTM D341, Walther form with the
 //     low-viscosity term [S✓]; ν(T) and T(ν) with errors outside the valid
 //     range (Walther, Fuel.Viscosity, Fuel.TemperatureForViscosity).
@@ -59,9 +65,10 @@
 // ISO 8217 gross value is at constant volume while the loss method's HHV
 // basis treats gross − net as the latent heat of the product water, which
 // differs by 0.6 MJ per kg of hydrogen (about 0.15 % of the gross value);
-// the specific gravity 60/60 °F of the Cragoe formula is taken as
-// ρ15/999.016; liquid LNG properties are not modelled (Class Gas fuels
-// support energy, CO2 and the analysis only). The ranges of validity chosen for each correlation
+// one BDN viscosity keeps the base grade's ASTM D341 slope; the specific
+// gravity 60/60 °F of the Cragoe formula is taken as ρ15/999.016; liquid
+// LNG properties are not modelled (Class Gas fuels support energy, CO2 and
+// the analysis only). The ranges of validity chosen for each correlation
 // are stated beside it and enforced with errors, never by clamping.
 //
 // The results are planning and audit estimates; they are not a substitute

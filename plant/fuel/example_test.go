@@ -60,3 +60,36 @@ func ExampleNewWalther() {
 	// 18.9 cSt at 120 °C
 	// true
 }
+
+// A delivered fuel from its bunker delivery note, on top of the VLSFO
+// grade (an invented delivery).
+func ExampleFromBDN() {
+	base, _ := fuel.Grade("VLSFO")
+	d, err := fuel.FromBDN(base, fuel.BDN{
+		Name:      "VLSFO, invented delivery 1",
+		Grade:     "RMG 380",
+		Density15: 975,
+		Sulfur:    0.0048,
+		Water:     0.002, // 0.2 % V/V
+		Ash:       0.0004,
+		Viscosity: 320e-6, // 320 mm²/s at 50 °C
+	})
+	if err != nil {
+		fmt.Println(err)
+		return
+	}
+	fmt.Printf("net %.3f MJ/kg (%v), IMO LCV %.1f MJ/kg\n", d.Energy.Net/1e6, d.Energy.NetSource.Route, d.Energy.IMOLCV/1e6)
+	a := d.Fuel.Analysis
+	fmt.Printf("C %.2f, H %.2f, S %.2f, water %.3f %% m/m\n", 100*a.C, 100*a.H, 100*a.S, 100*a.Water)
+	fmt.Printf("CO2 %.3f (analysis), %.3f (IMO) kg/kg\n", d.CO2.Analysis, d.CO2.IMO)
+	fmt.Printf("Channiwala-Parikh %.2f MJ/kg against ISO gross %.2f\n", d.AnalysisGross/1e6, d.ISOGross/1e6)
+	for _, w := range d.Warnings {
+		fmt.Println("warning:", w)
+	}
+	// Output:
+	// net 41.164 MJ/kg (ISO 8217 annex formula (density, water, ash, sulfur)), IMO LCV 40.2 MJ/kg
+	// C 87.35, H 11.23, S 0.48, water 0.205 % m/m
+	// CO2 3.201 (analysis), 3.114 (IMO) kg/kg
+	// Channiwala-Parikh 43.72 MJ/kg against ISO gross 43.55
+	// warning: fuel "VLSFO, invented delivery 1": one viscosity stated: the ASTM D341 line through it keeps the slope of the base fuel's line (B = 3.5025), giving 32 mm²/s at 100 °C; give a second point to replace it
+}

@@ -93,7 +93,7 @@ var grades = [...]gradeDef{
 			},
 			Viscosity2: ViscosityPoint{T: 373.15, Nu: 20e-6}, // 20 cSt at 100 °C, typical [M]
 			// A VLSFO of an RME–RMK grade reports as HFO in the IMO table;
-			// one of grade RMA–RMD would report as LFO.
+			// one of grade RMA–RMD would report as LFO (see FromBDN).
 			IMO: imoTypes[imoHFO],
 		},
 		n: 0.003, o: 0.004, // plant-checks.md §2.1 VLSFO: N 0.3, O 0.4 % [M]
@@ -141,7 +141,7 @@ var ErrUnknownGrade = errors.New("fuel: unknown grade")
 // "VLSFO", "HSFO" or "LNG". A liquid grade's analysis is derived from its
 // ISO 8217 properties (AnalysisFromISO). The returned Fuel is a copy;
 // change it freely (but a changed ISO property does not change the
-// analysis: derive it again with AnalysisFromISO).
+// analysis: build the fuel with FromBDN, or derive it with AnalysisFromISO).
 func Grade(name string) (Fuel, error) {
 	for i := range grades {
 		if !strings.EqualFold(grades[i].fuel.Name, name) {
