@@ -32,7 +32,7 @@ func SpecFromFuel(f fuel.Fuel) (FuelSpec, error) {
 		return FuelSpec{}, err
 	}
 	ff := f
-	return FuelSpec{Name: f.Name, LHV: e.Net, CO2Factor: c.Value, Fuel: &ff}, nil
+	return FuelSpec{Name: f.Name, LHV: e.Net, CO2Factor: c.IMOOrAnalysis(), Fuel: &ff}, nil
 }
 
 // Boiler is an oil-fired auxiliary boiler: a drum at a set pressure raising

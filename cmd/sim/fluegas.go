@@ -42,7 +42,8 @@ to 100 % within 0.5 %. The analysis is used as given, not normalised. A fuel
 given only by its analysis is taken as a liquid fuel oil, and its LHV comes
 from the analysis (Channiwala-Parikh correlation) unless --lhv sets it. With
 a grade, the analysis replaces the grade's typical analysis and ISO 8217
-data, and the grade keeps its class and its set LHV (the IMO figure); for a
+data and the grade keeps its class: a liquid grade's LHV then comes from the
+analysis as for an own fuel, and LNG keeps its set LHV (methane's); for a
 gas fuel, give --fuel LNG with the analysis. --lhv overrides the net
 specific energy of any fuel; the gross value is then the LHV plus the latent
 heat of the water the analysis forms.

@@ -263,8 +263,11 @@ func TestFluegasOptions(t *testing.T) {
 
 	// The CO2 reading that 3 % O2 implies gives the same λ back: both
 	// forms of plant-checks.md §2 [CP] are exact for complete combustion.
-	c := fluegasOf(t, "--fuel", "HSFO", "--co2", jsonNum(r0.CO2Dry)+" %", "--gas", "250 C", "--air", "35 C")
-	fgNear(t, "λ from CO2 vs from O2 (plant-checks.md §2 [CP])", c.Lambda, r0.Lambda, 1e-9)
+	// The test fuel (plant-checks.md §1.2), for the Siegert value below.
+	rt := fluegasOf(t, testFuelArgs...)
+	c := fluegasOf(t, "--fuel-analysis", "C=86,H=11,S=2.5,N=0.3,O=0.2", "--lhv", "40.487 MJ/kg",
+		"--co2", jsonNum(rt.CO2Dry)+" %", "--gas", "250 C", "--air", "35 C")
+	fgNear(t, "λ from CO2 vs from O2 (plant-checks.md §2 [CP])", c.Lambda, rt.Lambda, 1e-9)
 	// Siegert's CO2 form with the test fuel's CO2 at 3 % O2 (13.68 %):
 	// 9.36 % (plant-checks.md §3.2 [C]).
 	fgNear(t, "Siegert CO2 form % (plant-checks.md §3.2 [C])", *c.Siegert, 9.36, 0.005)
@@ -284,18 +287,19 @@ func TestFluegasOptions(t *testing.T) {
 		t.Errorf("humid air: moisture loss %g not above dry air's %g", h.Losses.Moisture, r0.Losses.Moisture)
 	}
 
-	// An analysis on top of a grade replaces the grade's analysis and keeps
-	// its set LHV (the IMO figure, 40 200 kJ/kg for HFO, §1.3 [S]).
-	o := fluegasOf(t, "--fuel", "VLSFO", "--fuel-analysis", "C=86,H=11,S=2.5,N=0.3,O=0.2",
-		"--o2", "3 %", "--gas", "250 C", "--air", "35 C")
-	fgNear(t, "LHV of VLSFO with an analysis on top (plant-checks.md §1.3 [S])", o.LHV, 40.2e6, 1e-6)
-	fgNear(t, "stoichiometric air of the analysis given (plant-checks.md §2.1 [C])", o.StoichAir, 13.770, 0.005)
 	// Without --lhv, an own fuel's LHV comes from the analysis.
-	o = fluegasOf(t, "--fuel-analysis", "C=86,H=11,S=2.5,N=0.3,O=0.2", "--o2", "3 %", "--gas", "250 C", "--air", "35 C")
 	n, _, err := fuel.AnalysisEnergy(fuel.Analysis{C: 0.86, H: 0.11, S: 0.025, N: 0.003, O: 0.002})
 	if err != nil {
 		t.Fatal(err)
 	}
+	// An analysis on top of a liquid grade replaces the grade's analysis
+	// and ISO 8217 data, so the LHV comes from the analysis too (the IMO
+	// LCV is never the energy balance's figure).
+	o := fluegasOf(t, "--fuel", "VLSFO", "--fuel-analysis", "C=86,H=11,S=2.5,N=0.3,O=0.2",
+		"--o2", "3 %", "--gas", "250 C", "--air", "35 C")
+	fgNear(t, "LHV of VLSFO with an analysis on top = package fuel's analysis route", o.LHV, n, 1e-6)
+	fgNear(t, "stoichiometric air of the analysis given (plant-checks.md §2.1 [C])", o.StoichAir, 13.770, 0.005)
+	o = fluegasOf(t, "--fuel-analysis", "C=86,H=11,S=2.5,N=0.3,O=0.2", "--o2", "3 %", "--gas", "250 C", "--air", "35 C")
 	fgNear(t, "LHV of an own fuel = package fuel's analysis route", o.LHV, n, 1e-6)
 	if !strings.Contains(o.LHVSource, "Channiwala-Parikh") {
 		t.Errorf("LHV source %q does not name the correlation", o.LHVSource)
@@ -367,7 +371,7 @@ func TestFluegasExitCodes(t *testing.T) {
 			`sim fluegas: --o2 "20.946 %": no combustion: an O2 at or near that of air (20.946 % dry, which analysers show as 20.9 %): the burner is not firing, or the probe is not in the flue gas`},
 		{fg("--fuel", "HSFO", "--o2", "-1 %", "--gas", "250 C", "--air", "35 C"), exitFail,
 			`sim fluegas: --o2 "-1 %": a measured O2 cannot be negative`},
-		{fg("--fuel", "HSFO", "--co2", "17 %", "--gas", "250 C", "--air", "35 C"), exitFail,
+		{fg("--fuel-analysis", "C=86,H=11,S=2.5,N=0.3,O=0.2", "--co2", "17 %", "--gas", "250 C", "--air", "35 C"), exitFail,
 			`sim fluegas: --co2 "17 %": above the fuel's maximum CO2 of 15.97 % (dry, at λ = 1)…`},
 		{fg("--fuel", "HSFO", "--o2", "3 %", "--gas", "30 C", "--air", "35 C"), exitFail,
 			`sim fluegas: --gas "30 C": the flue gas (30 °C) is not hotter than the combustion air (35 °C); a firing boiler's flue gas leaves hotter than the air comes in`},
