@@ -69,6 +69,6 @@ func Example() {
 			r.Name, r.BoilersFiring, r.SteamProductionKgS*3600, r.FuelKgS*3600)
 	}
 	// Output:
-	// 3 MW: 1 boiler(s) firing, steam 5275 kg/h, fuel 368.9 kg/h
-	// 6 MW: 2 boiler(s) firing, steam 10551 kg/h, fuel 737.9 kg/h
+	// 3 MW: 1 boiler(s) firing, steam 5275 kg/h, fuel 366.3 kg/h
+	// 6 MW: 2 boiler(s) firing, steam 10551 kg/h, fuel 732.6 kg/h
 }

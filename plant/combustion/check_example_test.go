@@ -32,10 +32,10 @@ func ExampleCheckFlueGas() {
 	_, err = combustion.CheckFlueGas(combustion.FlueGasReading{Fuel: f, Gas: combustion.MeasuredO2, Dry: 0.209, FlueT: 553.15, AirT: 303.15}, nil)
 	fmt.Println(err)
 	// Output:
-	// λ 1.1892, dry CO2 13.30 %
-	// efficiency 86.41 % (LHV), 81.54 % (HHV)
-	// Siegert 11.46 % against 11.57 % in detail
-	// acid dew point 150.7 °C (Okkes 144.4 °C), the gas 129.3 K above it
+	// λ 1.1893, dry CO2 13.34 %
+	// efficiency 86.52 % (LHV), 81.70 % (HHV)
+	// Siegert 11.46 % against 11.46 % in detail
+	// acid dew point 150.6 °C (Okkes 144.4 °C), the gas 129.4 K above it
 	// 0 warnings
 	// combustion: flue-gas reading: Dry (O2) = 20.9 %: no combustion: an O2 at or near that of air (20.946 % dry, which analysers show as 20.9 %): the burner is not firing, or the probe is not in the flue gas
 }

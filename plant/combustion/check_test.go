@@ -448,7 +448,7 @@ func TestFlueGasJSON(t *testing.T) {
 }
 
 // TestFuelWithAnalysis checks that a grade given another analysis keeps its
-// set LHV and class and drops its ISO 8217 data.
+// class, drops its ISO 8217 data and takes the analysis's specific energy.
 func TestFuelWithAnalysis(t *testing.T) {
 	t.Parallel()
 	g, _ := fuel.Grade("VLSFO")
@@ -456,9 +456,15 @@ func TestFuelWithAnalysis(t *testing.T) {
 	if f.Name != "VLSFO with the given analysis" || f.SetLHV != g.SetLHV || f.Class != g.Class || f.ISO.Given() || f.Analysis != checkTestFuel().Analysis {
 		t.Errorf("FuelWithAnalysis: %+v", f)
 	}
-	// The IMO figure for HFO, 40 200 kJ/kg (plant-checks.md §1.3 [S]).
+	// The grade's ISO 8217 data are dropped, so its net specific energy is
+	// the analysis's own: Channiwala–Parikh (2002), as plant/fuel computes
+	// and tests it.
+	e, err := f.Energy()
+	if err != nil {
+		t.Fatal(err)
+	}
 	c := mustCheck(t, FlueGasReading{Fuel: f, Gas: MeasuredO2, Dry: 0.03, FlueT: 523.15, AirT: 308.15}, nil)
-	near(t, "LHV of VLSFO with an analysis on top (plant-checks.md §1.3 [S])", c.Losses.LHV.HeatInput, 40.2e6, 1e-6)
+	near(t, "LHV of VLSFO with an analysis on top (the analysis's own, Channiwala–Parikh)", c.Losses.LHV.HeatInput, e.Net, 1e-9)
 	near(t, "stoichiometric air of the analysis given (plant-checks.md §2.1 [C])", c.Products.Stoich.Air, 13.770, 0.005)
 }
 
