@@ -57,6 +57,22 @@ func (o *Options) defaults() {
 	}
 }
 
+// check adds a fault for each option out of its range.
+func (o *Options) check(fs *faults, pos Pos) {
+	if !(o.AmbientPressure >= 5e4 && o.AmbientPressure <= 1.5e5) {
+		fs.add(pos, "", "", "the ambient pressure must lie between 0.5 and 1.5 bar(a); got %g Pa", o.AmbientPressure)
+	}
+	if !(o.UsableFraction >= 0.5 && o.UsableFraction <= 1) {
+		fs.add(pos, "", "", "the usable fraction of a boiler's MCR must lie between 50 %% and 100 %%; got %g %%", 100*o.UsableFraction)
+	}
+	if !(o.LeadLoad > 0 && o.LeadLoad <= 1) {
+		fs.add(pos, "", "", "the lead boiler's load must lie above 0 %% and at most 100 %% of its MCR; got %g %%", 100*o.LeadLoad)
+	}
+	if !(o.FeedSuctionMaxT > 273.15 && o.FeedSuctionMaxT < 423.15) {
+		fs.add(pos, "", "", "the feed suction's warning temperature must lie between 0 and 150 °C; got %g K", o.FeedSuctionMaxT)
+	}
+}
+
 // Plant is a steam plant: components joined by lines. Build it with Add
 // and Connect, then Solve load cases. A Plant is not safe for concurrent
 // use; Clone gives a copy for another goroutine.
@@ -154,6 +170,7 @@ func (p *Plant) compile() error {
 		fs.add(p.Pos, "", "", "plant %q has no units", p.Name)
 		return fs.err()
 	}
+	p.Opt.check(&fs, p.Pos)
 	for _, c := range p.comps {
 		c.check(&fs)
 	}

@@ -125,7 +125,7 @@ func (r *runner) tableRows(ph *plantHandle, a *args, key string, spec rowSpec) *
 		}
 		row.Case.Conditions.SeaT, _ = ra.quantity("sea", units.Temperature, false)
 		row.Case.Conditions.AirT, _ = ra.quantity("air", units.Temperature, false)
-		row.Case.Conditions.EngineLoad, _ = ra.quantity("engine", units.Fraction, false)
+		row.Case.Conditions.EngineLoad = ra.engineLoad()
 		if v := ra.get("set"); v != lua.LNil {
 			row.Case.Set = r.caseSettings(ph, ra, v, row.Case.Pos)
 		}
@@ -409,7 +409,11 @@ func (r *runner) csvRows(ph *plantHandle, fn, name string, spec rowSpec) *jobRow
 			case "air":
 				row.Case.Conditions.AirT, err = parseQuantity(v, "air", units.Temperature, uopt)
 			case "engine":
-				row.Case.Conditions.EngineLoad, err = parseCell(cell, "engine", units.Fraction, uopt)
+				var v lua.LValue = lua.LString(cell)
+				if f, perr := strconv.ParseFloat(cell, 64); perr == nil {
+					v = lua.LNumber(f)
+				}
+				row.Case.Conditions.EngineLoad, err = parseEngineLoad(v, "engine", uopt)
 			case "":
 				if c.key.Kind == plant.KeyText {
 					row.Case.Set = append(row.Case.Set, plant.Setting{Unit: c.unit, Param: c.key.Name, Text: cell, Pos: row.Case.Pos})
@@ -417,6 +421,9 @@ func (r *runner) csvRows(ph *plantHandle, fn, name string, spec rowSpec) *jobRow
 				}
 				var f float64
 				f, err = parseSetCell(cell, &c.key, uopt)
+				if err == nil {
+					err = rangeErr(&c.key, c.key.Name, f, lua.LString(cell))
+				}
 				if err == nil {
 					row.Case.Set = append(row.Case.Set, plant.Setting{Unit: c.unit, Param: c.key.Name, Value: f, Pos: row.Case.Pos})
 				}
