@@ -182,6 +182,10 @@ func (p *Plant) compile() error {
 	if err := fs.err(); err != nil {
 		return err
 	}
+	p.checkPressures(&fs)
+	if err := fs.err(); err != nil {
+		return err
+	}
 	s := &session{asm: a, ports: ports}
 	s.assembleDispatch(a)
 	st, err := solver.DiagnoseIncidence(len(a.eqNames), len(a.varNames), a.pattern, a.eqNames, a.varNames)

@@ -194,6 +194,10 @@ func (p *Plant) applySettings(c *Case) (restore func(), err error) {
 			}
 		}
 	}
+	if len(c.Set) > 0 {
+		// A case may move the set pressures (a drum, a valve).
+		p.checkPressures(&fs)
+	}
 	if err := fs.err(); err != nil {
 		restore()
 		return nil, err
