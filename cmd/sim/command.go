@@ -82,6 +82,13 @@ func run(ctx context.Context, args []string, stdout, stderr io.Writer) int {
 	case "-h", "-help", "--help":
 		writeMainHelp(stdout)
 		return exitOK
+	case "-version", "--version":
+		if len(args) > 1 {
+			fmt.Fprintf(stderr, "sim: %s takes no arguments; got %q\n", name, args[1])
+			return exitUsage
+		}
+		fmt.Fprintf(stdout, "sim %s\n", version())
+		return exitOK
 	}
 	c := findCommand(name)
 	if c == nil {

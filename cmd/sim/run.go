@@ -83,10 +83,11 @@ error; --quiet leaves only errors. When standard error is a terminal, and
 without --quiet, the progress of each voyage, study and audit is shown
 there on one line redrawn in place a few times a second: the rows (an
 audit's days; a study's rows times its variants) done of all, the share,
-the rate and the time left at that rate, and the time taken when done. An error in a script is printed as
-"file:line: message" and sim exits with status 1. So does a failed check(),
-after the report of the cases solved before it, so that the figures it
-tested can be seen. A script that runs longer than --timeout is stopped.
+the rate and the time left at that rate, and the time taken when done. An
+error in a script is printed as "file:line: message" and sim exits with
+status 1. So does a failed check(), after the report of the cases solved
+before it, so that the figures it tested can be seen. A script that runs
+longer than --timeout is stopped.
 
 Examples:
 
@@ -140,7 +141,7 @@ func (a *runArgs) flagSet(name string) *flag.FlagSet {
 		fs.StringVar(&a.out, "o", "", "write the report to `FILE` instead of standard output")
 	}
 	a.timeout = 10 * time.Second
-	fs.Var((*durationFlag)(&a.timeout), "timeout", "stop a script that runs longer than `DURATION`, such as 10s or 2m (default 10s)")
+	fs.Var((*durationFlag)(&a.timeout), "timeout", "stop a script that runs longer than `DURATION`, such as 10s or 2m\n(default 10s)")
 	fs.BoolVar(&a.verbose, "v", false, "log more: the solver's records as well as the scripts' messages")
 	fs.BoolVar(&a.quiet, "quiet", false, "log errors only (and, for run, show no progress)")
 	return fs

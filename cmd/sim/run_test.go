@@ -232,9 +232,9 @@ func TestRunHelp(t *testing.T) {
 		name  string
 		wants []string
 	}{
-		{"run", []string{"usage: sim run [--json | --csv]", "--json", "--csv", "--plot FILE", "--o FILE", "--timeout DURATION",
-			"--v", "--quiet", "sim run --plot demand.svg tanker.lua", "Caution: boilers can kill"}},
-		{"check", []string{"usage: sim check [--timeout DURATION]", "--timeout DURATION", "--v", "--quiet",
+		{"run", []string{"usage: sim run [--json | --csv]", "\n  --json\n", "\n  --csv\n", "\n  --plot FILE\n", "\n  -o FILE\n",
+			"\n  --timeout DURATION\n", "\n  -v\n", "\n  --quiet\n", "sim run --plot demand.svg tanker.lua", "Caution: boilers can kill"}},
+		{"check", []string{"usage: sim check [--timeout DURATION]", "\n  --timeout DURATION\n", "\n  -v\n", "\n  --quiet\n",
 			"sim check tanker.lua", "Caution: boilers can kill"}},
 	} {
 		code, out, _ := runSim(t, "help", c.name)

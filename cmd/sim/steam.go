@@ -65,12 +65,12 @@ type steamArgs struct {
 
 func (a *steamArgs) flagSet() *flag.FlagSet {
 	fs := flag.NewFlagSet("steam", flag.ContinueOnError)
-	fs.StringVar(&a.p, "p", "", "the `PRESSURE`, gauge or absolute: \"7 bar(g)\", \"8 bar(a)\", \"0.8 MPa\", \"120 psig\"")
+	fs.StringVar(&a.p, "p", "", "the `PRESSURE`, gauge or absolute: \"7 bar(g)\", \"8 bar(a)\", \"0.8 MPa\",\n\"120 psig\"")
 	fs.StringVar(&a.t, "t", "", "the `TEMPERATURE`: \"250 C\", \"523.15 K\", \"482 F\"")
 	fs.StringVar(&a.h, "h", "", "the specific `ENTHALPY`: \"2768 kJ/kg\", \"2.768 MJ/kg\"")
 	fs.StringVar(&a.s, "s", "", "the specific `ENTROPY`: \"6.6 kJ/kgK\", \"6600 J/kgK\"")
-	fs.StringVar(&a.x, "x", "", "the `QUALITY` (steam mass fraction): a number from 0 to 1, such as 1 or 0.85, or \"85 %\"")
-	fs.StringVar(&a.ambient, "ambient", "", "the ambient `PRESSURE` that gauge values refer to, absolute: \"1.013 bar(a)\", \"1000 mbar(a)\"\n(default 1.01325 bar(a), the standard atmosphere)")
+	fs.StringVar(&a.x, "x", "", "the `QUALITY` (steam mass fraction): a number from 0 to 1, such as 1\nor 0.85, or \"85 %\"")
+	fs.StringVar(&a.ambient, "ambient", "", "the ambient `PRESSURE` that gauge values refer to, absolute:\n\"1.013 bar(a)\", \"1000 mbar(a)\" (default 1.01325 bar(a), the standard\natmosphere)")
 	fs.BoolVar(&a.json, "json", false, "print one JSON object in SI units instead of the table")
 	return fs
 }
