@@ -3,9 +3,10 @@ package plant
 import (
 	"fmt"
 	"math"
+	"strings"
 
-	"steamcase/plant/combustion"
 	"steamcase/plant/fuel"
+	"steamcase/plant/units"
 )
 
 // FuelSpec is what a boiler needs to know of its fuel for the energy
@@ -31,111 +32,8 @@ func SpecFromFuel(f fuel.Fuel) (FuelSpec, error) {
 		return FuelSpec{}, err
 	}
 	ff := f
-	return FuelSpec{Name: f.Name, LHV: e.Net, CO2Factor: c.Value, Fuel: &ff}, nil
+	return FuelSpec{Name: f.Name, LHV: e.Net, CO2Factor: c.IMOOrAnalysis(), Fuel: &ff}, nil
 }
-
-// BoilerOperation is the state of a boiler that its efficiency may depend
-// on.
-type BoilerOperation struct {
-	Load  float64 // steam flow as a fraction of MCR (the firing rate while firing)
-	DrumP float64 // Pa
-	FeedT float64 // K
-	AirT  float64 // combustion air temperature, K
-	// FuelFlow is the fuel flow while the burner fires, kg/s (the
-	// time-averaged flow over the on fraction when it cycles).
-	FuelFlow float64
-	Fuel     FuelSpec
-}
-
-// EfficiencyPoint is a boiler's efficiency at one operating point, with
-// what a combustion model knows besides.
-type EfficiencyPoint struct {
-	// Eta is heat to steam and blowdown over fuel flow times the LHV.
-	Eta float64
-	// Warning says where the model went outside the range it knows.
-	Warning string
-
-	// From a combustion model (zero when the model is a plain table):
-	FlueT          float64 // flue-gas exit temperature, K
-	Lambda         float64 // air ratio
-	AirPerFuel     float64 // wet combustion air, kg/kg fuel
-	FlueGasPerFuel float64 // wet flue gas, kg/kg fuel
-	Losses         *combustion.LossItems
-	// Products and LossOptions let a flue-gas economiser after the boiler
-	// redo the loss account at its own gas outlet temperature.
-	Products    *combustion.Products
-	LossOptions combustion.LossOptions
-}
-
-// EfficiencyModel gives a boiler's efficiency: heat to steam and blowdown
-// divided by fuel flow times the fuel's lower calorific value. A maker's
-// test table is the simplest; the combustion models compute it by the
-// heat-loss method.
-type EfficiencyModel interface {
-	Efficiency(op BoilerOperation) (EfficiencyPoint, error)
-	// Basis names the calorific value the efficiency refers to ("LHV").
-	Basis() string
-}
-
-// EfficiencyTable is a maker's test: efficiency (LHV basis) against load
-// fraction of MCR, interpolated linearly. Outside the tested loads it holds
-// the end value and says so in a warning.
-type EfficiencyTable struct {
-	Load []float64 // fractions of MCR, strictly increasing
-	Eta  []float64 // efficiencies, 0..1
-}
-
-// Validate checks the table.
-func (t *EfficiencyTable) Validate() error {
-	if len(t.Load) == 0 || len(t.Load) != len(t.Eta) {
-		return fmt.Errorf("efficiency table needs as many efficiencies as loads and at least one; got %d loads and %d efficiencies", len(t.Load), len(t.Eta))
-	}
-	for i := range t.Load {
-		if !finite(t.Load[i]) || t.Load[i] < 0 || t.Load[i] > 1.5 {
-			return fmt.Errorf("efficiency table load %g is not a fraction of MCR between 0 and 1.5", t.Load[i])
-		}
-		if i > 0 && t.Load[i] <= t.Load[i-1] {
-			return fmt.Errorf("efficiency table loads must increase; %g follows %g", t.Load[i], t.Load[i-1])
-		}
-		if !finite(t.Eta[i]) || t.Eta[i] <= 0.3 || t.Eta[i] > 1 {
-			return fmt.Errorf("efficiency %g at load %g is not between 0.3 and 1", t.Eta[i], t.Load[i])
-		}
-	}
-	return nil
-}
-
-// Efficiency interpolates the table at op.Load.
-func (t *EfficiencyTable) Efficiency(op BoilerOperation) (EfficiencyPoint, error) {
-	eta, warn := interpolate(t.Load, t.Eta, op.Load, "efficiency table")
-	return EfficiencyPoint{Eta: eta, Warning: warn}, nil
-}
-
-// interpolate is linear interpolation in a table of loads; outside the
-// table it holds the end value and returns a warning that says so.
-func interpolate(loads, vals []float64, x float64, what string) (float64, string) {
-	n := len(loads)
-	switch {
-	case x <= loads[0]:
-		if x < loads[0]-1e-9 && n > 1 {
-			return vals[0], fmt.Sprintf("load %.0f %% is below the %s's lowest load %.0f %%; its value there is used", 100*x, what, 100*loads[0])
-		}
-		return vals[0], ""
-	case x >= loads[n-1]:
-		if x > loads[n-1]+1e-9 {
-			return vals[n-1], fmt.Sprintf("load %.0f %% is above the %s's highest load %.0f %%; its value there is used", 100*x, what, 100*loads[n-1])
-		}
-		return vals[n-1], ""
-	}
-	i := 1
-	for loads[i] < x {
-		i++
-	}
-	f := (x - loads[i-1]) / (loads[i] - loads[i-1])
-	return vals[i-1] + f*(vals[i]-vals[i-1]), ""
-}
-
-// Basis is "LHV".
-func (t *EfficiencyTable) Basis() string { return "LHV" }
 
 // Boiler is an oil-fired auxiliary boiler: a drum at a set pressure raising
 // steam of a set dryness from its feed, with blowdown, burning fuel at the
@@ -147,7 +45,7 @@ func (t *EfficiencyTable) Basis() string { return "LHV" }
 // is then the time average, at the efficiency of the minimum firing rate
 // reduced by CyclingLoss for the purges.
 type Boiler struct {
-	UnitBase
+	Base
 	MCR   float64 // maximum continuous rating, kg/s of steam
 	DrumP float64 // drum pressure, Pa absolute
 	// Dryness of the steam leaving the drum, 0..1; zero means 1 (dry
@@ -195,6 +93,93 @@ type Burner struct {
 	FanRise, FanEta, MotorEta float64
 }
 
+// NewBoiler returns an oil-fired boiler; give it its MCR, drum pressure,
+// efficiency and fuel.
+func NewBoiler() *Boiler { return &Boiler{} }
+
+func boilerKey(k Key, f func(*Boiler) *float64) Key { return num(k, self[*Boiler], f) }
+
+var boilerKeys = []Key{
+	boilerKey(Key{Name: "mcr", Label: "MCR", Dim: units.MassFlow, Example: "20 t/h",
+		Doc: "maximum continuous rating, steam", Required: true, Min: 1e-3, Max: 500, Case: true, JSON: "mcr_kg_h"},
+		func(u *Boiler) *float64 { return &u.MCR }),
+	boilerKey(Key{Name: "drum", Label: "drum pressure", Dim: units.Pressure, Example: "16 bar(g)",
+		Doc: "drum pressure", Required: true, Min: 1.1e5, Max: 2.2e7, Case: true, JSON: "drum_p_Pa"},
+		func(u *Boiler) *float64 { return &u.DrumP }),
+	boilerKey(Key{Name: "dryness", Label: "steam dryness", Dim: units.Fraction, Example: "99 %",
+		Doc: "dryness of the steam leaving the drum", Default: 1, HasDefault: true, Min: 0.8, Max: 1, Case: true,
+		JSON: "steam_dryness"},
+		func(u *Boiler) *float64 { return &u.Dryness }),
+	boilerKey(Key{Name: "blowdown", Label: "blowdown fraction", Dim: units.Fraction, Example: "1 %",
+		Doc: "blowdown as a fraction of the feed (or tds_feed/tds_max)", Default: 0, HasDefault: true,
+		Min: 0, Max: 0.2, Case: true},
+		func(u *Boiler) *float64 { return &u.Blowdown }),
+	boilerKey(Key{Name: "tds_feed", Label: "feed TDS", Kind: KeyNumber, Example: "20",
+		Doc: "dissolved solids in the feed, in the unit of tds_max: blowdown = tds_feed/tds_max"},
+		func(u *Boiler) *float64 { return &u.TDSFeed }),
+	boilerKey(Key{Name: "tds_max", Label: "TDS limit", Kind: KeyNumber, Example: "2000",
+		Doc: "dissolved solids allowed in the boiler water"},
+		func(u *Boiler) *float64 { return &u.TDSMax }),
+	boilerKey(Key{Name: "turndown", Label: "burner turndown ratio", Kind: KeyNumber, Example: "4",
+		Doc: "burner turndown (4 means 1:4): below MCR/turndown the burner cycles", DefaultNote: "cycling not checked",
+		Min: 1, Max: 20},
+		func(u *Boiler) *float64 { return &u.Turndown }),
+	boilerKey(Key{Name: "cycling_loss", Label: "cycling loss", Dim: units.Fraction, Example: "2 %",
+		Doc: "fraction of efficiency lost to pre-purges while cycling", Default: 0, HasDefault: true, Min: 0, Max: 0.2},
+		func(u *Boiler) *float64 { return &u.CyclingLoss }),
+	boilerKey(Key{Name: "eta_factor", Label: "efficiency factor", Dim: units.Fraction, Example: "0.98",
+		Doc: "scales the efficiency model's figure (an audit's knob)", Default: 1, HasDefault: true,
+		Min: 0.5, Max: 1.5, Case: true},
+		func(u *Boiler) *float64 { return &u.EtaFactor }),
+	{Name: "fuel", Label: "fuel", Kind: KeyText, Example: `"HSFO"`, Case: true, JSON: "fuel",
+		Doc:  "a built-in grade (its LHV, CO2 factor and analysis), or the name of your own fuel with lhv and co2_factor; a case may change it to a built-in grade (0.1 % S fuel in port or in an emission control area)",
+		text: setBoilerGrade,
+		keep: func(c Component) func() {
+			b, ok := self[*Boiler](c)
+			if !ok {
+				return func() {}
+			}
+			old := b.Fuel
+			return func() { b.Fuel, b.effSet = old, false }
+		}},
+	{Name: "lhv", Label: "lower calorific value", Kind: KeyQuantity, Dim: units.SpecificEnergy, Example: "40.2 MJ/kg",
+		Doc: "the fuel's lower calorific value for the energy balance (replaces a grade's)", Min: 1e7, Max: 6e7},
+	{Name: "co2_factor", Label: "CO2 factor", Kind: KeyNumber, Example: "3.114",
+		Doc: "kg CO2 per kg fuel (replaces a grade's)", Min: 0, Max: 4},
+	{Name: "efficiency", Label: "efficiency", Kind: KeyTable, Required: true,
+		Example: `{ {"25 %", "80 %"}, {"100 %", "85 %"} }`,
+		Doc:     "one figure, a table of {load, efficiency} pairs (LHV basis), or a combustion model (flue_gas or furnace)"},
+	{Name: "burner", Label: "burner", Kind: KeyTable, Example: `{ fan_rise = "3 kPa", fan_eta = "60 %" }`,
+		Doc: "the burner's fan: fan_rise, fan_eta, motor_eta, air_T"},
+}
+
+// setBoilerGrade is the fuel a case sets: a built-in grade, with its LHV,
+// CO2 factor and analysis. A case that gives back the fuel the boiler was
+// declared with (the name of one of one's own) keeps it as it is.
+func setBoilerGrade(c Component, v []string) error {
+	b, ok := self[*Boiler](c)
+	if !ok || len(v) != 1 {
+		return nil
+	}
+	if v[0] == b.Fuel.Name {
+		return nil
+	}
+	f, err := fuel.Grade(v[0])
+	if err != nil {
+		return fmt.Errorf("fuel %q is not a built-in grade (grades: %s); a case may change a boiler's fuel to a grade only", v[0], strings.Join(fuel.GradeNames(), ", "))
+	}
+	spec, err := SpecFromFuel(f)
+	if err != nil {
+		return err
+	}
+	b.Fuel = spec
+	b.effSet = false
+	return nil
+}
+
+// Keys lists the boiler's keys.
+func (u *Boiler) Keys() []Key { return boilerKeys }
+
 // Kind returns "oil-fired boiler".
 func (u *Boiler) Kind() string { return "oil-fired boiler" }
 
@@ -227,22 +212,16 @@ func (u *Boiler) MinLoad() float64 {
 }
 
 func (u *Boiler) check(fs *faults) {
-	checkRange(fs, u, "MCR", u.MCR, 1e-3, 500, "kg/s")
-	checkRange(fs, u, "drum pressure", u.DrumP, 1.1e5, 2.2e7, "Pa")
-	if u.Dryness != 0 {
-		checkRange(fs, u, "steam dryness", u.Dryness, 0.8, 1, "")
-	}
+	checkKey(fs, u, "mcr")
+	checkKey(fs, u, "drum")
+	checkKey(fs, u, "dryness")
 	checkRange(fs, u, "blowdown fraction", u.Blowdown, 0, 0.2, "")
 	if u.Blowdown == 0 && u.TDSMax > 0 {
 		checkRange(fs, u, "feed TDS", u.TDSFeed, 0, u.TDSMax*0.2, "(same unit as the TDS limit; blowdown fraction is TDS feed / TDS limit, at most 0.2)")
 	}
-	if u.Turndown != 0 {
-		checkRange(fs, u, "burner turndown ratio", u.Turndown, 1, 20, "")
-	}
+	checkKey(fs, u, "turndown")
 	checkRange(fs, u, "cycling loss", u.CyclingLoss, 0, 0.2, "")
-	if u.EtaFactor != 0 {
-		checkRange(fs, u, "efficiency factor", u.EtaFactor, 0.5, 1.5, "")
-	}
+	checkKey(fs, u, "eta_factor")
 	if u.Burner.AirT != 0 {
 		checkRange(fs, u, "combustion air temperature", u.Burner.AirT, 243.15, 343.15, "K")
 	}
@@ -264,14 +243,15 @@ func (u *Boiler) check(fs *faults) {
 	checkRange(fs, u, "fuel CO2 factor", u.Fuel.CO2Factor, 0, 4, "kg/kg")
 }
 
-func (u *Boiler) assemble(a *assembly, ports map[string][]*Line) {
-	u.feed, u.steam = one(ports["feed"]), one(ports["steam"])
+func (u *Boiler) assemble(a *assembly, ports portLines) {
+	u.feed, u.steam = ports.one("feed"), ports.one("steam")
 	u.fuel = a.variable(u.Name+": fuel flow", 0.1, 0, math.Inf(1), 0.05)
 	u.eqs[0] = a.equation(u.Name+": drum pressure", scaleP, u.steam.pIdx())
 	u.eqs[1] = a.equation(u.Name+": steam dryness", scaleH, u.steam.pIdx(), u.steam.hIdx())
 	u.eqs[2] = a.equation(u.Name+": feed and blowdown", 1, u.feed.mIdx(), u.steam.mIdx())
 	u.eqs[3] = a.equation(u.Name+": fuel from the energy balance", scaleQ,
 		u.fuel, u.feed.mIdx(), u.feed.pIdx(), u.feed.hIdx(), u.steam.mIdx(), u.steam.pIdx(), u.steam.hIdx())
+	a.roles.boilers = append(a.roles.boilers, u)
 }
 
 // operation returns the state the efficiency is evaluated at and whether
@@ -350,21 +330,88 @@ func (u *Boiler) heat(ev *eval) (float64, error) {
 func (u *Boiler) residual(ev *eval, r []float64) error {
 	hs, err := u.mh.get2(u.DrumP, u.dryness(), hPX)
 	if err != nil {
-		return wrapUnitErr(u, err)
+		return wrapErr(u, err)
 	}
 	q, err := u.heat(ev)
 	if err != nil {
-		return wrapUnitErr(u, err)
+		return wrapErr(u, err)
 	}
 	pt, _, err := u.eta(ev)
 	if err != nil {
-		return wrapUnitErr(u, err)
+		return wrapErr(u, err)
 	}
 	eta := pt.Eta
 	r[u.eqs[0]] = ev.p(u.steam) - u.DrumP
 	r[u.eqs[1]] = ev.h(u.steam) - hs
 	r[u.eqs[2]] = ev.m(u.feed)*(1-u.blowdown()) - ev.m(u.steam)
 	r[u.eqs[3]] = ev.x[u.fuel]*u.Fuel.LHV*eta - q
+	return nil
+}
+
+func b2i(b bool) int {
+	if b {
+		return 1
+	}
+	return 0
+}
+
+func (u *Boiler) jacobian(ev *eval, j jac) error {
+	hf, err := u.mf.get1(u.DrumP, hLiquidSat)
+	if err != nil {
+		return wrapErr(u, err)
+	}
+	pt, cycling, err := u.eta(ev)
+	if err != nil {
+		return wrapErr(u, err)
+	}
+	eta := pt.Eta
+	fuel := ev.x[u.fuel]
+	mf, ms := ev.m(u.feed), ev.m(u.steam)
+	hfw, hs := ev.h(u.feed), ev.h(u.steam)
+	e := u.eqs
+	j.add(e[0], u.steam.pIdx(), 1)
+	j.add(e[1], u.steam.hIdx(), 1)
+	j.add(e[2], u.feed.mIdx(), 1-u.blowdown())
+	j.add(e[2], u.steam.mIdx(), -1)
+
+	// r = fuel·LHV·η − q, q = ms·(hs − hfw) + (mf − ms)·(hf − hfw).
+	lhv := u.Fuel.LHV
+	j.add(e[3], u.fuel, lhv*eta)
+	j.add(e[3], u.steam.mIdx(), -(hs - hf))
+	j.add(e[3], u.steam.hIdx(), -ms)
+	j.add(e[3], u.feed.hIdx(), mf)
+	j.add(e[3], u.feed.mIdx(), -(hf - hfw))
+
+	// The efficiency's own dependence on the unknowns.
+	if t, ok := u.Efficiency.(*EfficiencyTable); ok {
+		// A maker's table depends on the load alone, held at the burner
+		// minimum while the boiler cycles.
+		if !cycling {
+			k := 1.0
+			if u.EtaFactor != 0 {
+				k = u.EtaFactor
+			}
+			slope := tableSlope(t.Load, t.Eta, ms/u.MCR)
+			j.add(e[3], u.steam.mIdx(), fuel*lhv*k*slope/u.MCR)
+		}
+		return nil
+	}
+	if ev.pl.economiserOf(u) != nil {
+		// The economiser on this boiler's gas differences the efficiency
+		// together with its own duty (one model evaluation per unknown).
+		return nil
+	}
+	etaOf := func() ([2]float64, int, error) {
+		pt, c, err := u.eta(ev)
+		return [2]float64{pt.Eta}, b2i(c), err
+	}
+	for _, col := range [4]int{u.steam.mIdx(), u.feed.pIdx(), u.feed.hIdx(), u.fuel} {
+		d, err := unitFD(ev, col, [2]float64{eta}, b2i(cycling), etaOf)
+		if err != nil {
+			return wrapErr(u, err)
+		}
+		j.add(e[3], col, fuel*lhv*d[0])
+	}
 	return nil
 }
 
@@ -379,24 +426,24 @@ func (u *Boiler) guess(x []float64) {
 func (u *Boiler) report(ev *eval, cr *CaseResult) error {
 	pt, cycling, err := u.eta(ev)
 	if err != nil {
-		return wrapUnitErr(u, err)
+		return wrapErr(u, err)
 	}
 	eta, warn := pt.Eta, pt.Warning
 	ms, mf := ev.m(u.steam), ev.m(u.feed)
 	mbd := mf - ms
 	hf, err := u.mf.get1(u.DrumP, hLiquidSat)
 	if err != nil {
-		return wrapUnitErr(u, err)
+		return wrapErr(u, err)
 	}
 	ft, err := tPH(ev.p(u.feed), ev.h(u.feed))
 	if err != nil {
-		return wrapUnitErr(u, err)
+		return wrapErr(u, err)
 	}
 	q, err := u.heat(ev)
 	if err != nil {
-		return wrapUnitErr(u, err)
+		return wrapErr(u, err)
 	}
-	firing := ev.disp.firing(u)
+	firing := ev.pl.firing(u)
 	fuel := ev.x[u.fuel]
 	br := BoilerResult{
 		Name:            u.Name,
@@ -457,18 +504,13 @@ func (u *Boiler) report(ev *eval, cr *CaseResult) error {
 	return nil
 }
 
-func (u *Boiler) param(name string) (*float64, error) {
-	switch name {
-	case "dryness":
-		return &u.Dryness, nil
-	case "blowdown":
-		return &u.Blowdown, nil
-	case "mcr":
-		return &u.MCR, nil
-	case "drum_p":
-		return &u.DrumP, nil
-	case "eta_factor":
-		return &u.EtaFactor, nil
-	}
-	return nil, paramErr(u, name, "dryness", "blowdown", "mcr", "drum_p", "eta_factor")
+func (u *Boiler) outline(cr *CaseResult) {
+	cr.Boilers = append(cr.Boilers, BoilerResult{Name: u.Name, FuelName: u.Fuel.Name})
+}
+
+func (u *Boiler) clone() Component {
+	c := *u
+	c.effSet = false
+	c.feed, c.steam = nil, nil
+	return &c
 }

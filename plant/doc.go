@@ -76,8 +76,9 @@
 // CaseResult holds each line's state, each unit's figures, each boiler's
 // load, fuel, efficiency and basis, the totals, the margin to the next
 // boiler, the warnings, and the mass and energy balance closures computed
-// from the solved lines and the units' boundary flows. JSON gives the
-// documented schema (keys carry their units; see SchemaVersion).
+// from the solved lines and the units' boundary flows, all in SI. Their
+// form for reports and scripts (keys with units such as kg/h, rounding,
+// the schema's version) is package plant/schema's.
 //
 // Results are planning and audit estimates, not a substitute for the
 // makers' manuals, class and flag rules, or licensed practice; local codes

@@ -6,6 +6,7 @@ import (
 
 	"steamcase/plant/combustion"
 	"steamcase/plant/heat"
+	"steamcase/plant/units"
 	"steamcase/plant/water"
 )
 
@@ -24,7 +25,7 @@ import (
 // be lost, so the boiler's result reports the combined efficiency and the
 // exit temperature after the economiser.
 type Economiser struct {
-	UnitBase
+	Base
 	Boiler        string  // the boiler whose flue gas passes the economiser
 	UA            float64 // W/K at DesignGasFlow
 	DesignGasFlow float64 // kg/s; zero: UA is constant
@@ -37,6 +38,33 @@ type Economiser struct {
 	last    heat.ExchangerResult
 	lastGas gasSide
 }
+
+// NewEconomiser returns a flue-gas economiser; give it its boiler and UA.
+func NewEconomiser() *Economiser { return &Economiser{} }
+
+var economiserKeys = []Key{
+	{Name: "boiler", Label: "boiler", Kind: KeyText, Example: `"AB1"`, Required: true,
+		Doc: "the boiler whose flue gas passes the economiser",
+		text: func(c Component, v []string) error {
+			if e, ok := self[*Economiser](c); ok && len(v) == 1 {
+				e.Boiler = v[0]
+			}
+			return nil
+		}},
+	num(Key{Name: "ua", Label: "UA", Dim: units.ThermalConductance, Example: "8 kW/K",
+		Doc: "the exchanger's UA (at design_gas)", Required: true, Min: 0, Max: 1e8, Case: true},
+		self[*Economiser], func(u *Economiser) *float64 { return &u.UA }),
+	num(Key{Name: "design_gas", Label: "design gas flow", Dim: units.MassFlow, Example: "2 kg/s",
+		Doc: "gas flow at which ua holds", DefaultNote: "ua is constant", Min: 1e-3, Max: 1e3},
+		self[*Economiser], func(u *Economiser) *float64 { return &u.DesignGasFlow }),
+	num(Key{Name: "exponent", Label: "UA exponent n (UA ∝ gas flow^n)", Kind: KeyNumber, Example: "0.65",
+		Doc: "n of UA ∝ gas flow^n off design", Default: defaultEGEExponent, HasDefault: true,
+		Source: "plant-checks.md §7 [S]", Min: 0.5, Max: 1},
+		self[*Economiser], func(u *Economiser) *float64 { return &u.Exponent }),
+}
+
+// Keys lists the economiser's keys.
+func (u *Economiser) Keys() []Key { return economiserKeys }
 
 // ecoFlowFloor is added to the feed flow in the economiser's energy
 // balance, kg/s. It biases the balance by at most ecoFlowFloor·Δh, under
@@ -64,8 +92,8 @@ func (u *Economiser) check(fs *faults) {
 	}
 }
 
-func (u *Economiser) assemble(a *assembly, ports map[string][]*Line) {
-	u.in, u.out = one(ports["in"]), one(ports["out"])
+func (u *Economiser) assemble(a *assembly, ports portLines) {
+	u.in, u.out = ports.one("in"), ports.one("out")
 	u.eqs[0] = a.equation(u.Name+": mass balance", 1, u.in.mIdx(), u.out.mIdx())
 	u.eqs[1] = a.equation(u.Name+": pressure", scaleP, u.in.pIdx(), u.out.pIdx())
 	u.eqs[2] = a.equation(u.Name+": heat from the flue gas", scaleQ, lineDeps(u.in, u.out)...)
@@ -79,7 +107,8 @@ func (u *Economiser) link(p *Plant, a *assembly, fs *faults) {
 		return
 	}
 	u.b = b
-	a.pattern[u.eqs[2]] = append(a.pattern[u.eqs[2]], b.fuel, b.steam.mIdx(), b.feed.pIdx(), b.feed.hIdx())
+	a.roles.economisers = append(a.roles.economisers, u)
+	a.depend(u.eqs[2], b.fuel, b.steam.mIdx(), b.feed.pIdx(), b.feed.hIdx())
 }
 
 // gasSide is what the economiser sees of the boiler's flue gas.
@@ -106,7 +135,7 @@ func (u *Economiser) ua(mGas float64) float64 {
 	}
 	n := u.Exponent
 	if n == 0 {
-		n = 0.65
+		n = defaultEGEExponent
 	}
 	return u.UA * math.Pow(mGas/u.DesignGasFlow, n)
 }
@@ -157,7 +186,7 @@ func (u *Economiser) duty(ev *eval) (heat.ExchangerResult, gasSide, error) {
 func (u *Economiser) residual(ev *eval, r []float64) error {
 	res, _, err := u.duty(ev)
 	if err != nil {
-		return wrapUnitErr(u, err)
+		return wrapErr(u, err)
 	}
 	r[u.eqs[0]] = ev.m(u.out) - ev.m(u.in)
 	r[u.eqs[1]] = ev.p(u.out) - ev.p(u.in)
@@ -176,25 +205,25 @@ func (u *Economiser) guess(x []float64) {
 func (u *Economiser) report(ev *eval, cr *CaseResult) error {
 	res, g, err := u.duty(ev)
 	if err != nil {
-		return wrapUnitErr(u, err)
+		return wrapErr(u, err)
 	}
 	pOut := ev.p(u.out)
 	tIn, err := tPH(ev.p(u.in), ev.h(u.in))
 	if err != nil {
-		return wrapUnitErr(u, err)
+		return wrapErr(u, err)
 	}
 	tOut, err := tPH(pOut, ev.h(u.out))
 	if err != nil {
-		return wrapUnitErr(u, err)
+		return wrapErr(u, err)
 	}
 	ts, err := waterTsat(pOut)
 	if err != nil {
-		return wrapUnitErr(u, err)
+		return wrapErr(u, err)
 	}
 	if hf, err := hLiquidSat(pOut); err == nil && ev.h(u.out) > hf {
 		cr.warn("%s %q: the feed water boils in the economiser (%.1f °C at %.2f bar(a)); an economiser must not steam", u.Kind(), u.Name, tOut-273.15, pOut/1e5)
 	}
-	cr.Units = append(cr.Units, UnitResult{Name: u.Name, Kind: u.Kind(), Figures: Figures{
+	cr.Units = append(cr.Units, ComponentResult{Name: u.Name, Kind: u.Kind(), Figures: Figures{
 		{"duty_W", res.Q},
 		{"gas_kg_s", g.m},
 		{"gas_in_T_K", g.tIn},
@@ -211,10 +240,10 @@ func (u *Economiser) report(ev *eval, cr *CaseResult) error {
 	return nil
 }
 
-// adjustBoiler makes the boiler's reported figures those of boiler and
+// finish makes the boiler's reported figures those of boiler and
 // economiser together: heat, efficiency, exit temperature and losses. It
-// runs after every unit has reported.
-func (u *Economiser) adjustBoiler(cr *CaseResult) {
+// runs after every component has reported.
+func (u *Economiser) finish(cr *CaseResult) {
 	res, g := u.last, u.lastGas
 	for i := range cr.Boilers {
 		b := &cr.Boilers[i]
@@ -231,10 +260,66 @@ func (u *Economiser) adjustBoiler(cr *CaseResult) {
 	}
 }
 
-func (u *Economiser) param(name string) (*float64, error) {
-	switch name {
-	case "ua":
-		return &u.UA, nil
+func (u *Economiser) jacobian(ev *eval, j jac) error {
+	m := ev.m(u.in) + ecoFlowFloor
+	j.add(u.eqs[0], u.out.mIdx(), 1)
+	j.add(u.eqs[0], u.in.mIdx(), -1)
+	j.add(u.eqs[1], u.out.pIdx(), 1)
+	j.add(u.eqs[1], u.in.pIdx(), -1)
+	e := u.eqs[2]
+	j.add(e, u.in.mIdx(), ev.h(u.out)-ev.h(u.in))
+	j.add(e, u.out.hIdx(), m)
+	j.add(e, u.in.hIdx(), -m)
+	// The duty: a rating of the exchanger on the boiler's flue gas, by
+	// differences of the economiser's own duty. The boiler's efficiency
+	// (its row) is differenced in the same evaluations: the duty evaluates
+	// it at the same point.
+	res, g, err := u.duty(ev)
+	if err != nil {
+		return wrapErr(u, err)
 	}
-	return nil, paramErr(u, name, "ua")
+	b := u.b
+	f0 := [2]float64{res.Q, g.pt.Eta}
+	// The branch is whether the boiler cycles below its burner minimum;
+	// eta answers from its cache, just filled by duty.
+	_, cycling, err := b.eta(ev)
+	if err != nil {
+		return wrapErr(u, err)
+	}
+	q := func() ([2]float64, int, error) {
+		r, g, err := u.duty(ev)
+		if err != nil {
+			return [2]float64{}, 0, err
+		}
+		_, c, err := b.eta(ev)
+		return [2]float64{r.Q, g.pt.Eta}, b2i(c), err
+	}
+	// The water inlet first: it leaves the boiler's operating point, and
+	// so its cached efficiency, as it is.
+	cols := [7]int{u.in.mIdx(), u.in.pIdx(), u.in.hIdx(), b.fuel, b.steam.mIdx(), b.feed.pIdx(), b.feed.hIdx()}
+	fuelLHV := ev.x[b.fuel] * b.Fuel.LHV
+	for i, col := range cols {
+		if containsInt(cols[:i], col) {
+			continue // the same unknown reached twice
+		}
+		d, err := unitFD(ev, col, f0, b2i(cycling), q)
+		if err != nil {
+			return wrapErr(u, err)
+		}
+		j.add(e, col, -d[0])
+		if i >= 3 {
+			j.add(b.eqs[3], col, fuelLHV*d[1])
+		}
+	}
+	return nil
+}
+
+func (u *Economiser) outline(cr *CaseResult) {
+	cr.Units = append(cr.Units, ComponentResult{Name: u.Name, Kind: u.Kind()})
+}
+
+func (u *Economiser) clone() Component {
+	c := *u
+	c.b, c.in, c.out = nil, nil, nil
+	return &c
 }

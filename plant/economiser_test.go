@@ -13,15 +13,15 @@ func ecoPlant(t *testing.T, withEco bool, ua float64) *Plant {
 	spec := hsfo(t)
 	tab := &FlueGasTable{Load: []float64{0.3, 1}, FlueT: []float64{553.15, 603.15}, O2Dry: []float64{0.05, 0.03}, RadiationAtMCR: 0.01}
 	p := New("economiser", Options{})
-	must(t, p.Add(&MakeUp{UnitBase: UnitBase{Name: "makeup"}, T: 333.15}))
-	must(t, p.Add(&FeedTank{UnitBase: UnitBase{Name: "hotwell"}}))
-	must(t, p.Add(&FeedPump{UnitBase: UnitBase{Name: "fp"}, Boilers: []string{"b1"}, Margin: 2e5, Eta: 0.5}))
-	must(t, p.Add(&Boiler{UnitBase: UnitBase{Name: "b1"}, MCR: 10000.0 / 3600, DrumP: gauge(7), Efficiency: tab, Fuel: spec}))
-	must(t, p.Add(&Consumer{UnitBase: UnitBase{Name: "load"}, SteamFlow: 6000.0 / 3600}))
+	must(t, p.Add(&MakeUp{Base: Base{Name: "makeup"}, T: 333.15}))
+	must(t, p.Add(&FeedTank{Base: Base{Name: "hotwell"}}))
+	must(t, p.Add(&FeedPump{Base: Base{Name: "fp"}, Boilers: []string{"b1"}, Margin: 2e5, Eta: 0.5}))
+	must(t, p.Add(&Boiler{Base: Base{Name: "b1"}, MCR: 10000.0 / 3600, DrumP: gauge(7), Efficiency: tab, Fuel: spec}))
+	must(t, p.Add(&Consumer{Base: Base{Name: "load"}, SteamFlow: 6000.0 / 3600}))
 	p.Connect("mu", Pos{}, "makeup", "out", "hotwell", "in")
 	p.Connect("suction", Pos{}, "hotwell", "out", "fp", "in")
 	if withEco {
-		must(t, p.Add(&Economiser{UnitBase: UnitBase{Name: "eco"}, Boiler: "b1", UA: ua}))
+		must(t, p.Add(&Economiser{Base: Base{Name: "eco"}, Boiler: "b1", UA: ua}))
 		p.Connect("discharge", Pos{}, "fp", "out", "eco", "in")
 		p.Connect("feed", Pos{}, "eco", "out", "b1", "feed")
 	} else {
@@ -32,6 +32,7 @@ func ecoPlant(t *testing.T, withEco bool, ua float64) *Plant {
 }
 
 func TestEconomiser(t *testing.T) {
+	t.Parallel()
 	ctx := context.Background()
 	c := Case{Name: "sea", Conditions: Conditions{AirT: 308.15}}
 	plain, err := ecoPlant(t, false, 0).Solve(ctx, c)
@@ -77,10 +78,10 @@ func TestEconomiser(t *testing.T) {
 	// boils in it: a warning, not a silent state.
 	p := New("steaming", Options{})
 	tab := &FlueGasTable{Load: []float64{1}, FlueT: []float64{603.15}, O2Dry: []float64{0.03}}
-	must(t, p.Add(&MakeUp{UnitBase: UnitBase{Name: "makeup"}, T: 372.15, P: 1.05e5}))
-	must(t, p.Add(&Economiser{UnitBase: UnitBase{Name: "eco"}, Boiler: "b1", UA: 2e4}))
-	must(t, p.Add(&Boiler{UnitBase: UnitBase{Name: "b1"}, MCR: 1, DrumP: gauge(7), Efficiency: tab, Fuel: hsfo(t)}))
-	must(t, p.Add(&Consumer{UnitBase: UnitBase{Name: "load"}, SteamFlow: 0.3}))
+	must(t, p.Add(&MakeUp{Base: Base{Name: "makeup"}, T: 372.15, P: 1.05e5}))
+	must(t, p.Add(&Economiser{Base: Base{Name: "eco"}, Boiler: "b1", UA: 2e4}))
+	must(t, p.Add(&Boiler{Base: Base{Name: "b1"}, MCR: 1, DrumP: gauge(7), Efficiency: tab, Fuel: hsfo(t)}))
+	must(t, p.Add(&Consumer{Base: Base{Name: "load"}, SteamFlow: 0.3}))
 	p.Connect("mu", Pos{}, "makeup", "out", "eco", "in")
 	p.Connect("feed", Pos{}, "eco", "out", "b1", "feed")
 	p.Connect("steam", Pos{}, "b1", "steam", "load", "in")
@@ -96,23 +97,24 @@ func TestEconomiser(t *testing.T) {
 }
 
 func TestEconomiserOfColdBoiler(t *testing.T) {
+	t.Parallel()
 	// With the exhaust-gas economiser covering the demand, the oil-fired
 	// boiler and its economiser carry no flow: the solve must still find
 	// the balance (the economiser's water leaves as it came).
 	p := New("cold boiler", Options{})
 	drum := gauge(7)
 	tab := &FlueGasTable{Load: []float64{1}, FlueT: []float64{603.15}, O2Dry: []float64{0.03}}
-	must(t, p.Add(&MakeUp{UnitBase: UnitBase{Name: "makeup"}, T: 333.15, P: 1e5}))
-	must(t, p.Add(&FeedTank{UnitBase: UnitBase{Name: "hotwell"}, P: 1e5}))
-	must(t, p.Add(&FeedPump{UnitBase: UnitBase{Name: "fp"}, Boilers: []string{"b1"}, Margin: 2e5, Eta: 0.5}))
-	must(t, p.Add(&Header{UnitBase: UnitBase{Name: "feed header"}}))
-	must(t, p.Add(&ExhaustGasEconomiser{UnitBase: UnitBase{Name: "ege"}, Engine: egeEngine(), DrumP: drum,
+	must(t, p.Add(&MakeUp{Base: Base{Name: "makeup"}, T: 333.15, P: 1e5}))
+	must(t, p.Add(&FeedTank{Base: Base{Name: "hotwell"}, P: 1e5}))
+	must(t, p.Add(&FeedPump{Base: Base{Name: "fp"}, Boilers: []string{"b1"}, Margin: 2e5, Eta: 0.5}))
+	must(t, p.Add(&Header{Base: Base{Name: "feed header"}}))
+	must(t, p.Add(&ExhaustGasEconomiser{Base: Base{Name: "ege"}, Engine: egeEngine(), DrumP: drum,
 		DesignLoad: 1, DesignPinch: 15, GasCp: 1060}))
-	must(t, p.Add(&Economiser{UnitBase: UnitBase{Name: "eco"}, Boiler: "b1", UA: 2000}))
-	must(t, p.Add(&Boiler{UnitBase: UnitBase{Name: "b1"}, MCR: 10000.0 / 3600, DrumP: drum, Efficiency: tab, Fuel: hsfo(t)}))
-	must(t, p.Add(&Header{UnitBase: UnitBase{Name: "main"}}))
-	must(t, p.Add(&Consumer{UnitBase: UnitBase{Name: "heating"}, SteamFlow: 1000.0 / 3600}))
-	must(t, p.Add(&Condenser{UnitBase: UnitBase{Name: "dump"}, Dump: true, SubCooling: 80}))
+	must(t, p.Add(&Economiser{Base: Base{Name: "eco"}, Boiler: "b1", UA: 2000}))
+	must(t, p.Add(&Boiler{Base: Base{Name: "b1"}, MCR: 10000.0 / 3600, DrumP: drum, Efficiency: tab, Fuel: hsfo(t)}))
+	must(t, p.Add(&Header{Base: Base{Name: "main"}}))
+	must(t, p.Add(&Consumer{Base: Base{Name: "heating"}, SteamFlow: 1000.0 / 3600}))
+	must(t, p.Add(&Condenser{Base: Base{Name: "dump"}, Dump: true, SubCooling: 80}))
 	for _, c := range [][4]string{
 		{"makeup", "out", "hotwell", "in"}, {"hotwell", "out", "fp", "in"}, {"fp", "out", "feed header", "in"},
 		{"feed header", "out", "ege", "feed"}, {"feed header", "out", "eco", "in"}, {"eco", "out", "b1", "feed"},

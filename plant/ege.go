@@ -7,6 +7,7 @@ import (
 	"steamcase/plant/combustion"
 	"steamcase/plant/fuel"
 	"steamcase/plant/heat"
+	"steamcase/plant/units"
 	"steamcase/plant/water"
 )
 
@@ -68,7 +69,7 @@ func (e *EngineExhaust) At(load float64) (m, t float64, warn string) {
 // duty over the enthalpy rise from its feed to the steam. Steam beyond the
 // plant's demand goes to a dump condenser.
 type ExhaustGasEconomiser struct {
-	UnitBase
+	Base
 	Engine  EngineExhaust
 	DrumP   float64 // pressure of the steam raised, Pa absolute
 	Dryness float64 // 0..1; zero means 1
@@ -98,7 +99,7 @@ type ExhaustGasEconomiser struct {
 	// below it is a warning.
 	MinGasOutT float64
 	Bypass     bool
-	Off        float64 // non-zero: out of service this case
+	Off        bool // out of service this case
 
 	// PreheatUA, if positive, adds a preheating section after the
 	// evaporator: the gas leaving the evaporator heats the feed in
@@ -125,6 +126,75 @@ type egeOperation struct {
 	warn                                                []string
 }
 
+// NewExhaustGasEconomiser returns an exhaust-gas economiser; give it its
+// engine, drum pressure and size.
+func NewExhaustGasEconomiser() *ExhaustGasEconomiser { return &ExhaustGasEconomiser{} }
+
+// defaultEGEExponent is n of UA ∝ ṁ_gas^n when none is given: 0.65,
+// within the 0.6-0.8 of tube banks and tubes (plant-checks.md §7 [S]).
+const defaultEGEExponent = 0.65
+
+// defaultEGEGasCp is the exhaust's mean specific heat without a fuel and
+// O2 for the NASA polynomials: 1060 J/(kg K), within the 1.04-1.07 kJ/kg·K
+// of lean exhaust at 180-260 °C (plant-checks.md §7 [M]).
+const defaultEGEGasCp = 1060
+
+func egeKey(k Key, f func(*ExhaustGasEconomiser) *float64) Key {
+	return num(k, self[*ExhaustGasEconomiser], f)
+}
+
+var egeKeys = []Key{
+	egeKey(Key{Name: "drum", Label: "drum pressure", Dim: units.Pressure, Example: "7 bar(g)",
+		Doc: "pressure of the steam raised", Required: true, Min: 1.1e5, Max: 5e6},
+		func(u *ExhaustGasEconomiser) *float64 { return &u.DrumP }),
+	egeKey(Key{Name: "dryness", Label: "steam dryness", Dim: units.Fraction, Example: "99 %",
+		Doc: "dryness of the steam raised", Default: 1, HasDefault: true, Min: 0.8, Max: 1},
+		func(u *ExhaustGasEconomiser) *float64 { return &u.Dryness }),
+	{Name: "engine", Label: "engine", Kind: KeyTable, Required: true,
+		Example: `{ mcr = "12 MW", { load = "25 %", gas = "11 kg/kWh", T = "250 C" }, { load = "100 %", gas = "8.2 kg/kWh", T = "258 C" } }`,
+		Doc:     "the main engine's MCR and its exhaust (gas per kWh or a mass flow, temperature) against load"},
+	egeKey(Key{Name: "ua", Label: "UA", Dim: units.ThermalConductance, Example: "60 kW/K",
+		Doc: "the evaporator's size as UA (at design_gas), or design_load with pinch", Min: 1, Max: 1e8, Case: true},
+		func(u *ExhaustGasEconomiser) *float64 { return &u.UA }),
+	egeKey(Key{Name: "design_gas", Label: "design gas flow", Dim: units.MassFlow, Example: "30 kg/s",
+		Doc: "gas flow at which ua holds", DefaultNote: "ua is constant", Min: 0.01, Max: 1e3},
+		func(u *ExhaustGasEconomiser) *float64 { return &u.DesignGasFlow }),
+	egeKey(Key{Name: "design_load", Label: "design engine load", Dim: units.Fraction, Example: "85 %",
+		Doc: "engine load at which the gas leaves pinch above saturation (with pinch)", Min: 0.1, Max: 1.2},
+		func(u *ExhaustGasEconomiser) *float64 { return &u.DesignLoad }),
+	egeKey(Key{Name: "pinch", Label: "design pinch", Dim: units.TemperatureDifference, Example: "15 K",
+		Doc: "gas outlet above saturation at design_load", Min: 1, Max: 200},
+		func(u *ExhaustGasEconomiser) *float64 { return &u.DesignPinch }),
+	egeKey(Key{Name: "exponent", Label: "UA exponent n (UA ∝ gas flow^n)", Kind: KeyNumber, Example: "0.65",
+		Doc: "n of UA ∝ gas flow^n off design", Default: defaultEGEExponent, HasDefault: true,
+		Source: "plant-checks.md §7 [S]", Min: 0.5, Max: 1},
+		func(u *ExhaustGasEconomiser) *float64 { return &u.Exponent }),
+	egeKey(Key{Name: "gas_cp", Label: "exhaust gas cp", Dim: units.SpecificHeat, Example: "1.06 kJ/kgK",
+		Doc: "a constant mean specific heat of the exhaust", Default: defaultEGEGasCp, HasDefault: true,
+		Source: "plant-checks.md §7 [M]", Min: 900, Max: 1300},
+		func(u *ExhaustGasEconomiser) *float64 { return &u.GasCp }),
+	{Name: "exhaust_fuel", Label: "exhaust fuel", Kind: KeyText, Example: `"VLSFO"`,
+		Doc: "the engine's fuel grade, with exhaust_O2, for the exhaust's enthalpy by the NASA polynomials (instead of gas_cp)"},
+	egeKey(Key{Name: "exhaust_O2", Label: "exhaust O2 (dry)", Dim: units.Fraction, Example: "13 %",
+		Doc: "O2 in the dry exhaust (with exhaust_fuel)", Min: 0.01, Max: 0.2},
+		func(u *ExhaustGasEconomiser) *float64 { return &u.ExhaustO2 }),
+	egeKey(Key{Name: "min_gas_T", Label: "minimum gas outlet temperature", Dim: units.Temperature, Example: "170 C",
+		Doc: "lowest acceptable gas outlet (acid dew point plus margin)", DefaultNote: "not checked", Min: 353.15, Max: 573.15},
+		func(u *ExhaustGasEconomiser) *float64 { return &u.MinGasOutT }),
+	flag(Key{Name: "bypass", Label: "bypass", Example: "true",
+		Doc: "a damper sends gas past the economiser to hold the funnel at min_gas_T", Default: 0, HasDefault: true},
+		self[*ExhaustGasEconomiser], func(u *ExhaustGasEconomiser) *bool { return &u.Bypass }),
+	egeKey(Key{Name: "preheat_ua", Label: "preheating section UA", Dim: units.ThermalConductance, Example: "10 kW/K",
+		Doc: "UA of a preheating section after the evaporator, at the evaporator's reference gas flow", DefaultNote: "none",
+		Min: 1, Max: 1e8, Case: true},
+		func(u *ExhaustGasEconomiser) *float64 { return &u.PreheatUA }),
+	flag(Key{Name: "off", Label: "off", Example: "true", Doc: "out of service", Default: 0, HasDefault: true, Case: true},
+		self[*ExhaustGasEconomiser], func(u *ExhaustGasEconomiser) *bool { return &u.Off }),
+}
+
+// Keys lists the exhaust-gas economiser's keys.
+func (u *ExhaustGasEconomiser) Keys() []Key { return egeKeys }
+
 // Kind returns "exhaust-gas economiser".
 func (u *ExhaustGasEconomiser) Kind() string { return "exhaust-gas economiser" }
 
@@ -142,7 +212,7 @@ func (u *ExhaustGasEconomiser) dryness() float64 {
 
 func (u *ExhaustGasEconomiser) exponent() float64 {
 	if u.Exponent == 0 {
-		return 0.65
+		return defaultEGEExponent
 	}
 	return u.Exponent
 }
@@ -184,8 +254,9 @@ func (u *ExhaustGasEconomiser) check(fs *faults) {
 	}
 }
 
-func (u *ExhaustGasEconomiser) assemble(a *assembly, ports map[string][]*Line) {
-	u.feed, u.steam = one(ports["feed"]), one(ports["steam"])
+func (u *ExhaustGasEconomiser) assemble(a *assembly, ports portLines) {
+	u.feed, u.steam = ports.one("feed"), ports.one("steam")
+	a.roles.eges = append(a.roles.eges, u)
 	u.eqs[0] = a.equation(u.Name+": drum pressure", scaleP, u.steam.pIdx())
 	u.eqs[1] = a.equation(u.Name+": steam dryness", scaleH, u.steam.pIdx(), u.steam.hIdx())
 	u.eqs[2] = a.equation(u.Name+": mass balance", 1, u.feed.mIdx(), u.steam.mIdx())
@@ -198,7 +269,7 @@ func (u *ExhaustGasEconomiser) gasH() (heat.GasEnthalpy, error) {
 	if u.GasCp > 0 || u.ExhaustFuel == nil {
 		cp := u.GasCp
 		if cp == 0 {
-			cp = 1060
+			cp = defaultEGEGasCp
 		}
 		return heat.ConstantCp(cp, 298.15), nil
 	}
@@ -247,19 +318,19 @@ func evaporate(h heat.GasEnthalpy, m, tIn, tSat, ua float64) (tOut, cp float64, 
 
 // prepare computes the gas side for the case: it does not depend on the
 // plant's unknowns.
-func (u *ExhaustGasEconomiser) prepare(c Conditions) error {
+func (u *ExhaustGasEconomiser) prepare(_ *Plant, c Conditions) error {
 	u.op = egeOperation{load: c.EngineLoad}
 	ts, err := waterTsat(u.DrumP)
 	if err != nil {
-		return wrapUnitErr(u, err)
+		return wrapErr(u, err)
 	}
 	u.op.tSat = ts
-	if u.Off != 0 || c.EngineLoad <= 0 {
+	if u.Off || c.EngineLoad <= 0 {
 		return nil
 	}
 	h, err := u.gasH()
 	if err != nil {
-		return wrapUnitErr(u, err)
+		return wrapErr(u, err)
 	}
 	m, tIn, warn := u.Engine.At(c.EngineLoad)
 	if warn != "" {
@@ -267,12 +338,12 @@ func (u *ExhaustGasEconomiser) prepare(c Conditions) error {
 	}
 	ua, err := u.conductance(h, m)
 	if err != nil {
-		return wrapUnitErr(u, err)
+		return wrapErr(u, err)
 	}
 	u.op.ua0 = ua / u.flowScale(m)
 	tOut, cp, err := evaporate(h, m, tIn, ts, ua)
 	if err != nil {
-		return wrapUnitErr(u, err)
+		return wrapErr(u, err)
 	}
 	u.op.mGas, u.op.tIn, u.op.tOut, u.op.cp, u.op.ua = m, tIn, tOut, cp, ua
 	if m > 0 && cp > 0 {
@@ -282,7 +353,7 @@ func (u *ExhaustGasEconomiser) prepare(c Conditions) error {
 		u.op.belowMin = true
 		if u.Bypass {
 			if err := u.bypass(h, m, tIn, ts, ua); err != nil {
-				return wrapUnitErr(u, err)
+				return wrapErr(u, err)
 			}
 		} else {
 			u.op.warn = append(u.op.warn, fmt.Sprintf("gas leaves at %.1f °C, below its minimum of %.1f °C (acid dew point and soot margin)", tOut-273.15, u.MinGasOutT-273.15))
@@ -375,14 +446,14 @@ func (u *ExhaustGasEconomiser) bypass(h heat.GasEnthalpy, m, tIn, tSat, ua0 floa
 func (u *ExhaustGasEconomiser) residual(ev *eval, r []float64) error {
 	hs, err := u.mh.get2(u.DrumP, u.dryness(), hPX)
 	if err != nil {
-		return wrapUnitErr(u, err)
+		return wrapErr(u, err)
 	}
 	r[u.eqs[0]] = ev.p(u.steam) - u.DrumP
 	r[u.eqs[1]] = ev.h(u.steam) - hs
 	r[u.eqs[2]] = ev.m(u.feed) - ev.m(u.steam)
 	pre, err := u.preheat(ev)
 	if err != nil {
-		return wrapUnitErr(u, err)
+		return wrapErr(u, err)
 	}
 	r[u.eqs[3]] = ev.m(u.steam)*(ev.h(u.steam)-ev.h(u.feed)) - u.op.q - pre.Q
 	return nil
@@ -390,7 +461,7 @@ func (u *ExhaustGasEconomiser) residual(ev *eval, r []float64) error {
 
 // preheat rates the preheating section at the present feed.
 func (u *ExhaustGasEconomiser) preheat(ev *eval) (heat.ExchangerResult, error) {
-	if u.PreheatUA <= 0 || u.Off != 0 || u.op.mGas <= 0 {
+	if u.PreheatUA <= 0 || u.Off || u.op.mGas <= 0 {
 		return heat.ExchangerResult{}, nil
 	}
 	mw, pw, hw := ev.m(u.feed), ev.p(u.feed), ev.h(u.feed)
@@ -432,13 +503,13 @@ func (u *ExhaustGasEconomiser) report(ev *eval, cr *CaseResult) error {
 	m := ev.m(u.steam)
 	pre, err := u.preheat(ev)
 	if err != nil {
-		return wrapUnitErr(u, err)
+		return wrapErr(u, err)
 	}
 	er := EGEResult{
 		Name: u.Name, SteamKgS: m, DutyW: u.op.q + pre.Q, PreheatW: pre.Q, EngineLoad: u.op.load,
 		GasKgS: u.op.mGas, GasInT: u.op.tIn, GasOutT: u.op.tOut, TSat: u.op.tSat,
 		BypassFraction: u.op.bypass, UA: u.op.ua, NTU: u.op.ntu,
-		InService: u.Off == 0 && u.op.q > 0, BelowMin: u.op.belowMin, MinGasOutT: u.MinGasOutT,
+		InService: !u.Off && u.op.q > 0, BelowMin: u.op.belowMin, MinGasOutT: u.MinGasOutT,
 	}
 	if er.InService {
 		er.Pinch = u.op.tOut - u.op.tSat
@@ -467,16 +538,50 @@ func (u *ExhaustGasEconomiser) report(ev *eval, cr *CaseResult) error {
 	return nil
 }
 
-func (u *ExhaustGasEconomiser) param(name string) (*float64, error) {
-	switch name {
-	case "off":
-		return &u.Off, nil
-	case "ua":
-		return &u.UA, nil
-	case "preheat_ua":
-		return &u.PreheatUA, nil
+func (u *ExhaustGasEconomiser) jacobian(ev *eval, j jac) error {
+	// The gas side is fixed for the case (prepare); only the water side
+	// depends on the unknowns.
+	ms := ev.m(u.steam)
+	j.add(u.eqs[0], u.steam.pIdx(), 1)
+	j.add(u.eqs[1], u.steam.hIdx(), 1)
+	j.add(u.eqs[2], u.feed.mIdx(), 1)
+	j.add(u.eqs[2], u.steam.mIdx(), -1)
+	j.add(u.eqs[3], u.steam.mIdx(), ev.h(u.steam)-ev.h(u.feed))
+	j.add(u.eqs[3], u.steam.hIdx(), ms)
+	j.add(u.eqs[3], u.feed.hIdx(), -ms)
+	if u.PreheatUA <= 0 {
+		return nil
 	}
-	return nil, paramErr(u, name, "off", "ua", "preheat_ua")
+	// The preheating section's duty depends on the feed's flow and state:
+	// its derivatives by differences of that duty alone.
+	pre, err := u.preheat(ev)
+	if err != nil {
+		return wrapErr(u, err)
+	}
+	f0 := [2]float64{pre.Q}
+	q := func() ([2]float64, int, error) {
+		r, err := u.preheat(ev)
+		return [2]float64{r.Q}, 0, err
+	}
+	for _, col := range [3]int{u.feed.mIdx(), u.feed.pIdx(), u.feed.hIdx()} {
+		d, err := unitFD(ev, col, f0, 0, q)
+		if err != nil {
+			return wrapErr(u, err)
+		}
+		j.add(u.eqs[3], col, -d[0])
+	}
+	return nil
+}
+
+func (u *ExhaustGasEconomiser) outline(cr *CaseResult) {
+	cr.EGEs = append(cr.EGEs, EGEResult{Name: u.Name})
+}
+
+func (u *ExhaustGasEconomiser) clone() Component {
+	c := *u
+	c.op = egeOperation{}
+	c.feed, c.steam = nil, nil
+	return &c
 }
 
 // EGEResult is an exhaust-gas economiser's part in a case.

@@ -18,15 +18,15 @@ func egeEngine() EngineExhaust {
 func egeOnly(t testing.TB, n float64) (*Plant, *ExhaustGasEconomiser) {
 	p := New("EGE check", Options{})
 	drum := gauge(7)
-	e := &ExhaustGasEconomiser{UnitBase: UnitBase{Name: "ege"}, Engine: egeEngine(), DrumP: drum,
+	e := &ExhaustGasEconomiser{Base: Base{Name: "ege"}, Engine: egeEngine(), DrumP: drum,
 		DesignLoad: 1, DesignPinch: 15, GasCp: 1060, Exponent: n}
 	ts, err := waterTsat(drum)
 	must(t, err)
-	must(t, p.Add(&MakeUp{UnitBase: UnitBase{Name: "makeup"}, T: 333.15, P: 1e5}))
-	must(t, p.Add(&FeedTank{UnitBase: UnitBase{Name: "hotwell"}, P: 1e5}))
+	must(t, p.Add(&MakeUp{Base: Base{Name: "makeup"}, T: 333.15, P: 1e5}))
+	must(t, p.Add(&FeedTank{Base: Base{Name: "hotwell"}, P: 1e5}))
 	must(t, p.Add(e))
-	must(t, p.Add(&Header{UnitBase: UnitBase{Name: "main"}}))
-	must(t, p.Add(&Condenser{UnitBase: UnitBase{Name: "dump"}, Dump: true, SubCooling: ts - 333.15}))
+	must(t, p.Add(&Header{Base: Base{Name: "main"}}))
+	must(t, p.Add(&Condenser{Base: Base{Name: "dump"}, Dump: true, SubCooling: ts - 333.15}))
 	p.Connect("mu", Pos{}, "makeup", "out", "hotwell", "in")
 	p.Connect("feed", Pos{}, "hotwell", "out", "ege", "feed")
 	p.Connect("steam", Pos{}, "ege", "steam", "main", "in")
@@ -36,6 +36,7 @@ func egeOnly(t testing.TB, n float64) (*Plant, *ExhaustGasEconomiser) {
 }
 
 func TestEGEDesignPoint(t *testing.T) {
+	t.Parallel()
 	// plant-checks.md §7 [C]: 35.42 kg/s at 240 °C, 7 bar(g) (T_sat
 	// 170.48 °C), pinch 15 K, c̄p 1.06 kJ/kg·K, feed 60 °C:
 	// Q 2046.7 kW, steam 2.928 t/h, NTU 1.5335. The sheet takes feed water
@@ -61,6 +62,7 @@ func TestEGEDesignPoint(t *testing.T) {
 }
 
 func TestEGEOffDesign(t *testing.T) {
+	t.Parallel()
 	// plant-checks.md §7 [C], off-design table: same inlet temperature,
 	// UA ∝ ṁ^n. The sheet rounds T_out to 0.01 °C and Q to 0.1 kW.
 	tests := []struct {
@@ -87,6 +89,7 @@ func TestEGEOffDesign(t *testing.T) {
 }
 
 func TestEGEBypassHoldsMinimum(t *testing.T) {
+	t.Parallel()
 	// With a bypass damper the mixed funnel gas is held at the minimum: by
 	// an energy balance with constant cp the duty is then exactly
 	// ṁ·c̄p·(T_in − T_min) (by hand).
@@ -110,22 +113,23 @@ func TestEGEBypassHoldsMinimum(t *testing.T) {
 }
 
 func TestEGEFuelSaved(t *testing.T) {
+	t.Parallel()
 	// plant-checks.md §7 [C]: the design-point economiser saves, against
 	// an oil-fired boiler at η 0.85 on LCV 40 200 kJ/kg with the same feed,
 	// 215.6 kg/h = 5.175 t/d. With a flat efficiency the saving is
 	// Q_EGE/(η·LCV) exactly, whatever the boiler's load.
 	p := New("EGE saving", Options{})
 	drum := gauge(7)
-	must(t, p.Add(&MakeUp{UnitBase: UnitBase{Name: "makeup"}, T: 333.15, P: 1e5}))
-	must(t, p.Add(&FeedTank{UnitBase: UnitBase{Name: "hotwell"}, P: 1e5}))
-	must(t, p.Add(&Header{UnitBase: UnitBase{Name: "feed header"}}))
-	must(t, p.Add(&ExhaustGasEconomiser{UnitBase: UnitBase{Name: "ege"}, Engine: egeEngine(), DrumP: drum,
+	must(t, p.Add(&MakeUp{Base: Base{Name: "makeup"}, T: 333.15, P: 1e5}))
+	must(t, p.Add(&FeedTank{Base: Base{Name: "hotwell"}, P: 1e5}))
+	must(t, p.Add(&Header{Base: Base{Name: "feed header"}}))
+	must(t, p.Add(&ExhaustGasEconomiser{Base: Base{Name: "ege"}, Engine: egeEngine(), DrumP: drum,
 		DesignLoad: 1, DesignPinch: 15, GasCp: 1060}))
-	must(t, p.Add(&Boiler{UnitBase: UnitBase{Name: "b1"}, MCR: 10000.0 / 3600, DrumP: drum,
+	must(t, p.Add(&Boiler{Base: Base{Name: "b1"}, MCR: 10000.0 / 3600, DrumP: drum,
 		Efficiency: flatEta(0.85), Fuel: FuelSpec{Name: "HFO", LHV: 40.2e6, CO2Factor: 3.114}}))
-	must(t, p.Add(&Header{UnitBase: UnitBase{Name: "main"}}))
-	must(t, p.Add(&Consumer{UnitBase: UnitBase{Name: "heating"}, SteamFlow: 5000.0 / 3600}))
-	must(t, p.Add(&Condenser{UnitBase: UnitBase{Name: "dump"}, Dump: true}))
+	must(t, p.Add(&Header{Base: Base{Name: "main"}}))
+	must(t, p.Add(&Consumer{Base: Base{Name: "heating"}, SteamFlow: 5000.0 / 3600}))
+	must(t, p.Add(&Condenser{Base: Base{Name: "dump"}, Dump: true}))
 	p.Connect("mu", Pos{}, "makeup", "out", "hotwell", "in")
 	p.Connect("feed", Pos{}, "hotwell", "out", "feed header", "in")
 	p.Connect("ege feed", Pos{}, "feed header", "out", "ege", "feed")
@@ -151,6 +155,7 @@ func TestEGEFuelSaved(t *testing.T) {
 }
 
 func TestEGEPreheatingSection(t *testing.T) {
+	t.Parallel()
 	// A preheating section after the evaporator: the feed takes heat from
 	// the gas leaving the evaporator, so the same exhaust raises more
 	// steam. Its duty is the counterflow ε-NTU rating (checked by hand

@@ -1,111 +1,319 @@
 package plant
 
 import (
+	"context"
 	"fmt"
-	"math"
-
-	"steamcase/plant/combustion"
 )
 
-// FlueGasTable is a maker's test given as flue-gas exit temperature and
-// dry O2 against load: the heat-loss method (plant/combustion, in the
-// manner of ASME PTC 4 and EN 12952-15) turns each point into an
-// efficiency on the LHV basis. It needs the boiler's full fuel
-// (FuelSpec.Fuel). Between the tested loads temperature and O2 are
-// interpolated linearly; outside them the end values hold, with a warning.
-type FlueGasTable struct {
-	Load  []float64 // fractions of MCR, strictly increasing
-	FlueT []float64 // flue-gas exit temperature, K
-	O2Dry []float64 // O2 in the dry flue gas, mole fraction (0.03 = 3 %)
+// The firing rule: which oil-fired boilers fire, and how they share the
+// demand.
+//
+// Exhaust-gas economisers first: if the plant has a dump condenser and the
+// economisers cover the demand, no boiler fires and the surplus is dumped.
+// Otherwise the boilers fire in the order they were declared: one while
+// the demand is at most Options.UsableFraction of its MCR, more above
+// that, sharing by Options.Sharing. The steam flows of the boilers and
+// dump condensers are tied by N+D−1 dispatch equations (N boilers, D dump
+// condensers) for the configuration being solved; the mass balance of the
+// steam system closes the last degree of freedom, so all boilers and dump
+// condensers must serve one steam system.
 
-	// RadiationAtMCR is the radiation and convection loss at MCR as a
-	// fraction of the heat input (0.5-1.5 % for marine auxiliary boilers,
-	// plant-checks.md §3.4 [CP]); the loss in kW is taken as constant, so
-	// the fraction grows as 1/load.
-	RadiationAtMCR float64
-	// RelativeHumidity of the combustion air, 0..1 (zero: dry air).
-	RelativeHumidity float64
-	// AtomisingSteam is the burner's atomising steam, kg per kg fuel, which
-	// leaves with the flue gas (it is taken from the plant by a consumer).
-	AtomisingSteam float64
-	// COppm is the CO in the dry flue gas, ppm by volume.
-	COppm float64
+// Sharing is the rule by which firing boilers share the demand.
+type Sharing int
+
+// Sharing rules.
+const (
+	// EqualLoad runs every firing boiler at the same fraction of its MCR.
+	EqualLoad Sharing = iota
+	// LeadLag runs the lead boiler (the first declared that fires) at
+	// Options.LeadLoad of its MCR and shares the rest equally among the
+	// others.
+	LeadLag
+)
+
+func (s Sharing) String() string {
+	switch s {
+	case EqualLoad:
+		return "equal load"
+	case LeadLag:
+		return "lead-lag"
+	}
+	return fmt.Sprintf("Sharing(%d)", int(s))
 }
 
-// Validate checks the table.
-func (t *FlueGasTable) Validate() error {
-	n := len(t.Load)
-	if n == 0 || len(t.FlueT) != n || len(t.O2Dry) != n {
-		return fmt.Errorf("flue-gas table needs as many exit temperatures and O2 readings as loads and at least one; got %d loads, %d temperatures, %d O2", n, len(t.FlueT), len(t.O2Dry))
-	}
-	for i := range t.Load {
-		if !finite(t.Load[i]) || t.Load[i] < 0 || t.Load[i] > 1.5 {
-			return fmt.Errorf("flue-gas table load %g is not a fraction of MCR between 0 and 1.5", t.Load[i])
-		}
-		if i > 0 && t.Load[i] <= t.Load[i-1] {
-			return fmt.Errorf("flue-gas table loads must increase; %g follows %g", t.Load[i], t.Load[i-1])
-		}
-		if !finite(t.FlueT[i]) || t.FlueT[i] < 323.15 || t.FlueT[i] > 873.15 {
-			return fmt.Errorf("flue-gas exit temperature %.1f °C at load %g is outside 50-600 °C", t.FlueT[i]-273.15, t.Load[i])
-		}
-		if !finite(t.O2Dry[i]) || t.O2Dry[i] < 0 || t.O2Dry[i] >= 0.2 {
-			return fmt.Errorf("flue-gas O2 %.1f %% at load %g is outside 0-20 %%", 100*t.O2Dry[i], t.Load[i])
+// firing reports whether boiler b fires in the configuration being solved.
+func (p *Plant) firing(b *Boiler) bool {
+	s := p.s
+	for i, x := range s.asm.roles.boilers {
+		if x == b {
+			return s.fire[i]
 		}
 	}
-	if t.RadiationAtMCR < 0 || t.RadiationAtMCR > 0.1 {
-		return fmt.Errorf("radiation loss at MCR %.2f %% is outside 0-10 %%", 100*t.RadiationAtMCR)
+	return false
+}
+
+// assembleDispatch registers the dispatch equations.
+func (s *session) assembleDispatch(a *assembly) {
+	r := &a.roles
+	s.fire = make([]bool, len(r.boilers))
+	s.firingBuf = make([]*Boiler, 0, len(r.boilers))
+	s.dispEqs = s.dispEqs[:0]
+	n := len(r.boilers) + len(r.dumps) - 1
+	if n <= 0 {
+		return
 	}
-	if t.RelativeHumidity < 0 || t.RelativeHumidity > 1 {
-		return fmt.Errorf("relative humidity %g is not a fraction between 0 and 1", t.RelativeHumidity)
+	var deps []int
+	for _, b := range r.boilers {
+		deps = append(deps, b.steam.mIdx())
 	}
-	if t.AtomisingSteam < 0 || t.AtomisingSteam > 1 || t.COppm < 0 || t.COppm > 1e5 {
-		return fmt.Errorf("atomising steam (%g kg/kg) or CO (%g ppm) out of range", t.AtomisingSteam, t.COppm)
+	for _, d := range r.dumps {
+		deps = append(deps, d.in.mIdx())
 	}
+	for k := 0; k < n; k++ {
+		s.dispEqs = append(s.dispEqs, a.equation(fmt.Sprintf("dispatch: steam sharing %d of %d", k+1, n), 1, deps...))
+	}
+}
+
+// dispatchResidual writes the dispatch equations for the current firing
+// set.
+func (p *Plant) dispatchResidual(x, r []float64) {
+	s := p.s
+	if len(s.dispEqs) == 0 {
+		return
+	}
+	k := 0
+	put := func(v float64) {
+		r[s.dispEqs[k]] = v
+		k++
+	}
+	roles := &s.asm.roles
+	firing := s.firingBuf[:0]
+	for i, b := range roles.boilers {
+		if s.fire[i] {
+			firing = append(firing, b)
+		} else {
+			put(x[b.steam.mIdx()])
+		}
+	}
+	if len(firing) == 0 {
+		// The first dump condenser takes what the steam system has over.
+		for _, d := range roles.dumps[1:] {
+			put(x[d.in.mIdx()])
+		}
+		return
+	}
+	for _, d := range roles.dumps {
+		put(x[d.in.mIdx()])
+	}
+	load := func(b *Boiler) float64 { return x[b.steam.mIdx()] / b.MCR }
+	switch {
+	case p.Opt.Sharing == LeadLag && len(firing) >= 2:
+		lead := firing[0]
+		put(x[lead.steam.mIdx()] - p.Opt.LeadLoad*lead.MCR)
+		for _, b := range firing[2:] {
+			put((load(b) - load(firing[1])) * firing[1].MCR)
+		}
+	default:
+		for _, b := range firing[1:] {
+			put((load(b) - load(firing[0])) * firing[0].MCR)
+		}
+	}
+}
+
+// dispatchJacobian writes the derivatives of the dispatch equations (see
+// dispatchResidual), all linear in the steam flows.
+func (p *Plant) dispatchJacobian(j jac) {
+	s := p.s
+	if len(s.dispEqs) == 0 {
+		return
+	}
+	k := 0
+	next := func() int { k++; return s.dispEqs[k-1] }
+	roles := &s.asm.roles
+	firing := s.firingBuf[:0]
+	for i, b := range roles.boilers {
+		if s.fire[i] {
+			firing = append(firing, b)
+		} else {
+			j.add(next(), b.steam.mIdx(), 1)
+		}
+	}
+	if len(firing) == 0 {
+		for _, d := range roles.dumps[1:] {
+			j.add(next(), d.in.mIdx(), 1)
+		}
+		return
+	}
+	for _, d := range roles.dumps {
+		j.add(next(), d.in.mIdx(), 1)
+	}
+	// (load(b) − load(ref))·ref.MCR
+	share := func(b, ref *Boiler) {
+		row := next()
+		j.add(row, b.steam.mIdx(), ref.MCR/b.MCR)
+		j.add(row, ref.steam.mIdx(), -1)
+	}
+	switch {
+	case p.Opt.Sharing == LeadLag && len(firing) >= 2:
+		j.add(next(), firing[0].steam.mIdx(), 1)
+		for _, b := range firing[2:] {
+			share(b, firing[1])
+		}
+	default:
+		for _, b := range firing[1:] {
+			share(b, firing[0])
+		}
+	}
+}
+
+// decide finds how many boilers must fire: none if the steam system has a
+// dump condenser and the exhaust-gas economisers leave steam over without
+// them; else the fewest, in declaration order, whose demand stays within
+// UsableFraction of their MCR; else all.
+//
+// It starts from the number that fired in the plant's previous case (a
+// voyage's hours rarely change it) and moves up while the demand does not
+// fit, then down while fewer boilers would do. A step down is only tried
+// when it could succeed: one boiler fewer only if the demand is within 5 %
+// of what the fewer could carry (the demand hardly depends on how many
+// boilers share it: only consumers driven by the boilers' fuel flow change
+// with it), and no boiler at all only if the boilers raise no more than
+// those fuel-driven consumers take. Without a previous case it starts from
+// none (or one) and moves up, as the rule reads.
+func (p *Plant) decide(ctx context.Context, fire []bool) error {
+	s := p.s
+	n := len(s.asm.roles.boilers)
+	try0 := len(s.asm.roles.dumps) > 0 && p.egeHeat() > 0
+	if n == 0 {
+		return p.solveConfig(ctx, fire)
+	}
+	lowest := 1
+	if try0 {
+		lowest = 0
+	}
+	k := lowest
+	hinted := s.hintSet && s.hint > lowest && s.hint <= n
+	if hinted {
+		k = s.hint
+	}
+	// Up: the first k from the start that fits.
+	for {
+		ok, err := p.fits(ctx, fire, k)
+		if err != nil && hinted && ctx.Err() == nil {
+			// The last case's number does not solve here (the economisers
+			// now leave steam over, say): scan from the bottom instead.
+			k, hinted = lowest, false
+			continue
+		}
+		if err != nil && (k > 0 || ctx.Err() != nil) {
+			return err
+		}
+		if ok {
+			break
+		}
+		k++
+	}
+	// Down: while one boiler fewer would do.
+	for k > lowest && p.mayFit(k-1) {
+		s.keep()
+		ok, err := p.fits(ctx, fire, k-1)
+		if ctx.Err() != nil {
+			return ctx.Err()
+		}
+		if err == nil && ok {
+			k--
+			continue
+		}
+		s.restore(fire, k)
+		break
+	}
+	s.hint, s.hintSet = k, true
 	return nil
 }
 
-// Basis is "LHV".
-func (t *FlueGasTable) Basis() string { return "LHV" }
-
-// Efficiency computes the efficiency at op by the heat-loss method.
-func (t *FlueGasTable) Efficiency(op BoilerOperation) (EfficiencyPoint, error) {
-	if op.Fuel.Fuel == nil {
-		return EfficiencyPoint{}, fmt.Errorf("a flue-gas efficiency table needs the fuel's analysis; fuel %q has none", op.Fuel.Name)
+// fits solves the plant with the first k boilers firing and says whether
+// the firing rule accepts it.
+func (p *Plant) fits(ctx context.Context, fire []bool, k int) (bool, error) {
+	for i := range fire {
+		fire[i] = i < k
 	}
-	ft, w1 := interpolate(t.Load, t.FlueT, op.Load, "flue-gas table")
-	o2, _ := interpolate(t.Load, t.O2Dry, op.Load, "flue-gas table")
-	return lossMethod(op, ft, combustion.Conditions{O2Dry: o2}, t.RadiationAtMCR, t.RelativeHumidity, t.AtomisingSteam, t.COppm, w1)
+	if err := p.solveConfig(ctx, fire); err != nil {
+		return false, err
+	}
+	if k == 0 {
+		return p.dumpFlow() >= 0, nil
+	}
+	if k == len(p.s.asm.roles.boilers) {
+		return true, nil
+	}
+	demand, mcr := p.firedDemand(k)
+	return demand <= p.Opt.UsableFraction*mcr*(1+1e-12), nil
 }
 
-// lossMethod fires the fuel under c at op's air temperature and returns the
-// heat-loss efficiency at exit temperature flueT, referred to 25 °C.
-func lossMethod(op BoilerOperation, flueT float64, c combustion.Conditions, radAtMCR, rh, atomising, co float64, warn string) (EfficiencyPoint, error) {
-	c.AirT = op.AirT
-	c.RelativeHumidity = rh
-	c.AtomisingSteam = atomising
-	prod, err := combustion.Fire(*op.Fuel.Fuel, c)
-	if err != nil {
-		return EfficiencyPoint{}, err
+// firedDemand is the steam of the first k boilers and their MCR at the
+// last solution.
+func (p *Plant) firedDemand(k int) (demand, mcr float64) {
+	s := p.s
+	for _, b := range s.asm.roles.boilers[:k] {
+		demand += s.last[b.steam.mIdx()]
+		mcr += b.MCR
 	}
-	load := math.Max(op.Load, 0.05)
-	lo := combustion.LossOptions{COppmDry: co}
-	if radAtMCR > 0 {
-		lo.Radiation = combustion.Radiation{PercentAtMCR: 100 * radAtMCR, LoadFraction: load}
+	return demand, mcr
+}
+
+// mayFit says whether j boilers could carry the demand of the present
+// solution (see decide).
+func (p *Plant) mayFit(j int) bool {
+	s := p.s
+	k := j + 1
+	demand, _ := p.firedDemand(k)
+	if j == 0 {
+		var coupled float64
+		for _, idx := range s.asm.roles.fuelDriven {
+			coupled += s.last[idx]
+		}
+		return demand <= 1.1*coupled+1e-6
 	}
-	l, err := combustion.Efficiency(prod, flueT, combustion.TRef, lo)
-	if err != nil {
-		return EfficiencyPoint{}, err
+	_, mcr := p.firedDemand(j)
+	return demand <= 1.05*p.Opt.UsableFraction*mcr
+}
+
+// keep saves the last solution before a trial that may be refused.
+func (s *session) keep() {
+	if len(s.keepX) != len(s.last) {
+		s.keepX = make([]float64, len(s.last))
 	}
-	items := l.LHV
-	return EfficiencyPoint{
-		Eta:            items.Efficiency / 100,
-		Warning:        warn,
-		FlueT:          flueT,
-		Lambda:         prod.Lambda,
-		AirPerFuel:     prod.Air,
-		FlueGasPerFuel: prod.FlueGas,
-		Losses:         &items,
-		Products:       &prod,
-		LossOptions:    lo,
-	}, nil
+	copy(s.keepX, s.last)
+	s.keepRes = s.slvRes
+	s.keepSolves = s.solves
+}
+
+// restore brings back the solution kept before a refused trial, with k
+// boilers firing.
+func (s *session) restore(fire []bool, k int) {
+	copy(s.last, s.keepX)
+	s.slvRes = s.keepRes
+	s.solves++
+	for i := range fire {
+		fire[i] = i < k
+	}
+	copy(s.fire, fire)
+}
+
+// egeHeat is the heat the exhaust-gas economisers take from the exhaust in
+// the present case, W.
+func (p *Plant) egeHeat() float64 {
+	var q float64
+	for _, e := range p.s.asm.roles.eges {
+		q += e.op.q
+	}
+	return q
+}
+
+func (p *Plant) dumpFlow() float64 {
+	var m float64
+	for _, d := range p.s.asm.roles.dumps {
+		m += p.s.last[d.in.mIdx()]
+	}
+	return m
 }

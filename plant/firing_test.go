@@ -22,6 +22,7 @@ func testFuel() fuel.Fuel {
 }
 
 func TestFlueGasTableEfficiency(t *testing.T) {
+	t.Parallel()
 	// plant-checks.md §3.3 [C]: the test fuel at 250 °C exit, 35 °C air,
 	// 3 % O2: dry-gas and moisture losses 9.60 % (LHV); with 0.7 %
 	// radiation η ≈ 89.6 % before the unburnt loss. The plant's boiler
@@ -36,10 +37,10 @@ func TestFlueGasTableEfficiency(t *testing.T) {
 	within(t, "LHV from ISO 8217", spec.LHV, 40.487e6, 2e-5)
 	tab := &FlueGasTable{Load: []float64{1}, FlueT: []float64{523.15}, O2Dry: []float64{0.03}, RadiationAtMCR: 0.007}
 	p := New("flue-gas table", Options{})
-	must(t, p.Add(&MakeUp{UnitBase: UnitBase{Name: "makeup"}, T: 333.15, P: 1e5}))
-	must(t, p.Add(&Boiler{UnitBase: UnitBase{Name: "b1"}, MCR: 1, DrumP: gauge(7), Efficiency: tab, Fuel: spec,
+	must(t, p.Add(&MakeUp{Base: Base{Name: "makeup"}, T: 333.15, P: 1e5}))
+	must(t, p.Add(&Boiler{Base: Base{Name: "b1"}, MCR: 1, DrumP: gauge(7), Efficiency: tab, Fuel: spec,
 		Burner: Burner{AirT: 308.15, FanRise: 3000, FanEta: 0.6, MotorEta: 0.9}}))
-	must(t, p.Add(&Consumer{UnitBase: UnitBase{Name: "load"}, SteamFlow: 1}))
+	must(t, p.Add(&Consumer{Base: Base{Name: "load"}, SteamFlow: 1}))
 	p.Connect("feed", Pos{}, "makeup", "out", "b1", "feed")
 	p.Connect("steam", Pos{}, "b1", "steam", "load", "in")
 	cr, err := p.Solve(context.Background(), Case{Name: "mcr"})

@@ -37,6 +37,7 @@ func hsfo(t testing.TB) FuelSpec {
 }
 
 func TestFurnaceTubesLimits(t *testing.T) {
+	t.Parallel()
 	// Limits of the physics (common practice, no source): with no heating
 	// surface the gas leaves at the adiabatic flame temperature; with a
 	// very large one it approaches the water's saturation temperature;
@@ -82,6 +83,7 @@ func TestFurnaceTubesLimits(t *testing.T) {
 }
 
 func TestCalibrateSoot(t *testing.T) {
+	t.Parallel()
 	// One measured exit temperature at a known firing rate recovers the
 	// fouling that produced it (a round trip, no outside source).
 	op := BoilerOperation{Load: 0.8, DrumP: gauge(7), AirT: 308.15, Fuel: hsfo(t)}
@@ -105,12 +107,13 @@ func TestCalibrateSoot(t *testing.T) {
 }
 
 func TestFurnaceBoilerInPlant(t *testing.T) {
+	t.Parallel()
 	// The physics model inside a plant: the efficiency follows the solved
 	// fuel flow, and the balances close.
 	p := New("fire-tube", Options{})
-	must(t, p.Add(&MakeUp{UnitBase: UnitBase{Name: "makeup"}, T: 333.15, P: 1e5}))
-	must(t, p.Add(&Boiler{UnitBase: UnitBase{Name: "b1"}, MCR: 2000.0 / 3600, DrumP: gauge(7), Efficiency: smallFireTube(), Fuel: hsfo(t)}))
-	must(t, p.Add(&Consumer{UnitBase: UnitBase{Name: "load"}, SteamFlow: 1500.0 / 3600}))
+	must(t, p.Add(&MakeUp{Base: Base{Name: "makeup"}, T: 333.15, P: 1e5}))
+	must(t, p.Add(&Boiler{Base: Base{Name: "b1"}, MCR: 2000.0 / 3600, DrumP: gauge(7), Efficiency: smallFireTube(), Fuel: hsfo(t)}))
+	must(t, p.Add(&Consumer{Base: Base{Name: "load"}, SteamFlow: 1500.0 / 3600}))
 	p.Connect("feed", Pos{}, "makeup", "out", "b1", "feed")
 	p.Connect("steam", Pos{}, "b1", "steam", "load", "in")
 	cr, err := p.Solve(context.Background(), Case{Name: "75 %", Conditions: Conditions{AirT: 308.15}})
@@ -127,6 +130,7 @@ func TestFurnaceBoilerInPlant(t *testing.T) {
 }
 
 func TestBurnerCannotFire(t *testing.T) {
+	t.Parallel()
 	// A burner given less air than the fuel needs (λ < 1), or air without
 	// oxygen, cannot fire: a clear error, never a NaN (common practice,
 	// no source: combustion needs fuel, oxygen and ignition).

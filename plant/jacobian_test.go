@@ -22,9 +22,9 @@ type jacFixture struct {
 // boiler's fuel flow and one with a duty model.
 func coupledPlant(t testing.TB) *Plant {
 	p := twoBoilers(t, Options{})
-	must(t, p.Add(&Consumer{UnitBase: UnitBase{Name: "b1 fo heater"}, FuelOf: "b1", DutyPerFuel: 2.0e5, ReturnFraction: 1, Label: "fuel oil heater"}))
-	must(t, p.Add(&Consumer{UnitBase: UnitBase{Name: "b1 atomising"}, FuelOf: "b1", SteamPerFuel: 0.3, Label: "atomising steam"}))
-	must(t, p.Add(&Consumer{UnitBase: UnitBase{Name: "accommodation"}, Model: fixedModel{w: 20e3}, ReturnFraction: 1}))
+	must(t, p.Add(&Consumer{Base: Base{Name: "b1 fo heater"}, FuelOf: "b1", DutyPerFuel: 2.0e5, ReturnFraction: 1, Label: "fuel oil heater"}))
+	must(t, p.Add(&Consumer{Base: Base{Name: "b1 atomising"}, FuelOf: "b1", SteamPerFuel: 0.3, Label: "atomising steam"}))
+	must(t, p.Add(&Consumer{Base: Base{Name: "accommodation"}, Model: fixedModel{w: 20e3}, ReturnFraction: 1}))
 	p.Connect("to fo heater", Pos{}, "main", "out", "b1 fo heater", "in")
 	p.Connect("fo heater return", Pos{}, "b1 fo heater", "out", "hotwell", "in")
 	p.Connect("to atomising", Pos{}, "main", "out", "b1 atomising", "in")
@@ -38,16 +38,16 @@ func coupledPlant(t testing.TB) *Plant {
 func egeBoilerPlant(t testing.TB) *Plant {
 	p := New("EGE and boiler", Options{})
 	drum := gauge(7)
-	must(t, p.Add(&MakeUp{UnitBase: UnitBase{Name: "makeup"}, T: 333.15, P: 1e5}))
-	must(t, p.Add(&FeedTank{UnitBase: UnitBase{Name: "hotwell"}, P: 1e5}))
-	must(t, p.Add(&Header{UnitBase: UnitBase{Name: "feed header"}}))
-	must(t, p.Add(&ExhaustGasEconomiser{UnitBase: UnitBase{Name: "ege"}, Engine: egeEngine(), DrumP: drum,
+	must(t, p.Add(&MakeUp{Base: Base{Name: "makeup"}, T: 333.15, P: 1e5}))
+	must(t, p.Add(&FeedTank{Base: Base{Name: "hotwell"}, P: 1e5}))
+	must(t, p.Add(&Header{Base: Base{Name: "feed header"}}))
+	must(t, p.Add(&ExhaustGasEconomiser{Base: Base{Name: "ege"}, Engine: egeEngine(), DrumP: drum,
 		DesignLoad: 1, DesignPinch: 15, GasCp: 1060}))
-	must(t, p.Add(&Boiler{UnitBase: UnitBase{Name: "b1"}, MCR: 10000.0 / 3600, DrumP: drum,
+	must(t, p.Add(&Boiler{Base: Base{Name: "b1"}, MCR: 10000.0 / 3600, DrumP: drum,
 		Efficiency: flatEta(0.85), Fuel: FuelSpec{Name: "HFO", LHV: 40.2e6, CO2Factor: 3.114}}))
-	must(t, p.Add(&Header{UnitBase: UnitBase{Name: "main"}}))
-	must(t, p.Add(&Consumer{UnitBase: UnitBase{Name: "heating"}, SteamFlow: 5000.0 / 3600}))
-	must(t, p.Add(&Condenser{UnitBase: UnitBase{Name: "dump"}, Dump: true}))
+	must(t, p.Add(&Header{Base: Base{Name: "main"}}))
+	must(t, p.Add(&Consumer{Base: Base{Name: "heating"}, SteamFlow: 5000.0 / 3600}))
+	must(t, p.Add(&Condenser{Base: Base{Name: "dump"}, Dump: true}))
 	p.Connect("mu", Pos{}, "makeup", "out", "hotwell", "in")
 	p.Connect("feed", Pos{}, "hotwell", "out", "feed header", "in")
 	p.Connect("ege feed", Pos{}, "feed header", "out", "ege", "feed")
@@ -67,10 +67,10 @@ func flueTablePlant(t testing.TB) *Plant {
 	must(t, err)
 	tab := &FlueGasTable{Load: []float64{0.5, 1}, FlueT: []float64{503.15, 523.15}, O2Dry: []float64{0.04, 0.03}, RadiationAtMCR: 0.007}
 	p := New("flue-gas table", Options{})
-	must(t, p.Add(&MakeUp{UnitBase: UnitBase{Name: "makeup"}, T: 333.15, P: 1e5}))
-	must(t, p.Add(&Boiler{UnitBase: UnitBase{Name: "b1"}, MCR: 1, DrumP: gauge(7), Efficiency: tab, Fuel: spec,
+	must(t, p.Add(&MakeUp{Base: Base{Name: "makeup"}, T: 333.15, P: 1e5}))
+	must(t, p.Add(&Boiler{Base: Base{Name: "b1"}, MCR: 1, DrumP: gauge(7), Efficiency: tab, Fuel: spec,
 		Burner: Burner{AirT: 308.15, FanRise: 3000, FanEta: 0.6, MotorEta: 0.9}}))
-	must(t, p.Add(&Consumer{UnitBase: UnitBase{Name: "load"}, SteamFlow: 0.8}))
+	must(t, p.Add(&Consumer{Base: Base{Name: "load"}, SteamFlow: 0.8}))
 	p.Connect("feed", Pos{}, "makeup", "out", "b1", "feed")
 	p.Connect("steam", Pos{}, "b1", "steam", "load", "in")
 	return p
@@ -80,9 +80,9 @@ func flueTablePlant(t testing.TB) *Plant {
 // efficiency comes from its furnace and smoke tubes.
 func furnacePlant(t testing.TB) *Plant {
 	p := New("fire-tube", Options{})
-	must(t, p.Add(&MakeUp{UnitBase: UnitBase{Name: "makeup"}, T: 333.15, P: 1e5}))
-	must(t, p.Add(&Boiler{UnitBase: UnitBase{Name: "b1"}, MCR: 2000.0 / 3600, DrumP: gauge(7), Efficiency: smallFireTube(), Fuel: hsfo(t)}))
-	must(t, p.Add(&Consumer{UnitBase: UnitBase{Name: "load"}, SteamFlow: 1500.0 / 3600}))
+	must(t, p.Add(&MakeUp{Base: Base{Name: "makeup"}, T: 333.15, P: 1e5}))
+	must(t, p.Add(&Boiler{Base: Base{Name: "b1"}, MCR: 2000.0 / 3600, DrumP: gauge(7), Efficiency: smallFireTube(), Fuel: hsfo(t)}))
+	must(t, p.Add(&Consumer{Base: Base{Name: "load"}, SteamFlow: 1500.0 / 3600}))
 	p.Connect("feed", Pos{}, "makeup", "out", "b1", "feed")
 	p.Connect("steam", Pos{}, "b1", "steam", "load", "in")
 	return p
@@ -93,12 +93,12 @@ func economiserPlant(t testing.TB) *Plant {
 	spec := hsfo(t)
 	tab := &FlueGasTable{Load: []float64{0.3, 1}, FlueT: []float64{553.15, 603.15}, O2Dry: []float64{0.05, 0.03}, RadiationAtMCR: 0.01}
 	p := New("economiser", Options{})
-	must(t, p.Add(&MakeUp{UnitBase: UnitBase{Name: "makeup"}, T: 333.15}))
-	must(t, p.Add(&FeedTank{UnitBase: UnitBase{Name: "hotwell"}}))
-	must(t, p.Add(&FeedPump{UnitBase: UnitBase{Name: "fp"}, Boilers: []string{"b1"}, Margin: 2e5, Eta: 0.5}))
-	must(t, p.Add(&Boiler{UnitBase: UnitBase{Name: "b1"}, MCR: 10000.0 / 3600, DrumP: gauge(7), Turndown: 4, CyclingLoss: 0.02, Efficiency: tab, Fuel: spec}))
-	must(t, p.Add(&Consumer{UnitBase: UnitBase{Name: "load"}, SteamFlow: 6000.0 / 3600}))
-	must(t, p.Add(&Economiser{UnitBase: UnitBase{Name: "eco"}, Boiler: "b1", UA: 2000, DesignGasFlow: 1.5}))
+	must(t, p.Add(&MakeUp{Base: Base{Name: "makeup"}, T: 333.15}))
+	must(t, p.Add(&FeedTank{Base: Base{Name: "hotwell"}}))
+	must(t, p.Add(&FeedPump{Base: Base{Name: "fp"}, Boilers: []string{"b1"}, Margin: 2e5, Eta: 0.5}))
+	must(t, p.Add(&Boiler{Base: Base{Name: "b1"}, MCR: 10000.0 / 3600, DrumP: gauge(7), Turndown: 4, CyclingLoss: 0.02, Efficiency: tab, Fuel: spec}))
+	must(t, p.Add(&Consumer{Base: Base{Name: "load"}, SteamFlow: 6000.0 / 3600}))
+	must(t, p.Add(&Economiser{Base: Base{Name: "eco"}, Boiler: "b1", UA: 2000, DesignGasFlow: 1.5}))
 	p.Connect("mu", Pos{}, "makeup", "out", "hotwell", "in")
 	p.Connect("suction", Pos{}, "hotwell", "out", "fp", "in")
 	p.Connect("discharge", Pos{}, "fp", "out", "eco", "in")
@@ -113,18 +113,18 @@ func economiserPlant(t testing.TB) *Plant {
 // cooler. Figures are invented, of realistic size.
 func everyUnit(t testing.TB) *Plant {
 	p := New("every unit", Options{})
-	must(t, p.Add(&MakeUp{UnitBase: UnitBase{Name: "makeup"}, T: 293.15}))
-	must(t, p.Add(&FeedTank{UnitBase: UnitBase{Name: "cascade tank"}, HeatLoss: 2e3, UA: 150, RoomT: 313.15, SetT: 353.15}))
-	must(t, p.Add(&FeedPump{UnitBase: UnitBase{Name: "fp"}, Boilers: []string{"b1"}, Margin: 3 * bar, Eta: 0.5, MotorEta: 0.92}))
-	must(t, p.Add(&Boiler{UnitBase: UnitBase{Name: "b1"}, MCR: 8000.0 / 3600, DrumP: gauge(14), Turndown: 4, CyclingLoss: 0.02,
+	must(t, p.Add(&MakeUp{Base: Base{Name: "makeup"}, T: 293.15}))
+	must(t, p.Add(&FeedTank{Base: Base{Name: "cascade tank"}, HeatLoss: 2e3, UA: 150, RoomT: 313.15, SetT: 353.15}))
+	must(t, p.Add(&FeedPump{Base: Base{Name: "fp"}, Boilers: []string{"b1"}, Margin: 3 * bar, Eta: 0.5, MotorEta: 0.92}))
+	must(t, p.Add(&Boiler{Base: Base{Name: "b1"}, MCR: 8000.0 / 3600, DrumP: gauge(14), Turndown: 4, CyclingLoss: 0.02,
 		Blowdown: 0.02, Efficiency: &EfficiencyTable{Load: []float64{0.25, 0.5, 1}, Eta: []float64{0.8, 0.85, 0.84}},
 		Fuel: FuelSpec{Name: "MGO", LHV: 42.7e6, CO2Factor: 3.206}}))
-	must(t, p.Add(&Header{UnitBase: UnitBase{Name: "hp"}, HeatLoss: 8e3}))
-	must(t, p.Add(&ReducingValve{UnitBase: UnitBase{Name: "prv"}, P: gauge(4)}))
-	must(t, p.Add(&Header{UnitBase: UnitBase{Name: "lp"}}))
-	must(t, p.Add(&Consumer{UnitBase: UnitBase{Name: "tank heating"}, Duty: 1.2e6, SubCooling: 5, ReturnFraction: 0.97, ReturnT: 343.15}))
-	must(t, p.Add(&Turbine{UnitBase: UnitBase{Name: "tg"}, Power: 300e3, ExhaustP: 0.15 * bar, EtaIs: 0.6, EtaMech: 0.95}))
-	must(t, p.Add(&Condenser{UnitBase: UnitBase{Name: "vac cond"}, SubCooling: 3}))
+	must(t, p.Add(&Header{Base: Base{Name: "hp"}, HeatLoss: 8e3}))
+	must(t, p.Add(&ReducingValve{Base: Base{Name: "prv"}, P: gauge(4)}))
+	must(t, p.Add(&Header{Base: Base{Name: "lp"}}))
+	must(t, p.Add(&Consumer{Base: Base{Name: "tank heating"}, Duty: 1.2e6, SubCooling: 5, ReturnFraction: 0.97, ReturnT: 343.15}))
+	must(t, p.Add(&Turbine{Base: Base{Name: "tg"}, Power: 300e3, ExhaustP: 0.15 * bar, EtaIs: 0.6, EtaMech: 0.95}))
+	must(t, p.Add(&Condenser{Base: Base{Name: "vac cond"}, SubCooling: 3}))
 	c := func(name, from, fp, to, tp string) { p.Connect(name, Pos{}, from, fp, to, tp) }
 	c("makeup", "makeup", "out", "cascade tank", "in")
 	c("suction", "cascade tank", "out", "fp", "in")
@@ -167,7 +167,7 @@ func jacFixtures() []jacFixture {
 		{"furnace", furnacePlant, []Case{{Name: "75 %", Conditions: Conditions{AirT: 308.15}}}},
 		{"economiser", economiserPlant, []Case{
 			{Name: "sea", Conditions: Conditions{AirT: 308.15}},
-			{Name: "cycling", Conditions: Conditions{AirT: 308.15}, Set: []Setting{{Unit: "load", Param: "steam_flow", Value: 500.0 / 3600}}},
+			{Name: "cycling", Conditions: Conditions{AirT: 308.15}, Set: []Setting{{Unit: "load", Param: "steam", Value: 500.0 / 3600}}},
 		}},
 		{"every unit", everyUnit, []Case{
 			{Name: "design"},
@@ -182,19 +182,19 @@ func jacFixtures() []jacFixture {
 // XScale_j): the reference the analytic Jacobian is checked against
 // (checked against central finite differences, no outside source).
 func centralJacobian(t *testing.T, p *Plant, x []float64) *mat.Dense {
-	n := p.prob.Dim
+	n := p.s.prob.Dim
 	j := mat.NewDense(n, n, nil)
 	rp, rm := make([]float64, n), make([]float64, n)
 	xt := append([]float64(nil), x...)
 	for c := 0; c < n; c++ {
-		h := 1e-6 * math.Max(math.Abs(x[c]), p.asm.xScale[c])
+		h := 1e-6 * math.Max(math.Abs(x[c]), p.s.asm.xScale[c])
 		xt[c] = x[c] + h
 		errP := p.residual(rp, xt)
 		xt[c] = x[c] - h
 		errM := p.residual(rm, xt)
 		xt[c] = x[c]
 		if errP != nil || errM != nil {
-			t.Fatalf("residual fails beside the state (unknown %q): %v %v", p.asm.varNames[c], errP, errM)
+			t.Fatalf("residual fails beside the state (unknown %q): %v %v", p.s.asm.varNames[c], errP, errM)
 		}
 		for i := 0; i < n; i++ {
 			j.Set(i, c, (rp[i]-rm[i])/(2*h))
@@ -208,8 +208,8 @@ func centralJacobian(t *testing.T, p *Plant, x []float64) *mat.Dense {
 func nearState(p *Plant, x []float64, rng *rand.Rand, rel float64) []float64 {
 	y := make([]float64, len(x))
 	for i := range x {
-		y[i] = x[i] + rel*rng.NormFloat64()*math.Max(math.Abs(x[i]), p.asm.xScale[i])
-		y[i] = math.Min(math.Max(y[i], p.asm.lo[i]), p.asm.hi[i])
+		y[i] = x[i] + rel*rng.NormFloat64()*math.Max(math.Abs(x[i]), p.s.asm.xScale[i])
+		y[i] = math.Min(math.Max(y[i], p.s.asm.lo[i]), p.s.asm.hi[i])
 	}
 	return y
 }
@@ -221,6 +221,7 @@ func nearState(p *Plant, x []float64, rng *rand.Rand, rel float64) []float64 {
 // is within 1e-6 of its row's scale: the largest entry of the scaled row
 // (D_F⁻¹·J·D_X, the matrix the solver factorises).
 func TestJacobianAgainstFiniteDifferences(t *testing.T) {
+	t.Parallel()
 	const tol = 1e-6
 	rng := rand.New(rand.NewPCG(20261201, 7))
 	covered := map[string]int{}
@@ -234,55 +235,55 @@ func TestJacobianAgainstFiniteDifferences(t *testing.T) {
 			// Keep the case's settings in force for the check.
 			restore, err := p.applySettings(&c)
 			must(t, err)
-			n := p.prob.Dim
+			n := p.s.prob.Dim
 			ja := mat.NewDense(n, n, nil)
 			for k := 1; k <= 3; k++ {
 				// Not the solved point itself: there a state can sit
 				// exactly on a kink (a venting feed tank delivers
 				// saturated water, and v(p,h) changes phase there), where
 				// any difference straddles the two sides.
-				x := nearState(p, p.last, rng, 2e-3)
+				x := nearState(p, p.s.last, rng, 2e-3)
 				r := make([]float64, n)
 				if err := p.residual(r, x); err != nil {
 					t.Fatalf("%s, %s, state %d: %v", fx.name, c.Name, k, err)
 				}
-				must(t, p.slv.Jacobian(ja, x, true))
+				must(t, p.s.slv.Jacobian(ja, x, true))
 				jf := centralJacobian(t, p, x)
 				inPattern := make([]bool, n)
 				for i := 0; i < n; i++ {
 					for col := range inPattern {
 						inPattern[col] = false
 					}
-					for _, col := range p.asm.pattern[i] {
+					for _, col := range p.s.asm.pattern[i] {
 						inPattern[col] = true
 					}
 					scale := 0.0
 					for col := 0; col < n; col++ {
-						s := p.asm.xScale[col] / p.asm.fScale[i]
+						s := p.s.asm.xScale[col] / p.s.asm.fScale[i]
 						scale = math.Max(scale, math.Max(math.Abs(ja.At(i, col)), math.Abs(jf.At(i, col)))*s)
 					}
 					for col := 0; col < n; col++ {
-						s := p.asm.xScale[col] / p.asm.fScale[i]
+						s := p.s.asm.xScale[col] / p.s.asm.fScale[i]
 						a, f := ja.At(i, col), jf.At(i, col)
 						if !inPattern[col] && a != 0 {
-							t.Errorf("%s, %s: analytic entry (%q, %q) = %g outside the pattern", fx.name, c.Name, p.asm.eqNames[i], p.asm.varNames[col], a)
+							t.Errorf("%s, %s: analytic entry (%q, %q) = %g outside the pattern", fx.name, c.Name, p.s.asm.eqNames[i], p.s.asm.varNames[col], a)
 						}
 						if d := math.Abs(a-f) * s; !(d <= tol*scale) {
 							t.Errorf("%s, %s, state %d: d(%s)/d(%s): analytic %.9g, central differences %.9g (scaled difference %.2g, row scale %.2g)",
-								fx.name, c.Name, k, p.asm.eqNames[i], p.asm.varNames[col], a, f, d, scale)
+								fx.name, c.Name, k, p.s.asm.eqNames[i], p.s.asm.varNames[col], a, f, d, scale)
 						}
 					}
 				}
 			}
 			restore()
-			for _, u := range p.units {
+			for _, u := range p.comps {
 				covered[u.Kind()]++
 			}
-			covered["dispatch"] += len(p.dispEqs)
+			covered["dispatch"] += len(p.s.dispEqs)
 		}
 	}
 	// Every unit type and the dispatch equations took part.
-	want := []Unit{&MakeUp{}, &FeedTank{}, &FeedPump{}, &Header{}, &ReducingValve{}, &Consumer{}, &Turbine{},
+	want := []Component{&MakeUp{}, &FeedTank{}, &FeedPump{}, &Header{}, &ReducingValve{}, &Consumer{}, &Turbine{},
 		&Condenser{}, &Condenser{Dump: true}, &Boiler{}, &Economiser{}, &ExhaustGasEconomiser{}}
 	for _, u := range want {
 		if covered[u.Kind()] == 0 {
@@ -302,6 +303,7 @@ func TestJacobianAgainstFiniteDifferences(t *testing.T) {
 // pattern is checked by the solver's dense differences (CheckPattern) at
 // its solution.
 func TestAnalyticJacobianSameResults(t *testing.T) {
+	t.Parallel()
 	const tol = 1e-9
 	ctx := context.Background()
 	for _, fx := range jacFixtures() {
@@ -320,11 +322,11 @@ func TestAnalyticJacobianSameResults(t *testing.T) {
 			if !ca.Converged || !cf.Converged {
 				t.Errorf("%s, %s: converged %v (analytic), %v (finite differences)", fx.name, c.Name, ca.Converged, cf.Converged)
 			}
-			if pa.slvRes.Colors != 0 || pf.slvRes.Colors == 0 {
+			if pa.s.slvRes.Colors != 0 || pf.s.slvRes.Colors == 0 {
 				t.Errorf("%s, %s: %d colours with the analytic Jacobian, %d without; want 0 and some",
-					fx.name, c.Name, pa.slvRes.Colors, pf.slvRes.Colors)
+					fx.name, c.Name, pa.s.slvRes.Colors, pf.s.slvRes.Colors)
 			}
-			if err := pf.slv.CheckPattern(pf.last); err != nil {
+			if err := pf.s.slv.CheckPattern(pf.s.last); err != nil {
 				t.Errorf("%s, %s: %v", fx.name, c.Name, err)
 			}
 			same := func(what string, a, f, scale float64) {
@@ -362,9 +364,9 @@ func TestJacobianAllocatesNothing(t *testing.T) {
 		p := fx.build(t)
 		_, err := p.Solve(context.Background(), fx.cases[0])
 		must(t, err)
-		n := p.prob.Dim
+		n := p.s.prob.Dim
 		j := mat.NewDense(n, n, nil)
-		x := append([]float64(nil), p.last...)
+		x := append([]float64(nil), p.s.last...)
 		must(t, p.jacobian(j, x))
 		if a := testing.AllocsPerRun(20, func() {
 			j.Zero()
@@ -380,16 +382,17 @@ func TestJacobianAllocatesNothing(t *testing.T) {
 // TestJacobianKeepsUnknowns: the differences a unit takes of its own
 // function move the unknowns and must put them back bit for bit.
 func TestJacobianKeepsUnknowns(t *testing.T) {
+	t.Parallel()
 	for _, fx := range jacFixtures() {
 		p := fx.build(t)
 		_, err := p.Solve(context.Background(), fx.cases[0])
 		must(t, err)
-		n := p.prob.Dim
-		x := append([]float64(nil), p.last...)
+		n := p.s.prob.Dim
+		x := append([]float64(nil), p.s.last...)
 		must(t, p.jacobian(mat.NewDense(n, n, nil), x))
 		for i := range x {
-			if math.Float64bits(x[i]) != math.Float64bits(p.last[i]) {
-				t.Errorf("%s: the Jacobian changed %q from %v to %v", fx.name, p.asm.varNames[i], p.last[i], x[i])
+			if math.Float64bits(x[i]) != math.Float64bits(p.s.last[i]) {
+				t.Errorf("%s: the Jacobian changed %q from %v to %v", fx.name, p.s.asm.varNames[i], p.s.last[i], x[i])
 			}
 		}
 	}
@@ -407,15 +410,15 @@ func BenchmarkJacobian(b *testing.B) {
 				if _, err := p.Solve(context.Background(), fx.cases[0]); err != nil {
 					b.Fatal(err)
 				}
-				n := p.prob.Dim
+				n := p.s.prob.Dim
 				j := mat.NewDense(n, n, nil)
-				x := append([]float64(nil), p.last...)
+				x := append([]float64(nil), p.s.last...)
 				for b.Loop() {
-					if err := p.slv.Jacobian(j, x, !fd); err != nil {
+					if err := p.s.slv.Jacobian(j, x, !fd); err != nil {
 						b.Fatal(err)
 					}
 				}
-				b.ReportMetric(float64(p.slv.Colors()), "colours")
+				b.ReportMetric(float64(p.s.slv.Colors()), "colours")
 			})
 		}
 		// The plant's own part of the analytic Jacobian, without the
@@ -425,9 +428,9 @@ func BenchmarkJacobian(b *testing.B) {
 			if _, err := p.Solve(context.Background(), fx.cases[0]); err != nil {
 				b.Fatal(err)
 			}
-			n := p.prob.Dim
+			n := p.s.prob.Dim
 			j := mat.NewDense(n, n, nil)
-			x := append([]float64(nil), p.last...)
+			x := append([]float64(nil), p.s.last...)
 			for b.Loop() {
 				if err := p.jacobian(j, x); err != nil {
 					b.Fatal(err)
@@ -455,7 +458,7 @@ func BenchmarkCaseJacobian(b *testing.B) {
 						b.Fatal(err)
 					}
 					iters += cr.Iterations
-					evals += p.slvRes.Stats.ResidualEvals
+					evals += p.s.slvRes.Stats.ResidualEvals
 				}
 				b.ReportMetric(float64(iters)/float64(b.N), "newton-iters/op")
 				b.ReportMetric(float64(evals)/float64(b.N), "residual-evals/op")
@@ -489,6 +492,7 @@ func benchFixtures() []jacFixture {
 // converges with finite differences converges with the analytic Jacobian
 // in no more iterations plus one, to the same fuel within 1e-9 relative.
 func TestAnalyticJacobianSweep(t *testing.T) {
+	t.Parallel()
 	ctx := context.Background()
 	type sweep struct {
 		name  string
@@ -526,7 +530,7 @@ func TestAnalyticJacobianSweep(t *testing.T) {
 				continue
 			}
 			itA, itF = itA+ca.Iterations, itF+cf.Iterations
-			evA, evF = evA+pa.slvRes.Stats.ResidualEvals, evF+pf.slvRes.Stats.ResidualEvals
+			evA, evF = evA+pa.s.slvRes.Stats.ResidualEvals, evF+pf.s.slvRes.Stats.ResidualEvals
 			if ca.Iterations > cf.Iterations+1 {
 				t.Errorf("%s, %s: %d iterations with the analytic Jacobian, %d with finite differences", sw.name, c.Name, ca.Iterations, cf.Iterations)
 			}
@@ -549,11 +553,12 @@ func TestAnalyticJacobianSweep(t *testing.T) {
 // orders of magnitude; checked against central finite differences, no
 // outside source).
 func TestJacobianAtBurnerMinimum(t *testing.T) {
+	t.Parallel()
 	p := economiserPlant(t)
 	_, err := p.Solve(context.Background(), Case{Name: "sea", Conditions: Conditions{AirT: 308.15}})
 	must(t, err)
-	b := p.Unit("b1").(*Boiler)
-	n := p.prob.Dim
+	b := p.Component("b1").(*Boiler)
+	n := p.s.prob.Dim
 	ms := b.steam.mIdx()
 	row, col := b.eqs[3], ms
 	edge := b.MinLoad() * b.MCR
@@ -565,16 +570,16 @@ func TestJacobianAtBurnerMinimum(t *testing.T) {
 		{"just cycling", edge * (1 - 1e-10), edge * (1 - 1e-3)},
 		{"just firing", edge, edge * (1 + 1e-3)},
 	} {
-		x := append([]float64(nil), p.last...)
+		x := append([]float64(nil), p.s.last...)
 		x[ms] = side.at
 		must(t, p.residual(r, x))
 		j := mat.NewDense(n, n, nil)
-		must(t, p.slv.Jacobian(j, x, true))
+		must(t, p.s.slv.Jacobian(j, x, true))
 		got := j.At(row, col)
 		x[ms] = side.inside
 		want := centralJacobian(t, p, x).At(row, col)
 		if math.Abs(got-want) > 0.01*math.Abs(want) {
-			t.Errorf("%s: d(%s)/d(%s) = %g, want %g (the derivative of that side)", side.name, p.asm.eqNames[row], p.asm.varNames[col], got, want)
+			t.Errorf("%s: d(%s)/d(%s) = %g, want %g (the derivative of that side)", side.name, p.s.asm.eqNames[row], p.s.asm.varNames[col], got, want)
 		}
 	}
 }

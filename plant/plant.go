@@ -11,29 +11,6 @@ import (
 	"steamcase/solver"
 )
 
-// Sharing is the rule by which firing boilers share the demand.
-type Sharing int
-
-// Sharing rules.
-const (
-	// EqualLoad runs every firing boiler at the same fraction of its MCR.
-	EqualLoad Sharing = iota
-	// LeadLag runs the lead boiler (the first declared that fires) at
-	// Options.LeadLoad of its MCR and shares the rest equally among the
-	// others.
-	LeadLag
-)
-
-func (s Sharing) String() string {
-	switch s {
-	case EqualLoad:
-		return "equal load"
-	case LeadLag:
-		return "lead-lag"
-	}
-	return fmt.Sprintf("Sharing(%d)", int(s))
-}
-
 // Options are the plant-wide settings. Zero values mean the documented
 // defaults.
 type Options struct {
@@ -60,8 +37,8 @@ type Options struct {
 	// exhaust-gas economisers that gives the fuel they save.
 	NoEGESaving bool
 	// FiniteDifferences makes the solver form the Jacobian by its own
-	// coloured finite differences instead of the plant's analytic partial
-	// derivatives (jacobian.go): a fallback and a check.
+	// coloured finite differences instead of the components' analytic
+	// partial derivatives: a fallback and a check.
 	FiniteDifferences bool
 }
 
@@ -80,81 +57,82 @@ func (o *Options) defaults() {
 	}
 }
 
-// Plant is a steam plant: units joined by lines. Build it with Add and
-// Connect, then Solve load cases. A Plant is not safe for concurrent use.
+// Plant is a steam plant: components joined by lines. Build it with Add
+// and Connect, then Solve load cases. A Plant is not safe for concurrent
+// use; Clone gives a copy for another goroutine.
+//
+// The Plant holds the description. What the solves need and keep (the
+// compiled system, the solver, the warm start) is in its session, made by
+// the first Check or Solve and discarded when the description changes.
 type Plant struct {
 	Name string
 	Pos  Pos
 	Opt  Options
 
-	units  []Unit
-	byName map[string]Unit
+	comps  []Component
+	byName map[string]Component
 	lines  []*Line
 
-	compiled bool
-	asm      *assembly
-	ports    map[string]map[string][]*Line // unit -> port -> lines
-	boilers  []*Boiler
-	dumps    []*Condenser
-	disp     dispatchState
-	dispEqs  []int
-	slv      *solver.Solver
-	prob     solver.Problem
-	last     []float64 // last converged unknowns, for warm starts
-	x0       []float64 // starting point scratch
-	lastCopy []float64
-	// hint is how many boilers fired in the last case, where the firing
-	// decision of the next starts; keep* hold a solution during a trial.
-	hint       int
-	hintSet    bool
-	keepX      []float64
-	keepRes    solver.Result
-	keepSolves int
-	slvRes     solver.Result
-	solves     int
-	ev         eval
+	s *session // nil until compiled
 }
 
 // New returns an empty plant.
 func New(name string, opt Options) *Plant {
 	opt.defaults()
-	return &Plant{Name: name, Opt: opt, byName: map[string]Unit{}}
+	return &Plant{Name: name, Opt: opt, byName: map[string]Component{}}
 }
 
-// Add adds a unit. It fails if the name is empty or taken.
-func (p *Plant) Add(u Unit) error {
-	name := u.UnitName()
-	if name == "" {
-		return fmt.Errorf("%s: %s without a name", u.Position(), u.Kind())
+// Add adds a component. It fails if the name is empty or taken.
+func (p *Plant) Add(c Component) error {
+	b := c.Ident()
+	if b.Name == "" {
+		return fmt.Errorf("%s: %s without a name", b.Pos, c.Kind())
 	}
-	if old, ok := p.byName[name]; ok {
-		return &GraphError{Faults: []Fault{{Pos: u.Position(), Unit: name,
-			Msg: fmt.Sprintf("name already used by the %s declared at %s", old.Kind(), old.Position())}}}
+	if old, ok := p.byName[b.Name]; ok {
+		return &GraphError{Faults: []Fault{{Pos: b.Pos, Unit: b.Name,
+			Msg: fmt.Sprintf("name already used by the %s declared at %s", old.Kind(), old.Ident().Pos)}}}
 	}
-	p.units = append(p.units, u)
-	p.byName[name] = u
-	p.compiled = false
+	p.comps = append(p.comps, c)
+	p.byName[b.Name] = c
+	p.s = nil
 	return nil
 }
 
-// Connect joins outlet port fromPort of unit from to inlet port toPort of
-// unit to with a line called name. Faults in the connection are reported
-// by Check, all at once.
+// Connect joins outlet port fromPort of component from to inlet port
+// toPort of component to with a line called name. Faults in the connection
+// are reported by Check, all at once.
 func (p *Plant) Connect(name string, pos Pos, from, fromPort, to, toPort string) *Line {
 	l := &Line{Name: name, Pos: pos, From: from, FromPort: fromPort, To: to, ToPort: toPort}
 	p.lines = append(p.lines, l)
-	p.compiled = false
+	p.s = nil
 	return l
 }
 
-// Unit returns the unit called name, or nil.
-func (p *Plant) Unit(name string) Unit { return p.byName[name] }
+// Component returns the component called name, or nil.
+func (p *Plant) Component(name string) Component { return p.byName[name] }
 
-// Units returns the plant's units in declaration order.
-func (p *Plant) Units() []Unit { return p.units }
+// Components returns the plant's components in declaration order.
+func (p *Plant) Components() []Component { return p.comps }
 
 // Lines returns the plant's lines in declaration order.
 func (p *Plant) Lines() []*Line { return p.lines }
+
+// Clone returns an independent copy of the plant: the same components
+// with the same parameters (their duty models copied too) and the same
+// lines, ready to solve in another goroutine. Efficiency models and fuels
+// are shared: the plant package never changes them while it solves.
+func (p *Plant) Clone() *Plant {
+	c := New(p.Name, p.Opt)
+	c.Pos = p.Pos
+	for _, u := range p.comps {
+		// Add cannot fail: the names were unique in p.
+		_ = c.Add(u.clone())
+	}
+	for _, l := range p.lines {
+		c.Connect(l.Name, l.Pos, l.From, l.FromPort, l.To, l.ToPort)
+	}
+	return c
+}
 
 // Check validates the plant without solving: every port connected as its
 // kind requires, media matching, parameters in range, and the degrees of
@@ -164,37 +142,52 @@ func (p *Plant) Check() error {
 	return p.compile()
 }
 
+// compile checks the description and builds the session: the lines on
+// each port, the unknowns and equations, the structural diagnosis and the
+// solver.
 func (p *Plant) compile() error {
-	if p.compiled {
+	if p.s != nil {
 		return nil
 	}
 	var fs faults
-	if len(p.units) == 0 {
+	if len(p.comps) == 0 {
 		fs.add(p.Pos, "", "", "plant %q has no units", p.Name)
 		return fs.err()
 	}
+	for _, c := range p.comps {
+		c.check(&fs)
+	}
+	ports := p.connect(&fs)
+	if err := fs.err(); err != nil {
+		return err
+	}
+	a := p.layout(ports, &fs)
+	if err := fs.err(); err != nil {
+		return err
+	}
+	s := &session{asm: a, ports: ports}
+	s.assembleDispatch(a)
+	st, err := solver.DiagnoseIncidence(len(a.eqNames), len(a.varNames), a.pattern, a.eqNames, a.varNames)
+	if err == nil {
+		err = st.Err()
+	}
+	if err != nil {
+		return p.structureErr(err)
+	}
+	if err := p.newSolver(s); err != nil {
+		return err
+	}
+	p.s = s
+	return nil
+}
+
+// connect checks every line against the ports it names and returns the
+// lines on each component's ports.
+func (p *Plant) connect(fs *faults) map[string]portLines {
 	lineNames := map[string]*Line{}
-	ports := map[string]map[string][]*Line{}
-	for _, u := range p.units {
-		ports[u.UnitName()] = map[string][]*Line{}
-		u.check(&fs)
-	}
-	spec := func(u Unit, port string) (PortSpec, bool) {
-		for _, s := range u.Ports() {
-			if s.Name == port {
-				return s, true
-			}
-		}
-		return PortSpec{}, false
-	}
-	portNames := func(u Unit, d Direction) []string {
-		var ns []string
-		for _, s := range u.Ports() {
-			if s.Dir == d {
-				ns = append(ns, s.Name)
-			}
-		}
-		return ns
+	ports := map[string]portLines{}
+	for _, c := range p.comps {
+		ports[c.Ident().Name] = portLines{}
 	}
 	for _, l := range p.lines {
 		if l.Name == "" {
@@ -206,32 +199,13 @@ func (p *Plant) compile() error {
 			continue
 		}
 		lineNames[l.Name] = l
-		ok := true
-		var fromSpec, toSpec PortSpec
-		fu, found := p.byName[l.From]
-		if !found {
-			fs.add(l.Pos, l.From, l.Name, "no unit called %q to leave from", l.From)
-			ok = false
-		} else if s, has := spec(fu, l.FromPort); !has || s.Dir != Out {
-			fs.add(l.Pos, l.From, l.Name, "%s %q has no outlet %q; its outlets are %q", fu.Kind(), l.From, l.FromPort, portNames(fu, Out))
-			ok = false
-		} else {
-			fromSpec = s
-		}
-		tu, found := p.byName[l.To]
-		if !found {
-			fs.add(l.Pos, l.To, l.Name, "no unit called %q to enter", l.To)
-			ok = false
-		} else if s, has := spec(tu, l.ToPort); !has || s.Dir != In {
-			fs.add(l.Pos, l.To, l.Name, "%s %q has no inlet %q; its inlets are %q", tu.Kind(), l.To, l.ToPort, portNames(tu, In))
-			ok = false
-		} else {
-			toSpec = s
-		}
-		if !ok {
+		fromSpec, ok1 := p.endSpec(fs, l, l.From, l.FromPort, Out)
+		toSpec, ok2 := p.endSpec(fs, l, l.To, l.ToPort, In)
+		if !ok1 || !ok2 {
 			continue
 		}
 		if fromSpec.Medium != toSpec.Medium {
+			fu := p.byName[l.From]
 			fs.add(l.Pos, l.To, l.Name, "media do not match: %s outlet %q of %q carries %s, inlet %q of %q takes %s",
 				fu.Kind(), l.FromPort, l.From, fromSpec.Medium, l.ToPort, l.To, toSpec.Medium)
 			continue
@@ -240,26 +214,60 @@ func (p *Plant) compile() error {
 		ports[l.From][l.FromPort] = append(ports[l.From][l.FromPort], l)
 		ports[l.To][l.ToPort] = append(ports[l.To][l.ToPort], l)
 	}
-	for _, u := range p.units {
-		for _, s := range u.Ports() {
-			n := len(ports[u.UnitName()][s.Name])
+	for _, c := range p.comps {
+		b := c.Ident()
+		for _, s := range c.Ports() {
+			n := len(ports[b.Name][s.Name])
 			switch {
 			case n == 0 && !s.Optional:
-				fs.add(u.Position(), u.UnitName(), "", "%s %q is not connected", s.Dir, s.Name)
+				fs.add(b.Pos, b.Name, "", "%s %q is not connected", s.Dir, s.Name)
 			case n > 1 && !s.Multi:
 				var names []string
-				for _, l := range ports[u.UnitName()][s.Name] {
+				for _, l := range ports[b.Name][s.Name] {
 					names = append(names, l.Name)
 				}
-				fs.add(u.Position(), u.UnitName(), "", "%s %q takes one line, but %d are connected: %q", s.Dir, s.Name, n, names)
+				fs.add(b.Pos, b.Name, "", "%s %q takes one line, but %d are connected: %q", s.Dir, s.Name, n, names)
 			}
 		}
 	}
-	if err := fs.err(); err != nil {
-		return err
-	}
+	return ports
+}
 
-	// Lay out the unknowns: three per line, then each unit's own.
+// endSpec finds the port one end of a line names, adding a fault when the
+// component or the port does not exist.
+func (p *Plant) endSpec(fs *faults, l *Line, unit, port string, dir Direction) (PortSpec, bool) {
+	c, found := p.byName[unit]
+	if !found {
+		if dir == Out {
+			fs.add(l.Pos, unit, l.Name, "no unit called %q to leave from", unit)
+		} else {
+			fs.add(l.Pos, unit, l.Name, "no unit called %q to enter", unit)
+		}
+		return PortSpec{}, false
+	}
+	for _, s := range c.Ports() {
+		if s.Name == port && s.Dir == dir {
+			return s, true
+		}
+	}
+	var names []string
+	for _, s := range c.Ports() {
+		if s.Dir == dir {
+			names = append(names, s.Name)
+		}
+	}
+	if dir == Out {
+		fs.add(l.Pos, unit, l.Name, "%s %q has no outlet %q; its outlets are %q", c.Kind(), unit, port, names)
+	} else {
+		fs.add(l.Pos, unit, l.Name, "%s %q has no inlet %q; its inlets are %q", c.Kind(), unit, port, names)
+	}
+	return PortSpec{}, false
+}
+
+// layout registers the unknowns and equations: three unknowns per
+// water/steam line, then each component's own, then the links between
+// components.
+func (p *Plant) layout(ports map[string]portLines, fs *faults) *assembly {
 	a := &assembly{}
 	for _, l := range p.lines {
 		if l.medium != WaterSteam {
@@ -269,35 +277,21 @@ func (p *Plant) compile() error {
 		a.variable("line "+l.Name+" pressure", scaleP, minP, maxP, 1e6)
 		a.variable("line "+l.Name+" enthalpy", scaleH, minH, maxH, 1e6)
 	}
-	p.boilers = p.boilers[:0]
-	p.dumps = p.dumps[:0]
-	for _, u := range p.units {
-		u.assemble(a, ports[u.UnitName()])
-		switch v := u.(type) {
-		case *Boiler:
-			p.boilers = append(p.boilers, v)
-		case *Condenser:
-			if v.Dump {
-				p.dumps = append(p.dumps, v)
-			}
+	for _, c := range p.comps {
+		c.assemble(a, ports[c.Ident().Name])
+	}
+	for _, c := range p.comps {
+		if l, ok := c.(linker); ok {
+			l.link(p, a, fs)
 		}
 	}
-	for _, u := range p.units {
-		switch v := u.(type) {
-		case *Consumer:
-			v.link(p, a, &fs)
-		case *Economiser:
-			v.link(p, a, &fs)
-		}
-	}
-	if err := fs.err(); err != nil {
-		return err
-	}
-	p.assembleDispatch(a)
-	p.asm = a
-	p.ports = ports
+	return a
+}
 
-	p.prob = solver.Problem{
+// newSolver makes the session's solver problem and solver.
+func (p *Plant) newSolver(s *session) error {
+	a := s.asm
+	s.prob = solver.Problem{
 		Dim:      len(a.varNames),
 		XScale:   a.xScale,
 		FScale:   a.fScale,
@@ -306,36 +300,16 @@ func (p *Plant) compile() error {
 		Upper:    a.hi,
 		VarNames: a.varNames,
 		EqNames:  a.eqNames,
+		Residual: p.residual,
 	}
-	st, err := solver.DiagnoseIncidence(len(a.eqNames), len(a.varNames), a.pattern, a.eqNames, a.varNames)
-	if err != nil {
-		return p.structureErr(err)
-	}
-	if err := st.Err(); err != nil {
-		return p.structureErr(err)
-	}
-	var pumpFaults faults
-	for _, u := range p.units {
-		if fp, ok := u.(*FeedPump); ok {
-			if err := fp.resolve(p); err != nil {
-				pumpFaults.add(fp.Pos, fp.Name, "", "%v", err.(*UnitError).Err)
-			}
-		}
-	}
-	if err := pumpFaults.err(); err != nil {
-		return err
-	}
-	p.prob.Residual = p.residual
 	if !p.Opt.FiniteDifferences {
-		p.prob.Jacobian = p.jacobian
+		s.prob.Jacobian = p.jacobian
 	}
-	slv, err := solver.New(p.prob, p.solverSettings())
+	slv, err := solver.New(s.prob, p.solverSettings())
 	if err != nil {
 		return err
 	}
-	p.slv = slv
-	p.compiled = true
-	p.last = nil
+	s.slv = slv
 	return nil
 }
 
@@ -348,13 +322,40 @@ func (p *Plant) structureErr(err error) error {
 	return err
 }
 
-// guess fills x with a starting point: each unit sets its outlets from its
-// inlets, a few passes round the graph.
+func (p *Plant) solverSettings() *solver.Settings {
+	s := solver.Settings{}
+	if p.Opt.Solver != nil {
+		s = *p.Opt.Solver
+	}
+	s.SkipDiagnosis = true // compile has diagnosed the structure
+	if s.Factorizer == nil {
+		// A plant's Jacobian is sparse (each equation touches a few
+		// lines): the sparse LU is several times faster than the dense
+		// one at a plant's size, and a minimum-degree column order on the
+		// pattern keeps its fill and its symbolic work small. Each plant
+		// (and clone) has its own.
+		s.Factorizer = &solver.SparseLU{MinDegree: true}
+	}
+	return &s
+}
+
+// guess fills x with a starting point: each component sets its outlets
+// from its inlets, a few passes round the graph.
 func (p *Plant) guess(x []float64) {
-	copy(x, p.asm.x0)
+	copy(x, p.s.asm.x0)
 	for pass := 0; pass < 4; pass++ {
-		for _, u := range p.units {
-			u.guess(x)
+		for _, c := range p.comps {
+			c.guess(x)
 		}
 	}
+}
+
+// economiserOf returns the flue-gas economiser on boiler b's gas, or nil.
+func (p *Plant) economiserOf(b *Boiler) *Economiser {
+	for _, e := range p.s.asm.roles.economisers {
+		if e.b == b {
+			return e
+		}
+	}
+	return nil
 }

@@ -37,16 +37,17 @@ func within(t *testing.T, what string, got, want, relTol float64) {
 // raises saturated steam at 7 bar(g) for a consumer taking a set flow.
 func boilerOnly(t testing.TB) *Plant {
 	p := New("fuel check", Options{})
-	must(t, p.Add(&MakeUp{UnitBase: UnitBase{Name: "makeup"}, T: 333.15, P: 1e5}))
-	must(t, p.Add(&Boiler{UnitBase: UnitBase{Name: "b1"}, MCR: 4, DrumP: gauge(7),
+	must(t, p.Add(&MakeUp{Base: Base{Name: "makeup"}, T: 333.15, P: 1e5}))
+	must(t, p.Add(&Boiler{Base: Base{Name: "b1"}, MCR: 4, DrumP: gauge(7),
 		Efficiency: flatEta(0.85), Fuel: FuelSpec{Name: "HFO", LHV: 40.2e6, CO2Factor: 3.114}}))
-	must(t, p.Add(&Consumer{UnitBase: UnitBase{Name: "load"}, SteamFlow: 10000.0 / 3600}))
+	must(t, p.Add(&Consumer{Base: Base{Name: "load"}, SteamFlow: 10000.0 / 3600}))
 	p.Connect("feed", Pos{}, "makeup", "out", "b1", "feed")
 	p.Connect("steam", Pos{}, "b1", "steam", "load", "in")
 	return p
 }
 
 func TestBoilerFuelPerDay(t *testing.T) {
+	t.Parallel()
 	// plant-checks.md §3.6 [C]: 10 t/h of saturated steam at 7 bar(g) from
 	// feed at 60 °C, η 0.85, LCV 40 200 kJ/kg: 736.4 kg/h = 17.674 t/d, and
 	// with C_F 3.114 (IMO MEPC.364(79) [S]) 55.04 t/d of CO2. Tolerance
@@ -54,15 +55,15 @@ func TestBoilerFuelPerDay(t *testing.T) {
 	p := boilerOnly(t)
 	cr, err := p.Solve(context.Background(), Case{Name: "check"})
 	must(t, err)
-	j := cr.JSON()
-	within(t, "fuel kg/h", j.FuelKgH, 736.4, 0.002)
-	within(t, "fuel t/day", j.FuelTPerDay, 17.674, 0.002)
-	within(t, "CO2 t/day", j.CO2TPerDay, 55.04, 0.002)
-	if j.BoilersFiring != 1 || !j.CanCarry {
-		t.Errorf("boilers firing %d, can carry %v; want 1, true", j.BoilersFiring, j.CanCarry)
+	// 1 kg/s = 3600 kg/h = 86.4 t/d, exact by definition.
+	within(t, "fuel kg/h", cr.FuelKgS*3600, 736.4, 0.002)
+	within(t, "fuel t/day", cr.FuelKgS*86.4, 17.674, 0.002)
+	within(t, "CO2 t/day", cr.CO2KgS*86.4, 55.04, 0.002)
+	if cr.BoilersFiring != 1 || !cr.CanCarry {
+		t.Errorf("boilers firing %d, can carry %v; want 1, true", cr.BoilersFiring, cr.CanCarry)
 	}
-	if j.Balance.MassRel > 1e-9 || j.Balance.EnergyRel > 1e-6 {
-		t.Errorf("balances do not close: %+v", j.Balance)
+	if cr.Balance.MassRel > 1e-9 || cr.Balance.EnergyRel > 1e-6 {
+		t.Errorf("balances do not close: %+v", cr.Balance)
 	}
 }
 
@@ -70,13 +71,13 @@ func TestBoilerFuelPerDay(t *testing.T) {
 // condenser at 0.2 bar(a), whose condensate returns to the feed tank.
 func turbinePlant(t testing.TB) *Plant {
 	p := New("turbine check", Options{})
-	must(t, p.Add(&MakeUp{UnitBase: UnitBase{Name: "makeup"}, T: 303.15}))
-	must(t, p.Add(&FeedTank{UnitBase: UnitBase{Name: "hotwell"}}))
-	must(t, p.Add(&FeedPump{UnitBase: UnitBase{Name: "fp"}, Boilers: []string{"b1"}, Margin: 2 * bar, Eta: 0.5}))
-	must(t, p.Add(&Boiler{UnitBase: UnitBase{Name: "b1"}, MCR: 10, DrumP: gauge(16),
+	must(t, p.Add(&MakeUp{Base: Base{Name: "makeup"}, T: 303.15}))
+	must(t, p.Add(&FeedTank{Base: Base{Name: "hotwell"}}))
+	must(t, p.Add(&FeedPump{Base: Base{Name: "fp"}, Boilers: []string{"b1"}, Margin: 2 * bar, Eta: 0.5}))
+	must(t, p.Add(&Boiler{Base: Base{Name: "b1"}, MCR: 10, DrumP: gauge(16),
 		Efficiency: flatEta(0.85), Fuel: FuelSpec{Name: "HFO", LHV: 40.2e6, CO2Factor: 3.114}}))
-	must(t, p.Add(&Turbine{UnitBase: UnitBase{Name: "cargo pump 1"}, Power: 1e6, ExhaustP: 0.2 * bar, EtaIs: 0.65, EtaMech: 0.95}))
-	must(t, p.Add(&Condenser{UnitBase: UnitBase{Name: "vac cond"}}))
+	must(t, p.Add(&Turbine{Base: Base{Name: "cargo pump 1"}, Power: 1e6, ExhaustP: 0.2 * bar, EtaIs: 0.65, EtaMech: 0.95}))
+	must(t, p.Add(&Condenser{Base: Base{Name: "vac cond"}}))
 	p.Connect("makeup", Pos{}, "makeup", "out", "hotwell", "in")
 	p.Connect("suction", Pos{}, "hotwell", "out", "fp", "in")
 	p.Connect("feed", Pos{}, "fp", "out", "b1", "feed")
@@ -87,6 +88,7 @@ func turbinePlant(t testing.TB) *Plant {
 }
 
 func TestTurbineSteamRate(t *testing.T) {
+	t.Parallel()
 	// plant-checks.md §8 [C]: 16 bar(g) dry saturated to 0.2 bar(a),
 	// η_is 0.65, η_mech·gear 0.95: Δh_s 688.5 kJ/kg and 8.47 kg/kWh
 	// (±0.3 %, §11 item 10).
@@ -112,15 +114,16 @@ func TestTurbineSteamRate(t *testing.T) {
 }
 
 func TestFeedPumpPower(t *testing.T) {
+	t.Parallel()
 	// plant-checks.md §9 [C]: 10 t/h at 60 °C, Δp 10 bar, η 0.55:
 	// P_hyd 2.824 kW, shaft 5.135 kW (the issue quotes 5.14 kW).
 	p := New("pump check", Options{})
-	must(t, p.Add(&MakeUp{UnitBase: UnitBase{Name: "makeup"}, T: 333.15, P: 1e5}))
-	must(t, p.Add(&FeedTank{UnitBase: UnitBase{Name: "tank"}, P: 1e5}))
-	must(t, p.Add(&FeedPump{UnitBase: UnitBase{Name: "fp"}, Discharge: 11 * bar, Eta: 0.55}))
-	must(t, p.Add(&Boiler{UnitBase: UnitBase{Name: "b1"}, MCR: 4, DrumP: 10 * bar,
+	must(t, p.Add(&MakeUp{Base: Base{Name: "makeup"}, T: 333.15, P: 1e5}))
+	must(t, p.Add(&FeedTank{Base: Base{Name: "tank"}, P: 1e5}))
+	must(t, p.Add(&FeedPump{Base: Base{Name: "fp"}, Discharge: 11 * bar, Eta: 0.55}))
+	must(t, p.Add(&Boiler{Base: Base{Name: "b1"}, MCR: 4, DrumP: 10 * bar,
 		Efficiency: flatEta(0.85), Fuel: FuelSpec{LHV: 40.2e6}}))
-	must(t, p.Add(&Consumer{UnitBase: UnitBase{Name: "load"}, SteamFlow: 10000.0 / 3600}))
+	must(t, p.Add(&Consumer{Base: Base{Name: "load"}, SteamFlow: 10000.0 / 3600}))
 	p.Connect("mu", Pos{}, "makeup", "out", "tank", "in")
 	p.Connect("suction", Pos{}, "tank", "out", "fp", "in")
 	p.Connect("feed", Pos{}, "fp", "out", "b1", "feed")
@@ -144,17 +147,17 @@ func twoBoilers(t testing.TB, opt Options) *Plant {
 	p := New("two boilers", opt)
 	fuel := FuelSpec{Name: "HFO", LHV: 40.2e6, CO2Factor: 3.114}
 	eta := &EfficiencyTable{Load: []float64{0.25, 0.5, 0.75, 1.0}, Eta: []float64{0.80, 0.84, 0.85, 0.845}}
-	must(t, p.Add(&MakeUp{UnitBase: UnitBase{Name: "makeup"}, T: 288.15}))
-	must(t, p.Add(&FeedTank{UnitBase: UnitBase{Name: "hotwell"}, HeatLoss: 5e3}))
-	must(t, p.Add(&FeedPump{UnitBase: UnitBase{Name: "fp"}, Boilers: []string{"b1", "b2"}, Margin: 3 * bar, Eta: 0.45}))
-	must(t, p.Add(&Header{UnitBase: UnitBase{Name: "feed header"}}))
-	must(t, p.Add(&Boiler{UnitBase: UnitBase{Name: "b1"}, MCR: 10000.0 / 3600, DrumP: gauge(7), Turndown: 4,
+	must(t, p.Add(&MakeUp{Base: Base{Name: "makeup"}, T: 288.15}))
+	must(t, p.Add(&FeedTank{Base: Base{Name: "hotwell"}, HeatLoss: 5e3}))
+	must(t, p.Add(&FeedPump{Base: Base{Name: "fp"}, Boilers: []string{"b1", "b2"}, Margin: 3 * bar, Eta: 0.45}))
+	must(t, p.Add(&Header{Base: Base{Name: "feed header"}}))
+	must(t, p.Add(&Boiler{Base: Base{Name: "b1"}, MCR: 10000.0 / 3600, DrumP: gauge(7), Turndown: 4,
 		Blowdown: 0.01, Dryness: 0.98, Efficiency: eta, Fuel: fuel}))
-	must(t, p.Add(&Boiler{UnitBase: UnitBase{Name: "b2"}, MCR: 10000.0 / 3600, DrumP: gauge(7), Turndown: 4,
+	must(t, p.Add(&Boiler{Base: Base{Name: "b2"}, MCR: 10000.0 / 3600, DrumP: gauge(7), Turndown: 4,
 		Blowdown: 0.01, Dryness: 0.98, Efficiency: eta, Fuel: fuel}))
-	must(t, p.Add(&Header{UnitBase: UnitBase{Name: "main"}, HeatLoss: 10e3}))
-	must(t, p.Add(&Consumer{UnitBase: UnitBase{Name: "heating"}, Duty: 2e6, SubCooling: 10, ReturnFraction: 0.95}))
-	must(t, p.Add(&Consumer{UnitBase: UnitBase{Name: "sundry"}, SteamFlow: 0.1}))
+	must(t, p.Add(&Header{Base: Base{Name: "main"}, HeatLoss: 10e3}))
+	must(t, p.Add(&Consumer{Base: Base{Name: "heating"}, Duty: 2e6, SubCooling: 10, ReturnFraction: 0.95}))
+	must(t, p.Add(&Consumer{Base: Base{Name: "sundry"}, SteamFlow: 0.1}))
 	p.Connect("makeup", Pos{}, "makeup", "out", "hotwell", "in")
 	p.Connect("suction", Pos{}, "hotwell", "out", "fp", "in")
 	p.Connect("discharge", Pos{}, "fp", "out", "feed header", "in")
@@ -169,6 +172,7 @@ func twoBoilers(t testing.TB, opt Options) *Plant {
 }
 
 func TestClosedPlantBalances(t *testing.T) {
+	t.Parallel()
 	// A closed plant with returns, losses and make-up: the balances computed
 	// from the solved lines close (mass ≤ 1e-9, energy ≤ 1e-6 relative; the
 	// limits are the plant issue's, common practice for a converged
@@ -207,11 +211,12 @@ func TestClosedPlantBalances(t *testing.T) {
 func demandCase(name string, kgh float64) Case {
 	return Case{Name: name, Set: []Setting{
 		{Unit: "heating", Param: "duty", Value: 0},
-		{Unit: "sundry", Param: "steam_flow", Value: kgh / 3600},
+		{Unit: "sundry", Param: "steam", Value: kgh / 3600},
 	}}
 }
 
 func TestFiringDecision(t *testing.T) {
+	t.Parallel()
 	// The firing rule (common practice, no source; plant-checks.md §3.6
 	// [CP]): one boiler while the demand is at most 85 % of its MCR, both
 	// above; a boiler below MCR/turndown cycles.
@@ -249,6 +254,7 @@ func TestFiringDecision(t *testing.T) {
 }
 
 func TestShortfallIsAVerdict(t *testing.T) {
+	t.Parallel()
 	p := twoBoilers(t, Options{})
 	cr, err := p.Solve(context.Background(), demandCase("discharge", 25000))
 	must(t, err)
@@ -271,6 +277,7 @@ func TestShortfallIsAVerdict(t *testing.T) {
 }
 
 func TestForcedFiring(t *testing.T) {
+	t.Parallel()
 	p := twoBoilers(t, Options{})
 	c := demandCase("forced", 3000)
 	c.Fire = []string{"b1", "b2"}
@@ -286,6 +293,7 @@ func TestForcedFiring(t *testing.T) {
 }
 
 func TestGraphFaults(t *testing.T) {
+	t.Parallel()
 	tests := []struct {
 		name  string
 		build func(p *Plant)
@@ -294,8 +302,8 @@ func TestGraphFaults(t *testing.T) {
 		{
 			name: "missing connection",
 			build: func(p *Plant) {
-				must(t, p.Add(&MakeUp{UnitBase: UnitBase{Name: "makeup"}, T: 300}))
-				must(t, p.Add(&Boiler{UnitBase: UnitBase{Name: "b1"}, MCR: 1, DrumP: 8e5, Efficiency: flatEta(0.85), Fuel: FuelSpec{LHV: 40e6}}))
+				must(t, p.Add(&MakeUp{Base: Base{Name: "makeup"}, T: 300}))
+				must(t, p.Add(&Boiler{Base: Base{Name: "b1"}, MCR: 1, DrumP: 8e5, Efficiency: flatEta(0.85), Fuel: FuelSpec{LHV: 40e6}}))
 				p.Connect("feed", Pos{File: "ship.lua", Line: 7}, "makeup", "out", "b1", "feed")
 			},
 			want: []string{`unit "b1"`, `outlet "steam" is not connected`},
@@ -303,8 +311,8 @@ func TestGraphFaults(t *testing.T) {
 		{
 			name: "unknown port and medium",
 			build: func(p *Plant) {
-				must(t, p.Add(&MakeUp{UnitBase: UnitBase{Name: "makeup"}, T: 300}))
-				must(t, p.Add(&Consumer{UnitBase: UnitBase{Name: "c"}, Duty: 1}))
+				must(t, p.Add(&MakeUp{Base: Base{Name: "makeup"}, T: 300}))
+				must(t, p.Add(&Consumer{Base: Base{Name: "c"}, Duty: 1}))
 				p.Connect("x", Pos{File: "ship.lua", Line: 9}, "makeup", "out", "c", "steam")
 			},
 			want: []string{"ship.lua:9", `has no inlet "steam"`, `"in"`},
@@ -314,10 +322,10 @@ func TestGraphFaults(t *testing.T) {
 			// A back-pressure turbine's power sets its steam flow, and the
 			// consumer it exhausts into has a set steam flow too.
 			build: func(p *Plant) {
-				must(t, p.Add(&MakeUp{UnitBase: UnitBase{Name: "makeup"}, T: 300}))
-				must(t, p.Add(&Boiler{UnitBase: UnitBase{Name: "b1"}, MCR: 1, DrumP: 8e5, Efficiency: flatEta(0.85), Fuel: FuelSpec{LHV: 40e6}}))
-				must(t, p.Add(&Turbine{UnitBase: UnitBase{Name: "tg"}, Power: 1e5, ExhaustP: 3e5, EtaIs: 0.6}))
-				must(t, p.Add(&Consumer{UnitBase: UnitBase{Name: "lp user"}, SteamFlow: 0.1}))
+				must(t, p.Add(&MakeUp{Base: Base{Name: "makeup"}, T: 300}))
+				must(t, p.Add(&Boiler{Base: Base{Name: "b1"}, MCR: 1, DrumP: 8e5, Efficiency: flatEta(0.85), Fuel: FuelSpec{LHV: 40e6}}))
+				must(t, p.Add(&Turbine{Base: Base{Name: "tg"}, Power: 1e5, ExhaustP: 3e5, EtaIs: 0.6}))
+				must(t, p.Add(&Consumer{Base: Base{Name: "lp user"}, SteamFlow: 0.1}))
 				p.Connect("feed", Pos{}, "makeup", "out", "b1", "feed")
 				p.Connect("hp", Pos{}, "b1", "steam", "tg", "in")
 				p.Connect("bp", Pos{}, "tg", "out", "lp user", "in")
@@ -327,10 +335,10 @@ func TestGraphFaults(t *testing.T) {
 		{
 			name: "free pressure",
 			build: func(p *Plant) {
-				must(t, p.Add(&MakeUp{UnitBase: UnitBase{Name: "makeup"}, T: 300}))
-				must(t, p.Add(&FeedPump{UnitBase: UnitBase{Name: "fp"}, Eta: 0.5}))
-				must(t, p.Add(&Boiler{UnitBase: UnitBase{Name: "b1"}, MCR: 1, DrumP: 8e5, Efficiency: flatEta(0.85), Fuel: FuelSpec{LHV: 40e6}}))
-				must(t, p.Add(&Consumer{UnitBase: UnitBase{Name: "c"}, Duty: 1e5}))
+				must(t, p.Add(&MakeUp{Base: Base{Name: "makeup"}, T: 300}))
+				must(t, p.Add(&FeedPump{Base: Base{Name: "fp"}, Eta: 0.5}))
+				must(t, p.Add(&Boiler{Base: Base{Name: "b1"}, MCR: 1, DrumP: 8e5, Efficiency: flatEta(0.85), Fuel: FuelSpec{LHV: 40e6}}))
+				must(t, p.Add(&Consumer{Base: Base{Name: "c"}, Duty: 1e5}))
 				p.Connect("a", Pos{}, "makeup", "out", "fp", "in")
 				p.Connect("b", Pos{}, "fp", "out", "b1", "feed")
 				p.Connect("c", Pos{}, "b1", "steam", "c", "in")
@@ -360,6 +368,7 @@ func TestGraphFaults(t *testing.T) {
 }
 
 func TestWarmStartIsCheap(t *testing.T) {
+	t.Parallel()
 	p := twoBoilers(t, Options{})
 	ctx := context.Background()
 	_, err := p.Solve(ctx, demandCase("a", 5000))
@@ -374,6 +383,7 @@ func TestWarmStartIsCheap(t *testing.T) {
 }
 
 func TestSteamStateOfBoiler(t *testing.T) {
+	t.Parallel()
 	// The boiler's steam at dryness 0.98 has h = h_f + 0.98·h_fg at the drum
 	// pressure (IAPWS-IF97 via the water package, which its own tests check
 	// against the IF97 verification tables).
@@ -390,6 +400,7 @@ func TestSteamStateOfBoiler(t *testing.T) {
 }
 
 func TestDrainCoolerStopsFlashing(t *testing.T) {
+	t.Parallel()
 	// With the heating condensate cooled to 80 °C before the hotwell nothing
 	// flashes, the hotwell stays below the pump's suction limit, and the
 	// cooler's heat is counted in the energy balance (which must still
@@ -457,6 +468,8 @@ func BenchmarkCaseWarm(b *testing.B) {
 
 type fixedModel struct{ w float64 }
 
+func (m fixedModel) Clone() DutyModel { return m }
+
 func (m fixedModel) Duty(c Conditions) (Duty, error) {
 	// Duty proportional to how far the air is below 20 °C, as a stand-in
 	// for an accommodation-heating model.
@@ -464,14 +477,15 @@ func (m fixedModel) Duty(c Conditions) (Duty, error) {
 }
 
 func TestCoupledConsumers(t *testing.T) {
+	t.Parallel()
 	// The boiler's own burner heater takes steam in proportion to the
 	// boiler's fuel flow, and atomising steam likewise: the coupling is
 	// solved with the plant, so the heater's duty equals DutyPerFuel times
 	// the solved fuel flow (common practice to model it so, no source).
 	p := twoBoilers(t, Options{})
-	must(t, p.Add(&Consumer{UnitBase: UnitBase{Name: "b1 fo heater"}, FuelOf: "b1", DutyPerFuel: 2.0e5, ReturnFraction: 1, Label: "fuel oil heater"}))
-	must(t, p.Add(&Consumer{UnitBase: UnitBase{Name: "b1 atomising"}, FuelOf: "b1", SteamPerFuel: 0.3, Label: "atomising steam"}))
-	must(t, p.Add(&Consumer{UnitBase: UnitBase{Name: "accommodation"}, Model: fixedModel{w: 20e3}, ReturnFraction: 1}))
+	must(t, p.Add(&Consumer{Base: Base{Name: "b1 fo heater"}, FuelOf: "b1", DutyPerFuel: 2.0e5, ReturnFraction: 1, Label: "fuel oil heater"}))
+	must(t, p.Add(&Consumer{Base: Base{Name: "b1 atomising"}, FuelOf: "b1", SteamPerFuel: 0.3, Label: "atomising steam"}))
+	must(t, p.Add(&Consumer{Base: Base{Name: "accommodation"}, Model: fixedModel{w: 20e3}, ReturnFraction: 1}))
 	p.Connect("to fo heater", Pos{}, "main", "out", "b1 fo heater", "in")
 	p.Connect("fo heater return", Pos{}, "b1 fo heater", "out", "hotwell", "in")
 	p.Connect("to atomising", Pos{}, "main", "out", "b1 atomising", "in")
@@ -496,19 +510,21 @@ func TestCoupledConsumers(t *testing.T) {
 }
 
 func TestEmptyPlant(t *testing.T) {
+	t.Parallel()
 	p := New("nothing", Options{})
 	if err := p.Check(); err == nil || !strings.Contains(err.Error(), "no units") {
 		t.Errorf("empty plant: %v", err)
 	}
 	// A unit whose ports are all optional or unconnected still fails
 	// cleanly: a make-up with nowhere to go.
-	must(t, p.Add(&MakeUp{UnitBase: UnitBase{Name: "makeup"}, T: 300}))
+	must(t, p.Add(&MakeUp{Base: Base{Name: "makeup"}, T: 300}))
 	if err := p.Check(); err == nil || !strings.Contains(err.Error(), "not connected") {
 		t.Errorf("lone make-up: %v", err)
 	}
 }
 
 func TestLeadLagSharing(t *testing.T) {
+	t.Parallel()
 	// Lead-lag (common practice, no source): the lead boiler holds its set
 	// load and the other takes the rest.
 	p := twoBoilers(t, Options{Sharing: LeadLag, LeadLoad: 0.7})
@@ -526,17 +542,18 @@ func TestLeadLagSharing(t *testing.T) {
 }
 
 func TestObservationTank(t *testing.T) {
+	t.Parallel()
 	// Returning condensate through a vented observation tank: what flashes
 	// there is vented and made up, the rest drains to the hotwell, and
 	// the tank's temperature is not reported as the feed's.
 	p := New("observation", Options{})
 	fuel := FuelSpec{Name: "HFO", LHV: 40.2e6, CO2Factor: 3.114}
-	must(t, p.Add(&MakeUp{UnitBase: UnitBase{Name: "makeup"}, T: 288.15}))
-	must(t, p.Add(&FeedTank{UnitBase: UnitBase{Name: "hotwell"}}))
-	must(t, p.Add(&FeedTank{UnitBase: UnitBase{Name: "obs"}, Observation: true, HeatLoss: 3e3}))
-	must(t, p.Add(&FeedPump{UnitBase: UnitBase{Name: "fp"}, Boilers: []string{"b1"}, Margin: 2e5, Eta: 0.5}))
-	must(t, p.Add(&Boiler{UnitBase: UnitBase{Name: "b1"}, MCR: 3, DrumP: gauge(7), Efficiency: flatEta(0.85), Fuel: fuel}))
-	must(t, p.Add(&Consumer{UnitBase: UnitBase{Name: "heating"}, Duty: 1e6, ReturnFraction: 1}))
+	must(t, p.Add(&MakeUp{Base: Base{Name: "makeup"}, T: 288.15}))
+	must(t, p.Add(&FeedTank{Base: Base{Name: "hotwell"}}))
+	must(t, p.Add(&FeedTank{Base: Base{Name: "obs"}, Observation: true, HeatLoss: 3e3}))
+	must(t, p.Add(&FeedPump{Base: Base{Name: "fp"}, Boilers: []string{"b1"}, Margin: 2e5, Eta: 0.5}))
+	must(t, p.Add(&Boiler{Base: Base{Name: "b1"}, MCR: 3, DrumP: gauge(7), Efficiency: flatEta(0.85), Fuel: fuel}))
+	must(t, p.Add(&Consumer{Base: Base{Name: "heating"}, Duty: 1e6, ReturnFraction: 1}))
 	for _, c := range [][5]string{
 		{"mu", "makeup", "out", "hotwell", "in"}, {"suction", "hotwell", "out", "fp", "in"},
 		{"feed", "fp", "out", "b1", "feed"}, {"steam", "b1", "steam", "heating", "in"},

@@ -8,8 +8,8 @@ import (
 )
 
 // CaseResult is the answer to one load case. Every figure is SI (kg/s, W,
-// Pa, K, J/kg); JSON gives the documented schema in the units its keys
-// name.
+// Pa, K, J/kg); package plant/schema gives its documented form for
+// reports and scripts, in the units its keys name.
 type CaseResult struct {
 	Name       string
 	Pos        Pos
@@ -51,7 +51,7 @@ type CaseResult struct {
 	Boilers   []BoilerResult
 	EGEs      []EGEResult
 	Consumers []ConsumerResult
-	Units     []UnitResult
+	Units     []ComponentResult
 	Lines     []LineResult
 	Warnings  []string
 
@@ -125,9 +125,9 @@ type ConsumerResult struct {
 	Inputs map[string]float64
 }
 
-// UnitResult holds the figures of a unit that is neither a boiler nor a
+// ComponentResult holds the figures of a unit that is neither a boiler nor a
 // consumer, by name with the unit in the key.
-type UnitResult struct {
+type ComponentResult struct {
 	Name    string
 	Kind    string
 	Figures Figures

@@ -9,9 +9,9 @@ import (
 	"steamcase/solver"
 )
 
-// Case is one load case: the surroundings, the parameters of units that
-// differ from the plant's (a consumer's duty, a turbine's power, a unit
-// switched off), and optionally which boilers must fire.
+// Case is one load case: the surroundings, the parameters of components
+// that differ from the plant's (a consumer's duty, a turbine's power, a
+// component switched off), and optionally which boilers must fire.
 type Case struct {
 	Name       string
 	Pos        Pos
@@ -22,28 +22,65 @@ type Case struct {
 	Fire []string
 }
 
-// Setting changes one parameter of one unit for a case.
+// Setting changes one parameter of one component for a case: Param is the
+// name of one of the component's keys that a case may set (Key.Case), and
+// Value its value in SI (1 or 0 for a flag, the index of a choice), or
+// Text its value for a text key (a boiler's fuel grade).
 type Setting struct {
 	Unit  string
 	Param string
 	Value float64
+	Text  string
 	Pos   Pos
 }
 
-// domainErr marks a unit's failure while the solver explores: the solver
-// shortens a line-search step that meets it and reports it otherwise.
+// session is the solve-time state of a compiled plant, apart from its
+// description: the system the components registered, the solver and its
+// problem, the firing configuration being solved, the last solution (the
+// next case's warm start) and the scratch of the firing rule's trials.
+type session struct {
+	asm   *assembly
+	ports map[string]portLines
+
+	dispEqs   []int
+	fire      []bool    // per boiler of asm.roles.boilers
+	firingBuf []*Boiler // scratch for the firing list
+
+	prob   solver.Problem
+	slv    *solver.Solver
+	slvRes solver.Result
+	solves int // configurations solved for the present case
+
+	last     []float64 // last converged unknowns, for warm starts
+	x0       []float64 // starting point scratch
+	lastCopy []float64
+	// hint is how many boilers fired in the last case, where the firing
+	// decision of the next starts; keep* hold a solution during a trial.
+	hint       int
+	hintSet    bool
+	keepX      []float64
+	keepRes    solver.Result
+	keepSolves int
+
+	ev eval
+}
+
+// domainErr marks a component's failure while the solver explores: the
+// solver shortens a line-search step that meets it and reports it
+// otherwise.
 type domainErr struct{ err error }
 
 func (e domainErr) Error() string        { return e.err.Error() }
 func (e domainErr) Unwrap() error        { return e.err }
 func (e domainErr) Is(target error) bool { return target == solver.ErrDomain }
 
-// residual evaluates every unit's equations and the dispatch equations.
+// residual evaluates every component's equations and the dispatch
+// equations: the solver's Problem.Residual.
 func (p *Plant) residual(r, x []float64) error {
-	ev := &p.ev
+	ev := &p.s.ev
 	ev.x = x
-	for _, u := range p.units {
-		if err := u.residual(ev, r); err != nil {
+	for _, c := range p.comps {
+		if err := c.residual(ev, r); err != nil {
 			return domainErr{err}
 		}
 	}
@@ -51,69 +88,68 @@ func (p *Plant) residual(r, x []float64) error {
 	return nil
 }
 
-func (p *Plant) solverSettings() *solver.Settings {
-	s := solver.Settings{}
-	if p.Opt.Solver != nil {
-		s = *p.Opt.Solver
-	}
-	s.SkipDiagnosis = true // compile has diagnosed the structure
-	if s.Factorizer == nil {
-		// A plant's Jacobian is sparse (each equation touches a few
-		// lines): the sparse LU is several times faster than the dense
-		// one at a plant's size, and a minimum-degree column order on the
-		// pattern keeps its fill and its symbolic work small. Each plant
-		// (and clone) has its own.
-		s.Factorizer = &solver.SparseLU{MinDegree: true}
-	}
-	return &s
-}
-
 // solveConfig solves the plant with the boilers in fire firing, starting
 // from the last converged point when there is one.
 func (p *Plant) solveConfig(ctx context.Context, fire []bool) error {
-	copy(p.disp.fire, fire)
-	if p.x0 == nil {
-		p.x0 = make([]float64, p.prob.Dim)
+	s := p.s
+	copy(s.fire, fire)
+	if s.x0 == nil {
+		s.x0 = make([]float64, s.prob.Dim)
 	}
-	warm := p.last != nil
+	warm := s.last != nil
 	if warm {
-		copy(p.x0, p.last)
+		copy(s.x0, s.last)
 	} else {
-		p.guess(p.x0)
+		p.guess(s.x0)
 	}
-	res, err := p.slv.Solve(ctx, p.x0)
+	res, err := s.slv.Solve(ctx, s.x0)
 	if err != nil && warm && ctx.Err() == nil {
-		p.guess(p.x0)
-		res, err = p.slv.Solve(ctx, p.x0)
+		p.guess(s.x0)
+		res, err = s.slv.Solve(ctx, s.x0)
 	}
-	p.slvRes = *res
+	s.slvRes = *res
 	if err != nil {
 		return err
 	}
-	if p.last == nil {
-		p.last = make([]float64, p.prob.Dim)
+	if s.last == nil {
+		s.last = make([]float64, s.prob.Dim)
 	}
-	copy(p.last, res.X)
-	p.solves++
+	copy(s.last, res.X)
+	s.solves++
 	return nil
 }
 
 // ColdStart forgets the last solution, so that the next case starts from
 // the plant's own guess.
-func (p *Plant) ColdStart() { p.last, p.hintSet = nil, false }
-
-// applySettings sets the case's parameters and returns a function that
-// restores the plant's own.
-func (p *Plant) applySettings(c *Case) (restore func(), err error) {
-	type saved struct {
-		ptr *float64
-		old float64
+func (p *Plant) ColdStart() {
+	if p.s != nil {
+		p.s.last, p.s.hintSet = nil, false
 	}
-	var olds []saved
+}
+
+// applySettings sets the case's parameters through the components' keys,
+// checks every component, prepares each for the case, and returns a
+// function that restores the plant's own parameters.
+func (p *Plant) applySettings(c *Case) (restore func(), err error) {
+	var undo []func()
 	restore = func() {
-		for i := len(olds) - 1; i >= 0; i-- {
-			*olds[i].ptr = olds[i].old
+		for i := len(undo) - 1; i >= 0; i-- {
+			undo[i]()
 		}
+	}
+	set := func(u Component, k *Key, v float64) {
+		old, _ := k.Get(u)
+		undo = append(undo, func() { k.Set(u, old) })
+		k.Set(u, v)
+	}
+	setText := func(u Component, k *Key, v string) error {
+		back := k.keep(u)
+		if err := k.text(u, []string{v}); err != nil {
+			back()
+			return err
+		}
+		undo = append(undo, back)
+		return nil
 	}
 	var fs faults
 	for _, s := range c.Set {
@@ -122,36 +158,39 @@ func (p *Plant) applySettings(c *Case) (restore func(), err error) {
 			fs.add(s.Pos, s.Unit, "", "case %q sets %q of a unit that the plant does not have", c.Name, s.Param)
 			continue
 		}
-		ptr, err := u.param(s.Param)
-		if err != nil {
-			var ue *UnitError
-			if errors.As(err, &ue) {
-				err = ue.Err
+		keys := u.Keys()
+		k, ok := findKey(keys, s.Param)
+		if !ok || !k.Case || !k.Settable() {
+			fs.add(s.Pos, s.Unit, "", "%s", paramMsg(u, s.Param))
+			continue
+		}
+		if k.Kind == KeyText {
+			if err := setText(u, k, s.Text); err != nil {
+				fs.add(s.Pos, s.Unit, "", "%v", err)
 			}
-			fs.add(s.Pos, s.Unit, "", "%v", err)
 			continue
 		}
 		if !finite(s.Value) {
 			fs.add(s.Pos, s.Unit, "", "%s must be a number; got %g", s.Param, s.Value)
 			continue
 		}
-		olds = append(olds, saved{ptr, *ptr})
-		*ptr = s.Value
+		set(u, k, s.Value)
+		for _, name := range k.Clears {
+			if ck, ok := findKey(keys, name); ok {
+				set(u, ck, 0)
+			}
+		}
 	}
-	for _, u := range p.units {
+	for _, u := range p.comps {
 		u.check(&fs)
-		switch v := u.(type) {
-		case *FeedPump:
-			if err := v.resolve(p); err != nil {
-				fs.add(v.Pos, v.Name, "", "%v", err.(*UnitError).Err)
-			}
-		case *Consumer:
-			if err := v.prepare(c.Conditions); err != nil {
-				fs.add(v.Pos, v.Name, "", "%v", err.(*UnitError).Err)
-			}
-		case *ExhaustGasEconomiser:
-			if err := v.prepare(c.Conditions); err != nil {
-				fs.add(v.Pos, v.Name, "", "%v", err.(*UnitError).Err)
+		if pr, ok := u.(preparer); ok {
+			if err := pr.prepare(p, c.Conditions); err != nil {
+				b := u.Ident()
+				var ce *ComponentError
+				if errors.As(err, &ce) {
+					err = ce.Err
+				}
+				fs.add(b.Pos, b.Name, "", "%v", err)
 			}
 		}
 	}
@@ -175,30 +214,15 @@ func (p *Plant) Solve(ctx context.Context, c Case) (*CaseResult, error) {
 		return nil, err
 	}
 	defer restore()
-	p.ev = eval{cond: c.Conditions, pl: p, disp: &p.disp}
-	p.solves = 0
+	s := p.s
+	s.ev = eval{cond: c.Conditions, pl: p}
+	s.solves = 0
 
-	n := len(p.boilers)
-	fire := make([]bool, n)
+	boilers := s.asm.roles.boilers
+	fire := make([]bool, len(boilers))
 	forced := c.Fire != nil
 	if forced {
-		var fs faults
-		for _, name := range c.Fire {
-			found := false
-			for i, b := range p.boilers {
-				if b.Name == name {
-					fire[i] = true
-					found = true
-				}
-			}
-			if !found {
-				fs.add(c.Pos, name, "", "case %q forces %q to fire, but the plant has no oil-fired boiler of that name", c.Name, name)
-			}
-		}
-		if len(c.Fire) == 0 && len(p.dumps) == 0 && n > 0 {
-			fs.add(c.Pos, "", "", "case %q forces every boiler off, but without an exhaust-gas economiser and a dump condenser nothing raises steam", c.Name)
-		}
-		if err := fs.err(); err != nil {
+		if err := p.forcedFiring(c, fire); err != nil {
 			return nil, err
 		}
 		if err := p.solveConfig(ctx, fire); err != nil {
@@ -218,6 +242,29 @@ func (p *Plant) Solve(ctx context.Context, c Case) (*CaseResult, error) {
 	return cr, nil
 }
 
+// forcedFiring marks the boilers a case forces to fire, and refuses names
+// that are not boilers of the plant.
+func (p *Plant) forcedFiring(c Case, fire []bool) error {
+	var fs faults
+	boilers := p.s.asm.roles.boilers
+	for _, name := range c.Fire {
+		found := false
+		for i, b := range boilers {
+			if b.Name == name {
+				fire[i] = true
+				found = true
+			}
+		}
+		if !found {
+			fs.add(c.Pos, name, "", "case %q forces %q to fire, but the plant has no oil-fired boiler of that name", c.Name, name)
+		}
+	}
+	if len(c.Fire) == 0 && len(p.s.asm.roles.dumps) == 0 && len(boilers) > 0 {
+		fs.add(c.Pos, "", "", "case %q forces every boiler off, but without an exhaust-gas economiser and a dump condenser nothing raises steam", c.Name)
+	}
+	return fs.err()
+}
+
 // egeSaving solves the case again with every exhaust-gas economiser out of
 // service and records the boiler fuel they save. The plant's warm-start
 // point is kept as the case with the economisers left it.
@@ -225,36 +272,37 @@ func (p *Plant) egeSaving(ctx context.Context, c Case, cr *CaseResult) error {
 	if p.Opt.NoEGESaving || cr.EGESteamKgS <= 0 {
 		return nil
 	}
+	s := p.s
 	var eges []*ExhaustGasEconomiser
-	for _, u := range p.units {
-		if e, ok := u.(*ExhaustGasEconomiser); ok && e.Off == 0 {
+	for _, e := range s.asm.roles.eges {
+		if !e.Off {
 			eges = append(eges, e)
 		}
 	}
-	if p.lastCopy == nil {
-		p.lastCopy = make([]float64, len(p.last))
+	if s.lastCopy == nil {
+		s.lastCopy = make([]float64, len(s.last))
 	}
-	copy(p.lastCopy, p.last)
-	saved := p.slvRes
-	hint, hintSet := p.hint, p.hintSet
+	copy(s.lastCopy, s.last)
+	saved := s.slvRes
+	hint, hintSet := s.hint, s.hintSet
 	defer func() {
-		p.hint, p.hintSet = hint, hintSet
+		s.hint, s.hintSet = hint, hintSet
 		for _, e := range eges {
-			e.Off = 0
+			e.Off = false
 		}
-		copy(p.last, p.lastCopy)
-		p.slvRes = saved
+		copy(s.last, s.lastCopy)
+		s.slvRes = saved
 	}()
 	for _, e := range eges {
-		e.Off = 1
-		if err := e.prepare(c.Conditions); err != nil {
+		e.Off = true
+		if err := e.prepare(p, c.Conditions); err != nil {
 			return err
 		}
 	}
-	fire := make([]bool, len(p.boilers))
+	fire := make([]bool, len(s.asm.roles.boilers))
 	var err error
-	if c.Fire != nil && len(c.Fire) > 0 {
-		for i, b := range p.boilers {
+	if len(c.Fire) > 0 {
+		for i, b := range s.asm.roles.boilers {
 			for _, n := range c.Fire {
 				fire[i] = fire[i] || b.Name == n
 			}
@@ -264,176 +312,23 @@ func (p *Plant) egeSaving(ctx context.Context, c Case, cr *CaseResult) error {
 		err = p.decide(ctx, fire)
 	}
 	if err != nil {
-		return &SolveError{Case: c.Name + " (without exhaust-gas economisers)", Pos: c.Pos, Status: p.slvRes.Status, Err: err}
+		return &SolveError{Case: c.Name + " (without exhaust-gas economisers)", Pos: c.Pos, Status: s.slvRes.Status, Err: err}
 	}
 	var fuel float64
-	for _, b := range p.boilers {
-		fuel += p.last[b.fuel]
+	for _, b := range s.asm.roles.boilers {
+		fuel += s.last[b.fuel]
 	}
 	cr.EGEFuelSavedKgS = fuel - cr.FuelKgS
 	for i := range cr.EGEs {
 		cr.EGEs[i].FuelSavedKgS = cr.EGEFuelSavedKgS
 	}
 	for _, e := range eges {
-		e.Off = 0
-		if err := e.prepare(c.Conditions); err != nil {
+		e.Off = false
+		if err := e.prepare(p, c.Conditions); err != nil {
 			return err
 		}
 	}
 	return nil
-}
-
-// decide finds how many boilers must fire: none if the steam system has a
-// dump condenser and the exhaust-gas economisers leave steam over without
-// them; else the fewest, in declaration order, whose demand stays within
-// UsableFraction of their MCR; else all.
-//
-// It starts from the number that fired in the plant's previous case (a
-// voyage's hours rarely change it) and moves up while the demand does not
-// fit, then down while fewer boilers would do. A step down is only tried
-// when it could succeed: one boiler fewer only if the demand is within 5 %
-// of what the fewer could carry (the demand hardly depends on how many
-// boilers share it: only consumers driven by the boilers' fuel flow change
-// with it), and no boiler at all only if the boilers raise no more than
-// those fuel-driven consumers take. Without a previous case it starts from
-// none (or one) and moves up, as the rule reads.
-func (p *Plant) decide(ctx context.Context, fire []bool) error {
-	n := len(p.boilers)
-	try0 := len(p.dumps) > 0 && p.egeHeat() > 0
-	if n == 0 {
-		return p.solveConfig(ctx, fire)
-	}
-	lowest := 1
-	if try0 {
-		lowest = 0
-	}
-	k := lowest
-	hinted := p.hintSet && p.hint > lowest && p.hint <= n
-	if hinted {
-		k = p.hint
-	}
-	// Up: the first k from the start that fits.
-	for {
-		ok, err := p.fits(ctx, fire, k)
-		if err != nil && hinted && ctx.Err() == nil {
-			// The last case's number does not solve here (the economisers
-			// now leave steam over, say): scan from the bottom instead.
-			k, hinted = lowest, false
-			continue
-		}
-		if err != nil && (k > 0 || ctx.Err() != nil) {
-			return err
-		}
-		if ok {
-			break
-		}
-		k++
-	}
-	// Down: while one boiler fewer would do.
-	for k > lowest && p.mayFit(k-1) {
-		p.keep()
-		ok, err := p.fits(ctx, fire, k-1)
-		if ctx.Err() != nil {
-			return ctx.Err()
-		}
-		if err == nil && ok {
-			k--
-			continue
-		}
-		p.restore(fire, k)
-		break
-	}
-	p.hint, p.hintSet = k, true
-	return nil
-}
-
-// fits solves the plant with the first k boilers firing and says whether
-// the firing rule accepts it.
-func (p *Plant) fits(ctx context.Context, fire []bool, k int) (bool, error) {
-	for i := range fire {
-		fire[i] = i < k
-	}
-	if err := p.solveConfig(ctx, fire); err != nil {
-		return false, err
-	}
-	if k == 0 {
-		return p.dumpFlow() >= 0, nil
-	}
-	if k == len(p.boilers) {
-		return true, nil
-	}
-	demand, mcr := p.firedDemand(k)
-	return demand <= p.Opt.UsableFraction*mcr*(1+1e-12), nil
-}
-
-// firedDemand is the steam of the first k boilers and their MCR at the
-// last solution.
-func (p *Plant) firedDemand(k int) (demand, mcr float64) {
-	for _, b := range p.boilers[:k] {
-		demand += p.last[b.steam.mIdx()]
-		mcr += b.MCR
-	}
-	return demand, mcr
-}
-
-// mayFit says whether j boilers could carry the demand of the present
-// solution (see decide).
-func (p *Plant) mayFit(j int) bool {
-	k := j + 1
-	demand, _ := p.firedDemand(k)
-	if j == 0 {
-		var coupled float64
-		for _, u := range p.units {
-			if c, ok := u.(*Consumer); ok && c.fuel >= 0 {
-				coupled += p.last[c.in.mIdx()]
-			}
-		}
-		return demand <= 1.1*coupled+1e-6
-	}
-	_, mcr := p.firedDemand(j)
-	return demand <= 1.05*p.Opt.UsableFraction*mcr
-}
-
-// keep saves the last solution before a trial that may be refused.
-func (p *Plant) keep() {
-	if len(p.keepX) != len(p.last) {
-		p.keepX = make([]float64, len(p.last))
-	}
-	copy(p.keepX, p.last)
-	p.keepRes = p.slvRes
-	p.keepSolves = p.solves
-}
-
-// restore brings back the solution kept before a refused trial, with k
-// boilers firing.
-func (p *Plant) restore(fire []bool, k int) {
-	copy(p.last, p.keepX)
-	p.slvRes = p.keepRes
-	p.solves++
-	for i := range fire {
-		fire[i] = i < k
-	}
-	copy(p.disp.fire, fire)
-}
-
-// egeHeat is the heat the exhaust-gas economisers take from the exhaust in
-// the present case, W.
-func (p *Plant) egeHeat() float64 {
-	var q float64
-	for _, u := range p.units {
-		if e, ok := u.(*ExhaustGasEconomiser); ok {
-			q += e.op.q
-		}
-	}
-	return q
-}
-
-func (p *Plant) dumpFlow() float64 {
-	var m float64
-	for _, d := range p.dumps {
-		m += p.last[d.in.mIdx()]
-	}
-	return m
 }
 
 // SolveError is a load case that the solver could not bring to a balance.
@@ -455,31 +350,48 @@ func (e *SolveError) Error() string {
 func (e *SolveError) Unwrap() error { return e.Err }
 
 func (p *Plant) solveErr(c Case, err error) error {
-	return &SolveError{Case: c.Name, Pos: c.Pos, Status: p.slvRes.Status, Err: err}
+	return &SolveError{Case: c.Name, Pos: c.Pos, Status: p.s.slvRes.Status, Err: err}
 }
 
 // report fills cr from the last converged point.
 func (p *Plant) report(cr *CaseResult) error {
-	ev := &p.ev
-	ev.x = p.last
-	cr.Converged = p.slvRes.Status == solver.Converged
-	cr.Iterations = p.slvRes.Stats.Iterations
-	cr.ResidualNorm = p.slvRes.ResidualNorm
-	cr.Solves = p.solves
-	cr.Units = make([]UnitResult, 0, len(p.units))
-	cr.Consumers = make([]ConsumerResult, 0, len(p.units))
-	cr.Boilers = make([]BoilerResult, 0, len(p.boilers))
+	s := p.s
+	ev := &s.ev
+	ev.x = s.last
+	cr.Converged = s.slvRes.Status == solver.Converged
+	cr.Iterations = s.slvRes.Stats.Iterations
+	cr.ResidualNorm = s.slvRes.ResidualNorm
+	cr.Solves = s.solves
+	cr.Units = make([]ComponentResult, 0, len(p.comps))
+	cr.Consumers = make([]ConsumerResult, 0, len(p.comps))
+	cr.Boilers = make([]BoilerResult, 0, len(s.asm.roles.boilers))
 	cr.Lines = make([]LineResult, 0, len(p.lines))
-	for _, u := range p.units {
-		if err := u.report(ev, cr); err != nil {
+	for _, c := range p.comps {
+		if err := c.report(ev, cr); err != nil {
 			return err
 		}
 	}
-	for _, u := range p.units {
-		if e, ok := u.(*Economiser); ok {
-			e.adjustBoiler(cr)
+	for _, c := range p.comps {
+		if f, ok := c.(finisher); ok {
+			f.finish(cr)
 		}
 	}
+	if err := p.reportLines(ev, cr); err != nil {
+		return err
+	}
+	p.reportTotals(cr)
+	b := &cr.boundary
+	mIn, mOut := b.massIn, b.massOut
+	cr.Balance.MassRel = closure(mIn, mOut, math.Max(math.Max(mIn, mOut), cr.SteamProductionKgS))
+	eIn := b.energyIn + b.heatIn + b.workIn
+	eOut := b.energyOut + b.heatOut + b.workOut
+	cr.Balance.EnergyRel = closure(eIn, eOut, math.Max(eIn, eOut))
+	cr.clean()
+	return nil
+}
+
+// reportLines adds the solved state of every water/steam line.
+func (p *Plant) reportLines(ev *eval, cr *CaseResult) error {
 	for _, l := range p.lines {
 		if l.medium != WaterSteam {
 			continue
@@ -491,7 +403,12 @@ func (p *Plant) report(cr *CaseResult) error {
 		lr.Name, lr.M = l.Name, ev.m(l)
 		cr.Lines = append(cr.Lines, lr)
 	}
+	return nil
+}
 
+// reportTotals sums the boilers and says whether the firing boilers carry
+// the case, with the margin before the next must fire.
+func (p *Plant) reportTotals(cr *CaseResult) {
 	var capFiring, capAll, fired float64
 	for _, b := range cr.Boilers {
 		cr.SteamProductionKgS += b.SteamKgS
@@ -509,7 +426,7 @@ func (p *Plant) report(cr *CaseResult) error {
 	case cr.BoilersFiring == 0:
 		cr.CanCarry = true
 		cr.MarginNextKgS = cr.DumpedKgS
-	case cr.BoilersFiring < len(p.boilers):
+	case cr.BoilersFiring < len(cr.Boilers):
 		cr.CanCarry = fired <= capFiring*(1+1e-9) || !cr.Forced
 		cr.MarginNextKgS = p.Opt.UsableFraction*capFiring - fired
 		if cr.Forced {
@@ -521,19 +438,25 @@ func (p *Plant) report(cr *CaseResult) error {
 	}
 	if !cr.CanCarry {
 		cr.ShortfallKgS = fired - capFiring
-		if cr.Forced && cr.BoilersFiring < len(p.boilers) {
+		if cr.Forced && cr.BoilersFiring < len(cr.Boilers) {
 			cr.warn("the boilers forced to fire cannot carry this case: short by %.0f kg/h", cr.ShortfallKgS*3600)
 		} else {
 			cr.warn("the plant cannot carry this case: short by %.0f kg/h", cr.ShortfallKgS*3600)
 		}
 	}
+}
 
-	b := &cr.boundary
-	mIn, mOut := b.massIn, b.massOut
-	cr.Balance.MassRel = closure(mIn, mOut, math.Max(math.Max(mIn, mOut), cr.SteamProductionKgS))
-	eIn := b.energyIn + b.heatIn + b.workIn
-	eOut := b.energyOut + b.heatOut + b.workOut
-	cr.Balance.EnergyRel = closure(eIn, eOut, math.Max(eIn, eOut))
-	cr.clean()
-	return nil
+// Outline returns the shape of a case result without solving anything:
+// every boiler, economiser, consumer and other component in the lists a
+// solved case has, every line, and zero figures. A script's check mode
+// returns it where a case would be solved.
+func (p *Plant) Outline(name string, cond Conditions) *CaseResult {
+	cr := &CaseResult{Name: name, Conditions: cond}
+	for _, c := range p.comps {
+		c.outline(cr)
+	}
+	for _, l := range p.lines {
+		cr.Lines = append(cr.Lines, LineResult{Name: l.Name})
+	}
+	return cr
 }

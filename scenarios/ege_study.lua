@@ -19,8 +19,8 @@ local s = study(ship, {
 
 check(s.hours == 8760, "the profile is one year")
 local saved = {}
-for i, v in ipairs(s.variants) do saved[i] = v.saved_fuel_t end
+for i, v in ipairs(s.variants) do saved[i] = v.fuel_saved_t end
 check(saved[2] > 0 and saved[3] > saved[2] and saved[4] >= saved[3],
   "a bigger economiser saves more, up to what the demand can use")
 print(string.format("EGE 16 kW/K saves %.0f t/yr of boiler fuel, %.0f t CO2, payback %.1f years",
-  s.by_name["EGE 16 kW/K"].saved_fuel_t, s.by_name["EGE 16 kW/K"].co2_avoided_t, s.by_name["EGE 16 kW/K"].payback_years))
+  s.by_name["EGE 16 kW/K"].fuel_saved_t, s.by_name["EGE 16 kW/K"].co2_avoided_t, s.by_name["EGE 16 kW/K"].payback_years))

@@ -1,116 +1,69 @@
 package scripting
 
 import (
-	"encoding/json"
 	"errors"
 	"fmt"
 	"math"
+	"reflect"
 	"sort"
+	"strings"
 
 	lua "github.com/yuin/gopher-lua"
 
 	"steamcase/plant"
+	"steamcase/plant/schema"
 	"steamcase/plant/units"
 )
 
-// setKey is a key a case may set for a unit kind: the script's key, the
-// plant's parameter, and how the value is read.
-type setKey struct {
-	key, param string
-	dim        units.Dimension // zero: see how
-	how        int
-	// model, when set, is a parameter of a loads model rather than of
-	// the plant: it returns a pointer to the field to set for the case.
-	model func(u plant.Unit) *float64
-}
-
-const (
-	setQuantity = iota
-	setBool
-	setPressureDiff
-)
-
-// caseKeys are the keys case{set = {...}} accepts, by unit kind. They are
-// the constructor's keys of the same meaning.
-var caseKeys = map[string][]setKey{
-	"consumer": {
-		{key: "duty", param: "duty", dim: units.Power},
-		{key: "steam", param: "steam_flow", dim: units.MassFlow},
-		{key: "returns", param: "return_fraction", dim: units.Fraction},
-		{key: "subcool", param: "subcooling", dim: units.TemperatureDifference},
-		{key: "return_T", param: "return_T", dim: units.Temperature},
-		{key: "off", param: "off", how: setBool},
-		{key: "factor", param: "factor", dim: units.Fraction},
-	},
-	"turbine":          {{key: "power", param: "power", dim: units.Power}, {key: "off", param: "off", how: setBool}},
-	"boiler":           {{key: "mcr", param: "mcr", dim: units.MassFlow}, {key: "drum", param: "drum_p", dim: units.Pressure}, {key: "dryness", param: "dryness", dim: units.Fraction}, {key: "blowdown", param: "blowdown", dim: units.Fraction}, {key: "eta_factor", param: "eta_factor", dim: units.Fraction}},
-	"feed_tank":        {{key: "heat_loss", param: "heat_loss", dim: units.Power}, {key: "set_T", param: "set_T", dim: units.Temperature}, {key: "room_T", param: "room_T", dim: units.Temperature}},
-	"observation_tank": {{key: "heat_loss", param: "heat_loss", dim: units.Power}, {key: "room_T", param: "room_T", dim: units.Temperature}},
-	"feed_pump":        {{key: "eta", param: "eta", dim: units.Fraction}, {key: "margin", param: "margin", how: setPressureDiff}},
-	"header":           {{key: "heat_loss", param: "heat_loss", dim: units.Power}},
-	"reducing_valve":   {{key: "p", param: "p", dim: units.Pressure}},
-	"makeup":           {{key: "T", param: "T", dim: units.Temperature}},
-	"condenser":        {{key: "subcool", param: "subcooling", dim: units.TemperatureDifference}},
-	"exhaust_gas_economiser": {{key: "off", param: "off", how: setBool}, {key: "ua", param: "ua", dim: units.ThermalConductance},
-		{key: "preheat_ua", param: "preheat_ua", dim: units.ThermalConductance}},
-	"economiser": {{key: "ua", param: "ua", dim: units.ThermalConductance}},
-}
-
-// modelKeys are the case keys of consumers driven by a loads model: they
-// may be switched off; their duty comes from the model.
-var modelKeys = []setKey{
-	{key: "returns", param: "return_fraction", dim: units.Fraction},
-	{key: "subcool", param: "subcooling", dim: units.TemperatureDifference},
-	{key: "off", param: "off", how: setBool},
-	{key: "factor", param: "factor", dim: units.Fraction},
-}
-
-// loadsKeys are the case keys of the loads models besides modelKeys.
-var loadsKeys = map[string][]setKey{
-	"tank_heating": {
-		{key: "T", dim: units.Temperature, model: func(u plant.Unit) *float64 { return &tankOf(u).t.To }},
-		{key: "to", dim: units.Temperature, model: func(u plant.Unit) *float64 { return &tankOf(u).t.To }},
-		{key: "from", dim: units.Temperature, model: func(u plant.Unit) *float64 { return &tankOf(u).t.From }},
-		{key: "duration", dim: units.Time, model: func(u plant.Unit) *float64 { return &tankOf(u).t.Duration }},
-	},
-	"tank_cleaning": {
-		{key: "flow", dim: units.MassFlow, model: func(u plant.Unit) *float64 { return &cleaningOf(u).t.Flow }},
-		{key: "outlet_T", dim: units.Temperature, model: func(u plant.Unit) *float64 { return &cleaningOf(u).t.OutletT }},
-	},
-	"accommodation": {
-		{key: "inside_T", dim: units.Temperature, model: func(u plant.Unit) *float64 { return &accommodationOf(u).a.InsideT }},
-	},
-}
-
-func tankOf(u plant.Unit) *tankModel { return u.(*plant.Consumer).Model.(*tankModel) }
-func cleaningOf(u plant.Unit) *cleaningModel {
-	return u.(*plant.Consumer).Model.(*cleaningModel)
-}
-func accommodationOf(u plant.Unit) *accommodationModel {
-	return u.(*plant.Consumer).Model.(*accommodationModel)
-}
-
-// modelSetting is a case's value for a field of a loads model.
-type modelSetting struct {
-	ptr *float64
-	v   float64
-}
-
-func (r *runner) keysFor(ph *plantHandle, unit string) []setKey {
-	kind := ph.kinds[unit]
-	switch kind {
-	case "cargo_pump":
-		kind = "turbine"
-	case "steam_tracing", "fresh_water_generator", "soot_blowing":
-		kind = "consumer" // a duty or steam flow fixed when declared
+// caseKeys are the keys a case (and a job's row) may set for a unit: its
+// registry keys that a case may change, in the registry's order.
+func (r *runner) caseKeys(ph *plantHandle, unit string) []plant.Key {
+	u := ph.p.Component(unit)
+	if u == nil {
+		return nil
 	}
-	if k, ok := caseKeys[kind]; ok {
-		return k
+	var out []plant.Key
+	for _, k := range u.Keys() {
+		if k.Case && k.Settable() {
+			out = append(out, k)
+		}
 	}
-	if ph.broken[unit] {
-		return modelKeys
+	return out
+}
+
+// parseSetting reads a case's value of key k, in SI (1 or 0 for a flag,
+// the index of a choice).
+func parseSetting(val lua.LValue, k *plant.Key, name string, uopt units.Options) (float64, error) {
+	switch k.Kind {
+	case plant.KeyFlag:
+		b, isBool := val.(lua.LBool)
+		if !isBool {
+			return 0, fmt.Errorf("%s must be true or false; got %s", name, describe(val))
+		}
+		if b {
+			return 1, nil
+		}
+		return 0, nil
+	case plant.KeyPressureDiff:
+		return parsePressureDiff(val, name)
+	case plant.KeyChoice:
+		s, ok := val.(lua.LString)
+		if ok {
+			for i, c := range k.Choices {
+				if c == string(s) {
+					return float64(i), nil
+				}
+			}
+		}
+		return 0, fmt.Errorf("%s must be %s; got %s", name, choiceList(k.Choices), describe(val))
+	case plant.KeyNumber:
+		n, ok := val.(lua.LNumber)
+		if !ok || math.IsNaN(float64(n)) || math.IsInf(float64(n), 0) {
+			return 0, fmt.Errorf("%s must be a finite number; got %s", name, describe(val))
+		}
+		return float64(n), nil
 	}
-	return append(modelKeys[:len(modelKeys):len(modelKeys)], loadsKeys[kind]...)
+	return parseQuantity(val, name, k.Dim, uopt)
 }
 
 // luaCase is case(plant, { name, sea, air, engine, set, fire }).
@@ -134,9 +87,8 @@ func (r *runner) luaCase(L *lua.LState) int {
 	c.Conditions.SeaT, _ = a.quantity("sea", units.Temperature, false)
 	c.Conditions.AirT, _ = a.quantity("air", units.Temperature, false)
 	c.Conditions.EngineLoad, _ = a.quantity("engine", units.Fraction, false)
-	var models []modelSetting
 	if v := a.get("set"); v != lua.LNil {
-		c.Set, models = r.caseSettings(ph, a, v, c.Pos)
+		c.Set = r.caseSettings(ph, a, v, c.Pos)
 	}
 	if a.has("fire") {
 		c.Fire = a.names("fire")
@@ -159,22 +111,14 @@ func (r *runner) luaCase(L *lua.LState) int {
 	if r.opt.CheckOnly {
 		r.checkPlantOnce(ph)
 		r.out.Cases = append(r.out.Cases, CaseRecord{Plant: ph.p.Name, Pos: pos})
-		L.Push(r.resultTable(placeholder(ph, name, c.Conditions)))
+		cr := ph.p.Outline(name, c.Conditions)
+		cr.Pos = c.Pos
+		L.Push(r.resultTable(schema.NewCase(ph.p.Name, cr)))
 		return 1
 	}
 	if r.emptyPlant(ph) || len(r.errs) > 0 {
 		r.raise(stopRun{})
 	}
-	// The loads models' fields hold for this case only.
-	for i := range models {
-		m := &models[i]
-		*m.ptr, m.v = m.v, *m.ptr
-	}
-	defer func() {
-		for _, m := range models {
-			*m.ptr = m.v
-		}
-	}()
 	res, err := ph.p.Solve(L.Context(), c)
 	if err != nil {
 		if lerr := r.limitErr(pos); lerr != nil {
@@ -190,97 +134,84 @@ func (r *runner) luaCase(L *lua.LState) int {
 	}
 	ph.checked = true
 	r.out.Cases = append(r.out.Cases, CaseRecord{Plant: ph.p.Name, Pos: pos, Result: res})
-	L.Push(r.resultTable(res.JSON()))
+	L.Push(r.resultTable(schema.NewCase(ph.p.Name, res)))
 	return 1
 }
 
 func (ph *plantHandle) boilerNames() []string {
 	var out []string
-	for _, u := range ph.p.Units() {
-		if ph.kinds[u.UnitName()] == "boiler" {
-			out = append(out, u.UnitName())
+	for _, u := range ph.p.Components() {
+		if ph.kinds[u.Ident().Name] == "boiler" {
+			out = append(out, u.Ident().Name)
 		}
 	}
 	return out
 }
 
 // caseSettings reads set = { unit = { key = value, ... }, ... }.
-func (r *runner) caseSettings(ph *plantHandle, a *args, v lua.LValue, pos plant.Pos) ([]plant.Setting, []modelSetting) {
+func (r *runner) caseSettings(ph *plantHandle, a *args, v lua.LValue, pos plant.Pos) []plant.Setting {
 	t, ok := v.(*lua.LTable)
 	if !ok {
 		a.errorf(nil, "set must be a table of units, such as set = { galley = { duty = \"60 kW\" } }; got %s", describe(v))
-		return nil, nil
+		return nil
 	}
-	var models []modelSetting
 	r.checkSize(t, "set")
-	var units_ []string
+	var names []string
 	t.ForEach(func(k, _ lua.LValue) {
 		if s, ok := k.(lua.LString); ok {
-			units_ = append(units_, string(s))
+			names = append(names, string(s))
 		} else {
 			a.errorf(nil, "set: keys must be unit names; got %s", describe(k))
 		}
 	})
-	sort.Strings(units_)
+	sort.Strings(names)
 	var out []plant.Setting
-	for _, unit := range units_ {
+	for _, unit := range names {
 		ut, ok := t.RawGetString(unit).(*lua.LTable)
 		if !ok {
 			a.errorf(nil, "set.%s must be a table of keys, such as { off = true }", unit)
 			continue
 		}
-		if ph.p.Unit(unit) == nil {
+		if ph.p.Component(unit) == nil {
 			a.errorf(nil, "set: %s", r.unknownUnitMsg(ph, unit))
 			continue
 		}
 		r.checkSize(ut, "set."+unit)
-		keys := r.keysFor(ph, unit)
+		keys := r.caseKeys(ph, unit)
 		var accepted []string
 		for _, k := range keys {
-			accepted = append(accepted, k.key)
+			accepted = append(accepted, k.Name)
 		}
 		sub := r.args(ut, a.what, a.pos, ph.uopt)
-		for _, k := range keys {
-			val := sub.get(k.key)
+		for i := range keys {
+			k := &keys[i]
+			val := sub.get(k.Name)
 			if val == lua.LNil {
 				continue
 			}
-			key := fmt.Sprintf("set.%s.%s", unit, k.key)
-			var f float64
-			var err error
-			switch k.how {
-			case setBool:
-				b, isBool := val.(lua.LBool)
-				if !isBool {
-					err = fmt.Errorf("%s must be true or false; got %s", key, describe(val))
-				} else if b {
-					f = 1
+			name := fmt.Sprintf("set.%s.%s", unit, k.Name)
+			if k.Kind == plant.KeyText {
+				s, ok := val.(lua.LString)
+				if !ok {
+					sub.errorf(nil, "%s must be a string such as %s; got %s", name, k.Example, describe(val))
+					continue
 				}
-			case setPressureDiff:
-				f, err = parsePressureDiff(val, key)
-			default:
-				f, err = parseQuantity(val, key, k.dim, ph.uopt)
+				out = append(out, plant.Setting{Unit: unit, Param: k.Name, Text: string(s), Pos: pos})
+				continue
 			}
+			f, err := parseSetting(val, k, name, ph.uopt)
 			if err != nil {
 				sub.errorf(err, "%v", err)
 				continue
 			}
-			if k.model != nil {
-				models = append(models, modelSetting{ptr: k.model(ph.p.Unit(unit)), v: f})
-				continue
-			}
-			out = append(out, plant.Setting{Unit: unit, Param: k.param, Value: f, Pos: pos})
-			if k.param == "duty" {
-				// a duty replaces a set steam flow
-				out = append(out, plant.Setting{Unit: unit, Param: "steam_flow", Value: 0, Pos: pos})
-			}
+			out = append(out, plant.Setting{Unit: unit, Param: k.Name, Value: f, Pos: pos})
 		}
 		for _, k := range r.unknownKeys(ut, accepted) {
 			sub.errorf(nil, "set.%s: %s", unit, unknownKeyMsg(k, accepted))
 		}
 		a.nerr += sub.nerr
 	}
-	return out, models
+	return out
 }
 
 // checkPlantOnce runs the plant's own checks (graph, parameters, degrees
@@ -304,7 +235,7 @@ func (r *runner) checkPlantOnce(ph *plantHandle) {
 func (r *runner) emptyPlant(ph *plantHandle) bool {
 	what := fmt.Sprintf("plant %q", ph.p.Name)
 	switch {
-	case len(ph.p.Units()) == 0:
+	case len(ph.p.Components()) == 0:
 		r.errs = append(r.errs, &Error{Pos: ph.pos, Unit: what, Msg: "has no units; declare them with ship:boiler{...} and the like"})
 	case len(ph.p.Lines()) == 0:
 		r.errs = append(r.errs, &Error{Pos: ph.pos, Unit: what, Msg: "has no lines; join its units with ship:line(name, \"from.port\", \"to.port\")"})
@@ -325,69 +256,153 @@ func (r *runner) finish() error {
 	return nil
 }
 
-// placeholder is the result of a case in check mode: the right shape, zero
-// figures.
-func placeholder(ph *plantHandle, name string, c plant.Conditions) plant.CaseJSON {
-	j := plant.CaseJSON{Name: name, SeaTK: c.SeaT, AirTK: c.AirT, EngineLoad: c.EngineLoad,
-		Boilers: []plant.BoilerJSON{}, Consumers: []plant.ConsumerJSON{}, Units: []plant.UnitJSON{}, Lines: []plant.LineJSON{}, Warnings: []string{}}
-	for _, u := range ph.p.Units() {
-		switch v := u.(type) {
-		case *plant.Boiler:
-			j.Boilers = append(j.Boilers, plant.BoilerJSON{Name: v.Name, Fuel: v.Fuel.Name})
-		case *plant.Consumer, *plant.Turbine:
-			j.Consumers = append(j.Consumers, plant.ConsumerJSON{Name: u.UnitName(), Kind: u.Kind()})
-		default:
-			j.Units = append(j.Units, plant.UnitJSON{Name: u.UnitName(), Kind: u.Kind(), Figures: []plant.FigureJSON{}})
-		}
-	}
-	for _, l := range ph.p.Lines() {
-		j.Lines = append(j.Lines, plant.LineJSON{Name: l.Name})
-	}
-	return j
+// resultTable is what case() returns: the case's schema object (package
+// plant/schema) as a Lua table, with exactly its JSON keys.
+func (r *runner) resultTable(c schema.Case) *lua.LTable {
+	return r.schemaTable(fmt.Sprintf("case %q", c.Name), c)
 }
 
-// resultTable turns a case result into a Lua table mirroring its JSON.
-func (r *runner) resultTable(j plant.CaseJSON) lua.LValue {
-	b, err := json.Marshal(j)
+// schemaTable turns v, an object of package plant/schema, into a Lua table
+// with the keys and values of its JSON form: a walk of its fields by their
+// JSON tags, as encoding/json reads them. A nil pointer or slice (null in
+// the JSON) is nil, so the key is absent; a field tagged omitempty is left
+// out when empty; an embedded struct's keys are the object's own; a list
+// is a sequence from 1; a map's keys are set in sorted order (so that
+// pairs() goes the same way every run). A test (TestLuaKeysAreJSONKeys)
+// compares the keys with the JSON's. The walk costs a fraction of going
+// through the JSON text and back (see BenchmarkVoyageTable).
+func (r *runner) schemaTable(what string, v any) *lua.LTable {
+	lv, err := r.luaOf(reflect.ValueOf(v))
 	if err != nil {
-		r.fail("", "case %q: result not representable: %v", j.Name, err)
+		r.fail("", "%s: result not representable: %v", what, err)
 	}
-	var v any
-	if err := json.Unmarshal(b, &v); err != nil {
-		r.fail("", "case %q: result not representable: %v", j.Name, err)
+	t, ok := lv.(*lua.LTable)
+	if !ok {
+		r.fail("", "%s: result not representable: a %T, not a table", what, v)
 	}
-	return r.toLua(v)
+	return t
 }
 
-func (r *runner) toLua(v any) lua.LValue {
-	switch x := v.(type) {
-	case nil:
-		return lua.LNil
-	case bool:
-		return lua.LBool(x)
-	case float64:
-		return lua.LNumber(x)
-	case string:
-		return lua.LString(x)
-	case []any:
-		t := r.L.CreateTable(len(x), 0)
-		for _, e := range x {
-			t.Append(r.toLua(e))
+// luaOf is the Lua form of a value of the schema.
+func (r *runner) luaOf(v reflect.Value) (lua.LValue, error) {
+	switch v.Kind() {
+	case reflect.Pointer, reflect.Interface:
+		if v.IsNil() {
+			return lua.LNil, nil
 		}
-		return t
-	case map[string]any:
-		t := r.L.CreateTable(0, len(x))
-		keys := make([]string, 0, len(x))
-		for k := range x {
-			keys = append(keys, k)
+		return r.luaOf(v.Elem())
+	case reflect.Bool:
+		return lua.LBool(v.Bool()), nil
+	case reflect.String:
+		return lua.LString(v.String()), nil
+	case reflect.Int, reflect.Int8, reflect.Int16, reflect.Int32, reflect.Int64:
+		return lua.LNumber(v.Int()), nil
+	case reflect.Uint, reflect.Uint8, reflect.Uint16, reflect.Uint32, reflect.Uint64:
+		return lua.LNumber(v.Uint()), nil
+	case reflect.Float32, reflect.Float64:
+		f := v.Float()
+		if math.IsNaN(f) || math.IsInf(f, 0) {
+			return nil, fmt.Errorf("a figure is %g", f)
+		}
+		return lua.LNumber(f), nil
+	case reflect.Slice, reflect.Array:
+		if v.Kind() == reflect.Slice && v.IsNil() {
+			return lua.LNil, nil
+		}
+		t := r.L.CreateTable(v.Len(), 0)
+		for i := range v.Len() {
+			e, err := r.luaOf(v.Index(i))
+			if err != nil {
+				return nil, err
+			}
+			t.Append(e)
+		}
+		return t, nil
+	case reflect.Map:
+		if v.IsNil() {
+			return lua.LNil, nil
+		}
+		if v.Type().Key().Kind() != reflect.String {
+			return nil, fmt.Errorf("a map keyed by %s", v.Type().Key())
+		}
+		keys := make([]string, 0, v.Len())
+		for _, k := range v.MapKeys() {
+			keys = append(keys, k.String())
 		}
 		sort.Strings(keys)
+		t := r.L.CreateTable(0, len(keys))
 		for _, k := range keys {
-			t.RawSetString(k, r.toLua(x[k]))
+			e, err := r.luaOf(v.MapIndex(reflect.ValueOf(k).Convert(v.Type().Key())))
+			if err != nil {
+				return nil, err
+			}
+			t.RawSetString(k, e)
 		}
-		return t
+		return t, nil
+	case reflect.Struct:
+		t := r.L.CreateTable(0, v.NumField())
+		if err := r.luaFields(t, v); err != nil {
+			return nil, err
+		}
+		return t, nil
 	}
-	return lua.LString(fmt.Sprint(v))
+	return nil, fmt.Errorf("a %s has no Lua form", v.Type())
+}
+
+// luaFields sets in t the fields of the struct v under their JSON keys.
+func (r *runner) luaFields(t *lua.LTable, v reflect.Value) error {
+	rt := v.Type()
+	for i := range rt.NumField() {
+		f := rt.Field(i)
+		tag := f.Tag.Get("json")
+		if f.Anonymous && tag == "" && f.Type.Kind() == reflect.Struct {
+			if err := r.luaFields(t, v.Field(i)); err != nil {
+				return err
+			}
+			continue
+		}
+		name, opts, _ := strings.Cut(tag, ",")
+		if !f.IsExported() || name == "-" {
+			continue
+		}
+		if name == "" {
+			name = f.Name
+		}
+		fv := v.Field(i)
+		if opts != "" && omitEmpty(opts) && emptyJSON(fv) {
+			continue
+		}
+		e, err := r.luaOf(fv)
+		if err != nil {
+			return fmt.Errorf("%s: %w", name, err)
+		}
+		if e != lua.LNil {
+			t.RawSetString(name, e)
+		}
+	}
+	return nil
+}
+
+// omitEmpty reports whether the options of a JSON tag ("omitempty,string")
+// hold omitempty.
+func omitEmpty(opts string) bool {
+	for o := range strings.SplitSeq(opts, ",") {
+		if o == "omitempty" {
+			return true
+		}
+	}
+	return false
+}
+
+// emptyJSON reports whether encoding/json's omitempty leaves v out.
+func emptyJSON(v reflect.Value) bool {
+	switch v.Kind() {
+	case reflect.Array, reflect.Map, reflect.Slice, reflect.String:
+		return v.Len() == 0
+	case reflect.Pointer, reflect.Interface:
+		return v.IsNil()
+	}
+	return v.IsZero()
 }
 
 // luaCheck is check(cond, "message"): in a run, a false or nil cond stops

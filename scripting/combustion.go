@@ -19,21 +19,23 @@ import (
 // maxPoints bounds the rows of an engine, flue-gas or excess-air table.
 const maxPoints = 200
 
-func buildEGE(r *runner, a *args, ph *plantHandle) plant.Unit {
-	u := &plant.ExhaustGasEconomiser{}
-	u.DrumP, _ = a.quantity("drum", units.Pressure, true)
-	u.Dryness, _ = a.quantity("dryness", units.Fraction, false)
+// decodeEGE reads an exhaust-gas economiser's engine table, its size (ua
+// with design_gas, or design_load with pinch) and its exhaust's enthalpy
+// (gas_cp, or exhaust_fuel with exhaust_O2).
+func decodeEGE(r *runner, a *args, ph *plantHandle, c plant.Component) {
+	u, ok := c.(*plant.ExhaustGasEconomiser)
+	if !ok {
+		return
+	}
 	if et, ok := a.get("engine").(*lua.LTable); ok {
 		u.Engine = r.engineExhaust(a, et)
 	} else {
 		a.errorf(nil, "engine is required: engine = { mcr = \"12 MW\", { load = \"25 %%\", gas = \"11 kg/kWh\", T = \"250 C\" }, ... }")
 	}
-	ua, hasUA := a.quantity("ua", units.ThermalConductance, false)
-	u.UA = ua
-	u.DesignGasFlow, _ = a.quantity("design_gas", units.MassFlow, false)
-	dl, hasDL := a.quantity("design_load", units.Fraction, false)
-	pinch, hasPinch := a.quantity("pinch", units.TemperatureDifference, false)
-	u.DesignLoad, u.DesignPinch = dl, pinch
+	hasUA := r.readNamed(a, u, "ua", false)
+	r.readNamed(a, u, "design_gas", false)
+	hasDL := r.readNamed(a, u, "design_load", false)
+	hasPinch := r.readNamed(a, u, "pinch", false)
 	switch {
 	case hasUA && (hasDL || hasPinch):
 		a.errorf(nil, "give its size as ua (with design_gas) or as design_load with pinch, not both")
@@ -42,10 +44,7 @@ func buildEGE(r *runner, a *args, ph *plantHandle) plant.Unit {
 	case !hasUA && !hasDL && !hasPinch:
 		a.errorf(nil, "needs its size: ua = \"60 kW/K\" (with design_gas = \"30 kg/s\"), or design_load = \"85 %%\" with pinch = \"15 K\"")
 	}
-	if n, ok := a.number("exponent"); ok {
-		u.Exponent = n
-	}
-	u.GasCp, _ = a.quantity("gas_cp", units.SpecificHeat, false)
+	r.readNamed(a, u, "gas_cp", false)
 	if name, ok := a.str("exhaust_fuel", false); ok {
 		f, err := fuel.Grade(name)
 		if err != nil {
@@ -53,20 +52,13 @@ func buildEGE(r *runner, a *args, ph *plantHandle) plant.Unit {
 		} else {
 			u.ExhaustFuel = &f
 		}
-		u.ExhaustO2, _ = a.quantity("exhaust_O2", units.Fraction, true)
+		r.readNamed(a, u, "exhaust_O2", true)
 		if u.GasCp > 0 {
 			a.errorf(nil, "give gas_cp or exhaust_fuel with exhaust_O2, not both")
 		}
 	} else if a.has("exhaust_O2") {
 		a.errorf(nil, "exhaust_O2 needs exhaust_fuel (the engine's fuel grade, such as \"VLSFO\")")
 	}
-	u.MinGasOutT, _ = a.quantity("min_gas_T", units.Temperature, false)
-	u.Bypass = a.boolean("bypass")
-	u.PreheatUA, _ = a.quantity("preheat_ua", units.ThermalConductance, false)
-	if a.boolean("off") {
-		u.Off = 1
-	}
-	return u
 }
 
 // engineExhaust reads engine = { mcr = "12 MW", { load, gas, T }, ... }.
@@ -136,20 +128,6 @@ func (r *runner) engineExhaust(a *args, t *lua.LTable) plant.EngineExhaust {
 		}
 	}
 	return out
-}
-
-// ---------------------------------------------------------------------------
-// Flue-gas economiser.
-
-func buildEconomiser(r *runner, a *args, ph *plantHandle) plant.Unit {
-	u := &plant.Economiser{}
-	u.Boiler, _ = a.str("boiler", true)
-	u.UA, _ = a.quantity("ua", units.ThermalConductance, true)
-	u.DesignGasFlow, _ = a.quantity("design_gas", units.MassFlow, false)
-	if n, ok := a.number("exponent"); ok {
-		u.Exponent = n
-	}
-	return u
 }
 
 // ---------------------------------------------------------------------------

@@ -5,6 +5,7 @@ import (
 
 	lua "github.com/yuin/gopher-lua"
 
+	"steamcase/plant"
 	"steamcase/plant/loads"
 	"steamcase/plant/units"
 )
@@ -17,7 +18,7 @@ const lumpedDensity = 1000.0
 // ship:tank_heating (or its name), a table of the tank_heating's tank keys,
 // or a lumped tank { mass, cp, UA } whose surroundings are the call's
 // ambient temperature.
-func (r *runner) coolTank(a *args) (*loads.TankHeating, *tankModel) {
+func (r *runner) coolTank(a *args) *plant.TankHeating {
 	switch v := a.get("tank").(type) {
 	case lua.LString:
 		return r.tankByName(a, string(v))
@@ -34,26 +35,31 @@ func (r *runner) coolTank(a *args) (*loads.TankHeating, *tankModel) {
 			ua, _ := ta.quantity("UA", units.ThermalConductance, true)
 			amb, _ := a.quantity("ambient", units.Temperature, true)
 			ta.done()
-			t := &loads.TankHeating{Name: a.what, Cargo: loads.Cargo{Density: lumpedDensity, Cp: cp},
+			return &plant.TankHeating{Tank: loads.TankHeating{Name: a.what, Cargo: loads.Cargo{Density: lumpedDensity, Cp: cp},
 				CargoVolume: mass / lumpedDensity,
-				Boundaries:  []loads.Boundary{{Name: "all boundaries", Area: 1, U: ua, Beyond: loads.Space, T: amb}}}
-			return t, &tankModel{t: *t}
+				Boundaries:  []loads.Boundary{{Name: "all boundaries", Area: 1, U: ua, Beyond: loads.Space, T: amb}}}}
 		}
-		t := r.tankGeometry(ta)
-		t.Name = a.what
+		m := &plant.TankHeating{}
+		c := plant.NewModelConsumer(m)
+		r.readNamed(ta, c, "fuel", false)
+		r.tankGeometry(ta, c)
+		for _, k := range []string{"cp", "cargo", "flash_point"} {
+			r.readNamed(ta, c, k, false)
+		}
+		m.Tank.Name = a.what
 		ta.done()
-		return &t, &tankModel{t: t}
+		return m
 	case *lua.LNilType:
 		a.errorf(nil, "tank is required: a tank_heating unit (the table ship:tank_heating returned, or its name), its keys { fuel, volume, boundaries, ... }, or { mass = \"10000 t\", cp = \"2 kJ/kgK\", UA = \"50 kW/K\" } with ambient")
 	default:
 		a.errorf(nil, "tank must be a tank_heating unit or a table of its keys; got %s", describe(v))
 	}
-	return nil, nil
+	return nil
 }
 
 // tankByName finds a tank_heating unit of the run's plants.
-func (r *runner) tankByName(a *args, name string) (*loads.TankHeating, *tankModel) {
-	var found *tankModel
+func (r *runner) tankByName(a *args, name string) *plant.TankHeating {
+	var found *plant.TankHeating
 	var names []string
 	for _, ph := range r.plants {
 		for n, k := range ph.kinds {
@@ -64,9 +70,11 @@ func (r *runner) tankByName(a *args, name string) (*loads.TankHeating, *tankMode
 			if n == name && !ph.broken[n] {
 				if found != nil {
 					a.errorf(nil, "tank %q is a tank_heating of two plants; give the tank's keys instead", name)
-					return nil, nil
+					return nil
 				}
-				found = tankOf(ph.p.Unit(n))
+				if c, ok := ph.p.Component(n).(*plant.Consumer); ok {
+					found, _ = c.Model.(*plant.TankHeating)
+				}
 			}
 		}
 	}
@@ -76,9 +84,9 @@ func (r *runner) tankByName(a *args, name string) (*loads.TankHeating, *tankMode
 			msg += fmt.Sprintf("; did you mean %q?", s)
 		}
 		a.errorf(nil, "%s", msg)
-		return nil, nil
+		return nil
 	}
-	return &found.t, found
+	return found
 }
 
 // coolArgs reads what cool_down and time_to_cool share: the tank, from,
@@ -88,16 +96,20 @@ func (r *runner) coolArgs(fn string) (*args, *loads.TankHeating, float64, loads.
 	pos := r.where()
 	r.checkSize(t, fn)
 	a := r.args(t, fn, pos, units.Options{})
-	tank, m := r.coolTank(a)
+	m := r.coolTank(a)
+	var tank *loads.TankHeating
+	if m != nil {
+		tank = &m.Tank
+	}
 	from, _ := a.quantity("from", units.Temperature, true)
 	sea, hasSea := a.quantity("sea", units.Temperature, false)
 	air, hasAir := a.quantity("air", units.Temperature, false)
 	a.get("ambient") // the lumped tank's surroundings, read with it
 	if m != nil && a.nerr == 0 {
-		if m.usesSea() && !hasSea {
+		if m.UsesSea() && !hasSea {
 			a.errorf(nil, "the tank has boundaries to the sea: give sea = \"12 C\"")
 		}
-		if m.usesAir() && !hasAir {
+		if m.UsesAir() && !hasAir {
 			a.errorf(nil, "the tank has boundaries to the air: give air = \"5 C\"")
 		}
 	}

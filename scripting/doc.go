@@ -55,43 +55,16 @@
 // second time without its exhaust-gas economisers to give the fuel they
 // save; false skips that solve, for speed, and the saving reads zero).
 //
-// Units are declared with methods of the plant; each returns a table
+// Components are declared with methods of the plant named by their kind
+// (ship:boiler{...}, ship:tank_heating{...}); each returns a table
 // { name = ..., kind = ... } and records its script line, so that every
-// later error (at check or solve time) points at it. Keys, with their
-// dimension:
+// later error (at check or solve time) points at it. KeyReference lists
+// every kind and every key it takes: how it is written, its default and
+// where the default comes from, and whether a load case may set it. It is
+// generated from package plant's key registry, which is also what the
+// script API reads: a key is accepted exactly when it is listed there.
+// Lines join components:
 //
-//	ship:makeup    { name, T (temperature, required), p (pressure; default ambient) }
-//	ship:feed_tank { name, p (pressure; default ambient: vented), heat_loss (power),
-//	                 UA (thermal conductance, W/K), room_T (temperature),
-//	                 set_T (temperature held by steam heating on port "steam") }
-//	ship:observation_tank { name, heat_loss (power), UA (thermal conductance, W/K), room_T
-//	                 (temperature) } -- a vented tank the returning condensate passes
-//	                 (ports in, any number, and out); flash steam is vented and made up
-//	ship:feed_pump { name, boilers (list of boiler names), margin (pressure
-//	                 difference, "3 bar"), discharge (pressure; instead of
-//	                 boilers+margin), eta (fraction, required), motor_eta (fraction; default 0.9) }
-//	ship:boiler    { name, mcr (mass flow, required), drum (pressure, required),
-//	                 dryness (fraction; default 1), blowdown (fraction),
-//	                 tds_feed, tds_max (numbers in one unit: blowdown = tds_feed/tds_max),
-//	                 turndown (number, 4 means 1:4), cycling_loss (fraction),
-//	                 fuel (grade "MGO", "VLSFO", "HSFO", "LNG", or a name for your own fuel),
-//	                 lhv (specific energy, "40.2 MJ/kg"), co2_factor (number, kg CO2/kg fuel),
-//	                 efficiency (required: "85 %" at every load, a table of
-//	                 {load, efficiency} pairs such as { {"25 %","80 %"}, {"100 %","85 %"} },
-//	                 loads increasing, interpolated linearly, LHV basis; or a
-//	                 combustion model, below),
-//	                 burner = { fan_rise (pressure difference, "3 kPa"; without it the
-//	                   fan is not counted), fan_eta (fraction; required with fan_rise),
-//	                   motor_eta (fraction; default 0.9), air_T (temperature of the
-//	                   combustion air; default the case's air, or 25 C without one) } }
-//	ship:header    { name, heat_loss (power) }
-//	ship:reducing_valve { name, p (pressure, required) }
-//	ship:consumer  { name, duty (power) or steam (mass flow), subcool (temperature
-//	                 difference, "10 K"), returns (fraction of condensate returned),
-//	                 return_T (temperature after a drain cooler), off (boolean) }
-//	ship:turbine   { name, power (power, required), exhaust (pressure, required),
-//	                 eta_is (fraction, required), eta_mech (fraction; default 1), off (boolean) }
-//	ship:condenser { name, subcool (temperature difference), dump (boolean) }
 //	ship:line("name", "fromunit.port", "tounit.port")
 //
 // A fuel by grade takes its LHV and CO2 factor from package plant/fuel
@@ -138,20 +111,7 @@
 //
 // # Economisers
 //
-//	ship:exhaust_gas_economiser { name, drum (pressure, required), dryness (fraction; default 1),
-//	    engine = { mcr = "12 MW", { load = "25 %", gas = "11 kg/kWh", T = "250 C" }, ... },
-//	    ua (thermal conductance, "60 kW/K") with design_gas (mass flow at which ua holds;
-//	      default: ua is constant), or design_load (fraction of engine MCR) with pinch
-//	      (temperature difference: gas outlet above saturation at that load),
-//	    exponent (number n of UA ∝ gas flow^n; default 0.65),
-//	    gas_cp (specific heat of the exhaust; default 1.06 kJ/kgK), or exhaust_fuel
-//	      (grade) with exhaust_O2 (fraction, dry) for the NASA-polynomial enthalpy,
-//	    min_gas_T (temperature; default not checked), bypass (boolean: a damper holds
-//	      the funnel at min_gas_T), preheat_ua (thermal conductance of a preheating
-//	      section after the evaporator, at the same reference gas flow; default none),
-//	      off (boolean) }
-//	ship:economiser { name, boiler (required), ua (thermal conductance, required),
-//	    design_gas (mass flow; default: ua is constant), exponent (number; default 0.65) }
+// See KeyReference for the keys of exhaust_gas_economiser and economiser.
 //
 // The engine table gives, at each load (fraction of mcr, increasing), the
 // exhaust gas as kg per kWh of engine power ("8.5 kg/kWh") or as a mass
@@ -182,48 +142,12 @@
 // the unit and the case. Input errors are found when the unit is declared
 // (the model is tried at 15 C sea and air).
 //
-//	ship:tank_heating { name, fuel (grade: density and Cragoe specific heat) or density
-//	                    (density) with cp (specific heat; default Cragoe), cargo (a name),
-//	                    flash_point (temperature),
-//	                    mode ("hold", default, or "heat_up"), T (hold: temperature held),
-//	                    from, to (heat_up: temperatures), duration (heat_up: time),
-//	                    and either dimensions = { length, breadth, depth (lengths), fill (fraction),
-//	                      double_bottom, double_side (lengths), layout ("full_breadth", "wing",
-//	                      "centre"), weather_deck (boolean), deck_space_T, adjacent_T
-//	                      (temperatures), side_above_water (fraction), adjacent_heated (boolean),
-//	                      U = { deck_ullage, deck_wetted, shell, double_hull, bulkhead, dry }
-//	                      (heat transfer coefficients; default plant/loads DefaultU) }
-//	                    or volume (volume) with boundaries = { {name, area (area),
-//	                      U (heat transfer coefficient), beyond ("sea", "air" or "space"),
-//	                      T (temperature beyond a space)}, ... } }
-//	ship:fuel_heater  { name, service ("engine", "burner", "purifier", "transfer"),
-//	                    fuel (grade), density15 (density), viscosity (kinematic viscosity at the
-//	                    grade's reference temperature), inlet_T, and outlet_T or
-//	                    target_viscosity ("13 cSt"), outlet_limit, flash_point (temperatures),
-//	                    flow (mass flow of oil; not for "burner"), boiler (for "burner": the
-//	                    boiler whose fuel flow it heats; its duty follows that flow in the solve) }
-//	ship:accommodation { name, UA (thermal conductance), inside_T, balance_T (temperatures;
-//	                    no heating at and above balance_T, default inside_T),
-//	                    or table = { {air temperature, duty}, ... } }
-//	ship:tank_cleaning { name, flow (mass flow of water), inlet_T (temperature; default the
-//	                    case's sea temperature), outlet_T (temperature), p (pressure),
-//	                    cp (specific heat; default IAPWS-IF97 pure water) }
-//	ship:cargo_pump   { name, flow (volume flow), head (length), density (density),
-//	                    efficiency (fraction), exhaust (pressure), eta_is, eta_mech (fractions) }
-//	                    -- a turbine of shaft power rho*g*flow*head/efficiency
-//	ship:atomising_steam { name, boiler, ratio (fraction: kg steam per kg fuel) } -- nothing returns
-//	ship:soot_blowing { name, flow (mass flow while blowing), duration, interval (times) }
-//	ship:steam_tracing { name, per_metre ("30 W/m"), length (length) }
-//	ship:fresh_water_generator { name, production (mass flow of distillate),
-//	                    specific_energy (specific energy) or evaporation_T, feed_T
-//	                    (temperatures) with feed_ratio (number, kg feed per kg distillate) }
-//
-// A case may set, besides returns, subcool, off and factor: tank_heating
-// T, to, from, duration; tank_cleaning flow, outlet_T; accommodation
-// inside_T. These hold for that case only. The rows of voyage, study and
-// audit may not set these model keys (T, to, from, duration, flow,
-// outlet_T, inside_T): their rows are solved in parallel on clones of the
-// plant that share the model.
+// Their keys are in KeyReference. A case, and a row of a voyage, study or
+// audit, may set the keys marked "a case may set it" (a tank_heating's
+// mode, T, from, to and duration; a tank_cleaning's flow and outlet_T; a
+// fuel heater's flow and temperatures; ...). They hold for that case or
+// row only: each consumer owns its model, and the parallel copies of a
+// plant that a job solves on own theirs.
 //
 // # Plant, short form
 //
@@ -258,11 +182,12 @@
 // feed header and delivers to the main header, and brings a dump condenser
 // "dump condenser" (condenser keys from dump_condenser; dump = true) on
 // the main header draining to the hotwell. Each of economisers sits
-// between the feed header and its boiler (one per boiler). Defaults of the
-// short form (common practice, no source): make-up at 15 C; feed pump
-// margin 3 bar over the highest drum pressure and efficiency 45 %; dump
-// condenser subcooling 80 K (condensate about 90 C from a 7 bar(g)
-// header; give more at higher pressures, so that it does not flash in a
+// between the feed header and its boiler (one per boiler). The
+// components take their own defaults (KeyReference: make-up at 15 C, a
+// feed pump of 45 % with a 3 bar margin over the highest drum pressure);
+// the short form adds one of its own: a dump condenser's subcooling of
+// 80 K (condensate about 90 C from a 7 bar(g) header; give more at higher
+// pressures, so that it does not flash in a
 // vented hotwell). Lines are named "makeup", "feed suction", "feed
 // discharge", "feed <boiler>", "steam <boiler>", "steam to <consumer>",
 // "return from <consumer>", "to PRV <header>", "from PRV <header>",
@@ -285,21 +210,21 @@
 // case keys: name (default "case N"); sea and air (temperatures); engine
 // (fraction of main engine MCR); set (per unit, the keys below); fire
 // (list of boilers that must fire; the others stay cold; without it the
-// plant's firing rule decides). Keys of set, by unit kind:
-// consumer duty, steam, returns, subcool, return_T, off, factor (fraction
-// scaling the duty or steam flow however given, 1 = as declared; also for
-// the plant/loads kinds); turbine power, off; boiler mcr, drum, dryness,
-// blowdown, eta_factor (fraction scaling the efficiency model's figure);
-// feed_tank heat_loss, set_T, room_T; feed_pump eta, margin; header
-// heat_loss; reducing_valve p; makeup T; condenser subcool;
-// exhaust_gas_economiser off, ua, preheat_ua; economiser ua.
+// plant's firing rule decides). The keys of set are, for each unit, the
+// keys of its kind that KeyReference marks "a case may set it" (a
+// consumer's duty, steam, returns, subcool, return_T, off and factor; a
+// boiler's mcr, drum, dryness, blowdown and eta_factor; ...).
 //
 // case solves at once (warm-started from the plant's previous case),
-// records the result in the Run and returns a table mirroring the JSON of
-// plant.CaseResult.JSON() (keys carry their units): r.fuel_t_per_day,
-// r.boilers_firing, r.can_carry, r.boilers[1].load_fraction,
-// r.consumers[i].steam_kg_h, r.warnings, ... In check mode it returns a
-// table of the same shape with zero figures.
+// records the result in the Run and returns the case's object of the JSON
+// schema (package plant/schema, which lists every key) as a table: the
+// same keys, with their units, and the same values, rounded to six
+// significant digits: r.fuel_t_per_day, r.boilers_firing, r.can_carry,
+// r.boilers[1].load_fraction, r.consumers[i].steam_kg_h, r.warnings, ...
+// A key that is null in the JSON is nil here: r.sea_T_K when the case
+// gave no sea temperature, r.boilers[i].losses with a plain efficiency
+// table. In check mode it returns a table of the same shape with zero
+// figures.
 //
 // # Voyages, studies and audits
 //
@@ -323,17 +248,29 @@
 // file and the line of the row (voyage.csv:7: column "sea": ...) or of
 // the header for a bad column, and what was expected.
 //
-// The result: v.name; v.total, each v.phases[i] (with .phase, in order of
-// first appearance) and v.by_phase["loaded passage"] hold the totals
-// rows, hours, fuel_t, co2_t, steam_t, ege_steam_t, dumped_t, makeup_t,
-// fuel_saved_t (by the EGEs), electric_MWh, hours_firing (a list: [1] no
-// boiler, [2] one, ...), hours_no_boiler, hours_one_boiler,
-// hours_two_boilers, peak_boiler_kg_h with peak_row, capacity_kg_h,
-// tightest_margin_kg_h with tightest_row (absent if no row had a margin),
-// short_rows and warning_rows (lists of row numbers); v.rows[i] has
-// phase, hours, name, fuel_kg_h, fuel_t, co2_t, steam_kg_h,
-// ege_steam_kg_h, dumped_kg_h, boilers_firing, can_carry and warnings (a
-// count; the texts and every case result are in the Run).
+// The result of voyage, study and audit is the job's object of the JSON
+// schema (package plant/schema lists every key), as for case(), with a few
+// conveniences the JSON does not carry, all derived from the schema's
+// values: by_phase, by_name, flagged_days, and in every set of totals
+// hours_no_boiler, hours_one_boiler and hours_two_boilers. Every job has
+// name, plant, source and row_sources.
+//
+// A voyage: v.total, each v.phases[i] (with .phase, in order of first
+// appearance) and v.by_phase["loaded passage"] (a convenience: the same
+// table as the phase's entry) hold the totals rows, hours, fuel_t, co2_t,
+// steam_t, ege_steam_t, ege_fuel_saved_t (by the EGEs), dumped_t,
+// makeup_t, electric_MWh, hours_firing (a list: [1] no boiler, [2] one,
+// ...), peak_boiler_kg_h with peak_row, capacity_kg_h,
+// tightest_margin_kg_h with tightest_row (nil if no row was summed),
+// short_rows and warning_rows (lists of row numbers), and the
+// conveniences hours_no_boiler, hours_one_boiler and hours_two_boilers
+// (hours_firing[1], [2] and [3], 0 where the list is shorter); v.rows[i]
+// has row, phase, hours, case (the row's name), sea_T_K and air_T_K (nil
+// when not given), engine_load, boilers_firing, can_carry,
+// steam_demand_kg_h, steam_production_kg_h, boiler_steam_kg_h,
+// ege_steam_kg_h, dumped_kg_h, fuel_kg_h, fuel_t, co2_t, margin_kg_h and
+// warnings (the texts; #v.rows[i].warnings counts them). Every case
+// result is in the Run.
 //
 //	local s = study(ship, { name = "EGE", csv = "year.csv", variants = {
 //	    { name = "without EGE", set = { EGE = { off = true } } },
@@ -343,12 +280,13 @@
 // 100; name required, set optional, added to every row) and compares each
 // with the first. fuel_price (number, per tonne of boiler fuel),
 // installed_cost (number) and currency (a string) are optional. The
-// result: s.name, s.hours, s.fuel_price, s.installed_cost, s.currency;
-// s.variants[i] and s.by_name["with EGE"] hold the variant's totals (as a
-// voyage's) and saved_fuel_t, co2_avoided_t, cost_saved (against the
-// first), payback_years (when both money figures are given; math.huge if
-// nothing is saved; the saving is scaled to a year when the rows' hours
-// are not one), hours_below_min_gas_T.
+// result: s.hours, s.fuel_price_per_t, s.installed_cost, s.currency;
+// s.variants[i] and s.by_name["with EGE"] (a convenience: the same table)
+// hold the variant's name, totals (as a voyage's, under .totals:
+// s.variants[2].totals.fuel_t), fuel_saved_t, co2_avoided_t, cost_saved
+// (against the first), payback_years (when both money figures are given
+// and the variant saves something, nil otherwise; the saving is scaled to
+// a year when the rows' hours are not one), hours_below_min_gas_T.
 //
 //	local a = audit(ship, { name = "March", csv = "log.csv",
 //	    uncertain = { { unit = "cargo heating", key = "factor", low = 0.85, high = 1.15 },
@@ -365,12 +303,14 @@
 // "unit.key" columns. claimed is the boiler fuel reported for the day:
 // "12.5 t", "12500 kg", or a bare number of tonnes. uncertain keys: unit,
 // key (a case key of the unit that is a number: factor, eta_factor, duty,
-// returns, ua, ...), low and high in that key's unit. The result: a.name,
+// returns, ua, ...), low and high in that key's unit. The result:
 // a.claimed_t, a.nominal_t, a.low_t, a.high_t (sums of the days' band
 // ends), a.excess_t (the claims above the band, beyond its top), a.flagged
-// (a count), a.samples, a.seed, a.low_quantile, a.high_quantile; a.days[i]
-// and a.flagged_days[i] have day (number), date, phase, claimed_t,
-// nominal_t, low_t, median_t, high_t and flag ("above", "below" or "").
+// (a count), a.samples, a.seed, a.low_quantile, a.high_quantile,
+// a.uncertainties[i] (unit, param, low, high); a.days[i] and the
+// convenience a.flagged_days[i] (the days flagged, in order; the same
+// tables) have day (number), date, phase, claimed_t, nominal_t, low_t,
+// median_t, high_t and flag ("above", "below" or "").
 //
 // In check mode the jobs read and check everything but solve nothing, and
 // return tables of the same shape with zero figures.
@@ -398,6 +338,63 @@
 //	local v = voyage(ship, { csv = "ballast.csv" })  -- COT 1 off in every row
 //	local arrival = cool_down { tank = cot1, from = "60 C", hours = v.total.hours, sea = "12 C" }
 //	check(arrival > 45, "cargo pumpable at arrival")
+//
+// # Flue-gas check
+//
+//	local r = flue_gas { fuel = "HSFO", O2 = "3 %", T = "230 C", air_T = "25 C",
+//	                     humidity = "60 %", CO = "50 ppm", radiation = "1 %", load = "50 %" }
+//	check(r.efficiency_lhv_pct > 85, "AB1 above 85 % at half load")
+//	print(r.flue_gas_T_K - r.acid_dew_point_K, "K above the acid dew point")
+//
+// flue_gas works out a boiler's efficiency from a flue-gas measurement by
+// the heat-loss method, as sim fluegas does (plant/combustion's
+// CheckFlueGas), and returns a table whose keys are those of `sim fluegas
+// --json`: temperatures in K, specific energies in J/kg, flows per kg
+// fuel, fractions and losses in percent (lambda, excess_air_pct,
+// co2_dry_pct, h2o_wet_pct, losses and losses_hhv with dry_gas_pct,
+// moisture_pct, radiation_pct, unburnt_pct, ..., efficiency_lhv_pct,
+// efficiency_hhv_pct, acid_dew_point_K, siegert_loss_pct, lhv_J_per_kg,
+// hhv_J_per_kg, warnings (a list of texts), caution, and the rest). A key
+// that is null in the JSON is nil: acid_dew_point_K for a fuel without
+// sulfur, siegert_loss_pct where the formula does not apply. It is not
+// the boiler key efficiency = { flue_gas = {...} }, which turns a maker's
+// table into a boiler's efficiency curve.
+//
+// The keys, named like the command's flags:
+//
+//   - fuel: a grade (MGO, VLSFO, HSFO, LNG); fuel_analysis: a table of
+//     mass fractions as fired, { C, H, S, N, O, W (free water), A (ash) },
+//     each "86 %" or 0.86, adding up to 100 % within 0.5 %: alone it is
+//     the user's own fuel oil (LHV from the analysis by Channiwala-Parikh),
+//     with fuel it replaces the grade's analysis (the grade keeps its set
+//     LHV); one of the two is required. lhv (specific energy) overrides the
+//     net specific energy.
+//   - O2 or CO2 (fraction, dry; one is required): the analyser's reading;
+//     "0 %" O2 is read as λ = 1 with a warning, an O2 within 0.1 point of
+//     the air's is refused as no combustion, and so is a reading that
+//     means an air ratio above 20.
+//   - T (temperature, required): the flue gas where it was measured, above
+//     the air, above its water dew point, and 25 to 1000 °C; air_T
+//     (temperature, required): the combustion air at the burner intake,
+//     −20 to 50 °C, the reference of the account (the fuel is taken at it).
+//   - humidity: relative, "60 %", or a humidity ratio, "0.012 kg/kg" or
+//     "12 g/kg" (default: dry air). CO: "50 ppm" or "0.005 %" of the dry
+//     flue gas (default 0). radiation (fraction): the radiation and
+//     convection loss at MCR (default 0, with a warning), scaled by 1/load
+//     with load (fraction of MCR, 5 to 120 %, default 100 %). solids
+//     (fraction): the unburnt-solids loss (default 0). atomising (fraction,
+//     kg per kg fuel) and atomising_T (temperature, default air_T): the
+//     atomising steam, whose moisture the losses show as
+//     moisture_from_atomising_steam_pct (only when given). SO3_conversion
+//     (fraction, 0 to 20 %): the share of the SO2 turned to SO3 for the acid
+//     dew point (default 3 %). dew_margin (temperature difference, 0 to 100
+//     K): the margin to the acid dew point below which a warning is given
+//     (default 20 K, common practice).
+//
+// A bad key, unit or value stops the run at the line of the call, naming
+// the key and the value as written (`fg.lua:3: flue_gas: T = "2000 F":
+// the flue-gas temperature must be at most 1832 °F ...`). In check mode
+// flue_gas computes as in a run: it solves no plant.
 //
 // # Other functions
 //

@@ -13,6 +13,7 @@ import (
 // build the same plant (common practice, no source: the same equations
 // give the same answer to the solver's tolerance).
 func TestEGEFormsAgree(t *testing.T) {
+	t.Parallel()
 	const engine = `{ mcr = "12 MW", { load = "25 %", gas = "11 kg/kWh", T = "250 C" }, { load = "100 %", gas = "8.1 kg/kWh", T = "245 C" } }`
 	short := `
 local ship = steam_plant { name = "short",
@@ -78,6 +79,7 @@ return case(ship, { name = "c", sea = "10 C", air = "5 C", engine = "85 %" })`
 // saving reads zero while the case itself is unchanged (the option's
 // documented effect, plant.Options.NoEGESaving).
 func TestEGESavingSwitch(t *testing.T) {
+	t.Parallel()
 	src := `
 local ship = steam_plant { name = "s", ege_saving = SAVE,
   boilers = { { name = "AB1", mcr = "4 t/h", drum = "7 bar(g)", fuel = "HSFO", efficiency = "84 %" } },

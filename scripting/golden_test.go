@@ -15,6 +15,7 @@ var update = flag.Bool("update", false, "rewrite the golden files of testdata/ba
 // testdata/bad/<name>.golden, so that a change of wording shows in review.
 // Run with -update to rewrite them.
 func TestBadGolden(t *testing.T) {
+	t.Parallel()
 	files, err := filepath.Glob(filepath.Join("testdata", "bad", "*.lua"))
 	if err != nil {
 		t.Fatal(err)

@@ -14,6 +14,7 @@ import (
 
 	"steamcase/plant"
 	"steamcase/plant/profile"
+	"steamcase/plant/schema"
 	"steamcase/plant/units"
 )
 
@@ -126,7 +127,7 @@ func (r *runner) tableRows(ph *plantHandle, a *args, key string, spec rowSpec) *
 		row.Case.Conditions.AirT, _ = ra.quantity("air", units.Temperature, false)
 		row.Case.Conditions.EngineLoad, _ = ra.quantity("engine", units.Fraction, false)
 		if v := ra.get("set"); v != lua.LNil {
-			row.Case.Set = r.plainSettings(ph, ra, v, row.Case.Pos)
+			row.Case.Set = r.caseSettings(ph, ra, v, row.Case.Pos)
 		}
 		if ra.has("fire") {
 			row.Case.Fire = r.fireList(ph, ra)
@@ -157,17 +158,6 @@ func (r *runner) fireList(ph *plantHandle, a *args) []string {
 		}
 	}
 	return fire
-}
-
-// plainSettings reads set = {...} as case() does, but refuses the keys of
-// the loads models: the rows of a job are solved in parallel on clones of
-// the plant that share its models, so a model's field cannot vary by row.
-func (r *runner) plainSettings(ph *plantHandle, a *args, v lua.LValue, pos plant.Pos) []plant.Setting {
-	set, models := r.caseSettings(ph, a, v, pos)
-	if len(models) > 0 {
-		a.errorf(nil, "set: the keys of a loads model (a tank_heating's T, from, to, duration; tank_cleaning flow, outlet_T; accommodation inside_T) cannot change from row to row: the rows are solved in parallel on clones of the plant that share the model; use case() for such rows, or declare a unit for each setting and switch them with off")
-	}
-	return set
 }
 
 // parseHours reads hours: a number of hours, or a time ("6 h", "2 d").
@@ -302,7 +292,7 @@ func (r *runner) readCSVFile(fn, name string) (show string, hline int, header []
 type csvColumn struct {
 	field string // "phase", "hours", ...; empty for a unit's key
 	unit  string
-	key   setKey
+	key   plant.Key
 	name  string // the header
 }
 
@@ -339,24 +329,21 @@ func (r *runner) csvRows(ph *plantHandle, fn, name string, spec rowSpec) *jobRow
 			continue
 		}
 		unit, key := h[:dot], h[dot+1:]
-		if ph.p.Unit(unit) == nil {
+		if ph.p.Component(unit) == nil {
 			bad(hdr, "column %q: %s", h, r.unknownUnitMsg(ph, unit))
 			continue
 		}
-		keys := r.keysFor(ph, unit)
+		keys := r.caseKeys(ph, unit)
 		var accepted []string
 		found := false
 		for _, k := range keys {
-			accepted = append(accepted, k.key)
-			if k.key == key {
+			accepted = append(accepted, k.Name)
+			if k.Name == key {
 				cols[i].unit, cols[i].key, found = unit, k, true
 			}
 		}
-		switch {
-		case !found:
+		if !found {
 			bad(hdr, "column %q: %s", h, unknownKeyMsg(key, accepted))
-		case cols[i].key.model != nil:
-			bad(hdr, "column %q: the key %q of a loads model cannot change from row to row of a %s (the rows are solved in parallel on clones sharing the model); use case() for such rows", h, key, spec.job)
 		}
 	}
 	for _, req := range required {
@@ -378,7 +365,7 @@ func (r *runner) csvRows(ph *plantHandle, fn, name string, spec rowSpec) *jobRow
 		pos := Pos{File: show, Line: lines[n]}
 		at := func(c csvColumn, err error) {
 			// the parsers name the key; the column says it already
-			msg := strings.TrimPrefix(strings.TrimPrefix(err.Error(), c.field+": "), c.key.key+": ")
+			msg := strings.TrimPrefix(strings.TrimPrefix(err.Error(), c.field+": "), c.key.Name+": ")
 			r.errs = append(r.errs, &Error{Pos: pos, Msg: fmt.Sprintf("column %q: %s", c.name, msg), Err: err})
 		}
 		var row profile.Row
@@ -424,13 +411,14 @@ func (r *runner) csvRows(ph *plantHandle, fn, name string, spec rowSpec) *jobRow
 			case "engine":
 				row.Case.Conditions.EngineLoad, err = parseCell(cell, "engine", units.Fraction, uopt)
 			case "":
+				if c.key.Kind == plant.KeyText {
+					row.Case.Set = append(row.Case.Set, plant.Setting{Unit: c.unit, Param: c.key.Name, Text: cell, Pos: row.Case.Pos})
+					break
+				}
 				var f float64
-				f, err = parseSetCell(cell, c.key, uopt)
+				f, err = parseSetCell(cell, &c.key, uopt)
 				if err == nil {
-					row.Case.Set = append(row.Case.Set, plant.Setting{Unit: c.unit, Param: c.key.param, Value: f, Pos: row.Case.Pos})
-					if c.key.param == "duty" {
-						row.Case.Set = append(row.Case.Set, plant.Setting{Unit: c.unit, Param: "steam_flow", Value: 0, Pos: row.Case.Pos})
-					}
+					row.Case.Set = append(row.Case.Set, plant.Setting{Unit: c.unit, Param: c.key.Name, Value: f, Pos: row.Case.Pos})
 				}
 			}
 			if err != nil {
@@ -480,21 +468,27 @@ func parseCell(cell, key string, dim units.Dimension, uopt units.Options) (float
 }
 
 // parseSetCell reads a CSV cell for a unit's key: true/false for a switch,
-// a pressure difference, or a quantity.
-func parseSetCell(cell string, k setKey, uopt units.Options) (float64, error) {
-	switch k.how {
-	case setBool:
+// a plain number, a choice, a pressure difference, or a quantity.
+func parseSetCell(cell string, k *plant.Key, uopt units.Options) (float64, error) {
+	switch k.Kind {
+	case plant.KeyFlag:
 		switch strings.ToLower(cell) {
 		case "true", "yes", "1":
 			return 1, nil
 		case "false", "no", "0":
 			return 0, nil
 		}
-		return 0, fmt.Errorf("%s must be true or false; got %q", k.key, cell)
-	case setPressureDiff:
-		return parsePressureDiff(lua.LString(cell), k.key)
+		return 0, fmt.Errorf("%s must be true or false; got %q", k.Name, cell)
+	case plant.KeyNumber:
+		f, err := strconv.ParseFloat(cell, 64)
+		if err != nil || math.IsNaN(f) || math.IsInf(f, 0) {
+			return 0, fmt.Errorf("%s must be a finite number; got %q", k.Name, cell)
+		}
+		return f, nil
+	case plant.KeyQuantity:
+		return parseCell(cell, k.Name, k.Dim, uopt)
 	}
-	return parseCell(cell, k.key, k.dim, uopt)
+	return parseSetting(lua.LString(cell), k, k.Name, uopt)
 }
 
 // ---------------------------------------------------------------------------
@@ -579,7 +573,7 @@ func (r *runner) luaVoyage(L *lua.LState) int {
 	rec := VoyageRecord{Name: name, Plant: ph.p.Name, Pos: a.pos, Rows: rows.pos}
 	if r.opt.CheckOnly {
 		r.out.Voyages = append(r.out.Voyages, rec)
-		L.Push(r.profileTable(name, placeholderResult(rows.rows), true))
+		L.Push(r.profileTable(rec.job(), placeholderResult(rows.rows)))
 		return 1
 	}
 	res, err := profile.Run(L.Context(), ph.p, rows.rows, profile.Options{Workers: r.opt.Workers, Progress: r.progress(a.what)})
@@ -588,7 +582,7 @@ func (r *runner) luaVoyage(L *lua.LState) int {
 	}
 	rec.Result = res
 	r.out.Voyages = append(r.out.Voyages, rec)
-	L.Push(r.profileTable(name, res, false))
+	L.Push(r.profileTable(rec.job(), res))
 	return 1
 }
 
@@ -625,7 +619,7 @@ func (r *runner) luaStudy(L *lua.LState) int {
 			names[vn] = true
 			var set []plant.Setting
 			if s := va.get("set"); s != lua.LNil {
-				set = r.plainSettings(ph0, va, s, plant.Pos{File: a.pos.File, Line: a.pos.Line})
+				set = r.caseSettings(ph0, va, s, plant.Pos{File: a.pos.File, Line: a.pos.Line})
 			}
 			va.done()
 			a.nerr += va.nerr
@@ -653,7 +647,7 @@ func (r *runner) luaStudy(L *lua.LState) int {
 			res.Variants = append(res.Variants, profile.VariantResult{Name: v.Name, Totals: empty.Total})
 		}
 		r.out.Studies = append(r.out.Studies, rec)
-		L.Push(r.studyTable(name, res))
+		L.Push(r.studyTable(schema.Job{Name: name, Plant: ph.p.Name, Source: a.pos.String(), RowSources: posStrings(rows.pos)}, res))
 		return 1
 	}
 	// One progress over all variants: each variant's run counts its rows
@@ -675,7 +669,7 @@ func (r *runner) luaStudy(L *lua.LState) int {
 	}
 	rec.Result = res
 	r.out.Studies = append(r.out.Studies, rec)
-	L.Push(r.studyTable(name, res))
+	L.Push(r.studyTable(schema.Job{Name: name, Plant: ph.p.Name, Source: a.pos.String(), RowSources: posStrings(rows.pos)}, res))
 	return 1
 }
 
@@ -726,7 +720,7 @@ func (r *runner) luaAudit(L *lua.LState) int {
 			res.Days[i] = profile.DayResult{Date: d.Date, Phase: d.Phase, ClaimedT: d.ClaimedT}
 		}
 		r.out.Audits = append(r.out.Audits, rec)
-		L.Push(r.auditTable(name, res))
+		L.Push(r.auditTable(schema.Job{Name: name, Plant: ph.p.Name, Source: a.pos.String(), RowSources: posStrings(rows.pos)}, res))
 		return 1
 	}
 	opt.Workers = r.opt.Workers
@@ -737,7 +731,7 @@ func (r *runner) luaAudit(L *lua.LState) int {
 	}
 	rec.Result = res
 	r.out.Audits = append(r.out.Audits, rec)
-	L.Push(r.auditTable(name, res))
+	L.Push(r.auditTable(schema.Job{Name: name, Plant: ph.p.Name, Source: a.pos.String(), RowSources: posStrings(rows.pos)}, res))
 	return 1
 }
 
@@ -769,25 +763,28 @@ func (r *runner) uncertainties(ph *plantHandle, a *args) []profile.Uncertain {
 			a.nerr += ea.nerr
 			continue
 		}
-		if ph.p.Unit(unit) == nil {
+		if ph.p.Component(unit) == nil {
 			ea.errorf(nil, "%s", r.unknownUnitMsg(ph, unit))
 			a.nerr += ea.nerr
 			continue
 		}
-		var k setKey
+		var k plant.Key
 		var accepted []string
 		found := false
-		for _, x := range r.keysFor(ph, unit) {
-			accepted = append(accepted, x.key)
-			if x.key == key {
+		for _, x := range r.caseKeys(ph, unit) {
+			if x.Kind == plant.KeyText {
+				continue // a text cannot be drawn from a range
+			}
+			accepted = append(accepted, x.Name)
+			if x.Name == key {
 				k, found = x, true
 			}
 		}
 		switch {
 		case !found:
 			ea.errorf(nil, "%s: %s", unit, unknownKeyMsg(key, accepted))
-		case k.model != nil || k.how == setBool:
-			ea.errorf(nil, "%s.%s cannot be sampled (a switch, or a loads model's field); sample a number such as factor", unit, key)
+		case k.Kind == plant.KeyFlag || k.Kind == plant.KeyChoice:
+			ea.errorf(nil, "%s.%s cannot be sampled (a switch or a choice); sample a number such as factor", unit, key)
 		default:
 			parse := func(v lua.LValue, what string) float64 {
 				if v == lua.LNil {
@@ -796,11 +793,7 @@ func (r *runner) uncertainties(ph *plantHandle, a *args) []profile.Uncertain {
 				}
 				var f float64
 				var err error
-				if k.how == setPressureDiff {
-					f, err = parsePressureDiff(v, what)
-				} else {
-					f, err = parseQuantity(v, what, k.dim, ph.uopt)
-				}
+				f, err = parseSetting(v, &k, what, ph.uopt)
 				if err != nil {
 					ea.errorf(err, "%v", err)
 				}
@@ -810,7 +803,7 @@ func (r *runner) uncertainties(ph *plantHandle, a *args) []profile.Uncertain {
 			if ea.nerr == 0 && !(l <= h) {
 				ea.errorf(nil, "low must not exceed high; got %s and %s", describe(lo), describe(hi))
 			}
-			out = append(out, profile.Uncertain{Unit: unit, Param: k.param, Low: l, High: h, Pos: plant.Pos{File: a.pos.File, Line: a.pos.Line}})
+			out = append(out, profile.Uncertain{Unit: unit, Param: k.Name, Low: l, High: h, Pos: plant.Pos{File: a.pos.File, Line: a.pos.Line}})
 		}
 		a.nerr += ea.nerr
 	}
@@ -820,167 +813,101 @@ func (r *runner) uncertainties(ph *plantHandle, a *args) []profile.Uncertain {
 // ---------------------------------------------------------------------------
 // Results as Lua tables.
 
-// totalsTable is one set of totals, keys with units.
-func (r *runner) totalsTable(t profile.Totals) *lua.LTable {
-	L := r.L
-	o := L.CreateTable(0, 24)
-	set := func(k string, v float64) { o.RawSetString(k, lua.LNumber(finiteOr(v, 0))) }
-	set("rows", float64(t.Rows))
-	set("hours", t.Hours)
-	set("fuel_t", t.FuelT)
-	set("co2_t", t.CO2T)
-	set("steam_t", t.SteamT)
-	set("ege_steam_t", t.EGESteamT)
-	set("dumped_t", t.DumpedT)
-	set("makeup_t", t.MakeUpT)
-	set("fuel_saved_t", t.FuelSavedT)
-	set("electric_MWh", t.ElectricMWh)
-	hf := L.CreateTable(len(t.HoursFiring), 0)
-	for _, h := range t.HoursFiring {
-		hf.Append(lua.LNumber(h))
-	}
-	o.RawSetString("hours_firing", hf)
-	firing := func(k int) float64 {
-		if k < len(t.HoursFiring) {
-			return t.HoursFiring[k]
-		}
-		return 0
-	}
-	set("hours_no_boiler", firing(0))
-	set("hours_one_boiler", firing(1))
-	set("hours_two_boilers", firing(2))
-	set("peak_boiler_kg_h", t.PeakBoilerKgS*3600)
-	set("capacity_kg_h", t.CapacityKgS*3600)
-	if t.PeakRow >= 0 {
-		set("peak_row", float64(t.PeakRow+1))
-	}
-	if t.TightestRow >= 0 && !math.IsInf(t.TightestMarginKgS, 0) {
-		set("tightest_margin_kg_h", t.TightestMarginKgS*3600)
-		set("tightest_row", float64(t.TightestRow+1))
-	}
-	rowList := func(k string, rows []int) {
-		l := L.CreateTable(len(rows), 0)
-		for _, i := range rows {
-			l.Append(lua.LNumber(i + 1))
-		}
-		o.RawSetString(k, l)
-	}
-	rowList("short_rows", t.ShortRows)
-	rowList("warning_rows", t.WarningRows)
-	return o
+// The Lua tables of the jobs are their schema objects (package
+// plant/schema) with a few conveniences derived from them, which the
+// JSON does not carry (by_phase, by_name, flagged_days, hours_no_boiler,
+// hours_one_boiler, hours_two_boilers; the package doc lists them). A
+// test keeps the rest of every table's keys equal to the JSON's.
+
+// job is the record's part of its schema form.
+func (v VoyageRecord) job() schema.Job {
+	return schema.Job{Name: v.Name, Plant: v.Plant, Source: v.Pos.String(), RowSources: posStrings(v.Rows)}
 }
 
-func finiteOr(v, def float64) float64 {
-	if math.IsNaN(v) || math.IsInf(v, 0) {
-		return def
+func posStrings(ps []Pos) []string {
+	out := make([]string, len(ps))
+	for i, p := range ps {
+		out[i] = p.String()
 	}
-	return v
+	return out
 }
 
-// profileTable is what voyage() returns.
-func (r *runner) profileTable(name string, res *profile.Result, placeholder bool) lua.LValue {
-	L := r.L
-	o := L.NewTable()
-	o.RawSetString("name", lua.LString(name))
-	o.RawSetString("total", r.totalsTable(res.Total))
-	phases := L.CreateTable(len(res.Phases), 0)
-	byPhase := L.CreateTable(0, len(res.Phases))
-	for _, p := range res.Phases {
-		pt := r.totalsTable(p.Totals)
-		pt.RawSetString("phase", lua.LString(p.Phase))
-		phases.Append(pt)
-		byPhase.RawSetString(p.Phase, pt)
+// totalsTable adds to a totals table its hours with no, one and two
+// boilers firing (hours_firing[1], [2] and [3], 0 where the list is
+// shorter).
+func totalsTable(t *lua.LTable) {
+	hf, _ := t.RawGetString("hours_firing").(*lua.LTable)
+	for k, key := range []string{"hours_no_boiler", "hours_one_boiler", "hours_two_boilers"} {
+		h := lua.LNumber(0)
+		if hf != nil {
+			if v, ok := hf.RawGetInt(k + 1).(lua.LNumber); ok {
+				h = v
+			}
+		}
+		t.RawSetString(key, h)
 	}
-	o.RawSetString("phases", phases)
+}
+
+// list is the sequence under key of t (empty when there is none).
+func list(t *lua.LTable, key string) []*lua.LTable {
+	l, _ := t.RawGetString(key).(*lua.LTable)
+	if l == nil {
+		return nil
+	}
+	out := make([]*lua.LTable, 0, l.Len())
+	for i := 1; i <= l.Len(); i++ {
+		if e, ok := l.RawGetInt(i).(*lua.LTable); ok {
+			out = append(out, e)
+		}
+	}
+	return out
+}
+
+// profileTable is what voyage() returns: the voyage's schema object, its
+// totals with hours_no_boiler, hours_one_boiler and hours_two_boilers,
+// and by_phase, the phases' totals by name.
+func (r *runner) profileTable(job schema.Job, res *profile.Result) lua.LValue {
+	o := r.schemaTable(fmt.Sprintf("voyage %q", job.Name), schema.NewVoyage(job, res))
+	if t, ok := o.RawGetString("total").(*lua.LTable); ok {
+		totalsTable(t)
+	}
+	phases := list(o, "phases")
+	byPhase := r.L.CreateTable(0, len(phases))
+	for _, p := range phases {
+		totalsTable(p)
+		byPhase.RawSet(p.RawGetString("phase"), p)
+	}
 	o.RawSetString("by_phase", byPhase)
-	rows := L.CreateTable(len(res.Rows), 0)
-	for _, row := range res.Rows {
-		rt := L.CreateTable(0, 12)
-		rt.RawSetString("phase", lua.LString(row.Phase))
-		rt.RawSetString("hours", lua.LNumber(row.Hours))
-		var fuel, co2, steam, ege, dumped float64
-		firing, carry, warns := 0, true, 0
-		if cr := row.Result; cr != nil && !placeholder {
-			fuel, co2, steam, ege, dumped = cr.FuelKgS, cr.CO2KgS, cr.SteamProductionKgS, cr.EGESteamKgS, cr.DumpedKgS
-			firing, carry, warns = cr.BoilersFiring, cr.CanCarry, len(cr.Warnings)
-			rt.RawSetString("name", lua.LString(cr.Name))
-		}
-		rt.RawSetString("fuel_kg_h", lua.LNumber(fuel*3600))
-		rt.RawSetString("fuel_t", lua.LNumber(fuel*3.6*row.Hours))
-		rt.RawSetString("co2_t", lua.LNumber(co2*3.6*row.Hours))
-		rt.RawSetString("steam_kg_h", lua.LNumber(steam*3600))
-		rt.RawSetString("ege_steam_kg_h", lua.LNumber(ege*3600))
-		rt.RawSetString("dumped_kg_h", lua.LNumber(dumped*3600))
-		rt.RawSetString("boilers_firing", lua.LNumber(firing))
-		rt.RawSetString("can_carry", lua.LBool(carry))
-		rt.RawSetString("warnings", lua.LNumber(warns))
-		rows.Append(rt)
-	}
-	o.RawSetString("rows", rows)
 	return o
 }
 
-// studyTable is what study() returns.
-func (r *runner) studyTable(name string, res *profile.StudyResult) lua.LValue {
-	L := r.L
-	o := L.NewTable()
-	o.RawSetString("name", lua.LString(name))
-	o.RawSetString("hours", lua.LNumber(res.Hours))
-	o.RawSetString("fuel_price", lua.LNumber(res.FuelPrice))
-	o.RawSetString("installed_cost", lua.LNumber(res.InstalledCost))
-	o.RawSetString("currency", lua.LString(res.Currency))
-	vs := L.CreateTable(len(res.Variants), 0)
-	byName := L.CreateTable(0, len(res.Variants))
-	for _, v := range res.Variants {
-		vt := r.totalsTable(v.Totals)
-		vt.RawSetString("name", lua.LString(v.Name))
-		vt.RawSetString("saved_fuel_t", lua.LNumber(v.FuelSavedT))
-		vt.RawSetString("co2_avoided_t", lua.LNumber(v.CO2AvoidedT))
-		vt.RawSetString("cost_saved", lua.LNumber(v.CostSaved))
-		if v.PaybackYears != 0 {
-			// math.huge when the variant saves nothing
-			vt.RawSetString("payback_years", lua.LNumber(v.PaybackYears))
+// studyTable is what study() returns: the study's schema object, its
+// variants' totals with the hours by boilers firing, and by_name, the
+// variants by name.
+func (r *runner) studyTable(job schema.Job, res *profile.StudyResult) lua.LValue {
+	o := r.schemaTable(fmt.Sprintf("study %q", job.Name), schema.NewStudy(job, res))
+	variants := list(o, "variants")
+	byName := r.L.CreateTable(0, len(variants))
+	for _, v := range variants {
+		if t, ok := v.RawGetString("totals").(*lua.LTable); ok {
+			totalsTable(t)
 		}
-		vt.RawSetString("hours_below_min_gas_T", lua.LNumber(v.HoursBelowMinGasT))
-		vs.Append(vt)
-		byName.RawSetString(v.Name, vt)
+		byName.RawSet(v.RawGetString("name"), v)
 	}
-	o.RawSetString("variants", vs)
 	o.RawSetString("by_name", byName)
 	return o
 }
 
-// auditTable is what audit() returns.
-func (r *runner) auditTable(name string, res *profile.AuditResult) lua.LValue {
-	L := r.L
-	o := L.NewTable()
-	o.RawSetString("name", lua.LString(name))
-	for k, v := range map[string]float64{
-		"claimed_t": res.ClaimedT, "nominal_t": res.NominalT, "low_t": res.LowT, "high_t": res.HighT,
-		"excess_t": res.ExcessT, "flagged": float64(res.Flagged), "samples": float64(res.Samples),
-		"seed": float64(res.Seed), "low_quantile": res.LowQ, "high_quantile": res.HighQ,
-	} {
-		o.RawSetString(k, lua.LNumber(v))
-	}
-	days := L.CreateTable(len(res.Days), 0)
-	flagged := L.NewTable()
-	for i, d := range res.Days {
-		dt := L.CreateTable(0, 9)
-		dt.RawSetString("day", lua.LNumber(i+1))
-		dt.RawSetString("date", lua.LString(d.Date))
-		dt.RawSetString("phase", lua.LString(d.Phase))
-		dt.RawSetString("claimed_t", lua.LNumber(d.ClaimedT))
-		dt.RawSetString("nominal_t", lua.LNumber(d.NominalT))
-		dt.RawSetString("low_t", lua.LNumber(d.LowT))
-		dt.RawSetString("median_t", lua.LNumber(d.MedianT))
-		dt.RawSetString("high_t", lua.LNumber(d.HighT))
-		dt.RawSetString("flag", lua.LString(d.Flag))
-		days.Append(dt)
-		if d.Flag != "" {
-			flagged.Append(dt)
+// auditTable is what audit() returns: the audit's schema object and
+// flagged_days, the days whose flag is not "", in order.
+func (r *runner) auditTable(job schema.Job, res *profile.AuditResult) lua.LValue {
+	o := r.schemaTable(fmt.Sprintf("audit %q", job.Name), schema.NewAudit(job, res))
+	flagged := r.L.NewTable()
+	for _, d := range list(o, "days") {
+		if f, _ := d.RawGetString("flag").(lua.LString); f != "" {
+			flagged.Append(d)
 		}
 	}
-	o.RawSetString("days", days)
 	o.RawSetString("flagged_days", flagged)
 	return o
 }

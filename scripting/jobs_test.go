@@ -32,6 +32,7 @@ func runJob(t *testing.T, file string, opt Options) *Run {
 }
 
 func TestVoyageTotals(t *testing.T) {
+	t.Parallel()
 	run := runJob(t, "voyage.lua", Options{})
 	if len(run.Voyages) != 2 || len(run.Cases) != 5 {
 		t.Fatalf("got %d voyages and %d cases; want 2 and 5", len(run.Voyages), len(run.Cases))
@@ -73,6 +74,7 @@ func TestVoyageTotals(t *testing.T) {
 }
 
 func TestStudySaving(t *testing.T) {
+	t.Parallel()
 	run := runJob(t, "study.lua", Options{})
 	if len(run.Studies) != 1 || len(run.Voyages) != 2 {
 		t.Fatalf("got %d studies and %d voyages; want 1 and 2", len(run.Studies), len(run.Voyages))
@@ -89,6 +91,7 @@ func TestStudySaving(t *testing.T) {
 }
 
 func TestAuditFlags(t *testing.T) {
+	t.Parallel()
 	run := runJob(t, "audit.lua", Options{})
 	if len(run.Audits) != 2 {
 		t.Fatalf("got %d audits; want 2", len(run.Audits))
@@ -114,6 +117,7 @@ func TestAuditFlags(t *testing.T) {
 // progress callback: the results must not depend on the workers, and the
 // progress must reach its total.
 func TestJobsWorkers(t *testing.T) {
+	t.Parallel()
 	var mu sync.Mutex
 	last := map[string][2]int{}
 	prog := func(job string, done, total int) {
@@ -141,6 +145,7 @@ func TestJobsWorkers(t *testing.T) {
 }
 
 func TestJobErrors(t *testing.T) {
+	t.Parallel()
 	bad := filepath.Join("testdata", "bad")
 	tests := []struct {
 		file string
@@ -153,9 +158,9 @@ func TestJobErrors(t *testing.T) {
 		{"csv_unknown_key.lua", []string{
 			`unknown_key.csv:1: column "cargo heating.dutty": unknown key 'dutty'; did you mean 'duty'?`,
 			`unknown_key.csv:1: column "boiler 1.off": plant "Invented Small Tanker" has no unit "boiler 1"`,
-			`unknown_key.csv:1: column "COT 1.T": the key "T" of a loads model cannot change`,
+			`unknown_key.csv:1: column "COT 1.To": unknown key 'To'; did you mean 'to'?`,
 			`unknown_key.csv:1: unknown column "speed"`}},
-		{"job_errors.lua", []string{"rows[1]: hours must be a positive", "rows[2]: set: the keys of a loads model", "rows[3]: phase is required", `"AB2" is not a boiler`}},
+		{"job_errors.lua", []string{"rows[1]: hours must be a positive", `rows[2]: set.COT 1.mode must be "hold" or "heat_up"; got "heat"`, "rows[3]: phase is required", `"AB2" is not a boiler`}},
 		{"audit_errors.lua", []string{"claimed: mass expected", "cargo heating.off cannot be sampled", "did you mean 'eta_factor'?", "low must not exceed high", "samples must be a whole number", "band must satisfy"}},
 	}
 	for _, tc := range tests {
@@ -178,6 +183,7 @@ func TestJobErrors(t *testing.T) {
 }
 
 func TestCoolDown(t *testing.T) {
+	t.Parallel()
 	// plant-checks.md §6 [C]: m 10 000 t, c 2.0 kJ/kgK, ΣUA 50 kW/K give
 	// τ = 111.1 h; from 60 °C with 20 °C surroundings, 3 days give
 	// 40.92 °C.
@@ -233,6 +239,7 @@ func runValues(t *testing.T, src string, n int) []float64 {
 // ΣUA 50 kW/K to a 20 °C sea: 60 °C → 40.92 °C in 3 days), reached by
 // its handle and by its name, while a voyage keeps its heating off.
 func TestCoolDownOfUnit(t *testing.T) {
+	t.Parallel()
 	src := `
 local ship = steam_plant { name = "tank",
   boilers = { { name = "AB1", mcr = "3 t/h", drum = "7 bar(g)", fuel = "MGO", efficiency = "84 %" } } }
@@ -242,12 +249,49 @@ ship:line("steam to COT 1", "main", "COT 1")
 local v = voyage(ship, { rows = { { phase = "passage", hours = 72, sea = "20 C", air = "20 C", set = { ["COT 1"] = { off = true } } } } })
 local T = cool_down { tank = cot, from = "60 C", hours = v.total.hours, sea = "20 C" }
 local T2 = cool_down { tank = "COT 1", from = "60 C", hours = "3 d", sea = "20 C" }
-return T, T2, v.rows[1].steam_kg_h`
+return T, T2, v.rows[1].steam_production_kg_h`
 	got := runValues(t, src, 3)
 	if math.Abs(got[0]-40.92) > 0.005 || got[1] != got[0] {
 		t.Errorf("cool_down of the unit gives %.4f °C by handle and %.4f °C by name; want 40.92 °C", got[0], got[1])
 	}
 	if got[2] != 0 {
 		t.Errorf("the voyage raises %g kg/h of steam with the only consumer off; want 0", got[2])
+	}
+}
+
+// TestModelKeysByRow: a voyage's rows set a tank's mode and temperatures
+// (the duty models are the consumers' own, copied with each clone of the
+// plant), and the totals do not depend on the number of workers. The
+// duties are checked against the lumped balance of plant-checks.md §6
+// [CP]: holding, Q = ΣUA·(T − T_beyond); heating up, Q = m·c̄·ΔT/t + ΣUA·(T̄
+// − T_beyond), with c̄ by Cragoe (plant/loads' own tested formula).
+func TestModelKeysByRow(t *testing.T) {
+	t.Parallel()
+	file := filepath.Join("testdata", "good", "model_rows.lua")
+	var totals [2]float64
+	for i, workers := range []int{1, 3} {
+		run, err := RunFile(context.Background(), file, Options{Workers: workers})
+		if err != nil {
+			t.Fatal(err)
+		}
+		res := run.Voyages[0].Result
+		duty := func(row int) float64 { return res.Rows[row].Result.Consumers[0].DutyW }
+		ua := 1000*5.0 + 600*4.0 // W/K
+		loss := func(tC float64) float64 { return 1000*5*(tC-10) + 600*4*(tC-5) }
+		if d, want := duty(0), loss(45); math.Abs(d-want) > 1e-6*want {
+			t.Errorf("row 1 (held at 45 C): duty %.1f W, want ΣUA·ΔT = %.1f W", d, want)
+		}
+		if d, want := duty(2), loss(55); math.Abs(d-want) > 1e-6*want {
+			t.Errorf("row 3 (held at 55 C): duty %.1f W, want %.1f W", d, want)
+		}
+		in := res.Rows[1].Result.Consumers[0].Inputs
+		mass, sensible := in["mass_kg"], in["sensible_W"]
+		if d, want := duty(1), sensible+loss(50); math.Abs(d-want) > 1e-6*want || sensible < 0.5*mass*1800*10/(48*3600) {
+			t.Errorf("row 2 (heat-up): duty %.1f W, want sensible %.1f + loss %.1f W (UA %.0f W/K)", d, sensible, loss(50), ua)
+		}
+		totals[i] = res.Total.FuelT
+	}
+	if totals[0] != totals[1] {
+		t.Errorf("fuel %.9g t on one worker, %.9g t on three", totals[0], totals[1])
 	}
 }

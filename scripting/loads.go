@@ -9,43 +9,18 @@ import (
 	lua "github.com/yuin/gopher-lua"
 
 	"steamcase/plant"
-	"steamcase/plant/fuel"
 	"steamcase/plant/loads"
 	"steamcase/plant/units"
 )
 
-// The consumer kinds computed by package plant/loads. Each becomes a
-// plant.Consumer (a plant.Turbine for a cargo pump) whose duty the loads
-// model gives, from the case's sea and air temperatures where it depends
-// on them.
-var loadsBuilders = map[string]unitBuilder{
-	"tank_heating":          buildTankHeating,
-	"fuel_heater":           buildFuelHeater,
-	"accommodation":         buildAccommodation,
-	"tank_cleaning":         buildTankCleaning,
-	"cargo_pump":            buildCargoPump,
-	"atomising_steam":       buildAtomisingSteam,
-	"soot_blowing":          buildSootBlowing,
-	"steam_tracing":         buildSteamTracing,
-	"fresh_water_generator": buildFreshWaterGenerator,
-}
-
-func (r *runner) loadsBuilder(kind string) (unitBuilder, bool) {
-	b, ok := loadsBuilders[kind]
-	return b, ok
-}
-
-func (r *runner) registerLoads(methods *lua.LTable) {
-	for kind, b := range loadsBuilders {
-		methods.RawSetString(kind, r.L.NewFunction(r.unitMethod(kind, b)))
-	}
-}
+// consumerKinds are the kinds the short form lists under consumers: the
+// plain consumer and the consumers whose demand a plant/loads model
+// computes (a cargo pump is a turbine).
+var consumerKinds = []string{"consumer", "tank_heating", "fuel_heater", "accommodation", "tank_cleaning",
+	"atomising_steam", "soot_blowing", "steam_tracing", "fresh_water_generator"}
 
 func unknownKindMsg(k string) string {
-	names := []string{"consumer"}
-	for n := range loadsBuilders {
-		names = append(names, n)
-	}
+	names := append(append([]string(nil), consumerKinds...), "cargo_pump")
 	sort.Strings(names)
 	msg := fmt.Sprintf("unknown consumer kind %q", k)
 	if s := suggest(k, names); s != "" {
@@ -68,154 +43,92 @@ func (a *args) loadErr(err error) {
 	a.errorf(err, "%v", err)
 }
 
-// needAmbient returns the loads ambient of a case, or an error if the case
-// did not give the temperatures the model needs.
-func needAmbient(c plant.Conditions, sea, air bool) (loads.Ambient, error) {
-	var miss []string
-	if sea && c.SeaT <= 0 {
-		miss = append(miss, "sea")
-	}
-	if air && c.AirT <= 0 {
-		miss = append(miss, "air")
-	}
-	if len(miss) > 0 {
-		ex := make([]string, len(miss))
-		for i, k := range miss {
-			ex[i] = k + ` = "12 C"`
-		}
-		return loads.Ambient{}, fmt.Errorf("needs the case's %s temperature: give %s in the case", strings.Join(miss, " and "), strings.Join(ex, " and "))
-	}
-	return loads.Ambient{Sea: c.SeaT, Air: c.AirT}, nil
-}
-
-// validationAmbient is the ambient at which a model is tried when it is
-// declared, so that input errors point at the script line: 15 °C sea and
-// air (any plausible value serves; the case's own are used when solving).
-var validationAmbient = loads.Ambient{Sea: 288.15, Air: 288.15}
-
 // ---------------------------------------------------------------------------
 // Tank heating.
 
-// tankModel adapts loads.TankHeating to plant.DutyModel.
-type tankModel struct{ t loads.TankHeating }
-
-func (m *tankModel) Duty(c plant.Conditions) (plant.Duty, error) {
-	amb, err := needAmbient(c, m.usesSea(), m.usesAir())
-	if err != nil {
-		return plant.Duty{}, err
+// decodeTankHeating reads a tank heating's tank (tankGeometry) and its
+// mode: hold at T, or heat up from "from" to "to" in "duration".
+func decodeTankHeating(r *runner, a *args, ph *plantHandle, u plant.Component) {
+	c, ok := u.(*plant.Consumer)
+	if !ok {
+		return
 	}
-	res, err := m.t.Duty(amb)
-	if err != nil {
-		return plant.Duty{}, err
+	m, ok := c.Model.(*plant.TankHeating)
+	if !ok {
+		return
 	}
-	in := map[string]float64{
-		"mass_kg": res.Mass, "UA_W_per_K": res.UA, "loss_W": res.Loss, "sensible_W": res.Sensible,
-		"oil_T_K": res.LossT, "ambient_T_K": res.AmbientT, "to_T_K": res.To,
-	}
-	if res.Mode == loads.HeatUp {
-		in["from_T_K"], in["duration_s"] = res.From, res.Duration
-	}
-	return plant.Duty{W: res.Duty, Inputs: in, Warnings: res.Warnings}, nil
-}
-
-func (m *tankModel) usesSea() bool {
-	for _, b := range m.t.Boundaries {
-		if b.Beyond == loads.Sea && b.Area*b.U > 0 {
-			return true
+	r.tankGeometry(a, c)
+	mode, _ := a.str("mode", false)
+	// not lists the keys of the other mode that were given.
+	not := func(keys ...string) []string {
+		var out []string
+		for _, k := range keys {
+			if a.has(k) {
+				out = append(out, k)
+			}
 		}
+		return out
 	}
-	return false
-}
-
-func (m *tankModel) usesAir() bool {
-	for _, b := range m.t.Boundaries {
-		if b.Beyond == loads.Air && b.Area*b.U > 0 {
-			return true
+	switch mode {
+	case "", "hold":
+		m.Tank.Mode = loads.Hold
+		r.readNamed(a, u, "T", true)
+		if extra := not("from", "to", "duration"); len(extra) > 0 {
+			a.errorf(nil, "%s belong to mode = \"heat_up\"; holding takes T", strings.Join(extra, ", "))
 		}
-	}
-	return false
-}
-
-// cargo reads the oil of a tank: fuel = "HSFO" (its density and Cragoe
-// specific heat), or density with an optional cp.
-func (a *args) cargo() loads.Cargo {
-	var c loads.Cargo
-	name, hasFuel := a.str("fuel", false)
-	if hasFuel {
-		f, err := fuel.Grade(name)
-		if err != nil {
-			a.errorf(err, "fuel %q is not a built-in grade (grades: %s)", name, strings.Join(fuel.GradeNames(), ", "))
-		} else if c, err = loads.CargoFromFuel(f); err != nil {
-			a.loadErr(err)
+	case "heat_up":
+		m.Tank.Mode = loads.HeatUp
+		r.readNamed(a, u, "from", true)
+		r.readNamed(a, u, "to", true)
+		r.readNamed(a, u, "duration", true)
+		if extra := not("T"); len(extra) > 0 {
+			a.errorf(nil, "T belongs to mode = \"hold\"; a heat-up takes from, to and duration")
 		}
+	default:
+		a.get("T")
+		a.get("from")
+		a.get("to")
+		a.get("duration")
+		a.errorf(nil, "mode must be \"hold\" or \"heat_up\"; got %q", mode)
 	}
-	if d, ok := a.quantity("density", units.Density, !hasFuel); ok {
-		c.Density, c.SG = d, 0
-	}
-	c.Cp, _ = a.quantity("cp", units.SpecificHeat, false)
-	if n, ok := a.str("cargo", false); ok {
-		c.Name = n
-	} else if hasFuel {
-		c.Name = name
-	}
-	return c
 }
 
-// tankGeometry reads the tank of a tank_heating (or of cool_down's tank
-// table): the cargo (fuel or density, cp, cargo), flash_point, and
-// dimensions or volume with boundaries.
-func (r *runner) tankGeometry(a *args) loads.TankHeating {
-	var m struct{ t loads.TankHeating } // the fields as buildTankHeating names them
-	cargo := a.cargo()
-	m.t.FlashPoint, _ = a.quantity("flash_point", units.Temperature, false)
+// tankGeometry reads the tank of a tank_heating c (or of cool_down's tank
+// table): its density (required without a fuel), and its dimensions, or
+// its volume with its boundaries. The registry reads fuel, cp, cargo and
+// flash_point.
+func (r *runner) tankGeometry(a *args, c *plant.Consumer) {
+	m, ok := c.Model.(*plant.TankHeating)
+	if !ok {
+		return
+	}
+	hasFuel := a.t.RawGetString("fuel") != lua.LNil
+	r.readNamed(a, c, "density", !hasFuel)
 	dims, hasDims := a.get("dimensions").(*lua.LTable)
 	bounds, hasBounds := a.get("boundaries").(*lua.LTable)
 	switch {
 	case hasDims && hasBounds:
 		a.errorf(nil, "give dimensions or boundaries, not both")
+		a.get("volume")
 	case hasDims:
+		if a.has("volume") {
+			a.errorf(nil, "the dimensions give the volume (with fill); leave volume out, or give volume with boundaries")
+		}
 		d := r.tankDimensions(a, dims)
 		if a.nerr == 0 {
-			t, err := loads.TankFromDimensions("", cargo, d)
+			t, err := loads.TankFromDimensions("", m.Tank.Cargo, d)
 			if err != nil {
 				a.loadErr(err)
 			}
-			m.t.CargoVolume, m.t.Boundaries = t.CargoVolume, t.Boundaries
+			m.Tank.CargoVolume, m.Tank.Boundaries = t.CargoVolume, t.Boundaries
 		}
 	case hasBounds:
-		m.t.CargoVolume, _ = a.quantity("volume", units.Volume, true)
-		m.t.Boundaries = r.tankBoundaries(a, bounds)
+		r.readNamed(a, c, "volume", true)
+		m.Tank.Boundaries = r.tankBoundaries(a, bounds)
 	default:
+		a.get("volume")
 		a.errorf(nil, "needs the tank's dimensions = {...} or its boundaries = { {area, U, beyond}, ... }")
 	}
-	m.t.Cargo = cargo
-	return m.t
-}
-
-func buildTankHeating(r *runner, a *args, ph *plantHandle) plant.Unit {
-	u := &plant.Consumer{Label: "tank heating"}
-	m := &tankModel{t: r.tankGeometry(a)}
-	mode, _ := a.str("mode", false)
-	switch mode {
-	case "", "hold":
-		m.t.Mode = loads.Hold
-		m.t.To, _ = a.quantity("T", units.Temperature, true)
-	case "heat_up":
-		m.t.Mode = loads.HeatUp
-		m.t.From, _ = a.quantity("from", units.Temperature, true)
-		m.t.To, _ = a.quantity("to", units.Temperature, true)
-		m.t.Duration, _ = a.quantity("duration", units.Time, true)
-	default:
-		a.errorf(nil, "mode must be \"hold\" or \"heat_up\"; got %q", mode)
-	}
-	consumerCommon(a, u)
-	if a.nerr == 0 {
-		if _, err := m.t.Duty(validationAmbient); err != nil {
-			a.loadErr(err)
-		}
-	}
-	u.Model = m
-	return u
 }
 
 func (r *runner) tankDimensions(a *args, t *lua.LTable) loads.Dimensions {
@@ -303,300 +216,81 @@ func (r *runner) tankBoundaries(a *args, t *lua.LTable) []loads.Boundary {
 // ---------------------------------------------------------------------------
 // Fuel oil heaters.
 
-// fixedModel is a consumer whose duty does not depend on the case: the
-// result was computed when the unit was declared.
-type fixedModel struct{ d plant.Duty }
-
-func (m *fixedModel) Duty(plant.Conditions) (plant.Duty, error) { return m.d, nil }
-
-func buildFuelHeater(r *runner, a *args, ph *plantHandle) plant.Unit {
-	u := &plant.Consumer{Label: "fuel heater"}
-	var h loads.FuelHeater
-	svc, _ := a.str("service", true)
-	switch svc {
-	case "engine":
-		h.Service = loads.EngineService
-	case "burner":
-		h.Service = loads.BoilerBurner
-	case "purifier":
-		h.Service = loads.Purifier
-	case "transfer":
-		h.Service = loads.Transfer
-	case "":
-	default:
-		a.errorf(nil, "service must be \"engine\", \"burner\", \"purifier\" or \"transfer\"; got %q", svc)
+// decodeFuelHeater reads the heater's outlet (outlet_T or
+// target_viscosity) and what sets its oil flow: the boiler whose burner it
+// serves, or a flow.
+func decodeFuelHeater(r *runner, a *args, ph *plantHandle, u plant.Component) {
+	c, ok := u.(*plant.Consumer)
+	if !ok {
+		return
 	}
-	name, _ := a.str("fuel", true)
-	f, err := fuel.Grade(name)
-	if name != "" && err != nil {
-		a.errorf(err, "fuel %q is not a built-in grade (grades: %s)", name, strings.Join(fuel.GradeNames(), ", "))
+	m, ok := c.Model.(*plant.FuelHeater)
+	if !ok {
+		return
 	}
-	if d, ok := a.quantity("density15", units.Density, false); ok {
-		f.ISO.Density15 = d
-	}
-	if v, ok := a.quantity("viscosity", units.KinematicViscosity, false); ok {
-		f.ISO.Viscosity = v
-	}
-	h.Fuel = f
-	h.InletT, _ = a.quantity("inlet_T", units.Temperature, true)
-	outT, hasOut := a.quantity("outlet_T", units.Temperature, false)
-	visc, hasVisc := a.quantity("target_viscosity", units.KinematicViscosity, false)
+	hasOut := r.readNamed(a, u, "outlet_T", false)
+	hasVisc := r.readNamed(a, u, "target_viscosity", false)
 	if hasOut == hasVisc && a.nerr == 0 {
 		a.errorf(nil, "give outlet_T or target_viscosity (one of them)")
 	}
-	h.OutletT, h.TargetViscosity = outT, visc
-	h.OutletLimit, _ = a.quantity("outlet_limit", units.Temperature, false)
-	h.FlashPoint, _ = a.quantity("flash_point", units.Temperature, false)
-	if h.Service == loads.BoilerBurner {
-		boiler, _ := a.str("boiler", true)
-		u.FuelOf = boiler
-	} else {
-		h.MassFlow, _ = a.quantity("flow", units.MassFlow, true)
-	}
-	consumerCommon(a, u)
-	if a.nerr > 0 {
-		return u
-	}
-	h.Name = a.what
-	if h.Service == loads.BoilerBurner {
-		res, err := h.DutyPerKg()
-		if err != nil {
-			a.loadErr(err)
-			return u
+	if m.Heater.Service == loads.BoilerBurner {
+		r.readNamed(a, u, "boiler", true)
+		if a.has("flow") {
+			a.errorf(nil, "a burner's heater heats its boiler's fuel flow: give boiler, not flow")
 		}
-		u.DutyPerFuel = res.PerKg
-		r.warnAll(a, res.Warnings)
-		return u
-	}
-	res, err := h.Duty()
-	if err != nil {
-		a.loadErr(err)
-		return u
-	}
-	u.Model = &fixedModel{plant.Duty{W: res.Duty, Warnings: res.Warnings, Inputs: map[string]float64{
-		"oil_kg_s": res.MassFlow, "inlet_T_K": res.InletT, "outlet_T_K": res.OutletT, "per_kg_J_per_kg": res.PerKg,
-	}}}
-	return u
-}
-
-// warnAll logs warnings found when a unit is declared.
-func (r *runner) warnAll(a *args, ws []string) {
-	for _, w := range ws {
-		r.log.Warn().Str("pos", a.pos.String()).Str("unit", a.what).Msg(w)
+	} else {
+		r.readNamed(a, u, "flow", true)
+		if a.has("boiler") {
+			a.errorf(nil, "boiler is for a burner's heater (service = \"burner\"), whose oil flow is the boiler's fuel; this heater takes flow")
+		}
 	}
 }
 
 // ---------------------------------------------------------------------------
 // Accommodation heating.
 
-type accommodationModel struct{ a loads.Accommodation }
-
-func (m *accommodationModel) Duty(c plant.Conditions) (plant.Duty, error) {
-	amb, err := needAmbient(c, false, true)
-	if err != nil {
-		return plant.Duty{}, err
+// decodeAccommodation reads a table of {air temperature, duty}, or UA and
+// inside_T (with balance_T).
+func decodeAccommodation(r *runner, a *args, ph *plantHandle, u plant.Component) {
+	c, ok := u.(*plant.Consumer)
+	if !ok {
+		return
 	}
-	res, err := m.a.Duty(amb.Air)
-	if err != nil {
-		return plant.Duty{}, err
+	m, ok := c.Model.(*plant.Accommodation)
+	if !ok {
+		return
 	}
-	return plant.Duty{W: res.Duty, Warnings: res.Warnings, Inputs: map[string]float64{"air_T_K": res.AirT}}, nil
-}
-
-func buildAccommodation(r *runner, a *args, ph *plantHandle) plant.Unit {
-	u := &plant.Consumer{Label: "accommodation heating"}
-	m := &accommodationModel{}
-	if tv := a.get("table"); tv != lua.LNil {
-		t, ok := tv.(*lua.LTable)
-		if !ok || t.Len() < 2 || t.Len() > 200 {
-			a.errorf(nil, "table must list 2 to 200 {air temperature, duty} pairs such as { {\"-10 C\", \"300 kW\"}, {\"15 C\", \"0 kW\"} }")
-		} else {
-			for i := 1; i <= t.Len(); i++ {
-				p, ok := t.RawGetInt(i).(*lua.LTable)
-				if !ok || p.Len() != 2 {
-					a.errorf(nil, "table[%d] must be a pair {air temperature, duty}", i)
-					break
-				}
-				airT, err1 := parseQuantity(p.RawGetInt(1), fmt.Sprintf("table[%d] air temperature", i), units.Temperature, a.uopt)
-				duty, err2 := parseQuantity(p.RawGetInt(2), fmt.Sprintf("table[%d] duty", i), units.Power, a.uopt)
-				if err := errors.Join(err1, err2); err != nil {
-					a.errorf(err, "%s", strings.ReplaceAll(err.Error(), "\n", "; "))
-					break
-				}
-				m.a.Table = append(m.a.Table, loads.DutyPoint{AirT: airT, Duty: duty})
-			}
+	tv := a.get("table")
+	if tv == lua.LNil {
+		r.readNamed(a, u, "UA", true)
+		r.readNamed(a, u, "inside_T", true)
+		r.readNamed(a, u, "balance_T", false)
+		return
+	}
+	given := false
+	for _, k := range []string{"UA", "inside_T", "balance_T"} {
+		given = a.has(k) || given
+	}
+	if given {
+		a.errorf(nil, "give table or UA with inside_T (and balance_T), not both")
+	}
+	t, ok := tv.(*lua.LTable)
+	if !ok || t.Len() < 2 || t.Len() > 200 {
+		a.errorf(nil, "table must list 2 to 200 {air temperature, duty} pairs such as { {\"-10 C\", \"300 kW\"}, {\"15 C\", \"0 kW\"} }")
+		return
+	}
+	for i := 1; i <= t.Len(); i++ {
+		p, ok := t.RawGetInt(i).(*lua.LTable)
+		if !ok || p.Len() != 2 {
+			a.errorf(nil, "table[%d] must be a pair {air temperature, duty}", i)
+			return
 		}
-	} else {
-		m.a.UA, _ = a.quantity("UA", units.ThermalConductance, true)
-		m.a.InsideT, _ = a.quantity("inside_T", units.Temperature, true)
-		m.a.BalanceT, _ = a.quantity("balance_T", units.Temperature, false)
-	}
-	consumerCommon(a, u)
-	if a.nerr == 0 {
-		if _, err := m.a.Duty(validationAmbient.Air); err != nil {
-			a.loadErr(err)
+		airT, err1 := parseQuantity(p.RawGetInt(1), fmt.Sprintf("table[%d] air temperature", i), units.Temperature, a.uopt)
+		duty, err2 := parseQuantity(p.RawGetInt(2), fmt.Sprintf("table[%d] duty", i), units.Power, a.uopt)
+		if err := errors.Join(err1, err2); err != nil {
+			a.errorf(err, "%s", strings.ReplaceAll(err.Error(), "\n", "; "))
+			return
 		}
+		m.Heating.Table = append(m.Heating.Table, loads.DutyPoint{AirT: airT, Duty: duty})
 	}
-	u.Model = m
-	return u
-}
-
-// ---------------------------------------------------------------------------
-// Tank cleaning.
-
-type cleaningModel struct {
-	t       loads.TankCleaning
-	fromSea bool // the inlet is the case's sea temperature
-}
-
-func (m *cleaningModel) Duty(c plant.Conditions) (plant.Duty, error) {
-	t := m.t
-	if m.fromSea {
-		amb, err := needAmbient(c, true, false)
-		if err != nil {
-			return plant.Duty{}, err
-		}
-		t.InletT = amb.Sea
-	}
-	res, err := t.Duty()
-	if err != nil {
-		return plant.Duty{}, err
-	}
-	return plant.Duty{W: res.Duty, Inputs: map[string]float64{
-		"water_kg_s": res.Flow, "inlet_T_K": res.InletT, "outlet_T_K": res.OutletT, "p_Pa": res.Pressure,
-	}}, nil
-}
-
-func buildTankCleaning(r *runner, a *args, ph *plantHandle) plant.Unit {
-	u := &plant.Consumer{Label: "tank cleaning"}
-	m := &cleaningModel{}
-	m.t.Flow, _ = a.quantity("flow", units.MassFlow, true)
-	var ok bool
-	m.t.InletT, ok = a.quantity("inlet_T", units.Temperature, false)
-	m.fromSea = !ok
-	m.t.OutletT, _ = a.quantity("outlet_T", units.Temperature, true)
-	m.t.Pressure, _ = a.quantity("p", units.Pressure, false)
-	m.t.Cp, _ = a.quantity("cp", units.SpecificHeat, false)
-	consumerCommon(a, u)
-	if a.nerr == 0 {
-		if _, err := m.Duty(plant.Conditions{SeaT: validationAmbient.Sea, AirT: validationAmbient.Air}); err != nil {
-			a.loadErr(err)
-		}
-	}
-	u.Model = m
-	return u
-}
-
-// ---------------------------------------------------------------------------
-// Cargo pump turbines.
-
-func buildCargoPump(r *runner, a *args, ph *plantHandle) plant.Unit {
-	u := &plant.Turbine{}
-	var p loads.CargoPump
-	p.Flow, _ = a.quantity("flow", units.VolumeFlow, true)
-	p.Head, _ = a.quantity("head", units.Length, true)
-	p.Density, _ = a.quantity("density", units.Density, true)
-	p.Efficiency, _ = a.quantity("efficiency", units.Fraction, true)
-	u.ExhaustP, _ = a.quantity("exhaust", units.Pressure, true)
-	u.EtaIs, _ = a.quantity("eta_is", units.Fraction, true)
-	u.EtaMech, _ = a.quantity("eta_mech", units.Fraction, false)
-	if a.boolean("off") {
-		u.Off = 1
-	}
-	if a.nerr == 0 {
-		p.Name = a.what
-		res, err := p.Power()
-		if err != nil {
-			a.loadErr(err)
-		}
-		u.Power = res.Shaft
-	}
-	return u
-}
-
-// ---------------------------------------------------------------------------
-// Steam taken in proportion to a boiler's fuel, and small consumers.
-
-func buildAtomisingSteam(r *runner, a *args, ph *plantHandle) plant.Unit {
-	u := &plant.Consumer{Label: "atomising steam"}
-	u.FuelOf, _ = a.str("boiler", true)
-	ratio, _ := a.quantity("ratio", units.Fraction, true)
-	if a.nerr == 0 {
-		res, err := loads.AtomisingSteam{Name: a.what, SteamPerFuel: ratio}.PerKgFuel()
-		if err != nil {
-			a.loadErr(err)
-		}
-		u.SteamPerFuel = res.PerKgFuel
-	}
-	// Atomising steam is lost to the furnace: nothing returns.
-	return u
-}
-
-func buildSootBlowing(r *runner, a *args, ph *plantHandle) plant.Unit {
-	u := &plant.Consumer{Label: "soot blowing"}
-	var s loads.SootBlowing
-	s.WhileBlowing, _ = a.quantity("flow", units.MassFlow, true)
-	s.Duration, _ = a.quantity("duration", units.Time, true)
-	s.Interval, _ = a.quantity("interval", units.Time, true)
-	if a.boolean("off") {
-		u.Off = 1
-	}
-	if a.nerr == 0 {
-		s.Name = a.what
-		res, err := s.Flow()
-		if err != nil {
-			a.loadErr(err)
-		}
-		u.SteamFlow = res.SteamFlow
-	}
-	return u
-}
-
-func buildSteamTracing(r *runner, a *args, ph *plantHandle) plant.Unit {
-	u := &plant.Consumer{Label: "steam tracing"}
-	var s loads.SteamTracing
-	if v := a.get("per_metre"); v != lua.LNil {
-		str, ok := v.(lua.LString)
-		text := strings.TrimSpace(string(str))
-		if !ok || !strings.HasSuffix(text, "/m") {
-			a.errorf(nil, "per_metre must be a power per metre such as \"30 W/m\"; got %s", describe(v))
-		} else if w, err := units.Parse(strings.TrimSuffix(text, "/m"), units.Power, a.uopt); err != nil {
-			a.errorf(err, "per_metre: %v", err)
-		} else {
-			s.PerMetre = w
-		}
-	} else {
-		a.errorf(nil, "per_metre is required, such as per_metre = \"30 W/m\"")
-	}
-	s.Length, _ = a.quantity("length", units.Length, true)
-	consumerCommon(a, u)
-	if a.nerr == 0 {
-		s.Name = a.what
-		res, err := s.Duty()
-		if err != nil {
-			a.loadErr(err)
-		}
-		u.Duty = res.Duty
-	}
-	return u
-}
-
-func buildFreshWaterGenerator(r *runner, a *args, ph *plantHandle) plant.Unit {
-	u := &plant.Consumer{Label: "fresh water generator"}
-	var g loads.FreshWaterGenerator
-	g.Production, _ = a.quantity("production", units.MassFlow, true)
-	g.SpecificEnergy, _ = a.quantity("specific_energy", units.SpecificEnergy, false)
-	g.EvaporationT, _ = a.quantity("evaporation_T", units.Temperature, false)
-	g.FeedRatio, _ = a.number("feed_ratio")
-	g.FeedT, _ = a.quantity("feed_T", units.Temperature, false)
-	consumerCommon(a, u)
-	if a.nerr == 0 {
-		g.Name = a.what
-		res, err := g.Duty()
-		if err != nil {
-			a.loadErr(err)
-		}
-		u.Duty = res.Duty
-	}
-	return u
 }

@@ -49,10 +49,9 @@ func (r *runner) register() {
 
 	mt := L.NewTypeMetatable(plantTypeName)
 	methods := L.NewTable()
-	for kind, b := range unitBuilders {
-		methods.RawSetString(kind, L.NewFunction(r.unitMethod(kind, b)))
+	for _, kind := range r.opt.Kinds {
+		methods.RawSetString(kind.Name, L.NewFunction(r.unitMethod(kind)))
 	}
-	r.registerLoads(methods)
 	methods.RawSetString("line", L.NewFunction(r.luaLine))
 	mt.RawSetString("__index", L.NewFunction(func(L *lua.LState) int {
 		ph := r.checkPlant(1)
@@ -86,6 +85,7 @@ func (r *runner) register() {
 	L.SetGlobal("audit", L.NewFunction(r.luaAudit))
 	L.SetGlobal("cool_down", L.NewFunction(r.luaCoolDown))
 	L.SetGlobal("time_to_cool", L.NewFunction(r.luaTimeToCool))
+	L.SetGlobal("flue_gas", L.NewFunction(r.luaFlueGas))
 }
 
 func unknownMethodMsg(key string, methods *lua.LTable) string {
@@ -157,7 +157,7 @@ func (r *runner) plantOptions(t *lua.LTable, what string, pos Pos) (*args, strin
 	return a, name, opt
 }
 
-func (r *runner) newPlant(name string, pos Pos, opt plant.Options, uopt units.Options) *lua.LUserData {
+func (r *runner) newPlant(name string, pos Pos, opt plant.Options, uopt units.Options) (*lua.LUserData, *plantHandle) {
 	if len(r.plants) >= r.opt.MaxPlants {
 		r.fail("", "more than %d plants in one run", r.opt.MaxPlants)
 	}
@@ -170,7 +170,7 @@ func (r *runner) newPlant(name string, pos Pos, opt plant.Options, uopt units.Op
 	ud := r.L.NewUserData()
 	ud.Value = ph
 	r.L.SetMetatable(ud, r.L.GetTypeMetatable(plantTypeName))
-	return ud
+	return ud, ph
 }
 
 // luaPlant is plant{ name = ..., ambient = ..., usable = ..., sharing = ...,
@@ -180,73 +180,58 @@ func (r *runner) luaPlant(L *lua.LState) int {
 	pos := r.where()
 	a, name, opt := r.plantOptions(t, "plant", pos)
 	a.done()
-	L.Push(r.newPlant(name, pos, opt, a.uopt))
+	ud, _ := r.newPlant(name, pos, opt, a.uopt)
+	L.Push(ud)
 	return 1
 }
 
-// unitBuilder reads a unit's keys and returns the unit (its UnitBase is
-// filled by the caller).
-type unitBuilder func(r *runner, a *args, ph *plantHandle) plant.Unit
-
-// unitBuilders are the unit kinds of the full graph, by method name.
-var unitBuilders = map[string]unitBuilder{
-	"makeup":           buildMakeUp,
-	"feed_tank":        buildFeedTank,
-	"observation_tank": buildObservationTank,
-	"feed_pump":        buildFeedPump,
-	"boiler":           buildBoiler,
-	"header":           buildHeader,
-	"reducing_valve":   buildReducingValve,
-	"consumer":         buildConsumer,
-	"turbine":          buildTurbine,
-	"condenser":        buildCondenser,
-	// exhaust_gas_economiser and economiser: combustion.go
-	"exhaust_gas_economiser": buildEGE,
-	"economiser":             buildEconomiser,
-}
-
-// unitMethod makes the plant method that declares a unit of a kind.
-func (r *runner) unitMethod(kind string, b unitBuilder) lua.LGFunction {
+// unitMethod makes the plant method that declares a component of a kind.
+func (r *runner) unitMethod(kind plant.KindSpec) lua.LGFunction {
 	return func(L *lua.LState) int {
 		ph := r.checkPlant(1)
-		t := r.checkTable(2, "ship:"+kind)
+		t := r.checkTable(2, "ship:"+kind.Name)
 		pos := r.where()
-		name := r.addUnit(ph, kind, t, pos, b, nil)
-		L.Push(r.unitHandle(name, kind))
+		name := r.addUnit(ph, kind.Name, t, pos, nil)
+		L.Push(r.unitHandle(name, kind.Name))
 		return 1
 	}
 }
 
-// addUnit reads t with b, adds the unit to the plant and returns its name.
-// extra reads keys the caller accepts besides the unit's own.
-func (r *runner) addUnit(ph *plantHandle, kind string, t *lua.LTable, pos Pos, b unitBuilder, extra func(a *args)) string {
+// addUnit reads t as a component of the named kind, adds it to the plant
+// and returns its name. extra reads keys the caller accepts besides the
+// kind's own.
+func (r *runner) addUnit(ph *plantHandle, kindName string, t *lua.LTable, pos Pos, extra func(a *args)) string {
+	kind, ok := r.kindOf(kindName)
+	if !ok {
+		panic(fmt.Sprintf("scripting: addUnit: no kind %q", kindName))
+	}
 	if len(ph.kinds) >= r.opt.MaxUnits {
 		r.fail(fmt.Sprintf("plant %q", ph.p.Name), "more than %d units in one plant", r.opt.MaxUnits)
 	}
-	r.checkSize(t, kind)
-	a := r.args(t, strings.ReplaceAll(kind, "_", " "), pos, ph.uopt)
+	r.checkSize(t, kindName)
+	a := r.args(t, strings.ReplaceAll(kindName, "_", " "), pos, ph.uopt)
 	name, ok := a.str("name", true)
 	if ok && strings.TrimSpace(name) == "" {
 		a.errorf(nil, "name must not be empty")
 		ok = false
 	}
 	if ok {
-		a.what = fmt.Sprintf("%s %q", strings.ReplaceAll(kind, "_", " "), name)
+		a.what = fmt.Sprintf("%s %q", strings.ReplaceAll(kindName, "_", " "), name)
 	}
 	if extra != nil {
 		extra(a)
 	}
-	u := b(r, a, ph)
+	u := r.build(a, ph, kind)
 	a.done()
 	if !ok {
 		return ""
 	}
-	setBase(u, name, pos)
+	*u.Ident() = plant.Base{Name: name, Pos: plant.Pos{File: pos.File, Line: pos.Line}}
 	if err := ph.p.Add(u); err != nil {
 		r.addPlantErr(ph, err, a.what)
 		return name
 	}
-	ph.kinds[name] = kind
+	ph.kinds[name] = kindName
 	if a.nerr > 0 {
 		ph.broken[name] = true
 	}
@@ -263,36 +248,6 @@ func (r *runner) checkSize(t *lua.LTable, what string) {
 			r.fail("", "%s: table has more than %d entries", what, r.opt.MaxTable)
 		}
 		k, _ = t.Next(k)
-	}
-}
-
-func setBase(u plant.Unit, name string, pos Pos) {
-	base := plant.UnitBase{Name: name, Pos: plant.Pos{File: pos.File, Line: pos.Line}}
-	switch v := u.(type) {
-	case *plant.MakeUp:
-		v.UnitBase = base
-	case *plant.FeedTank:
-		v.UnitBase = base
-	case *plant.FeedPump:
-		v.UnitBase = base
-	case *plant.Boiler:
-		v.UnitBase = base
-	case *plant.Header:
-		v.UnitBase = base
-	case *plant.ReducingValve:
-		v.UnitBase = base
-	case *plant.Consumer:
-		v.UnitBase = base
-	case *plant.Turbine:
-		v.UnitBase = base
-	case *plant.Condenser:
-		v.UnitBase = base
-	case *plant.ExhaustGasEconomiser:
-		v.UnitBase = base
-	case *plant.Economiser:
-		v.UnitBase = base
-	default:
-		panic(fmt.Sprintf("scripting: setBase: unit type %T not handled", u))
 	}
 }
 
@@ -328,10 +283,10 @@ func (r *runner) addPlantErrIn(ph *plantHandle, err error, unit, note string) {
 		}
 		return
 	}
-	var ue *plant.UnitError
+	var ue *plant.ComponentError
 	if errors.As(err, &ue) {
 		pos := Pos{File: ue.Pos.File, Line: ue.Pos.Line}
-		r.errs = append(r.errs, &Error{Pos: pos, Unit: fmt.Sprintf("%s %q", ue.Kind, ue.Unit), Msg: ue.Err.Error() + note, Err: err})
+		r.errs = append(r.errs, &Error{Pos: pos, Unit: fmt.Sprintf("%s %q", ue.Kind, ue.Name), Msg: ue.Err.Error() + note, Err: err})
 		return
 	}
 	pos := r.where()
@@ -339,46 +294,6 @@ func (r *runner) addPlantErrIn(ph *plantHandle, err error, unit, note string) {
 		pos = ph.pos
 	}
 	r.errs = append(r.errs, &Error{Pos: pos, Unit: unit, Msg: err.Error() + note, Err: err})
-}
-
-// ---------------------------------------------------------------------------
-// Unit kinds of the full graph.
-
-func buildMakeUp(r *runner, a *args, ph *plantHandle) plant.Unit {
-	u := &plant.MakeUp{}
-	u.T, _ = a.quantity("T", units.Temperature, true)
-	u.P, _ = a.quantity("p", units.Pressure, false)
-	return u
-}
-
-func buildFeedTank(r *runner, a *args, ph *plantHandle) plant.Unit {
-	u := &plant.FeedTank{}
-	u.P, _ = a.quantity("p", units.Pressure, false)
-	u.HeatLoss, _ = a.quantity("heat_loss", units.Power, false)
-	u.UA, _ = a.quantity("UA", units.ThermalConductance, false)
-	u.RoomT, _ = a.quantity("room_T", units.Temperature, false)
-	u.SetT, _ = a.quantity("set_T", units.Temperature, false)
-	return u
-}
-
-// buildObservationTank reads a vented observation tank: a feed tank's
-// model (mixing, heat loss, flash steam vented) reported as such.
-func buildObservationTank(r *runner, a *args, ph *plantHandle) plant.Unit {
-	u := &plant.FeedTank{Observation: true}
-	u.HeatLoss, _ = a.quantity("heat_loss", units.Power, false)
-	u.UA, _ = a.quantity("UA", units.ThermalConductance, false)
-	u.RoomT, _ = a.quantity("room_T", units.Temperature, false)
-	return u
-}
-
-func buildFeedPump(r *runner, a *args, ph *plantHandle) plant.Unit {
-	u := &plant.FeedPump{}
-	u.Discharge, _ = a.quantity("discharge", units.Pressure, false)
-	u.Boilers = a.names("boilers")
-	u.Margin, _ = a.pressureDiff("margin", false)
-	u.Eta, _ = a.quantity("eta", units.Fraction, true)
-	u.MotorEta, _ = a.quantity("motor_eta", units.Fraction, false)
-	return u
 }
 
 // names reads a list of unit names.
@@ -416,16 +331,13 @@ func (a *args) names(key string) []string {
 	}
 }
 
-func buildBoiler(r *runner, a *args, ph *plantHandle) plant.Unit {
-	u := &plant.Boiler{}
-	u.MCR, _ = a.quantity("mcr", units.MassFlow, true)
-	u.DrumP, _ = a.quantity("drum", units.Pressure, true)
-	u.Dryness, _ = a.quantity("dryness", units.Fraction, false)
-	u.Blowdown, _ = a.quantity("blowdown", units.Fraction, false)
-	u.TDSFeed, _ = a.number("tds_feed")
-	u.TDSMax, _ = a.number("tds_max")
-	u.Turndown, _ = a.number("turndown")
-	u.CyclingLoss, _ = a.quantity("cycling_loss", units.Fraction, false)
+// decodeBoiler reads a boiler's fuel (fuel, lhv, co2_factor), its
+// efficiency and its burner.
+func decodeBoiler(r *runner, a *args, ph *plantHandle, c plant.Component) {
+	u, ok := c.(*plant.Boiler)
+	if !ok {
+		return
+	}
 	u.Fuel = a.fuelSpec()
 	if eta := a.efficiency(); eta != nil {
 		u.Efficiency = eta
@@ -437,7 +349,6 @@ func buildBoiler(r *runner, a *args, ph *plantHandle) plant.Unit {
 		}
 	}
 	u.Burner = r.burner(a)
-	return u
 }
 
 // fuelSpec reads fuel (a grade name, or the name of the user's fuel),
@@ -554,61 +465,16 @@ func (a *args) efficiency() plant.EfficiencyModel {
 	return nil
 }
 
-func buildHeader(r *runner, a *args, ph *plantHandle) plant.Unit {
-	u := &plant.Header{}
-	u.HeatLoss, _ = a.quantity("heat_loss", units.Power, false)
-	return u
-}
-
-func buildReducingValve(r *runner, a *args, ph *plantHandle) plant.Unit {
-	u := &plant.ReducingValve{}
-	u.P, _ = a.quantity("p", units.Pressure, true)
-	return u
-}
-
-// consumerCommon reads the keys every steam consumer has: subcool,
-// returns, return_T, off.
-func consumerCommon(a *args, u *plant.Consumer) {
-	u.SubCooling, _ = a.quantity("subcool", units.TemperatureDifference, false)
-	u.ReturnFraction, _ = a.quantity("returns", units.Fraction, false)
-	u.ReturnT, _ = a.quantity("return_T", units.Temperature, false)
-	if a.boolean("off") {
-		u.Off = 1
-	}
-}
-
-func buildConsumer(r *runner, a *args, ph *plantHandle) plant.Unit {
-	u := &plant.Consumer{}
-	duty, hasDuty := a.quantity("duty", units.Power, false)
-	steam, hasSteam := a.quantity("steam", units.MassFlow, false)
+// decodeConsumer reads a plain consumer's demand: a duty or a steam flow.
+func decodeConsumer(r *runner, a *args, ph *plantHandle, u plant.Component) {
+	hasDuty := r.readNamed(a, u, "duty", false)
+	hasSteam := r.readNamed(a, u, "steam", false)
 	switch {
 	case hasDuty && hasSteam:
 		a.errorf(nil, "give duty or steam, not both")
 	case !hasDuty && !hasSteam && a.nerr == 0:
 		a.errorf(nil, "needs a duty (such as duty = \"450 kW\") or a steam flow (such as steam = \"0.2 t/h\")")
 	}
-	u.Duty, u.SteamFlow = duty, steam
-	consumerCommon(a, u)
-	return u
-}
-
-func buildTurbine(r *runner, a *args, ph *plantHandle) plant.Unit {
-	u := &plant.Turbine{}
-	u.Power, _ = a.quantity("power", units.Power, true)
-	u.ExhaustP, _ = a.quantity("exhaust", units.Pressure, true)
-	u.EtaIs, _ = a.quantity("eta_is", units.Fraction, true)
-	u.EtaMech, _ = a.quantity("eta_mech", units.Fraction, false)
-	if a.boolean("off") {
-		u.Off = 1
-	}
-	return u
-}
-
-func buildCondenser(r *runner, a *args, ph *plantHandle) plant.Unit {
-	u := &plant.Condenser{}
-	u.SubCooling, _ = a.quantity("subcool", units.TemperatureDifference, false)
-	u.Dump = a.boolean("dump")
-	return u
 }
 
 // ---------------------------------------------------------------------------
@@ -674,7 +540,7 @@ func (r *runner) endpoint(ph *plantHandle, s string, dir plant.Direction) (unit,
 	if dir == plant.In {
 		side = "to"
 	}
-	if u := ph.p.Unit(s); u != nil {
+	if u := ph.p.Component(s); u != nil {
 		// No port given: the unit's single port of the direction.
 		var all, required []string
 		for _, ps := range u.Ports() {
@@ -699,7 +565,7 @@ func (r *runner) endpoint(ph *plantHandle, s string, dir plant.Direction) (unit,
 		return s, "", fmt.Sprintf("%s: %s", side, r.unknownUnitMsg(ph, s))
 	}
 	unit, port = s[:i], s[i+1:]
-	u := ph.p.Unit(unit)
+	u := ph.p.Component(unit)
 	if u == nil {
 		return unit, port, fmt.Sprintf("%s %q: %s", side, s, r.unknownUnitMsg(ph, unit))
 	}
@@ -724,7 +590,7 @@ func firstOr(list []string, def string) string {
 	return def
 }
 
-func portList(u plant.Unit) string {
+func portList(u plant.Component) string {
 	var b []string
 	for _, ps := range u.Ports() {
 		dir := "in"
@@ -743,8 +609,8 @@ func portList(u plant.Unit) string {
 // unknownUnitMsg says a unit is not in the plant, with a suggestion.
 func (r *runner) unknownUnitMsg(ph *plantHandle, name string) string {
 	var names []string
-	for _, u := range ph.p.Units() {
-		names = append(names, u.UnitName())
+	for _, u := range ph.p.Components() {
+		names = append(names, u.Ident().Name)
 	}
 	msg := fmt.Sprintf("plant %q has no unit %q", ph.p.Name, name)
 	if s := suggest(name, names); s != "" {
@@ -757,10 +623,10 @@ func (r *runner) unknownUnitMsg(ph *plantHandle, name string) string {
 // when valid, else the unit the name most likely meant.
 func (ph *plantHandle) markEnd(unit, port string, valid bool) {
 	if !valid {
-		if ph.p.Unit(unit) == nil {
+		if ph.p.Component(unit) == nil {
 			var names []string
-			for _, u := range ph.p.Units() {
-				names = append(names, u.UnitName())
+			for _, u := range ph.p.Components() {
+				names = append(names, u.Ident().Name)
 			}
 			unit = suggest(unit, names)
 		}

@@ -94,6 +94,10 @@ type Options struct {
 	// depth and data stack (see gopher-lua's Options). Zero means 200,
 	// 4096 and 262144.
 	CallStackSize, RegistrySize, RegistryMaxSize int
+
+	// Kinds are the kinds of component a script may declare, each a
+	// method of a plant (ship:boiler{...}); nil means plant.Kinds().
+	Kinds []plant.KindSpec
 }
 
 func (o *Options) defaults() {
@@ -126,6 +130,9 @@ func (o *Options) defaults() {
 	def(&o.RegistryMaxSize, 256<<10)
 	if o.RegistryMaxSize < o.RegistrySize {
 		o.RegistryMaxSize = o.RegistrySize
+	}
+	if o.Kinds == nil {
+		o.Kinds = plant.Kinds()
 	}
 }
 

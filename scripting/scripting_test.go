@@ -22,6 +22,7 @@ import (
 // source).
 
 func TestGoodScripts(t *testing.T) {
+	t.Parallel()
 	tests := []struct {
 		file   string
 		cases  int
@@ -79,6 +80,7 @@ func TestGoodScripts(t *testing.T) {
 // TestFormsAgree builds one plant in the full-graph and the short form and
 // compares the solved fuel: the two forms must give the same plant.
 func TestFormsAgree(t *testing.T) {
+	t.Parallel()
 	short := `
 local ship = steam_plant { name = "short",
   boilers = { { name = "AB1", mcr = "4 t/h", drum = "7 bar(g)", fuel = "MGO", efficiency = "84 %", turndown = 4 },
@@ -122,6 +124,7 @@ return case(ship, { name = "c", sea = "10 C", air = "5 C" })`
 }
 
 func TestBadScripts(t *testing.T) {
+	t.Parallel()
 	bad := filepath.Join("testdata", "bad")
 	at := func(name string, line int) string {
 		return filepath.Join(bad, name) + ":" + itoa(line) + ":"
@@ -223,6 +226,7 @@ func itoa(n int) string { return strconv.Itoa(n) }
 // TestSymlinkOut checks that a link inside the script's folder cannot
 // lead read_csv or include outside it (os.Root).
 func TestSymlinkOut(t *testing.T) {
+	t.Parallel()
 	dir := t.TempDir()
 	outside := filepath.Join(t.TempDir(), "secret.csv")
 	if err := os.WriteFile(outside, []byte("a,b\n1,2\n"), 0o600); err != nil {
@@ -244,6 +248,7 @@ func TestSymlinkOut(t *testing.T) {
 // TestRunSourceFS runs an embedded-style script whose include and read_csv
 // go through an fs.FS, with positions naming the files in it.
 func TestRunSourceFS(t *testing.T) {
+	t.Parallel()
 	fsys := fstest.MapFS{
 		"demo/plant.lua": {Data: []byte(`return steam_plant { name = "demo",
   boilers = { { name = "AB1", mcr = "2 t/h", drum = "7 bar(g)", fuel = "MGO", efficiency = "85 %" } },
@@ -279,6 +284,7 @@ include("nothere.lua")`), fsys, Options{})
 // TestIncludedErrorsNameTheirFile checks that errors in an included file
 // (syntax, unit, runtime) name that file and line.
 func TestIncludedErrorsNameTheirFile(t *testing.T) {
+	t.Parallel()
 	tests := []struct {
 		inc, want string
 	}{
@@ -297,6 +303,7 @@ func TestIncludedErrorsNameTheirFile(t *testing.T) {
 }
 
 func TestSandboxLimits(t *testing.T) {
+	t.Parallel()
 	tests := []struct {
 		src, want string
 	}{
@@ -326,6 +333,7 @@ func TestSandboxLimits(t *testing.T) {
 }
 
 func TestPrintAndRandom(t *testing.T) {
+	t.Parallel()
 	src := []byte(`print("a", 1, true) ; x = math.random() ; y = math.random(6) ; z = math.random(10, 20)
 check(x >= 0 and x < 1 and y >= 1 and y <= 6 and z >= 10 and z <= 20, "ranges")
 print(x, y, z)`)
@@ -347,6 +355,7 @@ print(x, y, z)`)
 }
 
 func TestCancelledContext(t *testing.T) {
+	t.Parallel()
 	ctx, cancel := context.WithCancel(context.Background())
 	cancel()
 	_, err := RunSource(ctx, "c.lua", []byte("while true do end"), nil, Options{})
@@ -358,6 +367,7 @@ func TestCancelledContext(t *testing.T) {
 // TestCheckModeListsAll checks that check mode reports errors of keys,
 // units, lines and the graph of a script together, in line order.
 func TestCheckModeListsAll(t *testing.T) {
+	t.Parallel()
 	src := []byte(`local ship = plant { name = "check" }
 ship:makeup    { name = "makeup", T = "15 C" }
 ship:feed_tank { name = "hotwell", heat_loss = 5 }

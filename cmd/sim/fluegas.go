@@ -17,10 +17,6 @@ import (
 	"steamcase/plant/units"
 )
 
-// dewMargin is the margin (K) the flue gas should keep above the acid dew
-// point before the command warns: 20 K, common practice, no source.
-const dewMargin = 20.0
-
 func fluegasCommand() *command {
 	return &command{
 		Name: "fluegas",
@@ -46,7 +42,8 @@ to 100 % within 0.5 %. The analysis is used as given, not normalised. A fuel
 given only by its analysis is taken as a liquid fuel oil, and its LHV comes
 from the analysis (Channiwala-Parikh correlation) unless --lhv sets it. With
 a grade, the analysis replaces the grade's typical analysis and ISO 8217
-data, and the grade keeps its class and its set LHV (the IMO figure); for a
+data and the grade keeps its class: a liquid grade's LHV then comes from the
+analysis as for an own fuel, and LNG keeps its set LHV (methane's); for a
 gas fuel, give --fuel LNG with the analysis. --lhv overrides the net
 specific energy of any fuel; the gross value is then the LHV plus the latent
 heat of the water the analysis forms.
@@ -60,6 +57,12 @@ corrected for it. The radiation and convection loss is given as a percentage
 of the input at MCR and scaled by 1/load, because the loss in kW stays
 nearly constant; 0.5 to 1.5 % at MCR is common for marine auxiliary boilers.
 Without --radiation it is taken as zero and a warning says so.
+
+A reading that no firing boiler gives is refused (exit 1): an O2 at or
+within 0.1 point of the air's (analysers show air as 20.9 %), a reading
+that means an air ratio above 20, a flue gas at or below its water dew
+point (the account lets the moisture leave as vapour) or below 25 °C, and
+losses that add up to the whole heat input or more.
 
 The table shows the excess air, the stoichiometric air and the flue gas per
 kg of fuel, the flue-gas composition (dry and wet), each loss and the
@@ -114,16 +117,11 @@ func (a *fluegasArgs) flagSet() *flag.FlagSet {
 	return fs
 }
 
-// fluegasQuery is a parsed, checked request.
+// fluegasQuery is a parsed request: the reading for plant/combustion and,
+// for messages, the unit each value was given in.
 type fluegasQuery struct {
-	fuel       fuel.Fuel
-	cond       combustion.Conditions
-	flueT      float64 // K
-	o2, co2    float64 // measured dry fractions; one is zero
-	so3        float64 // fraction of SO2 to SO3
-	opts       combustion.LossOptions
-	radGiven   bool   // --radiation given, perhaps as 0 %
-	stoichNote string // set when O2 = 0 % was read as λ = 1
+	reading combustion.FlueGasReading
+	unitOf  map[combustion.ReadingField]string
 }
 
 func runFluegas(ctx context.Context, e env, args []string) error {
@@ -138,11 +136,14 @@ func runFluegas(ctx context.Context, e env, args []string) error {
 	if err := ctx.Err(); err != nil {
 		return err
 	}
-	r, err := q.compute()
+	r, err := combustion.CheckFlueGas(q.reading, &combustion.CheckSettings{
+		Name:  func(f combustion.ReadingField) string { return "--" + flagOf(f) },
+		Value: combustion.ValuesIn(q.unitOf),
+	})
 	if err != nil {
-		return err
+		return a.readingError(err)
 	}
-	out := r.json()
+	out := r.JSON() // its caution is cautionLine, as the table's (a test keeps them equal)
 	// Marshalling also checks that no NaN or infinity reaches a report,
 	// for the table too: encoding/json refuses them.
 	var b []byte
@@ -165,215 +166,237 @@ func runFluegas(ctx context.Context, e env, args []string) error {
 	return writeFluegasTable(e.stdout, &a, r, &out)
 }
 
-// query checks which flags were given and parses their values.
-func (a *fluegasArgs) query() (fluegasQuery, error) {
-	var q fluegasQuery
-	given := func(s string) bool { return strings.TrimSpace(s) != "" }
-
-	// The fuel.
-	if !given(a.fuel) && !given(a.analysis) {
-		return q, usagef("no fuel given: give --fuel with a grade (%s) or --fuel-analysis with the fuel's analysis", strings.Join(fuel.GradeNames(), ", "))
+// flagOf is the flag that gives a field; a field no flag gives keeps its
+// Go name.
+func flagOf(f combustion.ReadingField) string {
+	switch f {
+	case combustion.FieldFuel:
+		return "fuel"
+	case combustion.FieldAnalysis:
+		return "fuel-analysis"
+	case combustion.FieldLHV:
+		return "lhv"
+	case combustion.FieldGas, combustion.FieldO2:
+		return "o2"
+	case combustion.FieldCO2:
+		return "co2"
+	case combustion.FieldFlueT:
+		return "gas"
+	case combustion.FieldAirT:
+		return "air"
+	case combustion.FieldHumidity, combustion.FieldRelativeHumidity:
+		return "humidity"
+	case combustion.FieldCO:
+		return "co"
+	case combustion.FieldRadiation:
+		return "radiation"
+	case combustion.FieldLoad:
+		return "load"
+	case combustion.FieldSolids:
+		return "solids"
+	case combustion.FieldSO3:
+		return "so3"
 	}
+	return f.String()
+}
+
+// readingError words an error of plant/combustion as the flags gave the
+// value: `--gas "30 C": the flue gas ... `. It is a failure (exit 1): the
+// flags were well formed.
+func (a *fluegasArgs) readingError(err error) error {
+	var re *combustion.ReadingError
+	if !errors.As(err, &re) {
+		return err
+	}
+	if re.Field == combustion.FieldFuel {
+		return errors.New(re.Msg) // names the fuel
+	}
+	if raw := a.raw(flagOf(re.Field)); raw != "" {
+		return fmt.Errorf("--%s %q: %s", flagOf(re.Field), raw, re.Msg)
+	}
+	return errors.New(re.Msg)
+}
+
+// raw returns the text given for a flag, "" if none.
+func (a *fluegasArgs) raw(flag string) string {
+	for _, f := range [...]struct {
+		name string
+		val  *string
+	}{{"fuel", &a.fuel}, {"fuel-analysis", &a.analysis}, {"lhv", &a.lhv}, {"o2", &a.o2}, {"co2", &a.co2}, {"co", &a.co},
+		{"gas", &a.gas}, {"air", &a.air}, {"humidity", &a.humidity}, {"load", &a.load}, {"radiation", &a.radiation},
+		{"solids", &a.solids}, {"so3", &a.so3}} {
+		if f.name == flag {
+			return strings.TrimSpace(*f.val)
+		}
+	}
+	return ""
+}
+
+func given(s string) bool { return strings.TrimSpace(s) != "" }
+
+// query checks which flags were given and reads their values. Malformed
+// values and missing or clashing flags are usage errors; whether the
+// values make sense is for plant/combustion to judge.
+func (a *fluegasArgs) query() (fluegasQuery, error) {
+	q := fluegasQuery{unitOf: map[combustion.ReadingField]string{}}
+	if err := a.checkGiven(); err != nil {
+		return q, err
+	}
+	var err error
+	if q.reading.Fuel, err = a.fuelOf(q.unitOf); err != nil {
+		return q, err
+	}
+	if err := a.measurement(&q); err != nil {
+		return q, err
+	}
+	if err := a.temperatures(&q); err != nil {
+		return q, err
+	}
+	if given(a.humidity) {
+		if err := parseHumidity(a.humidity, &q.reading); err != nil {
+			return q, err
+		}
+	}
+	return q, a.losses(&q)
+}
+
+// checkGiven checks the flags that must, or must not, come together.
+func (a *fluegasArgs) checkGiven() error {
+	switch {
+	case !given(a.fuel) && !given(a.analysis):
+		return usagef("no fuel given: give --fuel with a grade (%s) or --fuel-analysis with the fuel's analysis", strings.Join(fuel.GradeNames(), ", "))
+	case given(a.o2) && given(a.co2):
+		return usagef("--o2 and --co2 given together: give the one the analyser measured")
+	case !given(a.o2) && !given(a.co2):
+		return usagef("no flue-gas measurement given: give --o2 (or --co2) in percent of the dry flue gas, such as --o2 \"3 %%\"")
+	case !given(a.gas):
+		return usagef("no flue-gas temperature given: give --gas, such as --gas \"250 C\"")
+	case !given(a.air):
+		return usagef("no air temperature given: give --air, such as --air \"35 C\"")
+	case given(a.load) && !given(a.radiation):
+		return usagef("--load scales the radiation and convection loss: give --radiation with it, such as --radiation \"1 %%\"")
+	}
+	return nil
+}
+
+// fuelOf reads --fuel, --fuel-analysis and --lhv into the fuel.
+func (a *fluegasArgs) fuelOf(unitOf map[combustion.ReadingField]string) (fuel.Fuel, error) {
+	var f fuel.Fuel
 	if given(a.fuel) {
-		f, err := fuel.Grade(strings.TrimSpace(a.fuel))
+		g, err := fuel.Grade(strings.TrimSpace(a.fuel))
 		if err != nil {
-			return q, usagef("--fuel %q: unknown fuel grade; the known grades are %s (or give --fuel-analysis for your own fuel)",
+			return f, usagef("--fuel %q: unknown fuel grade; the known grades are %s (or give --fuel-analysis for your own fuel)",
 				a.fuel, strings.Join(fuel.GradeNames(), ", "))
 		}
-		q.fuel = f
+		f = g
 	} else {
-		q.fuel = fuel.Fuel{Name: "own fuel (--fuel-analysis)", Class: fuel.Residual}
+		f = fuel.Fuel{Name: "own fuel (--fuel-analysis)", Class: fuel.Residual}
 	}
 	if given(a.analysis) {
 		an, err := parseAnalysis(a.analysis)
 		if err != nil {
-			return q, err
+			return f, err
 		}
 		if given(a.fuel) {
-			q.fuel.Name += " with the given analysis"
-			// The grade's ISO 8217 data describe its typical fuel; they
-			// would disagree with another analysis (sulfur, water, ash).
-			q.fuel.ISO = fuel.ISO8217{}
-			q.fuel.Viscosity2 = fuel.ViscosityPoint{}
+			f = combustion.FuelWithAnalysis(f, an)
+		} else {
+			f.Analysis = an
 		}
-		q.fuel.Analysis = an
+		unitOf[combustion.FieldAnalysis] = "%"
 	}
 	if given(a.lhv) {
 		v, err := units.Parse(a.lhv, units.SpecificEnergy, units.Options{})
 		if err != nil {
-			return q, flagValueError("lhv", err)
+			return f, flagValueError("lhv", err)
 		}
-		if !(v >= 5e6 && v <= 130e6) {
-			return q, fmt.Errorf("--lhv %q: a net specific energy must lie between 5 and 130 MJ/kg; got %s MJ/kg", a.lhv, fmtG(v/1e6))
-		}
-		q.fuel.SetLHV = v
-		q.fuel.SetLHVSource = "given with --lhv"
+		q, _ := units.ParseAny(a.lhv, units.Options{})
+		f.SetLHV = v
+		f.SetLHVSource = "given with --lhv"
+		unitOf[combustion.FieldLHV] = q.Unit
 	}
-	if !q.fuel.Analysis.Given() {
-		return q, fmt.Errorf("fuel %q has no ultimate analysis, which the combustion needs; give --fuel-analysis", q.fuel.Name)
-	}
-	if err := q.fuel.Validate(); err != nil {
-		return q, fmt.Errorf("fuel %q: %w", q.fuel.Name, err)
-	}
+	return f, nil
+}
 
-	// The measurement.
-	switch {
-	case given(a.o2) && given(a.co2):
-		return q, usagef("--o2 and --co2 given together: give the one the analyser measured")
-	case !given(a.o2) && !given(a.co2):
-		return q, usagef("no flue-gas measurement given: give --o2 (or --co2) in percent of the dry flue gas, such as --o2 \"3 %%\"")
-	}
-	if !given(a.gas) {
-		return q, usagef("no flue-gas temperature given: give --gas, such as --gas \"250 C\"")
-	}
-	if !given(a.air) {
-		return q, usagef("no air temperature given: give --air, such as --air \"35 C\"")
-	}
-	if given(a.load) && !given(a.radiation) {
-		return q, usagef("--load scales the radiation and convection loss: give --radiation with it, such as --radiation \"1 %%\"")
-	}
-
+// measurement reads --o2 or --co2.
+func (a *fluegasArgs) measurement(q *fluegasQuery) error {
+	r := &q.reading
 	var err error
-	airO2 := combustion.StandardDryAir[combustion.O2]
 	if given(a.o2) {
-		if q.o2, err = parsePercent("o2", a.o2); err != nil {
-			return q, err
-		}
-		switch {
-		case q.o2 < 0:
-			return q, fmt.Errorf("--o2 %q: a measured O2 cannot be negative", a.o2)
-		case q.o2 >= airO2:
-			return q, fmt.Errorf("--o2 %q: no combustion: O2 at or above that of air (%s %% dry); the burner cannot fire", a.o2, fmtG(100*airO2))
-		case q.o2 == 0:
-			q.cond.Lambda = 1
-			q.stoichNote = "an O2 reading of 0 % is taken as stoichiometric firing (λ = 1); in practice it means incomplete combustion (CO, soot), which this complete-combustion account does not represent"
-		default:
-			q.cond.O2Dry = q.o2
-		}
+		r.Gas = combustion.MeasuredO2
+		r.Dry, err = parsePercent("o2", a.o2)
+		q.unitOf[combustion.FieldO2] = "%"
 	} else {
-		if q.co2, err = parsePercent("co2", a.co2); err != nil {
-			return q, err
-		}
-		if !(q.co2 > 0 && q.co2 < 0.3) {
-			return q, fmt.Errorf("--co2 %q: a measured dry CO2 must be above 0 and below 30 %%", a.co2)
-		}
-		st, err := combustion.Stoichiometry(q.fuel, combustion.StandardDryAir)
-		if err != nil {
-			return q, err
-		}
-		if q.co2 > st.CO2Max {
-			return q, fmt.Errorf("--co2 %q: above the fuel's maximum CO2 of %s %% (dry, at λ = 1): complete combustion cannot give it; the reading or the fuel is wrong, or the burner fires with too little air",
-				a.co2, fmtF(100*st.CO2Max, 2))
-		}
-		q.cond.CO2Dry = q.co2
+		r.Gas = combustion.MeasuredCO2
+		r.Dry, err = parsePercent("co2", a.co2)
+		q.unitOf[combustion.FieldCO2] = "%"
 	}
+	return err
+}
 
-	airT, err := parseTemperature("air", a.air)
-	if err != nil {
-		return q, err
+// temperatures reads --air and --gas.
+func (a *fluegasArgs) temperatures(q *fluegasQuery) error {
+	r := &q.reading
+	var err error
+	if r.AirT, q.unitOf[combustion.FieldAirT], err = parseTemperature("air", a.air); err != nil {
+		return err
 	}
-	if !(airT >= 253.15 && airT <= 323.15) {
-		return q, fmt.Errorf("--air %q: the air temperature is the reference of the loss account, which must lie between -20 and 50 °C; got %s °C (for preheated air, give the temperature before the air heater)",
-			a.air, fmtF(airT-273.15, 2))
-	}
-	q.flueT, err = parseTemperature("gas", a.gas)
-	if err != nil {
-		return q, err
-	}
-	if !(q.flueT > airT) {
-		return q, fmt.Errorf("--gas %q: the flue gas (%s °C) is not hotter than the combustion air (%s °C); a firing boiler's flue gas leaves hotter than the air comes in",
-			a.gas, fmtF(q.flueT-273.15, 2), fmtF(airT-273.15, 2))
-	}
-	if !(q.flueT <= 1273.15) {
-		return q, fmt.Errorf("--gas %q: the flue-gas temperature must be at most 1000 °C for the heat-loss account; got %s °C", a.gas, fmtF(q.flueT-273.15, 2))
-	}
-	q.cond.AirT, q.cond.FuelT = airT, airT
+	r.FlueT, q.unitOf[combustion.FieldFlueT], err = parseTemperature("gas", a.gas)
+	return err
+}
 
-	if given(a.humidity) {
-		if err := parseHumidity(a.humidity, &q.cond); err != nil {
-			return q, err
-		}
-	}
+// losses reads --co, --radiation, --load, --solids and --so3.
+func (a *fluegasArgs) losses(q *fluegasQuery) error {
+	r := &q.reading
 	if given(a.co) {
-		ppm, err := parseCO(a.co)
+		ppm, unit, err := parseCO(a.co)
 		if err != nil {
-			return q, err
+			return err
 		}
-		q.opts.COppmDry = ppm
+		r.COppmDry = ppm
+		q.unitOf[combustion.FieldCO] = unit
 	}
-	if given(a.radiation) {
-		v, err := parsePercent("radiation", a.radiation)
+	for _, f := range [...]struct {
+		name  string
+		val   string
+		field combustion.ReadingField
+		to    *float64
+	}{
+		{"radiation", a.radiation, combustion.FieldRadiation, &r.RadiationAtMCR},
+		{"load", a.load, combustion.FieldLoad, &r.Load},
+		{"solids", a.solids, combustion.FieldSolids, &r.Solids},
+		{"so3", a.so3, combustion.FieldSO3, &r.SO3Conversion},
+	} {
+		if !given(f.val) {
+			continue
+		}
+		v, err := parsePercent(f.name, f.val)
 		if err != nil {
-			return q, err
+			return err
 		}
-		if !(v >= 0 && v <= 0.10) {
-			return q, fmt.Errorf("--radiation %q: the radiation and convection loss at MCR must lie between 0 and 10 %%", a.radiation)
-		}
-		q.opts.Radiation.PercentAtMCR = 100 * v
-		q.radGiven = true
+		*f.to = v
+		q.unitOf[f.field] = "%"
 	}
-	if given(a.load) {
-		v, err := parsePercent("load", a.load)
-		if err != nil {
-			return q, err
-		}
-		if !(v >= 0.05 && v <= 1.2) {
-			return q, fmt.Errorf("--load %q: the load must lie between 5 and 120 %% of MCR", a.load)
-		}
-		q.opts.Radiation.LoadFraction = v
+	r.RadiationGiven = given(a.radiation)
+	if given(a.so3) && r.SO3Conversion == 0 {
+		// 0 % would read as the default; refuse it as the range does.
+		return fmt.Errorf("--so3 %q: the SO2 to SO3 conversion must be above 0 %% and at most %g %% (1 %% to 5 %% is usual in oil firing)", a.so3, 100*combustion.MaxSO3Conversion)
 	}
-	if given(a.solids) {
-		v, err := parsePercent("solids", a.solids)
-		if err != nil {
-			return q, err
-		}
-		if !(v >= 0 && v <= 0.10) {
-			return q, fmt.Errorf("--solids %q: the unburnt-solids loss must lie between 0 and 10 %%", a.solids)
-		}
-		q.opts.UnburntSolids = 100 * v
+	if given(a.load) && r.Load == 0 {
+		return fmt.Errorf("--load %q: the load must lie between %g %% and %g %% of MCR", a.load, 100*combustion.MinCheckLoad, 100*combustion.MaxCheckLoad)
 	}
-	q.so3 = combustion.DefaultSO3Conversion
-	if given(a.so3) {
-		v, err := parsePercent("so3", a.so3)
-		if err != nil {
-			return q, err
-		}
-		if !(v > 0 && v <= 0.2) {
-			return q, fmt.Errorf("--so3 %q: the SO2 to SO3 conversion must be above 0 and at most 20 %% (1 to 5 %% is usual in oil firing)", a.so3)
-		}
-		q.so3 = v
-	}
-	return q, nil
+	return nil
 }
 
 // analysisKeys are the keys of --fuel-analysis in the order they print.
 var analysisKeys = [...]string{"C", "H", "S", "N", "O", "W", "A"}
 
-// parseAnalysis reads "C=86,H=11,S=2.5,N=0.3,O=0.2" (mass % as fired).
-// A malformed text is a usage error; fractions that are out of range or do
-// not add up to 100 % are failures (exit 1).
+// parseAnalysis reads "C=86,H=11,S=2.5,N=0.3,O=0.2" (mass % as fired). A
+// malformed text is a usage error; whether the values make an analysis
+// (each 0 to 100 %, adding up to 100 %) is checked by plant/combustion.
 func parseAnalysis(s string) (fuel.Analysis, error) {
 	var an fuel.Analysis
 	var seen [len(analysisKeys)]bool
-	field := func(k string) *float64 {
-		switch k {
-		case "C":
-			return &an.C
-		case "H":
-			return &an.H
-		case "S":
-			return &an.S
-		case "N":
-			return &an.N
-		case "O":
-			return &an.O
-		case "W":
-			return &an.Water
-		case "A":
-			return &an.Ash
-		}
-		return nil
-	}
+	fields := [len(analysisKeys)]*float64{&an.C, &an.H, &an.S, &an.N, &an.O, &an.Water, &an.Ash}
 	for _, part := range strings.Split(s, ",") {
 		part = strings.TrimSpace(part)
 		if part == "" {
@@ -384,11 +407,15 @@ func parseAnalysis(s string) (fuel.Analysis, error) {
 			return an, usagef("--fuel-analysis %q: %q is not KEY=VALUE; write pairs such as \"C=86,H=11,S=2.5,N=0.3,O=0.2\"", s, part)
 		}
 		k = strings.ToUpper(strings.TrimSpace(k))
-		p := field(k)
-		if p == nil {
-			return an, usagef("--fuel-analysis %q: unknown key %q; the keys are C, H, S, N, O, W (free water) and A (ash)", s, strings.TrimSpace(k))
+		i := -1
+		for j, key := range analysisKeys {
+			if key == k {
+				i = j
+			}
 		}
-		i := strings.Index("CHSNOWA", k)
+		if i < 0 {
+			return an, usagef("--fuel-analysis %q: unknown key %q; the keys are C, H, S, N, O, W (free water) and A (ash)", s, k)
+		}
 		if seen[i] {
 			return an, usagef("--fuel-analysis %q: %s given twice", s, k)
 		}
@@ -398,14 +425,7 @@ func parseAnalysis(s string) (fuel.Analysis, error) {
 		if err != nil || math.IsNaN(x) || math.IsInf(x, 0) {
 			return an, usagef("--fuel-analysis %q: the value of %s is %q; want a finite number in percent by mass, such as %s=86", s, k, v, k)
 		}
-		if !(x >= 0 && x <= 100) {
-			return an, fmt.Errorf("--fuel-analysis %q: %s = %s %%; each value must lie between 0 and 100 %% by mass", s, k, fmtG(x))
-		}
-		*p = x / 100
-	}
-	if sum := an.Sum(); !(math.Abs(sum-1) <= fuel.SumTolerance) {
-		return an, fmt.Errorf("--fuel-analysis %q: the values add up to %s %%; they must add up to 100 %% within %s %% (as fired, with W and A)",
-			s, fmtG(100*sum), fmtG(100*fuel.SumTolerance))
+		*fields[i] = x / 100
 	}
 	return an, nil
 }
@@ -422,44 +442,41 @@ func parsePercent(name, val string) (float64, error) {
 	return q.Value, nil
 }
 
-func parseTemperature(name, val string) (float64, error) {
+// parseTemperature reads a temperature and the unit it was given in.
+func parseTemperature(name, val string) (float64, string, error) {
 	v, err := units.Parse(val, units.Temperature, units.Options{})
 	if err != nil {
-		return 0, flagValueError(name, err)
+		return 0, "", flagValueError(name, err)
 	}
-	return v, nil
+	q, _ := units.ParseAny(val, units.Options{})
+	unit := q.Unit
+	if q.Dim != units.Temperature {
+		unit = "°C" // "K" resolved to a difference: write the message in °C
+	}
+	return v, unit, nil
 }
 
 // parseCO reads the CO reading in ppm ("50 ppm") or percent ("0.005 %")
-// and returns ppm by volume.
-func parseCO(val string) (float64, error) {
+// and returns ppm by volume and the unit it was given in.
+func parseCO(val string) (float64, string, error) {
 	s := strings.TrimSpace(val)
-	var ppm float64
 	if num, ok := strings.CutSuffix(s, "ppm"); ok {
 		x, err := strconv.ParseFloat(strings.TrimSpace(num), 64)
 		if err != nil || math.IsNaN(x) || math.IsInf(x, 0) {
-			return 0, usagef("--co %q: want a number before ppm, such as \"50 ppm\"", val)
+			return 0, "", usagef("--co %q: want a number before ppm, such as \"50 ppm\"", val)
 		}
-		ppm = x
-	} else {
-		q, err := units.ParseAny(s, units.Options{})
-		if err != nil {
-			return 0, usagef("--co %q: want ppm or a percentage, such as \"50 ppm\" or \"0.005 %%\"", val)
-		}
-		if q.Dim != units.Fraction || q.Unit != "%" {
-			return 0, usagef("--co %q: want ppm or a percentage, such as \"50 ppm\" or \"0.005 %%\"", val)
-		}
-		ppm = q.Value * 1e6
+		return x, "ppm", nil
 	}
-	if !(ppm >= 0 && ppm <= 1e5) {
-		return 0, fmt.Errorf("--co %q: the CO must lie between 0 and 100000 ppm (10 %%)", val)
+	q, err := units.ParseAny(s, units.Options{})
+	if err != nil || q.Dim != units.Fraction || q.Unit != "%" {
+		return 0, "", usagef("--co %q: want ppm or a percentage, such as \"50 ppm\" or \"0.005 %%\"", val)
 	}
-	return ppm, nil
+	return q.Value * 1e6, "%", nil
 }
 
 // parseHumidity reads a relative humidity ("60 %") or a humidity ratio
-// ("0.012 kg/kg", "12 g/kg") into c.
-func parseHumidity(val string, c *combustion.Conditions) error {
+// ("0.012 kg/kg", "12 g/kg") into r.
+func parseHumidity(val string, r *combustion.FlueGasReading) error {
 	s := strings.TrimSpace(val)
 	for _, u := range [...]struct {
 		suffix string
@@ -473,232 +490,24 @@ func parseHumidity(val string, c *combustion.Conditions) error {
 		if err != nil || math.IsNaN(x) || math.IsInf(x, 0) {
 			return usagef("--humidity %q: want a number before %s, such as \"0.012 kg/kg\"", val, u.suffix)
 		}
-		x *= u.scale
-		if !(x >= 0 && x <= combustion.MaxHumidity) {
-			return fmt.Errorf("--humidity %q: a humidity ratio must lie between 0 and %s kg/kg dry air", val, fmtG(combustion.MaxHumidity))
-		}
-		c.Humidity = x
+		r.Humidity = x * u.scale
 		return nil
 	}
 	q, err := units.ParseAny(s, units.Options{})
 	if err != nil || q.Dim != units.Fraction || q.Unit != "%" {
 		return usagef("--humidity %q: want a relative humidity such as \"60 %%\" or a humidity ratio such as \"0.012 kg/kg\"", val)
 	}
-	if !(q.Value >= 0 && q.Value <= 1) {
-		return fmt.Errorf("--humidity %q: a relative humidity must lie between 0 and 100 %%", val)
-	}
-	if q.Value > 0 && c.AirT < 273.15 {
-		return fmt.Errorf("--humidity %q: a relative humidity below 0 °C air is not modelled (saturation over ice); give the humidity ratio in kg/kg", val)
-	}
-	c.RelativeHumidity = q.Value
+	r.RelativeHumidity = q.Value
 	return nil
 }
 
-// fluegasResult holds the computed figures.
-type fluegasResult struct {
-	q           fluegasQuery
-	p           combustion.Products
-	stoichFlue  float64 // wet flue gas at λ = 1 (kg/kg fuel)
-	l           combustion.Losses
-	dew         float64 // K, valid if dewOK
-	dewOK       bool
-	dewNote     string // why there is no dew point
-	siegert     float64
-	siegertOK   bool
-	siegertForm string
-	siegertSet  string
-	siegertNote string
-	warnings    []string
-}
-
-func (q fluegasQuery) compute() (*fluegasResult, error) {
-	r := &fluegasResult{q: q}
-	var err error
-	if r.p, err = combustion.Fire(q.fuel, q.cond); err != nil {
-		return nil, err
-	}
-	st := combustion.Conditions{Lambda: 1, AirT: q.cond.AirT, FuelT: q.cond.FuelT, Humidity: r.p.HumidityRatio}
-	ps, err := combustion.Fire(q.fuel, st)
-	if err != nil {
-		return nil, err
-	}
-	r.stoichFlue = ps.FlueGas
-	if r.l, err = combustion.Efficiency(r.p, q.flueT, q.cond.AirT, q.opts); err != nil {
-		return nil, err
-	}
-
-	// Acid dew point.
-	if q.fuel.Analysis.S == 0 {
-		r.dewNote = "the fuel has no sulfur, so there is no acid dew point (only the water dew point)"
-	} else if t, err := combustion.AcidDewPoint(r.p, 0, q.so3, combustion.MethodVerhoffBanchero); err != nil {
-		r.dewNote = "not computed: " + err.Error()
-		r.warnings = append(r.warnings, "the acid dew point could not be computed ("+err.Error()+"); check the margin to it by other means")
-	} else {
-		r.dew, r.dewOK = t, true
-		switch {
-		case q.flueT <= t:
-			r.warnings = append(r.warnings, fmt.Sprintf("the flue gas at %s °C is at or below the acid dew point of %s °C: sulfuric acid condenses on the surfaces it touches",
-				fmtF(q.flueT-273.15, 1), fmtF(t-273.15, 1)))
-		case q.flueT < t+dewMargin:
-			r.warnings = append(r.warnings, fmt.Sprintf("the flue gas at %s °C is less than %s K above the acid dew point of %s °C; a margin of at least %s K is common practice (no source), and tube walls are colder than the gas",
-				fmtF(q.flueT-273.15, 1), fmtG(dewMargin), fmtF(t-273.15, 1), fmtG(dewMargin)))
-		}
-	}
-
-	// Siegert cross-check, in the form of the reading.
-	coef, set := combustion.SiegertFuelOil, "fuel-oil coefficients"
-	if q.fuel.Class == fuel.Gas {
-		coef, set = combustion.SiegertNaturalGas, "natural-gas coefficients"
-	}
-	r.siegertSet = set
-	var sErr error
-	if q.co2 != 0 {
-		r.siegertForm = "CO2 form"
-		r.siegert, sErr = combustion.SiegertCO2(q.flueT, q.cond.AirT, q.co2, coef)
-	} else {
-		r.siegertForm = "O2 form"
-		r.siegert, sErr = combustion.Siegert(q.flueT, q.cond.AirT, q.o2, coef)
-	}
-	if sErr != nil {
-		r.siegertNote = "not available: " + sErr.Error()
-	} else {
-		r.siegertOK = true
-	}
-
-	// Warnings from the account.
-	if q.stoichNote != "" {
-		r.warnings = append(r.warnings, q.stoichNote)
-	}
-	if r.l.Warnings&combustion.WarnNoRadiation != 0 && !q.radGiven {
-		r.warnings = append(r.warnings, "no radiation and convection loss given (--radiation): taken as zero, so the efficiency is overstated by it (0.5 to 1.5 % at MCR is common for marine auxiliary boilers)")
-	}
-	if r.l.Warnings&combustion.WarnLowLoadRadiation != 0 {
-		r.warnings = append(r.warnings, "below 25 % load the 1/load scaling of the radiation loss is crude")
-	}
-	if r.l.Warnings&combustion.WarnFuelSensibleNotModelled != 0 {
-		r.warnings = append(r.warnings, "the fuel's sensible heat is not modelled for this fuel; the fuel credit is taken as zero")
-	}
-	return r, nil
-}
-
-// lossesJSON is one basis of the account, in percent of that basis's input.
-type lossesJSON struct {
-	DryGas      float64 `json:"dry_gas_pct"`
-	Moisture    float64 `json:"moisture_pct"`
-	MoistureH   float64 `json:"moisture_from_hydrogen_pct"`
-	MoistureW   float64 `json:"moisture_from_fuel_water_pct"`
-	MoistureAir float64 `json:"moisture_from_air_pct"`
-	Radiation   float64 `json:"radiation_pct"`
-	Unburnt     float64 `json:"unburnt_pct"`
-	CO          float64 `json:"co_pct"`
-	Solids      float64 `json:"solids_pct"`
-	Credits     float64 `json:"credits_pct"`
-	Total       float64 `json:"total_pct"`
-}
-
-func lossesOf(l combustion.LossItems) lossesJSON {
-	return lossesJSON{
-		DryGas: l.DryGas, Moisture: l.Moisture(),
-		MoistureH: l.MoistureH, MoistureW: l.MoistureFuel, MoistureAir: l.MoistureAir,
-		Radiation: l.Radiation, Unburnt: l.CO + l.Solids, CO: l.CO, Solids: l.Solids,
-		Credits: l.TotalCredit, Total: l.TotalLoss,
-	}
-}
-
-// fluegasJSON is the JSON form of the result.
-type fluegasJSON struct {
-	Fuel          string  `json:"fuel"`
-	FlueT         float64 `json:"flue_gas_T_K"`
-	AirT          float64 `json:"air_T_K"`
-	RefT          float64 `json:"reference_T_K"`
-	Lambda        float64 `json:"lambda"`
-	ExcessAir     float64 `json:"excess_air_pct"`
-	StoichAir     float64 `json:"stoich_air_kg_per_kg"`
-	StoichFlue    float64 `json:"stoich_flue_gas_kg_per_kg"`
-	Air           float64 `json:"air_kg_per_kg"`
-	FlueGas       float64 `json:"flue_gas_kg_per_kg"`
-	DryFlueGas    float64 `json:"dry_flue_gas_kg_per_kg"`
-	FlueGasNm3    float64 `json:"flue_gas_Nm3_per_kg"`
-	HumidityRatio float64 `json:"humidity_kg_per_kg_dry_air"`
-	CO2Dry        float64 `json:"co2_dry_pct"`
-	O2Dry         float64 `json:"o2_dry_pct"`
-	SO2Dry        float64 `json:"so2_dry_ppm"`
-	N2Dry         float64 `json:"n2_dry_pct"`
-	ArDry         float64 `json:"ar_dry_pct"`
-	CO2Wet        float64 `json:"co2_wet_pct"`
-	O2Wet         float64 `json:"o2_wet_pct"`
-	SO2Wet        float64 `json:"so2_wet_ppm"`
-	H2OWet        float64 `json:"h2o_wet_pct"`
-	N2Wet         float64 `json:"n2_wet_pct"`
-	ArWet         float64 `json:"ar_wet_pct"`
-
-	Losses        lossesJSON `json:"losses"`
-	LossesHHV     lossesJSON `json:"losses_hhv"`
-	EfficiencyLHV float64    `json:"efficiency_lhv_pct"`
-	EfficiencyHHV float64    `json:"efficiency_hhv_pct"`
-
-	AcidDewPoint     *float64 `json:"acid_dew_point_K"`
-	AcidDewMethod    string   `json:"acid_dew_point_method"`
-	SO3Conversion    float64  `json:"so3_conversion_pct"`
-	Siegert          *float64 `json:"siegert_loss_pct"`
-	SiegertForm      string   `json:"siegert_form"`
-	FlueLossDetailed float64  `json:"dry_gas_plus_moisture_lhv_pct"`
-
-	LHV       float64  `json:"lhv_J_per_kg"`
-	HHV       float64  `json:"hhv_J_per_kg"`
-	LHVSource string   `json:"lhv_source"`
-	HHVSource string   `json:"hhv_source"`
-	Warnings  []string `json:"warnings"`
-	Caution   string   `json:"caution"`
-}
-
-func (r *fluegasResult) json() fluegasJSON {
-	p := &r.p
-	xd, xw := p.MoleFractions(false), p.MoleFractions(true)
-	out := fluegasJSON{
-		Fuel:  r.q.fuel.Name,
-		FlueT: r.q.flueT, AirT: p.AirT, RefT: r.l.RefT,
-		Lambda: p.Lambda, ExcessAir: 100 * (p.Lambda - 1),
-		StoichAir: p.Stoich.Air, StoichFlue: r.stoichFlue,
-		Air: p.Air, FlueGas: p.FlueGas, DryFlueGas: p.DryFlueGas,
-		FlueGasNm3:    p.NormalVolume(true),
-		HumidityRatio: p.HumidityRatio,
-		CO2Dry:        100 * xd[combustion.CO2], O2Dry: 100 * xd[combustion.O2], SO2Dry: 1e6 * xd[combustion.SO2],
-		N2Dry: 100 * xd[combustion.N2], ArDry: 100 * xd[combustion.Ar],
-		CO2Wet: 100 * xw[combustion.CO2], O2Wet: 100 * xw[combustion.O2], SO2Wet: 1e6 * xw[combustion.SO2],
-		H2OWet: 100 * xw[combustion.H2O], N2Wet: 100 * xw[combustion.N2], ArWet: 100 * xw[combustion.Ar],
-		Losses:        lossesOf(r.l.LHV),
-		LossesHHV:     lossesOf(r.l.HHV),
-		EfficiencyLHV: r.l.LHV.Efficiency,
-		EfficiencyHHV: r.l.HHV.Efficiency,
-		AcidDewMethod: "Verhoff-Banchero (1974)",
-		SO3Conversion: 100 * r.q.so3,
-		SiegertForm:   "1. BImSchV, " + r.siegertForm + ", " + r.siegertSet,
-		LHV:           r.l.LHV.HeatInput, HHV: r.l.HHV.HeatInput,
-		LHVSource: r.l.LHV.Source.String(), HHVSource: r.l.HHV.Source.String(),
-		Warnings: append([]string{}, r.warnings...),
-		Caution:  cautionLine,
-	}
-	out.FlueLossDetailed = out.Losses.DryGas + out.Losses.Moisture
-	if r.dewOK {
-		v := r.dew
-		out.AcidDewPoint = &v
-	}
-	if r.siegertOK {
-		v := r.siegert
-		out.Siegert = &v
-	}
-	return out
-}
-
-func writeFluegasTable(w io.Writer, a *fluegasArgs, r *fluegasResult, o *fluegasJSON) error {
-	p := &r.p
-	q := &r.q
+func writeFluegasTable(w io.Writer, a *fluegasArgs, r *combustion.FlueGasCheck, o *combustion.FlueGasJSON) error {
+	p := &r.Products
 	c := func(T float64) string { return fmtF(T-273.15, 1) }
 	mj := func(v float64) string { return fmtF(v/1e6, 3) }
 
 	fmt.Fprintf(w, "Boiler efficiency from a flue-gas measurement (heat-loss method)\n")
-	fmt.Fprintf(w, "Fuel: %s; analysis as fired, %% m/m: %s\n", q.fuel.Name, analysisText(q.fuel.Analysis))
+	fmt.Fprintf(w, "Fuel: %s; analysis as fired, %% m/m: %s\n", r.Reading.Fuel.Name, analysisText(r.Reading.Fuel.Analysis))
 	fmt.Fprintf(w, "Measured: %s\n\n", a.inputs())
 
 	tw := tabwriter.NewWriter(w, 0, 8, 2, ' ', 0)
@@ -737,28 +546,41 @@ func writeFluegasTable(w io.Writer, a *fluegasArgs, r *fluegasResult, o *fluegas
 
 	fmt.Fprintf(w, "\nEfficiency: %s %% on the LHV (net) basis, %s %% on the HHV (gross) basis.\n",
 		fmtF(o.EfficiencyLHV, 2), fmtF(o.EfficiencyHHV, 2))
-	if r.siegertOK {
+	if s := &r.Siegert; s.Known {
 		fmt.Fprintf(w, "Siegert cross-check (1. BImSchV, %s, %s): flue-gas loss %s %%, against dry gas + moisture %s %% (LHV).\n",
-			r.siegertForm, r.siegertSet, fmtF(r.siegert, 2), fmtF(o.FlueLossDetailed, 2))
+			s.Form, s.Set, fmtF(s.Loss, 2), fmtF(o.FlueLossDetailed, 2))
 	} else {
-		fmt.Fprintf(w, "Siegert cross-check: %s\n", r.siegertNote)
+		fmt.Fprintf(w, "Siegert cross-check: %s\n", s.Note)
 	}
-	if r.dewOK {
-		fmt.Fprintf(w, "Acid dew point (Verhoff-Banchero, %s %% of the SO2 to SO3): %s °C; the flue gas at %s °C is %s K above it.\n",
-			fmtG(100*q.so3), c(r.dew), c(q.flueT), fmtF(q.flueT-r.dew, 1))
+	if d := &r.DewPoint; d.Known {
+		fmt.Fprintf(w, "Acid dew point (Verhoff-Banchero, %s %% of the SO2 to SO3): %s °C; the flue gas at %s °C is %s.\n",
+			fmtG(100*d.SO3Conversion), c(d.VerhoffBanchero), c(r.Reading.FlueT), marginText(d.Margin))
 	} else {
-		fmt.Fprintf(w, "Acid dew point: %s.\n", r.dewNote)
+		fmt.Fprintf(w, "Acid dew point: %s.\n", d.Note)
 	}
 	fmt.Fprintf(w, "Reference temperature: the air temperature, %s °C (as in Siegert's formula); the fuel is taken at it, so there are no credits. Complete combustion; ideal gases (NASA TM-4513 data).\n",
 		c(p.AirT))
-	if len(r.warnings) > 0 {
+	if len(r.Warnings) > 0 {
 		fmt.Fprintf(w, "\nWarnings:\n")
-		for _, s := range r.warnings {
+		for _, s := range r.Warnings {
 			fmt.Fprintf(w, "  - %s\n", s)
 		}
 	}
 	_, err := fmt.Fprintf(w, "\n%s\n", cautionLine)
 	return err
+}
+
+// marginText says how far the flue gas is from its dew point, to 0.1 K:
+// "14.3 K above it", "34.9 K below it" or "at it".
+func marginText(d float64) string {
+	s := fmtF(math.Abs(d), 1)
+	switch {
+	case s == fmtF(0, 1):
+		return "at it (within 0.05 K)"
+	case d < 0:
+		return s + " K below it"
+	}
+	return s + " K above it"
 }
 
 // analysisText writes an analysis as "C 86.00, H 11.00, ...", leaving out

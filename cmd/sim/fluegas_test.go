@@ -9,6 +9,7 @@ import (
 	"strings"
 	"testing"
 
+	"steamcase/plant/combustion"
 	"steamcase/plant/fuel"
 )
 
@@ -71,7 +72,7 @@ func TestFluegasGolden(t *testing.T) {
 }
 
 // fluegasOf runs sim fluegas with --json and decodes the object.
-func fluegasOf(t *testing.T, args ...string) fluegasJSON {
+func fluegasOf(t *testing.T, args ...string) combustion.FlueGasJSON {
 	t.Helper()
 	if len(args) == 0 || args[0] != "fluegas" {
 		args = append([]string{"fluegas"}, args...)
@@ -80,7 +81,7 @@ func fluegasOf(t *testing.T, args ...string) fluegasJSON {
 	if code != exitOK {
 		t.Fatalf("sim %q: exit %d: %s", args, code, errOut)
 	}
-	var r fluegasJSON
+	var r combustion.FlueGasJSON
 	dec := json.NewDecoder(strings.NewReader(out))
 	dec.DisallowUnknownFields()
 	if err := dec.Decode(&r); err != nil {
@@ -218,7 +219,7 @@ func TestFluegasDewPoint(t *testing.T) {
 		{"250 C", ""},
 		{"180 C", ""},
 		{"165 C", "less than 20 K above the acid dew point"},
-		{"140 C", "at or below the acid dew point"},
+		{"140 C", "K below the acid dew point"},
 	} {
 		r := fluegasOf(t, "--fuel", "HSFO", "--o2", "3 %", "--gas", c.gas, "--air", "35 C", "--radiation", "1 %")
 		got := strings.Join(r.Warnings, "\n")
@@ -262,8 +263,11 @@ func TestFluegasOptions(t *testing.T) {
 
 	// The CO2 reading that 3 % O2 implies gives the same λ back: both
 	// forms of plant-checks.md §2 [CP] are exact for complete combustion.
-	c := fluegasOf(t, "--fuel", "HSFO", "--co2", jsonNum(r0.CO2Dry)+" %", "--gas", "250 C", "--air", "35 C")
-	fgNear(t, "λ from CO2 vs from O2 (plant-checks.md §2 [CP])", c.Lambda, r0.Lambda, 1e-9)
+	// The test fuel (plant-checks.md §1.2), for the Siegert value below.
+	rt := fluegasOf(t, testFuelArgs...)
+	c := fluegasOf(t, "--fuel-analysis", "C=86,H=11,S=2.5,N=0.3,O=0.2", "--lhv", "40.487 MJ/kg",
+		"--co2", jsonNum(rt.CO2Dry)+" %", "--gas", "250 C", "--air", "35 C")
+	fgNear(t, "λ from CO2 vs from O2 (plant-checks.md §2 [CP])", c.Lambda, rt.Lambda, 1e-9)
 	// Siegert's CO2 form with the test fuel's CO2 at 3 % O2 (13.68 %):
 	// 9.36 % (plant-checks.md §3.2 [C]).
 	fgNear(t, "Siegert CO2 form % (plant-checks.md §3.2 [C])", *c.Siegert, 9.36, 0.005)
@@ -283,18 +287,19 @@ func TestFluegasOptions(t *testing.T) {
 		t.Errorf("humid air: moisture loss %g not above dry air's %g", h.Losses.Moisture, r0.Losses.Moisture)
 	}
 
-	// An analysis on top of a grade replaces the grade's analysis and keeps
-	// its set LHV (the IMO figure, 40 200 kJ/kg for HFO, §1.3 [S]).
-	o := fluegasOf(t, "--fuel", "VLSFO", "--fuel-analysis", "C=86,H=11,S=2.5,N=0.3,O=0.2",
-		"--o2", "3 %", "--gas", "250 C", "--air", "35 C")
-	fgNear(t, "LHV of VLSFO with an analysis on top (plant-checks.md §1.3 [S])", o.LHV, 40.2e6, 1e-6)
-	fgNear(t, "stoichiometric air of the analysis given (plant-checks.md §2.1 [C])", o.StoichAir, 13.770, 0.005)
 	// Without --lhv, an own fuel's LHV comes from the analysis.
-	o = fluegasOf(t, "--fuel-analysis", "C=86,H=11,S=2.5,N=0.3,O=0.2", "--o2", "3 %", "--gas", "250 C", "--air", "35 C")
 	n, _, err := fuel.AnalysisEnergy(fuel.Analysis{C: 0.86, H: 0.11, S: 0.025, N: 0.003, O: 0.002})
 	if err != nil {
 		t.Fatal(err)
 	}
+	// An analysis on top of a liquid grade replaces the grade's analysis
+	// and ISO 8217 data, so the LHV comes from the analysis too (the IMO
+	// LCV is never the energy balance's figure).
+	o := fluegasOf(t, "--fuel", "VLSFO", "--fuel-analysis", "C=86,H=11,S=2.5,N=0.3,O=0.2",
+		"--o2", "3 %", "--gas", "250 C", "--air", "35 C")
+	fgNear(t, "LHV of VLSFO with an analysis on top = package fuel's analysis route", o.LHV, n, 1e-6)
+	fgNear(t, "stoichiometric air of the analysis given (plant-checks.md §2.1 [C])", o.StoichAir, 13.770, 0.005)
+	o = fluegasOf(t, "--fuel-analysis", "C=86,H=11,S=2.5,N=0.3,O=0.2", "--o2", "3 %", "--gas", "250 C", "--air", "35 C")
 	fgNear(t, "LHV of an own fuel = package fuel's analysis route", o.LHV, n, 1e-6)
 	if !strings.Contains(o.LHVSource, "Channiwala-Parikh") {
 		t.Errorf("LHV source %q does not name the correlation", o.LHVSource)
@@ -361,35 +366,35 @@ func TestFluegasExitCodes(t *testing.T) {
 			`sim fluegas: unexpected argument "stray"…`},
 		// Failures: well-formed values that give no result.
 		{fg("--fuel", "HSFO", "--o2", "21 %", "--gas", "250 C", "--air", "35 C"), exitFail,
-			`sim fluegas: --o2 "21 %": no combustion: O2 at or above that of air (20.946 % dry); the burner cannot fire`},
+			`sim fluegas: --o2 "21 %": no combustion: an O2 at or near that of air (20.946 % dry, which analysers show as 20.9 %): the burner is not firing, or the probe is not in the flue gas`},
 		{fg("--fuel", "HSFO", "--o2", "20.946 %", "--gas", "250 C", "--air", "35 C"), exitFail,
-			`sim fluegas: --o2 "20.946 %": no combustion: O2 at or above that of air (20.946 % dry); the burner cannot fire`},
+			`sim fluegas: --o2 "20.946 %": no combustion: an O2 at or near that of air (20.946 % dry, which analysers show as 20.9 %): the burner is not firing, or the probe is not in the flue gas`},
 		{fg("--fuel", "HSFO", "--o2", "-1 %", "--gas", "250 C", "--air", "35 C"), exitFail,
 			`sim fluegas: --o2 "-1 %": a measured O2 cannot be negative`},
-		{fg("--fuel", "HSFO", "--co2", "17 %", "--gas", "250 C", "--air", "35 C"), exitFail,
+		{fg("--fuel-analysis", "C=86,H=11,S=2.5,N=0.3,O=0.2", "--co2", "17 %", "--gas", "250 C", "--air", "35 C"), exitFail,
 			`sim fluegas: --co2 "17 %": above the fuel's maximum CO2 of 15.97 % (dry, at λ = 1)…`},
 		{fg("--fuel", "HSFO", "--o2", "3 %", "--gas", "30 C", "--air", "35 C"), exitFail,
-			`sim fluegas: --gas "30 C": the flue gas (30.00 °C) is not hotter than the combustion air (35.00 °C); a firing boiler's flue gas leaves hotter than the air comes in`},
+			`sim fluegas: --gas "30 C": the flue gas (30 °C) is not hotter than the combustion air (35 °C); a firing boiler's flue gas leaves hotter than the air comes in`},
 		{fg("--fuel", "HSFO", "--o2", "3 %", "--gas", "1200 C", "--air", "35 C"), exitFail,
-			`sim fluegas: --gas "1200 C": the flue-gas temperature must be at most 1000 °C for the heat-loss account; got 1200.00 °C`},
+			`sim fluegas: --gas "1200 C": the flue-gas temperature must be at most 1000 °C for the heat-loss account; got 1200 °C`},
 		{fg("--fuel", "HSFO", "--o2", "3 %", "--gas", "250 C", "--air", "150 C"), exitFail,
-			`sim fluegas: --air "150 C": the air temperature is the reference of the loss account, which must lie between -20 and 50 °C…`},
+			`sim fluegas: --air "150 C": the air temperature is the reference of the loss account, which must lie between -20 °C and 50 °C; got 150 °C…`},
 		{fg("--fuel", "HSFO", "--o2", "3 %", "--gas", "250 C", "--air", "-300 C"), exitFail,
 			"sim fluegas: --air: temperature '-300 C' is below absolute zero (0 K, -273.15 °C)"},
 		{fg(fgWith([]string{"--fuel-analysis", "C=86,H=11"}, ok...)...), exitFail,
 			`sim fluegas: --fuel-analysis "C=86,H=11": the values add up to 97 %; they must add up to 100 % within 0.5 % (as fired, with W and A)`},
 		{fg(fgWith([]string{"--fuel-analysis", "C=186,H=-86"}, ok...)...), exitFail,
-			`sim fluegas: --fuel-analysis "C=186,H=-86": C = 186 %; each value must lie between 0 and 100 % by mass`},
+			`sim fluegas: --fuel-analysis "C=186,H=-86": C = 186 %; each value must lie between 0 % and 100 % by mass`},
 		{fg(fgWith([]string{"--fuel", "HSFO", "--lhv", "2 MJ/kg"}, ok...)...), exitFail,
-			`sim fluegas: --lhv "2 MJ/kg": a net specific energy must lie between 5 and 130 MJ/kg; got 2 MJ/kg`},
+			`sim fluegas: --lhv "2 MJ/kg": a net specific energy must lie between 5 MJ/kg and 130 MJ/kg; got 2 MJ/kg`},
 		{fg(fgWith([]string{"--fuel", "HSFO", "--radiation", "12 %"}, ok...)...), exitFail,
-			`sim fluegas: --radiation "12 %": the radiation and convection loss at MCR must lie between 0 and 10 %`},
+			`sim fluegas: --radiation "12 %": the radiation and convection loss at MCR must lie between 0 % and 10 %`},
 		{fg(fgWith([]string{"--fuel", "HSFO", "--radiation", "1 %", "--load", "2 %"}, ok...)...), exitFail,
-			`sim fluegas: --load "2 %": the load must lie between 5 and 120 % of MCR`},
+			`sim fluegas: --load "2 %": the load must lie between 5 % and 120 % of MCR`},
 		{fg(fgWith([]string{"--fuel", "HSFO", "--so3", "0 %"}, ok...)...), exitFail,
-			`sim fluegas: --so3 "0 %": the SO2 to SO3 conversion must be above 0 and at most 20 % (1 to 5 % is usual in oil firing)`},
+			`sim fluegas: --so3 "0 %": the SO2 to SO3 conversion must be above 0 % and at most 20 % (1 % to 5 % is usual in oil firing)`},
 		{fg(fgWith([]string{"--fuel", "HSFO", "--humidity", "120 %"}, ok...)...), exitFail,
-			`sim fluegas: --humidity "120 %": a relative humidity must lie between 0 and 100 %`},
+			`sim fluegas: --humidity "120 %": a relative humidity must lie between 0 % and 100 %`},
 		{fg(fgWith([]string{"--fuel", "HSFO", "--co", "-5 ppm"}, ok...)...), exitFail,
 			`sim fluegas: --co "-5 ppm": the CO must lie between 0 and 100000 ppm (10 %)`},
 	}
@@ -560,4 +565,87 @@ func FuzzFluegas(f *testing.F) {
 			t.Fatalf("sim %q: exit %d", args, code)
 		}
 	})
+}
+
+// TestFluegasMessages checks the flue-gas messages of issue 17: a flue gas
+// below its dew point is said to be so many kelvin below it (not "-34.9 K
+// above"); an O2 reading of air, or one so near it that the air ratio is
+// beyond the account, is a failure that says so (not an air ratio with
+// twelve digits); values in messages are in the unit the user gave them in,
+// without float noise; a temperature at a bound of its range is accepted.
+// It uses only the command's text, so that it runs against the command as
+// it was before these fixes (where every row failed).
+func TestFluegasMessages(t *testing.T) {
+	t.Parallel()
+	hsfo := func(more ...string) []string {
+		return fgWith([]string{"fluegas", "--fuel", "HSFO", "--o2", "3 %", "--gas", "250 C", "--air", "35 C"}, more...)
+	}
+	cases := []struct {
+		name string
+		args []string
+		code int
+		// want are phrases of stdout (exit 0) or of stderr's first line;
+		// not are phrases that must not appear.
+		want, not []string
+	}{
+		// HSFO at 3 % O2 has its acid dew point at 151.1 °C (the
+		// table's own line; checked against plant-checks.md §4 in
+		// TestFluegasDewPoint): 116.3 °C is 34.8 K below it.
+		{"below the dew point", fgWith([]string{"fluegas", "--fuel", "HSFO", "--o2", "3 %", "--gas", "116.3 C", "--air", "35 C"}), exitOK,
+			[]string{"151.1 °C; the flue gas at 116.3 °C is 34.8 K below it.",
+				"the flue gas at 116.3 °C is 34.8 K below the acid dew point of 151.1 °C"},
+			[]string{"-34.9", "K above it"}},
+		{"O2 of air", fgWith([]string{"fluegas", "--fuel", "HSFO", "--o2", "20.9 %", "--gas", "250 C", "--air", "35 C"}), exitFail,
+			[]string{`sim fluegas: --o2 "20.9 %": no combustion: an O2 at or near that of air (20.946 % dry`},
+			[]string{"λ"}},
+		{"O2 nearly air", fgWith([]string{"fluegas", "--fuel", "HSFO", "--o2", "20.5 %", "--gas", "250 C", "--air", "35 C"}), exitFail,
+			[]string{`sim fluegas: --o2 "20.5 %": nearly air: it means an air ratio λ of 44.37, more than the 20 the account takes`},
+			[]string{"44.34000", "combustion:"}},
+		{"CO2 nearly air", fgWith([]string{"fluegas", "--fuel", "MGO", "--co2", "0.5 %", "--gas", "250 C", "--air", "35 C"}), exitFail,
+			[]string{`sim fluegas: --co2 "0.5 %": nearly air: it means an air ratio λ of 29.01,`},
+			[]string{"combustion:"}},
+		// λ 14.6 at 250 °C: the losses exceed the fuel's heat; this used
+		// to print an efficiency of -8.51 %.
+		{"losses above the input", fgWith([]string{"fluegas", "--fuel", "MGO", "--co2", "1 %", "--gas", "250 C", "--air", "35 C"}), exitFail,
+			[]string{`sim fluegas: --co2 "1 %": the losses come to 108.9 % of the fuel's heat input (LHV)`}, nil},
+		{"flue gas in °F", hsfo("--gas", "2000 F"), exitFail,
+			[]string{`--gas "2000 F": the flue-gas temperature must be at most 1832 °F for the heat-loss account; got 2000 °F`}, nil},
+		{"each temperature in its unit", hsfo("--gas", "80 F"), exitFail,
+			[]string{`--gas "80 F": the flue gas (80 °F) is not hotter than the combustion air (35 °C)`}, nil},
+		{"LHV in kcal/kg", hsfo("--lhv", "1000 kcal/kg"), exitFail,
+			[]string{`--lhv "1000 kcal/kg": a net specific energy must lie between 1194.23 kcal/kg and 31050 kcal/kg; got 1000 kcal/kg`}, nil},
+		{"air at the bound", hsfo("--air", "-20 C"), exitOK,
+			[]string{"Reference temperature: the air temperature, -20.0 °C"}, nil},
+	}
+	for _, c := range cases {
+		t.Run(c.name, func(t *testing.T) {
+			t.Parallel()
+			code, out, errOut := runSim(t, c.args...)
+			text := out
+			if c.code != exitOK {
+				text, _, _ = strings.Cut(errOut, "\n")
+			}
+			if code != c.code {
+				t.Fatalf("sim %q: exit %d, want %d; stderr %q", c.args, code, c.code, errOut)
+			}
+			for _, w := range c.want {
+				if !strings.Contains(text, w) {
+					t.Errorf("sim %q lacks %q:\n%s", c.args, w, text)
+				}
+			}
+			for _, w := range c.not {
+				if strings.Contains(text, w) {
+					t.Errorf("sim %q has %q:\n%s", c.args, w, text)
+				}
+			}
+		})
+	}
+}
+
+// TestFluegasCaution keeps the caution of plant/combustion's JSON, which
+// the command prints, the same as the table's.
+func TestFluegasCaution(t *testing.T) {
+	if combustion.Caution != cautionLine {
+		t.Errorf("combustion.Caution %q differs from the command's %q", combustion.Caution, cautionLine)
+	}
 }

@@ -14,6 +14,7 @@ import (
 	"github.com/rs/zerolog"
 
 	"steamcase/cmd/sim/internal/report"
+	"steamcase/plant/schema"
 	"steamcase/scripting"
 )
 
@@ -49,18 +50,21 @@ with their units, such as "7 bar(g)" or "18 t/h". A script reads files only
 from its own folder and the folders below it.
 
 The report is a table for people unless --json or --csv asks for a form for
-programs: --json prints one JSON document (schema 1: the caution, the plant,
-every case with its figures and every voyage, study and audit, each key
-naming its unit), --csv tables of comma-separated values under headers
-naming their units: the load cases, one row each with the main figures,
-then the rows of the voyages (each period's conditions, boilers firing,
-steam, fuel and CO2), the variants of the studies (fuel, savings, payback)
+programs: --json prints one JSON document (schema 2: the program's
+version, the caution, the plants, the checks passed and failed, every case
+with its figures and every voyage, study and audit, each key naming its
+unit; the same keys as the tables case() and the jobs return to a script),
+--csv tables of comma-separated values under headers naming their units:
+the load cases, one row each with the main figures, then the rows of the
+voyages (each period's conditions, boilers firing, steam, fuel and CO2)
+and their warnings, the variants of the studies (fuel, savings, payback)
 and the days of the audits (claimed, nominal and band). Each table starts
 with a header row whose first field is "table"; its rows carry the
-table's name there ("cases", "voyage rows", "study variants" or "audit
-days"), and a blank line separates two tables. The cases table always
-comes first; a job's table only when the run has such a job. -o writes the
-report to a file instead of standard output (see below).
+table's name there ("cases", "voyage rows", "voyage warnings", "study
+variants" or "audit days"), and a blank line separates two tables. The
+cases table always comes first; a job's table only when the run has such
+a job. -o writes the report to a file instead of standard output (see
+below).
 
 --plot FILE also draws what the run solved, as an SVG or PNG image chosen
 by the file name's extension: the load cases on one chart (the steam
@@ -89,9 +93,10 @@ time left at that rate, and the time taken when done.
 
 An error in a script is printed as "file:line: message" and sim exits
 with status 1. So does a failed check(), after the report of the cases
-solved before it, so that the figures it tested can be seen. A script
-that runs longer than --timeout is stopped: sim prints the report of what
-was solved, then where the script was and a longer --timeout to give.
+solved before it, so that the figures it tested can be seen; with --json
+the document marks the failure under "checks". A script that runs longer
+than --timeout is stopped: sim prints the report of what was solved, then
+where the script was and a longer --timeout to give.
 Control characters in names and messages (a carriage return, a newline,
 a terminal's escape) are shown escaped, as \r, \n or \x1b, in the table,
 the CSV, the charts and the messages; the JSON keeps them exactly, in its
@@ -382,7 +387,7 @@ func runScripts(ctx context.Context, e env, a *runArgs, o *outputs, runners []sc
 			log.Debug().Str("job", job).Int("done", done).Int("total", total).Msg("progress")
 		}
 	}
-	var all report.Run
+	all := report.Run{Version: version()}
 	var failed error
 	for _, run := range runners {
 		r, err := run(ctx, opt)
@@ -403,7 +408,11 @@ func runScripts(ctx context.Context, e env, a *runArgs, o *outputs, runners []sc
 				return writeScriptError(e.stderr, err, a)
 			}
 			// A failed check or a run stopped at its limit: report what
-			// was solved, then the failure.
+			// was solved (the JSON document marks a failed check), then
+			// the failure.
+			if ae != nil {
+				all.Checks.Failed = append(all.Checks.Failed, schema.CheckFailure{Pos: ae.Pos.String(), Message: ae.Msg})
+			}
 			failed = err
 			break
 		}
@@ -454,8 +463,10 @@ func (p *printWriter) Write(b []byte) (int, error) {
 	return len(b), nil
 }
 
-// collect adds what a script solved to the run's report.
+// collect adds what a script solved, and the checks it passed, to the
+// run's report.
 func collect(all *report.Run, r *scripting.Run) {
+	all.Checks.Passed += r.Checks
 	for _, c := range r.Cases {
 		if c.Result != nil {
 			all.Cases = append(all.Cases, report.Case{Plant: c.Plant, Result: c.Result})

@@ -61,9 +61,14 @@ func TestRunForms(t *testing.T) {
 	var doc struct {
 		Schema  int    `json:"schema"`
 		Caution string `json:"caution"`
-		Plant   struct {
+		Version string `json:"version"`
+		Plant   []struct {
 			Name string `json:"name"`
 		} `json:"plant"`
+		Checks struct {
+			Passed int   `json:"passed"`
+			Failed []any `json:"failed"`
+		} `json:"checks"`
 		Cases []struct {
 			Name          string `json:"name"`
 			Source        string `json:"source"`
@@ -73,7 +78,8 @@ func TestRunForms(t *testing.T) {
 	if err := json.Unmarshal([]byte(out), &doc); err != nil {
 		t.Fatalf("--json: %v\n%s", err, out)
 	}
-	if doc.Schema != 1 || doc.Caution != cautionLine || doc.Plant.Name != "Invented Test Coaster" || len(doc.Cases) != 2 ||
+	if doc.Schema != 2 || doc.Version != version() || doc.Caution != cautionLine || len(doc.Plant) != 1 ||
+		doc.Plant[0].Name != "Invented Test Coaster" || len(doc.Cases) != 2 || doc.Checks.Failed == nil ||
 		doc.Cases[0].Source != "testdata/run/small.lua:20" || doc.Cases[1].BoilersFiring != 2 {
 		t.Errorf("--json: %+v", doc)
 	}
@@ -93,6 +99,43 @@ func TestRunForms(t *testing.T) {
 	}
 	if errOut != cautionLine+"\n" {
 		t.Errorf("--csv must put the caution on stderr; got %q", errOut)
+	}
+}
+
+// TestRunFailedCheckJSON: with --json, a failed check() still writes the
+// document, with what was solved before it and the failure under
+// "checks", and sim exits with status 1 after printing the failure.
+func TestRunFailedCheckJSON(t *testing.T) {
+	code, out, errOut := runSim(t, "run", "--quiet", "--json", failScript)
+	if code != exitFail || errOut != "testdata/run/fail_check.lua:9: assertion failed: harbour fuel above 1 t/h\n" {
+		t.Errorf("exit %d, stderr %q", code, errOut)
+	}
+	var doc struct {
+		Checks struct {
+			Passed int `json:"passed"`
+			Failed []struct {
+				Pos     string `json:"pos"`
+				Message string `json:"message"`
+			} `json:"failed"`
+		} `json:"checks"`
+		Cases []struct {
+			Name string `json:"name"`
+		} `json:"cases"`
+	}
+	if err := json.Unmarshal([]byte(out), &doc); err != nil {
+		t.Fatalf("%v\n%s", err, out)
+	}
+	if len(doc.Cases) != 1 || doc.Cases[0].Name != "harbour" || doc.Checks.Passed != 1 || len(doc.Checks.Failed) != 1 ||
+		doc.Checks.Failed[0].Pos != "testdata/run/fail_check.lua:9" || doc.Checks.Failed[0].Message != "harbour fuel above 1 t/h" {
+		t.Errorf("document: %+v", doc)
+	}
+	// Two scripts, the first passing its two checks: counted with the
+	// second's one, and the failure of the second marked.
+	code, out, _ = runSim(t, "run", "--quiet", "--json", smallScript, failScript)
+	doc.Checks.Failed, doc.Cases = nil, nil
+	if err := json.Unmarshal([]byte(out), &doc); err != nil || code != exitFail || len(doc.Cases) != 3 ||
+		len(doc.Checks.Failed) != 1 || doc.Checks.Passed != 3 {
+		t.Errorf("two scripts: exit %d, %v, %+v", code, err, doc)
 	}
 }
 
@@ -301,11 +344,12 @@ func TestRunVoyage(t *testing.T) {
 		t.Errorf("--json: exit %d, %v, %+v", code, err, doc)
 	}
 	// The CSV: the cases' header alone (no case), a blank line, then the
-	// voyage's rows.
+	// voyage's rows and their warnings.
 	code, out, _ = runSim(t, "run", "--quiet", "--csv", script)
 	tables := strings.Split(out, "\n\n")
-	if code != exitOK || len(tables) != 2 || !strings.HasPrefix(tables[0], "table,case,plant,") ||
+	if code != exitOK || len(tables) != 3 || !strings.HasPrefix(tables[0], "table,case,plant,") ||
 		!strings.HasPrefix(tables[1], "table,voyage,row,source,phase,") ||
+		!strings.HasPrefix(tables[2], "table,voyage,row,source,warning\n") ||
 		!strings.Contains(tables[1], "\nvoyage rows,short trip,2,testdata/run/voyage.lua:4,passage,") {
 		t.Errorf("--csv of a voyage: exit %d:\n%s", code, out)
 	}

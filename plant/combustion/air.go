@@ -16,6 +16,21 @@ import (
 // (plant-checks.md §0 uses 20.95 % and 23.14 % m/m [CP]).
 var StandardDryAir = [NumSpecies]float64{N2: 0.78120, O2: 0.20946, Ar: 0.00934}
 
+// Coefficients n1…n10 (here sat1…sat10) of the IAPWS-IF97 saturation line,
+// IAPWS R7-97(2012) Table 34.
+const (
+	sat1  = 0.11670521452767e4
+	sat2  = -0.72421316703206e6
+	sat3  = -0.17073846940092e2
+	sat4  = 0.12020824702470e5
+	sat5  = -0.32325550322333e7
+	sat6  = 0.14915108613530e2
+	sat7  = -0.48232657361591e4
+	sat8  = 0.40511340542057e6
+	sat9  = -0.23855557567849
+	sat10 = 0.65017534844798e3
+)
+
 // psatIF97 returns the saturation pressure of water (Pa) at T (K) by the
 // IAPWS-IF97 region 4 saturation-pressure equation (IAPWS R7-97(2012)
 // Eq. 30), valid 273.15…647.096 K. Coefficients from IAPWS R7-97(2012)
@@ -24,22 +39,10 @@ func psatIF97(T float64) (float64, error) {
 	if !(T >= 273.15 && T <= 647.096) {
 		return 0, fmt.Errorf("combustion: IAPWS-IF97 saturation pressure: temperature %g K outside 273.15…647.096 K", T)
 	}
-	const (
-		n1  = 0.11670521452767e4
-		n2  = -0.72421316703206e6
-		n3  = -0.17073846940092e2
-		n4  = 0.12020824702470e5
-		n5  = -0.32325550322333e7
-		n6  = 0.14915108613530e2
-		n7  = -0.48232657361591e4
-		n8  = 0.40511340542057e6
-		n9  = -0.23855557567849
-		n10 = 0.65017534844798e3
-	)
-	th := T + n9/(T-n10)
-	A := th*th + n1*th + n2
-	B := n3*th*th + n4*th + n5
-	C := n6*th*th + n7*th + n8
+	th := T + sat9/(T-sat10)
+	A := th*th + sat1*th + sat2
+	B := sat3*th*th + sat4*th + sat5
+	C := sat6*th*th + sat7*th + sat8
 	return 1e6 * math.Pow(2*C/(-B+math.Sqrt(B*B-4*A*C)), 4), nil
 }
 

@@ -44,6 +44,14 @@
 //     practice) (VerhoffBanchero, Okkes, AcidDewPoint).
 //   - Air humidity from relative humidity with the IAPWS-IF97 saturation
 //     pressure (HumidityRatio).
+//   - The flue-gas check (CheckFlueGas): a measured reading (FlueGasReading:
+//     fuel, dry O2 or CO2, flue-gas and air temperatures, humidity, CO,
+//     radiation, solids, atomising steam, SO3 share) validated field by field
+//     (*ReadingError), burnt and accounted on both bases with the air as
+//     reference, with the acid dew point and its margin (20 K by default,
+//     common practice), Siegert's cross-check and the warnings in words
+//     (FlueGasCheck), and its JSON form (FlueGasJSON), which `sim fluegas`
+//     prints and the scripts' flue_gas{} returns.
 //
 // Simplifications, each named where it is made: complete combustion (no CO,
 // soot or NOx in the products, even when a CO loss is entered); ideal gases;

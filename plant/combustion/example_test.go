@@ -28,9 +28,9 @@ func ExampleFire() {
 	cp, _ := p.FlueGasCp(523.15)
 	fmt.Printf("flue-gas cp at 250 °C %.4f kJ/(kg·K)\n", cp/1e3)
 	// Output:
-	// λ 1.1576, air 16.284 kg/kg, flue gas 17.304 kg/kg
-	// dry CO2 13.68 %, wet H2O 12.48 %
-	// flue-gas cp at 250 °C 1.1154 kJ/(kg·K)
+	// λ 1.1577, air 16.253 kg/kg, flue gas 17.273 kg/kg
+	// dry CO2 13.72 %, wet H2O 12.41 %
+	// flue-gas cp at 250 °C 1.1149 kJ/(kg·K)
 }
 
 // The heat-loss efficiency on both bases, with the Siegert cross-check.
@@ -53,8 +53,8 @@ func ExampleEfficiency() {
 	q, _ := combustion.Siegert(523.15, 308.15, 0.03, combustion.SiegertFuelOil)
 	fmt.Printf("Siegert %.2f %%\n", q)
 	// Output:
-	// net (LHV): dry gas 8.68, moisture 1.01, CO 0.01, radiation 0.875 -> η 89.33 %
-	// gross (HHV): dry gas 8.19, moisture 6.58, CO 0.01, radiation 0.826 -> η 84.30 %
+	// net (LHV): dry gas 8.61, moisture 0.99, CO 0.01, radiation 0.875 -> η 89.42 %
+	// gross (HHV): dry gas 8.14, moisture 6.48, CO 0.01, radiation 0.828 -> η 84.44 %
 	// Siegert 9.63 %
 }
 
@@ -72,5 +72,5 @@ func ExampleAcidDewPoint() {
 	vb, _ := combustion.AcidDewPoint(p, 101325, 0.03, combustion.MethodVerhoffBanchero)
 	ok, _ := combustion.AcidDewPoint(p, 101325, 0.03, combustion.MethodOkkes)
 	fmt.Printf("Verhoff-Banchero %.1f °C, Okkes %.1f °C\n", vb-273.15, ok-273.15)
-	// Output: Verhoff-Banchero 151.3 °C, Okkes 145.1 °C
+	// Output: Verhoff-Banchero 151.2 °C, Okkes 145.0 °C
 }

@@ -78,12 +78,14 @@ func TestEfficiencyWorkedExample(t *testing.T) {
 
 // The useful heat is the same on both bases: η_LHV·LHV = η_HHV·HHV, when the
 // fuel's gross−net difference is the latent heat of its product water at
-// 25 °C and t_ref = 25 °C (HSFO grade: gross = set LHV + latent). Algebraic
-// identity of the method; tolerance rounding only.
+// 25 °C and t_ref = 25 °C (HSFO grade with a stated LHV: gross = set LHV +
+// latent). Algebraic identity of the method; tolerance rounding only.
 func TestEfficiencyBasesConsistent(t *testing.T) {
 	t.Parallel()
 	f, _ := fuel.Grade("HSFO")
-	f.Analysis.Water, f.Analysis.C = 0.004, 0.856 // some free water
+	// A stated LHV, so that gross − net is the latent heat exactly.
+	f.SetLHV = 40.2e6
+	f.Analysis.Water, f.Analysis.C = 0.004, f.Analysis.C-0.004 // some free water
 	f.ISO.Water = 0.004
 	p, err := Fire(f, Conditions{Lambda: 1.2, AirT: 313.15, FuelT: 393.15, Humidity: 0.012,
 		AtomisingSteam: 0.03, AtomisingSteamT: 453.15})

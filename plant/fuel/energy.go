@@ -32,10 +32,13 @@ func (b Basis) String() string {
 type Route int
 
 const (
-	// RouteSet: the fuel's SetLHV (for example the IMO LCV).
+	// RouteSet: the fuel's stated SetLHV (a laboratory's figure, one on a
+	// bunker delivery note, a script's).
 	RouteSet Route = iota + 1
 	// RouteISO8217: the ISO 8217 annex formula from density, water, ash and
-	// sulfur (plant-checks.md §1.1 [S✓]).
+	// sulfur: the residual-fuel formula (plant-checks.md §1.1 [S✓]) for
+	// Class Residual, the distillate formula (from memory) for Class
+	// Distillate.
 	RouteISO8217
 	// RouteAnalysis: the Channiwala-Parikh correlation for the gross value
 	// from the ultimate analysis, net = gross − h_fg(25 °C)·(8.937·H + w).
@@ -46,6 +49,9 @@ const (
 	// RouteSetPlusISODifference: a gross value made from the set LHV plus
 	// the gross−net difference of the ISO 8217 formula (no analysis given).
 	RouteSetPlusISODifference
+	// RouteISO8217Distillate: the ISO 8217 annex formula for distillate
+	// fuels (ISO8217DistillateEnergy), for Class Distillate.
+	RouteISO8217Distillate
 )
 
 // String describes the route and its source.
@@ -55,6 +61,8 @@ func (r Route) String() string {
 		return "set value"
 	case RouteISO8217:
 		return "ISO 8217 annex formula (density, water, ash, sulfur)"
+	case RouteISO8217Distillate:
+		return "ISO 8217 annex formula for distillates (density, water, ash, sulfur)"
 	case RouteAnalysis:
 		return "ultimate analysis, Channiwala-Parikh (2002) HHV correlation, LHV by latent heat of product water"
 	case RouteSetPlusLatent:
@@ -80,34 +88,90 @@ func (s Source) String() string {
 	return s.Route.String()
 }
 
-// Energy holds the net and gross specific energy of a fuel at 25 °C (J/kg),
-// each with where it came from.
+// Energy holds the specific energies of a fuel at 25 °C (J/kg), each with
+// where it came from. Net is the figure for the energy balance; IMOLCV is a
+// regulatory default that only CO2 reports use.
 type Energy struct {
-	Net, Gross             float64
+	// Net is the net specific energy (LHV) the energy balance uses: the
+	// fuel's stated value (SetLHV) when it has one, otherwise the ISO 8217
+	// annex formula from its density, water, ash and sulfur, otherwise the
+	// Channiwala-Parikh correlation on its analysis. NetSource says which.
+	Net float64
+	// Gross is the gross specific energy (HHV). From the ISO 8217 route it
+	// is the standard's gross value, which is at constant volume (bomb
+	// calorimeter), while Net is at constant pressure: Gross − Net is then
+	// HydrogenGrossNet·H plus the water term, 0.6 MJ/kg per kg of hydrogen
+	// less than the latent heat of the product water. GrossSource says
+	// which route gave it.
+	Gross                  float64
 	NetSource, GrossSource Source
+	// IMOLCV is the lower calorific value of the fuel's IMO fuel type (J/kg),
+	// MEPC.364(79), kept for regulatory reporting beside the CO2 of the IMO
+	// factor; the energy balance never uses it. Zero when the fuel has no
+	// IMO fuel type.
+	IMOLCV float64
+	// IMOSource names the IMO table and fuel type of IMOLCV.
+	IMOSource string
 }
 
-// ISO8217Energy returns the net and gross specific energy (J/kg) by the ISO
-// 8217 informative annex "Calculation of specific energy" (plant-checks.md
-// §1.1 [S✓]), from the density at 15 °C (kg/m³) and the water, ash and
-// sulfur mass fractions (kg/kg):
+// ISO8217Energy returns the net and gross specific energy (J/kg) of a
+// residual marine fuel by the ISO 8217 informative annex "Calculation of
+// specific energy" (plant-checks.md §1.1 [S✓]), from the density at 15 °C
+// (kg/m³) and the water, ash and sulfur mass fractions (kg/kg):
 //
 //	Q_gross = (52.190 − 8.802e-6·ρ²)·[1 − 0.01(w+a+s)] + 0.0942·s                      MJ/kg
 //	Q_net   = (46.704 − 8.802e-6·ρ² + 3.167e-3·ρ)·[1 − 0.01(w+a+s)] + 0.0942·s − 0.02449·w
 //
-// with w, a, s in % m/m. The annex states the formula for marine fuel oils;
-// it is applied here to residual and distillate grades alike.
+// with w, a, s in % m/m. The gross value is at constant volume (bomb
+// calorimeter), the net value at constant pressure. The annex gives this
+// pair for residual fuels (as remembered; the sheet does not say) and a
+// second pair for distillates (ISO8217DistillateEnergy).
 func ISO8217Energy(rho15, water, ash, sulfur float64) (net, gross float64, err error) {
+	return isoFormula(Residual, rho15, water, ash, sulfur)
+}
+
+// ISO8217DistillateEnergy returns the net and gross specific energy (J/kg)
+// of a distillate marine fuel by the distillate equations of the same ISO
+// 8217 annex, FROM MEMORY (not on the project's reference sheet and not
+// confirmed against the printed standard):
+//
+//	Q_gross = (51.916 − 8.792e-6·ρ²)·[1 − 0.01(w+a+s)] + 0.0942·s                      MJ/kg
+//	Q_net   = (46.423 − 8.792e-6·ρ² + 3.170e-3·ρ)·[1 − 0.01(w+a+s)] + 0.0942·s − 0.02449·w
+//
+// Corroboration: the gross pair is Cragoe's (US Bureau of Standards Misc.
+// Publ. 97, 1929) Q = 12 400 − 2 100·d² cal/g in MJ/kg (× 4.1868 J/cal:
+// 51.916 and 8.792), the relation behind ASTM D4868 (both from memory); and
+// the hydrogen its gross − net implies agrees with Cragoe's H = 26 − 15·d %
+// within 0.1 % m/m (see AnalysisFromISO). At 860 kg/m³ with 0.1 % S it gives
+// 42.61 MJ/kg net, 0.27 MJ/kg (0.6 %) below the residual formula.
+func ISO8217DistillateEnergy(rho15, water, ash, sulfur float64) (net, gross float64, err error) {
+	return isoFormula(Distillate, rho15, water, ash, sulfur)
+}
+
+// isoWaterTerm is the water term of the ISO 8217 net formulae, 0.02449
+// MJ/kg per % m/m of water: 2.449 MJ per kg of free water (J/kg).
+const isoWaterTerm = 2.449e6
+
+// isoFormula evaluates the residual or distillate annex formula.
+func isoFormula(c Class, rho15, water, ash, sulfur float64) (net, gross float64, err error) {
 	if !inRange(rho15, MinDensity15, MaxDensity15) {
 		return 0, 0, fmt.Errorf("fuel: ISO 8217 specific energy: density at 15 °C %g kg/m³ outside %g…%g", rho15, MinDensity15, MaxDensity15)
 	}
 	if !inRange(water, 0, 0.05) || !inRange(ash, 0, 0.02) || !inRange(sulfur, 0, 0.07) {
 		return 0, 0, fmt.Errorf("fuel: ISO 8217 specific energy: water %g, ash %g, sulfur %g kg/kg: want 0…0.05, 0…0.02, 0…0.07", water, ash, sulfur)
 	}
+	g0, g2, n0, n1 := 52.190, 8.802e-6, 46.704, 3.167e-3
+	switch c {
+	case Residual:
+	case Distillate:
+		g0, g2, n0, n1 = 51.916, 8.792e-6, 46.423, 3.170e-3
+	default:
+		return 0, 0, fmt.Errorf("fuel: ISO 8217 specific energy applies to residual and distillate fuels, not to %v", c)
+	}
 	w, a, s := 100*water, 100*ash, 100*sulfur
 	k := 1 - 0.01*(w+a+s)
-	g := (52.190-8.802e-6*rho15*rho15)*k + 0.0942*s
-	n := (46.704-8.802e-6*rho15*rho15+3.167e-3*rho15)*k + 0.0942*s - 0.02449*w
+	g := (g0-g2*rho15*rho15)*k + 0.0942*s
+	n := (n0-g2*rho15*rho15+n1*rho15)*k + 0.0942*s - isoWaterTerm/1e8*w
 	return n * 1e6, g * 1e6, nil
 }
 
@@ -156,12 +220,13 @@ func (a Analysis) ProductWaterLatent() float64 {
 // data nor an analysis.
 var ErrNoEnergyData = errors.New("no data for a specific energy")
 
-// Energy returns the net and gross specific energy of the fuel (J/kg), each
-// with its source. Precedence for the net value: SetLHV, then the ISO 8217
-// formula, then the analysis correlation. The gross value follows the same
-// data: with SetLHV it is SetLHV plus the latent heat of the product water
-// from the analysis (or, without analysis, plus the ISO 8217 gross−net
-// difference); otherwise the same route as the net value.
+// Energy returns the specific energies of the fuel (J/kg), each with its
+// source. Precedence for the net value: SetLHV, then the ISO 8217 formula
+// of the fuel's class, then the analysis correlation. The gross value
+// follows the same data: with SetLHV it is SetLHV plus the latent heat of
+// the product water from the analysis (or, without analysis, plus the ISO
+// 8217 gross−net difference); otherwise the same route as the net value.
+// IMOLCV is the IMO fuel type's LCV, reported beside, never in its place.
 func (f Fuel) Energy() (Energy, error) {
 	if err := f.Validate(); err != nil {
 		return Energy{}, err
@@ -169,11 +234,15 @@ func (f Fuel) Energy() (Energy, error) {
 	var e Energy
 	switch {
 	case f.ISO.Given() && f.ISO.Density15 != 0:
-		n, g, err := ISO8217Energy(f.ISO.Density15, f.ISO.Water, f.ISO.Ash, f.ISO.Sulfur)
+		n, g, err := isoFormula(f.Class, f.ISO.Density15, f.ISO.Water, f.ISO.Ash, f.ISO.Sulfur)
 		if err != nil {
 			return Energy{}, fmt.Errorf("fuel %q: %w", f.label(), err)
 		}
-		e = Energy{Net: n, Gross: g, NetSource: Source{Route: RouteISO8217}, GrossSource: Source{Route: RouteISO8217}}
+		r := RouteISO8217
+		if f.Class == Distillate {
+			r = RouteISO8217Distillate
+		}
+		e = Energy{Net: n, Gross: g, NetSource: Source{Route: r}, GrossSource: Source{Route: r}}
 	case f.Analysis.Given():
 		n, g, err := AnalysisEnergy(f.Analysis)
 		if err != nil && f.SetLHV == 0 {
@@ -189,7 +258,7 @@ func (f Fuel) Energy() (Energy, error) {
 		case f.Analysis.Given():
 			e.Gross = f.SetLHV + f.Analysis.ProductWaterLatent()
 			e.GrossSource = Source{Route: RouteSetPlusLatent, Note: f.SetLHVSource}
-		case e.NetSource.Route == RouteISO8217:
+		case e.NetSource.Route == RouteISO8217 || e.NetSource.Route == RouteISO8217Distillate:
 			e.Gross = f.SetLHV + (e.Gross - e.Net)
 			e.GrossSource = Source{Route: RouteSetPlusISODifference, Note: f.SetLHVSource}
 		default:
@@ -204,31 +273,55 @@ func (f Fuel) Energy() (Energy, error) {
 	if math.IsNaN(e.Net) || math.IsNaN(e.Gross) || e.Net <= 0 || e.Gross < e.Net {
 		return Energy{}, fmt.Errorf("fuel %q: specific energy net %g, gross %g J/kg is not physical", f.label(), e.Net, e.Gross)
 	}
+	e.IMOLCV, e.IMOSource = f.IMO.LCV, f.IMO.Source
 	return e, nil
 }
 
-// CO2Factor is the CO2 emitted per kg of fuel burnt (kg/kg), with its source.
+// CO2Factor is the CO2 emitted per kg of fuel burnt (kg/kg), twice: from
+// the fuel's analysis (what the combustion model burns) and by the IMO
+// factor of its fuel type (what regulatory reports use). The two differ by
+// the difference between the fuel's carbon and the carbon of the IMO
+// table's fuel type: for a 0.5 % sulfur residual fuel about 2.4 %.
 type CO2Factor struct {
-	Value  float64
-	Source string
+	// Analysis is C·M(CO2)/M(C) = C·44.0095/12.0107 of the analysis carbon,
+	// complete combustion. Zero when the fuel has no analysis.
+	Analysis float64
+	// AnalysisSource describes the Analysis figure ("" when zero).
+	AnalysisSource string
+	// IMO is the C_F of the fuel's IMO fuel type (MEPC.364(79)). Zero when
+	// the fuel has no IMO fuel type.
+	IMO float64
+	// IMOSource names the IMO table and fuel type ("" when zero).
+	IMOSource string
 }
 
-// CO2 returns the CO2 emitted per kg fuel: the set CF (e.g. the IMO C_F,
-// MEPC.364(79)) when given, otherwise the analysis carbon times
-// M(CO2)/M(C) = 44.0095/12.0107 (complete combustion).
+// IMOOrAnalysis returns the IMO factor when the fuel has an IMO fuel type,
+// otherwise the analysis figure: the one figure for a report that shows a
+// single, regulatory CO2 line. Reports that show both read the fields.
+func (c CO2Factor) IMOOrAnalysis() float64 {
+	if c.IMO != 0 {
+		return c.IMO
+	}
+	return c.Analysis
+}
+
+// CO2 returns the CO2 emitted per kg fuel, by the analysis and by the IMO
+// factor (see CO2Factor); an error when the fuel has neither an analysis
+// nor an IMO fuel type.
 func (f Fuel) CO2() (CO2Factor, error) {
 	if err := f.Validate(); err != nil {
 		return CO2Factor{}, err
 	}
-	if f.CF != 0 {
-		src := "set C_F"
-		if f.CFSource != "" {
-			src = "set C_F (" + f.CFSource + ")"
-		}
-		return CO2Factor{Value: f.CF, Source: src}, nil
+	var c CO2Factor
+	if f.Analysis.Given() {
+		c.Analysis = CO2PerCarbon * f.Analysis.C
+		c.AnalysisSource = "analysis carbon × 44.0095/12.0107 (complete combustion)"
 	}
-	if !f.Analysis.Given() {
-		return CO2Factor{}, fmt.Errorf("fuel %q: CO2 factor: neither CF nor an analysis is given", f.label())
+	if f.IMO.Given() {
+		c.IMO, c.IMOSource = f.IMO.CF, f.IMO.Source
 	}
-	return CO2Factor{Value: CO2PerCarbon * f.Analysis.C, Source: "analysis carbon × 44.0095/12.0107 (complete combustion)"}, nil
+	if c.Analysis == 0 && c.IMO == 0 {
+		return CO2Factor{}, fmt.Errorf("fuel %q: CO2 factor: neither an analysis nor an IMO fuel type is given", f.label())
+	}
+	return c, nil
 }

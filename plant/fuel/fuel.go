@@ -4,7 +4,6 @@ import (
 	"errors"
 	"fmt"
 	"math"
-	"strings"
 )
 
 // Class says what kind of fuel a Fuel is. It chooses the ISO 8217 reference
@@ -127,20 +126,44 @@ type Fuel struct {
 	// combustion).
 	Analysis Analysis
 
-	// SetLHV is a set net specific energy (J/kg), e.g. the IMO LCV. When
+	// SetLHV is a stated net specific energy (J/kg): a laboratory's figure,
+	// one stated with a bunker delivery note, or one a script gives. When
 	// non-zero it takes precedence over the ISO 8217 and analysis routes.
+	// The built-in liquid grades leave it zero: their net specific energy
+	// comes from their ISO 8217 properties.
 	SetLHV float64
 	// SetLHVSource names where SetLHV comes from.
 	SetLHVSource string
-	// CF is a set CO2 emission factor (kg CO2/kg fuel), e.g. the IMO C_F.
-	// Zero means: compute it from the analysis carbon.
-	CF float64
-	// CFSource names where CF comes from.
-	CFSource string
-	// IMOCarbon is the carbon fraction the IMO table lists with CF
-	// (informative; zero if not given).
-	IMOCarbon float64
+	// IMO is the fuel type of the IMO table of lower calorific values and
+	// CO2 conversion factors under which the fuel's CO2 is reported
+	// (optional). Its figures are regulatory defaults for CO2 reporting; the
+	// energy balance and the combustion models never use them.
+	IMO IMOFuelType
 }
+
+// IMOFuelType is one row of the IMO table of lower calorific values and CO2
+// conversion factors (MEPC.364(79), 2022 EEDI calculation guidelines, para
+// 2.1; the same C_F serve the data collection system and the CII). The
+// figures are defaults for regulatory reporting, one per fuel type, not the
+// properties of a particular fuel: a 0.5 % sulfur residual fuel reports
+// under HFO with the carbon fraction of a high-sulfur one. The zero value
+// means "no IMO fuel type".
+type IMOFuelType struct {
+	// Name is the fuel type as the table names it, e.g. "HFO (RME-RMK)".
+	Name string
+	// LCV is the lower calorific value the table lists (J/kg).
+	LCV float64
+	// CF is the CO2 conversion factor C_F (kg CO2 per kg fuel).
+	CF float64
+	// Carbon is the carbon mass fraction the table lists with C_F
+	// (kg/kg); C_F = Carbon·44/12 in the table's own rounding.
+	Carbon float64
+	// Source names the table and the row, for reports.
+	Source string
+}
+
+// Given reports whether the fuel has an IMO fuel type.
+func (t IMOFuelType) Given() bool { return t != IMOFuelType{} }
 
 func (f Fuel) label() string {
 	if f.Name == "" {
@@ -258,38 +281,19 @@ func (f Fuel) Validate() error {
 	if f.SetLHV != 0 && !inRange(f.SetLHV, 5e6, 130e6) {
 		add(f.fieldErr("SetLHV", f.SetLHV, "want a net specific energy in 5e6…130e6 J/kg"))
 	}
-	if f.CF != 0 && !inRange(f.CF, 0.5, 4) {
-		add(f.fieldErr("CF", f.CF, "want a CO2 factor in 0.5…4 kg CO2/kg fuel"))
+	if f.IMO.Given() {
+		if !inRange(f.IMO.LCV, 5e6, 130e6) {
+			add(f.fieldErr("IMO.LCV", f.IMO.LCV, "want a lower calorific value in 5e6…130e6 J/kg"))
+		}
+		if !inRange(f.IMO.CF, 0.5, 4) {
+			add(f.fieldErr("IMO.CF", f.IMO.CF, "want a CO2 factor in 0.5…4 kg CO2/kg fuel"))
+		}
+		if !inRange(f.IMO.Carbon, 0, 1) {
+			add(f.fieldErr("IMO.Carbon", f.IMO.Carbon, "want a carbon fraction in 0…1 kg/kg"))
+		}
 	}
 	if len(errs) == 0 {
 		return nil
 	}
 	return errors.Join(errs...)
-}
-
-// ErrUnknownGrade is wrapped by Grade when the name is not known.
-var ErrUnknownGrade = errors.New("fuel: unknown grade")
-
-// Grade returns a built-in grade by trade name, case-insensitive: "MGO",
-// "VLSFO", "HSFO" or "LNG". The returned Fuel is a copy; change it freely.
-func Grade(name string) (Fuel, error) {
-	for i := range grades {
-		if strings.EqualFold(grades[i].Name, name) {
-			return grades[i], nil
-		}
-	}
-	names := make([]string, len(grades))
-	for i := range grades {
-		names[i] = grades[i].Name
-	}
-	return Fuel{}, fmt.Errorf("%w %q: known grades are %s", ErrUnknownGrade, name, strings.Join(names, ", "))
-}
-
-// GradeNames returns the names of the built-in grades.
-func GradeNames() []string {
-	names := make([]string, len(grades))
-	for i := range grades {
-		names[i] = grades[i].Name
-	}
-	return names
 }

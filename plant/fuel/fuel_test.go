@@ -111,22 +111,24 @@ func TestSetLHVPrecedence(t *testing.T) {
 	if err != nil {
 		t.Fatal(err)
 	}
+	// A stated LHV (here a laboratory's, invented) takes precedence over
+	// the ISO 8217 formula.
+	f.SetLHV, f.SetLHVSource = 40.2e6, "laboratory report (invented)"
 	e, err := f.Energy()
 	if err != nil {
 		t.Fatal(err)
 	}
-	// IMO LCV for HFO, MEPC.364(79), plant-checks.md §1.3 [S].
-	near(t, "HSFO net J/kg (IMO LCV, plant-checks.md §1.3 [S])", e.Net, 40.2e6, 0)
-	if e.NetSource.Route != RouteSet || !strings.Contains(e.NetSource.String(), "MEPC.364(79)") {
-		t.Errorf("net source %q, want the set IMO value", e.NetSource)
+	near(t, "HSFO net J/kg (the stated value)", e.Net, 40.2e6, 0)
+	if e.NetSource.Route != RouteSet || !strings.Contains(e.NetSource.String(), "laboratory") {
+		t.Errorf("net source %q, want the stated value", e.NetSource)
 	}
-	// Gross = set LHV + h_fg(25 °C)·8.937·H (H 11 %): 2.4417·8.937·0.11 =
-	// 2.400 MJ/kg, arithmetic of plant-checks.md §0 and §2 [C].
-	near(t, "HSFO gross − net MJ/kg", (e.Gross-e.Net)/1e6, 2.4417*8.9367*0.11, 0.0005)
+	// Gross = set LHV + h_fg(25 °C)·8.937·H, with the grade's derived H:
+	// arithmetic of plant-checks.md §0 and §2 [C].
+	near(t, "HSFO gross − net MJ/kg", (e.Gross-e.Net)/1e6, 2.4417*8.9367*f.Analysis.H, 0.0005)
 	if e.GrossSource.Route != RouteSetPlusLatent {
 		t.Errorf("gross source %v", e.GrossSource)
 	}
-	// Without the set value the ISO 8217 formula applies: ρ 985, S 2.5 →
+	// Without the stated value the ISO 8217 formula applies: ρ 985, S 2.5 →
 	// 40.487 MJ/kg (plant-checks.md §1.1 row 3 [C]).
 	f.SetLHV = 0
 	e, err = f.Energy()
@@ -162,11 +164,64 @@ func TestGrades(t *testing.T) {
 		// IMO C_F = C·44/12 to ±0.001 (plant-checks.md §1.3 [C], identity
 		// of the MEPC.364(79) table [S]). The table uses the round ratio
 		// 44/12; with 44.0095/12.0107 the products would be 0.002 lower.
-		near(t, name+" C_F vs IMO carbon·44/12", f.CF, f.IMOCarbon*44/12, 0.001)
+		near(t, name+" C_F vs IMO carbon·44/12", f.IMO.CF, f.IMO.Carbon*44/12, 0.001)
+		if f.Class != Gas && f.SetLHV != 0 {
+			t.Errorf("%s: a liquid grade must take its LHV from its ISO 8217 properties, not a set %g", name, f.SetLHV)
+		}
 	}
 	_, err := Grade("bunker C")
 	if !errors.Is(err, ErrUnknownGrade) || !strings.Contains(err.Error(), "MGO, VLSFO, HSFO, LNG") {
 		t.Errorf("unknown grade error %v", err)
+	}
+}
+
+// The energy balance's figure and the IMO figure are two fields, each with
+// its source.
+func TestIMOLCVIsSeparate(t *testing.T) {
+	t.Parallel()
+	cases := []struct {
+		grade       string
+		net, imoLCV float64 // MJ/kg
+		netRoute    Route
+		source      string
+	}{
+		// VLSFO: ρ 950, w 0.10, a 0.03, s 0.5 → 41.550 (plant-checks.md
+		// §1.1 row 4 [C]); IMO HFO LCV 40 200 kJ/kg (§1.3 [S]).
+		{"VLSFO", 41.550, 40.2, RouteISO8217, "plant-checks.md §1.1 row 4 [C], §1.3 [S]"},
+		// HSFO: ρ 985, s 2.5 → 40.487 (§1.1 row 3 [C]); IMO HFO.
+		{"HSFO", 40.487, 40.2, RouteISO8217, "plant-checks.md §1.1 row 3 [C], §1.3 [S]"},
+		// MGO: the distillate formula, 42.613 by hand (TestISO8217Grades);
+		// IMO Diesel/Gas oil 42 700 kJ/kg (§1.3 [S]).
+		{"MGO", 42.613, 42.7, RouteISO8217Distillate, "by hand from the distillate formula (from memory), §1.3 [S]"},
+		// LNG as methane: 50.01 (§1.3 [C]); IMO LNG 48 000 kJ/kg (§1.3 [S]).
+		{"LNG", 50.01, 48.0, RouteSet, "plant-checks.md §1.3 [C] and [S]"},
+	}
+	for _, c := range cases {
+		f, _ := Grade(c.grade)
+		e, err := f.Energy()
+		if err != nil {
+			t.Fatal(err)
+		}
+		near(t, c.grade+" Net MJ/kg ("+c.source+")", e.Net/1e6, c.net, 0.0005)
+		near(t, c.grade+" IMOLCV MJ/kg ("+c.source+")", e.IMOLCV/1e6, c.imoLCV, 0)
+		if e.NetSource.Route != c.netRoute {
+			t.Errorf("%s: net from %v, want %v", c.grade, e.NetSource.Route, c.netRoute)
+		}
+		if !strings.Contains(e.IMOSource, "MEPC.364(79)") {
+			t.Errorf("%s: IMO source %q", c.grade, e.IMOSource)
+		}
+	}
+	// LNG's gross value: its set LHV plus the latent heat of methane's
+	// product water, against HHV 55.50 MJ/kg from the enthalpies of
+	// formation (plant-checks.md §1.3 [C]); the latent heat at 25 °C of
+	// §0 and IUPAC weights put it 0.006 lower.
+	l, _ := Grade("LNG")
+	el, _ := l.Energy()
+	near(t, "LNG gross MJ/kg (plant-checks.md §1.3 [C])", el.Gross/1e6, 55.50, 0.01)
+	// A fuel without an IMO fuel type has no IMO LCV.
+	e, err := Fuel{Name: "own", Analysis: testFuel}.Energy()
+	if err != nil || e.IMOLCV != 0 || e.IMOSource != "" {
+		t.Errorf("own fuel: IMO LCV %g %q, err %v; want none", e.IMOLCV, e.IMOSource, err)
 	}
 }
 
@@ -178,20 +233,25 @@ func TestCO2(t *testing.T) {
 		t.Fatal(err)
 	}
 	// MEPC.364(79) HFO C_F 3.114 (plant-checks.md §1.3 [S]).
-	near(t, "HSFO CO2 kg/kg", c.Value, 3.114, 0)
-	if !strings.Contains(c.Source, "MEPC.364(79)") {
-		t.Errorf("source %q", c.Source)
+	near(t, "HSFO IMO CO2 kg/kg (plant-checks.md §1.3 [S])", c.IMO, 3.114, 0)
+	if !strings.Contains(c.IMOSource, "MEPC.364(79)") || !strings.Contains(c.AnalysisSource, "analysis") {
+		t.Errorf("sources %q, %q", c.IMOSource, c.AnalysisSource)
 	}
+	near(t, "HSFO IMOOrAnalysis", c.IMOOrAnalysis(), 3.114, 0)
 	// From the analysis: methane 2.743 kg CO2/kg (plant-checks.md §1.3 [C]).
 	m, _ := Grade("LNG")
-	m.CF = 0
+	m.IMO = IMOFuelType{}
 	c, err = m.CO2()
 	if err != nil {
 		t.Fatal(err)
 	}
-	near(t, "CH4 CO2 from analysis (plant-checks.md §1.3 [C])", c.Value, 2.743, 0.0005)
-	if !strings.Contains(c.Source, "analysis") {
-		t.Errorf("source %q", c.Source)
+	near(t, "CH4 CO2 from analysis (plant-checks.md §1.3 [C])", c.Analysis, 2.743, 0.0005)
+	near(t, "CH4 IMOOrAnalysis without IMO type", c.IMOOrAnalysis(), c.Analysis, 0)
+	if c.IMO != 0 || c.IMOSource != "" {
+		t.Errorf("no IMO type, yet IMO %g %q", c.IMO, c.IMOSource)
+	}
+	if _, err := (Fuel{Name: "bare", ISO: ISO8217{Density15: 985}}).CO2(); err == nil {
+		t.Errorf("a fuel with neither analysis nor IMO type gave a CO2 factor")
 	}
 }
 
@@ -212,6 +272,7 @@ func TestValidateErrors(t *testing.T) {
 		{"gas with ISO", Fuel{Name: "gas", Class: Gas, ISO: ISO8217{Density15: 985}}, "Class Gas"},
 		{"bad class", Fuel{Name: "cls", Class: 7, Analysis: testFuel}, "Class"},
 		{"viscosity2 alone", Fuel{Name: "v2", Analysis: testFuel, Viscosity2: ViscosityPoint{T: 373.15, Nu: 35e-6}}, "second viscosity point"},
+		{"IMO CF", Fuel{Name: "imo", Analysis: testFuel, IMO: IMOFuelType{Name: "x", LCV: 40e6, CF: 31.14, Carbon: 0.85}}, "IMO.CF"},
 	}
 	for _, c := range cases {
 		err := c.f.Validate()

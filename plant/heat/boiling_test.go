@@ -13,6 +13,7 @@ import (
 // built on the same library prints 9530.96 for Cooper at q = 1e5 W/m²
 // (heat-transfer.md §6 [S✓, library docstring; "reproduced exactly"]).
 func TestBoilingPublished(t *testing.T) {
+	t.Parallel()
 	b := Pool{P: 101325, Pc: 22048321, M: 18.02}
 	h, w, err := b.CooperDeltaT(4.3)
 	mustNoErr(t, err)
@@ -36,6 +37,7 @@ func TestBoilingPublished(t *testing.T) {
 // TestBoilingBoilerRange: the table of heat-transfer.md §6 [C]: Cooper with
 // R_p = 1 μm, p_c = 22.064 MPa, M = 18.015; ΔT_sat = q/h in brackets.
 func TestBoilingBoilerRange(t *testing.T) {
+	t.Parallel()
 	qs := []float64{20e3, 50e3, 100e3}
 	for _, c := range []struct {
 		bar              float64
@@ -61,6 +63,7 @@ func TestBoilingBoilerRange(t *testing.T) {
 }
 
 func TestBoilingErrors(t *testing.T) {
+	t.Parallel()
 	for _, b := range []Pool{
 		{P: 0, Pc: 22e6, M: 18},
 		{P: 23e6, Pc: 22e6, M: 18},

@@ -12,6 +12,7 @@ import (
 // Konakov ξ, Re, fully developed) and Dittus-Boelter n = 0.3 and 0.4, to
 // the printed rounding.
 func TestGnielinskiSheetTable(t *testing.T) {
+	t.Parallel()
 	for _, c := range []struct {
 		Re, Pr                            float64
 		f, nu76, nuFil, nuVDI, db03, db04 string
@@ -65,6 +66,7 @@ func TestGnielinskiSheetTable(t *testing.T) {
 // TestPublishedExamples: the library examples quoted in heat-transfer.md §2
 // and §3 [S✓, one library docstring], reproduced to 1e-12.
 func TestPublishedExamples(t *testing.T) {
+	t.Parallel()
 	nu, err := Gnielinski(1e5, 1.2, 0.0185)
 	mustNoErr(t, err)
 	withinRel(t, "Gnielinski Re=1e5 Pr=1.2 f=0.0185 (heat-transfer.md §2)", nu, 254.62682749359632, 1e-12)
@@ -79,6 +81,7 @@ func TestPublishedExamples(t *testing.T) {
 // and the 2013 end point Re = 4000 with the VDI form: Re = 3000 gives
 // γ = 0.4118 and Nu = 9.3224.
 func TestTransition(t *testing.T) {
+	t.Parallel()
 	vdi := TubeFlow{Form: VDIForm, TransitionEnd: 1e4}
 	for _, c := range []struct {
 		Re    float64
@@ -128,6 +131,7 @@ func TestTransition(t *testing.T) {
 }
 
 func TestConvectionRanges(t *testing.T) {
+	t.Parallel()
 	f := 0.02
 	for _, c := range []struct {
 		Re, Pr float64

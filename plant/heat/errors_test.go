@@ -9,6 +9,7 @@ import (
 // TestErrorMessages: errors name the equation, the quantity, the value given
 // and what was expected (project rule 6).
 func TestErrorMessages(t *testing.T) {
+	t.Parallel()
 	_, err := Gnielinski(2000, 0.7, 0.03)
 	var e *Error
 	if !errors.As(err, &e) || !errors.Is(err, ErrRange) {
@@ -27,6 +28,7 @@ func TestErrorMessages(t *testing.T) {
 }
 
 func TestWarningString(t *testing.T) {
+	t.Parallel()
 	if Warning(0).String() != "" {
 		t.Error("no warning prints empty")
 	}

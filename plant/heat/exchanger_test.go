@@ -12,6 +12,7 @@ import (
 // (Incropera & DeWitt Table 11.3, from memory): Cr = 0 → 1 − e^−NTU,
 // Cr = 1 → NTU/(1 + NTU); continuity as Cr → 1 and Cr → 0.
 func TestCounterflowLimits(t *testing.T) {
+	t.Parallel()
 	for _, ntu := range []float64{0, 1e-9, 0.1, 1, 3, 10, 50} {
 		e0, err := CounterflowEffectiveness(ntu, 0)
 		mustNoErr(t, err)
@@ -39,6 +40,7 @@ func TestCounterflowLimits(t *testing.T) {
 // TestCounterflowInverse: NTU(ε(NTU, Cr), Cr) = NTU on seeded random states
 // (a round trip, no external source).
 func TestCounterflowInverse(t *testing.T) {
+	t.Parallel()
 	rng := rand.New(rand.NewPCG(1, 2))
 	for range 2000 {
 		ntu := 10 * rng.Float64()
@@ -59,6 +61,7 @@ func TestCounterflowInverse(t *testing.T) {
 
 // TestCounterflowExchanger: energy balance and the second law.
 func TestCounterflowExchanger(t *testing.T) {
+	t.Parallel()
 	r, err := Counterflow(1.4*1100, 2.0*4200, 3000, 520, 333)
 	mustNoErr(t, err)
 	withinRel(t, "hot side duty", 1.4*1100*(520-r.HotOut), r.Q, 1e-12)
@@ -85,6 +88,7 @@ func TestCounterflowExchanger(t *testing.T) {
 // TestBrent: the root finder on functions with known roots; a bracket that
 // does not change sign and a NaN residual are errors.
 func TestBrent(t *testing.T) {
+	t.Parallel()
 	f := func(x float64) float64 { return x*x*x - 2*x - 5 } // root 2.0945514815423265 (classical)
 	x, _, err := brent(f, 2, 3, f(2), f(3), 1e-14, 100)
 	mustNoErr(t, err)

@@ -32,6 +32,7 @@ func sheetFurnace(t testing.TB) (Furnace, FurnaceInput) {
 // Case C uses κ_soot = 1817·f_v·T as the sheet states it (SootConstant
 // 1817, the rounded 1816.9 of gas-radiation.md §5).
 func TestFurnaceSheetCases(t *testing.T) {
+	t.Parallel()
 	f, in := sheetFurnace(t)
 	qin := in.FiringRate
 	printed(t, "Q_in", qin, "3350000")
@@ -95,6 +96,7 @@ func TestFurnaceSheetCases(t *testing.T) {
 // temperature; a casing loss lowers T_E; a hotter wall absorbs less.
 // Physical limits, no source needed beyond the energy balance.
 func TestFurnaceLimits(t *testing.T) {
+	t.Parallel()
 	f, in := sheetFurnace(t)
 	z := f
 	z.WallArea = 0
@@ -128,6 +130,7 @@ func TestFurnaceLimits(t *testing.T) {
 }
 
 func TestFurnaceErrors(t *testing.T) {
+	t.Parallel()
 	f, in := sheetFurnace(t)
 	cases := []struct {
 		name string
@@ -162,6 +165,7 @@ func TestFurnaceErrors(t *testing.T) {
 // TestAdiabaticTemperature: constant c_p gives T_ref + dh/c_p exactly (the
 // sheet's T_ad = 2208.34 K, heat-transfer.md §8 [C]).
 func TestAdiabaticTemperature(t *testing.T) {
+	t.Parallel()
 	h := ConstantCp(1250, 298.15)
 	dh := 3350000 / (300.0 / 3600 * 16.836)
 	ta, err := AdiabaticTemperature(h, 298.15, dh, 298.15)

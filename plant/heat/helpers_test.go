@@ -86,6 +86,7 @@ func mustNoErr(t testing.TB, err error) {
 }
 
 func TestPrintedTol(t *testing.T) {
+	t.Parallel()
 	// Self-check of the helper (no external source needed: it is arithmetic).
 	for _, c := range []struct {
 		s    string

@@ -16,6 +16,7 @@ var wsggByName = map[string]WSGGSet{
 // testdata/wsgg-smith-shen-friedman-1982.csv (Smith, Shen & Friedman 1982,
 // as printed; gas-radiation.md §1.2 [S✓]), applying the printed scales.
 func TestWSGGCoefficientsMatchCSV(t *testing.T) {
+	t.Parallel()
 	col, rows := readCSV(t, "wsgg-smith-shen-friedman-1982.csv")
 	if len(rows) != 15 {
 		t.Fatalf("%d rows, want 15", len(rows))
@@ -43,6 +44,7 @@ func TestWSGGCoefficientsMatchCSV(t *testing.T) {
 // from the set coefficients [C], gas-radiation.md §2) to the printed
 // rounding of 6 decimals (the sheet's 1e-9 applies to unrounded numbers).
 func TestWSGGCheckValues(t *testing.T) {
+	t.Parallel()
 	col, rows := readCSV(t, "wsgg-check-values.csv")
 	if len(rows) != 72 {
 		t.Fatalf("%d rows, want 72", len(rows))
@@ -70,6 +72,7 @@ func TestWSGGCheckValues(t *testing.T) {
 
 // TestWSGGSheetTables checks the tables printed in gas-radiation.md §2 [C].
 func TestWSGGSheetTables(t *testing.T) {
+	t.Parallel()
 	atm := StandardAtmosphere
 	for _, c := range []struct {
 		set          WSGGSet
@@ -117,6 +120,7 @@ func TestWSGGSheetTables(t *testing.T) {
 // minimum 0.244 (pw/pc = 2); a3 of the H2O sets dips to −0.0006 (pw → 0)
 // and −0.0003 (pw = 1 atm). Tolerance: the sheet's rounding.
 func TestWSGGWeightSigns(t *testing.T) {
+	t.Parallel()
 	minA0 := math.Inf(1)
 	var minSet WSGGSet
 	for set := WSGGH2OLean; set < numWSGGSets; set++ {
@@ -148,6 +152,7 @@ func TestWSGGWeightSigns(t *testing.T) {
 // §1.4 [CP]) and the sheet's choice for HFO flue gas (pw/pc = 0.76 → set 1),
 // gas oil (0.91 → set 1) and methane (2 → set 2).
 func TestSelectWSGGSet(t *testing.T) {
+	t.Parallel()
 	atm := StandardAtmosphere
 	for _, c := range []struct {
 		pw, pc float64
@@ -176,6 +181,7 @@ func TestSelectWSGGSet(t *testing.T) {
 // is computed and flagged (ranges from memory, gas-radiation.md §1.1 [M]);
 // nonsense is an error.
 func TestWSGGWarningsAndErrors(t *testing.T) {
+	t.Parallel()
 	atm := StandardAtmosphere
 	g := RadiatingGas{Set: WSGGRatio1, PH2O: 0.1 * atm, PCO2: 0.1 * atm, PathLength: 1}
 	if _, w, err := g.Emissivity(500); err != nil || !w.Has(WarnWSGGTemperature) {
@@ -225,6 +231,7 @@ func TestWSGGWarningsAndErrors(t *testing.T) {
 // absorptivity equals the emissivity (Kirchhoff, exact); a colder wall
 // shifts the weights (common practice, no source for the value).
 func TestAbsorptivity(t *testing.T) {
+	t.Parallel()
 	g := RadiatingGas{Set: WSGGRatio1, PH2O: 0.095 * StandardAtmosphere, PCO2: 0.125 * StandardAtmosphere, PathLength: 0.922}
 	e, _, _ := g.Emissivity(1200)
 	a, _, err := g.Absorptivity(1200)
@@ -241,6 +248,7 @@ func TestAbsorptivity(t *testing.T) {
 
 // TestBeamLength checks gas-radiation.md §4.
 func TestBeamLength(t *testing.T) {
+	t.Parallel()
 	// L0 = 4V/A by hand [C]: sphere 2D/3, long cylinder D, slab 2s.
 	D := 1.3
 	l, _ := BeamLengthThin(math.Pi*D*D*D/6, math.Pi*D*D)
@@ -289,6 +297,7 @@ func TestBeamLength(t *testing.T) {
 // ε_g = 0.107, 0.088, 0.072 at 600, 800, 1000 K; with ε_w = 0.8 and the wall
 // at 470 K, h_rad = 3.7, 5.3, 7.2 W/(m²·K).
 func TestTubeRadiation(t *testing.T) {
+	t.Parallel()
 	atm := StandardAtmosphere
 	L, _ := BeamLengthShape(LongCylinder, 0.0563)
 	g := RadiatingGas{Set: WSGGRatio1, PH2O: 0.095 * atm, PCO2: 0.125 * atm, PathLength: L}
@@ -315,6 +324,7 @@ func TestTubeRadiation(t *testing.T) {
 // 1264.9; the example f_v = 1e-7, T = 1450 K, L = 0.922 m gives ε_soot =
 // 0.216, and with ε_gas = 0.211, ε_flame = 0.381.
 func TestSoot(t *testing.T) {
+	t.Parallel()
 	k := SootConstant(SootShaddixN, SootShaddixK, 3.72)
 	printed(t, "C0 Shaddix", k*secondRadiationConstant/3.72, "7.0274")
 	printed(t, "3.72·C0/C2 Shaddix", k, "1816.9")
@@ -337,6 +347,7 @@ func TestSoot(t *testing.T) {
 // §8 (the case values B and C are checked in TestFurnaceSheetCases, from
 // unrounded ε_g); here the algebra: 0.5 and 0.5 give 1/3.
 func TestEffectiveEmissivity(t *testing.T) {
+	t.Parallel()
 	e, err := EffectiveEmissivity(0.5, 0.5)
 	mustNoErr(t, err)
 	withinRel(t, "ε_eff(0.5, 0.5)", e, 1.0/3, 1e-15)
@@ -356,6 +367,7 @@ func TestEffectiveEmissivity(t *testing.T) {
 // 0.368·1e-7·T² − 0.437·1e-11·T³), the column sums of the printed rows: an
 // internal consistency check of the embedded set.
 func TestWSGGCopyCClearGas(t *testing.T) {
+	t.Parallel()
 	for T := 600.0; T <= 2400; T += 200 {
 		want := 1 - (8.9756*sb1 - 2.557*sb2*T + 0.368*sb3*T*T - 0.437*sb4*T*T*T)
 		within(t, fmt.Sprintf("a0 pw/pc=2 at %g K (copy C)", T), WSGGRatio2.Weights(T)[0], want, 1e-13)

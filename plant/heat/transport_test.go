@@ -18,6 +18,7 @@ var air = DryAir()
 // TestNASACoefficientsMatchCSV compares every embedded coefficient with
 // testdata/gas-transport.csv (NASA CEA data/trans.inp, heat-transfer.md §1.1 [S✓]).
 func TestNASACoefficientsMatchCSV(t *testing.T) {
+	t.Parallel()
 	col, rows := readCSV(t, "gas-transport.csv")
 	n := 0
 	for _, r := range rows {
@@ -66,6 +67,7 @@ func speciesByName(t testing.TB, name string) Species {
 // that applies to what this package computes. The provenance column of each
 // row is its source; tolerances are per method, given in each case.
 func TestTransportCheckValues(t *testing.T) {
+	t.Parallel()
 	col, rows := readCSV(t, "gas-transport-check-values.csv")
 	counts := map[string]int{}
 	for _, r := range rows {
@@ -183,6 +185,7 @@ func TestTransportCheckValues(t *testing.T) {
 // §1.2: ε = 1.065 lowers λ_air by about 2.2 %, ε = 0.85 raises it by about
 // 5.5-5.7 % (tolerance: the sheet's rounding).
 func TestWassiljewaEpsilon(t *testing.T) {
+	t.Parallel()
 	for _, T := range []float64{300, 600, 1000, 1500, 2000} {
 		g1, err := MixTransport(&air, T, TransportOptions{})
 		mustNoErr(t, err)
@@ -214,6 +217,7 @@ func TestWassiljewaEpsilon(t *testing.T) {
 // TestFitRangesAgree: the viscosity and conductivity fits of each species
 // share their temperature ranges (MixTransport relies on it).
 func TestFitRangesAgree(t *testing.T) {
+	t.Parallel()
 	for s := range NumSpecies {
 		for i := range 3 {
 			v, k := viscosityFits[s][i], conductivityFits[s][i]
@@ -229,6 +233,7 @@ func TestFitRangesAgree(t *testing.T) {
 }
 
 func TestTransportErrors(t *testing.T) {
+	t.Parallel()
 	bad := Composition{N2: 0.5, O2: 0.2}
 	if _, err := MixTransport(&bad, 800, TransportOptions{}); !errors.Is(err, ErrInput) {
 		t.Errorf("fractions summing to 0.7: want ErrInput, got %v", err)
@@ -269,6 +274,7 @@ func TestTransportErrors(t *testing.T) {
 // (1073.2 K for H2O), so the mixture has no visible step there. Common
 // practice, no source: the fits were made to join.
 func TestFitJoins(t *testing.T) {
+	t.Parallel()
 	for s := range NumSpecies {
 		for _, fits := range []*[NumSpecies][3]nasaFit{&viscosityFits, &conductivityFits} {
 			for i := 0; i < 1; i++ {
@@ -291,6 +297,7 @@ func wilkePhi(etaI, etaJ, mI, mJ float64) float64 {
 // and Wassiljewa's formulas written out by hand (heat-transfer.md §1.2), and
 // Φ_ii = 1.
 func TestWilkeBinary(t *testing.T) {
+	t.Parallel()
 	x := Composition{N2: 0.8, CO2: 0.2}
 	for _, T := range []float64{400, 1000, 1800} {
 		e1, _, _ := SpeciesViscosity(N2, T, TransportOptions{})

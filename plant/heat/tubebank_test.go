@@ -10,6 +10,7 @@ import (
 // (Pr/Pr_s)^¼ = 1; staggered S_T/S_L = 1.25 and in-line, N_L ≥ 20 and
 // × C2 = 0.97 (N_L = 10, textbook table).
 func TestZukauskasSheetTable(t *testing.T) {
+	t.Parallel()
 	stag := TubeBank{Arrangement: Staggered, D: 0.04, ST: 0.1, SL: 0.08, Rows: 20}
 	inl := TubeBank{Arrangement: InLine, D: 0.04, ST: 0.1, SL: 0.08, Rows: 20}
 	for _, c := range []struct {
@@ -47,6 +48,7 @@ func TestZukauskasSheetTable(t *testing.T) {
 // [S✓, library docstring]), to 1e-12. And the vendor-page ratio in-line /
 // staggered at Re_D,max = 15905, S_T/S_L = 1: 1.0312 [C].
 func TestZukauskasPublished(t *testing.T) {
+	t.Parallel()
 	b := TubeBank{Arrangement: InLine, D: 0.02, ST: 0.05, SL: 0.05, Rows: 10, RowSource: RowsDigitised}
 	c2, _ := b.RowFactor(1e4)
 	if c2 != 0.9766 {
@@ -68,6 +70,7 @@ func TestZukauskasPublished(t *testing.T) {
 // rows and the linear interpolation between them (this package's stated
 // choice).
 func TestRowFactor(t *testing.T) {
+	t.Parallel()
 	rows := []int{1, 2, 3, 4, 5, 7, 10, 13, 16}
 	inl := []float64{0.70, 0.80, 0.86, 0.90, 0.92, 0.95, 0.97, 0.98, 0.99}  // [S, memory]
 	stg := []float64{0.64, 0.76, 0.84, 0.89, 0.92, 0.95, 0.97, 0.98, 0.99}  // [S✓, 1 code]
@@ -110,6 +113,7 @@ func TestRowFactor(t *testing.T) {
 // TestTubeBankRanges: Re outside the tables is refused; Pr and pitch ratio
 // outside the memory ranges are flagged (heat-transfer.md §4).
 func TestTubeBankRanges(t *testing.T) {
+	t.Parallel()
 	b := TubeBank{Arrangement: Staggered, D: 0.04, ST: 0.1, SL: 0.08, Rows: 20}
 	for _, re := range []float64{5, 500, 3e6} {
 		if _, _, err := b.Nusselt(re, 0.7, 0.7); !errors.Is(err, ErrRange) {
@@ -141,6 +145,7 @@ func TestTubeBankRanges(t *testing.T) {
 
 // TestMaxVelocity: V_max rules of heat-transfer.md §4 (Incropera, memory).
 func TestMaxVelocity(t *testing.T) {
+	t.Parallel()
 	in := TubeBank{Arrangement: InLine, D: 0.04, ST: 0.1, SL: 0.08, Rows: 10}
 	v, err := in.MaxVelocity(5)
 	mustNoErr(t, err)

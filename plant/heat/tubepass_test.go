@@ -23,6 +23,7 @@ func sheetTubes() (SmokeTubes, TubePassInput) {
 // very large area brings it to the water temperature; more fouling gives a
 // hotter exit.
 func TestTubePassLimits(t *testing.T) {
+	t.Parallel()
 	s, in := sheetTubes()
 	z := s
 	z.Length = 0
@@ -55,6 +56,7 @@ func TestTubePassLimits(t *testing.T) {
 // model's own equations (ε-NTU with T_sat constant, Q = U·A·LMTD, and the
 // resistance series of heat-transfer.md §5).
 func TestTubePassConsistency(t *testing.T) {
+	t.Parallel()
 	s, in := sheetTubes()
 	r, err := s.Solve(in)
 	mustNoErr(t, err)
@@ -85,6 +87,7 @@ func TestTubePassConsistency(t *testing.T) {
 // coefficient in smoke tubes (gas-radiation.md §4 [C]: h_rad 3.7-7.2 against
 // h_conv 40-50 W/(m²·K)), and so lowers the exit temperature.
 func TestTubePassRadiation(t *testing.T) {
+	t.Parallel()
 	s, in := sheetTubes()
 	r0, _ := s.Solve(in)
 	s.WallEmissivity = 0.8
@@ -106,6 +109,7 @@ func TestTubePassRadiation(t *testing.T) {
 // TestTubePassCooper: with the water side from Cooper (no WaterHTC), h_w is
 // Cooper's at the mean outside flux of the solution (heat-transfer.md §6).
 func TestTubePassCooper(t *testing.T) {
+	t.Parallel()
 	s, in := sheetTubes()
 	in.WaterHTC = 0
 	in.WaterPressure = 10e5
@@ -122,6 +126,7 @@ func TestTubePassCooper(t *testing.T) {
 }
 
 func TestTubePassErrors(t *testing.T) {
+	t.Parallel()
 	s, in := sheetTubes()
 	for _, c := range []struct {
 		name string

@@ -10,6 +10,7 @@ import (
 // TestTEMAFouling: heat-transfer.md §5 table, h·ft²·°F/Btu → m²·K/W with
 // 1 h·ft²·°F/Btu = 0.176110 m²·K/W [C]; TEMA RGP-T-2.4 values [S✓].
 func TestTEMAFouling(t *testing.T) {
+	t.Parallel()
 	printed(t, "unit conversion", FoulingUnit, "0.176110")
 	for _, c := range []struct {
 		name string
@@ -32,6 +33,7 @@ func TestTEMAFouling(t *testing.T) {
 // 0.05-0.1 W/(m·K) is 0.01-0.02 m²·K/W; 0.1 mm of scale at 0.5-2.5 W/(m·K)
 // is 0.00004-0.0002 m²·K/W.
 func TestDepositLayers(t *testing.T) {
+	t.Parallel()
 	r, err := LayerResistance(1e-3, SootConductivityHigh)
 	mustNoErr(t, err)
 	printed(t, "1 mm soot, k = 0.1", r, "0.01")
@@ -56,6 +58,7 @@ func TestDepositLayers(t *testing.T) {
 // polynomials, which are not part of this package), soot 0.001, boiling
 // 10 000 W/(m²·K), scale 0.0002 on the outside area.
 func TestWorkedSmokeTube(t *testing.T) {
+	t.Parallel()
 	const R = 8.314462618 // J/(mol·K), CODATA 2018
 	x := flueTest
 	printed(t, "M flue gas (g/mol)", x.MolarMassMix()*1000, "29.167")
@@ -109,6 +112,7 @@ func TestWorkedSmokeTube(t *testing.T) {
 }
 
 func TestTubeWallErrors(t *testing.T) {
+	t.Parallel()
 	good := TubeWall{Di: 0.05, Do: 0.06, K: 47, HInside: 40, HOutside: 1e4}
 	for _, mod := range []func(*TubeWall){
 		func(w *TubeWall) { w.Do = 0.04 },
@@ -134,6 +138,7 @@ func TestTubeWallErrors(t *testing.T) {
 // TestSteelConductivity: EN 1993-1-2 §3.4.1.3 (heat-transfer.md §7 [S✓
 // form]), table [C] to its rounding; 27.3 from 800 °C.
 func TestSteelConductivity(t *testing.T) {
+	t.Parallel()
 	for _, c := range []struct {
 		theta float64
 		want  string

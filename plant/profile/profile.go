@@ -73,6 +73,16 @@ type Totals struct {
 	// ShortRows are the rows the plant cannot carry; WarningRows those
 	// with any warning.
 	ShortRows, WarningRows []int
+	// FuelByGrade is the boiler fuel and its CO2 by fuel grade, in the
+	// order the grades first fire (the totals the fuel-consumption
+	// reporting schemes ask for).
+	FuelByGrade []GradeTotal
+}
+
+// GradeTotal is the boiler fuel burnt of one grade, and its CO2, tonnes.
+type GradeTotal struct {
+	Grade       string
+	FuelT, CO2T float64
 }
 
 // PhaseTotals are the totals of one phase.
@@ -167,6 +177,18 @@ func Sum(rows []Row, res []*plant.CaseResult) *Result {
 	return out
 }
 
+// addGrade adds fuel and CO2 (tonnes) of a grade.
+func (t *Totals) addGrade(grade string, fuel, co2 float64) {
+	for i := range t.FuelByGrade {
+		if t.FuelByGrade[i].Grade == grade {
+			t.FuelByGrade[i].FuelT += fuel
+			t.FuelByGrade[i].CO2T += co2
+			return
+		}
+	}
+	t.FuelByGrade = append(t.FuelByGrade, GradeTotal{Grade: grade, FuelT: fuel, CO2T: co2})
+}
+
 func newTotals() Totals {
 	return Totals{TightestMarginKgS: math.Inf(1), PeakRow: -1, TightestRow: -1}
 }
@@ -191,6 +213,9 @@ func (t *Totals) add(i int, hours float64, cr *plant.CaseResult) {
 	for _, b := range cr.Boilers {
 		fired += b.SteamKgS
 		capAll += b.MCRKgS
+		if b.FuelKgS > 0 {
+			t.addGrade(b.FuelName, b.FuelKgS*s, b.CO2KgS*s)
+		}
 	}
 	t.CapacityKgS = capAll
 	if t.PeakRow < 0 || fired > t.PeakBoilerKgS {

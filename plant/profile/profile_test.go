@@ -7,6 +7,7 @@ import (
 	"testing"
 
 	"steamcase/plant"
+	"steamcase/plant/loads"
 )
 
 func must(t testing.TB, err error) {
@@ -25,20 +26,20 @@ func tanker(t testing.TB) *plant.Plant {
 	fuel := plant.FuelSpec{Name: "HSFO", LHV: 40.2e6, CO2Factor: 3.114}
 	eta := &plant.EfficiencyTable{Load: []float64{0.25, 0.5, 0.75, 1.0}, Eta: []float64{0.80, 0.84, 0.85, 0.845}}
 	p := plant.New("invented tanker", plant.Options{})
-	add := func(u plant.Unit) { must(t, p.Add(u)) }
-	add(&plant.MakeUp{UnitBase: plant.UnitBase{Name: "makeup"}, T: 288.15})
-	add(&plant.FeedTank{UnitBase: plant.UnitBase{Name: "hotwell"}, HeatLoss: 5e3})
-	add(&plant.FeedPump{UnitBase: plant.UnitBase{Name: "fp"}, Boilers: []string{"AB1", "AB2"}, Margin: 3e5, Eta: 0.45})
-	add(&plant.Header{UnitBase: plant.UnitBase{Name: "feed header"}})
-	add(&plant.Boiler{UnitBase: plant.UnitBase{Name: "AB1"}, MCR: 12000.0 / 3600, DrumP: drum, Turndown: 4, Blowdown: 0.01, Efficiency: eta, Fuel: fuel})
-	add(&plant.Boiler{UnitBase: plant.UnitBase{Name: "AB2"}, MCR: 12000.0 / 3600, DrumP: drum, Turndown: 4, Blowdown: 0.01, Efficiency: eta, Fuel: fuel})
-	add(&plant.ExhaustGasEconomiser{UnitBase: plant.UnitBase{Name: "EGE"}, DrumP: drum, DesignLoad: 0.85, DesignPinch: 20, GasCp: 1060,
+	add := func(u plant.Component) { must(t, p.Add(u)) }
+	add(&plant.MakeUp{Base: plant.Base{Name: "makeup"}, T: 288.15})
+	add(&plant.FeedTank{Base: plant.Base{Name: "hotwell"}, HeatLoss: 5e3})
+	add(&plant.FeedPump{Base: plant.Base{Name: "fp"}, Boilers: []string{"AB1", "AB2"}, Margin: 3e5, Eta: 0.45})
+	add(&plant.Header{Base: plant.Base{Name: "feed header"}})
+	add(&plant.Boiler{Base: plant.Base{Name: "AB1"}, MCR: 12000.0 / 3600, DrumP: drum, Turndown: 4, Blowdown: 0.01, Efficiency: eta, Fuel: fuel})
+	add(&plant.Boiler{Base: plant.Base{Name: "AB2"}, MCR: 12000.0 / 3600, DrumP: drum, Turndown: 4, Blowdown: 0.01, Efficiency: eta, Fuel: fuel})
+	add(&plant.ExhaustGasEconomiser{Base: plant.Base{Name: "EGE"}, DrumP: drum, DesignLoad: 0.85, DesignPinch: 20, GasCp: 1060,
 		Engine: plant.EngineExhaust{MCR: 12e6, Load: []float64{0.25, 0.5, 0.75, 1}, Specific: []float64{11 / 3.6e6, 9 / 3.6e6, 8.4 / 3.6e6, 8.1 / 3.6e6},
 			T: []float64{523.15, 503.15, 498.15, 518.15}}})
-	add(&plant.Header{UnitBase: plant.UnitBase{Name: "main"}, HeatLoss: 10e3})
-	add(&plant.Consumer{UnitBase: plant.UnitBase{Name: "cargo heating"}, Duty: 2e6, SubCooling: 10, ReturnFraction: 0.98, ReturnT: 353.15})
-	add(&plant.Consumer{UnitBase: plant.UnitBase{Name: "sundry"}, Duty: 300e3, ReturnFraction: 0.9, ReturnT: 353.15})
-	add(&plant.Condenser{UnitBase: plant.UnitBase{Name: "dump"}, Dump: true, SubCooling: 80})
+	add(&plant.Header{Base: plant.Base{Name: "main"}, HeatLoss: 10e3})
+	add(&plant.Consumer{Base: plant.Base{Name: "cargo heating"}, Duty: 2e6, SubCooling: 10, ReturnFraction: 0.98, ReturnT: 353.15})
+	add(&plant.Consumer{Base: plant.Base{Name: "sundry"}, Duty: 300e3, ReturnFraction: 0.9, ReturnT: 353.15})
+	add(&plant.Condenser{Base: plant.Base{Name: "dump"}, Dump: true, SubCooling: 80})
 	c := func(name, from, fp, to, tp string) { p.Connect(name, plant.Pos{}, from, fp, to, tp) }
 	c("makeup", "makeup", "out", "hotwell", "in")
 	c("suction", "hotwell", "out", "fp", "in")
@@ -80,6 +81,7 @@ func voyage(n int) []Row {
 }
 
 func TestVoyageTotalsAreSums(t *testing.T) {
+	t.Parallel()
 	p := tanker(t)
 	rows := voyage(200)
 	res, err := Run(context.Background(), p, rows, Options{Workers: 2, ChunkRows: 16})
@@ -113,6 +115,7 @@ func TestVoyageTotalsAreSums(t *testing.T) {
 }
 
 func TestIdenticalRowsScale(t *testing.T) {
+	t.Parallel()
 	// A profile of identical rows gives the single case's figures times
 	// the hours.
 	p := tanker(t)
@@ -133,6 +136,7 @@ func TestIdenticalRowsScale(t *testing.T) {
 }
 
 func TestWorkersGiveIdenticalResults(t *testing.T) {
+	t.Parallel()
 	p := tanker(t)
 	rows := voyage(150)
 	one, err := Run(context.Background(), p, rows, Options{Workers: 1, ChunkRows: 10})
@@ -140,8 +144,7 @@ func TestWorkersGiveIdenticalResults(t *testing.T) {
 	four, err := Run(context.Background(), tanker(t), rows, Options{Workers: 4, ChunkRows: 10})
 	must(t, err)
 	for i := range one.Rows {
-		a, b := one.Rows[i].Result.JSON(), four.Rows[i].Result.JSON()
-		if !reflect.DeepEqual(a, b) {
+		if !reflect.DeepEqual(one.Rows[i].Result, four.Rows[i].Result) {
 			t.Fatalf("row %d differs between 1 and 4 workers", i)
 		}
 	}
@@ -151,6 +154,7 @@ func TestWorkersGiveIdenticalResults(t *testing.T) {
 }
 
 func TestStudySavingIsDifference(t *testing.T) {
+	t.Parallel()
 	p := tanker(t)
 	rows := voyage(100)
 	res, err := Study(context.Background(), p, rows, []Variant{
@@ -173,6 +177,7 @@ func TestStudySavingIsDifference(t *testing.T) {
 }
 
 func TestAuditFlagsOutsideBand(t *testing.T) {
+	t.Parallel()
 	p := tanker(t)
 	rows := voyage(96)
 	var days []Day
@@ -245,5 +250,52 @@ func BenchmarkAudit30Days1000Samples(b *testing.B) {
 		if _, err := Audit(context.Background(), p, days, unc, AuditOptions{Samples: 1000, Seed: 1}); err != nil {
 			b.Fatal(err)
 		}
+	}
+}
+
+// TestModelKeysVaryByRow: rows that set a duty model's parameters (a
+// tank's temperature held) solve on clones that own their models, so the
+// result does not depend on the workers or on the chunks, and each row's
+// duty is its own (the loss ΣUA·(T − T_sea), plant-checks.md §6 [CP]).
+func TestModelKeysVaryByRow(t *testing.T) {
+	t.Parallel()
+	build := func() *plant.Plant {
+		p := tanker(t)
+		tank := &plant.TankHeating{Tank: loads.TankHeating{Cargo: loads.Cargo{Density: 950, Cp: 1900}, CargoVolume: 2e4,
+			Boundaries: []loads.Boundary{{Area: 4000, U: 5, Beyond: loads.Sea}}, To: 323.15}}
+		c := plant.NewModelConsumer(tank)
+		c.Name, c.ReturnFraction = "COT", 0.95
+		must(t, p.Add(c))
+		p.Connect("to COT", plant.Pos{}, "main", "out", "COT", "in")
+		p.Connect("COT return", plant.Pos{}, "COT", "out", "hotwell", "in")
+		return p
+	}
+	var rows []Row
+	for i := 0; i < 12; i++ {
+		tC := 40 + float64(i)
+		rows = append(rows, Row{Phase: "p", Hours: 1, Case: plant.Case{Name: "r",
+			Conditions: plant.Conditions{SeaT: 283.15, AirT: 278.15},
+			Set:        []plant.Setting{{Unit: "COT", Param: "T", Value: 273.15 + tC}}}})
+	}
+	seq, err := Run(context.Background(), build(), rows, Options{Workers: 1, ChunkRows: 12})
+	must(t, err)
+	par, err := Run(context.Background(), build(), rows, Options{Workers: 3, ChunkRows: 1})
+	must(t, err)
+	for i := range rows {
+		want := 4000 * 5 * (30 + float64(i))
+		for _, r := range []*Result{seq, par} {
+			var got float64
+			for _, c := range r.Rows[i].Result.Consumers {
+				if c.Name == "COT" {
+					got = c.DutyW
+				}
+			}
+			if math.Abs(got-want) > 1e-6*want {
+				t.Errorf("row %d: COT duty %.1f W, want %.1f W", i+1, got, want)
+			}
+		}
+	}
+	if math.Abs(seq.Total.FuelT-par.Total.FuelT) > 1e-9*seq.Total.FuelT {
+		t.Errorf("fuel %.9g t in sequence, %.9g t on three workers one row a chunk", seq.Total.FuelT, par.Total.FuelT)
 	}
 }

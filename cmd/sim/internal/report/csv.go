@@ -5,21 +5,24 @@ import (
 	"io"
 	"math"
 	"strconv"
+
+	"steamcase/plant/schema"
 )
 
 // The names of the CSV tables, in the order they are written; each is the
 // first field of every data row of its table.
 const (
-	TableCases    = "cases"
-	TableVoyage   = "voyage rows"
-	TableStudy    = "study variants"
-	TableAudit    = "audit days"
-	tableColumn   = "table"
-	csvMoneyDec   = 2
-	csvTonnesDec  = 3
-	csvFlowDec    = 1
-	csvHoursDec   = 2
-	csvPaybackDec = 2
+	TableCases      = "cases"
+	TableVoyage     = "voyage rows"
+	TableVoyageWarn = "voyage warnings"
+	TableStudy      = "study variants"
+	TableAudit      = "audit days"
+	tableColumn     = "table"
+	csvMoneyDec     = 2
+	csvTonnesDec    = 3
+	csvFlowDec      = 1
+	csvHoursDec     = 2
+	csvPaybackDec   = 2
 )
 
 // csvHeader names the columns of the cases table after "table", each with
@@ -35,8 +38,10 @@ var voyageHeader = [...]string{
 	tableColumn, "voyage", "row", "source", "phase", "case", "hours",
 	"sea_T_C", "air_T_C", "engine_load_pct", "boilers_firing", "can_carry",
 	"steam_demand_kg_h", "boiler_steam_kg_h", "ege_steam_kg_h", "fuel_kg_h",
-	"fuel_t", "co2_t", "margin_kg_h", "warnings",
+	"fuel_t", "co2_t", "margin_kg_h",
 }
+
+var voyageWarnHeader = [...]string{tableColumn, "voyage", "row", "source", "warning"}
 
 var studyHeader = [...]string{
 	tableColumn, "study", "variant", "hours", "fuel_t", "co2_t", "fuel_saved_t",
@@ -49,20 +54,23 @@ var auditHeader = [...]string{
 }
 
 // CSV writes the run as CSV tables, one after another in one stream:
-// the load cases, then, when the run has them, the rows of its voyages,
-// the variants of its studies and the days of its audits. Each table
-// starts with a header row whose first field is "table", and each of its
-// data rows has the table's name in that field: "cases", "voyage rows",
-// "study variants" or "audit days". One blank line separates two tables
+// the load cases, then, when the run has them, the rows of its voyages
+// and their warnings, the variants of its studies and the days of its
+// audits. Each table starts with a header row whose first field is
+// "table", and each of its data rows has the table's name in that field:
+// "cases", "voyage rows", "voyage warnings", "study variants" or "audit
+// days". One blank line separates two tables
 // (a name with a blank line in it is quoted, and the line is part of it).
 // The cases table always comes first (its header alone when no case was
 // solved); a job table is written only when the run has such a job, and
 // holds the rows of every job of its kind, each naming its job in the
-// second column. A program may read the stream with a CSV reader that
+// second column (the voyage warnings follow the voyage rows, the header
+// alone when no row warns). A program may read the stream with a CSV reader that
 // accepts records of different lengths (and skips blank lines, as Go's
 // encoding/csv does), or take the lines of one table by their first field.
 //
-// Units and decimals: temperatures °C with one decimal; engine load % of
+// Units and decimals: temperatures °C with one decimal, an empty cell for
+// a temperature the case did not give; engine load % of
 // the main engine's MCR, one decimal; flows kg/h, one decimal; masses t,
 // three decimals (t/day for the cases' fuel and CO2 rates); hours two
 // decimals; electric_kW one decimal; money two decimals; payback years two
@@ -79,7 +87,10 @@ var auditHeader = [...]string{
 //	                boilers_firing, can_carry, steam_demand_kg_h (all the
 //	                plant takes), boiler_steam_kg_h (raised by the
 //	                oil-fired boilers), ege_steam_kg_h, fuel_kg_h, fuel_t and
-//	                co2_t (over the row's hours), margin_kg_h, warnings
+//	                co2_t (over the row's hours), margin_kg_h
+//	voyage warnings voyage, row, source (as in the voyage rows), warning
+//	                (its text, on one line): one line for each warning
+//	                of each row, in the order of the rows
 //	study variants  study, variant, hours (of the profile), fuel_t, co2_t
 //	                (over the profile), fuel_saved_t, co2_avoided_t and
 //	                cost_saved (against the first variant, over the
@@ -112,11 +123,11 @@ func CSV(w io.Writer, run Run) error {
 		r := c.Result
 		row := [...]string{
 			TableCases, r.Name, c.Plant,
-			fix(r.Conditions.SeaT-273.15, 1), fix(r.Conditions.AirT-273.15, 1), fix(r.Conditions.EngineLoad*100, 1),
+			csvCelsius(r.Conditions.SeaT), csvCelsius(r.Conditions.AirT), fix(r.Conditions.EngineLoad*100, 1),
 			strconv.Itoa(r.BoilersFiring), strconv.FormatBool(r.CanCarry),
-			fix(r.ShortfallKgS*kgh, csvFlowDec), fix(r.SteamDemandKgS*kgh, csvFlowDec), fix(r.SteamProductionKgS*kgh, csvFlowDec),
-			fix(r.FuelKgS*kgh, csvFlowDec), fix(r.FuelKgS*86.4, 3), fix(r.CO2KgS*86.4, 2),
-			fix(r.MakeUpKgS*kgh, csvFlowDec), fix(r.ElectricW/1e3, 1), fix(r.MarginNextKgS*kgh, csvFlowDec),
+			flow(r.ShortfallKgS), flow(r.SteamDemandKgS), flow(r.SteamProductionKgS),
+			flow(r.FuelKgS), fix(schema.TPerDay(r.FuelKgS), 3), fix(schema.TPerDay(r.CO2KgS), 2),
+			flow(r.MakeUpKgS), fix(schema.KW(r.ElectricW), 1), flow(r.MarginNextKgS),
 			strconv.Itoa(len(r.Warnings)),
 		}
 		write(row[:])
@@ -133,17 +144,28 @@ func CSV(w io.Writer, run Run) error {
 				for _, b := range c.Boilers {
 					boilers += b.SteamKgS
 				}
-				tonnes := row.Hours * 3.6 // kg/s over the row's hours → t
 				rec := [...]string{
 					TableVoyage, v.Name, strconv.Itoa(row.Index + 1), source(v.Job, row.Index), row.Phase, c.Name,
 					fix(row.Hours, csvHoursDec),
-					fix(c.Conditions.SeaT-273.15, 1), fix(c.Conditions.AirT-273.15, 1), fix(c.Conditions.EngineLoad*100, 1),
+					csvCelsius(c.Conditions.SeaT), csvCelsius(c.Conditions.AirT), fix(c.Conditions.EngineLoad*100, 1),
 					strconv.Itoa(c.BoilersFiring), strconv.FormatBool(c.CanCarry),
-					fix(c.SteamDemandKgS*kgh, csvFlowDec), fix(boilers*kgh, csvFlowDec), fix(c.EGESteamKgS*kgh, csvFlowDec),
-					fix(c.FuelKgS*kgh, csvFlowDec), fix(c.FuelKgS*tonnes, csvTonnesDec), fix(c.CO2KgS*tonnes, csvTonnesDec),
-					fix(c.MarginNextKgS*kgh, csvFlowDec), strconv.Itoa(len(c.Warnings)),
+					flow(c.SteamDemandKgS), flow(boilers), flow(c.EGESteamKgS), flow(c.FuelKgS),
+					fix(schema.Tonnes(c.FuelKgS, row.Hours), csvTonnesDec), fix(schema.Tonnes(c.CO2KgS, row.Hours), csvTonnesDec),
+					flow(c.MarginNextKgS),
 				}
 				write(rec[:])
+			}
+		}
+		begin(voyageWarnHeader[:], false)
+		for _, v := range run.Voyages {
+			if v.Result == nil {
+				continue
+			}
+			for _, row := range v.Result.Rows {
+				for _, text := range row.Result.Warnings {
+					rec := [...]string{TableVoyageWarn, v.Name, strconv.Itoa(row.Index + 1), source(v.Job, row.Index), oneLine(text)}
+					write(rec[:])
+				}
 			}
 		}
 	}
@@ -191,6 +213,19 @@ func CSV(w io.Writer, run Run) error {
 		return ew.err
 	}
 	return cw.Error()
+}
+
+// flow formats a mass flow in kg/s as kg/h with the CSV's decimals.
+func flow(kgPerS float64) string { return fix(schema.KgPerH(kgPerS), csvFlowDec) }
+
+// csvCelsius formats a condition's temperature in K as °C with one
+// decimal, or an empty cell for the zero that plant.Conditions holds when
+// the case did not give it.
+func csvCelsius(k float64) string {
+	if k <= 0 {
+		return ""
+	}
+	return fix(k-273.15, 1)
 }
 
 // hasRows reports whether any job has something for its table.

@@ -51,6 +51,8 @@ func FuzzCSVNames(f *testing.F) {
 				if rec[2] == "1" && rec[4] != other {
 					t.Errorf("phase %q read back as %q", other, rec[4])
 				}
+			case TableVoyageWarn:
+				found["warning"] = found["warning"] || rec[1] == name
 			case TableStudy:
 				found["study"] = found["study"] || rec[1] == other
 				found["variant"] = found["variant"] || rec[2] == name
@@ -60,7 +62,7 @@ func FuzzCSVNames(f *testing.F) {
 				t.Fatalf("a record of no table: %q", rec)
 			}
 		}
-		if len(found) != 4 || !found["voyage"] || !found["study"] || !found["variant"] || !found["audit"] {
+		if len(found) != 5 || !found["voyage"] || !found["warning"] || !found["study"] || !found["variant"] || !found["audit"] {
 			t.Errorf("names lost: %v", found)
 		}
 	})

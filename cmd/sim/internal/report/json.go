@@ -4,63 +4,34 @@ import (
 	"encoding/json"
 	"io"
 
-	"steamcase/plant"
+	"steamcase/plant/schema"
 )
 
-// document is the JSON form of a run; see the package doc for the schema.
-type document struct {
-	Schema  int          `json:"schema"`
-	Caution string       `json:"caution"`
-	Plant   *plantJSON   `json:"plant"`
-	Cases   []caseJSON   `json:"cases"`
-	Voyages []voyageJSON `json:"voyages"`
-	Studies []studyJSON  `json:"studies"`
-	Audits  []auditJSON  `json:"audits"`
-}
-
-type plantJSON struct {
-	Name string `json:"name"`
-}
-
-// caseJSON is plant.CaseJSON with the plant's name and the script
-// position in front.
-type caseJSON struct {
-	Plant  string `json:"plant"`
-	Source string `json:"source"`
-	plant.CaseJSON
-}
-
-// JSON writes the run as one JSON document, indented, in the schema the
-// package doc describes.
-func JSON(w io.Writer, run Run) error {
-	doc := document{Schema: plant.SchemaVersion, Caution: Caution, Cases: []caseJSON{},
-		Voyages: []voyageJSON{}, Studies: []studyJSON{}, Audits: []auditJSON{}}
-	var plants []string
+// Document returns the run in the form of package plant/schema: every case
+// and job in its schema form, the plants, the checks, the program's
+// version and the caution.
+func Document(run Run) schema.Document {
+	doc := schema.Document{Version: run.Version, Caution: Caution, Checks: run.Checks}
 	for _, c := range run.Cases {
-		doc.Cases = append(doc.Cases, caseJSON{Plant: c.Plant, Source: c.Result.Pos.String(), CaseJSON: c.Result.JSON()})
-		plants = append(plants, c.Plant)
+		doc.Cases = append(doc.Cases, schema.NewCase(c.Plant, c.Result))
 	}
 	for _, v := range run.Voyages {
-		doc.Voyages = append(doc.Voyages, voyageOf(v))
-		plants = append(plants, v.Plant)
+		doc.Voyages = append(doc.Voyages, schema.NewVoyage(v.schemaJob(), v.Result))
 	}
 	for _, s := range run.Studies {
-		doc.Studies = append(doc.Studies, studyOf(s))
-		plants = append(plants, s.Plant)
+		doc.Studies = append(doc.Studies, schema.NewStudy(s.schemaJob(), s.Result))
 	}
 	for _, a := range run.Audits {
-		doc.Audits = append(doc.Audits, auditOf(a))
-		plants = append(plants, a.Plant)
+		doc.Audits = append(doc.Audits, schema.NewAudit(a.schemaJob(), a.Result))
 	}
-	for i, p := range plants {
-		if i == 0 {
-			doc.Plant = &plantJSON{Name: p}
-		} else if p != plants[0] {
-			doc.Plant = nil // several plants: each case and job names its own
-			break
-		}
-	}
+	doc.Finish()
+	return doc
+}
+
+// JSON writes the run as one JSON document, indented, in the schema of
+// package plant/schema.
+func JSON(w io.Writer, run Run) error {
 	enc := json.NewEncoder(w)
 	enc.SetIndent("", "  ")
-	return enc.Encode(doc)
+	return enc.Encode(Document(run))
 }

@@ -10,8 +10,10 @@ import (
 	"gonum.org/v1/plot/plotter"
 	"gonum.org/v1/plot/vg"
 	"gonum.org/v1/plot/vg/draw"
+
 	"gonum.org/v1/plot/vg/vgimg"
 	"gonum.org/v1/plot/vg/vgsvg"
+	"steamcase/plant/profile"
 )
 
 // Chart is one chart a run can draw: the chart of its load cases, or the
@@ -133,178 +135,16 @@ func PlotVoyage(w io.Writer, format string, v Voyage) error {
 	if v.Result == nil || len(v.Result.Rows) == 0 {
 		return fmt.Errorf("plot: voyage %q has no rows to draw", v.Name)
 	}
-	rows := v.Result.Rows
-	var boilers, total, capF, capA, fuel, short plotter.XYs
-	var spans []span
-	var t, top, topFuel float64
-	ege := false
-	for _, row := range rows {
-		c := row.Result
-		var fired, mcrF, mcrA float64
-		for _, b := range c.Boilers {
-			fired += b.SteamKgS
-			mcrA += b.MCRKgS
-			if b.Firing {
-				mcrF += b.MCRKgS
-			}
-		}
-		boilers = append(boilers, plotter.XY{X: t, Y: fired * kgh})
-		total = append(total, plotter.XY{X: t, Y: c.SteamDemandKgS * kgh})
-		capF = append(capF, plotter.XY{X: t, Y: mcrF * kgh})
-		capA = append(capA, plotter.XY{X: t, Y: mcrA * kgh})
-		fuel = append(fuel, plotter.XY{X: t, Y: c.FuelKgS * kgh})
-		if c.EGESteamKgS*kgh > 0.5 {
-			ege = true
-		}
-		if !c.CanCarry {
-			short = append(short, plotter.XY{X: t + row.Hours/2, Y: fired * kgh})
-		}
-		if len(spans) == 0 || spans[len(spans)-1].phase != row.Phase {
-			spans = append(spans, span{phase: row.Phase, from: t})
-		}
-		t += row.Hours
-		spans[len(spans)-1].to = t
-		top = max(top, fired*kgh, c.SteamDemandKgS*kgh, mcrA*kgh)
-		topFuel = max(topFuel, c.FuelKgS*kgh)
-	}
-	// The last step ends at the end of the voyage.
-	for _, s := range []*plotter.XYs{&boilers, &total, &capF, &capA, &fuel} {
-		*s = append(*s, plotter.XY{X: t, Y: (*s)[len(*s)-1].Y})
-	}
-	if !(top > 0) {
-		top = 1
-	}
-	if !(topFuel > 0) {
-		topFuel = 1
-	}
-	ymax := top * 1.22 // room for the phase names
-
-	up := plot.New()
-	up.Title.Text = "Voyage: " + v.Name
-	if v.Plant != "" {
-		up.Title.Text += " (" + v.Plant + ")"
-	}
-	up.Y.Label.Text = "steam, kg/h"
-	up.X.Min, up.X.Max = 0, t
-	up.Y.Min, up.Y.Max = 0, ymax
-	up.Y.Tick.Marker = flowTicks{}
-	up.X.Tick.Marker = hourTicks{}
-	styleAxes(up)
-
-	// The phases: every other one shaded, each named at the top; names of
-	// narrow phases alternate between two heights.
-	narrow := false
-	for _, s := range spans {
-		if s.to-s.from < 0.14*t {
-			narrow = true
-		}
-	}
-	var names plotter.XYLabels
-	for i, s := range spans {
-		if i%2 == 1 {
-			poly, err := plotter.NewPolygon(plotter.XYs{{X: s.from, Y: 0}, {X: s.to, Y: 0}, {X: s.to, Y: ymax}, {X: s.from, Y: ymax}})
-			if err != nil {
-				return fmt.Errorf("plot: phase %q: %w", s.phase, err)
-			}
-			poly.Color = bandShade
-			poly.LineStyle.Width = 0
-			up.Add(poly)
-		}
-		y := top * 1.15
-		if narrow && i%2 == 1 {
-			y = top * 1.07
-		}
-		names.XYs = append(names.XYs, plotter.XY{X: (s.from + s.to) / 2, Y: y})
-		names.Labels = append(names.Labels, s.phase)
-	}
-	up.Add(plotter.NewGrid())
-	lbl, err := plotter.NewLabels(names)
+	vs := voyageSeriesOf(v.Result.Rows)
+	up, entries, err := vs.upperPanel(v)
 	if err != nil {
-		return fmt.Errorf("plot: phase names: %w", err)
+		return err
 	}
-	for i := range lbl.TextStyle {
-		lbl.TextStyle[i].XAlign = draw.XCenter
-		lbl.TextStyle[i].Font.Size = vg.Points(8.5)
-		lbl.TextStyle[i].Color = ink
-	}
-
-	step := func(xys plotter.XYs, c color.Color, width vg.Length, dashes ...vg.Length) (*plotter.Line, error) {
-		l, err := plotter.NewLine(xys)
-		if err != nil {
-			return nil, err
-		}
-		l.StepStyle = plotter.PostStep
-		l.Color = c
-		l.Width = width
-		l.Dashes = dashes
-		return l, nil
-	}
-	var entries []legendEntry
-	lAll, err := step(capA, allColor, vg.Points(1.2), vg.Points(5), vg.Points(3))
+	down, fuelEntry, err := vs.lowerPanel()
 	if err != nil {
-		return fmt.Errorf("plot: MCR of all boilers: %w", err)
+		return err
 	}
-	lFiring, err := step(capF, firingColor, vg.Points(1.8))
-	if err != nil {
-		return fmt.Errorf("plot: MCR of the boilers firing: %w", err)
-	}
-	lBoil, err := step(boilers, demandColor, vg.Points(2.2))
-	if err != nil {
-		return fmt.Errorf("plot: steam demand on the boilers: %w", err)
-	}
-	up.Add(lAll, lFiring)
-	entries = append(entries, legendEntry{"MCR of all boilers", []plot.Thumbnailer{lAll}},
-		legendEntry{"MCR of the boilers firing", []plot.Thumbnailer{lFiring}})
-	if ege {
-		lTot, err := step(total, totalColor, vg.Points(1.2), vg.Points(2), vg.Points(2))
-		if err != nil {
-			return fmt.Errorf("plot: steam demand: %w", err)
-		}
-		up.Add(lTot)
-		entries = append(entries, legendEntry{"steam demand, economisers included", []plot.Thumbnailer{lTot}})
-	}
-	up.Add(lBoil)
-	entries = append(entries, legendEntry{"steam demand on the oil-fired boilers", []plot.Thumbnailer{lBoil}})
-	if len(short) > 0 {
-		sc, err := plotter.NewScatter(short)
-		if err != nil {
-			return fmt.Errorf("plot: periods the plant cannot carry: %w", err)
-		}
-		sc.Shape = draw.CrossGlyph{}
-		sc.Color = flaggedColor
-		sc.Radius = vg.Points(5)
-		up.Add(sc)
-		entries = append(entries, legendEntry{"period the plant cannot carry", []plot.Thumbnailer{sc}})
-	}
-	up.Add(lbl)
-
-	down := plot.New()
-	down.X.Label.Text = "hours from the start of the voyage"
-	down.Y.Label.Text = "fuel, kg/h"
-	down.X.Min, down.X.Max = 0, t
-	down.Y.Min, down.Y.Max = 0, topFuel*1.12
-	down.Y.Tick.Marker = flowTicks{}
-	down.X.Tick.Marker = hourTicks{}
-	styleAxes(down)
-	for i, s := range spans {
-		if i%2 == 1 {
-			poly, err := plotter.NewPolygon(plotter.XYs{{X: s.from, Y: 0}, {X: s.to, Y: 0}, {X: s.to, Y: down.Y.Max}, {X: s.from, Y: down.Y.Max}})
-			if err != nil {
-				return fmt.Errorf("plot: phase %q: %w", s.phase, err)
-			}
-			poly.Color = bandShade
-			poly.LineStyle.Width = 0
-			down.Add(poly)
-		}
-	}
-	down.Add(plotter.NewGrid())
-	lFuel, err := step(fuel, fuelColor, vg.Points(1.6))
-	if err != nil {
-		return fmt.Errorf("plot: fuel: %w", err)
-	}
-	lFuel.FillColor = fuelFill
-	down.Add(lFuel)
-	entries = append(entries, legendEntry{"boiler fuel burnt (lower panel)", []plot.Thumbnailer{lFuel}})
+	entries = append(entries, fuelEntry)
 
 	legend, legW := sideLegend(entries)
 	plotW := 20 * vg.Centimeter
@@ -326,6 +166,211 @@ func PlotVoyage(w io.Writer, format string, v Voyage) error {
 	legend.Draw(draw.Crop(dc, plotW+vg.Millimeter*3, 0, 0, 0))
 	_, err = canvas.WriteTo(w)
 	return err
+}
+
+// voyageSeries are the step lines of a voyage's chart, against the hours
+// from its start.
+type voyageSeries struct {
+	boilers, total, capF, capA, fuel plotter.XYs
+	short                            plotter.XYs // periods the plant cannot carry
+	spans                            []span      // the phases
+	hours, top, topFuel              float64
+	ege                              bool // economisers take a share of the demand
+}
+
+// voyageSeriesOf reads the series off the rows: each row a step as long
+// as its hours.
+func voyageSeriesOf(rows []profile.RowResult) voyageSeries {
+	var s voyageSeries
+	t := 0.0
+	for _, row := range rows {
+		c := row.Result
+		var fired, mcrF, mcrA float64
+		for _, b := range c.Boilers {
+			fired += b.SteamKgS
+			mcrA += b.MCRKgS
+			if b.Firing {
+				mcrF += b.MCRKgS
+			}
+		}
+		s.boilers = append(s.boilers, plotter.XY{X: t, Y: fired * kgh})
+		s.total = append(s.total, plotter.XY{X: t, Y: c.SteamDemandKgS * kgh})
+		s.capF = append(s.capF, plotter.XY{X: t, Y: mcrF * kgh})
+		s.capA = append(s.capA, plotter.XY{X: t, Y: mcrA * kgh})
+		s.fuel = append(s.fuel, plotter.XY{X: t, Y: c.FuelKgS * kgh})
+		if c.EGESteamKgS*kgh > 0.5 {
+			s.ege = true
+		}
+		if !c.CanCarry {
+			s.short = append(s.short, plotter.XY{X: t + row.Hours/2, Y: fired * kgh})
+		}
+		if len(s.spans) == 0 || s.spans[len(s.spans)-1].phase != row.Phase {
+			s.spans = append(s.spans, span{phase: row.Phase, from: t})
+		}
+		t += row.Hours
+		s.spans[len(s.spans)-1].to = t
+		s.top = max(s.top, fired*kgh, c.SteamDemandKgS*kgh, mcrA*kgh)
+		s.topFuel = max(s.topFuel, c.FuelKgS*kgh)
+	}
+	// The last step ends at the end of the voyage.
+	for _, xy := range []*plotter.XYs{&s.boilers, &s.total, &s.capF, &s.capA, &s.fuel} {
+		*xy = append(*xy, plotter.XY{X: t, Y: (*xy)[len(*xy)-1].Y})
+	}
+	s.hours = t
+	if !(s.top > 0) {
+		s.top = 1
+	}
+	if !(s.topFuel > 0) {
+		s.topFuel = 1
+	}
+	return s
+}
+
+// shadePhases shades every other phase of the voyage on p, up to ymax.
+func (s *voyageSeries) shadePhases(p *plot.Plot, ymax float64) error {
+	for i, sp := range s.spans {
+		if i%2 == 0 {
+			continue
+		}
+		poly, err := plotter.NewPolygon(plotter.XYs{{X: sp.from, Y: 0}, {X: sp.to, Y: 0}, {X: sp.to, Y: ymax}, {X: sp.from, Y: ymax}})
+		if err != nil {
+			return fmt.Errorf("plot: phase %q: %w", sp.phase, err)
+		}
+		poly.Color = bandShade
+		poly.LineStyle.Width = 0
+		p.Add(poly)
+	}
+	return nil
+}
+
+// phaseNames names each phase at the top of the upper panel; names of
+// narrow phases alternate between two heights.
+func (s *voyageSeries) phaseNames() (*plotter.Labels, error) {
+	narrow := false
+	for _, sp := range s.spans {
+		if sp.to-sp.from < 0.14*s.hours {
+			narrow = true
+		}
+	}
+	var names plotter.XYLabels
+	for i, sp := range s.spans {
+		y := s.top * 1.15
+		if narrow && i%2 == 1 {
+			y = s.top * 1.07
+		}
+		names.XYs = append(names.XYs, plotter.XY{X: (sp.from + sp.to) / 2, Y: y})
+		names.Labels = append(names.Labels, sp.phase)
+	}
+	lbl, err := plotter.NewLabels(names)
+	if err != nil {
+		return nil, fmt.Errorf("plot: phase names: %w", err)
+	}
+	for i := range lbl.TextStyle {
+		lbl.TextStyle[i].XAlign = draw.XCenter
+		lbl.TextStyle[i].Font.Size = vg.Points(8.5)
+		lbl.TextStyle[i].Color = ink
+	}
+	return lbl, nil
+}
+
+// stepLine is a line drawn as steps, each held until the next point.
+func stepLine(xys plotter.XYs, c color.Color, width vg.Length, dashes ...vg.Length) (*plotter.Line, error) {
+	l, err := plotter.NewLine(xys)
+	if err != nil {
+		return nil, err
+	}
+	l.StepStyle = plotter.PostStep
+	l.Color = c
+	l.Width = width
+	l.Dashes = dashes
+	return l, nil
+}
+
+// upperPanel draws the steam demand against the boilers' capacity, with
+// the phases and the periods the plant cannot carry.
+func (s *voyageSeries) upperPanel(v Voyage) (*plot.Plot, []legendEntry, error) {
+	ymax := s.top * 1.22 // room for the phase names
+	up := plot.New()
+	up.Title.Text = "Voyage: " + v.Name
+	if v.Plant != "" {
+		up.Title.Text += " (" + v.Plant + ")"
+	}
+	up.Y.Label.Text = "steam, kg/h"
+	up.X.Min, up.X.Max = 0, s.hours
+	up.Y.Min, up.Y.Max = 0, ymax
+	up.Y.Tick.Marker = flowTicks{}
+	up.X.Tick.Marker = hourTicks{}
+	styleAxes(up)
+	if err := s.shadePhases(up, ymax); err != nil {
+		return nil, nil, err
+	}
+	up.Add(plotter.NewGrid())
+	lbl, err := s.phaseNames()
+	if err != nil {
+		return nil, nil, err
+	}
+	var entries []legendEntry
+	lAll, err := stepLine(s.capA, allColor, vg.Points(1.2), vg.Points(5), vg.Points(3))
+	if err != nil {
+		return nil, nil, fmt.Errorf("plot: MCR of all boilers: %w", err)
+	}
+	lFiring, err := stepLine(s.capF, firingColor, vg.Points(1.8))
+	if err != nil {
+		return nil, nil, fmt.Errorf("plot: MCR of the boilers firing: %w", err)
+	}
+	lBoil, err := stepLine(s.boilers, demandColor, vg.Points(2.2))
+	if err != nil {
+		return nil, nil, fmt.Errorf("plot: steam demand on the boilers: %w", err)
+	}
+	up.Add(lAll, lFiring)
+	entries = append(entries, legendEntry{"MCR of all boilers", []plot.Thumbnailer{lAll}},
+		legendEntry{"MCR of the boilers firing", []plot.Thumbnailer{lFiring}})
+	if s.ege {
+		lTot, err := stepLine(s.total, totalColor, vg.Points(1.2), vg.Points(2), vg.Points(2))
+		if err != nil {
+			return nil, nil, fmt.Errorf("plot: steam demand: %w", err)
+		}
+		up.Add(lTot)
+		entries = append(entries, legendEntry{"steam demand, economisers included", []plot.Thumbnailer{lTot}})
+	}
+	up.Add(lBoil)
+	entries = append(entries, legendEntry{"steam demand on the oil-fired boilers", []plot.Thumbnailer{lBoil}})
+	if len(s.short) > 0 {
+		sc, err := plotter.NewScatter(s.short)
+		if err != nil {
+			return nil, nil, fmt.Errorf("plot: periods the plant cannot carry: %w", err)
+		}
+		sc.Shape = draw.CrossGlyph{}
+		sc.Color = flaggedColor
+		sc.Radius = vg.Points(5)
+		up.Add(sc)
+		entries = append(entries, legendEntry{"period the plant cannot carry", []plot.Thumbnailer{sc}})
+	}
+	up.Add(lbl)
+	return up, entries, nil
+}
+
+// lowerPanel draws the boiler fuel burnt.
+func (s *voyageSeries) lowerPanel() (*plot.Plot, legendEntry, error) {
+	down := plot.New()
+	down.X.Label.Text = "hours from the start of the voyage"
+	down.Y.Label.Text = "fuel, kg/h"
+	down.X.Min, down.X.Max = 0, s.hours
+	down.Y.Min, down.Y.Max = 0, s.topFuel*1.12
+	down.Y.Tick.Marker = flowTicks{}
+	down.X.Tick.Marker = hourTicks{}
+	styleAxes(down)
+	if err := s.shadePhases(down, down.Y.Max); err != nil {
+		return nil, legendEntry{}, err
+	}
+	down.Add(plotter.NewGrid())
+	lFuel, err := stepLine(s.fuel, fuelColor, vg.Points(1.6))
+	if err != nil {
+		return nil, legendEntry{}, fmt.Errorf("plot: fuel: %w", err)
+	}
+	lFuel.FillColor = fuelFill
+	down.Add(lFuel)
+	return down, legendEntry{"boiler fuel burnt (lower panel)", []plot.Thumbnailer{lFuel}}, nil
 }
 
 // hourTicks marks an axis of hours at a step a watch-keeper reads: 1, 2,

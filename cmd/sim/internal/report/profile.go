@@ -9,6 +9,7 @@ import (
 	"text/tabwriter"
 
 	"steamcase/plant/profile"
+	"steamcase/plant/schema"
 )
 
 // Run is what a run reports: its load cases and its jobs over profiles
@@ -19,6 +20,13 @@ type Run struct {
 	Voyages []Voyage
 	Studies []Study
 	Audits  []Audit
+	// Version is the version of the program that ran the scripts; the
+	// JSON document carries it.
+	Version string
+	// Checks is the outcome of the scripts' check() calls; the JSON
+	// document carries it (the other forms leave a failure to the
+	// command's error output).
+	Checks schema.Checks
 }
 
 // Job says which job of a run a profile result belongs to: its name, the
@@ -60,6 +68,11 @@ func (j Job) rowRef(i int) string {
 		s += " (" + j.Rows[i] + ")"
 	}
 	return s
+}
+
+// schemaJob is the job's part of its schema form.
+func (j Job) schemaJob() schema.Job {
+	return schema.Job{Name: j.Name, Plant: j.Plant, Source: j.Source, RowSources: j.Rows}
 }
 
 func (j Job) head(kind string) string {
@@ -135,7 +148,43 @@ func writeVoyage(w io.Writer, v Voyage) {
 		fmt.Fprintf(w, "  tightest margin: %s kg/h in %s\n", fix(t.TightestMarginKgS*kgh, 1), v.rowRef(t.TightestRow))
 	}
 	fmt.Fprintf(w, "  periods the plant cannot carry: %s\n", rowList(v.Job, t.ShortRows))
-	fmt.Fprintf(w, "  periods with warnings: %s\n", rowList(v.Job, t.WarningRows))
+	writeRowWarnings(w, v)
+}
+
+// The voyage table lists the warnings of at most maxWarnRows periods, and
+// at most maxWarnTexts of each; "and N more" says what it leaves out.
+const (
+	maxWarnRows  = 10
+	maxWarnTexts = 3
+)
+
+// writeRowWarnings lists the periods with warnings, each with its
+// warnings under it.
+func writeRowWarnings(w io.Writer, v Voyage) {
+	rows := v.Result.Total.WarningRows
+	if len(rows) == 0 {
+		fmt.Fprintf(w, "  periods with warnings: none\n")
+		return
+	}
+	fmt.Fprintf(w, "  periods with warnings: %d of %d\n", len(rows), v.Result.Total.Rows)
+	for n, i := range rows {
+		if n == maxWarnRows {
+			fmt.Fprintf(w, "    and %d more periods with warnings\n", len(rows)-maxWarnRows)
+			break
+		}
+		if i < 0 || i >= len(v.Result.Rows) || v.Result.Rows[i].Result == nil {
+			continue
+		}
+		c := v.Result.Rows[i].Result
+		fmt.Fprintf(w, "    %s, %q:\n", v.rowRef(i), c.Name)
+		for k, s := range c.Warnings {
+			if k == maxWarnTexts {
+				fmt.Fprintf(w, "      - and %d more\n", len(c.Warnings)-maxWarnTexts)
+				break
+			}
+			fmt.Fprintf(w, "      - %s\n", oneLine(s))
+		}
+	}
 }
 
 func writeStudy(w io.Writer, s Study) {
@@ -205,203 +254,4 @@ func writeAudit(w io.Writer, a Audit) {
 				strconv.FormatFloat(u.Low, 'g', 6, 64), strconv.FormatFloat(u.High, 'g', 6, 64))
 		}
 	}
-}
-
-// totalsJSON is profile.Totals in the JSON form.
-type totalsJSON struct {
-	Rows              int       `json:"rows"`
-	Hours             float64   `json:"hours"`
-	FuelT             float64   `json:"fuel_t"`
-	CO2T              float64   `json:"co2_t"`
-	SteamT            float64   `json:"steam_t"`
-	EGESteamT         float64   `json:"ege_steam_t"`
-	FuelSavedT        float64   `json:"ege_fuel_saved_t"`
-	DumpedT           float64   `json:"dumped_t"`
-	MakeUpT           float64   `json:"makeup_t"`
-	ElectricMWh       float64   `json:"electric_MWh"`
-	HoursFiring       []float64 `json:"hours_firing"`
-	PeakBoilerKgH     float64   `json:"peak_boiler_kg_h"`
-	PeakRow           int       `json:"peak_row"`
-	CapacityKgH       float64   `json:"capacity_kg_h"`
-	TightestMarginKgH float64   `json:"tightest_margin_kg_h"`
-	TightestRow       int       `json:"tightest_row"`
-	ShortRows         []int     `json:"short_rows"`
-	WarningRows       []int     `json:"warning_rows"`
-}
-
-// rows1 turns 0-based row indexes into the 1-based numbers the report
-// shows.
-func rows1(rows []int) []int {
-	out := make([]int, len(rows))
-	for i, r := range rows {
-		out[i] = r + 1
-	}
-	return out
-}
-
-func totalsOf(t profile.Totals) totalsJSON {
-	hf := append([]float64{}, t.HoursFiring...)
-	for i := range hf {
-		hf[i] = r6(hf[i])
-	}
-	return totalsJSON{
-		Rows: t.Rows, Hours: r6(t.Hours), FuelT: r6(t.FuelT), CO2T: r6(t.CO2T), SteamT: r6(t.SteamT),
-		EGESteamT: r6(t.EGESteamT), FuelSavedT: r6(t.FuelSavedT), DumpedT: r6(t.DumpedT), MakeUpT: r6(t.MakeUpT),
-		ElectricMWh: r6(t.ElectricMWh), HoursFiring: hf,
-		PeakBoilerKgH: r6(t.PeakBoilerKgS * kgh), PeakRow: t.PeakRow + 1, CapacityKgH: r6(t.CapacityKgS * kgh),
-		TightestMarginKgH: r6(t.TightestMarginKgS * kgh), TightestRow: t.TightestRow + 1,
-		ShortRows: rows1(t.ShortRows), WarningRows: rows1(t.WarningRows),
-	}
-}
-
-type jobJSON struct {
-	Name   string   `json:"name"`
-	Plant  string   `json:"plant"`
-	Source string   `json:"source"`
-	Rows   []string `json:"row_sources"`
-}
-
-func jobOf(j Job) jobJSON {
-	rows := append([]string{}, j.Rows...)
-	return jobJSON{Name: j.Name, Plant: j.Plant, Source: j.Source, Rows: rows}
-}
-
-type phaseJSON struct {
-	Phase string `json:"phase"`
-	totalsJSON
-}
-
-type voyageRowJSON struct {
-	Row           int     `json:"row"`
-	Phase         string  `json:"phase"`
-	Hours         float64 `json:"hours"`
-	Case          string  `json:"case"`
-	BoilersFiring int     `json:"boilers_firing"`
-	CanCarry      bool    `json:"can_carry"`
-	DemandKgH     float64 `json:"steam_demand_kg_h"`
-	FuelKgH       float64 `json:"fuel_kg_h"`
-	MarginKgH     float64 `json:"margin_kg_h"`
-	Warnings      int     `json:"warnings"`
-}
-
-type voyageJSON struct {
-	jobJSON
-	Total  totalsJSON      `json:"total"`
-	Phases []phaseJSON     `json:"phases"`
-	Rows   []voyageRowJSON `json:"rows"`
-}
-
-type variantJSON struct {
-	Name              string     `json:"name"`
-	Totals            totalsJSON `json:"totals"`
-	FuelSavedT        float64    `json:"fuel_saved_t"`
-	CO2AvoidedT       float64    `json:"co2_avoided_t"`
-	CostSaved         float64    `json:"cost_saved"`
-	PaybackYears      *float64   `json:"payback_years"`
-	HoursBelowMinGasT float64    `json:"hours_below_min_gas_T"`
-}
-
-type studyJSON struct {
-	jobJSON
-	Hours         float64       `json:"hours"`
-	FuelPrice     float64       `json:"fuel_price_per_t"`
-	InstalledCost float64       `json:"installed_cost"`
-	Currency      string        `json:"currency"`
-	Variants      []variantJSON `json:"variants"`
-}
-
-type dayJSON struct {
-	Date     string  `json:"date"`
-	Phase    string  `json:"phase"`
-	ClaimedT float64 `json:"claimed_t"`
-	NominalT float64 `json:"nominal_t"`
-	LowT     float64 `json:"low_t"`
-	MedianT  float64 `json:"median_t"`
-	HighT    float64 `json:"high_t"`
-	Flag     string  `json:"flag"`
-}
-
-type uncertainJSON struct {
-	Unit  string  `json:"unit"`
-	Param string  `json:"param"`
-	Low   float64 `json:"low"`
-	High  float64 `json:"high"`
-}
-
-type auditJSON struct {
-	jobJSON
-	Samples       int             `json:"samples"`
-	Seed          uint64          `json:"seed"`
-	LowQ          float64         `json:"low_quantile"`
-	HighQ         float64         `json:"high_quantile"`
-	ClaimedT      float64         `json:"claimed_t"`
-	NominalT      float64         `json:"nominal_t"`
-	LowT          float64         `json:"low_t"`
-	HighT         float64         `json:"high_t"`
-	ExcessT       float64         `json:"excess_t"`
-	Flagged       int             `json:"flagged"`
-	Days          []dayJSON       `json:"days"`
-	Uncertainties []uncertainJSON `json:"uncertainties"`
-}
-
-func voyageOf(v Voyage) voyageJSON {
-	r := v.Result
-	out := voyageJSON{jobJSON: jobOf(v.Job), Total: totalsOf(r.Total), Phases: []phaseJSON{}, Rows: []voyageRowJSON{}}
-	for _, p := range r.Phases {
-		out.Phases = append(out.Phases, phaseJSON{Phase: p.Phase, totalsJSON: totalsOf(p.Totals)})
-	}
-	for _, row := range r.Rows {
-		c := row.Result
-		out.Rows = append(out.Rows, voyageRowJSON{
-			Row: row.Index + 1, Phase: row.Phase, Hours: r6(row.Hours), Case: c.Name,
-			BoilersFiring: c.BoilersFiring, CanCarry: c.CanCarry, DemandKgH: r6(c.SteamDemandKgS * kgh),
-			FuelKgH: r6(c.FuelKgS * kgh), MarginKgH: r6(c.MarginNextKgS * kgh), Warnings: len(c.Warnings),
-		})
-	}
-	return out
-}
-
-func studyOf(s Study) studyJSON {
-	r := s.Result
-	out := studyJSON{jobJSON: jobOf(s.Job), Hours: r6(r.Hours), FuelPrice: r.FuelPrice, InstalledCost: r.InstalledCost,
-		Currency: r.Currency, Variants: []variantJSON{}}
-	for _, v := range r.Variants {
-		vj := variantJSON{Name: v.Name, Totals: totalsOf(v.Totals), FuelSavedT: r6(v.FuelSavedT),
-			CO2AvoidedT: r6(v.CO2AvoidedT), CostSaved: r6(v.CostSaved), HoursBelowMinGasT: r6(v.HoursBelowMinGasT)}
-		if r.InstalledCost > 0 && v.CostSaved > 0 && !math.IsInf(v.PaybackYears, 0) && !math.IsNaN(v.PaybackYears) {
-			y := r6(v.PaybackYears)
-			vj.PaybackYears = &y
-		}
-		out.Variants = append(out.Variants, vj)
-	}
-	return out
-}
-
-func auditOf(a Audit) auditJSON {
-	r := a.Result
-	out := auditJSON{jobJSON: jobOf(a.Job), Samples: r.Samples, Seed: r.Seed, LowQ: r.LowQ, HighQ: r.HighQ,
-		ClaimedT: r6(r.ClaimedT), NominalT: r6(r.NominalT), LowT: r6(r.LowT), HighT: r6(r.HighT),
-		ExcessT: r6(r.ExcessT), Flagged: r.Flagged, Days: []dayJSON{}, Uncertainties: []uncertainJSON{}}
-	for _, d := range r.Days {
-		out.Days = append(out.Days, dayJSON{Date: d.Date, Phase: d.Phase, ClaimedT: r6(d.ClaimedT), NominalT: r6(d.NominalT),
-			LowT: r6(d.LowT), MedianT: r6(d.MedianT), HighT: r6(d.HighT), Flag: d.Flag})
-	}
-	for _, u := range r.Uncertainties {
-		out.Uncertainties = append(out.Uncertainties, uncertainJSON{Unit: u.Unit, Param: u.Param, Low: u.Low, High: u.High})
-	}
-	return out
-}
-
-// r6 rounds to six significant digits (as plant.CaseResult.JSON does),
-// and a value within 1e-9 of zero to zero.
-func r6(v float64) float64 {
-	if math.IsNaN(v) || math.IsInf(v, 0) || math.Abs(v) < 1e-9 {
-		if math.Abs(v) < 1e-9 {
-			return 0
-		}
-		return v
-	}
-	e := math.Floor(math.Log10(math.Abs(v)))
-	f := math.Pow(10, 5-e)
-	return math.Round(v*f) / f
 }

@@ -5,6 +5,7 @@ import (
 	"context"
 	"encoding/csv"
 	"math"
+	"reflect"
 	"strconv"
 	"strings"
 	"testing"
@@ -93,6 +94,11 @@ func TestProfileTable(t *testing.T) {
 		fix(v.Total.FuelT, 3),
 		"hours firing: " + hoursFiring(v.Total.HoursFiring),
 		"periods the plant cannot carry: row 4 (plan.csv:5)",
+		// Each period with warnings, its warnings under it: the fourth
+		// has seven, of which three are shown.
+		"periods with warnings: 4 of 4\n    row 1 (plan.csv:2), \"port 1\":\n      - " + oneLine(v.Rows[0].Result.Warnings[0]),
+		"    row 4 (plan.csv:5), \"discharge 2\":\n      - " + oneLine(v.Rows[3].Result.Warnings[0]),
+		"      - and 4 more\n",
 		"Study: lagging", "better lagging", "saved EUR", "payback years",
 		"Audit: three days",
 		"\n    2026-01-01  passage       3.500", "below the band\n    2026-01-02",
@@ -114,6 +120,47 @@ func TestProfileTable(t *testing.T) {
 	}
 	if d := sum - v.Total.FuelT; d > 1e-9*v.Total.FuelT || d < -1e-9*v.Total.FuelT {
 		t.Errorf("phases' fuel %g t, whole voyage %g t", sum, v.Total.FuelT)
+	}
+}
+
+// TestVoyageWarningsCut: the table lists the warnings of at most ten
+// periods, three of each, and says how many more there are.
+func TestVoyageWarningsCut(t *testing.T) {
+	run := profileRun(t)
+	v := run.Voyages[0]
+	r := *v.Result
+	last := r.Rows[3]
+	if len(last.Result.Warnings) != 7 {
+		t.Fatalf("the fourth row has %d warnings; the test wants 7", len(last.Result.Warnings))
+	}
+	r.Rows = nil
+	r.Total.WarningRows = nil
+	for i := range 12 {
+		row := last
+		row.Index = i
+		r.Rows = append(r.Rows, row)
+		r.Total.WarningRows = append(r.Total.WarningRows, i)
+	}
+	r.Total.Rows = 12
+	v.Result = &r
+	v.Rows = nil
+	var b bytes.Buffer
+	writeRowWarnings(&b, v)
+	out := b.String()
+	if n := strings.Count(out, "      - and 4 more\n"); n != 10 {
+		t.Errorf("%d periods say \"and 4 more\", want 10:\n%s", n, out)
+	}
+	if n := strings.Count(out, "\n    row "); n != 10 {
+		t.Errorf("%d periods listed, want 10", n)
+	}
+	if !strings.HasPrefix(out, "  periods with warnings: 12 of 12\n") || !strings.HasSuffix(out, "    and 2 more periods with warnings\n") {
+		t.Errorf("the list:\n%s", out)
+	}
+	r.Total.WarningRows = nil
+	b.Reset()
+	writeRowWarnings(&b, v)
+	if b.String() != "  periods with warnings: none\n" {
+		t.Errorf("no warnings: %q", b.String())
 	}
 }
 
@@ -158,7 +205,7 @@ func TestCSVJobs(t *testing.T) {
 	var b bytes.Buffer
 	must(t, CSV(&b, run))
 	order, tables := readTables(t, b.String())
-	if strings.Join(order, "|") != "cases|voyage rows|study variants|audit days" {
+	if strings.Join(order, "|") != "cases|voyage rows|voyage warnings|study variants|audit days" {
 		t.Fatalf("tables %q", order)
 	}
 	get := func(table string, i int, key string) string {
@@ -206,8 +253,18 @@ func TestCSVJobs(t *testing.T) {
 		num(TableVoyage, i, "fuel_kg_h", c.FuelKgS*3600, 0.05)
 		num(TableVoyage, i, "fuel_t", c.FuelKgS*row.Hours*3600/1000, 0.0005)
 		num(TableVoyage, i, "co2_t", c.CO2KgS*row.Hours*3600/1000, 0.0005)
-		num(TableVoyage, i, "warnings", float64(len(c.Warnings)), 0)
 		fuel += c.FuelKgS * row.Hours * 3.6
+	}
+	// The voyage warnings: each row's warnings, in order, by row number
+	// and source.
+	var want [][]string
+	for i, row := range v.Result.Rows {
+		for _, s := range row.Result.Warnings {
+			want = append(want, []string{TableVoyageWarn, v.Name, strconv.Itoa(i + 1), v.Rows[i], oneLine(s)})
+		}
+	}
+	if got := tables[TableVoyageWarn][1:]; len(want) == 0 || !reflect.DeepEqual(got, want) {
+		t.Errorf("voyage warnings:\n%q\nwant\n%q", got, want)
 	}
 	// The rows' fuel adds up to the voyage's total (profile.Totals).
 	if math.Abs(fuel-v.Result.Total.FuelT) > 1e-9*v.Result.Total.FuelT {
@@ -263,7 +320,7 @@ func TestCSVJobs(t *testing.T) {
 	// Go's reader takes the whole stream when told records vary in length.
 	r := csv.NewReader(strings.NewReader(b.String()))
 	r.FieldsPerRecord = -1
-	if recs, err := r.ReadAll(); err != nil || len(recs) != 2+len(v.Result.Rows) {
+	if recs, err := r.ReadAll(); err != nil || len(recs) != 3+len(v.Result.Rows)+len(want) {
 		t.Errorf("the stream read whole: %d records, %v", len(recs), err)
 	}
 }

@@ -22,7 +22,7 @@ type Case struct {
 	Result *plant.CaseResult
 }
 
-// Header kinds and figure keys read from plant.UnitResult.
+// Header kinds and figure keys read from plant.ComponentResult.
 const (
 	kindHeader   = "steam header"
 	kindFeedTank = "feed tank"
@@ -72,8 +72,8 @@ func writeCase(w io.Writer, n, total int, c Case) {
 		where = ", solved at " + s
 	}
 	fmt.Fprintf(w, "  plant %q%s\n", c.Plant, where)
-	fmt.Fprintf(w, "  conditions: sea %s °C, air %s °C, main engine load %s %%\n",
-		fix(r.Conditions.SeaT-273.15, 1), fix(r.Conditions.AirT-273.15, 1), fix(r.Conditions.EngineLoad*100, 1))
+	fmt.Fprintf(w, "  conditions: sea %s, air %s, main engine load %s %%\n",
+		celsius(r.Conditions.SeaT), celsius(r.Conditions.AirT), fix(r.Conditions.EngineLoad*100, 1))
 	if r.Converged {
 		fmt.Fprintf(w, "  solution: converged, balances closed\n")
 	} else {
@@ -237,6 +237,16 @@ func fix(v float64, dec int) string {
 		s = s[1:]
 	}
 	return s
+}
+
+// celsius formats a condition's temperature in K as "12.0 °C", or says
+// "not given" for the zero that plant.Conditions holds when the case did
+// not give it.
+func celsius(k float64) string {
+	if k <= 0 {
+		return "not given"
+	}
+	return fix(k-273.15, 1) + " °C"
 }
 
 // sci formats v with two significant digits in exponent form.

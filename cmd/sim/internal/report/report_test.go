@@ -10,12 +10,12 @@ import (
 	"math"
 	"os"
 	"path/filepath"
-	"regexp"
 	"strconv"
 	"strings"
 	"testing"
 
 	"steamcase/plant"
+	"steamcase/plant/schema"
 )
 
 var update = flag.Bool("update", false, "rewrite the golden files in testdata/")
@@ -40,17 +40,17 @@ func twoBoilers(t testing.TB, name string) *plant.Plant {
 	p := plant.New(name, plant.Options{UsableFraction: 0.85})
 	fuel := plant.FuelSpec{Name: "HFO", LHV: 40.2e6, CO2Factor: 3.114}
 	eta := &plant.EfficiencyTable{Load: []float64{0.25, 0.5, 0.75, 1.0}, Eta: []float64{0.80, 0.84, 0.85, 0.845}}
-	must(t, p.Add(&plant.MakeUp{UnitBase: plant.UnitBase{Name: "makeup"}, T: 288.15}))
-	must(t, p.Add(&plant.FeedTank{UnitBase: plant.UnitBase{Name: "hotwell"}, HeatLoss: 5e3}))
-	must(t, p.Add(&plant.FeedPump{UnitBase: plant.UnitBase{Name: "fp"}, Boilers: []string{"AB1", "AB2"}, Margin: 3 * bar, Eta: 0.45}))
-	must(t, p.Add(&plant.Header{UnitBase: plant.UnitBase{Name: "feed header"}}))
+	must(t, p.Add(&plant.MakeUp{Base: plant.Base{Name: "makeup"}, T: 288.15}))
+	must(t, p.Add(&plant.FeedTank{Base: plant.Base{Name: "hotwell"}, HeatLoss: 5e3}))
+	must(t, p.Add(&plant.FeedPump{Base: plant.Base{Name: "fp"}, Boilers: []string{"AB1", "AB2"}, Margin: 3 * bar, Eta: 0.45}))
+	must(t, p.Add(&plant.Header{Base: plant.Base{Name: "feed header"}}))
 	for _, b := range []string{"AB1", "AB2"} {
-		must(t, p.Add(&plant.Boiler{UnitBase: plant.UnitBase{Name: b}, MCR: 10000.0 / 3600, DrumP: gauge(7), Turndown: 4,
+		must(t, p.Add(&plant.Boiler{Base: plant.Base{Name: b}, MCR: 10000.0 / 3600, DrumP: gauge(7), Turndown: 4,
 			Blowdown: 0.01, Dryness: 0.98, Efficiency: eta, Fuel: fuel}))
 	}
-	must(t, p.Add(&plant.Header{UnitBase: plant.UnitBase{Name: "main"}, HeatLoss: 10e3}))
-	must(t, p.Add(&plant.Consumer{UnitBase: plant.UnitBase{Name: "cargo heating"}, Duty: 2e6, SubCooling: 10, ReturnFraction: 0.95}))
-	must(t, p.Add(&plant.Consumer{UnitBase: plant.UnitBase{Name: "sundry"}, SteamFlow: 0.1}))
+	must(t, p.Add(&plant.Header{Base: plant.Base{Name: "main"}, HeatLoss: 10e3}))
+	must(t, p.Add(&plant.Consumer{Base: plant.Base{Name: "cargo heating"}, Duty: 2e6, SubCooling: 10, ReturnFraction: 0.95}))
+	must(t, p.Add(&plant.Consumer{Base: plant.Base{Name: "sundry"}, SteamFlow: 0.1}))
 	p.Connect("makeup", plant.Pos{}, "makeup", "out", "hotwell", "in")
 	p.Connect("suction", plant.Pos{}, "hotwell", "out", "fp", "in")
 	p.Connect("discharge", plant.Pos{}, "fp", "out", "feed header", "in")
@@ -101,17 +101,17 @@ func egeCases(t testing.TB) []Case {
 	p := plant.New("Invented EGE Ship", plant.Options{})
 	drum := gauge(7)
 	engine := plant.EngineExhaust{MCR: 15e6, Load: []float64{0.3, 1}, Specific: []float64{8.5 / 3.6e6, 8.5 / 3.6e6}, T: []float64{513.15, 513.15}}
-	must(t, p.Add(&plant.MakeUp{UnitBase: plant.UnitBase{Name: "makeup"}, T: 333.15, P: 1e5}))
-	must(t, p.Add(&plant.FeedTank{UnitBase: plant.UnitBase{Name: "hotwell"}, P: 1e5}))
-	must(t, p.Add(&plant.Header{UnitBase: plant.UnitBase{Name: "feed header"}}))
-	must(t, p.Add(&plant.ExhaustGasEconomiser{UnitBase: plant.UnitBase{Name: "EGE"}, Engine: engine, DrumP: drum,
+	must(t, p.Add(&plant.MakeUp{Base: plant.Base{Name: "makeup"}, T: 333.15, P: 1e5}))
+	must(t, p.Add(&plant.FeedTank{Base: plant.Base{Name: "hotwell"}, P: 1e5}))
+	must(t, p.Add(&plant.Header{Base: plant.Base{Name: "feed header"}}))
+	must(t, p.Add(&plant.ExhaustGasEconomiser{Base: plant.Base{Name: "EGE"}, Engine: engine, DrumP: drum,
 		DesignLoad: 1, DesignPinch: 15, GasCp: 1060}))
-	must(t, p.Add(&plant.Boiler{UnitBase: plant.UnitBase{Name: "AB1"}, MCR: 10000.0 / 3600, DrumP: drum,
+	must(t, p.Add(&plant.Boiler{Base: plant.Base{Name: "AB1"}, MCR: 10000.0 / 3600, DrumP: drum,
 		Efficiency: &plant.EfficiencyTable{Load: []float64{0.25, 1.1}, Eta: []float64{0.85, 0.85}},
 		Fuel:       plant.FuelSpec{Name: "HFO", LHV: 40.2e6, CO2Factor: 3.114}}))
-	must(t, p.Add(&plant.Header{UnitBase: plant.UnitBase{Name: "main"}}))
-	must(t, p.Add(&plant.Consumer{UnitBase: plant.UnitBase{Name: "heating"}, SteamFlow: 5000.0 / 3600}))
-	must(t, p.Add(&plant.Condenser{UnitBase: plant.UnitBase{Name: "dump"}, Dump: true}))
+	must(t, p.Add(&plant.Header{Base: plant.Base{Name: "main"}}))
+	must(t, p.Add(&plant.Consumer{Base: plant.Base{Name: "heating"}, SteamFlow: 5000.0 / 3600}))
+	must(t, p.Add(&plant.Condenser{Base: plant.Base{Name: "dump"}, Dump: true}))
 	p.Connect("mu", plant.Pos{}, "makeup", "out", "hotwell", "in")
 	p.Connect("feed", plant.Pos{}, "hotwell", "out", "feed header", "in")
 	p.Connect("ege feed", plant.Pos{}, "feed header", "out", "EGE", "feed")
@@ -125,7 +125,7 @@ func egeCases(t testing.TB) []Case {
 	for _, c := range []plant.Case{
 		{Name: "at sea", Conditions: plant.Conditions{SeaT: 288.15, AirT: 288.15, EngineLoad: 1}},
 		{Name: "at sea, light load", Conditions: plant.Conditions{SeaT: 288.15, AirT: 288.15, EngineLoad: 1},
-			Set: []plant.Setting{{Unit: "heating", Param: "steam_flow", Value: 500.0 / 3600}}},
+			Set: []plant.Setting{{Unit: "heating", Param: "steam", Value: 500.0 / 3600}}},
 		{Name: "in port", Conditions: plant.Conditions{SeaT: 288.15, AirT: 288.15}},
 	} {
 		cr, err := p.Solve(context.Background(), c)
@@ -284,59 +284,99 @@ func TestCSV(t *testing.T) {
 	}
 }
 
-// TestJSONDocument decodes the JSON strictly and checks the envelope and
-// that each case is the plant's own CaseJSON.
+// TestJSONDocument decodes the JSON strictly and checks the envelope: the
+// schema's version, the program's, the caution, the plants as a list, the
+// checks, and that each case is its schema form.
 func TestJSONDocument(t *testing.T) {
 	cases := demoCases(t)
-	decode := func(cs []Case) map[string]json.RawMessage {
+	decode := func(run Run) map[string]json.RawMessage {
 		var b bytes.Buffer
-		must(t, JSON(&b, Run{Cases: cs}))
+		must(t, JSON(&b, run))
 		var doc map[string]json.RawMessage
 		must(t, json.Unmarshal(b.Bytes(), &doc))
+		var strict schema.Document
+		dec := json.NewDecoder(bytes.NewReader(b.Bytes()))
+		dec.DisallowUnknownFields()
+		must(t, dec.Decode(&strict))
 		return doc
 	}
-	doc := decode(cases)
-	if string(doc["schema"]) != strconv.Itoa(plant.SchemaVersion) {
-		t.Errorf("schema %s, want %d", doc["schema"], plant.SchemaVersion)
+	compact := func(raw json.RawMessage) string {
+		var b bytes.Buffer
+		must(t, json.Compact(&b, raw))
+		return b.String()
 	}
-	var compact bytes.Buffer
-	must(t, json.Compact(&compact, doc["plant"]))
-	if compact.String() != `{"name":"Invented Test Tanker"}` {
-		t.Errorf("plant %s", doc["plant"])
+	doc := decode(Run{Cases: cases, Version: "v9.9.9-test",
+		Checks: schema.Checks{Passed: 4, Failed: []schema.CheckFailure{{Pos: "demo.lua:30", Message: "two boilers carry it"}}}})
+	if string(doc["schema"]) != strconv.Itoa(schema.Version) {
+		t.Errorf("schema %s, want %d", doc["schema"], schema.Version)
+	}
+	if string(doc["version"]) != `"v9.9.9-test"` {
+		t.Errorf("version %s", doc["version"])
+	}
+	if got := compact(doc["plant"]); got != `[{"name":"Invented Test Tanker"}]` {
+		t.Errorf("plant %s", got)
+	}
+	if got := compact(doc["checks"]); got != `{"passed":4,"failed":[{"pos":"demo.lua:30","message":"two boilers carry it"}]}` {
+		t.Errorf("checks %s", got)
 	}
 	var caution string
 	must(t, json.Unmarshal(doc["caution"], &caution))
 	if caution != Caution {
 		t.Errorf("caution %q", caution)
 	}
-	var got []struct {
-		Plant  string `json:"plant"`
-		Source string `json:"source"`
-		plant.CaseJSON
-	}
-	dec := json.NewDecoder(bytes.NewReader(doc["cases"]))
-	dec.DisallowUnknownFields()
-	must(t, dec.Decode(&got))
+	var got []json.RawMessage
+	must(t, json.Unmarshal(doc["cases"], &got))
 	for i, c := range cases {
-		want, _ := json.Marshal(c.Result.JSON())
-		have, _ := json.Marshal(got[i].CaseJSON)
-		if !bytes.Equal(want, have) || got[i].Plant != c.Plant || got[i].Source != c.Result.Pos.String() {
-			t.Errorf("case %d: plant %q source %q, CaseJSON equal %v", i, got[i].Plant, got[i].Source, bytes.Equal(want, have))
+		want, _ := json.Marshal(schema.NewCase(c.Plant, c.Result))
+		if compact(got[i]) != string(want) {
+			t.Errorf("case %d is not its schema form:\n%s\n%s", i, compact(got[i]), want)
 		}
 	}
 
-	// Cases on two plants: the top-level plant is null.
+	// Cases on two plants: both listed, in order.
 	other := twoBoilers(t, "Invented Second Ship")
 	cr, err := other.Solve(context.Background(), plant.Case{Name: "alone"})
 	must(t, err)
-	doc = decode(append(cases[:1:1], Case{Plant: other.Name, Result: cr}))
-	if string(doc["plant"]) != "null" {
-		t.Errorf("two plants: plant %s, want null", doc["plant"])
+	doc = decode(Run{Cases: append(cases[:1:1], Case{Plant: other.Name, Result: cr})})
+	if got := compact(doc["plant"]); got != `[{"name":"Invented Test Tanker"},{"name":"Invented Second Ship"}]` {
+		t.Errorf("two plants: plant %s", got)
 	}
-	// No case: an empty list, not null.
-	doc = decode(nil)
-	if string(doc["cases"]) != "[]" || string(doc["plant"]) != "null" {
-		t.Errorf("no case: cases %s plant %s", doc["cases"], doc["plant"])
+	// No case: empty lists, not null; no check failed.
+	doc = decode(Run{})
+	if string(doc["cases"]) != "[]" || string(doc["plant"]) != "[]" || compact(doc["checks"]) != `{"passed":0,"failed":[]}` {
+		t.Errorf("no case: cases %s plant %s checks %s", doc["cases"], doc["plant"], doc["checks"])
+	}
+}
+
+// TestNotGiven: a case without sea or air temperature shows them as not
+// given in every form: null in the JSON, an empty cell in the CSV, "not
+// given" in the table; never as -273.1 °C or 0 K.
+func TestNotGiven(t *testing.T) {
+	p := twoBoilers(t, "Invented Test Tanker")
+	cr, err := p.Solve(context.Background(), plant.Case{Name: "no weather", Conditions: plant.Conditions{AirT: 278.15}})
+	must(t, err)
+	run := Run{Cases: []Case{{Plant: p.Name, Result: cr}}}
+	var b bytes.Buffer
+	must(t, JSON(&b, run))
+	if !strings.Contains(b.String(), `"sea_T_K": null,`) || !strings.Contains(b.String(), `"air_T_K": 278.15,`) {
+		t.Errorf("JSON: %.600s", b.String())
+	}
+	b.Reset()
+	must(t, Table(&b, run))
+	if !strings.Contains(b.String(), "conditions: sea not given, air 5.0 °C, main engine load 0.0 %") {
+		t.Errorf("table: %.400s", b.String())
+	}
+	b.Reset()
+	must(t, CSV(&b, run))
+	rows, err := csv.NewReader(&b).ReadAll()
+	must(t, err)
+	if rows[0][3] != "sea_T_C" || rows[1][3] != "" || rows[1][4] != "5.0" {
+		t.Errorf("CSV: %q", rows)
+	}
+	for _, s := range []string{"-273.1", "-273.2"} {
+		if strings.Contains(b.String(), s) {
+			t.Errorf("%s in the output", s)
+		}
 	}
 }
 
@@ -425,11 +465,11 @@ var solverKeys = map[string]bool{"iterations": true}
 
 // sameJSON checks that every value of the golden text is in the output:
 // objects may gain keys (the schema allows new keys without a version
-// change, plant.SchemaVersion), but no key may go missing or change its
+// change, schema.Version), but no key may go missing or change its
 // value. Strings, booleans and nulls must be equal, lists of the same
 // length, and numbers equal to 1e-9 relative (they are rounded to six
-// digits by plant.CaseResult.JSON); the solver keys are skipped and the
-// noise keys need only both be below 1e-9.
+// digits by schema.Round); the solver keys are skipped and the noise keys
+// need only both be below 1e-9.
 func sameJSON(got, want string) error {
 	decode := func(s string) (any, error) {
 		d := json.NewDecoder(strings.NewReader(s))
@@ -520,46 +560,6 @@ func TestEGETable(t *testing.T) {
 	} {
 		if !strings.Contains(out, s) {
 			t.Errorf("the table does not say %q", s)
-		}
-	}
-}
-
-// TestSchemaDocumented keeps the schema in the package doc in step with
-// the JSON: every key the renderer writes (in the envelope, the cases and
-// their boilers, economisers, consumers, units and lines) must be named in
-// doc.go. The keys inside "inputs" and the figures' own keys are data,
-// not schema.
-func TestSchemaDocumented(t *testing.T) {
-	src, err := os.ReadFile("doc.go")
-	must(t, err)
-	doc := string(src)
-	var b bytes.Buffer
-	run := profileRun(t)
-	run.Cases = append(demoCases(t), egeCases(t)...)
-	must(t, JSON(&b, run))
-	var v any
-	must(t, json.Unmarshal(b.Bytes(), &v))
-	keys := map[string]bool{}
-	var walk func(v any)
-	walk = func(v any) {
-		switch v := v.(type) {
-		case map[string]any:
-			for k, x := range v {
-				keys[k] = true
-				if k != "inputs" {
-					walk(x)
-				}
-			}
-		case []any:
-			for _, x := range v {
-				walk(x)
-			}
-		}
-	}
-	walk(v)
-	for k := range keys {
-		if !regexp.MustCompile(`\b` + regexp.QuoteMeta(k) + `\b`).MatchString(doc) {
-			t.Errorf("JSON key %q is not documented in doc.go", k)
 		}
 	}
 }

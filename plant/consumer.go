@@ -1,0 +1,401 @@
+package plant
+
+import (
+	"fmt"
+
+	"steamcase/plant/units"
+)
+
+// Consumer is a heat-duty consumer: it takes steam from its inlet at the
+// header's pressure and delivers a duty (or takes a set steam flow); its
+// condensate leaves SubCooling kelvin below saturation. ReturnFraction of
+// the condensate goes back through the "out" line; the rest is lost and
+// made up. Without an "out" line nothing returns. If ReturnT is set, the
+// returning condensate passes a drain cooler that cools it to ReturnT (so
+// that it does not flash in the feed tank); the cooler's heat goes to the
+// cooling water and is reported.
+//
+// The demand is, for each case, what Model computes (tank heating, a fuel
+// heater, … see duty.go), or else the consumer's own Duty, SteamFlow,
+// DutyPerFuel or SteamPerFuel.
+type Consumer struct {
+	Base
+	Duty           float64 // W; used when SteamFlow is zero
+	SteamFlow      float64 // kg/s; when positive it sets the flow instead of the duty
+	SubCooling     float64 // K below saturation
+	ReturnFraction float64 // 0..1
+	ReturnT        float64 // K; zero: the condensate returns as it leaves
+	// Off switches the consumer off for the case.
+	Off bool
+
+	// Model, if set, computes the demand for each case from its
+	// conditions (tank heating from sea and air temperatures, say); it
+	// replaces Duty and SteamFlow. The consumer owns it: Clone copies it.
+	Model DutyModel
+	// FuelOf names a boiler whose fuel flow drives this consumer: its duty
+	// is DutyPerFuel (J per kg of fuel, a burner's fuel oil heater) or its
+	// steam flow SteamPerFuel (kg per kg of fuel, atomising steam) times
+	// the boiler's solved fuel flow (or what Model gives per kg of fuel).
+	// The coupling is part of the solved system.
+	FuelOf       string
+	DutyPerFuel  float64
+	SteamPerFuel float64
+	// Label is the consumer's kind in reports ("tank heating"); empty
+	// means the model's, or "heat consumer".
+	Label string
+	// Factor scales the duty or steam flow however it is given (zero
+	// means 1): the knob an audit turns for an uncertain U-value.
+	Factor float64
+
+	in, out  *Line
+	eqs      [4]int
+	mc, mr   memo
+	fuel     int // index of the driving boiler's fuel flow, or -1
+	caseDuty Duty
+}
+
+// NewConsumer returns a heat consumer; give it a Duty or a SteamFlow.
+func NewConsumer() *Consumer { return &Consumer{} }
+
+// NewModelConsumer returns a consumer whose demand m computes.
+func NewModelConsumer(m DutyModel) *Consumer { return &Consumer{Model: m} }
+
+func consumerKey(k Key, f func(*Consumer) *float64) Key { return num(k, self[*Consumer], f) }
+
+// The keys every steam consumer has, and those of a plain consumer.
+var (
+	offKey = flag(Key{Name: "off", Label: "off", Example: "true", Doc: "switched off", Default: 0, HasDefault: true, Case: true},
+		self[*Consumer], func(u *Consumer) *bool { return &u.Off })
+	factorKey = consumerKey(Key{Name: "factor", Label: "duty factor", Dim: units.Fraction, Example: "1.1",
+		Doc:     "scales the duty or steam flow however it is given (an audit's knob for an uncertain U-value)",
+		Default: 1, HasDefault: true, Min: 0.01, Max: 10, Case: true},
+		func(u *Consumer) *float64 { return &u.Factor })
+	returnKeys = []Key{
+		consumerKey(Key{Name: "subcool", Label: "condensate subcooling", Dim: units.TemperatureDifference, Example: "10 K",
+			Doc: "condensate leaves this far below saturation", Default: 0, HasDefault: true, Min: 0, Max: 250, Case: true},
+			func(u *Consumer) *float64 { return &u.SubCooling }),
+		consumerKey(Key{Name: "returns", Label: "return fraction", Dim: units.Fraction, Example: "95 %",
+			Doc: "fraction of the condensate that returns (the rest is lost and made up)", Default: 0, HasDefault: true,
+			Min: 0, Max: 1, Case: true},
+			func(u *Consumer) *float64 { return &u.ReturnFraction }),
+		consumerKey(Key{Name: "return_T", Label: "condensate return temperature", Dim: units.Temperature, Example: "85 C",
+			Doc: "temperature after a drain cooler on the return", DefaultNote: "no drain cooler", Min: 274.15, Max: 473.15, Case: true},
+			func(u *Consumer) *float64 { return &u.ReturnT }),
+	}
+	// consumerModelKeys are the keys of a consumer whose demand a model
+	// computes, besides the model's own.
+	consumerModelKeys = append(append([]Key(nil), returnKeys...), offKey, factorKey)
+	plainConsumerKeys = append([]Key{
+		consumerKey(Key{Name: "duty", Label: "duty", Dim: units.Power, Example: "450 kW",
+			Doc: "heat delivered (or steam)", Min: 0, Max: 1e9, Case: true, JSON: "duty_kW", Clears: []string{"steam"}},
+			func(u *Consumer) *float64 { return &u.Duty }),
+		consumerKey(Key{Name: "steam", Label: "steam flow", Dim: units.MassFlow, Example: "0.2 t/h",
+			Doc: "a set steam flow (or duty)", Min: 0, Max: 1e3, Case: true, JSON: "steam_kg_h"},
+			func(u *Consumer) *float64 { return &u.SteamFlow }),
+	}, consumerModelKeys...)
+)
+
+// Keys lists the consumer's keys: its model's with the consumer keys the
+// model takes, or a plain consumer's.
+func (u *Consumer) Keys() []Key {
+	if m, ok := u.Model.(keyedModel); ok {
+		return m.keys()
+	}
+	if u.Model != nil {
+		return consumerModelKeys
+	}
+	return plainConsumerKeys
+}
+
+// Kind returns the consumer's label, its model's, or "heat consumer".
+func (u *Consumer) Kind() string {
+	if u.Label != "" {
+		return u.Label
+	}
+	if m, ok := u.Model.(labelled); ok {
+		return m.label()
+	}
+	return "heat consumer"
+}
+
+// validate checks the model's inputs at declaration.
+func (u *Consumer) validate() error {
+	if m, ok := u.Model.(validated); ok {
+		return m.validate()
+	}
+	return nil
+}
+
+// link ties the consumer to the boiler whose fuel drives it, after every
+// component has laid out its unknowns.
+func (u *Consumer) link(p *Plant, a *assembly, fs *faults) {
+	u.fuel = -1
+	if u.FuelOf == "" {
+		return
+	}
+	b, ok := p.byName[u.FuelOf].(*Boiler)
+	if !ok {
+		fs.add(u.Pos, u.Name, "", "is driven by the fuel flow of %q, which is not an oil-fired boiler of this plant", u.FuelOf)
+		return
+	}
+	u.fuel = b.fuel
+	a.depend(u.eqs[0], b.fuel)
+	a.roles.fuelDriven = append(a.roles.fuelDriven, u.in.mIdx())
+}
+
+// prepare computes the case's demand from the model or the consumer's own
+// figures.
+func (u *Consumer) prepare(_ *Plant, c Conditions) error {
+	u.caseDuty = Duty{W: u.Duty, SteamKgS: u.SteamFlow, PerFuelJ: u.DutyPerFuel, SteamPerFuel: u.SteamPerFuel}
+	if u.Model == nil || u.Off {
+		return nil
+	}
+	d, err := u.Model.Duty(c)
+	if err != nil {
+		return wrapErr(u, err)
+	}
+	for _, v := range [...]float64{d.W, d.SteamKgS, d.PerFuelJ, d.SteamPerFuel} {
+		if !finite(v) || v < 0 {
+			return compErr(u, "its model gives a duty of %g W; a duty must be zero or positive", d.W)
+		}
+	}
+	if (d.PerFuelJ > 0 || d.SteamPerFuel > 0) && u.FuelOf == "" {
+		return compErr(u, "its model gives a demand per kg of fuel, but no boiler drives it: give the boiler whose fuel it follows")
+	}
+	u.caseDuty = d
+	return nil
+}
+
+// Ports: steam in, optional condensate out.
+func (u *Consumer) Ports() []PortSpec {
+	return []PortSpec{
+		{Name: "in", Dir: In, Medium: WaterSteam},
+		{Name: "out", Dir: Out, Medium: WaterSteam, Optional: true},
+	}
+}
+
+func (u *Consumer) check(fs *faults) {
+	if u.Duty < 0 || !finite(u.Duty) {
+		fs.add(u.Pos, u.Name, "", "duty must be zero or positive; got %g W", u.Duty)
+	}
+	if u.SteamFlow < 0 || !finite(u.SteamFlow) {
+		fs.add(u.Pos, u.Name, "", "steam flow must be zero or positive; got %g kg/s", u.SteamFlow)
+	}
+	checkRange(fs, u, "condensate subcooling", u.SubCooling, 0, 250, "K")
+	checkRange(fs, u, "return fraction", u.ReturnFraction, 0, 1, "")
+	if u.Factor != 0 {
+		checkRange(fs, u, "duty factor", u.Factor, factorKey.Min, factorKey.Max, "")
+	}
+	if u.ReturnT != 0 {
+		checkRange(fs, u, "condensate return temperature", u.ReturnT, 274.15, 473.15, "K")
+	}
+	if u.DutyPerFuel < 0 || u.SteamPerFuel < 0 || !finite(u.DutyPerFuel) || !finite(u.SteamPerFuel) {
+		fs.add(u.Pos, u.Name, "", "duty and steam per kg of fuel must be zero or positive")
+	}
+	if (u.DutyPerFuel > 0 || u.SteamPerFuel > 0) && u.FuelOf == "" {
+		fs.add(u.Pos, u.Name, "", "a duty or steam flow per kg of fuel needs the boiler whose fuel it follows")
+	}
+}
+
+// hReturn is the enthalpy of the returning condensate, given hc as it
+// leaves the consumer.
+func (u *Consumer) hReturn(p, hc float64) (float64, error) {
+	if u.ReturnT == 0 {
+		return hc, nil
+	}
+	h, err := u.mr.get2(p, u.ReturnT, hPT)
+	if err != nil {
+		return 0, err
+	}
+	if h > hc {
+		t, _ := tPH(p, hc)
+		return 0, fmt.Errorf("condensate return temperature %.1f °C is above the condensate leaving the consumer at %.1f °C; a drain cooler cannot heat", u.ReturnT-273.15, t-273.15)
+	}
+	return h, nil
+}
+
+func (u *Consumer) assemble(a *assembly, ports portLines) {
+	u.in, u.out = ports.one("in"), ports.one("out")
+	u.eqs[0] = a.equation(u.Name+": duty", scaleQ, u.in.mIdx(), u.in.pIdx(), u.in.hIdx())
+	u.eqs[1], u.eqs[2], u.eqs[3] = -1, -1, -1
+	if u.out != nil {
+		u.eqs[1] = a.equation(u.Name+": condensate return", 1, u.in.mIdx(), u.out.mIdx())
+		u.eqs[2] = a.equation(u.Name+": condensate pressure", scaleP, u.in.pIdx(), u.out.pIdx())
+		u.eqs[3] = a.equation(u.Name+": condensate temperature", scaleH, u.in.pIdx(), u.out.hIdx())
+	}
+}
+
+func (u *Consumer) factor() float64 {
+	if u.Factor == 0 {
+		return 1
+	}
+	return u.Factor
+}
+
+func (u *Consumer) returnFraction() float64 {
+	if u.out == nil {
+		return 0
+	}
+	return u.ReturnFraction
+}
+
+// The ways a consumer's demand is given in a case, in the order they take
+// precedence.
+const (
+	demandOff          = iota // no steam
+	demandSteamPerFuel        // steam per kg of the boiler's fuel
+	demandSteam               // a steam flow
+	demandDutyPerFuel         // heat per kg of the boiler's fuel
+	demandDuty                // a heat duty
+)
+
+func (u *Consumer) demand() int {
+	d := &u.caseDuty
+	switch {
+	case u.Off:
+		return demandOff
+	case d.SteamPerFuel > 0 && u.fuel >= 0:
+		return demandSteamPerFuel
+	case d.SteamKgS > 0:
+		return demandSteam
+	case d.PerFuelJ > 0 && u.fuel >= 0:
+		return demandDutyPerFuel
+	}
+	return demandDuty
+}
+
+func (u *Consumer) residual(ev *eval, r []float64) error {
+	p := ev.p(u.in)
+	hc, err := u.mc.get2(p, u.SubCooling, hCondensate)
+	if err != nil {
+		return wrapErr(u, err)
+	}
+	m := ev.m(u.in)
+	f := u.factor()
+	d := &u.caseDuty
+	switch u.demand() {
+	case demandOff:
+		r[u.eqs[0]] = m * scaleQ
+	case demandSteamPerFuel:
+		r[u.eqs[0]] = (m - f*d.SteamPerFuel*ev.x[u.fuel]) * scaleQ
+	case demandSteam:
+		r[u.eqs[0]] = (m - f*d.SteamKgS) * scaleQ
+	case demandDutyPerFuel:
+		r[u.eqs[0]] = m*(ev.h(u.in)-hc) - f*d.PerFuelJ*ev.x[u.fuel]
+	default:
+		r[u.eqs[0]] = m*(ev.h(u.in)-hc) - f*d.W
+	}
+	if u.out != nil {
+		hr, err := u.hReturn(p, hc)
+		if err != nil {
+			return wrapErr(u, err)
+		}
+		r[u.eqs[1]] = ev.m(u.out) - u.ReturnFraction*m
+		r[u.eqs[2]] = ev.p(u.out) - p
+		r[u.eqs[3]] = ev.h(u.out) - hr
+	}
+	return nil
+}
+
+func (u *Consumer) jacobian(ev *eval, j jac) error {
+	p := ev.p(u.in)
+	hc, err := u.mc.get2(p, u.SubCooling, hCondensate)
+	if err != nil {
+		return wrapErr(u, err)
+	}
+	dhc, err := dPropA(hCondensate, p, u.SubCooling, hc)
+	if err != nil {
+		return wrapErr(u, err)
+	}
+	m := ev.m(u.in)
+	f := u.factor()
+	d := &u.caseDuty
+	e0 := u.eqs[0]
+	switch u.demand() {
+	case demandOff, demandSteam:
+		j.add(e0, u.in.mIdx(), scaleQ)
+	case demandSteamPerFuel:
+		j.add(e0, u.in.mIdx(), scaleQ)
+		j.add(e0, u.fuel, -f*d.SteamPerFuel*scaleQ)
+	default:
+		j.add(e0, u.in.mIdx(), ev.h(u.in)-hc)
+		j.add(e0, u.in.hIdx(), m)
+		j.add(e0, u.in.pIdx(), -m*dhc)
+		if u.demand() == demandDutyPerFuel {
+			j.add(e0, u.fuel, -f*d.PerFuelJ)
+		}
+	}
+	if u.out != nil {
+		hr, err := u.hReturn(p, hc)
+		if err != nil {
+			return wrapErr(u, err)
+		}
+		dhr := dhc
+		if u.ReturnT != 0 {
+			if dhr, err = dPropA(hPT, p, u.ReturnT, hr); err != nil {
+				return wrapErr(u, err)
+			}
+		}
+		j.add(u.eqs[1], u.out.mIdx(), 1)
+		j.add(u.eqs[1], u.in.mIdx(), -u.ReturnFraction)
+		j.add(u.eqs[2], u.out.pIdx(), 1)
+		j.add(u.eqs[2], u.in.pIdx(), -1)
+		j.add(u.eqs[3], u.out.hIdx(), 1)
+		j.add(u.eqs[3], u.in.pIdx(), -dhr)
+	}
+	return nil
+}
+
+func (u *Consumer) guess(x []float64) {
+	if u.out != nil {
+		p := x[u.in.pIdx()]
+		x[u.out.pIdx()] = p
+		if h, err := hCondensate(p, u.SubCooling); err == nil {
+			if hr, err := u.hReturn(p, h); err == nil {
+				x[u.out.hIdx()] = hr
+			}
+		}
+	}
+}
+
+func (u *Consumer) report(ev *eval, cr *CaseResult) error {
+	p := ev.p(u.in)
+	hc, err := u.mc.get2(p, u.SubCooling, hCondensate)
+	if err != nil {
+		return wrapErr(u, err)
+	}
+	m := ev.m(u.in)
+	duty := m * (ev.h(u.in) - hc)
+	ret := u.returnFraction() * m
+	lost := m - ret
+	cooler := 0.0
+	if u.out != nil {
+		cooler = ret * (hc - ev.h(u.out))
+	}
+	cr.Consumers = append(cr.Consumers, ConsumerResult{
+		Name: u.Name, Kind: u.Kind(), DutyW: duty, SteamKgS: m, ReturnKgS: ret, LostKgS: lost, DrainCoolerW: cooler,
+		Inputs: u.caseDuty.Inputs,
+	})
+	for _, w := range u.caseDuty.Warnings {
+		cr.warn("%s %q: %s", u.Kind(), u.Name, w)
+	}
+	cr.boundary.heatOut += duty + cooler
+	cr.boundary.massOut += lost
+	cr.boundary.energyOut += lost * hc
+	cr.CondensateLostKgS += lost
+	return nil
+}
+
+func (u *Consumer) outline(cr *CaseResult) {
+	cr.Consumers = append(cr.Consumers, ConsumerResult{Name: u.Name, Kind: u.Kind()})
+}
+
+func (u *Consumer) clone() Component {
+	c := *u
+	if u.Model != nil {
+		c.Model = u.Model.Clone()
+	}
+	c.in, c.out = nil, nil
+	c.caseDuty = Duty{}
+	return &c
+}

@@ -1,0 +1,272 @@
+package schema
+
+import (
+	"sort"
+
+	"steamcase/plant"
+)
+
+// Case is one solved load case: the object of "cases" in the run
+// document, and the table case() returns to a script. Its keys carry their
+// units; they are listed with their meaning in the package documentation.
+type Case struct {
+	Plant              string     `json:"plant"`
+	Source             string     `json:"source"`
+	Name               string     `json:"name"`
+	Converged          bool       `json:"converged"`
+	Iterations         int        `json:"iterations"`
+	ResidualNorm       float64    `json:"residual_norm"`
+	SeaTK              *float64   `json:"sea_T_K"`
+	AirTK              *float64   `json:"air_T_K"`
+	EngineLoad         float64    `json:"engine_load"`
+	BoilersFiring      int        `json:"boilers_firing"`
+	Forced             bool       `json:"firing_forced"`
+	CanCarry           bool       `json:"can_carry"`
+	ShortfallKgH       float64    `json:"shortfall_kg_h"`
+	MarginKgH          float64    `json:"margin_kg_h"`
+	SteamDemandKgH     float64    `json:"steam_demand_kg_h"`
+	SteamProductionKgH float64    `json:"steam_production_kg_h"`
+	DumpedKgH          float64    `json:"dumped_kg_h"`
+	FuelKgH            float64    `json:"fuel_kg_h"`
+	FuelTPerDay        float64    `json:"fuel_t_per_day"`
+	CO2TPerDay         float64    `json:"co2_t_per_day"`
+	MakeUpKgH          float64    `json:"makeup_kg_h"`
+	BlowdownKgH        float64    `json:"blowdown_kg_h"`
+	VentedKgH          float64    `json:"vented_kg_h"`
+	CondensateLostKgH  float64    `json:"condensate_lost_kg_h"`
+	FeedTankTK         float64    `json:"feed_tank_T_K"`
+	ElectricKW         float64    `json:"electric_kW"`
+	Balance            Balance    `json:"balance"`
+	EGESteamKgH        float64    `json:"ege_steam_kg_h"`
+	EGEFuelSavedKgH    float64    `json:"ege_fuel_saved_kg_h"`
+	Boilers            []Boiler   `json:"boilers"`
+	EGEs               []EGE      `json:"exhaust_gas_economisers"`
+	Consumers          []Consumer `json:"consumers"`
+	Units              []Unit     `json:"units"`
+	Lines              []Line     `json:"lines"`
+	Warnings           []string   `json:"warnings"`
+}
+
+// Balance holds a case's balance closures, as computed (not rounded).
+type Balance struct {
+	MassRel   float64 `json:"mass_rel"`
+	EnergyRel float64 `json:"energy_rel"`
+}
+
+// Boiler is one oil-fired boiler of a case.
+type Boiler struct {
+	Name            string  `json:"name"`
+	Firing          bool    `json:"firing"`
+	Cycling         bool    `json:"cycling"`
+	OnFraction      float64 `json:"on_fraction"`
+	LoadFraction    float64 `json:"load_fraction"`
+	MCRKgH          float64 `json:"mcr_kg_h"`
+	SteamKgH        float64 `json:"steam_kg_h"`
+	FuelKgH         float64 `json:"fuel_kg_h"`
+	Efficiency      float64 `json:"efficiency"`
+	EfficiencyBasis string  `json:"efficiency_basis"`
+	Fuel            string  `json:"fuel"`
+	FuelLHV         float64 `json:"fuel_lhv_J_per_kg"`
+	DrumPPa         float64 `json:"drum_p_Pa"`
+	FeedTK          float64 `json:"feed_T_K"`
+	SteamDryness    float64 `json:"steam_dryness"`
+	BlowdownKgH     float64 `json:"blowdown_kg_h"`
+	HeatKW          float64 `json:"heat_kW"`
+	// From a combustion model; null for a boiler with a plain efficiency
+	// table.
+	FlueTK        *float64 `json:"flue_gas_exit_T_K"`
+	ExcessAir     *float64 `json:"excess_air"` // λ − 1
+	Losses        *Losses  `json:"losses"`
+	FanElectricKW float64  `json:"fan_electric_kW"`
+}
+
+// Losses is a boiler's heat-loss account in percent of the heat input on
+// the stated basis.
+type Losses struct {
+	Basis        string  `json:"basis"`
+	DryGasPct    float64 `json:"dry_gas_pct"`
+	MoisturePct  float64 `json:"moisture_pct"`
+	RadiationPct float64 `json:"radiation_pct"`
+	UnburntPct   float64 `json:"unburnt_pct"`
+	CreditsPct   float64 `json:"credits_pct"`
+	TotalPct     float64 `json:"total_pct"`
+}
+
+// EGE is one exhaust-gas economiser of a case.
+type EGE struct {
+	Name           string  `json:"name"`
+	InService      bool    `json:"in_service"`
+	SteamKgH       float64 `json:"steam_kg_h"`
+	DutyKW         float64 `json:"duty_kW"`
+	GasKgS         float64 `json:"gas_kg_s"`
+	GasInTK        float64 `json:"gas_in_T_K"`
+	GasOutTK       float64 `json:"gas_out_T_K"`
+	PinchK         float64 `json:"pinch_K"`
+	BypassFraction float64 `json:"bypass_fraction"`
+	PreheatKW      float64 `json:"preheat_kW"`
+	EvaporatorOutT float64 `json:"evaporator_gas_out_T_K"`
+	BelowMinGasT   bool    `json:"below_min_gas_T"`
+	FuelSavedKgH   float64 `json:"fuel_saved_kg_h"`
+}
+
+// Consumer is one steam consumer (or turbine) of a case.
+type Consumer struct {
+	Name      string  `json:"name"`
+	Kind      string  `json:"kind"`
+	DutyKW    float64 `json:"duty_kW"`
+	SteamKgH  float64 `json:"steam_kg_h"`
+	ReturnKgH float64 `json:"condensate_return_kg_h"`
+	LostKgH   float64 `json:"condensate_lost_kg_h"`
+	CoolerKW  float64 `json:"drain_cooler_kW"`
+	// Inputs are the figures a computed duty came from, keys with units;
+	// absent when the duty was given.
+	Inputs map[string]float64 `json:"inputs,omitempty"`
+}
+
+// Unit is any other unit with its figures, each key carrying its SI unit.
+type Unit struct {
+	Name    string   `json:"name"`
+	Kind    string   `json:"kind"`
+	Figures []Figure `json:"figures"`
+}
+
+// Figure is one named figure of a unit.
+type Figure struct {
+	Key   string  `json:"key"`
+	Value float64 `json:"value"`
+}
+
+// Line is one line's solved state.
+type Line struct {
+	Name string   `json:"name"`
+	M    float64  `json:"m_kg_s"`
+	P    float64  `json:"p_Pa"`
+	T    float64  `json:"T_K"`
+	H    float64  `json:"h_J_per_kg"`
+	X    *float64 `json:"x"` // null when single-phase
+}
+
+// temperature is a condition's temperature in K, or null when the case
+// did not give it: plant.Conditions holds zero (0 K) for a temperature not
+// given.
+func temperature(k float64) *float64 { return roundPtr(k, k > 0) }
+
+// NewCase returns the schema form of a case solved on the plant called
+// plantName: the figures in the units their keys name, each rounded by
+// Round (the solver's residual_norm and the balance closures excepted:
+// they are given as computed), a temperature the case did not give as
+// null, and every list present (empty, not null).
+func NewCase(plantName string, cr *plant.CaseResult) Case {
+	j := Case{
+		Plant:              plantName,
+		Source:             cr.Pos.String(),
+		Name:               cr.Name,
+		Converged:          cr.Converged,
+		Iterations:         cr.Iterations,
+		ResidualNorm:       cr.ResidualNorm,
+		SeaTK:              temperature(cr.Conditions.SeaT),
+		AirTK:              temperature(cr.Conditions.AirT),
+		EngineLoad:         Round(cr.Conditions.EngineLoad),
+		BoilersFiring:      cr.BoilersFiring,
+		Forced:             cr.Forced,
+		CanCarry:           cr.CanCarry,
+		ShortfallKgH:       Round(KgPerH(cr.ShortfallKgS)),
+		MarginKgH:          Round(KgPerH(cr.MarginNextKgS)),
+		SteamDemandKgH:     Round(KgPerH(cr.SteamDemandKgS)),
+		SteamProductionKgH: Round(KgPerH(cr.SteamProductionKgS)),
+		DumpedKgH:          Round(KgPerH(cr.DumpedKgS)),
+		FuelKgH:            Round(KgPerH(cr.FuelKgS)),
+		FuelTPerDay:        Round(TPerDay(cr.FuelKgS)),
+		CO2TPerDay:         Round(TPerDay(cr.CO2KgS)),
+		MakeUpKgH:          Round(KgPerH(cr.MakeUpKgS)),
+		BlowdownKgH:        Round(KgPerH(cr.BlowdownKgS)),
+		VentedKgH:          Round(KgPerH(cr.VentedKgS)),
+		CondensateLostKgH:  Round(KgPerH(cr.CondensateLostKgS)),
+		FeedTankTK:         Round(cr.FeedTankT),
+		ElectricKW:         Round(KW(cr.ElectricW)),
+		Balance:            Balance{MassRel: cr.Balance.MassRel, EnergyRel: cr.Balance.EnergyRel},
+		EGESteamKgH:        Round(KgPerH(cr.EGESteamKgS)),
+		EGEFuelSavedKgH:    Round(KgPerH(cr.EGEFuelSavedKgS)),
+		Boilers:            make([]Boiler, 0, len(cr.Boilers)),
+		EGEs:               make([]EGE, 0, len(cr.EGEs)),
+		Consumers:          make([]Consumer, 0, len(cr.Consumers)),
+		Units:              make([]Unit, 0, len(cr.Units)),
+		Lines:              make([]Line, 0, len(cr.Lines)),
+		Warnings:           append([]string{}, cr.Warnings...),
+	}
+	for _, b := range cr.Boilers {
+		bj := Boiler{
+			Name: b.Name, Firing: b.Firing, Cycling: b.Cycling, OnFraction: Round(b.OnFraction),
+			LoadFraction: Round(b.LoadFraction), MCRKgH: Round(KgPerH(b.MCRKgS)), SteamKgH: Round(KgPerH(b.SteamKgS)),
+			FuelKgH: Round(KgPerH(b.FuelKgS)), Efficiency: Round(b.Efficiency), EfficiencyBasis: b.EfficiencyBasis,
+			Fuel: b.FuelName, FuelLHV: Round(b.FuelLHV), DrumPPa: Round(b.DrumP), FeedTK: Round(b.FeedT),
+			SteamDryness: Round(b.SteamDryness), BlowdownKgH: Round(KgPerH(b.BlowdownKgS)), HeatKW: Round(KW(b.HeatW)),
+			FanElectricKW: Round(KW(b.FanElectricW)),
+		}
+		if b.FlueT > 0 {
+			bj.FlueTK = roundPtr(b.FlueT, true)
+			bj.ExcessAir = roundPtr(b.Lambda-1, true)
+		}
+		if l := b.Losses; l != nil {
+			bj.Losses = &Losses{
+				Basis:        "LHV",
+				DryGasPct:    Round(l.DryGas),
+				MoisturePct:  Round(l.Moisture()),
+				RadiationPct: Round(l.Radiation),
+				UnburntPct:   Round(l.CO + l.Solids),
+				CreditsPct:   Round(l.TotalCredit),
+				TotalPct:     Round(l.TotalLoss - l.TotalCredit),
+			}
+		}
+		j.Boilers = append(j.Boilers, bj)
+	}
+	for _, e := range cr.EGEs {
+		j.EGEs = append(j.EGEs, EGE{
+			Name: e.Name, InService: e.InService, SteamKgH: Round(KgPerH(e.SteamKgS)), DutyKW: Round(KW(e.DutyW)),
+			GasKgS: Round(e.GasKgS), GasInTK: Round(e.GasInT), GasOutTK: Round(e.GasOutT), PinchK: Round(e.Pinch),
+			BypassFraction: Round(e.BypassFraction), PreheatKW: Round(KW(e.PreheatW)), EvaporatorOutT: Round(evapOut(e)),
+			BelowMinGasT: e.BelowMin, FuelSavedKgH: Round(KgPerH(e.FuelSavedKgS)),
+		})
+	}
+	for _, c := range cr.Consumers {
+		j.Consumers = append(j.Consumers, Consumer{
+			Name: c.Name, Kind: c.Kind, DutyKW: Round(KW(c.DutyW)), SteamKgH: Round(KgPerH(c.SteamKgS)),
+			ReturnKgH: Round(KgPerH(c.ReturnKgS)), LostKgH: Round(KgPerH(c.LostKgS)), CoolerKW: Round(KW(c.DrainCoolerW)),
+			Inputs: roundMap(c.Inputs),
+		})
+	}
+	for _, u := range cr.Units {
+		uj := Unit{Name: u.Name, Kind: u.Kind, Figures: make([]Figure, 0, len(u.Figures))}
+		for _, f := range u.Figures {
+			uj.Figures = append(uj.Figures, Figure{Key: f.Key, Value: Round(f.Value)})
+		}
+		sort.Slice(uj.Figures, func(a, b int) bool { return uj.Figures[a].Key < uj.Figures[b].Key })
+		j.Units = append(j.Units, uj)
+	}
+	for _, l := range cr.Lines {
+		lj := Line{Name: l.Name, M: Round(l.M), P: Round(l.P), T: Round(l.T), H: Round(l.H)}
+		lj.X = roundPtr(l.X, l.TwoPhase)
+		j.Lines = append(j.Lines, lj)
+	}
+	return j
+}
+
+func roundMap(m map[string]float64) map[string]float64 {
+	if len(m) == 0 {
+		return nil
+	}
+	out := make(map[string]float64, len(m))
+	for k, v := range m {
+		out[k] = Round(v)
+	}
+	return out
+}
+
+// evapOut is the gas temperature leaving the evaporator: the outlet itself
+// when there is no preheating section.
+func evapOut(e plant.EGEResult) float64 {
+	if e.PreheatW > 0 {
+		return e.EvaporatorOutT
+	}
+	return e.GasOutT
+}

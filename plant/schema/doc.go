@@ -1,0 +1,346 @@
+// Package schema is the one description of what a run of load-case
+// scripts reports to programs: the JSON document of `sim run --json`
+// (Document) and, object for object, the tables that case(), voyage(),
+// study() and audit() return to a Lua script. It owns every key, the
+// schema's version (Version), the conversion of the plant's SI figures to
+// the report units the keys name (kg/h, kW, t/day, t, MWh) and the one
+// rounding rule (Round).
+//
+// The constructors take the plant's results and give the schema's types:
+// NewCase for a solved load case (plant.CaseResult), NewVoyage, NewStudy
+// and NewAudit for the jobs over a profile (package plant/profile), and
+// Document.Finish for the run document around them. Package plant knows
+// nothing of this package; its results stay in SI.
+//
+// # The rules
+//
+// Keys carry their units: SI unless the key names another (kg_h, kW,
+// t_per_day, t, MWh, pct, per_t); a fraction has no unit (0.85, not 85 %).
+// Every figure is rounded by Round: six significant digits, and a value
+// within 1e-9 of zero is 0. Three solver diagnostics are given as
+// computed: a case's residual_norm and its balance closures (mass_rel,
+// energy_rel); and the inputs a study or an audit echoes (fuel_price_per_t,
+// installed_cost, the quantiles, the uncertain inputs' low and high) are
+// given as the script set them. No figure is NaN or infinite: where a
+// figure does not exist the key is null, as each key below says. Every
+// list is present, empty when there is nothing in it, never null. Rows
+// and days are numbered from 1.
+//
+// A Lua table that a script gets from case(), voyage(), study() or audit()
+// is the JSON object of this schema decoded into Lua: the same keys, the
+// same rounded values, arrays as sequences from 1. A key that is null in
+// the JSON is nil in Lua (the key is absent). The Lua tables add a few
+// conveniences derived from these values (by_phase, by_name,
+// flagged_days, hours_no_boiler, ...), which the scripting package
+// documents; they are not part of this schema.
+//
+// # Versions
+//
+// Version 1 was the first. Version 2 (this one) changed the meaning of
+// two keys and added others:
+//
+//   - "plant" at the top is a list of {name} (the plants the cases and
+//     jobs were solved on, in the order they first appear; empty when
+//     nothing was solved), no longer one object or null;
+//   - a voyage row's "warnings" are the texts of its case's warnings, no
+//     longer their count;
+//   - a case's (and a voyage row's) sea_T_K and air_T_K are null when the
+//     case did not give them, no longer 0;
+//   - peak_row, tightest_row and tightest_margin_kg_h of TOTALS are null
+//     when no row was summed, no longer 0;
+//   - added: "version", "checks", a voyage row's case conditions and
+//     steam_production_kg_h, boiler_steam_kg_h, ege_steam_kg_h,
+//     dumped_kg_h, fuel_t and co2_t, and an audit day's "day".
+//
+// The Lua tables changed with version 2 to take the JSON's keys: a
+// total's fuel_saved_t is ege_fuel_saved_t, a study variant's
+// saved_fuel_t is fuel_saved_t and its totals are under "totals", a
+// voyage row's steam_kg_h is steam_production_kg_h and its name is
+// "case", a study's fuel_price is fuel_price_per_t.
+//
+// # The document
+//
+// The document (type Document) is one object:
+//
+//	schema      the schema's version, 2
+//	version     the version of the program that wrote it
+//	caution     the safety caution: the figures are planning and audit
+//	            estimates, not a substitute for the makers' manuals, class
+//	            and flag rules or licensed practice; local codes govern
+//	plant       [PLANT]: the plants the cases and jobs were solved on, in
+//	            the order they first appear (cases first, then voyages,
+//	            studies and audits); empty when nothing was solved
+//	checks      CHECKS: the outcome of the scripts' check() calls
+//	cases       [CASE]: the load cases, in the order solved
+//	voyages     [VOYAGE]: the jobs of voyage(), in the order run
+//	studies     [STUDY]: the jobs of study()
+//	audits      [AUDIT]: the jobs of audit()
+//
+// A PLANT (type Plant) is
+//
+//	name        the plant's name
+//
+// CHECKS (type Checks) are
+//
+//	passed      how many check() calls passed
+//	failed      [FAILURE]: the check() that failed and ended its run, if
+//	            any; the document still holds what was solved before it
+//
+// A FAILURE (type CheckFailure) is
+//
+//	pos         where the check was, "file:line"
+//	message     its message
+//
+// # A load case
+//
+// A CASE (type Case) has
+//
+//	plant                   the name of the plant the case was solved on
+//	source                  where the script solved it, "file:line" (""
+//	                        when built in Go)
+//	name                    the case's name
+//	converged               the solver brought the balance to its tolerance
+//	iterations              Newton iterations of the final configuration
+//	residual_norm           the final scaled residual norm (as computed)
+//	sea_T_K, air_T_K        sea water and outside air temperatures, K;
+//	                        null when the case did not give them
+//	engine_load             main engine load, fraction of its MCR (0..1)
+//	boilers_firing          how many oil-fired boilers fire
+//	firing_forced           the case chose which boilers fire
+//	can_carry               the firing boilers can carry the demand
+//	shortfall_kg_h          demand beyond the boilers' MCR, kg/h
+//	margin_kg_h             steam the firing boilers can add before the
+//	                        next boiler must fire (with all firing: before
+//	                        their MCR; with none: the steam dumped), kg/h
+//	steam_demand_kg_h       steam taken by the plant, kg/h
+//	steam_production_kg_h   steam raised by boilers and economisers, kg/h
+//	dumped_kg_h             steam sent to a dump condenser, kg/h
+//	fuel_kg_h, fuel_t_per_day   fuel burnt, kg/h and t/day
+//	co2_t_per_day           CO2 from the fuel, t/day
+//	makeup_kg_h             fresh water made up, kg/h
+//	blowdown_kg_h           boiler blowdown, kg/h
+//	vented_kg_h             flash steam vented from the feed tank, kg/h
+//	condensate_lost_kg_h    condensate not returned, header drains
+//	                        included, kg/h
+//	feed_tank_T_K           feed tank temperature, K
+//	electric_kW             electrical load of pumps and fans, kW
+//	balance                 BALANCE: the closures of the balances
+//	ege_steam_kg_h          steam raised by exhaust-gas economisers, kg/h
+//	ege_fuel_saved_kg_h     boiler fuel the economisers save against the
+//	                        same case without them, kg/h
+//	boilers                 [BOILER]: the oil-fired boilers
+//	exhaust_gas_economisers  [EGE]: the exhaust-gas economisers
+//	consumers               [CONSUMER]: the steam consumers and turbines
+//	units                   [UNIT]: the other units
+//	lines                   [LINE]: every line's solved state
+//	warnings                [string]: every warning of the case
+//
+// The BALANCE (type Balance) is, as computed,
+//
+//	mass_rel                |mass in − mass out| / mass throughput
+//	energy_rel              |energy in − energy out| / energy throughput
+//
+// A BOILER (type Boiler) is
+//
+//	name, fuel              the boiler's name and its fuel's
+//	firing, cycling         it fires; its burner cycles below its minimum
+//	on_fraction             share of the time the burner is on when it
+//	                        cycles; 0 when it does not
+//	load_fraction           steam over MCR
+//	mcr_kg_h, steam_kg_h    its MCR and the steam it raises, kg/h
+//	fuel_kg_h               fuel it burns, kg/h
+//	efficiency              its efficiency, a fraction, on the basis of
+//	efficiency_basis        "LHV" or "HHV"
+//	fuel_lhv_J_per_kg       the fuel's lower heating value, J/kg
+//	drum_p_Pa, feed_T_K     drum pressure, Pa, and feed temperature, K
+//	steam_dryness           dryness fraction of the steam
+//	blowdown_kg_h           its blowdown, kg/h
+//	heat_kW                 heat to the water and steam, kW
+//	flue_gas_exit_T_K       flue-gas exit temperature, K
+//	excess_air              λ − 1
+//	losses                  LOSSES: its heat-loss account
+//	fan_electric_kW         its fan's electrical power, kW
+//
+// flue_gas_exit_T_K, excess_air and losses come from a combustion model:
+// null with a plain efficiency table (fan_electric_kW then 0).
+//
+// LOSSES (type Losses) are, in percent of the heat input,
+//
+//	basis                   the basis, "LHV"
+//	dry_gas_pct             dry flue gas
+//	moisture_pct            water from the fuel's hydrogen and its own
+//	                        water, vapour from the air and atomising steam
+//	radiation_pct           radiation and convection from the casing
+//	unburnt_pct             CO and solids
+//	credits_pct             heat brought in above the reference by the
+//	                        air, atomising steam and the fuel
+//	total_pct               losses less credits
+//
+// An EGE (type EGE), an exhaust-gas economiser, is
+//
+//	name                    its name
+//	in_service              it is in service
+//	steam_kg_h, duty_kW     the steam it raises, kg/h, and its duty, kW
+//	                        (the preheating section's included)
+//	gas_kg_s                exhaust gas through it, kg/s
+//	gas_in_T_K, gas_out_T_K  exhaust gas in and out, K
+//	pinch_K                 evaporator pinch, K
+//	bypass_fraction         share of the gas bypassed
+//	preheat_kW              the preheating section's duty, kW
+//	evaporator_gas_out_T_K  gas leaving the evaporator, K
+//	below_min_gas_T         the gas leaves below its minimum temperature
+//	fuel_saved_kg_h         boiler fuel it saves, kg/h
+//
+// A CONSUMER (type Consumer) is
+//
+//	name, kind              its name and kind
+//	duty_kW                 heat it takes (shaft power for a turbine), kW
+//	steam_kg_h              steam it takes, kg/h
+//	condensate_return_kg_h  condensate returned, kg/h
+//	condensate_lost_kg_h    condensate lost, kg/h
+//	drain_cooler_kW         heat its drain cooler gives up, kW
+//	inputs                  {key: value}: the figures a computed duty came
+//	                        from, keys with units; absent when the duty
+//	                        was given
+//
+// A UNIT (type Unit) is any other unit:
+//
+//	name, kind              its name and kind
+//	figures                 [FIGURE]: its figures, sorted by key
+//
+// A FIGURE (type Figure) is
+//
+//	key                     the figure's name with its SI unit
+//	value                   its value
+//
+// A LINE (type Line) is
+//
+//	name                    the line's name
+//	m_kg_s, p_Pa, T_K       mass flow, pressure and temperature
+//	h_J_per_kg              specific enthalpy
+//	x                       steam quality; null for a single phase
+//
+// # Jobs over a profile
+//
+// Each job (VOYAGE, STUDY, AUDIT) starts with the keys of a JOB
+// (type Job):
+//
+//	name, plant             the job's name and its plant's
+//	source                  where the script ran it, "file:line"
+//	row_sources             [string]: where each row (an audit's day) was
+//	                        given, "file:line", in order
+//
+// TOTALS (type Totals) are the sums over a set of rows (each row's figures
+// times its hours):
+//
+//	rows, hours             how many rows, and their hours
+//	fuel_t, co2_t           boiler fuel burnt and its CO2, t
+//	steam_t, ege_steam_t    steam raised in all and by economisers, t
+//	ege_fuel_saved_t        boiler fuel the economisers saved, t
+//	dumped_t, makeup_t      steam dumped and water made up, t
+//	electric_MWh            electrical energy, MWh
+//	hours_firing            [h]: hours with 0, 1, 2, ... boilers firing
+//	peak_boiler_kg_h, peak_row   highest demand on the oil-fired boilers,
+//	                        kg/h, and its row; the row null when no row
+//	                        was summed
+//	capacity_kg_h           MCR of all boilers, kg/h
+//	tightest_margin_kg_h, tightest_row   smallest margin (margin_kg_h of
+//	                        a case), kg/h, and its row; null when no row
+//	                        was summed
+//	short_rows              [row]: rows the plant cannot carry
+//	warning_rows            [row]: rows with any warning
+//	fuel_by_grade           [GRADE]: the boiler fuel by grade, in the
+//	                        order the grades first fire
+//
+// A GRADE (type GradeTotal) is
+//
+//	grade                   the fuel's grade (or name)
+//	fuel_t, co2_t           its boiler fuel burnt and CO2, t
+//
+// A VOYAGE (type Voyage) has, after the keys of JOB,
+//
+//	total                   TOTALS of the whole voyage
+//	phases                  [PHASE]: the totals of each phase, in the
+//	                        order the phases first appear
+//	rows                    [ROW]: every period
+//
+// A PHASE (type Phase) is
+//
+//	phase                   the phase's name
+//
+// followed by the keys of TOTALS. A ROW (type VoyageRow) is one period
+// and its solved case:
+//
+//	row                     its number, from 1
+//	phase, hours            its phase and hours
+//	case                    the name of its case
+//	sea_T_K, air_T_K        sea and air temperatures, K; null when not
+//	                        given
+//	engine_load             main engine load, fraction of its MCR
+//	boilers_firing, can_carry   as in a CASE
+//	steam_demand_kg_h       steam taken by the plant, kg/h
+//	steam_production_kg_h   steam raised by boilers and economisers, kg/h
+//	boiler_steam_kg_h       steam raised by the oil-fired boilers, kg/h
+//	ege_steam_kg_h          steam raised by economisers, kg/h
+//	dumped_kg_h             steam dumped, kg/h
+//	fuel_kg_h               boiler fuel, kg/h
+//	fuel_t, co2_t           boiler fuel and CO2 over the row's hours, t
+//	margin_kg_h             as in a CASE, kg/h
+//	warnings                [string]: the texts of its case's warnings
+//
+// A STUDY (type Study) has, after the keys of JOB,
+//
+//	hours                   the hours of its profile
+//	fuel_price_per_t        the fuel price per tonne of boiler fuel, as
+//	                        given (0 when not given)
+//	installed_cost          the installed cost of the change, as given
+//	currency                the currency of both, as given
+//	variants                [VARIANT]: the variants, the first the base
+//
+// A VARIANT (type Variant) is
+//
+//	name                    its name
+//	totals                  TOTALS over the profile
+//	fuel_saved_t            boiler fuel saved against the first variant, t
+//	co2_avoided_t           CO2 avoided against the first variant, t
+//	cost_saved              fuel_saved_t times the fuel price
+//	payback_years           the installed cost over the cost saved per
+//	                        year (the profile scaled to 8760 h); null for
+//	                        the base, without an installed cost or a fuel
+//	                        price, or when nothing is saved
+//	hours_below_min_gas_T   hours in which an economiser's gas would
+//	                        leave below its minimum temperature
+//
+// An AUDIT (type Audit) has, after the keys of JOB,
+//
+//	samples                 Monte Carlo samples per day
+//	seed                    the seed of the sampling
+//	low_quantile, high_quantile   the band's quantiles, fractions
+//	claimed_t, nominal_t    fuel claimed and modelled (nominal inputs) over
+//	                        the days, t
+//	low_t, high_t           the band's ends added day by day (a
+//	                        conservative band), t
+//	excess_t                the claims beyond the band's top, on the days
+//	                        above it, t
+//	flagged                 how many days lie outside the band
+//	days                    [DAY]: every day
+//	uncertainties           [UNCERTAIN]: the inputs drawn
+//
+// A DAY (type Day) is
+//
+//	day                     its number, from 1
+//	date, phase             its date and phase, as given
+//	claimed_t               fuel claimed, t
+//	nominal_t               modelled with every uncertain input at the
+//	                        middle of its range, t
+//	low_t, median_t, high_t  the band's low quantile, median and
+//	                        high quantile, t
+//	flag                    "above" or "below" when the claim lies outside
+//	                        the band, else ""
+//
+// An UNCERTAIN (type Uncertain) input is
+//
+//	unit, param             the unit and the parameter drawn
+//	low, high               the range it is drawn from uniformly, in SI
+//	                        units or as a fraction
+package schema

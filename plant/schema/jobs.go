@@ -1,0 +1,268 @@
+package schema
+
+import "steamcase/plant/profile"
+
+// Job is what every job over a profile (a voyage, a study, an audit)
+// starts with: its name, its plant's, where the script ran it and where
+// each of its rows (an audit's days) was given, each as "file:line".
+type Job struct {
+	Name       string   `json:"name"`
+	Plant      string   `json:"plant"`
+	Source     string   `json:"source"`
+	RowSources []string `json:"row_sources"`
+}
+
+// job returns j with a list for RowSources, never null.
+func (j Job) job() Job {
+	j.RowSources = append([]string{}, j.RowSources...)
+	return j
+}
+
+// Totals are the sums over a set of rows of a profile (each row's figures
+// times its hours).
+type Totals struct {
+	Rows              int          `json:"rows"`
+	Hours             float64      `json:"hours"`
+	FuelT             float64      `json:"fuel_t"`
+	CO2T              float64      `json:"co2_t"`
+	SteamT            float64      `json:"steam_t"`
+	EGESteamT         float64      `json:"ege_steam_t"`
+	EGEFuelSavedT     float64      `json:"ege_fuel_saved_t"`
+	DumpedT           float64      `json:"dumped_t"`
+	MakeUpT           float64      `json:"makeup_t"`
+	ElectricMWh       float64      `json:"electric_MWh"`
+	HoursFiring       []float64    `json:"hours_firing"`
+	PeakBoilerKgH     float64      `json:"peak_boiler_kg_h"`
+	PeakRow           *int         `json:"peak_row"`
+	CapacityKgH       float64      `json:"capacity_kg_h"`
+	TightestMarginKgH *float64     `json:"tightest_margin_kg_h"`
+	TightestRow       *int         `json:"tightest_row"`
+	ShortRows         []int        `json:"short_rows"`
+	WarningRows       []int        `json:"warning_rows"`
+	FuelByGrade       []GradeTotal `json:"fuel_by_grade"`
+}
+
+// GradeTotal is the boiler fuel of one grade and its CO2.
+type GradeTotal struct {
+	Grade string  `json:"grade"`
+	FuelT float64 `json:"fuel_t"`
+	CO2T  float64 `json:"co2_t"`
+}
+
+// row1 is a 0-based row index as the 1-based number the reports show, or
+// nil (null) for a negative index: no such row.
+func row1(i int) *int {
+	if i < 0 {
+		return nil
+	}
+	n := i + 1
+	return &n
+}
+
+// rows1 turns 0-based row indexes into 1-based numbers.
+func rows1(rows []int) []int {
+	out := make([]int, len(rows))
+	for i, r := range rows {
+		out[i] = r + 1
+	}
+	return out
+}
+
+// NewTotals returns the schema form of a set of totals. Rows are numbered
+// from 1; peak_row, tightest_row and tightest_margin_kg_h are null when no
+// row was summed.
+func NewTotals(t profile.Totals) Totals {
+	hf := make([]float64, len(t.HoursFiring))
+	for i, h := range t.HoursFiring {
+		hf[i] = Round(h)
+	}
+	out := Totals{
+		Rows: t.Rows, Hours: Round(t.Hours), FuelT: Round(t.FuelT), CO2T: Round(t.CO2T), SteamT: Round(t.SteamT),
+		EGESteamT: Round(t.EGESteamT), EGEFuelSavedT: Round(t.FuelSavedT), DumpedT: Round(t.DumpedT),
+		MakeUpT: Round(t.MakeUpT), ElectricMWh: Round(t.ElectricMWh), HoursFiring: hf,
+		PeakBoilerKgH: Round(KgPerH(t.PeakBoilerKgS)), PeakRow: row1(t.PeakRow), CapacityKgH: Round(KgPerH(t.CapacityKgS)),
+		TightestRow: row1(t.TightestRow), ShortRows: rows1(t.ShortRows), WarningRows: rows1(t.WarningRows),
+	}
+	if t.TightestRow >= 0 {
+		out.TightestMarginKgH = roundPtr(KgPerH(t.TightestMarginKgS), true)
+	}
+	out.FuelByGrade = make([]GradeTotal, len(t.FuelByGrade))
+	for i, g := range t.FuelByGrade {
+		out.FuelByGrade[i] = GradeTotal{Grade: g.Grade, FuelT: Round(g.FuelT), CO2T: Round(g.CO2T)}
+	}
+	return out
+}
+
+// Voyage is a solved voyage plan.
+type Voyage struct {
+	Job
+	Total  Totals      `json:"total"`
+	Phases []Phase     `json:"phases"`
+	Rows   []VoyageRow `json:"rows"`
+}
+
+// Phase is the totals of one phase of a voyage.
+type Phase struct {
+	Phase string `json:"phase"`
+	Totals
+}
+
+// VoyageRow is one period of a voyage plan and the main figures of its
+// solved case.
+type VoyageRow struct {
+	Row                int      `json:"row"`
+	Phase              string   `json:"phase"`
+	Hours              float64  `json:"hours"`
+	Case               string   `json:"case"`
+	SeaTK              *float64 `json:"sea_T_K"`
+	AirTK              *float64 `json:"air_T_K"`
+	EngineLoad         float64  `json:"engine_load"`
+	BoilersFiring      int      `json:"boilers_firing"`
+	CanCarry           bool     `json:"can_carry"`
+	SteamDemandKgH     float64  `json:"steam_demand_kg_h"`
+	SteamProductionKgH float64  `json:"steam_production_kg_h"`
+	BoilerSteamKgH     float64  `json:"boiler_steam_kg_h"`
+	EGESteamKgH        float64  `json:"ege_steam_kg_h"`
+	DumpedKgH          float64  `json:"dumped_kg_h"`
+	FuelKgH            float64  `json:"fuel_kg_h"`
+	FuelT              float64  `json:"fuel_t"`
+	CO2T               float64  `json:"co2_t"`
+	MarginKgH          float64  `json:"margin_kg_h"`
+	Warnings           []string `json:"warnings"`
+}
+
+// NewVoyageRow returns the schema form of one row of a voyage. A row
+// without a solved case (Result nil, as a script's check mode gives) has
+// its phase and hours and zero figures, with can_carry true.
+func NewVoyageRow(row profile.RowResult) VoyageRow {
+	out := VoyageRow{Row: row.Index + 1, Phase: row.Phase, Hours: Round(row.Hours), CanCarry: true, Warnings: []string{}}
+	c := row.Result
+	if c == nil {
+		return out
+	}
+	var boilers float64
+	for _, b := range c.Boilers {
+		boilers += b.SteamKgS
+	}
+	out.Case = c.Name
+	out.SeaTK, out.AirTK = temperature(c.Conditions.SeaT), temperature(c.Conditions.AirT)
+	out.EngineLoad = Round(c.Conditions.EngineLoad)
+	out.BoilersFiring, out.CanCarry = c.BoilersFiring, c.CanCarry
+	out.SteamDemandKgH = Round(KgPerH(c.SteamDemandKgS))
+	out.SteamProductionKgH = Round(KgPerH(c.SteamProductionKgS))
+	out.BoilerSteamKgH = Round(KgPerH(boilers))
+	out.EGESteamKgH = Round(KgPerH(c.EGESteamKgS))
+	out.DumpedKgH = Round(KgPerH(c.DumpedKgS))
+	out.FuelKgH = Round(KgPerH(c.FuelKgS))
+	out.FuelT = Round(Tonnes(c.FuelKgS, row.Hours))
+	out.CO2T = Round(Tonnes(c.CO2KgS, row.Hours))
+	out.MarginKgH = Round(KgPerH(c.MarginNextKgS))
+	out.Warnings = append(out.Warnings, c.Warnings...)
+	return out
+}
+
+// NewVoyage returns the schema form of a solved voyage plan run as job.
+func NewVoyage(job Job, r *profile.Result) Voyage {
+	out := Voyage{Job: job.job(), Total: NewTotals(r.Total), Phases: make([]Phase, 0, len(r.Phases)),
+		Rows: make([]VoyageRow, 0, len(r.Rows))}
+	for _, p := range r.Phases {
+		out.Phases = append(out.Phases, Phase{Phase: p.Phase, Totals: NewTotals(p.Totals)})
+	}
+	for _, row := range r.Rows {
+		out.Rows = append(out.Rows, NewVoyageRow(row))
+	}
+	return out
+}
+
+// Study is a comparison of plant variants over a profile.
+type Study struct {
+	Job
+	Hours         float64   `json:"hours"`
+	FuelPrice     float64   `json:"fuel_price_per_t"`
+	InstalledCost float64   `json:"installed_cost"`
+	Currency      string    `json:"currency"`
+	Variants      []Variant `json:"variants"`
+}
+
+// Variant is one variant of a study, its savings against the first.
+type Variant struct {
+	Name              string   `json:"name"`
+	Totals            Totals   `json:"totals"`
+	FuelSavedT        float64  `json:"fuel_saved_t"`
+	CO2AvoidedT       float64  `json:"co2_avoided_t"`
+	CostSaved         float64  `json:"cost_saved"`
+	PaybackYears      *float64 `json:"payback_years"`
+	HoursBelowMinGasT float64  `json:"hours_below_min_gas_T"`
+}
+
+// NewStudy returns the schema form of a study run as job. The fuel price
+// and installed cost are given as the script gave them (not rounded); a
+// variant's payback is null for the base, without an installed cost or a
+// fuel price, or when the variant saves nothing.
+func NewStudy(job Job, r *profile.StudyResult) Study {
+	out := Study{Job: job.job(), Hours: Round(r.Hours), FuelPrice: r.FuelPrice, InstalledCost: r.InstalledCost,
+		Currency: r.Currency, Variants: make([]Variant, 0, len(r.Variants))}
+	for _, v := range r.Variants {
+		vj := Variant{Name: v.Name, Totals: NewTotals(v.Totals), FuelSavedT: Round(v.FuelSavedT),
+			CO2AvoidedT: Round(v.CO2AvoidedT), CostSaved: Round(v.CostSaved), HoursBelowMinGasT: Round(v.HoursBelowMinGasT)}
+		vj.PaybackYears = roundPtr(v.PaybackYears, r.InstalledCost > 0 && v.CostSaved > 0 && v.PaybackYears > 0)
+		out.Variants = append(out.Variants, vj)
+	}
+	return out
+}
+
+// Audit is a check of reported daily boiler fuel against a modelled band.
+type Audit struct {
+	Job
+	Samples       int         `json:"samples"`
+	Seed          uint64      `json:"seed"`
+	LowQ          float64     `json:"low_quantile"`
+	HighQ         float64     `json:"high_quantile"`
+	ClaimedT      float64     `json:"claimed_t"`
+	NominalT      float64     `json:"nominal_t"`
+	LowT          float64     `json:"low_t"`
+	HighT         float64     `json:"high_t"`
+	ExcessT       float64     `json:"excess_t"`
+	Flagged       int         `json:"flagged"`
+	Days          []Day       `json:"days"`
+	Uncertainties []Uncertain `json:"uncertainties"`
+}
+
+// Day is one audited day.
+type Day struct {
+	Day      int     `json:"day"`
+	Date     string  `json:"date"`
+	Phase    string  `json:"phase"`
+	ClaimedT float64 `json:"claimed_t"`
+	NominalT float64 `json:"nominal_t"`
+	LowT     float64 `json:"low_t"`
+	MedianT  float64 `json:"median_t"`
+	HighT    float64 `json:"high_t"`
+	Flag     string  `json:"flag"`
+}
+
+// Uncertain is an input of an audit drawn uniformly between Low and High,
+// in SI units or as a fraction, as the script gave it.
+type Uncertain struct {
+	Unit  string  `json:"unit"`
+	Param string  `json:"param"`
+	Low   float64 `json:"low"`
+	High  float64 `json:"high"`
+}
+
+// NewAudit returns the schema form of an audit run as job. The sampling
+// settings and the uncertain inputs are given as set (not rounded).
+func NewAudit(job Job, r *profile.AuditResult) Audit {
+	out := Audit{Job: job.job(), Samples: r.Samples, Seed: r.Seed, LowQ: r.LowQ, HighQ: r.HighQ,
+		ClaimedT: Round(r.ClaimedT), NominalT: Round(r.NominalT), LowT: Round(r.LowT), HighT: Round(r.HighT),
+		ExcessT: Round(r.ExcessT), Flagged: r.Flagged, Days: make([]Day, 0, len(r.Days)),
+		Uncertainties: make([]Uncertain, 0, len(r.Uncertainties))}
+	for i, d := range r.Days {
+		out.Days = append(out.Days, Day{Day: i + 1, Date: d.Date, Phase: d.Phase, ClaimedT: Round(d.ClaimedT),
+			NominalT: Round(d.NominalT), LowT: Round(d.LowT), MedianT: Round(d.MedianT), HighT: Round(d.HighT), Flag: d.Flag})
+	}
+	for _, u := range r.Uncertainties {
+		out.Uncertainties = append(out.Uncertainties, Uncertain{Unit: u.Unit, Param: u.Param, Low: u.Low, High: u.High})
+	}
+	return out
+}
