@@ -36,7 +36,7 @@ func TestGivenValuesChecked(t *testing.T) {
 		{"engine of 150 %", "", "", "", "", `case(ship, { name = "sea", engine = "150 %" })`, `engine must lie between 0 % and 110 % of the engine's MCR`},
 		{"engine of -10 %", "", "", "", "", `case(ship, { name = "sea", engine = "-10 %" })`, `engine must lie between 0 % and 110 %`},
 		{"a case's factor of 0", "", "", "", "", `case(ship, { name = "x", set = { heating = { factor = 0 } } })`, `set.heating.factor must lie between 0.01 and 10; got 0`},
-		{"a long quantity", "", "", `, return_T = "` + strings.Repeat("9", 100000) + ` K"`, "", "", `number in '9999999999999999999999999999999999999999…' is out of range`},
+		{"a long quantity", "", "", `, return_T = "` + strings.Repeat("9", 100000) + ` K"`, "", "", `number in '9999999999999999999999999999999999999999…' (100002 characters) is out of range`},
 	}
 	for _, tc := range tests {
 		t.Run(tc.name, func(t *testing.T) {
