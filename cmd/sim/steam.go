@@ -12,6 +12,7 @@ import (
 	"strings"
 	"text/tabwriter"
 
+	"steamcase/plant/schema"
 	"steamcase/plant/units"
 	"steamcase/plant/water"
 )
@@ -307,6 +308,7 @@ func finite(v float64) *float64 {
 
 // steamJSON is the JSON form of a state, in SI units.
 type steamJSON struct {
+	Version string   `json:"version"`
 	P       float64  `json:"p_Pa"`
 	T       float64  `json:"T_K"`
 	H       float64  `json:"h_J_per_kg"`
@@ -331,6 +333,8 @@ func writeSteamJSON(w io.Writer, st water.State, sat bool) error {
 	if sat {
 		out.X = finite(st.X)
 	}
+	out.Version = version()
+	schema.RoundFigures(&out) // the rule of every JSON document (plant/schema)
 	enc := json.NewEncoder(w)
 	enc.SetIndent("", "  ")
 	return enc.Encode(out)
