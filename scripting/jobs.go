@@ -168,6 +168,9 @@ func parseHours(v lua.LValue, key string) (float64, error) {
 		if !(f > 0) || math.IsInf(f, 0) {
 			return 0, fmt.Errorf("%s must be a positive number of hours; got %s", key, describe(v))
 		}
+		if f > maxRowHours {
+			return 0, fmt.Errorf("%s must be at most %g h (a leap year) for one row; got %s", key, maxRowHours, asGiven(v))
+		}
 		return f, nil
 	case lua.LString:
 		s := strings.TrimSpace(string(x))
@@ -180,6 +183,9 @@ func parseHours(v lua.LValue, key string) (float64, error) {
 		}
 		if !(sec > 0) {
 			return 0, fmt.Errorf("%s must be positive; got %q", key, s)
+		}
+		if sec/3600 > maxRowHours {
+			return 0, fmt.Errorf("%s must be at most %g h (a leap year) for one row; got %s", key, maxRowHours, cut(s))
 		}
 		return sec / 3600, nil
 	case *lua.LNilType:
@@ -225,8 +231,19 @@ func parseTonnes(v lua.LValue, key string) (float64, error) {
 	if !(t >= 0) || math.IsInf(t, 0) {
 		return 0, fmt.Errorf("%s must be zero or more tonnes; got %g", key, t)
 	}
+	if t > maxTonnes {
+		return 0, fmt.Errorf("%s must be at most %g t; got %s", key, maxTonnes, asGiven(v))
+	}
 	return t, nil
 }
+
+// The bounds of a row's hours and of a claimed mass of fuel: a leap year
+// of hours; more fuel than the boilers of any ship burn on a voyage (from
+// memory: a very large crude carrier's discharge burns 80-150 t).
+const (
+	maxRowHours = 8784.0
+	maxTonnes   = 1e4
+)
 
 // ---------------------------------------------------------------------------
 // Rows from CSV files.
