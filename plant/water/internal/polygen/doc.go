@@ -17,30 +17,35 @@
 //
 // A sum Σ n·a^I·b^J (and the weighted sums ΣI, ΣI(I-1), ΣJ, ΣJ(J-1) and
 // ΣIJ that the derivatives of the free energies need) is written in one of
-// three forms:
+// two forms:
 //
-//   - Horner: the terms are grouped by the power of one variable (the outer
-//     one); each group is a polynomial in the other variable (the inner
-//     one), nested by Horner's rule with its lowest power factored out
-//     (b^-9·(c0 + b^2·(c1 + b^6·(...)))), and the groups are nested in the
-//     outer variable in the same way. Each weighted sum is its own nested
-//     polynomial: the inner weights (J or J(J-1) when b is inner) are folded
-//     into the inner coefficients, and the outer weights multiply a group's
-//     value once.
-//   - Groups: the groups are nested in the inner variable as in Horner;
-//     each group is then multiplied once by its power of the outer variable
-//     and added to the sums (with its outer weight), group by group. This
-//     keeps the dependent chains short, where the nesting in the outer
-//     variable makes one long chain per sum.
-//   - Powers: every power of a and b that a term needs is built once, and
-//     the terms are summed group by group of equal I.
+//   - Horner (regions 1 and 2, forward and backward): the terms are grouped
+//     by the power of one variable, the outer one. Each group is a
+//     polynomial in the other, inner, variable, evaluated by Horner's rule
+//     with its lowest power factored out, b^-9·(c0 + b^2·(c1 + b·(...)));
+//     where two exponents of a group are more than innerMaxGap (4) apart,
+//     the group is split there into runs, each nested on its own and
+//     added, so that a large step costs the power of its own term rather
+//     than a long chain. Each group is then multiplied once by its power of
+//     the outer variable and added to the sums, with its outer weight (I or
+//     I(I-1) when a is outer); the inner weights are folded into the inner
+//     coefficients, so each weighted sum of a group is its own nested
+//     polynomial. The generator writes the function with a outer and with b
+//     outer, counts the multiplications of each, powers included, and keeps
+//     the one with fewer; the generated comment gives both counts.
+//   - Powers (region 3): every power of a and b that a term needs is built
+//     once, and the terms are summed group by group of equal I.
 //
-// For Horner and Groups the generator writes the function both ways (a
-// outer, b outer), counts the multiplications of each, powers included,
-// and keeps the one with fewer; the generated comment gives both counts.
-// In every form a power is built by one multiplication from two powers
+// In both forms a power is built by one multiplication from two powers
 // already at hand, in chains of about log2 of the exponent; a negative
 // power costs one division (1/a or 1/b) and multiplications; math.Pow is
-// never called. Which form each function takes is set in Specs, from the
-// benchmarks of package water.
+// never called. Which form each function takes is set in Specs.
+//
+// Two other nested forms were measured and not kept (benchmarks of the
+// single kernels, process CPU time, on the development machine): nesting
+// the groups in the outer variable as well (one nested polynomial per sum)
+// took longer than the Powers form on 16 of the 18 kernels of regions 1
+// and 2, up to 79 % (region 2, all sums), and nesting each group across
+// every step of its exponents took up to 15 % longer on some (region 1
+// T(p,s)), both because of their long chains of dependent operations.
 package polygen

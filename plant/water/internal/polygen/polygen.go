@@ -30,8 +30,7 @@ type Form int
 
 // The forms.
 const (
-	Horner Form = iota // nested polynomials in both variables
-	Groups             // groups nested in one variable, times powers of the other
+	Horner Form = iota // groups nested in one variable, times powers of the other
 	Powers             // powers built once, terms summed by groups of equal I
 )
 
@@ -49,26 +48,26 @@ func Specs() []Spec {
 	all := Sums{true, true, true, true, true, true}
 	s0 := Sums{S0: true}
 	return []Spec{
-		{"poly1All", "region 1, Eq. 7: all sums", "r1", all, Powers},
-		{"poly1J", "region 1, Eq. 7: ΣJ", "r1", Sums{SJ: true}, Powers},
-		{"poly1JJJ", "region 1, Eq. 7: ΣJ and ΣJ(J-1)", "r1", Sums{SJ: true, SJJ: true}, Powers},
-		{"poly1S", "region 1, Eq. 7: Σ, ΣJ and ΣJ(J-1)", "r1", Sums{S0: true, SJ: true, SJJ: true}, Powers},
-		{"poly1S0J", "region 1, Eq. 7: Σ and ΣJ", "r1", Sums{S0: true, SJ: true}, Powers},
-		{"poly2All", "region 2 residual, Eq. 17: all sums", "r2Res", all, Powers},
-		{"poly2J", "region 2 residual, Eq. 17: ΣJ", "r2Res", Sums{SJ: true}, Powers},
-		{"poly2JJJ", "region 2 residual, Eq. 17: ΣJ and ΣJ(J-1)", "r2Res", Sums{SJ: true, SJJ: true}, Powers},
-		{"poly2S0J", "region 2 residual, Eq. 17: Σ and ΣJ", "r2Res", Sums{S0: true, SJ: true}, Powers},
-		{"poly2S", "region 2 residual, Eq. 17: Σ, ΣJ and ΣJ(J-1)", "r2Res", Sums{S0: true, SJ: true, SJJ: true}, Powers},
+		{"poly1All", "region 1, Eq. 7: all sums", "r1", all, Horner},
+		{"poly1J", "region 1, Eq. 7: ΣJ", "r1", Sums{SJ: true}, Horner},
+		{"poly1JJJ", "region 1, Eq. 7: ΣJ and ΣJ(J-1)", "r1", Sums{SJ: true, SJJ: true}, Horner},
+		{"poly1S", "region 1, Eq. 7: Σ, ΣJ and ΣJ(J-1)", "r1", Sums{S0: true, SJ: true, SJJ: true}, Horner},
+		{"poly1S0J", "region 1, Eq. 7: Σ and ΣJ", "r1", Sums{S0: true, SJ: true}, Horner},
+		{"poly2All", "region 2 residual, Eq. 17: all sums", "r2Res", all, Horner},
+		{"poly2J", "region 2 residual, Eq. 17: ΣJ", "r2Res", Sums{SJ: true}, Horner},
+		{"poly2JJJ", "region 2 residual, Eq. 17: ΣJ and ΣJ(J-1)", "r2Res", Sums{SJ: true, SJJ: true}, Horner},
+		{"poly2S0J", "region 2 residual, Eq. 17: Σ and ΣJ", "r2Res", Sums{S0: true, SJ: true}, Horner},
+		{"poly2S", "region 2 residual, Eq. 17: Σ, ΣJ and ΣJ(J-1)", "r2Res", Sums{S0: true, SJ: true, SJJ: true}, Horner},
 		{"poly3All", "region 3, Eq. 28 without its logarithm: all sums", "r3", all, Powers},
 		{"poly3I", "region 3, Eq. 28 without its logarithm: ΣI and ΣI(I-1)", "r3", Sums{SI: true, SII: true}, Powers},
-		{"poly1Tph", "region 1 backward T(p,h), Eq. 11", "r1Tph", s0, Powers},
-		{"poly1Tps", "region 1 backward T(p,s), Eq. 13", "r1Tps", s0, Powers},
-		{"poly2aTph", "region 2a backward T(p,h), Eq. 22", "r2aTph", s0, Powers},
-		{"poly2bTph", "region 2b backward T(p,h), Eq. 23", "r2bTph", s0, Powers},
-		{"poly2cTph", "region 2c backward T(p,h), Eq. 24", "r2cTph", s0, Powers},
-		{"poly2aTps", "region 2a backward T(p,s), Eq. 25 (a = π^(1/4))", "r2aTps", s0, Powers},
-		{"poly2bTps", "region 2b backward T(p,s), Eq. 26", "r2bTps", s0, Powers},
-		{"poly2cTps", "region 2c backward T(p,s), Eq. 27", "r2cTps", s0, Powers},
+		{"poly1Tph", "region 1 backward T(p,h), Eq. 11", "r1Tph", s0, Horner},
+		{"poly1Tps", "region 1 backward T(p,s), Eq. 13", "r1Tps", s0, Horner},
+		{"poly2aTph", "region 2a backward T(p,h), Eq. 22", "r2aTph", s0, Horner},
+		{"poly2bTph", "region 2b backward T(p,h), Eq. 23", "r2bTph", s0, Horner},
+		{"poly2cTph", "region 2c backward T(p,h), Eq. 24", "r2cTph", s0, Horner},
+		{"poly2aTps", "region 2a backward T(p,s), Eq. 25 (a = π^(1/4))", "r2aTps", s0, Horner},
+		{"poly2bTps", "region 2b backward T(p,s), Eq. 26", "r2bTps", s0, Horner},
+		{"poly2cTps", "region 2c backward T(p,s), Eq. 27", "r2cTps", s0, Horner},
 	}
 }
 
@@ -182,19 +181,15 @@ func Generate(coefSrc []byte) ([]byte, error) {
 		}
 		var body, how string
 		switch sp.Form {
-		case Horner, Groups:
-			nested := sp.Form == Horner
+		case Horner:
 			describe := func(x, e, y string) string {
-				if nested {
-					return "nested (Horner) in " + x + " over the groups of equal " + e + ", each group nested in " + y
-				}
 				return "the groups of equal " + e + " nested (Horner) in " + y + ", each times its power of " + x + ", summed"
 			}
-			ba, ca := horner(ts, ks, true, nested)
-			bb, cb := horner(ts, ks, false, nested)
-			body, how = ba, fmt.Sprintf("%s:\n// %s (by J instead: %s)", describe("a", "I", "b"), ca, cb)
+			ba, ca := horner(ts, ks, true)
+			bb, cb := horner(ts, ks, false)
+			body, how = ba, fmt.Sprintf("%s:\n// %s (grouped by J instead: %s)", describe("a", "I", "b"), ca, cb)
 			if cb.less(ca) {
-				body, how = bb, fmt.Sprintf("%s:\n// %s (by I instead: %s)", describe("b", "J", "a"), cb, ca)
+				body, how = bb, fmt.Sprintf("%s:\n// %s (grouped by I instead: %s)", describe("b", "J", "a"), cb, ca)
 			}
 		case Powers:
 			var c cost
@@ -370,49 +365,85 @@ func emitPowers(w *bytes.Buffer, c *cost, x string, need []int) {
 // nest is a polynomial Σ c_k·v^e_k with ascending exponents, whose
 // coefficients are expressions.
 type nest struct {
-	exps  []int
-	coefs []string
-	vals  []float64 // the coefficients' values, where they are numbers
+	exps   []int
+	coefs  []string
+	vals   []float64 // the coefficients' values, where they are numbers
+	maxGap int       // the largest step within one run (0: no limit)
 }
 
-// needs returns the powers of v that the nested form of n uses: the lowest
-// exponent and the steps between exponents.
-func (n *nest) needs() []int {
+// runs splits n at the steps between exponents larger than maxGap (all
+// of n is one run if maxGap is 0), and returns the index where each run
+// starts.
+func (n *nest) runs() []int {
 	if len(n.exps) == 0 {
 		return nil
 	}
-	need := []int{n.exps[0]}
+	starts := []int{0}
 	for k := 1; k < len(n.exps); k++ {
-		need = append(need, n.exps[k]-n.exps[k-1])
+		if n.maxGap > 0 && n.exps[k]-n.exps[k-1] > n.maxGap {
+			starts = append(starts, k)
+		}
+	}
+	return starts
+}
+
+// needs returns the powers of v that the nested form of n uses: the lowest
+// exponent of each run and the steps between exponents within a run.
+func (n *nest) needs() []int {
+	var need []int
+	starts := n.runs()
+	for r, s := range starts {
+		end := len(n.exps)
+		if r+1 < len(starts) {
+			end = starts[r+1]
+		}
+		need = append(need, n.exps[s])
+		for k := s + 1; k < end; k++ {
+			need = append(need, n.exps[k]-n.exps[k-1])
+		}
 	}
 	return need
 }
 
-// expr writes n nested by Horner's rule with its lowest power factored
-// out: v^e0·(c0 + v^(e1-e0)·(c1 + ...)).
+// expr writes n as the sum of its runs, each nested by Horner's rule with
+// its lowest power factored out: v^e0·(c0 + v^(e1-e0)·(c1 + ...)).
 func (n *nest) expr(v string, c *cost) string {
-	m := len(n.exps)
-	r := n.coefs[m-1]
-	for k := m - 2; k >= 0; k-- {
-		r = n.coefs[k] + " + " + powName(v, n.exps[k+1]-n.exps[k]) + "*(" + r + ")"
-		c.mul++
-	}
-	if n.exps[0] != 0 {
-		if m == 1 {
-			r = r + "*" + powName(v, n.exps[0])
-		} else {
-			r = powName(v, n.exps[0]) + "*(" + r + ")"
+	starts := n.runs()
+	var parts []string
+	for r, s := range starts {
+		end := len(n.exps)
+		if r+1 < len(starts) {
+			end = starts[r+1]
 		}
-		c.mul++
+		e := n.exps[s:end]
+		m := len(e)
+		x := n.coefs[end-1]
+		for k := m - 2; k >= 0; k-- {
+			x = n.coefs[s+k] + " + " + powName(v, e[k+1]-e[k]) + "*(" + x + ")"
+			c.mul++
+		}
+		if e[0] != 0 {
+			if m == 1 {
+				x = x + "*" + powName(v, e[0])
+			} else {
+				x = powName(v, e[0]) + "*(" + x + ")"
+			}
+			c.mul++
+		}
+		parts = append(parts, x)
 	}
-	return r
+	return strings.Join(parts, " + ")
 }
 
-// horner writes the body of a function with a as the outer variable
-// (outerA) or b: the groups of equal outer exponent nested in the inner
-// variable, and the groups nested in the outer variable (nestOuter) or
-// each multiplied by its power of it and summed. It counts the cost.
-func horner(ts []Term, ks []kind, outerA, nestOuter bool) (string, cost) {
+// innerMaxGap is the largest step of exponents that a nested group spans;
+// at a larger step the group is split into runs that are added.
+const innerMaxGap = 4
+
+// horner writes the body of a function in the Horner form with a as the
+// outer variable (outerA) or b: the groups of equal outer exponent nested
+// in the inner variable, each multiplied once by its power of the outer
+// variable and added to the sums. It counts the cost.
+func horner(ts []Term, ks []kind, outerA bool) (string, cost) {
 	xv, yv := "a", "b"
 	xe := func(t Term) int { return t.I }
 	ye := func(t Term) int { return t.J }
@@ -453,7 +484,7 @@ func horner(ts []Term, ks []kind, outerA, nestOuter bool) (string, cost) {
 		if n, ok := inner[k]; ok {
 			return n
 		}
-		n := &nest{}
+		n := &nest{maxGap: innerMaxGap}
 		for _, t := range group(x) {
 			if c := t.N * w.at(ye(t)); c != 0 {
 				n.exps = append(n.exps, ye(t))
@@ -509,78 +540,51 @@ func horner(ts []Term, ks []kind, outerA, nestOuter bool) (string, cost) {
 		written[k] = true
 		fmt.Fprintf(&body, "%s := %s\n", gname(k), inner[k].expr(yv, &c))
 	}
-	if nestOuter {
-		// the groups, then one nested polynomial in x per sum
-		for _, k := range order {
+	// group by group: its nested polynomials, each times its power of
+	// x once, added to the sums
+	uname := func(k key) string { return "u" + gname(k)[1:] }
+	for _, x := range xs {
+		for _, wt := range []weight{one, lin, quad} {
+			k := key{x, wt}
+			var users []int
+			for s := range ks {
+				for _, e := range entries[s] {
+					if e.k == k {
+						users = append(users, s)
+					}
+				}
+			}
+			if len(users) == 0 {
+				continue
+			}
 			writeInner(k)
-		}
-		for s, kd := range ks {
-			var n nest
-			for _, e := range entries[s] {
-				coef := gname(e.k)
-				switch v, ok := constant(e.k); {
-				case ok:
-					coef = lit(e.f * v)
-				case e.f != 1:
-					coef = lit(e.f) + "*" + coef
-					c.mul++
-				}
-				n.exps = append(n.exps, e.k.x)
-				n.coefs = append(n.coefs, coef)
+			v, isConst := constant(k)
+			u := uname(k)
+			switch {
+			case x == 0 && isConst:
+				u = ""
+			case x == 0:
+				u = gname(k)
+			case isConst:
+				fmt.Fprintf(&body, "%s := %s * %s\n", u, lit(v), powName(xv, x))
+				c.mul++
+			default:
+				fmt.Fprintf(&body, "%s := %s * %s\n", u, powName(xv, x), gname(k))
+				c.mul++
 			}
-			if len(n.exps) == 0 {
-				continue // the sum is zero
+			if x != 0 {
+				xneed = append(xneed, x)
 			}
-			xneed = append(xneed, n.needs()...)
-			fmt.Fprintf(&body, "%s = %s\n", kd.name, n.expr(xv, &c))
-		}
-	} else {
-		// group by group: its nested polynomials, each times its power of
-		// x once, added to the sums
-		uname := func(k key) string { return "u" + gname(k)[1:] }
-		for _, x := range xs {
-			for _, wt := range []weight{one, lin, quad} {
-				k := key{x, wt}
-				var users []int
-				for s := range ks {
-					for _, e := range entries[s] {
-						if e.k == k {
-							users = append(users, s)
-						}
-					}
-				}
-				if len(users) == 0 {
-					continue
-				}
-				writeInner(k)
-				v, isConst := constant(k)
-				u := uname(k)
+			for _, s := range users {
+				f := wx(ks[s]).at(x)
 				switch {
-				case x == 0 && isConst:
-					u = ""
-				case x == 0:
-					u = gname(k)
-				case isConst:
-					fmt.Fprintf(&body, "%s := %s * %s\n", u, lit(v), powName(xv, x))
-					c.mul++
+				case u == "":
+					fmt.Fprintf(&body, "%s += %s\n", ks[s].name, lit(f*v))
+				case f == 1:
+					fmt.Fprintf(&body, "%s += %s\n", ks[s].name, u)
 				default:
-					fmt.Fprintf(&body, "%s := %s * %s\n", u, powName(xv, x), gname(k))
+					fmt.Fprintf(&body, "%s += %s * %s\n", ks[s].name, lit(f), u)
 					c.mul++
-				}
-				if x != 0 {
-					xneed = append(xneed, x)
-				}
-				for _, s := range users {
-					f := wx(ks[s]).at(x)
-					switch {
-					case u == "":
-						fmt.Fprintf(&body, "%s += %s\n", ks[s].name, lit(f*v))
-					case f == 1:
-						fmt.Fprintf(&body, "%s += %s\n", ks[s].name, u)
-					default:
-						fmt.Fprintf(&body, "%s += %s * %s\n", ks[s].name, lit(f), u)
-						c.mul++
-					}
 				}
 			}
 		}
@@ -589,24 +593,6 @@ func horner(ts []Term, ks []kind, outerA, nestOuter bool) (string, cost) {
 	emitPowers(&w, &c, yv, yneed)
 	w.Write(body.Bytes())
 	return w.String(), c
-}
-
-// treeSum writes the sum of parts as a balanced tree of additions, so that
-// no chain of dependent additions is longer than about log2 of their
-// number.
-func treeSum(parts []string) string {
-	if len(parts) == 1 {
-		return parts[0]
-	}
-	h := (len(parts) + 1) / 2
-	l, r := treeSum(parts[:h]), treeSum(parts[h:])
-	if h > 1 {
-		l = "(" + l + ")"
-	}
-	if len(parts)-h > 1 {
-		r = "(" + r + ")"
-	}
-	return l + " + " + r
 }
 
 // powers writes the body of a function in the Powers form and counts its

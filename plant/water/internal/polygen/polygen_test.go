@@ -1,6 +1,7 @@
 package polygen
 
 import (
+	"slices"
 	"strings"
 	"testing"
 )
@@ -67,5 +68,23 @@ func TestNestExpr(t *testing.T) {
 	c = cost{}
 	if got := one.expr("a", &c); got != "-0.5*a3" || c.mul != 1 {
 		t.Errorf("one term: got %s with %d multiplications, want -0.5*a3 with 1", got, c.mul)
+	}
+}
+
+// TestNestRuns: a group is split into runs where its exponents step by
+// more than maxGap, and the runs are added. Source: common practice, no
+// source.
+func TestNestRuns(t *testing.T) {
+	t.Parallel()
+	n := nest{exps: []int{-2, 0, 1, 5, 12}, coefs: []string{"1", "2", "3", "4", "5"}, maxGap: 4}
+	var c cost
+	got := n.expr("b", &c)
+	want := "bm2*(1 + b2*(2 + b*(3 + b4*(4)))) + 5*b12"
+	if got != want || c.mul != 5 {
+		t.Errorf("got %s with %d multiplications, want %s with 5", got, c.mul, want)
+	}
+	need := n.needs()
+	if want := []int{-2, 2, 1, 4, 12}; !slices.Equal(need, want) {
+		t.Errorf("powers needed %v, want %v", need, want)
 	}
 }
