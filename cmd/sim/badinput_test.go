@@ -194,6 +194,40 @@ func TestBadInputs(t *testing.T) {
 		// --version
 		{name: "--version with an argument", args: []string{"--version", "x"}, code: exitUsage,
 			stderr: "sim: --version takes no arguments; got \"x\"\n"},
+
+		// Values out of their ranges, zero given included (issue 17), and
+		// loads that could be misread (issue 16).
+		{name: "CSV hours of 1e308", files: map[string]string{"plant.lua": badPlant, "v.csv": "phase,hours\nsea,1e308\n",
+			"s.lua": "local ship = include(\"plant.lua\")\nvoyage(ship, { csv = \"v.csv\" })\n"},
+			args: []string{"run", "{dir}/s.lua"}, code: exitFail,
+			stderr: "{dir}/v.csv:2: column \"hours\": hours must be at most 8784 h (a leap year) for one row; got 1e+308\n"},
+		{name: "rows hours of math.huge", files: map[string]string{"plant.lua": badPlant,
+			"s.lua": "local ship = include(\"plant.lua\")\nvoyage(ship, { rows = { { phase = \"sea\", hours = math.huge } } })\n"},
+			args: []string{"run", "{dir}/s.lua"}, code: exitFail,
+			stderr: "{dir}/s.lua:2: voyage \"voyage 1\" rows[1]: hours must be at most 8784 h (a leap year) for one row; got 1.7976931348623157e+308\n"},
+		{name: "claimed of 1e308", files: map[string]string{"plant.lua": badPlant,
+			"s.lua": "local ship = include(\"plant.lua\")\naudit(ship, { days = { { date = \"1 Jan\", claimed = 1e308 } } })\n"},
+			args: []string{"run", "{dir}/s.lua"}, code: exitFail,
+			stderr: "{dir}/s.lua:2: audit \"audit 1\" days[1]: claimed must be at most 10000 t; got 1e+308\n"},
+		{name: "zeros given, usable of 150 %, returns of 95, a reducing valve raising the pressure", files: map[string]string{"s.lua": `local ship = steam_plant { name = "Invented Test Coaster", usable = "150 %",
+  boilers = { { name = "AB1", mcr = "4 t/h", drum = "7 bar(g)", fuel = "VLSFO", efficiency = "85 %", dryness = "0 %" } },
+  consumers = { { name = "heating", duty = "300 kW", returns = 95, return_T = "0 K" } },
+  headers = { { name = "main" }, { name = "LP", p = "16 bar(g)" } } }
+`},
+			args: []string{"check", "{dir}/s.lua"}, code: exitFail,
+			stderr: "{dir}/s.lua:1: plant \"Invented Test Coaster\": usable must lie between 50 % and 100 % of one boiler's MCR; got 150 %\n" +
+				"{dir}/s.lua:2: boiler \"AB1\": dryness must lie between 80 % and 100 %; got 0 %\n" +
+				"{dir}/s.lua:3: consumer \"heating\": returns must lie between 0 % and 100 %; got 95; write \"95 %\"\n" +
+				"{dir}/s.lua:3: consumer \"heating\": return_T must lie between 1 C and 200 C; got 0 K\n" +
+				"{dir}/s.lua:4: unit \"PRV LP\": its set pressure 17 bar(a) is above its inlet's 8.01 bar(a) (line \"to PRV LP\"): a reducing valve cannot raise the pressure; set it below, or feed it from a higher header\n"},
+		{name: "engine of -10 %", files: map[string]string{"plant.lua": badPlant,
+			"s.lua": "local ship = include(\"plant.lua\")\ncase(ship, { name = \"sea\", engine = \"-10 %\" })\n"},
+			args: []string{"run", "{dir}/s.lua"}, code: exitFail,
+			stderr: "{dir}/s.lua:2: case \"sea\": engine must lie between 0 % and 110 % of the engine's MCR (110 % is the overload a marine diesel engine is commonly rated for, from memory); got -10 %\n"},
+		{name: "engine of 80", files: map[string]string{"plant.lua": badPlant,
+			"s.lua": "local ship = include(\"plant.lua\")\ncase(ship, { name = \"sea\", engine = 80 })\n"},
+			args: []string{"run", "{dir}/s.lua"}, code: exitFail,
+			stderr: "{dir}/s.lua:2: case \"sea\": engine = 80 would be 8000 % of the engine's MCR: a bare number is a fraction of MCR (0 to 1.1); write \"80 %\"\n"},
 	}
 	for _, row := range rows {
 		t.Run(row.name, func(t *testing.T) {
