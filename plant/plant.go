@@ -1,10 +1,8 @@
 package plant
 
 import (
-	"errors"
 	"fmt"
 	"math"
-	"strings"
 
 	"github.com/rs/zerolog"
 
@@ -332,15 +330,6 @@ func (p *Plant) newSolver(s *session) error {
 	}
 	s.slv = slv
 	return nil
-}
-
-// structureErr turns the solver's structural diagnosis into a plant fault.
-func (p *Plant) structureErr(err error) error {
-	if errors.Is(err, solver.ErrStructure) {
-		msg := strings.TrimPrefix(err.Error(), "solver: ")
-		return &GraphError{Faults: []Fault{{Pos: p.Pos, Msg: "degrees of freedom do not balance: " + msg}}}
-	}
-	return err
 }
 
 func (p *Plant) solverSettings() *solver.Settings {

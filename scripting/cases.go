@@ -127,7 +127,7 @@ func (r *runner) luaCase(L *lua.LState) int {
 		ph.checked = true
 		var se *plant.SolveError
 		if errors.As(err, &se) {
-			r.raise(&Error{Pos: pos, Unit: a.what, Msg: fmt.Sprintf("no balance found (%s): %v", se.Status, se.Err), Err: err})
+			r.raise(&Error{Pos: pos, Unit: a.what, Msg: se.Reason(), Err: err})
 		}
 		r.addPlantErrIn(ph, err, a.what, fmt.Sprintf(" (solving %s at %s)", a.what, pos))
 		r.raise(stopRun{})

@@ -228,6 +228,69 @@ func TestBadInputs(t *testing.T) {
 			"s.lua": "local ship = include(\"plant.lua\")\ncase(ship, { name = \"sea\", engine = 80 })\n"},
 			args: []string{"run", "{dir}/s.lua"}, code: exitFail,
 			stderr: "{dir}/s.lua:2: case \"sea\": engine = 80 would be 8000 % of the engine's MCR: a bare number is a fraction of MCR (0 to 1.1); write \"80 %\"\n"},
+		// Solver failures said in the plant's terms (issue 17).
+		{name: "the only consumer off", files: map[string]string{"s.lua": `local ship = steam_plant { name = "Invented Test Coaster",
+  boilers = { { name = "AB1", mcr = "4 t/h", drum = "7 bar(g)", fuel = "VLSFO", efficiency = "85 %" } },
+  consumers = { { name = "b", duty = "300 kW", returns = "90 %" } } }
+case(ship, { name = "off", set = { b = { off = true } } })
+`},
+			args: []string{"run", "{dir}/s.lua"}, code: exitFail,
+			stderr: "{dir}/s.lua:4: case \"off\": no balance found: nothing takes steam in case \"off\" (every consumer and turbine is off or at zero duty), so the balance has no flow to solve for; switch a consumer on, or leave the case out\n"},
+		{name: "a hotwell losing 50 MW", files: map[string]string{"s.lua": `local ship = steam_plant { name = "Invented Test Coaster", hotwell = { heat_loss = "50 MW" },
+  boilers = { { name = "AB1", mcr = "4 t/h", drum = "7 bar(g)", fuel = "VLSFO", efficiency = "85 %" } },
+  consumers = { { name = "b", duty = "300 kW", returns = "90 %" } } }
+case(ship, { name = "port" })
+`},
+			args: []string{"check", "{dir}/s.lua"}, code: exitFail,
+			stderr: "{dir}/s.lua:1: feed tank \"hotwell\": heat_loss must lie between 0 kW and 2000 kW; got 50 MW\n"},
+		{name: "no make-up", files: map[string]string{"s.lua": `local ship = plant { name = "no makeup" }
+ship:feed_tank { name = "hotwell" }
+ship:feed_pump { name = "fp", boilers = { "AB1" } }
+ship:boiler { name = "AB1", mcr = "4 t/h", drum = "7 bar(g)", fuel = "VLSFO", efficiency = "85 %" }
+ship:consumer { name = "b", duty = "300 kW", returns = "90 %" }
+ship:line("s", "hotwell", "fp")
+ship:line("f", "fp", "AB1.feed")
+ship:line("st", "AB1.steam", "b")
+ship:line("r", "b.out", "hotwell")
+case(ship, { name = "port" })
+`},
+			args: []string{"check", "{dir}/s.lua"}, code: exitFail,
+			stderr: "{dir}/s.lua:1: degrees of freedom do not balance (15 equations for 14 unknowns); too many conditions around \"AB1\", \"b\", \"fp\", \"hotwell\", on the lines \"f\", \"r\", \"s\", \"st\": the plant has no make-up water, so the water it loses (blowdown, condensate not returned, vented steam) is not replaced and its mass balance cannot close; add a make-up into the hotwell (ship:makeup{...} and a line to the feed tank)\n"},
+		{name: "two boilers each on its own header", files: map[string]string{"s.lua": `local ship = plant { name = "two headers" }
+ship:makeup { name = "makeup" }
+ship:feed_tank { name = "hotwell" }
+ship:feed_pump { name = "fp", boilers = { "AB1", "AB2" } }
+ship:header { name = "feed" }
+ship:boiler { name = "AB1", mcr = "4 t/h", drum = "7 bar(g)", fuel = "VLSFO", efficiency = "85 %" }
+ship:boiler { name = "AB2", mcr = "4 t/h", drum = "7 bar(g)", fuel = "VLSFO", efficiency = "85 %" }
+ship:header { name = "H1" }
+ship:header { name = "H2" }
+ship:consumer { name = "b1", duty = "300 kW", returns = "90 %" }
+ship:consumer { name = "b2", duty = "300 kW", returns = "90 %" }
+ship:line("mu", "makeup", "hotwell")
+ship:line("s", "hotwell", "fp")
+ship:line("d", "fp", "feed")
+ship:line("f1", "feed.out", "AB1.feed")
+ship:line("f2", "feed.out", "AB2.feed")
+ship:line("s1", "AB1.steam", "H1")
+ship:line("s2", "AB2.steam", "H2")
+ship:line("t1", "H1.out", "b1")
+ship:line("t2", "H2.out", "b2")
+ship:line("r1", "b1.out", "hotwell")
+ship:line("r2", "b2.out", "hotwell")
+case(ship, { name = "port" })
+`},
+			args: []string{"check", "{dir}/s.lua"}, code: exitFail,
+			stderr: "{dir}/s.lua:1: degrees of freedom do not balance (37 equations for 36 unknowns); too many conditions around \"AB1\", \"AB2\", \"H1\", \"H2\", \"b1\", \"b2\", on the lines \"s1\", \"s2\", \"t1\", \"t2\": the boilers raise steam into separate systems (AB1 into H1; AB2 into H2): the firing rule shares one steam system among all the boilers and dump condensers; join the systems at one main header (other headers through reducing valves), or describe each system as a plant of its own\n"},
+		{name: "boilers forced off, an economiser at engine 0 %", files: map[string]string{"s.lua": `local ship = steam_plant { name = "Invented Test Coaster",
+  boilers = { { name = "AB1", mcr = "4 t/h", drum = "7 bar(g)", fuel = "VLSFO", efficiency = "85 %" } },
+  consumers = { { name = "b", duty = "300 kW", returns = "90 %" } },
+  exhaust_gas_economiser = { drum = "7 bar(g)", engine = { mcr = "10 MW", { load = "50 %", gas = "9 kg/kWh", T = "240 C" }, { load = "100 %", gas = "8.5 kg/kWh", T = "250 C" } },
+    design_load = "85 %", pinch = "20 K" } }
+case(ship, { name = "port", engine = "0 %", fire = {} })
+`},
+			args: []string{"run", "{dir}/s.lua"}, code: exitFail,
+			stderr: "{dir}/s.lua:6: case \"port\" forces every boiler off, but the exhaust-gas economisers raise 0 kg/h against a demand of 528 kg/h with the main engine at 0 % of MCR: fire a boiler, or give an engine load at which the economisers carry the demand (solving case \"port\" at {dir}/s.lua:6)\n"},
 	}
 	for _, row := range rows {
 		t.Run(row.name, func(t *testing.T) {
