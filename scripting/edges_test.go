@@ -54,3 +54,19 @@ func TestGivenValuesChecked(t *testing.T) {
 }
 
 func fmtSprintf(format string, a ...any) string { return fmt.Sprintf(format, a...) }
+
+// TestTankLayoutAsksByKey: a tank by its dimensions whose neighbours'
+// temperature is not given is told the key and an example (issue 16).
+func TestTankLayoutAsksByKey(t *testing.T) {
+	t.Parallel()
+	src := `local ship = steam_plant { name = "Invented Coaster 2",
+  boilers = { { name = "AB1", mcr = "3 t/h", drum = "7 bar(g)", fuel = "MGO", efficiency = "84 %" } },
+  consumers = { { name = "COT 1", kind = "tank_heating", fuel = "HSFO", T = "50 C",
+    dimensions = { length = "20 m", breadth = "30 m", depth = "18 m", fill = "95 %", layout = "full_breadth", weather_deck = true } } } }
+`
+	_, err := RunSource(context.Background(), "tank.lua", []byte(src), nil, Options{CheckOnly: true})
+	want := `dimensions.adjacent_T is not given: the tank's bulkheads to its neighbours need their temperature; give adjacent_T = "15 C" (or adjacent_heated = true when they are heated like this one)`
+	if err == nil || !strings.Contains(err.Error(), want) {
+		t.Errorf("got %v\nwant %q", err, want)
+	}
+}
