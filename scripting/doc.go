@@ -210,7 +210,9 @@
 // case keys: name (default "case N"); sea and air (temperatures); engine
 // (fraction of main engine MCR); set (per unit, the keys below); fire
 // (list of boilers that must fire; the others stay cold; without it the
-// plant's firing rule decides). The keys of set are, for each unit, the
+// plant's firing rule decides); series (a name shared by cases that
+// sweep one quantity: consecutive cases of one series are reported as one
+// table, a column per case, and carried in the JSON as "series"). The keys of set are, for each unit, the
 // keys of its kind that KeyReference marks "a case may set it" (a
 // consumer's duty, steam, returns, subcool, return_T, off and factor; a
 // boiler's mcr, drum, dryness, blowdown and eta_factor; ...).

@@ -13,6 +13,7 @@ type Case struct {
 	Plant              string     `json:"plant"`
 	Source             string     `json:"source"`
 	Name               string     `json:"name"`
+	Series             string     `json:"series"`
 	Converged          bool       `json:"converged"`
 	Iterations         int        `json:"iterations"`
 	ResidualNorm       float64    `json:"residual_norm"`
@@ -161,6 +162,7 @@ func NewCase(plantName string, cr *plant.CaseResult) Case {
 		Plant:              plantName,
 		Source:             cr.Pos.String(),
 		Name:               cr.Name,
+		Series:             cr.Series,
 		Converged:          cr.Converged,
 		Iterations:         cr.Iterations,
 		ResidualNorm:       cr.ResidualNorm,

@@ -99,6 +99,8 @@
 //	source                  where the script solved it, "file:line" (""
 //	                        when built in Go)
 //	name                    the case's name
+//	series                  the sweep the script grouped it in ("" when
+//	                        none: case{series = "..."})
 //	converged               the solver brought the balance to its tolerance
 //	iterations              Newton iterations of the final configuration
 //	residual_norm           the final scaled residual norm (as computed)

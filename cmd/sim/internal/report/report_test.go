@@ -563,3 +563,30 @@ func TestEGETable(t *testing.T) {
 		}
 	}
 }
+
+// TestSeriesTable: cases a script groups in one series are one table of
+// the report, a row per case with its own label, instead of a block each
+// (issue 16); the figures are the cases' own.
+func TestSeriesTable(t *testing.T) {
+	t.Parallel()
+	cases := demoCases(t)
+	for i := range cases {
+		r := *cases[i].Result
+		r.Series, r.Name = "sweep", "audit"
+		cases[i].Result = &r
+	}
+	var b bytes.Buffer
+	must(t, Table(&b, Run{Cases: cases}))
+	out := b.String()
+	if strings.Contains(out, "Load case 1 of") || !strings.Contains(out, fmt.Sprintf("Load cases 1 to %d of %d: series \"sweep\", %d cases", len(cases), len(cases), len(cases))) {
+		t.Errorf("the series is not one table:\n%s", out)
+	}
+	for i := range cases {
+		if !strings.Contains(out, fmt.Sprintf("audit %d", i+1)) {
+			t.Errorf("row %d is not labelled apart:\n%s", i+1, out)
+		}
+		if !strings.Contains(out, fix(cases[i].Result.FuelKgS*kgh, 1)) {
+			t.Errorf("row %d's fuel is not in the table", i+1)
+		}
+	}
+}
