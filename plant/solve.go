@@ -57,6 +57,7 @@ func (p *Plant) solverSettings() *solver.Settings {
 		s = *p.Opt.Solver
 	}
 	s.SkipDiagnosis = true // compile has diagnosed the structure
+	s.NoReuse = true       // fresh Jacobians: reused ones stop at FTol and move noise-level report figures
 	if s.Factorizer == nil {
 		// A plant's Jacobian is sparse (each equation touches a few
 		// lines): the sparse LU is several times faster than the dense

@@ -310,8 +310,8 @@ func TestRefactorTinyPivot(t *testing.T) {
 
 // TestMinDegreeListsBits: the adjacency-list implementation of the
 // minimum degree order (used above order bitsOrderMax) gives the same
-// order and fill count as the bit-set one on seeded random patterns
-// (constructed check, no source).
+// order and fill count as the bit-set one on seeded random patterns, the
+// Bratu grid and a plant-like network (constructed check, no source).
 func TestMinDegreeListsBits(t *testing.T) {
 	t.Parallel()
 	rng := rand.New(rand.NewPCG(77, 1))
@@ -320,6 +320,7 @@ func TestMinDegreeListsBits(t *testing.T) {
 		p, _ := randomSparse(rng, 1+rng.IntN(150), 0.02+0.1*rng.Float64())
 		patterns = append(patterns, p)
 	}
+	patterns = append(patterns, newBratu(12, 3).pattern, newNetwork(9, 7, 4).pattern)
 	for k, pattern := range patterns {
 		var lu SparseLU
 		lu.SetPattern(len(pattern), pattern) // natural order: pp, pr are A's columns
