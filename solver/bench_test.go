@@ -5,6 +5,8 @@ import (
 	"strconv"
 	"strings"
 	"testing"
+
+	"gonum.org/v1/gonum/mat"
 )
 
 // BenchmarkBroyden solves Broyden tridiagonal (MGH (30)) and Broyden
@@ -190,6 +192,47 @@ func BenchmarkRepeatedSolve(b *testing.B) {
 			b.ReportMetric(float64(iters)/float64(b.N), "newton-iters/op")
 			b.ReportMetric(float64(reuses)/float64(b.N), "reuses/op")
 			b.ReportMetric(float64(dfs)/float64(facts)/float64(nt.n), "dfs-cols/fact")
+		})
+	}
+}
+
+// BenchmarkSparseAdd writes every entry of the 2025-unknown Bratu
+// Jacobian's pattern (17,689 entries, nine a row) once: by Add (binary
+// search in the row), by positions found once with Index, and into a
+// dense Dim×Dim matrix as Problem.Jacobian does. ns/entry is the cost of
+// one write.
+func BenchmarkSparseAdd(b *testing.B) {
+	br := newBratu(45, 1)
+	s := NewSparse(br.n, br.pattern)
+	type entry struct{ i, j, pos int }
+	var entries []entry
+	for i, row := range br.pattern {
+		for _, j := range row {
+			entries = append(entries, entry{i, j, s.Index(i, j)})
+		}
+	}
+	for _, mode := range []string{"add", "position", "dense"} {
+		b.Run(mode, func(b *testing.B) {
+			d := mat.NewDense(br.n, br.n, nil)
+			raw := d.RawMatrix()
+			v := s.Values()
+			for b.Loop() {
+				switch mode {
+				case "add":
+					for _, e := range entries {
+						s.Add(e.i, e.j, 1)
+					}
+				case "position":
+					for _, e := range entries {
+						v[e.pos]++
+					}
+				case "dense":
+					for _, e := range entries {
+						raw.Data[e.i*raw.Stride+e.j]++
+					}
+				}
+			}
+			b.ReportMetric(float64(b.Elapsed().Nanoseconds())/float64(b.N)/float64(len(entries)), "ns/entry")
 		})
 	}
 }

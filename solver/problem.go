@@ -184,20 +184,23 @@ func (p *Problem) upper(j int) float64 {
 // the documented default; a nil *Settings means all defaults.
 type Settings struct {
 	// MaxIterations is the largest number of Newton iterations (Jacobian
-	// evaluations). Zero means 100.
+	// evaluations); a Solve also takes at most that many steps with a
+	// reused factorisation. Zero means 100.
 	MaxIterations int
 
 	// FTol is the convergence tolerance on the scaled residual: the solve has
-	// converged when max_i |F_i(x)|/FScale_i ≤ FTol (infinity norm). Zero
-	// means 1e-10.
+	// converged when max_i |F_i(x)|/FScale_i ≤ FTol (infinity norm), or,
+	// with scales the solver derived, when the residual is at its round-off
+	// level (Result.RoundOff). Zero means 1e-10.
 	FTol float64
 
 	// XTol is the stagnation tolerance on the scaled step: if an accepted
 	// step satisfies max_j |Δx_j|/max(|x_j|, XScale_j) ≤ XTol while the
 	// residual test still fails, the solve stops with Stagnated. A small
-	// step alone never counts as convergence. The line search also gives
-	// up (LineSearchFailed) when α·max_j |s_j|/max(|x_j|/XScale_j, 1)
-	// falls below XTol. Zero means 1e-14.
+	// step alone never counts as convergence (but see Result.RoundOff).
+	// The line search also gives up (LineSearchFailed) when
+	// α·max_j |s_j|/max(|x_j|/XScale_j, 1) falls below XTol. Zero means
+	// 1e-14.
 	XTol float64
 
 	// MaxStep bounds the infinity norm of the scaled Newton step
@@ -379,7 +382,8 @@ type Result struct {
 
 	// Retried is set when the solve failed after steps with a reused
 	// factorisation or pivot order and was repeated from the start point
-	// without them (see Settings.NoReuse); Stats then count both attempts.
+	// without them (see Settings.NoReuse); Stats then count both attempts,
+	// and a Recorder saw the repeat's iterations numbered from 1 again.
 	Retried bool
 }
 

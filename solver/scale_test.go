@@ -6,40 +6,43 @@ import (
 	"testing"
 )
 
-// steamBranch is a small steam branch in SI units, its unknowns six
+// steamBranch is a small steam branch in SI units, its unknowns eight
 // orders of magnitude apart: a source at 16 bar(a) feeds a pipe (k1) to a
 // node where 0.5 kg/s branches off; a second pipe (k2) leads to a
 // consumer at 12 bar(a) that condenses its steam to 4.2e5 J/kg with a
-// duty of 2 MW. Unknowns: p1, p2 (Pa), m1, m2 (kg/s) and the consumer's
-// inlet enthalpy h (J/kg). Its root, by hand from the equations: m1 solves
-// k1·m1² + k2·(m1 − 0.5)² = p1 − 1.2e6 (the quadratic formula), then
-// m2 = m1 − 0.5, p2 = p1 − k1·m1², h = 4.2e5 + 2e6/m2.
+// duty of 2 MW and loses 0.5 % of its flow as flash steam. Unknowns: p1,
+// p2 (Pa), m1, m2 (kg/s), the consumer's inlet enthalpy h (J/kg) and the
+// flash loss mf (kg/s, near 0.01). Its root, by hand from the equations:
+// m1 solves k1·m1² + k2·(m1 − 0.5)² = p1 − 1.2e6 (the quadratic
+// formula), then m2 = m1 − 0.5, p2 = p1 − k1·m1², h = 4.2e5 + 2e6/m2,
+// mf = 0.005·m2.
 func steamBranch() (Problem, []float64, []float64) {
 	const k1, k2 = 2e4, 5e4 // Pa/(kg/s)²
-	p := Problem{Dim: 5,
+	p := Problem{Dim: 6,
 		Residual: func(r, x []float64) error {
-			p1, p2, m1, m2, h := x[0], x[1], x[2], x[3], x[4]
+			p1, p2, m1, m2, h, mf := x[0], x[1], x[2], x[3], x[4], x[5]
 			r[0] = p1 - 1.6e6
 			r[1] = p1 - p2 - k1*m1*math.Abs(m1)
 			r[2] = p2 - 1.2e6 - k2*m2*math.Abs(m2)
 			r[3] = m1 - m2 - 0.5
 			r[4] = m2*(h-4.2e5) - 2e6
+			r[5] = mf - 0.005*m2
 			return nil
 		},
-		VarNames: []string{"p1", "p2", "m1", "m2", "h"},
+		VarNames: []string{"p1", "p2", "m1", "m2", "h", "mf"},
 	}
 	// k1·m² + k2·(m − 0.5)² = 4e5: (k1+k2)·m² − k2·m + 0.25·k2 − 4e5 = 0.
 	a, b, c := k1+k2, -k2, 0.25*k2-4e5
 	m1 := (-b + math.Sqrt(b*b-4*a*c)) / (2 * a)
 	m2 := m1 - 0.5
-	root := []float64{1.6e6, 1.6e6 - k1*m1*m1, m1, m2, 4.2e5 + 2e6/m2}
-	x0 := []float64{1.5e6, 1.3e6, 1, 1, 2.8e6}
+	root := []float64{1.6e6, 1.6e6 - k1*m1*m1, m1, m2, 4.2e5 + 2e6/m2, 0.005 * m2}
+	x0 := []float64{1.5e6, 1.3e6, 1, 1, 2.8e6, 0.02}
 	return p, x0, root
 }
 
 // TestScaleFreeSI: without XScale and FScale the steam branch in SI
-// units converges to its root (by hand, see steamBranch) to 1e-9
-// relative. With unit scales and the absolute FTol of 1e-10 it cannot:
+// units (unknowns from 1.6e6 Pa to 1e-2 kg/s) converges to its root (by
+// hand, see steamBranch) to 1e-9 relative. With unit scales and the absolute FTol of 1e-10 it cannot:
 // the energy balance's terms are near 3e6 J/s, whose rounding (about
 // 5e-10) is above FTol.
 func TestScaleFreeSI(t *testing.T) {
@@ -73,13 +76,14 @@ func TestDerivedScales(t *testing.T) {
 	if err != nil || res.Stats.Iterations != 0 {
 		t.Fatalf("status %v, error %v, %d iterations; want converged at the start", res.Status, err, res.Stats.Iterations)
 	}
-	p1, p2, m1, m2, h := root[0], root[1], root[2], root[3], root[4]
+	p1, p2, m1, m2, h, mf := root[0], root[1], root[2], root[3], root[4], root[5]
 	wantF := []float64{
 		p1,                                      // ∂/∂p1 = 1
 		math.Max(math.Max(p1, p2), 2*2e4*m1*m1), // 1, −1, −2·k1·m1
 		math.Max(p2, 2*5e4*m2*m2),               // 1, −2·k2·m2
 		math.Max(m1, m2),                        // 1, −1
 		math.Max((h-4.2e5)*m2, m2*h),            // h − 4.2e5 by m2, m2 by h
+		math.Max(mf, 0.005*m2),                  // 1 by mf, −0.005 by m2
 	}
 	xs, fs := sv.Scales()
 	for j, v := range root {

@@ -102,8 +102,10 @@ func (b *bratu) denseJacobian(j *mat.Dense, x []float64) error {
 	return nil
 }
 
+// problem returns the system with unit scales (so that the benchmarks
+// compare the same iterations whatever the scaling).
 func (b *bratu) problem(sparse bool) Problem {
-	p := Problem{Dim: b.n, Residual: b.residual, Pattern: b.pattern}
+	p := Problem{Dim: b.n, Residual: b.residual, Pattern: b.pattern, XScale: filled(b.n, 1), FScale: filled(b.n, 1)}
 	if sparse {
 		p.SparseJacobian = b.sparseJacobian
 	} else {
