@@ -161,6 +161,7 @@ func TestJobErrors(t *testing.T) {
 			`unknown_key.csv:1: column "COT 1.To": unknown key 'To'; did you mean 'to'?`,
 			`unknown_key.csv:1: unknown column "speed"`}},
 		{"job_errors.lua", []string{"rows[1]: hours must be a positive", `rows[2]: set.COT 1.mode must be "hold" or "heat_up"; got "heat"`, "rows[3]: phase is required", `"AB2" is not a boiler`}},
+		{"ege_fouling.lua", []string{`ege_fouling.lua:5: exhaust gas economiser "EGE": fouling_rate needs clean_interval`}},
 		{"audit_errors.lua", []string{"claimed: mass expected", "cargo heating.off cannot be sampled", "did you mean 'eta_factor'?", "low must not exceed high", "samples must be a whole number", "band must satisfy"}},
 	}
 	for _, tc := range tests {

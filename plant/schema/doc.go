@@ -52,6 +52,9 @@
 //     steam_production_kg_h, boiler_steam_kg_h, ege_steam_kg_h,
 //     dumped_kg_h, fuel_t and co2_t, and an audit day's "day".
 //
+// Added within version 2 (keys may be added without a new number): an
+// EGE's site correction, size, fouling, cold-end and soot keys.
+//
 // The Lua tables changed with version 2 to take the JSON's keys: a
 // total's fuel_saved_t is ege_fuel_saved_t, a study variant's
 // saved_fuel_t is fuel_saved_t and its totals are under "totals", a
@@ -189,7 +192,35 @@
 //	preheat_kW              the preheating section's duty, kW
 //	evaporator_gas_out_T_K  gas leaving the evaporator, K
 //	below_min_gas_T         the gas leaves below its minimum temperature
+//	                        (with fouling, just after cleaning)
 //	fuel_saved_kg_h         boiler fuel it saves, kg/h
+//	table_gas_kg_s, table_gas_in_T_K  the engine table's gas flow, kg/s,
+//	                        and temperature, K, at the load (its reference
+//	                        conditions)
+//	intake_air_T_K, coolant_T_K  the intake air and charge-air coolant the
+//	                        table was corrected to, K; null when not
+//	                        corrected for
+//	exhaust_T_correction_K  the exhaust temperature added by the site
+//	                        correction, K
+//	gas_flow_factor         the site correction's factor on the gas flow
+//	design_ua_W_K           the clean UA at the size's reference gas flow,
+//	                        W/K
+//	ua_W_K                  the evaporator's UA in the case (at its gas
+//	                        flow, fouled), W/K
+//	ua_fraction             that UA over the clean UA at the same flow
+//	fouling_lost_steam_kg_h  steam the fouling costs (clean less fouled, at
+//	                        the case's feed), kg/h
+//	acid_dew_point_T_K      the exhaust's acid dew point (Verhoff-Banchero),
+//	                        K; null without an exhaust fuel or sulphur
+//	preheat_water_in_T_K    the feed entering a preheating section, K; null
+//	                        without one or without an acid dew point
+//	below_acid_dew_margin   the gas outlet is within the margin of the acid
+//	                        dew point, or the preheater's feed or the drum's
+//	                        saturation lies below it
+//	soot_risk               the case runs at a load or gas velocity where
+//	                        soot builds up and soot fires are a known risk
+//	gas_velocity_m_s        gas velocity through the tube bank, m/s; null
+//	                        without a flow area
 //
 // A CONSUMER (type Consumer) is
 //

@@ -96,7 +96,8 @@ func demoCases(t testing.TB) []Case {
 // plant, with the indicative engine of plant-checks.md §7 [C]): at sea the
 // economiser and the boiler share the demand, on a light demand the
 // economiser's surplus goes to the dump condenser, in port it is out of
-// service.
+// service. The engine's table holds as given (no site correction), as the
+// sheet's check takes it.
 func egeCases(t testing.TB) []Case {
 	p := plant.New("Invented EGE Ship", plant.Options{})
 	drum := gauge(7)
@@ -105,7 +106,7 @@ func egeCases(t testing.TB) []Case {
 	must(t, p.Add(&plant.FeedTank{Base: plant.Base{Name: "hotwell"}, P: 1e5}))
 	must(t, p.Add(&plant.Header{Base: plant.Base{Name: "feed header"}}))
 	must(t, p.Add(&plant.ExhaustGasEconomiser{Base: plant.Base{Name: "EGE"}, Engine: engine, DrumP: drum,
-		DesignLoad: 1, DesignPinch: 15, GasCp: 1060}))
+		DesignLoad: 1, DesignPinch: 15, GasCp: 1060, Ambient: plant.AmbientAsGiven}))
 	must(t, p.Add(&plant.Boiler{Base: plant.Base{Name: "AB1"}, MCR: 10000.0 / 3600, DrumP: drum,
 		Efficiency: &plant.EfficiencyTable{Load: []float64{0.25, 1.1}, Eta: []float64{0.85, 0.85}},
 		Fuel:       plant.FuelSpec{Name: "HFO", LHV: 40.2e6, CO2Factor: 3.114}}))
