@@ -99,6 +99,23 @@ func demoCases(t testing.TB) []Case {
 // service. The engine's table holds as given (no site correction), as the
 // sheet's check takes it.
 func egeCases(t testing.TB) []Case {
+	p := egePlant(t)
+	var out []Case
+	for _, c := range []plant.Case{
+		{Name: "at sea", Conditions: plant.Conditions{SeaT: 288.15, AirT: 288.15, EngineLoad: 1}},
+		{Name: "at sea, light load", Conditions: plant.Conditions{SeaT: 288.15, AirT: 288.15, EngineLoad: 1},
+			Set: []plant.Setting{{Unit: "heating", Param: "steam", Value: 500.0 / 3600}}},
+		{Name: "in port", Conditions: plant.Conditions{SeaT: 288.15, AirT: 288.15}},
+	} {
+		cr, err := p.Solve(context.Background(), c)
+		must(t, err)
+		out = append(out, Case{Plant: p.Name, Result: cr})
+	}
+	return out
+}
+
+// egePlant is the plant of egeCases.
+func egePlant(t testing.TB) *plant.Plant {
 	p := plant.New("Invented EGE Ship", plant.Options{})
 	drum := gauge(7)
 	engine := plant.EngineExhaust{MCR: 15e6, Load: []float64{0.3, 1}, Specific: []float64{8.5 / 3.6e6, 8.5 / 3.6e6}, T: []float64{513.15, 513.15}}
@@ -122,18 +139,7 @@ func egeCases(t testing.TB) []Case {
 	p.Connect("to heating", plant.Pos{}, "main", "out", "heating", "in")
 	p.Connect("to dump", plant.Pos{}, "main", "out", "dump", "in")
 	p.Connect("dump return", plant.Pos{}, "dump", "out", "hotwell", "in")
-	var out []Case
-	for _, c := range []plant.Case{
-		{Name: "at sea", Conditions: plant.Conditions{SeaT: 288.15, AirT: 288.15, EngineLoad: 1}},
-		{Name: "at sea, light load", Conditions: plant.Conditions{SeaT: 288.15, AirT: 288.15, EngineLoad: 1},
-			Set: []plant.Setting{{Unit: "heating", Param: "steam", Value: 500.0 / 3600}}},
-		{Name: "in port", Conditions: plant.Conditions{SeaT: 288.15, AirT: 288.15}},
-	} {
-		cr, err := p.Solve(context.Background(), c)
-		must(t, err)
-		out = append(out, Case{Plant: p.Name, Result: cr})
-	}
-	return out
+	return p
 }
 
 func golden(t *testing.T, name string, got []byte) []byte {
