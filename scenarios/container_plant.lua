@@ -35,6 +35,14 @@ return steam_plant {
     -- engine draws engine-room air, taken 10 K above the outside air
     -- (invented, common practice, no source).
     intake_rise = "10 K",
+    -- The engine burns VLSFO with 13 % O2 in its dry exhaust (invented): the
+    -- exhaust's enthalpy by the NASA polynomials and its acid dew point.
+    exhaust_fuel = "VLSFO", exhaust_O2 = "13 %",
+    -- Soot on the gas side grows by 0.001 m2K/W per 1000 h of running on a
+    -- clean surface of U 40 W/m2K, and water washing every 2000 h removes it
+    -- (invented, within heat-transfer.md §5: soot allowances 0.001-0.005
+    -- m2K/W [CP/M], U about 40 W/m2K in its worked example [C]).
+    fouling_rate = "0.001 m2K/W", clean_U = "40 W/m2K", clean_interval = "2000 h",
   },
   dump_condenser = { subcool = "80 K" },
   consumers = {
