@@ -922,9 +922,13 @@ func (u *ExhaustGasEconomiser) fouledSide(h heat.GasEnthalpy, m, tIn, tSat, ua f
 }
 
 // bypass finds the fraction of gas that must pass the economiser so that
-// the mixed gas leaves at MinGasOutT, by bisection (the mixed temperature
-// falls monotonically as more gas goes through). It returns the bypassed
-// fraction and the outlet of the gas that goes through.
+// the mixed gas leaves at MinGasOutT. The mixed enthalpy falls
+// monotonically as more gas goes through, so the root is bracketed by all
+// gas bypassed and none; it is found by regula falsi with the Illinois
+// modification (Dowell and Jarratt, BIT 11 (1971), from memory), which
+// keeps the bracket and converges superlinearly, to a share of 1e-12. It
+// returns the bypassed fraction and the outlet of the gas that goes
+// through.
 func (u *ExhaustGasEconomiser) bypass(h heat.GasEnthalpy, m, tIn, tSat, ua0 float64) (float64, float64, error) {
 	hIn, _ := h(tIn)
 	hMin, _ := h(u.MinGasOutT)
@@ -941,23 +945,52 @@ func (u *ExhaustGasEconomiser) bypass(h heat.GasEnthalpy, m, tIn, tSat, ua0 floa
 		return f*hOut + (1-f)*hIn, tOut, nil
 	}
 	lo, hi := 0.0, 1.0
-	for k := 0; k < 60; k++ {
-		mid := 0.5 * (lo + hi)
-		hm, _, err := mixed(mid)
-		if err != nil {
-			return 0, 0, err
-		}
-		if hm > hMin {
-			lo = mid
-		} else {
-			hi = mid
-		}
-	}
-	_, tOut, err := mixed(lo)
+	glo := hIn - hMin
+	hm1, tOut, err := mixed(1)
 	if err != nil {
 		return 0, 0, err
 	}
-	return 1 - lo, tOut, nil
+	ghi := hm1 - hMin
+	if !(glo > 0) || !(ghi < 0) {
+		// Nothing to bypass, or the minimum is the inlet itself.
+		if ghi >= 0 {
+			return 0, tOut, nil
+		}
+		return 1, tIn, nil
+	}
+	f, side := 1.0, 0
+	for k := 0; k < 100 && hi-lo > 1e-12; k++ {
+		f = (lo*ghi - hi*glo) / (ghi - glo)
+		if !(f > lo && f < hi) {
+			f = 0.5 * (lo + hi)
+		}
+		hm, t, err := mixed(f)
+		if err != nil {
+			return 0, 0, err
+		}
+		g := hm - hMin
+		tOut = t
+		switch {
+		case g == 0:
+			return 1 - f, tOut, nil
+		case g > 0:
+			lo, glo = f, g
+			if side == +1 {
+				ghi /= 2
+			}
+			side = +1
+		default:
+			hi, ghi = f, g
+			if side == -1 {
+				glo /= 2
+			}
+			side = -1
+		}
+		if math.Abs(g) <= 1e-12*math.Abs(hIn) {
+			break
+		}
+	}
+	return 1 - f, tOut, nil
 }
 
 // dewPoint finds the exhaust's acid dew point (Verhoff–Banchero) from the

@@ -340,3 +340,44 @@ func TestGauss8(t *testing.T) {
 		}
 	}
 }
+
+// BenchmarkEGEPrepare times the economiser's gas side for one case (what
+// prepare does once per case, outside the Newton iterations): a constant
+// cp; the exhaust of VLSFO by the NASA polynomials; with soot fouling
+// averaged over the cleaning interval (eight ratings); and with a bypass
+// holding the minimum gas temperature (a bisection per rating).
+func BenchmarkEGEPrepare(b *testing.B) {
+	vlsfo, err := fuel.Grade("VLSFO")
+	if err != nil {
+		b.Fatal(err)
+	}
+	cases := []struct {
+		name string
+		set  func(e *ExhaustGasEconomiser)
+	}{
+		{"constant-cp", func(e *ExhaustGasEconomiser) {}},
+		{"nasa", func(e *ExhaustGasEconomiser) { e.GasCp, e.ExhaustFuel, e.ExhaustO2 = 0, &vlsfo, 0.13 }},
+		{"nasa-fouling", func(e *ExhaustGasEconomiser) {
+			e.GasCp, e.ExhaustFuel, e.ExhaustO2 = 0, &vlsfo, 0.13
+			e.FoulingRate, e.CleanU, e.CleanInterval = 0.001, 40, 2000*3600
+		}},
+		{"nasa-fouling-bypass", func(e *ExhaustGasEconomiser) {
+			e.GasCp, e.ExhaustFuel, e.ExhaustO2 = 0, &vlsfo, 0.13
+			e.FoulingRate, e.CleanU, e.CleanInterval = 0.001, 40, 2000*3600
+			e.MinGasOutT, e.Bypass = 273.15+200, true
+		}},
+	}
+	for _, tc := range cases {
+		b.Run(tc.name, func(b *testing.B) {
+			p, e := egeOnly(b, 0.65)
+			tc.set(e)
+			cond := Conditions{SeaT: 288.15, AirT: 283.15, EngineLoad: 0.8}
+			for b.Loop() {
+				if err := e.prepare(p, cond); err != nil {
+					b.Fatal(err)
+				}
+			}
+			b.ReportMetric(e.op.gas.q/1e3, "duty-kW")
+		})
+	}
+}
