@@ -186,3 +186,23 @@ func TestHandCheckTankerPort(t *testing.T) {
 		t.Errorf("blowdown fraction off by %g", d)
 	}
 }
+
+// TestScenariosCheckMode runs every scenario in check mode, where nothing
+// is solved and the jobs return their shape with zero figures: a script's
+// own arithmetic on those tables must still run (common practice, no
+// source: check mode is how a user tries a script before solving it).
+func TestScenariosCheckMode(t *testing.T) {
+	t.Parallel()
+	for _, name := range scripts(t) {
+		t.Run(name, func(t *testing.T) {
+			t.Parallel()
+			src, err := fs.ReadFile(scenarios.FS, name)
+			if err != nil {
+				t.Fatal(err)
+			}
+			if _, err := scripting.RunSource(context.Background(), name, src, scenarios.FS, scripting.Options{CheckOnly: true, Timeout: time.Minute}); err != nil {
+				t.Errorf("%s in check mode: %v", name, err)
+			}
+		})
+	}
+}

@@ -628,13 +628,17 @@ func (r *runner) luaStudy(L *lua.LState) int {
 	if r.opt.CheckOnly {
 		res := &profile.StudyResult{Economics: econ, HasNPV: econ.LifeYears > 0}
 		empty := placeholderResult(rows.rows)
-		for _, v := range variants {
-			res.Variants = append(res.Variants, profile.VariantResult{Name: v.Name, Totals: empty.Total})
+		// The same shape as a solved study, with zero figures: every
+		// variant but the base has a payback and the first size is the
+		// best, so that a script's arithmetic on them runs.
+		for i, v := range variants {
+			res.Variants = append(res.Variants, profile.VariantResult{Name: v.Name, Totals: empty.Total,
+				Money: profile.Money{HasPayback: i > 0}})
 		}
 		if sw := spec.Sweep; sw != nil {
-			res.Sweep = &profile.SweepResult{Unit: sw.Unit, Param: sw.Param, Cost: sw.Cost, Best: -1}
+			res.Sweep = &profile.SweepResult{Unit: sw.Unit, Param: sw.Param, Cost: sw.Cost}
 			for _, x := range sw.Values {
-				res.Sweep.Points = append(res.Sweep.Points, profile.SweepPoint{Value: x, Totals: empty.Total})
+				res.Sweep.Points = append(res.Sweep.Points, profile.SweepPoint{Value: x, Totals: empty.Total, Money: profile.Money{HasPayback: true}})
 			}
 		}
 		r.out.Studies = append(r.out.Studies, rec)
