@@ -1180,8 +1180,14 @@ func (u *ExhaustGasEconomiser) coldEnd(ev *eval, cr *CaseResult, er *EGEResult, 
 	so3 := 100 * orElse(u.SO3Conversion, combustion.DefaultSO3Conversion)
 	if gasOut < dew+margin {
 		er.BelowDewMargin = true
-		cr.warn("%s %q: the gas leaves at %.1f °C, %s the exhaust's acid dew point of %.1f °C (Verhoff-Banchero, %s, %.1f %% of the SO2 as SO3) than the %.0f K margin: keep the gas outlet above the acid-dew and soot margins the maker states",
-			u.Kind(), u.Name, c(gasOut), nearer(gasOut, dew), c(dew), u.ExhaustFuel.Name, so3, margin)
+		where := fmt.Sprintf("only %.1f K above the exhaust's acid dew point of %.1f °C (Verhoff-Banchero, %s, %.1f %% of the SO2 as SO3), less than the %.0f K margin",
+			gasOut-dew, c(dew), u.ExhaustFuel.Name, so3, margin)
+		if gasOut <= dew {
+			where = fmt.Sprintf("below the exhaust's acid dew point of %.1f °C (Verhoff-Banchero, %s, %.1f %% of the SO2 as SO3): sulfuric acid condenses on the tubes",
+				c(dew), u.ExhaustFuel.Name, so3)
+		}
+		cr.warn("%s %q: the gas leaves at %.1f °C, %s; keep the gas outlet above the acid-dew and soot margins the maker states",
+			u.Kind(), u.Name, c(gasOut), where)
 	}
 	if preheat {
 		tw, err := tPH(ev.p(u.feed), ev.h(u.feed))
@@ -1199,14 +1205,6 @@ func (u *ExhaustGasEconomiser) coldEnd(ev *eval, cr *CaseResult, er *EGEResult, 
 		cr.warn("%s %q: the drum's saturation temperature %.1f °C is below the exhaust's acid dew point of %.1f °C: sulfuric acid condenses on the evaporator tubes",
 			u.Kind(), u.Name, c(u.op.tSat), c(dew))
 	}
-}
-
-// nearer words where t lies against the dew point: "nearer to" or "below".
-func nearer(t, dew float64) string {
-	if t < dew {
-		return fmt.Sprintf("%.1f K below", dew-t) + " rather than above, and further from"
-	}
-	return fmt.Sprintf("%.1f K above, nearer to", t-dew)
 }
 
 func (u *ExhaustGasEconomiser) jacobian(ev *eval, j jac) error {
