@@ -178,3 +178,69 @@ func gitignored(patterns, file string) bool {
 	}
 	return false
 }
+
+// TestUpdatePackagesListed keeps DEVELOPERS.md's -update line naming
+// exactly the packages whose tests take -update.
+func TestUpdatePackagesListed(t *testing.T) {
+	t.Parallel()
+	root := filepath.Join("..", "..")
+	doc, err := os.ReadFile(filepath.Join(root, "DEVELOPERS.md"))
+	if err != nil {
+		t.Fatal(err)
+	}
+	var line string
+	for _, l := range strings.Split(string(doc), "\n") {
+		if strings.HasPrefix(l, "go test ") && strings.HasSuffix(strings.TrimSpace(l), "-update") {
+			line = l
+		}
+	}
+	if line == "" {
+		t.Fatal("DEVELOPERS.md has no line `go test ... -update`")
+	}
+	listed := map[string]bool{}
+	for _, f := range strings.Fields(line) {
+		if strings.HasPrefix(f, "./") {
+			listed[strings.TrimSuffix(strings.TrimPrefix(f, "./"), "/...")] = true
+		}
+	}
+	have := map[string]bool{}
+	err = filepath.WalkDir(root, func(path string, d os.DirEntry, err error) error {
+		if err != nil {
+			return err
+		}
+		if d.IsDir() && (d.Name() == ".git" || d.Name() == "testdata") {
+			return filepath.SkipDir
+		}
+		if !strings.HasSuffix(path, "_test.go") {
+			return nil
+		}
+		b, err := os.ReadFile(path)
+		if err != nil {
+			return err
+		}
+		if strings.Contains(string(b), `flag.Bool("update"`) {
+			rel, _ := filepath.Rel(root, filepath.Dir(path))
+			have[filepath.ToSlash(rel)] = true
+		}
+		return nil
+	})
+	if err != nil {
+		t.Fatal(err)
+	}
+	for pkg := range have {
+		covered := listed[pkg]
+		for l := range listed {
+			if strings.HasPrefix(pkg, l+"/") && strings.Contains(line, "./"+l+"/...") {
+				covered = true
+			}
+		}
+		if !covered {
+			t.Errorf("package %s takes -update but DEVELOPERS.md's line does not name it: %s", pkg, line)
+		}
+	}
+	for l := range listed {
+		if !have[l] {
+			t.Errorf("DEVELOPERS.md names ./%s for -update, but its tests do not take the flag", l)
+		}
+	}
+}

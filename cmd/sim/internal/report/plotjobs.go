@@ -154,6 +154,7 @@ func PlotVoyage(w io.Writer, format string, v Voyage) error {
 		return err
 	}
 	dc := draw.New(canvas)
+	opaque(dc)
 	area := draw.Crop(dc, 0, -legW, 0, 0)
 	cs := plot.Align([][]*plot.Plot{{up}, {down}}, draw.Tiles{Rows: 2, Cols: 1, PadY: vg.Millimeter * 2}, area)
 	// Align lines up the panels' data areas; the upper panel takes 62 %
@@ -353,7 +354,7 @@ func (s *voyageSeries) upperPanel(v Voyage) (*plot.Plot, []legendEntry, error) {
 // lowerPanel draws the boiler fuel burnt.
 func (s *voyageSeries) lowerPanel() (*plot.Plot, legendEntry, error) {
 	down := plot.New()
-	down.X.Label.Text = "hours from the start of the voyage"
+	down.X.Label.Text = "time from the start of the voyage, h"
 	down.Y.Label.Text = "fuel, kg/h"
 	down.X.Min, down.X.Max = 0, s.hours
 	down.Y.Min, down.Y.Max = 0, s.topFuel*1.12
@@ -438,7 +439,9 @@ func PlotStudy(w io.Writer, format string, s Study) error {
 		if err != nil {
 			return err
 		}
-		p.Draw(draw.New(canvas))
+		dc := draw.New(canvas)
+		opaque(dc)
+		p.Draw(dc)
 		_, err = canvas.WriteTo(w)
 		return err
 	}
@@ -453,6 +456,7 @@ func PlotStudy(w io.Writer, format string, s Study) error {
 		return err
 	}
 	dc := draw.New(canvas)
+	opaque(dc)
 	p.Draw(draw.Crop(dc, 0, 0, sweepH, 0))
 	area := draw.Crop(dc, 0, 0, 0, -height-vg.Centimeter)
 	cs := plot.Align([][]*plot.Plot{{npv}, {dumped}}, draw.Tiles{Rows: 2, Cols: 1, PadY: vg.Millimeter * 2}, area)
@@ -795,6 +799,7 @@ func PlotAudit(w io.Writer, format string, a Audit) error {
 		return err
 	}
 	dc := draw.New(canvas)
+	opaque(dc)
 	p.Draw(draw.Crop(dc, 0, -legW, 0, 0))
 	legend.Draw(draw.Crop(dc, plotW+vg.Millimeter*3, 0, 0, 0))
 	_, err = canvas.WriteTo(w)
