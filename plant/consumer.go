@@ -147,6 +147,14 @@ func (u *Consumer) link(p *Plant, a *assembly, fs *faults) {
 // figures.
 func (u *Consumer) prepare(_ *Plant, c Conditions) error {
 	u.caseDuty = Duty{W: u.Duty, SteamKgS: u.SteamFlow, PerFuelJ: u.DutyPerFuel, SteamPerFuel: u.SteamPerFuel}
+	if m, ok := u.Model.(*TankHeating); ok && m.state.on {
+		if err := m.statePrepare(u, c); err != nil {
+			return wrapErr(u, err)
+		}
+		if u.Off {
+			return nil
+		}
+	}
 	if u.Model == nil || u.Off {
 		return nil
 	}
@@ -378,6 +386,11 @@ func (u *Consumer) report(ev *eval, cr *CaseResult) error {
 	})
 	for _, w := range u.caseDuty.Warnings {
 		cr.warn("%s %q: %s", u.Kind(), u.Name, w)
+	}
+	if m, ok := u.Model.(*TankHeating); ok {
+		if tr, ok := m.row(u.Name); ok {
+			cr.Tanks = append(cr.Tanks, tr)
+		}
 	}
 	cr.boundary.heatOut += duty + cooler
 	cr.boundary.massOut += lost

@@ -63,16 +63,51 @@ func Study(ctx context.Context, p *plant.Plant, rows []Row, variants []Variant, 
 		out.Hours += r.Hours
 	}
 	perYear := 8760 / out.Hours
-	for _, v := range variants {
+	vrows := make([][]Row, len(variants))
+	for k, v := range variants {
 		vr := make([]Row, len(rows))
 		for i, r := range rows {
 			c := r.Case
 			c.Set = append(append([]plant.Setting(nil), r.Case.Set...), v.Set...)
 			vr[i] = Row{Phase: r.Phase, Hours: r.Hours, Case: c}
 		}
-		res, err := Run(ctx, p, vr, opt)
+		vrows[k] = vr
+	}
+	results := make([]*Result, len(variants))
+	if len(opt.Tanks) > 0 {
+		// Each variant's rows run in order (its tanks carry their state);
+		// the variants run in parallel, each on its own clone.
+		for k, v := range variants {
+			if err := checkStateSettings(vrows[k], opt.Tanks, "study"); err != nil {
+				return nil, fmt.Errorf("variant %q: %w", v.Name, err)
+			}
+		}
+		if err := p.Check(); err != nil {
+			return nil, err
+		}
+		o := opt
+		o.defaults()
+		err := forEach(ctx, p, len(variants), o.Workers, func(ctx context.Context, pl *plant.Plant, k int) error {
+			res, err := runStateful(ctx, pl, vrows[k], opt.Tanks, nil)
+			if err != nil {
+				return fmt.Errorf("variant %q: %w", variants[k].Name, err)
+			}
+			results[k] = Sum(vrows[k], res)
+			return nil
+		}, nil)
 		if err != nil {
-			return nil, fmt.Errorf("variant %q: %w", v.Name, err)
+			return nil, err
+		}
+	}
+	for k, v := range variants {
+		vr := vrows[k]
+		res := results[k]
+		if res == nil {
+			var err error
+			res, err = Run(ctx, p, vr, opt)
+			if err != nil {
+				return nil, fmt.Errorf("variant %q: %w", v.Name, err)
+			}
 		}
 		x := VariantResult{Name: v.Name, Totals: res.Total}
 		for i, row := range res.Rows {
