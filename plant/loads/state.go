@@ -410,12 +410,14 @@ func (t *TankHeating) Advance(st Step, amb Ambient) (StepResult, error) {
 			return r, err
 		}
 		r.Capacity = cd.Q
-		s.uac = t.Coil.UA()
-		if t.Coil.Kind == DeckHeater && cd.Q > 0 {
-			// The capacity Q = ε·ṁ·c·(Ts − T) is linear in T with ε·ṁ·c
-			// taken at the period's start.
-			s.uac = cd.Q / (st.SteamT - st.T0)
+		// The same conductance as Period's: for a deck heater the
+		// capacity Q = ε·ṁ·c·(Ts − T) is linear in T with ε·ṁ·c taken
+		// at the period's start.
+		pp := Period{t: t, m: s.m, ua: s.ua, ta: s.ta, ts: st.SteamT, Dt: st.Dt, uac: t.Coil.UA()}
+		if t.Coil.Kind == DeckHeater {
+			pp.deck, pp.mc = true, t.Cargo.Density*t.Coil.Circulation
 		}
+		s.uac = pp.stepper(st.T0).uac
 	}
 	if _, err := t.Cargo.cp(st.T0); err != nil {
 		return r, c.wrap(err, "%s specific heat", t.Cargo.label())
@@ -679,4 +681,127 @@ func (t *TankHeating) flashWarning(T float64) string {
 		w += fmt.Sprintf(" (flash point not given: %.4g °C assumed, the ISO 8217 minimum of the grade)", celsius(t.FlashPoint))
 	}
 	return w
+}
+
+// Period is a tank's lumped model over one period at fixed surroundings
+// and steam, for a planner that tries many starting temperatures and
+// duties: each method gives what Advance gives for the same period and
+// instruction (the same closed forms, to the last bit for Off and Full),
+// checks nothing and allocates nothing. Build it with Tank.Period.
+type Period struct {
+	t      *TankHeating
+	m, ua  float64
+	ta, ts float64
+	uac    float64 // coil U·A (a steam coil)
+	Dt     float64 // s
+	deck   bool
+	mc     float64 // a deck heater's ρ·circulation (kg/s)
+}
+
+// Period returns the tank's period of dt seconds at the surroundings amb
+// with steam at steamT at the coil (zero: no steam, the coil gives
+// nothing), after checking the tank, the period and the temperatures.
+func (t *TankHeating) Period(dt float64, amb Ambient, steamT float64) (Period, error) {
+	c := checker{KindTankHeating, t.Name}
+	if err := t.check(c, amb); err != nil {
+		return Period{}, err
+	}
+	if err := c.positive("period", dt, "s"); err != nil {
+		return Period{}, err
+	}
+	if steamT != 0 {
+		if err := c.temp("steam temperature at the coil", steamT); err != nil {
+			return Period{}, err
+		}
+	}
+	p := Period{t: t, m: t.CargoVolume * t.Cargo.Density, ts: steamT, Dt: dt}
+	ua, uaT := t.ua(amb)
+	p.ua = ua
+	if ua > 0 {
+		p.ta = uaT / ua
+	}
+	if steamT > 0 && t.Coil.Given() {
+		p.uac = t.Coil.UA()
+		if t.Coil.Kind == DeckHeater {
+			p.deck = true
+			p.mc = t.Cargo.Density * t.Coil.Circulation
+		}
+	}
+	return p, nil
+}
+
+// stepper returns a stepper at T0 as Advance sets it up.
+func (p *Period) stepper(T0 float64) stepper {
+	s := stepper{t: p.t, c: checker{KindTankHeating, p.t.Name}, m: p.m, ua: p.ua, ta: p.ta, ts: p.ts, T: T0, left: p.Dt}
+	s.uac = p.uac
+	if p.deck && p.ts > T0 {
+		cp, err := p.t.Cargo.cp(T0)
+		if err == nil {
+			mc := p.mc * cp
+			s.uac = -math.Expm1(-p.uac/mc) * mc
+		}
+	}
+	return s
+}
+
+// Off returns the temperature at the period's end with the heating off
+// from T0, or NaN where the model fails (a temperature out of the
+// cargo's correlation range).
+func (p *Period) Off(T0 float64) float64 {
+	s := p.stepper(T0)
+	if _, err := s.off(p.Dt, 0); err != nil {
+		return math.NaN()
+	}
+	return s.T
+}
+
+// Full returns the temperature at the period's end with the coil at its
+// capacity all the period from T0, and the coil's mean duty (W); NaN
+// where the model fails.
+func (p *Period) Full(T0 float64) (T1, duty float64) {
+	s := p.stepper(T0)
+	if _, err := s.full(p.Dt, 0); err != nil {
+		return math.NaN(), math.NaN()
+	}
+	return s.T, s.coil / p.Dt
+}
+
+// Capacity returns the coil's capacity with the cargo at T (W), in the
+// linear form of the period (for a deck heater, ε·ṁ·c at T0).
+func (p *Period) Capacity(T0, T float64) float64 {
+	s := p.stepper(T0)
+	return s.capacity(T)
+}
+
+// Duty returns the constant duty (W) that brings the cargo from T0 to T1
+// in the period (DutyToReach); NaN where the model fails. Negative means
+// the cargo would not cool that far with the heating off.
+func (p *Period) Duty(T0, T1 float64) float64 {
+	s := p.stepper(T0)
+	q, err := p.t.dutyToReach(s.c, p.m, p.ua, p.ta, T0, T1, p.Dt)
+	if err != nil {
+		return math.NaN()
+	}
+	return q
+}
+
+// TimeFull returns the time the coil at its capacity takes to bring the
+// cargo from T0 to target with this period's surroundings (s), or false
+// when it levels out below the target; with the level it reaches (K).
+func (p *Period) TimeFull(T0, target float64) (float64, float64, bool) {
+	s := p.stepper(T0)
+	if s.uac <= 0 {
+		return 0, s.ta, false
+	}
+	K := s.ua + s.uac
+	teq := (s.ua*s.ta + s.uac*s.ts) / K
+	if target >= teq {
+		return 0, teq, false
+	}
+	x, err := p.t.newRelax(s.c, s.m, K, teq, T0)
+	if err != nil {
+		return 0, teq, false
+	}
+	tt, ok := x.timeTo(T0, target)
+	return tt, teq, ok
 }

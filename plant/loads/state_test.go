@@ -370,3 +370,49 @@ func TestAdvanceErrors(t *testing.T) {
 		})
 	}
 }
+
+// TestPeriodMatchesAdvance checks that a planner's Period gives what
+// Advance gives: the same end temperature with the heating off and at
+// full coil (to the last bit, so that a plan replayed as instructions
+// ends where it was planned), and the constant duty of a reach.
+func TestPeriodMatchesAdvance(t *testing.T) {
+	t.Parallel()
+	for _, kind := range []CoilKind{SteamCoil, DeckHeater} {
+		tank := hsfoTank(t)
+		if kind == DeckHeater {
+			tank.Coil = Coil{Kind: DeckHeater, Area: 60, U: 250, Circulation: 200.0 / 3600}
+		}
+		amb := Ambient{Sea: 279.15, Air: 271.15}
+		dt := 6 * 3600.0
+		p, err := tank.Period(dt, amb, tsat7)
+		if err != nil {
+			t.Fatal(err)
+		}
+		for _, T0 := range []float64{300.15, 315.4, 331.9} {
+			off, err := tank.Advance(Step{T0: T0, Dt: dt, Instr: HeatOff}, amb)
+			if err != nil {
+				t.Fatal(err)
+			}
+			if got := p.Off(T0); got != off.T1 {
+				t.Errorf("%v: Off(%g) %.17g, Advance %.17g", kind, T0, got, off.T1)
+			}
+			T1, duty := p.Full(T0)
+			full, err := tank.Advance(Step{T0: T0, Dt: dt, Instr: HeatTo, Target: T1, SteamT: tsat7}, amb)
+			if err != nil {
+				t.Fatal(err)
+			}
+			if full.T1 != T1 || full.Short || relErr(full.Duty, duty) > 1e-12 {
+				t.Errorf("%v: Full(%g) %.17g K %.9g W, Advance heat_to it %.17g K %.9g W short %v", kind, T0, T1, duty, full.T1, full.Duty, full.Short)
+			}
+			mid := 0.5 * (off.T1 + T1)
+			q := p.Duty(T0, mid)
+			reach, err := tank.Advance(Step{T0: T0, Dt: dt, Instr: ReachBy, Target: mid, Deadline: dt, SteamT: tsat7}, amb)
+			if err != nil {
+				t.Fatal(err)
+			}
+			if relErr(reach.Duty, q) > 1e-9 || math.Abs(reach.T1-mid) > 1e-9 {
+				t.Errorf("%v: Duty(%g → %g) %.9g W, Advance reach %.9g W to %.9g K", kind, T0, mid, q, reach.Duty, reach.T1)
+			}
+		}
+	}
+}
