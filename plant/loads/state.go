@@ -805,3 +805,16 @@ func (p *Period) TimeFull(T0, target float64) (float64, float64, bool) {
 	tt, ok := x.timeTo(T0, target)
 	return tt, teq, ok
 }
+
+// HeatTo returns the period's end from T0 under HeatTo target (the coil at
+// its capacity up to the target, then its losses; or the heating off
+// down to it), the coil's mean duty, and whether the coil gave its
+// capacity: what Advance gives, without its checks; NaN where the model
+// fails.
+func (p *Period) HeatTo(T0, target float64) (T1, duty float64, binds bool) {
+	s := p.stepper(T0)
+	if _, err := s.toward(target); err != nil {
+		return math.NaN(), math.NaN(), false
+	}
+	return s.T, s.coil / p.Dt, s.binds && p.uac > 0
+}
