@@ -30,7 +30,7 @@ func hourlyProblem(b *testing.B) *problem {
 			d.periods[r], d.heat[r] = p, true
 		}
 		d.req[n] = 330.15
-		must(b, d.grid(0.25, 3))
+		must(b, d.grid(0.25, 3, false))
 		pb.tanks = append(pb.tanks, d)
 	}
 	return pb

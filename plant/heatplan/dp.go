@@ -33,8 +33,13 @@ type tankDP struct {
 	periods []loads.Period // per row
 	heat    []bool         // per row: the coil may heat
 	start   float64        // K
-	lo, dT  float64        // the grid: lo + j·dT, j = 0 … n−1
-	n       int
+	// The grid at boundary b is base[b] + j·dT, j = 0 … n−1: the same
+	// steps, shifted so that the tank's frontier (the lowest temperature
+	// from which the coil still meets what lies ahead) is a grid point at
+	// every boundary (see grid).
+	base []float64
+	dT   float64
+	n    int
 	req     []float64 // per boundary 0 … rows: the temperature required there (0: none)
 	floor   float64   // never below (0: none)
 	// ctrls[r][off[r][j]:off[r][j+1]] are the controls from grid state j
@@ -43,8 +48,8 @@ type tankDP struct {
 	off   [][]int32
 }
 
-// T returns the temperature of grid state j.
-func (t *tankDP) T(j int) float64 { return t.lo + float64(j)*t.dT }
+// T returns the temperature of grid state j at boundary b.
+func (t *tankDP) T(b, j int) float64 { return t.base[b] + float64(j)*t.dT }
 
 // penalty is the cost of being at T at boundary b.
 func (t *tankDP) penalty(b int, T float64) float64 {
@@ -69,9 +74,10 @@ func (t *tankDP) controls(dst []ctrl, r int, T float64, snap bool) []ctrl {
 	if math.IsNaN(Toff) {
 		return dst
 	}
+	lo := t.base[r+1]
 	onGrid := func(x float64) bool {
-		k := math.Round((x - t.lo) / t.dT)
-		return math.Abs(t.lo+k*t.dT-x) <= 1e-9
+		k := math.Round((x - lo) / t.dT)
+		return math.Abs(lo+k*t.dT-x) <= 1e-9
 	}
 	if !snap || onGrid(Toff) {
 		dst = append(dst, ctrl{T1: Toff, kind: ctrlOff})
@@ -95,10 +101,10 @@ func (t *tankDP) controls(dst []ctrl, r int, T float64, snap bool) []ctrl {
 			dst = append(dst, ctrl{T1: T, Q: q, kind: ctrlHold})
 		}
 	}
-	jlo := int(math.Floor((Toff-t.lo)/t.dT)) + 1
-	jhi := int(math.Ceil((Tfull-t.lo)/t.dT)) - 1
+	jlo := int(math.Floor((Toff-lo)/t.dT)) + 1
+	jhi := int(math.Ceil((Tfull-lo)/t.dT)) - 1
 	for j := max(jlo, 0); j <= min(jhi, t.n-1); j++ {
-		T1 := t.T(j)
+		T1 := t.T(r+1, j)
 		if T1 <= Toff || T1 >= Tfull || math.Abs(T1-T) <= 1e-12 {
 			continue
 		}
@@ -118,7 +124,7 @@ func (t *tankDP) precompute(rows int, snap bool) {
 		off := make([]int32, t.n+1)
 		for j := 0; j < t.n; j++ {
 			off[j] = int32(len(cs))
-			cs = t.controls(cs, r, t.T(j), snap)
+			cs = t.controls(cs, r, t.T(r, j), snap)
 		}
 		off[t.n] = int32(len(cs))
 		t.ctrls[r], t.off[r] = cs, off
@@ -135,10 +141,10 @@ type problem struct {
 	snap  bool
 }
 
-// interp1 interpolates V at T on t's grid: +Inf outside the grid or next
-// to an infinite value.
-func interp1(t *tankDP, V []float64, T float64) float64 {
-	x := (T - t.lo) / t.dT
+// interp1 interpolates V at T on t's grid at boundary b: +Inf outside
+// the grid or next to an infinite value.
+func interp1(t *tankDP, V []float64, b int, T float64) float64 {
+	x := (T - t.base[b]) / t.dT
 	if x < -1e-9 || x > float64(t.n-1)+1e-9 {
 		return math.Inf(1)
 	}
@@ -159,11 +165,11 @@ func interp1(t *tankDP, V []float64, T float64) float64 {
 	case w >= 1-1e-9:
 		return V[j+1]
 	}
-	a, b := V[j], V[j+1]
-	if math.IsInf(a, 1) || math.IsInf(b, 1) {
+	v0, v1 := V[j], V[j+1]
+	if math.IsInf(v0, 1) || math.IsInf(v1, 1) {
 		return math.Inf(1)
 	}
-	return a + w*(b-a)
+	return v0 + w*(v1-v0)
 }
 
 // single solves the plan of tank i alone, the others' total duty in each
@@ -174,7 +180,7 @@ func (pb *problem) single(i int, others []float64) [][]float64 {
 	V := make([][]float64, pb.rows+1)
 	V[pb.rows] = make([]float64, t.n)
 	for j := range t.n {
-		V[pb.rows][j] = t.penalty(pb.rows, t.T(j))
+		V[pb.rows][j] = t.penalty(pb.rows, t.T(pb.rows, j))
 	}
 	for r := pb.rows - 1; r >= 0; r-- {
 		next := V[r+1]
@@ -189,12 +195,12 @@ func (pb *problem) single(i int, others []float64) [][]float64 {
 				if math.IsInf(f, 1) {
 					continue
 				}
-				v := dt*f + interp1(t, next, c.T1)
+				v := dt*f + interp1(t, next, r+1, c.T1)
 				if v < best {
 					best = v
 				}
 			}
-			cur[j] = best + t.penalty(r, t.T(j))
+			cur[j] = best + t.penalty(r, t.T(r, j))
 		}
 		V[r] = cur
 	}
@@ -224,7 +230,7 @@ func (pb *problem) forward1(i int, V [][]float64, others []float64) plan {
 			if math.IsInf(f, 1) {
 				continue
 			}
-			v := pb.dt[r]*f + interp1(t, V[r+1], c.T1)
+			v := pb.dt[r]*f + interp1(t, V[r+1], r+1, c.T1)
 			if v < best {
 				best, bc = v, c
 			}
@@ -355,7 +361,7 @@ func (pb *problem) joint() []plan {
 	pen := func(b int, idx []int) float64 {
 		p := 0.0
 		for i, t := range pb.tanks {
-			p += t.penalty(b, t.T(idx[i]))
+			p += t.penalty(b, t.T(b, idx[i]))
 		}
 		return p
 	}
@@ -424,7 +430,7 @@ func (pb *problem) bestJoint(r int, lists [][]ctrl, next []float64, Ts []float64
 			Ts[i] = c.T1
 		}
 		if f := pb.fuel[r].At(q); !math.IsInf(f, 1) {
-			v := pb.dt[r]*f + pb.interpK(next, Ts)
+			v := pb.dt[r]*f + pb.interpK(next, r+1, Ts)
 			if v < best {
 				best = v
 				if choice != nil {
@@ -450,12 +456,12 @@ func (pb *problem) bestJoint(r int, lists [][]ctrl, next []float64, Ts []float64
 
 // interpK interpolates the joint value function at the tanks'
 // temperatures, multilinear over the 2^k corners of the cell.
-func (pb *problem) interpK(V []float64, Ts []float64) float64 {
+func (pb *problem) interpK(V []float64, b int, Ts []float64) float64 {
 	k := len(pb.tanks)
 	base := make([]int, k)
 	w := make([]float64, k)
 	for i, t := range pb.tanks {
-		x := (Ts[i] - t.lo) / t.dT
+		x := (Ts[i] - t.base[b]) / t.dT
 		if x < -1e-9 || x > float64(t.n-1)+1e-9 {
 			return math.Inf(1)
 		}
@@ -520,7 +526,7 @@ func (pb *problem) joint2Row(r int, next []float64) []float64 {
 		cs := t.ctrls[r]
 		out := make([]end, len(cs))
 		for i, c := range cs {
-			x := (c.T1 - t.lo) / t.dT
+			x := (c.T1 - t.base[r+1]) / t.dT
 			e := end{j: -1, q: c.Q}
 			if x >= -1e-9 && x <= float64(t.n-1)+1e-9 {
 				j := min(max(int(math.Floor(x)), 0), max(t.n-2, 0))
@@ -562,7 +568,7 @@ func (pb *problem) joint2Row(r int, next []float64) []float64 {
 	}
 	for ja := 0; ja < na; ja++ {
 		ca := ea[a.off[r][ja]:a.off[r][ja+1]]
-		pa := a.penalty(r, a.T(ja))
+		pa := a.penalty(r, a.T(r, ja))
 		for jb := 0; jb < nb; jb++ {
 			cb := eb[b.off[r][jb]:b.off[r][jb+1]]
 			best := math.Inf(1)
@@ -583,7 +589,7 @@ func (pb *problem) joint2Row(r int, next []float64) []float64 {
 					}
 				}
 			}
-			out[ja*nb+jb] = best + pa + b.penalty(r, b.T(jb))
+			out[ja*nb+jb] = best + pa + b.penalty(r, b.T(r, jb))
 		}
 	}
 	return out

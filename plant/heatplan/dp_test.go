@@ -40,7 +40,7 @@ func smallProblem(t testing.TB, snap bool) *problem {
 			d.periods[r] = p
 		}
 		d.req[3] = req
-		must(t, d.grid(1, 3))
+		must(t, d.grid(1, 3, snap))
 		d.precompute(3, snap)
 		return d
 	}

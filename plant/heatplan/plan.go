@@ -52,7 +52,7 @@ type Options struct {
 	// enough, see JointBudget; descent otherwise).
 	Method string
 	// JointBudget bounds the work of the joint programme in the automatic
-	// choice: rows × Π(grid states) × Π(mean controls); zero means 2e8.
+	// choice: rows × Π(grid states) × Π(mean controls); zero means 2e7.
 	JointBudget float64
 	// MaxSweeps bounds the coordinate descent's sweeps; zero means 20.
 	MaxSweeps int
@@ -69,7 +69,7 @@ func (o *Options) defaults() {
 		o.Headroom = 3
 	}
 	if o.JointBudget <= 0 {
-		o.JointBudget = 2e8
+		o.JointBudget = 2e7
 	}
 	if o.MaxSweeps <= 0 {
 		o.MaxSweeps = 20
@@ -326,7 +326,7 @@ func Plan(ctx context.Context, p *plant.Plant, rows []profile.Row, tanks []Tank,
 		}
 	}
 	for i, d := range dps {
-		if err := d.grid(opt.Grid, opt.Headroom); err != nil {
+		if err := d.grid(opt.Grid, opt.Headroom, false); err != nil {
 			return nil, fmt.Errorf("%stank %q: %w", posPrefix(tanks[i].Pos), d.name, err)
 		}
 	}
@@ -339,7 +339,7 @@ func Plan(ctx context.Context, p *plant.Plant, rows []profile.Row, tanks []Tank,
 		for i, d := range dps {
 			active[r][i] = d.heat[r]
 			if d.heat[r] {
-				qmax[r] += d.periods[r].Capacity(d.lo, d.lo)
+				qmax[r] += d.periods[r].Capacity(d.lowT(), d.lowT())
 			}
 		}
 	}
@@ -511,48 +511,144 @@ func outcomeT(o *Outcome, i, b int, name string) float64 {
 	return math.NaN()
 }
 
-// grid sets the tank's temperature grid: from below the lowest it can
-// fall to (its cool-down with the heating off all the voyage, or its
-// never-below temperature) to the headroom above the highest it must
-// have, one point on the highest required temperature.
-func (d *tankDP) grid(step, headroom float64) error {
-	low, high := d.start, d.start
-	T := d.start
+// grid sets the tank's temperature grid, boundary by boundary: steps of
+// step kelvin, from below the lowest the cargo can fall to (its cool-down
+// with the heating off all the voyage, or its never-below temperature) to
+// headroom above the highest it must have. Unless flat, the grid of each
+// boundary is shifted so that the tank's frontier there is a grid point:
+// the lowest temperature from which the coil, at its capacity, still meets
+// every requirement ahead (found backwards from them through the exact
+// full-coil step). The value of a state just below the frontier is then
+// never interpolated with one above it, which with the steep cost of a
+// miss would make the plan start heating early. A requirement the coil
+// cannot meet even heating from the first row is lowered, for the
+// programme, to what that heating reaches (the plan then reports the
+// miss); so is a never-below temperature.
+func (d *tankDP) grid(step, headroom float64, flat bool) error {
+	rows := len(d.periods)
+	coast := make([]float64, rows+1) // heating off all the way
+	full := make([]float64, rows+1)  // coil at its capacity all the way
+	coast[0], full[0] = d.start, d.start
 	for r := range d.periods {
-		T = d.periods[r].Off(T)
-		if math.IsNaN(T) {
-			return fmt.Errorf("row %d: the cool-down leaves the cargo's correlation range", r+1)
+		coast[r+1] = d.periods[r].Off(coast[r])
+		if d.heat[r] {
+			full[r+1], _ = d.periods[r].Full(full[r])
+		} else {
+			full[r+1] = d.periods[r].Off(full[r])
 		}
-		low = math.Min(low, T)
+		if math.IsNaN(coast[r+1]) || math.IsNaN(full[r+1]) {
+			return fmt.Errorf("row %d: the cargo leaves its specific heat correlation's range", r+1)
+		}
 	}
-	anchor := 0.0
-	for _, q := range d.req {
-		anchor = math.Max(anchor, q)
+	high := d.start
+	for b, q := range d.req {
+		if q > 0 {
+			high = math.Max(high, q)
+			d.req[b] = math.Min(q, full[b])
+		}
 	}
 	if d.floor > 0 {
-		low = math.Min(low, d.floor)
 		high = math.Max(high, d.floor)
 	}
-	if anchor > 0 {
-		high = math.Max(high, anchor)
-	} else {
-		anchor = d.start
-	}
-	low -= step
 	high += headroom
-	d.dT = step
-	d.lo = anchor - step*math.Ceil((anchor-low)/step)
-	if d.lo < 253.15 {
-		d.lo = anchor - step*math.Floor((anchor-253.15)/step)
+	floorAt := func(b int) float64 {
+		if d.floor > 0 && b > 0 {
+			return math.Min(d.floor, full[b])
+		}
+		return 0
 	}
-	d.n = int(math.Floor((high-d.lo)/step+1e-9)) + 1
+	// The frontier, backwards.
+	front := make([]float64, rows+1)
+	front[rows] = math.Max(d.req[rows], floorAt(rows))
+	for b := rows - 1; b >= 0; b-- {
+		f := 0.0
+		if next := front[b+1]; next > 0 {
+			f = d.inverse(b, next)
+		}
+		front[b] = math.Max(f, math.Max(d.req[b], floorAt(b)))
+	}
+	d.dT = step
+	d.base = make([]float64, rows+1)
+	anchor := d.start
+	for _, q := range d.req {
+		if q > 0 {
+			anchor = math.Max(anchor, q)
+		}
+	}
+	last := anchor
+	for b := range d.base {
+		shift := anchor
+		if !flat {
+			if front[b] > 0 {
+				last = front[b]
+			}
+			shift = last
+		}
+		d.base[b] = shift
+	}
+	// z = T − shift at each boundary: from the lowest below to the highest.
+	zlo, zhi := 0.0, 0.0
+	for b := range d.base {
+		low := math.Min(coast[b], d.start)
+		if f := floorAt(b); f > 0 {
+			low = math.Min(low, f)
+		}
+		low = math.Max(low, 253.15+step)
+		zlo = math.Min(zlo, low-step-d.base[b])
+		zhi = math.Max(zhi, high-d.base[b])
+	}
+	zlo = -step * math.Ceil(-zlo/step-1e-9)
+	d.n = int(math.Floor((zhi-zlo)/step+1e-9)) + 1
 	if d.n < 2 {
 		d.n = 2
 	}
 	if d.n > 20000 {
-		return fmt.Errorf("the grid of %d temperatures from %.1f °C to %.1f °C at %.3g K is too fine", d.n, d.lo-273.15, high-273.15, step)
+		return fmt.Errorf("the grid of %d temperatures at %.3g K is too fine", d.n, step)
+	}
+	for b := range d.base {
+		d.base[b] += zlo
 	}
 	return nil
+}
+
+// lowT returns the lowest temperature of the tank's grids.
+func (d *tankDP) lowT() float64 {
+	lo := math.Inf(1)
+	for _, b := range d.base {
+		lo = math.Min(lo, b)
+	}
+	return lo
+}
+
+// inverse returns the temperature at boundary b from which row b ends at
+// T1 with the coil at its capacity (or, in a row it may not heat, with
+// the heating off): the full-coil step is increasing in its start, so by
+// bisection, to 1e-10 K.
+func (d *tankDP) inverse(b int, T1 float64) float64 {
+	p := &d.periods[b]
+	step := func(T0 float64) float64 {
+		if d.heat[b] {
+			T, _ := p.Full(T0)
+			return T
+		}
+		return p.Off(T0)
+	}
+	lo, hi := math.Max(T1-150, 253.2), math.Min(T1+150, 520)
+	if v := step(lo); !(v < T1) {
+		return lo
+	}
+	if v := step(hi); !(v >= T1) {
+		return hi
+	}
+	for hi-lo > 1e-10 {
+		mid := 0.5 * (lo + hi)
+		if v := step(mid); v >= T1 {
+			hi = mid
+		} else {
+			lo = mid
+		}
+	}
+	return hi
 }
 
 // jointWork estimates the joint programme's work: rows × Π n × Π mean
