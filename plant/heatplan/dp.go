@@ -37,11 +37,11 @@ type tankDP struct {
 	// steps, shifted so that the tank's frontier (the lowest temperature
 	// from which the coil still meets what lies ahead) is a grid point at
 	// every boundary (see grid).
-	base []float64
-	dT   float64
-	n    int
-	req     []float64 // per boundary 0 … rows: the temperature required there (0: none)
-	floor   float64   // never below (0: none)
+	base  []float64
+	dT    float64
+	n     int
+	req   []float64 // per boundary 0 … rows: the temperature required there (0: none)
+	floor float64   // never below (0: none)
 	// ctrls[r][off[r][j]:off[r][j+1]] are the controls from grid state j
 	// in row r.
 	ctrls [][]ctrl
