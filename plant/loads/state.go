@@ -82,9 +82,11 @@ type StepResult struct {
 	// asked more than it can give, or a heat-up ran at full coil).
 	Capacity      float64
 	CapacityBinds bool
-	// Short says the instruction could not be met: HoldTemp or HeatTo did not
-	// reach its target within the period, or ReachBy will not reach it by
-	// the deadline at the coil's capacity.
+	// Short says the coil cannot give what the instruction asks: the
+	// losses at a temperature to hold are more than its capacity, or
+	// ReachBy will not reach its target by the deadline at the coil's
+	// capacity. A heat-up that has not reached its target by the period's
+	// end is not short.
 	Short bool
 	// Mass (kg), UA (W/K) and AmbientT (K, UA-weighted) of the tank.
 	Mass, UA, AmbientT float64
@@ -431,9 +433,9 @@ func (t *TankHeating) Advance(st Step, amb Ambient) (StepResult, error) {
 		if target == 0 {
 			target = st.T0
 		}
-		var ok bool
-		ok, err = s.toward(target)
-		r.Short = !ok && err == nil
+		// Not reaching the target within the period is a heat-up (or a
+		// cool-down) under way, not a shortfall.
+		_, err = s.toward(target)
 	case ReachBy:
 		err = s.reach(&r, st)
 	}
@@ -462,6 +464,8 @@ func (t *TankHeating) Advance(st Step, amb Ambient) (StepResult, error) {
 // at the deadline, within the coil's capacity, then holds it.
 func (s *stepper) reach(r *StepResult, st Step) error {
 	if st.Deadline <= 0 {
+		// Past the deadline: short if the target is not reached in this
+		// period.
 		ok, err := s.toward(st.Target)
 		r.Short = !ok && err == nil
 		return err
@@ -659,8 +663,8 @@ func (t *TankHeating) stepWarnings(r *StepResult, st Step) {
 			r.Capacity/1e3, celsius(st.T0), celsius(st.Target)))
 	case r.Short:
 		r.Warnings = append(r.Warnings, fmt.Sprintf(
-			"the cargo ends the period at %.4g °C, short of the %.4g °C asked: the coil gives at most %.4g kW at %.4g °C",
-			celsius(r.T1), celsius(st.Target), r.Capacity/1e3, celsius(st.T0)))
+			"the losses at %.4g °C are more than the coil gives (%.4g kW at %.4g °C): the cargo ends the period at %.4g °C",
+			celsius(st.Target), r.Capacity/1e3, celsius(st.T0), celsius(r.T1)))
 	}
 	if r.UA > 0 && (st.Instr == HoldTemp || st.Instr == HeatTo) && st.Target != 0 && st.Target < r.AmbientT {
 		r.Warnings = append(r.Warnings, fmt.Sprintf(
