@@ -249,7 +249,7 @@ func (r *runner) luaHeatingPlan(L *lua.LState) int {
 	job := schema.Job{Name: name, Plant: ph.p.Name, Source: a.pos.String(), RowSources: posStrings(rows.pos)}
 	if r.opt.CheckOnly {
 		r.out.HeatingPlans = append(r.out.HeatingPlans, rec)
-		L.Push(r.schemaTable(fmt.Sprintf("heating plan %q", name), schema.NewHeatingPlan(job, &heatplan.Result{})))
+		L.Push(r.schemaTable(fmt.Sprintf("heating plan %q", name), schema.NewHeatingPlan(job, placeholderPlan(specs, reqs, rows.rows))))
 		return 1
 	}
 	q, err := resolve(reqs, rows.rows, a.pos)
@@ -272,4 +272,54 @@ func (r *runner) luaHeatingPlan(L *lua.LState) int {
 	r.out.HeatingPlans = append(r.out.HeatingPlans, rec)
 	L.Push(r.schemaTable(fmt.Sprintf("heating plan %q", name), schema.NewHeatingPlan(job, res)))
 	return 1
+}
+
+// placeholderPlan is a heating plan's result in check mode: its tanks,
+// their required temperatures and a row per period, zero figures.
+func placeholderPlan(specs []tankSpec, reqs []reqSpec, rows []profile.Row) *heatplan.Result {
+	res := &heatplan.Result{}
+	start := 0.0
+	for i, r := range rows {
+		res.Rows = append(res.Rows, heatplan.RowPlan{Index: i, Phase: r.Phase, Hours: r.Hours, StartH: start})
+		start += r.Hours
+	}
+	for _, s := range specs {
+		tp := heatplan.TankPlan{Unit: s.unit, StartT: s.T, NeverBelow: s.neverBelow}
+		for range rows {
+			tp.Rows = append(tp.Rows, heatplan.TankRowPlan{Instruction: "off", T0: s.T, T1: s.T})
+		}
+		for _, q := range reqs {
+			if q.tank == s.unit {
+				tp.Required = append(tp.Required, heatplan.RequiredResult{
+					Requirement: heatplan.Requirement{Tank: q.tank, T: q.T, Label: q.label}, LatestStartRow: -1})
+			}
+		}
+		res.Tanks = append(res.Tanks, tp)
+	}
+	return res
+}
+
+// placeholderTanks gives every row of a voyage's check-mode table its
+// stateful tanks, at their starting temperatures with the heating off.
+func (r *runner) placeholderTanks(o lua.LValue, specs []tankSpec) {
+	t, ok := o.(*lua.LTable)
+	if !ok || len(specs) == 0 {
+		return
+	}
+	for _, row := range list(t, "rows") {
+		tanks := r.L.CreateTable(len(specs), 0)
+		for _, s := range specs {
+			e := r.L.CreateTable(0, 8)
+			e.RawSetString("name", lua.LString(s.unit))
+			e.RawSetString("instruction", lua.LString("off"))
+			e.RawSetString("start_T_K", lua.LNumber(s.T))
+			e.RawSetString("end_T_K", lua.LNumber(s.T))
+			e.RawSetString("duty_kW", lua.LNumber(0))
+			e.RawSetString("capacity_kW", lua.LNumber(0))
+			e.RawSetString("coil_binds", lua.LFalse)
+			e.RawSetString("short", lua.LFalse)
+			tanks.Append(e)
+		}
+		row.RawSetString("tanks", tanks)
+	}
 }

@@ -220,39 +220,39 @@ func Plan(ctx context.Context, p *plant.Plant, rows []profile.Row, tanks []Tank,
 	names := make([]string, len(tanks))
 	byName := map[string]int{}
 	for i, t := range tanks {
-		pre := posPrefix(t.Pos)
+		at := t.Pos
 		if _, dup := byName[t.Unit]; dup {
-			return nil, fmt.Errorf("%stank %q is given twice", pre, t.Unit)
+			return nil, profile.Errorf(at, "tank %q is given twice", t.Unit)
 		}
 		byName[t.Unit] = i
 		names[i] = t.Unit
 		// StartTank checks the unit, its coil and the temperature.
 		pc := p.Clone()
 		if err := pc.StartTank(t.Unit, t.StartT); err != nil {
-			return nil, fmt.Errorf("%s%w", pre, err)
+			return nil, profile.Errorf(at, "%w", err)
 		}
 		if t.NeverBelow != 0 && !(t.NeverBelow >= loads.MinTemperature && t.NeverBelow <= loads.MaxTemperature) {
-			return nil, fmt.Errorf("%stank %q: never-below temperature %.6g K is not plausible", pre, t.Unit, t.NeverBelow)
+			return nil, profile.Errorf(at, "tank %q: never-below temperature %.6g K is not plausible", t.Unit, t.NeverBelow)
 		}
 	}
 	for i, r := range rows {
 		for _, s := range r.Case.Set {
 			if _, ok := byName[s.Unit]; ok && (s.Param == "instruction" || s.Param == "T" || s.Param == "by" || s.Param == "mode" ||
 				s.Param == "from" || s.Param == "to" || s.Param == "duration" || s.Param == "factor") {
-				return nil, fmt.Errorf("%srow %d sets %s.%s, but the plan decides %q's heating: leave it out of the rows",
-					posPrefix(rowPos(s, r)), i+1, s.Unit, s.Param, s.Unit)
+				return nil, profile.Errorf(rowPos(s, r), "row %d sets %s.%s, but the plan decides %q's heating: leave it out of the rows",
+					i+1, s.Unit, s.Param, s.Unit)
 			}
 		}
 	}
 	// The requirements, at boundaries.
 	reqAt := make([][]int, len(reqs)) // boundaries each holds at
 	for k, q := range reqs {
-		pre := posPrefix(q.Pos)
+		at := q.Pos
 		if _, ok := byName[q.Tank]; !ok {
-			return nil, fmt.Errorf("%srequired temperature for %q, which is not a tank of the plan (tanks: %s)", pre, q.Tank, strings.Join(names, ", "))
+			return nil, profile.Errorf(at, "required temperature for %q, which is not a tank of the plan (tanks: %s)", q.Tank, strings.Join(names, ", "))
 		}
 		if !(q.T >= loads.MinTemperature && q.T <= loads.MaxTemperature) {
-			return nil, fmt.Errorf("%srequired temperature of %q %.6g K is not plausible", pre, q.Tank, q.T)
+			return nil, profile.Errorf(at, "required temperature of %q %.6g K is not plausible", q.Tank, q.T)
 		}
 		if q.Phase != "" {
 			for i, r := range rows {
@@ -264,18 +264,17 @@ func Plan(ctx context.Context, p *plant.Plant, rows []profile.Row, tanks []Tank,
 				}
 			}
 			if len(reqAt[k]) == 0 {
-				return nil, fmt.Errorf("%srequired at phase %q, but no row of the voyage has that phase (phases: %s)", pre, q.Phase, strings.Join(phases(rows), ", "))
+				return nil, profile.Errorf(at, "required at phase %q, but no row of the voyage has that phase (phases: %s)", q.Phase, strings.Join(phases(rows), ", "))
 			}
 			continue
 		}
 		total := bound[nr]
 		if q.At > total*(1+1e-12)+1e-6 || q.At < 0 {
-			return nil, fmt.Errorf("%srequired time %s (%.6g h) is past the end of the voyage at %.6g h", pre, q.Label, q.At/3600, total/3600)
+			return nil, profile.Errorf(at, "required time %s (%.6g h) is past the end of the voyage at %.6g h", q.Label, q.At/3600, total/3600)
 		}
 		b := sort.Search(nr+1, func(i int) bool { return bound[i] >= q.At-1e-6 })
 		if b > nr || math.Abs(bound[b]-q.At) > 1e-6 {
-			return nil, fmt.Errorf("%srequired time %s (%.6g h) falls inside row %d (%.6g h to %.6g h); give the time of a row's start or end, or a phase",
-				pre, q.Label, q.At/3600, b, bound[b-1]/3600, bound[b]/3600)
+			return nil, profile.Errorf(at, "required time %s (%.6g h) falls inside row %d (%.6g h to %.6g h); give the time of a row's start or end, or a phase", q.Label, q.At/3600, b, bound[b-1]/3600, bound[b]/3600)
 		}
 		reqAt[k] = []int{b}
 	}
@@ -294,12 +293,12 @@ func Plan(ctx context.Context, p *plant.Plant, rows []profile.Row, tanks []Tank,
 		if sp == 0 {
 			var err error
 			if sp, err = p.SupplyPressure(t.Unit); err != nil {
-				return nil, fmt.Errorf("%stank %q: %w", posPrefix(t.Pos), t.Unit, err)
+				return nil, profile.Errorf(t.Pos, "tank %q: %w", t.Unit, err)
 			}
 		}
 		ts, err := water.Tsat(sp)
 		if err != nil {
-			return nil, fmt.Errorf("%stank %q: steam at its coil: %w", posPrefix(t.Pos), t.Unit, err)
+			return nil, profile.Errorf(t.Pos, "tank %q: steam at its coil: %w", t.Unit, err)
 		}
 		steamT[i] = ts
 		d := &tankDP{name: t.Unit, start: t.StartT, floor: t.NeverBelow, periods: make([]loads.Period, nr),
@@ -307,12 +306,11 @@ func Plan(ctx context.Context, p *plant.Plant, rows []profile.Row, tanks []Tank,
 		for r, row := range rows {
 			amb := loads.Ambient{Sea: row.Case.Conditions.SeaT, Air: row.Case.Conditions.AirT}
 			if (m.UsesSea() && amb.Sea <= 0) || (m.UsesAir() && amb.Air <= 0) {
-				return nil, fmt.Errorf("%srow %d: tank %q loses heat to the sea and air: the row needs its sea and air temperatures",
-					posPrefix(row.Case.Pos), r+1, t.Unit)
+				return nil, profile.Errorf(row.Case.Pos, "row %d: tank %q loses heat to the sea and air: the row needs its sea and air temperatures", r+1, t.Unit)
 			}
 			pd, err := lt.Period(row.Hours*3600, amb, ts)
 			if err != nil {
-				return nil, fmt.Errorf("%srow %d: %w", posPrefix(row.Case.Pos), r+1, err)
+				return nil, profile.Errorf(row.Case.Pos, "row %d: %w", r+1, err)
 			}
 			d.periods[r] = pd
 			d.heat[r] = !rowSetsOff(row, t.Unit, p)
@@ -327,7 +325,7 @@ func Plan(ctx context.Context, p *plant.Plant, rows []profile.Row, tanks []Tank,
 	}
 	for i, d := range dps {
 		if err := d.grid(opt.Grid, opt.Headroom, false); err != nil {
-			return nil, fmt.Errorf("%stank %q: %w", posPrefix(tanks[i].Pos), d.name, err)
+			return nil, profile.Errorf(tanks[i].Pos, "tank %q: %w", d.name, err)
 		}
 	}
 
@@ -351,8 +349,7 @@ func Plan(ctx context.Context, p *plant.Plant, rows []profile.Row, tanks []Tank,
 	for r, row := range rows {
 		pb.dt[r] = row.Hours * 3600
 		if curves[r].Cap < 0 {
-			return nil, fmt.Errorf("%srow %d (%q): the plant cannot carry the row even with the planned tanks' heating off",
-				posPrefix(row.Case.Pos), r+1, row.Case.Name)
+			return nil, profile.Errorf(row.Case.Pos, "row %d (%q): the plant cannot carry the row even with the planned tanks' heating off", r+1, row.Case.Name)
 		}
 	}
 	for _, d := range dps {
@@ -969,13 +966,6 @@ func rowPos(s plant.Setting, r profile.Row) plant.Pos {
 		return s.Pos
 	}
 	return r.Case.Pos
-}
-
-func posPrefix(p plant.Pos) string {
-	if s := p.String(); s != "" {
-		return s + ": "
-	}
-	return ""
 }
 
 func phases(rows []profile.Row) []string {

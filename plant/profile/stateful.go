@@ -37,24 +37,18 @@ func checkStateSettings(rows []Row, tanks []TankStart, job string) error {
 			if !stateKeys[s.Param] {
 				continue
 			}
-			pos := s.Pos.String()
-			if pos == "" {
-				pos = r.Case.Pos.String()
-			}
-			if pos != "" {
-				pos += ": "
+			pos := s.Pos
+			if pos.File == "" {
+				pos = r.Case.Pos
 			}
 			if !on[s.Unit] {
 				if job != "voyage" {
-					return fmt.Errorf("%s%s row %d sets %s.%s: a tank's instruction belongs to a voyage, which carries the tank from row to row; a %s solves each row on its own",
-						pos, job, i+1, s.Unit, s.Param, job)
+					return Errorf(pos, "%s row %d sets %s.%s: a tank's instruction belongs to a voyage, which carries the tank from row to row; a %s solves each row on its own", job, i+1, s.Unit, s.Param, job)
 				}
-				return fmt.Errorf("%s%s row %d sets %s.%s, but %q is not carried from row to row in this %s: give tanks = { [%q] = \"40 C\" } with its starting temperature",
-					pos, job, i+1, s.Unit, s.Param, s.Unit, job, s.Unit)
+				return Errorf(pos, "%s row %d sets %s.%s, but %q is not carried from row to row in this %s: give tanks = { [%q] = \"40 C\" } with its starting temperature", job, i+1, s.Unit, s.Param, s.Unit, job, s.Unit)
 			}
 			if s.Param == "by" && s.Value > hours*3600*(1+1e-12) {
-				return fmt.Errorf("%s%s row %d: %s.by %.6g h is past the end of the %s at %.6g h",
-					pos, job, i+1, s.Unit, s.Value/3600, job, hours)
+				return Errorf(pos, "%s row %d: %s.by %.6g h is past the end of the %s at %.6g h", job, i+1, s.Unit, s.Value/3600, job, hours)
 			}
 		}
 	}
@@ -65,16 +59,13 @@ func checkStateSettings(rows []Row, tanks []TankStart, job string) error {
 func startTanks(pl *plant.Plant, tanks []TankStart) error {
 	seen := map[string]bool{}
 	for _, t := range tanks {
-		pre := t.Pos.String()
-		if pre != "" {
-			pre += ": "
-		}
+		at := t.Pos
 		if seen[t.Unit] {
-			return fmt.Errorf("%stank %q is given twice", pre, t.Unit)
+			return Errorf(at, "tank %q is given twice", t.Unit)
 		}
 		seen[t.Unit] = true
 		if err := pl.StartTank(t.Unit, t.T); err != nil {
-			return fmt.Errorf("%s%w", pre, err)
+			return Errorf(at, "%w", err)
 		}
 	}
 	return nil
@@ -104,4 +95,26 @@ func runStateful(ctx context.Context, pl *plant.Plant, rows []Row, tanks []TankS
 		}
 	}
 	return res, nil
+}
+
+// PosError is an error in the input of a profile at a position of the
+// script or its CSV file (a row, a setting, a tank given): Pos and the
+// message without it. Error gives "file:line: message".
+type PosError struct {
+	Pos plant.Pos
+	Err error
+}
+
+func (e *PosError) Error() string {
+	if s := e.Pos.String(); s != "" {
+		return s + ": " + e.Err.Error()
+	}
+	return e.Err.Error()
+}
+
+func (e *PosError) Unwrap() error { return e.Err }
+
+// Errorf returns a *PosError at pos.
+func Errorf(pos plant.Pos, format string, v ...any) error {
+	return &PosError{Pos: pos, Err: fmt.Errorf(format, v...)}
 }
