@@ -54,6 +54,9 @@ func writeHeatingPlan(w io.Writer, h HeatingPlan) {
 		hours += row.Hours
 	}
 	method := "one programme over the tanks' joint state"
+	if len(r.Tanks) == 1 {
+		method = "one programme over the tank's temperature"
+	}
 	if r.Method == "descent" {
 		method = fmt.Sprintf("coordinate descent, %d sweeps", r.Sweeps)
 	}
