@@ -572,26 +572,28 @@ func (d *tankDP) grid(step, headroom float64, flat bool) error {
 			anchor = math.Max(anchor, q)
 		}
 	}
-	last := anchor
+	// The shift: the frontier, or where the cargo is lowest with the
+	// heating off all the way when that is higher (below it no state is
+	// reachable; below the frontier none meets what lies ahead, so one
+	// grid step below the shift suffices).
 	for b := range d.base {
 		shift := anchor
 		if !flat {
-			if front[b] > 0 {
-				last = front[b]
-			}
-			shift = last
+			shift = math.Max(front[b], coast[b])
 		}
 		d.base[b] = shift
 	}
 	// z = T − shift at each boundary: from the lowest below to the highest.
-	zlo, zhi := 0.0, 0.0
+	zlo, zhi := -step, 0.0
 	for b := range d.base {
-		low := math.Min(coast[b], d.start)
-		if f := floorAt(b); f > 0 {
-			low = math.Min(low, f)
+		if flat {
+			low := math.Min(coast[b], d.start)
+			if f := floorAt(b); f > 0 {
+				low = math.Min(low, f)
+			}
+			low = math.Max(low, 253.15+step)
+			zlo = math.Min(zlo, low-step-d.base[b])
 		}
-		low = math.Max(low, 253.15+step)
-		zlo = math.Min(zlo, low-step-d.base[b])
 		zhi = math.Max(zhi, high-d.base[b])
 	}
 	zlo = -step * math.Ceil(-zlo/step-1e-9)

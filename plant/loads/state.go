@@ -609,18 +609,29 @@ func (t *TankHeating) dutyToReach(c checker, m, ua, ta, T0, T1, dt float64) (flo
 		dg = m / ua * (c1*l + cteq*(1/u1-1/u0))
 		return g, dg
 	}
-	// Bracket: near T1 the time is long (g > 0); far beyond it short.
-	lo := T1 // g → +∞ at T1 (exclusive)
-	span := math.Max(1, math.Abs(T1-T0))
-	hi := T1 + sgn*span
+	// Start from the constant-c solution (c at the mean of T0 and T1):
+	// T∞ = (T1 − T0·e)/(1 − e), e = exp(−dt/τ), τ = m·c/ΣUA. Bracket:
+	// near T1 the time is long (g > 0, +∞ at T1, exclusive); far beyond
+	// it short.
+	cm := ca0 + c1*(0.5*(T1-T0))
+	e := math.Exp(-dt * ua / (m * cm))
+	guess := (T1 - T0*e) / (1 - e)
+	lo, hi := T1, guess
+	if !((guess-T1)*sgn > 0) || math.IsInf(guess, 0) || math.IsNaN(guess) {
+		hi = T1 + sgn*math.Max(1, math.Abs(T1-T0))
+	}
 	for range 200 {
-		if g, _ := f(hi); g < 0 {
+		g, _ := f(hi)
+		if g < 0 {
 			break
 		}
-		span *= 2
-		hi = T1 + sgn*span
+		lo = hi
+		hi = T1 + 2*(hi-T1)
 	}
 	teq := hi
+	if (guess-lo)*(guess-hi) < 0 {
+		teq = guess
+	}
 	for range 200 {
 		g, dg := f(teq)
 		if g > 0 {
