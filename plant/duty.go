@@ -188,7 +188,18 @@ func (m *TankHeating) Duty(c Conditions) (Duty, error) {
 	if err != nil {
 		return Duty{}, err
 	}
-	res, err := m.Tank.Duty(amb)
+	tank := m.Tank
+	if tank.Coil.Given() {
+		if p := m.CoilP; p > 0 || m.state.steamP > 0 {
+			if p == 0 {
+				p = m.state.steamP
+			}
+			if ts, err := waterTsat(p); err == nil {
+				tank.SteamT = ts
+			}
+		}
+	}
+	res, err := tank.Duty(amb)
 	if err != nil {
 		return Duty{}, err
 	}
@@ -198,6 +209,9 @@ func (m *TankHeating) Duty(c Conditions) (Duty, error) {
 	}
 	if res.Mode == loads.HeatUp {
 		in["from_T_K"], in["duration_s"] = res.From, res.Duration
+	}
+	if res.Capacity > 0 {
+		in["capacity_W"] = res.Capacity
 	}
 	return Duty{W: res.Duty, Inputs: in, Warnings: res.Warnings}, nil
 }

@@ -416,3 +416,31 @@ func TestPeriodMatchesAdvance(t *testing.T) {
 		}
 	}
 }
+
+// TestDutyCappedByCoil checks that a plain heat-up (not a stateful tank)
+// that asks more than its coil gives is capped at the coil's capacity
+// U·A·(Ts − T) at the heat-up's mean temperature, and warned: 20 K in
+// 12 h of 12 000 m³ (heat exchanger textbooks, e.g. Incropera
+// ch. 11, for the capacity of a coil in a well-mixed tank).
+func TestDutyCappedByCoil(t *testing.T) {
+	t.Parallel()
+	tank := hsfoTank(t)
+	tank.Mode, tank.From, tank.To, tank.Duration = HeatUp, 303.15, 323.15, 12*3600
+	tank.SteamT = tsat7
+	r, err := tank.Duty(Ambient{Sea: 280.15, Air: 273.15})
+	if err != nil {
+		t.Fatal(err)
+	}
+	want := 60 * 900 * (tsat7 - 313.15) // the default U, 900 m², at the mean 40 °C
+	if !r.Capped || relErr(r.Duty, want) > 1e-12 || relErr(r.Capacity, want) > 1e-12 {
+		t.Errorf("duty %.6g W capped %v, want the coil's %.6g W", r.Duty, r.Capped, want)
+	}
+	if w := strings.Join(r.Warnings, "\n"); !strings.Contains(w, "the coil gives at most") || !strings.Contains(w, "heat-up takes longer") {
+		t.Errorf("warnings %q", r.Warnings)
+	}
+	tank.Duration = 30 * 86400 // slow enough for the coil
+	r, err = tank.Duty(Ambient{Sea: 280.15, Air: 273.15})
+	if err != nil || r.Capped {
+		t.Errorf("a 30-day heat-up capped: %+v %v", r, err)
+	}
+}

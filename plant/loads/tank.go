@@ -184,6 +184,10 @@ type TankHeating struct {
 	// MaxRate is the heat-up rate (K/s) above which Advance warns; zero
 	// means DefaultMaxHeatUpRate.
 	MaxRate float64
+	// SteamT is the saturation temperature of the steam at the coil (K)
+	// for Duty: with a coil and SteamT, Duty caps the duty at the coil's
+	// capacity and warns. Zero: Duty does not check the coil.
+	SteamT float64
 
 	// Mode: Hold (zero value) or HeatUp.
 	Mode TankMode
@@ -221,6 +225,11 @@ type TankResult struct {
 	AmbientT float64
 	// From, To, Duration echo the mode's inputs.
 	From, To, Duration float64
+	// Capacity is the coil's capacity at LossT (W), when the tank has a
+	// coil and its steam temperature; Capped says the duty was capped at
+	// it.
+	Capacity float64
+	Capped   bool
 	// Warnings lists cautions.
 	Warnings []string
 }
@@ -351,7 +360,32 @@ func (t *TankHeating) Duty(amb Ambient) (TankResult, error) {
 	if t.FlashPoint != 0 && t.To > t.FlashPoint-FlashPointMargin {
 		r.Warnings = append(r.Warnings, t.flashWarning(t.To))
 	}
+	if t.Coil.Given() && t.SteamT > 0 && r.Duty > 0 {
+		// The coil's capacity at the temperature the losses are taken at
+		// (the mean of a heat-up, where its capacity is its mean over
+		// the heat-up to first order) caps the duty.
+		cd, err := t.CoilCapacity(r.LossT, t.SteamT)
+		if err != nil {
+			return TankResult{Name: t.Name, Mode: t.Mode}, err
+		}
+		r.Capacity = cd.Q
+		if r.Duty > cd.Q {
+			r.Warnings = append(r.Warnings, fmt.Sprintf(
+				"the %s asks %.4g kW, the coil gives at most %.4g kW at %.4g °C (U·A·LMTD, steam at %.4g °C): the duty is capped at it%s",
+				t.Mode, r.Duty/1e3, cd.Q/1e3, celsius(r.LossT), celsius(t.SteamT), capNote(t.Mode)))
+			r.Duty = cd.Q
+			r.Capped = true
+		}
+	}
 	return r, nil
+}
+
+// capNote says what a capped duty means for the mode.
+func capNote(m TankMode) string {
+	if m == HeatUp {
+		return ", and the heat-up takes longer than asked"
+	}
+	return ", and the cargo cools below the temperature held"
 }
 
 // BoundaryLoss is one boundary's share of a tank's heat loss.

@@ -171,3 +171,28 @@ func TestStatefulErrors(t *testing.T) {
 		t.Error("a failed run left the tanks stateful")
 	}
 }
+
+// TestCaseCappedByCoil: in a plain load case, a tank with a coil that is
+// asked a heat-up faster than the coil gives takes the coil's capacity
+// U·A·(Ts − T) (the default U, 60 W/(m²·K), 700 m², steam at 7 bar(g):
+// 170.48 °C, plant-checks.md §0 [C]) at the heat-up's mean temperature,
+// and the case warns.
+func TestCaseCappedByCoil(t *testing.T) {
+	t.Parallel()
+	p := heatedTanker(t)
+	c := plant.Case{Name: "fast heat-up", Conditions: plant.Conditions{SeaT: 280.15, AirT: 273.15},
+		Set: []plant.Setting{{Unit: "cargo heating", Param: "off", Value: 1},
+			{Unit: "COT 1", Param: "mode", Value: float64(loads.HeatUp)}, {Unit: "COT 1", Param: "from", Value: 303.15},
+			{Unit: "COT 1", Param: "to", Value: 323.15}, {Unit: "COT 1", Param: "duration", Value: 12 * 3600}}}
+	cr, err := p.Solve(context.Background(), c)
+	must(t, err)
+	want := 60 * 700 * (170.48 - 40.0)
+	for _, u := range cr.Consumers {
+		if u.Name == "COT 1" && math.Abs(u.DutyW-want) > 2e-4*want {
+			t.Errorf("COT 1 duty %.6g W, the coil's capacity %.6g W", u.DutyW, want)
+		}
+	}
+	if !strings.Contains(strings.Join(cr.Warnings, "\n"), `tank heating "COT 1": the heat-up asks`) {
+		t.Errorf("warnings %q", cr.Warnings)
+	}
+}
