@@ -20,6 +20,8 @@ type Run struct {
 	Voyages []Voyage
 	Studies []Study
 	Audits  []Audit
+	// HeatingPlans are the cargo heating plans (heating_plan()).
+	HeatingPlans []HeatingPlan
 	// Version is the version of the program that ran the scripts; the
 	// JSON document carries it.
 	Version string
@@ -57,7 +59,7 @@ type Audit struct {
 
 // empty reports whether the run has nothing to show.
 func (r Run) empty() bool {
-	return len(r.Cases) == 0 && len(r.Voyages) == 0 && len(r.Studies) == 0 && len(r.Audits) == 0
+	return len(r.Cases) == 0 && len(r.Voyages) == 0 && len(r.Studies) == 0 && len(r.Audits) == 0 && len(r.HeatingPlans) == 0
 }
 
 // rowRef names a row (0-based index) by its number and, if known, where
@@ -148,6 +150,7 @@ func writeVoyage(w io.Writer, v Voyage) {
 		fmt.Fprintf(w, "  tightest margin: %s kg/h in %s\n", fix(t.TightestMarginKgS*kgh, 1), v.rowRef(t.TightestRow))
 	}
 	fmt.Fprintf(w, "  periods the plant cannot carry: %s\n", rowList(v.Job, t.ShortRows))
+	writeVoyageTanks(w, v)
 	writeRowWarnings(w, v)
 }
 
