@@ -13,6 +13,8 @@ import (
 	"time"
 
 	"github.com/rs/zerolog"
+
+	"steamcase/plant/profile"
 )
 
 // The figures compared below are the run's own results against each other
@@ -105,11 +107,11 @@ func TestAuditFlags(t *testing.T) {
 			t.Errorf("day %d (%s): claimed %g t, band %g-%g t, flag %q; want %q", i+1, d.Date, d.ClaimedT, d.LowT, d.HighT, d.Flag, want[i])
 		}
 	}
-	if a.Flagged != 1 || a.ClaimedT != 5.5+5.4+9.5+5 {
-		t.Errorf("flagged %d, claimed %g t; want 1 and 25.4 t", a.Flagged, a.ClaimedT)
+	if a.Flagged != 1 || a.Period.ClaimedT != 5.5+5.4+9.5+5 || a.Period.Flag != "above" {
+		t.Errorf("flagged %d, claimed %g t, period %q; want 1, 25.4 t and above", a.Flagged, a.Period.ClaimedT, a.Period.Flag)
 	}
-	if len(a.Uncertainties) != 3 || a.Uncertainties[2].Low != 0.97 {
-		t.Errorf("uncertainties %+v; want three, the last from 0.97", a.Uncertainties)
+	if len(a.Uncertainties) != 3 || a.Uncertainties[2].Low != 0.97 || a.Uncertainties[0].Scope != profile.Fixed {
+		t.Errorf("uncertainties %+v; want three, the last from 0.97, the first fixed", a.Uncertainties)
 	}
 }
 

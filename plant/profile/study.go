@@ -35,7 +35,15 @@ type VariantResult struct {
 	PaybackYears float64 // InstalledCost / CostSaved per year, when both are given; +Inf if nothing is saved
 	// HoursBelowMinGasT is the hours in which an exhaust-gas economiser's
 	// gas would leave below its minimum (with or without a bypass).
-	HoursBelowMinGasT float64
+	HoursBelowMinGasT float64 // RowWarnings are the warnings of the rows whose case warned, in row
+	// order: the texts, not only their count.
+	RowWarnings []RowWarnings
+}
+
+// RowWarnings are the warnings of one row of a profile (Row from 0).
+type RowWarnings struct {
+	Row   int
+	Texts []string
 }
 
 // StudyResult compares variants over a profile.
@@ -76,6 +84,9 @@ func Study(ctx context.Context, p *plant.Plant, rows []Row, variants []Variant, 
 		}
 		x := VariantResult{Name: v.Name, Totals: res.Total}
 		for i, row := range res.Rows {
+			if w := row.Result.Warnings; len(w) > 0 {
+				x.RowWarnings = append(x.RowWarnings, RowWarnings{Row: i, Texts: append([]string(nil), w...)})
+			}
 			for _, e := range row.Result.EGEs {
 				if e.BelowMin {
 					x.HoursBelowMinGasT += vr[i].Hours

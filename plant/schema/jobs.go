@@ -186,13 +186,20 @@ type Study struct {
 
 // Variant is one variant of a study, its savings against the first.
 type Variant struct {
-	Name              string   `json:"name"`
-	Totals            Totals   `json:"totals"`
-	FuelSavedT        float64  `json:"fuel_saved_t"`
-	CO2AvoidedT       float64  `json:"co2_avoided_t"`
-	CostSaved         float64  `json:"cost_saved"`
-	PaybackYears      *float64 `json:"payback_years"`
-	HoursBelowMinGasT float64  `json:"hours_below_min_gas_T"`
+	Name              string       `json:"name"`
+	Totals            Totals       `json:"totals"`
+	FuelSavedT        float64      `json:"fuel_saved_t"`
+	CO2AvoidedT       float64      `json:"co2_avoided_t"`
+	CostSaved         float64      `json:"cost_saved"`
+	PaybackYears      *float64     `json:"payback_years"`
+	HoursBelowMinGasT float64      `json:"hours_below_min_gas_T"`
+	RowWarnings       []RowWarning `json:"row_warnings"`
+}
+
+// RowWarning is the warnings of one row of a profile.
+type RowWarning struct {
+	Row      int      `json:"row"`
+	Warnings []string `json:"warnings"`
 }
 
 // NewStudy returns the schema form of a study run as job. The fuel price
@@ -206,63 +213,11 @@ func NewStudy(job Job, r *profile.StudyResult) Study {
 		vj := Variant{Name: v.Name, Totals: NewTotals(v.Totals), FuelSavedT: Round(v.FuelSavedT),
 			CO2AvoidedT: Round(v.CO2AvoidedT), CostSaved: Round(v.CostSaved), HoursBelowMinGasT: Round(v.HoursBelowMinGasT)}
 		vj.PaybackYears = roundPtr(v.PaybackYears, r.InstalledCost > 0 && v.CostSaved > 0 && v.PaybackYears > 0)
+		vj.RowWarnings = make([]RowWarning, 0, len(v.RowWarnings))
+		for _, w := range v.RowWarnings {
+			vj.RowWarnings = append(vj.RowWarnings, RowWarning{Row: w.Row + 1, Warnings: append([]string{}, w.Texts...)})
+		}
 		out.Variants = append(out.Variants, vj)
-	}
-	return out
-}
-
-// Audit is a check of reported daily boiler fuel against a modelled band.
-type Audit struct {
-	Job
-	Samples       int         `json:"samples"`
-	Seed          uint64      `json:"seed"`
-	LowQ          float64     `json:"low_quantile"`
-	HighQ         float64     `json:"high_quantile"`
-	ClaimedT      float64     `json:"claimed_t"`
-	NominalT      float64     `json:"nominal_t"`
-	LowT          float64     `json:"low_t"`
-	HighT         float64     `json:"high_t"`
-	ExcessT       float64     `json:"excess_t"`
-	Flagged       int         `json:"flagged"`
-	Days          []Day       `json:"days"`
-	Uncertainties []Uncertain `json:"uncertainties"`
-}
-
-// Day is one audited day.
-type Day struct {
-	Day      int     `json:"day"`
-	Date     string  `json:"date"`
-	Phase    string  `json:"phase"`
-	ClaimedT float64 `json:"claimed_t"`
-	NominalT float64 `json:"nominal_t"`
-	LowT     float64 `json:"low_t"`
-	MedianT  float64 `json:"median_t"`
-	HighT    float64 `json:"high_t"`
-	Flag     string  `json:"flag"`
-}
-
-// Uncertain is an input of an audit drawn uniformly between Low and High,
-// in SI units or as a fraction, as the script gave it.
-type Uncertain struct {
-	Unit  string  `json:"unit"`
-	Param string  `json:"param"`
-	Low   float64 `json:"low"`
-	High  float64 `json:"high"`
-}
-
-// NewAudit returns the schema form of an audit run as job. The sampling
-// settings and the uncertain inputs are given as set (not rounded).
-func NewAudit(job Job, r *profile.AuditResult) Audit {
-	out := Audit{Job: job.job(), Samples: r.Samples, Seed: r.Seed, LowQ: r.LowQ, HighQ: r.HighQ,
-		ClaimedT: Round(r.ClaimedT), NominalT: Round(r.NominalT), LowT: Round(r.LowT), HighT: Round(r.HighT),
-		ExcessT: Round(r.ExcessT), Flagged: r.Flagged, Days: make([]Day, 0, len(r.Days)),
-		Uncertainties: make([]Uncertain, 0, len(r.Uncertainties))}
-	for i, d := range r.Days {
-		out.Days = append(out.Days, Day{Day: i + 1, Date: d.Date, Phase: d.Phase, ClaimedT: Round(d.ClaimedT),
-			NominalT: Round(d.NominalT), LowT: Round(d.LowT), MedianT: Round(d.MedianT), HighT: Round(d.HighT), Flag: d.Flag})
-	}
-	for _, u := range r.Uncertainties {
-		out.Uncertainties = append(out.Uncertainties, Uncertain{Unit: u.Unit, Param: u.Param, Low: u.Low, High: u.High})
 	}
 	return out
 }

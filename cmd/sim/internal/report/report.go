@@ -60,6 +60,9 @@ func Table(w io.Writer, run Run) error {
 	for _, a := range run.Audits {
 		block(func(w io.Writer) { writeAudit(w, a) })
 	}
+	if !run.empty() || len(run.Files) > 0 {
+		block(func(w io.Writer) { writeRecord(w, run) })
+	}
 	fmt.Fprintf(ew, "\n%s\n", Caution)
 	return ew.err
 }
