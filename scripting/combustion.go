@@ -349,6 +349,7 @@ func (r *runner) burner(a *args) plant.Burner {
 	b.FanRise, _ = p.pressureDiff("fan_rise", false)
 	b.FanEta, _ = p.quantity("fan_eta", units.Fraction, b.FanRise > 0)
 	b.MotorEta, _ = p.quantity("motor_eta", units.Fraction, false)
+	b.ExcessAir, _ = p.quantity("excess_air", units.Fraction, false)
 	p.done()
 	a.nerr += p.nerr
 	return b

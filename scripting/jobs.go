@@ -128,7 +128,7 @@ func (r *runner) tableRows(ph *plantHandle, a *args, key string, spec rowSpec) *
 		}
 		row.Case.Conditions.SeaT, _ = ra.quantity("sea", units.Temperature, false)
 		row.Case.Conditions.AirT, _ = ra.quantity("air", units.Temperature, false)
-		row.Case.Conditions.EngineLoad, _ = ra.quantity("engine", units.Fraction, false)
+		row.Case.Conditions.EngineLoad = ra.engineLoad()
 		if v := ra.get("set"); v != lua.LNil {
 			row.Case.Set = r.caseSettings(ph, ra, v, row.Case.Pos)
 		}
@@ -172,6 +172,9 @@ func parseHours(v lua.LValue, key string) (float64, error) {
 		if !(f > 0) || math.IsInf(f, 0) {
 			return 0, fmt.Errorf("%s must be a positive number of hours; got %s", key, describe(v))
 		}
+		if f > maxRowHours {
+			return 0, fmt.Errorf("%s must be at most %g h (a leap year) for one row; got %s", key, maxRowHours, asGiven(v))
+		}
 		return f, nil
 	case lua.LString:
 		s := strings.TrimSpace(string(x))
@@ -184,6 +187,9 @@ func parseHours(v lua.LValue, key string) (float64, error) {
 		}
 		if !(sec > 0) {
 			return 0, fmt.Errorf("%s must be positive; got %q", key, s)
+		}
+		if sec/3600 > maxRowHours {
+			return 0, fmt.Errorf("%s must be at most %g h (a leap year) for one row; got %s", key, maxRowHours, cut(s))
 		}
 		return sec / 3600, nil
 	case *lua.LNilType:
@@ -229,8 +235,19 @@ func parseTonnes(v lua.LValue, key string) (float64, error) {
 	if !(t >= 0) || math.IsInf(t, 0) {
 		return 0, fmt.Errorf("%s must be zero or more tonnes; got %g", key, t)
 	}
+	if t > maxTonnes {
+		return 0, fmt.Errorf("%s must be at most %g t; got %s", key, maxTonnes, asGiven(v))
+	}
 	return t, nil
 }
+
+// The bounds of a row's hours and of a claimed mass of fuel: a leap year
+// of hours; more fuel than the boilers of any ship burn on a voyage (from
+// memory: a very large crude carrier's discharge burns 80-150 t).
+const (
+	maxRowHours = 8784.0
+	maxTonnes   = 1e4
+)
 
 // ---------------------------------------------------------------------------
 // Rows from CSV files.
@@ -422,7 +439,11 @@ func (r *runner) csvRows(ph *plantHandle, fn, name string, spec rowSpec) *jobRow
 			case "air":
 				row.Case.Conditions.AirT, err = parseQuantity(v, "air", units.Temperature, uopt)
 			case "engine":
-				row.Case.Conditions.EngineLoad, err = parseCell(cell, "engine", units.Fraction, uopt)
+				var v lua.LValue = lua.LString(cell)
+				if f, perr := strconv.ParseFloat(cell, 64); perr == nil {
+					v = lua.LNumber(f)
+				}
+				row.Case.Conditions.EngineLoad, err = parseEngineLoad(v, "engine", uopt)
 			case "":
 				if c.key.Kind == plant.KeyText {
 					row.Case.Set = append(row.Case.Set, plant.Setting{Unit: c.unit, Param: c.key.Name, Text: cell, Pos: row.Case.Pos})
@@ -430,6 +451,9 @@ func (r *runner) csvRows(ph *plantHandle, fn, name string, spec rowSpec) *jobRow
 				}
 				var f float64
 				f, err = parseSetCell(cell, &c.key, uopt)
+				if err == nil {
+					err = rangeErr(&c.key, c.key.Name, f, lua.LString(cell))
+				}
 				if err == nil {
 					row.Case.Set = append(row.Case.Set, plant.Setting{Unit: c.unit, Param: c.key.Name, Value: f, Pos: row.Case.Pos})
 				}

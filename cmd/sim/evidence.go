@@ -89,40 +89,42 @@ func collectRecord(all *report.Run, r *scripting.Run) {
 	}
 }
 
-// writeEvidence writes the evidence folder of the run to dir: every file
-// is rendered first, then written into a new folder beside dir, which is
-// renamed to dir when whole.
-func writeEvidence(dir string, all report.Run) error {
-	if err := checkEvidenceDir(dir); err != nil {
-		return fmt.Errorf("--evidence: %w", err)
-	}
-	type file struct {
-		name, what string
-		body       []byte
-	}
-	var files []file
+// evidenceFile is a file of an evidence folder, rendered.
+type evidenceFile struct {
+	name, what string
+	body       []byte
+}
+
+// renderEvidence renders every file of the run's evidence folder. The
+// JSON is rendered first, with the names exactly as the scripts gave
+// them; then the names are escaped in place (escapeRun, as the table, the
+// CSV and the charts of the command show them) for the other files.
+func renderEvidence(all report.Run) ([]evidenceFile, error) {
+	var files []evidenceFile
 	add := func(name, what string, render func(b *bytes.Buffer) error) error {
 		var b bytes.Buffer
 		if err := render(&b); err != nil {
 			return fmt.Errorf("--evidence: %s: %w", name, err)
 		}
-		files = append(files, file{name, what, b.Bytes()})
+		files = append(files, evidenceFile{name, what, b.Bytes()})
 		return nil
 	}
+	if err := add("run.json", "the report as one JSON document (its keys: go doc steamcase/plant/schema)", func(b *bytes.Buffer) error {
+		return report.JSON(b, all)
+	}); err != nil {
+		return nil, err
+	}
+	escapeRun(&all, false) // the table quotes the plants' names with %q
 	if err := add("report.txt", "the report for people: every case and job, and the run's record", func(b *bytes.Buffer) error {
 		return report.Table(b, all)
 	}); err != nil {
-		return err
+		return nil, err
 	}
-	if err := add("run.json", "the same as one JSON document (its keys: go doc steamcase/plant/schema)", func(b *bytes.Buffer) error {
-		return report.JSON(b, all)
-	}); err != nil {
-		return err
-	}
+	escapePlants(&all)
 	if err := add("tables.csv", "the report's tables as CSV (their columns: go doc steamcase/cmd/sim/internal/report CSV)", func(b *bytes.Buffer) error {
 		return report.CSV(b, all)
 	}); err != nil {
-		return err
+		return nil, err
 	}
 	whats := map[string]string{
 		"cases":         "the load cases' steam demand against the boilers' capacity",
@@ -138,7 +140,7 @@ func writeEvidence(dir string, all report.Run) error {
 			name += "-" + strconv.Itoa(c.N)
 		}
 		if err := add(name+".svg", whats[c.Kind], func(b *bytes.Buffer) error { return c.Draw(b, report.SVG) }); err != nil {
-			return err
+			return nil, err
 		}
 	}
 	for i, a := range all.Audits {
@@ -146,20 +148,27 @@ func writeEvidence(dir string, all report.Run) error {
 			continue
 		}
 		name := fmt.Sprintf("samples-audit-%d.csv", i+1)
-		if err := add(name, "each sample of audit "+strconv.Quote(a.Name)+": its fixed inputs and its period total, modelled and as measured", func(b *bytes.Buffer) error {
+		if err := add(name, "each sample of audit \""+a.Name+"\": its fixed inputs and its period total, modelled and as measured", func(b *bytes.Buffer) error {
 			return report.AuditSamplesCSV(b, a)
 		}); err != nil {
-			return err
+			return nil, err
 		}
 	}
+	// The README lists the files in the order an auditor reads them.
+	order := map[string]int{"report.txt": 0, "run.json": 1, "tables.csv": 2}
 	listed := make([]report.EvidenceFile, 0, len(files)+2)
 	for _, f := range files {
 		listed = append(listed, report.EvidenceFile{Name: f.name, What: f.what})
 	}
+	sort.SliceStable(listed, func(i, j int) bool {
+		oi, iok := order[listed[i].Name]
+		oj, jok := order[listed[j].Name]
+		return iok && (!jok || oi < oj)
+	})
 	listed = append(listed, report.EvidenceFile{Name: "README.txt", What: "this text"},
 		report.EvidenceFile{Name: "SHA256SUMS", What: "the SHA-256 of every other file here"})
 	if err := add("README.txt", "", func(b *bytes.Buffer) error { return report.Readme(b, all, listed) }); err != nil {
-		return err
+		return nil, err
 	}
 	sort.Slice(files, func(i, j int) bool { return files[i].name < files[j].name })
 	var sums bytes.Buffer
@@ -167,8 +176,16 @@ func writeEvidence(dir string, all report.Run) error {
 		s := sha256.Sum256(f.body)
 		fmt.Fprintf(&sums, "%s  %s\n", hex.EncodeToString(s[:]), f.name)
 	}
-	files = append(files, file{name: "SHA256SUMS", body: sums.Bytes()})
+	return append(files, evidenceFile{name: "SHA256SUMS", body: sums.Bytes()}), nil
+}
 
+// commitEvidence writes the rendered files into a new folder beside dir,
+// which is renamed to dir when whole: the folder is there whole or not at
+// all.
+func commitEvidence(dir string, files []evidenceFile) error {
+	if err := checkEvidenceDir(dir); err != nil {
+		return fmt.Errorf("--evidence: %w", err)
+	}
 	parent := filepath.Dir(filepath.Clean(dir))
 	tmp, err := os.MkdirTemp(parent, "."+filepath.Base(dir)+".partial-")
 	if err != nil {

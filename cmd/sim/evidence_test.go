@@ -178,3 +178,39 @@ func TestEvidenceRefusesFullFolder(t *testing.T) {
 		t.Errorf("nothing written to the empty folder: %v", err)
 	}
 }
+
+// TestEvidenceEscapes: a name with control characters is escaped in the
+// folder's text files, and kept exactly in its JSON (as the command's own
+// outputs do).
+func TestEvidenceEscapes(t *testing.T) {
+	t.Parallel()
+	dir := t.TempDir()
+	script := filepath.Join(dir, "c.lua")
+	src := `local ship = steam_plant { name = "Invented\r\nfake plant",
+  boilers = { { name = "AB1", mcr = "4 t/h", drum = "7 bar(g)", fuel = "VLSFO", efficiency = "85 %" } },
+  consumers = { { name = "load", steam = "600 kg/h" } } }
+audit(ship, { name = "a\r\nfake", samples = 10, days = { { date = "d\r\n1", claimed = "1 t", sea = "10 C", air = "5 C" } } })
+`
+	if err := os.WriteFile(script, []byte(src), 0o644); err != nil {
+		t.Fatal(err)
+	}
+	out := filepath.Join(dir, "ev")
+	if code, _, errOut := runSim(t, "run", "--quiet", "--evidence", out, script); code != exitOK {
+		t.Fatalf("exit %d: %s", code, errOut)
+	}
+	files := readDir(t, out)
+	for name, b := range files {
+		if name == "run.json" {
+			continue
+		}
+		if i := bytes.IndexAny(b, "\r\x1b"); i >= 0 {
+			t.Errorf("%s: a raw control character at %d", name, i)
+		}
+		if bytes.Contains(b, []byte(`\\r`)) {
+			t.Errorf("%s: a name escaped twice", name)
+		}
+	}
+	if !bytes.Contains(files["run.json"], []byte(`"name": "a\r\nfake"`)) || !bytes.Contains(files["report.txt"], []byte(`Audit: a\r\nfake`)) {
+		t.Errorf("the JSON does not keep the name exactly, or the table does not escape it")
+	}
+}

@@ -243,7 +243,7 @@ func writeRecord(w io.Writer, run Run) {
 	for _, a := range run.Assumptions {
 		if a.Plant != plantName {
 			plantName = a.Plant
-			fmt.Fprintf(w, "    plant %q:\n", plantName)
+			fmt.Fprintf(w, "    plant \"%s\":\n", plantName) // escaped by the caller, as every name but the jobs' plants
 		}
 		src := a.Source
 		if src == "" {

@@ -77,7 +77,7 @@ func names(r *profile.AuditResult, s profile.Scope) string {
 func writeAuditMethod(w io.Writer, a Audit) {
 	r := a.Result
 	p := r.Period
-	fmt.Fprintf(w, "\nAudit %q of plant %q", a.Name, a.Plant)
+	fmt.Fprintf(w, "\nAudit \"%s\" of plant \"%s\"", a.Name, a.Plant)
 	if a.Source != "" {
 		fmt.Fprintf(w, " (run at %s)", a.Source)
 	}
