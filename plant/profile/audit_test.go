@@ -429,8 +429,8 @@ func TestAuditSplitAndGrades(t *testing.T) {
 	if g := res.FuelByGrade[1]; math.Abs(g.FuelT-res.Days[2].FuelT) > 1e-9 || math.Abs(g.CO2T-res.Days[2].CO2T) > 1e-9 {
 		t.Errorf("MGO %+v; day 3 burns %g t with %g t CO2", g, res.Days[2].FuelT, res.Days[2].CO2T)
 	}
-	// The grade's own factor: MGO's C_F is 3.206 t CO2/t fuel (IMO
-	// MEPC.364(79), from memory), not the HSFO's 3.114.
+	// The grade's own factor: MGO's C_F is 3.206 t CO2/t fuel, not the
+	// HSFO's 3.114 (docs/reference/plant-checks.md §1.3 [S]).
 	if f := res.FuelByGrade[1].CO2T / res.FuelByGrade[1].FuelT; math.Abs(f-3.206) > 1e-3 {
 		t.Errorf("MGO's CO2 per tonne %g; want 3.206", f)
 	}
@@ -549,4 +549,30 @@ func BenchmarkAudit30Days1000Samples(b *testing.B) {
 		}
 	}
 	b.ReportMetric(30*1000, "samples/op")
+}
+
+// TestDefaultScopeKeys: every key with a default scope is a key a case may
+// set on some kind (or a reading), so that the table names no key that
+// does not exist (the table's own consistency; no outside source).
+func TestDefaultScopeKeys(t *testing.T) {
+	t.Parallel()
+	caseKeys := map[string]bool{ReadingSea: true, ReadingAir: true}
+	for _, k := range plant.Kinds() {
+		for _, key := range k.Keys() {
+			if key.Case {
+				caseKeys[key.Name] = true
+			}
+		}
+	}
+	for _, key := range DefaultScopeKeys() {
+		if !caseKeys[key] {
+			t.Errorf("default scope for %q, which no kind lets a case set", key)
+		}
+		if s, why, ok := DefaultScope(key); !ok || s == ScopeDefault || why == "" {
+			t.Errorf("%q: scope %v, reason %q", key, s, why)
+		}
+	}
+	if _, _, ok := DefaultScope("cycling_loss"); ok {
+		t.Errorf("cycling_loss has a default scope; the tests of a missing one need another key")
+	}
 }
