@@ -13,7 +13,10 @@ import (
 // that differ from the plant's (a consumer's duty, a turbine's power, a
 // component switched off), and optionally which boilers must fire.
 type Case struct {
-	Name       string
+	Name string
+	// Series groups cases a script solves as one sweep (a sea temperature
+	// from 0 to 30 °C, say): the report shows them as one table.
+	Series     string
 	Pos        Pos
 	Conditions Conditions
 	Set        []Setting
@@ -239,7 +242,7 @@ func (p *Plant) Solve(ctx context.Context, c Case) (*CaseResult, error) {
 		return nil, p.solveErr(c, err)
 	}
 
-	cr := &CaseResult{Name: c.Name, Pos: c.Pos, Conditions: c.Conditions, Forced: forced}
+	cr := &CaseResult{Name: c.Name, Series: c.Series, Pos: c.Pos, Conditions: c.Conditions, Forced: forced}
 	if err := p.report(cr); err != nil {
 		return nil, err
 	}

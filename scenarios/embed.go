@@ -15,8 +15,10 @@
 //     fuel split out by with/without solves, and the heating factor the
 //     claim implies.
 //   - voyage.lua with voyage.csv: a voyage plan, period by period.
-//   - ege_study.lua with year_profile.csv: a year's saving of exhaust-gas
-//     economisers of several sizes.
+//   - ege_study.lua with year_profile.csv: a designer's study of
+//     exhaust-gas economiser variants, each with its installed cost, over a
+//     year: savings, NPV and payback, cold-end and soot-risk hours, and a
+//     sweep of its UA for the size of highest NPV.
 //   - audit.lua with passage_log.csv: a day-by-day audit of reported boiler
 //     fuel against the model: fixed and daily uncertain inputs, the flow
 //     meter's uncertainty, the boilers' efficiency calibrated on two

@@ -84,6 +84,7 @@ func (r *runner) luaCase(L *lua.LState) int {
 	}
 	a.what = fmt.Sprintf("case %q", name)
 	c := plant.Case{Name: name, Pos: plant.Pos{File: pos.File, Line: pos.Line}}
+	c.Series, _ = a.str("series", false)
 	c.Conditions.SeaT, _ = a.quantity("sea", units.Temperature, false)
 	c.Conditions.AirT, _ = a.quantity("air", units.Temperature, false)
 	c.Conditions.EngineLoad = a.engineLoad()
@@ -112,7 +113,7 @@ func (r *runner) luaCase(L *lua.LState) int {
 		r.checkPlantOnce(ph)
 		r.out.Cases = append(r.out.Cases, CaseRecord{Plant: ph.p.Name, Pos: pos})
 		cr := ph.p.Outline(name, c.Conditions)
-		cr.Pos = c.Pos
+		cr.Pos, cr.Series = c.Pos, c.Series
 		L.Push(r.resultTable(schema.NewCase(ph.p.Name, cr)))
 		return 1
 	}

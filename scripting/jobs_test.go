@@ -107,8 +107,11 @@ func TestAuditFlags(t *testing.T) {
 			t.Errorf("day %d (%s): claimed %g t, band %g-%g t, flag %q; want %q", i+1, d.Date, d.ClaimedT, d.LowT, d.HighT, d.Flag, want[i])
 		}
 	}
-	if a.Flagged != 1 || a.Period.ClaimedT != 5.5+5.4+9.5+5 || a.Period.Flag != "above" {
-		t.Errorf("flagged %d, claimed %g t, period %q; want 1, 25.4 t and above", a.Flagged, a.Period.ClaimedT, a.Period.Flag)
+	// One day's excess of about 3 t lifts the period's claim above the
+	// model's median without taking it beyond the tail of a period whose
+	// heating factor is known to ±15 % (the flags' definition).
+	if a.Flagged != 1 || a.Period.ClaimedT != 5.5+5.4+9.5+5 || !(a.Period.PAtOrBelow > 0.5) {
+		t.Errorf("flagged %d, claimed %g t, P(model ≤ claim) %g; want 1, 25.4 t and above one half", a.Flagged, a.Period.ClaimedT, a.Period.PAtOrBelow)
 	}
 	if len(a.Uncertainties) != 3 || a.Uncertainties[2].Low != 0.97 || a.Uncertainties[0].Scope != profile.Fixed {
 		t.Errorf("uncertainties %+v; want three, the last from 0.97, the first fixed", a.Uncertainties)
@@ -163,6 +166,9 @@ func TestJobErrors(t *testing.T) {
 			`unknown_key.csv:1: column "COT 1.To": unknown key 'To'; did you mean 'to'?`,
 			`unknown_key.csv:1: unknown column "speed"`}},
 		{"job_errors.lua", []string{"rows[1]: hours must be a positive", `rows[2]: set.COT 1.mode must be "hold" or "heat_up"; got "heat"`, "rows[3]: phase is required", `"AB2" is not a boiler`}},
+		{"study_errors.lua", []string{`study_errors.lua:7: study "money" variants[2]: installed_cost must not be negative`,
+			`study_errors.lua:7: study "money": discount_rate must not be negative; got -5 %`, `sweep: key must be "ua" or "pinch"`}},
+		{"ege_fouling.lua", []string{`ege_fouling.lua:5: exhaust gas economiser "EGE": fouling_rate needs clean_interval`}},
 		{"audit_errors.lua", []string{"claimed: mass expected", "cargo heating.off cannot be sampled", "did you mean 'eta_factor'?", "low must not exceed high", "samples must be a whole number", "band must satisfy"}},
 	}
 	for _, tc := range tests {

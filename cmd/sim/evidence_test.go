@@ -25,7 +25,7 @@ func evidenceScript(t *testing.T) string {
 	files := map[string]string{
 		"tanker_plant.lua": string(plant),
 		"log.csv": `date,phase,sea,air,engine,claimed,reference,cargo heating.off,AB1.fuel
-2026-02-01,at anchor,12 C,5 C,0 %,1.4 t,true,true,
+2026-02-01,at anchor,12 C,5 C,0 %,1.52 t,true,true,
 2026-02-02,loaded passage,11 C,3 C,78 %,9.0 t,,,
 2026-02-03,loaded passage,10 C,1 C,78 %,12.5 t,,,
 2026-02-04,loaded passage ECA,10 C,2 C,78 %,8.9 t,,,MGO

@@ -360,7 +360,7 @@ func TestRunVoyage(t *testing.T) {
 	if code != exitOK || errOut != "" || err != nil || len(b) == 0 {
 		t.Fatalf("--plot of a voyage: exit %d, stderr %q, %v, %d bytes", code, errOut, err, len(b))
 	}
-	for _, s := range []string{"<svg", "Voyage: short trip", "Invented Test Coaster", "port", "passage", "hours from the start of the voyage"} {
+	for _, s := range []string{"<svg", "Voyage: short trip", "Invented Test Coaster", "port", "passage", "time from the start of the voyage, h"} {
 		if !bytes.Contains(b, []byte(s)) {
 			t.Errorf("the voyage's SVG does not contain %q", s)
 		}

@@ -228,6 +228,7 @@ func drawWithLegend(w io.Writer, format string, p *plot.Plot, entries []legendEn
 		return err
 	}
 	dc := draw.New(canvas)
+	opaque(dc)
 	p.Draw(draw.Crop(dc, 0, -legW, 0, 0))
 	legend.Draw(draw.Crop(dc, plotW+vg.Millimeter*3, 0, 0, 0))
 	_, err = canvas.WriteTo(w)
@@ -363,6 +364,7 @@ func PlotAuditImplied(w io.Writer, format string, a Audit) error {
 		return err
 	}
 	dc := draw.New(canvas)
+	opaque(dc)
 	area := draw.Crop(dc, 0, -legW, 0, 0)
 	cs := plot.Align(panels, draw.Tiles{Rows: len(panels), Cols: 1, PadY: vg.Millimeter * 3}, area)
 	for i := range panels {
@@ -486,6 +488,7 @@ func PlotAuditPeriod(w io.Writer, format string, a Audit) error {
 		return err
 	}
 	dc := draw.New(canvas)
+	opaque(dc)
 	p.Draw(draw.Crop(dc, 0, -legW, 0, 0))
 	legend.Draw(draw.Crop(dc, plotW+vg.Millimeter*3, 0, 0, 0))
 	_, err = canvas.WriteTo(w)
