@@ -322,7 +322,8 @@ func (p *Plant) newSolver(s *session) error {
 		Residual: p.residual,
 	}
 	if !p.Opt.FiniteDifferences {
-		s.prob.Jacobian = p.jacobian
+		s.prob.SparseJacobian = p.jacobian
+		s.jac = newJac()
 	}
 	slv, err := solver.New(s.prob, p.solverSettings())
 	if err != nil {

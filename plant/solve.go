@@ -65,7 +65,8 @@ type session struct {
 	keepRes    solver.Result
 	keepSolves int
 
-	ev eval
+	ev  eval
+	jac jac // the Jacobian's remembered entry places
 }
 
 // domainErr marks a component's failure while the solver explores: the
