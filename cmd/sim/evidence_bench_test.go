@@ -6,32 +6,18 @@ import (
 	"fmt"
 	"os"
 	"path/filepath"
-	"runtime/metrics"
 	"strings"
 	"testing"
 )
-
-// cpuSeconds is the process's CPU time so far, user and system, from the
-// runtime's own accounting.
-func cpuSeconds() float64 {
-	s := []metrics.Sample{{Name: "/cpu/classes/user:cpu-seconds"}, {Name: "/cpu/classes/gc/total:cpu-seconds"}}
-	metrics.Read(s)
-	var t float64
-	for _, x := range s {
-		if x.Value.Kind() == metrics.KindFloat64 {
-			t += x.Value.Float64()
-		}
-	}
-	return t
-}
 
 // BenchmarkEvidenceAudit30Days runs sim run --evidence on an audit of 30
 // days with 1000 samples, fixed and daily inputs, the flow meter's
 // uncertainty, two implied factors and a split, on the scenarios'
 // invented tanker: the whole command, from reading the script to the
 // folder written. The target is 10 s on two cores. It reports the
-// wall time (ns/op) and the CPU seconds the runtime counts (cpu-s/op),
-// which a loaded machine does not inflate as it does the wall time.
+// wall time (ns/op) and the CPU seconds the process used (cpu-s/op, user
+// and system, from getrusage on unix), which a loaded machine does not
+// inflate as it does the wall time.
 func BenchmarkEvidenceAudit30Days(b *testing.B) {
 	dir := b.TempDir()
 	plant, err := os.ReadFile(filepath.Join("..", "..", "scenarios", "tanker_plant.lua"))
