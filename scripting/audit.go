@@ -1,6 +1,7 @@
 package scripting
 
 import (
+	"context"
 	"errors"
 	"fmt"
 	"math"
@@ -128,7 +129,12 @@ func (r *runner) luaAudit(L *lua.LState) int {
 	}
 	aa.opt.Workers = r.opt.Workers
 	aa.opt.Progress = r.progress(a.what)
-	res, err := profile.Audit(L.Context(), ph.p, aa.spec, aa.opt)
+	var res *profile.AuditResult
+	err := r.inJob(a.what, a.pos, auditWork(aa.spec, aa.opt), func(ctx context.Context) error {
+		var err error
+		res, err = profile.Audit(ctx, ph.p, aa.spec, aa.opt)
+		return err
+	})
 	if err != nil {
 		r.auditErr(a.pos, a.what, err, true)
 	}
@@ -142,6 +148,10 @@ func (r *runner) luaAudit(L *lua.LState) int {
 // else at the audit() call; a time limit names the option to raise. In
 // check mode (raise false) it records the error and goes on.
 func (r *runner) auditErr(pos Pos, what string, err error, raise bool) {
+	var jt *TimeoutError
+	if errors.As(err, &jt) && jt.JobLimit {
+		r.raise(&Error{Pos: pos, Msg: jt.Error(), Err: jt})
+	}
 	if lerr := r.limitErr(pos); lerr != nil {
 		var te *TimeoutError
 		if errors.As(lerr, &te) {
@@ -154,8 +164,8 @@ func (r *runner) auditErr(pos Pos, what string, err error, raise bool) {
 	e := &Error{Pos: pos, Unit: what, Msg: err.Error(), Err: err}
 	switch {
 	case errors.As(err, &oe):
-		e = &Error{Pos: pos, Unit: what, Err: err, Msg: fmt.Sprintf("%v: raise the time limit (sim run --timeout; scripting's Options.Timeout), now %v, or give fewer samples",
-			oe, r.opt.Timeout)}
+		e = &Error{Pos: pos, Unit: what, Err: err, Msg: fmt.Sprintf("%v: raise the job time limit (sim run --job-timeout; scripting's Options.JobTimeout), or give fewer samples",
+			oe)}
 	case errors.As(err, &de) && de.Pos.File != "":
 		e = &Error{Pos: Pos{File: de.Pos.File, Line: de.Pos.Line}, Unit: what, Err: err,
 			Msg: fmt.Sprintf("audit day %d (%s): %v", de.Day, de.Date, de.Err)}
@@ -472,4 +482,20 @@ func (r *runner) auditTable(job schema.Job, res *profile.AuditResult) lua.LValue
 	}
 	o.RawSetString("flagged_days", flagged)
 	return o
+}
+
+// auditWork is the plant solves an audit announces for its time limit:
+// each day's samples and nominal case, its causes' solves without them,
+// and up to 40 solves for each implied factor's search per day and for a
+// calibration on the days.
+func auditWork(spec profile.AuditSpec, opt profile.AuditOptions) int {
+	samples := opt.Samples
+	if samples <= 0 {
+		samples = profile.DefaultAuditSamples
+	}
+	perDay := samples + 1 + len(spec.Causes) + 40*len(spec.Implied)
+	if spec.Calibrate != nil {
+		perDay += 40
+	}
+	return len(spec.Days) * perDay
 }

@@ -230,11 +230,11 @@ func TestAuditTimeLimit(t *testing.T) {
 	script := "local ship = include(\"jobs_plant.lua\")\naudit(ship, { name = \"big\", samples = 100000, days = { " + days.String() +
 		" }, uncertain = { { unit = \"AB1\", key = \"eta_factor\", low = 0.9, high = 1 } } })\n"
 	dir := auditDir(t, map[string]string{"a.lua": script})
-	_, err := RunFile(context.Background(), filepath.Join(dir, "a.lua"), Options{Timeout: 3 * time.Second, Workers: 1})
+	_, err := RunFile(context.Background(), filepath.Join(dir, "a.lua"), Options{JobTimeout: 3 * time.Second, Workers: 1})
 	var te *TimeoutError
 	var e *Error
-	if err == nil || !(errors.As(err, &te) || errors.As(err, &e)) || !strings.Contains(err.Error(), "--timeout") {
-		t.Fatalf("error %v; want one that names --timeout", err)
+	if err == nil || !(errors.As(err, &te) || errors.As(err, &e)) || !strings.Contains(err.Error(), "--job-timeout") {
+		t.Fatalf("error %v; want one that names --job-timeout", err)
 	}
 	t.Log(err)
 	if !strings.Contains(err.Error(), `audit "big"`) {

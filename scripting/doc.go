@@ -14,15 +14,18 @@
 // plant/profile or plant/heatplan). Options.Workers
 // sets the goroutines the jobs solve on (zero: all cores; the results do
 // not depend on it) and Options.Progress, if set, is called with the job,
-// the rows done and the total, for a command to show on stderr; long jobs
-// may need a longer Options.Timeout. The error is one of:
+// the rows done and the total, for a command to show on stderr. The
+// script's own limit, Options.Timeout, counts the time outside its jobs;
+// each job has its own, Options.JobTimeout, by default 10 s and 20 ms for
+// each plant solve it announces. The error is one of:
 //
 //   - ErrorList: script errors, sorted by position, each an *Error printing
 //     as "file:line: unit: message" ("file:line:col:" for syntax errors);
 //     as many as could be found in one pass, not just the first;
 //   - *AssertionError: a failed check(), printing
 //     "file:line: assertion failed: message" (a command exits 1);
-//   - *TimeoutError: the run exceeded Options.Timeout or Options.MaxMemory;
+//   - *TimeoutError: the run exceeded Options.Timeout or Options.MaxMemory,
+//     or a job its Options.JobTimeout (JobLimit set, naming the job);
 //   - the context's error when the caller cancelled it;
 //   - an error reading the script file.
 //
@@ -385,9 +388,9 @@
 // day), p_at_or_below, p_at_or_above, flag ("above", "below" or ""),
 // fuel_t, co2_t, fuel_by_grade, shares, implied (each factor's value, nil
 // when none gives the claim, and status), warnings and
-// samples_with_warnings. An audit too large for the run's time limit
-// stops early with an error that says to raise it (sim run --timeout;
-// Options.Timeout).
+// samples_with_warnings. An audit too large for its time limit stops
+// early with an error that says to raise it (sim run --job-timeout;
+// Options.JobTimeout).
 //
 // In check mode the jobs read and check everything but solve nothing, and
 // return tables of the same shape with zero figures.

@@ -1,6 +1,7 @@
 package scripting
 
 import (
+	"context"
 	"fmt"
 	"math"
 	"runtime"
@@ -264,7 +265,14 @@ func (r *runner) luaHeatingPlan(L *lua.LState) int {
 	if opt.Workers <= 0 {
 		opt.Workers = runtime.GOMAXPROCS(0)
 	}
-	res, err := heatplan.Plan(L.Context(), ph.p, rows.rows, tanks, q, opt)
+	var res *heatplan.Result
+	// The rows' fuel curves (13 duty levels a distinct row) and the plans
+	// solved row by row with each tank's instructions.
+	err = r.inJob(a.what, a.pos, len(rows.rows)*(13+10*len(tanks)), func(ctx context.Context) error {
+		var err error
+		res, err = heatplan.Plan(ctx, ph.p, rows.rows, tanks, q, opt)
+		return err
+	})
 	if err != nil {
 		r.jobErr(a.pos, a.what, err)
 	}

@@ -2,6 +2,7 @@ package scripting
 
 import (
 	"bytes"
+	"context"
 	"encoding/csv"
 	"errors"
 	"fmt"
@@ -595,6 +596,10 @@ func (r *runner) progress(job string) func(done, total int) {
 // jobErr raises the error of a profile run at the row it names, when it
 // names one.
 func (r *runner) jobErr(pos Pos, what string, err error) {
+	var jt *TimeoutError
+	if errors.As(err, &jt) && jt.JobLimit {
+		r.raise(&Error{Pos: pos, Msg: jt.Error(), Err: jt})
+	}
 	if lerr := r.limitErr(pos); lerr != nil {
 		var te *TimeoutError
 		if errors.As(lerr, &te) {
@@ -629,8 +634,14 @@ func (r *runner) luaVoyage(L *lua.LState) int {
 		L.Push(o)
 		return 1
 	}
-	res, err := profile.Run(L.Context(), ph.p, rows.rows, profile.Options{Workers: r.opt.Workers, Progress: r.progress(a.what),
-		Tanks: tankStarts(specs, a.pos)})
+	var res *profile.Result
+	// A row is one solve, and one more for the economisers' saving.
+	err := r.inJob(a.what, a.pos, 2*len(rows.rows), func(ctx context.Context) error {
+		var err error
+		res, err = profile.Run(ctx, ph.p, rows.rows, profile.Options{Workers: r.opt.Workers, Progress: r.progress(a.what),
+			Tanks: tankStarts(specs, a.pos)})
+		return err
+	})
 	if err != nil {
 		r.jobErr(a.pos, a.what, err)
 	}
@@ -675,7 +686,16 @@ func (r *runner) luaStudy(L *lua.LState) int {
 		L.Push(r.studyTable(job, res))
 		return 1
 	}
-	res, err := profile.RunStudy(L.Context(), ph.p, rows.rows, spec, profile.Options{Workers: r.opt.Workers, Progress: r.progress(a.what)})
+	runs := len(variants)
+	if spec.Sweep != nil {
+		runs += len(spec.Sweep.Values)
+	}
+	var res *profile.StudyResult
+	err := r.inJob(a.what, a.pos, 2*runs*len(rows.rows), func(ctx context.Context) error {
+		var err error
+		res, err = profile.RunStudy(ctx, ph.p, rows.rows, spec, profile.Options{Workers: r.opt.Workers, Progress: r.progress(a.what)})
+		return err
+	})
 	if err != nil {
 		r.jobErr(a.pos, a.what, err)
 	}

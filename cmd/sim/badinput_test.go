@@ -171,6 +171,14 @@ func TestBadInputs(t *testing.T) {
 			args: []string{"check", "--timeout", "200ms", "{dir}/s.lua"}, code: exitFail,
 			stderr: "{dir}/s.lua:2: script stopped: it ran longer than its time limit of 200ms (an endless loop?); to give it longer, run again with --timeout 2s\n"},
 
+		{name: "job time limit", files: map[string]string{"plant.lua": badPlant, "v.csv": "phase,hours\n" + strings.Repeat("sea,1\n", 2000),
+			"s.lua": "local ship = include(\"plant.lua\")\nvoyage(ship, { name = \"v\", csv = \"v.csv\" })\n"},
+			args: []string{"run", "--quiet", "--job-timeout", "1ms", "{dir}/s.lua"}, code: exitFail,
+			stderr: "{dir}/s.lua:2: voyage \"v\" stopped: it ran longer than its time limit of 1ms (as given); raise the job time limit (sim run --job-timeout; scripting's Options.JobTimeout); to give it longer, run again with --job-timeout 1s\n",
+			stdout: "Nothing was solved"},
+		{name: "job time limit below zero", args: []string{"run", "--job-timeout", "-1s", "x.lua"}, code: exitUsage,
+			stderr: "sim run: --job-timeout -1s: the time limit must be above zero and at most 24h0m0s, such as 10m or 2h\n" + runUsage},
+
 		// sim steam: out of range is a failure (1), a mistake of usage 2.
 		// 700 bar(g) is 70.101325 MPa (700 bar + 1.01325 bar); the
 		// critical pressure 22.064 MPa is IAPWS R7-97(2012) Eq. 2's pc.
@@ -341,7 +349,8 @@ case(ship, { name = "port", engine = "0 %", fire = {} })
 // runUsage and steamUsage are what follows a usage error of run and steam.
 const (
 	runUsage = "usage: sim run [--json | --csv] [--plot FILE] [--evidence DIR] [-o FILE]\n" +
-		"               [--timeout DURATION] [-v | --quiet] SCRIPT...\n" +
+		"               [--timeout DURATION] [--job-timeout DURATION]\n" +
+		"               [-v | --quiet] SCRIPT...\n" +
 		"Run 'sim help run' for details.\n"
 	steamUsage = "usage: sim steam --p PRESSURE\n" +
 		"                 (--t TEMPERATURE | --h ENTHALPY | --s ENTROPY | --x QUALITY)\n" +

@@ -24,7 +24,7 @@ const maxTimeout = 24 * time.Hour
 func runCommand() *command {
 	return &command{
 		Name:      "run",
-		UsageLine: "[--json | --csv] [--plot FILE] [--evidence DIR] [-o FILE] [--timeout DURATION] [-v | --quiet] SCRIPT...",
+		UsageLine: "[--json | --csv] [--plot FILE] [--evidence DIR] [-o FILE] [--timeout DURATION] [--job-timeout DURATION] [-v | --quiet] SCRIPT...",
 		Short:     "solve the plants and load cases of Lua scripts and report them",
 		Long: `Run runs each load-case script in turn, solving the plants and load cases
 it describes, and prints a report of every case: the conditions (sea and
@@ -110,9 +110,14 @@ time left at that rate, and the time taken when done.
 An error in a script is printed as "file:line: message" and sim exits
 with status 1. So does a failed check(), after the report of the cases
 solved before it, so that the figures it tested can be seen; with --json
-the document marks the failure under "checks". A script that runs longer
-than --timeout is stopped: sim prints the report of what was solved, then
-where the script was and a longer --timeout to give.
+the document marks the failure under "checks". A script whose own code
+and load cases run longer than --timeout is stopped: sim prints the report
+of what was solved, then where the script was and a longer --timeout to
+give. The time of a voyage, study, audit or heating plan does not count
+against --timeout: each job has its own limit, --job-timeout, which by
+default grows with the job (10s, and 20ms for each plant solve it will
+take: its rows times its variants, its days times its samples), and a job
+stopped at it is named with its line and a longer --job-timeout to give.
 Control characters in names and messages (a carriage return, a newline,
 a terminal's escape) are shown escaped, as \r, \n or \x1b, in the table,
 the CSV, the charts and the messages; the JSON keeps them exactly, in its
@@ -167,6 +172,7 @@ type runArgs struct {
 	plot, out      string
 	evidence       string
 	timeout        time.Duration
+	jobTimeout     time.Duration // zero: scaled to each job's work
 	verbose, quiet bool
 
 	// timeoutFlag is set when the command takes --timeout, so that a run
@@ -181,6 +187,7 @@ func (a *runArgs) flagSet(name string) *flag.FlagSet {
 		fs.BoolVar(&a.csv, "csv", false, "print the report as CSV tables: the cases, then the rows of voyages,\nthe variants of studies and the days of audits, a blank line between")
 		fs.StringVar(&a.plot, "plot", "", "also draw the cases and each voyage, study and audit in `FILE`,\nan SVG or PNG image by the name's extension (.svg, .png); with\nseveral charts, one file each, named with a suffix before the\nextension: demand-cases.svg, demand-voyage-1.svg, ...")
 		fs.StringVar(&a.out, "o", "", "write the report to `FILE` instead of standard output")
+		fs.Var((*durationFlag)(&a.jobTimeout), "job-timeout", "stop a voyage, study, audit or heating plan that runs longer than\n`DURATION` (default: 10s and 20ms for each plant solve of the job)")
 		fs.StringVar(&a.evidence, "evidence", "", "also write an evidence folder `DIR`: the report, the JSON, the CSV,\nthe charts, the audits' samples, a README and the files' SHA-256")
 	}
 	a.timeout = 10 * time.Second
@@ -238,6 +245,8 @@ func (a *runArgs) parse(name string, args []string) ([]string, error) {
 		return nil, usagef("-v and --quiet given together: choose one")
 	case a.timeout <= 0 || a.timeout > maxTimeout:
 		return nil, usagef("--timeout %v: the time limit must be above zero and at most %v, such as 10s or 2m", a.timeout, maxTimeout)
+	case a.jobTimeout < 0 || a.jobTimeout > maxTimeout:
+		return nil, usagef("--job-timeout %v: the time limit must be above zero and at most %v, such as 10m or 2h", a.jobTimeout, maxTimeout)
 	}
 	if a.plot != "" {
 		if _, err := report.FormatOf(a.plot); err != nil {
@@ -320,11 +329,15 @@ func writeScriptError(w io.Writer, err error, a *runArgs) error {
 // to be abandoned, that the script's cases are not reported.
 func timeoutHint(te *scripting.TimeoutError, a *runArgs) string {
 	hint := ""
+	flag := "--timeout"
+	if te.JobLimit {
+		flag = "--job-timeout"
+	}
 	if te.Limit > 0 && a != nil && a.timeoutFlag {
 		if next := longerTimeout(te.Limit); next > 0 {
-			hint = "; to give it longer, run again with --timeout " + durationWord(next)
+			hint = "; to give it longer, run again with " + flag + " " + durationWord(next)
 		} else {
-			hint = "; this is the longest limit --timeout allows"
+			hint = "; this is the longest limit " + flag + " allows"
 		}
 	}
 	if te.Abandoned {
@@ -401,7 +414,7 @@ func runScripts(ctx context.Context, e env, a *runArgs, o *outputs, runners []sc
 		meter = newProgressMeter(e.stderr, fd)
 		log = loggerOn(meter, true, a)
 	}
-	opt := scripting.Options{Timeout: a.timeout, Logger: log, CheckRead: o.checkRead, Print: printTo(e, a, meter)}
+	opt := scripting.Options{Timeout: a.timeout, JobTimeout: a.jobTimeout, Logger: log, CheckRead: o.checkRead, Print: printTo(e, a, meter)}
 	switch {
 	case meter != nil:
 		opt.Progress = meter.update

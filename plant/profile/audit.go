@@ -544,6 +544,10 @@ func (e *DayError) Error() string {
 
 func (e *DayError) Unwrap() error { return e.Err }
 
+// DefaultAuditSamples is the Monte Carlo samples of an audit that gives
+// none: enough for the tails of each day's band.
+const DefaultAuditSamples = 1000
+
 // OverrunError is an audit stopped early because, at the rate of its
 // first days, it would not finish within its context's deadline.
 type OverrunError struct {
@@ -683,7 +687,7 @@ func newAuditor(p *plant.Plant, spec AuditSpec, opt *AuditOptions) (*auditor, er
 		res.Assumptions = append(res.Assumptions, AuditAssumption{Item: item, Value: value, Source: source})
 	}
 	if opt.Samples == 0 {
-		opt.Samples = 1000
+		opt.Samples = DefaultAuditSamples
 		assume("samples", "1000 (the default)", "common practice, no source")
 	}
 	if opt.Low == 0 && opt.High == 0 {

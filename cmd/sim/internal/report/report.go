@@ -37,7 +37,7 @@ const (
 func Table(w io.Writer, run Run) error {
 	ew := &errWriter{w: w}
 	if run.empty() {
-		fmt.Fprintln(ew, "Nothing was solved: the scripts ran no load case, voyage, study or audit.")
+		fmt.Fprintln(ew, "Nothing was solved: the scripts ran no load case, voyage, study, audit or heating plan.")
 	}
 	var b bytes.Buffer
 	block := func(write func(io.Writer)) {
