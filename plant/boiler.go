@@ -73,6 +73,10 @@ type Boiler struct {
 	// burner whose fan is not modelled.
 	Burner Burner
 
+	// MaxLoad is the most the boiler may raise, as a fraction of its MCR
+	// (a case may lower it: a boiler limited by a fault); zero means 1.
+	MaxLoad float64
+
 	feed, steam *Line
 	fuel        int
 	eqs         [4]int
@@ -131,6 +135,10 @@ var boilerKeys = []Key{
 		Doc: "scales the efficiency model's figure (an audit's knob)", Default: 1, HasDefault: true,
 		Min: 0.5, Max: 1.5, Case: true},
 		func(u *Boiler) *float64 { return &u.EtaFactor }),
+	boilerKey(Key{Name: "max_load", Label: "max load", Dim: units.Fraction, Example: "90 %",
+		Doc: "the most the boiler may raise, as a fraction of its MCR (a case may lower it)", Default: 1, HasDefault: true,
+		Source: "the MCR is the continuous limit", Min: 0.05, Max: 1, Case: true, JSON: "limit_kg_h"},
+		func(u *Boiler) *float64 { return &u.MaxLoad }),
 	{Name: "fuel", Label: "fuel", Kind: KeyText, Example: `"HSFO"`, Case: true, JSON: "fuel",
 		Doc:  "a built-in grade (its LHV, CO2 factor and analysis), or the name of your own fuel with lhv and co2_factor; a case may change it to a built-in grade (0.1 % S fuel in port or in an emission control area)",
 		text: setBoilerGrade,
@@ -202,6 +210,18 @@ func (u *Boiler) blowdown() float64 {
 	return u.Blowdown
 }
 
+// maxLoad is the most the boiler may raise as a fraction of its MCR.
+func (u *Boiler) maxLoad() float64 {
+	if u.MaxLoad == 0 {
+		return 1
+	}
+	return u.MaxLoad
+}
+
+// Limit is the most steam the boiler may raise in the case, kg/s: its MCR
+// times its max load.
+func (u *Boiler) Limit() float64 { return u.MCR * u.maxLoad() }
+
 // MinLoad is the burner minimum as a fraction of MCR, zero when the
 // turndown is not known.
 func (u *Boiler) MinLoad() float64 {
@@ -222,6 +242,7 @@ func (u *Boiler) check(fs *faults) {
 	checkKey(fs, u, "turndown")
 	checkRange(fs, u, "cycling loss", u.CyclingLoss, 0, 0.2, "")
 	checkKey(fs, u, "eta_factor")
+	checkKey(fs, u, "max_load")
 	if u.Burner.AirT != 0 {
 		checkRange(fs, u, "combustion air temperature", u.Burner.AirT, 243.15, 343.15, "K")
 	}
@@ -467,6 +488,7 @@ func (u *Boiler) report(ev *eval, cr *CaseResult) error {
 		Lambda:          pt.Lambda,
 		AirKgS:          fuel * pt.AirPerFuel,
 		FlueGasKgS:      fuel * pt.FlueGasPerFuel,
+		LimitKgS:        u.Limit(),
 	}
 	if pt.Losses != nil && ms > 0 {
 		l := *pt.Losses
@@ -492,6 +514,8 @@ func (u *Boiler) report(ev *eval, cr *CaseResult) error {
 	}
 	if firing && ms > u.MCR*(1+1e-9) {
 		cr.warn("%s %q: steam %.0f kg/h is above its MCR of %.0f kg/h (%.0f %%)", u.Kind(), u.Name, ms*3600, u.MCR*3600, 100*ms/u.MCR)
+	} else if firing && ms > u.Limit()*(1+1e-9) {
+		cr.warn("%s %q: steam %.0f kg/h is above its limit of %.0f kg/h (max load %.0f %% of MCR)", u.Kind(), u.Name, ms*3600, u.Limit()*3600, 100*u.maxLoad())
 	}
 	if warn != "" && firing && ms > 0 {
 		cr.warn("%s %q: %s", u.Kind(), u.Name, warn)

@@ -166,7 +166,7 @@ func (p *Plant) compile() error {
 		return err
 	}
 	s := &session{asm: a, ports: ports}
-	s.assembleDispatch(a)
+	s.assembleDispatch(a, p.comps)
 	st, err := solver.DiagnoseIncidence(len(a.eqNames), len(a.varNames), a.pattern, a.eqNames, a.varNames)
 	if err == nil {
 		err = st.Err()

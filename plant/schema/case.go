@@ -39,6 +39,9 @@ type Case struct {
 	Balance            Balance    `json:"balance"`
 	EGESteamKgH        float64    `json:"ege_steam_kg_h"`
 	EGEFuelSavedKgH    float64    `json:"ege_fuel_saved_kg_h"`
+	ShedKW             float64    `json:"shed_kW"`
+	ShedKgH            float64    `json:"shed_kg_h"`
+	PrioritiesGiven    bool       `json:"priorities_given"`
 	Boilers            []Boiler   `json:"boilers"`
 	EGEs               []EGE      `json:"exhaust_gas_economisers"`
 	Consumers          []Consumer `json:"consumers"`
@@ -78,6 +81,7 @@ type Boiler struct {
 	ExcessAir     *float64 `json:"excess_air"` // λ − 1
 	Losses        *Losses  `json:"losses"`
 	FanElectricKW float64  `json:"fan_electric_kW"`
+	LimitKgH      float64  `json:"limit_kg_h"`
 }
 
 // Losses is a boiler's heat-loss account in percent of the heat input on
@@ -121,6 +125,41 @@ type Consumer struct {
 	// Inputs are the figures a computed duty came from, keys with units;
 	// absent when the duty was given.
 	Inputs map[string]float64 `json:"inputs,omitempty"`
+	// The allocation of a shortfall.
+	Priority      float64  `json:"priority"`
+	PriorityLevel *string  `json:"priority_level"`
+	Reducible     bool     `json:"reducible"`
+	RequestedKW   float64  `json:"requested_kW"`
+	ShedKW        float64  `json:"shed_kW"`
+	ShedKgH       float64  `json:"shed_kg_h"`
+	CargoM3H      float64  `json:"cargo_m3_h"`
+	Cooling       *Cooling `json:"cooling"`
+}
+
+// Cooling is what a shortfall does to a tank's cargo whose heating is
+// reduced.
+type Cooling struct {
+	RateKPerH   float64  `json:"rate_K_per_h"`
+	MinTK       *float64 `json:"min_T_K"`
+	HoursToMinT *float64 `json:"hours_to_min_T"`
+}
+
+// newCooling is the schema form of a tank's cooling, or nil.
+func newCooling(c *plant.TankCooling) *Cooling {
+	if c == nil {
+		return nil
+	}
+	out := &Cooling{RateKPerH: Round(c.RateKS * 3600), MinTK: roundPtr(c.MinT, c.MinT > 0)}
+	out.HoursToMinT = roundPtr(c.SecondsToMinT/3600, c.MinT > 0 && c.Reaches)
+	return out
+}
+
+// level is a priority's level name, or null.
+func level(v float64) *string {
+	if n := plant.PriorityLevelName(v); n != "" {
+		return &n
+	}
+	return nil
 }
 
 // Unit is any other unit with its figures, each key carrying its SI unit.
@@ -187,6 +226,9 @@ func NewCase(plantName string, cr *plant.CaseResult) Case {
 		Balance:            Balance{MassRel: cr.Balance.MassRel, EnergyRel: cr.Balance.EnergyRel},
 		EGESteamKgH:        Round(KgPerH(cr.EGESteamKgS)),
 		EGEFuelSavedKgH:    Round(KgPerH(cr.EGEFuelSavedKgS)),
+		ShedKW:             Round(KW(cr.ShedW)),
+		ShedKgH:            Round(KgPerH(cr.ShedKgS)),
+		PrioritiesGiven:    cr.PrioritiesGiven,
 		Boilers:            make([]Boiler, 0, len(cr.Boilers)),
 		EGEs:               make([]EGE, 0, len(cr.EGEs)),
 		Consumers:          make([]Consumer, 0, len(cr.Consumers)),
@@ -201,7 +243,7 @@ func NewCase(plantName string, cr *plant.CaseResult) Case {
 			FuelKgH: Round(KgPerH(b.FuelKgS)), Efficiency: Round(b.Efficiency), EfficiencyBasis: b.EfficiencyBasis,
 			Fuel: b.FuelName, FuelLHV: Round(b.FuelLHV), DrumPPa: Round(b.DrumP), FeedTK: Round(b.FeedT),
 			SteamDryness: Round(b.SteamDryness), BlowdownKgH: Round(KgPerH(b.BlowdownKgS)), HeatKW: Round(KW(b.HeatW)),
-			FanElectricKW: Round(KW(b.FanElectricW)),
+			FanElectricKW: Round(KW(b.FanElectricW)), LimitKgH: Round(KgPerH(b.LimitKgS)),
 		}
 		if b.FlueT > 0 {
 			bj.FlueTK = roundPtr(b.FlueT, true)
@@ -232,7 +274,9 @@ func NewCase(plantName string, cr *plant.CaseResult) Case {
 		j.Consumers = append(j.Consumers, Consumer{
 			Name: c.Name, Kind: c.Kind, DutyKW: Round(KW(c.DutyW)), SteamKgH: Round(KgPerH(c.SteamKgS)),
 			ReturnKgH: Round(KgPerH(c.ReturnKgS)), LostKgH: Round(KgPerH(c.LostKgS)), CoolerKW: Round(KW(c.DrainCoolerW)),
-			Inputs: roundMap(c.Inputs),
+			Inputs: roundMap(c.Inputs), Priority: Round(c.Priority), PriorityLevel: level(c.Priority),
+			Reducible: c.Reducible, RequestedKW: Round(KW(c.RequestedW)), ShedKW: Round(KW(c.ShedW)),
+			ShedKgH: Round(KgPerH(c.ShedKgS)), CargoM3H: Round(c.CargoRate * 3600), Cooling: newCooling(c.Cooling),
 		})
 	}
 	for _, u := range cr.Units {

@@ -107,8 +107,12 @@
 //	engine_load             main engine load, fraction of its MCR (0..1)
 //	boilers_firing          how many oil-fired boilers fire
 //	firing_forced           the case chose which boilers fire
-//	can_carry               the firing boilers can carry the demand
-//	shortfall_kg_h          demand beyond the boilers' MCR, kg/h
+//	can_carry               the firing boilers can carry the demand within
+//	                        their limits (MCR times max_load)
+//	shortfall_kg_h          demand beyond the firing boilers' limit, kg/h:
+//	                        the steam shed (shed_kg_h), and any steam the
+//	                        boilers still raise above their limit when
+//	                        nothing more may be shed
 //	margin_kg_h             steam the firing boilers can add before the
 //	                        next boiler must fire (with all firing: before
 //	                        their MCR; with none: the steam dumped), kg/h
@@ -128,6 +132,12 @@
 //	ege_steam_kg_h          steam raised by exhaust-gas economisers, kg/h
 //	ege_fuel_saved_kg_h     boiler fuel the economisers save against the
 //	                        same case without them, kg/h
+//	shed_kW, shed_kg_h      the heat (and shaft power) and the steam shed
+//	                        from the consumers because the boilers at
+//	                        their limit cannot carry the case; 0 when it
+//	                        is carried
+//	priorities_given        a consumer gave a priority; false: a
+//	                        shortfall reduces every consumer in proportion
 //	boilers                 [BOILER]: the oil-fired boilers
 //	exhaust_gas_economisers  [EGE]: the exhaust-gas economisers
 //	consumers               [CONSUMER]: the steam consumers and turbines
@@ -160,6 +170,8 @@
 //	excess_air              λ − 1
 //	losses                  LOSSES: its heat-loss account
 //	fan_electric_kW         its fan's electrical power, kW
+//	limit_kg_h              the most it may raise in the case (its MCR
+//	                        times its max_load), kg/h
 //
 // flue_gas_exit_T_K, excess_air and losses come from a combustion model:
 // null with a plain efficiency table (fan_electric_kW then 0).
@@ -202,6 +214,30 @@
 //	inputs                  {key: value}: the figures a computed duty came
 //	                        from, keys with units; absent when the duty
 //	                        was given
+//	priority                its priority (40, essential, when none was
+//	                        given); the lowest is reduced first
+//	priority_level          the name of a named level ("deferrable",
+//	                        "hotel", "cargo", "essential"), or null
+//	reducible               a shortfall may reduce it in this case (it
+//	                        runs, and its demand is a duty, a steam flow
+//	                        or a shaft power, not one that follows a
+//	                        boiler's fuel)
+//	requested_kW            the duty (shaft power) the case asks for, kW
+//	shed_kW, shed_kg_h      what a shortfall took from it, kW and the
+//	                        steam at the solved state, kg/h
+//	cargo_m3_h              the cargo a turbine's pump delivers (its flow
+//	                        in proportion to the power delivered), m³/h
+//	cooling                 COOLING: what the shortfall does to a tank's
+//	                        cargo; null when nothing is shed from a tank
+//
+// COOLING (type Cooling) is
+//
+//	rate_K_per_h            the cargo's temperature change at the start,
+//	                        K/h (negative: it cools)
+//	min_T_K                 the tank's min_T, K; null when not given
+//	hours_to_min_T          hours until the cargo cools to min_T with the
+//	                        heating left on; null without min_T or when
+//	                        it never gets there
 //
 // A UNIT (type Unit) is any other unit:
 //
