@@ -36,6 +36,14 @@ type Options struct {
 	// NoEGESaving skips the second solve of each case without its
 	// exhaust-gas economisers that gives the fuel they save.
 	NoEGESaving bool
+	// NoContingencies skips the N-1 answers of each case (contingency.go):
+	// the largest firing boiler tripping, each exhaust-gas economiser out,
+	// and the Contingencies listed; for speed.
+	NoContingencies bool
+	// Contingencies are failures to answer besides the automatic ones:
+	// each the boilers and exhaust-gas economisers lost together. The
+	// slice is only read.
+	Contingencies []Contingency
 	// FiniteDifferences makes the solver form the Jacobian by its own
 	// coloured finite differences instead of the components' analytic
 	// partial derivatives: a fallback and a check.
@@ -157,6 +165,7 @@ func (p *Plant) compile() error {
 	for _, c := range p.comps {
 		c.check(&fs)
 	}
+	p.checkContingencies(&fs)
 	ports := p.connect(&fs)
 	if err := fs.err(); err != nil {
 		return err

@@ -58,6 +58,12 @@ type CaseResult struct {
 	PrioritiesGiven bool
 	ShedRanks       int
 
+	// Contingencies are the N-1 answers of the case (contingency.go): one
+	// per single failure considered, in order; empty when the plant's
+	// option turns them off (ContingenciesChecked false).
+	Contingencies        []ContingencyResult
+	ContingenciesChecked bool
+
 	Balance Balance
 
 	Boilers   []BoilerResult

@@ -120,7 +120,7 @@ func (r *runner) checkTable(n int, what string) *lua.LTable {
 
 // plantOptions reads the plant-wide keys shared by plant{} and
 // steam_plant{}: name, ambient, usable, sharing, lead_load,
-// feed_suction_max_T.
+// feed_suction_max_T, ege_saving, n_minus_1, contingencies.
 func (r *runner) plantOptions(t *lua.LTable, what string, pos Pos) (*args, string, plant.Options) {
 	a := r.args(t, what, pos, units.Options{})
 	name, _ := a.str("name", true)
@@ -153,6 +153,11 @@ func (r *runner) plantOptions(t *lua.LTable, what string, pos Pos) (*args, strin
 		// exhaust-gas economisers that gives the fuel they save
 		opt.NoEGESaving = !a.boolean("ege_saving")
 	}
+	if a.has("n_minus_1") {
+		// false skips the N-1 answers of each case, for speed
+		opt.NoContingencies = !a.boolean("n_minus_1")
+	}
+	opt.Contingencies = a.contingencies(r.entryPos(pos, "=contingencies"))
 	opt.Logger = r.log
 	return a, name, opt
 }
@@ -294,6 +299,59 @@ func (r *runner) addPlantErrIn(ph *plantHandle, err error, unit, note string) {
 		pos = ph.pos
 	}
 	r.errs = append(r.errs, &Error{Pos: pos, Unit: unit, Msg: err.Error() + note, Err: err})
+}
+
+// contingencies reads contingencies = { "AB1", { "AB2", "EGE" } }: each
+// entry a unit's name or a list of units lost together (boilers or
+// exhaust-gas economisers; the plant checks the names once its units are
+// declared).
+func (a *args) contingencies(pos Pos) []plant.Contingency {
+	v := a.get("contingencies")
+	if v == lua.LNil {
+		return nil
+	}
+	t, ok := v.(*lua.LTable)
+	if !ok {
+		a.errorf(nil, "contingencies must be a list of failures, each a unit's name or a list of names lost together, such as { \"AB1\", { \"AB2\", \"EGE\" } }; got %s", describe(v))
+		return nil
+	}
+	n := t.Len()
+	if n > a.r.opt.MaxTable {
+		a.errorf(nil, "contingencies: more than %d entries", a.r.opt.MaxTable)
+		return nil
+	}
+	if extra := a.r.unknownKeys(t, nil); len(extra) > n {
+		a.errorf(nil, "contingencies must be a list { \"AB1\", {...} } without named keys")
+	}
+	var out []plant.Contingency
+	at := plant.Pos{File: pos.File, Line: pos.Line}
+	for i := 1; i <= n; i++ {
+		var units []string
+		switch e := t.RawGetInt(i).(type) {
+		case lua.LString:
+			if strings.TrimSpace(string(e)) != "" {
+				units = []string{string(e)}
+			}
+		case *lua.LTable:
+			for j := 1; j <= e.Len() && j <= a.r.opt.MaxTable; j++ {
+				s, ok := e.RawGetInt(j).(lua.LString)
+				if !ok || strings.TrimSpace(string(s)) == "" {
+					a.errorf(nil, "contingencies[%d][%d] must be a unit's name; got %s", i, j, describe(e.RawGetInt(j)))
+					continue
+				}
+				units = append(units, string(s))
+			}
+		default:
+			a.errorf(nil, "contingencies[%d] must be a unit's name or a list of names; got %s", i, describe(e))
+			continue
+		}
+		if len(units) == 0 {
+			a.errorf(nil, "contingencies[%d] names no unit: give the boilers or exhaust-gas economisers lost together, such as { \"AB1\" }", i)
+			continue
+		}
+		out = append(out, plant.Contingency{Units: units, Pos: at})
+	}
+	return out
 }
 
 // names reads a list of unit names.

@@ -77,6 +77,15 @@ type Totals struct {
 	// order the grades first fire (the totals the fuel-consumption
 	// reporting schemes ask for).
 	FuelByGrade []GradeTotal
+	// N1ShortHours are the hours of the rows in which at least one of the
+	// case's N-1 contingencies (plant contingency.go: the largest firing
+	// boiler trips, an economiser is out, a listed failure) cannot be
+	// carried, and N1ShortRows those rows; N1CheckedRows counts the rows
+	// whose contingencies were answered (none when the plant's option
+	// turns them off).
+	N1ShortHours  float64
+	N1ShortRows   []int
+	N1CheckedRows int
 }
 
 // GradeTotal is the boiler fuel burnt of one grade, and its CO2, tonnes.
@@ -226,6 +235,16 @@ func (t *Totals) add(i int, hours float64, cr *plant.CaseResult) {
 	}
 	if !cr.CanCarry {
 		t.ShortRows = append(t.ShortRows, i)
+	}
+	if cr.ContingenciesChecked {
+		t.N1CheckedRows++
+		for _, c := range cr.Contingencies {
+			if !c.CanCarry {
+				t.N1ShortHours += hours
+				t.N1ShortRows = append(t.N1ShortRows, i)
+				break
+			}
+		}
 	}
 	if len(cr.Warnings) > 0 {
 		t.WarningRows = append(t.WarningRows, i)

@@ -10,44 +10,46 @@ import (
 // document, and the table case() returns to a script. Its keys carry their
 // units; they are listed with their meaning in the package documentation.
 type Case struct {
-	Plant              string     `json:"plant"`
-	Source             string     `json:"source"`
-	Name               string     `json:"name"`
-	Converged          bool       `json:"converged"`
-	Iterations         int        `json:"iterations"`
-	ResidualNorm       float64    `json:"residual_norm"`
-	SeaTK              *float64   `json:"sea_T_K"`
-	AirTK              *float64   `json:"air_T_K"`
-	EngineLoad         float64    `json:"engine_load"`
-	BoilersFiring      int        `json:"boilers_firing"`
-	Forced             bool       `json:"firing_forced"`
-	CanCarry           bool       `json:"can_carry"`
-	ShortfallKgH       float64    `json:"shortfall_kg_h"`
-	MarginKgH          float64    `json:"margin_kg_h"`
-	SteamDemandKgH     float64    `json:"steam_demand_kg_h"`
-	SteamProductionKgH float64    `json:"steam_production_kg_h"`
-	DumpedKgH          float64    `json:"dumped_kg_h"`
-	FuelKgH            float64    `json:"fuel_kg_h"`
-	FuelTPerDay        float64    `json:"fuel_t_per_day"`
-	CO2TPerDay         float64    `json:"co2_t_per_day"`
-	MakeUpKgH          float64    `json:"makeup_kg_h"`
-	BlowdownKgH        float64    `json:"blowdown_kg_h"`
-	VentedKgH          float64    `json:"vented_kg_h"`
-	CondensateLostKgH  float64    `json:"condensate_lost_kg_h"`
-	FeedTankTK         float64    `json:"feed_tank_T_K"`
-	ElectricKW         float64    `json:"electric_kW"`
-	Balance            Balance    `json:"balance"`
-	EGESteamKgH        float64    `json:"ege_steam_kg_h"`
-	EGEFuelSavedKgH    float64    `json:"ege_fuel_saved_kg_h"`
-	ShedKW             float64    `json:"shed_kW"`
-	ShedKgH            float64    `json:"shed_kg_h"`
-	PrioritiesGiven    bool       `json:"priorities_given"`
-	Boilers            []Boiler   `json:"boilers"`
-	EGEs               []EGE      `json:"exhaust_gas_economisers"`
-	Consumers          []Consumer `json:"consumers"`
-	Units              []Unit     `json:"units"`
-	Lines              []Line     `json:"lines"`
-	Warnings           []string   `json:"warnings"`
+	Plant              string        `json:"plant"`
+	Source             string        `json:"source"`
+	Name               string        `json:"name"`
+	Converged          bool          `json:"converged"`
+	Iterations         int           `json:"iterations"`
+	ResidualNorm       float64       `json:"residual_norm"`
+	SeaTK              *float64      `json:"sea_T_K"`
+	AirTK              *float64      `json:"air_T_K"`
+	EngineLoad         float64       `json:"engine_load"`
+	BoilersFiring      int           `json:"boilers_firing"`
+	Forced             bool          `json:"firing_forced"`
+	CanCarry           bool          `json:"can_carry"`
+	ShortfallKgH       float64       `json:"shortfall_kg_h"`
+	MarginKgH          float64       `json:"margin_kg_h"`
+	SteamDemandKgH     float64       `json:"steam_demand_kg_h"`
+	SteamProductionKgH float64       `json:"steam_production_kg_h"`
+	DumpedKgH          float64       `json:"dumped_kg_h"`
+	FuelKgH            float64       `json:"fuel_kg_h"`
+	FuelTPerDay        float64       `json:"fuel_t_per_day"`
+	CO2TPerDay         float64       `json:"co2_t_per_day"`
+	MakeUpKgH          float64       `json:"makeup_kg_h"`
+	BlowdownKgH        float64       `json:"blowdown_kg_h"`
+	VentedKgH          float64       `json:"vented_kg_h"`
+	CondensateLostKgH  float64       `json:"condensate_lost_kg_h"`
+	FeedTankTK         float64       `json:"feed_tank_T_K"`
+	ElectricKW         float64       `json:"electric_kW"`
+	Balance            Balance       `json:"balance"`
+	EGESteamKgH        float64       `json:"ege_steam_kg_h"`
+	EGEFuelSavedKgH    float64       `json:"ege_fuel_saved_kg_h"`
+	ShedKW             float64       `json:"shed_kW"`
+	ShedKgH            float64       `json:"shed_kg_h"`
+	PrioritiesGiven    bool          `json:"priorities_given"`
+	N1Checked          bool          `json:"n_minus_1_checked"`
+	Contingencies      []Contingency `json:"contingencies"`
+	Boilers            []Boiler      `json:"boilers"`
+	EGEs               []EGE         `json:"exhaust_gas_economisers"`
+	Consumers          []Consumer    `json:"consumers"`
+	Units              []Unit        `json:"units"`
+	Lines              []Line        `json:"lines"`
+	Warnings           []string      `json:"warnings"`
 }
 
 // Balance holds a case's balance closures, as computed (not rounded).
@@ -134,6 +136,62 @@ type Consumer struct {
 	ShedKgH       float64  `json:"shed_kg_h"`
 	CargoM3H      float64  `json:"cargo_m3_h"`
 	Cooling       *Cooling `json:"cooling"`
+}
+
+// Contingency is one N-1 answer of a case: a single failure and what the
+// rest of the plant does about it.
+type Contingency struct {
+	Name         string              `json:"name"`
+	Kind         string              `json:"kind"`
+	Units        []string            `json:"units"`
+	Solved       bool                `json:"solved"`
+	CanCarry     bool                `json:"can_carry"`
+	ShortfallKgH float64             `json:"shortfall_kg_h"`
+	MarginKgH    float64             `json:"margin_kg_h"`
+	ShedKW       float64             `json:"shed_kW"`
+	ShedKgH      float64             `json:"shed_kg_h"`
+	Boilers      []ContingencyBoiler `json:"boilers"`
+	Shed         []Shed              `json:"shed"`
+	Note         string              `json:"note"`
+	Line         string              `json:"line"`
+}
+
+// ContingencyBoiler is a boiler firing after a failure.
+type ContingencyBoiler struct {
+	Name         string  `json:"name"`
+	LoadFraction float64 `json:"load_fraction"`
+	SteamKgH     float64 `json:"steam_kg_h"`
+	Started      bool    `json:"started"`
+}
+
+// Shed is a consumer a contingency's shortfall reduces.
+type Shed struct {
+	Name          string   `json:"name"`
+	Kind          string   `json:"kind"`
+	Priority      float64  `json:"priority"`
+	PriorityLevel *string  `json:"priority_level"`
+	RequestedKW   float64  `json:"requested_kW"`
+	ShedKW        float64  `json:"shed_kW"`
+	ShedKgH       float64  `json:"shed_kg_h"`
+	Cooling       *Cooling `json:"cooling"`
+}
+
+// newContingency is the schema form of one N-1 answer.
+func newContingency(c plant.ContingencyResult) Contingency {
+	out := Contingency{Name: c.Name, Kind: c.Kind, Units: append([]string{}, c.Units...), Solved: c.Solved,
+		CanCarry: c.CanCarry, ShortfallKgH: Round(KgPerH(c.ShortfallKgS)), MarginKgH: Round(KgPerH(c.MarginKgS)),
+		ShedKW: Round(KW(c.ShedW)), ShedKgH: Round(KgPerH(c.ShedKgS)), Boilers: make([]ContingencyBoiler, 0, len(c.Boilers)),
+		Shed: make([]Shed, 0, len(c.Shed)), Note: c.Note, Line: plant.ContingencyLine(c)}
+	for _, b := range c.Boilers {
+		out.Boilers = append(out.Boilers, ContingencyBoiler{Name: b.Name, LoadFraction: Round(b.LoadFraction),
+			SteamKgH: Round(KgPerH(b.SteamKgS)), Started: b.Started})
+	}
+	for _, s := range c.Shed {
+		out.Shed = append(out.Shed, Shed{Name: s.Name, Kind: s.Kind, Priority: Round(s.Priority), PriorityLevel: level(s.Priority),
+			RequestedKW: Round(KW(s.RequestedW)), ShedKW: Round(KW(s.ShedW)), ShedKgH: Round(KgPerH(s.ShedKgS)),
+			Cooling: newCooling(s.Cooling)})
+	}
+	return out
 }
 
 // Cooling is what a shortfall does to a tank's cargo whose heating is
@@ -229,12 +287,17 @@ func NewCase(plantName string, cr *plant.CaseResult) Case {
 		ShedKW:             Round(KW(cr.ShedW)),
 		ShedKgH:            Round(KgPerH(cr.ShedKgS)),
 		PrioritiesGiven:    cr.PrioritiesGiven,
+		N1Checked:          cr.ContingenciesChecked,
+		Contingencies:      make([]Contingency, 0, len(cr.Contingencies)),
 		Boilers:            make([]Boiler, 0, len(cr.Boilers)),
 		EGEs:               make([]EGE, 0, len(cr.EGEs)),
 		Consumers:          make([]Consumer, 0, len(cr.Consumers)),
 		Units:              make([]Unit, 0, len(cr.Units)),
 		Lines:              make([]Line, 0, len(cr.Lines)),
 		Warnings:           append([]string{}, cr.Warnings...),
+	}
+	for _, c := range cr.Contingencies {
+		j.Contingencies = append(j.Contingencies, newContingency(c))
 	}
 	for _, b := range cr.Boilers {
 		bj := Boiler{

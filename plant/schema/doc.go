@@ -138,12 +138,57 @@
 //	                        is carried
 //	priorities_given        a consumer gave a priority; false: a
 //	                        shortfall reduces every consumer in proportion
+//	n_minus_1_checked       the case's N-1 contingencies were answered
+//	                        (false when the plant's n_minus_1 = false)
+//	contingencies           [CONTINGENCY]: the N-1 answers, in order: the
+//	                        largest firing boiler trips, each exhaust-gas
+//	                        economiser in service is out, each failure the
+//	                        plant lists; empty when not checked
 //	boilers                 [BOILER]: the oil-fired boilers
 //	exhaust_gas_economisers  [EGE]: the exhaust-gas economisers
 //	consumers               [CONSUMER]: the steam consumers and turbines
 //	units                   [UNIT]: the other units
 //	lines                   [LINE]: every line's solved state
 //	warnings                [string]: every warning of the case
+//
+// A CONTINGENCY (type Contingency) is one single failure:
+//
+//	name                    what fails, "AB2 trips", "EGE out", "AB1 and
+//	                        EGE lost"
+//	kind                    "boiler trip", "economiser out" or "listed"
+//	units                   [string]: the units lost
+//	solved                  the failure was solved; false when the
+//	                        remaining boilers' usable capacity is at least
+//	                        125 % of the steam they must raise (carried,
+//	                        their loads estimated) or nothing was left to
+//	                        solve (note says so)
+//	can_carry               the rest of the plant carries the case
+//	shortfall_kg_h          steam the remaining boilers at their limit
+//	                        cannot raise, kg/h
+//	margin_kg_h             steam they could still add up to their
+//	                        limits, kg/h
+//	shed_kW, shed_kg_h      what the shortfall sheds, kW and kg/h
+//	boilers                 [CONTINGENCY_BOILER]: the boilers firing after
+//	                        the failure
+//	shed                    [SHED]: the consumers reduced, lowest priority
+//	                        first
+//	note                    what the figures do not say ("" if nothing)
+//	line                    the report's line for it, in words
+//
+// A CONTINGENCY_BOILER (type ContingencyBoiler) is
+//
+//	name                    the boiler's name
+//	load_fraction           its steam over its MCR
+//	steam_kg_h              its steam, kg/h
+//	started                 it was on standby and must start
+//
+// A SHED (type Shed) is a consumer a contingency reduces:
+//
+//	name, kind              its name and kind
+//	priority, priority_level   as in a CONSUMER
+//	requested_kW            its duty (shaft power) before the failure, kW
+//	shed_kW, shed_kg_h      what is taken from it, kW and kg/h
+//	cooling                 COOLING of a tank's cargo, or null
 //
 // The BALANCE (type Balance) is, as computed,
 //
@@ -287,6 +332,11 @@
 //	warning_rows            [row]: rows with any warning
 //	fuel_by_grade           [GRADE]: the boiler fuel by grade, in the
 //	                        order the grades first fire
+//	n_minus_1_rows          rows whose N-1 contingencies were answered (0
+//	                        when the plant's n_minus_1 = false)
+//	n_minus_1_short_hours   hours of the rows in which at least one N-1
+//	                        contingency cannot be carried
+//	n_minus_1_short_rows    [row]: those rows
 //
 // A GRADE (type GradeTotal) is
 //
@@ -322,6 +372,8 @@
 //	fuel_kg_h               boiler fuel, kg/h
 //	fuel_t, co2_t           boiler fuel and CO2 over the row's hours, t
 //	margin_kg_h             as in a CASE, kg/h
+//	n_minus_1_can_carry     every N-1 contingency of its case is carried;
+//	                        null when not checked
 //	warnings                [string]: the texts of its case's warnings
 //
 // A STUDY (type Study) has, after the keys of JOB,

@@ -181,6 +181,7 @@ func writeCase(w io.Writer, n, total int, c Case) {
 		writeShed(w, r)
 	}
 	fmt.Fprintf(w, "  margin %s: %s kg/h\n", marginLabel(r), fix(r.MarginNextKgS*kgh, 1))
+	writeContingencies(w, r)
 
 	// The totals.
 	fmt.Fprintf(w, "\n")
@@ -201,6 +202,20 @@ func writeCase(w io.Writer, n, total int, c Case) {
 	fmt.Fprintf(w, "  warnings (%d):\n", len(r.Warnings))
 	for _, s := range r.Warnings {
 		fmt.Fprintf(w, "    - %s\n", oneLine(s))
+	}
+}
+
+// writeContingencies writes the case's N-1 lines.
+func writeContingencies(w io.Writer, r *plant.CaseResult) {
+	switch {
+	case !r.ContingenciesChecked:
+		fmt.Fprintf(w, "  N-1: not checked (the plant's n_minus_1 = false)\n")
+	case len(r.Contingencies) == 0:
+		fmt.Fprintf(w, "  N-1: no boiler fires and no economiser raises steam: nothing to lose\n")
+	default:
+		for _, c := range r.Contingencies {
+			fmt.Fprintf(w, "  N-1: %s\n", plant.ContingencyLine(c))
+		}
 	}
 }
 
