@@ -5,6 +5,7 @@ import (
 	"math"
 	"strings"
 
+	"steamcase/plant/combustion"
 	"steamcase/plant/fuel"
 	"steamcase/plant/units"
 )
@@ -76,6 +77,10 @@ type Boiler struct {
 	// MaxLoad is the most the boiler may raise, as a fraction of its MCR
 	// (a case may lower it: a boiler limited by a fault); zero means 1.
 	MaxLoad float64
+	// InertGas declares the boiler's uptake a source of the inert-gas
+	// system during cargo discharge (inertgas.go); it needs a combustion
+	// model of the efficiency for the flue gas's O2 and volume.
+	InertGas bool
 
 	feed, steam *Line
 	fuel        int
@@ -139,6 +144,10 @@ var boilerKeys = []Key{
 		Doc: "the most the boiler may raise, as a fraction of its MCR (a case may lower it)", Default: 1, HasDefault: true,
 		Source: "the MCR is the continuous limit", Min: 0.05, Max: 1, Case: true, JSON: "limit_kg_h"},
 		func(u *Boiler) *float64 { return &u.MaxLoad }),
+	flag(Key{Name: "inert_gas", Label: "inert-gas source", Example: "true", Default: 0, HasDefault: true, Case: true,
+		Doc:  "the boiler's uptake feeds the inert-gas system during cargo discharge (needs a flue_gas or furnace efficiency)",
+		JSON: "inert_gas_source"},
+		self[*Boiler], func(u *Boiler) *bool { return &u.InertGas }),
 	{Name: "fuel", Label: "fuel", Kind: KeyText, Example: `"HSFO"`, Case: true, JSON: "fuel",
 		Doc:  "a built-in grade (its LHV, CO2 factor and analysis), or the name of your own fuel with lhv and co2_factor; a case may change it to a built-in grade (0.1 % S fuel in port or in an emission control area)",
 		text: setBoilerGrade,
@@ -243,6 +252,11 @@ func (u *Boiler) check(fs *faults) {
 	checkRange(fs, u, "cycling loss", u.CyclingLoss, 0, 0.2, "")
 	checkKey(fs, u, "eta_factor")
 	checkKey(fs, u, "max_load")
+	if u.InertGas {
+		if _, plain := u.Efficiency.(*EfficiencyTable); plain {
+			fs.add(u.Pos, u.Name, "", "is an inert-gas source (inert_gas = true), but its efficiency is a plain table: the inert gas's O2 and volume need a combustion model (efficiency = { flue_gas = ... } or { furnace = ... })")
+		}
+	}
 	if u.Burner.AirT != 0 {
 		checkRange(fs, u, "combustion air temperature", u.Burner.AirT, 243.15, 343.15, "K")
 	}
@@ -489,6 +503,11 @@ func (u *Boiler) report(ev *eval, cr *CaseResult) error {
 		AirKgS:          fuel * pt.AirPerFuel,
 		FlueGasKgS:      fuel * pt.FlueGasPerFuel,
 		LimitKgS:        u.Limit(),
+		InertGasSource:  u.InertGas,
+	}
+	if pr := pt.Products; pr != nil && firing && ms > 0 {
+		br.O2Dry = pr.MoleFractions(false)[combustion.O2]
+		br.DryFlueNm3S = fuel * pr.NormalVolume(false)
 	}
 	if pt.Losses != nil && ms > 0 {
 		l := *pt.Losses

@@ -116,6 +116,7 @@ func (c contingencySpec) units() []string {
 // no unit, or a unit that is not a boiler or an exhaust-gas economiser of
 // the plant.
 func (p *Plant) checkContingencies(fs *faults) {
+
 	for i, c := range p.Opt.Contingencies {
 		pos := c.Pos
 		if pos == (Pos{}) {

@@ -44,6 +44,13 @@ type Options struct {
 	// each the boilers and exhaust-gas economisers lost together. The
 	// slice is only read.
 	Contingencies []Contingency
+	// InertGasO2Max is the highest O2 in the dry flue gas an inert-gas
+	// source may deliver, a mole fraction; zero means 0.05 (5 % by volume:
+	// the figure of SOLAS II-2 reg. 4.5.5 and the FSS Code ch. 15, from
+	// memory). InertGasCapacity is the inert gas the sources must deliver
+	// as a fraction of the running cargo pumps' rate; zero means 1.25
+	// (125 %, the FSS Code ch. 15 figure, from memory).
+	InertGasO2Max, InertGasCapacity float64
 	// FiniteDifferences makes the solver form the Jacobian by its own
 	// coloured finite differences instead of the components' analytic
 	// partial derivatives: a fallback and a check.
@@ -62,6 +69,12 @@ func (o *Options) defaults() {
 	}
 	if o.FeedSuctionMaxT == 0 {
 		o.FeedSuctionMaxT = 363.15
+	}
+	if o.InertGasO2Max == 0 {
+		o.InertGasO2Max = 0.05
+	}
+	if o.InertGasCapacity == 0 {
+		o.InertGasCapacity = 1.25
 	}
 }
 
@@ -166,6 +179,7 @@ func (p *Plant) compile() error {
 		c.check(&fs)
 	}
 	p.checkContingencies(&fs)
+	p.checkInertGas(&fs)
 	ports := p.connect(&fs)
 	if err := fs.err(); err != nil {
 		return err

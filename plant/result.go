@@ -63,6 +63,9 @@ type CaseResult struct {
 	// option turns them off (ContingenciesChecked false).
 	Contingencies        []ContingencyResult
 	ContingenciesChecked bool
+	// InertGas is the inert-gas check of a case with cargo pumps running
+	// on a plant with an inert-gas source (inertgas.go); nil otherwise.
+	InertGas *InertGasResult
 
 	Balance Balance
 
@@ -130,6 +133,13 @@ type BoilerResult struct {
 	// LimitKgS is the most steam the boiler may raise in the case: its
 	// MCR times its max load.
 	LimitKgS float64
+	// InertGasSource: the boiler's uptake feeds the inert-gas system.
+	InertGasSource bool
+	// From a combustion model, while firing: O2 in the dry flue gas (mole
+	// fraction) and the dry flue gas at normal conditions (0 °C,
+	// 101.325 kPa), m³/s.
+	O2Dry       float64
+	DryFlueNm3S float64
 }
 
 // ConsumerResult is one steam consumer's part in a case.

@@ -274,6 +274,9 @@ func (p *Plant) Solve(ctx context.Context, c Case) (*CaseResult, error) {
 	if leadFallback {
 		cr.warn("lead-lag sharing would take the other boilers above their limit with the lead at %.0f %% of its MCR: they share equally", 100*p.Opt.LeadLoad)
 	}
+	if err := p.inertGas(cr); err != nil {
+		return nil, err
+	}
 	if err := p.contingencies(ctx, c, cr); err != nil {
 		return nil, err
 	}

@@ -158,6 +158,21 @@ func (r *runner) plantOptions(t *lua.LTable, what string, pos Pos) (*args, strin
 		opt.NoContingencies = !a.boolean("n_minus_1")
 	}
 	opt.Contingencies = a.contingencies(r.entryPos(pos, "=contingencies"))
+	if ig := r.subTable(a, "inert_gas"); ig != nil {
+		b := r.args(ig, a.what+" inert_gas", pos, a.uopt)
+		// O2: the highest O2 in the dry gas (default 5 %); capacity: the
+		// gas needed as a fraction of the cargo pumps' rate (default
+		// 125 %).
+		var ok bool
+		if opt.InertGasO2Max, ok = b.quantity("O2", units.Fraction, false); ok && !(opt.InertGasO2Max > 0 && opt.InertGasO2Max < 0.21) {
+			b.errorf(nil, "O2 must lie between 0 and 21 %%, such as \"5 %%\"; got %g %%", 100*opt.InertGasO2Max)
+		}
+		if opt.InertGasCapacity, ok = b.quantity("capacity", units.Fraction, false); ok && !(opt.InertGasCapacity > 0 && opt.InertGasCapacity <= 10) {
+			b.errorf(nil, "capacity must lie between 0 and 1000 %% of the cargo pumps' rate, such as \"125 %%\"; got %g %%", 100*opt.InertGasCapacity)
+		}
+		b.done()
+		a.nerr += b.nerr
+	}
 	opt.Logger = r.log
 	return a, name, opt
 }

@@ -44,6 +44,7 @@ type Case struct {
 	PrioritiesGiven    bool          `json:"priorities_given"`
 	N1Checked          bool          `json:"n_minus_1_checked"`
 	Contingencies      []Contingency `json:"contingencies"`
+	InertGas           *InertGas     `json:"inert_gas"`
 	Boilers            []Boiler      `json:"boilers"`
 	EGEs               []EGE         `json:"exhaust_gas_economisers"`
 	Consumers          []Consumer    `json:"consumers"`
@@ -84,6 +85,39 @@ type Boiler struct {
 	Losses        *Losses  `json:"losses"`
 	FanElectricKW float64  `json:"fan_electric_kW"`
 	LimitKgH      float64  `json:"limit_kg_h"`
+	InertGas      bool     `json:"inert_gas_source"`
+	O2Dry         *float64 `json:"o2_dry"`
+	DryFlueNm3H   *float64 `json:"dry_flue_gas_Nm3_h"`
+}
+
+// InertGas is the inert-gas check of a case with cargo pumps running.
+type InertGas struct {
+	Sources       []string `json:"sources"`
+	Firing        []string `json:"firing"`
+	CargoRateM3H  float64  `json:"cargo_rate_m3_h"`
+	Capacity      float64  `json:"capacity"`
+	RequiredM3H   float64  `json:"required_m3_h"`
+	DeliveredNm3H float64  `json:"delivered_Nm3_h"`
+	O2Dry         float64  `json:"o2_dry"`
+	O2Max         float64  `json:"o2_max"`
+	Met           bool     `json:"met"`
+	MinLoad       *float64 `json:"min_load_fraction"`
+	ExtraSteamKgH float64  `json:"extra_steam_kg_h"`
+	ExtraFuelKgH  float64  `json:"extra_fuel_kg_h"`
+	Note          string   `json:"note"`
+	Line          string   `json:"line"`
+}
+
+// newInertGas is the schema form of an inert-gas check, or nil.
+func newInertGas(g *plant.InertGasResult) *InertGas {
+	if g == nil {
+		return nil
+	}
+	return &InertGas{Sources: append([]string{}, g.Sources...), Firing: append([]string{}, g.Firing...),
+		CargoRateM3H: Round(g.CargoRateM3S * 3600), Capacity: Round(g.Capacity), RequiredM3H: Round(g.RequiredM3S * 3600),
+		DeliveredNm3H: Round(g.DeliveredNm3S * 3600), O2Dry: Round(g.O2Dry), O2Max: Round(g.O2Max), Met: g.Met,
+		MinLoad: roundPtr(g.MinLoad, g.MinLoadFound), ExtraSteamKgH: Round(KgPerH(g.ExtraSteamKgS)),
+		ExtraFuelKgH: Round(KgPerH(g.ExtraFuelKgS)), Note: g.Note, Line: plant.InertGasLine(g)}
 }
 
 // Losses is a boiler's heat-loss account in percent of the heat input on
@@ -289,6 +323,7 @@ func NewCase(plantName string, cr *plant.CaseResult) Case {
 		PrioritiesGiven:    cr.PrioritiesGiven,
 		N1Checked:          cr.ContingenciesChecked,
 		Contingencies:      make([]Contingency, 0, len(cr.Contingencies)),
+		InertGas:           newInertGas(cr.InertGas),
 		Boilers:            make([]Boiler, 0, len(cr.Boilers)),
 		EGEs:               make([]EGE, 0, len(cr.EGEs)),
 		Consumers:          make([]Consumer, 0, len(cr.Consumers)),
@@ -306,7 +341,8 @@ func NewCase(plantName string, cr *plant.CaseResult) Case {
 			FuelKgH: Round(KgPerH(b.FuelKgS)), Efficiency: Round(b.Efficiency), EfficiencyBasis: b.EfficiencyBasis,
 			Fuel: b.FuelName, FuelLHV: Round(b.FuelLHV), DrumPPa: Round(b.DrumP), FeedTK: Round(b.FeedT),
 			SteamDryness: Round(b.SteamDryness), BlowdownKgH: Round(KgPerH(b.BlowdownKgS)), HeatKW: Round(KW(b.HeatW)),
-			FanElectricKW: Round(KW(b.FanElectricW)), LimitKgH: Round(KgPerH(b.LimitKgS)),
+			FanElectricKW: Round(KW(b.FanElectricW)), LimitKgH: Round(KgPerH(b.LimitKgS)), InertGas: b.InertGasSource,
+			O2Dry: roundPtr(b.O2Dry, b.DryFlueNm3S > 0), DryFlueNm3H: roundPtr(b.DryFlueNm3S*3600, b.DryFlueNm3S > 0),
 		}
 		if b.FlueT > 0 {
 			bj.FlueTK = roundPtr(b.FlueT, true)

@@ -144,6 +144,9 @@
 //	                        largest firing boiler trips, each exhaust-gas
 //	                        economiser in service is out, each failure the
 //	                        plant lists; empty when not checked
+//	inert_gas               INERT_GAS: the inert-gas check while cargo
+//	                        pumps run on a plant with an inert-gas source;
+//	                        null otherwise
 //	boilers                 [BOILER]: the oil-fired boilers
 //	exhaust_gas_economisers  [EGE]: the exhaust-gas economisers
 //	consumers               [CONSUMER]: the steam consumers and turbines
@@ -190,6 +193,30 @@
 //	shed_kW, shed_kg_h      what is taken from it, kW and kg/h
 //	cooling                 COOLING of a tank's cargo, or null
 //
+// INERT_GAS (type InertGas) is the check of the inert gas from the
+// boilers' uptakes during cargo discharge:
+//
+//	sources, firing         [string]: the boilers declared as sources, and
+//	                        those firing
+//	cargo_rate_m3_h         the running cargo pumps' rate, m³/h
+//	capacity                the inert gas needed as a fraction of it (1.25:
+//	                        the FSS Code ch. 15 figure, from memory)
+//	required_m3_h           capacity times the cargo rate, m³/h
+//	delivered_Nm3_h         the firing sources' dry flue gas at 0 °C and
+//	                        101.325 kPa, m³/h
+//	o2_dry, o2_max          the highest O2 of the firing sources in the dry
+//	                        gas, and the limit (0.05: SOLAS II-2 reg. 4.5.5
+//	                        and the FSS Code, from memory), fractions
+//	met                     the sources deliver enough gas within the limit
+//	min_load_fraction       the lowest load (fraction of MCR, the sources
+//	                        alike) at which they would meet it; null when
+//	                        they cannot
+//	extra_steam_kg_h        steam they raise beyond the case's when they
+//	                        fire there, to be dumped, kg/h
+//	extra_fuel_kg_h         the fuel that costs, kg/h
+//	note                    what the figures do not say ("" if nothing)
+//	line                    the report's line for it, in words
+//
 // The BALANCE (type Balance) is, as computed,
 //
 //	mass_rel                |mass in − mass out| / mass throughput
@@ -217,6 +244,11 @@
 //	fan_electric_kW         its fan's electrical power, kW
 //	limit_kg_h              the most it may raise in the case (its MCR
 //	                        times its max_load), kg/h
+//	inert_gas_source        its uptake feeds the inert-gas system
+//	o2_dry                  O2 in its dry flue gas, a fraction; null
+//	                        without a combustion model or not firing
+//	dry_flue_gas_Nm3_h      its dry flue gas at 0 °C and 101.325 kPa,
+//	                        m³/h; null as o2_dry
 //
 // flue_gas_exit_T_K, excess_air and losses come from a combustion model:
 // null with a plain efficiency table (fan_electric_kW then 0).

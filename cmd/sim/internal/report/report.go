@@ -182,6 +182,10 @@ func writeCase(w io.Writer, n, total int, c Case) {
 	}
 	fmt.Fprintf(w, "  margin %s: %s kg/h\n", marginLabel(r), fix(r.MarginNextKgS*kgh, 1))
 	writeContingencies(w, r)
+	if r.InertGas != nil {
+		fmt.Fprintf(w, "  %s\n", plant.InertGasLine(r.InertGas))
+		fmt.Fprintf(w, "    (a planning estimate: the O2 analyser and the inert-gas system's own instructions govern)\n")
+	}
 
 	// The totals.
 	fmt.Fprintf(w, "\n")
