@@ -33,6 +33,10 @@ const (
 	// rest equally among the others. When the others would go above their
 	// limit, the case is solved again with equal sharing.
 	LeadLag
+	// LeastFuel chooses which boilers fire and how they share so that the
+	// plant burns the least fuel (leastfuel.go); equal sharing by the
+	// firing rule is the reference the saving is measured against.
+	LeastFuel
 )
 
 func (s Sharing) String() string {
@@ -41,6 +45,8 @@ func (s Sharing) String() string {
 		return "equal load"
 	case LeadLag:
 		return "lead-lag"
+	case LeastFuel:
+		return "least fuel"
 	}
 	return fmt.Sprintf("Sharing(%d)", int(s))
 }

@@ -137,6 +137,65 @@ func (u *Boiler) heatPerKg(ev *eval) (float64, error) {
 	return hs - hfw + b/(1-b)*(hf-hfw), nil
 }
 
+// igMinLoad is the lowest load (fraction of MCR, the sources alike) at
+// which the sources deliver at least required Nm³/s of dry gas with at
+// most o2Max of O2, searched from their burner minimum (at least 5 %) to
+// their limit in 40 steps and refined by bisection; found is false when
+// even their limit does not.
+func igMinLoad(src []igSource, required, o2Max float64) (load float64, found bool, err error) {
+	if len(src) == 0 {
+		return 0, false, nil
+	}
+	meets := func(load float64) (bool, error) {
+		var vol, o2 float64
+		for _, g := range src {
+			_, o, v, err := g.at(load)
+			if err != nil {
+				return false, wrapErr(g.b, err)
+			}
+			vol += v
+			o2 = math.Max(o2, o)
+		}
+		return o2 <= o2Max*(1+1e-9) && vol >= required, nil
+	}
+	lo, hi := 1.0, 0.0
+	for _, g := range src {
+		lo = math.Min(lo, math.Max(g.b.MinLoad(), 0.05))
+		hi = math.Max(hi, g.b.maxLoad())
+	}
+	const steps = 40
+	prev := lo
+	for k := 0; k <= steps; k++ {
+		l := lo + (hi-lo)*float64(k)/steps
+		ok, err := meets(l)
+		if err != nil {
+			return 0, false, err
+		}
+		if !ok {
+			prev = l
+			continue
+		}
+		if k > 0 {
+			a, b := prev, l
+			for range 30 {
+				m := 0.5 * (a + b)
+				ok, err := meets(m)
+				if err != nil {
+					return 0, false, err
+				}
+				if ok {
+					b = m
+				} else {
+					a = m
+				}
+			}
+			l = b
+		}
+		return l, true, nil
+	}
+	return 0, false, nil
+}
+
 // inertGas checks the inert-gas demand of the case (see above) and
 // records it in cr.
 func (p *Plant) inertGas(cr *CaseResult) error {
@@ -185,53 +244,9 @@ func (p *Plant) inertGas(cr *CaseResult) error {
 	ig.Met = len(ig.Firing) > 0 && !cycling && ig.O2Dry <= ig.O2Max*(1+1e-9) && ig.DeliveredNm3S >= ig.RequiredM3S*(1-1e-9)
 
 	// The lowest load at which the sources meet it.
-	meets := func(load float64) (bool, error) {
-		var vol, o2 float64
-		for _, g := range firing {
-			_, o, v, err := g.at(load)
-			if err != nil {
-				return false, wrapErr(g.b, err)
-			}
-			vol += v
-			o2 = math.Max(o2, o)
-		}
-		return o2 <= ig.O2Max*(1+1e-9) && vol >= ig.RequiredM3S, nil
-	}
-	lo, hi := 1.0, 0.0
-	for _, g := range firing {
-		lo = math.Min(lo, math.Max(g.b.MinLoad(), 0.05))
-		hi = math.Max(hi, g.b.maxLoad())
-	}
-	const steps = 40
-	prev := lo
-	for k := 0; k <= steps; k++ {
-		l := lo + (hi-lo)*float64(k)/steps
-		ok, err := meets(l)
-		if err != nil {
-			return err
-		}
-		if !ok {
-			prev = l
-			continue
-		}
-		if k > 0 {
-			a, b := prev, l
-			for range 30 {
-				m := 0.5 * (a + b)
-				ok, err := meets(m)
-				if err != nil {
-					return err
-				}
-				if ok {
-					b = m
-				} else {
-					a = m
-				}
-			}
-			l = b
-		}
-		ig.MinLoad, ig.MinLoadFound = l, true
-		break
+	var err error
+	if ig.MinLoad, ig.MinLoadFound, err = igMinLoad(firing, ig.RequiredM3S, ig.O2Max); err != nil {
+		return err
 	}
 
 	// What firing harder for inert gas costs.

@@ -180,6 +180,17 @@ func (p *Plant) compile() error {
 	}
 	p.checkContingencies(&fs)
 	p.checkInertGas(&fs)
+	if p.Opt.Sharing == LeastFuel {
+		n := 0
+		for _, c := range p.comps {
+			if _, ok := c.(*Boiler); ok {
+				n++
+			}
+		}
+		if n > MaxLeastFuelBoilers {
+			fs.add(p.Pos, "", "", "least-fuel sharing tries every set of boilers, for at most %d; this plant has %d: share equally or lead-lag", MaxLeastFuelBoilers, n)
+		}
+	}
 	ports := p.connect(&fs)
 	if err := fs.err(); err != nil {
 		return err

@@ -66,6 +66,10 @@ type CaseResult struct {
 	// InertGas is the inert-gas check of a case with cargo pumps running
 	// on a plant with an inert-gas source (inertgas.go); nil otherwise.
 	InertGas *InertGasResult
+	// LeastFuel is what least-fuel sharing chose against equal sharing
+	// (leastfuel.go); nil under another sharing rule, or when the case
+	// forces its firing.
+	LeastFuel *LeastFuelResult
 
 	Balance Balance
 

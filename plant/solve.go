@@ -266,8 +266,16 @@ func (p *Plant) Solve(ctx context.Context, c Case) (*CaseResult, error) {
 		}
 	}
 
+	var lf *LeastFuelResult
+	if !forced && p.Opt.Sharing == LeastFuel {
+		var err error
+		if lf, err = p.leastFuel(ctx, c); err != nil {
+			return nil, p.solveErr(c, err)
+		}
+	}
+
 	cr := &CaseResult{Name: c.Name, Pos: c.Pos, Conditions: c.Conditions, Forced: forced,
-		PrioritiesGiven: given, ShedRanks: s.nRanks}
+		PrioritiesGiven: given, ShedRanks: s.nRanks, LeastFuel: lf}
 	if err := p.report(cr); err != nil {
 		return nil, err
 	}

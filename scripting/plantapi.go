@@ -142,8 +142,10 @@ func (r *runner) plantOptions(t *lua.LTable, what string, pos Pos) (*args, strin
 			opt.Sharing = plant.EqualLoad
 		case "lead":
 			opt.Sharing = plant.LeadLag
+		case "least_fuel":
+			opt.Sharing = plant.LeastFuel
 		default:
-			a.errorf(nil, "sharing must be \"equal\" or \"lead\"; got %q", s)
+			a.errorf(nil, "sharing must be \"equal\", \"lead\" or \"least_fuel\"; got %q", s)
 		}
 	}
 	opt.LeadLoad, _ = a.quantity("lead_load", units.Fraction, false)

@@ -45,6 +45,7 @@ type Case struct {
 	N1Checked          bool          `json:"n_minus_1_checked"`
 	Contingencies      []Contingency `json:"contingencies"`
 	InertGas           *InertGas     `json:"inert_gas"`
+	LeastFuel          *LeastFuel    `json:"least_fuel"`
 	Boilers            []Boiler      `json:"boilers"`
 	EGEs               []EGE         `json:"exhaust_gas_economisers"`
 	Consumers          []Consumer    `json:"consumers"`
@@ -88,6 +89,29 @@ type Boiler struct {
 	InertGas      bool     `json:"inert_gas_source"`
 	O2Dry         *float64 `json:"o2_dry"`
 	DryFlueNm3H   *float64 `json:"dry_flue_gas_Nm3_h"`
+}
+
+// LeastFuel is what least-fuel sharing chose against equal sharing.
+type LeastFuel struct {
+	EqualFuelKgH float64   `json:"equal_fuel_kg_h"`
+	SavedKgH     float64   `json:"saved_kg_h"`
+	SavedPct     float64   `json:"saved_pct"`
+	Firing       []string  `json:"firing"`
+	Shares       []float64 `json:"shares"`
+	Note         string    `json:"note"`
+}
+
+// newLeastFuel is the schema form of least-fuel sharing's answer, or nil.
+func newLeastFuel(l *plant.LeastFuelResult) *LeastFuel {
+	if l == nil {
+		return nil
+	}
+	out := &LeastFuel{EqualFuelKgH: Round(KgPerH(l.EqualFuelKgS)), SavedKgH: Round(KgPerH(l.SavedKgS)),
+		SavedPct: Round(100 * l.SavedFraction()), Firing: append([]string{}, l.Firing...), Shares: make([]float64, 0, len(l.Shares)), Note: l.Note}
+	for _, s := range l.Shares {
+		out.Shares = append(out.Shares, Round(s))
+	}
+	return out
 }
 
 // InertGas is the inert-gas check of a case with cargo pumps running.
@@ -324,6 +348,7 @@ func NewCase(plantName string, cr *plant.CaseResult) Case {
 		N1Checked:          cr.ContingenciesChecked,
 		Contingencies:      make([]Contingency, 0, len(cr.Contingencies)),
 		InertGas:           newInertGas(cr.InertGas),
+		LeastFuel:          newLeastFuel(cr.LeastFuel),
 		Boilers:            make([]Boiler, 0, len(cr.Boilers)),
 		EGEs:               make([]EGE, 0, len(cr.EGEs)),
 		Consumers:          make([]Consumer, 0, len(cr.Consumers)),

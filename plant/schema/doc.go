@@ -147,6 +147,8 @@
 //	inert_gas               INERT_GAS: the inert-gas check while cargo
 //	                        pumps run on a plant with an inert-gas source;
 //	                        null otherwise
+//	least_fuel              LEAST_FUEL: what least-fuel sharing chose; null
+//	                        under another sharing rule or a forced firing
 //	boilers                 [BOILER]: the oil-fired boilers
 //	exhaust_gas_economisers  [EGE]: the exhaust-gas economisers
 //	consumers               [CONSUMER]: the steam consumers and turbines
@@ -192,6 +194,16 @@
 //	requested_kW            its duty (shaft power) before the failure, kW
 //	shed_kW, shed_kg_h      what is taken from it, kW and kg/h
 //	cooling                 COOLING of a tank's cargo, or null
+//
+// LEAST_FUEL (type LeastFuel) is least-fuel sharing's answer against
+// equal sharing by the firing rule:
+//
+//	equal_fuel_kg_h         the fuel with equal sharing, kg/h
+//	saved_kg_h, saved_pct   the fuel saved against it, kg/h and % (never
+//	                        negative)
+//	firing                  [string]: the boilers that fire
+//	shares                  [fraction]: each one's share of their steam
+//	note                    why the search did not run ("" if it did)
 //
 // INERT_GAS (type InertGas) is the check of the inert gas from the
 // boilers' uptakes during cargo discharge:

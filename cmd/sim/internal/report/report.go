@@ -182,6 +182,17 @@ func writeCase(w io.Writer, n, total int, c Case) {
 	}
 	fmt.Fprintf(w, "  margin %s: %s kg/h\n", marginLabel(r), fix(r.MarginNextKgS*kgh, 1))
 	writeContingencies(w, r)
+	if l := r.LeastFuel; l != nil {
+		switch {
+		case l.Note != "":
+			fmt.Fprintf(w, "  least-fuel sharing: %s\n", l.Note)
+		case l.SavedKgS > 0:
+			fmt.Fprintf(w, "  least-fuel sharing saves %s kg/h (%s %%) against equal sharing (%s kg/h)\n",
+				fix(l.SavedKgS*kgh, 1), fix(100*l.SavedFraction(), 2), fix(l.EqualFuelKgS*kgh, 1))
+		default:
+			fmt.Fprintf(w, "  least-fuel sharing: equal sharing is the least fuel here (%s kg/h)\n", fix(l.EqualFuelKgS*kgh, 1))
+		}
+	}
 	if r.InertGas != nil {
 		fmt.Fprintf(w, "  %s\n", plant.InertGasLine(r.InertGas))
 		fmt.Fprintf(w, "    (a planning estimate: the O2 analyser and the inert-gas system's own instructions govern)\n")
