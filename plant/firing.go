@@ -297,7 +297,11 @@ func (p *Plant) decide(ctx context.Context, fire []bool) error {
 			k, hinted = lowest, false
 			continue
 		}
-		if err != nil && (k > 0 || ctx.Err() != nil) {
+		// A trial with fewer boilers than the demand needs may fail where
+		// it takes a boiler beyond its model's range (a flue-gas table's
+		// loss account ends at 120 % of MCR): it does not fit. With every
+		// boiler firing, the error is the case's.
+		if err != nil && (k == n || ctx.Err() != nil) {
 			return err
 		}
 		if ok {

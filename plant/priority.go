@@ -272,9 +272,19 @@ func (p *Plant) solveShedding(ctx context.Context, fire []bool, direct bool) err
 		if ctx.Err() != nil || s.nRanks == 0 || direct {
 			return err
 		}
-		// Without a boiler firing a short economiser cannot be solved
-		// with nothing shed (the dump condenser cannot take less than
-		// nothing): try the shedding.
+		// With nothing shed the boilers firing may be taken beyond their
+		// models' range (a flue-gas table ends at 120 % of MCR), and
+		// without a boiler firing a short economiser cannot be solved (the
+		// dump condenser cannot take less than nothing). Start from the
+		// plant with every boiler firing, which can carry more, and solve
+		// the configuration with the shedding on from there.
+		all := make([]bool, len(fire))
+		for i := range all {
+			all[i] = true
+		}
+		if err := p.solveConfig(ctx, all); err != nil && ctx.Err() != nil {
+			return err
+		}
 		s.noShed = false
 		return p.solveConfig(ctx, fire)
 	}
