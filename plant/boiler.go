@@ -326,6 +326,12 @@ func (u *Boiler) eta(ev *eval) (pt EfficiencyPoint, cycling bool, err error) {
 	if err != nil {
 		return EfficiencyPoint{}, false, err
 	}
+	if lo, ok := u.Efficiency.(interface{ loadOnly() bool }); ok && lo.loadOnly() {
+		// The model reads the load, the air and the fuel alone: the
+		// memo (and the Jacobian's differences in the feed and the fuel
+		// flow, exactly zero) need not evaluate it again.
+		op.FeedT, op.FuelFlow = 0, 0
+	}
 	if u.effSet && op == u.effOp {
 		pt = u.effPt
 	} else {

@@ -329,6 +329,7 @@ func (p *Plant) contingency(ctx context.Context, c Case, spec contingencySpec, b
 		}
 	}
 	copy(s.last, base)
+	p.contingencyStart(fire, need, limit)
 	s.equalShare, s.shares = true, nil
 	res.Solved = true
 	if err := p.solveShedding(ctx, fire, true); err != nil {
@@ -368,6 +369,39 @@ func (p *Plant) contingency(ctx context.Context, c Case, spec contingencySpec, b
 		res.Note = "even with every consumer that may be reduced taken to nothing the remaining boilers would be short"
 	}
 	return res, nil
+}
+
+// contingencyStart moves the warm start of a contingency's solve near
+// its answer: the boilers firing share the steam needed up to their
+// limits, the others raise none, and where the steam needed is beyond
+// their limits the shed level starts at the share of the reduced
+// consumers' steam (rankShedding's estimate) that makes up the
+// difference. Newton's first step then starts inside every boiler's
+// range (a flue-gas table ends at 120 % of MCR) instead of at the tripped
+// boiler's steam moved onto the others.
+func (p *Plant) contingencyStart(fire []bool, need, limit float64) {
+	s := p.s
+	x := s.last
+	for i, b := range s.asm.roles.boilers {
+		m := 0.0
+		if fire[i] && limit > 0 {
+			m = math.Min(need, limit) * b.Limit() / limit
+		}
+		x[b.steam.mIdx()] = m
+		x[b.feed.mIdx()] = m / (1 - b.blowdown())
+	}
+	if s.shedIdx < 0 || need <= limit || s.nRanks == 0 {
+		return
+	}
+	var reducible float64
+	for _, c := range s.shedders {
+		if _, _, ok, steam := c.shedPriority(x); ok {
+			reducible += steam
+		}
+	}
+	if reducible > 0 {
+		x[s.shedIdx] = math.Min(1, (need-limit)/reducible)
+	}
 }
 
 // sortShed orders shed consumers by priority, lowest first, keeping the

@@ -113,6 +113,9 @@ func (g igSource) at(load float64) (fuel, o2, vol float64, err error) {
 			return 0, 0, 0, fmt.Errorf("efficiency %g at load %.0f %%", eta, 100*load)
 		}
 		fuel = q / (eta * u.Fuel.LHV)
+		if lo, ok := u.Efficiency.(interface{ loadOnly() bool }); ok && lo.loadOnly() {
+			break // the model does not read the fuel flow
+		}
 	}
 	if pt.Products == nil {
 		return 0, 0, 0, fmt.Errorf("its efficiency model gives no flue gas")

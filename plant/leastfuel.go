@@ -123,6 +123,9 @@ func (g *lfBoiler) fuelAt(m float64) (float64, error) {
 	q := m * g.hpk
 	fuel := q / (0.85 * u.Fuel.LHV)
 	_, plain := u.Efficiency.(*EfficiencyTable)
+	if lo, ok := u.Efficiency.(interface{ loadOnly() bool }); ok && lo.loadOnly() {
+		plain = true
+	}
 	for k := 0; k < 3; k++ {
 		op.FuelFlow = fuel
 		if cyc {
@@ -144,7 +147,7 @@ func (g *lfBoiler) fuelAt(m float64) (float64, error) {
 		}
 		fuel = q / (eta * u.Fuel.LHV)
 		if plain {
-			break // the table does not depend on the fuel flow
+			break // the model does not read the fuel flow
 		}
 	}
 	g.memoM, g.memoF, g.memoSet = m, fuel, true
