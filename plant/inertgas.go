@@ -262,6 +262,9 @@ func (p *Plant) inertGas(cr *CaseResult) error {
 	case cycling:
 		ig.Note = "a source's burner cycles below its minimum: its gas comes only part of the time"
 	}
+	if !ig.Met && !ig.MinLoadFound {
+		cr.warn("%s", InertGasLine(ig))
+	}
 	if ig.Met || !ig.MinLoadFound {
 		return nil
 	}
@@ -288,6 +291,11 @@ func (p *Plant) inertGas(cr *CaseResult) error {
 		ig.ExtraSteamKgS += (ig.MinLoad - load) * g.b.MCR
 		ig.ExtraFuelKgS += f1 - f0
 	}
+	defer func() {
+		if !ig.Met {
+			cr.warn("%s", InertGasLine(ig))
+		}
+	}()
 	if ig.ExtraSteamKgS > 0 && len(s.asm.roles.dumps) == 0 {
 		if ig.Note != "" {
 			ig.Note += "; "

@@ -89,6 +89,9 @@ func TestInertGasFiresHarder(t *testing.T) {
 	if !(ig.ExtraFuelKgS > ig.ExtraSteamKgS*2.5e6/40e6 && ig.ExtraFuelKgS < ig.ExtraSteamKgS*3.5e6/40e6) {
 		t.Errorf("extra fuel %g kg/s for %g kg/s of steam", ig.ExtraFuelKgS, ig.ExtraSteamKgS)
 	}
+	if len(cr.Warnings) == 0 || !strings.Contains(cr.Warnings[len(cr.Warnings)-1], "NOT MET") {
+		t.Errorf("warnings %q do not say the inert gas is not met", cr.Warnings)
+	}
 	if ig.Note != "the plant has no dump condenser to take the steam raised for inert gas" {
 		t.Errorf("note %q: this plant has no dump condenser", ig.Note)
 	}

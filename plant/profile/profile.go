@@ -86,6 +86,9 @@ type Totals struct {
 	N1ShortHours  float64
 	N1ShortRows   []int
 	N1CheckedRows int
+	// InertGasShortHours are the hours of the rows whose inert-gas check
+	// (plant inertgas.go) is not met.
+	InertGasShortHours float64
 }
 
 // GradeTotal is the boiler fuel burnt of one grade, and its CO2, tonnes.
@@ -235,6 +238,9 @@ func (t *Totals) add(i int, hours float64, cr *plant.CaseResult) {
 	}
 	if !cr.CanCarry {
 		t.ShortRows = append(t.ShortRows, i)
+	}
+	if cr.InertGas != nil && !cr.InertGas.Met {
+		t.InertGasShortHours += hours
 	}
 	if cr.ContingenciesChecked {
 		t.N1CheckedRows++

@@ -381,6 +381,8 @@
 //	n_minus_1_short_hours   hours of the rows in which at least one N-1
 //	                        contingency cannot be carried
 //	n_minus_1_short_rows    [row]: those rows
+//	inert_gas_short_hours   hours of the rows whose inert-gas check is not
+//	                        met
 //
 // A GRADE (type GradeTotal) is
 //

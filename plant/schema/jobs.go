@@ -43,6 +43,7 @@ type Totals struct {
 	N1CheckedRows     int          `json:"n_minus_1_rows"`
 	N1ShortHours      float64      `json:"n_minus_1_short_hours"`
 	N1ShortRows       []int        `json:"n_minus_1_short_rows"`
+	InertGasShortH    float64      `json:"inert_gas_short_hours"`
 }
 
 // GradeTotal is the boiler fuel of one grade and its CO2.
@@ -86,6 +87,7 @@ func NewTotals(t profile.Totals) Totals {
 		PeakBoilerKgH: Round(KgPerH(t.PeakBoilerKgS)), PeakRow: row1(t.PeakRow), CapacityKgH: Round(KgPerH(t.CapacityKgS)),
 		TightestRow: row1(t.TightestRow), ShortRows: rows1(t.ShortRows), WarningRows: rows1(t.WarningRows),
 		N1CheckedRows: t.N1CheckedRows, N1ShortHours: Round(t.N1ShortHours), N1ShortRows: rows1(t.N1ShortRows),
+		InertGasShortH: Round(t.InertGasShortHours),
 	}
 	if t.TightestRow >= 0 {
 		out.TightestMarginKgH = roundPtr(KgPerH(t.TightestMarginKgS), true)

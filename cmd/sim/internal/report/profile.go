@@ -154,6 +154,9 @@ func writeVoyage(w io.Writer, v Voyage) {
 		fmt.Fprintf(w, "  N-1 (a boiler trips, an economiser is out, a listed failure): %s h cannot be carried, in %s\n",
 			fix(t.N1ShortHours, 1), rowList(v.Job, t.N1ShortRows))
 	}
+	if t.InertGasShortHours > 0 {
+		fmt.Fprintf(w, "  inert gas from the boilers not met: %s h\n", fix(t.InertGasShortHours, 1))
+	}
 	writeRowWarnings(w, v)
 }
 
