@@ -231,6 +231,7 @@ func writeContingencies(w io.Writer, r *plant.CaseResult) {
 		for _, c := range r.Contingencies {
 			fmt.Fprintf(w, "  N-1: %s\n", plant.ContingencyLine(c))
 		}
+		fmt.Fprintf(w, "    (planning estimates: the boiler makers' manuals and the ship's safety management system govern)\n")
 	}
 }
 
