@@ -284,6 +284,15 @@ func (p *Plant) solveShedding(ctx context.Context, fire []bool, direct bool) err
 		}
 		if err := p.solveConfig(ctx, all); err != nil && ctx.Err() != nil {
 			return err
+		} else if err == nil {
+			var need, limit float64
+			for i, b := range s.asm.roles.boilers {
+				need += s.last[b.steam.mIdx()]
+				if fire[i] {
+					limit += b.Limit()
+				}
+			}
+			p.contingencyStart(fire, need, limit)
 		}
 		s.noShed = false
 		return p.solveConfig(ctx, fire)
