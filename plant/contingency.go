@@ -149,7 +149,9 @@ func (p *Plant) contingencySpecs(cr *CaseResult) []contingencySpec {
 			continue
 		}
 		m := s.last[b.steam.mIdx()]
-		if largest == nil || b.MCR > largest.MCR || (b.MCR == largest.MCR && m >= largestSteam) {
+		// Between equals the one raising the most steam, and the last
+		// declared where they raise the same to the solver's tolerance.
+		if largest == nil || b.MCR > largest.MCR || (b.MCR == largest.MCR && m >= largestSteam-1e-9*math.Max(1, largestSteam)) {
 			largest, largestSteam = b, m
 		}
 	}
@@ -157,7 +159,7 @@ func (p *Plant) contingencySpecs(cr *CaseResult) []contingencySpec {
 		out = append(out, contingencySpec{name: largest.Name + " trips", kind: "boiler trip", boilers: []*Boiler{largest}})
 	}
 	for _, e := range s.asm.roles.eges {
-		if !e.Off && e.op.q > 0 {
+		if !e.Off && e.op.gas.q > 0 {
 			out = append(out, contingencySpec{name: e.Name + " out", kind: "economiser out", eges: []*ExhaustGasEconomiser{e}})
 		}
 	}
@@ -294,7 +296,7 @@ func (p *Plant) contingency(ctx context.Context, c Case, spec contingencySpec, b
 		for _, x := range spec.eges {
 			lostE = lostE || x == e
 		}
-		egeLeft = egeLeft || (!lostE && !e.Off && e.op.q > 0)
+		egeLeft = egeLeft || (!lostE && !e.Off && e.op.gas.q > 0)
 	}
 	if !anyFire && !(egeLeft && len(s.asm.roles.dumps) > 0) {
 		res.CanCarry = need <= 0

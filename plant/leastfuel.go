@@ -45,8 +45,9 @@ import (
 // the total steam) and minimised again, and solved again if the split
 // moved by more than 0.1 % of the total: at most two solves per set.
 // Every figure reported comes from a solve; the fuel of the answer is the
-// least of the solved candidates and of the equal-sharing reference, so
-// least fuel never burns more than equal sharing.
+// least of the solved candidates and of the equal-sharing reference (a
+// candidate must save more than 1e-7 of the fuel, the solver's tolerance,
+// to replace it), so least fuel never burns more than equal sharing.
 //
 // When is equal sharing the least fuel? For boilers of the same MCR and
 // efficiency curve η(l) firing together, the equal split is the least
@@ -411,7 +412,9 @@ func (p *Plant) leastFuel(ctx context.Context, c Case) (*LeastFuelResult, error)
 				break
 			}
 		}
-		if st.solved && st.solvedFuel < bestFuel*(1-1e-12) {
+		// A saving below 1e-7 of the fuel is the solver's tolerance, not
+		// a saving: the reference stands.
+		if st.solved && st.solvedFuel < bestFuel*(1-1e-7) {
 			best, bestFuel = si, st.solvedFuel
 		}
 	}

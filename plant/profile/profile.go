@@ -56,9 +56,11 @@ type Totals struct {
 	Hours float64
 	// Boiler fuel and CO2 burnt, and steam raised, in tonnes.
 	FuelT, CO2T, SteamT, EGESteamT, DumpedT, MakeUpT float64
-	// FuelSavedT is the boiler fuel the exhaust-gas economisers saved.
-	FuelSavedT  float64
-	ElectricMWh float64
+	// FuelSavedT is the boiler fuel the exhaust-gas economisers saved;
+	// EGEFoulingLostT the steam their fouling cost them.
+	FuelSavedT      float64
+	EGEFoulingLostT float64
+	ElectricMWh     float64
 	// HoursFiring[k] is the hours with k oil-fired boilers firing.
 	HoursFiring []float64
 	// Peak demand on the oil-fired boilers and the row it occurs in, and
@@ -216,6 +218,9 @@ func (t *Totals) add(i int, hours float64, cr *plant.CaseResult) {
 	t.DumpedT += cr.DumpedKgS * s
 	t.MakeUpT += cr.MakeUpKgS * s
 	t.FuelSavedT += cr.EGEFuelSavedKgS * s
+	for _, e := range cr.EGEs {
+		t.EGEFoulingLostT += e.FoulingLostKgS * s
+	}
 	t.ElectricMWh += cr.ElectricW * hours / 1e6
 	for len(t.HoursFiring) <= cr.BoilersFiring {
 		t.HoursFiring = append(t.HoursFiring, 0)
