@@ -156,8 +156,20 @@ func (u *Consumer) link(p *Plant, a *assembly, fs *faults) {
 
 // prepare computes the case's demand from the model or the consumer's own
 // figures.
-func (u *Consumer) prepare(_ *Plant, c Conditions) error {
+func (u *Consumer) prepare(p *Plant, c Conditions) error {
 	u.caseDuty = Duty{W: u.Duty, SteamKgS: u.SteamFlow, PerFuelJ: u.DutyPerFuel, SteamPerFuel: u.SteamPerFuel}
+	if m, ok := u.Model.(*TankHeating); ok && !m.state.on && m.Tank.Coil.Given() && m.CoilP == 0 {
+		// The coil's steam is at the set pressure of what feeds the header.
+		m.state.steamP, _ = p.SupplyPressure(u.Name)
+	}
+	if m, ok := u.Model.(*TankHeating); ok && m.state.on {
+		if err := m.statePrepare(u, c); err != nil {
+			return wrapErr(u, err)
+		}
+		if u.Off {
+			return nil
+		}
+	}
 	if u.Model == nil || u.Off {
 		return nil
 	}
@@ -464,6 +476,11 @@ func (u *Consumer) report(ev *eval, cr *CaseResult) error {
 	cr.Consumers = append(cr.Consumers, res)
 	for _, w := range u.caseDuty.Warnings {
 		cr.warn("%s %q: %s", u.Kind(), u.Name, w)
+	}
+	if m, ok := u.Model.(*TankHeating); ok {
+		if tr, ok := m.row(u.Name); ok {
+			cr.Tanks = append(cr.Tanks, tr)
+		}
 	}
 	cr.boundary.heatOut += duty + cooler
 	cr.boundary.massOut += lost

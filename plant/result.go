@@ -16,10 +16,14 @@ type CaseResult struct {
 	Pos        Pos
 	Conditions Conditions
 
-	Converged    bool
-	Iterations   int // Newton iterations of the final configuration
-	Solves       int // configurations tried by the dispatch
-	ResidualNorm float64
+	Converged  bool
+	Iterations int // Newton iterations of the final configuration
+	Solves     int // configurations tried by the dispatch
+	// NewtonIterations counts the Newton iterations of every solve the
+	// case took: the configurations the firing rule tried, failed and
+	// repeated solves included (Iterations is the final one's alone).
+	NewtonIterations int
+	ResidualNorm     float64
 
 	BoilersFiring int
 	CanCarry      bool
@@ -80,6 +84,9 @@ type CaseResult struct {
 	Units     []ComponentResult
 	Lines     []LineResult
 	Warnings  []string
+	// Tanks are the stateful tanks over the row (a voyage's), in the
+	// plant's order; empty in a single load case.
+	Tanks []TankRow
 
 	boundary boundary
 }

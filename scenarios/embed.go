@@ -19,6 +19,12 @@
 //     sweep of its UA for the size of highest NPV.
 //   - audit.lua with passage_log.csv: a day-by-day audit of reported boiler
 //     fuel against a Monte Carlo band.
+//   - heated_tanker_plant.lua, heating_plan.lua with heating_route.csv and
+//     heating_voyage.csv: a crude tanker's cargo heating plan on a winter
+//     route of 12 days (three tank groups, 57 C through the discharge): the
+//     least-fuel plan against holding the temperature and heating at the
+//     last moment, and the engineer's own instructions as a voyage whose
+//     tanks carry their temperature from row to row.
 package scenarios
 
 import "embed"

@@ -106,6 +106,18 @@ func TestScenarios(t *testing.T) {
 					fmt.Fprintf(&b, "  %s: claimed %.3f, band %.3f to %.3f %s\n", d.Date, d.ClaimedT, d.LowT, d.HighT, d.Flag)
 				}
 			}
+			for _, h := range run.HeatingPlans {
+				r := h.Result
+				fmt.Fprintf(&b, "heating plan %q (%s): plan %.3f t (curves %.3f t), hold %.3f t, last moment %.3f t, CO2 %.3f t\n",
+					h.Name, r.Method, r.Plan.FuelT, r.Plan.TableFuelT, r.Hold.FuelT, r.LastMoment.FuelT, r.Plan.CO2T)
+				for _, t := range r.Tanks {
+					for _, q := range t.Required {
+						fmt.Fprintf(&b, "  %s: %.2f K at %s (required %.2f K, met %v), latest start %.0f h\n",
+							t.Unit, q.Reached, q.Label, q.T, q.Met, q.LatestStartH)
+					}
+				}
+				fmt.Fprintf(&b, "  binding rows: %d, short rows %v\n", len(r.Binding), r.Plan.ShortRows)
+			}
 			golden := filepath.Join("testdata", strings.TrimSuffix(name, ".lua")+".golden")
 			if *update {
 				if err := os.WriteFile(golden, b.Bytes(), 0o644); err != nil {

@@ -588,19 +588,31 @@ func (r *runner) jobErr(pos Pos, what string, err error) {
 	if errors.As(err, &se) && se.Pos.File != "" {
 		pos = Pos{File: se.Pos.File, Line: se.Pos.Line}
 	}
-	r.raise(&Error{Pos: pos, Unit: what, Msg: err.Error(), Err: err})
+	msg := err.Error()
+	var pe *profile.PosError
+	if errors.As(err, &pe) && pe.Pos.File != "" && err == error(pe) {
+		// The input's own position (a row, a setting), not the job's call.
+		pos, msg = Pos{File: pe.Pos.File, Line: pe.Pos.Line}, pe.Err.Error()
+	}
+	r.raise(&Error{Pos: pos, Unit: what, Msg: msg, Err: err})
 }
 
-// luaVoyage is voyage(plant, { name, rows or csv }).
+// luaVoyage is voyage(plant, { name, rows or csv, tanks }).
 func (r *runner) luaVoyage(L *lua.LState) int {
-	ph, a, name, rows := r.jobStart("voyage", rowSpec{job: "voyage"}, nil)
+	var specs []tankSpec
+	ph, a, name, rows := r.jobStart("voyage", rowSpec{job: "voyage"}, func(a *args) {
+		specs = r.stateTanks(r.checkPlant(1), a, false, false)
+	})
 	rec := VoyageRecord{Name: name, Plant: ph.p.Name, Pos: a.pos, Rows: rows.pos}
 	if r.opt.CheckOnly {
 		r.out.Voyages = append(r.out.Voyages, rec)
-		L.Push(r.profileTable(rec.job(), placeholderResult(rows.rows)))
+		o := r.profileTable(rec.job(), placeholderResult(rows.rows))
+		r.placeholderTanks(o, specs)
+		L.Push(o)
 		return 1
 	}
-	res, err := profile.Run(L.Context(), ph.p, rows.rows, profile.Options{Workers: r.opt.Workers, Progress: r.progress(a.what)})
+	res, err := profile.Run(L.Context(), ph.p, rows.rows, profile.Options{Workers: r.opt.Workers, Progress: r.progress(a.what),
+		Tanks: tankStarts(specs, a.pos)})
 	if err != nil {
 		r.jobErr(a.pos, a.what, err)
 	}

@@ -151,6 +151,9 @@ type Run struct {
 	Voyages []VoyageRecord
 	Studies []StudyRecord
 	Audits  []AuditRecord
+	// HeatingPlans are the jobs of heating_plan(), in the order they ran;
+	// their results are nil in check mode.
+	HeatingPlans []HeatingPlanRecord
 }
 
 // CaseRecord is one load case of a run.

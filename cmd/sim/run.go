@@ -494,6 +494,11 @@ func collect(all *report.Run, r *scripting.Run) {
 			all.Audits = append(all.Audits, report.Audit{Job: job(a.Name, a.Plant, a.Pos, a.Days), Result: a.Result})
 		}
 	}
+	for _, h := range r.HeatingPlans {
+		if h.Result != nil {
+			all.HeatingPlans = append(all.HeatingPlans, report.HeatingPlan{Job: job(h.Name, h.Plant, h.Pos, h.Rows), Result: h.Result})
+		}
+	}
 }
 
 // errNothingToDraw is the error of --plot when the run solved nothing.

@@ -108,6 +108,13 @@ func Audit(ctx context.Context, p *plant.Plant, days []Day, unc []Uncertain, opt
 			return nil, fmt.Errorf("%s: audit day %d (%s): hours must be positive and the claimed fuel zero or more; got %g h and %g t", d.Pos, i+1, d.Date, d.Hours, d.ClaimedT)
 		}
 	}
+	rows := make([]Row, len(days))
+	for i, d := range days {
+		rows[i] = Row{Phase: d.Phase, Hours: d.Hours, Case: d.Case}
+	}
+	if err := checkStateSettings(rows, nil, "audit"); err != nil {
+		return nil, err
+	}
 	if err := p.Check(); err != nil {
 		return nil, err
 	}

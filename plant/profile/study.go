@@ -353,6 +353,12 @@ func (s *Sweep) validate(p *plant.Plant, econ Economics) error {
 // results.
 func runVariants(ctx context.Context, p *plant.Plant, rows []Row, sets [][]plant.Setting, names []string, opt Options) ([][]*plant.CaseResult, error) {
 	opt.defaults()
+	if len(opt.Tanks) > 0 {
+		return runStatefulVariants(ctx, p, rows, sets, names, opt)
+	}
+	if err := checkStateSettings(rows, nil, "study"); err != nil {
+		return nil, err
+	}
 	nChunks := (len(rows) + opt.ChunkRows - 1) / opt.ChunkRows
 	res := make([][]*plant.CaseResult, len(sets))
 	for i := range res {
@@ -427,4 +433,43 @@ func designUA(res []*plant.CaseResult, unit string) float64 {
 		}
 	}
 	return 0
+}
+
+// runStatefulVariants runs each set's rows in order (the tanks carry their
+// state from row to row), the sets in parallel, each on its own clone.
+func runStatefulVariants(ctx context.Context, p *plant.Plant, rows []Row, sets [][]plant.Setting, names []string, opt Options) ([][]*plant.CaseResult, error) {
+	vrows := make([][]Row, len(sets))
+	for v, set := range sets {
+		vr := make([]Row, len(rows))
+		for i, r := range rows {
+			c := r.Case
+			c.Set = append(append([]plant.Setting(nil), r.Case.Set...), set...)
+			vr[i] = Row{Phase: r.Phase, Hours: r.Hours, Case: c}
+		}
+		if err := checkStateSettings(vr, opt.Tanks, "study"); err != nil {
+			return nil, fmt.Errorf("%s: %w", names[v], err)
+		}
+		vrows[v] = vr
+	}
+	res := make([][]*plant.CaseResult, len(sets))
+	done := 0
+	var progress func(int)
+	if opt.Progress != nil {
+		progress = func(int) {
+			done += len(rows)
+			opt.Progress(done, len(sets)*len(rows))
+		}
+	}
+	err := forEach(ctx, p, len(sets), opt.Workers, func(ctx context.Context, pl *plant.Plant, v int) error {
+		r, err := runStateful(ctx, pl, vrows[v], opt.Tanks, nil)
+		if err != nil {
+			return fmt.Errorf("%s: %w", names[v], err)
+		}
+		res[v] = r
+		return nil
+	}, progress)
+	if err != nil {
+		return nil, err
+	}
+	return res, nil
 }

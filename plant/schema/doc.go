@@ -48,6 +48,8 @@
 //     case did not give them, no longer 0;
 //   - peak_row, tightest_row and tightest_margin_kg_h of TOTALS are null
 //     when no row was summed, no longer 0;
+//   - added since: "heating_plans" (HEATING_PLAN) and a voyage row's
+//     "tanks";
 //   - added: "version", "checks", a voyage row's case conditions and
 //     steam_production_kg_h, boiler_steam_kg_h, ege_steam_kg_h,
 //     dumped_kg_h, fuel_t and co2_t, and an audit day's "day".
@@ -84,6 +86,7 @@
 //	voyages     [VOYAGE]: the jobs of voyage(), in the order run
 //	studies     [STUDY]: the jobs of study()
 //	audits      [AUDIT]: the jobs of audit()
+//	heating_plans  [HEATING_PLAN]: the jobs of heating_plan()
 //
 // A PLANT (type Plant) is
 //
@@ -462,6 +465,23 @@
 //	n_minus_1_can_carry     every N-1 contingency of its case is carried;
 //	                        null when not checked
 //	warnings                [string]: the texts of its case's warnings
+//	tanks                   [VOYAGE_TANK]: the tanks the voyage carries
+//	                        from row to row, over the row; empty when it
+//	                        carries none
+//
+// A VOYAGE_TANK (type VoyageTank) is a tank a voyage carries from row to
+// row (voyage()'s tanks), over one row:
+//
+//	name                    the tank_heating unit
+//	instruction             "off", "hold", "heat_to" or "reach"
+//	T_K                     the instruction's temperature, K; null for off
+//	by_h                    for reach, the time it is wanted by, hours
+//	                        from the voyage's start; else null
+//	start_T_K, end_T_K      the cargo at the row's start and end, K
+//	duty_kW                 the coil's mean duty over the row, kW
+//	capacity_kW             the coil's capacity at the row's start, kW
+//	coil_binds              the coil gave its capacity for part of the row
+//	short                   the instruction's temperature was not reached
 //
 // A STUDY (type Study) has, after the keys of JOB,
 //
@@ -573,4 +593,96 @@
 //	unit, param             the unit and the parameter drawn
 //	low, high               the range it is drawn from uniformly, in SI
 //	                        units or as a fraction
+//
+// # Heating plans
+//
+// A HEATING_PLAN (type HeatingPlan) has, after the keys of JOB (its rows
+// are the voyage's),
+//
+//	caution                 the plan's caution: an estimate; the charter
+//	                        party's heating instructions, the cargo's
+//	                        safety data sheet and the master's judgment
+//	                        govern
+//	method                  "joint" (one programme over the joint state)
+//	                        or "descent" (coordinate descent)
+//	grid_K                  the step of the temperature grid, K
+//	solves                  plant solves of the rows' fuel curves
+//	plan                    OUTCOME of the least-fuel plan
+//	hold                    OUTCOME of holding each tank at its highest
+//	                        required temperature from the first row to
+//	                        its last required time
+//	last_moment             OUTCOME of heating each tank at the coil's
+//	                        capacity from the latest start that meets
+//	                        each required temperature
+//	saving_vs_hold_t, saving_vs_last_moment_t   boiler fuel the plan
+//	                        saves against each, t
+//	co2_saving_vs_hold_t, co2_saving_vs_last_moment_t   CO2 it avoids, t
+//	tanks                   [PLAN_TANK]: each tank's plan
+//	rows                    [PLAN_ROW]: the voyage's rows under the plan
+//	binding                 [BINDING]: every row where a limit binds
+//	warnings                [string]: the plan's cautions
+//
+// An OUTCOME (type PlanOutcome) is a plan solved as a voyage, row by row,
+// with its instructions:
+//
+//	fuel_t, co2_t           the voyage's boiler fuel and CO2, t
+//	curve_fuel_t            the fuel by the rows' fuel curves the plan was
+//	                        chosen by, t
+//	short_rows              [row]: rows the boilers cannot carry
+//	missed                  [string]: the required temperatures it misses
+//
+// A PLAN_TANK (type PlanTank) is
+//
+//	name                    the tank_heating unit
+//	start_T_K               its cargo at the voyage's start, K
+//	never_below_T_K         the temperature it must not fall below, K;
+//	                        null when none was given
+//	required                [REQUIRED]: its required temperatures
+//	rows                    [PLAN_TANK_ROW]: its instruction per row
+//
+// A REQUIRED (type PlanRequired) is
+//
+//	T_K                     the temperature required, K
+//	at                      when, as given ("discharge", "240 h", "end")
+//	at_h                    that time, hours from the start; null for a
+//	                        phase
+//	phase                   the phase it holds through, or ""
+//	source                  where it was given, "file:line"
+//	reached_T_K             the lowest temperature the plan has where it
+//	                        holds, K
+//	met                     the plan meets it (within 0.01 K)
+//	latest_start_h, latest_start_row   the latest start of a heat-up at
+//	                        the coil's capacity that still meets it, hours
+//	                        and row; null when heating from the first row
+//	                        does not
+//	verdict                 when missed, by how much and what it would
+//	                        take; else ""
+//
+// A PLAN_TANK_ROW (type PlanTankRow) is
+//
+//	row                     the row's number, from 1
+//	instruction             "off", "hold", "heat_to" or "reach", as a
+//	                        voyage row takes it
+//	T_K                     its temperature, K; null for off
+//	by_h                    for reach, the row's end, hours from the
+//	                        start; else null
+//	start_T_K, end_T_K      the cargo at the row's start and end, K
+//	duty_kW                 the coil's mean duty, kW
+//	coil_binds              the coil gives its capacity
+//
+// A PLAN_ROW (type PlanRow) is
+//
+//	row, phase, hours       as in a voyage's ROW
+//	start_h                 its start, hours from the voyage's start
+//	duty_kW                 the planned tanks' total duty, kW
+//	capacity_kW             the most the row's boilers carry for them, kW
+//	boilers_firing          boilers firing under the plan
+//	boiler_steam_kg_h       steam raised by the oil-fired boilers, kg/h
+//	fuel_t                  boiler fuel over the row, t
+//
+// A BINDING (type PlanBinding) is
+//
+//	row                     the row, from 1
+//	tank                    the tank, or "" for the boilers
+//	limit                   "coil", "boilers" or "never below"
 package schema

@@ -19,6 +19,8 @@ type Document struct {
 	Voyages []Voyage `json:"voyages"`
 	Studies []Study  `json:"studies"`
 	Audits  []Audit  `json:"audits"`
+	// HeatingPlans are the jobs of heating_plan(), in the order run.
+	HeatingPlans []HeatingPlan `json:"heating_plans"`
 }
 
 // Plant names a plant the run solved cases or jobs on.
@@ -68,6 +70,9 @@ func (d *Document) Finish() {
 	for _, a := range d.Audits {
 		add(a.Plant)
 	}
+	for _, h := range d.HeatingPlans {
+		add(h.Plant)
+	}
 	if d.Checks.Failed == nil {
 		d.Checks.Failed = []CheckFailure{}
 	}
@@ -82,5 +87,8 @@ func (d *Document) Finish() {
 	}
 	if d.Audits == nil {
 		d.Audits = []Audit{}
+	}
+	if d.HeatingPlans == nil {
+		d.HeatingPlans = []HeatingPlan{}
 	}
 }

@@ -137,13 +137,17 @@ type VoyageRow struct {
 	MarginKgH          float64  `json:"margin_kg_h"`
 	N1CanCarry         *bool    `json:"n_minus_1_can_carry"`
 	Warnings           []string `json:"warnings"`
+	// Tanks are the tanks the voyage carries from row to row, over the
+	// row (empty when it carries none).
+	Tanks []VoyageTank `json:"tanks"`
 }
 
 // NewVoyageRow returns the schema form of one row of a voyage. A row
 // without a solved case (Result nil, as a script's check mode gives) has
 // its phase and hours and zero figures, with can_carry true.
 func NewVoyageRow(row profile.RowResult) VoyageRow {
-	out := VoyageRow{Row: row.Index + 1, Phase: row.Phase, Hours: Round(row.Hours), CanCarry: true, Warnings: []string{}}
+	out := VoyageRow{Row: row.Index + 1, Phase: row.Phase, Hours: Round(row.Hours), CanCarry: true, Warnings: []string{},
+		Tanks: newVoyageTanks(row.Result)}
 	c := row.Result
 	if c == nil {
 		return out

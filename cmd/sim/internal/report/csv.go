@@ -65,10 +65,12 @@ var auditHeader = [...]string{
 // CSV writes the run as CSV tables, one after another in one stream:
 // the load cases, then, when the run has them, the rows of its voyages
 // and their warnings, the variants of its studies and their sweeps of
-// size, and the days of its audits. Each table starts with a header row whose first field is
+// size, the days of its audits and its heating plans (their summary,
+// required temperatures and rows). Each table starts with a header row whose first field is
 // "table", and each of its data rows has the table's name in that field:
 // "cases", "voyage rows", "voyage warnings", "study variants", "study
-// sweep" or "audit days". One blank line separates two tables
+// sweep", "audit days", "heating plan summary", "heating plan required"
+// or "heating plan rows". One blank line separates two tables
 // (a name with a blank line in it is quoted, and the line is part of it).
 // The cases table always comes first (its header alone when no case was
 // solved); a job table is written only when the run has such a job, and
@@ -121,6 +123,20 @@ var auditHeader = [...]string{
 //	audit days      audit, day (from 1), source, date, phase, claimed_t,
 //	                nominal_t, low_t, median_t, high_t, flag ("above",
 //	                "below" or empty)
+//	heating plan summary  plan (its name), variant ("least fuel", "hold",
+//	                "last moment"), fuel_t, co2_t (the plan solved row by
+//	                row), curve_fuel_t (by the rows' fuel curves), saving_t
+//	                (of the least-fuel plan against the variant; empty for
+//	                itself), short_rows and missed (counts)
+//	heating plan required  plan, tank, T_C, at (as given), source,
+//	                reached_T_C (two decimals), met, latest_start_h (empty
+//	                when none meets it), verdict
+//	heating plan rows  plan, row, source, phase, start_h, hours, tank,
+//	                instruction, T_C and by_h (empty where the instruction
+//	                has none), start_T_C, end_T_C (two decimals), duty_kW,
+//	                coil_binds, and the plan's boilers_firing,
+//	                boiler_steam_kg_h and fuel_t of the row: one line per
+//	                row and tank
 //
 // The caution is not part of the CSV (it would break the tables); a
 // program that shows these figures to people must show it.
@@ -246,6 +262,7 @@ func CSV(w io.Writer, run Run) error {
 			}
 		}
 	}
+	writeHeatingPlanCSV(run, begin, write)
 	cw.Flush()
 	if ew.err != nil {
 		return ew.err

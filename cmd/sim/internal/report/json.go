@@ -24,6 +24,11 @@ func Document(run Run) schema.Document {
 	for _, a := range run.Audits {
 		doc.Audits = append(doc.Audits, schema.NewAudit(a.schemaJob(), a.Result))
 	}
+	for _, h := range run.HeatingPlans {
+		if h.Result != nil {
+			doc.HeatingPlans = append(doc.HeatingPlans, schema.NewHeatingPlan(h.schemaJob(), h.Result))
+		}
+	}
 	doc.Finish()
 	return doc
 }

@@ -19,7 +19,7 @@ import (
 // Chart is one chart a run can draw: the chart of its load cases, or the
 // chart of one of its jobs.
 type Chart struct {
-	// Kind is "cases", "voyage", "study" or "audit".
+	// Kind is "cases", "voyage", "study", "audit" or "heating-plan".
 	Kind string
 	// N numbers the job among the run's jobs of its kind, from 1; it is
 	// 0 for the chart of the cases.
@@ -35,8 +35,8 @@ func (c Chart) Draw(w io.Writer, format string) error { return c.draw(w, format)
 
 // Charts lists the charts of a run, in this order: the load cases (all on
 // one chart, by Plot) if there are any, then each voyage (PlotVoyage),
-// study (PlotStudy) and audit (PlotAudit) in the order the scripts ran
-// them.
+// study (PlotStudy), audit (PlotAudit) and heating plan
+// (PlotHeatingPlan) in the order the scripts ran them.
 func Charts(run Run) []Chart {
 	var out []Chart
 	if len(run.Cases) > 0 {
@@ -54,6 +54,13 @@ func Charts(run Run) []Chart {
 	for i, a := range run.Audits {
 		out = append(out, Chart{Kind: "audit", N: i + 1, Name: a.Name,
 			draw: func(w io.Writer, f string) error { return PlotAudit(w, f, a) }})
+	}
+	for i, h := range run.HeatingPlans {
+		if h.Result == nil {
+			continue
+		}
+		out = append(out, Chart{Kind: "heating-plan", N: i + 1, Name: h.Name,
+			draw: func(w io.Writer, f string) error { return PlotHeatingPlan(w, f, h) }})
 	}
 	return out
 }

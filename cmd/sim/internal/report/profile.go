@@ -20,6 +20,8 @@ type Run struct {
 	Voyages []Voyage
 	Studies []Study
 	Audits  []Audit
+	// HeatingPlans are the cargo heating plans (heating_plan()).
+	HeatingPlans []HeatingPlan
 	// Version is the version of the program that ran the scripts; the
 	// JSON document carries it.
 	Version string
@@ -57,7 +59,7 @@ type Audit struct {
 
 // empty reports whether the run has nothing to show.
 func (r Run) empty() bool {
-	return len(r.Cases) == 0 && len(r.Voyages) == 0 && len(r.Studies) == 0 && len(r.Audits) == 0
+	return len(r.Cases) == 0 && len(r.Voyages) == 0 && len(r.Studies) == 0 && len(r.Audits) == 0 && len(r.HeatingPlans) == 0
 }
 
 // rowRef names a row (0-based index) by its number and, if known, where
@@ -157,6 +159,7 @@ func writeVoyage(w io.Writer, v Voyage) {
 	if t.InertGasShortHours > 0 {
 		fmt.Fprintf(w, "  inert gas from the boilers not met: %s h\n", fix(t.InertGasShortHours, 1))
 	}
+	writeVoyageTanks(w, v)
 	writeRowWarnings(w, v)
 }
 

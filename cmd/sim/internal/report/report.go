@@ -68,6 +68,11 @@ func Table(w io.Writer, run Run) error {
 	for _, a := range run.Audits {
 		block(func(w io.Writer) { writeAudit(w, a) })
 	}
+	for _, h := range run.HeatingPlans {
+		if h.Result != nil {
+			block(func(w io.Writer) { writeHeatingPlan(w, h) })
+		}
+	}
 	fmt.Fprintf(ew, "\n%s\n", Caution)
 	return ew.err
 }
