@@ -215,8 +215,9 @@ func (p *Plant) contingencies(ctx context.Context, c Case, cr *CaseResult) error
 	if len(specs) == 0 {
 		return nil
 	}
-	base := append([]float64(nil), s.last...)
-	baseFire := append([]bool(nil), s.fire...)
+	s.n1Base = append(s.n1Base[:0], s.last...)
+	s.n1BaseFire = append(s.n1BaseFire[:0], s.fire...)
+	base, baseFire := s.n1Base, s.n1BaseFire
 	baseRes, baseSolves := s.slvRes, s.solves
 	hint, hintSet := s.hint, s.hintSet
 	noShed, shedFailed, equal, shares := s.noShed, s.shedFailed, s.equalShare, s.shares
@@ -266,7 +267,13 @@ func (p *Plant) contingency(ctx context.Context, c Case, spec contingencySpec, b
 	}
 	need = boilerSteam + math.Max(0, need)
 	boilers := s.asm.roles.boilers
-	fire := make([]bool, len(boilers))
+	if len(s.n1Fire) != len(boilers) {
+		s.n1Fire, s.n1Started = make([]bool, len(boilers)), make([]bool, len(boilers))
+	}
+	fire, started := s.n1Fire, s.n1Started
+	for i := range fire {
+		fire[i], started[i] = false, false
+	}
 	var usable, limit float64
 	for i, b := range boilers {
 		if baseFire[i] && !lost(b) {
@@ -275,7 +282,6 @@ func (p *Plant) contingency(ctx context.Context, c Case, spec contingencySpec, b
 			limit += b.Limit()
 		}
 	}
-	started := make([]bool, len(boilers))
 	for i, b := range boilers {
 		if usable >= need {
 			break

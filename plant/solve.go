@@ -68,6 +68,12 @@ type session struct {
 	shares     []float64
 	equalShare bool
 
+	// Scratch of the contingencies: the case's solution and firing, and a
+	// contingency's firing set and the boilers it starts.
+	n1Base            []float64
+	n1BaseFire        []bool
+	n1Fire, n1Started []bool
+
 	prob   solver.Problem
 	slv    *solver.Solver
 	slvRes solver.Result
