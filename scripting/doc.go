@@ -382,27 +382,74 @@
 //
 //	local a = audit(ship, { name = "March", csv = "log.csv",
 //	    uncertain = { { unit = "cargo heating", key = "factor", low = 0.85, high = 1.15 },
-//	                  { unit = "AB1", key = "eta_factor", low = "97 %", high = "103 %" } },
-//	    samples = 1000, seed = 1, band = { "5 %", "95 %" } })
+//	                  { unit = "AB1", key = "eta_factor", low = "97 %", high = "103 %" },
+//	                  { key = "sea", low = "-1 K", high = "1 K" } },
+//	    claim = { source = "flow meter", accuracy = "1 %" },
+//	    implied = { { unit = "cargo heating", key = "factor" } },
+//	    calibrate = { units = { "AB1", "AB2" }, key = "eta_factor", off = { "cargo heating" } },
+//	    split = { { name = "cargo heating", units = { "cargo heating" } },
+//	              { name = "cargo pumping", units = { "COP1", "COP2" } } },
+//	    samples = 1000, seed = 1, band = { "5 %", "95 %" }, alpha = "5 %" })
 //
-// audit models each day's boiler fuel with the uncertain inputs drawn
-// uniformly from low to high (Monte Carlo; samples per day 10 to 100000,
-// default 200; seed a whole number, default 0; band the quantiles, default
-// 5 % and 95 %) and flags the days whose claim lies outside the band.
-// Days come from days = { {date, claimed, phase, hours, sea, air, engine,
+// audit checks a log of reported daily fuel against the model of the
+// plant (package plant/profile's Audit documents the method). Days come
+// from days = { {date, claimed, reference, phase, hours, sea, air, engine,
 // set, fire}, ... } or a CSV file with columns date and claimed
-// (required), phase, hours (default 24), sea, air, engine, name, fire and
-// "unit.key" columns. claimed is the boiler fuel reported for the day:
-// "12.5 t", "12500 kg", or a bare number of tonnes. uncertain keys: unit,
-// key (a case key of the unit that is a number: factor, eta_factor, duty,
-// returns, ua, ...), low and high in that key's unit. The result:
-// a.claimed_t, a.nominal_t, a.low_t, a.high_t (sums of the days' band
-// ends), a.excess_t (the claims above the band, beyond its top), a.flagged
-// (a count), a.samples, a.seed, a.low_quantile, a.high_quantile,
-// a.uncertainties[i] (unit, param, low, high); a.days[i] and the
-// convenience a.flagged_days[i] (the days flagged, in order; the same
-// tables) have day (number), date, phase, claimed_t, nominal_t, low_t,
-// median_t, high_t and flag ("above", "below" or "").
+// (required), reference (true or false), phase, hours (default 24), sea,
+// air, engine, name, fire and "unit.key" columns (a boiler's fuel grade
+// too: "AB1.fuel" with MGO on the days in an emission control area).
+// claimed is the fuel reported for the day: "12.5 t", "12500 kg", or a
+// bare number of tonnes; a mass in any other unit, or a volume, is an
+// error at its line.
+//
+// uncertain lists the inputs known only within a range, each drawn
+// uniformly from low to high: { unit, key, low, high, scope } with key a
+// case key of the unit that is a number (factor, eta_factor, duty,
+// returns, ua, ...) and low and high in that key's unit, inside the key's
+// own range; or { key = "sea" or "air", low, high } with no unit, the
+// error of the day's reading, a temperature difference ("-1 K"). scope is
+// "fixed" (drawn once per sample for the whole period: a property of the
+// ship) or "daily" (drawn afresh each day); without it the key's default
+// scope holds (profile.DefaultScope: factor, eta_factor, returns, ua and
+// other properties are fixed; sea, air, duty, power, flow, T and other
+// operating figures daily), and a key with no default scope needs it.
+//
+// claim is the claim's measurement uncertainty, one source or a list:
+// { source = "flow meter", accuracy = "1 %" } (a bias fixed for the
+// period; default 1 %), { source = "soundings", per_sounding = "0.5 m3",
+// density = "985 kg/m3" } (a day is the difference of two soundings;
+// default 0.5 m3), { source = "noon report", rob = "1 t" } (default 1 t),
+// { source = "bdn density", density = "985 kg/m3", uncertainty = "1.5
+// kg/m3" } (default 1.5 kg/m3). Without claim the claim is taken as
+// exact, and the report says so. split lists causes, each { name, units }
+// (or unit): the units switched off together to find its fuel. claims =
+// "cargo heating" says the days claim that cause's fuel, not the whole
+// boiler fuel. implied lists factors, each { unit, key } or { units,
+// key }: for each day the value that makes the model give the claim; each
+// must be one of the uncertain inputs (its plausible range) with a range
+// in the key registry (the search's). calibrate = { unit or units, key,
+// off } calibrates a fixed factor on the days marked reference, which must
+// have every unit of off switched off (an error at the day's line
+// otherwise). samples 10 to 100000 (default 1000); seed a whole number
+// (default 0); band the quantiles of the bands (default 5 % and 95 %);
+// alpha the level of the flags (default 5 %).
+//
+// The result has the keys of the AUDIT of package plant/schema: samples,
+// seed, low_quantile, high_quantile, alpha, day_tail, claims_of, period
+// (days, claimed_t, nominal_t, low_t, median_t, high_t, reading_low_t,
+// reading_high_t, p_at_or_below, p_at_or_above, p_standard_error,
+// percentile, flag), flagged, days, uncertainties, claim_uncertainty,
+// implied, calibration (nil without one), causes, base_t, fuel_t, co2_t,
+// fuel_by_grade, assumptions, warnings; a.days[i] and the convenience
+// a.flagged_days[i] (the days flagged, in order; the same tables) have
+// day, date, phase, reference, claimed_t, nominal_t, low_t, median_t,
+// high_t, reading_low_t, reading_high_t, percentile (nil on a reference
+// day), p_at_or_below, p_at_or_above, flag ("above", "below" or ""),
+// fuel_t, co2_t, fuel_by_grade, shares, implied (each factor's value, nil
+// when none gives the claim, and status), warnings and
+// samples_with_warnings. An audit too large for the run's time limit
+// stops early with an error that says to raise it (sim run --timeout;
+// Options.Timeout).
 //
 // In check mode the jobs read and check everything but solve nothing, and
 // return tables of the same shape with zero figures.

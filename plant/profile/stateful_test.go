@@ -156,7 +156,7 @@ func TestStatefulErrors(t *testing.T) {
 			return err
 		}, "route.csv:2: voyage row 1: COT 2.by 500 h is past the end of the voyage at 126 h"},
 		{"audit", func() error {
-			_, err := Audit(ctx, p, []Day{{Date: "d1", Hours: 24, Case: rows[0].Case}}, nil, AuditOptions{Samples: 10})
+			_, err := Audit(ctx, p, AuditSpec{Days: []Day{{Date: "d1", Hours: 24, Case: rows[0].Case}}}, AuditOptions{Samples: 10})
 			return err
 		}, "a tank's instruction belongs to a voyage"},
 	} {

@@ -114,6 +114,27 @@ type VariantResult struct {
 	CO2AvoidedT float64
 	Money
 	EGEHours
+	// RowWarnings are the warnings of the rows whose case warned, in row
+	// order: the texts, not only their count.
+	RowWarnings []RowWarnings
+}
+
+// RowWarnings are the warnings of one row of a profile (Row from 0).
+type RowWarnings struct {
+	Row   int
+	Texts []string
+}
+
+// rowWarnings lists the rows of solved cases that warned, with their
+// warnings.
+func rowWarnings(res []*plant.CaseResult) []RowWarnings {
+	var out []RowWarnings
+	for i, cr := range res {
+		if cr != nil && len(cr.Warnings) > 0 {
+			out = append(out, RowWarnings{Row: i, Texts: append([]string(nil), cr.Warnings...)})
+		}
+	}
+	return out
 }
 
 // Sweep is a series of sizes of one exhaust-gas economiser, each run over
@@ -296,7 +317,8 @@ func RunStudy(ctx context.Context, p *plant.Plant, rows []Row, spec StudySpec, o
 	}
 
 	for i, v := range variants {
-		out.Variants = append(out.Variants, VariantResult{Name: v.Name, Totals: Sum(rows, res[i]).Total, EGEHours: egeHours(rows, res[i], "")})
+		out.Variants = append(out.Variants, VariantResult{Name: v.Name, Totals: Sum(rows, res[i]).Total, EGEHours: egeHours(rows, res[i], ""),
+			RowWarnings: rowWarnings(res[i])})
 	}
 	base := out.Variants[0].Totals
 	for i := range out.Variants {

@@ -73,6 +73,9 @@ func Table(w io.Writer, run Run) error {
 			block(func(w io.Writer) { writeHeatingPlan(w, h) })
 		}
 	}
+	if !run.empty() || len(run.Files) > 0 {
+		block(func(w io.Writer) { writeRecord(w, run) })
+	}
 	fmt.Fprintf(ew, "\n%s\n", Caution)
 	return ew.err
 }
