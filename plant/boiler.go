@@ -74,6 +74,14 @@ type Boiler struct {
 	// burner whose fan is not modelled.
 	Burner Burner
 
+	// MaxLoad is the most the boiler may raise, as a fraction of its MCR
+	// (a case may lower it: a boiler limited by a fault); zero means 1.
+	MaxLoad float64
+	// InertGas declares the boiler's uptake a source of the inert-gas
+	// system during cargo discharge (inertgas.go); it needs a combustion
+	// model of the efficiency for the flue gas's O2 and volume.
+	InertGas bool
+
 	feed, steam *Line
 	fuel        int
 	eqs         [4]int
@@ -137,6 +145,14 @@ var boilerKeys = []Key{
 		Doc: "scales the efficiency model's figure (an audit's knob)", Default: 1, HasDefault: true,
 		Min: 0.5, Max: 1.5, Case: true},
 		func(u *Boiler) *float64 { return &u.EtaFactor }),
+	boilerKey(Key{Name: "max_load", Label: "max load", Dim: units.Fraction, Example: "90 %",
+		Doc: "the most the boiler may raise, as a fraction of its MCR (a case may lower it)", Default: 1, HasDefault: true,
+		Source: "the MCR is the continuous limit", Min: 0.05, Max: 1, Case: true, JSON: "limit_kg_h"},
+		func(u *Boiler) *float64 { return &u.MaxLoad }),
+	flag(Key{Name: "inert_gas", Label: "inert-gas source", Example: "true", Default: 0, HasDefault: true, Case: true,
+		Doc:  "the boiler's uptake feeds the inert-gas system during cargo discharge (needs a flue_gas or furnace efficiency)",
+		JSON: "inert_gas_source"},
+		self[*Boiler], func(u *Boiler) *bool { return &u.InertGas }),
 	{Name: "fuel", Label: "fuel", Kind: KeyText, Example: `"HSFO"`, Case: true, JSON: "fuel",
 		Doc:  "a built-in grade (its LHV, CO2 factor and analysis), or the name of your own fuel with lhv and co2_factor; a case may change it to a built-in grade (0.1 % S fuel in port or in an emission control area)",
 		text: setBoilerGrade,
@@ -208,6 +224,18 @@ func (u *Boiler) blowdown() float64 {
 	return u.Blowdown
 }
 
+// maxLoad is the most the boiler may raise as a fraction of its MCR.
+func (u *Boiler) maxLoad() float64 {
+	if u.MaxLoad == 0 {
+		return 1
+	}
+	return u.MaxLoad
+}
+
+// Limit is the most steam the boiler may raise in the case, kg/s: its MCR
+// times its max load.
+func (u *Boiler) Limit() float64 { return u.MCR * u.maxLoad() }
+
 // MinLoad is the burner minimum as a fraction of MCR, zero when the
 // turndown is not known.
 func (u *Boiler) MinLoad() float64 {
@@ -228,6 +256,12 @@ func (u *Boiler) check(fs *faults) {
 	checkKey(fs, u, "turndown")
 	checkRange(fs, u, "cycling loss", u.CyclingLoss, 0, 0.2, "")
 	checkKey(fs, u, "eta_factor")
+	checkKey(fs, u, "max_load")
+	if u.InertGas {
+		if _, plain := u.Efficiency.(*EfficiencyTable); plain {
+			fs.add(u.Pos, u.Name, "", "is an inert-gas source (inert_gas = true), but its efficiency is a plain table: the inert gas's O2 and volume need a combustion model (efficiency = { flue_gas = ... } or { furnace = ... })")
+		}
+	}
 	if u.Burner.AirT != 0 {
 		checkRange(fs, u, "combustion air temperature", u.Burner.AirT, 243.15, 343.15, "K")
 	}
@@ -306,6 +340,12 @@ func (u *Boiler) eta(ev *eval) (pt EfficiencyPoint, cycling bool, err error) {
 	op, cycling, err := u.operation(ev)
 	if err != nil {
 		return EfficiencyPoint{}, false, err
+	}
+	if lo, ok := u.Efficiency.(interface{ loadOnly() bool }); ok && lo.loadOnly() {
+		// The model reads the load, the air and the fuel alone: the
+		// memo (and the Jacobian's differences in the feed and the fuel
+		// flow, exactly zero) need not evaluate it again.
+		op.FeedT, op.FuelFlow = 0, 0
 	}
 	if u.effSet && op == u.effOp {
 		pt = u.effPt
@@ -483,6 +523,12 @@ func (u *Boiler) report(ev *eval, cr *CaseResult) error {
 		Lambda:          pt.Lambda,
 		AirKgS:          fuel * pt.AirPerFuel,
 		FlueGasKgS:      fuel * pt.FlueGasPerFuel,
+		LimitKgS:        u.Limit(),
+		InertGasSource:  u.InertGas,
+	}
+	if pr := pt.Products; pr != nil && firing && ms > 0 {
+		br.O2Dry = pr.MoleFractions(false)[combustion.O2]
+		br.DryFlueNm3S = fuel * pr.NormalVolume(false)
 	}
 	if pt.Losses != nil && ms > 0 {
 		l := *pt.Losses
@@ -518,6 +564,8 @@ func (u *Boiler) report(ev *eval, cr *CaseResult) error {
 	}
 	if firing && ms > u.MCR*(1+1e-9) {
 		cr.warn("%s %q: steam %.0f kg/h is above its MCR of %.0f kg/h (%.0f %%)", u.Kind(), u.Name, ms*3600, u.MCR*3600, 100*ms/u.MCR)
+	} else if firing && ms > u.Limit()*(1+1e-9) {
+		cr.warn("%s %q: steam %.0f kg/h is above its limit of %.0f kg/h (max load %.0f %% of MCR)", u.Kind(), u.Name, ms*3600, u.Limit()*3600, 100*u.maxLoad())
 	}
 	if warn != "" && firing && ms > 0 {
 		cr.warn("%s %q: %s", u.Kind(), u.Name, warn)

@@ -46,7 +46,13 @@ type Consumer struct {
 	// Factor scales the duty or steam flow however it is given (zero
 	// means 1): the knob an audit turns for an uncertain U-value.
 	Factor float64
+	// Priority ranks the consumer when the boilers at their limit cannot
+	// carry the demand: the lowest is reduced first (priority.go). Zero
+	// means not given, which ranks as PriorityEssential. A consumer that
+	// follows a boiler's fuel is never reduced.
+	Priority float64
 
+	shed     shedRole
 	in, out  *Line
 	eqs      [4]int
 	mc, mr   memo
@@ -82,9 +88,10 @@ var (
 			Doc: "temperature after a drain cooler on the return", DefaultNote: "no drain cooler", Min: 274.15, Max: 473.15, Case: true},
 			func(u *Consumer) *float64 { return &u.ReturnT }),
 	}
+	consumerPriorityKey = priorityKey(self[*Consumer], func(u *Consumer) *float64 { return &u.Priority })
 	// consumerModelKeys are the keys of a consumer whose demand a model
 	// computes, besides the model's own.
-	consumerModelKeys = append(append([]Key(nil), returnKeys...), offKey, factorKey)
+	consumerModelKeys = append(append([]Key(nil), returnKeys...), offKey, factorKey, consumerPriorityKey)
 	plainConsumerKeys = append([]Key{
 		consumerKey(Key{Name: "duty", Label: "duty", Dim: units.Power, Example: "450 kW",
 			Doc: "heat delivered (or steam)", Min: 0, Max: 1e9, Case: true, JSON: "duty_kW", Clears: []string{"steam"}},
@@ -205,6 +212,9 @@ func (u *Consumer) check(fs *faults) {
 	if u.ReturnT != 0 {
 		checkRange(fs, u, "condensate return temperature", u.ReturnT, 274.15, 473.15, "K")
 	}
+	if u.Priority != 0 {
+		checkKey(fs, u, "priority")
+	}
 	if u.DutyPerFuel < 0 || u.SteamPerFuel < 0 || !finite(u.DutyPerFuel) || !finite(u.SteamPerFuel) {
 		fs.add(u.Pos, u.Name, "", "duty and steam per kg of fuel must be zero or positive")
 	}
@@ -232,6 +242,7 @@ func (u *Consumer) hReturn(p, hc float64) (float64, error) {
 
 func (u *Consumer) assemble(a *assembly, ports portLines) {
 	u.in, u.out = ports.one("in"), ports.one("out")
+	u.shed = offRole()
 	u.eqs[0] = a.equation(u.Name+": duty", scaleQ, u.in.mIdx(), u.in.pIdx(), u.in.hIdx())
 	u.eqs[1], u.eqs[2], u.eqs[3] = -1, -1, -1
 	if u.out != nil {
@@ -280,6 +291,42 @@ func (u *Consumer) demand() int {
 	return demandDuty
 }
 
+// shedLink ties the consumer's demand to the shed level (priority.go).
+func (u *Consumer) shedLink(a *assembly, idx int) {
+	u.shed.idx = idx
+	a.depend(u.eqs[0], idx)
+}
+
+// requested is the demand the case asks of the consumer, before any
+// shedding: a duty (W) or, with steam true, a steam flow (kg/s); zero for
+// a consumer that is off or follows a boiler's fuel.
+func (u *Consumer) requested() (v float64, steam bool) {
+	switch u.demand() {
+	case demandSteam:
+		return u.factor() * u.caseDuty.SteamKgS, true
+	case demandDuty:
+		return u.factor() * u.caseDuty.W, false
+	}
+	return 0, false
+}
+
+func (u *Consumer) shedPriority(x []float64) (float64, bool, bool, float64) {
+	v, steam := u.requested()
+	est := v
+	if !steam {
+		perKg := roughHeatPerKg
+		if x != nil {
+			if hc, err := hCondensate(x[u.in.pIdx()], u.SubCooling); err == nil && x[u.in.hIdx()]-hc > 1e4 {
+				perKg = x[u.in.hIdx()] - hc
+			}
+		}
+		est = v / perKg
+	}
+	return priorityOf(u.Priority), u.Priority != 0, v > 0, est
+}
+
+func (u *Consumer) setShed(r shedRole) { u.shed = r }
+
 func (u *Consumer) residual(ev *eval, r []float64) error {
 	p := ev.p(u.in)
 	hc, err := u.mc.get2(p, u.SubCooling, hCondensate)
@@ -295,11 +342,13 @@ func (u *Consumer) residual(ev *eval, r []float64) error {
 	case demandSteamPerFuel:
 		r[u.eqs[0]] = (m - f*d.SteamPerFuel*ev.x[u.fuel]) * scaleQ
 	case demandSteam:
-		r[u.eqs[0]] = (m - f*d.SteamKgS) * scaleQ
+		phi, _ := u.shed.frac(ev.x)
+		r[u.eqs[0]] = (m - f*d.SteamKgS*phi) * scaleQ
 	case demandDutyPerFuel:
 		r[u.eqs[0]] = m*(ev.h(u.in)-hc) - f*d.PerFuelJ*ev.x[u.fuel]
 	default:
-		r[u.eqs[0]] = m*(ev.h(u.in)-hc) - f*d.W
+		phi, _ := u.shed.frac(ev.x)
+		r[u.eqs[0]] = m*(ev.h(u.in)-hc) - f*d.W*phi
 	}
 	if u.out != nil {
 		hr, err := u.hReturn(p, hc)
@@ -327,9 +376,15 @@ func (u *Consumer) jacobian(ev *eval, j jac) error {
 	f := u.factor()
 	d := &u.caseDuty
 	e0 := u.eqs[0]
+	_, dphi := u.shed.frac(ev.x)
 	switch u.demand() {
-	case demandOff, demandSteam:
+	case demandOff:
 		j.add(e0, u.in.mIdx(), scaleQ)
+	case demandSteam:
+		j.add(e0, u.in.mIdx(), scaleQ)
+		if dphi != 0 {
+			j.add(e0, u.shed.idx, -f*d.SteamKgS*dphi*scaleQ)
+		}
 	case demandSteamPerFuel:
 		j.add(e0, u.in.mIdx(), scaleQ)
 		j.add(e0, u.fuel, -f*d.SteamPerFuel*scaleQ)
@@ -339,6 +394,8 @@ func (u *Consumer) jacobian(ev *eval, j jac) error {
 		j.add(e0, u.in.pIdx(), -m*dhc)
 		if u.demand() == demandDutyPerFuel {
 			j.add(e0, u.fuel, -f*d.PerFuelJ)
+		} else if dphi != 0 {
+			j.add(e0, u.shed.idx, -f*d.W*dphi)
 		}
 	}
 	if u.out != nil {
@@ -388,10 +445,35 @@ func (u *Consumer) report(ev *eval, cr *CaseResult) error {
 	if u.out != nil {
 		cooler = ret * (hc - ev.h(u.out))
 	}
-	cr.Consumers = append(cr.Consumers, ConsumerResult{
+	res := ConsumerResult{
 		Name: u.Name, Kind: u.Kind(), DutyW: duty, SteamKgS: m, ReturnKgS: ret, LostKgS: lost, DrainCoolerW: cooler,
-		Inputs: u.caseDuty.Inputs,
-	})
+		Inputs: u.caseDuty.Inputs, Priority: priorityOf(u.Priority), RequestedW: duty,
+	}
+	if req, steam := u.requested(); req > 0 {
+		res.Reducible = true
+		phi, _ := u.shed.frac(ev.x)
+		perKg := ev.h(u.in) - hc // heat per kg of steam taken
+		if steam {
+			res.RequestedW = req * perKg
+			res.ShedKgS = req * (1 - phi)
+			res.ShedW = res.ShedKgS * perKg
+		} else {
+			res.RequestedW = req
+			res.ShedW = req * (1 - phi)
+			if perKg > 0 {
+				res.ShedKgS = res.ShedW / perKg
+			}
+		}
+	}
+	if tm, ok := u.Model.(*TankHeating); ok && res.ShedW > 0 {
+		cool, err := tm.shedCooling(ev.cond, duty)
+		if err != nil {
+			cr.warn("%s %q: the cargo's cooling with its heating reduced is not known: %v", u.Kind(), u.Name, err)
+		} else {
+			res.Cooling = cool
+		}
+	}
+	cr.Consumers = append(cr.Consumers, res)
 	for _, w := range u.caseDuty.Warnings {
 		cr.warn("%s %q: %s", u.Kind(), u.Name, w)
 	}

@@ -2,6 +2,7 @@ package plant
 
 import (
 	"fmt"
+	"math"
 	"strings"
 
 	"steamcase/plant/fuel"
@@ -137,6 +138,9 @@ func text(k Key, set func(Component, []string) error) Key {
 // tankstate.go).
 type TankHeating struct {
 	Tank loads.TankHeating
+	// MinT is the lowest temperature the cargo may cool to when its
+	// heating is reduced (its pumpability), K; zero means not given.
+	MinT float64
 	// Instr is the instruction of a stateful tank for the row (key
 	// "instruction"); its temperature is Tank.To (key "T") and, for
 	// loads.ReachBy, By the time from the voyage's start by which it is
@@ -221,6 +225,63 @@ func (m *TankHeating) validate() error {
 	return err
 }
 
+// shedCooling is what a shortfall does to the cargo when the heating
+// delivers only delivered W: the cargo's temperature change at the start
+// (the lumped model of loads.TankHeating.CoolDownAfter, plant-checks.md
+// §6 [CP]),
+//
+//	dT/dt = (delivered − Σ U·A·(T0 − T_amb)) / (m·c(T0)),
+//
+// from the temperature held (or, heating up, from the start of the
+// heat-up), and, holding with MinT given, the time until the cargo cools
+// to MinT with the heating left on at delivered: with nothing delivered
+// the exact time of loads' TimeToCool (Cragoe's c linear in T), else
+//
+//	t = (m·c/ΣUA)·ln((T0 − T_eq)/(MinT − T_eq)),  T_eq = T_amb + delivered/ΣUA,
+//
+// with c constant at the mean of T0 and MinT (a simplification: Cragoe's
+// c changes by about 0.2 % per kelvin, so over a few kelvin the time
+// moves by well under 1 %). The cargo never gets to MinT when T_eq is
+// not below it.
+func (m *TankHeating) shedCooling(c Conditions, delivered float64) (*TankCooling, error) {
+	amb, err := needAmbient(c, m.uses(loads.Sea), m.uses(loads.Air))
+	if err != nil {
+		return nil, err
+	}
+	T0 := m.Tank.To
+	if m.Tank.Mode == loads.HeatUp {
+		T0 = m.Tank.From
+	}
+	cd, err := m.Tank.CoolDownAfter(T0, 1, amb)
+	if err != nil {
+		return nil, err
+	}
+	loss := cd.UA * (T0 - cd.AmbientT)
+	out := &TankCooling{RateKS: (delivered - loss) / (cd.Mass * cd.Cp), MinT: m.MinT}
+	if m.MinT <= 0 || m.Tank.Mode != loads.Hold || out.RateKS >= 0 {
+		return out, nil
+	}
+	if m.MinT >= T0 {
+		out.Reaches = true
+		return out, nil
+	}
+	teq := cd.AmbientT + delivered/cd.UA
+	if teq >= m.MinT {
+		return out, nil
+	}
+	tc, err := m.Tank.TimeToCool(T0, m.MinT, amb)
+	if err != nil {
+		return nil, err
+	}
+	out.Reaches = true
+	if delivered <= 0 {
+		out.SecondsToMinT = tc.Elapsed
+		return out, nil
+	}
+	out.SecondsToMinT = tc.Mass * tc.Cp / tc.UA * math.Log((T0-teq)/(m.MinT-teq))
+	return out, nil
+}
+
 func tankKey(k Key, f func(*TankHeating) *float64) Key {
 	return num(k, modelOf[*TankHeating], f)
 }
@@ -279,6 +340,10 @@ var tankHeatingKeys = append([]Key{
 			}
 			return nil
 		}),
+	tankKey(Key{Name: "min_T", Label: "lowest cargo temperature", Dim: units.Temperature, Example: "45 C",
+		Doc:         "the lowest temperature the cargo may cool to when its heating is reduced (a margin above its pour or cloud point): a shortfall and the N-1 lines give the time until it gets there",
+		DefaultNote: "not given: the cooling rate alone", Min: loads.MinTemperature, Max: loads.MaxTemperature, Case: true},
+		func(m *TankHeating) *float64 { return &m.MinT }),
 	{Name: "flash_point", Label: "flash point", Kind: KeyQuantity, Dim: units.Temperature, Example: "60 C",
 		Doc:         "the oil's flash point: heating near it gives the SOLAS caution",
 		DefaultNote: "with fuel, the grade's ISO 8217 minimum (60 C), said to be assumed in the caution; else not checked",
@@ -665,7 +730,7 @@ var sootBlowingKeys = []Key{
 	sootKey(Key{Name: "interval", Label: "interval", Dim: units.Time, Example: "8 h",
 		Doc: "time between the starts of two blows", Required: true, Min: 1e-3, Max: 1e8, Case: true},
 		func(m *SootBlowing) *float64 { return &m.Blowing.Interval }),
-	offKey,
+	offKey, consumerPriorityKey,
 }
 
 func (m *SootBlowing) keys() []Key { return sootBlowingKeys }

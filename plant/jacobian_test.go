@@ -157,6 +157,15 @@ func jacFixtures() []jacFixture {
 		{"two boilers lead-lag", func(t testing.TB) *Plant { return twoBoilers(t, Options{Sharing: LeadLag}) }, []Case{
 			demandCase("two boilers", 12000),
 		}},
+		// Short: the boilers at their limit and the demand reduced, in
+		// proportion and by priority (the shed level away from a kink).
+		{"two boilers short", func(t testing.TB) *Plant { return twoBoilers(t, Options{}) }, []Case{
+			demandCase("short", 23000),
+		}},
+		{"short by priority", func(t testing.TB) *Plant { return shortPlant(t, Options{}) }, []Case{
+			{Name: "deeper", Set: []Setting{{Unit: "cleaning", Param: "steam", Value: 20000.0 / 3600},
+				{Unit: "cargo", Param: "steam", Value: 12000.0 / 3600}}},
+		}},
 		{"coupled consumers", coupledPlant, []Case{{Name: "winter", Conditions: Conditions{AirT: 263.15}}}},
 		{"exhaust-gas economiser", func(t testing.TB) *Plant { p, _ := egeOnly(t, 0.65); return p }, []Case{ege(1), ege(0.5)}},
 		{"exhaust-gas economiser with bypass", func(t testing.TB) *Plant {

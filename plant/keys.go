@@ -34,9 +34,13 @@ const (
 	// exhaust table, a tank's boundaries) that the script front end
 	// decodes for the kind.
 	KeyTable
+	// KeyRank is a number, or one of Key.Choices standing for the number
+	// of the same place in Key.Levels (a consumer's priority: 25, or
+	// "cargo" for 30). A Setting holds the number.
+	KeyRank
 )
 
-var keyKindNames = [...]string{"quantity", "pressure difference", "true or false", "number", "choice", "text", "list of names", "table"}
+var keyKindNames = [...]string{"quantity", "pressure difference", "true or false", "number", "choice", "text", "list of names", "table", "number or level"}
 
 func (k KeyKind) String() string {
 	if int(k) < len(keyKindNames) {
@@ -79,6 +83,8 @@ type Key struct {
 	// if any.
 	JSON    string
 	Choices []string
+	// Levels are the numbers the Choices of a KeyRank stand for.
+	Levels []float64
 	// Clears lists keys that setting this one resets to zero in a case (a
 	// duty replaces a set steam flow).
 	Clears []string
@@ -136,6 +142,12 @@ func (k *Key) InRange(v float64) bool {
 		return v == 0 || v == 1
 	case KeyChoice:
 		return v == float64(int(v)) && int(v) >= 0 && int(v) < len(k.Choices)
+	case KeyRank:
+		for _, l := range k.Levels {
+			if v == l {
+				return true
+			}
+		}
 	}
 	if k.Min == 0 && k.Max == 0 {
 		return true
@@ -375,6 +387,8 @@ func WriteKeyReference(w io.Writer, kinds []KindSpec) error {
 			}
 			if k.Kind == KeyChoice {
 				what = "one of " + choices(k.Choices)
+			} else if k.Kind == KeyRank {
+				what = fmt.Sprintf("a number from %g to %g or one of %s", k.Min, k.Max, levels(k.Choices, k.Levels))
 			} else if k.Example != "" {
 				ex := k.Example
 				if (k.Kind == KeyQuantity || k.Kind == KeyPressureDiff) && strings.Contains(ex, " ") {
@@ -416,6 +430,41 @@ func choices(cs []string) string {
 		return q[0]
 	}
 	return strings.Join(q[:len(q)-1], ", ") + " or " + q[len(q)-1]
+}
+
+// levels writes `"a" (10), "b" (20) or "c" (30)`.
+func levels(names []string, values []float64) string {
+	q := make([]string, len(names))
+	for i, c := range names {
+		q[i] = strconv.Quote(c)
+		if i < len(values) {
+			q[i] += " (" + strconv.FormatFloat(values[i], 'g', 6, 64) + ")"
+		}
+	}
+	if len(q) == 1 {
+		return q[0]
+	}
+	return strings.Join(q[:len(q)-1], ", ") + " or " + q[len(q)-1]
+}
+
+// Level returns the number a KeyRank's named level stands for.
+func (k *Key) Level(name string) (float64, bool) {
+	for i, c := range k.Choices {
+		if c == name && i < len(k.Levels) {
+			return k.Levels[i], true
+		}
+	}
+	return 0, false
+}
+
+// LevelName returns the name of a KeyRank's level v, or "".
+func (k *Key) LevelName(v float64) string {
+	for i, l := range k.Levels {
+		if l == v && i < len(k.Choices) {
+			return k.Choices[i]
+		}
+	}
+	return ""
 }
 
 // KeyNames lists the names of keys, in their order.

@@ -27,7 +27,11 @@ type CaseResult struct {
 
 	BoilersFiring int
 	CanCarry      bool
-	ShortfallKgS  float64 // demand beyond all boilers' MCR
+	// ShortfallKgS is the steam the firing boilers at their limit cannot
+	// raise: the steam the shed consumers would take at the solved state
+	// (ShedKgS), and any steam the boilers still raise above their limit
+	// when nothing more may be shed.
+	ShortfallKgS float64
 	// MarginNextKgS is how much more steam the firing boilers can take
 	// before the next boiler must fire (UsableFraction of their MCR), or,
 	// with all boilers firing, before their MCR is reached.
@@ -50,6 +54,27 @@ type CaseResult struct {
 	// without them (solved again with them out of service).
 	EGESteamKgS     float64
 	EGEFuelSavedKgS float64
+
+	// The allocation of a shortfall (priority.go): the heat (or shaft
+	// power) and the steam shed from the consumers, whether any consumer
+	// gave a priority, and how many distinct priorities the consumers
+	// that may be reduced have. Each consumer's part is in Consumers.
+	ShedW, ShedKgS  float64
+	PrioritiesGiven bool
+	ShedRanks       int
+
+	// Contingencies are the N-1 answers of the case (contingency.go): one
+	// per single failure considered, in order; empty when the plant's
+	// option turns them off (ContingenciesChecked false).
+	Contingencies        []ContingencyResult
+	ContingenciesChecked bool
+	// InertGas is the inert-gas check of a case with cargo pumps running
+	// on a plant with an inert-gas source (inertgas.go); nil otherwise.
+	InertGas *InertGasResult
+	// LeastFuel is what least-fuel sharing chose against equal sharing
+	// (leastfuel.go); nil under another sharing rule, or when the case
+	// forces its firing.
+	LeastFuel *LeastFuelResult
 
 	Balance Balance
 
@@ -116,6 +141,17 @@ type BoilerResult struct {
 	Losses       *combustion.LossItems // LHV basis
 	FanShaftW    float64
 	FanElectricW float64
+
+	// LimitKgS is the most steam the boiler may raise in the case: its
+	// MCR times its max load.
+	LimitKgS float64
+	// InertGasSource: the boiler's uptake feeds the inert-gas system.
+	InertGasSource bool
+	// From a combustion model, while firing: O2 in the dry flue gas (mole
+	// fraction) and the dry flue gas at normal conditions (0 °C,
+	// 101.325 kPa), m³/s.
+	O2Dry       float64
+	DryFlueNm3S float64
 }
 
 // ConsumerResult is one steam consumer's part in a case.
@@ -131,6 +167,36 @@ type ConsumerResult struct {
 	DrainCoolerW float64
 	// Inputs are the figures that drove a computed duty, keys with units.
 	Inputs map[string]float64
+
+	// Priority is the consumer's priority (PriorityEssential when none was
+	// given); Reducible says the shedding may reduce it in this case.
+	// RequestedW is the duty (or shaft power) the case asks for, ShedW and
+	// ShedKgS what the shedding took from it, in heat and in steam at the
+	// solved state.
+	Priority       float64
+	Reducible      bool
+	RequestedW     float64
+	ShedW, ShedKgS float64
+	// CargoRate is the cargo a turbine's pump delivers, m³/s (its flow in
+	// proportion to the power delivered).
+	CargoRate float64
+	// Cooling is what shedding a tank's heating does to its cargo; nil
+	// when nothing is shed or the consumer is no tank.
+	Cooling *TankCooling
+}
+
+// TankCooling is a tank's cargo with part of its heating shed.
+type TankCooling struct {
+	// RateKS is the cargo's temperature change at the start, K/s (negative
+	// when it cools).
+	RateKS float64
+	// MinT is the lowest temperature the cargo may reach (the tank's
+	// min_T; zero when not given); SecondsToMinT the time until it gets
+	// there, and Reaches false when it never does (the heating left holds
+	// it above).
+	MinT          float64
+	SecondsToMinT float64
+	Reaches       bool
 }
 
 // ComponentResult holds the figures of a unit that is neither a boiler nor a

@@ -22,7 +22,13 @@ type Turbine struct {
 	// Pump, if set, is the cargo pump the turbine drives: its shaft power
 	// (ρ·g·Q·H/η, plant/loads) is the turbine's power in each case.
 	Pump *loads.CargoPump
+	// Priority ranks the turbine when the boilers at their limit cannot
+	// carry the demand (priority.go); zero means not given (essential).
+	// A reduced cargo pump delivers its flow in proportion to its power
+	// (ρ·g·Q·H/η at the same head and efficiency).
+	Priority float64
 
+	shed    shedRole
 	in, out *Line
 	eqs     [4]int
 	ms, mhs memo
@@ -63,6 +69,7 @@ var (
 			func(u *Turbine) *float64 { return &u.EtaMech }),
 		flag(Key{Name: "off", Label: "off", Example: "true", Doc: "not running", Default: 0, HasDefault: true, Case: true},
 			self[*Turbine], func(u *Turbine) *bool { return &u.Off }),
+		priorityKey(self[*Turbine], func(u *Turbine) *float64 { return &u.Priority }),
 	}
 	turbineKeys = append([]Key{
 		turbineKey(Key{Name: "power", Label: "shaft power", Dim: units.Power, Example: "1.2 MW",
@@ -108,6 +115,9 @@ func (u *Turbine) check(fs *faults) {
 	checkKey(fs, u, "exhaust")
 	checkKey(fs, u, "eta_is")
 	checkKey(fs, u, "eta_mech")
+	if u.Priority != 0 {
+		checkKey(fs, u, "priority")
+	}
 }
 
 // validate computes a cargo pump's power at declaration.
@@ -144,10 +154,38 @@ func (u *Turbine) etaMech() float64 {
 
 func (u *Turbine) assemble(a *assembly, ports portLines) {
 	u.in, u.out = ports.one("in"), ports.one("out")
+	u.shed = offRole()
 	u.eqs[0] = a.equation(u.Name+": exhaust pressure", scaleP, u.out.pIdx())
 	u.eqs[1] = a.equation(u.Name+": expansion", scaleH, u.in.pIdx(), u.in.hIdx(), u.out.pIdx(), u.out.hIdx())
 	u.eqs[2] = a.equation(u.Name+": shaft power", scaleQ, u.in.mIdx(), u.in.hIdx(), u.out.hIdx())
 	u.eqs[3] = a.equation(u.Name+": mass balance", 1, u.in.mIdx(), u.out.mIdx())
+}
+
+// shedLink ties the turbine's power to the shed level (priority.go).
+func (u *Turbine) shedLink(a *assembly, idx int) {
+	u.shed.idx = idx
+	a.depend(u.eqs[2], idx)
+}
+
+func (u *Turbine) shedPriority(x []float64) (float64, bool, bool, float64) {
+	w := roughWorkPerKg
+	if x != nil {
+		if d := (x[u.in.hIdx()] - x[u.out.hIdx()]) * u.etaMech(); d > 1e4 {
+			w = d
+		}
+	}
+	return priorityOf(u.Priority), u.Priority != 0, !u.Off && u.power > 0, u.power / w
+}
+
+func (u *Turbine) setShed(r shedRole) { u.shed = r }
+
+// CargoRate is the volume flow of cargo the turbine's pump is asked for in
+// the case, m³/s (zero for a turbine that drives no cargo pump or is off).
+func (u *Turbine) CargoRate() float64 {
+	if u.Pump == nil || u.Off {
+		return 0
+	}
+	return u.Pump.Flow
 }
 
 // expansion returns the exhaust enthalpy and the isentropic drop.
@@ -171,7 +209,8 @@ func (u *Turbine) residual(ev *eval, r []float64) error {
 	}
 	r[u.eqs[0]] = ev.p(u.out) - u.ExhaustP
 	r[u.eqs[1]] = ev.h(u.out) - hOut
-	r[u.eqs[2]] = ev.m(u.in)*(ev.h(u.in)-ev.h(u.out))*u.etaMech() - u.power
+	phi, _ := u.shed.frac(ev.x)
+	r[u.eqs[2]] = ev.m(u.in)*(ev.h(u.in)-ev.h(u.out))*u.etaMech() - u.power*phi
 	r[u.eqs[3]] = ev.m(u.out) - ev.m(u.in)
 	return nil
 }
@@ -207,6 +246,9 @@ func (u *Turbine) jacobian(ev *eval, j jac) error {
 	j.add(u.eqs[2], u.in.mIdx(), (hIn-ev.h(u.out))*em)
 	j.add(u.eqs[2], u.in.hIdx(), m*em)
 	j.add(u.eqs[2], u.out.hIdx(), -m*em)
+	if _, dphi := u.shed.frac(ev.x); dphi != 0 {
+		j.add(u.eqs[2], u.shed.idx, -u.power*dphi)
+	}
 	j.add(u.eqs[3], u.out.mIdx(), 1)
 	j.add(u.eqs[3], u.in.mIdx(), -1)
 	return nil
@@ -236,7 +278,18 @@ func (u *Turbine) report(ev *eval, cr *CaseResult) error {
 		{"isentropic_drop_J_kg", dhs},
 		{"steam_rate_kg_per_kWh", rate},
 	}})
-	cr.Consumers = append(cr.Consumers, ConsumerResult{Name: u.Name, Kind: u.Kind(), DutyW: shaft, SteamKgS: m, ReturnKgS: m})
+	res := ConsumerResult{Name: u.Name, Kind: u.Kind(), DutyW: shaft, SteamKgS: m, ReturnKgS: m,
+		Priority: priorityOf(u.Priority), RequestedW: shaft}
+	if !u.Off && u.power > 0 {
+		phi, _ := u.shed.frac(ev.x)
+		res.Reducible, res.RequestedW = true, u.power
+		res.ShedW = u.power * (1 - phi)
+		if w := (ev.h(u.in) - ev.h(u.out)) * u.etaMech(); w > 0 {
+			res.ShedKgS = res.ShedW / w
+		}
+		res.CargoRate = u.CargoRate() * phi
+	}
+	cr.Consumers = append(cr.Consumers, res)
 	cr.boundary.workOut += m * (ev.h(u.in) - ev.h(u.out))
 	return nil
 }

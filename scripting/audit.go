@@ -439,8 +439,8 @@ func (r *runner) uncertainties(ph *plantHandle, a *args) []profile.Uncertain {
 		switch {
 		case !found:
 			ea.errorf(nil, "%s: %s", unit, unknownKeyMsg(key, accepted))
-		case k.Kind == plant.KeyFlag || k.Kind == plant.KeyChoice:
-			ea.errorf(nil, "%s.%s cannot be sampled (a switch or a choice); sample a number such as factor", unit, key)
+		case k.Kind == plant.KeyFlag || k.Kind == plant.KeyChoice || k.Kind == plant.KeyRank:
+			ea.errorf(nil, "%s.%s cannot be sampled (a switch, a choice or a priority); sample a number such as factor", unit, key)
 		default:
 			parse := func(v lua.LValue, what string) (float64, error) { return parseSetting(v, &k, what, ph.uopt) }
 			l, h := r.bound(ea, lo, "low", parse), r.bound(ea, hi, "high", parse)

@@ -153,6 +153,22 @@ func (r *runner) readKey(a *args, u plant.Component, k *plant.Key, required bool
 		}
 		a.errorf(nil, "%s must be %s; got %q", k.Name, choiceList(k.Choices), s)
 		return true
+	case plant.KeyRank:
+		v := a.get(k.Name)
+		if v == lua.LNil {
+			if required {
+				a.errorf(nil, "%s is required, such as %s = %s", k.Name, k.Name, k.Example)
+				a.markMissing(k.Name)
+			}
+			return false
+		}
+		f, err := parseRank(v, k, k.Name)
+		if err != nil {
+			a.errorf(err, "%v", err)
+			return true
+		}
+		k.Set(u, f)
+		return true
 	case plant.KeyText:
 		s, ok := a.str(k.Name, required)
 		if ok {

@@ -52,12 +52,20 @@
 //
 // plant{} keys: name (required); ambient (pressure, absolute; default
 // 101.325 kPa); usable (fraction of one boiler's MCR before the next fires;
-// default 85 %); sharing ("equal" or "lead"); lead_load (fraction, lead
-// boiler's load under "lead"; default 80 %); feed_suction_max_T
-// (temperature above which the feed pump's suction is warned about;
-// default 90 C); ege_saving (boolean, default true: each case is solved a
-// second time without its exhaust-gas economisers to give the fuel they
-// save; false skips that solve, for speed, and the saving reads zero).
+// default 85 %); sharing ("equal", "lead" or "least_fuel"); lead_load
+// (fraction, lead boiler's load under "lead"; default 80 %);
+// feed_suction_max_T (temperature above which the feed pump's suction is
+// warned about; default 90 C); ege_saving (boolean, default true: each
+// case is solved a second time without its exhaust-gas economisers to
+// give the fuel they save; false skips that solve, for speed, and the
+// saving reads zero); n_minus_1 (boolean, default true: each case also
+// answers its single failures; false skips them, for speed);
+// contingencies (a list of failures besides the automatic ones, each a
+// unit's name or a list of names lost together: boilers and exhaust-gas
+// economisers, such as { "AB1", { "AB2", "EGE" } }); inert_gas (a table:
+// O2, the highest O2 in the dry flue gas, default 5 %; capacity, the gas
+// needed as a fraction of the running cargo pumps' rate, default 125 %).
+// See "Capacity, N-1, inert gas and sharing" below.
 //
 // Components are declared with methods of the plant named by their kind
 // (ship:boiler{...}, ship:tank_heating{...}); each returns a table
@@ -231,6 +239,60 @@
 // gave no sea temperature, r.boilers[i].losses with a plain efficiency
 // table. In check mode it returns a table of the same shape with zero
 // figures.
+//
+// # Capacity, N-1, inert gas and sharing
+//
+// A boiler never raises more than its limit: its MCR times its max_load
+// (default 100 %; a case may lower it). When the boilers firing cannot
+// carry a case, it is solved with them at their limit and the demand is
+// reduced by priority: every consumer and turbine takes priority, a
+// number from 1 to 100 (higher kept longer) or a named level,
+// "deferrable" (10), "hotel" (20), "cargo" (30) or "essential" (40, also
+// the rank of a consumer that gives none). The lowest priority is reduced
+// first, each consumer of one priority by the same fraction of its duty,
+// steam or shaft power; without any priority every consumer is reduced in
+// proportion, and the report says so. Burner heaters and atomising steam
+// (they follow their boiler's fuel), the hotwell's heating and header
+// drains are never reduced. r.can_carry is false, r.shortfall_kg_h the
+// steam missing, r.shed_kW and r.shed_kg_h what was shed, and each
+// r.consumers[i] has priority, priority_level, reducible, requested_kW,
+// shed_kW, shed_kg_h and, for a tank, cooling { rate_K_per_h, min_T_K,
+// hours_to_min_T } (give a tank_heating min_T, the lowest temperature its
+// cargo may cool to, for the hours). A boiler forced above the plant's
+// usable fraction gets a warning.
+//
+// N-1: each case also answers the largest firing boiler tripping, each
+// exhaust-gas economiser in service being out, and each of the plant's
+// contingencies: r.contingencies[i] has name ("AB2 trips"), kind, units,
+// solved, can_carry, shortfall_kg_h, margin_kg_h, shed_kW, shed_kg_h,
+// boilers (name, load_fraction, steam_kg_h, started: a standby boiler
+// that must start), shed (the consumers reduced, with their cooling),
+// note and line (the report's sentence: print(r.contingencies[1].line)).
+// A failure that the remaining boilers carry with their usable capacity
+// at least 125 % of the steam needed is not solved (solved false, loads
+// estimated). A voyage's totals count n_minus_1_short_hours and
+// n_minus_1_short_rows; each row has n_minus_1_can_carry. The figures are
+// planning estimates: the boiler makers' manuals and the ship's safety
+// management system govern what is done when a boiler trips.
+//
+// Inert gas: a boiler with inert_gas = true feeds the inert-gas system
+// from its uptake; it needs a flue_gas or furnace efficiency (its O2 and
+// gas volume come from it). While cargo pumps run, r.inert_gas has
+// sources, firing, cargo_rate_m3_h, capacity, required_m3_h,
+// delivered_Nm3_h (dry gas at 0 C and 101.325 kPa), o2_dry, o2_max, met,
+// min_load_fraction (the lowest load at which the sources meet it),
+// extra_steam_kg_h and extra_fuel_kg_h (what firing harder for inert gas
+// than for steam costs), note and line. The 5 % and 125 % defaults are
+// the figures of SOLAS II-2 reg. 4.5.5 and the FSS Code ch. 15, from
+// memory; the line never replaces the O2 analyser.
+//
+// sharing = "least_fuel" chooses which boilers fire and how they split
+// the steam for the least fuel, from each boiler's own efficiency model,
+// within turndown, the usable fraction, the limits and the inert-gas
+// minimum, at most 4 boilers: r.least_fuel has equal_fuel_kg_h (the
+// firing rule with equal sharing), saved_kg_h, saved_pct, firing, shares
+// and note. Package plant's doc of leastfuel.go says how it searches and
+// when equal sharing is already the least fuel.
 //
 // # Voyages, studies and audits
 //

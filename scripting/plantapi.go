@@ -121,7 +121,7 @@ func (r *runner) checkTable(n int, what string) *lua.LTable {
 
 // plantOptions reads the plant-wide keys shared by plant{} and
 // steam_plant{}: name, ambient, usable, sharing, lead_load,
-// feed_suction_max_T.
+// feed_suction_max_T, ege_saving, n_minus_1, contingencies.
 func (r *runner) plantOptions(t *lua.LTable, what string, pos Pos) (*args, string, plant.Options) {
 	a := r.args(t, what, pos, units.Options{})
 	name, _ := a.str("name", true)
@@ -145,8 +145,10 @@ func (r *runner) plantOptions(t *lua.LTable, what string, pos Pos) (*args, strin
 			opt.Sharing = plant.EqualLoad
 		case "lead":
 			opt.Sharing = plant.LeadLag
+		case "least_fuel":
+			opt.Sharing = plant.LeastFuel
 		default:
-			a.errorf(nil, "sharing must be \"equal\" or \"lead\"; got %q", s)
+			a.errorf(nil, "sharing must be \"equal\", \"lead\" or \"least_fuel\"; got %q", s)
 		}
 	}
 	opt.LeadLoad, _ = a.fractionIn("lead_load", 0.1, 1, " of the lead boiler's MCR")
@@ -155,6 +157,26 @@ func (r *runner) plantOptions(t *lua.LTable, what string, pos Pos) (*args, strin
 		// false skips the second solve of each case without the
 		// exhaust-gas economisers that gives the fuel they save
 		opt.NoEGESaving = !a.boolean("ege_saving")
+	}
+	if a.has("n_minus_1") {
+		// false skips the N-1 answers of each case, for speed
+		opt.NoContingencies = !a.boolean("n_minus_1")
+	}
+	opt.Contingencies = a.contingencies(r.entryPos(pos, "=contingencies"))
+	if ig := r.subTable(a, "inert_gas"); ig != nil {
+		b := r.args(ig, a.what+" inert_gas", pos, a.uopt)
+		// O2: the highest O2 in the dry gas (default 5 %); capacity: the
+		// gas needed as a fraction of the cargo pumps' rate (default
+		// 125 %).
+		var ok bool
+		if opt.InertGasO2Max, ok = b.quantity("O2", units.Fraction, false); ok && !(opt.InertGasO2Max > 0 && opt.InertGasO2Max < 0.21) {
+			b.errorf(nil, "O2 must lie between 0 and 21 %%, such as \"5 %%\"; got %g %%", 100*opt.InertGasO2Max)
+		}
+		if opt.InertGasCapacity, ok = b.quantity("capacity", units.Fraction, false); ok && !(opt.InertGasCapacity > 0 && opt.InertGasCapacity <= 10) {
+			b.errorf(nil, "capacity must lie between 0 and 1000 %% of the cargo pumps' rate, such as \"125 %%\"; got %g %%", 100*opt.InertGasCapacity)
+		}
+		b.done()
+		a.nerr += b.nerr
 	}
 	opt.Logger = r.log
 	return a, name, opt
@@ -297,6 +319,59 @@ func (r *runner) addPlantErrIn(ph *plantHandle, err error, unit, note string) {
 		pos = ph.pos
 	}
 	r.errs = append(r.errs, &Error{Pos: pos, Unit: unit, Msg: err.Error() + note, Err: err})
+}
+
+// contingencies reads contingencies = { "AB1", { "AB2", "EGE" } }: each
+// entry a unit's name or a list of units lost together (boilers or
+// exhaust-gas economisers; the plant checks the names once its units are
+// declared).
+func (a *args) contingencies(pos Pos) []plant.Contingency {
+	v := a.get("contingencies")
+	if v == lua.LNil {
+		return nil
+	}
+	t, ok := v.(*lua.LTable)
+	if !ok {
+		a.errorf(nil, "contingencies must be a list of failures, each a unit's name or a list of names lost together, such as { \"AB1\", { \"AB2\", \"EGE\" } }; got %s", describe(v))
+		return nil
+	}
+	n := t.Len()
+	if n > a.r.opt.MaxTable {
+		a.errorf(nil, "contingencies: more than %d entries", a.r.opt.MaxTable)
+		return nil
+	}
+	if extra := a.r.unknownKeys(t, nil); len(extra) > n {
+		a.errorf(nil, "contingencies must be a list { \"AB1\", {...} } without named keys")
+	}
+	var out []plant.Contingency
+	at := plant.Pos{File: pos.File, Line: pos.Line}
+	for i := 1; i <= n; i++ {
+		var units []string
+		switch e := t.RawGetInt(i).(type) {
+		case lua.LString:
+			if strings.TrimSpace(string(e)) != "" {
+				units = []string{string(e)}
+			}
+		case *lua.LTable:
+			for j := 1; j <= e.Len() && j <= a.r.opt.MaxTable; j++ {
+				s, ok := e.RawGetInt(j).(lua.LString)
+				if !ok || strings.TrimSpace(string(s)) == "" {
+					a.errorf(nil, "contingencies[%d][%d] must be a unit's name; got %s", i, j, describe(e.RawGetInt(j)))
+					continue
+				}
+				units = append(units, string(s))
+			}
+		default:
+			a.errorf(nil, "contingencies[%d] must be a unit's name or a list of names; got %s", i, describe(e))
+			continue
+		}
+		if len(units) == 0 {
+			a.errorf(nil, "contingencies[%d] names no unit: give the boilers or exhaust-gas economisers lost together, such as { \"AB1\" }", i)
+			continue
+		}
+		out = append(out, plant.Contingency{Units: units, Pos: at})
+	}
+	return out
 }
 
 // names reads a list of unit names.

@@ -40,6 +40,7 @@ func TestGoodScripts(t *testing.T) {
 		{"study.lua", 0, 1, 6},
 		{"audit.lua", 0, 1, 5},
 		{"observation_tank.lua", 1, 1, 1},
+		{"contingency.lua", 2, 1, 7},
 	}
 	for _, tc := range tests {
 		for _, checkOnly := range []bool{false, true} {

@@ -85,6 +85,18 @@ type Totals struct {
 	// order the grades first fire (the totals the fuel-consumption
 	// reporting schemes ask for).
 	FuelByGrade []GradeTotal
+	// N1ShortHours are the hours of the rows in which at least one of the
+	// case's N-1 contingencies (plant contingency.go: the largest firing
+	// boiler trips, an economiser is out, a listed failure) cannot be
+	// carried, and N1ShortRows those rows; N1CheckedRows counts the rows
+	// whose contingencies were answered (none when the plant's option
+	// turns them off).
+	N1ShortHours  float64
+	N1ShortRows   []int
+	N1CheckedRows int
+	// InertGasShortHours are the hours of the rows whose inert-gas check
+	// (plant inertgas.go) is not met.
+	InertGasShortHours float64
 }
 
 // GradeTotal is the boiler fuel burnt of one grade, and its CO2, tonnes.
@@ -251,6 +263,19 @@ func (t *Totals) add(i int, hours float64, cr *plant.CaseResult) {
 	}
 	if !cr.CanCarry {
 		t.ShortRows = append(t.ShortRows, i)
+	}
+	if cr.InertGas != nil && !cr.InertGas.Met {
+		t.InertGasShortHours += hours
+	}
+	if cr.ContingenciesChecked {
+		t.N1CheckedRows++
+		for _, c := range cr.Contingencies {
+			if !c.CanCarry {
+				t.N1ShortHours += hours
+				t.N1ShortRows = append(t.N1ShortRows, i)
+				break
+			}
+		}
 	}
 	if len(cr.Warnings) > 0 {
 		t.WarningRows = append(t.WarningRows, i)

@@ -164,8 +164,12 @@
 //	engine_load             main engine load, fraction of its MCR (0..1)
 //	boilers_firing          how many oil-fired boilers fire
 //	firing_forced           the case chose which boilers fire
-//	can_carry               the firing boilers can carry the demand
-//	shortfall_kg_h          demand beyond the boilers' MCR, kg/h
+//	can_carry               the firing boilers can carry the demand within
+//	                        their limits (MCR times max_load)
+//	shortfall_kg_h          demand beyond the firing boilers' limit, kg/h:
+//	                        the steam shed (shed_kg_h), and any steam the
+//	                        boilers still raise above their limit when
+//	                        nothing more may be shed
 //	margin_kg_h             steam the firing boilers can add before the
 //	                        next boiler must fire (with all firing: before
 //	                        their MCR; with none: the steam dumped), kg/h
@@ -185,12 +189,102 @@
 //	ege_steam_kg_h          steam raised by exhaust-gas economisers, kg/h
 //	ege_fuel_saved_kg_h     boiler fuel the economisers save against the
 //	                        same case without them, kg/h
+//	shed_kW, shed_kg_h      the heat (and shaft power) and the steam shed
+//	                        from the consumers because the boilers at
+//	                        their limit cannot carry the case; 0 when it
+//	                        is carried
+//	priorities_given        a consumer gave a priority; false: a
+//	                        shortfall reduces every consumer in proportion
+//	n_minus_1_checked       the case's N-1 contingencies were answered
+//	                        (false when the plant's n_minus_1 = false)
+//	contingencies           [CONTINGENCY]: the N-1 answers, in order: the
+//	                        largest firing boiler trips, each exhaust-gas
+//	                        economiser in service is out, each failure the
+//	                        plant lists; empty when not checked
+//	inert_gas               INERT_GAS: the inert-gas check while cargo
+//	                        pumps run on a plant with an inert-gas source;
+//	                        null otherwise
+//	least_fuel              LEAST_FUEL: what least-fuel sharing chose; null
+//	                        under another sharing rule or a forced firing
 //	boilers                 [BOILER]: the oil-fired boilers
 //	exhaust_gas_economisers  [EGE]: the exhaust-gas economisers
 //	consumers               [CONSUMER]: the steam consumers and turbines
 //	units                   [UNIT]: the other units
 //	lines                   [LINE]: every line's solved state
 //	warnings                [string]: every warning of the case
+//
+// A CONTINGENCY (type Contingency) is one single failure:
+//
+//	name                    what fails, "AB2 trips", "EGE out", "AB1 and
+//	                        EGE lost"
+//	kind                    "boiler trip", "economiser out" or "listed"
+//	units                   [string]: the units lost
+//	solved                  the failure was solved; false when the
+//	                        remaining boilers' usable capacity is at least
+//	                        125 % of the steam they must raise (carried,
+//	                        their loads estimated) or nothing was left to
+//	                        solve (note says so)
+//	can_carry               the rest of the plant carries the case
+//	shortfall_kg_h          steam the remaining boilers at their limit
+//	                        cannot raise, kg/h
+//	margin_kg_h             steam they could still add up to their
+//	                        limits, kg/h
+//	shed_kW, shed_kg_h      what the shortfall sheds, kW and kg/h
+//	boilers                 [CONTINGENCY_BOILER]: the boilers firing after
+//	                        the failure
+//	shed                    [SHED]: the consumers reduced, lowest priority
+//	                        first
+//	note                    what the figures do not say ("" if nothing)
+//	line                    the report's line for it, in words
+//
+// A CONTINGENCY_BOILER (type ContingencyBoiler) is
+//
+//	name                    the boiler's name
+//	load_fraction           its steam over its MCR
+//	steam_kg_h              its steam, kg/h
+//	started                 it was on standby and must start
+//
+// A SHED (type Shed) is a consumer a contingency reduces:
+//
+//	name, kind              its name and kind
+//	priority, priority_level   as in a CONSUMER
+//	requested_kW            its duty (shaft power) before the failure, kW
+//	shed_kW, shed_kg_h      what is taken from it, kW and kg/h
+//	cooling                 COOLING of a tank's cargo, or null
+//
+// LEAST_FUEL (type LeastFuel) is least-fuel sharing's answer against
+// equal sharing by the firing rule:
+//
+//	equal_fuel_kg_h         the fuel with equal sharing, kg/h
+//	saved_kg_h, saved_pct   the fuel saved against it, kg/h and % (never
+//	                        negative)
+//	firing                  [string]: the boilers that fire
+//	shares                  [fraction]: each one's share of their steam
+//	note                    why the search did not run ("" if it did)
+//
+// INERT_GAS (type InertGas) is the check of the inert gas from the
+// boilers' uptakes during cargo discharge:
+//
+//	sources, firing         [string]: the boilers declared as sources, and
+//	                        those firing
+//	cargo_rate_m3_h         the running cargo pumps' rate, m³/h
+//	capacity                the inert gas needed as a fraction of it (1.25:
+//	                        the FSS Code ch. 15 figure, from memory)
+//	required_m3_h           capacity times the cargo rate, m³/h
+//	delivered_Nm3_h         the firing sources' dry flue gas at 0 °C and
+//	                        101.325 kPa, m³/h
+//	o2_dry, o2_max          the highest O2 of the firing sources in the dry
+//	                        gas, and the limit (0.05: SOLAS II-2 reg. 4.5.5
+//	                        and the FSS Code, from memory), fractions
+//	met                     the sources deliver enough gas within the limit
+//	min_load_fraction       the lowest load (fraction of MCR, the sources
+//	                        alike) at which they would meet it; null when
+//	                        they cannot
+//	extra_steam_kg_h        steam they raise beyond the case's when they
+//	                        fire there, to be dumped, kg/h
+//	extra_fuel_kg_h         the fuel that costs, kg/h
+//	note                    what the figures do not say ("" if nothing)
+//	line                    the report's line for it, in words
 //
 // The BALANCE (type Balance) is, as computed,
 //
@@ -217,6 +311,13 @@
 //	excess_air              λ − 1
 //	losses                  LOSSES: its heat-loss account
 //	fan_electric_kW         its fan's electrical power, kW
+//	limit_kg_h              the most it may raise in the case (its MCR
+//	                        times its max_load), kg/h
+//	inert_gas_source        its uptake feeds the inert-gas system
+//	o2_dry                  O2 in its dry flue gas, a fraction; null
+//	                        without a combustion model or not firing
+//	dry_flue_gas_Nm3_h      its dry flue gas at 0 °C and 101.325 kPa,
+//	                        m³/h; null as o2_dry
 //
 // flue_gas_exit_T_K, excess_air and losses come from a combustion model:
 // null with a plain efficiency table (fan_electric_kW then 0).
@@ -287,6 +388,30 @@
 //	inputs                  {key: value}: the figures a computed duty came
 //	                        from, keys with units; absent when the duty
 //	                        was given
+//	priority                its priority (40, essential, when none was
+//	                        given); the lowest is reduced first
+//	priority_level          the name of a named level ("deferrable",
+//	                        "hotel", "cargo", "essential"), or null
+//	reducible               a shortfall may reduce it in this case (it
+//	                        runs, and its demand is a duty, a steam flow
+//	                        or a shaft power, not one that follows a
+//	                        boiler's fuel)
+//	requested_kW            the duty (shaft power) the case asks for, kW
+//	shed_kW, shed_kg_h      what a shortfall took from it, kW and the
+//	                        steam at the solved state, kg/h
+//	cargo_m3_h              the cargo a turbine's pump delivers (its flow
+//	                        in proportion to the power delivered), m³/h
+//	cooling                 COOLING: what the shortfall does to a tank's
+//	                        cargo; null when nothing is shed from a tank
+//
+// COOLING (type Cooling) is
+//
+//	rate_K_per_h            the cargo's temperature change at the start,
+//	                        K/h (negative: it cools)
+//	min_T_K                 the tank's min_T, K; null when not given
+//	hours_to_min_T          hours until the cargo cools to min_T with the
+//	                        heating left on; null without min_T or when
+//	                        it never gets there
 //
 // A UNIT (type Unit) is any other unit:
 //
@@ -338,6 +463,13 @@
 //	warning_rows            [row]: rows with any warning
 //	fuel_by_grade           [GRADE]: the boiler fuel by grade, in the
 //	                        order the grades first fire
+//	n_minus_1_rows          rows whose N-1 contingencies were answered (0
+//	                        when the plant's n_minus_1 = false)
+//	n_minus_1_short_hours   hours of the rows in which at least one N-1
+//	                        contingency cannot be carried
+//	n_minus_1_short_rows    [row]: those rows
+//	inert_gas_short_hours   hours of the rows whose inert-gas check is not
+//	                        met
 //
 // A GRADE (type GradeTotal) is
 //
@@ -373,6 +505,8 @@
 //	fuel_kg_h               boiler fuel, kg/h
 //	fuel_t, co2_t           boiler fuel and CO2 over the row's hours, t
 //	margin_kg_h             as in a CASE, kg/h
+//	n_minus_1_can_carry     every N-1 contingency of its case is carried;
+//	                        null when not checked
 //	warnings                [string]: the texts of its case's warnings
 //	tanks                   [VOYAGE_TANK]: the tanks the voyage carries
 //	                        from row to row, over the row; empty when it

@@ -41,6 +41,10 @@ type Totals struct {
 	ShortRows         []int        `json:"short_rows"`
 	WarningRows       []int        `json:"warning_rows"`
 	FuelByGrade       []GradeTotal `json:"fuel_by_grade"`
+	N1CheckedRows     int          `json:"n_minus_1_rows"`
+	N1ShortHours      float64      `json:"n_minus_1_short_hours"`
+	N1ShortRows       []int        `json:"n_minus_1_short_rows"`
+	InertGasShortH    float64      `json:"inert_gas_short_hours"`
 }
 
 // GradeTotal is the boiler fuel of one grade and its CO2.
@@ -83,6 +87,8 @@ func NewTotals(t profile.Totals) Totals {
 		MakeUpT: Round(t.MakeUpT), ElectricMWh: Round(t.ElectricMWh), HoursFiring: hf,
 		PeakBoilerKgH: Round(KgPerH(t.PeakBoilerKgS)), PeakRow: row1(t.PeakRow), CapacityKgH: Round(KgPerH(t.CapacityKgS)),
 		TightestRow: row1(t.TightestRow), ShortRows: rows1(t.ShortRows), WarningRows: rows1(t.WarningRows),
+		N1CheckedRows: t.N1CheckedRows, N1ShortHours: Round(t.N1ShortHours), N1ShortRows: rows1(t.N1ShortRows),
+		InertGasShortH: Round(t.InertGasShortHours),
 	}
 	if t.TightestRow >= 0 {
 		out.TightestMarginKgH = roundPtr(KgPerH(t.TightestMarginKgS), true)
@@ -129,6 +135,7 @@ type VoyageRow struct {
 	FuelT              float64  `json:"fuel_t"`
 	CO2T               float64  `json:"co2_t"`
 	MarginKgH          float64  `json:"margin_kg_h"`
+	N1CanCarry         *bool    `json:"n_minus_1_can_carry"`
 	Warnings           []string `json:"warnings"`
 	// Tanks are the tanks the voyage carries from row to row, over the
 	// row (empty when it carries none).
@@ -162,6 +169,13 @@ func NewVoyageRow(row profile.RowResult) VoyageRow {
 	out.FuelT = Round(Tonnes(c.FuelKgS, row.Hours))
 	out.CO2T = Round(Tonnes(c.CO2KgS, row.Hours))
 	out.MarginKgH = Round(KgPerH(c.MarginNextKgS))
+	if c.ContingenciesChecked {
+		ok := true
+		for _, k := range c.Contingencies {
+			ok = ok && k.CanCarry
+		}
+		out.N1CanCarry = &ok
+	}
 	out.Warnings = append(out.Warnings, c.Warnings...)
 	return out
 }

@@ -173,6 +173,15 @@ func writeVoyage(w io.Writer, v Voyage) {
 		fmt.Fprintf(w, "  tightest margin: %s kg/h in %s\n", fix(t.TightestMarginKgS*kgh, 1), v.rowRef(t.TightestRow))
 	}
 	fmt.Fprintf(w, "  periods the plant cannot carry: %s\n", rowList(v.Job, t.ShortRows))
+	if t.N1CheckedRows == 0 {
+		fmt.Fprintf(w, "  N-1: not checked (the plant's n_minus_1 = false)\n")
+	} else {
+		fmt.Fprintf(w, "  N-1 (a boiler trips, an economiser is out, a listed failure): %s h cannot be carried, in %s\n",
+			fix(t.N1ShortHours, 1), rowList(v.Job, t.N1ShortRows))
+	}
+	if t.InertGasShortHours > 0 {
+		fmt.Fprintf(w, "  inert gas from the boilers not met: %s h\n", fix(t.InertGasShortHours, 1))
+	}
 	writeVoyageTanks(w, v)
 	writeRowWarnings(w, v)
 }

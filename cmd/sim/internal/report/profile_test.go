@@ -30,7 +30,9 @@ func profileRun(t testing.TB) Run {
 		{Phase: "port", Hours: 24, Case: plant.Case{Name: "port 1", Conditions: cond, Set: duty(300e3)}},
 		{Phase: "port", Hours: 12, Case: plant.Case{Name: "port 2", Conditions: cond, Set: duty(500e3)}},
 		{Phase: "discharge", Hours: 20, Case: plant.Case{Name: "discharge 1", Conditions: cond, Set: duty(7e6)}},
-		{Phase: "discharge", Hours: 4, Case: plant.Case{Name: "discharge 2", Conditions: cond, Set: duty(14e6)}},
+		// Both boilers forced and short: the plant sheds, and the boilers
+		// at their limit are above the usable fraction (five warnings).
+		{Phase: "discharge", Hours: 4, Case: plant.Case{Name: "discharge 2", Conditions: cond, Set: duty(14e6), Fire: []string{"AB1", "AB2"}}},
 	}
 	opt := profile.Options{Workers: 1}
 	vr, err := profile.Run(ctx, p, rows, opt)
@@ -99,10 +101,10 @@ func TestProfileTable(t *testing.T) {
 		"hours firing: " + hoursFiring(v.Total.HoursFiring),
 		"periods the plant cannot carry: row 4 (plan.csv:5)",
 		// Each period with warnings, its warnings under it: the fourth
-		// has seven, of which three are shown.
+		// has five, of which three are shown.
 		"periods with warnings: 4 of 4\n    row 1 (plan.csv:2), \"port 1\":\n      - " + oneLine(v.Rows[0].Result.Warnings[0]),
 		"    row 4 (plan.csv:5), \"discharge 2\":\n      - " + oneLine(v.Rows[3].Result.Warnings[0]),
-		"      - and 4 more\n",
+		"      - and 2 more\n",
 		"Study: lagging", "better lagging", "saved EUR", "payback years",
 		"rows with warnings, by variant:\n    as built: 3 of 3 rows\n      row 1 (plan.csv:2):\n        - ",
 		"Audit: three days",
@@ -142,8 +144,8 @@ func TestVoyageWarningsCut(t *testing.T) {
 	v := run.Voyages[0]
 	r := *v.Result
 	last := r.Rows[3]
-	if len(last.Result.Warnings) != 7 {
-		t.Fatalf("the fourth row has %d warnings; the test wants 7", len(last.Result.Warnings))
+	if len(last.Result.Warnings) != 5 {
+		t.Fatalf("the fourth row has %d warnings; the test wants 5", len(last.Result.Warnings))
 	}
 	r.Rows = nil
 	r.Total.WarningRows = nil
@@ -159,8 +161,8 @@ func TestVoyageWarningsCut(t *testing.T) {
 	var b bytes.Buffer
 	writeRowWarnings(&b, v)
 	out := b.String()
-	if n := strings.Count(out, "      - and 4 more\n"); n != 10 {
-		t.Errorf("%d periods say \"and 4 more\", want 10:\n%s", n, out)
+	if n := strings.Count(out, "      - and 2 more\n"); n != 10 {
+		t.Errorf("%d periods say \"and 2 more\", want 10:\n%s", n, out)
 	}
 	if n := strings.Count(out, "\n    row "); n != 10 {
 		t.Errorf("%d periods listed, want 10", n)

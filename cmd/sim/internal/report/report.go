@@ -5,6 +5,7 @@ import (
 	"fmt"
 	"io"
 	"math"
+	"sort"
 	"strconv"
 	"strings"
 	"text/tabwriter"
@@ -192,8 +193,25 @@ func writeCase(w io.Writer, n, total int, c Case) {
 	tw.Flush()
 	if !r.CanCarry {
 		fmt.Fprintf(w, "  CANNOT CARRY the demand: short by %s kg/h\n", fix(r.ShortfallKgS*kgh, 1))
+		writeShed(w, r)
 	}
 	fmt.Fprintf(w, "  margin %s: %s kg/h\n", marginLabel(r), fix(r.MarginNextKgS*kgh, 1))
+	writeContingencies(w, r)
+	if l := r.LeastFuel; l != nil {
+		switch {
+		case l.Note != "":
+			fmt.Fprintf(w, "  least-fuel sharing: %s\n", l.Note)
+		case l.SavedKgS > 0:
+			fmt.Fprintf(w, "  least-fuel sharing saves %s kg/h (%s %%) against equal sharing (%s kg/h)\n",
+				fix(l.SavedKgS*kgh, 1), fix(100*l.SavedFraction(), 2), fix(l.EqualFuelKgS*kgh, 1))
+		default:
+			fmt.Fprintf(w, "  least-fuel sharing: equal sharing is the least fuel here (%s kg/h)\n", fix(l.EqualFuelKgS*kgh, 1))
+		}
+	}
+	if r.InertGas != nil {
+		fmt.Fprintf(w, "  %s\n", plant.InertGasLine(r.InertGas))
+		fmt.Fprintf(w, "    (a planning estimate: the O2 analyser and the inert-gas system's own instructions govern)\n")
+	}
 
 	// The totals.
 	fmt.Fprintf(w, "\n")
@@ -215,6 +233,81 @@ func writeCase(w io.Writer, n, total int, c Case) {
 	for _, s := range r.Warnings {
 		fmt.Fprintf(w, "    - %s\n", oneLine(s))
 	}
+}
+
+// writeContingencies writes the case's N-1 lines.
+func writeContingencies(w io.Writer, r *plant.CaseResult) {
+	switch {
+	case !r.ContingenciesChecked:
+		fmt.Fprintf(w, "  N-1: not checked (the plant's n_minus_1 = false)\n")
+	case len(r.Contingencies) == 0:
+		fmt.Fprintf(w, "  N-1: no boiler fires and no economiser raises steam: nothing to lose\n")
+	default:
+		for _, c := range r.Contingencies {
+			fmt.Fprintf(w, "  N-1: %s\n", plant.ContingencyLine(c))
+		}
+		fmt.Fprintf(w, "    (planning estimates: the boiler makers' manuals and the ship's safety management system govern)\n")
+	}
+}
+
+// writeShed lists what a short case sheds: the consumers reduced, lowest
+// priority first, or that every one is reduced in proportion.
+func writeShed(w io.Writer, r *plant.CaseResult) {
+	var shed []plant.ConsumerResult
+	for _, c := range r.Consumers {
+		if c.ShedW > 0 || c.ShedKgS > 0 {
+			shed = append(shed, c)
+		}
+	}
+	if len(shed) == 0 {
+		return
+	}
+	sort.SliceStable(shed, func(i, j int) bool { return shed[i].Priority < shed[j].Priority })
+	switch {
+	case r.ShedRanks <= 1 && !r.PrioritiesGiven:
+		fmt.Fprintf(w, "  no priorities given: every consumer that may be reduced is reduced in proportion\n")
+	case r.ShedRanks <= 1:
+		fmt.Fprintf(w, "  every consumer has the same priority: each is reduced in proportion\n")
+	default:
+		fmt.Fprintf(w, "  shed by priority, lowest first:\n")
+	}
+	tw := tabwriter.NewWriter(w, 0, 8, 2, ' ', 0)
+	fmt.Fprintf(tw, "    consumer\tpriority\t%10s\t%10s\t%10s\t\n", "shed kW", "of kW", "shed kg/h")
+	for _, c := range shed {
+		fmt.Fprintf(tw, "    %s\t%s\t%10s\t%10s\t%10s\t%s\n", c.Name, priorityName(c.Priority), fix(c.ShedW/1e3, 1),
+			fix(c.RequestedW/1e3, 1), fix(c.ShedKgS*kgh, 1), coolingNote(c.Cooling))
+	}
+	tw.Flush()
+}
+
+// priorityName is a priority's level name, or its number.
+func priorityName(v float64) string {
+	if n := plant.PriorityLevelName(v); n != "" {
+		return n
+	}
+	return strconv.FormatFloat(v, 'g', 6, 64)
+}
+
+// coolingNote says what a shed tank's cargo does: "cargo cools 0.4 K/h,
+// 12.5 h to 45.0 °C".
+func coolingNote(c *plant.TankCooling) string {
+	if c == nil {
+		return ""
+	}
+	rate := c.RateKS * 3600
+	var s string
+	if rate < 0 {
+		s = "cargo cools " + fix(-rate, 2) + " K/h"
+	} else {
+		s = "cargo still warms " + fix(rate, 2) + " K/h"
+	}
+	switch {
+	case c.MinT > 0 && c.Reaches:
+		s += ", " + fix(c.SecondsToMinT/3600, 1) + " h to " + fix(c.MinT-273.15, 1) + " °C"
+	case c.MinT > 0 && rate < 0:
+		s += ", never down to " + fix(c.MinT-273.15, 1) + " °C"
+	}
+	return s
 }
 
 // headerDrains sums the condensate the headers' traps drain and lose.
