@@ -10,18 +10,49 @@ import (
 )
 
 // FuelSpec is what a boiler needs to know of its fuel for the energy
-// balance: the lower calorific value and the CO2 conversion factor.
+// balance and the reports: the lower calorific value and the CO2 figures.
 type FuelSpec struct {
-	Name      string
-	LHV       float64 // lower calorific value, J/kg
-	CO2Factor float64 // kg CO2 per kg fuel
+	Name string
+	LHV  float64 // lower calorific value for the energy balance, J/kg
+	// CO2Factor is the kg of CO2 per kg of fuel the regulatory figure
+	// (CaseResult.CO2KgS) counts: the IMO conversion factor C_F of the
+	// fuel's IMO fuel type, or, for a fuel without one, its analysis
+	// figure or the factor a script gives. CO2Basis says which.
+	CO2Factor float64
+	CO2Basis  string
+	// CO2Analysis is the kg of CO2 per kg of fuel from the carbon of the
+	// fuel's analysis (complete combustion): what the combustion models
+	// burn. Zero when the fuel has no analysis (a fuel given only by its
+	// LHV and CO2 factor).
+	CO2Analysis float64
+	// IMOLCV is the lower calorific value of the fuel's IMO fuel type,
+	// J/kg, kept for regulatory reporting beside the IMO CO2; the energy
+	// balance never uses it. Zero when the fuel has no IMO fuel type.
+	IMOLCV float64
 	// Fuel is the full description, which the combustion models need;
 	// nil for a boiler with a plain efficiency table.
 	Fuel *fuel.Fuel
+	// Notes is what a reader of the fuel's figures must see (the
+	// warnings of a bunker delivery note, joined by "; ": an off-spec
+	// property, a stated LHV far from the ISO 8217 estimate); every case
+	// the boiler burns fuel in repeats it among its warnings.
+	Notes string
 }
 
-// SpecFromFuel fills a FuelSpec from a fuel's own figures (its net
-// specific energy and CO2 factor, each from the source the fuel states).
+// SpecFromBDN fills a FuelSpec from a fuel made from a bunker delivery
+// note (fuel.FromBDN), its warnings kept as the spec's notes.
+func SpecFromBDN(b fuel.BDNFuel) (FuelSpec, error) {
+	spec, err := SpecFromFuel(b.Fuel)
+	if err != nil {
+		return FuelSpec{}, err
+	}
+	spec.Notes = strings.Join(b.Warnings, "; ")
+	return spec, nil
+}
+
+// SpecFromFuel fills a FuelSpec from a fuel's own figures: its net
+// specific energy, the CO2 of its IMO fuel type (else of its analysis) for
+// the regulatory figure, and the CO2 of its analysis beside it.
 func SpecFromFuel(f fuel.Fuel) (FuelSpec, error) {
 	e, err := f.Energy()
 	if err != nil {
@@ -32,7 +63,12 @@ func SpecFromFuel(f fuel.Fuel) (FuelSpec, error) {
 		return FuelSpec{}, err
 	}
 	ff := f
-	return FuelSpec{Name: f.Name, LHV: e.Net, CO2Factor: c.IMOOrAnalysis(), Fuel: &ff}, nil
+	basis := c.IMOSource
+	if c.IMO == 0 {
+		basis = "fuel analysis: " + c.AnalysisSource
+	}
+	return FuelSpec{Name: f.Name, LHV: e.Net, CO2Factor: c.IMOOrAnalysis(), CO2Basis: basis,
+		CO2Analysis: c.Analysis, IMOLCV: e.IMOLCV, Fuel: &ff}, nil
 }
 
 // Boiler is an oil-fired auxiliary boiler: a drum at a set pressure raising
@@ -146,6 +182,9 @@ var boilerKeys = []Key{
 		Doc: "the fuel's lower calorific value for the energy balance (replaces a grade's)", Min: 1e7, Max: 6e7},
 	{Name: "co2_factor", Label: "CO2 factor", Kind: KeyNumber, Example: "3.114",
 		Doc: "kg CO2 per kg fuel (replaces a grade's)", Min: 0, Max: 4},
+	{Name: "bdn", Label: "bunker delivery note", Kind: KeyTable,
+		Example: `{ grade = "RMG 380", density = "991 kg/m3", sulphur = "2.8 %", water = "0.3 %", ash = "0.05 %", viscosity = "380 cSt" }`,
+		Doc:     "the delivered fuel's figures on top of the fuel grade (fuel.FromBDN): density at 15 C, sulphur, water (% V/V), ash, viscosity (50 C residual, 40 C distillate), optional grade (ISO 8217 designation), lhv and name; its LHV, analysis and CO2 follow"},
 	{Name: "efficiency", Label: "efficiency", Kind: KeyTable, Required: true,
 		Example: `{ {"25 %", "80 %"}, {"100 %", "85 %"} }`,
 		Doc:     "one figure, a table of {load, efficiency} pairs (LHV basis), or a combustion model (flue_gas or furnace)"},
@@ -463,6 +502,10 @@ func (u *Boiler) report(ev *eval, cr *CaseResult) error {
 		MCRKgS:          u.MCR,
 		Cycling:         firing && cycling && ms > 0,
 		CO2KgS:          fuel * u.Fuel.CO2Factor,
+		CO2Basis:        u.Fuel.CO2Basis,
+		CO2AnalysisKgS:  fuel * u.Fuel.CO2Analysis,
+		HasCO2Analysis:  u.Fuel.CO2Analysis > 0,
+		IMOLCV:          u.Fuel.IMOLCV,
 		FlueT:           pt.FlueT,
 		Lambda:          pt.Lambda,
 		AirKgS:          fuel * pt.AirPerFuel,
@@ -496,7 +539,14 @@ func (u *Boiler) report(ev *eval, cr *CaseResult) error {
 	if warn != "" && firing && ms > 0 {
 		cr.warn("%s %q: %s", u.Kind(), u.Name, warn)
 	}
+	if fuel > FlowFloor && u.Fuel.Notes != "" {
+		cr.warn("%s %q: fuel %q: %s", u.Kind(), u.Name, u.Fuel.Name, u.Fuel.Notes)
+	}
 	cr.Boilers = append(cr.Boilers, br)
+	cr.CO2AnalysisKgS += br.CO2AnalysisKgS
+	if fuel > FlowFloor && !br.HasCO2Analysis {
+		cr.CO2AnalysisUnknown = true
+	}
 	cr.boundary.heatIn += q
 	cr.boundary.massOut += mbd
 	cr.boundary.energyOut += mbd * hf

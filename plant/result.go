@@ -32,7 +32,15 @@ type CaseResult struct {
 	SteamProductionKgS float64
 	SteamDemandKgS     float64
 	FuelKgS            float64
+	// CO2KgS is the CO2 by each fuel's regulatory factor (the IMO
+	// conversion factor C_F of its IMO fuel type; see FuelSpec.CO2Factor),
+	// the figure for regulatory reporting. CO2AnalysisKgS is the CO2 from
+	// the carbon of each fuel's analysis, what the combustion models burn;
+	// CO2AnalysisUnknown says a boiler burnt a fuel without an analysis,
+	// so that CO2AnalysisKgS is not the case's.
 	CO2KgS             float64
+	CO2AnalysisKgS     float64
+	CO2AnalysisUnknown bool
 	MakeUpKgS          float64
 	ElectricW          float64
 	BlowdownKgS        float64
@@ -81,15 +89,21 @@ type boundary struct {
 
 // BoilerResult is one boiler's part in a case.
 type BoilerResult struct {
-	Name            string
-	Firing          bool
-	Cycling         bool
-	OnFraction      float64 // share of time the burner is on when cycling
-	LoadFraction    float64
-	MCRKgS          float64
-	SteamKgS        float64
-	FuelKgS         float64
+	Name         string
+	Firing       bool
+	Cycling      bool
+	OnFraction   float64 // share of time the burner is on when cycling
+	LoadFraction float64
+	MCRKgS       float64
+	SteamKgS     float64
+	FuelKgS      float64
+	// CO2KgS is by the fuel's regulatory factor (CO2Basis says which);
+	// CO2AnalysisKgS by its analysis carbon, when HasCO2Analysis.
 	CO2KgS          float64
+	CO2Basis        string
+	CO2AnalysisKgS  float64
+	HasCO2Analysis  bool
+	IMOLCV          float64 // the IMO fuel type's LCV, J/kg; zero without one
 	Efficiency      float64
 	EfficiencyBasis string
 	FuelName        string
@@ -205,13 +219,13 @@ func (cr *CaseResult) clean() {
 			*v = 0
 		}
 	}
-	for _, v := range []*float64{&cr.ShortfallKgS, &cr.SteamProductionKgS, &cr.SteamDemandKgS, &cr.FuelKgS, &cr.CO2KgS,
+	for _, v := range []*float64{&cr.ShortfallKgS, &cr.SteamProductionKgS, &cr.SteamDemandKgS, &cr.FuelKgS, &cr.CO2KgS, &cr.CO2AnalysisKgS,
 		&cr.MakeUpKgS, &cr.BlowdownKgS, &cr.VentedKgS, &cr.CondensateLostKgS, &cr.DumpedKgS, &cr.EGESteamKgS, &cr.EGEFuelSavedKgS} {
 		z(v)
 	}
 	for i := range cr.Boilers {
 		b := &cr.Boilers[i]
-		for _, v := range []*float64{&b.SteamKgS, &b.FuelKgS, &b.CO2KgS, &b.BlowdownKgS, &b.AirKgS, &b.FlueGasKgS} {
+		for _, v := range []*float64{&b.SteamKgS, &b.FuelKgS, &b.CO2KgS, &b.CO2AnalysisKgS, &b.BlowdownKgS, &b.AirKgS, &b.FlueGasKgS} {
 			z(v)
 		}
 		if b.SteamKgS == 0 {

@@ -29,7 +29,7 @@ type decoder struct {
 
 // decoders are the kinds' decoders, by kind name: a constant table.
 var decoders = map[string]decoder{
-	"boiler":                 {[]string{"fuel", "lhv", "co2_factor", "efficiency", "burner"}, decodeBoiler},
+	"boiler":                 {[]string{"fuel", "lhv", "co2_factor", "bdn", "efficiency", "burner"}, decodeBoiler},
 	"consumer":               {[]string{"duty", "steam"}, decodeConsumer},
 	"tank_heating":           {[]string{"density", "volume", "dimensions", "boundaries", "mode", "T", "from", "to", "duration"}, decodeTankHeating},
 	"fuel_heater":            {[]string{"outlet_T", "target_viscosity", "boiler", "flow"}, decodeFuelHeater},

@@ -30,6 +30,7 @@ type Case struct {
 	FuelKgH            float64    `json:"fuel_kg_h"`
 	FuelTPerDay        float64    `json:"fuel_t_per_day"`
 	CO2TPerDay         float64    `json:"co2_t_per_day"`
+	CO2AnalysisTPerDay *float64   `json:"co2_analysis_t_per_day"`
 	MakeUpKgH          float64    `json:"makeup_kg_h"`
 	BlowdownKgH        float64    `json:"blowdown_kg_h"`
 	VentedKgH          float64    `json:"vented_kg_h"`
@@ -55,23 +56,29 @@ type Balance struct {
 
 // Boiler is one oil-fired boiler of a case.
 type Boiler struct {
-	Name            string  `json:"name"`
-	Firing          bool    `json:"firing"`
-	Cycling         bool    `json:"cycling"`
-	OnFraction      float64 `json:"on_fraction"`
-	LoadFraction    float64 `json:"load_fraction"`
-	MCRKgH          float64 `json:"mcr_kg_h"`
-	SteamKgH        float64 `json:"steam_kg_h"`
-	FuelKgH         float64 `json:"fuel_kg_h"`
-	Efficiency      float64 `json:"efficiency"`
-	EfficiencyBasis string  `json:"efficiency_basis"`
-	Fuel            string  `json:"fuel"`
-	FuelLHV         float64 `json:"fuel_lhv_J_per_kg"`
-	DrumPPa         float64 `json:"drum_p_Pa"`
-	FeedTK          float64 `json:"feed_T_K"`
-	SteamDryness    float64 `json:"steam_dryness"`
-	BlowdownKgH     float64 `json:"blowdown_kg_h"`
-	HeatKW          float64 `json:"heat_kW"`
+	Name         string  `json:"name"`
+	Firing       bool    `json:"firing"`
+	Cycling      bool    `json:"cycling"`
+	OnFraction   float64 `json:"on_fraction"`
+	LoadFraction float64 `json:"load_fraction"`
+	MCRKgH       float64 `json:"mcr_kg_h"`
+	SteamKgH     float64 `json:"steam_kg_h"`
+	FuelKgH      float64 `json:"fuel_kg_h"`
+	CO2KgH       float64 `json:"co2_kg_h"`
+	CO2Basis     string  `json:"co2_basis"`
+	// CO2AnalysisKgH is null when the fuel has no analysis; IMOLCV when it
+	// has no IMO fuel type.
+	CO2AnalysisKgH  *float64 `json:"co2_analysis_kg_h"`
+	IMOLCV          *float64 `json:"imo_lcv_J_per_kg"`
+	Efficiency      float64  `json:"efficiency"`
+	EfficiencyBasis string   `json:"efficiency_basis"`
+	Fuel            string   `json:"fuel"`
+	FuelLHV         float64  `json:"fuel_lhv_J_per_kg"`
+	DrumPPa         float64  `json:"drum_p_Pa"`
+	FeedTK          float64  `json:"feed_T_K"`
+	SteamDryness    float64  `json:"steam_dryness"`
+	BlowdownKgH     float64  `json:"blowdown_kg_h"`
+	HeatKW          float64  `json:"heat_kW"`
 	// From a combustion model; null for a boiler with a plain efficiency
 	// table.
 	FlueTK        *float64 `json:"flue_gas_exit_T_K"`
@@ -178,6 +185,7 @@ func NewCase(plantName string, cr *plant.CaseResult) Case {
 		FuelKgH:            Round(KgPerH(cr.FuelKgS)),
 		FuelTPerDay:        Round(TPerDay(cr.FuelKgS)),
 		CO2TPerDay:         Round(TPerDay(cr.CO2KgS)),
+		CO2AnalysisTPerDay: roundPtr(TPerDay(cr.CO2AnalysisKgS), !cr.CO2AnalysisUnknown),
 		MakeUpKgH:          Round(KgPerH(cr.MakeUpKgS)),
 		BlowdownKgH:        Round(KgPerH(cr.BlowdownKgS)),
 		VentedKgH:          Round(KgPerH(cr.VentedKgS)),
@@ -202,6 +210,9 @@ func NewCase(plantName string, cr *plant.CaseResult) Case {
 			Fuel: b.FuelName, FuelLHV: Round(b.FuelLHV), DrumPPa: Round(b.DrumP), FeedTK: Round(b.FeedT),
 			SteamDryness: Round(b.SteamDryness), BlowdownKgH: Round(KgPerH(b.BlowdownKgS)), HeatKW: Round(KW(b.HeatW)),
 			FanElectricKW: Round(KW(b.FanElectricW)),
+			CO2KgH:        Round(KgPerH(b.CO2KgS)), CO2Basis: co2Basis(b.CO2Basis),
+			CO2AnalysisKgH: roundPtr(KgPerH(b.CO2AnalysisKgS), b.HasCO2Analysis),
+			IMOLCV:         roundPtr(b.IMOLCV, b.IMOLCV > 0),
 		}
 		if b.FlueT > 0 {
 			bj.FlueTK = roundPtr(b.FlueT, true)
@@ -249,6 +260,16 @@ func NewCase(plantName string, cr *plant.CaseResult) Case {
 		j.Lines = append(j.Lines, lj)
 	}
 	return j
+}
+
+// co2Basis names the factor of a boiler's regulatory CO2: the fuel's own
+// statement, or, for a fuel a script gave by its LHV and CO2 factor,
+// "given co2_factor".
+func co2Basis(s string) string {
+	if s == "" {
+		return "given co2_factor"
+	}
+	return s
 }
 
 func roundMap(m map[string]float64) map[string]float64 {

@@ -116,7 +116,16 @@
 //	steam_production_kg_h   steam raised by boilers and economisers, kg/h
 //	dumped_kg_h             steam sent to a dump condenser, kg/h
 //	fuel_kg_h, fuel_t_per_day   fuel burnt, kg/h and t/day
-//	co2_t_per_day           CO2 from the fuel, t/day
+//	co2_t_per_day           CO2 from the fuel by each fuel's regulatory
+//	                        factor: the IMO conversion factor C_F of its
+//	                        IMO fuel type (MEPC.364(79)), the figure for
+//	                        regulatory reporting (a fuel without an IMO
+//	                        fuel type: its analysis, or the co2_factor the
+//	                        script gave), t/day
+//	co2_analysis_t_per_day  CO2 from the carbon of each fuel's analysis
+//	                        (complete combustion), the carbon the
+//	                        combustion models burn, t/day; null when a
+//	                        boiler burns a fuel without an analysis
 //	makeup_kg_h             fresh water made up, kg/h
 //	blowdown_kg_h           boiler blowdown, kg/h
 //	vented_kg_h             flash steam vented from the feed tank, kg/h
@@ -149,6 +158,15 @@
 //	load_fraction           steam over MCR
 //	mcr_kg_h, steam_kg_h    its MCR and the steam it raises, kg/h
 //	fuel_kg_h               fuel it burns, kg/h
+//	co2_kg_h                its CO2 by the fuel's regulatory factor, kg/h
+//	co2_basis               which factor: the IMO table and fuel type,
+//	                        "fuel analysis: ..." for a fuel without an IMO
+//	                        fuel type, or "given co2_factor"
+//	co2_analysis_kg_h       its CO2 by the carbon of the fuel's analysis,
+//	                        kg/h; null for a fuel without an analysis
+//	imo_lcv_J_per_kg        the LCV of the fuel's IMO fuel type, J/kg, for
+//	                        regulatory reports only (the energy balance
+//	                        takes fuel_lhv_J_per_kg); null without one
 //	efficiency              its efficiency, a fraction, on the basis of
 //	efficiency_basis        "LHV" or "HHV"
 //	fuel_lhv_J_per_kg       the fuel's lower heating value, J/kg
@@ -234,7 +252,12 @@
 // times its hours):
 //
 //	rows, hours             how many rows, and their hours
-//	fuel_t, co2_t           boiler fuel burnt and its CO2, t
+//	fuel_t, co2_t           boiler fuel burnt and its CO2 by the
+//	                        regulatory factors (as co2_t_per_day of a
+//	                        CASE), t
+//	co2_analysis_t          its CO2 by the fuels' analyses (as
+//	                        co2_analysis_t_per_day), t; null when a row
+//	                        burnt a fuel without an analysis
 //	steam_t, ege_steam_t    steam raised in all and by economisers, t
 //	ege_fuel_saved_t        boiler fuel the economisers saved, t
 //	dumped_t, makeup_t      steam dumped and water made up, t
@@ -255,7 +278,10 @@
 // A GRADE (type GradeTotal) is
 //
 //	grade                   the fuel's grade (or name)
-//	fuel_t, co2_t           its boiler fuel burnt and CO2, t
+//	fuel_t, co2_t           its boiler fuel burnt and CO2 by its
+//	                        regulatory factor, t
+//	co2_analysis_t          its CO2 by its analysis, t; null for a fuel
+//	                        without an analysis
 //
 // A VOYAGE (type Voyage) has, after the keys of JOB,
 //
@@ -284,7 +310,10 @@
 //	ege_steam_kg_h          steam raised by economisers, kg/h
 //	dumped_kg_h             steam dumped, kg/h
 //	fuel_kg_h               boiler fuel, kg/h
-//	fuel_t, co2_t           boiler fuel and CO2 over the row's hours, t
+//	fuel_t, co2_t           boiler fuel and CO2 (regulatory factor) over
+//	                        the row's hours, t
+//	co2_analysis_t          CO2 by the fuels' analyses over the row's
+//	                        hours, t; null as in a CASE
 //	margin_kg_h             as in a CASE, kg/h
 //	warnings                [string]: the texts of its case's warnings
 //

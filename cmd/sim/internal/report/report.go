@@ -187,7 +187,12 @@ func writeCase(w io.Writer, n, total int, c Case) {
 	if len(r.EGEs) > 0 {
 		fmt.Fprintf(tw, "  fuel saved by EGE\t%s kg/h\t%s t/day\n", fix(r.EGEFuelSavedKgS*kgh, 1), fix(r.EGEFuelSavedKgS*86.4, 3))
 	}
-	fmt.Fprintf(tw, "  CO2\t\t%s t/day\n", fix(r.CO2KgS*86.4, 2))
+	fmt.Fprintf(tw, "  CO2 by IMO C_F\t\t%s t/day for regulatory reporting\n", fix(r.CO2KgS*86.4, 2))
+	if r.CO2AnalysisUnknown {
+		fmt.Fprintf(tw, "  CO2 by analysis\t\tnot known: a fuel has no analysis\n")
+	} else {
+		fmt.Fprintf(tw, "  CO2 by analysis\t\t%s t/day from the fuel's carbon\n", fix(r.CO2AnalysisKgS*86.4, 2))
+	}
 	fmt.Fprintf(tw, "  electrical load\t%s kW\t\n", fix(r.ElectricW/1e3, 1))
 	fmt.Fprintf(tw, "  feed tank\t%s °C\t\n", fix(r.FeedTankT-273.15, 1))
 	fmt.Fprintf(tw, "  balance closure\tmass %s\tenergy %s (relative)\n", closure(r.Balance.MassRel), closure(r.Balance.EnergyRel))
