@@ -52,6 +52,7 @@ type Consumer struct {
 	mc, mr   memo
 	fuel     int // index of the driving boiler's fuel flow, or -1
 	caseDuty Duty
+	warms    *Boiler // the boiler a warming consumer keeps warm
 }
 
 // NewConsumer returns a heat consumer; give it a Duty or a SteamFlow.
@@ -130,6 +131,17 @@ func (u *Consumer) validate() error {
 // component has laid out its unknowns.
 func (u *Consumer) link(p *Plant, a *assembly, fs *faults) {
 	u.fuel = -1
+	u.warms = nil
+	if m, ok := u.Model.(*BoilerWarming); ok {
+		b, ok := p.byName[m.Boiler].(*Boiler)
+		if !ok {
+			fs.add(u.Pos, u.Name, "", "keeps %q warm, which is not an oil-fired boiler of this plant", m.Boiler)
+			return
+		}
+		u.warms = b
+		b.warmed = true
+		a.depend(u.eqs[0], b.feed.hIdx())
+	}
 	if u.FuelOf == "" {
 		return
 	}
@@ -243,6 +255,7 @@ func (u *Consumer) returnFraction() float64 {
 // precedence.
 const (
 	demandOff          = iota // no steam
+	demandWarming             // a boiler's standby loss while it does not fire
 	demandSteamPerFuel        // steam per kg of the boiler's fuel
 	demandSteam               // a steam flow
 	demandDutyPerFuel         // heat per kg of the boiler's fuel
@@ -254,6 +267,8 @@ func (u *Consumer) demand() int {
 	switch {
 	case u.Off:
 		return demandOff
+	case u.warms != nil:
+		return demandWarming
 	case d.SteamPerFuel > 0 && u.fuel >= 0:
 		return demandSteamPerFuel
 	case d.SteamKgS > 0:
@@ -276,6 +291,13 @@ func (u *Consumer) residual(ev *eval, r []float64) error {
 	switch u.demand() {
 	case demandOff:
 		r[u.eqs[0]] = m * scaleQ
+	case demandWarming:
+		if ev.pl.firing(u.warms) {
+			r[u.eqs[0]] = m * scaleQ
+		} else {
+			w, _ := u.warms.standbyW(ev)
+			r[u.eqs[0]] = m*(ev.h(u.in)-hc) - f*w
+		}
 	case demandSteamPerFuel:
 		r[u.eqs[0]] = (m - f*d.SteamPerFuel*ev.x[u.fuel]) * scaleQ
 	case demandSteam:
@@ -311,17 +333,23 @@ func (u *Consumer) jacobian(ev *eval, j jac) error {
 	f := u.factor()
 	d := &u.caseDuty
 	e0 := u.eqs[0]
-	switch u.demand() {
-	case demandOff, demandSteam:
+	switch dm := u.demand(); {
+	case dm == demandOff || dm == demandSteam || (dm == demandWarming && ev.pl.firing(u.warms)):
 		j.add(e0, u.in.mIdx(), scaleQ)
-	case demandSteamPerFuel:
+	case dm == demandWarming:
+		_, dw := u.warms.standbyW(ev)
+		j.add(e0, u.in.mIdx(), ev.h(u.in)-hc)
+		j.add(e0, u.in.hIdx(), m)
+		j.add(e0, u.in.pIdx(), -m*dhc)
+		j.add(e0, u.warms.feed.hIdx(), -f*dw)
+	case dm == demandSteamPerFuel:
 		j.add(e0, u.in.mIdx(), scaleQ)
 		j.add(e0, u.fuel, -f*d.SteamPerFuel*scaleQ)
 	default:
 		j.add(e0, u.in.mIdx(), ev.h(u.in)-hc)
 		j.add(e0, u.in.hIdx(), m)
 		j.add(e0, u.in.pIdx(), -m*dhc)
-		if u.demand() == demandDutyPerFuel {
+		if dm == demandDutyPerFuel {
 			j.add(e0, u.fuel, -f*d.PerFuelJ)
 		}
 	}
@@ -372,9 +400,18 @@ func (u *Consumer) report(ev *eval, cr *CaseResult) error {
 	if u.out != nil {
 		cooler = ret * (hc - ev.h(u.out))
 	}
+	inputs := u.caseDuty.Inputs
+	if u.warms != nil && !u.Off {
+		w, _ := u.warms.standbyW(ev)
+		fire := 0.0
+		if ev.pl.firing(u.warms) {
+			fire = 1
+		}
+		inputs = map[string]float64{"standby_loss_W": w, "boiler_firing": fire}
+	}
 	cr.Consumers = append(cr.Consumers, ConsumerResult{
 		Name: u.Name, Kind: u.Kind(), DutyW: duty, SteamKgS: m, ReturnKgS: ret, LostKgS: lost, DrainCoolerW: cooler,
-		Inputs: u.caseDuty.Inputs,
+		Inputs: inputs,
 	})
 	for _, w := range u.caseDuty.Warnings {
 		cr.warn("%s %q: %s", u.Kind(), u.Name, w)
@@ -397,5 +434,6 @@ func (u *Consumer) clone() Component {
 	}
 	c.in, c.out = nil, nil
 	c.caseDuty = Duty{}
+	c.warms = nil
 	return &c
 }

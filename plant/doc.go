@@ -67,7 +67,15 @@
 // Otherwise the boilers fire in the order they were declared: one while
 // the demand is at most Options.UsableFraction of its MCR, more above that,
 // sharing by Options.Sharing. A boiler below its burner minimum (MCR /
-// turndown) cycles and its fuel is the time average. Demand beyond every
+// turndown) cycles: its burner, on at the minimum, raises the steam, the
+// standby loss of the warm boiler over the off time (a given kW, or the
+// efficiency model's casing loss, or 1 % of the heat input at MCR) and the
+// heat each pre-purge blows out (the purge air heated to the drum's
+// saturation temperature, at a given start rate or at the rate the
+// burner's pressure band and the boiler's water content give), and its
+// fuel is the time average; the fuel per tonne of steam rises as the load
+// falls. An idle boiler may be kept warm by steam (BoilerWarming), which
+// takes its standby loss while the firing rule leaves it off. Demand beyond every
 // boiler's MCR is solved and reported with CanCarry false and the
 // shortfall, not as a failure. A case may force which boilers fire.
 //

@@ -662,3 +662,40 @@ var freshWaterKeys = append([]Key{
 }, consumerModelKeys...)
 
 func (m *FreshWaterGenerator) keys() []Key { return freshWaterKeys }
+
+// ---------------------------------------------------------------------------
+// Warming steam.
+
+// BoilerWarming is the steam that keeps an idle boiler warm, at its
+// pressure and ready to fire, while the firing rule leaves it off: steam
+// from the plant's header (raised by the exhaust-gas economiser or the
+// other boiler) makes up the boiler's standby loss (Boiler.StandbyLoss or
+// its efficiency model's casing loss) and condenses in it. While the boiler
+// fires it takes nothing. The consumer evaluates it against the firing
+// state of the configuration being solved, so its Duty is zero.
+type BoilerWarming struct {
+	// Boiler names the boiler kept warm.
+	Boiler string
+}
+
+// Clone copies the model.
+func (m *BoilerWarming) Clone() DutyModel { c := *m; return &c }
+
+func (m *BoilerWarming) label() string { return "boiler warming" }
+
+// Duty is zero: the consumer takes the boiler's standby loss in each
+// configuration the boiler does not fire in.
+func (m *BoilerWarming) Duty(Conditions) (Duty, error) { return Duty{}, nil }
+
+var boilerWarmingKeys = append([]Key{
+	text(Key{Name: "boiler", Label: "boiler", Example: `"AB2"`, Required: true,
+		Doc: "the boiler kept warm while it does not fire"},
+		func(c Component, v []string) error {
+			if m, ok := modelOf[*BoilerWarming](c); ok && len(v) == 1 {
+				m.Boiler = v[0]
+			}
+			return nil
+		}),
+}, returnKeys[0], returnKeys[1], offKey)
+
+func (m *BoilerWarming) keys() []Key { return boilerWarmingKeys }

@@ -169,6 +169,20 @@ func jacFixtures() []jacFixture {
 			{Name: "sea", Conditions: Conditions{AirT: 308.15}},
 			{Name: "cycling", Conditions: Conditions{AirT: 308.15}, Set: []Setting{{Unit: "load", Param: "steam", Value: 500.0 / 3600}}},
 		}},
+		{"warming steam", func(t testing.TB) *Plant {
+			p := twoBoilers(t, Options{})
+			must(t, p.Add(&Consumer{Base: Base{Name: "b2 warming"}, Model: &BoilerWarming{Boiler: "b2"}, ReturnFraction: 1}))
+			p.Connect("to b2 warming", Pos{}, "main", "out", "b2 warming", "in")
+			p.Connect("b2 warming return", Pos{}, "b2 warming", "out", "hotwell", "in")
+			return p
+		}, []Case{demandCase("one boiler", 5000), demandCase("two boilers", 9000)}},
+		{"cycling by the band", func(t testing.TB) *Plant {
+			return cyclingPlant(t, &Boiler{PurgeAir: 40, CycleBand: 1e5, WaterContent: 3000})
+		}, []Case{steamCase(0.5), steamCase(0.05), {Name: "given starts", Set: []Setting{
+			{Unit: "load", Param: "steam", Value: 0.3}, {Unit: "b1", Param: "starts_per_hour", Value: 6}}}}},
+		{"cycling furnace", func(t testing.TB) *Plant {
+			return cyclingPlant(t, &Boiler{Efficiency: smallFireTube(), Fuel: hsfo(t), PurgeAir: 10, StartsPerHour: 5})
+		}, []Case{steamCase(0.5)}},
 		{"every unit", everyUnit, []Case{
 			{Name: "design"},
 			{Name: "warm returns", Set: []Setting{{Unit: "tank heating", Param: "return_T", Value: 363.15}}},
@@ -358,7 +372,7 @@ func TestAnalyticJacobianSameResults(t *testing.T) {
 // Jacobian allocates nothing (the project's rule for hot paths).
 func TestJacobianAllocatesNothing(t *testing.T) {
 	for _, fx := range jacFixtures() {
-		if fx.name == "furnace" || fx.name == "economiser" || fx.name == "flue-gas table" {
+		if fx.name == "furnace" || fx.name == "cycling furnace" || fx.name == "economiser" || fx.name == "flue-gas table" {
 			continue // the combustion models' own allocations are theirs
 		}
 		p := fx.build(t)

@@ -99,20 +99,32 @@ type BoilerResult struct {
 	FuelKgS      float64
 	// CO2KgS is by the fuel's regulatory factor (CO2Basis says which);
 	// CO2AnalysisKgS by its analysis carbon, when HasCO2Analysis.
-	CO2KgS          float64
-	CO2Basis        string
-	CO2AnalysisKgS  float64
-	HasCO2Analysis  bool
-	IMOLCV          float64 // the IMO fuel type's LCV, J/kg; zero without one
-	Efficiency      float64
-	EfficiencyBasis string
-	FuelName        string
-	FuelLHV         float64
-	DrumP           float64
-	FeedT           float64
-	SteamDryness    float64
-	BlowdownKgS     float64
-	HeatW           float64
+	CO2KgS         float64
+	CO2Basis       string
+	CO2AnalysisKgS float64
+	HasCO2Analysis bool
+	IMOLCV         float64 // the IMO fuel type's LCV, J/kg; zero without one
+	// Efficiency is the heat to water and steam over the fuel's heat: for
+	// a cycling boiler the time average, below FiringEfficiency (the
+	// efficiency model's at the firing rate) by the standby and purge
+	// losses.
+	Efficiency       float64
+	FiringEfficiency float64
+	EfficiencyBasis  string
+	// A cycling boiler's losses (zero otherwise): the standby loss of the
+	// warm boiler StandbyLossW and the part of it the off time takes
+	// StandbyOffW, the purges' heat PurgeW (PurgePerStartJ each), and the
+	// starts per hour (zero when not known).
+	StandbyLossW, StandbyOffW float64
+	PurgeW, PurgePerStartJ    float64
+	StartsPerHour             float64
+	FuelName                  string
+	FuelLHV                   float64
+	DrumP                     float64
+	FeedT                     float64
+	SteamDryness              float64
+	BlowdownKgS               float64
+	HeatW                     float64
 
 	// From a combustion model (zero with a plain efficiency table):
 	FlueT        float64 // flue-gas exit temperature, K

@@ -17,7 +17,7 @@ import (
 // plain consumer and the consumers whose demand a plant/loads model
 // computes (a cargo pump is a turbine).
 var consumerKinds = []string{"consumer", "tank_heating", "fuel_heater", "accommodation", "tank_cleaning",
-	"atomising_steam", "soot_blowing", "steam_tracing", "fresh_water_generator"}
+	"atomising_steam", "soot_blowing", "steam_tracing", "fresh_water_generator", "boiler_warming"}
 
 func unknownKindMsg(k string) string {
 	names := append(append([]string(nil), consumerKinds...), "cargo_pump")

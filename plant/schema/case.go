@@ -68,9 +68,17 @@ type Boiler struct {
 	CO2Basis     string  `json:"co2_basis"`
 	// CO2AnalysisKgH is null when the fuel has no analysis; IMOLCV when it
 	// has no IMO fuel type.
-	CO2AnalysisKgH  *float64 `json:"co2_analysis_kg_h"`
-	IMOLCV          *float64 `json:"imo_lcv_J_per_kg"`
-	Efficiency      float64  `json:"efficiency"`
+	CO2AnalysisKgH *float64 `json:"co2_analysis_kg_h"`
+	IMOLCV         *float64 `json:"imo_lcv_J_per_kg"`
+	Efficiency     float64  `json:"efficiency"`
+	FiringEff      float64  `json:"firing_efficiency"`
+	StandbyLossKW  float64  `json:"standby_loss_kW"`
+	StandbyOffKW   float64  `json:"standby_off_kW"`
+	PurgeKW        float64  `json:"purge_kW"`
+	PurgePerStartJ float64  `json:"purge_per_start_J"`
+	// StartsPerHour is null when the boiler cycles and its starts are not
+	// known (no starts_per_hour, no cycle_band).
+	StartsPerHour   *float64 `json:"starts_per_hour"`
 	EfficiencyBasis string   `json:"efficiency_basis"`
 	Fuel            string   `json:"fuel"`
 	FuelLHV         float64  `json:"fuel_lhv_J_per_kg"`
@@ -213,6 +221,9 @@ func NewCase(plantName string, cr *plant.CaseResult) Case {
 			CO2KgH:        Round(KgPerH(b.CO2KgS)), CO2Basis: co2Basis(b.CO2Basis),
 			CO2AnalysisKgH: roundPtr(KgPerH(b.CO2AnalysisKgS), b.HasCO2Analysis),
 			IMOLCV:         roundPtr(b.IMOLCV, b.IMOLCV > 0),
+			FiringEff:      Round(b.FiringEfficiency), StandbyLossKW: Round(KW(b.StandbyLossW)),
+			StandbyOffKW: Round(KW(b.StandbyOffW)), PurgeKW: Round(KW(b.PurgeW)), PurgePerStartJ: Round(b.PurgePerStartJ),
+			StartsPerHour: roundPtr(b.StartsPerHour, !b.Cycling || b.StartsPerHour > 0),
 		}
 		if b.FlueT > 0 {
 			bj.FlueTK = roundPtr(b.FlueT, true)

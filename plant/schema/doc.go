@@ -168,7 +168,21 @@
 //	                        regulatory reports only (the energy balance
 //	                        takes fuel_lhv_J_per_kg); null without one
 //	efficiency              its efficiency, a fraction, on the basis of
-//	efficiency_basis        "LHV" or "HHV"
+//	efficiency_basis        "LHV" or "HHV": heat to water and steam over
+//	                        the fuel's heat; for a cycling boiler the time
+//	                        average, with the standby and purge losses
+//	firing_efficiency       the efficiency model's figure at the firing
+//	                        rate (the burner minimum while it cycles)
+//	standby_loss_kW         a cycling boiler's standby loss: the heat the
+//	                        warm boiler loses from its casing, kW (0 when
+//	                        it does not cycle)
+//	standby_off_kW          the part of it the burner's off time takes,
+//	                        averaged, kW
+//	purge_kW                the heat the pre-purges blow out, averaged, kW
+//	purge_per_start_J       the heat of one pre-purge, J
+//	starts_per_hour         burner starts per hour while it cycles (0 when
+//	                        it does not); null when the starts are not
+//	                        known
 //	fuel_lhv_J_per_kg       the fuel's lower heating value, J/kg
 //	drum_p_Pa, feed_T_K     drum pressure, Pa, and feed temperature, K
 //	steam_dryness           dryness fraction of the steam

@@ -161,6 +161,9 @@ func writeCase(w io.Writer, n, total int, c Case) {
 			yes, burner = "yes", "steady"
 			if b.Cycling {
 				burner = fmt.Sprintf("cycling, on %s %% of the time", fix(b.OnFraction*100, 0))
+				if b.StartsPerHour > 0 {
+					burner += fmt.Sprintf(", %s starts/h", fix(b.StartsPerHour, 1))
+				}
 			}
 			eff = fix(b.Efficiency*100, 1) + " " + b.EfficiencyBasis
 		}
@@ -175,6 +178,17 @@ func writeCase(w io.Writer, n, total int, c Case) {
 			fix(b.MCRKgS*kgh, 1), fix(b.SteamKgS*kgh, 1), fix(b.FuelKgS*kgh, 1), eff, feed, flue, burner)
 	}
 	tw.Flush()
+	for _, b := range r.Boilers {
+		if !b.Cycling {
+			continue
+		}
+		purge := "purges not counted"
+		if b.PurgePerStartJ > 0 && b.StartsPerHour > 0 {
+			purge = fmt.Sprintf("purges %s kW", fix(b.PurgeW/1e3, 1))
+		}
+		fmt.Fprintf(w, "    %s cycles: %s %% at the burner minimum, %s %% on average; standby loss %s kW, %s kW of it over the off time; %s\n",
+			b.Name, fix(b.FiringEfficiency*100, 1), fix(b.Efficiency*100, 1), fix(b.StandbyLossW/1e3, 1), fix(b.StandbyOffW/1e3, 1), purge)
+	}
 	if !r.CanCarry {
 		fmt.Fprintf(w, "  CANNOT CARRY the demand: short by %s kg/h\n", fix(r.ShortfallKgS*kgh, 1))
 	}
