@@ -44,8 +44,11 @@
 //   - Header (steam header or any junction, with heat loss condensing
 //     steam), ReducingValve (isenthalpic), Consumer (a duty, a steam flow,
 //     a duty model evaluated per case, or a duty per kg of a boiler's fuel;
-//     subcooling, return fraction, drain cooler), Turbine (isentropic and
-//     mechanical efficiency), Condenser and dump condenser.
+//     subcooling, return fraction, drain cooler), Turbine (by isentropic
+//     and mechanical efficiency, by its steam rate at a rated power with a
+//     part-load curve, or by the maker's table of steam against power),
+//     Condenser (its vacuum the turbine's, or following the sea by an
+//     approach or by its UA and sea-water flow) and dump condenser.
 //
 // # Solving
 //

@@ -24,9 +24,11 @@ import (
 //     leaves the property's range. (Central differences cost twice the
 //     property calls for no gain a Newton step can use.)
 //   - The turbine's isentropic exhaust enthalpy h_s(p_out, s(p_in, h_in))
-//     is differentiated by the Gibbs relation dh = T·ds + v·dp, which holds
-//     for the IF97 states in and out of the two-phase region: ∂s/∂h|p = 1/T,
-//     ∂s/∂p|h = −v/T, ∂h/∂s|p = T, ∂h/∂p|s = v.
+//     is differentiated by the chain rule over differences of s(p, h) and
+//     h(p, s), as any water property: the Gibbs relation dh = T·ds + v·dp
+//     holds for the IF97 functions only to about 1e-6 relative (their
+//     saturation line and regions agree to that order), which a check at
+//     1e-6 sees at a condenser's vacuum.
 //   - A boiler's efficiency from a maker's table (EfficiencyTable) is
 //     differentiated along the active segment. Any other efficiency model
 //     (flue-gas table, furnace model) and the flue-gas economiser's duty are

@@ -169,6 +169,21 @@ func jacFixtures() []jacFixture {
 			{Name: "sea", Conditions: Conditions{AirT: 308.15}},
 			{Name: "cycling", Conditions: Conditions{AirT: 308.15}, Set: []Setting{{Unit: "load", Param: "steam", Value: 500.0 / 3600}}},
 		}},
+		{"every unit", everyUnit, []Case{
+			{Name: "design"},
+			{Name: "warm returns", Set: []Setting{{Unit: "tank heating", Param: "return_T", Value: 363.15}}},
+			{Name: "turbine off", Set: []Setting{{Unit: "tg", Param: "off", Value: 1}}},
+		}},
+		{"turbine by its steam rate", func(t testing.TB) *Plant {
+			return turbineWith(t, &Turbine{Power: 0.9e6, ExhaustP: 0.2 * bar, EtaMech: 0.95, RatedPower: 1.2e6,
+				RateLoad: []float64{0.5, 1}, SteamRate: []float64{10.2 / 3.6e6, 8.5 / 3.6e6}}, &Condenser{SubCooling: 3})
+		}, []Case{{Name: "discharge"}, {Name: "below the curve", Set: []Setting{{Unit: "cargo pump 1", Param: "power", Value: 0.4e6}}}}},
+		{"condenser by the approach", func(t testing.TB) *Plant {
+			return turbineWith(t, &Turbine{Power: 1e6, EtaIs: 0.65, EtaMech: 0.95}, &Condenser{Approach: 40})
+		}, []Case{{Name: "sea", Conditions: Conditions{SeaT: 290}}}},
+		{"condenser by its UA", func(t testing.TB) *Plant {
+			return turbineWith(t, &Turbine{Power: 1e6, EtaIs: 0.65, EtaMech: 0.95}, &Condenser{UA: 150e3, SeaFlow: 50, SubCooling: 2})
+		}, []Case{{Name: "sea", Conditions: Conditions{SeaT: 290}}, {Name: "warmer sea", Conditions: Conditions{SeaT: 296}}}},
 		{"warming steam", func(t testing.TB) *Plant {
 			p := twoBoilers(t, Options{})
 			must(t, p.Add(&Consumer{Base: Base{Name: "b2 warming"}, Model: &BoilerWarming{Boiler: "b2"}, ReturnFraction: 1}))
@@ -183,11 +198,6 @@ func jacFixtures() []jacFixture {
 		{"cycling furnace", func(t testing.TB) *Plant {
 			return cyclingPlant(t, &Boiler{Efficiency: smallFireTube(), Fuel: hsfo(t), PurgeAir: 10, StartsPerHour: 5})
 		}, []Case{steamCase(0.5)}},
-		{"every unit", everyUnit, []Case{
-			{Name: "design"},
-			{Name: "warm returns", Set: []Setting{{Unit: "tank heating", Param: "return_T", Value: 363.15}}},
-			{Name: "turbine off", Set: []Setting{{Unit: "tg", Param: "off", Value: 1}}},
-		}},
 	}
 }
 
