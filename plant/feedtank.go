@@ -33,6 +33,7 @@ type FeedTank struct {
 
 	ins        []*Line
 	out, steam *Line
+	gets       []transfer // drains and drain-cooler heat of other units (transfer.go)
 	vent       int
 	eqs        [5]int
 	mt, mf, mg memo
@@ -117,6 +118,7 @@ func (u *FeedTank) assemble(a *assembly, ports portLines) {
 	u.ins = ports["in"]
 	u.out = ports.one("out")
 	u.steam = ports.one("steam")
+	u.gets = u.gets[:0]
 	u.vent = a.variable(u.Name+": vented flash steam", 1, 0, math.Inf(1), 0)
 	all := append([]*Line{u.out, u.steam}, u.ins...)
 	deps := append(lineDeps(all...), u.vent)
@@ -127,6 +129,14 @@ func (u *FeedTank) assemble(a *assembly, ports portLines) {
 	u.eqs[4] = -1
 	if u.steam != nil {
 		u.eqs[4] = a.equation(u.Name+": heating steam or venting", 1, deps...)
+	}
+}
+
+// receive takes another unit's drains or heat into the tank's balance.
+func (u *FeedTank) receive(a *assembly, t transfer) {
+	u.gets = append(u.gets, t)
+	for _, e := range u.eqs[1:4] {
+		a.depend(e, t.transferDeps()...)
 	}
 }
 
@@ -155,6 +165,7 @@ func (u *FeedTank) loss(p, h float64) (float64, error) {
 type tankEval struct {
 	pt, pOut, hOut, mOut float64 // tank pressure; outlet line
 	mIn, eIn             float64 // inflow and its enthalpy flow, heating steam apart
+	mX, eX               float64 // inflow of other units' drains and heat (transfer.go)
 	mSt, hSt             float64 // heating steam
 	hf, hg, q            float64 // saturation at the tank pressure; heat loss
 	hMix, hSet, target   float64 // the mix, the set point's enthalpy, the outlet's
@@ -179,6 +190,9 @@ func (u *FeedTank) evaluate(ev *eval) (tankEval, error) {
 		t.mSt, t.hSt = ev.m(u.steam), ev.h(u.steam)
 	}
 	var err error
+	if t.mX, t.eX, err = sumTransfers(ev, u.gets); err != nil {
+		return t, err
+	}
 	if t.hf, err = u.mf.get1(t.pt, hLiquidSat); err != nil {
 		return t, err
 	}
@@ -189,7 +203,7 @@ func (u *FeedTank) evaluate(ev *eval) (tankEval, error) {
 		return t, err
 	}
 	// The mix without heating steam and without venting.
-	t.hMix = (t.eIn - t.q + epsFlow*ev.h(u.ins[0])) / (t.mIn + epsFlow)
+	t.hMix = (t.eIn + t.eX - t.q + epsFlow*ev.h(u.ins[0])) / (t.mIn + t.mX + epsFlow)
 	t.target, t.branch = t.hMix, tankMix
 	if u.steam != nil && u.SetT > 0 {
 		if t.hSet, err = u.mset.get2(t.pt, u.SetT, hPT); err != nil {
@@ -213,8 +227,8 @@ func (u *FeedTank) residual(ev *eval, r []float64) error {
 	}
 	mv := ev.x[u.vent]
 	r[u.eqs[0]] = t.pOut - t.pt
-	r[u.eqs[1]] = t.mIn + t.mSt - t.mOut - mv
-	r[u.eqs[2]] = t.eIn + t.mSt*t.hSt - t.q - t.mOut*t.hOut - mv*t.hg
+	r[u.eqs[1]] = t.mIn + t.mX + t.mSt - t.mOut - mv
+	r[u.eqs[2]] = t.eIn + t.eX + t.mSt*t.hSt - t.q - t.mOut*t.hOut - mv*t.hg
 	r[u.eqs[3]] = t.hOut - t.target
 	if u.steam != nil {
 		if t.heating {
@@ -247,7 +261,7 @@ func (u *FeedTank) jacobian(ev *eval, j jac) error {
 		dqdp, dqdh = u.UA*dtdp, u.UA*dtdh
 	}
 	ref := u.ins[0]
-	den := t.mIn + epsFlow
+	den := t.mIn + t.mX + epsFlow
 
 	e := u.eqs
 	j.add(e[0], u.out.pIdx(), 1)
@@ -277,6 +291,19 @@ func (u *FeedTank) jacobian(ev *eval, j jac) error {
 		j.add(e[3], ref.hIdx(), -epsFlow/den)
 		j.add(e[3], u.out.pIdx(), dqdp/den)
 		j.add(e[3], u.out.hIdx(), dqdh/den)
+	}
+	for _, g := range u.gets {
+		_, _, d, err := g.transferred(ev)
+		if err != nil {
+			return wrapErr(u, err)
+		}
+		for _, pd := range d {
+			j.add(e[1], pd.col, pd.dm)
+			j.add(e[2], pd.col, pd.de)
+			if branch == tankMix {
+				j.add(e[3], pd.col, -(pd.de-hMix*pd.dm)/den)
+			}
+		}
 	}
 	if u.steam != nil {
 		if heating {
@@ -319,6 +346,13 @@ func (u *FeedTank) report(ev *eval, cr *CaseResult) error {
 	if u.steam != nil {
 		ur.Figures = append(ur.Figures, Figure{"heating_steam_kg_s", ev.m(u.steam)})
 	}
+	if len(u.gets) > 0 {
+		mx, ex, err := sumTransfers(ev, u.gets)
+		if err != nil {
+			return wrapErr(u, err)
+		}
+		ur.Figures = append(ur.Figures, Figure{"received_kg_s", mx}, Figure{"received_W", ex})
+	}
 	cr.Units = append(cr.Units, ur)
 	cr.boundary.heatOut += q
 	cr.boundary.massOut += mv
@@ -345,5 +379,6 @@ func (u *FeedTank) outline(cr *CaseResult) {
 func (u *FeedTank) clone() Component {
 	c := *u
 	c.ins, c.out, c.steam = nil, nil, nil
+	c.gets = nil
 	return &c
 }

@@ -174,6 +174,13 @@ func jacFixtures() []jacFixture {
 			{Name: "warm returns", Set: []Setting{{Unit: "tank heating", Param: "return_T", Value: 363.15}}},
 			{Name: "turbine off", Set: []Setting{{Unit: "tg", Param: "off", Value: 1}}},
 		}},
+		{"drain cooler to the hotwell, drains lost", func(t testing.TB) *Plant {
+			return twoBoilersWith(t, CoolerToHotwell, DrainsLost)
+		}, []Case{cooled, {Name: "trap", Set: []Setting{{Unit: "heating", Param: "trap_loss", Value: 0.05}}}}},
+		{"trap loss with a cooler to the feed", func(t testing.TB) *Plant { return twoBoilers(t, Options{}) }, []Case{
+			{Name: "trap", Set: []Setting{{Unit: "heating", Param: "trap_loss", Value: 0.05}, {Unit: "heating", Param: "return_T", Value: 353.15}}},
+			{Name: "trap, no cooler", Set: []Setting{{Unit: "heating", Param: "trap_loss", Value: 0.08}}},
+		}},
 		{"turbine by its steam rate", func(t testing.TB) *Plant {
 			return turbineWith(t, &Turbine{Power: 0.9e6, ExhaustP: 0.2 * bar, EtaMech: 0.95, RatedPower: 1.2e6,
 				RateLoad: []float64{0.5, 1}, SteamRate: []float64{10.2 / 3.6e6, 8.5 / 3.6e6}}, &Condenser{SubCooling: 3})

@@ -46,6 +46,8 @@ type CaseResult struct {
 	BlowdownKgS        float64
 	VentedKgS          float64
 	CondensateLostKgS  float64
+	TrapLossKgS        float64 // live steam passing the consumers' traps
+	DrainsReturnedKgS  float64 // header drains returned to the hotwell
 	DumpedKgS          float64
 	FeedTankT          float64
 	// EGESteamKgS is the steam the exhaust-gas economisers raise, and
@@ -145,8 +147,12 @@ type ConsumerResult struct {
 	ReturnKgS float64
 	LostKgS   float64
 	// DrainCoolerW is the heat the returning condensate gives up in a
-	// drain cooler before the feed tank.
-	DrainCoolerW float64
+	// drain cooler before the feed tank, and DrainCoolerTo where it goes:
+	// "feed", "hotwell" or "overboard" ("" without a drain cooler).
+	DrainCoolerW  float64
+	DrainCoolerTo string
+	// TrapLossKgS is the live steam that passes the consumer's trap.
+	TrapLossKgS float64
 	// Inputs are the figures that drove a computed duty, keys with units.
 	Inputs map[string]float64
 }
@@ -232,7 +238,7 @@ func (cr *CaseResult) clean() {
 		}
 	}
 	for _, v := range []*float64{&cr.ShortfallKgS, &cr.SteamProductionKgS, &cr.SteamDemandKgS, &cr.FuelKgS, &cr.CO2KgS, &cr.CO2AnalysisKgS,
-		&cr.MakeUpKgS, &cr.BlowdownKgS, &cr.VentedKgS, &cr.CondensateLostKgS, &cr.DumpedKgS, &cr.EGESteamKgS, &cr.EGEFuelSavedKgS} {
+		&cr.MakeUpKgS, &cr.BlowdownKgS, &cr.VentedKgS, &cr.CondensateLostKgS, &cr.TrapLossKgS, &cr.DrainsReturnedKgS, &cr.DumpedKgS, &cr.EGESteamKgS, &cr.EGEFuelSavedKgS} {
 		z(v)
 	}
 	for i := range cr.Boilers {
@@ -250,7 +256,7 @@ func (cr *CaseResult) clean() {
 	}
 	for i := range cr.Consumers {
 		c := &cr.Consumers[i]
-		for _, v := range []*float64{&c.SteamKgS, &c.ReturnKgS, &c.LostKgS} {
+		for _, v := range []*float64{&c.SteamKgS, &c.ReturnKgS, &c.LostKgS, &c.TrapLossKgS} {
 			z(v)
 		}
 	}

@@ -33,21 +33,24 @@ return steam_plant {
     design_load = "85 %", pinch = "40 K", min_gas_T = "165 C", bypass = true,
   },
   dump_condenser = { subcool = "80 K" },
+  -- The dump condenser's condensate and the returns keep the hotwell above 85 C
+  -- at sea, so the drain coolers cannot cool against the feed: they are cooled
+  -- by sea water ("overboard"; the default is the feed).
   consumers = {
     { name = "ME fuel heater", kind = "fuel_heater", service = "engine", fuel = "VLSFO",
       flow = "5.5 t/h", inlet_T = "90 C", target_viscosity = "12 cSt", outlet_limit = "150 C",
-      returns = "100 %", return_T = "85 C" },
+      returns = "100 %", return_T = "85 C", drain_cooler = "overboard" },
     { name = "purifier heaters", kind = "fuel_heater", service = "purifier", fuel = "VLSFO",
-      flow = "6 t/h", inlet_T = "55 C", outlet_T = "98 C", returns = "100 %", return_T = "85 C" },
+      flow = "6 t/h", inlet_T = "55 C", outlet_T = "98 C", returns = "100 %", return_T = "85 C", drain_cooler = "overboard" },
     { name = "bunker tank heating", kind = "tank_heating", fuel = "VLSFO", mode = "hold", T = "45 C",
-      returns = "98 %", return_T = "85 C", volume = "3000 m3",
+      returns = "98 %", return_T = "85 C", drain_cooler = "overboard", volume = "3000 m3",
       boundaries = {
         { name = "bottom", area = "600 m2", U = "3.5 W/m2K", beyond = "sea" },
         { name = "sides", area = "500 m2", U = "3.5 W/m2K", beyond = "sea" },
         { name = "bulkheads to holds", area = "900 m2", U = "6 W/m2K", beyond = "air" } } },
     { name = "accommodation", kind = "accommodation", UA = "12 kW/K", inside_T = "21 C",
-      balance_T = "16 C", returns = "100 %", return_T = "80 C" },
-    { name = "galley and sundry", duty = "45 kW", returns = "80 %", return_T = "80 C" },
+      balance_T = "16 C", returns = "100 %", return_T = "80 C", drain_cooler = "overboard" },
+    { name = "galley and sundry", duty = "45 kW", returns = "80 %", return_T = "80 C", drain_cooler = "overboard" },
     { name = "AB1 atomising steam", kind = "atomising_steam", boiler = "AB1", ratio = "2 %" },
   },
 }

@@ -37,6 +37,10 @@ local ship = steam_plant {
     design_load = "85 %", pinch = "20 K", min_gas_T = "170 C",
   },
   dump_condenser = { subcool = "80 K" },
+  -- Drain coolers give their heat to the boiler feed after the feed pump by
+  -- default. The hotwell runs near the returns' temperature, so a cooler can
+  -- only cool against the feed to above it: the 85 C returns heat the feed, the
+  -- 80 C ones (accommodation, galley) are cooled by sea water ("overboard").
   consumers = {
     { name = "cargo heating", kind = "tank_heating", header = "LP", fuel = "HSFO",
       mode = "hold", T = "55 C", returns = "98 %", subcool = "10 K", return_T = "85 C",
@@ -55,8 +59,8 @@ local ship = steam_plant {
     { name = "AB2 burner heater", kind = "fuel_heater", service = "burner", boiler = "AB2", header = "LP",
       fuel = "HSFO", inlet_T = "70 C", target_viscosity = "15 cSt", returns = "100 %", return_T = "85 C" },
     { name = "accommodation", kind = "accommodation", header = "LP", UA = "18 kW/K",
-      inside_T = "21 C", balance_T = "16 C", returns = "100 %", return_T = "80 C" },
-    { name = "galley and sundry", header = "LP", duty = "60 kW", returns = "80 %", return_T = "80 C" },
+      inside_T = "21 C", balance_T = "16 C", returns = "100 %", return_T = "80 C", drain_cooler = "overboard" },
+    { name = "galley and sundry", header = "LP", duty = "60 kW", returns = "80 %", return_T = "80 C", drain_cooler = "overboard" },
     { name = "tank cleaning heater", kind = "tank_cleaning", header = "LP", flow = "40 t/h",
       outlet_T = "75 C", returns = "95 %", return_T = "85 C", off = true },
   },

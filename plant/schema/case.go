@@ -35,6 +35,8 @@ type Case struct {
 	BlowdownKgH        float64    `json:"blowdown_kg_h"`
 	VentedKgH          float64    `json:"vented_kg_h"`
 	CondensateLostKgH  float64    `json:"condensate_lost_kg_h"`
+	TrapLossKgH        float64    `json:"trap_loss_kg_h"`
+	DrainsReturnedKgH  float64    `json:"drains_returned_kg_h"`
 	FeedTankTK         float64    `json:"feed_tank_T_K"`
 	ElectricKW         float64    `json:"electric_kW"`
 	Balance            Balance    `json:"balance"`
@@ -133,6 +135,8 @@ type Consumer struct {
 	ReturnKgH float64 `json:"condensate_return_kg_h"`
 	LostKgH   float64 `json:"condensate_lost_kg_h"`
 	CoolerKW  float64 `json:"drain_cooler_kW"`
+	CoolerTo  string  `json:"drain_cooler_to"`
+	TrapKgH   float64 `json:"trap_loss_kg_h"`
 	// Inputs are the figures a computed duty came from, keys with units;
 	// absent when the duty was given.
 	Inputs map[string]float64 `json:"inputs,omitempty"`
@@ -198,6 +202,8 @@ func NewCase(plantName string, cr *plant.CaseResult) Case {
 		BlowdownKgH:        Round(KgPerH(cr.BlowdownKgS)),
 		VentedKgH:          Round(KgPerH(cr.VentedKgS)),
 		CondensateLostKgH:  Round(KgPerH(cr.CondensateLostKgS)),
+		TrapLossKgH:        Round(KgPerH(cr.TrapLossKgS)),
+		DrainsReturnedKgH:  Round(KgPerH(cr.DrainsReturnedKgS)),
 		FeedTankTK:         Round(cr.FeedTankT),
 		ElectricKW:         Round(KW(cr.ElectricW)),
 		Balance:            Balance{MassRel: cr.Balance.MassRel, EnergyRel: cr.Balance.EnergyRel},
@@ -254,6 +260,7 @@ func NewCase(plantName string, cr *plant.CaseResult) Case {
 		j.Consumers = append(j.Consumers, Consumer{
 			Name: c.Name, Kind: c.Kind, DutyKW: Round(KW(c.DutyW)), SteamKgH: Round(KgPerH(c.SteamKgS)),
 			ReturnKgH: Round(KgPerH(c.ReturnKgS)), LostKgH: Round(KgPerH(c.LostKgS)), CoolerKW: Round(KW(c.DrainCoolerW)),
+			CoolerTo: c.DrainCoolerTo, TrapKgH: Round(KgPerH(c.TrapLossKgS)),
 			Inputs: roundMap(c.Inputs),
 		})
 	}

@@ -129,8 +129,12 @@
 //	makeup_kg_h             fresh water made up, kg/h
 //	blowdown_kg_h           boiler blowdown, kg/h
 //	vented_kg_h             flash steam vented from the feed tank, kg/h
-//	condensate_lost_kg_h    condensate not returned, header drains
-//	                        included, kg/h
+//	condensate_lost_kg_h    condensate not returned, the header drains
+//	                        that are lost and the steam passing traps that
+//	                        is not returned included, kg/h
+//	trap_loss_kg_h          live steam passing the consumers' steam traps,
+//	                        kg/h
+//	drains_returned_kg_h    header drains returned to the hotwell, kg/h
 //	feed_tank_T_K           feed tank temperature, K
 //	electric_kW             electrical load of pumps and fans, kW
 //	balance                 BALANCE: the closures of the balances
@@ -231,6 +235,10 @@
 //	condensate_return_kg_h  condensate returned, kg/h
 //	condensate_lost_kg_h    condensate lost, kg/h
 //	drain_cooler_kW         heat its drain cooler gives up, kW
+//	drain_cooler_to         where that heat goes: "feed" (the boiler feed
+//	                        after the feed pump), "hotwell" or "overboard";
+//	                        "" without a drain cooler
+//	trap_loss_kg_h          live steam passing its steam trap, kg/h
 //	inputs                  {key: value}: the figures a computed duty came
 //	                        from, keys with units; absent when the duty
 //	                        was given

@@ -110,7 +110,14 @@ func writeCase(w io.Writer, n, total int, c Case) {
 			note = "shaft power"
 		}
 		if fix(cs.DrainCoolerW/1e3, 1) != "0.0" { // a cooler that gives up heat
-			note += fmt.Sprintf("; drain cooler %s kW", fix(cs.DrainCoolerW/1e3, 1))
+			to := "to the " + cs.DrainCoolerTo
+			if cs.DrainCoolerTo == "overboard" || cs.DrainCoolerTo == "" {
+				to = "overboard"
+			}
+			note += fmt.Sprintf("; drain cooler %s kW %s", fix(cs.DrainCoolerW/1e3, 1), to)
+		}
+		if fix(cs.TrapLossKgS*kgh, 1) != "0.0" {
+			note += fmt.Sprintf("; %s kg/h live steam through the trap", fix(cs.TrapLossKgS*kgh, 1))
 		}
 		fmt.Fprintf(tw, "      %s\t%s\t%10s\t%10s\t%s\n", cs.Name, cs.Kind, fix(cs.SteamKgS*kgh, 1), fix(cs.DutyW/1e3, 1), note)
 	}
@@ -123,8 +130,12 @@ func writeCase(w io.Writer, n, total int, c Case) {
 	}
 	for _, u := range r.Units {
 		if u.Kind == kindHeader && (u.Figures.Of(keyDrained) != 0 || u.Figures.Of("heat_loss_W") != 0) {
+			where := "heat loss, drained and lost"
+			if u.Figures.Of("drains_returned_kg_s") > 0 {
+				where = "heat loss, drained to the hotwell"
+			}
 			fmt.Fprintf(tw, "      %s\t%s\t%10s\t%10s\t%s\n", u.Name, "header drains", fix(u.Figures.Of(keyDrained)*kgh, 1),
-				fix(u.Figures.Of("heat_loss_W")/1e3, 1), "heat loss, drained and lost")
+				fix(u.Figures.Of("heat_loss_W")/1e3, 1), where)
 		}
 	}
 	for _, u := range r.Units {
@@ -142,7 +153,7 @@ func writeCase(w io.Writer, n, total int, c Case) {
 		lost += cs.LostKgS
 	}
 	fmt.Fprintf(tw, "      %s\t\t%10s\t\t\n", "condensate not returned", fix(lost*kgh, 1))
-	fmt.Fprintf(tw, "      %s\t\t%10s\t\t\n", "header drains", fix(headerDrains(r)*kgh, 1))
+	fmt.Fprintf(tw, "      %s\t\t%10s\t\t\n", "header drains lost", fix(headerDrains(r)*kgh, 1))
 	fmt.Fprintf(tw, "    make-up\t\t%10s\t\t\n", fix(r.MakeUpKgS*kgh, 1))
 	tw.Flush()
 
@@ -221,8 +232,21 @@ func writeCase(w io.Writer, n, total int, c Case) {
 	}
 }
 
-// headerDrains sums the condensate the headers' traps drain and lose.
+// headerDrains sums the condensate the headers' traps drain and lose (not
+// returned to the hotwell).
 func headerDrains(r *plant.CaseResult) float64 {
+	var m float64
+	for _, u := range r.Units {
+		if u.Kind == kindHeader {
+			m += u.Figures.Of(keyDrained) - u.Figures.Of("drains_returned_kg_s")
+		}
+	}
+	return m
+}
+
+// headerDrained sums the steam the headers' heat losses condense, which
+// their traps drain (to the hotwell or lost): a steam demand.
+func headerDrained(r *plant.CaseResult) float64 {
 	var m float64
 	for _, u := range r.Units {
 		if u.Kind == kindHeader {
