@@ -22,11 +22,12 @@
 //
 // # Units
 //
-//   - MakeUp: fresh water at a set temperature; its flow is what the plant
-//     loses.
+//   - MakeUp: fresh water at a set temperature, by default the case's sea
+//     temperature; its flow is what the plant loses.
 //   - FeedTank (hotwell, cascade tank): mixing, heat loss, optional steam
 //     heating to a set temperature, venting of flash steam when the mix
-//     would boil.
+//     would boil, the header drains and drain-cooler heat it is given,
+//     and a warning below the temperature that keeps oxygen out.
 //   - FeedPump: discharge at drum pressure plus a margin; enthalpy rise
 //     v·Δp/η (water taken as incompressible across the pump).
 //   - Boiler (oil-fired): drum pressure, dryness, blowdown (fraction or TDS

@@ -17,7 +17,7 @@ return steam_plant {
                      radiation = "1 %" },
       burner = { fan_rise = "3.5 kPa", fan_eta = "60 %", motor_eta = "90 %" } },
   },
-  makeup = { T = "15 C" },
+  -- make-up distilled water at the sea temperature (its tanks stand against the shell)
   hotwell = { heat_loss = "5 kW", set_T = "60 C" },
   feed_pump = { margin = "3 bar", eta = "40 %" },
   headers = { { name = "main", heat_loss = "12 kW" } },
@@ -38,7 +38,8 @@ return steam_plant {
   -- by sea water ("overboard"; the default is the feed).
   consumers = {
     { name = "ME fuel heater", kind = "fuel_heater", service = "engine", fuel = "VLSFO",
-      flow = "5.5 t/h", inlet_T = "90 C", target_viscosity = "12 cSt", outlet_limit = "150 C",
+      -- its oil flow follows the engine: SFOC x MCR x load (invented SFOC)
+      sfoc = "172 g/kWh", engine_mcr = "36 MW", inlet_T = "90 C", target_viscosity = "12 cSt", outlet_limit = "150 C",
       returns = "100 %", return_T = "85 C", drain_cooler = "overboard" },
     { name = "purifier heaters", kind = "fuel_heater", service = "purifier", fuel = "VLSFO",
       flow = "6 t/h", inlet_T = "55 C", outlet_T = "98 C", returns = "100 %", return_T = "85 C", drain_cooler = "overboard" },

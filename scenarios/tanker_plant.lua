@@ -20,7 +20,7 @@ local ship = steam_plant {
     { name = "AB2", mcr = "20 t/h", drum = "16 bar(g)", dryness = "99 %", blowdown = "1 %",
       turndown = 4, fuel = "HSFO", efficiency = heavy_fuel_efficiency },
   },
-  makeup = { T = "15 C" },
+  -- make-up distilled water at the sea temperature (its tanks stand against the shell)
   hotwell = { heat_loss = "8 kW", set_T = "60 C" },
   feed_pump = { margin = "3 bar", eta = "45 %" },
   headers = { { name = "HP", heat_loss = "20 kW" }, { name = "LP", p = "7 bar(g)", heat_loss = "15 kW" } },

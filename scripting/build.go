@@ -32,7 +32,7 @@ var decoders = map[string]decoder{
 	"boiler":                 {[]string{"fuel", "lhv", "co2_factor", "bdn", "efficiency", "burner"}, decodeBoiler},
 	"consumer":               {[]string{"duty", "steam"}, decodeConsumer},
 	"tank_heating":           {[]string{"density", "volume", "dimensions", "boundaries", "mode", "T", "from", "to", "duration"}, decodeTankHeating},
-	"fuel_heater":            {[]string{"outlet_T", "target_viscosity", "boiler", "flow"}, decodeFuelHeater},
+	"fuel_heater":            {[]string{"outlet_T", "target_viscosity", "boiler", "flow", "sfoc", "engine_mcr"}, decodeFuelHeater},
 	"accommodation":          {[]string{"table", "UA", "inside_T", "balance_T"}, decodeAccommodation},
 	"turbine":                {[]string{"eta_is", "steam_rate", "rated_power", "steam_table"}, decodeTurbine},
 	"cargo_pump":             {[]string{"eta_is", "steam_rate", "rated_power", "steam_table"}, decodeTurbine},

@@ -90,7 +90,7 @@ local ship = steam_plant { name = "short",
 return case(ship, { name = "c", sea = "10 C", air = "5 C" })`
 	full := `
 local ship = plant { name = "full" }
-ship:makeup { name = "makeup", T = "15 C" }
+ship:makeup { name = "makeup" }
 ship:feed_tank { name = "hotwell", heat_loss = "5 kW" }
 ship:feed_pump { name = "feed pump", boilers = { "AB1", "AB2" }, margin = "3 bar", eta = "45 %" }
 ship:header { name = "feed header" }
