@@ -34,8 +34,8 @@ type FuelSpec struct {
 	// Fuel is the full description, which the combustion models need;
 	// nil for a boiler with a plain efficiency table.
 	Fuel *fuel.Fuel
-	// Notes is what a reader of the fuel's figures must see (the
-	// warnings of a bunker delivery note, joined by "; ": an off-spec
+	// Notes is what a reader of the fuel's figures must see, naming the
+	// fuel (the warnings of a bunker delivery note, joined by "; ": an off-spec
 	// property, a stated LHV far from the ISO 8217 estimate); every case
 	// the boiler burns fuel in repeats it among its warnings.
 	Notes string
@@ -890,7 +890,7 @@ func (u *Boiler) report(ev *eval, cr *CaseResult) error {
 		cr.warn("%s %q: %s", u.Kind(), u.Name, warn)
 	}
 	if fuel > FlowFloor && u.Fuel.Notes != "" {
-		cr.warn("%s %q: fuel %q: %s", u.Kind(), u.Name, u.Fuel.Name, u.Fuel.Notes)
+		cr.warn("%s %q: %s", u.Kind(), u.Name, u.Fuel.Notes)
 	}
 	cr.Boilers = append(cr.Boilers, br)
 	cr.CO2AnalysisKgS += br.CO2AnalysisKgS

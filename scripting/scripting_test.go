@@ -40,6 +40,7 @@ func TestGoodScripts(t *testing.T) {
 		{"study.lua", 0, 1, 6},
 		{"audit.lua", 0, 1, 4},
 		{"observation_tank.lua", 1, 1, 1},
+		{"realism.lua", 2, 1, 3},
 	}
 	for _, tc := range tests {
 		for _, checkOnly := range []bool{false, true} {
