@@ -89,6 +89,13 @@
 // the carbon of the fuel's analysis, the carbon the combustion models
 // burn; each boiler says which factor its co2_kg_h takes (co2_basis).
 //
+// A turbine's steam is given one way (a decoder checks it): eta_is;
+// steam_rate, one figure ("8.5 kg/kWh") or {load, rate} pairs, with
+// rated_power; or the maker's steam_table of {power, flow} pairs. A
+// fuel_heater of service "engine" may take sfoc (one figure or {load,
+// sfoc} pairs) with engine_mcr instead of flow: its oil then follows the
+// case's engine load.
+//
 // # Boiler efficiency from combustion
 //
 // Instead of a table of efficiencies, a boiler's efficiency may come from
