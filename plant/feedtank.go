@@ -354,11 +354,11 @@ func (u *FeedTank) report(ev *eval, cr *CaseResult) error {
 	}
 	mv := ev.x[u.vent]
 	hg, _ := hVapourSat(pt)
-	ur := ComponentResult{Name: u.Name, Kind: u.Kind(), Figures: Figures{
-		{"T_K", t},
-		{"heat_loss_W", q},
-		{"vent_kg_s", mv},
-	}}
+	ur := ComponentResult{Name: u.Name, Kind: u.Kind(), Figures: append(make(Figures, 0, 6),
+		Figure{"T_K", t},
+		Figure{"heat_loss_W", q},
+		Figure{"vent_kg_s", mv},
+	)}
 	if u.steam != nil {
 		ur.Figures = append(ur.Figures, Figure{"heating_steam_kg_s", ev.m(u.steam)})
 	}

@@ -244,12 +244,12 @@ func (u *FeedPump) report(ev *eval, cr *CaseResult) error {
 	// work is the rest (v·Δp/η per kg, but for the flow floor's share).
 	shaft := m*(ev.h(u.out)-ev.h(u.in)) - q
 	el := shaft / u.motorEta()
-	fig := Figures{
-		{"head_Pa", ev.p(u.out) - ev.p(u.in)},
-		{"shaft_W", shaft},
-		{"electric_W", el},
-		{"discharge_Pa", ev.p(u.out)},
-	}
+	fig := append(make(Figures, 0, 5),
+		Figure{"head_Pa", ev.p(u.out) - ev.p(u.in)},
+		Figure{"shaft_W", shaft},
+		Figure{"electric_W", el},
+		Figure{"discharge_Pa", ev.p(u.out)},
+	)
 	if len(u.heat) > 0 {
 		fig = append(fig, Figure{"drain_cooler_heat_W", q})
 		u.checkHotEnd(ev, cr, q)
