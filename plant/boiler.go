@@ -171,6 +171,11 @@ type Burner struct {
 	// and MotorEta its motor's (zero: 0.9). With FanRise zero the fan's
 	// power is not counted.
 	FanRise, FanEta, MotorEta float64
+	// ExcessAir is the burner's excess air (λ − 1, 0.15 for 15 %), from
+	// which the fan's air follows with the fuel's stoichiometric air when
+	// the efficiency is a plain table; a combustion model gives its own
+	// air. It is needed only for the fan of a boiler with a plain table.
+	ExcessAir float64
 }
 
 // NewBoiler returns an oil-fired boiler; give it its MCR, drum pressure,
@@ -252,8 +257,8 @@ var boilerKeys = []Key{
 	{Name: "efficiency", Label: "efficiency", Kind: KeyTable, Required: true,
 		Example: `{ {"25 %", "80 %"}, {"100 %", "85 %"} }`,
 		Doc:     "one figure, a table of {load, efficiency} pairs (LHV basis), or a combustion model (flue_gas or furnace)"},
-	{Name: "burner", Label: "burner", Kind: KeyTable, Example: `{ fan_rise = "3 kPa", fan_eta = "60 %" }`,
-		Doc: "the burner's fan: fan_rise, fan_eta, motor_eta, air_T"},
+	{Name: "burner", Label: "burner", Kind: KeyTable, Example: `{ fan_rise = "3 kPa", fan_eta = "60 %", excess_air = "15 %" }`,
+		Doc: "the burner's fan: fan_rise, fan_eta, motor_eta, air_T, and excess_air (needed for the fan with a plain efficiency table)"},
 }
 
 // setBoilerGrade is the fuel a case sets: a built-in grade, with its LHV,
@@ -345,6 +350,16 @@ func (u *Boiler) check(fs *faults) {
 		checkRange(fs, u, "fan efficiency", u.Burner.FanEta, 0.1, 1, "")
 		if u.Burner.MotorEta != 0 {
 			checkRange(fs, u, "fan motor efficiency", u.Burner.MotorEta, 0.1, 1, "")
+		}
+		if _, plain := u.Efficiency.(*EfficiencyTable); plain {
+			switch {
+			case u.Burner.ExcessAir == 0:
+				fs.add(u.Pos, u.Name, "", "its burner's fan (fan_rise) moves the combustion air, which a plain efficiency table does not give: give the burner's excess air (burner = { excess_air = \"15 %%\", ... }), or an efficiency from a flue-gas table or the furnace")
+			case u.Fuel.Fuel == nil:
+				fs.add(u.Pos, u.Name, "", "its burner's fan needs the fuel's stoichiometric air: give the fuel as a built-in grade (its analysis), not by its lhv alone")
+			default:
+				checkRange(fs, u, "burner excess air", u.Burner.ExcessAir, 0, 2, "")
+			}
 		}
 	}
 	if u.Efficiency == nil {
@@ -841,6 +856,16 @@ func (u *Boiler) report(ev *eval, cr *CaseResult) error {
 	if pt.Losses != nil && fuel > FlowFloor {
 		l := *pt.Losses
 		br.Losses = &l
+	}
+	if u.Burner.FanRise > 0 && br.AirKgS == 0 && fuel > 0 && u.Fuel.Fuel != nil && u.Burner.ExcessAir > 0 {
+		// A plain table: the air from the fuel's stoichiometric air at
+		// the burner's excess air (plant/combustion).
+		prod, err := combustion.Fire(*u.Fuel.Fuel, combustion.Conditions{Lambda: 1 + u.Burner.ExcessAir, AirT: u.airT(ev)})
+		if err != nil {
+			return wrapErr(u, err)
+		}
+		br.AirKgS = fuel * prod.Air
+		br.Lambda = prod.Lambda
 	}
 	if u.Burner.FanRise > 0 && br.AirKgS > 0 {
 		// Air density from the ideal gas law at the fan inlet, dry air

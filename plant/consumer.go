@@ -175,6 +175,10 @@ func (u *Consumer) validate() error {
 // component has laid out its unknowns.
 func (u *Consumer) link(p *Plant, a *assembly, fs *faults) {
 	u.fuel = -1
+	if u.out == nil && u.ReturnFraction > 0 {
+		fs.add(u.Pos, u.Name, "", "returns %.4g %% of its condensate, but has no return line (its port \"out\" is not connected): connect it to the hotwell, or give returns = \"0 %%\" if all its condensate is lost",
+			100*u.ReturnFraction)
+	}
 	u.warms = nil
 	u.linkCooler(p, a, fs)
 	if m, ok := u.Model.(*BoilerWarming); ok {

@@ -41,7 +41,13 @@
 //     ε-NTU.
 //   - ExhaustGasEconomiser: steam from the main engine's exhaust by an
 //     evaporator at saturation, sized by UA or a design pinch, with an
-//     optional bypass damper holding a minimum gas temperature.
+//     optional bypass damper holding a minimum gas temperature and a
+//     preheating section; the engine's table corrected linearly from its
+//     reference conditions to the case's intake air and coolant; gas-side
+//     fouling growing between cleanings (a resistance or a UA fraction
+//     against running hours, averaged over the interval); the acid dew point
+//     of the exhaust (Verhoff–Banchero) against the cold end; cases at
+//     soot-risk loads or gas velocities flagged.
 //   - Header (steam header or any junction, with heat loss condensing
 //     steam), ReducingValve (isenthalpic), Consumer (a duty, a steam flow,
 //     a duty model evaluated per case, or a duty per kg of a boiler's fuel;

@@ -61,7 +61,7 @@ func feedTankKey(k Key, f func(*FeedTank) *float64) Key { return num(k, self[*Fe
 
 var (
 	tankHeatLossKey = feedTankKey(Key{Name: "heat_loss", Label: "heat loss", Dim: units.Power, Example: "8 kW",
-		Doc: "fixed heat loss to the engine room", Default: 0, HasDefault: true, Min: 0, Max: 1e8, Case: true},
+		Doc: "fixed heat loss to the engine room (a hotwell loses kilowatts; at most 2 MW)", Default: 0, HasDefault: true, Min: 0, Max: 2e6, Case: true},
 		func(u *FeedTank) *float64 { return &u.HeatLoss })
 	tankUAKey = feedTankKey(Key{Name: "UA", Label: "UA", Dim: units.ThermalConductance, Example: "0.2 kW/K",
 		Doc: "heat loss conductance to the engine room, with room_T", Default: 0, HasDefault: true, Min: 0, Max: 1e8},
@@ -115,9 +115,7 @@ func (u *FeedTank) check(fs *faults) {
 	if u.P < 0 || !finite(u.P) {
 		fs.add(u.Pos, u.Name, "", "tank pressure must be positive; got %g Pa", u.P)
 	}
-	if u.HeatLoss < 0 || !finite(u.HeatLoss) {
-		fs.add(u.Pos, u.Name, "", "heat loss must be zero or positive; got %g W", u.HeatLoss)
-	}
+	checkKey(fs, u, "heat_loss")
 	if u.UA < 0 || !finite(u.UA) {
 		fs.add(u.Pos, u.Name, "", "UA must be zero or positive; got %g W/K", u.UA)
 	}

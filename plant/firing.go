@@ -305,7 +305,7 @@ func (s *session) restore(fire []bool, k int) {
 func (p *Plant) egeHeat() float64 {
 	var q float64
 	for _, e := range p.s.asm.roles.eges {
-		q += e.op.q
+		q += e.op.gas.q
 	}
 	return q
 }

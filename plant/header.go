@@ -46,7 +46,7 @@ func NewHeader() *Header { return &Header{} }
 var headerKeys = []Key{
 	num(Key{Name: "heat_loss", Label: "heat loss", Dim: units.Power, Example: "20 kW",
 		Doc:     "heat lost by the header and its piping; it condenses steam that the traps drain",
-		Default: 0, HasDefault: true, Min: 0, Max: 1e8, Case: true},
+		Default: 0, HasDefault: true, Min: 0, Max: 2e6, Case: true},
 		self[*Header], func(u *Header) *float64 { return &u.HeatLoss }),
 	choice(Key{Name: "drains", Label: "drains", Choices: []string{"hotwell", "lost"}, Example: `"lost"`,
 		Doc:     `where the traps drain the steam the heat loss condenses: "hotwell" (the plant's feed tank, traps to the cascade tank) or "lost"`,
@@ -69,9 +69,7 @@ func (u *Header) Ports() []PortSpec {
 }
 
 func (u *Header) check(fs *faults) {
-	if u.HeatLoss < 0 || !finite(u.HeatLoss) {
-		fs.add(u.Pos, u.Name, "", "heat loss must be zero or positive; got %g W", u.HeatLoss)
-	}
+	checkKey(fs, u, "heat_loss")
 }
 
 func (u *Header) assemble(a *assembly, ports portLines) {

@@ -8,6 +8,8 @@ import (
 	"testing"
 
 	"gonum.org/v1/gonum/mat"
+
+	"steamcase/solver"
 )
 
 // jacFixture is a plant of the package's tests with the cases it is
@@ -395,8 +397,7 @@ func TestJacobianAllocatesNothing(t *testing.T) {
 		p := fx.build(t)
 		_, err := p.Solve(context.Background(), fx.cases[0])
 		must(t, err)
-		n := p.s.prob.Dim
-		j := mat.NewDense(n, n, nil)
+		j := solver.NewSparse(p.s.prob.Dim, p.s.prob.Pattern)
 		x := append([]float64(nil), p.s.last...)
 		must(t, p.jacobian(j, x))
 		if a := testing.AllocsPerRun(20, func() {
@@ -418,9 +419,8 @@ func TestJacobianKeepsUnknowns(t *testing.T) {
 		p := fx.build(t)
 		_, err := p.Solve(context.Background(), fx.cases[0])
 		must(t, err)
-		n := p.s.prob.Dim
 		x := append([]float64(nil), p.s.last...)
-		must(t, p.jacobian(mat.NewDense(n, n, nil), x))
+		must(t, p.jacobian(solver.NewSparse(p.s.prob.Dim, p.s.prob.Pattern), x))
 		for i := range x {
 			if math.Float64bits(x[i]) != math.Float64bits(p.s.last[i]) {
 				t.Errorf("%s: the Jacobian changed %q from %v to %v", fx.name, p.s.asm.varNames[i], p.s.last[i], x[i])
@@ -459,10 +459,10 @@ func BenchmarkJacobian(b *testing.B) {
 			if _, err := p.Solve(context.Background(), fx.cases[0]); err != nil {
 				b.Fatal(err)
 			}
-			n := p.s.prob.Dim
-			j := mat.NewDense(n, n, nil)
+			j := solver.NewSparse(p.s.prob.Dim, p.s.prob.Pattern)
 			x := append([]float64(nil), p.s.last...)
 			for b.Loop() {
+				j.Zero()
 				if err := p.jacobian(j, x); err != nil {
 					b.Fatal(err)
 				}

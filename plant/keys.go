@@ -143,24 +143,64 @@ func (k *Key) InRange(v float64) bool {
 	return v >= k.Min && v <= k.Max
 }
 
-// siUnit is the unit a message gives SI values in.
-func (k *Key) siUnit() string {
-	if k.Kind != KeyQuantity && k.Kind != KeyPressureDiff {
-		return ""
-	}
-	if k.Kind == KeyPressureDiff {
-		return "Pa"
-	}
-	if k.Dim == units.Fraction {
-		return ""
-	}
-	return k.Dim.SIUnit()
+// rangeMsg is the fault of a value outside the key's range, as every
+// component's check words it: in the unit of the key's example, without
+// the noise of the conversion.
+func (k *Key) rangeMsg(v float64) string {
+	return fmt.Sprintf("%s must lie between %s and %s; got %s", k.Label, k.Show(k.Min), k.Show(k.Max), k.Show(v))
 }
 
-// rangeMsg is the fault of a value outside the key's range, as every
-// component's check words it.
-func (k *Key) rangeMsg(v float64) string {
-	return fmt.Sprintf("%s must lie between %g and %g %s; got %g", k.Label, k.Min, k.Max, k.siUnit(), v)
+// Show writes v (SI) as a script would give it: a quantity in the unit of
+// the key's example with at most six significant digits (a fraction in
+// percent), a flag as true or false, a choice by its name.
+func (k *Key) Show(v float64) string {
+	switch k.Kind {
+	case KeyFlag:
+		if v != 0 {
+			return "true"
+		}
+		return "false"
+	case KeyChoice:
+		if i := int(v); float64(i) == v && i >= 0 && i < len(k.Choices) {
+			return strconv.Quote(k.Choices[i])
+		}
+	case KeyQuantity:
+		return showLike(v, k.Dim, k.Example)
+	case KeyPressureDiff:
+		return strconv.FormatFloat(v/1e5, 'g', 6, 64) + " bar"
+	}
+	return strconv.FormatFloat(v, 'g', 6, 64)
+}
+
+// RangeText says the range of a given value, "between 5 % and 100 %", or
+// "" when the key has none.
+func (k *Key) RangeText() string {
+	if k.Min == 0 && k.Max == 0 {
+		return ""
+	}
+	return "between " + k.Show(k.Min) + " and " + k.Show(k.Max)
+}
+
+// showLike writes an SI value in the unit of an example, with at most six
+// significant digits; a fraction written as a plain number (an example
+// such as "0.98") as a number, else in percent.
+func showLike(v float64, dim units.Dimension, example string) string {
+	unit := ""
+	if f := strings.Fields(example); len(f) >= 2 {
+		unit = strings.Join(f[1:], " ")
+	}
+	if dim == units.Fraction {
+		if unit == "" && example != "" {
+			return strconv.FormatFloat(v, 'g', 6, 64)
+		}
+		return strconv.FormatFloat(100*v, 'g', 6, 64) + " %"
+	}
+	if unit != "" {
+		if x, err := units.FromSI(v, unit); err == nil {
+			return strconv.FormatFloat(x, 'g', 6, 64) + " " + unit
+		}
+	}
+	return strconv.FormatFloat(v, 'g', 6, 64) + " " + dim.SIUnit()
 }
 
 // DefaultText is the default as the documentation shows it: in words, or
@@ -180,30 +220,8 @@ func (k *Key) DefaultText() string {
 		if i := int(k.Default); i >= 0 && i < len(k.Choices) {
 			return strconv.Quote(k.Choices[i])
 		}
-	case k.Kind == KeyQuantity:
-		return formatLike(k.Default, k.Dim, k.Example)
-	case k.Kind == KeyPressureDiff:
-		return strconv.FormatFloat(k.Default/1e5, 'g', 6, 64) + " bar"
 	}
-	return strconv.FormatFloat(k.Default, 'g', 6, 64)
-}
-
-// formatLike formats an SI value in the unit of an example ("7 bar(g)"
-// gives bar(g)); a fraction in percent.
-func formatLike(v float64, dim units.Dimension, example string) string {
-	unit := ""
-	if f := strings.Fields(example); len(f) >= 2 {
-		unit = strings.Join(f[1:], " ")
-	}
-	if dim == units.Fraction || unit == "%" {
-		return strconv.FormatFloat(100*v, 'g', 6, 64) + " %"
-	}
-	if unit != "" {
-		if s, err := units.Format(v, unit); err == nil {
-			return s
-		}
-	}
-	return strconv.FormatFloat(v, 'g', 6, 64) + " " + dim.SIUnit()
+	return k.Show(k.Default)
 }
 
 // Key binders. Each ties a key to a field of its owner: the component, or

@@ -1,10 +1,8 @@
 package plant
 
 import (
-	"errors"
 	"fmt"
 	"math"
-	"strings"
 
 	"github.com/rs/zerolog"
 
@@ -54,6 +52,22 @@ func (o *Options) defaults() {
 	}
 	if o.FeedSuctionMaxT == 0 {
 		o.FeedSuctionMaxT = 363.15
+	}
+}
+
+// check adds a fault for each option out of its range.
+func (o *Options) check(fs *faults, pos Pos) {
+	if !(o.AmbientPressure >= 5e4 && o.AmbientPressure <= 1.5e5) {
+		fs.add(pos, "", "", "the ambient pressure must lie between 0.5 and 1.5 bar(a); got %g Pa", o.AmbientPressure)
+	}
+	if !(o.UsableFraction >= 0.5 && o.UsableFraction <= 1) {
+		fs.add(pos, "", "", "the usable fraction of a boiler's MCR must lie between 50 %% and 100 %%; got %g %%", 100*o.UsableFraction)
+	}
+	if !(o.LeadLoad > 0 && o.LeadLoad <= 1) {
+		fs.add(pos, "", "", "the lead boiler's load must lie above 0 %% and at most 100 %% of its MCR; got %g %%", 100*o.LeadLoad)
+	}
+	if !(o.FeedSuctionMaxT > 273.15 && o.FeedSuctionMaxT < 423.15) {
+		fs.add(pos, "", "", "the feed suction's warning temperature must lie between 0 and 150 °C; got %g K", o.FeedSuctionMaxT)
 	}
 }
 
@@ -154,6 +168,7 @@ func (p *Plant) compile() error {
 		fs.add(p.Pos, "", "", "plant %q has no units", p.Name)
 		return fs.err()
 	}
+	p.Opt.check(&fs, p.Pos)
 	for _, c := range p.comps {
 		c.check(&fs)
 	}
@@ -162,6 +177,10 @@ func (p *Plant) compile() error {
 		return err
 	}
 	a := p.layout(ports, &fs)
+	if err := fs.err(); err != nil {
+		return err
+	}
+	p.checkPressures(&fs)
 	if err := fs.err(); err != nil {
 		return err
 	}
@@ -303,7 +322,8 @@ func (p *Plant) newSolver(s *session) error {
 		Residual: p.residual,
 	}
 	if !p.Opt.FiniteDifferences {
-		s.prob.Jacobian = p.jacobian
+		s.prob.SparseJacobian = p.jacobian
+		s.jac = newJac()
 	}
 	slv, err := solver.New(s.prob, p.solverSettings())
 	if err != nil {
@@ -311,15 +331,6 @@ func (p *Plant) newSolver(s *session) error {
 	}
 	s.slv = slv
 	return nil
-}
-
-// structureErr turns the solver's structural diagnosis into a plant fault.
-func (p *Plant) structureErr(err error) error {
-	if errors.Is(err, solver.ErrStructure) {
-		msg := strings.TrimPrefix(err.Error(), "solver: ")
-		return &GraphError{Faults: []Fault{{Pos: p.Pos, Msg: "degrees of freedom do not balance: " + msg}}}
-	}
-	return err
 }
 
 func (p *Plant) solverSettings() *solver.Settings {

@@ -7,6 +7,8 @@ import (
 	"strings"
 	"testing"
 
+	"steamcase/plant/combustion"
+	"steamcase/plant/fuel"
 	"steamcase/plant/water"
 )
 
@@ -330,7 +332,7 @@ func TestGraphFaults(t *testing.T) {
 				p.Connect("hp", Pos{}, "b1", "steam", "tg", "in")
 				p.Connect("bp", Pos{}, "tg", "out", "lp user", "in")
 			},
-			want: []string{"degrees of freedom do not balance", "lp user: duty", "tg: shaft power"},
+			want: []string{"degrees of freedom do not balance", `"lp user"`, `"tg"`, "two set points act on one flow"},
 		},
 		{
 			name: "free pressure",
@@ -582,4 +584,38 @@ func TestObservationTank(t *testing.T) {
 	if cr.Balance.MassRel > 1e-9 || cr.Balance.EnergyRel > 1e-6 {
 		t.Errorf("balances %+v", cr.Balance)
 	}
+}
+
+// TestFanWithTableEfficiency: a boiler whose efficiency is a plain table
+// counts its burner's fan from its fuel flow, the fuel's stoichiometric
+// air and the burner's excess air (air = fuel·A_st·λ, plant-checks.md §2.1
+// [C]; fan power = V·Δp/η, plant-checks.md §9 [C] for a pump's form), and
+// refuses a fan it cannot count (issue 16: never ignore a key given).
+func TestFanWithTableEfficiency(t *testing.T) {
+	t.Parallel()
+	hfo, err := fuel.Grade("HSFO")
+	must(t, err)
+	spec, err := SpecFromFuel(hfo)
+	must(t, err)
+	build := func(b Burner) *Plant {
+		p := New("fan", Options{})
+		must(t, p.Add(&MakeUp{Base: Base{Name: "makeup"}, T: 333.15, P: 1e5}))
+		must(t, p.Add(&Boiler{Base: Base{Name: "b1"}, MCR: 4, DrumP: gauge(7), Efficiency: flatEta(0.85), Fuel: spec, Burner: b}))
+		must(t, p.Add(&Consumer{Base: Base{Name: "load"}, SteamFlow: 2}))
+		p.Connect("feed", Pos{}, "makeup", "out", "b1", "feed")
+		p.Connect("steam", Pos{}, "b1", "steam", "load", "in")
+		return p
+	}
+	if err := build(Burner{FanRise: 3000, FanEta: 0.6}).Check(); err == nil || !strings.Contains(err.Error(), "give the burner's excess air") {
+		t.Errorf("a fan without the air it moves: %v", err)
+	}
+	b := Burner{FanRise: 3000, FanEta: 0.6, MotorEta: 0.9, ExcessAir: 0.15, AirT: 308.15}
+	cr, err := build(b).Solve(context.Background(), Case{Name: "fan"})
+	must(t, err)
+	prod, err := combustion.Fire(hfo, combustion.Conditions{Lambda: 1.15, AirT: 308.15})
+	must(t, err)
+	air := cr.Boilers[0].FuelKgS * prod.Air
+	rho := 101325 * 28.964e-3 / (8.314462618 * 308.15) // ideal gas, dry air
+	within(t, "fan electric W", cr.Boilers[0].FanElectricW, air/rho*3000/0.6/0.9, 1e-9)
+	within(t, "dry air kg/kg = 1.15 × stoichiometric", prod.DryAir, 1.15*prod.Stoich.Air, 1e-9)
 }

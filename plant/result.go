@@ -12,6 +12,7 @@ import (
 // reports and scripts, in the units its keys name.
 type CaseResult struct {
 	Name       string
+	Series     string // the sweep the case belongs to, if any (Case.Series)
 	Pos        Pos
 	Conditions Conditions
 

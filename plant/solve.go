@@ -13,7 +13,10 @@ import (
 // that differ from the plant's (a consumer's duty, a turbine's power, a
 // component switched off), and optionally which boilers must fire.
 type Case struct {
-	Name       string
+	Name string
+	// Series groups cases a script solves as one sweep (a sea temperature
+	// from 0 to 30 °C, say): the report shows them as one table.
+	Series     string
 	Pos        Pos
 	Conditions Conditions
 	Set        []Setting
@@ -62,7 +65,8 @@ type session struct {
 	keepRes    solver.Result
 	keepSolves int
 
-	ev eval
+	ev  eval
+	jac jac // the Jacobian's remembered entry places
 }
 
 // domainErr marks a component's failure while the solver explores: the
@@ -194,6 +198,10 @@ func (p *Plant) applySettings(c *Case) (restore func(), err error) {
 			}
 		}
 	}
+	if len(c.Set) > 0 {
+		// A case may move the set pressures (a drum, a valve).
+		p.checkPressures(&fs)
+	}
 	if err := fs.err(); err != nil {
 		restore()
 		return nil, err
@@ -228,11 +236,14 @@ func (p *Plant) Solve(ctx context.Context, c Case) (*CaseResult, error) {
 		if err := p.solveConfig(ctx, fire); err != nil {
 			return nil, p.solveErr(c, err)
 		}
+		if err := p.forcedOffShort(c, fire); err != nil {
+			return nil, err
+		}
 	} else if err := p.decide(ctx, fire); err != nil {
 		return nil, p.solveErr(c, err)
 	}
 
-	cr := &CaseResult{Name: c.Name, Pos: c.Pos, Conditions: c.Conditions, Forced: forced}
+	cr := &CaseResult{Name: c.Name, Series: c.Series, Pos: c.Pos, Conditions: c.Conditions, Forced: forced}
 	if err := p.report(cr); err != nil {
 		return nil, err
 	}
@@ -262,6 +273,29 @@ func (p *Plant) forcedFiring(c Case, fire []bool) error {
 	if len(c.Fire) == 0 && len(p.s.asm.roles.dumps) == 0 && len(boilers) > 0 {
 		fs.add(c.Pos, "", "", "case %q forces every boiler off, but without an exhaust-gas economiser and a dump condenser nothing raises steam", c.Name)
 	}
+	return fs.err()
+}
+
+// forcedOffShort refuses a case that forces every boiler off when the
+// exhaust-gas economisers cannot carry it: the dump condenser would have to
+// give steam back.
+func (p *Plant) forcedOffShort(c Case, fire []bool) error {
+	for _, f := range fire {
+		if f {
+			return nil
+		}
+	}
+	dumped := p.dumpFlow()
+	if dumped >= -FlowFloor {
+		return nil
+	}
+	var raised float64
+	for _, e := range p.s.asm.roles.eges {
+		raised += p.s.last[e.steam.mIdx()]
+	}
+	var fs faults
+	fs.add(c.Pos, "", "", "case %q forces every boiler off, but the exhaust-gas economisers raise %.0f kg/h against a demand of %.0f kg/h with the main engine at %.0f %% of MCR: fire a boiler, or give an engine load at which the economisers carry the demand",
+		c.Name, raised*3600, (raised-dumped)*3600, 100*c.Conditions.EngineLoad)
 	return fs.err()
 }
 
@@ -337,6 +371,10 @@ type SolveError struct {
 	Pos    Pos
 	Status solver.Status
 	Err    error
+	// Hint says, in the plant's terms, what most likely stops the case
+	// and what to change; "" when nothing stands out (the solver's own
+	// message then says what it met).
+	Hint string
 }
 
 func (e *SolveError) Error() string {
@@ -344,13 +382,25 @@ func (e *SolveError) Error() string {
 	if s := e.Pos.String(); s != "" {
 		pre = s + ": "
 	}
-	return fmt.Sprintf("%scase %q: no balance found (%s): %v", pre, e.Case, e.Status, e.Err)
+	return fmt.Sprintf("%scase %q: %s", pre, e.Case, e.Reason())
+}
+
+// Reason is the message without the case: the hint, or the solver's.
+func (e *SolveError) Reason() string {
+	if e.Hint != "" {
+		return "no balance found: " + e.Hint
+	}
+	return fmt.Sprintf("no balance found (%s): %v", e.Status, e.Err)
 }
 
 func (e *SolveError) Unwrap() error { return e.Err }
 
 func (p *Plant) solveErr(c Case, err error) error {
-	return &SolveError{Case: c.Name, Pos: c.Pos, Status: p.s.slvRes.Status, Err: err}
+	se := &SolveError{Case: c.Name, Pos: c.Pos, Status: p.s.slvRes.Status, Err: err, Hint: p.failureHint(c)}
+	if se.Hint != "" {
+		p.Opt.Logger.Debug().Str("case", c.Name).Err(err).Msg("the solver's failure")
+	}
+	return se
 }
 
 // report fills cr from the last converged point.

@@ -31,6 +31,18 @@ return steam_plant {
       { load = "75 %", gas = "8.4 kg/kWh", T = "232 C" },
       { load = "100 %", gas = "8.1 kg/kWh", T = "248 C" } },
     design_load = "85 %", pinch = "40 K", min_gas_T = "165 C", bypass = true,
+    -- The table holds at the engine maker's reference (25 C intake air); the
+    -- engine draws engine-room air, taken 10 K above the outside air
+    -- (invented, common practice, no source).
+    intake_rise = "10 K",
+    -- The engine burns VLSFO with 13 % O2 in its dry exhaust (invented): the
+    -- exhaust's enthalpy by the NASA polynomials and its acid dew point.
+    exhaust_fuel = "VLSFO", exhaust_O2 = "13 %",
+    -- Soot on the gas side grows by 0.001 m2K/W per 1000 h of running on a
+    -- clean surface of U 40 W/m2K, and water washing every 2000 h removes it
+    -- (invented, within heat-transfer.md §5: soot allowances 0.001-0.005
+    -- m2K/W [CP/M], U about 40 W/m2K in its worked example [C]).
+    fouling_rate = "0.001 m2K/W", clean_U = "40 W/m2K", clean_interval = "2000 h",
   },
   dump_condenser = { subcool = "80 K" },
   -- The dump condenser's condensate and the returns keep the hotwell above 85 C

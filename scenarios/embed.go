@@ -13,8 +13,10 @@
 //   - audit_heating.lua: an auditor's check of a claimed cargo-heating
 //     consumption for one loaded passage.
 //   - voyage.lua with voyage.csv: a voyage plan, period by period.
-//   - ege_study.lua with year_profile.csv: a year's saving of exhaust-gas
-//     economisers of several sizes.
+//   - ege_study.lua with year_profile.csv: a designer's study of
+//     exhaust-gas economiser variants, each with its installed cost, over a
+//     year: savings, NPV and payback, cold-end and soot-risk hours, and a
+//     sweep of its UA for the size of highest NPV.
 //   - audit.lua with passage_log.csv: a day-by-day audit of reported boiler
 //     fuel against a Monte Carlo band.
 package scenarios

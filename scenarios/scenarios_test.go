@@ -75,9 +75,24 @@ func TestScenarios(t *testing.T) {
 				}
 			}
 			for _, s := range run.Studies {
-				for _, v := range s.Result.Variants {
+				r := s.Result
+				for _, v := range r.Variants {
 					fmt.Fprintf(&b, "study %q, variant %q: fuel %.3f t, saved %.3f t, CO2 avoided %.3f t\n",
 						s.Name, v.Name, v.Totals.FuelT, v.FuelSavedT, v.CO2AvoidedT)
+					if r.HasNPV {
+						fmt.Fprintf(&b, "  cost %.0f, saving %.0f/yr, NPV %.0f, payback %.3f yr; hours below min %.0f, near acid dew %.0f, soot risk %.0f; fouling lost %.1f t\n",
+							v.InstalledCost, v.AnnualSaving, v.NPV, v.PaybackYears, v.HoursBelowMinGasT, v.HoursBelowAcidDew, v.HoursSootRisk, v.Totals.EGEFoulingLostT)
+					}
+				}
+				if sw := r.Sweep; sw != nil {
+					for k, pt := range sw.Points {
+						best := ""
+						if k == sw.Best {
+							best = " best"
+						}
+						fmt.Fprintf(&b, "  sweep %s.%s %.6g: UA %.1f W/K, cost %.0f, saved %.3f t, dumped %.1f t, NPV %.0f%s\n",
+							sw.Unit, sw.Param, pt.Value, pt.UA, pt.InstalledCost, pt.FuelSavedT, pt.DumpedT, pt.NPV, best)
+					}
 				}
 			}
 			for _, a := range run.Audits {
@@ -169,5 +184,25 @@ func TestHandCheckTankerPort(t *testing.T) {
 	// Blowdown is 1 % of the feed (the script's figure).
 	if d := math.Abs(b.BlowdownKgS/(b.SteamKgS+b.BlowdownKgS) - 0.01); d > 1e-12 {
 		t.Errorf("blowdown fraction off by %g", d)
+	}
+}
+
+// TestScenariosCheckMode runs every scenario in check mode, where nothing
+// is solved and the jobs return their shape with zero figures: a script's
+// own arithmetic on those tables must still run (common practice, no
+// source: check mode is how a user tries a script before solving it).
+func TestScenariosCheckMode(t *testing.T) {
+	t.Parallel()
+	for _, name := range scripts(t) {
+		t.Run(name, func(t *testing.T) {
+			t.Parallel()
+			src, err := fs.ReadFile(scenarios.FS, name)
+			if err != nil {
+				t.Fatal(err)
+			}
+			if _, err := scripting.RunSource(context.Background(), name, src, scenarios.FS, scripting.Options{CheckOnly: true, Timeout: time.Minute}); err != nil {
+				t.Errorf("%s in check mode: %v", name, err)
+			}
+		})
 	}
 }

@@ -7,10 +7,20 @@ local ship = include("tanker_plant.lua")
 
 local v = voyage(ship, { name = "loaded voyage with discharge", csv = "voyage.csv" })
 
-print(string.format("voyage: %.1f t of boiler fuel, %.1f t CO2 over %.0f h; both boilers fire %.0f h",
+print(string.format("voyage: %.1f t of boiler fuel, %.1f t CO2 over %.0f h; both boilers fire %.1f h",
   v.total.fuel_t, v.total.co2_t, v.total.hours, v.total.hours_two_boilers))
 check(v.total.hours == 336, "the plan covers 14 days")
-check(v.by_phase["discharge"].hours_two_boilers == 30, "both boilers fire through the discharge")
+check(v.by_phase["discharge"].hours_two_boilers == 4.5, "both boilers fire while the three cargo pumps run")
+
+-- The cargo pumps move the cargo the tanks hold, 30 000 m3 (the cargo
+-- heating's volume in tanker_plant.lua): three pumps at their 2000 m3/h in
+-- bulk and one at 1000 m3/h stripping (voyage.csv).
+local pumped = 0
+for _, r in ipairs(v.rows) do
+  if r.case == "discharge, three pumps" then pumped = pumped + 3 * 2000 * r.hours end
+  if r.case == "stripping, one pump" then pumped = pumped + 1000 * r.hours end
+end
+check(math.abs(pumped - 30000) < 1e-6, "the cargo pumps discharge the 30 000 m3 the tanks hold")
 check(v.by_phase["loaded passage"].hours_two_boilers == 0, "one boiler carries the loaded passage")
 check(#v.total.short_rows == 0, "the plant carries every period of the plan")
 

@@ -2,11 +2,13 @@ package scripting
 
 import (
 	"fmt"
+	"strconv"
 	"strings"
 
 	lua "github.com/yuin/gopher-lua"
 
 	"steamcase/plant"
+	"steamcase/plant/units"
 )
 
 // Declaring a component. Every kind of component a script can declare is
@@ -111,13 +113,13 @@ func (r *runner) readKey(a *args, u plant.Component, k *plant.Key, required bool
 	switch k.Kind {
 	case plant.KeyQuantity:
 		v, ok := a.quantity(k.Name, k.Dim, required)
-		if ok {
+		if ok && a.inRange(k, k.Name, v, a.t.RawGetString(k.Name)) {
 			k.Set(u, v)
 		}
 		return ok
 	case plant.KeyPressureDiff:
 		v, ok := a.pressureDiff(k.Name, required)
-		if ok {
+		if ok && a.inRange(k, k.Name, v, a.t.RawGetString(k.Name)) {
 			k.Set(u, v)
 		}
 		return ok
@@ -131,8 +133,10 @@ func (r *runner) readKey(a *args, u plant.Component, k *plant.Key, required bool
 		return true
 	case plant.KeyNumber:
 		v, ok := a.number(k.Name)
-		if ok {
+		if ok && a.inRange(k, k.Name, v, a.t.RawGetString(k.Name)) {
 			k.Set(u, v)
+		} else if ok {
+			return true
 		} else if required && a.get(k.Name) == lua.LNil {
 			a.errorf(nil, "%s is required, such as %s = %s", k.Name, k.Name, k.Example)
 			a.markMissing(k.Name)
@@ -174,6 +178,51 @@ func (r *runner) readKey(a *args, u plant.Component, k *plant.Key, required bool
 		return true
 	}
 	panic(fmt.Sprintf("scripting: key %q of %s is a %s: its kind needs a decoder", k.Name, u.Kind(), k.Kind))
+}
+
+// inRange reports a given value outside its key's range, with the range
+// in the units of the key's example and the value as it was given (a zero
+// given is checked like any value: only a key not given takes its
+// default).
+func (a *args) inRange(k *plant.Key, name string, v float64, given lua.LValue) bool {
+	if err := rangeErr(k, name, v, given); err != nil {
+		a.errorf(err, "%v", err)
+		return false
+	}
+	return true
+}
+
+// rangeErr is the error of a value outside its key's range, or nil.
+func rangeErr(k *plant.Key, name string, v float64, given lua.LValue) error {
+	if k.InRange(v) {
+		return nil
+	}
+	hint := ""
+	if k.Kind == plant.KeyQuantity && k.Dim == units.Fraction {
+		hint = percentHint(given, k.Min, k.Max)
+	}
+	return fmt.Errorf("%s must lie %s; got %s%s", name, k.RangeText(), asGiven(given), hint)
+}
+
+// asGiven is a value as the script gave it, for messages: a string as
+// written (cut to a few dozen characters), a number as a number.
+func asGiven(v lua.LValue) string {
+	switch x := v.(type) {
+	case lua.LString:
+		return cut(string(x))
+	case lua.LNumber:
+		return strconv.FormatFloat(float64(x), 'g', -1, 64)
+	}
+	return describe(v)
+}
+
+// cut shortens a text a message echoes to a few dozen characters.
+func cut(s string) string {
+	const max = 40
+	if r := []rune(s); len(r) > max {
+		return string(r[:max]) + "…"
+	}
+	return s
 }
 
 // choiceList writes `"a", "b" or "c"`.

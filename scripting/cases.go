@@ -84,9 +84,10 @@ func (r *runner) luaCase(L *lua.LState) int {
 	}
 	a.what = fmt.Sprintf("case %q", name)
 	c := plant.Case{Name: name, Pos: plant.Pos{File: pos.File, Line: pos.Line}}
+	c.Series, _ = a.str("series", false)
 	c.Conditions.SeaT, _ = a.quantity("sea", units.Temperature, false)
 	c.Conditions.AirT, _ = a.quantity("air", units.Temperature, false)
-	c.Conditions.EngineLoad, _ = a.quantity("engine", units.Fraction, false)
+	c.Conditions.EngineLoad = a.engineLoad()
 	if v := a.get("set"); v != lua.LNil {
 		c.Set = r.caseSettings(ph, a, v, c.Pos)
 	}
@@ -112,7 +113,7 @@ func (r *runner) luaCase(L *lua.LState) int {
 		r.checkPlantOnce(ph)
 		r.out.Cases = append(r.out.Cases, CaseRecord{Plant: ph.p.Name, Pos: pos})
 		cr := ph.p.Outline(name, c.Conditions)
-		cr.Pos = c.Pos
+		cr.Pos, cr.Series = c.Pos, c.Series
 		L.Push(r.resultTable(schema.NewCase(ph.p.Name, cr)))
 		return 1
 	}
@@ -127,7 +128,7 @@ func (r *runner) luaCase(L *lua.LState) int {
 		ph.checked = true
 		var se *plant.SolveError
 		if errors.As(err, &se) {
-			r.raise(&Error{Pos: pos, Unit: a.what, Msg: fmt.Sprintf("no balance found (%s): %v", se.Status, se.Err), Err: err})
+			r.raise(&Error{Pos: pos, Unit: a.what, Msg: se.Reason(), Err: err})
 		}
 		r.addPlantErrIn(ph, err, a.what, fmt.Sprintf(" (solving %s at %s)", a.what, pos))
 		r.raise(stopRun{})
@@ -200,6 +201,9 @@ func (r *runner) caseSettings(ph *plantHandle, a *args, v lua.LValue, pos plant.
 				continue
 			}
 			f, err := parseSetting(val, k, name, ph.uopt)
+			if err == nil {
+				err = rangeErr(k, name, f, val)
+			}
 			if err != nil {
 				sub.errorf(err, "%v", err)
 				continue

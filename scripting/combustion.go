@@ -33,16 +33,20 @@ func decodeEGE(r *runner, a *args, ph *plantHandle, c plant.Component) {
 		a.errorf(nil, "engine is required: engine = { mcr = \"12 MW\", { load = \"25 %%\", gas = \"11 kg/kWh\", T = \"250 C\" }, ... }")
 	}
 	hasUA := r.readNamed(a, u, "ua", false)
-	r.readNamed(a, u, "design_gas", false)
+	hasDG := r.readNamed(a, u, "design_gas", false)
 	hasDL := r.readNamed(a, u, "design_load", false)
 	hasPinch := r.readNamed(a, u, "pinch", false)
 	switch {
-	case hasUA && (hasDL || hasPinch):
-		a.errorf(nil, "give its size as ua (with design_gas) or as design_load with pinch, not both")
+	case hasUA && hasPinch:
+		a.errorf(nil, "give its size as ua (at design_gas or at the gas flow of design_load) or as design_load with pinch, not both")
+	case hasUA && hasDG && hasDL:
+		a.errorf(nil, "ua holds at one reference gas flow: give design_gas or design_load, not both")
+	case !hasUA && hasDG:
+		a.errorf(nil, "design_gas is the gas flow at which ua holds; it needs ua")
 	case !hasUA && hasDL != hasPinch:
-		a.errorf(nil, "design_load and pinch go together (the engine load at which the gas leaves pinch kelvin above saturation), such as design_load = \"85 %%\", pinch = \"15 K\"")
+		a.errorf(nil, "design_load and pinch go together (the engine load at which the gas leaves pinch kelvin above saturation), such as design_load = \"85 %%\", pinch = \"15 K\"; or give ua, which then holds at the gas flow of design_load")
 	case !hasUA && !hasDL && !hasPinch:
-		a.errorf(nil, "needs its size: ua = \"60 kW/K\" (with design_gas = \"30 kg/s\"), or design_load = \"85 %%\" with pinch = \"15 K\"")
+		a.errorf(nil, "needs its size: ua = \"60 kW/K\" (at design_gas = \"30 kg/s\" or at the gas flow of design_load = \"85 %%\"), or design_load = \"85 %%\" with pinch = \"15 K\"")
 	}
 	r.readNamed(a, u, "gas_cp", false)
 	if name, ok := a.str("exhaust_fuel", false); ok {
@@ -53,9 +57,6 @@ func decodeEGE(r *runner, a *args, ph *plantHandle, c plant.Component) {
 			u.ExhaustFuel = &f
 		}
 		r.readNamed(a, u, "exhaust_O2", true)
-		if u.GasCp > 0 {
-			a.errorf(nil, "give gas_cp or exhaust_fuel with exhaust_O2, not both")
-		}
 	} else if a.has("exhaust_O2") {
 		a.errorf(nil, "exhaust_O2 needs exhaust_fuel (the engine's fuel grade, such as \"VLSFO\")")
 	}
@@ -349,6 +350,7 @@ func (r *runner) burner(a *args) plant.Burner {
 	b.FanRise, _ = p.pressureDiff("fan_rise", false)
 	b.FanEta, _ = p.quantity("fan_eta", units.Fraction, b.FanRise > 0)
 	b.MotorEta, _ = p.quantity("motor_eta", units.Fraction, false)
+	b.ExcessAir, _ = p.quantity("excess_air", units.Fraction, false)
 	p.done()
 	a.nerr += p.nerr
 	return b

@@ -233,7 +233,9 @@
 // case keys: name (default "case N"); sea and air (temperatures); engine
 // (fraction of main engine MCR); set (per unit, the keys below); fire
 // (list of boilers that must fire; the others stay cold; without it the
-// plant's firing rule decides). The keys of set are, for each unit, the
+// plant's firing rule decides); series (a name shared by cases that
+// sweep one quantity: consecutive cases of one series are reported as one
+// table, a column per case, and carried in the JSON as "series"). The keys of set are, for each unit, the
 // keys of its kind that KeyReference marks "a case may set it" (a
 // consumer's duty, steam, returns, subcool, return_T, off and factor; a
 // boiler's mcr, drum, dryness, blowdown and eta_factor; ...).
@@ -297,19 +299,46 @@
 //
 //	local s = study(ship, { name = "EGE", csv = "year.csv", variants = {
 //	    { name = "without EGE", set = { EGE = { off = true } } },
-//	    { name = "with EGE" } }, fuel_price = 650, installed_cost = 250000, currency = "USD" })
+//	    { name = "with EGE", installed_cost = 250000 },
+//	    { name = "larger EGE", set = { EGE = { ua = "40 kW/K" } }, installed_cost = 320000 } },
+//	  fuel_price = 650, carbon_price = 80, currency = "USD", life = 15, discount_rate = "8 %",
+//	  sweep = { unit = "EGE", key = "ua", from = "5 kW/K", to = "60 kW/K", steps = 12,
+//	    cost = { at = "20 kW/K", cost = 300000, exponent = 0.6, fixed = 50000 } } })
 //
 // study runs the rows (rows or csv, as for voyage) once per variant (2 to
-// 100; name required, set optional, added to every row) and compares each
-// with the first. fuel_price (number, per tonne of boiler fuel),
-// installed_cost (number) and currency (a string) are optional. The
-// result: s.hours, s.fuel_price_per_t, s.installed_cost, s.currency;
-// s.variants[i] and s.by_name["with EGE"] (a convenience: the same table)
-// hold the variant's name, totals (as a voyage's, under .totals:
-// s.variants[2].totals.fuel_t), fuel_saved_t, co2_avoided_t, cost_saved
-// (against the first), payback_years (when both money figures are given
-// and the variant saves something, nil otherwise; the saving is scaled to
-// a year when the rows' hours are not one), hours_below_min_gas_T.
+// 100; name required, set optional, added to every row, and any key a case
+// may set, an exhaust-gas economiser's drum, ua, pinch, preheat_ua,
+// min_gas_T or fouling among them) and compares each with the first. Each
+// variant may give its own installed_cost; a variant without one costs the
+// study's installed_cost, and the first then nothing. fuel_price (per
+// tonne of boiler fuel), carbon_price (per tonne of CO2), installed_cost
+// (numbers, not negative) and currency (a string) are optional; life (whole
+// years, 1 to 60) and discount_rate ("8 %" or 0.08, not negative) go
+// together and give each variant's NPV. sweep runs the rows once more for
+// each size of an exhaust-gas economiser: key "ua" or "pinch", the sizes
+// as from, to and steps (2 to 100, evenly spaced) or as values = {...},
+// set (optional, as a variant's) for every size, and cost = { at, cost,
+// exponent (default 0.6), fixed (default 0) }: the installed cost fixed +
+// cost·(UA/at)^exponent at the size's clean UA; the best size is the one of
+// highest NPV, so a sweep needs fuel_price (or carbon_price), life and
+// discount_rate. The result: s.hours, s.fuel_price_per_t, s.installed_cost,
+// s.currency, s.carbon_price_per_t_co2, s.life_years, s.discount_rate (nil
+// without a life), s.soot_fire_caution; s.variants[i] and
+// s.by_name["with EGE"] (a convenience: the same table) hold the variant's
+// name, totals (as a voyage's, under .totals: s.variants[2].totals.fuel_t),
+// fuel_saved_t, co2_avoided_t, installed_cost, cost_saved and
+// carbon_cost_saved (over the profile), annual_saving (scaled to a year
+// when the rows' hours are not one), payback_years (the extra installed
+// cost over the annual saving; nil for the first, without an extra cost or
+// a price, or when nothing is saved), npv (nil without a life),
+// hours_below_min_gas_T, hours_below_acid_dew_margin and hours_soot_risk
+// (the hours at loads or gas velocities where soot builds up: soot fires
+// in exhaust-gas economisers are a known hazard); s.sweep (nil without
+// one) holds unit, param, the cost law (cost_ref_ua_W_K, cost_ref,
+// cost_exponent, cost_fixed), best (the index of the highest NPV) and
+// points[i], each with value (SI), ua_W_K, fuel_t, co2_t, ege_steam_t,
+// dumped_t, ege_fouling_lost_steam_t, fuel_saved_t, co2_avoided_t and the
+// money figures and hours of a variant.
 //
 //	local a = audit(ship, { name = "March", csv = "log.csv",
 //	    uncertain = { { unit = "cargo heating", key = "factor", low = 0.85, high = 1.15 },

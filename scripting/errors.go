@@ -1,10 +1,17 @@
 package scripting
 
 import (
+	"errors"
 	"fmt"
+	"io/fs"
 	"sort"
+	"strconv"
 	"strings"
+	"syscall"
 	"time"
+	"unicode/utf8"
+
+	lua "github.com/yuin/gopher-lua"
 )
 
 // Pos is a place in a script: file, line and, for syntax errors, column.
@@ -148,4 +155,203 @@ func (e *TimeoutError) Error() string {
 		msg += "; the interpreter did not stop and was abandoned"
 	}
 	return msg
+}
+
+// FileError is a script file that cannot be read: it does not exist, it is
+// a folder or another kind of file than a regular one, it may not be read,
+// or it is too large. It prints as "cannot open FILE: reason" (or "cannot
+// read FILE: reason" once opened), without the names of system calls.
+type FileError struct {
+	Name   string // the file as given
+	Read   bool   // the file was opened; reading it failed
+	Reason string // in words, such as "no such file"
+	Err    error  // the underlying error, if any
+}
+
+func (e *FileError) Error() string {
+	verb := "open"
+	if e.Read {
+		verb = "read"
+	}
+	return "cannot " + verb + " " + e.Name + ": " + e.Reason
+}
+
+// Unwrap returns the underlying error.
+func (e *FileError) Unwrap() error { return e.Err }
+
+// fileError is the FileError of a failure to find or open name.
+func fileError(name string, err error) *FileError {
+	return &FileError{Name: name, Reason: reasonOf(err), Err: err}
+}
+
+// reasonOf says in words why a file could not be opened or read, without
+// the system call and path that an *fs.PathError prefixes.
+func reasonOf(err error) string {
+	switch {
+	case errors.Is(err, fs.ErrNotExist):
+		return "no such file"
+	case errors.Is(err, fs.ErrPermission):
+		return "permission denied"
+	case errors.Is(err, syscall.ENOTDIR):
+		return "a part of the path is a file, not a folder"
+	case errors.Is(err, syscall.EISDIR):
+		return "it is a folder, not a file"
+	}
+	var pe *fs.PathError
+	if errors.As(err, &pe) {
+		return pe.Err.Error()
+	}
+	return err.Error()
+}
+
+// notRegular says why a file of this kind cannot be read as a script or a
+// table, or returns "" for a regular file. A pipe would block the run
+// until its time limit and a device may never end.
+func notRegular(st fs.FileInfo) string {
+	m := st.Mode()
+	switch {
+	case m.IsRegular():
+		return ""
+	case m.IsDir():
+		return "it is a folder, not a file"
+	case m&fs.ModeNamedPipe != 0:
+		return "it is a named pipe, not a regular file; save the data to a file first"
+	case m&fs.ModeSocket != 0:
+		return "it is a socket, not a regular file"
+	case m&fs.ModeDevice != 0:
+		return "it is a device, not a regular file"
+	}
+	return "it is not a regular file"
+}
+
+// Bounds of valueText.
+const (
+	maxValueText  = 200 // bytes of the text
+	maxValueDepth = 3   // nested tables shown
+	maxValueItems = 16  // entries shown of one table
+)
+
+// valueText renders a Lua value given to error() for a message: a string
+// quoted, a number, boolean or nil as Lua writes them, and a table as a
+// constructor such as {code = 1, "text"}, entries in order (the array
+// part, then the other keys sorted), at most maxValueDepth deep,
+// maxValueItems entries each and maxValueText bytes in all. Strings are
+// quoted with their control characters escaped. Metamethods are not
+// called: the text is the value's content.
+func valueText(v lua.LValue) string {
+	var b strings.Builder
+	writeValue(&b, v, 0)
+	s := b.String()
+	if len(s) > maxValueText {
+		cut := maxValueText
+		for cut > 0 && !utf8.RuneStart(s[cut]) {
+			cut--
+		}
+		s = s[:cut] + "…"
+	}
+	return s
+}
+
+func writeValue(b *strings.Builder, v lua.LValue, depth int) {
+	if b.Len() > maxValueText {
+		return
+	}
+	switch x := v.(type) {
+	case lua.LString:
+		b.WriteString(strconv.Quote(string(x)))
+	case lua.LNumber:
+		b.WriteString(x.String())
+	case *lua.LTable:
+		if depth >= maxValueDepth {
+			b.WriteString("{…}")
+			return
+		}
+		writeTable(b, x, depth)
+	case *lua.LNilType, lua.LBool:
+		b.WriteString(v.String())
+	default:
+		b.WriteString("a " + v.Type().String()) // a function, a userdata
+	}
+}
+
+func writeTable(b *strings.Builder, t *lua.LTable, depth int) {
+	n := 0 // the sequence 1..n, without holes
+	for t.RawGetInt(n+1) != lua.LNil {
+		n++
+	}
+	type entry struct {
+		key  string
+		sort string
+		v    lua.LValue
+	}
+	var rest []entry
+	t.ForEach(func(k, v lua.LValue) {
+		if kn, ok := k.(lua.LNumber); ok && float64(kn) == float64(int(kn)) && int(kn) >= 1 && int(kn) <= n {
+			return // the array part, written in order below
+		}
+		e := entry{v: v}
+		switch kk := k.(type) {
+		case lua.LString:
+			if isIdentifier(string(kk)) {
+				e.key = string(kk)
+			} else {
+				e.key = "[" + strconv.Quote(string(kk)) + "]"
+			}
+			e.sort = "1" + string(kk)
+		case lua.LNumber:
+			e.key = "[" + kk.String() + "]"
+			e.sort = "0" + fmt.Sprintf("%024.6f", float64(kk))
+		default:
+			e.key = "[" + k.Type().String() + "]"
+			e.sort = "2" + e.key
+		}
+		rest = append(rest, e)
+	})
+	sort.Slice(rest, func(i, j int) bool { return rest[i].sort < rest[j].sort })
+	b.WriteByte('{')
+	items := 0
+	sep := func() bool {
+		if items > 0 {
+			b.WriteString(", ")
+		}
+		items++
+		if items > maxValueItems {
+			b.WriteString("…")
+			return false
+		}
+		return true
+	}
+	for i := 1; i <= n; i++ {
+		if !sep() {
+			b.WriteByte('}')
+			return
+		}
+		writeValue(b, t.RawGetInt(i), depth+1)
+	}
+	for _, e := range rest {
+		if !sep() {
+			break
+		}
+		b.WriteString(e.key)
+		b.WriteString(" = ")
+		writeValue(b, e.v, depth+1)
+	}
+	b.WriteByte('}')
+}
+
+// isIdentifier reports whether s is a Lua name, written as a table key
+// without brackets.
+func isIdentifier(s string) bool {
+	if s == "" {
+		return false
+	}
+	for i, c := range s {
+		switch {
+		case c == '_', c >= 'a' && c <= 'z', c >= 'A' && c <= 'Z':
+		case i > 0 && c >= '0' && c <= '9':
+		default:
+			return false
+		}
+	}
+	return true
 }

@@ -55,24 +55,41 @@ func (r *runner) resolve(fn, name string) (fsPath, show string) {
 }
 
 // readFile reads a file through the run's file system with a size bound.
+// Only regular files are read: a folder is refused, and so are a named
+// pipe (which would block the run until its time limit) and a device.
+// Options.CheckRead may refuse the file. A UTF-8 byte-order mark at the
+// start is skipped (spreadsheets write one before a CSV's header).
 func (r *runner) readFile(fn, name, fsPath string, limit int64) []byte {
-	f, err := r.fsys.Open(fsPath)
+	st, err := fs.Stat(r.fsys, fsPath)
 	if err != nil {
-		msg := err.Error()
+		msg := reasonOf(err)
 		if errors.Is(err, fs.ErrNotExist) {
 			msg = "no such file beside the script"
 		}
 		r.failErr("", err, "%s(%q): %s", fn, name, msg)
 	}
+	if reason := notRegular(st); reason != "" {
+		r.fail("", "%s(%q): %s", fn, name, reason)
+	}
+	if r.opt.CheckRead != nil {
+		if err := r.opt.CheckRead(st); err != nil {
+			r.failErr("", err, "%s(%q): %v", fn, name, err)
+		}
+	}
+	f, err := r.fsys.Open(fsPath)
+	if err != nil {
+		r.failErr("", err, "%s(%q): %s", fn, name, reasonOf(err))
+	}
 	defer f.Close()
-	if st, err := f.Stat(); err == nil && st.IsDir() {
-		r.fail("", "%s(%q): is a folder, not a file", fn, name)
+	if st, err := f.Stat(); err == nil && notRegular(st) != "" {
+		// replaced between the two looks
+		r.fail("", "%s(%q): %s", fn, name, notRegular(st))
 	}
 	b, err := readBounded(f, limit)
 	if err != nil {
-		r.failErr("", err, "%s(%q): %v", fn, name, err)
+		r.failErr("", err, "%s(%q): %s", fn, name, reasonOf(err))
 	}
-	return b
+	return skipBOM(b)
 }
 
 // luaInclude is include("file.lua"): runs another script from the same

@@ -125,7 +125,7 @@ func (r *runner) tableRows(ph *plantHandle, a *args, key string, spec rowSpec) *
 		}
 		row.Case.Conditions.SeaT, _ = ra.quantity("sea", units.Temperature, false)
 		row.Case.Conditions.AirT, _ = ra.quantity("air", units.Temperature, false)
-		row.Case.Conditions.EngineLoad, _ = ra.quantity("engine", units.Fraction, false)
+		row.Case.Conditions.EngineLoad = ra.engineLoad()
 		if v := ra.get("set"); v != lua.LNil {
 			row.Case.Set = r.caseSettings(ph, ra, v, row.Case.Pos)
 		}
@@ -168,6 +168,9 @@ func parseHours(v lua.LValue, key string) (float64, error) {
 		if !(f > 0) || math.IsInf(f, 0) {
 			return 0, fmt.Errorf("%s must be a positive number of hours; got %s", key, describe(v))
 		}
+		if f > maxRowHours {
+			return 0, fmt.Errorf("%s must be at most %g h (a leap year) for one row; got %s", key, maxRowHours, asGiven(v))
+		}
 		return f, nil
 	case lua.LString:
 		s := strings.TrimSpace(string(x))
@@ -180,6 +183,9 @@ func parseHours(v lua.LValue, key string) (float64, error) {
 		}
 		if !(sec > 0) {
 			return 0, fmt.Errorf("%s must be positive; got %q", key, s)
+		}
+		if sec/3600 > maxRowHours {
+			return 0, fmt.Errorf("%s must be at most %g h (a leap year) for one row; got %s", key, maxRowHours, cut(s))
 		}
 		return sec / 3600, nil
 	case *lua.LNilType:
@@ -225,8 +231,19 @@ func parseTonnes(v lua.LValue, key string) (float64, error) {
 	if !(t >= 0) || math.IsInf(t, 0) {
 		return 0, fmt.Errorf("%s must be zero or more tonnes; got %g", key, t)
 	}
+	if t > maxTonnes {
+		return 0, fmt.Errorf("%s must be at most %g t; got %s", key, maxTonnes, asGiven(v))
+	}
 	return t, nil
 }
+
+// The bounds of a row's hours and of a claimed mass of fuel: a leap year
+// of hours; more fuel than the boilers of any ship burn on a voyage (from
+// memory: a very large crude carrier's discharge burns 80-150 t).
+const (
+	maxRowHours = 8784.0
+	maxTonnes   = 1e4
+)
 
 // ---------------------------------------------------------------------------
 // Rows from CSV files.
@@ -409,7 +426,11 @@ func (r *runner) csvRows(ph *plantHandle, fn, name string, spec rowSpec) *jobRow
 			case "air":
 				row.Case.Conditions.AirT, err = parseQuantity(v, "air", units.Temperature, uopt)
 			case "engine":
-				row.Case.Conditions.EngineLoad, err = parseCell(cell, "engine", units.Fraction, uopt)
+				var v lua.LValue = lua.LString(cell)
+				if f, perr := strconv.ParseFloat(cell, 64); perr == nil {
+					v = lua.LNumber(f)
+				}
+				row.Case.Conditions.EngineLoad, err = parseEngineLoad(v, "engine", uopt)
 			case "":
 				if c.key.Kind == plant.KeyText {
 					row.Case.Set = append(row.Case.Set, plant.Setting{Unit: c.unit, Param: c.key.Name, Text: cell, Pos: row.Case.Pos})
@@ -417,6 +438,9 @@ func (r *runner) csvRows(ph *plantHandle, fn, name string, spec rowSpec) *jobRow
 				}
 				var f float64
 				f, err = parseSetCell(cell, &c.key, uopt)
+				if err == nil {
+					err = rangeErr(&c.key, c.key.Name, f, lua.LString(cell))
+				}
 				if err == nil {
 					row.Case.Set = append(row.Case.Set, plant.Setting{Unit: c.unit, Param: c.key.Name, Value: f, Pos: row.Case.Pos})
 				}
@@ -587,90 +611,242 @@ func (r *runner) luaVoyage(L *lua.LState) int {
 }
 
 // luaStudy is study(plant, { name, rows or csv, variants, fuel_price,
-// installed_cost, currency }).
+// installed_cost, currency, carbon_price, life, discount_rate, sweep }).
 func (r *runner) luaStudy(L *lua.LState) int {
-	var variants []profile.Variant
-	var econ profile.Economics
-	var ph0 *plantHandle
+	var spec profile.StudySpec
 	ph, a, name, rows := r.jobStart("study", rowSpec{job: "study"}, func(a *args) {
-		ph0 = r.checkPlant(1)
-		vt, ok := a.get("variants").(*lua.LTable)
-		if !ok {
-			a.errorf(nil, "variants is required: a list of at least two { name = \"...\", set = { unit = { key = value } } }, the first the base")
-			return
+		ph0 := r.checkPlant(1)
+		spec.Variants = r.studyVariants(ph0, a)
+		spec.Economics = r.studyEconomics(a)
+		if v := a.get("sweep"); v != lua.LNil {
+			spec.Sweep = r.studySweep(ph0, a, v, spec.Economics)
 		}
-		n := vt.Len()
-		if n < 2 || n > 100 {
-			a.errorf(nil, "variants needs 2 to 100 entries (the first is the base); got %d", n)
-			return
-		}
-		names := map[string]bool{}
-		for i := 1; i <= n; i++ {
-			v, ok := vt.RawGetInt(i).(*lua.LTable)
-			if !ok {
-				a.errorf(nil, "variants[%d] must be a table { name = \"...\", set = {...} }", i)
-				continue
-			}
-			va := r.args(v, fmt.Sprintf("%s variants[%d]", a.what, i), a.pos, ph0.uopt)
-			vn, _ := va.str("name", true)
-			if names[vn] && vn != "" {
-				va.errorf(nil, "name %q is given to two variants", vn)
-			}
-			names[vn] = true
-			var set []plant.Setting
-			if s := va.get("set"); s != lua.LNil {
-				set = r.caseSettings(ph0, va, s, plant.Pos{File: a.pos.File, Line: a.pos.Line})
-			}
-			va.done()
-			a.nerr += va.nerr
-			variants = append(variants, profile.Variant{Name: vn, Set: set})
-		}
-		if p, ok := a.number("fuel_price"); ok {
-			if p < 0 {
-				a.errorf(nil, "fuel_price must not be negative; got %g", p)
-			}
-			econ.FuelPrice = p
-		}
-		if c, ok := a.number("installed_cost"); ok {
-			if c < 0 {
-				a.errorf(nil, "installed_cost must not be negative; got %g", c)
-			}
-			econ.InstalledCost = c
-		}
-		econ.Currency, _ = a.str("currency", false)
 	})
+	variants, econ := spec.Variants, spec.Economics
 	rec := StudyRecord{Name: name, Plant: ph.p.Name, Pos: a.pos, Rows: rows.pos}
+	job := schema.Job{Name: name, Plant: ph.p.Name, Source: a.pos.String(), RowSources: posStrings(rows.pos)}
 	if r.opt.CheckOnly {
-		res := &profile.StudyResult{Economics: econ}
+		res := &profile.StudyResult{Economics: econ, HasNPV: econ.LifeYears > 0}
 		empty := placeholderResult(rows.rows)
-		for _, v := range variants {
-			res.Variants = append(res.Variants, profile.VariantResult{Name: v.Name, Totals: empty.Total})
+		// The same shape as a solved study, with zero figures: every
+		// variant but the base has a payback and the first size is the
+		// best, so that a script's arithmetic on them runs.
+		for i, v := range variants {
+			res.Variants = append(res.Variants, profile.VariantResult{Name: v.Name, Totals: empty.Total,
+				Money: profile.Money{HasPayback: i > 0}})
+		}
+		if sw := spec.Sweep; sw != nil {
+			res.Sweep = &profile.SweepResult{Unit: sw.Unit, Param: sw.Param, Cost: sw.Cost}
+			for _, x := range sw.Values {
+				res.Sweep.Points = append(res.Sweep.Points, profile.SweepPoint{Value: x, Totals: empty.Total, Money: profile.Money{HasPayback: true}})
+			}
 		}
 		r.out.Studies = append(r.out.Studies, rec)
-		L.Push(r.studyTable(schema.Job{Name: name, Plant: ph.p.Name, Source: a.pos.String(), RowSources: posStrings(rows.pos)}, res))
+		L.Push(r.studyTable(job, res))
 		return 1
 	}
-	// One progress over all variants: each variant's run counts its rows
-	// from zero.
-	var prog func(done, total int)
-	if p := r.progress(a.what); p != nil {
-		k, last, nv := 0, 0, len(variants)
-		prog = func(done, total int) {
-			if last >= total {
-				k, last = k+1, 0
-			}
-			last = done
-			p(k*total+done, nv*total)
-		}
-	}
-	res, err := profile.Study(L.Context(), ph.p, rows.rows, variants, econ, profile.Options{Workers: r.opt.Workers, Progress: prog})
+	res, err := profile.RunStudy(L.Context(), ph.p, rows.rows, spec, profile.Options{Workers: r.opt.Workers, Progress: r.progress(a.what)})
 	if err != nil {
 		r.jobErr(a.pos, a.what, err)
 	}
 	rec.Result = res
 	r.out.Studies = append(r.out.Studies, rec)
-	L.Push(r.studyTable(schema.Job{Name: name, Plant: ph.p.Name, Source: a.pos.String(), RowSources: posStrings(rows.pos)}, res))
+	L.Push(r.studyTable(job, res))
 	return 1
+}
+
+// studyVariants reads variants = { { name, set, installed_cost }, ... }.
+func (r *runner) studyVariants(ph *plantHandle, a *args) []profile.Variant {
+	vt, ok := a.get("variants").(*lua.LTable)
+	if !ok {
+		a.errorf(nil, "variants is required: a list of at least two { name = \"...\", set = { unit = { key = value } }, installed_cost = 250000 }, the first the base")
+		return nil
+	}
+	n := vt.Len()
+	if n < 2 || n > 100 {
+		a.errorf(nil, "variants needs 2 to 100 entries (the first is the base); got %d", n)
+		return nil
+	}
+	var variants []profile.Variant
+	names := map[string]bool{}
+	for i := 1; i <= n; i++ {
+		v, ok := vt.RawGetInt(i).(*lua.LTable)
+		if !ok {
+			a.errorf(nil, "variants[%d] must be a table { name = \"...\", set = {...}, installed_cost = ... }", i)
+			continue
+		}
+		va := r.args(v, fmt.Sprintf("%s variants[%d]", a.what, i), a.pos, ph.uopt)
+		vn, _ := va.str("name", true)
+		if names[vn] && vn != "" {
+			va.errorf(nil, "name %q is given to two variants", vn)
+		}
+		names[vn] = true
+		var set []plant.Setting
+		if s := va.get("set"); s != lua.LNil {
+			set = r.caseSettings(ph, va, s, plant.Pos{File: a.pos.File, Line: a.pos.Line})
+		}
+		x := profile.Variant{Name: vn, Set: set}
+		if c, ok := va.number("installed_cost"); ok {
+			if c < 0 {
+				va.errorf(nil, "installed_cost must not be negative; got %g", c)
+			}
+			x.InstalledCost, x.HasCost = c, true
+		}
+		va.done()
+		a.nerr += va.nerr
+		variants = append(variants, x)
+	}
+	return variants
+}
+
+// studyEconomics reads fuel_price, installed_cost, currency, carbon_price,
+// life and discount_rate.
+func (r *runner) studyEconomics(a *args) profile.Economics {
+	var econ profile.Economics
+	money := func(key string) float64 {
+		v, ok := a.number(key)
+		if ok && v < 0 {
+			a.errorf(nil, "%s must not be negative; got %g", key, v)
+		}
+		return v
+	}
+	econ.FuelPrice = money("fuel_price")
+	econ.InstalledCost = money("installed_cost")
+	econ.CarbonPrice = money("carbon_price")
+	econ.Currency, _ = a.str("currency", false)
+	life, hasLife := a.number("life")
+	if hasLife {
+		if life != math.Trunc(life) || life < 1 || life > 60 {
+			a.errorf(nil, "life must be a whole number of years from 1 to 60; got %g", life)
+		} else {
+			econ.LifeYears = int(life)
+		}
+	}
+	rate, hasRate := a.quantity("discount_rate", units.Fraction, false)
+	switch {
+	case hasRate && rate < 0:
+		a.errorf(nil, "discount_rate must not be negative; got %g %% (a rate such as \"8 %%\" or 0.08)", 100*rate)
+	case hasRate && rate > 1:
+		a.errorf(nil, "discount_rate must be at most 100 %% a year; got %g %%", 100*rate)
+	case hasRate:
+		econ.DiscountRate = rate
+	}
+	if hasLife != hasRate {
+		a.errorf(nil, "life and discount_rate go together (the NPV over the life at that rate), such as life = 15, discount_rate = \"8 %%\"")
+	}
+	return econ
+}
+
+// studySweep reads sweep = { unit, key, from, to, steps (or values), set,
+// cost = { at, cost, exponent, fixed } }.
+func (r *runner) studySweep(ph *plantHandle, a *args, v lua.LValue, econ profile.Economics) *profile.Sweep {
+	t, ok := v.(*lua.LTable)
+	if !ok {
+		a.errorf(nil, "sweep must be a table such as { unit = \"EGE\", key = \"ua\", from = \"5 kW/K\", to = \"60 kW/K\", steps = 12, cost = { at = \"20 kW/K\", cost = 300000 } }; got %s", describe(v))
+		return nil
+	}
+	r.checkSize(t, "sweep")
+	sa := r.args(t, a.what+" sweep", a.pos, ph.uopt)
+	defer func() { sa.done(); a.nerr += sa.nerr }()
+	for _, k := range []string{"values", "from", "to", "steps", "set", "cost"} {
+		sa.get(k) // accepted, whether or not they are read below
+	}
+	sw := &profile.Sweep{}
+	sw.Unit, _ = sa.str("unit", true)
+	sw.Param, _ = sa.str("key", true)
+	if sw.Unit == "" || sw.Param == "" {
+		return nil
+	}
+	u := ph.p.Component(sw.Unit)
+	if u == nil {
+		sa.errorf(nil, "%s", r.unknownUnitMsg(ph, sw.Unit))
+		return nil
+	}
+	if _, ok := u.(*plant.ExhaustGasEconomiser); !ok {
+		sa.errorf(nil, "%q is a %s; a sweep of size is of an exhaust-gas economiser", sw.Unit, u.Kind())
+		return nil
+	}
+	if sw.Param != "ua" && sw.Param != "pinch" {
+		sa.errorf(nil, "key must be \"ua\" or \"pinch\" (the economiser's size); got %q", sw.Param)
+		return nil
+	}
+	k := key(u, sw.Param)
+	if sa.has("values") {
+		if sa.has("from") || sa.has("to") || sa.has("steps") {
+			sa.errorf(nil, "give values or from, to and steps, not both")
+		}
+		vt, ok := sa.get("values").(*lua.LTable)
+		if !ok || vt.Len() < 2 || vt.Len() > 100 {
+			sa.errorf(nil, "values must be a list of 2 to 100 sizes such as { \"10 kW/K\", \"20 kW/K\" }")
+		} else {
+			for i := 1; i <= vt.Len(); i++ {
+				x, err := parseSetting(vt.RawGetInt(i), k, fmt.Sprintf("values[%d]", i), ph.uopt)
+				if err != nil {
+					sa.errorf(err, "%v", err)
+					continue
+				}
+				sw.Values = append(sw.Values, x)
+			}
+		}
+	} else {
+		from, ok1 := sa.quantity("from", k.Dim, true)
+		to, ok2 := sa.quantity("to", k.Dim, true)
+		steps, ok3 := sa.number("steps")
+		switch {
+		case !ok3:
+			sa.errorf(nil, "steps is required: the number of sizes from from to to, 2 to 100")
+		case steps != math.Trunc(steps) || steps < 2 || steps > 100:
+			sa.errorf(nil, "steps must be a whole number from 2 to 100; got %g", steps)
+		case ok1 && ok2 && !(from < to):
+			sa.errorf(nil, "from must be below to; got %s and %s", describe(sa.t.RawGetString("from")), describe(sa.t.RawGetString("to")))
+		case ok1 && ok2:
+			n := int(steps)
+			for i := 0; i < n; i++ {
+				sw.Values = append(sw.Values, from+(to-from)*float64(i)/float64(n-1))
+			}
+		}
+	}
+	for _, x := range sw.Values {
+		if !k.InRange(x) {
+			sa.errorf(nil, "a size of %g %s is outside the key's range %g to %g %s", x, k.Dim.SIUnit(), k.Min, k.Max, k.Dim.SIUnit())
+			break
+		}
+	}
+	if s := sa.get("set"); s != lua.LNil {
+		sw.Set = r.caseSettings(ph, sa, s, plant.Pos{File: a.pos.File, Line: a.pos.Line})
+	}
+	ct, ok := sa.get("cost").(*lua.LTable)
+	if !ok {
+		sa.errorf(nil, "cost is required: the installed cost against the size's UA, such as cost = { at = \"20 kW/K\", cost = 300000, exponent = 0.6, fixed = 50000 } (cost = fixed + cost·(UA/at)^exponent)")
+	} else {
+		ca := r.args(ct, a.what+" sweep cost", a.pos, ph.uopt)
+		sw.Cost.RefUA, _ = ca.quantity("at", units.ThermalConductance, true)
+		c, ok := ca.number("cost")
+		if !ok {
+			ca.errorf(nil, "cost is required: the installed cost of a unit of UA at, such as cost = 300000")
+		} else if !(c > 0) {
+			ca.errorf(nil, "cost must be positive; got %g", c)
+		}
+		sw.Cost.RefCost = c
+		if e, ok := ca.number("exponent"); ok {
+			if !(e >= 0.1 && e <= 1.5) {
+				ca.errorf(nil, "exponent must lie between 0.1 and 1.5; got %g", e)
+			}
+			sw.Cost.Exponent = e
+		}
+		if f, ok := ca.number("fixed"); ok {
+			if f < 0 {
+				ca.errorf(nil, "fixed must not be negative; got %g", f)
+			}
+			sw.Cost.Fixed = f
+		}
+		ca.done()
+		sa.nerr += ca.nerr
+	}
+	if econ.LifeYears <= 0 || !(econ.FuelPrice > 0 || econ.CarbonPrice > 0) {
+		sa.errorf(nil, "the best size is the one of highest NPV: the study needs fuel_price (or carbon_price), life and discount_rate")
+	}
+	return sw
 }
 
 // luaAudit is audit(plant, { name, csv or days, uncertain, samples, seed,

@@ -158,6 +158,15 @@ func (r *runner) tankDimensions(a *args, t *lua.LTable) loads.Dimensions {
 	out.SideAboveWater, _ = d.quantity("side_above_water", units.Fraction, false)
 	out.AdjacentT, _ = d.quantity("adjacent_T", units.Temperature, false)
 	out.AdjacentHeated = d.boolean("adjacent_heated")
+	// The temperatures beyond the tank that its layout needs, asked for
+	// by key and with an example (plant/loads would say only that a
+	// temperature is missing).
+	if !out.AdjacentHeated && !d.has("adjacent_T") {
+		d.errorf(nil, "dimensions.adjacent_T is not given: the tank's bulkheads to its neighbours need their temperature; give adjacent_T = \"15 C\" (or adjacent_heated = true when they are heated like this one)")
+	}
+	if !out.WeatherDeck && !d.has("deck_space_T") {
+		d.errorf(nil, "dimensions.deck_space_T is not given: a tank under a deck that is not the weather deck needs the temperature above it; give deck_space_T = \"20 C\" (or weather_deck = true)")
+	}
 	if ut, ok := d.get("U").(*lua.LTable); ok {
 		uv := r.args(ut, a.what, a.pos, a.uopt)
 		hc := units.HeatTransferCoefficient

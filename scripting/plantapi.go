@@ -135,7 +135,9 @@ func (r *runner) plantOptions(t *lua.LTable, what string, pos Pos) (*args, strin
 			a.uopt = u
 		}
 	}
-	opt.UsableFraction, _ = a.quantity("usable", units.Fraction, false)
+	// usable: 50-100 %; the trade fires the next boiler at 85-90 % of one's
+	// MCR (common practice, no source); a boiler is never planned above it.
+	opt.UsableFraction, _ = a.fractionIn("usable", 0.5, 1, " of one boiler's MCR")
 	if s, ok := a.str("sharing", false); ok {
 		switch s {
 		case "equal":
@@ -146,7 +148,7 @@ func (r *runner) plantOptions(t *lua.LTable, what string, pos Pos) (*args, strin
 			a.errorf(nil, "sharing must be \"equal\" or \"lead\"; got %q", s)
 		}
 	}
-	opt.LeadLoad, _ = a.quantity("lead_load", units.Fraction, false)
+	opt.LeadLoad, _ = a.fractionIn("lead_load", 0.1, 1, " of the lead boiler's MCR")
 	opt.FeedSuctionMaxT, _ = a.quantity("feed_suction_max_T", units.Temperature, false)
 	if a.has("ege_saving") {
 		// false skips the second solve of each case without the

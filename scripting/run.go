@@ -30,10 +30,20 @@ type Options struct {
 	// Timeout bounds the wall time of the run, solves included.
 	// Zero means 10 s.
 	Timeout time.Duration
-	// Logger receives the script's print output (info level, with the
-	// script position in "pos") and the plants' solver records. The zero
-	// value discards everything.
+	// Logger receives the plants' solver records and, when Print is nil,
+	// the script's print output (info level, with the script position in
+	// "pos"). The zero value discards everything.
 	Logger zerolog.Logger
+	// Print, if not nil, receives the script's print output as plain
+	// text: each call's arguments, separated by tabs, and a newline. The
+	// Logger then has it at debug level only, with the script position.
+	Print io.Writer
+	// CheckRead, if not nil, is called with the file information of each
+	// file a script reads through include, read_csv, voyage, study or
+	// audit, before the file is opened. An error refuses the file: the
+	// script fails at the calling line with the error's message. A
+	// command uses it to refuse reading the files it will write.
+	CheckRead func(info fs.FileInfo) error
 	// Seed seeds the run's math.random (a PCG source). Zero is a valid
 	// seed: runs are repeatable unless the script reseeds.
 	Seed uint64
@@ -154,30 +164,55 @@ type CaseRecord struct {
 // RunFile runs the script at path. include and read_csv reach only files in
 // the script's folder and its subfolders (through an os.Root, so symbolic
 // links cannot lead out). Positions in errors name files as path does.
+// The script, like every file it reads, must be a regular file (not a
+// folder, a pipe or a device); a UTF-8 byte-order mark at its start is
+// skipped.
 //
 // The returned Run holds what was built and solved before any error. The
 // error is an ErrorList (script errors, each with file:line and, for a
 // syntax error, the column), an *AssertionError (a failed check), a
-// *TimeoutError, the context's error if ctx was cancelled, or an error
-// reading the file.
+// *TimeoutError, the context's error if ctx was cancelled, or a
+// *FileError if the script cannot be read.
 func RunFile(ctx context.Context, file string, opt Options) (*Run, error) {
 	opt.defaults()
 	dir := filepath.Dir(file)
 	root, err := os.OpenRoot(dir)
 	if err != nil {
-		return nil, fmt.Errorf("scripting: %w", err)
+		return nil, fileError(file, err)
 	}
 	defer root.Close()
-	f, err := root.Open(filepath.Base(file))
+	base := filepath.Base(file)
+	st, err := root.Stat(base)
 	if err != nil {
-		return nil, fmt.Errorf("scripting: %w", err)
+		return nil, fileError(file, err)
+	}
+	if reason := notRegular(st); reason != "" {
+		return nil, &FileError{Name: file, Reason: reason}
+	}
+	f, err := root.Open(base)
+	if err != nil {
+		return nil, fileError(file, err)
 	}
 	src, err := readBounded(f, opt.MaxScriptBytes)
 	f.Close()
 	if err != nil {
-		return nil, fmt.Errorf("scripting: %s: %w", file, err)
+		return nil, &FileError{Name: file, Read: true, Reason: reasonOf(err), Err: err}
 	}
-	return run(ctx, file, src, root.FS(), ".", dir, opt)
+	return run(ctx, file, skipBOM(src), root.FS(), ".", dir, opt)
+}
+
+// StatScript checks that file is a script RunFile can open: it exists and
+// is a regular file. The error is a *FileError. A command checks its
+// scripts with it before running the first.
+func StatScript(file string) error {
+	st, err := os.Stat(file)
+	if err != nil {
+		return fileError(file, err)
+	}
+	if reason := notRegular(st); reason != "" {
+		return &FileError{Name: file, Reason: reason}
+	}
+	return nil
 }
 
 // RunSource runs src as the script called name, a slash-separated path in
@@ -187,11 +222,18 @@ func RunFile(ctx context.Context, file string, opt Options) (*Run, error) {
 func RunSource(ctx context.Context, name string, src []byte, fsys fs.FS, opt Options) (*Run, error) {
 	opt.defaults()
 	if int64(len(src)) > opt.MaxScriptBytes {
-		return nil, fmt.Errorf("scripting: %s: script of %d bytes is larger than the limit of %d", name, len(src), opt.MaxScriptBytes)
+		return nil, &FileError{Name: name, Read: true, Reason: fmt.Sprintf("the script of %d bytes is larger than the limit of %d bytes", len(src), opt.MaxScriptBytes)}
 	}
 	dir := path.Dir(name)
-	return run(ctx, name, src, fsys, dir, dir, opt)
+	return run(ctx, name, skipBOM(src), fsys, dir, dir, opt)
 }
+
+// utf8BOM is the UTF-8 byte-order mark, which spreadsheets and some
+// editors write at the start of a file; it is skipped.
+const utf8BOM = "\xEF\xBB\xBF"
+
+// skipBOM returns b without a UTF-8 byte-order mark at its start.
+func skipBOM(b []byte) []byte { return bytes.TrimPrefix(b, []byte(utf8BOM)) }
 
 func readBounded(rd io.Reader, limit int64) ([]byte, error) {
 	b, err := io.ReadAll(io.LimitReader(rd, limit+1))
@@ -397,14 +439,27 @@ func (r *runner) convert(err error) error {
 			r.errs = append(r.errs, v)
 		case stopRun:
 		}
-		if lerr := r.limitErr(r.where()); lerr != nil {
+		pos := r.tracePos(ae.StackTrace) // the stack is gone: where() knows nothing now
+		if v, ok := ud.Value.(*Error); ok && v.Pos.File != "" {
+			pos = v.Pos
+		}
+		if lerr := r.limitErr(pos); lerr != nil {
 			return lerr
 		}
 		r.errs.Sort()
 		return r.errs.Err()
 	}
-	msg := ae.Object.String()
-	pos, rest := r.splitPos(msg)
+	var pos Pos
+	var rest string
+	if s, ok := ae.Object.(lua.LString); ok {
+		pos, rest = r.splitPos(string(s))
+	} else {
+		// error() with a table, a number, nil...: Lua adds no position.
+		rest = raisedValue(ae.Object, r.metaText(ae.Object))
+	}
+	if pos.File == "" {
+		pos = r.tracePos(ae.StackTrace)
+	}
 	if lerr := r.limitErr(pos); lerr != nil {
 		return lerr
 	}
@@ -473,6 +528,63 @@ func (r *runner) splitPos(msg string) (Pos, string) {
 		return Pos{}, msg
 	}
 	return Pos{File: m[1], Line: line}, m[3]
+}
+
+// tracePos returns the innermost position in a Lua stack traceback that
+// is in one of the run's chunks, or the zero Pos. The interpreter writes
+// the traceback while the stack is still there, so it keeps the place of
+// an error whose value carries none (error({code = 1}), error("x", 0)).
+func (r *runner) tracePos(trace string) Pos {
+	for _, l := range strings.Split(trace, "\n") {
+		m := posPrefix.FindStringSubmatch(strings.TrimSpace(l))
+		if m == nil {
+			continue
+		}
+		if _, ok := r.chunks[m[1]]; !ok {
+			continue
+		}
+		if line, err := strconv.Atoi(m[2]); err == nil {
+			return Pos{File: m[1], Line: line}
+		}
+	}
+	return Pos{}
+}
+
+// raisedValue is the message of an error raised with a value that is not
+// a string: what the value was, rendered readably.
+// A table with a __tostring metamethod is shown by its text (meta) when
+// that is not empty.
+func raisedValue(v lua.LValue, meta string) string {
+	switch v.(type) {
+	case *lua.LNilType:
+		return "the script raised an error with no message (error(nil) or error())"
+	case *lua.LTable, lua.LNumber, lua.LBool:
+		text := valueText(v)
+		if meta != "" {
+			text = meta
+		}
+		return fmt.Sprintf("the script raised an error with a %s instead of a message: %s", v.Type(), text)
+	}
+	return fmt.Sprintf("the script raised an error with a %s instead of a message", v.Type())
+}
+
+// metaText is the text of v's __tostring metamethod, called protected and
+// cut to maxValueText bytes, or "" when v has none or it fails.
+func (r *runner) metaText(v lua.LValue) string {
+	L := r.L
+	fn, ok := L.GetMetaField(v, "__tostring").(*lua.LFunction)
+	if !ok || r.ctx.Err() != nil {
+		return ""
+	}
+	if err := L.CallByParam(lua.P{Fn: fn, NRet: 1, Protect: true}, v); err != nil {
+		return ""
+	}
+	s, ok := L.Get(-1).(lua.LString)
+	L.Pop(1)
+	if !ok {
+		return ""
+	}
+	return valueText(lua.LString(s))
 }
 
 // where returns the position of the innermost Lua function on the stack:

@@ -1,6 +1,7 @@
 package scripting
 
 import (
+	"io"
 	"math"
 	"math/rand/v2"
 	"strings"
@@ -70,8 +71,9 @@ func (r *runner) newState() (*lua.LState, error) {
 	return L, nil
 }
 
-// luaPrint writes its arguments, separated by tabs, to the run's logger at
-// info level with the script position.
+// luaPrint writes its arguments, separated by tabs, as a line of plain
+// text to Options.Print (and to the logger at debug level with the script
+// position), or, without a Print writer, to the logger at info level.
 func (r *runner) luaPrint(L *lua.LState) int {
 	var b strings.Builder
 	n := L.GetTop()
@@ -88,7 +90,12 @@ func (r *runner) luaPrint(L *lua.LState) int {
 	if len(s) > maxPrintBytes {
 		s = s[:maxPrintBytes] + "…"
 	}
-	r.log.Info().Str("pos", r.where().String()).Msg(s)
+	if r.opt.Print == nil {
+		r.log.Info().Str("pos", r.where().String()).Msg(s)
+		return 0
+	}
+	r.log.Debug().Str("pos", r.where().String()).Msg(s)
+	io.WriteString(r.opt.Print, s+"\n") // a print that cannot be shown does not stop the run
 	return 0
 }
 

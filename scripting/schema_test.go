@@ -68,7 +68,9 @@ local rows = {
 emit("case", case(ship, { name = "at sea", sea = "15 C", air = "10 C", engine = "85 %" }))
 emit("voyage", voyage(ship, { name = "trip", rows = rows }))
 emit("study", study(ship, { name = "EGE", rows = rows, fuel_price = 600, installed_cost = 100000, currency = "EUR",
-  variants = { { name = "without", set = { EGE = { off = true } } }, { name = "with" } } }))
+  carbon_price = 80, life = 10, discount_rate = "8 %",
+  variants = { { name = "without", set = { EGE = { off = true } } }, { name = "with" } },
+  sweep = { unit = "EGE", key = "ua", from = "20 kW/K", to = "60 kW/K", steps = 2, cost = { at = "40 kW/K", cost = 200000 } } }))
 emit("audit", audit(ship, { name = "log", samples = 10, days = {
   { date = "2026-03-01", phase = "passage", sea = "15 C", air = "10 C", engine = "85 %", claimed = 40 },
   { date = "2026-03-02", phase = "passage", sea = "15 C", air = "10 C", engine = "85 %", claimed = 1 } },

@@ -42,6 +42,27 @@ type PatternFactorizer interface {
 	SetPattern(n int, pattern [][]int)
 }
 
+// SparseFactorizer is a Factorizer that also factorises a *Sparse
+// directly. With a Pattern the solver hands it its sparse Jacobian
+// instead of a dense copy. SparseLU and DenseLU implement it.
+type SparseFactorizer interface {
+	Factorizer
+	FactorizeSparse(j *Sparse) error
+}
+
+// Refactorizer is a SparseFactorizer that can refactorise a matrix of the
+// pattern of its last factorisation keeping that factorisation's pivot
+// order where the pivots stay acceptable (SparseLU.RefactorSparse). The
+// solver uses it with Settings.KeepPivots.
+type Refactorizer interface {
+	SparseFactorizer
+	RefactorSparse(j *Sparse) error
+	// KeptPivots returns the number of steps of the last factorisation
+	// whose pivot is not the one a fresh factorisation would choose:
+	// zero when the factors are those of FactorizeSparse.
+	KeptPivots() int
+}
+
 // condBounder is a Factorizer with a cheap upper bound of the condition
 // number of its last factorisation (≥ the true 1-norm condition number,
 // +Inf if unknown), so that the solver can skip the dearer estimate when
@@ -92,6 +113,32 @@ func (d *DenseLU) Factorize(j *mat.Dense) error {
 	if n != c {
 		panic(fmt.Sprintf("solver: DenseLU.Factorize of a %d×%d matrix, want square", n, c))
 	}
+	d.ensure(n)
+	raw := j.RawMatrix()
+	for i := 0; i < n; i++ {
+		copy(d.a.Data[i*n:(i+1)*n], raw.Data[i*raw.Stride:i*raw.Stride+n])
+	}
+	return d.factorize()
+}
+
+// FactorizeSparse implements SparseFactorizer: it copies j into its
+// dense storage (zeros outside the pattern) and factorises that, as
+// Factorize would a dense copy of j.
+func (d *DenseLU) FactorizeSparse(j *Sparse) error {
+	n := j.pat.n
+	d.ensure(n)
+	clear(d.a.Data)
+	for i := 0; i < n; i++ {
+		cols, vals := j.Row(i)
+		row := d.a.Data[i*n : (i+1)*n]
+		for k, c := range cols {
+			row[c] = vals[k]
+		}
+	}
+	return d.factorize()
+}
+
+func (d *DenseLU) ensure(n int) {
 	if d.n != n || d.a.Data == nil {
 		d.n = n
 		d.a = blas64.General{Rows: n, Cols: n, Stride: n, Data: make([]float64, n*n)}
@@ -100,10 +147,11 @@ func (d *DenseLU) Factorize(j *mat.Dense) error {
 		d.iwork = make([]int, n)
 		d.work = make([]float64, 4*n)
 	}
-	raw := j.RawMatrix()
-	for i := 0; i < n; i++ {
-		copy(d.a.Data[i*n:(i+1)*n], raw.Data[i*raw.Stride:i*raw.Stride+n])
-	}
+}
+
+// factorize factorises d.a in place.
+func (d *DenseLU) factorize() error {
+	n := d.n
 	anorm := lapack64.Lange(lapack.MaxColumnSum, d.a, d.work)
 	from := d.BlockedFrom
 	if from == 0 {

@@ -24,18 +24,39 @@ type coloring struct {
 // (largest first, Welsh and Powell 1967) and giving each the smallest colour
 // none of its neighbours has.
 func colorColumns(pattern [][]int, n int) *coloring {
-	// Rows of each column, without duplicates.
-	colRows := make([][]int, n)
+	// Rows of each column, without duplicates, in one array.
+	count := make([]int, n+1)
+	last := make([]int, n) // last[j] = 1 + the last row counted for column j
 	for i, row := range pattern {
 		for _, j := range row {
-			if k := len(colRows[j]); k > 0 && colRows[j][k-1] == i {
-				continue // duplicate entry in row i
+			if last[j] != i+1 {
+				last[j] = i + 1
+				count[j+1]++
 			}
-			colRows[j] = append(colRows[j], i)
 		}
 	}
+	for j := 0; j < n; j++ {
+		count[j+1] += count[j]
+	}
+	rows := make([]int, count[n])
+	next := make([]int, n)
+	copy(next, count[:n])
+	clear(last)
+	for i, row := range pattern {
+		for _, j := range row {
+			if last[j] != i+1 {
+				last[j] = i + 1
+				rows[next[j]] = i
+				next[j]++
+			}
+		}
+	}
+	colRows := make([][]int, n)
+	for j := range colRows {
+		colRows[j] = rows[count[j]:count[j+1]:count[j+1]]
+	}
 	// Degree of each column in the intersection graph.
-	stamp := make([]int, n)
+	stamp := next // reused
 	for j := range stamp {
 		stamp[j] = -1
 	}
@@ -57,7 +78,7 @@ func colorColumns(pattern [][]int, n int) *coloring {
 	}
 	sort.SliceStable(order, func(a, b int) bool { return degree[order[a]] > degree[order[b]] })
 
-	color := make([]int, n)
+	color := degree // reused: the degrees are no longer needed once sorted
 	for j := range color {
 		color[j] = -1
 	}
@@ -80,9 +101,23 @@ func colorColumns(pattern [][]int, n int) *coloring {
 			ncolors = c + 1
 		}
 	}
+	size := make([]int, ncolors+1)
+	for _, c := range color {
+		size[c+1]++
+	}
+	for c := 0; c < ncolors; c++ {
+		size[c+1] += size[c]
+	}
+	cols := make([]int, n)
+	at := forbidden[:ncolors] // reused
+	copy(at, size[:ncolors])
+	for j, c := range color {
+		cols[at[c]] = j
+		at[c]++
+	}
 	groups := make([][]int, ncolors)
-	for j := 0; j < n; j++ {
-		groups[color[j]] = append(groups[color[j]], j)
+	for c := range groups {
+		groups[c] = cols[size[c]:size[c+1]:size[c+1]]
 	}
 	return &coloring{groups: groups, colRows: colRows}
 }
@@ -112,14 +147,14 @@ func (s *Solver) fdStep(j int, x []float64) float64 {
 	return t - xj
 }
 
-// fdJacobian fills s.jac with the scaled forward-difference Jacobian at x,
-// whose scaled residual is r. It uses s.xt, s.rt and s.h as work space.
+// fdJacobian fills the scaled Jacobian (s.jac, or s.sj with a Pattern)
+// with forward differences at x, whose scaled residual is r. It uses
+// s.xt, s.rt and s.h as work space.
 func (s *Solver) fdJacobian(x, r []float64, it int) error {
 	n := s.n
-	raw := s.jac.RawMatrix()
 	copy(s.xt, x)
 	if s.color == nil {
-		s.outside = true
+		raw := s.jac.RawMatrix()
 		for j := 0; j < n; j++ {
 			s.one[0] = j
 			if err := s.perturb(s.one[:], x, it); err != nil {
@@ -132,16 +167,17 @@ func (s *Solver) fdJacobian(x, r []float64, it int) error {
 		}
 		return nil
 	}
-	// The groups write exactly the pattern's entries; the others stay zero.
-	s.clearOutside()
+	// The groups write exactly the pattern's entries.
+	v := s.sj.val
 	for _, group := range s.color.groups {
 		if err := s.perturb(group, x, it); err != nil {
 			return err
 		}
 		for _, j := range group {
 			f := s.xs[j] / s.h[j]
-			for _, i := range s.color.colRows[j] {
-				raw.Data[i*raw.Stride+j] = (s.rt[i] - r[i]) * f
+			pos := s.colPos[j]
+			for k, i := range s.color.colRows[j] {
+				v[pos[k]] = (s.rt[i] - r[i]) * f
 			}
 		}
 	}
@@ -173,50 +209,98 @@ func (s *Solver) perturb(group []int, x []float64, it int) error {
 	return err
 }
 
-// analyticJacobian calls Problem.Jacobian and scales the result:
-// J̃_ij = J_ij·XScale_j/FScale_i. With full false and a Pattern (the
-// default during a solve, Settings.VerifyPattern false) the model writes
-// into s.model, of which only the pattern's entries are zeroed before the
-// call and read after it, so the cost is proportional to the nonzeros;
-// s.jac keeps zeros outside the pattern. With full true, or without a
-// Pattern, the model writes into s.jac itself, every entry is checked and
-// scaled, and with a Pattern the entries outside it are checked to be
-// zero (checkPattern).
+// analyticJacobian calls the Problem's analytic Jacobian and scales the
+// result: J̃_ij = J_ij·XScale_j/FScale_i.
+//
+// Without a Pattern, Problem.Jacobian writes into s.jac itself and every
+// entry is checked and scaled. With a Pattern and SparseJacobian, the
+// model writes into s.sj (zeroed first), which is then checked and
+// scaled in place. With a Pattern and a dense Jacobian, the model writes
+// into s.model: with full false (the default during a solve,
+// Settings.VerifyPattern false) only the pattern's entries are zeroed
+// before the call and read after it, so the cost is proportional to the
+// nonzeros; with full true every entry is zeroed and checked, and those
+// outside the pattern must be zero (a *PatternError names them).
 func (s *Solver) analyticJacobian(x []float64, it int, full bool) error {
-	if full || s.p.Pattern == nil {
-		return s.analyticJacobianFull(x, it)
+	if s.sj == nil {
+		return s.analyticJacobianDense(x, it)
+	}
+	if s.p.SparseJacobian != nil {
+		s.sj.Zero()
+		if err := s.p.SparseJacobian(s.sj, x); err != nil {
+			return &statusError{status: ResidualFailed, msg: "solver: Jacobian at iteration " + itoa(it), err: err}
+		}
+		v := s.sj.val
+		for i := 0; i < s.n; i++ {
+			fi := 1 / s.fs[i]
+			for p := s.sj.pat.ptr[i]; p < s.sj.pat.ptr[i+1]; p++ {
+				j := s.sj.pat.col[p]
+				if e := v[p]; math.IsNaN(e) || math.IsInf(e, 0) {
+					return &NumberError{Equation: s.p.eqName(i), Unknown: s.p.varName(j), Value: e, Iter: it}
+				}
+				v[p] = v[p] * s.xs[j] * fi
+			}
+		}
+		return nil
 	}
 	mraw := s.model.RawMatrix()
-	for i := 0; i < s.n; i++ {
-		row := mraw.Data[i*mraw.Stride : i*mraw.Stride+s.n]
-		for _, j := range s.prow(i) {
-			row[j] = 0
+	if full {
+		s.model.Zero()
+	} else {
+		for i := 0; i < s.n; i++ {
+			row := mraw.Data[i*mraw.Stride : i*mraw.Stride+s.n]
+			cols, _ := s.sj.Row(i)
+			for _, j := range cols {
+				row[j] = 0
+			}
 		}
 	}
 	if err := s.p.Jacobian(s.model, x); err != nil {
 		return &statusError{status: ResidualFailed, msg: "solver: Jacobian at iteration " + itoa(it), err: err}
 	}
-	s.clearOutside()
-	raw := s.jac.RawMatrix()
+	if full {
+		// Every entry checked and scaled, then those outside the
+		// pattern checked to be zero.
+		for i := 0; i < s.n; i++ {
+			row := mraw.Data[i*mraw.Stride : i*mraw.Stride+s.n]
+			fi := 1 / s.fs[i]
+			for j, v := range row {
+				if math.IsNaN(v) || math.IsInf(v, 0) {
+					return &NumberError{Equation: s.p.eqName(i), Unknown: s.p.varName(j), Value: v, Iter: it}
+				}
+				row[j] = v * s.xs[j] * fi
+			}
+		}
+		if err := s.checkPattern(s.model, it); err != nil {
+			return err
+		}
+		for i := 0; i < s.n; i++ {
+			row := mraw.Data[i*mraw.Stride : i*mraw.Stride+s.n]
+			cols, vals := s.sj.Row(i)
+			for k, j := range cols {
+				vals[k] = row[j]
+			}
+		}
+		return nil
+	}
 	for i := 0; i < s.n; i++ {
 		mrow := mraw.Data[i*mraw.Stride : i*mraw.Stride+s.n]
-		row := raw.Data[i*raw.Stride : i*raw.Stride+s.n]
 		fi := 1 / s.fs[i]
-		for _, j := range s.prow(i) {
+		cols, vals := s.sj.Row(i)
+		for k, j := range cols {
 			v := mrow[j]
 			if math.IsNaN(v) || math.IsInf(v, 0) {
 				return &NumberError{Equation: s.p.eqName(i), Unknown: s.p.varName(j), Value: v, Iter: it}
 			}
-			row[j] = v * s.xs[j] * fi
+			vals[k] = v * s.xs[j] * fi
 		}
 	}
 	return nil
 }
 
-// analyticJacobianFull is analyticJacobian over the whole matrix.
-func (s *Solver) analyticJacobianFull(x []float64, it int) error {
+// analyticJacobianDense is analyticJacobian without a Pattern.
+func (s *Solver) analyticJacobianDense(x []float64, it int) error {
 	s.jac.Zero()
-	s.outside = true
 	if err := s.p.Jacobian(s.jac, x); err != nil {
 		return &statusError{status: ResidualFailed, msg: "solver: Jacobian at iteration " + itoa(it), err: err}
 	}
@@ -231,27 +315,7 @@ func (s *Solver) analyticJacobianFull(x []float64, it int) error {
 			row[j] = v * s.xs[j] * fi
 		}
 	}
-	if s.p.Pattern != nil {
-		if err := s.checkPattern(it); err != nil {
-			return err
-		}
-		s.outside = false // checked: zero outside the pattern
-	}
 	return nil
-}
-
-// prow returns the columns of row i of the Pattern, sorted, without
-// duplicates.
-func (s *Solver) prow(i int) []int { return s.pcol[s.pptr[i]:s.pptr[i+1]] }
-
-// clearOutside zeroes s.jac if entries outside the Pattern may be nonzero
-// (after a dense finite-difference or a full analytic Jacobian), so that
-// the pattern-only paths may leave those entries alone.
-func (s *Solver) clearOutside() {
-	if s.outside {
-		s.jac.Zero()
-		s.outside = false
-	}
 }
 
 // compressPattern returns the rows of pattern (n columns) in compressed
@@ -260,6 +324,11 @@ func (s *Solver) clearOutside() {
 func compressPattern(pattern [][]int, n int) (ptr, idx []int) {
 	ptr = make([]int, len(pattern)+1)
 	mark := make([]int, n)
+	size := 0
+	for _, row := range pattern {
+		size += len(row)
+	}
+	idx = make([]int, 0, size)
 	for i, row := range pattern {
 		start := len(idx)
 		for _, j := range row {
@@ -274,10 +343,10 @@ func compressPattern(pattern [][]int, n int) (ptr, idx []int) {
 	return ptr, idx
 }
 
-// checkPattern reports the entries of the scaled Jacobian that are nonzero
-// outside the Pattern.
-func (s *Solver) checkPattern(it int) error {
-	raw := s.jac.RawMatrix()
+// checkPattern reports the entries of the dense scaled Jacobian m that
+// are nonzero outside the Pattern.
+func (s *Solver) checkPattern(m *mat.Dense, it int) error {
+	raw := m.RawMatrix()
 	var e *PatternError
 	for i := 0; i < s.n; i++ {
 		for _, j := range s.p.Pattern[i] {
@@ -293,6 +362,9 @@ func (s *Solver) checkPattern(it int) error {
 			}
 		}
 	}
+	for j := range s.mark {
+		s.mark[j] = 0
+	}
 	if e != nil {
 		return e
 	}
@@ -304,8 +376,8 @@ func (s *Solver) checkPattern(it int) error {
 // *PatternError listing every entry that is nonzero but missing from the
 // Pattern, or nil. An incomplete pattern makes coloured finite
 // differences wrong without any other sign, so a model's tests should call
-// this at a few representative points. It panics if the problem has no
-// Pattern.
+// this at a few representative points. It works column by column and
+// holds nothing of size Dim². It panics if the problem has no Pattern.
 func (s *Solver) CheckPattern(x []float64) error {
 	if s.p.Pattern == nil {
 		panic("solver: Solver.CheckPattern: the problem has no Pattern")
@@ -313,33 +385,54 @@ func (s *Solver) CheckPattern(x []float64) error {
 	if len(x) != s.n {
 		panic("solver: Solver.CheckPattern: len(x) = " + itoa(len(x)) + ", want Dim = " + itoa(s.n))
 	}
-	color := s.color
-	s.color = nil
-	defer func() { s.color = color }()
 	if err := s.residual(s.r, x, 0, false); err != nil {
 		return err
 	}
-	if err := s.fdJacobian(x, s.r, 0); err != nil {
-		return err
+	copy(s.xt, x)
+	var found [][2]int // {equation, unknown}
+	for j := 0; j < s.n; j++ {
+		s.one[0] = j
+		if err := s.perturb(s.one[:], x, 0); err != nil {
+			return err
+		}
+		f := s.xs[j] / s.h[j]
+		for i := 0; i < s.n; i++ {
+			if (s.rt[i]-s.r[i])*f != 0 && s.sj.Index(i, j) < 0 {
+				found = append(found, [2]int{i, j})
+			}
+		}
 	}
-	return s.checkPattern(0)
+	if len(found) == 0 {
+		return nil
+	}
+	sort.Slice(found, func(a, b int) bool {
+		if found[a][0] != found[b][0] {
+			return found[a][0] < found[b][0]
+		}
+		return found[a][1] < found[b][1]
+	})
+	e := &PatternError{}
+	for _, f := range found {
+		e.Entries = append(e.Entries, [2]string{s.p.eqName(f[0]), s.p.varName(f[1])})
+	}
+	return e
 }
 
 // checkJacobian reports the first non-finite entry of the scaled Jacobian
-// (only the pattern's entries when the rest are known to be zero).
+// (only the pattern's entries with a Pattern).
 func (s *Solver) checkJacobian(it int) error {
-	raw := s.jac.RawMatrix()
-	if s.pptr != nil && !s.outside {
+	if s.sj != nil {
 		for i := 0; i < s.n; i++ {
-			row := raw.Data[i*raw.Stride : i*raw.Stride+s.n]
-			for _, j := range s.prow(i) {
-				if v := row[j]; math.IsNaN(v) || math.IsInf(v, 0) {
-					return &NumberError{Equation: s.p.eqName(i), Unknown: s.p.varName(j), Value: v, Iter: it}
+			cols, vals := s.sj.Row(i)
+			for k, v := range vals {
+				if math.IsNaN(v) || math.IsInf(v, 0) {
+					return &NumberError{Equation: s.p.eqName(i), Unknown: s.p.varName(cols[k]), Value: v, Iter: it}
 				}
 			}
 		}
 		return nil
 	}
+	raw := s.jac.RawMatrix()
 	for i := 0; i < s.n; i++ {
 		row := raw.Data[i*raw.Stride : i*raw.Stride+s.n]
 		for j, v := range row {
@@ -351,10 +444,10 @@ func (s *Solver) checkJacobian(it int) error {
 	return nil
 }
 
-// jacobian fills s.jac with the scaled Jacobian at s.x.
+// jacobian fills the scaled Jacobian at s.x.
 func (s *Solver) jacobian(it int) error {
 	s.res.Stats.JacobianEvals++
-	if s.p.Jacobian != nil {
+	if s.p.Jacobian != nil || s.p.SparseJacobian != nil {
 		return s.analyticJacobian(s.x, it, s.set.VerifyPattern)
 	}
 	if err := s.fdJacobian(s.x, s.r, it); err != nil {
@@ -363,37 +456,84 @@ func (s *Solver) jacobian(it int) error {
 	return s.checkJacobian(it)
 }
 
+// unscaledJacobian forms the Jacobian at x (analytic, or the solver's
+// forward differences) in the solver's scaled storage, for Jacobian and
+// JacobianSparse. It shares the Solver's work space.
+func (s *Solver) unscaledJacobian(x []float64, analytic bool, who string) error {
+	if len(x) != s.n {
+		panic("solver: Solver." + who + ": len(x) = " + itoa(len(x)) + ", want Dim = " + itoa(s.n))
+	}
+	if analytic {
+		if s.p.Jacobian == nil && s.p.SparseJacobian == nil {
+			panic("solver: Solver." + who + ": the problem has no analytic Jacobian")
+		}
+		return s.analyticJacobian(x, 0, true)
+	}
+	if err := s.residual(s.r, x, 0, false); err != nil {
+		return err
+	}
+	return s.fdJacobian(x, s.r, 0)
+}
+
 // Jacobian writes into dst (Dim×Dim) the unscaled Jacobian dF/dx at x:
-// with analytic true, Problem.Jacobian's (it panics if there is none);
+// with analytic true, the Problem's analytic Jacobian (it panics if there
+// is none), checked against the Pattern when it is a dense one;
 // otherwise the solver's forward differences, coloured when the Problem
 // has a Pattern. It is meant for checking a hand-written Jacobian against
 // finite differences. It shares the Solver's work space, so it must not
-// run during a Solve.
+// run during a Solve. With the Solver's derived scales (Problem.XScale
+// nil) the steps of the differences follow the scales of the last Solve,
+// or 1 before the first.
 func (s *Solver) Jacobian(dst *mat.Dense, x []float64, analytic bool) error {
-	if len(x) != s.n {
-		panic("solver: Solver.Jacobian: len(x) = " + itoa(len(x)) + ", want Dim = " + itoa(s.n))
-	}
 	if r, c := dst.Dims(); r != s.n || c != s.n {
 		panic("solver: Solver.Jacobian: dst is not Dim×Dim")
 	}
-	var err error
-	if analytic {
-		if s.p.Jacobian == nil {
-			panic("solver: Solver.Jacobian: the problem has no analytic Jacobian")
-		}
-		err = s.analyticJacobian(x, 0, true)
-	} else {
-		if err = s.residual(s.r, x, 0, false); err == nil {
-			err = s.fdJacobian(x, s.r, 0)
-		}
-	}
-	if err != nil {
+	if err := s.unscaledJacobian(x, analytic, "Jacobian"); err != nil {
 		return err
 	}
+	if s.sj == nil {
+		for i := 0; i < s.n; i++ {
+			for j := 0; j < s.n; j++ {
+				dst.Set(i, j, s.jac.At(i, j)*s.fs[i]/s.xs[j])
+			}
+		}
+		return nil
+	}
+	dst.Zero()
 	for i := 0; i < s.n; i++ {
-		for j := 0; j < s.n; j++ {
-			dst.Set(i, j, s.jac.At(i, j)*s.fs[i]/s.xs[j])
+		cols, vals := s.sj.Row(i)
+		for k, j := range cols {
+			dst.Set(i, j, vals[k]*s.fs[i]/s.xs[j])
 		}
 	}
 	return nil
 }
+
+// JacobianSparse is Jacobian into a Sparse, for a problem with a Pattern:
+// dst must have the Problem's pattern (NewSparse(Dim, Pattern) gives one)
+// and nothing of size Dim² is used unless the problem's analytic Jacobian
+// is a dense one. It panics without a Pattern or if dst's pattern differs.
+func (s *Solver) JacobianSparse(dst *Sparse, x []float64, analytic bool) error {
+	if s.sj == nil {
+		panic("solver: Solver.JacobianSparse: the problem has no Pattern")
+	}
+	if !dst.samePattern(s.sj) {
+		panic("solver: Solver.JacobianSparse: dst does not have the Problem's pattern")
+	}
+	if err := s.unscaledJacobian(x, analytic, "JacobianSparse"); err != nil {
+		return err
+	}
+	for i := 0; i < s.n; i++ {
+		cols, vals := s.sj.Row(i)
+		_, out := dst.Row(i)
+		for k, j := range cols {
+			out[k] = vals[k] * s.fs[i] / s.xs[j]
+		}
+	}
+	return nil
+}
+
+// Scales returns the scales of the unknowns and of the residuals the last
+// Solve used (the Problem's, or those the solver derived); read only,
+// valid until the next Solve.
+func (s *Solver) Scales() (x, f []float64) { return s.xs, s.fs }

@@ -24,20 +24,41 @@ type Problem struct {
 	Residual func(r, x []float64) error
 
 	// Jacobian, if not nil, writes dF_i/dx_j into j (Dim×Dim, already sized;
-	// the solver zeroes it before each call). If nil, the solver uses
-	// forward finite differences (coloured when Pattern is given). With a
-	// Pattern, Jacobian must write only the pattern's entries: unless
-	// Settings.VerifyPattern is set, the solver zeroes and reads only
-	// those, and ignores anything written elsewhere.
+	// the solver zeroes it before each call). If nil (and SparseJacobian
+	// is nil), the solver uses forward finite differences (coloured when
+	// Pattern is given). With a Pattern, Jacobian must write only the
+	// pattern's entries: unless Settings.VerifyPattern is set, the solver
+	// zeroes and reads only those, and ignores anything written elsewhere.
+	// The matrix is Dim×Dim whatever the Pattern: for a large sparse
+	// problem use SparseJacobian instead.
 	Jacobian func(j *mat.Dense, x []float64) error
 
-	// XScale is the typical magnitude of each unknown (nil: all 1). The solver
-	// works on x_j/XScale_j. Entries must be positive and finite.
+	// SparseJacobian, if not nil, writes dF_i/dx_j into j, which holds
+	// exactly the entries of Pattern (Pattern is then required, and
+	// Jacobian must be nil). The solver zeroes j's values before each
+	// call; write them with j.Add or j.Set (an entry outside the pattern
+	// panics, naming the equation and unknown), or through j.Index and
+	// j.Values. SparseJacobian must not keep j. With it, nothing the
+	// solver holds is of size Dim² (see New).
+	SparseJacobian func(j *Sparse, x []float64) error
+
+	// XScale is the typical magnitude of each unknown. The solver works on
+	// x_j/XScale_j. Entries must be positive and finite. Nil: the solver
+	// derives the scales from the start point of each Solve, |x0_j| (1
+	// where x0_j is zero), and raises a scale to |x_j| when an unknown
+	// outgrows it by more than a factor 1000 (see the package doc,
+	// Scaling).
 	XScale []float64
 
-	// FScale is the typical magnitude of each residual (nil: all 1). The
-	// convergence test and the merit function use F_i/FScale_i. Entries must
-	// be positive and finite.
+	// FScale is the typical magnitude of each residual. The convergence
+	// test and the merit function use F_i/FScale_i. Entries must be
+	// positive and finite. Nil: the solver derives the scales from the
+	// Jacobian at the start point of each Solve, FScale_i =
+	// max_j |∂F_i/∂x_j|·XScale_j (the change of F_i when the unknowns move
+	// by their own size), refreshes a scale when that row norm has moved
+	// by more than a factor 1000, and may report convergence at the
+	// round-off level of the residuals (Result.RoundOff; see the package
+	// doc, Scaling).
 	FScale []float64
 
 	// Pattern, if not nil, has Dim rows; Pattern[i] lists the unknowns that
@@ -86,6 +107,12 @@ func (p *Problem) check() error {
 	}
 	if p.Residual == nil {
 		panic("solver: Problem.Residual is nil")
+	}
+	if p.SparseJacobian != nil && p.Jacobian != nil {
+		panic("solver: Problem has both Jacobian and SparseJacobian, want at most one")
+	}
+	if p.SparseJacobian != nil && p.Pattern == nil {
+		panic("solver: Problem.SparseJacobian needs a Pattern")
 	}
 	n := p.Dim
 	lengths := []struct {
@@ -157,20 +184,23 @@ func (p *Problem) upper(j int) float64 {
 // the documented default; a nil *Settings means all defaults.
 type Settings struct {
 	// MaxIterations is the largest number of Newton iterations (Jacobian
-	// evaluations). Zero means 100.
+	// evaluations); a Solve also takes at most that many steps with a
+	// reused factorisation. Zero means 100.
 	MaxIterations int
 
 	// FTol is the convergence tolerance on the scaled residual: the solve has
-	// converged when max_i |F_i(x)|/FScale_i ≤ FTol (infinity norm). Zero
-	// means 1e-10.
+	// converged when max_i |F_i(x)|/FScale_i ≤ FTol (infinity norm), or,
+	// with scales the solver derived, when the residual is at its round-off
+	// level (Result.RoundOff). Zero means 1e-10.
 	FTol float64
 
 	// XTol is the stagnation tolerance on the scaled step: if an accepted
 	// step satisfies max_j |Δx_j|/max(|x_j|, XScale_j) ≤ XTol while the
 	// residual test still fails, the solve stops with Stagnated. A small
-	// step alone never counts as convergence. The line search also gives
-	// up (LineSearchFailed) when α·max_j |s_j|/max(|x_j|/XScale_j, 1)
-	// falls below XTol. Zero means 1e-14.
+	// step alone never counts as convergence (but see Result.RoundOff).
+	// The line search also gives up (LineSearchFailed) when
+	// α·max_j |s_j|/max(|x_j|/XScale_j, 1) falls below XTol. Zero means
+	// 1e-14.
 	XTol float64
 
 	// MaxStep bounds the infinity norm of the scaled Newton step
@@ -218,8 +248,29 @@ type Settings struct {
 	// structure after the first has been diagnosed.
 	SkipDiagnosis bool
 
+	// NoReuse makes every iteration form and factorise a fresh Jacobian.
+	// By default the solver takes steps with the factorisation of an
+	// earlier iteration of the same Solve while they reduce the residual
+	// fast enough (see the package doc, Reuse), and repeats a solve that
+	// fails after doing so without it.
+	NoReuse bool
+
+	// KeepPivots makes the solver refactorise, at an iteration that
+	// follows a step of fast convergence (see the package doc, Reuse),
+	// with the pivot order of the last factorisation while its pivots pass
+	// the threshold, if the Factorizer can (a Refactorizer: SparseLU with
+	// a Pattern). That saves the symbolic work where a fresh choice would
+	// change a pivot, and changes the factors only by rounding; a solve
+	// that then fails is repeated without it. Default false: every
+	// factorisation chooses its pivots afresh (SparseLU still reuses its
+	// symbolic work wherever the fresh choices are the kept ones).
+	KeepPivots bool
+
 	// Factorizer solves the linear systems. Nil means a dense LU from gonum
-	// (NewDenseLU). A Factorizer belongs to one Solver.
+	// (NewDenseLU), except for a Problem with a SparseJacobian, where it
+	// means &SparseLU{MinDegree: true}. A Factorizer belongs to one Solver.
+	// With a Pattern the solver hands a SparseFactorizer (SparseLU,
+	// DenseLU) its sparse Jacobian; any other Factorizer gets a dense copy.
 	Factorizer Factorizer
 
 	// Recorder, if not nil, is called after every iteration. The solver
@@ -283,10 +334,13 @@ func (s *Settings) withDefaults() (Settings, error) {
 
 // Stats counts the work of one solve.
 type Stats struct {
-	Iterations    int           // Newton iterations (Jacobians factorised)
-	ResidualEvals int           // calls of Residual, including those for finite differences
-	JacobianEvals int           // Jacobians formed (analytic calls or finite-difference sweeps)
-	Runtime       time.Duration // wall time of the solve
+	Iterations     int           // Newton iterations (Jacobians formed and factorised)
+	ResidualEvals  int           // calls of Residual, including those for finite differences
+	JacobianEvals  int           // Jacobians formed (analytic calls or finite-difference sweeps)
+	Factorizations int           // factorisations of a Jacobian (one per Newton iteration)
+	Reuses         int           // steps taken with the factorisation of an earlier iteration
+	RejectedReuses int           // such steps tried and discarded for too little decrease
+	Runtime        time.Duration // wall time of the solve
 }
 
 // Result is the outcome of a solve.
@@ -318,11 +372,24 @@ type Result struct {
 	// Jacobian costs: the colour count with a Pattern, Dim without one, and
 	// 0 with an analytic Jacobian.
 	Colors int
+
+	// RoundOff is set on a Converged result whose residual did not meet
+	// FTol but is at the round-off level of its own terms, with the last
+	// step at round-off too: the accuracy the arithmetic allows (only
+	// with scales the solver derived, Problem.FScale nil; see the package
+	// doc, Scaling).
+	RoundOff bool
+
+	// Retried is set when the solve failed after steps with a reused
+	// factorisation or pivot order and was repeated from the start point
+	// without them (see Settings.NoReuse); Stats then count both attempts,
+	// and a Recorder saw the repeat's iterations numbered from 1 again.
+	Retried bool
 }
 
 // Iteration is what a Recorder sees after each Newton iteration.
 type Iteration struct {
-	Iter         int       // 1 for the first iteration
+	Iter         int       // 1 for the first Newton iteration; a reused step carries the number of the iteration it follows
 	X            []float64 // the accepted point; read only, valid during the call
 	ResidualNorm float64   // scaled infinity norm at X
 	StepNorm     float64   // scaled infinity norm of the accepted step
@@ -330,6 +397,7 @@ type Iteration struct {
 	Backtracks   int       // step reductions in this line search
 	Cond         float64   // condition estimate of the scaled Jacobian
 	Regularized  bool      // the step was a Levenberg–Marquardt step (Settings.Regularize)
+	Reused       bool      // the step used the factorisation of iteration Iter (no new Jacobian)
 	Stats        Stats     // counters so far
 }
 

@@ -103,12 +103,15 @@ func TestSquareLawThroughZero(t *testing.T) {
 	}
 }
 
-// TestStagnated: with FTol below the rounding floor of F(x) = x² − 2 the
-// solver must not claim convergence; it stops with Stagnated once the
-// step falls below XTol (common practice, no source).
+// TestStagnated: with the caller's own scales and FTol below the rounding
+// floor of F(x) = x² − 2 the solver must not claim convergence; it stops
+// with Stagnated once the step falls below XTol (common practice, no
+// source). (Without scales the solver derives them and reports the same
+// point as converged at round-off: TestRoundOff.)
 func TestStagnated(t *testing.T) {
 	t.Parallel()
-	p := Problem{Dim: 1, Residual: func(r, x []float64) error { r[0] = x[0]*x[0] - 2; return nil }}
+	p := Problem{Dim: 1, XScale: []float64{1}, FScale: []float64{1},
+		Residual: func(r, x []float64) error { r[0] = x[0]*x[0] - 2; return nil }}
 	res, err := Solve(context.Background(), p, []float64{10}, &Settings{FTol: 1e-300})
 	if res.Status != Stagnated || !errors.Is(err, ErrStagnated) {
 		t.Errorf("status %v, error %v, residual %g; want Stagnated", res.Status, err, res.ResidualNorm)

@@ -6,48 +6,71 @@ import (
 	"gonum.org/v1/gonum/mat"
 )
 
+// maxSVDOrder is the largest order whose singular Jacobian the
+// diagnosis decomposes (a dense SVD, O(n³) time and O(n²) memory, made
+// only on failure); above it, a SingularError names the zero rows and
+// columns only and says so.
+const maxSVDOrder = 1000
+
 // singularError names the unknowns and equations of a singular scaled
-// Jacobian (in s.jac): zero columns and rows first, then the unknowns and
-// equations carrying the right and left singular vectors of the singular
-// values below σ_max/MaxCondition (at least the smallest one). An entry
-// counts when its magnitude is at least a tenth of the vector's largest.
-// This runs only on failure and allocates.
+// Jacobian: zero columns and rows first, then the unknowns and equations
+// carrying the right and left singular vectors of the singular values
+// below σ_max/MaxCondition (at least the smallest one). An entry counts
+// when its magnitude is at least a tenth of the vector's largest. This
+// runs only on failure and allocates (with a Pattern, a dense copy of the
+// Jacobian up to order maxSVDOrder).
 func (s *Solver) singularError(it int, cond float64) *SingularError {
 	e := &SingularError{Iter: it, Cond: cond}
 	n := s.n
+	at := func(i, j int) float64 { return s.jac.At(i, j) }
+	if s.sj != nil {
+		at = s.sj.At
+	}
 	maxAbs := 0.0
-	for i := 0; i < n; i++ {
-		for j := 0; j < n; j++ {
-			maxAbs = math.Max(maxAbs, math.Abs(s.jac.At(i, j)))
+	colMax := make([]float64, n)
+	rowMax := make([]float64, n)
+	if s.sj != nil {
+		for i := 0; i < n; i++ {
+			cols, vals := s.sj.Row(i)
+			for k, j := range cols {
+				a := math.Abs(vals[k])
+				maxAbs = math.Max(maxAbs, a)
+				colMax[j] = math.Max(colMax[j], a)
+				rowMax[i] = math.Max(rowMax[i], a)
+			}
+		}
+	} else {
+		for i := 0; i < n; i++ {
+			for j := 0; j < n; j++ {
+				a := math.Abs(at(i, j))
+				maxAbs = math.Max(maxAbs, a)
+				colMax[j] = math.Max(colMax[j], a)
+				rowMax[i] = math.Max(rowMax[i], a)
+			}
 		}
 	}
 	tiny := maxAbs * 1e-14
 	for j := 0; j < n; j++ {
-		zero := true
-		for i := 0; i < n; i++ {
-			if math.Abs(s.jac.At(i, j)) > tiny {
-				zero = false
-				break
-			}
-		}
-		if zero {
+		if !(colMax[j] > tiny) {
 			e.ZeroUnknowns = append(e.ZeroUnknowns, s.p.varName(j))
 		}
 	}
 	for i := 0; i < n; i++ {
-		zero := true
-		for j := 0; j < n; j++ {
-			if math.Abs(s.jac.At(i, j)) > tiny {
-				zero = false
-				break
-			}
-		}
-		if zero {
+		if !(rowMax[i] > tiny) {
 			e.ZeroEquations = append(e.ZeroEquations, s.p.eqName(i))
 		}
 	}
+	m := s.jac
+	if s.sj != nil {
+		if n > maxSVDOrder {
+			e.NotDecomposed = true
+			return e
+		}
+		m = mat.NewDense(n, n, nil)
+		s.sj.DenseTo(m)
+	}
 	var svd mat.SVD
-	if !svd.Factorize(s.jac, mat.SVDFull) {
+	if !svd.Factorize(m, mat.SVDFull) {
 		return e
 	}
 	sv := svd.Values(nil)

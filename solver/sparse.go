@@ -11,73 +11,116 @@ import (
 // SparseLU is a Factorizer for sparse Jacobians: a left-looking LU with
 // partial pivoting (Gilbert and Peierls, SIAM J. Sci. Stat. Comput. 9(5),
 // 1988; the data layout follows Davis, Direct Methods for Sparse Linear
-// Systems, SIAM 2006, from memory). It reads the nonzeros of the dense
-// Jacobian the solver hands it (an O(n²) scan, or, after SetPattern, only
-// the pattern's entries) and factorises them in O(flops in the factors),
-// which for banded or plant-like Jacobians is far below the O(n³) of
-// DenseLU.
+// Systems, SIAM 2006, from memory). It factorises a *Sparse directly
+// (FactorizeSparse, RefactorSparse) or reads the nonzeros of a dense
+// matrix (Factorize: an O(n²) scan, or, after SetPattern, only the
+// pattern's entries), in O(flops in the factors), which for banded or
+// plant-like Jacobians is far below the O(n³) of DenseLU. Its storage is
+// O(nonzeros + fill): nothing of order n² (see minDegreeOrder).
 //
 // Columns are taken in their natural order unless MinDegree is set; for
 // the natural order, number the unknowns so that coupled ones are near
-// each other. Among the
-// rows eligible as pivot the diagonal entry of A is preferred while it is
-// at least DiagTol times the largest (threshold pivoting, to keep the
-// band); otherwise the largest is taken. The condition number is
-// estimated in the 1-norm by Hager's method with Higham's refinement
-// (Higham, ACM TOMS 14(4), 1988), as LAPACK's Dlacn2 does, when Cond is
-// first called after a factorisation; CondBound gives a cheaper upper
-// bound.
+// each other.
 //
-// The symbolic part (the reach of each column, found by depth-first
-// search) is kept and reused in the next factorisation for as long as the
-// structure of A and the pivot rows stay the same, which on a sequence of
-// Newton iterations they mostly do; the factors are bit for bit those of
-// a fresh factorisation. Entries that are exactly zero are dropped from
-// the structure, so a Jacobian entry that is zero at one iteration and
-// not at the next (a line without flow) changes the structure.
+// # Pivots
 //
-// With MinDegree and a pattern (SetPattern), the columns are taken in a
-// fill-reducing order found once from the pattern, and the structure of
-// A is the pattern itself, zeros included: it never changes, and only a
-// change of pivot row makes the symbolic part be found again. In that
-// mode the arithmetic does not depend on the structure: the updates of
-// L \ A(:,k) are applied in the order of the pivot steps, ties between
-// candidate pivots go to the lowest row, and each column of L and U is
-// kept in that order, so the explicit zeros change no nonzero value of
-// the factors, of a solve or of the condition estimate and bound (for
-// finite values). The factors are not those of the natural order: the
-// results differ from it by rounding.
+// Factorize and FactorizeSparse choose each pivot afresh: among the rows
+// eligible as pivot the diagonal entry of A (of the column taken at that
+// step) is preferred while it is at least DiagTol times the largest
+// (threshold pivoting, to keep the band); otherwise the largest is
+// taken, the lowest row on a tie.
+//
+// RefactorSparse keeps the pivot order of the last factorisation: the
+// pivot row of each step stays while its entry is at least DiagTol
+// (default 0.1) times the largest entry among the rows eligible at that
+// step; where it is not, that step and the later ones are pivoted afresh
+// (a new depth-first search of the structure from that column on). The
+// threshold is the one the fresh choice applies to the diagonal: every
+// multiplier of L is then at most 1/DiagTol = 10 in magnitude, as in a
+// fresh factorisation, so the growth bound (1 + 1/DiagTol per step) and
+// with it the backward error bound of the factors are those of a fresh
+// threshold-pivoted factorisation (Duff, Erisman and Reid, Direct Methods
+// for Sparse Matrices, OUP 1986, §7.8 on threshold pivoting with u = 0.1,
+// from memory). A solve with refactorised factors therefore agrees with
+// one with fresh factors within round-off (the backward error, times the
+// condition number), though not bit for bit. KeptPivots says how many
+// steps kept a pivot that a fresh choice would have changed. The solver
+// refactorises so only with Settings.KeepPivots, and never at the first
+// iteration of a Solve, so that no Solve depends on earlier ones.
+//
+// # The kept structure
+//
+// The symbolic part of a factorisation (the reach of each column found by
+// depth-first search, the structure of L and U, the pivot rows) is kept.
+// The next factorisation runs column by column on it, writing the values
+// into the kept storage without any search, for as long as the columns of
+// A have their old structure and each pivot is the one kept (by the fresh
+// rule for Factorize and FactorizeSparse, by the threshold for
+// RefactorSparse); from the first column where that fails, the rest is
+// found again by depth-first search. With the fresh rule the factors are
+// bit for bit those of a factorisation from scratch. Entries that are
+// exactly zero are dropped from the structure, so a Jacobian entry that is
+// zero at one iteration and not at the next (a line without flow) changes
+// the structure, unless the structure is the pattern itself:
+//
+// With MinDegree and a pattern (SetPattern, or the pattern of the Sparse
+// matrix factorised), the columns are taken in a fill-reducing order
+// found once from the pattern, and the structure of A is the pattern
+// itself, zeros included: it never changes, and only a change of pivot
+// row makes the symbolic part be found again. In that mode the arithmetic
+// does not depend on the structure: the updates of L \ A(:,k) are applied
+// in the order of the pivot steps, ties between candidate pivots go to
+// the lowest row, and each column of L and U is kept in that order, so the
+// explicit zeros change no nonzero value of the factors, of a solve or of
+// the condition estimate and bound (for finite values). The factors are
+// not those of the natural order: the results differ from it by rounding.
+//
+// The condition number is estimated in the 1-norm by Hager's method with
+// Higham's refinement (Higham, ACM TOMS 14(4), 1988), as LAPACK's Dlacn2
+// does, when Cond is first called after a factorisation; CondBound gives
+// a cheaper upper bound.
 //
 // After the first factorisation of a given fill, SparseLU allocates
 // nothing. The zero value is ready to use.
 type SparseLU struct {
-	// DiagTol is the threshold for preferring the diagonal pivot, in
-	// (0, 1]. Zero means 0.1; 1 gives plain partial pivoting.
+	// DiagTol is the pivot threshold, in (0, 1]: the fresh choice prefers
+	// the diagonal entry while it is at least DiagTol times the largest
+	// eligible entry, and RefactorSparse keeps a pivot while it is. Zero
+	// means 0.1; 1 gives plain partial pivoting (and a refactorisation
+	// then keeps a pivot only while it is the largest).
 	DiagTol float64
 
-	// MinDegree makes SetPattern order the columns by minimum degree on
-	// the graph of the pattern's AᵀA (see minDegreeOrder) and keep the
-	// pattern's zeros in the structure, for patterns of order up to 4096.
-	// On Jacobians whose entries come and go (a plant's lines with and
-	// without flow) that saves most of the symbolic work and much of the
-	// fill. Set it before SetPattern; it has no effect without a pattern.
+	// MinDegree makes SetPattern (or the first factorisation of a Sparse)
+	// order the columns by minimum degree on the graph of the pattern's
+	// AᵀA (see minDegreeOrder) and keep the pattern's zeros in the
+	// structure. On Jacobians whose entries come and go (a plant's lines
+	// with and without flow) that saves most of the symbolic work and
+	// much of the fill. Set it before SetPattern; it has no effect without
+	// a pattern.
 	MinDegree bool
 
-	n          int
-	ap, ai     []int // A in compressed columns
-	ax         []float64
-	lp, li     []int // L: unit lower triangular, diagonal first in each column
-	lx         []float64
-	up, ui     []int // U: upper triangular, diagonal last in each column
-	ux         []float64
-	pinv       []int // pinv[row] = pivot step of that row
-	xi         []int // 2n: reach stack and DFS stack
-	mark       []bool
-	x, y, z, w []float64
-	anorm      float64
-	cond       float64
-	condDone   bool // cond is the estimate of the current factors
-	ok         bool
+	n      int
+	ap, ai []int // A in compressed columns
+	ax     []float64
+	// L: unit lower triangular, its pivot row first in each column. lrow
+	// holds the rows as rows of A (for the factorisation), li the same as
+	// pivot steps (for the solves). pivAt[k] is the place of the pivot
+	// row among the candidates of step k in the order of its reach, which
+	// the fresh rule needs to break ties as a search from scratch would.
+	lp, lrow, li []int
+	lx           []float64
+	pivAt        []int
+	up, ui       []int // U: upper triangular, diagonal last in each column
+	ux           []float64
+	pinv         []int // pinv[row] = pivot step of that row
+	piv          []int // piv[step] = pivot row of that step
+	xi           []int // 2n: reach stack and DFS stack
+	mark         []bool
+	x, y, z, w   []float64
+	anorm        float64
+	cond         float64
+	condDone     bool // cond is the estimate of the current factors
+	ok           bool
 
 	pn     int   // order of the pattern; 0 without one
 	pp, pr []int // the pattern in compressed columns (rows ascending), in the order q
@@ -85,6 +128,15 @@ type SparseLU struct {
 	// the natural order). SetPattern sets it.
 	q      []int
 	static bool // the structure of A is the pattern, zeros included
+	// fillBound bounds the entries of L and of U below and above the
+	// diagonal in the order q (George and Ng; see minDegreeOrder), 0
+	// when unknown; the first factorisation sizes its storage by it.
+	fillBound int
+
+	// For a Sparse matrix of pattern srcPat: src[c] is the position in its
+	// values of the entry at position c of pp, pr.
+	srcPat *sparsePattern
+	src    []int
 
 	// The structure of A with its zeros dropped (read from the pattern's
 	// entries or by the full scan), of this factorisation and of the
@@ -92,16 +144,25 @@ type SparseLU struct {
 	sp, si   []int
 	sp0, si0 []int
 
-	// The symbolic part of the last factorisation, reused while nothing
-	// changes it: the reach of each column (rr[rp[k]:rp[k+1]], in
-	// topological order, sorted by sortReach when there is a column order)
-	// and each step's pivot row. symOK is cleared by SetPattern; unless
-	// the structure is static it is compared column by column too.
-	rp, rr  []int
-	piv     []int
-	symOK   bool
-	dfsCols int // columns whose reach was searched, not reused (for tests)
+	// symOK says the structure of L and U, the pivots and the reach of
+	// each column kept from the last factorisation are valid for the
+	// current pattern (cleared by SetPattern and by a failure).
+	symOK bool
+
+	// kept counts the steps of the last factorisation whose pivot is not
+	// the one the fresh rule would have chosen (RefactorSparse only).
+	kept int
+
+	// Counters for tests: columns whose reach was searched, columns a
+	// refactorisation pivoted afresh.
+	dfsCols, repivots int
 }
+
+// KeptPivots implements Refactorizer: the number of steps of the last
+// factorisation whose pivot differs from the one a fresh factorisation
+// of the same matrix would choose. Zero means the factors are bit for bit
+// those of FactorizeSparse.
+func (s *SparseLU) KeptPivots() int { return s.kept }
 
 // SetPattern implements PatternFactorizer: from now on Factorize reads
 // only the entries of its matrix (of order n) listed in pattern (pattern[i]
@@ -111,93 +172,169 @@ type SparseLU struct {
 // scan. It panics if the pattern does not have n rows or lists a column
 // outside [0, n).
 func (s *SparseLU) SetPattern(n int, pattern [][]int) {
-	if pattern != nil || s.pp != nil {
-		s.symOK = false // the structure of A changes
-	}
 	if pattern == nil {
-		s.pn, s.pp, s.pr, s.q, s.static = 0, nil, nil, nil, false
+		if s.pp != nil {
+			s.symOK = false // the structure of A changes
+		}
+		s.pn, s.pp, s.pr, s.q, s.static, s.srcPat, s.fillBound = 0, nil, nil, nil, false, nil, 0
 		return
 	}
 	if len(pattern) != n {
 		panic(fmt.Sprintf("solver: SparseLU.SetPattern with %d rows, want %d", len(pattern), n))
 	}
-	mark := make([]int, n)
-	count := make([]int, n+1)
 	for i, row := range pattern {
 		for _, j := range row {
 			if j < 0 || j >= n {
 				panic(fmt.Sprintf("solver: SparseLU.SetPattern: row %d lists column %d, want 0 ≤ column < %d", i, j, n))
 			}
-			if mark[j] != i+1 {
-				mark[j] = i + 1
-				count[j+1]++
-			}
 		}
+	}
+	ptr, col := compressPattern(pattern, n)
+	s.setPattern(n, ptr, col)
+}
+
+// setPattern sets the pattern from its compressed rows (columns ascending
+// and unique within each row).
+func (s *SparseLU) setPattern(n int, ptr, col []int) {
+	count := make([]int, n+1)
+	for _, j := range col {
+		count[j+1]++
 	}
 	for j := 0; j < n; j++ {
 		count[j+1] += count[j]
 	}
-	s.pp = count
-	s.pr = make([]int, count[n])
+	pr := make([]int, len(col))
 	next := make([]int, n)
 	copy(next, count[:n])
-	for j := range mark {
-		mark[j] = 0
-	}
-	for i, row := range pattern { // rows ascending within each column
-		for _, j := range row {
-			if mark[j] != i+1 {
-				mark[j] = i + 1
-				s.pr[next[j]] = i
-				next[j]++
-			}
+	for i := 0; i < n; i++ { // rows ascending within each column
+		for p := ptr[i]; p < ptr[i+1]; p++ {
+			j := col[p]
+			pr[next[j]] = i
+			next[j]++
 		}
 	}
+	s.pp, s.pr = count, pr
 	s.pn = n
-	s.q = nil
-	s.static = s.MinDegree && n <= maxOrderN
+	s.q, s.fillBound = nil, 0
+	s.static = s.MinDegree
 	if s.static {
-		s.q = minDegreeOrder(n, s.pp, s.pr)
+		s.q, s.fillBound = minDegreeOrder(n, s.pp, s.pr)
 		s.pp, s.pr = permuteColumns(s.q, s.pp, s.pr)
 	}
+	s.srcPat = nil
+	s.symOK = false
 }
 
-// Factorize implements Factorizer.
+// bind makes the pattern of a agree with SparseLU's, taking a's pattern
+// if it does not, and finds where each entry of the compressed columns
+// is among a's values.
+func (s *SparseLU) bind(a *Sparse) {
+	n := a.pat.n
+	if s.pn != n || len(s.pr) != len(a.pat.col) || !s.mapSource(a) {
+		s.setPattern(n, a.pat.ptr, a.pat.col)
+		if !s.mapSource(a) {
+			panic("solver: SparseLU: internal error: the compressed columns do not match the pattern they were made from")
+		}
+	}
+	s.srcPat = a.pat
+}
+
+// mapSource fills s.src for a, and reports whether a's pattern is
+// SparseLU's.
+func (s *SparseLU) mapSource(a *Sparse) bool {
+	n := a.pat.n
+	qinv := make([]int, n)
+	for k := range qinv {
+		qinv[k] = k
+	}
+	for k, j := range s.q {
+		qinv[j] = k
+	}
+	next := make([]int, n)
+	copy(next, s.pp[:n])
+	if len(s.src) != len(s.pr) {
+		s.src = make([]int, len(s.pr))
+	}
+	ptr, col := a.pat.ptr, a.pat.col
+	for i := 0; i < n; i++ {
+		for p := ptr[i]; p < ptr[i+1]; p++ {
+			k := qinv[col[p]]
+			c := next[k]
+			if c >= s.pp[k+1] || s.pr[c] != i {
+				return false
+			}
+			s.src[c] = p
+			next[k]++
+		}
+	}
+	return true
+}
+
+// ensure sizes the work space for order n.
+func (s *SparseLU) ensure(n int) {
+	if s.n == n && s.pinv != nil {
+		return
+	}
+	s.n = n
+	s.ap = make([]int, n+1)
+	s.lp = make([]int, n+1)
+	s.up = make([]int, n+1)
+	s.pinv = make([]int, n)
+	s.piv = make([]int, n)
+	s.pivAt = make([]int, n)
+	s.xi = make([]int, 2*n)
+	s.mark = make([]bool, n)
+	s.x = make([]float64, n)
+	s.y = make([]float64, n)
+	s.z = make([]float64, n)
+	s.w = make([]float64, n)
+	s.sp = make([]int, n+1)
+	s.sp0 = make([]int, n+1)
+	s.symOK = false
+}
+
+// Factorize implements Factorizer, choosing the pivots afresh.
 func (s *SparseLU) Factorize(j *mat.Dense) error {
 	n, c := j.Dims()
 	if n != c {
 		panic(fmt.Sprintf("solver: SparseLU.Factorize of a %d×%d matrix, want square", n, c))
 	}
-	if s.n != n || s.pinv == nil {
-		s.n = n
-		s.ap = make([]int, n+1)
-		s.lp = make([]int, n+1)
-		s.up = make([]int, n+1)
-		s.pinv = make([]int, n)
-		s.xi = make([]int, 2*n)
-		s.mark = make([]bool, n)
-		s.x = make([]float64, n)
-		s.y = make([]float64, n)
-		s.z = make([]float64, n)
-		s.w = make([]float64, n)
-		s.sp = make([]int, n+1)
-		s.sp0 = make([]int, n+1)
-		s.rp = make([]int, n+1)
-		s.piv = make([]int, n)
-		s.symOK = false
-	}
-	s.ok = false
-	s.cond = math.Inf(1)
-	s.condDone = true
-	// Compressed columns of A, and its 1-norm.
-	raw := j.RawMatrix()
-	s.anorm = 0
 	if s.pp != nil && s.pn != n {
 		panic(fmt.Sprintf("solver: SparseLU.Factorize of order %d with a pattern of order %d", n, s.pn))
 	}
 	if s.q != nil && len(s.q) != n {
 		panic(fmt.Sprintf("solver: SparseLU.Factorize of order %d with a column order of %d", n, len(s.q)))
 	}
+	s.ensure(n)
+	s.gatherDense(j)
+	return s.factor(false)
+}
+
+// FactorizeSparse factorises a, choosing the pivots afresh (see the type's
+// doc). If a's pattern is not the one given to SetPattern (or there was
+// none), a's pattern becomes SparseLU's, as if given to SetPattern.
+func (s *SparseLU) FactorizeSparse(a *Sparse) error {
+	s.ensure(a.pat.n)
+	s.gatherSparse(a)
+	return s.factor(false)
+}
+
+// RefactorSparse factorises a keeping the pivot order of the last
+// factorisation where each kept pivot passes the DiagTol threshold, and
+// pivoting afresh from the first step where one does not (see the type's
+// doc). After a failed factorisation, or with a new pattern, it is
+// FactorizeSparse.
+func (s *SparseLU) RefactorSparse(a *Sparse) error {
+	s.ensure(a.pat.n)
+	s.gatherSparse(a)
+	return s.factor(true)
+}
+
+// gatherDense reads the columns of A from a dense matrix.
+func (s *SparseLU) gatherDense(j *mat.Dense) {
+	n := s.n
+	raw := j.RawMatrix()
+	s.anorm = 0
 	if s.static {
 		// The pattern is the structure, zeros included: it never changes.
 		s.ap, s.ai = s.pp, s.pr
@@ -218,80 +355,246 @@ func (s *SparseLU) Factorize(j *mat.Dense) error {
 			}
 			s.anorm = math.Max(s.anorm, sum)
 		}
-	} else {
-		s.sp, s.sp0 = s.sp0, s.sp // keep the last structure for comparison
-		s.si, s.si0 = s.si0, s.si
-		s.si, s.ax = s.si[:0], s.ax[:0]
-		for k := 0; k < n; k++ {
-			s.sp[k] = len(s.si)
-			col := k
-			if s.q != nil {
-				col = s.q[k]
+		return
+	}
+	s.sp, s.sp0 = s.sp0, s.sp // keep the last structure for comparison
+	s.si, s.si0 = s.si0, s.si
+	s.si, s.ax = s.si[:0], s.ax[:0]
+	for k := 0; k < n; k++ {
+		s.sp[k] = len(s.si)
+		col := k
+		if s.q != nil {
+			col = s.q[k]
+		}
+		sum := 0.0
+		if s.pp != nil {
+			for p := s.pp[k]; p < s.pp[k+1]; p++ {
+				row := s.pr[p]
+				if v := raw.Data[row*raw.Stride+col]; v != 0 {
+					s.si = append(s.si, row)
+					s.ax = append(s.ax, v)
+					sum += math.Abs(v)
+				}
 			}
+		} else {
+			for row := 0; row < n; row++ {
+				if v := raw.Data[row*raw.Stride+col]; v != 0 {
+					s.si = append(s.si, row)
+					s.ax = append(s.ax, v)
+					sum += math.Abs(v)
+				}
+			}
+		}
+		s.anorm = math.Max(s.anorm, sum)
+	}
+	s.sp[n] = len(s.si)
+	s.ap, s.ai = s.sp, s.si
+}
+
+// gatherSparse reads the columns of A from a Sparse matrix: the same
+// values, in the same order, as gatherDense reads from its dense copy.
+func (s *SparseLU) gatherSparse(a *Sparse) {
+	if s.srcPat != a.pat {
+		s.bind(a)
+	}
+	n := s.n
+	v := a.val
+	s.anorm = 0
+	if s.static {
+		s.ap, s.ai = s.pp, s.pr
+		if cap(s.ax) < len(s.pr) {
+			s.ax = make([]float64, len(s.pr))
+		}
+		s.ax = s.ax[:len(s.pr)]
+		for k := 0; k < n; k++ {
 			sum := 0.0
-			if s.pp != nil {
-				for p := s.pp[k]; p < s.pp[k+1]; p++ {
-					row := s.pr[p]
-					if v := raw.Data[row*raw.Stride+col]; v != 0 {
-						s.si = append(s.si, row)
-						s.ax = append(s.ax, v)
-						sum += math.Abs(v)
-					}
-				}
-			} else {
-				for row := 0; row < n; row++ {
-					if v := raw.Data[row*raw.Stride+col]; v != 0 {
-						s.si = append(s.si, row)
-						s.ax = append(s.ax, v)
-						sum += math.Abs(v)
-					}
-				}
+			for c := s.pp[k]; c < s.pp[k+1]; c++ {
+				x := v[s.src[c]]
+				s.ax[c] = x
+				sum += math.Abs(x)
 			}
 			s.anorm = math.Max(s.anorm, sum)
 		}
-		s.sp[n] = len(s.si)
-		s.ap, s.ai = s.sp, s.si
+		return
 	}
-
-	tol := s.DiagTol
-	if tol <= 0 || tol > 1 {
-		tol = 0.1
-	}
-	for i := range s.pinv {
-		s.pinv[i] = -1
-	}
-	s.li, s.lx, s.ui, s.ux = s.li[:0], s.lx[:0], s.ui[:0], s.ux[:0]
-	x := s.x
-	// The reach of column k depends only on the structure of A(:,k) and
-	// on the structure of L and the pivots of the steps before k, so it
-	// is taken from the last factorisation as long as those are the same;
-	// from the first difference on it is found again by depth-first
-	// search (Gilbert and Peierls 1988). In the static mode (MinDegree
-	// with a pattern) the structure of A is always the same.
-	same := s.symOK
-	scan := !s.static
-	s.symOK = false
-	s.rp[0] = 0
+	s.sp, s.sp0 = s.sp0, s.sp
+	s.si, s.si0 = s.si0, s.si
+	s.si, s.ax = s.si[:0], s.ax[:0]
 	for k := 0; k < n; k++ {
-		s.lp[k] = len(s.li)
-		s.up[k] = len(s.ui)
-		if same && scan && !s.sameColumn(k) {
-			same = false
-		}
-		var top int
-		if same {
-			r := s.rr[s.rp[k]:s.rp[k+1]]
-			top = n - len(r)
-			copy(s.xi[top:n], r)
-		} else {
-			top = s.reach(k)
-			if s.q != nil {
-				s.sortReach(top)
+		s.sp[k] = len(s.si)
+		sum := 0.0
+		for c := s.pp[k]; c < s.pp[k+1]; c++ {
+			if x := v[s.src[c]]; x != 0 {
+				s.si = append(s.si, s.pr[c])
+				s.ax = append(s.ax, x)
+				sum += math.Abs(x)
 			}
-			s.dfsCols++
-			s.rr = append(s.rr[:s.rp[k]], s.xi[top:n]...)
-			s.rp[k+1] = len(s.rr)
 		}
+		s.anorm = math.Max(s.anorm, sum)
+	}
+	s.sp[n] = len(s.si)
+	s.ap, s.ai = s.sp, s.si
+}
+
+func (s *SparseLU) tol() float64 {
+	if t := s.DiagTol; t > 0 && t <= 1 {
+		return t
+	}
+	return 0.1
+}
+
+// factor factorises the A of ap, ai, ax (its 1-norm in anorm). With keep,
+// the kept pivots stay where they pass the threshold.
+func (s *SparseLU) factor(keep bool) error {
+	s.ok = false
+	s.cond = math.Inf(1)
+	s.condDone = true
+	kept := s.symOK
+	s.symOK = false
+	keep = keep && kept
+	s.kept = 0
+	tol := s.tol()
+	k0 := 0
+	if kept {
+		var err error
+		if k0, err = s.fast(keep, tol); err != nil {
+			return err
+		}
+	}
+	if k0 < s.n {
+		if err := s.general(k0, keep, tol); err != nil {
+			return err
+		}
+	}
+	s.ok = true
+	s.symOK = true
+	s.condDone = false // estimated by the first Cond
+	return nil
+}
+
+// fast refactorises the columns on the kept structure, writing the values
+// into the kept storage, and returns the first column it cannot do: one
+// whose structure in A changed (without the static mode) or whose pivot
+// is not the kept one (by the fresh rule, or with keep by the threshold).
+// The arithmetic is that of general, operation for operation.
+func (s *SparseLU) fast(keep bool, tol float64) (int, error) {
+	n := s.n
+	x := s.x
+	for k := 0; k < n; k++ {
+		if !s.static && !s.sameColumn(k) {
+			return k, nil
+		}
+		for p := s.ap[k]; p < s.ap[k+1]; p++ {
+			x[s.ai[p]] = s.ax[p]
+		}
+		// x = L \ A(:,k): the updates by the earlier steps in U(:,k), in
+		// the order of the reach.
+		d := s.up[k+1] - 1
+		for p := s.up[k]; p < d; p++ {
+			xj := x[s.piv[s.ui[p]]] // L(piv, ui[p]) = 1
+			s.ux[p] = xj
+			if xj == 0 {
+				continue
+			}
+			j := s.ui[p]
+			for q := s.lp[j] + 1; q < s.lp[j+1]; q++ {
+				x[s.lrow[q]] -= s.lx[q] * xj
+			}
+		}
+		// The candidates are L(:,k)'s rows, the kept pivot first; in the
+		// order of the reach the pivot is at pivAt[k].
+		l0, l1 := s.lp[k], s.lp[k+1]
+		r := s.lrow[l0]
+		at := s.pivAt[k]
+		best, amax := -1, -1.0
+		for t := 0; t < l1-l0; t++ {
+			var i int
+			switch {
+			case t < at:
+				i = s.lrow[l0+1+t]
+			case t == at:
+				i = r
+			default:
+				i = s.lrow[l0+t]
+			}
+			if a := math.Abs(x[i]); a > amax {
+				amax, best = a, i
+			}
+		}
+		if amax <= 0 {
+			s.clearColumn(k)
+			return 0, ErrExactlySingular
+		}
+		diag := k
+		if s.q != nil {
+			diag = s.q[k]
+		}
+		if s.pinv[diag] >= k && math.Abs(x[diag]) >= tol*amax {
+			best = diag // the fresh choice
+		}
+		same := best == r
+		if keep && !same && math.Abs(x[r]) >= tol*amax {
+			same = true
+			s.kept++
+		}
+		if !same {
+			s.clearColumn(k)
+			return k, nil
+		}
+		pivot := x[r]
+		s.ux[d] = pivot
+		x[r] = 0
+		for q := l0 + 1; q < l1; q++ {
+			i := s.lrow[q]
+			s.lx[q] = x[i] / pivot
+			x[i] = 0
+		}
+		for p := s.up[k]; p < d; p++ {
+			x[s.piv[s.ui[p]]] = 0
+		}
+	}
+	return n, nil
+}
+
+// clearColumn zeroes x on the kept reach of column k.
+func (s *SparseLU) clearColumn(k int) {
+	for q := s.lp[k]; q < s.lp[k+1]; q++ {
+		s.x[s.lrow[q]] = 0
+	}
+	for p := s.up[k]; p < s.up[k+1]-1; p++ {
+		s.x[s.piv[s.ui[p]]] = 0
+	}
+}
+
+// general factorises columns k0 to n−1 by depth-first search, the earlier
+// ones being done. With keep, the pivot row of the last factorisation is
+// kept where it is eligible and passes the threshold.
+func (s *SparseLU) general(k0 int, keep bool, tol float64) error {
+	n := s.n
+	x := s.x
+	for i, k := range s.pinv {
+		if k >= k0 || k0 == 0 {
+			s.pinv[i] = -1
+		}
+	}
+	if b := n + s.fillBound; k0 == 0 && cap(s.lrow) < b && cap(s.ui) < b && s.fillBound <= 16*len(s.ax) {
+		// The first factorisation: the bound of the fill, if known and
+		// not far above the size of A (a dense row makes AᵀA dense), is
+		// the size; reserve grows it if the bound does not hold.
+		s.lrow, s.lx = make([]int, 0, b), make([]float64, 0, b)
+		s.ui, s.ux = make([]int, 0, b), make([]float64, 0, b)
+	}
+	s.lrow, s.lx = s.lrow[:s.lp[k0]], s.lx[:s.lp[k0]]
+	s.ui, s.ux = s.ui[:s.up[k0]], s.ux[:s.up[k0]]
+	for k := k0; k < n; k++ {
+		s.lp[k] = len(s.lrow)
+		s.up[k] = len(s.ui)
+		top := s.reach(k)
+		if s.q != nil {
+			s.sortReach(top)
+		}
+		s.dfsCols++
+		s.reserve(n - top)
 		s.numeric(k, top)
 		ipiv, amax := -1, -1.0
 		for p := top; p < n; p++ {
@@ -316,36 +619,66 @@ func (s *SparseLU) Factorize(j *mat.Dense) error {
 			diag = s.q[k]
 		}
 		if s.pinv[diag] < 0 && math.Abs(x[diag]) >= tol*amax {
-			ipiv = diag
+			ipiv = diag // the fresh choice
 		}
-		if ipiv != s.piv[k] {
-			same = false // the later columns' reaches may differ
+		if old := s.piv[k]; keep && ipiv != old {
+			if s.pinv[old] < 0 && math.Abs(x[old]) >= tol*amax {
+				ipiv = old
+				s.kept++
+			} else {
+				s.repivots++
+			}
 		}
 		s.piv[k] = ipiv
 		pivot := x[ipiv]
 		s.ui = append(s.ui, k)
 		s.ux = append(s.ux, pivot)
 		s.pinv[ipiv] = k
-		s.li = append(s.li, ipiv)
+		s.lrow = append(s.lrow, ipiv)
 		s.lx = append(s.lx, 1)
+		c := 0
 		for p := top; p < n; p++ {
 			i := s.xi[p]
-			if s.pinv[i] < 0 {
-				s.li = append(s.li, i)
+			if i == ipiv {
+				s.pivAt[k] = c
+				c++
+			} else if s.pinv[i] < 0 {
+				s.lrow = append(s.lrow, i)
 				s.lx = append(s.lx, x[i]/pivot)
+				c++
 			}
 			x[i] = 0
 		}
 	}
-	s.lp[n] = len(s.li)
+	s.lp[n] = len(s.lrow)
 	s.up[n] = len(s.ui)
-	for p := range s.li {
-		s.li[p] = s.pinv[s.li[p]]
+	// All of L, since the rows of the earlier columns are pivoted at
+	// later steps, which may have changed.
+	if cap(s.li) < len(s.lrow) {
+		s.li = make([]int, len(s.lrow))
 	}
-	s.ok = true
-	s.symOK = true
-	s.condDone = false // estimated by the first Cond
+	s.li = s.li[:len(s.lrow)]
+	for p, i := range s.lrow {
+		s.li[p] = s.pinv[i]
+	}
 	return nil
+}
+
+// reserve makes room for k more entries in L and in U, the most one
+// column adds, growing the storage by doubling (append's growth of about
+// 1.25 for large slices would leave four times the final size as
+// garbage on a first factorisation).
+func (s *SparseLU) reserve(k int) {
+	if need := len(s.lrow) + k; need > cap(s.lrow) {
+		c := 2 * need
+		s.lrow = append(make([]int, 0, c), s.lrow...)
+		s.lx = append(make([]float64, 0, c), s.lx...)
+	}
+	if need := len(s.ui) + k; need > cap(s.ui) {
+		c := 2 * need
+		s.ui = append(make([]int, 0, c), s.ui...)
+		s.ux = append(make([]float64, 0, c), s.ux...)
+	}
 }
 
 // sameColumn reports whether column k of A, as found by the full scan,
@@ -353,20 +686,11 @@ func (s *SparseLU) Factorize(j *mat.Dense) error {
 func (s *SparseLU) sameColumn(k int) bool {
 	a := s.si[s.sp[k]:s.sp[k+1]]
 	b := s.si0[s.sp0[k]:s.sp0[k+1]]
-	if len(a) != len(b) {
-		return false
-	}
-	for i, r := range a {
-		if b[i] != r {
-			return false
-		}
-	}
-	return true
+	return slices.Equal(a, b)
 }
 
 // reach finds the rows that x = L \ A(:,k) can make nonzero and returns
-// top: they are s.xi[top:n] in topological order. L's row indices are
-// still original rows here.
+// top: they are s.xi[top:n] in topological order.
 func (s *SparseLU) reach(k int) int {
 	n := s.n
 	top := n
@@ -429,7 +753,7 @@ func (s *SparseLU) numeric(k, top int) {
 		}
 		// Columns before the current step are complete: lp[col+1] is set.
 		for p := s.lp[col] + 1; p < s.lp[col+1]; p++ {
-			x[s.li[p]] -= s.lx[p] * xj
+			x[s.lrow[p]] -= s.lx[p] * xj
 		}
 	}
 }
@@ -457,7 +781,7 @@ func (s *SparseLU) dfs(j, top int) int {
 		if col >= 0 {
 			end := s.lp[col+1]
 			for p := pstack[head]; p < end; p++ {
-				i := s.li[p]
+				i := s.lrow[p]
 				if s.mark[i] {
 					continue
 				}

@@ -136,6 +136,11 @@ type SingularError struct {
 	// Equations carry the left null vector: a combination of them is
 	// (nearly) linearly dependent.
 	Equations []string
+	// NotDecomposed is set when the Jacobian was too large (order above
+	// 1000, with a Pattern) for the singular value decomposition that
+	// finds Unknowns and Equations; only the zero rows and columns are
+	// named then.
+	NotDecomposed bool
 }
 
 func (e *SingularError) Error() string {
@@ -152,6 +157,9 @@ func (e *SingularError) Error() string {
 	}
 	if len(e.Unknowns) > 0 {
 		fmt.Fprintf(&b, "; unknowns %s are not determined by them", quoteList(e.Unknowns))
+	}
+	if e.NotDecomposed {
+		b.WriteString("; the system is too large for the decomposition that would name the dependent equations and unknowns")
 	}
 	return b.String()
 }

@@ -34,6 +34,20 @@ func newVoyage(n int, mode string, s *Settings) *voyage {
 		p.Pattern = m.pattern
 	case "colored":
 		p.Pattern = m.pattern
+	case "sparse":
+		p.Pattern = m.pattern
+		p.SparseJacobian = func(j *Sparse, x []float64) error {
+			for i := 0; i < n; i++ {
+				j.Set(i, i, 3-4*x[i])
+				if i > 0 {
+					j.Set(i, i-1, -1)
+				}
+				if i < n-1 {
+					j.Set(i, i+1, -2)
+				}
+			}
+			return nil
+		}
 	}
 	var err error
 	v.sv, err = New(p, s)
@@ -54,7 +68,7 @@ func voyageLoad(k int) float64 { return 1 + 0.2*float64(k)/voyageSteps }
 // nothing.
 func TestWarmStart(t *testing.T) {
 	t.Parallel()
-	for _, mode := range []string{"analytic", "dense", "colored"} {
+	for _, mode := range []string{"analytic", "dense", "colored", "sparse"} {
 		v := newVoyage(50, mode, nil)
 		x := filled(50, -1)
 		res, err := v.sv.Solve(context.Background(), x)
@@ -81,10 +95,12 @@ type countRecorder struct{ n int }
 func (c *countRecorder) Record(it Iteration) error { c.n++; return nil }
 
 // TestZeroAllocs checks that a warm Solver allocates nothing per Solve,
-// with each kind of Jacobian, with a Recorder, and with an analytic
-// Jacobian and a Pattern with either factorisation.
+// with each kind of Jacobian, with a Recorder, with an analytic
+// Jacobian and a Pattern with either factorisation, with the sparse
+// Jacobian, and with reuse off and kept pivots on. (The voyage has no
+// scales: the solver derives them at each Solve.)
 func TestZeroAllocs(t *testing.T) {
-	for _, mode := range []string{"analytic", "dense", "colored", "recorded", "analytic+pattern", "analytic+pattern+sparse"} {
+	for _, mode := range []string{"analytic", "dense", "colored", "recorded", "analytic+pattern", "analytic+pattern+sparse", "sparse", "sparse+no-reuse", "sparse+keep-pivots"} {
 		var set *Settings
 		rec := &countRecorder{}
 		vmode := mode
@@ -94,6 +110,10 @@ func TestZeroAllocs(t *testing.T) {
 		case "analytic+pattern+sparse":
 			set = &Settings{Factorizer: &SparseLU{}}
 			vmode = "analytic+pattern"
+		case "sparse+no-reuse":
+			set, vmode = &Settings{NoReuse: true}, "sparse"
+		case "sparse+keep-pivots":
+			set, vmode = &Settings{KeepPivots: true}, "sparse"
 		}
 		v := newVoyage(50, vmode, set)
 		x := filled(50, -1)

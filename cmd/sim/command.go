@@ -6,7 +6,10 @@ import (
 	"flag"
 	"fmt"
 	"io"
+	"strconv"
 	"strings"
+
+	"steamcase/scripting"
 )
 
 // Exit statuses.
@@ -61,8 +64,12 @@ func findCommand(name string) *command {
 	return nil
 }
 
-// usageError is a mistake on the command line.
-type usageError struct{ msg string }
+// usageError is a mistake on the command line. Values the user gave that
+// the message repeats may be listed in echoes, to be cut when long.
+type usageError struct {
+	msg    string
+	echoes []string
+}
 
 func (e *usageError) Error() string { return e.msg }
 
@@ -82,6 +89,13 @@ func run(ctx context.Context, args []string, stdout, stderr io.Writer) int {
 	case "-h", "-help", "--help":
 		writeMainHelp(stdout)
 		return exitOK
+	case "-version", "--version":
+		if len(args) > 1 {
+			fmt.Fprintf(stderr, "sim: %s takes no arguments; got %s\n", name, escapeText(strconv.Quote(args[1])))
+			return exitUsage
+		}
+		fmt.Fprintf(stdout, "sim %s\n", version())
+		return exitOK
 	}
 	c := findCommand(name)
 	if c == nil {
@@ -96,6 +110,7 @@ func run(ctx context.Context, args []string, stdout, stderr io.Writer) int {
 	err := c.Run(ctx, e, args[1:])
 	var ue *usageError
 	var re *reportedError
+	var fe *scripting.FileError
 	switch {
 	case err == nil:
 		return exitOK
@@ -105,12 +120,21 @@ func run(ctx context.Context, args []string, stdout, stderr io.Writer) int {
 		writeCommandHelp(stdout, c)
 		return exitOK
 	case errors.As(err, &ue):
-		fmt.Fprintf(stderr, "sim %s: %s\n", c.Name, ue.msg)
+		fmt.Fprintf(stderr, "sim %s: %s\n", c.Name, escapeText(shortenEchoes(ue.msg, nil, ue.echoes...)))
 		writeUsage(stderr, c)
 		fmt.Fprintf(stderr, "Run 'sim help %s' for details.\n", c.Name)
 		return exitUsage
+	case errors.As(err, &fe):
+		fmt.Fprintf(stderr, "sim: %s\n", message(fe)) // sim: cannot open nosuch.lua: no such file
+		return exitFail
+	case errors.Is(err, context.Canceled) && c.Name == "run":
+		fmt.Fprintf(stderr, "sim run: interrupted before the end; no report or chart was written\n")
+		return exitFail
+	case errors.Is(err, context.Canceled) && c.Name == "check":
+		fmt.Fprintf(stderr, "sim check: interrupted before the end\n")
+		return exitFail
 	default:
-		fmt.Fprintf(stderr, "sim %s: %s\n", c.Name, oneLine(err.Error()))
+		fmt.Fprintf(stderr, "sim %s: %s\n", c.Name, message(err))
 		return exitFail
 	}
 }

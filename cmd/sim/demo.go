@@ -36,7 +36,7 @@ func runDefault(ctx context.Context, e env) int {
 		return exitOK
 	case errors.As(err, &re):
 	default:
-		fmt.Fprintf(e.stderr, "sim: built-in demo: %s\n", oneLine(err.Error()))
+		fmt.Fprintf(e.stderr, "sim: built-in demo: %s\n", message(err))
 	}
 	return exitFail
 }
@@ -52,5 +52,5 @@ func runDemo(ctx context.Context, e env, fsys fs.FS, name string) error {
 	runner := func(ctx context.Context, opt scripting.Options) (*scripting.Run, error) {
 		return scripting.RunSource(ctx, name, src, fsys, opt)
 	}
-	return runScripts(ctx, e, &a, []scriptRunner{runner}, demoFirstLine)
+	return runScripts(ctx, e, &a, &outputs{}, []scriptRunner{runner}, demoFirstLine)
 }

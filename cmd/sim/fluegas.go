@@ -14,6 +14,7 @@ import (
 
 	"steamcase/plant/combustion"
 	"steamcase/plant/fuel"
+	"steamcase/plant/schema"
 	"steamcase/plant/units"
 )
 
@@ -148,7 +149,14 @@ func runFluegas(ctx context.Context, e env, args []string) error {
 	// for the table too: encoding/json refuses them.
 	var b []byte
 	if a.json {
-		b, err = json.MarshalIndent(&out, "", "  ")
+		// The rule of every JSON document (plant/schema): the program's
+		// version in front, six significant digits.
+		doc := struct {
+			Version string `json:"version"`
+			combustion.FlueGasJSON
+		}{version(), out}
+		schema.RoundFigures(&doc)
+		b, err = json.MarshalIndent(&doc, "", "  ")
 	} else {
 		b, err = json.Marshal(&out)
 	}

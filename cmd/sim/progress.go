@@ -71,7 +71,7 @@ func (m *progressMeter) update(job string, done, total int) {
 		m.job, m.start, m.drawn = job, now, time.Time{}
 	}
 	finished := total > 0 && done >= total
-	m.pending = formatProgress(job, done, total, now.Sub(m.start), m.width())
+	m.pending = formatProgress(escapeText(job), done, total, now.Sub(m.start), m.width())
 	if !finished && !m.drawn.IsZero() && now.Sub(m.drawn) < progressEvery {
 		return
 	}
@@ -119,6 +119,22 @@ func (m *progressMeter) Write(p []byte) (int, error) {
 		m.draw(m.now())
 	}
 	return n, err
+}
+
+// writeAbove writes p to w (another stream, such as standard output on
+// the same terminal) with the progress line cleared first and redrawn
+// after, so that the two do not overwrite each other.
+func (m *progressMeter) writeAbove(w io.Writer, p []byte) {
+	m.mu.Lock()
+	defer m.mu.Unlock()
+	if m.shown > 0 {
+		io.WriteString(m.w, "\r"+strings.Repeat(" ", m.shown)+"\r")
+		m.shown = 0
+	}
+	w.Write(p)
+	if m.pending != "" {
+		m.draw(m.now())
+	}
 }
 
 // formatProgress is the progress line of a job: what is done of how much,

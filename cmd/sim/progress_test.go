@@ -92,6 +92,20 @@ func TestProgressMeter(t *testing.T) {
 	if got := out.String(); got != want+wipe+"a log record\n"+want {
 		t.Errorf("around a log record: %q", got)
 	}
+	// A script's print on the other stream: the line is wiped first and
+	// drawn again after.
+	out.Reset()
+	var stdout bytes.Buffer
+	(&printWriter{w: &stdout, meter: m}).Write([]byte("printed\x1b[2J\n"))
+	if got := out.String(); got != wipe+want || stdout.String() != "printed\\x1b[2J\n" {
+		t.Errorf("around a print: stderr %q, stdout %q", got, stdout.String())
+	}
+	// A job's name with control characters is shown escaped.
+	out.Reset()
+	m.update("audit \"a\r\nb\"", 2, 10)
+	if got := out.String(); !strings.Contains(got, `audit "a\r\nb": 2 of 10 days`) {
+		t.Errorf("a name with control characters: %q", got)
+	}
 	// A job cut short: finish ends its line.
 	m.finish()
 	if !strings.HasSuffix(out.String(), "\n") {

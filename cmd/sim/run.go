@@ -7,7 +7,6 @@ import (
 	"flag"
 	"fmt"
 	"io"
-	"os"
 	"strconv"
 	"strings"
 	"time"
@@ -55,16 +54,17 @@ programs: --json prints one JSON document (schema 2: the program's
 version, the caution, the plants, the checks passed and failed, every case
 with its figures and every voyage, study and audit, each key naming its
 unit; the same keys as the tables case() and the jobs return to a script),
---csv tables of comma-separated values under headers
-naming their units: the load cases, one row each with the main figures,
-then the rows of the voyages (each period's conditions, boilers firing,
-steam, fuel and CO2) and their warnings, the variants of the studies (fuel, savings, payback)
+--csv tables of comma-separated values under headers naming their units:
+the load cases, one row each with the main figures, then the rows of the
+voyages (each period's conditions, boilers firing, steam, fuel and CO2)
+and their warnings, the variants of the studies (fuel, savings, payback)
 and the days of the audits (claimed, nominal and band). Each table starts
 with a header row whose first field is "table"; its rows carry the
 table's name there ("cases", "voyage rows", "voyage warnings", "study
-variants" or "audit days"), and a blank line separates two tables. The cases table always
-comes first; a job's table only when the run has such a job. -o writes the
-report to a file instead of standard output.
+variants" or "audit days"), and a blank line separates two tables. The
+cases table always comes first; a job's table only when the run has such
+a job. -o writes the report to a file instead of standard output (see
+below).
 
 --plot FILE also draws what the run solved, as an SVG or PNG image chosen
 by the file name's extension: the load cases on one chart (the steam
@@ -81,16 +81,33 @@ suffix before the extension: "-cases" for the load cases and "-voyage-N",
 the scripts in order (demand.svg gives demand-cases.svg,
 demand-voyage-1.svg, ...), and lists them on standard error.
 
-What the scripts print, and the solver's messages with -v, go to standard
-error; --quiet leaves only errors. When standard error is a terminal, and
-without --quiet, the progress of each voyage, study and audit is shown
-there on one line redrawn in place a few times a second: the rows (an
-audit's days; a study's rows times its variants) done of all, the share,
-the rate and the time left at that rate, and the time taken when done. An error in a script is printed as
-"file:line: message" and sim exits with status 1. So does a failed check(),
-after the report of the cases solved before it, so that the figures it
-tested can be seen; with --json the document marks the failure under
-"checks". A script that runs longer than --timeout is stopped.
+What the scripts print is plain text on standard output, before the
+report; with --json or --csv it goes to standard error instead, so that
+standard output holds the document alone. -v adds the solver's records
+on standard error; --quiet leaves only errors there, and drops what the
+scripts print. When standard error is a terminal, and without --quiet,
+the progress of each voyage, study and audit is shown there on one line
+redrawn in place a few times a second: the rows (an audit's days; a
+study's rows times its variants) done of all, the share, the rate and the
+time left at that rate, and the time taken when done.
+
+An error in a script is printed as "file:line: message" and sim exits
+with status 1. So does a failed check(), after the report of the cases
+solved before it, so that the figures it tested can be seen; with --json
+the document marks the failure under "checks". A script that runs longer
+than --timeout is stopped: sim prints the report of what was solved, then
+where the script was and a longer --timeout to give.
+Control characters in names and messages (a carriage return, a newline,
+a terminal's escape) are shown escaped, as \r, \n or \x1b, in the table,
+the CSV, the charts and the messages; the JSON keeps them exactly, in its
+own escapes.
+
+The report of -o and the charts of --plot are written together when the
+run is done: each first to a temporary file beside it, then renamed into
+place, so that a run that fails, is interrupted or finds the disk full
+leaves the files as they were. sim checks before the run that their
+folders can be written, and refuses to write a file the run reads (a
+script, an include, a CSV) or to name one file twice.
 
 Examples:
 
@@ -117,6 +134,7 @@ plants and load cases it declares, and exits with status 0.
 
 As no case is solved, the conditions of check() are not tested and figures
 that depend on a solution are zero while checking; "sim run" tests them.
+What the scripts print goes to standard error, apart from the list.
 
 Examples:
 
@@ -133,6 +151,10 @@ type runArgs struct {
 	plot, out      string
 	timeout        time.Duration
 	verbose, quiet bool
+
+	// timeoutFlag is set when the command takes --timeout, so that a run
+	// stopped at its limit may name it (the built-in demo does not).
+	timeoutFlag bool
 }
 
 func (a *runArgs) flagSet(name string) *flag.FlagSet {
@@ -144,9 +166,9 @@ func (a *runArgs) flagSet(name string) *flag.FlagSet {
 		fs.StringVar(&a.out, "o", "", "write the report to `FILE` instead of standard output")
 	}
 	a.timeout = 10 * time.Second
-	fs.Var((*durationFlag)(&a.timeout), "timeout", "stop a script that runs longer than `DURATION`, such as 10s or 2m (default 10s)")
-	fs.BoolVar(&a.verbose, "v", false, "log more: the solver's records as well as the scripts' messages")
-	fs.BoolVar(&a.quiet, "quiet", false, "log errors only (and, for run, show no progress)")
+	fs.Var((*durationFlag)(&a.timeout), "timeout", "stop a script that runs longer than `DURATION`, such as 10s or 2m\n(default 10s)")
+	fs.BoolVar(&a.verbose, "v", false, "log more: the solver's records as well, on standard error")
+	fs.BoolVar(&a.quiet, "quiet", false, "log errors only; drop what the scripts print (and, for run, show no\nprogress)")
 	return fs
 }
 
@@ -218,7 +240,15 @@ func newLogger(w io.Writer, a *runArgs) zerolog.Logger {
 func loggerOn(w io.Writer, console bool, a *runArgs) zerolog.Logger {
 	out := w
 	if console {
-		out = zerolog.ConsoleWriter{Out: w, TimeFormat: "15:04:05"}
+		// The console shows messages and values as they are: escape the
+		// control characters a name may hold (the JSON lines escape them).
+		esc := func(i any) string {
+			if i == nil {
+				return ""
+			}
+			return escapeText(fmt.Sprint(i))
+		}
+		out = zerolog.ConsoleWriter{Out: w, TimeFormat: "15:04:05", FormatMessage: esc, FormatFieldValue: esc}
 	}
 	level := zerolog.InfoLevel
 	switch {
@@ -237,10 +267,11 @@ type reportedError struct{ n int }
 func (e *reportedError) Error() string { return fmt.Sprintf("%d errors reported", e.n) }
 
 // writeScriptError writes a script's error to w, one line per error as
-// "file:line: message", and returns a reportedError. Errors that are not
-// the script's (a file that cannot be read, a cancelled run) are returned
-// as they are, for sim to print as one line.
-func writeScriptError(w io.Writer, err error) error {
+// "file:line: message", and returns a reportedError. A run stopped at its
+// time limit also names the flag that gives more time, when a is not nil.
+// Errors that are not the script's (a file that cannot be read, a
+// cancelled run) are returned as they are, for sim to print as one line.
+func writeScriptError(w io.Writer, err error, a *runArgs) error {
 	var list scripting.ErrorList
 	var se *scripting.Error
 	var ae *scripting.AssertionError
@@ -248,14 +279,64 @@ func writeScriptError(w io.Writer, err error) error {
 	switch {
 	case errors.As(err, &list):
 		for _, e := range list {
-			fmt.Fprintln(w, oneLine(e.Error()))
+			fmt.Fprintln(w, message(e))
 		}
 		return &reportedError{n: len(list)}
-	case errors.As(err, &se), errors.As(err, &ae), errors.As(err, &te):
-		fmt.Fprintln(w, oneLine(err.Error()))
+	case errors.As(err, &te):
+		fmt.Fprintln(w, message(err)+timeoutHint(te, a))
+		return &reportedError{n: 1}
+	case errors.As(err, &se), errors.As(err, &ae):
+		fmt.Fprintln(w, message(err))
 		return &reportedError{n: 1}
 	}
 	return err
+}
+
+// timeoutHint is what follows the message of a run stopped at its time
+// limit: the flag and a longer limit to give, and, if the interpreter had
+// to be abandoned, that the script's cases are not reported.
+func timeoutHint(te *scripting.TimeoutError, a *runArgs) string {
+	hint := ""
+	if te.Limit > 0 && a != nil && a.timeoutFlag {
+		if next := longerTimeout(te.Limit); next > 0 {
+			hint = "; to give it longer, run again with --timeout " + durationWord(next)
+		} else {
+			hint = "; this is the longest limit --timeout allows"
+		}
+	}
+	if te.Abandoned {
+		hint += "; the cases of this script are not in the report"
+	}
+	return hint
+}
+
+// longerTimeout suggests a time limit about ten times as long as d, from a
+// list of round ones, or zero when d is already the longest allowed.
+func longerTimeout(d time.Duration) time.Duration {
+	for _, t := range []time.Duration{
+		time.Second, 2 * time.Second, 5 * time.Second, 10 * time.Second, 30 * time.Second,
+		time.Minute, 2 * time.Minute, 5 * time.Minute, 10 * time.Minute, 30 * time.Minute,
+		time.Hour, 2 * time.Hour, 6 * time.Hour, 12 * time.Hour, maxTimeout,
+	} {
+		if t >= 10*d {
+			return t
+		}
+	}
+	if d < maxTimeout {
+		return maxTimeout
+	}
+	return 0
+}
+
+// durationWord writes a round duration as it is typed: 2s, 2m, 1h, 24h.
+func durationWord(d time.Duration) string {
+	switch {
+	case d%time.Hour == 0:
+		return fmt.Sprintf("%dh", d/time.Hour)
+	case d%time.Minute == 0:
+		return fmt.Sprintf("%dm", d/time.Minute)
+	}
+	return d.String()
 }
 
 // scriptRunner runs one script; the demo swaps in RunSource.
@@ -267,18 +348,28 @@ func runRun(ctx context.Context, e env, args []string) error {
 	if err != nil {
 		return err
 	}
+	a.timeoutFlag = true
+	for _, s := range scripts {
+		if err := scripting.StatScript(s); err != nil {
+			return err
+		}
+	}
+	o := &outputs{out: a.out, plot: a.plot}
+	if err := o.prepare(scripts); err != nil {
+		return err
+	}
 	runners := make([]scriptRunner, len(scripts))
 	for i, s := range scripts {
 		runners[i] = func(ctx context.Context, opt scripting.Options) (*scripting.Run, error) {
 			return scripting.RunFile(ctx, s, opt)
 		}
 	}
-	return runScripts(ctx, e, &a, runners, "")
+	return runScripts(ctx, e, &a, o, runners, "")
 }
 
 // runScripts runs the scripts in turn and writes one report of their
-// cases, preceded by the line first if it is not empty.
-func runScripts(ctx context.Context, e env, a *runArgs, runners []scriptRunner, first string) error {
+// cases, preceded by the line first if it is not empty, to the outputs o.
+func runScripts(ctx context.Context, e env, a *runArgs, o *outputs, runners []scriptRunner, first string) error {
 	// On a terminal, unless --quiet, the jobs' progress is one line
 	// redrawn in place, which the log records share.
 	var meter *progressMeter
@@ -287,7 +378,7 @@ func runScripts(ctx context.Context, e env, a *runArgs, runners []scriptRunner, 
 		meter = newProgressMeter(e.stderr, fd)
 		log = loggerOn(meter, true, a)
 	}
-	opt := scripting.Options{Timeout: a.timeout, Logger: log}
+	opt := scripting.Options{Timeout: a.timeout, Logger: log, CheckRead: o.checkRead, Print: printTo(e, a, meter)}
 	switch {
 	case meter != nil:
 		opt.Progress = meter.update
@@ -309,15 +400,19 @@ func runScripts(ctx context.Context, e env, a *runArgs, runners []scriptRunner, 
 		}
 		if err != nil {
 			var ae *scripting.AssertionError
-			if !errors.As(err, &ae) {
+			var te *scripting.TimeoutError
+			if !errors.As(err, &ae) && !errors.As(err, &te) {
 				if meter != nil {
 					meter.finish()
 				}
-				return writeScriptError(e.stderr, err)
+				return writeScriptError(e.stderr, err, a)
 			}
-			// A failed check: report what was solved and the failure,
-			// then print it.
-			all.Checks.Failed = append(all.Checks.Failed, schema.CheckFailure{Pos: ae.Pos.String(), Message: ae.Msg})
+			// A failed check or a run stopped at its limit: report what
+			// was solved (the JSON document marks a failed check), then
+			// the failure.
+			if ae != nil {
+				all.Checks.Failed = append(all.Checks.Failed, schema.CheckFailure{Pos: ae.Pos.String(), Message: ae.Msg})
+			}
 			failed = err
 			break
 		}
@@ -325,13 +420,47 @@ func runScripts(ctx context.Context, e env, a *runArgs, runners []scriptRunner, 
 	if meter != nil {
 		meter.finish()
 	}
-	if err := writeReport(e, a, all, first); err != nil {
+	if err := writeReport(e, a, o, all, first, failed != nil); err != nil {
 		return err
 	}
 	if failed != nil {
-		return writeScriptError(e.stderr, failed)
+		return writeScriptError(e.stderr, failed, a)
 	}
 	return nil
+}
+
+// printTo is where the scripts' print goes: standard output with the
+// table, standard error with --json or --csv (standard output carries one
+// document then), nowhere with --quiet. Control characters other than
+// newline and tab are escaped.
+func printTo(e env, a *runArgs, meter *progressMeter) io.Writer {
+	if a.quiet {
+		return io.Discard
+	}
+	w := e.stdout
+	if a.json || a.csv {
+		w = e.stderr
+	}
+	return &printWriter{w: w, meter: meter}
+}
+
+// printWriter writes a script's print, escaped, keeping the progress line
+// of a terminal below it.
+type printWriter struct {
+	w     io.Writer
+	meter *progressMeter
+}
+
+func (p *printWriter) Write(b []byte) (int, error) {
+	s := escapeLines(string(b))
+	if p.meter != nil {
+		p.meter.writeAbove(p.w, []byte(s))
+		return len(b), nil
+	}
+	if _, err := io.WriteString(p.w, s); err != nil {
+		return 0, err
+	}
+	return len(b), nil
 }
 
 // collect adds what a script solved, and the checks it passed, to the
@@ -367,9 +496,16 @@ func collect(all *report.Run, r *scripting.Run) {
 	}
 }
 
-// writeReport renders the run in the form asked for to -o or standard
-// output, and its charts to --plot.
-func writeReport(e env, a *runArgs, all report.Run, first string) error {
+// errNothingToDraw is the error of --plot when the run solved nothing.
+var errNothingToDraw = errors.New("nothing to draw: the scripts solved no load case, voyage, study or audit")
+
+// writeReport renders the run in the form asked for and its charts, and
+// writes them together (outputs.commit): the report to -o or standard
+// output, the charts to --plot. Names are escaped (escapeRun) in the
+// table, the CSV and the charts; the JSON carries them exactly. When the
+// run failed (a check, a time limit), a chart of nothing is left out
+// rather than an error: the failure says why.
+func writeReport(e env, a *runArgs, o *outputs, all report.Run, first string, failed bool) error {
 	var b bytes.Buffer
 	if first != "" && !a.json && !a.csv {
 		fmt.Fprintln(&b, first)
@@ -379,25 +515,48 @@ func writeReport(e env, a *runArgs, all report.Run, first string) error {
 	switch {
 	case a.json:
 		err = report.JSON(&b, all)
+		escapeRun(&all, true)
 	case a.csv:
+		escapeRun(&all, true)
 		err = report.CSV(&b, all)
 		// The CSV has no room for the caution; it goes to standard error.
 		fmt.Fprintln(e.stderr, report.Caution)
 	default:
+		escapeRun(&all, false) // the table quotes the plants' names with %q
 		err = report.Table(&b, all)
+		escapePlants(&all)
 	}
 	if err != nil {
 		return err
 	}
+	var files []pending
 	if a.plot != "" {
-		if err := writePlots(e, a, all); err != nil {
+		charts, err := chartFiles(a, all)
+		switch {
+		case errors.Is(err, errNothingToDraw) && failed:
+		case err != nil:
 			return err
+		}
+		files = charts
+	}
+	if a.out != "" {
+		files = append([]pending{{flag: "-o", file: a.out, data: b.Bytes()}}, files...)
+	}
+	if err := o.commit(files); err != nil {
+		return err
+	}
+	if n := len(files); a.plot != "" && n > 1 && !a.quiet {
+		var names []string
+		for _, f := range files {
+			if f.flag == "--plot" {
+				names = append(names, f.file)
+			}
+		}
+		if len(names) > 1 {
+			fmt.Fprintf(e.stderr, "sim run: %d charts written: %s\n", len(names), escapeText(strings.Join(names, ", ")))
 		}
 	}
 	if a.out != "" {
-		if err := os.WriteFile(a.out, b.Bytes(), 0o644); err != nil {
-			return fmt.Errorf("-o: %w", err)
-		}
 		return nil
 	}
 	_, err = e.stdout.Write(b.Bytes())
@@ -410,7 +569,9 @@ func runCheck(ctx context.Context, e env, args []string) error {
 	if err != nil {
 		return err
 	}
-	opt := scripting.Options{Timeout: a.timeout, Logger: newLogger(e.stderr, &a), CheckOnly: true}
+	a.timeoutFlag = true
+	opt := scripting.Options{Timeout: a.timeout, Logger: newLogger(e.stderr, &a), CheckOnly: true,
+		Print: printTo(env{stdout: e.stderr, stderr: e.stderr}, &a, nil)}
 	errs := 0
 	for _, s := range scripts {
 		r, err := scripting.RunFile(ctx, s, opt)
@@ -431,12 +592,17 @@ func runCheck(ctx context.Context, e env, args []string) error {
 			return ctx.Err()
 		}
 		var re *reportedError
-		if werr := writeScriptError(e.stderr, err); errors.As(werr, &re) {
+		var fe *scripting.FileError
+		switch werr := writeScriptError(e.stderr, err, &a); {
+		case errors.As(werr, &re):
 			errs += re.n
-		} else {
-			// Not the script's own error (a file that cannot be read):
-			// one line, and on with the others.
-			fmt.Fprintf(e.stderr, "sim check: %s\n", oneLine(werr.Error()))
+		case errors.As(werr, &fe):
+			// A script that cannot be read: one line, and on with the
+			// others.
+			fmt.Fprintf(e.stderr, "sim: %s\n", message(fe))
+			errs++
+		default:
+			fmt.Fprintf(e.stderr, "sim check: %s\n", message(werr))
 			errs++
 		}
 	}
@@ -455,37 +621,6 @@ func count(n int, what string) string {
 		return fmt.Sprintf("%d %sies", n, what[:len(what)-1])
 	}
 	return fmt.Sprintf("%d %ss", n, what)
-}
-
-// writePlots draws the charts of the run to --plot: the one chart a run
-// has to the file named, or, when it has several, each to the name with a
-// suffix (plotFile). Every chart is drawn before any file is written.
-func writePlots(e env, a *runArgs, all report.Run) error {
-	charts := report.Charts(all)
-	if len(charts) == 0 {
-		return fmt.Errorf("--plot %s: nothing to draw: the scripts solved no load case, voyage, study or audit", a.plot)
-	}
-	format, err := report.FormatOf(a.plot)
-	if err != nil {
-		return err
-	}
-	files := make([]string, len(charts))
-	bufs := make([]bytes.Buffer, len(charts))
-	for i, c := range charts {
-		files[i] = plotFile(a.plot, c, len(charts) > 1)
-		if err := c.Draw(&bufs[i], format); err != nil {
-			return fmt.Errorf("--plot %s: %w", files[i], err)
-		}
-	}
-	for i, f := range files {
-		if err := os.WriteFile(f, bufs[i].Bytes(), 0o644); err != nil {
-			return fmt.Errorf("--plot: %w", err)
-		}
-	}
-	if len(files) > 1 && !a.quiet {
-		fmt.Fprintf(e.stderr, "sim run: %d charts written: %s\n", len(files), strings.Join(files, ", "))
-	}
-	return nil
 }
 
 // plotFile is the file of a chart: name itself when the run draws one

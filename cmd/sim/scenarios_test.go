@@ -3,6 +3,7 @@ package main
 import (
 	"bytes"
 	"context"
+	"encoding/json"
 	"os"
 	"path/filepath"
 	"strings"
@@ -56,5 +57,45 @@ func TestScenarioReports(t *testing.T) {
 	}
 	if n < 6 {
 		t.Errorf("found %d scenario scripts, want at least 6", n)
+	}
+}
+
+// TestScenarioDocumentsFinite: every scenario's JSON document and CSV
+// tables are written (encoding/json refuses a NaN or an infinity), and no
+// figure in them, nor in the table, is one (issue 17: no report can hold
+// Inf or NaN).
+func TestScenarioDocumentsFinite(t *testing.T) {
+	t.Parallel()
+	scripts, err := filepath.Glob(filepath.Join("..", "..", "scenarios", "*.lua"))
+	if err != nil {
+		t.Fatal(err)
+	}
+	for _, s := range scripts {
+		if strings.HasSuffix(s, "_plant.lua") {
+			continue
+		}
+		s := s
+		t.Run(filepath.Base(s), func(t *testing.T) {
+			t.Parallel()
+			for _, form := range [][]string{{"--json"}, {"--csv"}, nil} {
+				var out, errOut bytes.Buffer
+				args := append(append([]string{"run", "--quiet", "--timeout", "2m"}, form...), s)
+				if code := run(context.Background(), args, &out, &errOut); code != 0 {
+					t.Fatalf("sim %q: exit %d: %s", args, code, errOut.String())
+				}
+				text := out.String()
+				for _, bad := range []string{"NaN", "+Inf", "-Inf", "Infinity"} {
+					if strings.Contains(text, bad) {
+						t.Errorf("sim %q writes %q", args, bad)
+					}
+				}
+				if form != nil && form[0] == "--json" {
+					var doc any
+					if err := json.Unmarshal(out.Bytes(), &doc); err != nil {
+						t.Errorf("sim %q: not one JSON document: %v", args, err)
+					}
+				}
+			}
+		})
 	}
 }

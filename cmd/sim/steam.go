@@ -12,6 +12,7 @@ import (
 	"strings"
 	"text/tabwriter"
 
+	"steamcase/plant/schema"
 	"steamcase/plant/units"
 	"steamcase/plant/water"
 )
@@ -65,12 +66,12 @@ type steamArgs struct {
 
 func (a *steamArgs) flagSet() *flag.FlagSet {
 	fs := flag.NewFlagSet("steam", flag.ContinueOnError)
-	fs.StringVar(&a.p, "p", "", "the `PRESSURE`, gauge or absolute: \"7 bar(g)\", \"8 bar(a)\", \"0.8 MPa\", \"120 psig\"")
+	fs.StringVar(&a.p, "p", "", "the `PRESSURE`, gauge or absolute: \"7 bar(g)\", \"8 bar(a)\", \"0.8 MPa\",\n\"120 psig\"")
 	fs.StringVar(&a.t, "t", "", "the `TEMPERATURE`: \"250 C\", \"523.15 K\", \"482 F\"")
 	fs.StringVar(&a.h, "h", "", "the specific `ENTHALPY`: \"2768 kJ/kg\", \"2.768 MJ/kg\"")
 	fs.StringVar(&a.s, "s", "", "the specific `ENTROPY`: \"6.6 kJ/kgK\", \"6600 J/kgK\"")
-	fs.StringVar(&a.x, "x", "", "the `QUALITY` (steam mass fraction): a number from 0 to 1, such as 1 or 0.85, or \"85 %\"")
-	fs.StringVar(&a.ambient, "ambient", "", "the ambient `PRESSURE` that gauge values refer to, absolute: \"1.013 bar(a)\", \"1000 mbar(a)\"\n(default 1.01325 bar(a), the standard atmosphere)")
+	fs.StringVar(&a.x, "x", "", "the `QUALITY` (steam mass fraction): a number from 0 to 1, such as 1\nor 0.85, or \"85 %\"")
+	fs.StringVar(&a.ambient, "ambient", "", "the ambient `PRESSURE` that gauge values refer to, absolute:\n\"1.013 bar(a)\", \"1000 mbar(a)\" (default 1.01325 bar(a), the standard\natmosphere)")
 	fs.BoolVar(&a.json, "json", false, "print one JSON object in SI units instead of the table")
 	return fs
 }
@@ -138,12 +139,13 @@ func (a *steamArgs) query() (steamQuery, error) {
 			return q, flagValueError("ambient", err)
 		}
 		if qa, _ := units.ParseAny(a.ambient, units.Options{}); isGauge(qa.Unit) {
-			return q, usagef("--ambient %q: the ambient pressure must be absolute, such as \"1.013 bar(a)\"", a.ambient)
+			return q, &usageError{msg: fmt.Sprintf("--ambient %q: the ambient pressure must be absolute, such as \"1.013 bar(a)\"", a.ambient), echoes: []string{a.ambient}}
 		}
 		q.opt.AmbientPressure = amb
 		if err := q.opt.Validate(); err != nil {
-			return q, usagef("--ambient %q is %s bar(a); an ambient pressure must lie between 0.5 and 1.5 bar(a)",
-				a.ambient, strconv.FormatFloat(amb/1e5, 'g', 6, 64))
+			// well written, but out of range: a failure, not a usage error
+			return q, echoError{fmt.Errorf("--ambient %q is %s bar(a); an ambient pressure must lie between 0.5 and 1.5 bar(a)",
+				a.ambient, strconv.FormatFloat(amb/1e5, 'g', 6, 64)), []string{a.ambient}}
 		}
 	}
 	parse := func(name, val string, d units.Dimension) (float64, error) {
@@ -180,8 +182,8 @@ func (a *steamArgs) query() (steamQuery, error) {
 			return q, err
 		}
 		if !(q.x >= 0 && q.x <= 1) {
-			return q, fmt.Errorf("--x %q: the quality must be from 0 to 1 (as a percentage, 0 %% to 100 %%); got %s",
-				a.x, strconv.FormatFloat(q.x, 'g', -1, 64))
+			return q, echoError{fmt.Errorf("--x %q: the quality must be from 0 to 1 (as a percentage, 0 %% to 100 %%); got %s",
+				a.x, strconv.FormatFloat(q.x, 'g', -1, 64)), []string{a.x}}
 		}
 	}
 	return q, nil
@@ -196,12 +198,54 @@ func isGauge(unit string) bool {
 // flagValueError turns a units error into a usage error (a malformed or
 // misunderstood value: exit 2) or a failure (a value that is well written
 // but not physical, such as "-2 bar(g)": exit 1).
+// The message repeats the value given, cut when it is long.
 func flagValueError(name string, err error) error {
 	var ue *units.Error
 	if errors.As(err, &ue) && (ue.Kind == units.ErrPhysical || ue.Kind == units.ErrRange) {
 		return fmt.Errorf("--%s: %w", name, err)
 	}
-	return usagef("--%s: %s", name, err)
+	u := &usageError{msg: fmt.Sprintf("--%s: %s", name, err)}
+	if ue != nil {
+		u.echoes = []string{ue.Input, ue.Unit}
+	}
+	return u
+}
+
+// echoError is a failure whose message repeats values the user gave,
+// listed to be cut when long.
+type echoError struct {
+	err    error
+	echoes []string
+}
+
+func (e echoError) Error() string { return shortenEchoes(e.err.Error(), e.err, e.echoes...) }
+func (e echoError) Unwrap() error { return e.err }
+
+// waterError words an error of plant/water for the command's user: the
+// bound crossed, without the package's function names, and, on the
+// saturation line, the flag that fixes the state there.
+func waterError(err error) error {
+	var se *water.SaturationError
+	if errors.As(err, &se) {
+		return fmt.Errorf("%s bar(a) and %s °C lie on the saturation line (the saturation pressure at that temperature is %s bar(a), IAPWS-IF97 Eq. 30): "+
+			"pressure and temperature do not fix the state there; give the quality with --x instead of --t or --p",
+			strconv.FormatFloat(se.P/1e5, 'g', 6, 64), strconv.FormatFloat(se.T-273.15, 'f', 2, 64), strconv.FormatFloat(se.PSat/1e5, 'g', 6, 64))
+	}
+	var re *water.RangeError
+	var ie *water.InputError
+	var ce *water.ConvergenceError
+	fn := ""
+	switch {
+	case errors.As(err, &re):
+		fn = re.Func
+	case errors.As(err, &ie):
+		fn = ie.Func
+	case errors.As(err, &ce):
+		fn = ce.Func
+	default:
+		return err
+	}
+	return errors.New(strings.TrimPrefix(err.Error(), "water."+fn+": "))
 }
 
 func (q steamQuery) lookup() (water.State, error) {
@@ -222,7 +266,7 @@ func (q steamQuery) lookup() (water.State, error) {
 		panic("sim: steam query by " + q.by)
 	}
 	if err != nil {
-		return st, err
+		return st, waterError(err)
 	}
 	// No NaN may reach a report: the state variables must be finite.
 	for _, f := range []struct {
@@ -231,7 +275,7 @@ func (q steamQuery) lookup() (water.State, error) {
 	}{{"pressure", st.P}, {"temperature", st.T}, {"specific enthalpy", st.H},
 		{"specific entropy", st.S}, {"specific volume", st.V}, {"density", st.Rho}} {
 		if math.IsNaN(f.v) || math.IsInf(f.v, 0) {
-			return st, fmt.Errorf("water: the %s of the state is not finite (%v); the inputs lie outside what IAPWS-IF97 covers", f.name, f.v)
+			return st, fmt.Errorf("the %s of the state is not finite (%v); the inputs lie outside what IAPWS-IF97 covers", f.name, f.v)
 		}
 	}
 	return st, nil
@@ -264,6 +308,7 @@ func finite(v float64) *float64 {
 
 // steamJSON is the JSON form of a state, in SI units.
 type steamJSON struct {
+	Version string   `json:"version"`
 	P       float64  `json:"p_Pa"`
 	T       float64  `json:"T_K"`
 	H       float64  `json:"h_J_per_kg"`
@@ -288,6 +333,8 @@ func writeSteamJSON(w io.Writer, st water.State, sat bool) error {
 	if sat {
 		out.X = finite(st.X)
 	}
+	out.Version = version()
+	schema.RoundFigures(&out) // the rule of every JSON document (plant/schema)
 	enc := json.NewEncoder(w)
 	enc.SetIndent("", "  ")
 	return enc.Encode(out)

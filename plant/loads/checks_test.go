@@ -2,6 +2,7 @@ package loads
 
 import (
 	"math"
+	"strings"
 	"testing"
 
 	"steamcase/plant/fuel"
@@ -270,4 +271,18 @@ func cloud(t *testing.T, pp float64) float64 {
 		t.Fatal(err)
 	}
 	return celsius(c)
+}
+
+// TestFlashPointAbove: oil heated above its flash point is said to be above
+// it, by how much, not "within 10 °C of" it (issue 17; SOLAS II-2 reg. 4.2
+// as plant-checks.md §5.2 [S] words it).
+func TestFlashPointAbove(t *testing.T) {
+	t.Parallel()
+	w := flashWarning(273.15+75, 273.15+60)
+	if !strings.Contains(w, "oil heated to 75 °C, 15 °C above its flash point 60 °C") {
+		t.Errorf("warning %q", w)
+	}
+	if w := flashWarning(273.15+55, 273.15+60); !strings.Contains(w, "within 10 °C of its flash point 60 °C") {
+		t.Errorf("warning %q", w)
+	}
 }

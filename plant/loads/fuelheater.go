@@ -234,6 +234,10 @@ func (h FuelHeater) perKg(c checker) (FuelHeaterResult, error) {
 }
 
 func flashWarning(T, flash float64) string {
+	if T >= flash {
+		return fmt.Sprintf("oil heated to %.4g °C, %.3g °C above its flash point %.4g °C: SOLAS II-2 reg. 4.2 keeps oil in storage and settling tanks at least %g °C below it",
+			celsius(T), T-flash, celsius(flash), FlashPointMargin)
+	}
 	return fmt.Sprintf("oil heated to %.4g °C, within %g °C of its flash point %.4g °C: SOLAS II-2 reg. 4.2 caution for storage and settling tanks",
 		celsius(T), FlashPointMargin, celsius(flash))
 }

@@ -62,9 +62,11 @@ type Totals struct {
 	// that CO2AnalysisT is not the total.
 	CO2AnalysisT       float64
 	CO2AnalysisUnknown bool
-	// FuelSavedT is the boiler fuel the exhaust-gas economisers saved.
-	FuelSavedT  float64
-	ElectricMWh float64
+	// FuelSavedT is the boiler fuel the exhaust-gas economisers saved;
+	// EGEFoulingLostT the steam their fouling cost them.
+	FuelSavedT      float64
+	EGEFoulingLostT float64
+	ElectricMWh     float64
 	// HoursFiring[k] is the hours with k oil-fired boilers firing.
 	HoursFiring []float64
 	// Peak demand on the oil-fired boilers and the row it occurs in, and
@@ -220,6 +222,9 @@ func (t *Totals) add(i int, hours float64, cr *plant.CaseResult) {
 	t.DumpedT += cr.DumpedKgS * s
 	t.MakeUpT += cr.MakeUpKgS * s
 	t.FuelSavedT += cr.EGEFuelSavedKgS * s
+	for _, e := range cr.EGEs {
+		t.EGEFoulingLostT += e.FoulingLostKgS * s
+	}
 	t.ElectricMWh += cr.ElectricW * hours / 1e6
 	for len(t.HoursFiring) <= cr.BoilersFiring {
 		t.HoursFiring = append(t.HoursFiring, 0)

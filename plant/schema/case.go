@@ -13,6 +13,7 @@ type Case struct {
 	Plant              string     `json:"plant"`
 	Source             string     `json:"source"`
 	Name               string     `json:"name"`
+	Series             string     `json:"series"`
 	Converged          bool       `json:"converged"`
 	Iterations         int        `json:"iterations"`
 	ResidualNorm       float64    `json:"residual_norm"`
@@ -124,6 +125,24 @@ type EGE struct {
 	EvaporatorOutT float64 `json:"evaporator_gas_out_T_K"`
 	BelowMinGasT   bool    `json:"below_min_gas_T"`
 	FuelSavedKgH   float64 `json:"fuel_saved_kg_h"`
+	// The site correction of the engine's table.
+	TableGasKgS   float64  `json:"table_gas_kg_s"`
+	TableGasInTK  float64  `json:"table_gas_in_T_K"`
+	IntakeTK      *float64 `json:"intake_air_T_K"`
+	CoolantTK     *float64 `json:"coolant_T_K"`
+	ExhaustTCorrK float64  `json:"exhaust_T_correction_K"`
+	GasFlowFactor float64  `json:"gas_flow_factor"`
+	// Size and fouling.
+	DesignUA       float64 `json:"design_ua_W_K"`
+	UA             float64 `json:"ua_W_K"`
+	UAFraction     float64 `json:"ua_fraction"`
+	FoulingLostKgH float64 `json:"fouling_lost_steam_kg_h"`
+	// The cold end and soot.
+	AcidDewTK       *float64 `json:"acid_dew_point_T_K"`
+	PreheatWaterInT *float64 `json:"preheat_water_in_T_K"`
+	BelowDewMargin  bool     `json:"below_acid_dew_margin"`
+	SootRisk        bool     `json:"soot_risk"`
+	GasVelocity     *float64 `json:"gas_velocity_m_s"`
 }
 
 // Consumer is one steam consumer (or turbine) of a case.
@@ -180,6 +199,7 @@ func NewCase(plantName string, cr *plant.CaseResult) Case {
 		Plant:              plantName,
 		Source:             cr.Pos.String(),
 		Name:               cr.Name,
+		Series:             cr.Series,
 		Converged:          cr.Converged,
 		Iterations:         cr.Iterations,
 		ResidualNorm:       cr.ResidualNorm,
@@ -254,6 +274,13 @@ func NewCase(plantName string, cr *plant.CaseResult) Case {
 			GasKgS: Round(e.GasKgS), GasInTK: Round(e.GasInT), GasOutTK: Round(e.GasOutT), PinchK: Round(e.Pinch),
 			BypassFraction: Round(e.BypassFraction), PreheatKW: Round(KW(e.PreheatW)), EvaporatorOutT: Round(evapOut(e)),
 			BelowMinGasT: e.BelowMin, FuelSavedKgH: Round(KgPerH(e.FuelSavedKgS)),
+			TableGasKgS: Round(e.TableGasKgS), TableGasInTK: Round(e.TableGasInT),
+			IntakeTK: temperature(e.IntakeT), CoolantTK: temperature(e.CoolantT),
+			ExhaustTCorrK: Round(e.ExhaustTCorrection), GasFlowFactor: Round(gasFactor(e)),
+			DesignUA: Round(e.DesignUA), UA: Round(e.UA), UAFraction: Round(e.UAFraction),
+			FoulingLostKgH: Round(KgPerH(e.FoulingLostKgS)),
+			AcidDewTK:      temperature(e.AcidDewT), PreheatWaterInT: temperature(e.PreheatWaterInT),
+			BelowDewMargin: e.BelowDewMargin, SootRisk: e.SootRisk, GasVelocity: roundPtr(e.GasVelocity, e.GasVelocity > 0),
 		})
 	}
 	for _, c := range cr.Consumers {
@@ -299,6 +326,15 @@ func roundMap(m map[string]float64) map[string]float64 {
 		out[k] = Round(v)
 	}
 	return out
+}
+
+// gasFactor is the site correction's factor on the gas flow: 1 when
+// there is none (and in an outline).
+func gasFactor(e plant.EGEResult) float64 {
+	if e.GasFlowFactor == 0 {
+		return 1
+	}
+	return e.GasFlowFactor
 }
 
 // evapOut is the gas temperature leaving the evaporator: the outlet itself

@@ -52,6 +52,15 @@
 //     steam_production_kg_h, boiler_steam_kg_h, ege_steam_kg_h,
 //     dumped_kg_h, fuel_t and co2_t, and an audit day's "day".
 //
+// Added within version 2 (keys may be added without a new number): a
+// study's carbon_price_per_t_co2, life_years, discount_rate,
+// soot_fire_caution and sweep; a variant's installed_cost,
+// carbon_cost_saved, annual_saving, npv, hours_below_acid_dew_margin and
+// hours_soot_risk (its payback_years now takes the variant's own installed
+// cost over the base's and the carbon saved, the same figure as before
+// when neither is given); TOTALS' ege_fouling_lost_steam_t; an EGE's site
+// correction, size, fouling, cold-end and soot keys.
+//
 // The Lua tables changed with version 2 to take the JSON's keys: a
 // total's fuel_saved_t is ege_fuel_saved_t, a study variant's
 // saved_fuel_t is fuel_saved_t and its totals are under "totals", a
@@ -99,6 +108,8 @@
 //	source                  where the script solved it, "file:line" (""
 //	                        when built in Go)
 //	name                    the case's name
+//	series                  the sweep the script grouped it in ("" when
+//	                        none: case{series = "..."})
 //	converged               the solver brought the balance to its tolerance
 //	iterations              Newton iterations of the final configuration
 //	residual_norm           the final scaled residual norm (as computed)
@@ -225,7 +236,35 @@
 //	preheat_kW              the preheating section's duty, kW
 //	evaporator_gas_out_T_K  gas leaving the evaporator, K
 //	below_min_gas_T         the gas leaves below its minimum temperature
+//	                        (with fouling, just after cleaning)
 //	fuel_saved_kg_h         boiler fuel it saves, kg/h
+//	table_gas_kg_s, table_gas_in_T_K  the engine table's gas flow, kg/s,
+//	                        and temperature, K, at the load (its reference
+//	                        conditions)
+//	intake_air_T_K, coolant_T_K  the intake air and charge-air coolant the
+//	                        table was corrected to, K; null when not
+//	                        corrected for
+//	exhaust_T_correction_K  the exhaust temperature added by the site
+//	                        correction, K
+//	gas_flow_factor         the site correction's factor on the gas flow
+//	design_ua_W_K           the clean UA at the size's reference gas flow,
+//	                        W/K
+//	ua_W_K                  the evaporator's UA in the case (at its gas
+//	                        flow, fouled), W/K
+//	ua_fraction             that UA over the clean UA at the same flow
+//	fouling_lost_steam_kg_h  steam the fouling costs (clean less fouled, at
+//	                        the case's feed), kg/h
+//	acid_dew_point_T_K      the exhaust's acid dew point (Verhoff-Banchero),
+//	                        K; null without an exhaust fuel or sulphur
+//	preheat_water_in_T_K    the feed entering a preheating section, K; null
+//	                        without one or without an acid dew point
+//	below_acid_dew_margin   the gas outlet is within the margin of the acid
+//	                        dew point, or the preheater's feed or the drum's
+//	                        saturation lies below it
+//	soot_risk               the case runs at a load or gas velocity where
+//	                        soot builds up and soot fires are a known risk
+//	gas_velocity_m_s        gas velocity through the tube bank, m/s; null
+//	                        without a flow area
 //
 // A CONSUMER (type Consumer) is
 //
@@ -282,6 +321,8 @@
 //	                        burnt a fuel without an analysis
 //	steam_t, ege_steam_t    steam raised in all and by economisers, t
 //	ege_fuel_saved_t        boiler fuel the economisers saved, t
+//	ege_fouling_lost_steam_t  steam the economisers' fouling cost them
+//	                        (clean against fouled, at each row's feed), t
 //	dumped_t, makeup_t      steam dumped and water made up, t
 //	electric_MWh            electrical energy, MWh
 //	hours_firing            [h]: hours with 0, 1, 2, ... boilers firing
@@ -344,23 +385,78 @@
 //	hours                   the hours of its profile
 //	fuel_price_per_t        the fuel price per tonne of boiler fuel, as
 //	                        given (0 when not given)
-//	installed_cost          the installed cost of the change, as given
-//	currency                the currency of both, as given
+//	installed_cost          the installed cost of each variant but the first
+//	                        that gives no cost of its own, as given
+//	currency                the currency of the money figures, as given
+//	carbon_price_per_t_co2  the price of a tonne of CO2, as given (0 when
+//	                        not given)
+//	life_years, discount_rate  the life (years) and the discount rate (a
+//	                        fraction a year) of the NPV, as given; null
+//	                        without a life
+//	soot_fire_caution       what the hours at soot-risk loads mean, and the
+//	                        caution that soot fires in exhaust-gas
+//	                        economisers are a known hazard
 //	variants                [VARIANT]: the variants, the first the base
+//	sweep                   SWEEP: the sweep of an economiser's size; null
+//	                        without one
 //
-// A VARIANT (type Variant) is
+// A VARIANT (type Variant) is, with the keys of MONEY and EGEHOURS,
 //
 //	name                    its name
 //	totals                  TOTALS over the profile
 //	fuel_saved_t            boiler fuel saved against the first variant, t
 //	co2_avoided_t           CO2 avoided against the first variant, t
-//	cost_saved              fuel_saved_t times the fuel price
-//	payback_years           the installed cost over the cost saved per
-//	                        year (the profile scaled to 8760 h); null for
-//	                        the base, without an installed cost or a fuel
-//	                        price, or when nothing is saved
-//	hours_below_min_gas_T   hours in which an economiser's gas would
-//	                        leave below its minimum temperature
+//
+// MONEY (type Money) is what a variant or a size earns against the first
+// variant; the savings are scaled to a year of 8760 h:
+//
+//	installed_cost          its installed cost (a variant's as given, a
+//	                        size's from the sweep's cost law)
+//	cost_saved              fuel_saved_t times the fuel price, over the
+//	                        profile
+//	carbon_cost_saved       co2_avoided_t times the carbon price, over the
+//	                        profile
+//	annual_saving           cost_saved plus carbon_cost_saved, per year
+//	payback_years           its installed cost less the first variant's,
+//	                        over annual_saving; null for the first, without
+//	                        an extra cost or a price, or when nothing is
+//	                        saved
+//	npv                     the net present value: annual_saving over the
+//	                        life at the discount rate, less the extra
+//	                        installed cost; null without a life
+//
+// EGEHOURS (type EGEHours) are the hours of the profile in which
+//
+//	hours_below_min_gas_T   an economiser's gas would leave below its
+//	                        minimum temperature
+//	hours_below_acid_dew_margin  an economiser's gas outlet is within the
+//	                        margin of the acid dew point, or its preheater's
+//	                        feed or its saturation below it
+//	hours_soot_risk         an economiser runs at a load or gas velocity
+//	                        where soot builds up and soot fires are a known
+//	                        hazard (see soot_fire_caution)
+//
+// A SWEEP (type Sweep) is
+//
+//	unit, param             the economiser and the size swept ("ua" or
+//	                        "pinch")
+//	cost_ref_ua_W_K, cost_ref, cost_exponent, cost_fixed  the cost law:
+//	                        cost_fixed + cost_ref·(UA/cost_ref_ua_W_K)^
+//	                        cost_exponent, as given (the exponent 0.6 when
+//	                        not given)
+//	best                    the point of highest NPV, from 1
+//	points                  [SWEEP_POINT]: the sizes, in the order given
+//
+// A SWEEP_POINT (type SweepPoint) is, with the keys of MONEY and EGEHOURS,
+//
+//	value                   the size, in SI units (W/K for ua, K for pinch),
+//	                        as given
+//	ua_W_K                  its clean UA at the reference gas flow, W/K
+//	fuel_t, co2_t           boiler fuel and CO2 over the profile, t
+//	ege_steam_t, dumped_t   steam the economisers raise, and steam dumped,
+//	                        over the profile, t
+//	ege_fouling_lost_steam_t  steam lost to fouling, t
+//	fuel_saved_t, co2_avoided_t  against the first variant, t
 //
 // An AUDIT (type Audit) has, after the keys of JOB,
 //

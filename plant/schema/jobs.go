@@ -29,6 +29,7 @@ type Totals struct {
 	SteamT            float64      `json:"steam_t"`
 	EGESteamT         float64      `json:"ege_steam_t"`
 	EGEFuelSavedT     float64      `json:"ege_fuel_saved_t"`
+	EGEFoulingLostT   float64      `json:"ege_fouling_lost_steam_t"`
 	DumpedT           float64      `json:"dumped_t"`
 	MakeUpT           float64      `json:"makeup_t"`
 	ElectricMWh       float64      `json:"electric_MWh"`
@@ -82,7 +83,7 @@ func NewTotals(t profile.Totals) Totals {
 	out := Totals{
 		Rows: t.Rows, Hours: Round(t.Hours), FuelT: Round(t.FuelT), CO2T: Round(t.CO2T),
 		CO2AnalysisT: roundPtr(t.CO2AnalysisT, !t.CO2AnalysisUnknown), SteamT: Round(t.SteamT),
-		EGESteamT: Round(t.EGESteamT), EGEFuelSavedT: Round(t.FuelSavedT), DumpedT: Round(t.DumpedT),
+		EGESteamT: Round(t.EGESteamT), EGEFuelSavedT: Round(t.FuelSavedT), EGEFoulingLostT: Round(t.EGEFoulingLostT), DumpedT: Round(t.DumpedT),
 		MakeUpT: Round(t.MakeUpT), ElectricMWh: Round(t.ElectricMWh), HoursFiring: hf,
 		PeakBoilerKgH: Round(KgPerH(t.PeakBoilerKgS)), PeakRow: row1(t.PeakRow), CapacityKgH: Round(KgPerH(t.CapacityKgS)),
 		TightestRow: row1(t.TightestRow), ShortRows: rows1(t.ShortRows), WarningRows: rows1(t.WarningRows),
@@ -189,32 +190,117 @@ type Study struct {
 	FuelPrice     float64   `json:"fuel_price_per_t"`
 	InstalledCost float64   `json:"installed_cost"`
 	Currency      string    `json:"currency"`
+	CarbonPrice   float64   `json:"carbon_price_per_t_co2"`
+	LifeYears     *int      `json:"life_years"`
+	DiscountRate  *float64  `json:"discount_rate"`
+	SootCaution   string    `json:"soot_fire_caution"`
 	Variants      []Variant `json:"variants"`
+	Sweep         *Sweep    `json:"sweep"`
+}
+
+// SootFireCaution is what a study says beside the hours it counts at
+// soot-risk loads.
+const SootFireCaution = "The soot-risk hours are those in which an exhaust-gas economiser runs at low engine load or low gas velocity, where soot builds up: soot fires in exhaust-gas economisers are a known hazard. The thresholds are common practice (no source) unless the script gives the maker's; soot-blow, wash and inspect as the maker prescribes, and keep the gas outlet above the acid-dew and soot margins the maker states."
+
+// Money is what a variant or a size earns against the base.
+type Money struct {
+	InstalledCost float64  `json:"installed_cost"`
+	CostSaved     float64  `json:"cost_saved"`
+	CarbonSaved   float64  `json:"carbon_cost_saved"`
+	AnnualSaving  float64  `json:"annual_saving"`
+	PaybackYears  *float64 `json:"payback_years"`
+	NPV           *float64 `json:"npv"`
+}
+
+// EGEHours are the hours flagged by the economisers.
+type EGEHours struct {
+	HoursBelowMinGasT float64 `json:"hours_below_min_gas_T"`
+	HoursBelowAcidDew float64 `json:"hours_below_acid_dew_margin"`
+	HoursSootRisk     float64 `json:"hours_soot_risk"`
 }
 
 // Variant is one variant of a study, its savings against the first.
 type Variant struct {
-	Name              string   `json:"name"`
-	Totals            Totals   `json:"totals"`
-	FuelSavedT        float64  `json:"fuel_saved_t"`
-	CO2AvoidedT       float64  `json:"co2_avoided_t"`
-	CostSaved         float64  `json:"cost_saved"`
-	PaybackYears      *float64 `json:"payback_years"`
-	HoursBelowMinGasT float64  `json:"hours_below_min_gas_T"`
+	Name        string  `json:"name"`
+	Totals      Totals  `json:"totals"`
+	FuelSavedT  float64 `json:"fuel_saved_t"`
+	CO2AvoidedT float64 `json:"co2_avoided_t"`
+	Money
+	EGEHours
 }
 
-// NewStudy returns the schema form of a study run as job. The fuel price
-// and installed cost are given as the script gave them (not rounded); a
-// variant's payback is null for the base, without an installed cost or a
-// fuel price, or when the variant saves nothing.
+// Sweep is a study's sweep of an economiser's size.
+type Sweep struct {
+	Unit         string       `json:"unit"`
+	Param        string       `json:"param"`
+	CostRefUA    float64      `json:"cost_ref_ua_W_K"`
+	CostRef      float64      `json:"cost_ref"`
+	CostExponent float64      `json:"cost_exponent"`
+	CostFixed    float64      `json:"cost_fixed"`
+	Best         *int         `json:"best"`
+	Points       []SweepPoint `json:"points"`
+}
+
+// SweepPoint is one size of a sweep.
+type SweepPoint struct {
+	Value       float64 `json:"value"`
+	UA          float64 `json:"ua_W_K"`
+	FuelT       float64 `json:"fuel_t"`
+	CO2T        float64 `json:"co2_t"`
+	EGESteamT   float64 `json:"ege_steam_t"`
+	DumpedT     float64 `json:"dumped_t"`
+	FoulingT    float64 `json:"ege_fouling_lost_steam_t"`
+	FuelSavedT  float64 `json:"fuel_saved_t"`
+	CO2AvoidedT float64 `json:"co2_avoided_t"`
+	Money
+	EGEHours
+}
+
+// newMoney converts money figures; the installed cost is rounded unless
+// it is an input given by the script.
+func newMoney(m profile.Money, hasNPV, given bool) Money {
+	cost := m.InstalledCost
+	if !given {
+		cost = Round(cost)
+	}
+	return Money{InstalledCost: cost, CostSaved: Round(m.CostSaved), CarbonSaved: Round(m.CarbonSaved),
+		AnnualSaving: Round(m.AnnualSaving), PaybackYears: roundPtr(m.PaybackYears, m.HasPayback), NPV: roundPtr(m.NPV, hasNPV)}
+}
+
+func newEGEHours(h profile.EGEHours) EGEHours {
+	return EGEHours{HoursBelowMinGasT: Round(h.HoursBelowMinGasT), HoursBelowAcidDew: Round(h.HoursBelowAcidDew), HoursSootRisk: Round(h.HoursSootRisk)}
+}
+
+// NewStudy returns the schema form of a study run as job. The money
+// inputs (prices, installed costs, life, rate, the cost law) are given as
+// the script gave them (not rounded); a payback is null for the base,
+// without an extra installed cost or a price, or when nothing is saved;
+// an NPV is null without a life.
 func NewStudy(job Job, r *profile.StudyResult) Study {
 	out := Study{Job: job.job(), Hours: Round(r.Hours), FuelPrice: r.FuelPrice, InstalledCost: r.InstalledCost,
-		Currency: r.Currency, Variants: make([]Variant, 0, len(r.Variants))}
+		Currency: r.Currency, CarbonPrice: r.CarbonPrice, SootCaution: SootFireCaution, Variants: make([]Variant, 0, len(r.Variants))}
+	if r.HasNPV {
+		life, rate := r.LifeYears, r.DiscountRate
+		out.LifeYears, out.DiscountRate = &life, &rate
+	}
 	for _, v := range r.Variants {
-		vj := Variant{Name: v.Name, Totals: NewTotals(v.Totals), FuelSavedT: Round(v.FuelSavedT),
-			CO2AvoidedT: Round(v.CO2AvoidedT), CostSaved: Round(v.CostSaved), HoursBelowMinGasT: Round(v.HoursBelowMinGasT)}
-		vj.PaybackYears = roundPtr(v.PaybackYears, r.InstalledCost > 0 && v.CostSaved > 0 && v.PaybackYears > 0)
-		out.Variants = append(out.Variants, vj)
+		out.Variants = append(out.Variants, Variant{Name: v.Name, Totals: NewTotals(v.Totals), FuelSavedT: Round(v.FuelSavedT),
+			CO2AvoidedT: Round(v.CO2AvoidedT), Money: newMoney(v.Money, r.HasNPV, true), EGEHours: newEGEHours(v.EGEHours)})
+	}
+	if sw := r.Sweep; sw != nil {
+		exp := sw.Cost.Exponent
+		if exp == 0 {
+			exp = profile.DefaultCostExponent
+		}
+		js := &Sweep{Unit: sw.Unit, Param: sw.Param, CostRefUA: sw.Cost.RefUA, CostRef: sw.Cost.RefCost, CostExponent: exp,
+			CostFixed: sw.Cost.Fixed, Best: row1(sw.Best), Points: make([]SweepPoint, 0, len(sw.Points))}
+		for _, pt := range sw.Points {
+			js.Points = append(js.Points, SweepPoint{Value: pt.Value, UA: Round(pt.UA), FuelT: Round(pt.FuelT), CO2T: Round(pt.CO2T),
+				EGESteamT: Round(pt.EGESteamT), DumpedT: Round(pt.DumpedT), FoulingT: Round(pt.EGEFoulingLostT),
+				FuelSavedT: Round(pt.FuelSavedT), CO2AvoidedT: Round(pt.CO2AvoidedT), Money: newMoney(pt.Money, r.HasNPV, false),
+				EGEHours: newEGEHours(pt.EGEHours)})
+		}
+		out.Sweep = js
 	}
 	return out
 }

@@ -1,6 +1,9 @@
 package schema
 
-import "math"
+import (
+	"math"
+	"reflect"
+)
 
 // Round is the one rounding rule of every figure the schema carries: six
 // significant digits, and a value within 1e-9 of zero (|v| < 1e-9) is 0, so
@@ -63,3 +66,44 @@ func KW(w float64) float64 { return w / 1e3 }
 
 // Tonnes is the mass in t of a flow of kgPerS kept up for hours.
 func Tonnes(kgPerS, hours float64) float64 { return kgPerS * 3.6 * hours }
+
+// RoundFigures rounds, by Round, every float64 that v points to: the
+// fields of structs (exported or not), the elements of slices and arrays,
+// the values of maps, through pointers and interfaces. The commands use it
+// so that every JSON document they print follows the one rule of this
+// package, whatever type holds it.
+func RoundFigures(v any) {
+	roundValue(reflect.ValueOf(v))
+}
+
+func roundValue(v reflect.Value) {
+	switch v.Kind() {
+	case reflect.Pointer, reflect.Interface:
+		if !v.IsNil() {
+			roundValue(v.Elem())
+		}
+	case reflect.Struct:
+		for i := 0; i < v.NumField(); i++ {
+			if f := v.Field(i); f.CanSet() || f.Kind() == reflect.Pointer || f.Kind() == reflect.Slice || f.Kind() == reflect.Map {
+				roundValue(f)
+			}
+		}
+	case reflect.Slice, reflect.Array:
+		for i := 0; i < v.Len(); i++ {
+			roundValue(v.Index(i))
+		}
+	case reflect.Map:
+		for _, k := range v.MapKeys() {
+			e := v.MapIndex(k)
+			if e.Kind() == reflect.Float64 {
+				v.SetMapIndex(k, reflect.ValueOf(Round(e.Float())).Convert(e.Type()))
+				continue
+			}
+			roundValue(e)
+		}
+	case reflect.Float64:
+		if v.CanSet() {
+			v.SetFloat(Round(v.Float()))
+		}
+	}
+}

@@ -96,17 +96,17 @@ func parse(s string, want Dimension, opt Options) (Quantity, error) {
 	}
 	numText, neg, rest, ok := scanNumber(in)
 	if !ok {
-		msg := "no number in '" + s + "': expected a number and a unit, such as '" + exampleFor(want) + "'"
+		msg := "no number in " + quoted(s) + ": expected a number and a unit, such as '" + exampleFor(want) + "'"
 		return Quantity{}, newError(ErrSyntax, s, want, 0, "", msg)
 	}
 	if strings.HasPrefix(rest, ",") && len(rest) > 1 && rest[1] >= '0' && rest[1] <= '9' {
 		return Quantity{}, newError(ErrSyntax, s, want, 0, "",
-			"bad number in '"+s+"': use '.' as the decimal point")
+			"bad number in "+quoted(s)+": use '.' as the decimal point")
 	}
 	v, perr := strconv.ParseFloat(numText, 64)
 	if perr != nil || math.IsInf(v, 0) {
 		return Quantity{}, newError(ErrRange, s, want, 0, "",
-			"number in '"+s+"' is out of range for a float64")
+			"number in "+quoted(s)+" is out of range for a float64")
 	}
 	if neg {
 		v = -v
@@ -117,7 +117,7 @@ func parse(s string, want Dimension, opt Options) (Quantity, error) {
 			return Quantity{Value: v, Dim: Fraction}, nil
 		}
 		return Quantity{}, newError(ErrMissingUnit, s, want, 0, "",
-			want.String()+" needs a unit, such as '"+want.Example()+"'; got '"+s+"'")
+			want.String()+" needs a unit, such as '"+want.Example()+"'; got "+quoted(s))
 	}
 
 	var buf [maxUnitLen]byte
@@ -144,7 +144,7 @@ func parse(s string, want Dimension, opt Options) (Quantity, error) {
 				return Quantity{}, ambiguousDifference(s, in[:len(in)-len(rest)], got)
 			}
 			return Quantity{}, newError(ErrWrongDimension, s, want, got.dim, unit,
-				expected(want)+"; got '"+s+"' ("+got.dim.withArticle()+")")
+				expected(want)+"; got "+quoted(s)+" ("+got.dim.withArticle()+")")
 		}
 	}
 	def := &table[pos]
@@ -153,7 +153,7 @@ func parse(s string, want Dimension, opt Options) (Quantity, error) {
 	case ambiguous:
 		num := strings.TrimSpace(in[:len(in)-len(rest)])
 		return Quantity{}, newError(ErrAmbiguous, s, want, def.dim, unit,
-			"pressure '"+s+"' is ambiguous: write '"+num+" "+def.gaugeHint+
+			"pressure "+quoted(s)+" is ambiguous: write '"+num+" "+def.gaugeHint+
 				"' for gauge or '"+num+" "+def.absHint+"' for absolute")
 	case gauge:
 		si = v*def.scale + amb
@@ -171,12 +171,12 @@ func parse(s string, want Dimension, opt Options) (Quantity, error) {
 func check(s string, si float64, def *unitDef, amb float64) error {
 	if math.IsNaN(si) || math.IsInf(si, 0) {
 		return newError(ErrRange, s, def.dim, def.dim, def.spellings[0],
-			"'"+s+"' is out of range: its value in "+def.dim.SIUnit()+" is not finite")
+			quoted(s)+" is out of range: its value in "+def.dim.SIUnit()+" is not finite")
 	}
 	switch def.dim {
 	case Pressure:
 		if si <= 0 {
-			msg := "pressure '" + s + "' is at or below vacuum: it is " + fmtNum(si/barPa) +
+			msg := "pressure " + quoted(s) + " is at or below vacuum: it is " + fmtNum(si/barPa) +
 				" bar(a)"
 			if def.kind == gauge {
 				msg += " with an ambient of " + fmtNum(amb/barPa) + " bar(a)"
@@ -187,7 +187,7 @@ func check(s string, si float64, def *unitDef, amb float64) error {
 	case Temperature:
 		if si < 0 {
 			return newError(ErrPhysical, s, def.dim, def.dim, def.spellings[0],
-				"temperature '"+s+"' is below absolute zero (0 K, -273.15 °C)")
+				"temperature "+quoted(s)+" is below absolute zero (0 K, -273.15 °C)")
 		}
 	}
 	return nil
@@ -291,12 +291,12 @@ func ambiguousDifference(s, num string, got *unitDef) error {
 		d = "ΔF"
 	}
 	return newError(ErrAmbiguous, s, TemperatureDifference, Temperature, got.spellings[0],
-		"temperature difference '"+s+"' is ambiguous ('"+got.spellings[0]+
+		"temperature difference "+quoted(s)+" is ambiguous ('"+got.spellings[0]+
 			"' names a temperature): write '"+num+" "+d+"' for a difference, or give it in K")
 }
 
 func unknownUnit(s, unit string, want Dimension) error {
-	msg := "unknown unit '" + unit + "' in '" + s + "'"
+	msg := "unknown unit " + quoted(unit) + " in " + quoted(s)
 	if sug := suggest(unit, want); sug != "" {
 		msg += "; did you mean '" + sug + "'?"
 	}
@@ -356,3 +356,16 @@ func canonicalUnits(d Dimension) []string {
 }
 
 func fmtNum(v float64) string { return strconv.FormatFloat(v, 'g', 6, 64) }
+
+// maxShown is the most of an input a message echoes, in characters.
+const maxShown = 40
+
+// quoted is an input as a message echoes it, in quotes: cut to maxShown
+// characters with its length said, so that a 100 kB string does not fill
+// the screen.
+func quoted(s string) string {
+	if r := []rune(s); len(r) > maxShown {
+		return "'" + string(r[:maxShown]) + "…' (" + strconv.Itoa(len(r)) + " characters)"
+	}
+	return "'" + s + "'"
+}

@@ -102,6 +102,14 @@ const tMidRound = tMid * (1 + 1e-13)
 // second of h (or s) alone. It reports false if the iteration does not
 // settle within a few steps; the caller then falls back to the bracketed
 // solve.
+//
+// The pressure and the second input have been checked by the caller, and
+// the start is checked here once; the steps call the forward kernels
+// (h1, s1, h2, s2) without any range or region check. A step that runs
+// away, from a start that belongs to another region, does not settle
+// (a NaN never passes the stopping test), and a T it settles on outside
+// the region is refused by the caller's region check; inside the region the
+// root is the only one, h and s rising with T.
 func refine(k kind, reg Region, p, target, t0 float64) (float64, bool) {
 	if !(t0 > 200 && t0 < 2500) {
 		return t0, false
@@ -122,17 +130,10 @@ func refine(k kind, reg Region, p, target, t0 float64) (float64, bool) {
 	if !(df > 0) {
 		return t0, false
 	}
-	t := t0
-	dt0 := 0.0
-	for it := range 8 {
-		dt := (target - f) / df
-		t += dt
-		if !(t > 200 && t < 2500) { // far outside: the start was not in this region
-			return t, false
-		}
-		if it == 0 {
-			dt0 = math.Max(math.Abs(dt), 1e-3)
-		}
+	dt := (target - f) / df
+	t := t0 + dt
+	dt0 := math.Max(math.Abs(dt), 1e-3)
+	for range 8 {
 		if math.Abs(dt) <= quickStepT && math.Abs(dt)*dt0 <= 2e-9*t {
 			return t, true
 		}
@@ -146,6 +147,8 @@ func refine(k kind, reg Region, p, target, t0 float64) (float64, bool) {
 		default:
 			f = s2(p, t)
 		}
+		dt = (target - f) / df
+		t += dt
 	}
 	return t, false
 }

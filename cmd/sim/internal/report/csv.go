@@ -6,6 +6,7 @@ import (
 	"math"
 	"strconv"
 
+	"steamcase/plant/profile"
 	"steamcase/plant/schema"
 )
 
@@ -16,6 +17,7 @@ const (
 	TableVoyage     = "voyage rows"
 	TableVoyageWarn = "voyage warnings"
 	TableStudy      = "study variants"
+	TableSweep      = "study sweep"
 	TableAudit      = "audit days"
 	tableColumn     = "table"
 	csvMoneyDec     = 2
@@ -46,6 +48,13 @@ var voyageWarnHeader = [...]string{tableColumn, "voyage", "row", "source", "warn
 var studyHeader = [...]string{
 	tableColumn, "study", "variant", "hours", "fuel_t", "co2_t", "fuel_saved_t",
 	"co2_avoided_t", "cost_saved", "currency", "payback_years", "hours_below_min_gas_T",
+	"installed_cost", "carbon_cost_saved", "annual_saving", "npv", "hours_below_acid_dew_margin", "hours_soot_risk",
+}
+
+var sweepHeader = [...]string{
+	tableColumn, "study", "unit", "param", "point", "value", "ua_W_K", "installed_cost", "currency",
+	"fuel_t", "fuel_saved_t", "co2_avoided_t", "ege_steam_t", "dumped_t", "annual_saving", "npv",
+	"payback_years", "hours_below_min_gas_T", "hours_soot_risk", "best",
 }
 
 var auditHeader = [...]string{
@@ -55,11 +64,11 @@ var auditHeader = [...]string{
 
 // CSV writes the run as CSV tables, one after another in one stream:
 // the load cases, then, when the run has them, the rows of its voyages
-// and their warnings, the variants of its studies and the days of its
-// audits. Each table starts with a header row whose first field is
+// and their warnings, the variants of its studies and their sweeps of
+// size, and the days of its audits. Each table starts with a header row whose first field is
 // "table", and each of its data rows has the table's name in that field:
-// "cases", "voyage rows", "voyage warnings", "study variants" or "audit
-// days". One blank line separates two tables
+// "cases", "voyage rows", "voyage warnings", "study variants", "study
+// sweep" or "audit days". One blank line separates two tables
 // (a name with a blank line in it is quoted, and the line is part of it).
 // The cases table always comes first (its header alone when no case was
 // solved); a job table is written only when the run has such a job, and
@@ -95,8 +104,20 @@ var auditHeader = [...]string{
 //	                (over the profile), fuel_saved_t, co2_avoided_t and
 //	                cost_saved (against the first variant, over the
 //	                profile), currency, payback_years (empty for the first
-//	                variant, without an installed cost and fuel price, or
-//	                when nothing is saved), hours_below_min_gas_T
+//	                variant, without an extra installed cost or a price, or
+//	                when nothing is saved), hours_below_min_gas_T;
+//	                installed_cost, carbon_cost_saved (over the profile),
+//	                annual_saving (fuel and carbon, per year), npv (empty
+//	                without a life), hours_below_acid_dew_margin,
+//	                hours_soot_risk
+//	study sweep     study, unit, param, point (from 1), value (the size in
+//	                SI: W/K for ua, K for pinch), ua_W_K, installed_cost,
+//	                currency, fuel_t, fuel_saved_t, co2_avoided_t,
+//	                ege_steam_t, dumped_t (over the profile),
+//	                annual_saving, npv, payback_years,
+//	                hours_below_min_gas_T, hours_soot_risk, best (true for
+//	                the size of highest NPV); written only when a study
+//	                has a sweep
 //	audit days      audit, day (from 1), source, date, phase, claimed_t,
 //	                nominal_t, low_t, median_t, high_t, flag ("above",
 //	                "below" or empty)
@@ -176,19 +197,36 @@ func CSV(w io.Writer, run Run) error {
 				continue
 			}
 			r := s.Result
-			for i, v := range r.Variants {
-				payback := ""
-				if i > 0 && r.InstalledCost > 0 && r.FuelPrice > 0 && v.CostSaved > 0 &&
-					!math.IsInf(v.PaybackYears, 0) && !math.IsNaN(v.PaybackYears) {
-					payback = fix(v.PaybackYears, csvPaybackDec)
-				}
+			for _, v := range r.Variants {
 				rec := [...]string{
 					TableStudy, s.Name, v.Name, fix(r.Hours, csvHoursDec),
 					fix(v.Totals.FuelT, csvTonnesDec), fix(v.Totals.CO2T, csvTonnesDec),
 					fix(v.FuelSavedT, csvTonnesDec), fix(v.CO2AvoidedT, csvTonnesDec),
-					fix(v.CostSaved, csvMoneyDec), r.Currency, payback, fix(v.HoursBelowMinGasT, csvHoursDec),
+					fix(v.CostSaved, csvMoneyDec), r.Currency, csvPayback(v.Money), fix(v.HoursBelowMinGasT, csvHoursDec),
+					fix(v.InstalledCost, csvMoneyDec), fix(v.CarbonSaved, csvMoneyDec), fix(v.AnnualSaving, csvMoneyDec),
+					csvNPV(r, v.NPV), fix(v.HoursBelowAcidDew, csvHoursDec), fix(v.HoursSootRisk, csvHoursDec),
 				}
 				write(rec[:])
+			}
+		}
+		if hasRows(run.Studies, func(s Study) bool { return s.Result != nil && s.Result.Sweep != nil }) {
+			begin(sweepHeader[:], false)
+			for _, s := range run.Studies {
+				if s.Result == nil || s.Result.Sweep == nil {
+					continue
+				}
+				r, sw := s.Result, s.Result.Sweep
+				for k, pt := range sw.Points {
+					rec := [...]string{
+						TableSweep, s.Name, sw.Unit, sw.Param, strconv.Itoa(k + 1), strconv.FormatFloat(pt.Value, 'g', 10, 64),
+						fix(pt.UA, 1), fix(pt.InstalledCost, csvMoneyDec), r.Currency,
+						fix(pt.FuelT, csvTonnesDec), fix(pt.FuelSavedT, csvTonnesDec), fix(pt.CO2AvoidedT, csvTonnesDec),
+						fix(pt.EGESteamT, csvTonnesDec), fix(pt.DumpedT, csvTonnesDec), fix(pt.AnnualSaving, csvMoneyDec),
+						csvNPV(r, pt.NPV), csvPayback(pt.Money), fix(pt.HoursBelowMinGasT, csvHoursDec),
+						fix(pt.HoursSootRisk, csvHoursDec), strconv.FormatBool(k == sw.Best),
+					}
+					write(rec[:])
+				}
 			}
 		}
 	}
@@ -213,6 +251,23 @@ func CSV(w io.Writer, run Run) error {
 		return ew.err
 	}
 	return cw.Error()
+}
+
+// csvPayback is a payback in years, or an empty cell where there is none
+// (or nothing is saved).
+func csvPayback(m profile.Money) string {
+	if !m.HasPayback || math.IsInf(m.PaybackYears, 0) || math.IsNaN(m.PaybackYears) {
+		return ""
+	}
+	return fix(m.PaybackYears, csvPaybackDec)
+}
+
+// csvNPV is an NPV, or an empty cell when the study has no life.
+func csvNPV(r *profile.StudyResult, npv float64) string {
+	if !r.HasNPV {
+		return ""
+	}
+	return fix(npv, csvMoneyDec)
 }
 
 // flow formats a mass flow in kg/s as kg/h with the CSV's decimals.

@@ -100,12 +100,11 @@ func Plot(w io.Writer, format string, cases []Case) error {
 	p.Title.Text = title
 	p.X.Label.Text = "load case"
 	p.Y.Label.Text = "steam, kg/h"
-	names := make([]string, len(cases))
-	for i, c := range cases {
-		names[i] = c.Result.Name
-	}
+	names := caseLabels(cases)
 	p.NominalX(names...)
-	if len(cases) > 3 {
+	plotW := vg.Length(math.Max(12, math.Min(40, 2.2*float64(len(cases))+6))) * vg.Centimeter
+	slanted := labelsOverlap(p, names, plotW)
+	if slanted {
 		p.X.Tick.Label.Rotation = math.Pi / 6
 		p.X.Tick.Label.XAlign = draw.XRight
 		p.X.Tick.Label.YAlign = draw.YCenter
@@ -113,7 +112,7 @@ func Plot(w io.Writer, format string, cases []Case) error {
 	p.Add(plotter.NewGrid())
 
 	// The demand, by consumer, in the order consumers first appear.
-	series, order := demandSeries(cases)
+	series, order, colour := demandSeries(cases)
 	legend := plot.NewLegend()
 	legend.Top, legend.Left = true, true
 	barW := vg.Points(math.Max(12, math.Min(48, 360/float64(len(cases)))))
@@ -124,7 +123,7 @@ func Plot(w io.Writer, format string, cases []Case) error {
 		if err != nil {
 			return fmt.Errorf("plot: %s: %w", name, err)
 		}
-		bc.Color = fill(i)
+		bc.Color = fill(colour[name])
 		bc.LineStyle.Width = vg.Points(0.5)
 		bc.LineStyle.Color = color.White
 		if below != nil {
@@ -141,8 +140,8 @@ func Plot(w io.Writer, format string, cases []Case) error {
 
 	// The capacity: the firing boilers' MCR as a short bar over each case,
 	// all boilers' MCR as a dashed line with squares.
-	half := 0.42
-	var firing *plotter.Line
+	const half, gap = 0.42, 0.09
+	var firing, usable *plotter.Line
 	allPts := make(plotter.XYs, len(cases))
 	for i, c := range cases {
 		var capF, capA float64
@@ -153,14 +152,39 @@ func Plot(w io.Writer, format string, cases []Case) error {
 			}
 		}
 		allPts[i] = plotter.XY{X: float64(i), Y: capA}
-		l, err := plotter.NewLine(plotter.XYs{{X: float64(i) - half, Y: capF}, {X: float64(i) + half, Y: capF}})
-		if err != nil {
-			return fmt.Errorf("plot: MCR of the boilers firing in %q: %w", c.Result.Name, err)
+		// Two halves with a gap at the middle, where the square of all
+		// boilers' MCR stands when every boiler fires: the bar never
+		// hides it.
+		x := float64(i)
+		for _, seg := range [2][2]float64{{x - half, x - gap}, {x + gap, x + half}} {
+			l, err := plotter.NewLine(plotter.XYs{{X: seg[0], Y: capF}, {X: seg[1], Y: capF}})
+			if err != nil {
+				return fmt.Errorf("plot: MCR of the boilers firing in %q: %w", c.Result.Name, err)
+			}
+			l.Color = firingColor
+			l.Width = vg.Points(2.5)
+			p.Add(l)
+			firing = l
 		}
-		l.Color = firingColor
-		l.Width = vg.Points(2.5)
-		p.Add(l)
-		firing = l
+		// Where another boiler could still fire: the steam at which the
+		// firing rule fires it (the usable fraction of the firing
+		// boilers' MCR), dotted.
+		if r := c.Result; r.BoilersFiring > 0 && r.BoilersFiring < len(r.Boilers) && !r.Forced {
+			var fired float64
+			for _, b := range r.Boilers {
+				fired += b.SteamKgS
+			}
+			y := (fired + r.MarginNextKgS) * kgh
+			l, err := plotter.NewLine(plotter.XYs{{X: x - half, Y: y}, {X: x + half, Y: y}})
+			if err != nil {
+				return fmt.Errorf("plot: the next boiler's threshold in %q: %w", r.Name, err)
+			}
+			l.Color = firingColor
+			l.Width = vg.Points(1.2)
+			l.Dashes = []vg.Length{vg.Points(1.5), vg.Points(2)}
+			p.Add(l)
+			usable = l
+		}
 	}
 	all, pts, err := plotter.NewLinePoints(allPts)
 	if err != nil {
@@ -174,8 +198,13 @@ func Plot(w io.Writer, format string, cases []Case) error {
 	pts.Radius = vg.Points(3)
 	p.Add(all, pts)
 	legend.Add("MCR of the boilers firing", firing)
-	legend.Add("MCR of all boilers", all, pts)
 	extra := []string{"MCR of the boilers firing", "MCR of all boilers"}
+	if usable != nil {
+		const label = "the next boiler fires above (usable fraction)"
+		legend.Add(label, usable)
+		extra = append(extra, label)
+	}
+	legend.Add("MCR of all boilers", all, pts)
 
 	// The steam of the exhaust-gas economisers, where there is any: it
 	// takes its share of the demand off the boilers.
@@ -218,9 +247,8 @@ func Plot(w io.Writer, format string, cases []Case) error {
 		}
 	}
 	legW += legend.ThumbnailWidth + vg.Centimeter
-	plotW := vg.Length(math.Max(12, math.Min(40, 2.2*float64(len(cases))+6))) * vg.Centimeter
 	width, height := plotW+legW, 11*vg.Centimeter
-	if len(cases) > 3 {
+	if slanted {
 		// Slanted case names take height from the chart: give it back.
 		longest := vg.Length(0)
 		for _, n := range names {
@@ -242,10 +270,57 @@ func Plot(w io.Writer, format string, cases []Case) error {
 		return fmt.Errorf("plot: unknown format %q; the formats are svg and png", format)
 	}
 	dc := draw.New(canvas)
+	opaque(dc)
 	p.Draw(draw.Crop(dc, 0, -legW, 0, 0))
 	legend.Draw(draw.Crop(dc, plotW+vg.Millimeter*3, 0, 0, 0))
 	_, err = canvas.WriteTo(w)
 	return err
+}
+
+// caseLabels are the cases' names on the chart's axis, each made unique
+// by its number where names repeat (a series of cases of one name).
+func caseLabels(cases []Case) []string {
+	count := map[string]int{}
+	for _, c := range cases {
+		count[c.Result.Name]++
+	}
+	names := make([]string, len(cases))
+	seen := map[string]int{}
+	for i, c := range cases {
+		n := c.Result.Name
+		if count[n] > 1 {
+			seen[n]++
+			n = fmt.Sprintf("%s %d", n, seen[n])
+		}
+		names[i] = n
+	}
+	return names
+}
+
+// labelsOverlap reports whether the names, written level, would run into
+// each other in their slots across a plot of width w.
+func labelsOverlap(p *plot.Plot, names []string, w vg.Length) bool {
+	slot := w * 0.85 / vg.Length(len(names))
+	for _, n := range names {
+		if p.X.Tick.Label.Width(n) > slot*0.95 {
+			return true
+		}
+	}
+	return false
+}
+
+// opaque paints a canvas white, so that the chart and its legend have a
+// background of their own on any page.
+func opaque(c draw.Canvas) {
+	var path vg.Path
+	r := c.Rectangle
+	path.Move(r.Min)
+	path.Line(vg.Point{X: r.Max.X, Y: r.Min.Y})
+	path.Line(r.Max)
+	path.Line(vg.Point{X: r.Min.X, Y: r.Max.Y})
+	path.Close()
+	c.SetColor(color.White)
+	c.Fill(path)
 }
 
 // flowTicks marks a flow axis at a round step (1, 2 or 5 times a power of
@@ -292,7 +367,7 @@ func samePlant(cases []Case) bool {
 
 // demandSeries returns the steam flows, kg/h, of every consumer across the
 // cases (zero where a case lacks it), and the series names in order.
-func demandSeries(cases []Case) (map[string]plotter.Values, []string) {
+func demandSeries(cases []Case) (map[string]plotter.Values, []string, map[string]int) {
 	series := map[string]plotter.Values{}
 	var order []string
 	add := func(name string, i int, v float64) {
@@ -326,6 +401,13 @@ func demandSeries(cases []Case) (map[string]plotter.Values, []string) {
 			add(seriesOther, i, rest)
 		}
 	}
+	// Each series keeps the colour of its place among all the plant's
+	// takers, whether it is drawn or not, so that a consumer has the same
+	// colour in every chart of the plant.
+	colour := make(map[string]int, len(order))
+	for i, name := range order {
+		colour[name] = i
+	}
 	// A series that is zero in every case is left out.
 	kept := order[:0]
 	for _, name := range order {
@@ -341,5 +423,5 @@ func demandSeries(cases []Case) (map[string]plotter.Values, []string) {
 			delete(series, name)
 		}
 	}
-	return series, kept
+	return series, kept, colour
 }

@@ -154,6 +154,7 @@ func PlotVoyage(w io.Writer, format string, v Voyage) error {
 		return err
 	}
 	dc := draw.New(canvas)
+	opaque(dc)
 	area := draw.Crop(dc, 0, -legW, 0, 0)
 	cs := plot.Align([][]*plot.Plot{{up}, {down}}, draw.Tiles{Rows: 2, Cols: 1, PadY: vg.Millimeter * 2}, area)
 	// Align lines up the panels' data areas; the upper panel takes 62 %
@@ -353,7 +354,7 @@ func (s *voyageSeries) upperPanel(v Voyage) (*plot.Plot, []legendEntry, error) {
 // lowerPanel draws the boiler fuel burnt.
 func (s *voyageSeries) lowerPanel() (*plot.Plot, legendEntry, error) {
 	down := plot.New()
-	down.X.Label.Text = "hours from the start of the voyage"
+	down.X.Label.Text = "time from the start of the voyage, h"
 	down.Y.Label.Text = "fuel, kg/h"
 	down.X.Min, down.X.Max = 0, s.hours
 	down.Y.Min, down.Y.Max = 0, s.topFuel*1.12
@@ -414,19 +415,61 @@ func (decimalTicks) Ticks(lo, hi float64) []plot.Tick {
 }
 
 // hoursPerYear is the year the study's savings are scaled to.
-const hoursPerYear = 8760
+const hoursPerYear = profile.HoursPerYear
 
 // PlotStudy draws a study in format (SVG or PNG) to w: a bar for each
 // variant, in the order given, of the boiler fuel it saves against the
 // first, in t/yr (the profile's savings scaled to 8760 h when its hours
 // are not a year), green for a saving and brick for a loss, each bar
 // labelled with its figure and, when the study has money figures, its
-// payback.
+// payback. A study with a sweep of size has two panels more below: the
+// NPV of each size against the first variant, and the steam dumped, in
+// t/yr, against the size, with the size of highest NPV marked on both.
 func PlotStudy(w io.Writer, format string, s Study) error {
 	r := s.Result
 	if r == nil || len(r.Variants) == 0 || !(r.Hours > 0) {
 		return fmt.Errorf("plot: study %q has no variants to draw", s.Name)
 	}
+	p, width, height, err := studyBars(s)
+	if err != nil {
+		return err
+	}
+	if r.Sweep == nil || len(r.Sweep.Points) == 0 {
+		canvas, err := newCanvas(format, width, height)
+		if err != nil {
+			return err
+		}
+		dc := draw.New(canvas)
+		opaque(dc)
+		p.Draw(dc)
+		_, err = canvas.WriteTo(w)
+		return err
+	}
+	npv, dumped, err := sweepPanels(r)
+	if err != nil {
+		return err
+	}
+	width = max(width, 20*vg.Centimeter)
+	sweepH := 16 * vg.Centimeter
+	canvas, err := newCanvas(format, width, height+sweepH)
+	if err != nil {
+		return err
+	}
+	dc := draw.New(canvas)
+	opaque(dc)
+	p.Draw(draw.Crop(dc, 0, 0, sweepH, 0))
+	area := draw.Crop(dc, 0, 0, 0, -height-vg.Centimeter)
+	cs := plot.Align([][]*plot.Plot{{npv}, {dumped}}, draw.Tiles{Rows: 2, Cols: 1, PadY: vg.Millimeter * 2}, area)
+	npv.Draw(cs[0][0])
+	dumped.Draw(cs[1][0])
+	_, err = canvas.WriteTo(w)
+	return err
+}
+
+// studyBars is the bar chart of a study's variants, with the size it
+// wants.
+func studyBars(s Study) (*plot.Plot, vg.Length, vg.Length, error) {
+	r := s.Result
 	perYear := hoursPerYear / r.Hours
 	p := plot.New()
 	p.Title.Text = "Study: " + s.Name
@@ -457,7 +500,7 @@ func PlotStudy(w io.Writer, format string, s Study) error {
 		y := v.FuelSavedT * perYear
 		bc, err := plotter.NewBarChart(plotter.Values{y}, barW)
 		if err != nil {
-			return fmt.Errorf("plot: variant %q: %w", v.Name, err)
+			return nil, 0, 0, fmt.Errorf("plot: variant %q: %w", v.Name, err)
 		}
 		bc.XMin = float64(i)
 		switch {
@@ -474,7 +517,7 @@ func PlotStudy(w io.Writer, format string, s Study) error {
 		text := fix(y, 0) + " t/yr"
 		if i == 0 {
 			text = "base"
-		} else if r.FuelPrice > 0 && r.InstalledCost > 0 && v.CostSaved > 0 && !math.IsInf(v.PaybackYears, 0) {
+		} else if v.HasPayback && !math.IsInf(v.PaybackYears, 0) {
 			text += "\npayback " + fix(v.PaybackYears, 1) + " yr"
 		}
 		labels.XYs = append(labels.XYs, plotter.XY{X: float64(i), Y: max(y, 0)})
@@ -489,7 +532,7 @@ func PlotStudy(w io.Writer, format string, s Study) error {
 	}
 	lbl, err := plotter.NewLabels(labels)
 	if err != nil {
-		return fmt.Errorf("plot: labels: %w", err)
+		return nil, 0, 0, fmt.Errorf("plot: labels: %w", err)
 	}
 	for i := range lbl.TextStyle {
 		lbl.TextStyle[i].XAlign = draw.XCenter
@@ -512,13 +555,98 @@ func PlotStudy(w io.Writer, format string, s Study) error {
 		}
 		height += l * vg.Length(math.Sin(p.X.Tick.Label.Rotation))
 	}
-	canvas, err := newCanvas(format, width, height)
-	if err != nil {
-		return err
+	return p, width, height, nil
+}
+
+// sweepPanels are the two panels of a study's sweep: the NPV of each
+// size (thousands of the currency) and the steam dumped (t/yr), against
+// the size, the best size ringed and marked by a dashed line on both.
+func sweepPanels(r *profile.StudyResult) (*plot.Plot, *plot.Plot, error) {
+	sw := r.Sweep
+	perYear := hoursPerYear / r.Hours
+	xUnit, xScale := "K", 1.0
+	what := "design pinch"
+	if sw.Param == "ua" {
+		xUnit, xScale, what = "kW/K", 1e-3, "UA"
 	}
-	p.Draw(draw.New(canvas))
-	_, err = canvas.WriteTo(w)
-	return err
+	npvXY := make(plotter.XYs, len(sw.Points))
+	dumpXY := make(plotter.XYs, len(sw.Points))
+	for k, pt := range sw.Points {
+		x := pt.Value * xScale
+		npvXY[k] = plotter.XY{X: x, Y: pt.NPV / 1e3}
+		dumpXY[k] = plotter.XY{X: x, Y: pt.DumpedT * perYear}
+	}
+	cur := r.Currency
+	if cur == "" {
+		cur = "currency"
+	}
+	mk := func(title, ylabel string, xy plotter.XYs, c color.Color) (*plot.Plot, error) {
+		p := plot.New()
+		p.Title.Text = title
+		p.Y.Label.Text = ylabel
+		p.X.Label.Text = fmt.Sprintf("%s of %s, %s", what, sw.Unit, xUnit)
+		p.Add(plotter.NewGrid())
+		l, pts, err := plotter.NewLinePoints(xy)
+		if err != nil {
+			return nil, err
+		}
+		l.Color, l.Width = c, vg.Points(1.5)
+		pts.Color, pts.Shape, pts.Radius = c, draw.CircleGlyph{}, vg.Points(2.5)
+		p.Add(l, pts)
+		lo, hi := xy[0].Y, xy[0].Y
+		for _, q := range xy {
+			lo, hi = min(lo, q.Y), max(hi, q.Y)
+		}
+		lo, hi = min(lo, 0), max(hi, 0)
+		if !(hi > lo) {
+			hi = lo + 1
+		}
+		p.Y.Min, p.Y.Max = lo-(hi-lo)*0.05, hi+(hi-lo)*0.15
+		p.Y.Tick.Marker = decimalTicks{}
+		p.X.Tick.Marker = decimalTicks{}
+		if sw.Best >= 0 {
+			bx := xy[sw.Best].X
+			vl, err := plotter.NewLine(plotter.XYs{{X: bx, Y: p.Y.Min}, {X: bx, Y: p.Y.Max}})
+			if err != nil {
+				return nil, err
+			}
+			vl.Color, vl.Dashes, vl.Width = savedColor, []vg.Length{vg.Points(4), vg.Points(3)}, vg.Points(1)
+			ring, err := plotter.NewScatter(plotter.XYs{xy[sw.Best]})
+			if err != nil {
+				return nil, err
+			}
+			ring.Shape, ring.Color, ring.Radius = draw.RingGlyph{}, savedColor, vg.Points(6)
+			p.Add(vl, ring)
+		}
+		styleAxes(p)
+		return p, nil
+	}
+	npv, err := mk(fmt.Sprintf("NPV against %q over %d years at %s %%", r.Variants[0].Name, r.LifeYears, fix(100*r.DiscountRate, 1)),
+		"NPV, thousand "+cur, npvXY, demandColor)
+	if err != nil {
+		return nil, nil, fmt.Errorf("plot: sweep: %w", err)
+	}
+	if sw.Best >= 0 {
+		b := sw.Points[sw.Best]
+		lbl, err := plotter.NewLabels(plotter.XYLabels{XYs: []plotter.XY{npvXY[sw.Best]},
+			Labels: []string{fmt.Sprintf("  best: %s, NPV %s %s", sizeText(sw.Param, b.Value), fix(b.NPV, 0), r.Currency)}})
+		if err != nil {
+			return nil, nil, fmt.Errorf("plot: sweep: %w", err)
+		}
+		lbl.TextStyle[0].Font.Size = vg.Points(9)
+		lbl.TextStyle[0].Color = ink
+		lbl.TextStyle[0].YAlign = draw.YBottom
+		if sw.Best > len(sw.Points)/2 {
+			lbl.TextStyle[0].XAlign = draw.XRight
+			lbl.Labels[0] = fmt.Sprintf("best: %s, NPV %s %s  ", sizeText(sw.Param, b.Value), fix(b.NPV, 0), r.Currency)
+		}
+		npv.Add(lbl)
+	}
+	dumped, err := mk("Steam dumped", "steam dumped, t/yr", dumpXY, lossColor)
+	if err != nil {
+		return nil, nil, fmt.Errorf("plot: sweep: %w", err)
+	}
+	return npv, dumped, nil
 }
 
 // auditBand is the days' bands as error bars about the median.
@@ -671,6 +799,7 @@ func PlotAudit(w io.Writer, format string, a Audit) error {
 		return err
 	}
 	dc := draw.New(canvas)
+	opaque(dc)
 	p.Draw(draw.Crop(dc, 0, -legW, 0, 0))
 	legend.Draw(draw.Crop(dc, plotW+vg.Millimeter*3, 0, 0, 0))
 	_, err = canvas.WriteTo(w)

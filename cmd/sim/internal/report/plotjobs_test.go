@@ -2,6 +2,7 @@ package report
 
 import (
 	"bytes"
+	"fmt"
 	"strings"
 	"testing"
 )
@@ -17,7 +18,7 @@ func TestPlotJobs(t *testing.T) {
 		t.Fatalf("%d charts of a run with a voyage, a study and an audit, want 3", len(charts))
 	}
 	wants := [][]string{
-		{"Voyage: four periods", "Invented Test Tanker", "steam, kg/h", "fuel, kg/h", "hours from the start of the voyage",
+		{"Voyage: four periods", "Invented Test Tanker", "steam, kg/h", "fuel, kg/h", "time from the start of the voyage, h",
 			"MCR of all boilers", "MCR of the boilers firing", "steam demand on the oil-fired boilers",
 			"period the plant cannot carry", "port", "discharge"},
 		{"Study: lagging", "as built", "better lagging", "t/yr", "base", "payback"},
@@ -114,5 +115,38 @@ func TestDecimalTicks(t *testing.T) {
 		if got := strings.Join(labels, " "); got != c.want {
 			t.Errorf("%g to %g: %q, want %q", c.lo, c.hi, got, c.want)
 		}
+	}
+}
+
+// TestChartsOpaque: every chart of a run paints its whole canvas, legend
+// included, before it draws (an SVG on a dark page stays readable), and
+// the cases chart labels repeated case names apart (issue 16).
+func TestChartsOpaque(t *testing.T) {
+	t.Parallel()
+	run := profileRun(t)
+	run.Cases = demoCases(t)
+	run.Cases = append(run.Cases, run.Cases...)
+	for _, c := range Charts(run) {
+		var svg bytes.Buffer
+		must(t, c.Draw(&svg, SVG))
+		s := svg.String()
+		i := strings.Index(s, `viewBox="0 0 `)
+		if i < 0 {
+			t.Fatalf("%s: no viewBox", c.Kind)
+		}
+		dims := strings.Fields(s[i+len(`viewBox="0 0 `) : i+len(`viewBox="0 0 `)+strings.Index(s[i+len(`viewBox="0 0 `):], `"`)])
+		first := fmt.Sprintf(`<path d="M0,0L%s,0L%s,%s,L0,%sZ" style="fill:#FFFFFF" />`, dims[0], dims[0], dims[1], dims[1])
+		first = strings.Replace(first, ",L0", "L0", 1)
+		if !strings.Contains(s, first) {
+			t.Errorf("%s chart: no white rectangle over the whole canvas (%s)", c.Kind, first)
+		}
+	}
+	names := caseLabels(run.Cases)
+	seen := map[string]bool{}
+	for _, n := range names {
+		if seen[n] {
+			t.Errorf("case label %q appears twice on the axis", n)
+		}
+		seen[n] = true
 	}
 }

@@ -215,35 +215,142 @@ func writeStudy(w io.Writer, s Study) {
 	}
 	writeTotalsTable(w, names, totals, "variant")
 	fmt.Fprintln(w)
-	money := r.FuelPrice > 0
+	money := r.FuelPrice > 0 || r.CarbonPrice > 0
+	cur := r.Currency
 	tw := tabwriter.NewWriter(w, 0, 8, 2, ' ', 0)
 	fmt.Fprintf(tw, "    variant\t%12s\t%14s\t", "fuel saved t", "CO2 avoided t")
 	if money {
-		fmt.Fprintf(tw, "%14s\t%13s\t", "saved "+r.Currency, "payback years")
+		fmt.Fprintf(tw, "%14s\t%14s\t%16s\t", "installed "+cur, "saved "+cur, "saved "+cur+"/yr")
+		if r.HasNPV {
+			fmt.Fprintf(tw, "%14s\t", "NPV "+cur)
+		}
+		fmt.Fprintf(tw, "%13s\t", "payback years")
 	}
-	fmt.Fprintf(tw, "%18s\t\n", "h gas below min.")
+	fmt.Fprintf(tw, "%18s\t%17s\t%12s\t\n", "h gas below min.", "h near acid dew", "h soot risk")
 	for i, v := range r.Variants {
 		fmt.Fprintf(tw, "    %s\t%12s\t%14s\t", v.Name, fix(v.FuelSavedT, 3), fix(v.CO2AvoidedT, 3))
 		if money {
-			payback := "never"
-			if !math.IsInf(v.PaybackYears, 0) && !math.IsNaN(v.PaybackYears) && v.CostSaved > 0 {
-				payback = fix(v.PaybackYears, 2)
+			fmt.Fprintf(tw, "%14s\t%14s\t%16s\t", fix(v.InstalledCost, 0), fix(v.CostSaved+v.CarbonSaved, 0), fix(v.AnnualSaving, 0))
+			if r.HasNPV {
+				npv := fix(v.NPV, 0)
+				if i == 0 {
+					npv = "-"
+				}
+				fmt.Fprintf(tw, "%14s\t", npv)
 			}
-			if r.InstalledCost == 0 || i == 0 {
-				payback = "-" // no cost given, or the base itself
-			}
-			fmt.Fprintf(tw, "%14s\t%13s\t", fix(v.CostSaved, 0), payback)
+			fmt.Fprintf(tw, "%13s\t", paybackText(v.Money))
 		}
-		fmt.Fprintf(tw, "%18s\t\n", fix(v.HoursBelowMinGasT, 1))
+		fmt.Fprintf(tw, "%18s\t%17s\t%12s\t\n", fix(v.HoursBelowMinGasT, 1), fix(v.HoursBelowAcidDew, 1), fix(v.HoursSootRisk, 1))
 	}
 	tw.Flush()
 	if money {
-		fmt.Fprintf(w, "  fuel price %s %s/t", fix(r.FuelPrice, 2), r.Currency)
-		if r.InstalledCost > 0 {
-			fmt.Fprintf(w, ", installed cost %s %s", fix(r.InstalledCost, 0), r.Currency)
+		var parts []string
+		if r.FuelPrice > 0 {
+			parts = append(parts, fmt.Sprintf("fuel %s %s/t", fix(r.FuelPrice, 2), cur))
 		}
-		fmt.Fprintln(w)
+		if r.CarbonPrice > 0 {
+			parts = append(parts, fmt.Sprintf("carbon %s %s/t CO2", fix(r.CarbonPrice, 2), cur))
+		}
+		if r.InstalledCost > 0 {
+			parts = append(parts, fmt.Sprintf("installed cost %s %s where a variant gives none", fix(r.InstalledCost, 0), cur))
+		}
+		if r.HasNPV {
+			parts = append(parts, fmt.Sprintf("NPV over %d years at %s %% a year", r.LifeYears, fix(100*r.DiscountRate, 2)))
+		}
+		fmt.Fprintf(w, "  %s; savings scaled to a year of %d h; payback and NPV on the installed cost above the first variant's\n",
+			strings.Join(parts, ", "), profile.HoursPerYear)
 	}
+	if sootHours(r) {
+		fmt.Fprintf(w, "  %s\n", wrapText(schema.SootFireCaution, 96, "  "))
+	}
+	if r.Sweep != nil {
+		writeSweep(w, r)
+	}
+}
+
+// sootHours reports whether a study counts any hours at soot-risk loads.
+func sootHours(r *profile.StudyResult) bool {
+	for _, v := range r.Variants {
+		if v.HoursSootRisk > 0 {
+			return true
+		}
+	}
+	if r.Sweep != nil {
+		for _, p := range r.Sweep.Points {
+			if p.HoursSootRisk > 0 {
+				return true
+			}
+		}
+	}
+	return false
+}
+
+// paybackText is a payback for the table: "-" where there is none to
+// give, "never" where nothing is saved.
+func paybackText(m profile.Money) string {
+	switch {
+	case !m.HasPayback:
+		return "-"
+	case math.IsInf(m.PaybackYears, 0) || math.IsNaN(m.PaybackYears):
+		return "never"
+	}
+	return fix(m.PaybackYears, 2)
+}
+
+// sizeText is a sweep's size in the unit scripts give it: kW/K for ua, K
+// for a pinch.
+func sizeText(param string, v float64) string {
+	if param == "ua" {
+		return fix(v/1e3, 2) + " kW/K"
+	}
+	return fix(v, 1) + " K"
+}
+
+// writeSweep writes a study's sweep of size: a line per size, the best
+// marked.
+func writeSweep(w io.Writer, r *profile.StudyResult) {
+	sw := r.Sweep
+	cur := r.Currency
+	perYear := float64(profile.HoursPerYear) / r.Hours
+	exp := sw.Cost.Exponent
+	if exp == 0 {
+		exp = profile.DefaultCostExponent
+	}
+	fmt.Fprintf(w, "\n  Sweep of %s %s: installed cost %s + %s·(UA/%s)^%s %s\n", sw.Unit, sw.Param,
+		fix(sw.Cost.Fixed, 0), fix(sw.Cost.RefCost, 0), sizeText("ua", sw.Cost.RefUA), strconv.FormatFloat(exp, 'g', 4, 64), cur)
+	tw := tabwriter.NewWriter(w, 0, 8, 2, ' ', 0)
+	fmt.Fprintf(tw, "    %s\t%11s\t%14s\t%17s\t%17s\t%17s\t%14s\t%13s\t%12s\t\n", sw.Param, "UA kW/K", "installed "+cur,
+		"fuel saved t/yr", "EGE steam t/yr", "dumped t/yr", "NPV "+cur, "payback years", "h soot risk")
+	for k, pt := range sw.Points {
+		mark := ""
+		if k == sw.Best {
+			mark = "best NPV"
+		}
+		fmt.Fprintf(tw, "    %s\t%11s\t%14s\t%17s\t%17s\t%17s\t%14s\t%13s\t%12s\t%s\n", sizeText(sw.Param, pt.Value), fix(pt.UA/1e3, 2),
+			fix(pt.InstalledCost, 0), fix(pt.FuelSavedT*perYear, 1), fix(pt.EGESteamT*perYear, 1), fix(pt.DumpedT*perYear, 1),
+			fix(pt.NPV, 0), paybackText(pt.Money), fix(pt.HoursSootRisk, 1), mark)
+	}
+	tw.Flush()
+}
+
+// wrapText breaks s into lines of at most width runes, each line after the
+// first starting with indent.
+func wrapText(s string, width int, indent string) string {
+	var b strings.Builder
+	n := 0
+	for i, word := range strings.Fields(s) {
+		l := len([]rune(word))
+		if i > 0 && n+1+l > width {
+			b.WriteString("\n" + indent)
+			n = 0
+		} else if i > 0 {
+			b.WriteByte(' ')
+			n++
+		}
+		b.WriteString(word)
+		n += l
+	}
+	return b.String()
 }
 
 func writeAudit(w io.Writer, a Audit) {

@@ -48,8 +48,15 @@ func Table(w io.Writer, run Run) error {
 		write(&b)
 		writeTrimmed(ew, b.Bytes())
 	}
-	for i, c := range run.Cases {
+	for i := 0; i < len(run.Cases); {
+		c := run.Cases[i]
+		if n := seriesLen(run.Cases[i:]); n > 1 {
+			block(func(w io.Writer) { writeSeries(w, i+1, len(run.Cases), run.Cases[i:i+n]) })
+			i += n
+			continue
+		}
 		block(func(w io.Writer) { writeCase(w, i+1, len(run.Cases), c) })
+		i++
 	}
 	for _, v := range run.Voyages {
 		block(func(w io.Writer) { writeVoyage(w, v) })

@@ -96,8 +96,26 @@ func demoCases(t testing.TB) []Case {
 // plant, with the indicative engine of plant-checks.md §7 [C]): at sea the
 // economiser and the boiler share the demand, on a light demand the
 // economiser's surplus goes to the dump condenser, in port it is out of
-// service.
+// service. The engine's table holds as given (no site correction), as the
+// sheet's check takes it.
 func egeCases(t testing.TB) []Case {
+	p := egePlant(t)
+	var out []Case
+	for _, c := range []plant.Case{
+		{Name: "at sea", Conditions: plant.Conditions{SeaT: 288.15, AirT: 288.15, EngineLoad: 1}},
+		{Name: "at sea, light load", Conditions: plant.Conditions{SeaT: 288.15, AirT: 288.15, EngineLoad: 1},
+			Set: []plant.Setting{{Unit: "heating", Param: "steam", Value: 500.0 / 3600}}},
+		{Name: "in port", Conditions: plant.Conditions{SeaT: 288.15, AirT: 288.15}},
+	} {
+		cr, err := p.Solve(context.Background(), c)
+		must(t, err)
+		out = append(out, Case{Plant: p.Name, Result: cr})
+	}
+	return out
+}
+
+// egePlant is the plant of egeCases.
+func egePlant(t testing.TB) *plant.Plant {
 	p := plant.New("Invented EGE Ship", plant.Options{})
 	drum := gauge(7)
 	engine := plant.EngineExhaust{MCR: 15e6, Load: []float64{0.3, 1}, Specific: []float64{8.5 / 3.6e6, 8.5 / 3.6e6}, T: []float64{513.15, 513.15}}
@@ -105,7 +123,7 @@ func egeCases(t testing.TB) []Case {
 	must(t, p.Add(&plant.FeedTank{Base: plant.Base{Name: "hotwell"}, P: 1e5}))
 	must(t, p.Add(&plant.Header{Base: plant.Base{Name: "feed header"}}))
 	must(t, p.Add(&plant.ExhaustGasEconomiser{Base: plant.Base{Name: "EGE"}, Engine: engine, DrumP: drum,
-		DesignLoad: 1, DesignPinch: 15, GasCp: 1060}))
+		DesignLoad: 1, DesignPinch: 15, GasCp: 1060, Ambient: plant.AmbientAsGiven}))
 	must(t, p.Add(&plant.Boiler{Base: plant.Base{Name: "AB1"}, MCR: 10000.0 / 3600, DrumP: drum,
 		Efficiency: &plant.EfficiencyTable{Load: []float64{0.25, 1.1}, Eta: []float64{0.85, 0.85}},
 		Fuel:       plant.FuelSpec{Name: "HFO", LHV: 40.2e6, CO2Factor: 3.114}}))
@@ -121,18 +139,7 @@ func egeCases(t testing.TB) []Case {
 	p.Connect("to heating", plant.Pos{}, "main", "out", "heating", "in")
 	p.Connect("to dump", plant.Pos{}, "main", "out", "dump", "in")
 	p.Connect("dump return", plant.Pos{}, "dump", "out", "hotwell", "in")
-	var out []Case
-	for _, c := range []plant.Case{
-		{Name: "at sea", Conditions: plant.Conditions{SeaT: 288.15, AirT: 288.15, EngineLoad: 1}},
-		{Name: "at sea, light load", Conditions: plant.Conditions{SeaT: 288.15, AirT: 288.15, EngineLoad: 1},
-			Set: []plant.Setting{{Unit: "heating", Param: "steam", Value: 500.0 / 3600}}},
-		{Name: "in port", Conditions: plant.Conditions{SeaT: 288.15, AirT: 288.15}},
-	} {
-		cr, err := p.Solve(context.Background(), c)
-		must(t, err)
-		out = append(out, Case{Plant: p.Name, Result: cr})
-	}
-	return out
+	return p
 }
 
 func golden(t *testing.T, name string, got []byte) []byte {
@@ -561,6 +568,33 @@ func TestEGETable(t *testing.T) {
 	} {
 		if !strings.Contains(out, s) {
 			t.Errorf("the table does not say %q", s)
+		}
+	}
+}
+
+// TestSeriesTable: cases a script groups in one series are one table of
+// the report, a row per case with its own label, instead of a block each
+// (issue 16); the figures are the cases' own.
+func TestSeriesTable(t *testing.T) {
+	t.Parallel()
+	cases := demoCases(t)
+	for i := range cases {
+		r := *cases[i].Result
+		r.Series, r.Name = "sweep", "audit"
+		cases[i].Result = &r
+	}
+	var b bytes.Buffer
+	must(t, Table(&b, Run{Cases: cases}))
+	out := b.String()
+	if strings.Contains(out, "Load case 1 of") || !strings.Contains(out, fmt.Sprintf("Load cases 1 to %d of %d: series \"sweep\", %d cases", len(cases), len(cases), len(cases))) {
+		t.Errorf("the series is not one table:\n%s", out)
+	}
+	for i := range cases {
+		if !strings.Contains(out, fmt.Sprintf("audit %d", i+1)) {
+			t.Errorf("row %d is not labelled apart:\n%s", i+1, out)
+		}
+		if !strings.Contains(out, fix(cases[i].Result.FuelKgS*kgh, 1)) {
+			t.Errorf("row %d's fuel is not in the table", i+1)
 		}
 	}
 }
