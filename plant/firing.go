@@ -3,6 +3,9 @@ package plant
 import (
 	"context"
 	"fmt"
+	"math"
+
+	"steamcase/solver"
 )
 
 // The firing rule: which oil-fired boilers fire, and how they share the
@@ -316,4 +319,113 @@ func (p *Plant) dumpFlow() float64 {
 		m += p.s.last[d.in.mIdx()]
 	}
 	return m
+}
+
+// stallWatch stops a solve early when the configuration it solves has no
+// solution, so that the firing rule moves on to the next instead of
+// spending the solver's iteration limit. Two signs are taken:
+//
+//   - A firing boiler would have to make less than no steam (the
+//     economisers, or the boilers before it, leave steam over): the
+//     solver holds that boiler's steam flow on its bound of zero, every
+//     step is cut there, and the residual falls by a few per cent an
+//     iteration. The watch stops once a firing boiler's steam has sat at
+//     zero for stallIterations iterations in a row while the residual fell
+//     by less than half each time.
+//   - No progress: stallDamped damped steps in a row (line-search length
+//     below 1) that together lowered the residual norm by less than
+//     stallProgress. The line search is then shrinking its steps towards a
+//     point where the balance cannot close (a local minimum of the
+//     residual), and would go on until the step met the solver's XTol.
+//
+// A solve that only passes through zero, or is slow but moving, is not
+// stopped: its residual falls faster, or it leaves the bound. Where no
+// configuration solves, the case fails as it would have at the limit.
+type stallWatch struct {
+	p    *Plant
+	next solver.Recorder // the caller's own recorder, if any
+	run  int             // iterations in a row at zero
+	last float64         // the residual norm of the last iteration
+
+	damped int     // damped steps in a row without progress
+	ref    float64 // the residual norm before them
+}
+
+// stallIterations, stallDamped and stallProgress are the watch's limits
+// (common practice, no source: a Newton solve that converges moves the
+// residual by orders of magnitude in that many iterations).
+const (
+	stallIterations = 5
+	stallDamped     = 8
+	stallProgress   = 0.01
+)
+
+func (w *stallWatch) Record(it solver.Iteration) error {
+	if it.Iter == 1 && !it.Reused {
+		w.run, w.last = 0, math.Inf(1)
+		w.damped, w.ref = 0, math.Inf(1)
+	}
+	if s := w.p.s; s != nil {
+		var stuck *Boiler
+		for i, b := range s.asm.roles.boilers {
+			if s.fire[i] && it.X[b.steam.mIdx()] <= 0 {
+				stuck = b
+				break
+			}
+		}
+		if stuck != nil && it.ResidualNorm > 0.5*w.last {
+			w.run++
+		} else {
+			w.run = 0
+		}
+		w.last = it.ResidualNorm
+		if w.run >= stallIterations {
+			return &firedAtZeroError{Boiler: stuck.Name, Firing: countTrue(s.fire)}
+		}
+		if it.Alpha < 1 && it.ResidualNorm > (1-stallProgress)*w.ref {
+			w.damped++
+		} else {
+			w.damped, w.ref = 0, it.ResidualNorm
+		}
+		if w.damped >= stallDamped {
+			return &noProgressError{Firing: countTrue(s.fire), Norm: it.ResidualNorm}
+		}
+	}
+	if w.next != nil {
+		return w.next.Record(it)
+	}
+	return nil
+}
+
+// noProgressError says that a configuration's solve stopped making
+// progress: its balance does not close from where the solve went.
+type noProgressError struct {
+	Firing int
+	Norm   float64
+}
+
+func (e *noProgressError) Error() string {
+	return fmt.Sprintf("with %d boiler(s) firing, the balance stopped closing: %d damped steps in a row lowered the scaled residual (%.3g) by less than %g %%",
+		e.Firing, stallDamped, e.Norm, 100*stallProgress)
+}
+
+func countTrue(b []bool) int {
+	n := 0
+	for _, v := range b {
+		if v {
+			n++
+		}
+	}
+	return n
+}
+
+// firedAtZeroError says that a configuration has no solution because a
+// firing boiler would have to make less than no steam.
+type firedAtZeroError struct {
+	Boiler string
+	Firing int
+}
+
+func (e *firedAtZeroError) Error() string {
+	return fmt.Sprintf("with %d boiler(s) firing, boiler %q would have to make less than no steam: the rest of the plant leaves steam over", e.Firing, e.Boiler)
 }

@@ -339,6 +339,11 @@ func (p *Plant) solverSettings() *solver.Settings {
 		s = *p.Opt.Solver
 	}
 	s.SkipDiagnosis = true // compile has diagnosed the structure
+	if s.Recorder == nil {
+		// The watch reads the iterates, not the condition.
+		s.RecordBound = true
+	}
+	s.Recorder = &stallWatch{p: p, next: s.Recorder}
 	if s.Factorizer == nil {
 		// A plant's Jacobian is sparse (each equation touches a few
 		// lines): the sparse LU is several times faster than the dense

@@ -16,10 +16,14 @@ type CaseResult struct {
 	Pos        Pos
 	Conditions Conditions
 
-	Converged    bool
-	Iterations   int // Newton iterations of the final configuration
-	Solves       int // configurations tried by the dispatch
-	ResidualNorm float64
+	Converged  bool
+	Iterations int // Newton iterations of the final configuration
+	Solves     int // configurations tried by the dispatch
+	// NewtonIterations counts the Newton iterations of every solve the
+	// case took: the configurations the firing rule tried, failed and
+	// repeated solves included (Iterations is the final one's alone).
+	NewtonIterations int
+	ResidualNorm     float64
 
 	BoilersFiring int
 	CanCarry      bool

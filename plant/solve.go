@@ -5,6 +5,7 @@ import (
 	"errors"
 	"fmt"
 	"math"
+	"steamcase/plant/units"
 
 	"steamcase/solver"
 )
@@ -53,6 +54,9 @@ type session struct {
 	slv    *solver.Solver
 	slvRes solver.Result
 	solves int // configurations solved for the present case
+	// newton counts the Newton iterations of every solve of the present
+	// case, failed and repeated ones included.
+	newton int
 
 	last     []float64 // last converged unknowns, for warm starts
 	x0       []float64 // starting point scratch
@@ -107,9 +111,11 @@ func (p *Plant) solveConfig(ctx context.Context, fire []bool) error {
 		p.guess(s.x0)
 	}
 	res, err := s.slv.Solve(ctx, s.x0)
+	s.newton += res.Stats.Iterations
 	if err != nil && warm && ctx.Err() == nil {
 		p.guess(s.x0)
 		res, err = s.slv.Solve(ctx, s.x0)
+		s.newton += res.Stats.Iterations
 	}
 	s.slvRes = *res
 	if err != nil {
@@ -156,6 +162,7 @@ func (p *Plant) applySettings(c *Case) (restore func(), err error) {
 		return nil
 	}
 	var fs faults
+	movesPressure := false
 	for _, s := range c.Set {
 		u, ok := p.byName[s.Unit]
 		if !ok {
@@ -167,6 +174,9 @@ func (p *Plant) applySettings(c *Case) (restore func(), err error) {
 		if !ok || !k.Case || !k.Settable() {
 			fs.add(s.Pos, s.Unit, "", "%s", paramMsg(u, s.Param))
 			continue
+		}
+		if k.Kind == KeyText || k.Dim == units.Pressure {
+			movesPressure = true
 		}
 		if k.Kind == KeyText {
 			if err := setText(u, k, s.Text); err != nil {
@@ -198,8 +208,9 @@ func (p *Plant) applySettings(c *Case) (restore func(), err error) {
 			}
 		}
 	}
-	if len(c.Set) > 0 {
-		// A case may move the set pressures (a drum, a valve).
+	if movesPressure {
+		// A case may move the set pressures (a drum, a valve, a text
+		// setting that may carry one).
 		p.checkPressures(&fs)
 	}
 	if err := fs.err(); err != nil {
@@ -224,7 +235,7 @@ func (p *Plant) Solve(ctx context.Context, c Case) (*CaseResult, error) {
 	defer restore()
 	s := p.s
 	s.ev = eval{cond: c.Conditions, pl: p}
-	s.solves = 0
+	s.solves, s.newton = 0, 0
 
 	boilers := s.asm.roles.boilers
 	fire := make([]bool, len(boilers))
@@ -412,6 +423,7 @@ func (p *Plant) report(cr *CaseResult) error {
 	cr.Iterations = s.slvRes.Stats.Iterations
 	cr.ResidualNorm = s.slvRes.ResidualNorm
 	cr.Solves = s.solves
+	cr.NewtonIterations = s.newton
 	cr.Units = make([]ComponentResult, 0, len(p.comps))
 	cr.Consumers = make([]ConsumerResult, 0, len(p.comps))
 	cr.Boilers = make([]BoilerResult, 0, len(s.asm.roles.boilers))
