@@ -59,7 +59,8 @@ type Consumer struct {
 	in, out  *Line
 	eqs      [4]int
 	mc, mr   memo
-	fuel     int // index of the driving boiler's fuel flow, or -1
+	mx       memo // temperature of what enters the drain cooler (reports)
+	fuel     int  // index of the driving boiler's fuel flow, or -1
 	caseDuty Duty
 	warms    *Boiler // the boiler a warming consumer keeps warm
 	// Where the drain cooler's heat goes in the compiled plant (one of the
@@ -491,7 +492,7 @@ func (u *Consumer) guess(x []float64) {
 // transferred is the heat the drain cooler gives to the feed or the
 // hotwell: Q = RF·ṁ·(h_leaving − h_r), with its derivatives by the inlet's
 // flow, pressure and enthalpy (a transfer, transfer.go).
-func (u *Consumer) transferred(ev *eval) (m, e float64, d [3]partial, err error) {
+func (u *Consumer) transferred(ev *eval, partials bool) (m, e float64, d [3]partial, err error) {
 	d = [3]partial{{col: -1}, {col: -1}, {col: -1}}
 	if u.ReturnT == 0 {
 		return 0, 0, d, nil // no drain cooler in this case
@@ -505,6 +506,13 @@ func (u *Consumer) transferred(ev *eval) (m, e float64, d [3]partial, err error)
 	if err != nil {
 		return 0, 0, d, wrapErr(u, err)
 	}
+	mi, hIn := ev.m(u.in), ev.h(u.in)
+	rf, k := u.ReturnFraction, 1-u.TrapLoss
+	hx := u.hLeaving(hIn, hc)
+	e = rf * mi * (hx - hr)
+	if !partials {
+		return 0, e, d, nil
+	}
 	dhc, err := dPropA(hCondensate, p, u.SubCooling, hc)
 	if err != nil {
 		return 0, 0, d, wrapErr(u, err)
@@ -513,10 +521,6 @@ func (u *Consumer) transferred(ev *eval) (m, e float64, d [3]partial, err error)
 	if err != nil {
 		return 0, 0, d, wrapErr(u, err)
 	}
-	mi, hIn := ev.m(u.in), ev.h(u.in)
-	rf, k := u.ReturnFraction, 1-u.TrapLoss
-	hx := u.hLeaving(hIn, hc)
-	e = rf * mi * (hx - hr)
 	d[0] = partial{col: u.in.mIdx(), de: rf * (hx - hr)}
 	d[1] = partial{col: u.in.pIdx(), de: rf * mi * (k*dhc - dhr)}
 	d[2] = partial{col: u.in.hIdx(), de: rf * mi * u.TrapLoss}
@@ -534,7 +538,7 @@ func (u *Consumer) coolerInletT(ev *eval) (float64, bool) {
 	if err != nil {
 		return 0, false
 	}
-	t, err := tPH(p, u.hLeaving(ev.h(u.in), hc))
+	t, err := u.mx.get2(p, u.hLeaving(ev.h(u.in), hc), tPH)
 	return t, err == nil
 }
 
@@ -582,7 +586,7 @@ func (u *Consumer) report(ev *eval, cr *CaseResult) error {
 	if cooler > 0 && u.coolerTo == coolerToFeed && u.feedPump != nil {
 		// A feed-water heater on the return cannot cool the condensate
 		// below the feed it heats.
-		tf, err := tPH(ev.p(u.feedPump.in), ev.h(u.feedPump.in))
+		tf, err := u.feedPump.inletT(ev)
 		if err == nil && u.ReturnT < tf+1e-9 {
 			cr.warn("%s %q: its drain cooler is to cool the condensate to %.1f °C, but the feed it heats comes at %.1f °C; give a higher return_T, or send the heat to the hotwell or overboard",
 				u.Kind(), u.Name, u.ReturnT-273.15, tf-273.15)

@@ -307,7 +307,7 @@ func (u *FeedTank) jacobian(ev *eval, j jac) error {
 		j.add(e[3], u.out.hIdx(), dqdh/den)
 	}
 	for _, g := range u.gets {
-		_, _, d, err := g.transferred(ev)
+		_, _, d, err := g.transferred(ev, true)
 		if err != nil {
 			return wrapErr(u, err)
 		}

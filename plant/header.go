@@ -126,18 +126,21 @@ func (u *Header) link(p *Plant, a *assembly, _ *faults) {
 
 // transferred is the drained condensate the hotwell takes: ṁ_d saturated
 // at the header's pressure (a transfer, transfer.go).
-func (u *Header) transferred(ev *eval) (m, e float64, d [3]partial, err error) {
+func (u *Header) transferred(ev *eval, partials bool) (m, e float64, d [3]partial, err error) {
 	d = [3]partial{{col: -1}, {col: -1}, {col: -1}}
 	p0 := ev.p(u.ins[0])
 	hf, err := u.mf.get1(p0, hLiquidSat)
 	if err != nil {
 		return 0, 0, d, wrapErr(u, err)
 	}
+	md := ev.x[u.drain]
+	if !partials {
+		return md, md * hf, d, nil
+	}
 	dhf, err := dProp1(hLiquidSat, p0, hf)
 	if err != nil {
 		return 0, 0, d, wrapErr(u, err)
 	}
-	md := ev.x[u.drain]
 	d[0] = partial{col: u.drain, dm: 1, de: hf}
 	d[1] = partial{col: u.ins[0].pIdx(), de: md * dhf}
 	return md, md * hf, d, nil

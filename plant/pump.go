@@ -26,6 +26,7 @@ type FeedPump struct {
 	eqs       [3]int
 	discharge float64
 	mv        memo
+	mt        memo // inlet temperature (reports)
 	// heat is the heat of drain coolers on condensate returns that heat
 	// the feed after the pump (transfer.go): with any, the enthalpy
 	// equation is written as a heat balance.
@@ -212,7 +213,7 @@ func (u *FeedPump) jacobian(ev *eval, j jac) error {
 		k = ev.m(u.in) + pumpFlowFloor
 		j.add(u.eqs[2], u.in.mIdx(), ev.h(u.out)-hIn-v*dp/eta)
 		for _, t := range u.heat {
-			_, _, d, err := t.transferred(ev)
+			_, _, d, err := t.transferred(ev, true)
 			if err != nil {
 				return wrapErr(u, err)
 			}
@@ -270,6 +271,11 @@ func (u *FeedPump) clone() Component {
 	c.in, c.out = nil, nil
 	c.heat = nil
 	return &c
+}
+
+// inletT is the temperature of the feed the pump takes.
+func (u *FeedPump) inletT(ev *eval) (float64, error) {
+	return u.mt.get2(ev.p(u.in), ev.h(u.in), tPH)
 }
 
 // checkHotEnd warns when the drain coolers would heat the feed above the

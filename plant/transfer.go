@@ -18,9 +18,11 @@ type partial struct {
 // transfer is a source of water (m, kg/s) carrying the energy e (W), or of
 // heat alone (m = 0).
 type transfer interface {
-	// transferred gives the flow at the present unknowns and its
-	// derivatives by up to three unknowns (col −1 for none).
-	transferred(ev *eval) (m, e float64, d [3]partial, err error)
+	// transferred gives the flow at the present unknowns and, with
+	// partials, its derivatives by up to three unknowns (col −1 for none;
+	// without partials d is left empty, so that a residual does not pay
+	// for them).
+	transferred(ev *eval, partials bool) (m, e float64, d [3]partial, err error)
 	// transferDeps lists the unknowns the flow depends on.
 	transferDeps() []int
 }
@@ -49,7 +51,7 @@ func (p *Plant) firstFeedTank() *FeedTank {
 // sumTransfers adds the flows of ts at the present unknowns.
 func sumTransfers(ev *eval, ts []transfer) (m, e float64, err error) {
 	for _, t := range ts {
-		mi, ei, _, err := t.transferred(ev)
+		mi, ei, _, err := t.transferred(ev, false)
 		if err != nil {
 			return 0, 0, err
 		}
