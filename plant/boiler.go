@@ -495,10 +495,11 @@ func (u *Boiler) prepareStandby(cp *cycleParams, c Conditions) error {
 	return nil
 }
 
-// etaAtMCR is the efficiency model's figure at MCR (times EtaFactor),
-// with the feed at nominalFeedT; a model that depends on the firing rate
-// is evaluated at the fuel flow that gives MCR, found by two steps from
-// 85 %.
+// etaAtMCR is the efficiency model's figure at MCR, with the feed at
+// nominalFeedT; a model that depends on the firing rate is evaluated at
+// the fuel flow that gives MCR, found by two steps from 85 %. EtaFactor is
+// left out: it is an audit's knob on the combustion, and the casing's loss
+// in kW does not follow it.
 func (u *Boiler) etaAtMCR(c Conditions, cp *cycleParams) (float64, error) {
 	hfw, err := hPT(u.DrumP+3e5, nominalFeedT)
 	if err != nil {
@@ -506,10 +507,6 @@ func (u *Boiler) etaAtMCR(c Conditions, cp *cycleParams) (float64, error) {
 	}
 	q := u.MCR * ((cp.HS - hfw) + cp.Beta*(cp.HF-hfw))
 	eta := 0.85
-	k := 1.0
-	if u.EtaFactor != 0 {
-		k = u.EtaFactor
-	}
 	for i := 0; i < 2; i++ {
 		op := BoilerOperation{Load: 1, DrumP: u.DrumP, FeedT: nominalFeedT, AirT: u.airTOf(c),
 			FuelFlow: q / (u.Fuel.LHV * eta), Fuel: u.Fuel}
@@ -522,7 +519,7 @@ func (u *Boiler) etaAtMCR(c Conditions, cp *cycleParams) (float64, error) {
 		}
 		eta = pt.Eta
 	}
-	return eta * k, nil
+	return eta, nil
 }
 
 // purgeHeat is the heat one pre-purge takes from the warm boiler, J: the

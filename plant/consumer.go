@@ -241,8 +241,20 @@ func (u *Consumer) linkCooler(p *Plant, a *assembly, fs *faults) {
 
 // prepare computes the case's demand from the model or the consumer's own
 // figures.
-func (u *Consumer) prepare(_ *Plant, c Conditions) error {
+func (u *Consumer) prepare(p *Plant, c Conditions) error {
 	u.caseDuty = Duty{W: u.Duty, SteamKgS: u.SteamFlow, PerFuelJ: u.DutyPerFuel, SteamPerFuel: u.SteamPerFuel}
+	if m, ok := u.Model.(*TankHeating); ok && !m.state.on && m.Tank.Coil.Given() && m.CoilP == 0 {
+		// The coil's steam is at the set pressure of what feeds the header.
+		m.state.steamP, _ = p.SupplyPressure(u.Name)
+	}
+	if m, ok := u.Model.(*TankHeating); ok && m.state.on {
+		if err := m.statePrepare(u, c); err != nil {
+			return wrapErr(u, err)
+		}
+		if u.Off {
+			return nil
+		}
+	}
 	if u.Model == nil || u.Off {
 		return nil
 	}
@@ -590,6 +602,11 @@ func (u *Consumer) report(ev *eval, cr *CaseResult) error {
 		if err == nil && u.ReturnT < tf+1e-9 {
 			cr.warn("%s %q: its drain cooler is to cool the condensate to %.1f °C, but the feed it heats comes at %.1f °C; give a higher return_T, or send the heat to the hotwell or overboard",
 				u.Kind(), u.Name, u.ReturnT-273.15, tf-273.15)
+		}
+	}
+	if m, ok := u.Model.(*TankHeating); ok {
+		if tr, ok := m.row(u.Name); ok {
+			cr.Tanks = append(cr.Tanks, tr)
 		}
 	}
 	if u.coolerTo == coolerOverboard || u.out == nil || u.ReturnT == 0 {

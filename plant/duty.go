@@ -130,8 +130,24 @@ func text(k Key, set func(Component, []string) error) Key {
 // at a temperature or heated up (loads.TankHeating): its losses through
 // each boundary to the case's sea and air, or to a space at its own
 // temperature.
+//
+// In a voyage the tank may be stateful (Plant.StartTank): its cargo
+// temperature is then carried from row to row, and each row's duty
+// follows from the temperature and the row's instruction (see
+// tankstate.go).
 type TankHeating struct {
 	Tank loads.TankHeating
+	// Instr is the instruction of a stateful tank for the row (key
+	// "instruction"); its temperature is Tank.To (key "T") and, for
+	// loads.ReachBy, By the time from the voyage's start by which it is
+	// wanted (s).
+	Instr loads.Instruction
+	By    float64
+	// CoilP is the steam pressure at the coil (Pa); zero means the set
+	// pressure of what feeds the tank's header (SupplyPressure).
+	CoilP float64
+
+	state tankState
 }
 
 // Clone copies the model; the boundaries are copied too.
@@ -158,13 +174,32 @@ func (m *TankHeating) uses(b loads.Beyond) bool {
 	return false
 }
 
-// Duty computes the tank's duty at the case's sea and air temperatures.
+// Duty computes the tank's duty at the case's sea and air temperatures;
+// for a stateful tank, the row's mean duty from its state and
+// instruction (stateDuty).
 func (m *TankHeating) Duty(c Conditions) (Duty, error) {
+	if m.state.on {
+		return m.stateDuty(c)
+	}
+	if m.Instr != loads.HoldTemp || m.By != 0 {
+		return Duty{}, fmt.Errorf("instruction %q and by belong to a tank that a voyage carries from row to row (voyage(ship, { tanks = { [\"name\"] = \"40 C\" }, ... })); a load case holds or heats up by mode", m.Instr)
+	}
 	amb, err := needAmbient(c, m.uses(loads.Sea), m.uses(loads.Air))
 	if err != nil {
 		return Duty{}, err
 	}
-	res, err := m.Tank.Duty(amb)
+	tank := m.Tank
+	if tank.Coil.Given() {
+		if p := m.CoilP; p > 0 || m.state.steamP > 0 {
+			if p == 0 {
+				p = m.state.steamP
+			}
+			if ts, err := waterTsat(p); err == nil {
+				tank.SteamT = ts
+			}
+		}
+	}
+	res, err := tank.Duty(amb)
 	if err != nil {
 		return Duty{}, err
 	}
@@ -174,6 +209,9 @@ func (m *TankHeating) Duty(c Conditions) (Duty, error) {
 	}
 	if res.Mode == loads.HeatUp {
 		in["from_T_K"], in["duration_s"] = res.From, res.Duration
+	}
+	if res.Capacity > 0 {
+		in["capacity_W"] = res.Capacity
 	}
 	return Duty{W: res.Duty, Inputs: in, Warnings: res.Warnings}, nil
 }
@@ -209,6 +247,9 @@ var tankHeatingKeys = append([]Key{
 				cg.Name = name
 			}
 			m.Tank.Cargo = cg
+			if fp, ok := loads.SpecFlashPoint(f); ok && (m.Tank.FlashPoint == 0 || m.Tank.FlashPointAssumed) {
+				m.Tank.FlashPoint, m.Tank.FlashPointAssumed = fp, true
+			}
 			return nil
 		}),
 	{Name: "density", Label: "cargo density", Kind: KeyQuantity, Dim: units.Density, Example: "950 kg/m3",
@@ -238,10 +279,24 @@ var tankHeatingKeys = append([]Key{
 			}
 			return nil
 		}),
-	tankKey(Key{Name: "flash_point", Label: "flash point", Dim: units.Temperature, Example: "60 C",
-		Doc: "the oil's flash point: heating near it gives the SOLAS caution", DefaultNote: "not checked",
-		Min: loads.MinTemperature, Max: loads.MaxTemperature},
-		func(m *TankHeating) *float64 { return &m.Tank.FlashPoint }),
+	{Name: "flash_point", Label: "flash point", Kind: KeyQuantity, Dim: units.Temperature, Example: "60 C",
+		Doc:         "the oil's flash point: heating near it gives the SOLAS caution",
+		DefaultNote: "with fuel, the grade's ISO 8217 minimum (60 C), said to be assumed in the caution; else not checked",
+		Min:         loads.MinTemperature, Max: loads.MaxTemperature,
+		get: func(c Component) (float64, bool) {
+			m, ok := modelOf[*TankHeating](c)
+			if !ok {
+				return 0, false
+			}
+			return m.Tank.FlashPoint, true
+		},
+		set: func(c Component, v float64) bool {
+			m, ok := modelOf[*TankHeating](c)
+			if ok {
+				m.Tank.FlashPoint, m.Tank.FlashPointAssumed = v, false
+			}
+			return ok
+		}},
 	{Name: "dimensions", Label: "dimensions", Kind: KeyTable,
 		Example: `{ length = "30 m", breadth = "20 m", depth = "20 m", fill = "98 %" }`,
 		Doc:     "the tank's dimensions, from which its boundaries follow (instead of volume and boundaries)"},
@@ -256,7 +311,7 @@ var tankHeatingKeys = append([]Key{
 		Default: 0, HasDefault: true, Case: true},
 		modelOf[*TankHeating], func(m *TankHeating) *loads.TankMode { return &m.Tank.Mode }),
 	tankKey(Key{Name: "T", Label: "temperature held", Dim: units.Temperature, Example: "55 C",
-		Doc: "temperature held (mode hold; required there)", Min: loads.MinTemperature, Max: loads.MaxTemperature, Case: true},
+		Doc: "temperature held (mode hold; required there); for a tank a voyage carries from row to row, the instruction's temperature", Min: loads.MinTemperature, Max: loads.MaxTemperature, Case: true},
 		func(m *TankHeating) *float64 { return &m.Tank.To }),
 	tankKey(Key{Name: "from", Label: "heat-up start temperature", Dim: units.Temperature, Example: "30 C",
 		Doc: "temperature at the start of a heat-up (mode heat_up; required there)", Min: loads.MinTemperature, Max: loads.MaxTemperature, Case: true},
@@ -267,6 +322,52 @@ var tankHeatingKeys = append([]Key{
 	tankKey(Key{Name: "duration", Label: "heat-up time", Dim: units.Time, Example: "96 h",
 		Doc: "time of a heat-up (mode heat_up; required there)", Min: 1, Max: 1e8, Case: true},
 		func(m *TankHeating) *float64 { return &m.Tank.Duration }),
+	choice(Key{Name: "coil", Label: "coil kind", Choices: []string{"coil", "deck_heater"}, Example: `"coil"`,
+		Doc:     `the heating coil: "coil", steam coils in the tank, or "deck_heater", a heater the cargo is pumped through (give circulation)`,
+		Default: 0, HasDefault: true},
+		modelOf[*TankHeating], func(m *TankHeating) *loads.CoilKind { return &m.Tank.Coil.Kind }),
+	tankKey(Key{Name: "coil_area", Label: "coil area", Dim: units.Area, Example: "900 m2",
+		Doc:         "heating surface of the coil; its capacity U·A·LMTD limits a tank carried from row to row (required there)",
+		DefaultNote: "no coil: the duty is not limited", Min: 0, Max: 1e6},
+		func(m *TankHeating) *float64 { return &m.Tank.Coil.Area }),
+	tankKey(Key{Name: "coil_U", Label: "coil U", Dim: units.HeatTransferCoefficient, Example: "60 W/m2K",
+		Doc:         "overall heat-transfer coefficient of the coil, steam to cargo",
+		DefaultNote: "60 W/m2K for a coil in the tank, 250 W/m2K for a deck heater (plant/loads' DefaultCoilU, DefaultDeckHeaterU)",
+		Source:      "plant-checks.md §6 coil row [M] (a coil); from memory (a deck heater)", Min: 1, Max: 5000},
+		func(m *TankHeating) *float64 { return &m.Tank.Coil.U }),
+	tankKey(Key{Name: "circulation", Label: "cargo circulation", Dim: units.VolumeFlow, Example: "200 m3/h",
+		Doc: "cargo pumped through a deck heater (coil = \"deck_heater\"; required there)", Min: 0, Max: 100},
+		func(m *TankHeating) *float64 { return &m.Tank.Coil.Circulation }),
+	tankKey(Key{Name: "coil_p", Label: "steam pressure at the coil", Dim: units.Pressure, Example: "7 bar(g)",
+		Doc:         "pressure of the steam in the coil, for its saturation temperature",
+		DefaultNote: "the set pressure of the reducing valve or boiler that feeds the tank's header", Min: 1.1e5, Max: 5e6},
+		func(m *TankHeating) *float64 { return &m.CoilP }),
+	{Name: "max_rate", Label: "heat-up rate caution", Kind: KeyQuantity, Dim: units.TemperatureDifference, Example: "2 K",
+		Doc:     "heat-up per day above which a tank carried from row to row warns (a caution, not a cap)",
+		Default: loads.DefaultMaxHeatUpRate * 86400, HasDefault: true, Source: "common practice, no source: 1 to 3 K per day for large heated cargoes",
+		Min: 0.01, Max: 500,
+		get: func(c Component) (float64, bool) {
+			m, ok := modelOf[*TankHeating](c)
+			if !ok {
+				return 0, false
+			}
+			return m.Tank.MaxRate * 86400, true
+		},
+		set: func(c Component, v float64) bool {
+			m, ok := modelOf[*TankHeating](c)
+			if ok {
+				m.Tank.MaxRate = v / 86400
+			}
+			return ok
+		}},
+	choice(Key{Name: "instruction", Label: "instruction", Choices: []string{"hold", "off", "heat_to", "reach"}, Example: `"heat_to"`,
+		Doc: `for a tank a voyage carries from row to row: "hold" (at T, or where it is), "off", "heat_to" T at the coil's capacity, ` +
+			`or "reach" T by a time (by)`,
+		Default: 0, HasDefault: true, Case: true},
+		modelOf[*TankHeating], func(m *TankHeating) *loads.Instruction { return &m.Instr }),
+	tankKey(Key{Name: "by", Label: "time wanted by", Dim: units.Time, Example: "240 h",
+		Doc: `with instruction "reach": the time from the voyage's start by which T is wanted`, Min: 0, Max: 1e9, Case: true},
+		func(m *TankHeating) *float64 { return &m.By }),
 }, consumerModelKeys...)
 
 func (m *TankHeating) keys() []Key { return tankHeatingKeys }

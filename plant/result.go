@@ -69,6 +69,9 @@ type CaseResult struct {
 	Units     []ComponentResult
 	Lines     []LineResult
 	Warnings  []string
+	// Tanks are the stateful tanks over the row (a voyage's), in the
+	// plant's order; empty in a single load case.
+	Tanks []TankRow
 
 	boundary boundary
 }

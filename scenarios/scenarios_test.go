@@ -13,6 +13,7 @@ import (
 	"testing"
 	"time"
 
+	"steamcase/plant/profile"
 	"steamcase/plant/water"
 	"steamcase/scenarios"
 	"steamcase/scripting"
@@ -97,11 +98,49 @@ func TestScenarios(t *testing.T) {
 			}
 			for _, a := range run.Audits {
 				r := a.Result
-				fmt.Fprintf(&b, "audit %q: claimed %.3f t, nominal %.3f t, band %.3f to %.3f t, flagged %d\n",
-					a.Name, r.ClaimedT, r.NominalT, r.LowT, r.HighT, r.Flagged)
+				p := r.Period
+				fmt.Fprintf(&b, "audit %q: %d days, claimed %.3f t, nominal %.3f t, band %.3f to %.3f t, P(model <= claim) %.4f, flag %q, days flagged %d\n",
+					a.Name, p.Days, p.ClaimedT, p.NominalT, p.LowT, p.HighT, p.PAtOrBelow, p.Flag, r.Flagged)
 				for _, d := range r.Days {
-					fmt.Fprintf(&b, "  %s: claimed %.3f, band %.3f to %.3f %s\n", d.Date, d.ClaimedT, d.LowT, d.HighT, d.Flag)
+					fmt.Fprintf(&b, "  %s: claimed %.3f, nominal %.3f", d.Date, d.ClaimedT, d.NominalT)
+					if d.Reference {
+						b.WriteString(", reference")
+					} else {
+						fmt.Fprintf(&b, ", band %.3f to %.3f, percentile %.1f", d.LowT, d.HighT, 100*d.Percentile)
+						if d.Flag != "" {
+							b.WriteString(", flagged " + d.Flag)
+						}
+					}
+					for _, v := range d.Implied {
+						if v.Status == profile.ImpliedFound || v.Status == profile.ImpliedStep {
+							fmt.Fprintf(&b, ", implied %.4f %s", v.Value, v.Status)
+						} else {
+							fmt.Fprintf(&b, ", implied: %s", v.Status)
+						}
+					}
+					b.WriteString("\n")
 				}
+				if c := r.Calibration; c != nil {
+					fmt.Fprintf(&b, "  calibrated %s: %.4f (%.4f to %.4f)\n", c.Name, c.Value, c.Low, c.High)
+				}
+				for _, c := range r.Causes {
+					fmt.Fprintf(&b, "  cause %q: %.3f t\n", c.Name, c.FuelT)
+				}
+				for _, g := range r.FuelByGrade {
+					fmt.Fprintf(&b, "  grade %s: %.3f t, CO2 %.3f t\n", g.Grade, g.FuelT, g.CO2T)
+				}
+			}
+			for _, h := range run.HeatingPlans {
+				r := h.Result
+				fmt.Fprintf(&b, "heating plan %q (%s): plan %.3f t (curves %.3f t), hold %.3f t, last moment %.3f t, CO2 %.3f t\n",
+					h.Name, r.Method, r.Plan.FuelT, r.Plan.TableFuelT, r.Hold.FuelT, r.LastMoment.FuelT, r.Plan.CO2T)
+				for _, t := range r.Tanks {
+					for _, q := range t.Required {
+						fmt.Fprintf(&b, "  %s: %.2f K at %s (required %.2f K, met %v), latest start %.0f h\n",
+							t.Unit, q.Reached, q.Label, q.T, q.Met, q.LatestStartH)
+					}
+				}
+				fmt.Fprintf(&b, "  binding rows: %d, short rows %v\n", len(r.Binding), r.Plan.ShortRows)
 			}
 			golden := filepath.Join("testdata", strings.TrimSuffix(name, ".lua")+".golden")
 			if *update {

@@ -8,9 +8,10 @@
 //	run, err := scripting.RunSource(ctx, "demo/tanker.lua", src, embeddedFS, opt)
 //
 // Run holds the plants and the solved cases (plant name, script position,
-// *plant.CaseResult), and the jobs voyage, study and audit (Run.Voyages,
-// Run.Studies, Run.Audits: name, plant, script position, the positions of
-// their rows, and the result of package plant/profile). Options.Workers
+// *plant.CaseResult), and the jobs voyage, study, audit and heating_plan
+// (Run.Voyages, Run.Studies, Run.Audits, Run.HeatingPlans: name, plant,
+// script position, the positions of their rows, and the result of package
+// plant/profile or plant/heatplan). Options.Workers
 // sets the goroutines the jobs solve on (zero: all cores; the results do
 // not depend on it) and Options.Progress, if set, is called with the job,
 // the rows done and the total, for a command to show on stderr; long jobs
@@ -342,27 +343,74 @@
 //
 //	local a = audit(ship, { name = "March", csv = "log.csv",
 //	    uncertain = { { unit = "cargo heating", key = "factor", low = 0.85, high = 1.15 },
-//	                  { unit = "AB1", key = "eta_factor", low = "97 %", high = "103 %" } },
-//	    samples = 1000, seed = 1, band = { "5 %", "95 %" } })
+//	                  { unit = "AB1", key = "eta_factor", low = "97 %", high = "103 %" },
+//	                  { key = "sea", low = "-1 K", high = "1 K" } },
+//	    claim = { source = "flow meter", accuracy = "1 %" },
+//	    implied = { { unit = "cargo heating", key = "factor" } },
+//	    calibrate = { units = { "AB1", "AB2" }, key = "eta_factor", off = { "cargo heating" } },
+//	    split = { { name = "cargo heating", units = { "cargo heating" } },
+//	              { name = "cargo pumping", units = { "COP1", "COP2" } } },
+//	    samples = 1000, seed = 1, band = { "5 %", "95 %" }, alpha = "5 %" })
 //
-// audit models each day's boiler fuel with the uncertain inputs drawn
-// uniformly from low to high (Monte Carlo; samples per day 10 to 100000,
-// default 200; seed a whole number, default 0; band the quantiles, default
-// 5 % and 95 %) and flags the days whose claim lies outside the band.
-// Days come from days = { {date, claimed, phase, hours, sea, air, engine,
+// audit checks a log of reported daily fuel against the model of the
+// plant (package plant/profile's Audit documents the method). Days come
+// from days = { {date, claimed, reference, phase, hours, sea, air, engine,
 // set, fire}, ... } or a CSV file with columns date and claimed
-// (required), phase, hours (default 24), sea, air, engine, name, fire and
-// "unit.key" columns. claimed is the boiler fuel reported for the day:
-// "12.5 t", "12500 kg", or a bare number of tonnes. uncertain keys: unit,
-// key (a case key of the unit that is a number: factor, eta_factor, duty,
-// returns, ua, ...), low and high in that key's unit. The result:
-// a.claimed_t, a.nominal_t, a.low_t, a.high_t (sums of the days' band
-// ends), a.excess_t (the claims above the band, beyond its top), a.flagged
-// (a count), a.samples, a.seed, a.low_quantile, a.high_quantile,
-// a.uncertainties[i] (unit, param, low, high); a.days[i] and the
-// convenience a.flagged_days[i] (the days flagged, in order; the same
-// tables) have day (number), date, phase, claimed_t, nominal_t, low_t,
-// median_t, high_t and flag ("above", "below" or "").
+// (required), reference (true or false), phase, hours (default 24), sea,
+// air, engine, name, fire and "unit.key" columns (a boiler's fuel grade
+// too: "AB1.fuel" with MGO on the days in an emission control area).
+// claimed is the fuel reported for the day: "12.5 t", "12500 kg", or a
+// bare number of tonnes; a mass in any other unit, or a volume, is an
+// error at its line.
+//
+// uncertain lists the inputs known only within a range, each drawn
+// uniformly from low to high: { unit, key, low, high, scope } with key a
+// case key of the unit that is a number (factor, eta_factor, duty,
+// returns, ua, ...) and low and high in that key's unit, inside the key's
+// own range; or { key = "sea" or "air", low, high } with no unit, the
+// error of the day's reading, a temperature difference ("-1 K"). scope is
+// "fixed" (drawn once per sample for the whole period: a property of the
+// ship) or "daily" (drawn afresh each day); without it the key's default
+// scope holds (profile.DefaultScope: factor, eta_factor, returns, ua and
+// other properties are fixed; sea, air, duty, power, flow, T and other
+// operating figures daily), and a key with no default scope needs it.
+//
+// claim is the claim's measurement uncertainty, one source or a list:
+// { source = "flow meter", accuracy = "1 %" } (a bias fixed for the
+// period; default 1 %), { source = "soundings", per_sounding = "0.5 m3",
+// density = "985 kg/m3" } (a day is the difference of two soundings;
+// default 0.5 m3), { source = "noon report", rob = "1 t" } (default 1 t),
+// { source = "bdn density", density = "985 kg/m3", uncertainty = "1.5
+// kg/m3" } (default 1.5 kg/m3). Without claim the claim is taken as
+// exact, and the report says so. split lists causes, each { name, units }
+// (or unit): the units switched off together to find its fuel. claims =
+// "cargo heating" says the days claim that cause's fuel, not the whole
+// boiler fuel. implied lists factors, each { unit, key } or { units,
+// key }: for each day the value that makes the model give the claim; each
+// must be one of the uncertain inputs (its plausible range) with a range
+// in the key registry (the search's). calibrate = { unit or units, key,
+// off } calibrates a fixed factor on the days marked reference, which must
+// have every unit of off switched off (an error at the day's line
+// otherwise). samples 10 to 100000 (default 1000); seed a whole number
+// (default 0); band the quantiles of the bands (default 5 % and 95 %);
+// alpha the level of the flags (default 5 %).
+//
+// The result has the keys of the AUDIT of package plant/schema: samples,
+// seed, low_quantile, high_quantile, alpha, day_tail, claims_of, period
+// (days, claimed_t, nominal_t, low_t, median_t, high_t, reading_low_t,
+// reading_high_t, p_at_or_below, p_at_or_above, p_standard_error,
+// percentile, flag), flagged, days, uncertainties, claim_uncertainty,
+// implied, calibration (nil without one), causes, base_t, fuel_t, co2_t,
+// fuel_by_grade, assumptions, warnings; a.days[i] and the convenience
+// a.flagged_days[i] (the days flagged, in order; the same tables) have
+// day, date, phase, reference, claimed_t, nominal_t, low_t, median_t,
+// high_t, reading_low_t, reading_high_t, percentile (nil on a reference
+// day), p_at_or_below, p_at_or_above, flag ("above", "below" or ""),
+// fuel_t, co2_t, fuel_by_grade, shares, implied (each factor's value, nil
+// when none gives the claim, and status), warnings and
+// samples_with_warnings. An audit too large for the run's time limit
+// stops early with an error that says to raise it (sim run --timeout;
+// Options.Timeout).
 //
 // In check mode the jobs read and check everything but solve nothing, and
 // return tables of the same shape with zero figures.
@@ -385,11 +433,84 @@
 // surroundings are the call's key ambient (a temperature). sea and air
 // are needed when the tank has boundaries to them. A voyage that switches
 // a tank's heating off (set = { ["COT 1"] = { off = true } }) does not
-// compute the cargo's temperature; the script does:
+// compute the cargo's temperature unless it carries the tank from row to
+// row (below); the script may:
 //
 //	local v = voyage(ship, { csv = "ballast.csv" })  -- COT 1 off in every row
 //	local arrival = cool_down { tank = cot1, from = "60 C", hours = v.total.hours, sea = "12 C" }
 //	check(arrival > 45, "cargo pumpable at arrival")
+//
+// # Tanks carried from row to row
+//
+//	local v = voyage(ship, { csv = "route.csv", tanks = { ["COT 3"] = "45 C", ["COT 4"] = { T = "44 C" } } })
+//
+// voyage's tanks names tank_heating units whose cargo temperature the
+// voyage carries from row to row, each with its temperature at the start.
+// Each needs its heating coil (coil_area, with coil_U and coil, and
+// circulation for a deck heater); the coil's capacity U·A·LMTD at the
+// steam's saturation temperature (coil_p, or the set pressure of what
+// feeds the tank's header) limits what it gives, and a duty asked above it
+// is capped and warned. Each row gives each tank an instruction, as the
+// columns "COT 3.instruction", "COT 3.T" and "COT 3.by" of the CSV (or
+// set = { ["COT 3"] = { instruction = "heat_to", T = "57 C" } } in rows):
+// "hold" (at T, or where the cargo is without T: the coil heats up to T at
+// its capacity or the heating stays off while the cargo cools to it, then
+// it gives the losses), "off", "heat_to" T (at the coil's capacity, then
+// hold), or "reach" T by a time (by, from the voyage's start, such as
+// "240 h": the constant duty that gets there, within the coil). An empty
+// cell is the tank's declared instruction (default "hold" at its T), not
+// the last row's. The cargo follows m·c(T)·dT/dt = Q_coil − Σ U·A·(T −
+// T_beyond) with the row's sea and air temperatures, integrated exactly
+// over the row (plant/loads' Advance); the row's steady steam demand is
+// the coil's mean duty over it. A heat-up faster than max_rate (3 K per
+// day, common practice) warns; so does a tank within 10 K of its flash
+// point (a fuel grade's ISO 8217 minimum when none is given, said to be
+// assumed). Such a voyage is solved in row order on one core; a study's
+// variants still run in parallel. v.rows[i].tanks[k] has name,
+// instruction, T_K, by_h, start_T_K, end_T_K, duty_kW, capacity_kW,
+// coil_binds and short. An instruction for a tank the voyage does not
+// carry, a by past the voyage's end, or an instruction in a study's or an
+// audit's rows is an error at the row's line.
+//
+// # Cargo heating plan
+//
+//	local p = heating_plan(ship, { name = "winter crossing", csv = "route.csv",
+//	    tanks = { ["COT 3"] = { T = "45 C", never_below = "35 C" }, ["COT 4"] = "44 C" },
+//	    required = { ["COT 3"] = { T = "57 C", at = "discharge" },
+//	                 ["COT 4"] = { { T = "50 C", at = "240 h" }, { T = "57 C", at = "discharge" } } },
+//	    grid = "0.25 K" })
+//
+// heating_plan finds, for each tank (as voyage's tanks, with an optional
+// never_below temperature: pumpability, or the cloud point of a waxy
+// cargo), the instruction per row that meets every required temperature
+// with the least boiler fuel over the rows (rows or csv, as for voyage,
+// without instructions for the planned tanks), within the coils' and the
+// boilers' capacity in every row (package plant/heatplan: dynamic
+// programming over the rows on a grid of temperatures; grid 0.01 to 5 K,
+// default 0.25 K; method "joint" or "descent", default by size). A
+// required temperature's at is a phase (through the whole phase), "end",
+// or a time from the start ("240 h", or a number of hours) that must be a
+// row's start or end. The result: p.plan, p.hold (holding the required
+// temperature from the start to the last required time) and
+// p.last_moment (heating at the coil's capacity from the latest start),
+// each with fuel_t, co2_t (the plant solved row by row with the plan's
+// instructions), curve_fuel_t (by the rows' fuel curves), short_rows and
+// missed; p.saving_vs_hold_t, p.saving_vs_last_moment_t and the CO2
+// savings; p.tanks[k] with name, start_T_K, never_below_T_K, required[j]
+// (T_K, at, at_h, phase, source, reached_T_K, met, latest_start_h,
+// latest_start_row, verdict) and rows[i] (row, instruction, T_K, by_h,
+// start_T_K, end_T_K, duty_kW, coil_binds); p.rows[i] (row, phase, hours,
+// start_h, duty_kW, capacity_kW, boilers_firing, boiler_steam_kg_h,
+// fuel_t); p.binding (row, tank, limit: "coil", "boilers" or "never
+// below"); p.method, p.grid_K, p.solves, p.warnings and p.caution. A
+// required temperature that cannot be met is not an error: the plan does
+// the best it can and its verdict says so ("COT 3 reaches 54.2 °C at
+// discharge; 57.0 °C needs 21 h more heating or 0.9 MW more coil"). An
+// unknown tank, a required time past the voyage's end or inside a row, an
+// unknown phase, or an instruction for a planned tank in the rows is an
+// error at its line. The plan is an estimate: the charter party's heating
+// instructions, the cargo's safety data sheet and the master's judgment
+// govern.
 //
 // # Flue-gas check
 //

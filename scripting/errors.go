@@ -138,6 +138,10 @@ type TimeoutError struct {
 	// period after the limit (a long-running library call) and was left
 	// behind: the run's plants must not be used.
 	Abandoned bool
+	// Job, if not empty, is the job (`audit "March"`) that was running
+	// when the time ran out: the message then names the option to raise
+	// rather than suggest an endless loop.
+	Job string
 }
 
 func (e *TimeoutError) Error() string {
@@ -148,6 +152,8 @@ func (e *TimeoutError) Error() string {
 	var msg string
 	if e.Memory > 0 {
 		msg = fmt.Sprintf("%sscript stopped: it used more than %d MiB of memory (an endless loop filling a table or a string?)", pre, e.Memory>>20)
+	} else if e.Job != "" {
+		msg = fmt.Sprintf("%sscript stopped: it ran longer than its time limit of %v while running %s; raise the time limit (sim run --timeout; scripting's Options.Timeout)", pre, e.Limit, e.Job)
 	} else {
 		msg = fmt.Sprintf("%sscript stopped: it ran longer than its time limit of %v (an endless loop?)", pre, e.Limit)
 	}

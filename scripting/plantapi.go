@@ -83,6 +83,7 @@ func (r *runner) register() {
 	L.SetGlobal("voyage", L.NewFunction(r.luaVoyage))
 	L.SetGlobal("study", L.NewFunction(r.luaStudy))
 	L.SetGlobal("audit", L.NewFunction(r.luaAudit))
+	L.SetGlobal("heating_plan", L.NewFunction(r.luaHeatingPlan))
 	L.SetGlobal("cool_down", L.NewFunction(r.luaCoolDown))
 	L.SetGlobal("time_to_cool", L.NewFunction(r.luaTimeToCool))
 	L.SetGlobal("flue_gas", L.NewFunction(r.luaFlueGas))

@@ -151,6 +151,15 @@ type Run struct {
 	Voyages []VoyageRecord
 	Studies []StudyRecord
 	Audits  []AuditRecord
+	// HeatingPlans are the jobs of heating_plan(), in the order they ran;
+	// their results are nil in check mode.
+	HeatingPlans []HeatingPlanRecord
+	// Files are the script and data files the run read (the script
+	// itself first, then each include and CSV file as it was read, once
+	// each), with their SHA-256: what an evidence record names.
+	Files []FileRead
+	// Seed is the seed of the scripts' math.random (Options.Seed).
+	Seed uint64
 }
 
 // CaseRecord is one load case of a run.
@@ -294,8 +303,9 @@ func run(parent context.Context, name string, src []byte, fsys fs.FS, fsDir, sho
 		chunks:  map[string]chunk{name: {fsDir: fsDir, showDir: showDir}},
 		sources: map[string][]byte{name: src},
 		tlines:  map[string]map[string][]int{},
-		out:     &Run{},
+		out:     &Run{Seed: opt.Seed},
 	}
+	r.recordFile(name, src)
 	ctx, cancelTime := context.WithTimeoutCause(parent, opt.Timeout, errTimeLimit)
 	defer cancelTime()
 	ctx, cancel := context.WithCancelCause(ctx)
@@ -436,6 +446,10 @@ func (r *runner) convert(err error) error {
 		case *AssertionError:
 			return v
 		case *Error:
+			var te *TimeoutError
+			if errors.As(v, &te) {
+				return te // the limit, with what it stopped
+			}
 			r.errs = append(r.errs, v)
 		case stopRun:
 		}

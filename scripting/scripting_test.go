@@ -38,7 +38,7 @@ func TestGoodScripts(t *testing.T) {
 		{"ege_full.lua", 2, 1, 4},
 		{"voyage.lua", 5, 1, 6},
 		{"study.lua", 0, 1, 6},
-		{"audit.lua", 0, 1, 4},
+		{"audit.lua", 0, 1, 5},
 		{"observation_tank.lua", 1, 1, 1},
 		{"realism.lua", 2, 1, 3},
 	}

@@ -340,8 +340,8 @@ case(ship, { name = "port", engine = "0 %", fire = {} })
 
 // runUsage and steamUsage are what follows a usage error of run and steam.
 const (
-	runUsage = "usage: sim run [--json | --csv] [--plot FILE] [-o FILE] [--timeout DURATION]\n" +
-		"               [-v | --quiet] SCRIPT...\n" +
+	runUsage = "usage: sim run [--json | --csv] [--plot FILE] [--evidence DIR] [-o FILE]\n" +
+		"               [--timeout DURATION] [-v | --quiet] SCRIPT...\n" +
 		"Run 'sim help run' for details.\n"
 	steamUsage = "usage: sim steam --p PRESSURE\n" +
 		"                 (--t TEMPERATURE | --h ENTHALPY | --s ENTROPY | --x QUALITY)\n" +

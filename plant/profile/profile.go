@@ -30,6 +30,12 @@ type Options struct {
 	// Progress, if not nil, is called after each chunk with the rows done
 	// so far and the total, from one goroutine at a time.
 	Progress func(done, total int)
+	// Tanks, if any, are tank_heating units carried from row to row: each
+	// starts at its temperature, each row's duty follows from its state
+	// and the row's instruction, and the rows are solved in order on one
+	// core (a voyage with stateful tanks cannot be split; the variants of
+	// a study still run in parallel).
+	Tanks []TankStart
 }
 
 func (o *Options) defaults() {
@@ -134,10 +140,24 @@ func Run(ctx context.Context, p *plant.Plant, rows []Row, opt Options) (*Result,
 	if err := Validate(rows); err != nil {
 		return nil, err
 	}
+	if err := checkStateSettings(rows, opt.Tanks, "voyage"); err != nil {
+		return nil, err
+	}
 	if err := p.Check(); err != nil {
 		return nil, err
 	}
 	opt.defaults()
+	if len(opt.Tanks) > 0 {
+		var progress func(int)
+		if opt.Progress != nil {
+			progress = func(done int) { opt.Progress(done, len(rows)) }
+		}
+		res, err := runStateful(ctx, p, rows, opt.Tanks, progress)
+		if err != nil {
+			return nil, err
+		}
+		return Sum(rows, res), nil
+	}
 	res := make([]*plant.CaseResult, len(rows))
 	nChunks := (len(rows) + opt.ChunkRows - 1) / opt.ChunkRows
 	chunk := func(c int) (lo, hi int) { return c * opt.ChunkRows, min((c+1)*opt.ChunkRows, len(rows)) }

@@ -136,6 +136,9 @@ type VoyageRow struct {
 	CO2AnalysisT       *float64 `json:"co2_analysis_t"`
 	MarginKgH          float64  `json:"margin_kg_h"`
 	Warnings           []string `json:"warnings"`
+	// Tanks are the tanks the voyage carries from row to row, over the
+	// row (empty when it carries none).
+	Tanks []VoyageTank `json:"tanks"`
 }
 
 // NewVoyageRow returns the schema form of one row of a voyage. A row
@@ -143,7 +146,7 @@ type VoyageRow struct {
 // its phase and hours and zero figures, with can_carry true.
 func NewVoyageRow(row profile.RowResult) VoyageRow {
 	out := VoyageRow{Row: row.Index + 1, Phase: row.Phase, Hours: Round(row.Hours), CanCarry: true, Warnings: []string{},
-		CO2AnalysisT: roundPtr(0, true)}
+		CO2AnalysisT: roundPtr(0, true), Tanks: newVoyageTanks(row.Result)}
 	c := row.Result
 	if c == nil {
 		return out
@@ -227,6 +230,13 @@ type Variant struct {
 	CO2AvoidedT float64 `json:"co2_avoided_t"`
 	Money
 	EGEHours
+	RowWarnings []RowWarning `json:"row_warnings"`
+}
+
+// RowWarning is the warnings of one row of a profile.
+type RowWarning struct {
+	Row      int      `json:"row"`
+	Warnings []string `json:"warnings"`
 }
 
 // Sweep is a study's sweep of an economiser's size.
@@ -284,8 +294,13 @@ func NewStudy(job Job, r *profile.StudyResult) Study {
 		out.LifeYears, out.DiscountRate = &life, &rate
 	}
 	for _, v := range r.Variants {
-		out.Variants = append(out.Variants, Variant{Name: v.Name, Totals: NewTotals(v.Totals), FuelSavedT: Round(v.FuelSavedT),
-			CO2AvoidedT: Round(v.CO2AvoidedT), Money: newMoney(v.Money, r.HasNPV, true), EGEHours: newEGEHours(v.EGEHours)})
+		vj := Variant{Name: v.Name, Totals: NewTotals(v.Totals), FuelSavedT: Round(v.FuelSavedT),
+			CO2AvoidedT: Round(v.CO2AvoidedT), Money: newMoney(v.Money, r.HasNPV, true), EGEHours: newEGEHours(v.EGEHours),
+			RowWarnings: make([]RowWarning, 0, len(v.RowWarnings))}
+		for _, w := range v.RowWarnings {
+			vj.RowWarnings = append(vj.RowWarnings, RowWarning{Row: w.Row + 1, Warnings: append([]string{}, w.Texts...)})
+		}
+		out.Variants = append(out.Variants, vj)
 	}
 	if sw := r.Sweep; sw != nil {
 		exp := sw.Cost.Exponent
@@ -301,62 +316,6 @@ func NewStudy(job Job, r *profile.StudyResult) Study {
 				EGEHours: newEGEHours(pt.EGEHours)})
 		}
 		out.Sweep = js
-	}
-	return out
-}
-
-// Audit is a check of reported daily boiler fuel against a modelled band.
-type Audit struct {
-	Job
-	Samples       int         `json:"samples"`
-	Seed          uint64      `json:"seed"`
-	LowQ          float64     `json:"low_quantile"`
-	HighQ         float64     `json:"high_quantile"`
-	ClaimedT      float64     `json:"claimed_t"`
-	NominalT      float64     `json:"nominal_t"`
-	LowT          float64     `json:"low_t"`
-	HighT         float64     `json:"high_t"`
-	ExcessT       float64     `json:"excess_t"`
-	Flagged       int         `json:"flagged"`
-	Days          []Day       `json:"days"`
-	Uncertainties []Uncertain `json:"uncertainties"`
-}
-
-// Day is one audited day.
-type Day struct {
-	Day      int     `json:"day"`
-	Date     string  `json:"date"`
-	Phase    string  `json:"phase"`
-	ClaimedT float64 `json:"claimed_t"`
-	NominalT float64 `json:"nominal_t"`
-	LowT     float64 `json:"low_t"`
-	MedianT  float64 `json:"median_t"`
-	HighT    float64 `json:"high_t"`
-	Flag     string  `json:"flag"`
-}
-
-// Uncertain is an input of an audit drawn uniformly between Low and High,
-// in SI units or as a fraction, as the script gave it.
-type Uncertain struct {
-	Unit  string  `json:"unit"`
-	Param string  `json:"param"`
-	Low   float64 `json:"low"`
-	High  float64 `json:"high"`
-}
-
-// NewAudit returns the schema form of an audit run as job. The sampling
-// settings and the uncertain inputs are given as set (not rounded).
-func NewAudit(job Job, r *profile.AuditResult) Audit {
-	out := Audit{Job: job.job(), Samples: r.Samples, Seed: r.Seed, LowQ: r.LowQ, HighQ: r.HighQ,
-		ClaimedT: Round(r.ClaimedT), NominalT: Round(r.NominalT), LowT: Round(r.LowT), HighT: Round(r.HighT),
-		ExcessT: Round(r.ExcessT), Flagged: r.Flagged, Days: make([]Day, 0, len(r.Days)),
-		Uncertainties: make([]Uncertain, 0, len(r.Uncertainties))}
-	for i, d := range r.Days {
-		out.Days = append(out.Days, Day{Day: i + 1, Date: d.Date, Phase: d.Phase, ClaimedT: Round(d.ClaimedT),
-			NominalT: Round(d.NominalT), LowT: Round(d.LowT), MedianT: Round(d.MedianT), HighT: Round(d.HighT), Flag: d.Flag})
-	}
-	for _, u := range r.Uncertainties {
-		out.Uncertainties = append(out.Uncertainties, Uncertain{Unit: u.Unit, Param: u.Param, Low: u.Low, High: u.High})
 	}
 	return out
 }

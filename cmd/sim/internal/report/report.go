@@ -67,6 +67,14 @@ func Table(w io.Writer, run Run) error {
 	for _, a := range run.Audits {
 		block(func(w io.Writer) { writeAudit(w, a) })
 	}
+	for _, h := range run.HeatingPlans {
+		if h.Result != nil {
+			block(func(w io.Writer) { writeHeatingPlan(w, h) })
+		}
+	}
+	if !run.empty() || len(run.Files) > 0 {
+		block(func(w io.Writer) { writeRecord(w, run) })
+	}
 	fmt.Fprintf(ew, "\n%s\n", Caution)
 	return ew.err
 }

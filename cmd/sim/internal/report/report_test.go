@@ -572,6 +572,34 @@ func TestEGETable(t *testing.T) {
 	}
 }
 
+// TestRunRecord: the table ends with the run's record and the JSON holds
+// it: the program's version, the files read with their SHA-256, the
+// scripts' seed and the defaults in force with their sources.
+func TestRunRecord(t *testing.T) {
+	t.Parallel()
+	run := Run{Cases: demoCases(t)[:1], Version: "1.2.3", LuaSeed: 42,
+		Files: []File{{Name: "ship.lua", Bytes: 10, SHA256: strings.Repeat("ab", 32)}},
+		Assumptions: []Assumption{{Plant: "Invented Test Tanker", Assumption: plant.Assumption{Unit: "fp", Kind: "feed pump",
+			Key: "eta", Label: "pump efficiency", Value: "45 %", Source: "plant-checks.md §9 [M]"}},
+			{Plant: "Invented Test Tanker", Assumption: plant.Assumption{Unit: "AB1", Kind: "oil-fired boiler",
+				Key: "cycling_loss", Label: "cycling loss", Value: "0 %"}}}}
+	var b bytes.Buffer
+	must(t, Table(&b, run))
+	for _, s := range []string{"Run record\n  program: steamcase 1.2.3\n  files read (SHA-256):\n    ship.lua  10 bytes  " + strings.Repeat("ab", 32),
+		"scripts' math.random seed: 42", `    plant "Invented Test Tanker":`,
+		"      fp.eta (feed pump) pump efficiency: 45 %; plant-checks.md §9 [M]",
+		"      AB1.cycling_loss (oil-fired boiler) cycling loss: 0 %; no source recorded in the key registry\n\n" + Caution} {
+		if !strings.Contains(b.String(), s) {
+			t.Errorf("the table does not say %q", s)
+		}
+	}
+	doc := Document(run)
+	if doc.Version != "1.2.3" || doc.LuaSeed != 42 || len(doc.FilesRead) != 1 || doc.FilesRead[0].SHA256 != strings.Repeat("ab", 32) ||
+		len(doc.Assumptions) != 2 || doc.Assumptions[0].Source != "plant-checks.md §9 [M]" || doc.Assumptions[1].Source != "" {
+		t.Errorf("document record: %+v %+v %+v", doc.Version, doc.FilesRead, doc.Assumptions)
+	}
+}
+
 // TestSeriesTable: cases a script groups in one series are one table of
 // the report, a row per case with its own label, instead of a block each
 // (issue 16); the figures are the cases' own.
