@@ -443,19 +443,47 @@ func (m *TankHeating) keys() []Key { return tankHeatingKeys }
 // FuelHeater is the duty of a fuel oil heater (loads.FuelHeater): to a set
 // outlet temperature or to the temperature of a target viscosity. A
 // burner's heater (Service loads.BoilerBurner) heats the fuel its boiler
-// burns: its duty is per kg of that fuel (Consumer.FuelOf).
+// burns: its duty is per kg of that fuel (Consumer.FuelOf). A main
+// engine's heater may follow the engine: with SFOC and EngineMCR its oil
+// flow is the engine's fuel, SFOC × MCR × the case's engine load (SFOC
+// one figure, or interpolated in SFOCLoad; outside the given loads the end
+// figure holds, with a warning). Simplification: the heater heats the fuel
+// the engine burns, from the inlet temperature; the circulating flow
+// above it returns hot and is not counted; with the engine stopped the
+// duty is zero.
 type FuelHeater struct {
 	Heater loads.FuelHeater
+	// SFOC is the engine's specific fuel oil consumption, kg/J, at the
+	// loads SFOCLoad (fractions of MCR, increasing; nil for one figure);
+	// EngineMCR its MCR, W.
+	SFOC, SFOCLoad []float64
+	EngineMCR      float64
 }
 
 // Clone copies the model.
-func (m *FuelHeater) Clone() DutyModel { c := *m; return &c }
+func (m *FuelHeater) Clone() DutyModel {
+	c := *m
+	c.SFOC = append([]float64(nil), m.SFOC...)
+	c.SFOCLoad = append([]float64(nil), m.SFOCLoad...)
+	return &c
+}
+
+// engineFlow is the oil flow of a heater that follows the engine, kg/s,
+// at engine load (a fraction of MCR), with a warning outside the SFOC
+// table's loads.
+func (m *FuelHeater) engineFlow(load float64) (float64, string) {
+	if len(m.SFOCLoad) == 0 {
+		return m.SFOC[0] * m.EngineMCR * load, ""
+	}
+	sfoc, warn := interpolate(m.SFOCLoad, m.SFOC, load, "SFOC table")
+	return sfoc * m.EngineMCR * load, warn
+}
 
 func (m *FuelHeater) label() string { return "fuel heater" }
 
 // Duty computes the heater's duty, or its heat per kg of fuel for a
 // burner's heater.
-func (m *FuelHeater) Duty(Conditions) (Duty, error) {
+func (m *FuelHeater) Duty(c Conditions) (Duty, error) {
 	if m.Heater.Service == loads.BoilerBurner {
 		res, err := m.Heater.DutyPerKg()
 		if err != nil {
@@ -463,16 +491,61 @@ func (m *FuelHeater) Duty(Conditions) (Duty, error) {
 		}
 		return Duty{PerFuelJ: res.PerKg, Warnings: res.Warnings}, nil
 	}
-	res, err := m.Heater.Duty()
+	h := m.Heater
+	var warns []string
+	if len(m.SFOC) > 0 {
+		if !(c.EngineLoad >= 0) || c.EngineLoad > 1.5 {
+			return Duty{}, fmt.Errorf("engine load %g is not a fraction of the engine's MCR between 0 and 1.5", c.EngineLoad)
+		}
+		if c.EngineLoad == 0 {
+			return Duty{Inputs: map[string]float64{"oil_kg_s": 0, "engine_load": 0}}, nil
+		}
+		flow, warn := m.engineFlow(c.EngineLoad)
+		h.MassFlow = flow
+		if warn != "" {
+			warns = append(warns, warn)
+		}
+	}
+	res, err := h.Duty()
 	if err != nil {
 		return Duty{}, err
 	}
-	return Duty{W: res.Duty, Warnings: res.Warnings, Inputs: map[string]float64{
+	in := map[string]float64{
 		"oil_kg_s": res.MassFlow, "inlet_T_K": res.InletT, "outlet_T_K": res.OutletT, "per_kg_J_per_kg": res.PerKg,
-	}}, nil
+	}
+	if len(m.SFOC) > 0 {
+		in["engine_load"] = c.EngineLoad
+	}
+	return Duty{W: res.Duty, Warnings: append(warns, res.Warnings...), Inputs: in}, nil
 }
 
 func (m *FuelHeater) validate() error {
+	if len(m.SFOC) > 0 {
+		if !(m.EngineMCR > 0) {
+			return fmt.Errorf("sfoc needs the engine's MCR it refers to: give engine_mcr, such as engine_mcr = \"11 MW\"")
+		}
+		if m.Heater.Service != loads.EngineService {
+			return fmt.Errorf("sfoc is for a main engine's heater (service = \"engine\")")
+		}
+		if m.Heater.MassFlow != 0 {
+			return fmt.Errorf("give flow or sfoc with engine_mcr, not both")
+		}
+		if len(m.SFOCLoad) != 0 && len(m.SFOCLoad) != len(m.SFOC) {
+			return fmt.Errorf("SFOC table has %d loads and %d figures", len(m.SFOCLoad), len(m.SFOC))
+		}
+		for i, v := range m.SFOC {
+			// 100-400 g/kWh, about the 150-250 of marine diesel engines
+			// either way (common practice, no source).
+			if !(v >= 100e-3/3.6e6 && v <= 400e-3/3.6e6) {
+				return fmt.Errorf("sfoc %.1f g/kWh is outside 100-400 g/kWh", v*3.6e9)
+			}
+			if i < len(m.SFOCLoad) && (!(m.SFOCLoad[i] > 0 && m.SFOCLoad[i] <= 1.5) || (i > 0 && m.SFOCLoad[i] <= m.SFOCLoad[i-1])) {
+				return fmt.Errorf("SFOC table loads must increase within 0-150 %% of MCR; got %g", m.SFOCLoad)
+			}
+		}
+		_, err := m.Duty(Conditions{SeaT: validationAmbient.SeaT, AirT: validationAmbient.AirT, EngineLoad: 1})
+		return err
+	}
 	_, err := m.Duty(validationAmbient)
 	return err
 }
@@ -506,8 +579,13 @@ var fuelHeaterKeys = append([]Key{
 		Doc: "the oil's viscosity at 50 C, from its delivery note; replaces the grade's", Min: 1e-7, Max: 1e-1},
 		func(m *FuelHeater) *float64 { return &m.Heater.Fuel.ISO.Viscosity }),
 	heaterKey(Key{Name: "flow", Label: "oil flow", Dim: units.MassFlow, Example: "2.2 t/h",
-		Doc: "the oil flow (required but for a burner's heater, whose flow is its boiler's fuel)", Min: 0, Max: 1e3, Case: true},
+		Doc: "the oil flow (required but for a burner's heater, whose flow is its boiler's fuel, and an engine's heater given sfoc)", Min: 0, Max: 1e3, Case: true},
 		func(m *FuelHeater) *float64 { return &m.Heater.MassFlow }),
+	{Name: "sfoc", Label: "SFOC", Kind: KeyTable, Example: `{ {"50 %", "178 g/kWh"}, {"100 %", "172 g/kWh"} }`,
+		Doc: "an engine's heater: the engine's specific fuel consumption, one figure (\"175 g/kWh\") or {load, sfoc} pairs, with engine_mcr: the oil flow follows the case's engine load"},
+	heaterKey(Key{Name: "engine_mcr", Label: "engine MCR", Dim: units.Power, Example: "11 MW",
+		Doc: "the main engine's MCR (with sfoc)", Min: 1e3, Max: 2e8},
+		func(m *FuelHeater) *float64 { return &m.EngineMCR }),
 	heaterKey(Key{Name: "inlet_T", Label: "oil inlet temperature", Dim: units.Temperature, Example: "60 C",
 		Doc: "oil temperature at the inlet", Required: true, Min: loads.MinTemperature, Max: loads.MaxTemperature, Case: true},
 		func(m *FuelHeater) *float64 { return &m.Heater.InletT }),
@@ -828,3 +906,40 @@ var freshWaterKeys = append([]Key{
 }, consumerModelKeys...)
 
 func (m *FreshWaterGenerator) keys() []Key { return freshWaterKeys }
+
+// ---------------------------------------------------------------------------
+// Warming steam.
+
+// BoilerWarming is the steam that keeps an idle boiler warm, at its
+// pressure and ready to fire, while the firing rule leaves it off: steam
+// from the plant's header (raised by the exhaust-gas economiser or the
+// other boiler) makes up the boiler's standby loss (Boiler.StandbyLoss or
+// its efficiency model's casing loss) and condenses in it. While the boiler
+// fires it takes nothing. The consumer evaluates it against the firing
+// state of the configuration being solved, so its Duty is zero.
+type BoilerWarming struct {
+	// Boiler names the boiler kept warm.
+	Boiler string
+}
+
+// Clone copies the model.
+func (m *BoilerWarming) Clone() DutyModel { c := *m; return &c }
+
+func (m *BoilerWarming) label() string { return "boiler warming" }
+
+// Duty is zero: the consumer takes the boiler's standby loss in each
+// configuration the boiler does not fire in.
+func (m *BoilerWarming) Duty(Conditions) (Duty, error) { return Duty{}, nil }
+
+var boilerWarmingKeys = append([]Key{
+	text(Key{Name: "boiler", Label: "boiler", Example: `"AB2"`, Required: true,
+		Doc: "the boiler kept warm while it does not fire"},
+		func(c Component, v []string) error {
+			if m, ok := modelOf[*BoilerWarming](c); ok && len(v) == 1 {
+				m.Boiler = v[0]
+			}
+			return nil
+		}),
+}, returnKeys[0], returnKeys[1], offKey)
+
+func (m *BoilerWarming) keys() []Key { return boilerWarmingKeys }

@@ -25,9 +25,11 @@ import (
 //     leaves the property's range. (Central differences cost twice the
 //     property calls for no gain a Newton step can use.)
 //   - The turbine's isentropic exhaust enthalpy h_s(p_out, s(p_in, h_in))
-//     is differentiated by the Gibbs relation dh = T·ds + v·dp, which holds
-//     for the IF97 states in and out of the two-phase region: ∂s/∂h|p = 1/T,
-//     ∂s/∂p|h = −v/T, ∂h/∂s|p = T, ∂h/∂p|s = v.
+//     is differentiated by the chain rule over differences of s(p, h) and
+//     h(p, s), as any water property: the Gibbs relation dh = T·ds + v·dp
+//     holds for the IF97 functions only to about 1e-6 relative (their
+//     saturation line and regions agree to that order), which a check at
+//     1e-6 sees at a condenser's vacuum.
 //   - A boiler's efficiency from a maker's table (EfficiencyTable) is
 //     differentiated along the active segment. Any other efficiency model
 //     (flue-gas table, furnace model) and the flue-gas economiser's duty are
@@ -179,6 +181,30 @@ func dProp1(f func(float64) (float64, error), a, f0 float64) (float64, error) {
 // dPropA is ∂f(a, b)/∂a by a one-sided difference of f alone, as dProp1.
 func dPropA(f func(a, b float64) (float64, error), a, b, f0 float64) (float64, error) {
 	return dProp1(func(x float64) (float64, error) { return f(x, b) }, a, f0)
+}
+
+// centralRel is the relative step of dPropCentralA: ε^(1/3), the step of
+// a central difference whose rounding and truncation errors balance (near
+// 1e-10 relative).
+const centralRel = 6.0554544523933395e-06
+
+// dPropCentralA is ∂f(a, b)/∂a by a central difference of f alone, for a
+// property whose forward difference is not accurate enough; it costs two
+// evaluations.
+func dPropCentralA(f func(a, b float64) (float64, error), a, b float64) (float64, error) {
+	h := centralRel * math.Abs(a)
+	if h == 0 {
+		h = centralRel
+	}
+	fp, err := f(a+h, b)
+	if err != nil {
+		return 0, err
+	}
+	fm, err := f(a-h, b)
+	if err != nil {
+		return 0, err
+	}
+	return (fp - fm) / (2 * h), nil
 }
 
 // dPropB is ∂f(a, b)/∂b by a one-sided difference of f alone, as dProp1.

@@ -185,6 +185,37 @@ func jacFixtures() []jacFixture {
 			{Name: "warm returns", Set: []Setting{{Unit: "tank heating", Param: "return_T", Value: 363.15}}},
 			{Name: "turbine off", Set: []Setting{{Unit: "tg", Param: "off", Value: 1}}},
 		}},
+		{"drain cooler to the hotwell, drains lost", func(t testing.TB) *Plant {
+			return twoBoilersWith(t, CoolerToHotwell, DrainsLost)
+		}, []Case{cooled, {Name: "trap", Set: []Setting{{Unit: "heating", Param: "trap_loss", Value: 0.05}}}}},
+		{"trap loss with a cooler to the feed", func(t testing.TB) *Plant { return twoBoilers(t, Options{}) }, []Case{
+			{Name: "trap", Set: []Setting{{Unit: "heating", Param: "trap_loss", Value: 0.05}, {Unit: "heating", Param: "return_T", Value: 353.15}}},
+			{Name: "trap, no cooler", Set: []Setting{{Unit: "heating", Param: "trap_loss", Value: 0.08}}},
+		}},
+		{"turbine by its steam rate", func(t testing.TB) *Plant {
+			return turbineWith(t, &Turbine{Power: 0.9e6, ExhaustP: 0.2 * bar, EtaMech: 0.95, RatedPower: 1.2e6,
+				RateLoad: []float64{0.5, 1}, SteamRate: []float64{10.2 / 3.6e6, 8.5 / 3.6e6}}, &Condenser{SubCooling: 3})
+		}, []Case{{Name: "discharge"}, {Name: "below the curve", Set: []Setting{{Unit: "cargo pump 1", Param: "power", Value: 0.4e6}}}}},
+		{"condenser by the approach", func(t testing.TB) *Plant {
+			return turbineWith(t, &Turbine{Power: 1e6, EtaIs: 0.65, EtaMech: 0.95}, &Condenser{Approach: 40})
+		}, []Case{{Name: "sea", Conditions: Conditions{SeaT: 290}}}},
+		{"condenser by its UA", func(t testing.TB) *Plant {
+			return turbineWith(t, &Turbine{Power: 1e6, EtaIs: 0.65, EtaMech: 0.95}, &Condenser{UA: 150e3, SeaFlow: 50, SubCooling: 2})
+		}, []Case{{Name: "sea", Conditions: Conditions{SeaT: 290}}, {Name: "warmer sea", Conditions: Conditions{SeaT: 296}}}},
+		{"warming steam", func(t testing.TB) *Plant {
+			p := twoBoilers(t, Options{})
+			must(t, p.Add(&Consumer{Base: Base{Name: "b2 warming"}, Model: &BoilerWarming{Boiler: "b2"}, ReturnFraction: 1}))
+			p.Connect("to b2 warming", Pos{}, "main", "out", "b2 warming", "in")
+			p.Connect("b2 warming return", Pos{}, "b2 warming", "out", "hotwell", "in")
+			return p
+		}, []Case{demandCase("one boiler", 5000), demandCase("two boilers", 9000)}},
+		{"cycling by the band", func(t testing.TB) *Plant {
+			return cyclingPlant(t, &Boiler{PurgeAir: 40, CycleBand: 1e5, WaterContent: 3000})
+		}, []Case{steamCase(0.5), steamCase(0.05), {Name: "given starts", Set: []Setting{
+			{Unit: "load", Param: "steam", Value: 0.3}, {Unit: "b1", Param: "starts_per_hour", Value: 6}}}}},
+		{"cycling furnace", func(t testing.TB) *Plant {
+			return cyclingPlant(t, &Boiler{Efficiency: smallFireTube(), Fuel: hsfo(t), PurgeAir: 10, StartsPerHour: 5})
+		}, []Case{steamCase(0.5)}},
 	}
 }
 
@@ -369,7 +400,7 @@ func TestAnalyticJacobianSameResults(t *testing.T) {
 // Jacobian allocates nothing (the project's rule for hot paths).
 func TestJacobianAllocatesNothing(t *testing.T) {
 	for _, fx := range jacFixtures() {
-		if fx.name == "furnace" || fx.name == "economiser" || fx.name == "flue-gas table" {
+		if fx.name == "furnace" || fx.name == "cycling furnace" || fx.name == "economiser" || fx.name == "flue-gas table" {
 			continue // the combustion models' own allocations are theirs
 		}
 		p := fx.build(t)

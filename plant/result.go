@@ -41,12 +41,22 @@ type CaseResult struct {
 	SteamProductionKgS float64
 	SteamDemandKgS     float64
 	FuelKgS            float64
+	// CO2KgS is the CO2 by each fuel's regulatory factor (the IMO
+	// conversion factor C_F of its IMO fuel type; see FuelSpec.CO2Factor),
+	// the figure for regulatory reporting. CO2AnalysisKgS is the CO2 from
+	// the carbon of each fuel's analysis, what the combustion models burn;
+	// CO2AnalysisUnknown says a boiler burnt a fuel without an analysis,
+	// so that CO2AnalysisKgS is not the case's.
 	CO2KgS             float64
+	CO2AnalysisKgS     float64
+	CO2AnalysisUnknown bool
 	MakeUpKgS          float64
 	ElectricW          float64
 	BlowdownKgS        float64
 	VentedKgS          float64
 	CondensateLostKgS  float64
+	TrapLossKgS        float64 // live steam passing the consumers' traps
+	DrainsReturnedKgS  float64 // header drains returned to the hotwell
 	DumpedKgS          float64
 	FeedTankT          float64
 	// EGESteamKgS is the steam the exhaust-gas economisers raise, and
@@ -114,24 +124,42 @@ type boundary struct {
 
 // BoilerResult is one boiler's part in a case.
 type BoilerResult struct {
-	Name            string
-	Firing          bool
-	Cycling         bool
-	OnFraction      float64 // share of time the burner is on when cycling
-	LoadFraction    float64
-	MCRKgS          float64
-	SteamKgS        float64
-	FuelKgS         float64
-	CO2KgS          float64
-	Efficiency      float64
-	EfficiencyBasis string
-	FuelName        string
-	FuelLHV         float64
-	DrumP           float64
-	FeedT           float64
-	SteamDryness    float64
-	BlowdownKgS     float64
-	HeatW           float64
+	Name         string
+	Firing       bool
+	Cycling      bool
+	OnFraction   float64 // share of time the burner is on when cycling
+	LoadFraction float64
+	MCRKgS       float64
+	SteamKgS     float64
+	FuelKgS      float64
+	// CO2KgS is by the fuel's regulatory factor (CO2Basis says which);
+	// CO2AnalysisKgS by its analysis carbon, when HasCO2Analysis.
+	CO2KgS         float64
+	CO2Basis       string
+	CO2AnalysisKgS float64
+	HasCO2Analysis bool
+	IMOLCV         float64 // the IMO fuel type's LCV, J/kg; zero without one
+	// Efficiency is the heat to water and steam over the fuel's heat: for
+	// a cycling boiler the time average, below FiringEfficiency (the
+	// efficiency model's at the firing rate) by the standby and purge
+	// losses.
+	Efficiency       float64
+	FiringEfficiency float64
+	EfficiencyBasis  string
+	// A cycling boiler's losses (zero otherwise): the standby loss of the
+	// warm boiler StandbyLossW and the part of it the off time takes
+	// StandbyOffW, the purges' heat PurgeW (PurgePerStartJ each), and the
+	// starts per hour (zero when not known).
+	StandbyLossW, StandbyOffW float64
+	PurgeW, PurgePerStartJ    float64
+	StartsPerHour             float64
+	FuelName                  string
+	FuelLHV                   float64
+	DrumP                     float64
+	FeedT                     float64
+	SteamDryness              float64
+	BlowdownKgS               float64
+	HeatW                     float64
 
 	// From a combustion model (zero with a plain efficiency table):
 	FlueT        float64 // flue-gas exit temperature, K
@@ -163,8 +191,12 @@ type ConsumerResult struct {
 	ReturnKgS float64
 	LostKgS   float64
 	// DrainCoolerW is the heat the returning condensate gives up in a
-	// drain cooler before the feed tank.
-	DrainCoolerW float64
+	// drain cooler before the feed tank, and DrainCoolerTo where it goes:
+	// "feed", "hotwell" or "overboard" ("" without a drain cooler).
+	DrainCoolerW  float64
+	DrainCoolerTo string
+	// TrapLossKgS is the live steam that passes the consumer's trap.
+	TrapLossKgS float64
 	// Inputs are the figures that drove a computed duty, keys with units.
 	Inputs map[string]float64
 
@@ -279,13 +311,13 @@ func (cr *CaseResult) clean() {
 			*v = 0
 		}
 	}
-	for _, v := range []*float64{&cr.ShortfallKgS, &cr.SteamProductionKgS, &cr.SteamDemandKgS, &cr.FuelKgS, &cr.CO2KgS,
-		&cr.MakeUpKgS, &cr.BlowdownKgS, &cr.VentedKgS, &cr.CondensateLostKgS, &cr.DumpedKgS, &cr.EGESteamKgS, &cr.EGEFuelSavedKgS} {
+	for _, v := range []*float64{&cr.ShortfallKgS, &cr.SteamProductionKgS, &cr.SteamDemandKgS, &cr.FuelKgS, &cr.CO2KgS, &cr.CO2AnalysisKgS,
+		&cr.MakeUpKgS, &cr.BlowdownKgS, &cr.VentedKgS, &cr.CondensateLostKgS, &cr.TrapLossKgS, &cr.DrainsReturnedKgS, &cr.DumpedKgS, &cr.EGESteamKgS, &cr.EGEFuelSavedKgS} {
 		z(v)
 	}
 	for i := range cr.Boilers {
 		b := &cr.Boilers[i]
-		for _, v := range []*float64{&b.SteamKgS, &b.FuelKgS, &b.CO2KgS, &b.BlowdownKgS, &b.AirKgS, &b.FlueGasKgS} {
+		for _, v := range []*float64{&b.SteamKgS, &b.FuelKgS, &b.CO2KgS, &b.CO2AnalysisKgS, &b.BlowdownKgS, &b.AirKgS, &b.FlueGasKgS} {
 			z(v)
 		}
 		if b.SteamKgS == 0 {
@@ -298,7 +330,7 @@ func (cr *CaseResult) clean() {
 	}
 	for i := range cr.Consumers {
 		c := &cr.Consumers[i]
-		for _, v := range []*float64{&c.SteamKgS, &c.ReturnKgS, &c.LostKgS} {
+		for _, v := range []*float64{&c.SteamKgS, &c.ReturnKgS, &c.LostKgS, &c.TrapLossKgS} {
 			z(v)
 		}
 	}

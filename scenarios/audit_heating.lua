@@ -1,6 +1,6 @@
 -- An auditor's check of a claimed cargo-heating consumption for one loaded
 -- passage of the invented product tanker (every figure is invented for the
--- demo). The operator's heating log claims 74 t of boiler fuel for cargo
+-- demo). The operator's heating log claims 62 t of boiler fuel for cargo
 -- heating over a seven-day winter passage holding the cargo at 55 C. The
 -- audit splits each day's boiler fuel into what the cargo heating caused
 -- (the day's fuel less its fuel with the heating off, solved both ways for
@@ -17,9 +17,9 @@ local ship = include("tanker_plant.lua")
 local days = {}
 local noon = {
   -- date, sea, air, heating fuel claimed (the operator's log, invented)
-  { "day 1", "6 C", "-2 C", "10.3 t" }, { "day 2", "5 C", "-4 C", "10.5 t" }, { "day 3", "4 C", "-6 C", "10.7 t" },
-  { "day 4", "4 C", "-8 C", "10.9 t" }, { "day 5", "3 C", "-8 C", "10.8 t" }, { "day 6", "3 C", "-6 C", "10.6 t" },
-  { "day 7", "4 C", "-3 C", "10.2 t" },
+  { "day 1", "6 C", "-2 C", "8.6 t" }, { "day 2", "5 C", "-4 C", "8.8 t" }, { "day 3", "4 C", "-6 C", "9.0 t" },
+  { "day 4", "4 C", "-8 C", "9.1 t" }, { "day 5", "3 C", "-8 C", "9.1 t" }, { "day 6", "3 C", "-6 C", "8.9 t" },
+  { "day 7", "4 C", "-3 C", "8.5 t" },
 }
 for _, d in ipairs(noon) do
   days[#days + 1] = { date = d[1], phase = "loaded passage", sea = d[2], air = d[3], engine = "75 %", claimed = d[4] }

@@ -27,7 +27,7 @@ local ship = steam_plant {
     { name = "AB2", mcr = "20 t/h", drum = "16 bar(g)", dryness = "99 %", blowdown = "1 %",
       turndown = 4, fuel = "HSFO", efficiency = heavy_fuel_efficiency, inert_gas = true },
   },
-  makeup = { T = "15 C" },
+  -- make-up distilled water at the sea temperature (its tanks stand against the shell)
   hotwell = { heat_loss = "8 kW", set_T = "60 C" },
   feed_pump = { margin = "3 bar", eta = "45 %" },
   headers = { { name = "HP", heat_loss = "20 kW" }, { name = "LP", p = "7 bar(g)", heat_loss = "15 kW" } },
@@ -48,6 +48,10 @@ local ship = steam_plant {
     intake_rise = "10 K",
   },
   dump_condenser = { subcool = "80 K" },
+  -- Drain coolers give their heat to the boiler feed after the feed pump by
+  -- default. The hotwell runs near the returns' temperature, so a cooler can
+  -- only cool against the feed to above it: the 85 C returns heat the feed, the
+  -- 80 C ones (accommodation, galley) are cooled by sea water ("overboard").
   -- Priorities say what is shed first when the boilers at their limit are
   -- short (a boiler trips during the discharge, say): the hotel loads, then
   -- the cargo heating (its cargo cools slowly, and min_T says how far it
@@ -98,8 +102,9 @@ local ship = steam_plant {
     { name = "AB2 burner heater", kind = "fuel_heater", service = "burner", boiler = "AB2", header = "LP",
       fuel = "HSFO", inlet_T = "70 C", target_viscosity = "15 cSt", returns = "100 %", return_T = "85 C" },
     { name = "accommodation", kind = "accommodation", header = "LP", UA = "18 kW/K",
-      inside_T = "21 C", balance_T = "16 C", returns = "100 %", return_T = "80 C", priority = "hotel" },
-    { name = "galley and sundry", header = "LP", duty = "60 kW", returns = "80 %", return_T = "80 C",
+      inside_T = "21 C", balance_T = "16 C", returns = "100 %", return_T = "80 C", drain_cooler = "overboard",
+      priority = "hotel" },
+    { name = "galley and sundry", header = "LP", duty = "60 kW", returns = "80 %", return_T = "80 C", drain_cooler = "overboard",
       priority = "hotel" },
     { name = "tank cleaning heater", kind = "tank_cleaning", header = "LP", flow = "40 t/h",
       outlet_T = "75 C", returns = "95 %", return_T = "85 C", off = true, priority = "deferrable" },

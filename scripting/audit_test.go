@@ -40,12 +40,12 @@ func auditDir(t *testing.T, files map[string]string) string {
 // heating off, metered, then four days at sea, one on MGO in an emission
 // control area.
 const refLog = `date,phase,sea,air,engine,claimed,reference,cargo heating.off,AB1.fuel
-2026-04-01,at anchor,14 C,10 C,0 %,0.52 t,true,true,
-2026-04-02,at anchor,14 C,9 C,0 %,0.56 t,yes,true,
-2026-04-03,loaded passage,13 C,8 C,80 %,6.5 t,,,
-2026-04-04,loaded passage,12 C,7 C,80 %,6.4 t,,,MGO
-2026-04-05,loaded passage,12 C,6 C,80 %,9.5 t,,,
-2026-04-06,discharging,12 C,7 C,0 %,8.2 t,,,
+2026-04-01,at anchor,14 C,10 C,0 %,0.59 t,true,true,
+2026-04-02,at anchor,14 C,9 C,0 %,0.63 t,yes,true,
+2026-04-03,loaded passage,13 C,8 C,80 %,5.6 t,,,
+2026-04-04,loaded passage,12 C,7 C,80 %,5.5 t,,,MGO
+2026-04-05,loaded passage,12 C,6 C,80 %,8.2 t,,,
+2026-04-06,discharging,12 C,7 C,0 %,7.2 t,,,
 `
 
 const fullAudit = `local ship = include("jobs_plant.lua")
@@ -84,15 +84,15 @@ func TestAuditScript(t *testing.T) {
 	c := a.Calibration
 	// The calibrated factor lies inside its range, which is that of the
 	// claim ∓ its measurement uncertainty on the reference days: ± 0.5 %
-	// of the meter and ± 1.5/990 of the density, of 1.08 t (the
+	// of the meter and ± 1.5/990 of the density, of 1.22 t (the
 	// calibration's definition).
 	if c == nil || !(c.Low < c.Value && c.Value < c.High) {
 		t.Fatalf("calibration %+v", c)
 	}
-	if want := (0.005 + 1.5/990) * 1.08; abs(c.ReadingHalfWidthT-want) > 1e-12 {
+	if want := (0.005 + 1.5/990) * (0.59 + 0.63); abs(c.ReadingHalfWidthT-want) > 1e-12 {
 		t.Errorf("reading half-width %g t; want %g t", c.ReadingHalfWidthT, want)
 	}
-	// Day 5 claims 9.5 t where the plant burns about 6.7 t: the heating
+	// Day 5 claims 8.2 t where the plant burns about 5.7 t: the heating
 	// factor implied lies far above its plausible range.
 	if v := a.Days[4].Implied[0]; v.Status != profile.ImpliedFound || !(v.Value > 1.1) {
 		t.Errorf("day 5 implied %+v", v)

@@ -79,11 +79,34 @@
 //
 //	ship:line("name", "fromunit.port", "tounit.port")
 //
-// A fuel by grade takes its LHV and CO2 factor from package plant/fuel
+// A fuel by grade takes its LHV and CO2 factors from package plant/fuel
 // (plant.SpecFromFuel, which also carries the full fuel the combustion
 // models need); lhv and co2_factor override the figures of the energy
 // balance (the combustion models keep the grade's analysis); a fuel that
-// is not a grade needs both, and cannot take a combustion model.
+// is not a grade needs both, and cannot take a combustion model. A fuel as
+// delivered is the grade with its bunker delivery note on top:
+//
+//	fuel = "VLSFO", bdn = { grade = "RMG 380", density = "955 kg/m3", sulphur = "0.48 %",
+//	                        water = "0.2 %", ash = "0.03 %", viscosity = "320 cSt" }
+//
+// (water in % V/V as the note gives it; sulfur is accepted for sulphur;
+// optional lhv, a stated net specific energy, and name): the LHV follows
+// by the ISO 8217 annex formula, the analysis and its carbon from the same
+// figures, and the IMO fuel type from the declared grade (plant/fuel's
+// FromBDN, which checks every figure); the note's warnings (off-spec for
+// the grade, a stated LHV far from the formula's) are repeated in every
+// case the boiler burns fuel. A case reports the CO2 twice, each
+// labelled: co2_t_per_day by the IMO conversion factor C_F of each fuel's
+// IMO fuel type, for regulatory reporting, and co2_analysis_t_per_day by
+// the carbon of the fuel's analysis, the carbon the combustion models
+// burn; each boiler says which factor its co2_kg_h takes (co2_basis).
+//
+// A turbine's steam is given one way (a decoder checks it): eta_is;
+// steam_rate, one figure ("8.5 kg/kWh") or {load, rate} pairs, with
+// rated_power; or the maker's steam_table of {power, flow} pairs. A
+// fuel_heater of service "engine" may take sfoc (one figure or {load,
+// sfoc} pairs) with engine_mcr instead of flow: its oil then follows the
+// case's engine load.
 //
 // # Boiler efficiency from combustion
 //

@@ -462,11 +462,24 @@ func (a *args) fuelSpec() plant.FuelSpec {
 			spec.Name = "fuel (set LHV)"
 		}
 	}
+	if bdn := a.get("bdn"); bdn != lua.LNil {
+		switch {
+		case !isGrade(name):
+			a.errorf(nil, "bdn gives a delivered fuel's figures on top of a built-in grade: give fuel as one (%s)", strings.Join(fuel.GradeNames(), ", "))
+		case hasLHV:
+			a.errorf(nil, "with bdn, give the note's stated LHV inside it (bdn = { lhv = \"41.2 MJ/kg\", ... }), not as lhv")
+		default:
+			if s, ok := a.bdnSpec(bdn, name); ok {
+				spec = s
+			}
+		}
+	}
 	if hasCO2 {
 		if co2 <= 0 || co2 > 5 {
 			a.errorf(nil, "co2_factor is kg CO2 per kg fuel, between 0 and 5; got %g", co2)
 		}
 		spec.CO2Factor = co2
+		spec.CO2Basis = "given co2_factor"
 	}
 	switch {
 	case !hasName && !hasLHV:
@@ -475,6 +488,57 @@ func (a *args) fuelSpec() plant.FuelSpec {
 		a.errorf(nil, "a fuel given by its lhv needs co2_factor too (kg CO2 per kg fuel, such as 3.114)")
 	}
 	return spec
+}
+
+// bdnSpec reads a boiler's bdn table, the figures of a bunker delivery
+// note, and makes the delivered fuel on top of the grade called base
+// (fuel.FromBDN). Every figure is checked there; its errors name the
+// field, the value and the range.
+func (a *args) bdnSpec(v lua.LValue, base string) (plant.FuelSpec, bool) {
+	t, ok := v.(*lua.LTable)
+	if !ok {
+		a.errorf(nil, "bdn must be a table such as { density = \"991 kg/m3\", sulphur = \"2.8 %%\", water = \"0.3 %%\", ash = \"0.05 %%\", viscosity = \"380 cSt\" }; got %s", describe(v))
+		return plant.FuelSpec{}, false
+	}
+	a.r.checkSize(t, "bdn")
+	p := a.r.args(t, a.what+" bdn", a.pos, a.uopt)
+	var b fuel.BDN
+	b.Name, _ = p.str("name", false)
+	b.Grade, _ = p.str("grade", false)
+	b.Density15, _ = p.quantity("density", units.Density, true)
+	sul, hasSul := p.quantity("sulphur", units.Fraction, false)
+	if alt, hasAlt := p.quantity("sulfur", units.Fraction, false); hasAlt {
+		if hasSul {
+			p.errorf(nil, "give sulphur or sulfur, not both")
+		}
+		sul = alt
+	}
+	b.Sulfur = sul
+	b.Water, _ = p.quantity("water", units.Fraction, false)
+	b.Ash, _ = p.quantity("ash", units.Fraction, false)
+	b.Viscosity, _ = p.quantity("viscosity", units.KinematicViscosity, false)
+	b.LHV, _ = p.quantity("lhv", units.SpecificEnergy, false)
+	p.done()
+	a.nerr += p.nerr
+	if p.nerr > 0 {
+		return plant.FuelSpec{}, false
+	}
+	g, err := fuel.Grade(base)
+	if err != nil {
+		a.errorf(err, "bdn: %v", err)
+		return plant.FuelSpec{}, false
+	}
+	f, err := fuel.FromBDN(g, b)
+	if err != nil {
+		a.errorf(err, "bdn: %v", err)
+		return plant.FuelSpec{}, false
+	}
+	spec, err := plant.SpecFromBDN(f)
+	if err != nil {
+		a.errorf(err, "bdn: %v", err)
+		return plant.FuelSpec{}, false
+	}
+	return spec, true
 }
 
 func isGrade(name string) bool {

@@ -62,6 +62,12 @@ type Totals struct {
 	Hours float64
 	// Boiler fuel and CO2 burnt, and steam raised, in tonnes.
 	FuelT, CO2T, SteamT, EGESteamT, DumpedT, MakeUpT float64
+	// CO2AnalysisT is the CO2 by the carbon of the fuels' analyses (CO2T
+	// is by their regulatory factors, plant.CaseResult.CO2KgS);
+	// CO2AnalysisUnknown says a row burnt a fuel without an analysis, so
+	// that CO2AnalysisT is not the total.
+	CO2AnalysisT       float64
+	CO2AnalysisUnknown bool
 	// FuelSavedT is the boiler fuel the exhaust-gas economisers saved;
 	// EGEFoulingLostT the steam their fouling cost them.
 	FuelSavedT      float64
@@ -99,10 +105,14 @@ type Totals struct {
 	InertGasShortHours float64
 }
 
-// GradeTotal is the boiler fuel burnt of one grade, and its CO2, tonnes.
+// GradeTotal is the boiler fuel burnt of one grade, and its CO2, tonnes:
+// by the regulatory factor (CO2T) and by the analysis carbon
+// (CO2AnalysisT, when HasCO2Analysis).
 type GradeTotal struct {
-	Grade       string
-	FuelT, CO2T float64
+	Grade          string
+	FuelT, CO2T    float64
+	CO2AnalysisT   float64
+	HasCO2Analysis bool
 }
 
 // PhaseTotals are the totals of one phase.
@@ -211,16 +221,20 @@ func Sum(rows []Row, res []*plant.CaseResult) *Result {
 	return out
 }
 
-// addGrade adds fuel and CO2 (tonnes) of a grade.
-func (t *Totals) addGrade(grade string, fuel, co2 float64) {
+// addGrade adds fuel and CO2 (tonnes) of a grade: by its regulatory
+// factor and, when the fuel has an analysis, by its analysis.
+func (t *Totals) addGrade(grade string, fuel, co2, co2a float64, hasAnalysis bool) {
 	for i := range t.FuelByGrade {
-		if t.FuelByGrade[i].Grade == grade {
-			t.FuelByGrade[i].FuelT += fuel
-			t.FuelByGrade[i].CO2T += co2
+		g := &t.FuelByGrade[i]
+		if g.Grade == grade {
+			g.FuelT += fuel
+			g.CO2T += co2
+			g.CO2AnalysisT += co2a
+			g.HasCO2Analysis = g.HasCO2Analysis && hasAnalysis
 			return
 		}
 	}
-	t.FuelByGrade = append(t.FuelByGrade, GradeTotal{Grade: grade, FuelT: fuel, CO2T: co2})
+	t.FuelByGrade = append(t.FuelByGrade, GradeTotal{Grade: grade, FuelT: fuel, CO2T: co2, CO2AnalysisT: co2a, HasCO2Analysis: hasAnalysis})
 }
 
 func newTotals() Totals {
@@ -233,6 +247,8 @@ func (t *Totals) add(i int, hours float64, cr *plant.CaseResult) {
 	t.Hours += hours
 	t.FuelT += cr.FuelKgS * s
 	t.CO2T += cr.CO2KgS * s
+	t.CO2AnalysisT += cr.CO2AnalysisKgS * s
+	t.CO2AnalysisUnknown = t.CO2AnalysisUnknown || cr.CO2AnalysisUnknown
 	t.SteamT += cr.SteamProductionKgS * s
 	t.EGESteamT += cr.EGESteamKgS * s
 	t.DumpedT += cr.DumpedKgS * s
@@ -251,7 +267,7 @@ func (t *Totals) add(i int, hours float64, cr *plant.CaseResult) {
 		fired += b.SteamKgS
 		capAll += b.MCRKgS
 		if b.FuelKgS > 0 {
-			t.addGrade(b.FuelName, b.FuelKgS*s, b.CO2KgS*s)
+			t.addGrade(b.FuelName, b.FuelKgS*s, b.CO2KgS*s, b.CO2AnalysisKgS*s, b.HasCO2Analysis)
 		}
 	}
 	t.CapacityKgS = capAll

@@ -31,10 +31,13 @@ type Case struct {
 	FuelKgH            float64       `json:"fuel_kg_h"`
 	FuelTPerDay        float64       `json:"fuel_t_per_day"`
 	CO2TPerDay         float64       `json:"co2_t_per_day"`
+	CO2AnalysisTPerDay *float64      `json:"co2_analysis_t_per_day"`
 	MakeUpKgH          float64       `json:"makeup_kg_h"`
 	BlowdownKgH        float64       `json:"blowdown_kg_h"`
 	VentedKgH          float64       `json:"vented_kg_h"`
 	CondensateLostKgH  float64       `json:"condensate_lost_kg_h"`
+	TrapLossKgH        float64       `json:"trap_loss_kg_h"`
+	DrainsReturnedKgH  float64       `json:"drains_returned_kg_h"`
 	FeedTankTK         float64       `json:"feed_tank_T_K"`
 	ElectricKW         float64       `json:"electric_kW"`
 	Balance            Balance       `json:"balance"`
@@ -63,23 +66,37 @@ type Balance struct {
 
 // Boiler is one oil-fired boiler of a case.
 type Boiler struct {
-	Name            string  `json:"name"`
-	Firing          bool    `json:"firing"`
-	Cycling         bool    `json:"cycling"`
-	OnFraction      float64 `json:"on_fraction"`
-	LoadFraction    float64 `json:"load_fraction"`
-	MCRKgH          float64 `json:"mcr_kg_h"`
-	SteamKgH        float64 `json:"steam_kg_h"`
-	FuelKgH         float64 `json:"fuel_kg_h"`
-	Efficiency      float64 `json:"efficiency"`
-	EfficiencyBasis string  `json:"efficiency_basis"`
-	Fuel            string  `json:"fuel"`
-	FuelLHV         float64 `json:"fuel_lhv_J_per_kg"`
-	DrumPPa         float64 `json:"drum_p_Pa"`
-	FeedTK          float64 `json:"feed_T_K"`
-	SteamDryness    float64 `json:"steam_dryness"`
-	BlowdownKgH     float64 `json:"blowdown_kg_h"`
-	HeatKW          float64 `json:"heat_kW"`
+	Name         string  `json:"name"`
+	Firing       bool    `json:"firing"`
+	Cycling      bool    `json:"cycling"`
+	OnFraction   float64 `json:"on_fraction"`
+	LoadFraction float64 `json:"load_fraction"`
+	MCRKgH       float64 `json:"mcr_kg_h"`
+	SteamKgH     float64 `json:"steam_kg_h"`
+	FuelKgH      float64 `json:"fuel_kg_h"`
+	CO2KgH       float64 `json:"co2_kg_h"`
+	CO2Basis     string  `json:"co2_basis"`
+	// CO2AnalysisKgH is null when the fuel has no analysis; IMOLCV when it
+	// has no IMO fuel type.
+	CO2AnalysisKgH *float64 `json:"co2_analysis_kg_h"`
+	IMOLCV         *float64 `json:"imo_lcv_J_per_kg"`
+	Efficiency     float64  `json:"efficiency"`
+	FiringEff      float64  `json:"firing_efficiency"`
+	StandbyLossKW  float64  `json:"standby_loss_kW"`
+	StandbyOffKW   float64  `json:"standby_off_kW"`
+	PurgeKW        float64  `json:"purge_kW"`
+	PurgePerStartJ float64  `json:"purge_per_start_J"`
+	// StartsPerHour is null when the boiler cycles and its starts are not
+	// known (no starts_per_hour, no cycle_band).
+	StartsPerHour   *float64 `json:"starts_per_hour"`
+	EfficiencyBasis string   `json:"efficiency_basis"`
+	Fuel            string   `json:"fuel"`
+	FuelLHV         float64  `json:"fuel_lhv_J_per_kg"`
+	DrumPPa         float64  `json:"drum_p_Pa"`
+	FeedTK          float64  `json:"feed_T_K"`
+	SteamDryness    float64  `json:"steam_dryness"`
+	BlowdownKgH     float64  `json:"blowdown_kg_h"`
+	HeatKW          float64  `json:"heat_kW"`
 	// From a combustion model; null for a boiler with a plain efficiency
 	// table.
 	FlueTK        *float64 `json:"flue_gas_exit_T_K"`
@@ -201,6 +218,8 @@ type Consumer struct {
 	ReturnKgH float64 `json:"condensate_return_kg_h"`
 	LostKgH   float64 `json:"condensate_lost_kg_h"`
 	CoolerKW  float64 `json:"drain_cooler_kW"`
+	CoolerTo  string  `json:"drain_cooler_to"`
+	TrapKgH   float64 `json:"trap_loss_kg_h"`
 	// Inputs are the figures a computed duty came from, keys with units;
 	// absent when the duty was given.
 	Inputs map[string]float64 `json:"inputs,omitempty"`
@@ -353,10 +372,13 @@ func NewCase(plantName string, cr *plant.CaseResult) Case {
 		FuelKgH:            Round(KgPerH(cr.FuelKgS)),
 		FuelTPerDay:        Round(TPerDay(cr.FuelKgS)),
 		CO2TPerDay:         Round(TPerDay(cr.CO2KgS)),
+		CO2AnalysisTPerDay: roundPtr(TPerDay(cr.CO2AnalysisKgS), !cr.CO2AnalysisUnknown),
 		MakeUpKgH:          Round(KgPerH(cr.MakeUpKgS)),
 		BlowdownKgH:        Round(KgPerH(cr.BlowdownKgS)),
 		VentedKgH:          Round(KgPerH(cr.VentedKgS)),
 		CondensateLostKgH:  Round(KgPerH(cr.CondensateLostKgS)),
+		TrapLossKgH:        Round(KgPerH(cr.TrapLossKgS)),
+		DrainsReturnedKgH:  Round(KgPerH(cr.DrainsReturnedKgS)),
 		FeedTankTK:         Round(cr.FeedTankT),
 		ElectricKW:         Round(KW(cr.ElectricW)),
 		Balance:            Balance{MassRel: cr.Balance.MassRel, EnergyRel: cr.Balance.EnergyRel},
@@ -388,6 +410,12 @@ func NewCase(plantName string, cr *plant.CaseResult) Case {
 			SteamDryness: Round(b.SteamDryness), BlowdownKgH: Round(KgPerH(b.BlowdownKgS)), HeatKW: Round(KW(b.HeatW)),
 			FanElectricKW: Round(KW(b.FanElectricW)), LimitKgH: Round(KgPerH(b.LimitKgS)), InertGas: b.InertGasSource,
 			O2Dry: roundPtr(b.O2Dry, b.DryFlueNm3S > 0), DryFlueNm3H: roundPtr(b.DryFlueNm3S*3600, b.DryFlueNm3S > 0),
+			CO2KgH: Round(KgPerH(b.CO2KgS)), CO2Basis: co2Basis(b.CO2Basis),
+			CO2AnalysisKgH: roundPtr(KgPerH(b.CO2AnalysisKgS), b.HasCO2Analysis),
+			IMOLCV:         roundPtr(b.IMOLCV, b.IMOLCV > 0),
+			FiringEff:      Round(b.FiringEfficiency), StandbyLossKW: Round(KW(b.StandbyLossW)),
+			StandbyOffKW: Round(KW(b.StandbyOffW)), PurgeKW: Round(KW(b.PurgeW)), PurgePerStartJ: Round(b.PurgePerStartJ),
+			StartsPerHour: roundPtr(b.StartsPerHour, !b.Cycling || b.StartsPerHour > 0),
 		}
 		if b.FlueT > 0 {
 			bj.FlueTK = roundPtr(b.FlueT, true)
@@ -425,6 +453,7 @@ func NewCase(plantName string, cr *plant.CaseResult) Case {
 		j.Consumers = append(j.Consumers, Consumer{
 			Name: c.Name, Kind: c.Kind, DutyKW: Round(KW(c.DutyW)), SteamKgH: Round(KgPerH(c.SteamKgS)),
 			ReturnKgH: Round(KgPerH(c.ReturnKgS)), LostKgH: Round(KgPerH(c.LostKgS)), CoolerKW: Round(KW(c.DrainCoolerW)),
+			CoolerTo: c.DrainCoolerTo, TrapKgH: Round(KgPerH(c.TrapLossKgS)),
 			Inputs: roundMap(c.Inputs), Priority: Round(c.Priority), PriorityLevel: level(c.Priority),
 			Reducible: c.Reducible, RequestedKW: Round(KW(c.RequestedW)), ShedKW: Round(KW(c.ShedW)),
 			ShedKgH: Round(KgPerH(c.ShedKgS)), CargoM3H: Round(c.CargoRate * 3600), Cooling: newCooling(c.Cooling),
@@ -444,6 +473,16 @@ func NewCase(plantName string, cr *plant.CaseResult) Case {
 		j.Lines = append(j.Lines, lj)
 	}
 	return j
+}
+
+// co2Basis names the factor of a boiler's regulatory CO2: the fuel's own
+// statement, or, for a fuel a script gave by its LHV and CO2 factor,
+// "given co2_factor".
+func co2Basis(s string) string {
+	if s == "" {
+		return "given co2_factor"
+	}
+	return s
 }
 
 func roundMap(m map[string]float64) map[string]float64 {

@@ -177,12 +177,25 @@
 //	steam_production_kg_h   steam raised by boilers and economisers, kg/h
 //	dumped_kg_h             steam sent to a dump condenser, kg/h
 //	fuel_kg_h, fuel_t_per_day   fuel burnt, kg/h and t/day
-//	co2_t_per_day           CO2 from the fuel, t/day
+//	co2_t_per_day           CO2 from the fuel by each fuel's regulatory
+//	                        factor: the IMO conversion factor C_F of its
+//	                        IMO fuel type (MEPC.364(79)), the figure for
+//	                        regulatory reporting (a fuel without an IMO
+//	                        fuel type: its analysis, or the co2_factor the
+//	                        script gave), t/day
+//	co2_analysis_t_per_day  CO2 from the carbon of each fuel's analysis
+//	                        (complete combustion), the carbon the
+//	                        combustion models burn, t/day; null when a
+//	                        boiler burns a fuel without an analysis
 //	makeup_kg_h             fresh water made up, kg/h
 //	blowdown_kg_h           boiler blowdown, kg/h
 //	vented_kg_h             flash steam vented from the feed tank, kg/h
-//	condensate_lost_kg_h    condensate not returned, header drains
-//	                        included, kg/h
+//	condensate_lost_kg_h    condensate not returned, the header drains
+//	                        that are lost and the steam passing traps that
+//	                        is not returned included, kg/h
+//	trap_loss_kg_h          live steam passing the consumers' steam traps,
+//	                        kg/h
+//	drains_returned_kg_h    header drains returned to the hotwell, kg/h
 //	feed_tank_T_K           feed tank temperature, K
 //	electric_kW             electrical load of pumps and fans, kW
 //	balance                 BALANCE: the closures of the balances
@@ -300,8 +313,31 @@
 //	load_fraction           steam over MCR
 //	mcr_kg_h, steam_kg_h    its MCR and the steam it raises, kg/h
 //	fuel_kg_h               fuel it burns, kg/h
+//	co2_kg_h                its CO2 by the fuel's regulatory factor, kg/h
+//	co2_basis               which factor: the IMO table and fuel type,
+//	                        "fuel analysis: ..." for a fuel without an IMO
+//	                        fuel type, or "given co2_factor"
+//	co2_analysis_kg_h       its CO2 by the carbon of the fuel's analysis,
+//	                        kg/h; null for a fuel without an analysis
+//	imo_lcv_J_per_kg        the LCV of the fuel's IMO fuel type, J/kg, for
+//	                        regulatory reports only (the energy balance
+//	                        takes fuel_lhv_J_per_kg); null without one
 //	efficiency              its efficiency, a fraction, on the basis of
-//	efficiency_basis        "LHV" or "HHV"
+//	efficiency_basis        "LHV" or "HHV": heat to water and steam over
+//	                        the fuel's heat; for a cycling boiler the time
+//	                        average, with the standby and purge losses
+//	firing_efficiency       the efficiency model's figure at the firing
+//	                        rate (the burner minimum while it cycles)
+//	standby_loss_kW         a cycling boiler's standby loss: the heat the
+//	                        warm boiler loses from its casing, kW (0 when
+//	                        it does not cycle)
+//	standby_off_kW          the part of it the burner's off time takes,
+//	                        averaged, kW
+//	purge_kW                the heat the pre-purges blow out, averaged, kW
+//	purge_per_start_J       the heat of one pre-purge, J
+//	starts_per_hour         burner starts per hour while it cycles (0 when
+//	                        it does not); null when the starts are not
+//	                        known
 //	fuel_lhv_J_per_kg       the fuel's lower heating value, J/kg
 //	drum_p_Pa, feed_T_K     drum pressure, Pa, and feed temperature, K
 //	steam_dryness           dryness fraction of the steam
@@ -385,6 +421,10 @@
 //	condensate_return_kg_h  condensate returned, kg/h
 //	condensate_lost_kg_h    condensate lost, kg/h
 //	drain_cooler_kW         heat its drain cooler gives up, kW
+//	drain_cooler_to         where that heat goes: "feed" (the boiler feed
+//	                        after the feed pump), "hotwell" or "overboard";
+//	                        "" without a drain cooler
+//	trap_loss_kg_h          live steam passing its steam trap, kg/h
 //	inputs                  {key: value}: the figures a computed duty came
 //	                        from, keys with units; absent when the duty
 //	                        was given
@@ -444,7 +484,12 @@
 // times its hours):
 //
 //	rows, hours             how many rows, and their hours
-//	fuel_t, co2_t           boiler fuel burnt and its CO2, t
+//	fuel_t, co2_t           boiler fuel burnt and its CO2 by the
+//	                        regulatory factors (as co2_t_per_day of a
+//	                        CASE), t
+//	co2_analysis_t          its CO2 by the fuels' analyses (as
+//	                        co2_analysis_t_per_day), t; null when a row
+//	                        burnt a fuel without an analysis
 //	steam_t, ege_steam_t    steam raised in all and by economisers, t
 //	ege_fuel_saved_t        boiler fuel the economisers saved, t
 //	ege_fouling_lost_steam_t  steam the economisers' fouling cost them
@@ -474,7 +519,10 @@
 // A GRADE (type GradeTotal) is
 //
 //	grade                   the fuel's grade (or name)
-//	fuel_t, co2_t           its boiler fuel burnt and CO2, t
+//	fuel_t, co2_t           its boiler fuel burnt and CO2 by its
+//	                        regulatory factor, t
+//	co2_analysis_t          its CO2 by its analysis, t; null for a fuel
+//	                        without an analysis
 //
 // A VOYAGE (type Voyage) has, after the keys of JOB,
 //
@@ -503,7 +551,10 @@
 //	ege_steam_kg_h          steam raised by economisers, kg/h
 //	dumped_kg_h             steam dumped, kg/h
 //	fuel_kg_h               boiler fuel, kg/h
-//	fuel_t, co2_t           boiler fuel and CO2 over the row's hours, t
+//	fuel_t, co2_t           boiler fuel and CO2 (regulatory factor) over
+//	                        the row's hours, t
+//	co2_analysis_t          CO2 by the fuels' analyses over the row's
+//	                        hours, t; null as in a CASE
 //	margin_kg_h             as in a CASE, kg/h
 //	n_minus_1_can_carry     every N-1 contingency of its case is carried;
 //	                        null when not checked

@@ -25,6 +25,7 @@ type Totals struct {
 	Hours             float64      `json:"hours"`
 	FuelT             float64      `json:"fuel_t"`
 	CO2T              float64      `json:"co2_t"`
+	CO2AnalysisT      *float64     `json:"co2_analysis_t"`
 	SteamT            float64      `json:"steam_t"`
 	EGESteamT         float64      `json:"ege_steam_t"`
 	EGEFuelSavedT     float64      `json:"ege_fuel_saved_t"`
@@ -47,11 +48,13 @@ type Totals struct {
 	InertGasShortH    float64      `json:"inert_gas_short_hours"`
 }
 
-// GradeTotal is the boiler fuel of one grade and its CO2.
+// GradeTotal is the boiler fuel of one grade and its CO2, by the
+// regulatory factor and by the analysis (null without one).
 type GradeTotal struct {
-	Grade string  `json:"grade"`
-	FuelT float64 `json:"fuel_t"`
-	CO2T  float64 `json:"co2_t"`
+	Grade        string   `json:"grade"`
+	FuelT        float64  `json:"fuel_t"`
+	CO2T         float64  `json:"co2_t"`
+	CO2AnalysisT *float64 `json:"co2_analysis_t"`
 }
 
 // row1 is a 0-based row index as the 1-based number the reports show, or
@@ -82,7 +85,8 @@ func NewTotals(t profile.Totals) Totals {
 		hf[i] = Round(h)
 	}
 	out := Totals{
-		Rows: t.Rows, Hours: Round(t.Hours), FuelT: Round(t.FuelT), CO2T: Round(t.CO2T), SteamT: Round(t.SteamT),
+		Rows: t.Rows, Hours: Round(t.Hours), FuelT: Round(t.FuelT), CO2T: Round(t.CO2T),
+		CO2AnalysisT: roundPtr(t.CO2AnalysisT, !t.CO2AnalysisUnknown), SteamT: Round(t.SteamT),
 		EGESteamT: Round(t.EGESteamT), EGEFuelSavedT: Round(t.FuelSavedT), EGEFoulingLostT: Round(t.EGEFoulingLostT), DumpedT: Round(t.DumpedT),
 		MakeUpT: Round(t.MakeUpT), ElectricMWh: Round(t.ElectricMWh), HoursFiring: hf,
 		PeakBoilerKgH: Round(KgPerH(t.PeakBoilerKgS)), PeakRow: row1(t.PeakRow), CapacityKgH: Round(KgPerH(t.CapacityKgS)),
@@ -95,7 +99,8 @@ func NewTotals(t profile.Totals) Totals {
 	}
 	out.FuelByGrade = make([]GradeTotal, len(t.FuelByGrade))
 	for i, g := range t.FuelByGrade {
-		out.FuelByGrade[i] = GradeTotal{Grade: g.Grade, FuelT: Round(g.FuelT), CO2T: Round(g.CO2T)}
+		out.FuelByGrade[i] = GradeTotal{Grade: g.Grade, FuelT: Round(g.FuelT), CO2T: Round(g.CO2T),
+			CO2AnalysisT: roundPtr(g.CO2AnalysisT, g.HasCO2Analysis)}
 	}
 	return out
 }
@@ -134,6 +139,7 @@ type VoyageRow struct {
 	FuelKgH            float64  `json:"fuel_kg_h"`
 	FuelT              float64  `json:"fuel_t"`
 	CO2T               float64  `json:"co2_t"`
+	CO2AnalysisT       *float64 `json:"co2_analysis_t"`
 	MarginKgH          float64  `json:"margin_kg_h"`
 	N1CanCarry         *bool    `json:"n_minus_1_can_carry"`
 	Warnings           []string `json:"warnings"`
@@ -147,7 +153,7 @@ type VoyageRow struct {
 // its phase and hours and zero figures, with can_carry true.
 func NewVoyageRow(row profile.RowResult) VoyageRow {
 	out := VoyageRow{Row: row.Index + 1, Phase: row.Phase, Hours: Round(row.Hours), CanCarry: true, Warnings: []string{},
-		Tanks: newVoyageTanks(row.Result)}
+		CO2AnalysisT: roundPtr(0, true), Tanks: newVoyageTanks(row.Result)}
 	c := row.Result
 	if c == nil {
 		return out
@@ -168,6 +174,7 @@ func NewVoyageRow(row profile.RowResult) VoyageRow {
 	out.FuelKgH = Round(KgPerH(c.FuelKgS))
 	out.FuelT = Round(Tonnes(c.FuelKgS, row.Hours))
 	out.CO2T = Round(Tonnes(c.CO2KgS, row.Hours))
+	out.CO2AnalysisT = roundPtr(Tonnes(c.CO2AnalysisKgS, row.Hours), !c.CO2AnalysisUnknown)
 	out.MarginKgH = Round(KgPerH(c.MarginNextKgS))
 	if c.ContingenciesChecked {
 		ok := true

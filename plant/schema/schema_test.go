@@ -302,7 +302,7 @@ func TestNewVoyageRowUnsolved(t *testing.T) {
 	must(t, err)
 	want := `{"row":5,"phase":"port","hours":6,"case":"","sea_T_K":null,"air_T_K":null,"engine_load":0,` +
 		`"boilers_firing":0,"can_carry":true,"steam_demand_kg_h":0,"steam_production_kg_h":0,"boiler_steam_kg_h":0,` +
-		`"ege_steam_kg_h":0,"dumped_kg_h":0,"fuel_kg_h":0,"fuel_t":0,"co2_t":0,"margin_kg_h":0,"n_minus_1_can_carry":null,"warnings":[],"tanks":[]}`
+		`"ege_steam_kg_h":0,"dumped_kg_h":0,"fuel_kg_h":0,"fuel_t":0,"co2_t":0,"co2_analysis_t":0,"margin_kg_h":0,"n_minus_1_can_carry":null,"warnings":[],"tanks":[]}`
 	if string(b) != want {
 		t.Errorf("got  %s\nwant %s", b, want)
 	}

@@ -112,13 +112,29 @@ func (j Job) head(kind string) string {
 func writeTotalsTable(w io.Writer, names []string, totals []profile.Totals, firstCol string) {
 	tw := tabwriter.NewWriter(w, 0, 8, 2, ' ', 0)
 	fmt.Fprintf(tw, "    %s\t%8s\t%9s\t%9s\t%9s\t%9s\t%9s\t%9s\t%9s\t%9s\t\n", firstCol,
-		"hours", "fuel t", "CO2 t", "steam t", "EGE t", "saved t", "dumped t", "make-up t", "el. MWh")
+		"hours", "fuel t", "CO2 IMO t", "steam t", "EGE t", "saved t", "dumped t", "make-up t", "el. MWh")
 	for i, t := range totals {
 		fmt.Fprintf(tw, "    %s\t%8s\t%9s\t%9s\t%9s\t%9s\t%9s\t%9s\t%9s\t%9s\t\n", names[i],
 			fix(t.Hours, 1), fix(t.FuelT, 3), fix(t.CO2T, 3), fix(t.SteamT, 1), fix(t.EGESteamT, 1),
 			fix(t.FuelSavedT, 3), fix(t.DumpedT, 1), fix(t.MakeUpT, 1), fix(t.ElectricMWh, 2))
 	}
 	tw.Flush()
+}
+
+// writeGrades writes the boiler fuel by grade with its CO2 by the IMO
+// factor (regulatory) and by the fuel's analysis.
+func writeGrades(w io.Writer, t profile.Totals) {
+	if len(t.FuelByGrade) == 0 {
+		return
+	}
+	fmt.Fprintf(w, "  fuel by grade (CO2 by the IMO factor C_F for regulatory reporting; by the fuel's analysis beside):\n")
+	for _, g := range t.FuelByGrade {
+		an := "not known (no analysis)"
+		if g.HasCO2Analysis {
+			an = fix(g.CO2AnalysisT, 3) + " t"
+		}
+		fmt.Fprintf(w, "    %s: fuel %s t, CO2 %s t by the IMO factor, %s by the analysis\n", g.Grade, fix(g.FuelT, 3), fix(g.CO2T, 3), an)
+	}
 }
 
 // hoursFiring writes "0 boilers 0.0 h, 1 boiler 306.0 h, 2 boilers 30.0 h".
@@ -167,6 +183,7 @@ func writeVoyage(w io.Writer, v Voyage) {
 	totals = append(totals, t)
 	writeTotalsTable(w, names, totals, "phase")
 	fmt.Fprintf(w, "\n  hours firing: %s\n", hoursFiring(t.HoursFiring))
+	writeGrades(w, t)
 	if t.Rows > 0 {
 		fmt.Fprintf(w, "  peak demand on the boilers: %s kg/h in %s, against %s kg/h MCR of all boilers\n",
 			fix(t.PeakBoilerKgS*kgh, 1), v.rowRef(t.PeakRow), fix(t.CapacityKgS*kgh, 1))

@@ -126,7 +126,14 @@ func writeCase(w io.Writer, n, total int, c Case) {
 			note = "shaft power"
 		}
 		if fix(cs.DrainCoolerW/1e3, 1) != "0.0" { // a cooler that gives up heat
-			note += fmt.Sprintf("; drain cooler %s kW", fix(cs.DrainCoolerW/1e3, 1))
+			to := "to the " + cs.DrainCoolerTo
+			if cs.DrainCoolerTo == "overboard" || cs.DrainCoolerTo == "" {
+				to = "overboard"
+			}
+			note += fmt.Sprintf("; drain cooler %s kW %s", fix(cs.DrainCoolerW/1e3, 1), to)
+		}
+		if fix(cs.TrapLossKgS*kgh, 1) != "0.0" {
+			note += fmt.Sprintf("; %s kg/h live steam through the trap", fix(cs.TrapLossKgS*kgh, 1))
 		}
 		fmt.Fprintf(tw, "      %s\t%s\t%10s\t%10s\t%s\n", cs.Name, cs.Kind, fix(cs.SteamKgS*kgh, 1), fix(cs.DutyW/1e3, 1), note)
 	}
@@ -139,8 +146,12 @@ func writeCase(w io.Writer, n, total int, c Case) {
 	}
 	for _, u := range r.Units {
 		if u.Kind == kindHeader && (u.Figures.Of(keyDrained) != 0 || u.Figures.Of("heat_loss_W") != 0) {
+			where := "heat loss, drained and lost"
+			if u.Figures.Of("drains_returned_kg_s") > 0 {
+				where = "heat loss, drained to the hotwell"
+			}
 			fmt.Fprintf(tw, "      %s\t%s\t%10s\t%10s\t%s\n", u.Name, "header drains", fix(u.Figures.Of(keyDrained)*kgh, 1),
-				fix(u.Figures.Of("heat_loss_W")/1e3, 1), "heat loss, drained and lost")
+				fix(u.Figures.Of("heat_loss_W")/1e3, 1), where)
 		}
 	}
 	for _, u := range r.Units {
@@ -158,7 +169,7 @@ func writeCase(w io.Writer, n, total int, c Case) {
 		lost += cs.LostKgS
 	}
 	fmt.Fprintf(tw, "      %s\t\t%10s\t\t\n", "condensate not returned", fix(lost*kgh, 1))
-	fmt.Fprintf(tw, "      %s\t\t%10s\t\t\n", "header drains", fix(headerDrains(r)*kgh, 1))
+	fmt.Fprintf(tw, "      %s\t\t%10s\t\t\n", "header drains lost", fix(headerDrains(r)*kgh, 1))
 	fmt.Fprintf(tw, "    make-up\t\t%10s\t\t\n", fix(r.MakeUpKgS*kgh, 1))
 	tw.Flush()
 
@@ -177,6 +188,9 @@ func writeCase(w io.Writer, n, total int, c Case) {
 			yes, burner = "yes", "steady"
 			if b.Cycling {
 				burner = fmt.Sprintf("cycling, on %s %% of the time", fix(b.OnFraction*100, 0))
+				if b.StartsPerHour > 0 {
+					burner += fmt.Sprintf(", %s starts/h", fix(b.StartsPerHour, 1))
+				}
 			}
 			eff = fix(b.Efficiency*100, 1) + " " + b.EfficiencyBasis
 		}
@@ -191,6 +205,17 @@ func writeCase(w io.Writer, n, total int, c Case) {
 			fix(b.MCRKgS*kgh, 1), fix(b.SteamKgS*kgh, 1), fix(b.FuelKgS*kgh, 1), eff, feed, flue, burner)
 	}
 	tw.Flush()
+	for _, b := range r.Boilers {
+		if !b.Cycling {
+			continue
+		}
+		purge := "purges not counted"
+		if b.PurgePerStartJ > 0 && b.StartsPerHour > 0 {
+			purge = fmt.Sprintf("purges %s kW", fix(b.PurgeW/1e3, 1))
+		}
+		fmt.Fprintf(w, "    %s cycles: %s %% at the burner minimum, %s %% on average; standby loss %s kW, %s kW of it over the off time; %s\n",
+			b.Name, fix(b.FiringEfficiency*100, 1), fix(b.Efficiency*100, 1), fix(b.StandbyLossW/1e3, 1), fix(b.StandbyOffW/1e3, 1), purge)
+	}
 	if !r.CanCarry {
 		fmt.Fprintf(w, "  CANNOT CARRY the demand: short by %s kg/h\n", fix(r.ShortfallKgS*kgh, 1))
 		writeShed(w, r)
@@ -220,7 +245,12 @@ func writeCase(w io.Writer, n, total int, c Case) {
 	if len(r.EGEs) > 0 {
 		fmt.Fprintf(tw, "  fuel saved by EGE\t%s kg/h\t%s t/day\n", fix(r.EGEFuelSavedKgS*kgh, 1), fix(r.EGEFuelSavedKgS*86.4, 3))
 	}
-	fmt.Fprintf(tw, "  CO2\t\t%s t/day\n", fix(r.CO2KgS*86.4, 2))
+	fmt.Fprintf(tw, "  CO2 by IMO C_F\t\t%s t/day for regulatory reporting\n", fix(r.CO2KgS*86.4, 2))
+	if r.CO2AnalysisUnknown {
+		fmt.Fprintf(tw, "  CO2 by analysis\t\tnot known: a fuel has no analysis\n")
+	} else {
+		fmt.Fprintf(tw, "  CO2 by analysis\t\t%s t/day from the fuel's carbon\n", fix(r.CO2AnalysisKgS*86.4, 2))
+	}
 	fmt.Fprintf(tw, "  electrical load\t%s kW\t\n", fix(r.ElectricW/1e3, 1))
 	fmt.Fprintf(tw, "  feed tank\t%s °C\t\n", fix(r.FeedTankT-273.15, 1))
 	fmt.Fprintf(tw, "  balance closure\tmass %s\tenergy %s (relative)\n", closure(r.Balance.MassRel), closure(r.Balance.EnergyRel))
@@ -310,8 +340,21 @@ func coolingNote(c *plant.TankCooling) string {
 	return s
 }
 
-// headerDrains sums the condensate the headers' traps drain and lose.
+// headerDrains sums the condensate the headers' traps drain and lose (not
+// returned to the hotwell).
 func headerDrains(r *plant.CaseResult) float64 {
+	var m float64
+	for _, u := range r.Units {
+		if u.Kind == kindHeader {
+			m += u.Figures.Of(keyDrained) - u.Figures.Of("drains_returned_kg_s")
+		}
+	}
+	return m
+}
+
+// headerDrained sums the steam the headers' heat losses condense, which
+// their traps drain (to the hotwell or lost): a steam demand.
+func headerDrained(r *plant.CaseResult) float64 {
 	var m float64
 	for _, u := range r.Units {
 		if u.Kind == kindHeader {

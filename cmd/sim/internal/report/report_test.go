@@ -226,9 +226,10 @@ func TestCasesCoverTheStates(t *testing.T) {
 	quiet.Warnings = nil
 	quiet.Consumers = append([]plant.ConsumerResult(nil), quiet.Consumers...)
 	quiet.Consumers[0].DrainCoolerW = 12345 // W: shown as 12.3 kW
+	quiet.Consumers[0].DrainCoolerTo = "feed"
 	b.Reset()
 	must(t, Table(&b, Run{Cases: []Case{{Plant: "x", Result: &quiet}}}))
-	if !strings.Contains(b.String(), "duty; drain cooler 12.3 kW\n") {
+	if !strings.Contains(b.String(), "duty; drain cooler 12.3 kW to the feed\n") {
 		t.Errorf("the drain cooler's heat is not shown:\n%s", b.String())
 	}
 	if !strings.Contains(b.String(), "\n  warnings: none\n") {
