@@ -359,7 +359,9 @@ func (p *Plant) newSolver(s *session) error {
 		s.prob.SparseJacobian = p.jacobian
 		s.jac = newJac()
 	}
-	slv, err := solver.New(s.prob, p.solverSettings())
+	set := p.solverSettings()
+	s.lus, _ = set.Factorizer.(*luSet)
+	slv, err := solver.New(s.prob, set)
 	if err != nil {
 		return err
 	}
@@ -383,8 +385,9 @@ func (p *Plant) solverSettings() *solver.Settings {
 		// lines): the sparse LU is several times faster than the dense
 		// one at a plant's size, and a minimum-degree column order on the
 		// pattern keeps its fill and its symbolic work small. Each plant
-		// (and clone) has its own.
-		s.Factorizer = &solver.SparseLU{MinDegree: true}
+		// (and clone) has its own, one per firing configuration
+		// (lucache.go).
+		s.Factorizer = newLUSet()
 	}
 	return &s
 }

@@ -96,6 +96,9 @@ type session struct {
 
 	ev  eval
 	jac jac // the Jacobian's remembered entry places
+	// lus is the solver's Factorizer when the plant chose it (nil when
+	// Options.Solver gives one): one sparse LU per firing configuration.
+	lus *luSet
 }
 
 // domainErr marks a component's failure while the solver explores: the
@@ -137,6 +140,9 @@ func (p *Plant) solveConfig(ctx context.Context, fire []bool) error {
 	}
 	if s.noShed && s.shedIdx >= 0 {
 		s.x0[s.shedIdx] = 0
+	}
+	if s.lus != nil {
+		s.lus.use(s.configKey(p.Opt.Sharing == LeadLag))
 	}
 	res, err := s.slv.Solve(ctx, s.x0)
 	s.newton += res.Stats.Iterations
