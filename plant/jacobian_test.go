@@ -275,8 +275,7 @@ func TestJacobianAgainstFiniteDifferences(t *testing.T) {
 				t.Fatalf("%s, %s: %v", fx.name, c.Name, err)
 			}
 			// Keep the case's settings in force for the check.
-			restore, err := p.applySettings(&c)
-			must(t, err)
+			must(t, p.applySettings(&c))
 			n := p.s.prob.Dim
 			ja := mat.NewDense(n, n, nil)
 			for k := 1; k <= 3; k++ {
@@ -317,7 +316,7 @@ func TestJacobianAgainstFiniteDifferences(t *testing.T) {
 					}
 				}
 			}
-			restore()
+			p.restoreSettings()
 			for _, u := range p.comps {
 				covered[u.Kind()]++
 			}

@@ -53,9 +53,8 @@ func bruteForce(t *testing.T, p *Plant, c Case, grid int) float64 {
 	// The demand from the case itself, then the grid on its plant.
 	cr, err := p.Solve(ctx, c)
 	must(t, err)
-	restore, err := p.applySettings(&c)
-	must(t, err)
-	defer restore()
+	must(t, p.applySettings(&c))
+	defer p.restoreSettings()
 	p.rankShedding()
 	s := p.s
 	s.ev = eval{cond: c.Conditions, pl: p}

@@ -96,6 +96,8 @@ type session struct {
 
 	ev  eval
 	jac jac // the Jacobian's remembered entry places
+	// undo lists the parameters the case in hand changed (applySettings).
+	undo []undoSetting
 	// lus is the solver's Factorizer when the plant chose it (nil when
 	// Options.Solver gives one): one sparse LU per firing configuration.
 	lus *luSet
@@ -171,19 +173,27 @@ func (p *Plant) ColdStart() {
 	}
 }
 
+// undoSetting is one parameter a case changed: the key and its old
+// value, or, for a text key, the function that puts back what its setter
+// changed.
+type undoSetting struct {
+	u    Component
+	k    *Key
+	old  float64
+	back func()
+}
+
 // applySettings sets the case's parameters through the components' keys,
-// checks every component, prepares each for the case, and returns a
-// function that restores the plant's own parameters.
-func (p *Plant) applySettings(c *Case) (restore func(), err error) {
-	var undo []func()
-	restore = func() {
-		for i := len(undo) - 1; i >= 0; i-- {
-			undo[i]()
-		}
-	}
+// checks every component and prepares each for the case. On success the
+// caller must call restoreSettings, which puts back the plant's own
+// parameters; on failure they are put back already. The old values are
+// kept in the session's undo list, reused from case to case.
+func (p *Plant) applySettings(c *Case) error {
+	s := p.s
+	s.undo = s.undo[:0]
 	set := func(u Component, k *Key, v float64) {
 		old, _ := k.Get(u)
-		undo = append(undo, func() { k.Set(u, old) })
+		s.undo = append(s.undo, undoSetting{u: u, k: k, old: old})
 		k.Set(u, v)
 	}
 	setText := func(u Component, k *Key, v string) error {
@@ -192,7 +202,7 @@ func (p *Plant) applySettings(c *Case) (restore func(), err error) {
 			back()
 			return err
 		}
-		undo = append(undo, back)
+		s.undo = append(s.undo, undoSetting{back: back})
 		return nil
 	}
 	var fs faults
@@ -248,10 +258,25 @@ func (p *Plant) applySettings(c *Case) (restore func(), err error) {
 		p.checkPressures(&fs)
 	}
 	if err := fs.err(); err != nil {
-		restore()
-		return nil, err
+		p.restoreSettings()
+		return err
 	}
-	return restore, nil
+	return nil
+}
+
+// restoreSettings puts back, last first, the parameters applySettings
+// changed.
+func (p *Plant) restoreSettings() {
+	s := p.s
+	for i := len(s.undo) - 1; i >= 0; i-- {
+		if r := s.undo[i]; r.back != nil {
+			r.back()
+		} else {
+			r.k.Set(r.u, r.old)
+		}
+		s.undo[i] = undoSetting{}
+	}
+	s.undo = s.undo[:0]
 }
 
 // Solve solves one load case: it decides which boilers fire (or takes the
@@ -262,11 +287,10 @@ func (p *Plant) Solve(ctx context.Context, c Case) (*CaseResult, error) {
 	if err := p.compile(); err != nil {
 		return nil, err
 	}
-	restore, err := p.applySettings(&c)
-	if err != nil {
+	if err := p.applySettings(&c); err != nil {
 		return nil, err
 	}
-	defer restore()
+	defer p.restoreSettings()
 	s := p.s
 	s.ev = eval{cond: c.Conditions, pl: p}
 	s.solves, s.newton = 0, 0
