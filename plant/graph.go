@@ -82,6 +82,10 @@ type Line struct {
 	medium Medium
 	idx    int // index of the mass flow in the unknown vector; p at idx+1, h at idx+2
 	sat    satMemo
+	// tm is the temperature of the line's last single-phase state (p, h)
+	// reported: a steam line of dry saturated steam from a drum at its set
+	// pressure has the same state case after case.
+	tm memo
 }
 
 // Index of the line's unknowns in the plant's unknown vector.

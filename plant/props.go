@@ -104,7 +104,7 @@ type satMemo struct {
 func (l *Line) state(p, h float64) (LineResult, error) {
 	r := LineResult{P: p, H: h}
 	if p >= pCrit {
-		t, err := tPH(p, h)
+		t, err := l.tm.get2(p, h, tPH)
 		if err != nil {
 			return r, err
 		}
@@ -143,7 +143,7 @@ func (l *Line) state(p, h float64) (LineResult, error) {
 	default:
 		r.Phase, r.X = water.Vapour.String(), 1
 	}
-	t, err := tPH(p, h)
+	t, err := l.tm.get2(p, h, tPH)
 	if err != nil {
 		return r, err
 	}
