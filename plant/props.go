@@ -132,16 +132,29 @@ func (l *Line) state(p, h float64) (LineResult, error) {
 	}
 	// A line within a part in 1e9 of a saturation enthalpy is reported as
 	// saturated liquid or vapour, so that the last bit of a solve does not
-	// flip its phase (dry saturated steam sits exactly on h_g).
+	// flip its phase (dry saturated steam sits exactly on h_g), at the
+	// saturation temperature: the subcooling or superheat that a part in
+	// 1e9 of h_g could mean is below a microkelvin (c_p above 2 kJ/(kg K)),
+	// and IF97's temperature from (p, h) at the saturation line is a search
+	// (water.TPH's slow path) that the lines of dry steam would take at
+	// every case.
 	tol := 1e-9 * m.hg
 	switch {
 	case h > m.hf+tol && h < m.hg-tol:
 		r.T, r.X, r.Phase, r.TwoPhase = m.tSat, (h-m.hf)/(m.hg-m.hf), water.TwoPhase.String(), true
 		return r, nil
-	case h <= m.hf:
+	case h <= m.hf+tol:
 		r.Phase, r.X = water.Liquid.String(), 0
+		if h >= m.hf-tol {
+			r.T = m.tSat
+			return r, nil
+		}
 	default:
 		r.Phase, r.X = water.Vapour.String(), 1
+		if h <= m.hg+tol {
+			r.T = m.tSat
+			return r, nil
+		}
 	}
 	t, err := l.tm.get2(p, h, tPH)
 	if err != nil {
