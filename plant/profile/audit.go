@@ -717,7 +717,10 @@ func newAuditor(p *plant.Plant, spec AuditSpec, opt *AuditOptions) (*auditor, er
 
 	a := &auditor{spec: spec, opt: *opt, claimsOf: -1, out: res}
 	a.pl = p.Clone()
-	a.pl.Opt.NoEGESaving = true // the audit needs the fuel, not the saving
+	// The audit needs the fuel, not the saving, nor the N-1 answers
+	// (neither is in its result, and neither warns).
+	a.pl.Opt.NoEGESaving = true
+	a.pl.Opt.NoContingencies = true
 
 	// Days.
 	audited := 0
