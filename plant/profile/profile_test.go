@@ -181,6 +181,7 @@ func BenchmarkYearHourly(b *testing.B) {
 	p.Opt.NoEGESaving = true
 	rows := voyage(8760)
 	var iters float64
+	cpu0 := cpuSeconds()
 	for b.Loop() {
 		res, err := Run(context.Background(), p, rows, Options{Workers: 1})
 		if err != nil {
@@ -190,6 +191,7 @@ func BenchmarkYearHourly(b *testing.B) {
 			iters += float64(r.Result.Iterations)
 		}
 	}
+	b.ReportMetric((cpuSeconds()-cpu0)/float64(b.N), "cpu-s/op")
 	b.ReportMetric(iters/float64(b.N)/8760, "newton-iters/row")
 }
 
