@@ -348,7 +348,7 @@ func (p *Plant) contingency(ctx context.Context, c Case, spec contingencySpec, b
 		return res, nil
 	}
 	tmp := &CaseResult{Conditions: c.Conditions, Forced: true, ShedRanks: s.nRanks}
-	if err := p.report(tmp); err != nil {
+	if err := p.report(tmp, false); err != nil { // the answer shows no line
 		res.Note = fmt.Sprintf("no report: %v", err)
 		return res, nil
 	}

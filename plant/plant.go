@@ -34,6 +34,13 @@ type Options struct {
 	// NoEGESaving skips the second solve of each case without its
 	// exhaust-gas economisers that gives the fuel they save.
 	NoEGESaving bool
+	// NoLineStates leaves the state of every line out of each case's
+	// report (CaseResult.Lines empty), for jobs that keep the totals of
+	// many cases and not their lines (an audit's samples): the lines' IF97
+	// temperatures are a tenth of a report's work. Nothing else in the
+	// report depends on them. A line whose state IF97 cannot give fails
+	// the case's report with it and passes without.
+	NoLineStates bool
 	// NoContingencies skips the N-1 answers of each case (contingency.go):
 	// the largest firing boiler tripping, each exhaust-gas economiser out,
 	// and the Contingencies listed; for speed.

@@ -1,7 +1,9 @@
 package plant
 
 import (
+	"context"
 	"math"
+	"reflect"
 	"testing"
 
 	"steamcase/plant/water"
@@ -59,6 +61,32 @@ func TestLineStateAtSaturation(t *testing.T) {
 					t.Errorf("%s: T %.17g, want %.17g (T_sat %.17g)", tc.name, r.T, want, ts)
 				}
 			}
+		}
+	}
+}
+
+// TestNoLineStates: a case solved with Options.NoLineStates has every
+// figure of the same case solved without it, and no lines (the option's
+// definition; no outside source).
+func TestNoLineStates(t *testing.T) {
+	t.Parallel()
+	full := scaledPlant(t, 2, 6)
+	bare := scaledPlant(t, 2, 6)
+	bare.Opt.NoLineStates = true
+	duty := full.Component("c1").(*Consumer).Duty
+	for _, f := range []float64{1, 4, 0.5} {
+		c := Case{Name: "lines", Set: []Setting{{Unit: "c1", Param: "duty", Value: f * duty}}}
+		a, err := full.Solve(context.Background(), c)
+		must(t, err)
+		b, err := bare.Solve(context.Background(), c)
+		must(t, err)
+		if len(a.Lines) != len(full.Lines()) || len(b.Lines) != 0 {
+			t.Fatalf("duty × %g: %d and %d lines reported, want %d and none", f, len(a.Lines), len(b.Lines), len(full.Lines()))
+		}
+		a.Lines = nil
+		b.Lines = nil
+		if !reflect.DeepEqual(a, b) {
+			t.Errorf("duty × %g: the results differ beyond the lines\nwith:    %+v\nwithout: %+v", f, a, b)
 		}
 	}
 }

@@ -96,6 +96,8 @@ type session struct {
 
 	ev  eval
 	jac jac // the Jacobian's remembered entry places
+	// nUnits and nConsumers are the lengths of the last report's lists.
+	nUnits, nConsumers int
 	// undo lists the parameters the case in hand changed (applySettings).
 	undo []undoSetting
 	// lus is the solver's Factorizer when the plant chose it (nil when
@@ -334,7 +336,7 @@ func (p *Plant) Solve(ctx context.Context, c Case) (*CaseResult, error) {
 
 	cr := &CaseResult{Name: c.Name, Series: c.Series, Pos: c.Pos, Conditions: c.Conditions, Forced: forced,
 		PrioritiesGiven: given, ShedRanks: s.nRanks, LeastFuel: lf}
-	if err := p.report(cr); err != nil {
+	if err := p.report(cr, !p.Opt.NoLineStates); err != nil {
 		return nil, err
 	}
 	if leadFallback {
@@ -538,8 +540,9 @@ func (p *Plant) solveErr(c Case, err error) error {
 	return se
 }
 
-// report fills cr from the last converged point.
-func (p *Plant) report(cr *CaseResult) error {
+// report fills cr from the last converged point, with the states of the
+// lines when lines is set.
+func (p *Plant) report(cr *CaseResult, lines bool) error {
 	s := p.s
 	ev := &s.ev
 	ev.x = s.last
@@ -548,22 +551,30 @@ func (p *Plant) report(cr *CaseResult) error {
 	cr.ResidualNorm = s.slvRes.ResidualNorm
 	cr.Solves = s.solves
 	cr.NewtonIterations = s.newton
-	cr.Units = make([]ComponentResult, 0, len(p.comps))
-	cr.Consumers = make([]ConsumerResult, 0, len(p.comps))
+	// The lists are made to the lengths of the last report (all the
+	// components' at the first), so that a case allocates each once.
+	if s.nUnits == 0 && s.nConsumers == 0 {
+		s.nUnits, s.nConsumers = len(p.comps), len(p.comps)
+	}
+	cr.Units = make([]ComponentResult, 0, s.nUnits)
+	cr.Consumers = make([]ConsumerResult, 0, s.nConsumers)
 	cr.Boilers = make([]BoilerResult, 0, len(s.asm.roles.boilers))
-	cr.Lines = make([]LineResult, 0, len(p.lines))
 	for _, c := range p.comps {
 		if err := c.report(ev, cr); err != nil {
 			return err
 		}
 	}
+	s.nUnits, s.nConsumers = max(len(cr.Units), 1), max(len(cr.Consumers), 1)
 	for _, c := range p.comps {
 		if f, ok := c.(finisher); ok {
 			f.finish(cr)
 		}
 	}
-	if err := p.reportLines(ev, cr); err != nil {
-		return err
+	if lines {
+		cr.Lines = make([]LineResult, 0, len(p.lines))
+		if err := p.reportLines(ev, cr); err != nil {
+			return err
+		}
 	}
 	p.reportTotals(cr)
 	b := &cr.boundary

@@ -717,10 +717,11 @@ func newAuditor(p *plant.Plant, spec AuditSpec, opt *AuditOptions) (*auditor, er
 
 	a := &auditor{spec: spec, opt: *opt, claimsOf: -1, out: res}
 	a.pl = p.Clone()
-	// The audit needs the fuel, not the saving, nor the N-1 answers
-	// (neither is in its result, and neither warns).
+	// The audit needs the fuel, not the saving, nor the N-1 answers, nor
+	// the lines' states (none is in its result, and none warns).
 	a.pl.Opt.NoEGESaving = true
 	a.pl.Opt.NoContingencies = true
+	a.pl.Opt.NoLineStates = true
 
 	// Days.
 	audited := 0
