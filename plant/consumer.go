@@ -676,10 +676,14 @@ func (u *Consumer) report(ev *eval, cr *CaseResult) error {
 	for _, w := range u.caseDuty.Warnings {
 		cr.warn("%s %q: %s", u.Kind(), u.Name, w)
 	}
-	if cooler > 0 && u.coolerNote != "" {
+	// The drain cooler's warnings need condensate through it: a consumer
+	// without flow (a standby boiler's burner heater) has a cooler duty
+	// of the solver's noise, of either sign.
+	cools := cooler > 0 && m > FlowFloor
+	if cools && u.coolerNote != "" {
 		cr.warn("%s %q: %s", u.Kind(), u.Name, u.coolerNote)
 	}
-	if cooler > 0 && u.coolerTo == coolerToFeed && u.feedPump != nil {
+	if cools && u.coolerTo == coolerToFeed && u.feedPump != nil {
 		// A feed-water heater on the return cannot cool the condensate
 		// below the feed it heats.
 		tf, err := u.feedPump.inletT(ev)

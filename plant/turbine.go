@@ -499,11 +499,13 @@ func (u *Turbine) report(ev *eval, cr *CaseResult) error {
 	m := ev.m(u.in)
 	drop := ev.h(u.in) - ev.h(u.out)
 	shaft := m * drop * u.etaMech()
+	// A stopped turbine (its steam at the solver's noise, below
+	// FlowFloor) has no steam rate or efficiency to report.
 	rate, etaIs := 0.0, 0.0
-	if shaft > 0 {
+	if shaft > 0 && m > FlowFloor {
 		rate = m / shaft * 3.6e6 // kg/kWh
 	}
-	if dhs > 0 && m > 0 {
+	if dhs > 0 && m > FlowFloor {
 		etaIs = drop / dhs
 	}
 	if u.form() != turbineIsentropic && etaIs > 1+1e-9 {
