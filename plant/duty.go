@@ -235,7 +235,7 @@ func (m *TankHeating) validate() error {
 // from the temperature held (or, heating up, from the start of the
 // heat-up), and, holding with MinT given, the time until the cargo cools
 // to MinT with the heating left on at delivered: with nothing delivered
-// the exact time of loads' TimeToCool (Cragoe's c linear in T), else
+// (at most a part in 1e9 of the loss) the exact time of loads' TimeToCool (Cragoe's c linear in T), else
 //
 //	t = (m·c/ΣUA)·ln((T0 − T_eq)/(MinT − T_eq)),  T_eq = T_amb + delivered/ΣUA,
 //
@@ -274,7 +274,11 @@ func (m *TankHeating) shedCooling(c Conditions, delivered float64) (*TankCooling
 		return nil, err
 	}
 	out.Reaches = true
-	if delivered <= 0 {
+	if delivered <= 1e-9*loss {
+		// Nothing delivered, or the solver's noise of a heating shed to
+		// nothing (1e-25 W): the exact time, which a part in 1e9 of the
+		// loss would move by about as much, where the formula below would
+		// move it by its simplification.
 		out.SecondsToMinT = tc.Elapsed
 		return out, nil
 	}

@@ -271,10 +271,15 @@ func (t *Totals) add(i int, hours float64, cr *plant.CaseResult) {
 		}
 	}
 	t.CapacityKgS = capAll
-	if t.PeakRow < 0 || fired > t.PeakBoilerKgS {
+	// A row takes the peak or the tightest margin from an earlier one only
+	// by more than a part in 1e9 of the capacity: rows that tie within the
+	// solver's tolerance (the same hour of two seasons) keep the first, not
+	// the one the last bits of their solves favour.
+	tie := 1e-9 * capAll
+	if t.PeakRow < 0 || fired > t.PeakBoilerKgS+tie {
 		t.PeakBoilerKgS, t.PeakRow = fired, i
 	}
-	if cr.MarginNextKgS < t.TightestMarginKgS {
+	if t.TightestRow < 0 || cr.MarginNextKgS < t.TightestMarginKgS-tie {
 		t.TightestMarginKgS, t.TightestRow = cr.MarginNextKgS, i
 	}
 	if !cr.CanCarry {
