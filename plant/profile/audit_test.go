@@ -492,15 +492,15 @@ func TestOverruns(t *testing.T) {
 // stops with an OverrunError, not at the deadline.
 func TestOverrunStopsEarly(t *testing.T) {
 	t.Parallel()
-	// 300 days of 200 samples on one worker: a day takes a few hundredths
-	// of a second (a few tenths with the race detector), the whole far
+	// 300 days of 2000 samples on one worker: a day takes about a tenth
+	// of a second (several tenths with the race detector), the whole far
 	// longer than the deadline.
 	days := auditDays(300)
 	const limit = 5 * time.Second
 	ctx, cancel := context.WithTimeout(context.Background(), limit)
 	defer cancel()
 	start := time.Now()
-	_, err := Audit(ctx, tanker(t), AuditSpec{Days: days, Uncertain: mixed()}, AuditOptions{Samples: 200, Workers: 1})
+	_, err := Audit(ctx, tanker(t), AuditSpec{Days: days, Uncertain: mixed()}, AuditOptions{Samples: 2000, Workers: 1})
 	var oe *OverrunError
 	if !errors.As(err, &oe) {
 		t.Fatalf("error %v; want an OverrunError", err)
