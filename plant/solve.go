@@ -102,7 +102,8 @@ type session struct {
 	undo []undoSetting
 	// lus is the solver's Factorizer when the plant chose it (nil when
 	// Options.Solver gives one): one sparse LU per firing configuration.
-	lus *luSet
+	lus   *luSet
+	trend trend
 }
 
 // domainErr marks a component's failure while the solver explores: the
@@ -129,7 +130,10 @@ func (p *Plant) residual(r, x []float64) error {
 }
 
 // solveConfig solves the plant with the boilers in fire firing, starting
-// from the last converged point when there is one.
+// from the last converged point when there is one (the first solve of a
+// case from the trend of the last cases, when it has one, and from the
+// last point if that fails other than by a firing boiler held at zero),
+// and from the plant's guess if that fails.
 func (p *Plant) solveConfig(ctx context.Context, fire []bool) error {
 	s := p.s
 	copy(s.fire, fire)
@@ -137,23 +141,42 @@ func (p *Plant) solveConfig(ctx context.Context, fire []bool) error {
 		s.x0 = make([]float64, s.prob.Dim)
 	}
 	warm := s.last != nil
-	if warm {
-		copy(s.x0, s.last)
-	} else {
-		p.guess(s.x0)
-	}
-	if s.noShed && s.shedIdx >= 0 {
-		s.x0[s.shedIdx] = 0
-	}
+	pred := warm && s.trend.usePred
+	s.trend.usePred = false
 	if s.lus != nil {
 		s.lus.use(s.configKey(p.Opt.Sharing == LeadLag))
 	}
-	res, err := s.slv.Solve(ctx, s.x0)
-	s.newton += res.Stats.Iterations
-	if err != nil && warm && ctx.Err() == nil {
-		p.guess(s.x0)
-		res, err = s.slv.Solve(ctx, s.x0)
+	solve := func(x0 []float64) (*solver.Result, error) {
+		if x0 == nil {
+			p.guess(s.x0)
+		} else {
+			copy(s.x0, x0)
+		}
+		if s.noShed && s.shedIdx >= 0 {
+			s.x0[s.shedIdx] = 0
+		}
+		res, err := s.slv.Solve(ctx, s.x0)
 		s.newton += res.Stats.Iterations
+		return res, err
+	}
+	var res *solver.Result
+	var err error
+	switch {
+	case pred:
+		res, err = solve(s.trend.pred)
+		var zero *firedAtZeroError
+		if err != nil && ctx.Err() == nil && !errors.As(err, &zero) {
+			// Not the sign of a configuration without a solution (a
+			// firing boiler held at zero steam): from the last point.
+			res, err = solve(s.last)
+		}
+	case warm:
+		res, err = solve(s.last)
+	default:
+		res, err = solve(nil)
+	}
+	if err != nil && warm && ctx.Err() == nil {
+		res, err = solve(nil)
 	}
 	s.slvRes = *res
 	if err != nil {
@@ -172,6 +195,7 @@ func (p *Plant) solveConfig(ctx context.Context, fire []bool) error {
 func (p *Plant) ColdStart() {
 	if p.s != nil {
 		p.s.last, p.s.hintSet = nil, false
+		p.s.trend.reset()
 	}
 }
 
@@ -296,6 +320,7 @@ func (p *Plant) Solve(ctx context.Context, c Case) (*CaseResult, error) {
 	s := p.s
 	s.ev = eval{cond: c.Conditions, pl: p}
 	s.solves, s.newton = 0, 0
+	s.trendBegin(&c)
 
 	s.shares, s.equalShare = nil, false
 	given := p.rankShedding()

@@ -48,6 +48,7 @@ func (p *Plant) UseStart(st *Start) {
 	}
 	copy(s.last, st.x)
 	s.hint, s.hintSet = st.hint, st.hintSet
+	s.trend.reset()
 }
 
 // Predict sets st to base moved along the differences of dirs from base,
