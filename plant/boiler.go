@@ -149,8 +149,16 @@ type Boiler struct {
 	effOp       BoilerOperation
 	effPt       EfficiencyPoint
 	effSet      bool
-	cyc         cycleParams // the case's cycling figures (prepare)
-	warmed      bool        // a warming consumer keeps it warm (set by the consumer's link)
+	// effProd and effLoss hold the flue gas and losses effPt points to,
+	// for a model that writes into them (pointFiller).
+	effProd combustion.Products
+	effLoss combustion.LossItems
+	// mcrPt, mcrProd and mcrLoss are etaAtMCR's scratch.
+	mcrPt   EfficiencyPoint
+	mcrProd combustion.Products
+	mcrLoss combustion.LossItems
+	cyc     cycleParams // the case's cycling figures (prepare)
+	warmed  bool        // a warming consumer keeps it warm (set by the consumer's link)
 }
 
 // cycleParams are a boiler's figures of its on-off cycling below its
@@ -544,8 +552,14 @@ func (u *Boiler) etaAtMCR(c Conditions, cp *cycleParams) (float64, error) {
 	for i := 0; i < 2; i++ {
 		op := BoilerOperation{Load: 1, DrumP: u.DrumP, FeedT: nominalFeedT, AirT: u.airTOf(c),
 			FuelFlow: q / (u.Fuel.LHV * eta), Fuel: u.Fuel}
-		pt, err := u.Efficiency.Efficiency(op)
-		if err != nil {
+		var pt EfficiencyPoint
+		if f, ok := u.Efficiency.(pointFiller); ok {
+			// Into the boiler's scratch, apart from its memo's.
+			if err := f.efficiencyInto(op, &u.mcrPt, &u.mcrProd, &u.mcrLoss); err != nil {
+				return 0, err
+			}
+			pt = u.mcrPt
+		} else if pt, err = u.Efficiency.Efficiency(op); err != nil {
 			return 0, err
 		}
 		if !finite(pt.Eta) || pt.Eta <= 0 || pt.Eta > 1 {
@@ -699,7 +713,16 @@ func (u *Boiler) eta(ev *eval) (pt EfficiencyPoint, cycling bool, err error) {
 	if u.effSet && op == u.effOp {
 		pt = u.effPt
 	} else {
-		pt, err = u.Efficiency.Efficiency(op)
+		if f, ok := u.Efficiency.(pointFiller); ok {
+			// Into the boiler's own storage (the memo's point, its flue
+			// gas and losses) until the next evaluation at another
+			// operation.
+			u.effSet = false
+			err = f.efficiencyInto(op, &u.effPt, &u.effProd, &u.effLoss)
+			pt = u.effPt
+		} else {
+			pt, err = u.Efficiency.Efficiency(op)
+		}
 		if err != nil {
 			u.effSet = false
 			return EfficiencyPoint{}, false, err

@@ -31,12 +31,13 @@ type Economiser struct {
 	DesignGasFlow float64 // kg/s; zero: UA is constant
 	Exponent      float64 // n of UA ∝ ṁ_gas^n; zero means 0.65
 
-	in, out *Line
-	b       *Boiler
-	eqs     [3]int
-	mcp     memo
-	last    heat.ExchangerResult
-	lastGas gasSide
+	in, out  *Line
+	b        *Boiler
+	eqs      [3]int
+	mcp      memo
+	last     heat.ExchangerResult
+	lastGas  gasSide
+	lastProd combustion.Products
 }
 
 // NewEconomiser returns a flue-gas economiser; give it its boiler and UA.
@@ -236,6 +237,14 @@ func (u *Economiser) report(ev *eval, cr *CaseResult) error {
 		{"UA_W_per_K", u.ua(g.m)},
 	}})
 	cr.boundary.heatIn += res.Q
+	// The boiler's flue gas, kept for finish in the economiser's own
+	// copy: the boiler's point refers to storage its next evaluation
+	// writes.
+	if g.prod != nil {
+		u.lastProd = *g.prod
+		g.prod, g.pt.Products = &u.lastProd, &u.lastProd
+	}
+	g.pt.Losses = nil
 	u.last, u.lastGas = res, g
 	return nil
 }

@@ -200,45 +200,66 @@ func (t *FlueGasTable) loadOnly() bool { return true }
 
 // Efficiency computes the efficiency at op by the heat-loss method.
 func (t *FlueGasTable) Efficiency(op BoilerOperation) (EfficiencyPoint, error) {
+	var pt EfficiencyPoint
+	if err := t.efficiencyInto(op, &pt, new(combustion.Products), new(combustion.LossItems)); err != nil {
+		return EfficiencyPoint{}, err
+	}
+	return pt, nil
+}
+
+// efficiencyInto is Efficiency writing the point into dst, its flue gas
+// and losses into prod and loss (dst's pointers): a boiler's residual
+// gives its own storage, so that it allocates nothing.
+func (t *FlueGasTable) efficiencyInto(op BoilerOperation, dst *EfficiencyPoint, prod *combustion.Products, loss *combustion.LossItems) error {
 	if op.Fuel.Fuel == nil {
-		return EfficiencyPoint{}, fmt.Errorf("a flue-gas efficiency table needs the fuel's analysis; fuel %q has none", op.Fuel.Name)
+		return fmt.Errorf("a flue-gas efficiency table needs the fuel's analysis; fuel %q has none", op.Fuel.Name)
 	}
 	ft, w1 := interpolate(t.Load, t.FlueT, op.Load, "flue-gas table")
 	o2, _ := interpolate(t.Load, t.O2Dry, op.Load, "flue-gas table")
-	return lossMethod(op, ft, combustion.Conditions{O2Dry: o2}, t.RadiationAtMCR, t.RelativeHumidity, t.AtomisingSteam, t.COppm, w1)
+	return lossMethod(op, ft, combustion.Conditions{O2Dry: o2}, t.RadiationAtMCR, t.RelativeHumidity, t.AtomisingSteam, t.COppm, w1, dst, prod, loss)
 }
 
-// lossMethod fires the fuel under c at op's air temperature and returns the
-// heat-loss efficiency at exit temperature flueT, referred to 25 °C.
-func lossMethod(op BoilerOperation, flueT float64, c combustion.Conditions, radAtMCR, rh, atomising, co float64, warn string) (EfficiencyPoint, error) {
+// lossMethod fires the fuel under c at op's air temperature and writes
+// into dst the heat-loss efficiency at exit temperature flueT, referred
+// to 25 °C, with its flue gas in prod and its losses in loss.
+func lossMethod(op BoilerOperation, flueT float64, c combustion.Conditions, radAtMCR, rh, atomising, co float64, warn string,
+	dst *EfficiencyPoint, prod *combustion.Products, loss *combustion.LossItems) error {
 	c.AirT = op.AirT
 	c.RelativeHumidity = rh
 	c.AtomisingSteam = atomising
-	prod, err := combustion.Fire(*op.Fuel.Fuel, c)
-	if err != nil {
-		return EfficiencyPoint{}, err
+	var err error
+	if *prod, err = combustion.Fire(*op.Fuel.Fuel, c); err != nil {
+		return err
 	}
 	load := math.Max(op.Load, 0.05)
 	lo := combustion.LossOptions{COppmDry: co}
 	if radAtMCR > 0 {
 		lo.Radiation = combustion.Radiation{PercentAtMCR: 100 * radAtMCR, LoadFraction: load}
 	}
-	l, err := combustion.Efficiency(prod, flueT, combustion.TRef, lo)
+	l, err := combustion.Efficiency(*prod, flueT, combustion.TRef, lo)
 	if err != nil {
-		return EfficiencyPoint{}, err
+		return err
 	}
-	items := l.LHV
-	return EfficiencyPoint{
-		Eta:            items.Efficiency / 100,
+	*loss = l.LHV
+	*dst = EfficiencyPoint{
+		Eta:            loss.Efficiency / 100,
 		Warning:        warn,
 		FlueT:          flueT,
 		Lambda:         prod.Lambda,
 		AirPerFuel:     prod.Air,
 		FlueGasPerFuel: prod.FlueGas,
-		Losses:         &items,
-		Products:       &prod,
+		Losses:         loss,
+		Products:       prod,
 		LossOptions:    lo,
-	}, nil
+	}
+	return nil
+}
+
+// pointFiller is an efficiency model that can write its point, flue gas
+// and losses into the caller's storage (efficiencyInto), which a boiler's
+// residual uses so as to allocate nothing.
+type pointFiller interface {
+	efficiencyInto(op BoilerOperation, dst *EfficiencyPoint, prod *combustion.Products, loss *combustion.LossItems) error
 }
 
 // FurnaceTubes computes a fire-tube boiler's efficiency from its geometry:
@@ -397,11 +418,22 @@ func (m *FurnaceTubes) path(op BoilerOperation, fuelFlow float64) (combustion.Pr
 // Efficiency follows the gas at op's fuel flow and applies the heat-loss
 // method at its exit temperature.
 func (m *FurnaceTubes) Efficiency(op BoilerOperation) (EfficiencyPoint, error) {
-	fuelFlow := math.Max(op.FuelFlow, 1e-6)
-	prod, gp, warn, err := m.path(op, fuelFlow)
-	if err != nil {
+	var pt EfficiencyPoint
+	if err := m.efficiencyInto(op, &pt, new(combustion.Products), new(combustion.LossItems)); err != nil {
 		return EfficiencyPoint{}, err
 	}
+	return pt, nil
+}
+
+// efficiencyInto is Efficiency writing into the caller's storage (see
+// pointFiller).
+func (m *FurnaceTubes) efficiencyInto(op BoilerOperation, dst *EfficiencyPoint, prod *combustion.Products, loss *combustion.LossItems) error {
+	fuelFlow := math.Max(op.FuelFlow, 1e-6)
+	pr, gp, warn, err := m.path(op, fuelFlow)
+	if err != nil {
+		return err
+	}
+	*prod = pr
 	exit := gp.FurnaceExit
 	if n := len(gp.PassExit); n > 0 {
 		exit = gp.PassExit[n-1]
@@ -410,13 +442,14 @@ func (m *FurnaceTubes) Efficiency(op BoilerOperation) (EfficiencyPoint, error) {
 	if m.RadiationLoss > 0 {
 		lo.Radiation = combustion.Radiation{Loss: m.RadiationLoss, FuelFlow: fuelFlow}
 	}
-	l, err := combustion.Efficiency(prod, exit, combustion.TRef, lo)
+	l, err := combustion.Efficiency(*prod, exit, combustion.TRef, lo)
 	if err != nil {
-		return EfficiencyPoint{}, err
+		return err
 	}
-	items := l.LHV
-	return EfficiencyPoint{Eta: items.Efficiency / 100, Warning: warn, FlueT: exit, Lambda: prod.Lambda,
-		AirPerFuel: prod.Air, FlueGasPerFuel: prod.FlueGas, Losses: &items, Products: &prod, LossOptions: lo}, nil
+	*loss = l.LHV
+	*dst = EfficiencyPoint{Eta: loss.Efficiency / 100, Warning: warn, FlueT: exit, Lambda: prod.Lambda,
+		AirPerFuel: prod.Air, FlueGasPerFuel: prod.FlueGas, Losses: loss, Products: prod, LossOptions: lo}
+	return nil
 }
 
 // CalibrateSoot finds the soot fouling resistance on the gas side of every

@@ -142,7 +142,9 @@ func TestBurnerCannotFire(t *testing.T) {
 	op := BoilerOperation{Load: 1, DrumP: gauge(7), AirT: 308.15, FuelFlow: 0.05, Fuel: hsfo(t)}
 	f := *op.Fuel.Fuel
 	op.Fuel.Fuel = &f
-	_, err := lossMethod(op, 523.15, combustion.Conditions{O2Dry: 0.03, DryAir: [combustion.NumSpecies]float64{combustion.N2: 1}}, 0, 0, 0, 0, "")
+	var pt EfficiencyPoint
+	err := lossMethod(op, 523.15, combustion.Conditions{O2Dry: 0.03, DryAir: [combustion.NumSpecies]float64{combustion.N2: 1}}, 0, 0, 0, 0, "",
+		&pt, new(combustion.Products), new(combustion.LossItems))
 	if err == nil || !strings.Contains(err.Error(), "cannot fire") {
 		t.Errorf("air without oxygen: error %v, want one saying the burner cannot fire", err)
 	}
