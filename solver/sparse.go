@@ -99,6 +99,26 @@ type SparseLU struct {
 	// a pattern.
 	MinDegree bool
 
+	// Alternates is how many symbolic factorisations SparseLU keeps
+	// besides the current one, with MinDegree and a pattern (the static
+	// mode): when a factorisation choosing its pivots afresh finds a kept
+	// pivot changed at some step, it goes on with a kept alternate that
+	// has the same pivots before that step (it has their structure) and
+	// the pivot chosen at it, instead of finding the structure of the
+	// remaining columns again by depth-first search; a sequence of
+	// pivots not kept is found by the search and kept, the alternate
+	// used least recently giving way. The factors are bit for bit those
+	// of a factorisation from scratch whichever structure served (see
+	// "The kept structure"): only the time differs. Each alternate holds
+	// its own factors, so the storage grows by that many times the fill.
+	// Zero keeps none. RefactorSparse does not use them.
+	Alternates int
+
+	// alts are the kept alternates (see Alternates); tick orders their
+	// use.
+	alts []luStore
+	tick uint64
+
 	n      int
 	ap, ai []int // A in compressed columns
 	ax     []float64
@@ -175,6 +195,7 @@ func (s *SparseLU) SetPattern(n int, pattern [][]int) {
 	if pattern == nil {
 		if s.pp != nil {
 			s.symOK = false // the structure of A changes
+			s.dropAlternates()
 		}
 		s.pn, s.pp, s.pr, s.q, s.static, s.srcPat, s.fillBound = 0, nil, nil, nil, false, nil, 0
 		return
@@ -223,6 +244,7 @@ func (s *SparseLU) setPattern(n int, ptr, col []int) {
 	}
 	s.srcPat = nil
 	s.symOK = false
+	s.dropAlternates()
 }
 
 // bind makes the pattern of a agree with SparseLU's, taking a's pattern
@@ -291,6 +313,7 @@ func (s *SparseLU) ensure(n int) {
 	s.sp = make([]int, n+1)
 	s.sp0 = make([]int, n+1)
 	s.symOK = false
+	s.alts = nil
 }
 
 // Factorize implements Factorizer, choosing the pivots afresh.
@@ -443,6 +466,102 @@ func (s *SparseLU) tol() float64 {
 	return 0.1
 }
 
+// luStore is the storage of one factorisation, its structure and values:
+// SparseLU's current one lives in its own fields, its alternates here.
+type luStore struct {
+	lp, lrow, li []int
+	lx           []float64
+	pivAt        []int
+	up, ui       []int
+	ux           []float64
+	pinv, piv    []int
+	ok           bool // a complete structure of the current pattern
+	used         uint64
+}
+
+// swap exchanges the current factorisation's storage with a's.
+func (s *SparseLU) swap(a *luStore) {
+	s.lp, a.lp = a.lp, s.lp
+	s.lrow, a.lrow = a.lrow, s.lrow
+	s.li, a.li = a.li, s.li
+	s.lx, a.lx = a.lx, s.lx
+	s.pivAt, a.pivAt = a.pivAt, s.pivAt
+	s.up, a.up = a.up, s.up
+	s.ui, a.ui = a.ui, s.ui
+	s.ux, a.ux = a.ux, s.ux
+	s.pinv, a.pinv = a.pinv, s.pinv
+	s.piv, a.piv = a.piv, s.piv
+}
+
+// alternate returns the index of the kept alternate used last whose
+// pivots before step k are the current ones, and at step k not the
+// current one's (which has just failed there), among those not tried
+// (bits of tried); −1 if none.
+func (s *SparseLU) alternate(k int, tried uint64) int {
+	best := -1
+	for i := range s.alts {
+		a := &s.alts[i]
+		if tried&(1<<i) != 0 || !a.ok || a.piv[k] == s.piv[k] || !slices.Equal(a.piv[:k], s.piv[:k]) {
+			continue
+		}
+		if best < 0 || a.used > s.alts[best].used {
+			best = i
+		}
+	}
+	return best
+}
+
+// switchTo makes alternate a current, with the values of the columns
+// before step k from the factorisation in hand (the same structure: the
+// same pivots before k), and keeps the one in hand as the alternate.
+func (s *SparseLU) switchTo(a *luStore, k int) {
+	s.swap(a)
+	copy(s.lx[:s.lp[k]], a.lx[:a.lp[k]])
+	copy(s.ux[:s.up[k]], a.ux[:a.up[k]])
+	s.tick++
+	a.used, a.ok = s.tick, true
+}
+
+// keepForSearch keeps the factorisation in hand, whose kept pivot failed
+// at step k, as an alternate, and makes current the storage of the
+// alternate used least recently (or a new one) with the structure and
+// values of the columns before k copied in, for general to complete.
+func (s *SparseLU) keepForSearch(k int) {
+	if len(s.alts) < min(s.Alternates, maxAlternates) {
+		s.alts = append(s.alts, luStore{lp: make([]int, s.n+1), up: make([]int, s.n+1),
+			pinv: make([]int, s.n), piv: make([]int, s.n), pivAt: make([]int, s.n)})
+	}
+	a := &s.alts[0]
+	for i := range s.alts {
+		if s.alts[i].used < a.used || !s.alts[i].ok && a.ok {
+			a = &s.alts[i]
+		}
+	}
+	s.swap(a) // a holds the factorisation in hand now
+	s.tick++
+	a.used, a.ok = s.tick, true
+	copy(s.lp[:k+1], a.lp[:k+1])
+	copy(s.up[:k+1], a.up[:k+1])
+	s.lrow = append(s.lrow[:0], a.lrow[:a.lp[k]]...)
+	s.lx = append(s.lx[:0], a.lx[:a.lp[k]]...)
+	s.ui = append(s.ui[:0], a.ui[:a.up[k]]...)
+	s.ux = append(s.ux[:0], a.ux[:a.up[k]]...)
+	copy(s.pivAt[:k], a.pivAt[:k])
+	copy(s.piv[:k], a.piv[:k])
+	copy(s.pinv, a.pinv) // general frees the rows of steps k on
+}
+
+// maxAlternates bounds Alternates (a bit each in factor's record of the
+// alternates tried).
+const maxAlternates = 64
+
+// dropAlternates forgets the alternates (a new pattern or order).
+func (s *SparseLU) dropAlternates() {
+	for i := range s.alts {
+		s.alts[i].ok = false
+	}
+}
+
 // factor factorises the A of ap, ai, ax (its 1-norm in anorm). With keep,
 // the kept pivots stay where they pass the threshold.
 func (s *SparseLU) factor(keep bool) error {
@@ -455,13 +574,32 @@ func (s *SparseLU) factor(keep bool) error {
 	s.kept = 0
 	tol := s.tol()
 	k0 := 0
+	alts := kept && !keep && s.static && min(s.Alternates, maxAlternates) > 0
 	if kept {
 		var err error
-		if k0, err = s.fast(keep, tol); err != nil {
+		if k0, err = s.fast(0, keep, tol); err != nil {
 			return err
+		}
+		// Each alternate is tried once: the one switched to takes the
+		// place of the factorisation that failed, which is not tried
+		// again.
+		var tried uint64
+		for alts && k0 < s.n {
+			i := s.alternate(k0, tried)
+			if i < 0 {
+				break
+			}
+			tried |= 1 << i
+			s.switchTo(&s.alts[i], k0)
+			if k0, err = s.fast(k0, keep, tol); err != nil {
+				return err
+			}
 		}
 	}
 	if k0 < s.n {
+		if alts {
+			s.keepForSearch(k0)
+		}
 		if err := s.general(k0, keep, tol); err != nil {
 			return err
 		}
@@ -472,15 +610,16 @@ func (s *SparseLU) factor(keep bool) error {
 	return nil
 }
 
-// fast refactorises the columns on the kept structure, writing the values
-// into the kept storage, and returns the first column it cannot do: one
+// fast refactorises the columns from step from on the kept structure
+// (the earlier ones being done), writing the values into the kept storage,
+// and returns the first column it cannot do: one
 // whose structure in A changed (without the static mode) or whose pivot
 // is not the kept one (by the fresh rule, or with keep by the threshold).
 // The arithmetic is that of general, operation for operation.
-func (s *SparseLU) fast(keep bool, tol float64) (int, error) {
+func (s *SparseLU) fast(from int, keep bool, tol float64) (int, error) {
 	n := s.n
 	x := s.x
-	for k := 0; k < n; k++ {
+	for k := from; k < n; k++ {
 		if !s.static && !s.sameColumn(k) {
 			return k, nil
 		}
