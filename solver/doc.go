@@ -191,9 +191,10 @@
 // SparseLU, a left-looking sparse LU with threshold partial pivoting
 // (Gilbert and Peierls 1988), can be set in Settings.Factorizer for large
 // sparse Jacobians (it is the default with a SparseJacobian); it takes the
-// columns in their natural order unless SparseLU.MinDegree asks for a
-// minimum degree order found once from the Pattern (the pattern's zeros
-// are then kept in the structure). It keeps the symbolic part of each
+// columns in their natural order unless SparseLU.MinDegree asks for an
+// approximate minimum degree order found once from the Pattern (on a
+// quotient graph of AᵀA, in the manner of AMD and COLAMD; the pattern's
+// zeros are then kept in the structure). It keeps the symbolic part of each
 // factorisation (the reach of each column, the structure of L and U, the
 // pivots) and refactorises on it without any search, writing into the
 // kept storage, for as long as each pivot is the one kept; from the first
