@@ -215,6 +215,9 @@ func (s *Solver) fdStep(j int, x []float64) float64 {
 func (s *Solver) fdJacobian(x, r []float64, it int) error {
 	n := s.n
 	copy(s.xt, x)
+	if s.sj != nil && s.colPos == nil {
+		s.colorPositions() // an analytic problem's first differences
+	}
 	if s.color == nil {
 		raw := s.jac.RawMatrix()
 		for j := 0; j < n; j++ {

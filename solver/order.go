@@ -97,53 +97,60 @@ const (
 	qDense         // left out as dense
 )
 
+// maxGraphOrder is the largest order the quotient graph's 32-bit lists
+// can number (3n nodes, marks counting eliminations).
+const maxGraphOrder = 1 << 29
+
 // quotientGraph is the state of minDegreeOrder. Nodes 0..n−1 are the
 // columns (variables), nodes n..3n−1 the elements: n+r is the element of
-// row r, 2n+c the element column c became when eliminated. Each node's
-// list is iw[start:start+size]: a column's elements, an element's
-// columns (merged columns are skipped where met and dropped when the
-// storage is compacted).
+// row r, 2n+c the element column c became when eliminated; lists hold
+// element numbers (node − n) and columns. Each node's list is
+// iw[start:start+size]: a column's elements, an element's columns
+// (merged columns are skipped where met and dropped when the storage is
+// compacted). The lists and per-node numbers are 32-bit, which halves
+// the graph's memory.
 type quotientGraph struct {
 	n        int
-	iw       []int
-	tail     int   // iw[tail:] is free
-	start    []int // of each node's list
-	size     []int // of each node's list
-	nv       []int // columns in each principal column's supervariable
-	esize    []int // Σ nv over the columns of each element (by element: node − n)
+	iw       []int32
+	tail     int32   // iw[tail:] is free
+	start    []int32 // of each node's list
+	size     []int32 // of each node's list
+	nv       []int32 // columns in each principal column's supervariable
+	esize    []int32 // Σ nv over the columns of each element (by element number)
 	state    []int8
-	dead     []bool // elements absorbed or not kept (by element)
-	deg      []int  // approximate external degree of each principal column
-	next     []int  // the next column of a supervariable, −1 at its end
-	last     []int  // the last column of a principal column's supervariable
-	hash     []int  // of each column's element list, at its last update
-	hnext    []int  // chains of the hash buckets
-	head     []int  // heads of the hash buckets, −1 when empty
-	vmark    []int  // vmark[i] == vtag: column i is in the list being built
-	emark    []int  // emark[e] == etag: w[e] is valid for this elimination
-	cmark    []int  // cmark[e] == ctag: element e is in the list compared
-	w        []int  // |Le \ Lp| of the elements met
-	first    []int  // work space of the compaction
-	touched  []int  // elements met in this elimination
-	vtag     int
-	etag     int
-	ctag     int
+	dead     []bool  // elements absorbed or not kept (by element number)
+	next     []int32 // the next column of a supervariable, −1 at its end
+	last     []int32 // the last column of a principal column's supervariable
+	hash     []int32 // of each column's element list, at its last update
+	hnext    []int32 // chains of the hash buckets
+	head     []int32 // heads of the hash buckets, −1 when empty
+	vmark    []int32 // vmark[i] == vtag: column i is in the list being built
+	emark    []int32 // emark[e] == etag: w[e] is valid, or e is in the list compared
+	w        []int32 // |Le \ Lp| of the elements met
+	first    []int32 // work space of the compaction, made when first needed
+	touched  []int32 // elements met in this elimination
+	vtag     int32
+	etag     int32
 	left     int // columns left to eliminate (Σ nv of the live columns)
 	fill     int
 	dense    bool // a row or column was left out
 	h        *degreeHeap
-	denseCol []int
+	deg      []int // approximate external degree of each principal column
 	penalty  []int // the lengths less one of the dense rows of each column
 	dsig     []int // a signature of the dense rows of each column
+	denseCol []int
 }
 
 // newQuotientGraph builds the quotient graph of the matrix of order n in
 // compressed columns pp, pr, leaving out the rows and columns of more
 // than limit entries.
 func newQuotientGraph(n int, pp, pr []int, limit int) *quotientGraph {
+	if n >= maxGraphOrder {
+		panic("solver: minimum degree order of a matrix of order " + itoa(n) + ", above the limit " + itoa(maxGraphOrder))
+	}
 	g := &quotientGraph{n: n}
 	g.state = make([]int8, n)
-	rowCount := make([]int, n)
+	rowCount := make([]int32, n) // of each row, in the columns not dense; −1 for a dense row
 	for j := 0; j < n; j++ {
 		if pp[j+1]-pp[j] > limit {
 			g.state[j] = qDense
@@ -156,106 +163,87 @@ func newQuotientGraph(n int, pp, pr []int, limit int) *quotientGraph {
 		}
 	}
 	entries := 0
-	dlen := make([]int, n)
-	for i, c := range rowCount {
-		if c > limit {
-			dlen[i] = c
-			rowCount[i] = -1 // a dense row
+	g.penalty = make([]int, n)
+	g.dsig = make([]int, n)
+	for _, c := range rowCount {
+		if int(c) > limit {
 			g.dense = true
 		} else {
-			entries += c
+			entries += int(c)
 		}
 	}
 	nodes := 3 * n
-	g.iw = make([]int, 2*entries+2*n)
-	g.start = make([]int, nodes)
-	g.size = make([]int, nodes)
-	// The columns' lists: their rows that are not dense (as elements).
-	g.penalty = make([]int, n)
-	g.dsig = make([]int, n)
+	g.iw = make([]int32, 2*entries+2*n)
+	g.start = make([]int32, nodes)
+	g.size = make([]int32, nodes)
+	// The columns' lists: their rows that are not dense (as elements);
+	// a dense row adds its length less one to the penalty of each.
 	for j := 0; j < n; j++ {
 		g.start[j] = g.tail
 		if g.state[j] == qDense {
 			continue
 		}
 		for p := pp[j]; p < pp[j+1]; p++ {
-			if r := pr[p]; rowCount[r] >= 0 {
-				g.iw[g.tail] = r
+			r := pr[p]
+			if c := int(rowCount[r]); c <= limit {
+				g.iw[g.tail] = int32(r)
 				g.tail++
 			} else {
-				g.penalty[j] += dlen[r] - 1
+				g.penalty[j] += c - 1
 				g.dsig[j] += int(uint64(r+1) * 0x9e3779b97f4a7c15 >> 4)
 			}
 		}
 		g.size[j] = g.tail - g.start[j]
 	}
 	// The rows' lists: their columns that are not dense.
+	g.dead = make([]bool, 2*n)
 	for i, c := range rowCount {
 		e := n + i
 		g.start[e] = g.tail
-		if c > 0 {
-			g.size[e] = c
-			g.tail += c
+		if c == 0 || int(c) > limit {
+			g.dead[i] = true // an empty row or a dense one: no element
+			continue
 		}
-	}
-	fill := g.size[n : 2*n] // reused as the next place in each row's list
-	for i := range fill {
-		fill[i] = 0
+		g.tail += c
 	}
 	for j := 0; j < n; j++ {
-		for _, r := range g.iw[g.start[j] : g.start[j]+g.size[j]] {
-			e := n + r
-			g.iw[g.start[e]+fill[r]] = j
-			fill[r]++
+		for _, r := range g.list(j) {
+			e := n + int(r)
+			g.iw[g.start[e]+g.size[e]] = int32(j)
+			g.size[e]++
 		}
 	}
-	for i, c := range rowCount { // fill[i] is now c
-		if c < 0 {
-			fill[i] = 0
-		}
-	}
-	g.nv = make([]int, n)
-	g.esize = make([]int, 2*n)
-	g.dead = make([]bool, 2*n)
+	g.nv = make([]int32, n)
+	g.esize = make([]int32, 2*n)
 	g.deg = make([]int, n)
-	g.next = make([]int, n)
-	g.last = make([]int, n)
-	g.hash = make([]int, n)
-	g.hnext = make([]int, n)
-	g.head = make([]int, n)
-	g.vmark = make([]int, n)
-	g.emark = make([]int, 2*n)
-	g.cmark = make([]int, 2*n)
-	g.w = make([]int, 2*n)
-	g.first = make([]int, nodes)
+	g.next = make([]int32, n)
+	g.last = make([]int32, n)
+	g.hash = make([]int32, n)
+	g.hnext = make([]int32, n)
+	g.head = make([]int32, n)
+	g.vmark = make([]int32, n)
+	g.emark = make([]int32, 2*n)
+	g.w = make([]int32, 2*n)
+	live := rowCount[:0] // reused: the live columns
 	for j := 0; j < n; j++ {
-		g.next[j], g.last[j], g.head[j] = -1, j, -1
+		g.next[j], g.last[j], g.head[j] = -1, int32(j), -1
 		if g.state[j] == qLive {
 			g.nv[j] = 1
 			g.left++
-		}
-	}
-	for i, c := range rowCount {
-		if c <= 0 {
-			g.dead[i] = true
+			live = append(live, int32(j))
 		}
 	}
 	// Columns with the same rows are indistinguishable from the start.
-	live := make([]int, 0, n)
-	for j := 0; j < n; j++ {
-		if g.state[j] == qLive {
-			g.hash[j] = g.listHash(j)
-			live = append(live, j)
-		}
+	for _, j := range live {
+		g.hash[j] = g.listHash(int(j))
 	}
 	g.mergeIndistinguishable(live)
-	for i := range rowCount {
+	for i := 0; i < n; i++ {
 		if g.dead[i] {
 			continue
 		}
-		e := n + i
-		s := 0
-		for _, j := range g.iw[g.start[e] : g.start[e]+g.size[e]] {
+		var s int32
+		for _, j := range g.list(n + i) {
 			s += g.nv[j]
 		}
 		g.esize[i] = s
@@ -266,34 +254,45 @@ func newQuotientGraph(n int, pp, pr []int, limit int) *quotientGraph {
 			continue
 		}
 		d := 0
-		for _, e := range g.list(j) {
-			d += g.esize[e] - g.nv[j]
+		for _, e := range g.list(int(j)) {
+			d += int(g.esize[e] - g.nv[j])
 		}
-		g.deg[j] = min(d, g.left-g.nv[j])
-		g.h.push(j, g.deg[j]+g.penalty[j])
+		g.deg[j] = min(d, g.left-int(g.nv[j]))
+		g.h.push(int(j), g.deg[j]+g.penalty[j])
 	}
 	return g
 }
 
-// list returns the list of node j (a column's elements, as element
+// list returns the list of a node (a column's elements, as element
 // numbers 0..2n−1; an element's columns).
-func (g *quotientGraph) list(node int) []int {
+func (g *quotientGraph) list(node int) []int32 {
 	return g.iw[g.start[node] : g.start[node]+g.size[node]]
 }
 
 // listHash hashes the elements of column j (order-independent).
-func (g *quotientGraph) listHash(j int) int {
-	h := g.size[j]
+func (g *quotientGraph) listHash(j int) int32 {
+	h := int(g.size[j])
 	for _, e := range g.list(j) {
-		h += e
+		h += int(e)
 	}
-	return h % g.n
+	return int32(h % g.n)
+}
+
+// nextETag returns a fresh tag for emark, clearing the marks when the
+// tags run out.
+func (g *quotientGraph) nextETag() int32 {
+	if g.etag == 1<<31-1 {
+		clear(g.emark)
+		g.etag = 0
+	}
+	g.etag++
+	return g.etag
 }
 
 // mergeIndistinguishable merges, among the live columns cols (whose
-// hashes are set), those whose element lists are the same set: the later
-// ones in cols into the first.
-func (g *quotientGraph) mergeIndistinguishable(cols []int) {
+// hashes are set), those whose element lists are the same set and that
+// are in the same dense rows: the later ones in cols into the first.
+func (g *quotientGraph) mergeIndistinguishable(cols []int32) {
 	for k := len(cols) - 1; k >= 0; k-- { // chains in the order of cols
 		j := cols[k]
 		if g.state[j] != qLive {
@@ -315,24 +314,25 @@ func (g *quotientGraph) mergeIndistinguishable(cols []int) {
 			if g.state[a] != qLive {
 				continue
 			}
-			g.ctag++
-			la := g.list(a)
+			tag := g.nextETag()
+			la := g.list(int(a))
 			for _, e := range la {
-				g.cmark[e] = g.ctag
+				g.emark[e] = tag
 			}
 			for c := g.hnext[a]; c >= 0; c = g.hnext[c] {
-				if g.state[c] != qLive || g.size[c] != len(la) || g.hash[c] != g.hash[a] || g.penalty[c] != g.penalty[a] || g.dsig[c] != g.dsig[a] {
+				if g.state[c] != qLive || int(g.size[c]) != len(la) || g.hash[c] != g.hash[a] ||
+					g.penalty[c] != g.penalty[a] || g.dsig[c] != g.dsig[a] {
 					continue
 				}
 				same := true
-				for _, e := range g.list(c) {
-					if g.cmark[e] != g.ctag {
+				for _, e := range g.list(int(c)) {
+					if g.emark[e] != tag {
 						same = false
 						break
 					}
 				}
 				if same {
-					g.merge(c, a)
+					g.merge(int(c), int(a))
 				}
 			}
 		}
@@ -345,7 +345,7 @@ func (g *quotientGraph) merge(c, a int) {
 	g.nv[a] += g.nv[c]
 	g.nv[c] = 0
 	g.state[c] = qMerged
-	g.next[g.last[a]] = c
+	g.next[g.last[a]] = int32(c)
 	g.last[a] = g.last[c]
 	g.size[c] = 0
 	if g.h != nil {
@@ -360,8 +360,8 @@ func (g *quotientGraph) eliminate() []int {
 	for g.h.len() > 0 {
 		p := g.h.pop()
 		g.ensureFree(g.h.len())
-		for k := p; k >= 0; k = g.next[k] {
-			order = append(order, k)
+		for k := int32(p); k >= 0; k = g.next[k] {
+			order = append(order, int(k))
 		}
 		g.pivot(p)
 	}
@@ -374,10 +374,14 @@ func (g *quotientGraph) eliminate() []int {
 // degrees).
 func (g *quotientGraph) pivot(p int) {
 	n := g.n
-	np := g.nv[p]
+	np := int(g.nv[p])
 	g.state[p] = qGone
 	g.left -= np
 	// Lp: the columns of p's elements, which it absorbs.
+	if g.vtag == 1<<31-1 {
+		clear(g.vmark)
+		g.vtag = 0
+	}
 	g.vtag++
 	g.vmark[p] = g.vtag
 	lp0 := g.tail
@@ -386,16 +390,16 @@ func (g *quotientGraph) pivot(p int) {
 		if g.dead[e] {
 			continue
 		}
-		for _, i := range g.list(n + e) {
+		for _, i := range g.list(n + int(e)) {
 			if g.state[i] == qLive && g.vmark[i] != g.vtag {
 				g.vmark[i] = g.vtag
 				g.iw[g.tail] = i
 				g.tail++
-				lpSize += g.nv[i]
+				lpSize += int(g.nv[i])
 			}
 		}
 		g.dead[e] = true
-		g.size[n+e] = 0
+		g.size[n+int(e)] = 0
 	}
 	g.size[p] = 0
 	lp := g.iw[lp0:g.tail]
@@ -405,39 +409,39 @@ func (g *quotientGraph) pivot(p int) {
 		return
 	}
 	// w[e] = |Le \ Lp| for the elements of the columns of Lp.
-	g.etag++
+	tag := g.nextETag()
 	g.touched = g.touched[:0]
 	for _, i := range lp {
-		for _, e := range g.list(i) {
+		for _, e := range g.list(int(i)) {
 			if g.dead[e] {
 				continue
 			}
-			if g.emark[e] != g.etag {
-				g.emark[e] = g.etag
+			if g.emark[e] != tag {
+				g.emark[e] = tag
 				g.w[e] = g.esize[e]
 				g.touched = append(g.touched, e)
 			}
 			g.w[e] -= g.nv[i]
 		}
 	}
-	// Lp inside an older element, or of one column, adds nothing.
+	// Lp inside an older element, or of one supervariable, adds nothing.
 	keep := len(lp) > 1
 	for _, e := range g.touched {
-		if keep && g.w[e] > 0 && g.esize[e]-g.w[e] == lpSize {
+		if keep && g.w[e] > 0 && int(g.esize[e]-g.w[e]) == lpSize {
 			keep = false
 		}
 	}
 	for _, e := range g.touched {
 		if g.w[e] == 0 { // Le ⊆ Lp: absorbed
 			g.dead[e] = true
-			g.size[n+e] = 0
+			g.size[n+int(e)] = 0
 		}
 	}
-	ep := n + p // the new element's number
+	ep := int32(n + p) // the new element's number
 	if keep {
-		g.start[n+ep] = lp0
-		g.size[n+ep] = len(lp)
-		g.esize[ep] = lpSize
+		g.start[n+int(ep)] = lp0
+		g.size[n+int(ep)] = int32(len(lp))
+		g.esize[ep] = int32(lpSize)
 		g.dead[ep] = false
 	} else {
 		g.dead[ep] = true
@@ -448,36 +452,36 @@ func (g *quotientGraph) pivot(p int) {
 		s := g.start[i]
 		k := s
 		h := 0
-		for _, e := range g.list(i) {
+		for _, e := range g.list(int(i)) {
 			if !g.dead[e] {
 				g.iw[k] = e
 				k++
-				h += e
+				h += int(e)
 			}
 		}
 		if keep {
 			g.iw[k] = ep
 			k++
-			h += ep
+			h += int(ep)
 		}
 		g.size[i] = k - s
-		g.hash[i] = (h + g.size[i]) % n
+		g.hash[i] = int32((h + int(g.size[i])) % n)
 	}
 	g.mergeIndistinguishable(lp)
 	for _, i := range lp {
 		if g.state[i] != qLive {
 			continue
 		}
-		ext := lpSize - g.nv[i]
+		ext := lpSize - int(g.nv[i])
 		d := ext
-		for _, e := range g.list(i) {
+		for _, e := range g.list(int(i)) {
 			if e != ep {
-				d += g.w[e]
+				d += int(g.w[e])
 			}
 		}
-		d = min(d, g.deg[i]+ext, g.left-g.nv[i])
+		d = min(d, g.deg[i]+ext, g.left-int(g.nv[i]))
 		g.deg[i] = d
-		g.h.update(i, d+g.penalty[i])
+		g.h.update(int(i), d+g.penalty[i])
 	}
 	if !keep {
 		g.tail = lp0
@@ -487,12 +491,12 @@ func (g *quotientGraph) pivot(p int) {
 // ensureFree makes room for k more entries at the tail of iw, compacting
 // the lists (and dropping their dead entries) or growing iw.
 func (g *quotientGraph) ensureFree(k int) {
-	if len(g.iw)-g.tail >= k {
+	if len(g.iw)-int(g.tail) >= k {
 		return
 	}
 	g.compact()
-	if len(g.iw)-g.tail < k {
-		grown := make([]int, 2*len(g.iw)+k)
+	if len(g.iw)-int(g.tail) < k {
+		grown := make([]int32, 2*len(g.iw)+k)
 		copy(grown, g.iw[:g.tail])
 		g.iw = grown
 	}
@@ -504,35 +508,39 @@ func (g *quotientGraph) ensureFree(k int) {
 // negative mark of its node while iw is scanned.
 func (g *quotientGraph) compact() {
 	n := g.n
+	if g.first == nil {
+		g.first = make([]int32, len(g.start))
+	}
 	for node := range g.start {
 		if g.size[node] > 0 {
 			s := g.start[node]
 			g.first[node] = g.iw[s]
-			g.iw[s] = -(node + 1)
+			g.iw[s] = int32(-(node + 1))
 		}
 	}
-	dst := 0
-	for k := 0; k < g.tail; {
+	var dst int32
+	for k := int32(0); k < g.tail; {
 		v := g.iw[k]
 		if v >= 0 {
 			k++
 			continue
 		}
-		node := -v - 1
+		node := int(-v - 1)
 		end := k + g.size[node]
 		g.start[node] = dst
-		keepEntry := func(x int) bool {
-			if node < n {
+		column := node < n
+		keep := func(x int32) bool {
+			if column {
 				return !g.dead[x]
 			}
 			return g.state[x] == qLive
 		}
-		if x := g.first[node]; keepEntry(x) {
+		if x := g.first[node]; keep(x) {
 			g.iw[dst] = x
 			dst++
 		}
 		for t := k + 1; t < end; t++ {
-			if x := g.iw[t]; keepEntry(x) {
+			if x := g.iw[t]; keep(x) {
 				g.iw[dst] = x
 				dst++
 			}

@@ -136,7 +136,7 @@ func Diagnose(p Problem) (*Structure, error) {
 	if len(p.Pattern) != p.Dim {
 		return nil, fmt.Errorf("%w: Problem.Pattern has %d rows, want Dim = %d", ErrInvalidProblem, len(p.Pattern), p.Dim)
 	}
-	return DiagnoseIncidence(p.Dim, p.Dim, p.Pattern, p.EqNames, p.VarNames)
+	return diagnoseIncidence(p.Dim, p.Dim, p.Pattern, p.EqNames, p.VarNames, nil)
 }
 
 // DiagnoseIncidence analyses a system of eqs equations in vars unknowns,
@@ -146,6 +146,13 @@ func Diagnose(p Problem) (*Structure, error) {
 // system that is not square or not structurally nonsingular returns its
 // Structure and a *StructureError.
 func DiagnoseIncidence(eqs, vars int, pattern [][]int, eqNames, varNames []string) (*Structure, error) {
+	return diagnoseIncidence(eqs, vars, pattern, eqNames, varNames, nil)
+}
+
+// diagnoseIncidence is DiagnoseIncidence with the colouring of the
+// columns, if the caller has made it (nil: made here when the system is
+// square).
+func diagnoseIncidence(eqs, vars int, pattern [][]int, eqNames, varNames []string, col *coloring) (*Structure, error) {
 	if eqs < 0 || vars < 0 || len(pattern) != eqs {
 		return nil, fmt.Errorf("%w: incidence of %d equations and %d unknowns has %d pattern rows, want %d", ErrInvalidProblem, eqs, vars, len(pattern), eqs)
 	}
@@ -257,7 +264,10 @@ func DiagnoseIncidence(eqs, vars int, pattern [][]int, eqNames, varNames []strin
 		}
 	}
 	if eqs == vars && vars > 0 {
-		s.Colors = len(colorColumns(pattern, vars).groups)
+		if col == nil {
+			col = colorColumns(pattern, vars)
+		}
+		s.Colors = len(col.groups)
 	}
 	return s, s.Err()
 }
