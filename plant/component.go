@@ -254,4 +254,8 @@ type Conditions struct {
 	SeaT       float64 // sea water temperature, K
 	AirT       float64 // outside air temperature, K
 	EngineLoad float64 // main engine load, fraction of its MCR
+	// Period is the length of the row a case stands for (s), given by a
+	// voyage whose tanks carry their temperature from row to row; zero in
+	// a single load case.
+	Period float64
 }

@@ -22,11 +22,12 @@
 //
 // # Units
 //
-//   - MakeUp: fresh water at a set temperature; its flow is what the plant
-//     loses.
+//   - MakeUp: fresh water at a set temperature, by default the case's sea
+//     temperature; its flow is what the plant loses.
 //   - FeedTank (hotwell, cascade tank): mixing, heat loss, optional steam
 //     heating to a set temperature, venting of flash steam when the mix
-//     would boil.
+//     would boil, the header drains and drain-cooler heat it is given,
+//     and a warning below the temperature that keeps oxygen out.
 //   - FeedPump: discharge at drum pressure plus a margin; enthalpy rise
 //     v·Δp/η (water taken as incompressible across the pump).
 //   - Boiler (oil-fired): drum pressure, dryness, blowdown (fraction or TDS
@@ -50,8 +51,11 @@
 //   - Header (steam header or any junction, with heat loss condensing
 //     steam), ReducingValve (isenthalpic), Consumer (a duty, a steam flow,
 //     a duty model evaluated per case, or a duty per kg of a boiler's fuel;
-//     subcooling, return fraction, drain cooler), Turbine (isentropic and
-//     mechanical efficiency), Condenser and dump condenser.
+//     subcooling, return fraction, drain cooler), Turbine (by isentropic
+//     and mechanical efficiency, by its steam rate at a rated power with a
+//     part-load curve, or by the maker's table of steam against power),
+//     Condenser (its vacuum the turbine's, or following the sea by an
+//     approach or by its UA and sea-water flow) and dump condenser.
 //
 // # Solving
 //
@@ -73,7 +77,15 @@
 // Otherwise the boilers fire in the order they were declared: one while
 // the demand is at most Options.UsableFraction of its MCR, more above that,
 // sharing by Options.Sharing. A boiler below its burner minimum (MCR /
-// turndown) cycles and its fuel is the time average. Demand beyond every
+// turndown) cycles: its burner, on at the minimum, raises the steam, the
+// standby loss of the warm boiler over the off time (a given kW, or the
+// efficiency model's casing loss, or 1 % of the heat input at MCR) and the
+// heat each pre-purge blows out (the purge air heated to the drum's
+// saturation temperature, at a given start rate or at the rate the
+// burner's pressure band and the boiler's water content give), and its
+// fuel is the time average; the fuel per tonne of steam rises as the load
+// falls. An idle boiler may be kept warm by steam (BoilerWarming), which
+// takes its standby loss while the firing rule leaves it off. Demand beyond every
 // boiler's MCR is solved and reported with CanCarry false and the
 // shortfall, not as a failure. A case may force which boilers fire.
 //

@@ -2,6 +2,7 @@ package plant
 
 import (
 	"fmt"
+	"math"
 	"strings"
 
 	"steamcase/plant/fuel"
@@ -130,8 +131,27 @@ func text(k Key, set func(Component, []string) error) Key {
 // at a temperature or heated up (loads.TankHeating): its losses through
 // each boundary to the case's sea and air, or to a space at its own
 // temperature.
+//
+// In a voyage the tank may be stateful (Plant.StartTank): its cargo
+// temperature is then carried from row to row, and each row's duty
+// follows from the temperature and the row's instruction (see
+// tankstate.go).
 type TankHeating struct {
 	Tank loads.TankHeating
+	// MinT is the lowest temperature the cargo may cool to when its
+	// heating is reduced (its pumpability), K; zero means not given.
+	MinT float64
+	// Instr is the instruction of a stateful tank for the row (key
+	// "instruction"); its temperature is Tank.To (key "T") and, for
+	// loads.ReachBy, By the time from the voyage's start by which it is
+	// wanted (s).
+	Instr loads.Instruction
+	By    float64
+	// CoilP is the steam pressure at the coil (Pa); zero means the set
+	// pressure of what feeds the tank's header (SupplyPressure).
+	CoilP float64
+
+	state tankState
 }
 
 // Clone copies the model; the boundaries are copied too.
@@ -158,13 +178,32 @@ func (m *TankHeating) uses(b loads.Beyond) bool {
 	return false
 }
 
-// Duty computes the tank's duty at the case's sea and air temperatures.
+// Duty computes the tank's duty at the case's sea and air temperatures;
+// for a stateful tank, the row's mean duty from its state and
+// instruction (stateDuty).
 func (m *TankHeating) Duty(c Conditions) (Duty, error) {
+	if m.state.on {
+		return m.stateDuty(c)
+	}
+	if m.Instr != loads.HoldTemp || m.By != 0 {
+		return Duty{}, fmt.Errorf("instruction %q and by belong to a tank that a voyage carries from row to row (voyage(ship, { tanks = { [\"name\"] = \"40 C\" }, ... })); a load case holds or heats up by mode", m.Instr)
+	}
 	amb, err := needAmbient(c, m.uses(loads.Sea), m.uses(loads.Air))
 	if err != nil {
 		return Duty{}, err
 	}
-	res, err := m.Tank.Duty(amb)
+	tank := m.Tank
+	if tank.Coil.Given() {
+		if p := m.CoilP; p > 0 || m.state.steamP > 0 {
+			if p == 0 {
+				p = m.state.steamP
+			}
+			if ts, err := waterTsat(p); err == nil {
+				tank.SteamT = ts
+			}
+		}
+	}
+	res, err := tank.Duty(amb)
 	if err != nil {
 		return Duty{}, err
 	}
@@ -175,12 +214,72 @@ func (m *TankHeating) Duty(c Conditions) (Duty, error) {
 	if res.Mode == loads.HeatUp {
 		in["from_T_K"], in["duration_s"] = res.From, res.Duration
 	}
+	if res.Capacity > 0 {
+		in["capacity_W"] = res.Capacity
+	}
 	return Duty{W: res.Duty, Inputs: in, Warnings: res.Warnings}, nil
 }
 
 func (m *TankHeating) validate() error {
 	_, err := m.Tank.Duty(loads.Ambient{Sea: validationAmbient.SeaT, Air: validationAmbient.AirT})
 	return err
+}
+
+// shedCooling is what a shortfall does to the cargo when the heating
+// delivers only delivered W: the cargo's temperature change at the start
+// (the lumped model of loads.TankHeating.CoolDownAfter, plant-checks.md
+// §6 [CP]),
+//
+//	dT/dt = (delivered − Σ U·A·(T0 − T_amb)) / (m·c(T0)),
+//
+// from the temperature held (or, heating up, from the start of the
+// heat-up), and, holding with MinT given, the time until the cargo cools
+// to MinT with the heating left on at delivered: with nothing delivered
+// the exact time of loads' TimeToCool (Cragoe's c linear in T), else
+//
+//	t = (m·c/ΣUA)·ln((T0 − T_eq)/(MinT − T_eq)),  T_eq = T_amb + delivered/ΣUA,
+//
+// with c constant at the mean of T0 and MinT (a simplification: Cragoe's
+// c changes by about 0.2 % per kelvin, so over a few kelvin the time
+// moves by well under 1 %). The cargo never gets to MinT when T_eq is
+// not below it.
+func (m *TankHeating) shedCooling(c Conditions, delivered float64) (*TankCooling, error) {
+	amb, err := needAmbient(c, m.uses(loads.Sea), m.uses(loads.Air))
+	if err != nil {
+		return nil, err
+	}
+	T0 := m.Tank.To
+	if m.Tank.Mode == loads.HeatUp {
+		T0 = m.Tank.From
+	}
+	cd, err := m.Tank.CoolDownAfter(T0, 1, amb)
+	if err != nil {
+		return nil, err
+	}
+	loss := cd.UA * (T0 - cd.AmbientT)
+	out := &TankCooling{RateKS: (delivered - loss) / (cd.Mass * cd.Cp), MinT: m.MinT}
+	if m.MinT <= 0 || m.Tank.Mode != loads.Hold || out.RateKS >= 0 {
+		return out, nil
+	}
+	if m.MinT >= T0 {
+		out.Reaches = true
+		return out, nil
+	}
+	teq := cd.AmbientT + delivered/cd.UA
+	if teq >= m.MinT {
+		return out, nil
+	}
+	tc, err := m.Tank.TimeToCool(T0, m.MinT, amb)
+	if err != nil {
+		return nil, err
+	}
+	out.Reaches = true
+	if delivered <= 0 {
+		out.SecondsToMinT = tc.Elapsed
+		return out, nil
+	}
+	out.SecondsToMinT = tc.Mass * tc.Cp / tc.UA * math.Log((T0-teq)/(m.MinT-teq))
+	return out, nil
 }
 
 func tankKey(k Key, f func(*TankHeating) *float64) Key {
@@ -209,6 +308,9 @@ var tankHeatingKeys = append([]Key{
 				cg.Name = name
 			}
 			m.Tank.Cargo = cg
+			if fp, ok := loads.SpecFlashPoint(f); ok && (m.Tank.FlashPoint == 0 || m.Tank.FlashPointAssumed) {
+				m.Tank.FlashPoint, m.Tank.FlashPointAssumed = fp, true
+			}
 			return nil
 		}),
 	{Name: "density", Label: "cargo density", Kind: KeyQuantity, Dim: units.Density, Example: "950 kg/m3",
@@ -229,7 +331,7 @@ var tankHeatingKeys = append([]Key{
 			return ok
 		}},
 	tankKey(Key{Name: "cp", Label: "cargo specific heat", Dim: units.SpecificHeat, Example: "1.9 kJ/kgK",
-		Doc: "a constant specific heat instead of Cragoe's", DefaultNote: "Cragoe (1929) at the oil's specific gravity", Min: 500, Max: 5000},
+		Doc: "a constant specific heat instead of Cragoe's", DefaultNote: "Cragoe (1929) at the oil's specific gravity", Min: 500, Max: 5000, Source: "plant-checks.md §5.3 [S]"},
 		func(m *TankHeating) *float64 { return &m.Tank.Cargo.Cp }),
 	text(Key{Name: "cargo", Label: "cargo name", Example: `"heavy crude"`, Doc: "the cargo's name, for reports"},
 		func(c Component, v []string) error {
@@ -238,10 +340,29 @@ var tankHeatingKeys = append([]Key{
 			}
 			return nil
 		}),
-	tankKey(Key{Name: "flash_point", Label: "flash point", Dim: units.Temperature, Example: "60 C",
-		Doc: "the oil's flash point: heating near it gives the SOLAS caution", DefaultNote: "not checked",
-		Min: loads.MinTemperature, Max: loads.MaxTemperature},
-		func(m *TankHeating) *float64 { return &m.Tank.FlashPoint }),
+	tankKey(Key{Name: "min_T", Label: "lowest cargo temperature", Dim: units.Temperature, Example: "45 C",
+		Doc:         "the lowest temperature the cargo may cool to when its heating is reduced (a margin above its pour or cloud point): a shortfall and the N-1 lines give the time until it gets there",
+		DefaultNote: "not given: the cooling rate alone", Min: loads.MinTemperature, Max: loads.MaxTemperature, Case: true, Source: SourceLeftOut},
+		func(m *TankHeating) *float64 { return &m.MinT }),
+	{Name: "flash_point", Label: "flash point", Kind: KeyQuantity, Dim: units.Temperature, Example: "60 C",
+		Doc:         "the oil's flash point: heating near it gives the SOLAS caution",
+		DefaultNote: "with fuel, the grade's ISO 8217 minimum (60 C), said to be assumed in the caution; else not checked",
+		Source:      "ISO 8217 minimum flash point of the residual grades, from memory",
+		Min:         loads.MinTemperature, Max: loads.MaxTemperature,
+		get: func(c Component) (float64, bool) {
+			m, ok := modelOf[*TankHeating](c)
+			if !ok {
+				return 0, false
+			}
+			return m.Tank.FlashPoint, true
+		},
+		set: func(c Component, v float64) bool {
+			m, ok := modelOf[*TankHeating](c)
+			if ok {
+				m.Tank.FlashPoint, m.Tank.FlashPointAssumed = v, false
+			}
+			return ok
+		}},
 	{Name: "dimensions", Label: "dimensions", Kind: KeyTable,
 		Example: `{ length = "30 m", breadth = "20 m", depth = "20 m", fill = "98 %" }`,
 		Doc:     "the tank's dimensions, from which its boundaries follow (instead of volume and boundaries)"},
@@ -253,10 +374,10 @@ var tankHeatingKeys = append([]Key{
 		func(m *TankHeating) *float64 { return &m.Tank.CargoVolume }),
 	choice(Key{Name: "mode", Label: "mode", Choices: []string{"hold", "heat_up"}, Example: `"hold"`,
 		Doc:     `"hold" keeps the cargo at T; "heat_up" raises it from "from" to "to" in "duration"`,
-		Default: 0, HasDefault: true, Case: true},
+		Default: 0, HasDefault: true, Case: true, Source: SourceRule},
 		modelOf[*TankHeating], func(m *TankHeating) *loads.TankMode { return &m.Tank.Mode }),
 	tankKey(Key{Name: "T", Label: "temperature held", Dim: units.Temperature, Example: "55 C",
-		Doc: "temperature held (mode hold; required there)", Min: loads.MinTemperature, Max: loads.MaxTemperature, Case: true},
+		Doc: "temperature held (mode hold; required there); for a tank a voyage carries from row to row, the instruction's temperature", Min: loads.MinTemperature, Max: loads.MaxTemperature, Case: true},
 		func(m *TankHeating) *float64 { return &m.Tank.To }),
 	tankKey(Key{Name: "from", Label: "heat-up start temperature", Dim: units.Temperature, Example: "30 C",
 		Doc: "temperature at the start of a heat-up (mode heat_up; required there)", Min: loads.MinTemperature, Max: loads.MaxTemperature, Case: true},
@@ -267,6 +388,52 @@ var tankHeatingKeys = append([]Key{
 	tankKey(Key{Name: "duration", Label: "heat-up time", Dim: units.Time, Example: "96 h",
 		Doc: "time of a heat-up (mode heat_up; required there)", Min: 1, Max: 1e8, Case: true},
 		func(m *TankHeating) *float64 { return &m.Tank.Duration }),
+	choice(Key{Name: "coil", Label: "coil kind", Choices: []string{"coil", "deck_heater"}, Example: `"coil"`,
+		Doc:     `the heating coil: "coil", steam coils in the tank, or "deck_heater", a heater the cargo is pumped through (give circulation)`,
+		Default: 0, HasDefault: true, Source: SourceRule},
+		modelOf[*TankHeating], func(m *TankHeating) *loads.CoilKind { return &m.Tank.Coil.Kind }),
+	tankKey(Key{Name: "coil_area", Label: "coil area", Dim: units.Area, Example: "900 m2",
+		Doc:         "heating surface of the coil; its capacity U·A·LMTD limits a tank carried from row to row (required there)",
+		DefaultNote: "no coil: the duty is not limited", Min: 0, Max: 1e6, Source: SourceLeftOut},
+		func(m *TankHeating) *float64 { return &m.Tank.Coil.Area }),
+	tankKey(Key{Name: "coil_U", Label: "coil U", Dim: units.HeatTransferCoefficient, Example: "60 W/m2K",
+		Doc:         "overall heat-transfer coefficient of the coil, steam to cargo",
+		DefaultNote: "60 W/m2K for a coil in the tank, 250 W/m2K for a deck heater (plant/loads' DefaultCoilU, DefaultDeckHeaterU)",
+		Source:      "plant-checks.md §6 coil row [M] (a coil); from memory (a deck heater)", Min: 1, Max: 5000},
+		func(m *TankHeating) *float64 { return &m.Tank.Coil.U }),
+	tankKey(Key{Name: "circulation", Label: "cargo circulation", Dim: units.VolumeFlow, Example: "200 m3/h",
+		Doc: "cargo pumped through a deck heater (coil = \"deck_heater\"; required there)", Min: 0, Max: 100},
+		func(m *TankHeating) *float64 { return &m.Tank.Coil.Circulation }),
+	tankKey(Key{Name: "coil_p", Label: "steam pressure at the coil", Dim: units.Pressure, Example: "7 bar(g)",
+		Doc:         "pressure of the steam in the coil, for its saturation temperature",
+		DefaultNote: "the set pressure of the reducing valve or boiler that feeds the tank's header", Min: 1.1e5, Max: 5e6, Source: SourceDerived},
+		func(m *TankHeating) *float64 { return &m.CoilP }),
+	{Name: "max_rate", Label: "heat-up rate caution", Kind: KeyQuantity, Dim: units.TemperatureDifference, Example: "2 K",
+		Doc:     "heat-up per day above which a tank carried from row to row warns (a caution, not a cap)",
+		Default: loads.DefaultMaxHeatUpRate * 86400, HasDefault: true, Source: "common practice, no source: 1 to 3 K per day for large heated cargoes",
+		Min: 0.01, Max: 500,
+		get: func(c Component) (float64, bool) {
+			m, ok := modelOf[*TankHeating](c)
+			if !ok {
+				return 0, false
+			}
+			return m.Tank.MaxRate * 86400, true
+		},
+		set: func(c Component, v float64) bool {
+			m, ok := modelOf[*TankHeating](c)
+			if ok {
+				m.Tank.MaxRate = v / 86400
+			}
+			return ok
+		}},
+	choice(Key{Name: "instruction", Label: "instruction", Choices: []string{"hold", "off", "heat_to", "reach"}, Example: `"heat_to"`,
+		Doc: `for a tank a voyage carries from row to row: "hold" (at T, or where it is), "off", "heat_to" T at the coil's capacity, ` +
+			`or "reach" T by a time (by)`,
+		Default: 0, HasDefault: true, Case: true, Source: SourceRule},
+		modelOf[*TankHeating], func(m *TankHeating) *loads.Instruction { return &m.Instr }),
+	tankKey(Key{Name: "by", Label: "time wanted by", Dim: units.Time, Example: "240 h",
+		Doc: `with instruction "reach": the time from the voyage's start by which T is wanted`, Min: 0, Max: 1e9, Case: true},
+		func(m *TankHeating) *float64 { return &m.By }),
 }, consumerModelKeys...)
 
 func (m *TankHeating) keys() []Key { return tankHeatingKeys }
@@ -277,19 +444,47 @@ func (m *TankHeating) keys() []Key { return tankHeatingKeys }
 // FuelHeater is the duty of a fuel oil heater (loads.FuelHeater): to a set
 // outlet temperature or to the temperature of a target viscosity. A
 // burner's heater (Service loads.BoilerBurner) heats the fuel its boiler
-// burns: its duty is per kg of that fuel (Consumer.FuelOf).
+// burns: its duty is per kg of that fuel (Consumer.FuelOf). A main
+// engine's heater may follow the engine: with SFOC and EngineMCR its oil
+// flow is the engine's fuel, SFOC × MCR × the case's engine load (SFOC
+// one figure, or interpolated in SFOCLoad; outside the given loads the end
+// figure holds, with a warning). Simplification: the heater heats the fuel
+// the engine burns, from the inlet temperature; the circulating flow
+// above it returns hot and is not counted; with the engine stopped the
+// duty is zero.
 type FuelHeater struct {
 	Heater loads.FuelHeater
+	// SFOC is the engine's specific fuel oil consumption, kg/J, at the
+	// loads SFOCLoad (fractions of MCR, increasing; nil for one figure);
+	// EngineMCR its MCR, W.
+	SFOC, SFOCLoad []float64
+	EngineMCR      float64
 }
 
 // Clone copies the model.
-func (m *FuelHeater) Clone() DutyModel { c := *m; return &c }
+func (m *FuelHeater) Clone() DutyModel {
+	c := *m
+	c.SFOC = append([]float64(nil), m.SFOC...)
+	c.SFOCLoad = append([]float64(nil), m.SFOCLoad...)
+	return &c
+}
+
+// engineFlow is the oil flow of a heater that follows the engine, kg/s,
+// at engine load (a fraction of MCR), with a warning outside the SFOC
+// table's loads.
+func (m *FuelHeater) engineFlow(load float64) (float64, string) {
+	if len(m.SFOCLoad) == 0 {
+		return m.SFOC[0] * m.EngineMCR * load, ""
+	}
+	sfoc, warn := interpolate(m.SFOCLoad, m.SFOC, load, "SFOC table")
+	return sfoc * m.EngineMCR * load, warn
+}
 
 func (m *FuelHeater) label() string { return "fuel heater" }
 
 // Duty computes the heater's duty, or its heat per kg of fuel for a
 // burner's heater.
-func (m *FuelHeater) Duty(Conditions) (Duty, error) {
+func (m *FuelHeater) Duty(c Conditions) (Duty, error) {
 	if m.Heater.Service == loads.BoilerBurner {
 		res, err := m.Heater.DutyPerKg()
 		if err != nil {
@@ -297,16 +492,61 @@ func (m *FuelHeater) Duty(Conditions) (Duty, error) {
 		}
 		return Duty{PerFuelJ: res.PerKg, Warnings: res.Warnings}, nil
 	}
-	res, err := m.Heater.Duty()
+	h := m.Heater
+	var warns []string
+	if len(m.SFOC) > 0 {
+		if !(c.EngineLoad >= 0) || c.EngineLoad > 1.5 {
+			return Duty{}, fmt.Errorf("engine load %g is not a fraction of the engine's MCR between 0 and 1.5", c.EngineLoad)
+		}
+		if c.EngineLoad == 0 {
+			return Duty{Inputs: map[string]float64{"oil_kg_s": 0, "engine_load": 0}}, nil
+		}
+		flow, warn := m.engineFlow(c.EngineLoad)
+		h.MassFlow = flow
+		if warn != "" {
+			warns = append(warns, warn)
+		}
+	}
+	res, err := h.Duty()
 	if err != nil {
 		return Duty{}, err
 	}
-	return Duty{W: res.Duty, Warnings: res.Warnings, Inputs: map[string]float64{
+	in := map[string]float64{
 		"oil_kg_s": res.MassFlow, "inlet_T_K": res.InletT, "outlet_T_K": res.OutletT, "per_kg_J_per_kg": res.PerKg,
-	}}, nil
+	}
+	if len(m.SFOC) > 0 {
+		in["engine_load"] = c.EngineLoad
+	}
+	return Duty{W: res.Duty, Warnings: append(warns, res.Warnings...), Inputs: in}, nil
 }
 
 func (m *FuelHeater) validate() error {
+	if len(m.SFOC) > 0 {
+		if !(m.EngineMCR > 0) {
+			return fmt.Errorf("sfoc needs the engine's MCR it refers to: give engine_mcr, such as engine_mcr = \"11 MW\"")
+		}
+		if m.Heater.Service != loads.EngineService {
+			return fmt.Errorf("sfoc is for a main engine's heater (service = \"engine\")")
+		}
+		if m.Heater.MassFlow != 0 {
+			return fmt.Errorf("give flow or sfoc with engine_mcr, not both")
+		}
+		if len(m.SFOCLoad) != 0 && len(m.SFOCLoad) != len(m.SFOC) {
+			return fmt.Errorf("SFOC table has %d loads and %d figures", len(m.SFOCLoad), len(m.SFOC))
+		}
+		for i, v := range m.SFOC {
+			// 100-400 g/kWh, about the 150-250 of marine diesel engines
+			// either way (common practice, no source).
+			if !(v >= 100e-3/3.6e6 && v <= 400e-3/3.6e6) {
+				return fmt.Errorf("sfoc %.1f g/kWh is outside 100-400 g/kWh", v*3.6e9)
+			}
+			if i < len(m.SFOCLoad) && (!(m.SFOCLoad[i] > 0 && m.SFOCLoad[i] <= 1.5) || (i > 0 && m.SFOCLoad[i] <= m.SFOCLoad[i-1])) {
+				return fmt.Errorf("SFOC table loads must increase within 0-150 %% of MCR; got %g", m.SFOCLoad)
+			}
+		}
+		_, err := m.Duty(Conditions{SeaT: validationAmbient.SeaT, AirT: validationAmbient.AirT, EngineLoad: 1})
+		return err
+	}
 	_, err := m.Duty(validationAmbient)
 	return err
 }
@@ -340,8 +580,13 @@ var fuelHeaterKeys = append([]Key{
 		Doc: "the oil's viscosity at 50 C, from its delivery note; replaces the grade's", Min: 1e-7, Max: 1e-1},
 		func(m *FuelHeater) *float64 { return &m.Heater.Fuel.ISO.Viscosity }),
 	heaterKey(Key{Name: "flow", Label: "oil flow", Dim: units.MassFlow, Example: "2.2 t/h",
-		Doc: "the oil flow (required but for a burner's heater, whose flow is its boiler's fuel)", Min: 0, Max: 1e3, Case: true},
+		Doc: "the oil flow (required but for a burner's heater, whose flow is its boiler's fuel, and an engine's heater given sfoc)", Min: 0, Max: 1e3, Case: true},
 		func(m *FuelHeater) *float64 { return &m.Heater.MassFlow }),
+	{Name: "sfoc", Label: "SFOC", Kind: KeyTable, Example: `{ {"50 %", "178 g/kWh"}, {"100 %", "172 g/kWh"} }`,
+		Doc: "an engine's heater: the engine's specific fuel consumption, one figure (\"175 g/kWh\") or {load, sfoc} pairs, with engine_mcr: the oil flow follows the case's engine load"},
+	heaterKey(Key{Name: "engine_mcr", Label: "engine MCR", Dim: units.Power, Example: "11 MW",
+		Doc: "the main engine's MCR (with sfoc)", Min: 1e3, Max: 2e8},
+		func(m *FuelHeater) *float64 { return &m.EngineMCR }),
 	heaterKey(Key{Name: "inlet_T", Label: "oil inlet temperature", Dim: units.Temperature, Example: "60 C",
 		Doc: "oil temperature at the inlet", Required: true, Min: loads.MinTemperature, Max: loads.MaxTemperature, Case: true},
 		func(m *FuelHeater) *float64 { return &m.Heater.InletT }),
@@ -353,11 +598,11 @@ var fuelHeaterKeys = append([]Key{
 		func(m *FuelHeater) *float64 { return &m.Heater.TargetViscosity }),
 	heaterKey(Key{Name: "outlet_limit", Label: "outlet limit", Dim: units.Temperature, Example: "150 C",
 		Doc: "highest outlet temperature the heater may reach; above it a warning", DefaultNote: "no limit",
-		Min: loads.MinTemperature, Max: loads.MaxTemperature},
+		Min: loads.MinTemperature, Max: loads.MaxTemperature, Source: SourceLeftOut},
 		func(m *FuelHeater) *float64 { return &m.Heater.OutletLimit }),
 	heaterKey(Key{Name: "flash_point", Label: "flash point", Dim: units.Temperature, Example: "60 C",
 		Doc: "the oil's flash point, from its delivery note", DefaultNote: "not checked",
-		Min: loads.MinTemperature, Max: loads.MaxTemperature},
+		Min: loads.MinTemperature, Max: loads.MaxTemperature, Source: SourceRule},
 		func(m *FuelHeater) *float64 { return &m.Heater.FlashPoint }),
 	boilerOfKey,
 }, consumerModelKeys...)
@@ -423,7 +668,7 @@ var accommodationKeys = append([]Key{
 		func(m *Accommodation) *float64 { return &m.Heating.InsideT }),
 	accommodationKey(Key{Name: "balance_T", Label: "balance temperature", Dim: units.Temperature, Example: "16 C",
 		Doc: "outside temperature at and above which no heating is needed", DefaultNote: "inside_T",
-		Min: loads.MinTemperature, Max: loads.MaxTemperature},
+		Min: loads.MinTemperature, Max: loads.MaxTemperature, Source: SourceDerived},
 		func(m *Accommodation) *float64 { return &m.Heating.BalanceT }),
 	{Name: "table", Label: "table", Kind: KeyTable, Example: `{ {"-10 C", "300 kW"}, {"15 C", "0 kW"} }`,
 		Doc: "{air temperature, duty} pairs, air increasing, instead of UA and inside_T"},
@@ -480,13 +725,13 @@ var tankCleaningKeys = append([]Key{
 		func(m *TankCleaning) *float64 { return &m.Cleaning.Flow }),
 	cleaningKey(Key{Name: "inlet_T", Label: "water inlet temperature", Dim: units.Temperature, Example: "15 C",
 		Doc: "water temperature at the inlet", DefaultNote: "the case's sea temperature",
-		Min: loads.MinTemperature, Max: loads.MaxTemperature, Case: true},
+		Min: loads.MinTemperature, Max: loads.MaxTemperature, Case: true, Source: SourceDerived},
 		func(m *TankCleaning) *float64 { return &m.Cleaning.InletT }),
 	cleaningKey(Key{Name: "outlet_T", Label: "water outlet temperature", Dim: units.Temperature, Example: "75 C",
 		Doc: "water temperature wanted at the outlet", Required: true, Min: loads.MinTemperature, Max: loads.MaxTemperature, Case: true},
 		func(m *TankCleaning) *float64 { return &m.Cleaning.OutletT }),
 	cleaningKey(Key{Name: "p", Label: "water pressure", Dim: units.Pressure, Example: "10 bar(g)",
-		Doc: "water pressure in the heater", DefaultNote: "plant/loads' DefaultCleaningPressure", Min: 1e3, Max: 5e7},
+		Doc: "water pressure in the heater", DefaultNote: "plant/loads' DefaultCleaningPressure", Min: 1e3, Max: 5e7, Source: SourceDerived},
 		func(m *TankCleaning) *float64 { return &m.Cleaning.Pressure }),
 	cleaningKey(Key{Name: "cp", Label: "water specific heat", Dim: units.SpecificHeat, Example: "3.99 kJ/kgK",
 		Doc: "a constant specific heat (sea water) instead of IAPWS-IF97", Min: 1000, Max: 5000},
@@ -564,7 +809,7 @@ var sootBlowingKeys = []Key{
 	sootKey(Key{Name: "interval", Label: "interval", Dim: units.Time, Example: "8 h",
 		Doc: "time between the starts of two blows", Required: true, Min: 1e-3, Max: 1e8, Case: true},
 		func(m *SootBlowing) *float64 { return &m.Blowing.Interval }),
-	offKey,
+	offKey, consumerPriorityKey,
 }
 
 func (m *SootBlowing) keys() []Key { return sootBlowingKeys }
@@ -648,13 +893,13 @@ var freshWaterKeys = append([]Key{
 		Doc: "distillate produced", Required: true, Min: 0, Max: 1e3, Case: true},
 		func(m *FreshWaterGenerator) *float64 { return &m.Generator.Production }),
 	fwgKey(Key{Name: "specific_energy", Label: "heat per kg of distillate", Dim: units.SpecificEnergy, Example: "2400 kJ/kg",
-		Doc: "a given heat per kg of distillate", DefaultNote: "computed from evaporation_T, feed_ratio and feed_T", Min: 1, Max: 1e8},
+		Doc: "a given heat per kg of distillate", DefaultNote: "computed from evaporation_T, feed_ratio and feed_T", Min: 1, Max: 1e8, Source: SourceDerived},
 		func(m *FreshWaterGenerator) *float64 { return &m.Generator.SpecificEnergy }),
 	fwgKey(Key{Name: "evaporation_T", Label: "evaporation temperature", Dim: units.Temperature, Example: "45 C",
 		Doc: "boiling temperature in the evaporator", Min: loads.MinTemperature, Max: loads.MaxTemperature},
 		func(m *FreshWaterGenerator) *float64 { return &m.Generator.EvaporationT }),
 	fwgKey(Key{Name: "feed_ratio", Label: "feed ratio", Kind: KeyNumber, Example: "3",
-		Doc: "kg of sea-water feed per kg of distillate", DefaultNote: "the feed's sensible heat is not counted"},
+		Doc: "kg of sea-water feed per kg of distillate", DefaultNote: "the feed's sensible heat is not counted", Source: SourceLeftOut},
 		func(m *FreshWaterGenerator) *float64 { return &m.Generator.FeedRatio }),
 	fwgKey(Key{Name: "feed_T", Label: "feed temperature", Dim: units.Temperature, Example: "30 C",
 		Doc: "feed temperature entering the evaporator (with feed_ratio)", Min: loads.MinTemperature, Max: loads.MaxTemperature},
@@ -662,3 +907,40 @@ var freshWaterKeys = append([]Key{
 }, consumerModelKeys...)
 
 func (m *FreshWaterGenerator) keys() []Key { return freshWaterKeys }
+
+// ---------------------------------------------------------------------------
+// Warming steam.
+
+// BoilerWarming is the steam that keeps an idle boiler warm, at its
+// pressure and ready to fire, while the firing rule leaves it off: steam
+// from the plant's header (raised by the exhaust-gas economiser or the
+// other boiler) makes up the boiler's standby loss (Boiler.StandbyLoss or
+// its efficiency model's casing loss) and condenses in it. While the boiler
+// fires it takes nothing. The consumer evaluates it against the firing
+// state of the configuration being solved, so its Duty is zero.
+type BoilerWarming struct {
+	// Boiler names the boiler kept warm.
+	Boiler string
+}
+
+// Clone copies the model.
+func (m *BoilerWarming) Clone() DutyModel { c := *m; return &c }
+
+func (m *BoilerWarming) label() string { return "boiler warming" }
+
+// Duty is zero: the consumer takes the boiler's standby loss in each
+// configuration the boiler does not fire in.
+func (m *BoilerWarming) Duty(Conditions) (Duty, error) { return Duty{}, nil }
+
+var boilerWarmingKeys = append([]Key{
+	text(Key{Name: "boiler", Label: "boiler", Example: `"AB2"`, Required: true,
+		Doc: "the boiler kept warm while it does not fire"},
+		func(c Component, v []string) error {
+			if m, ok := modelOf[*BoilerWarming](c); ok && len(v) == 1 {
+				m.Boiler = v[0]
+			}
+			return nil
+		}),
+}, returnKeys[0], returnKeys[1], offKey)
+
+func (m *BoilerWarming) keys() []Key { return boilerWarmingKeys }

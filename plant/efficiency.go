@@ -194,6 +194,10 @@ func (t *FlueGasTable) Validate() error {
 // Basis is "LHV".
 func (t *FlueGasTable) Basis() string { return "LHV" }
 
+// loadOnly: the table reads the load, the air temperature and the fuel of
+// a BoilerOperation, not its feed or fuel flow.
+func (t *FlueGasTable) loadOnly() bool { return true }
+
 // Efficiency computes the efficiency at op by the heat-loss method.
 func (t *FlueGasTable) Efficiency(op BoilerOperation) (EfficiencyPoint, error) {
 	if op.Fuel.Fuel == nil {

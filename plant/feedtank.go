@@ -23,6 +23,9 @@ type FeedTank struct {
 	// SetT is the temperature that steam heating holds, K; used when the
 	// "steam" inlet is connected.
 	SetT float64
+	// O2T is the temperature below which the feed holds too much dissolved
+	// oxygen and a case warns; zero means defaultO2T.
+	O2T float64
 	// Observation makes the tank an observation (inspection) tank: the
 	// vented tank that returning condensate passes so that oil from a
 	// leaking heating coil can be seen before it reaches the feed water.
@@ -33,11 +36,20 @@ type FeedTank struct {
 
 	ins        []*Line
 	out, steam *Line
+	gets       []transfer // drains and drain-cooler heat of other units (transfer.go)
 	vent       int
 	eqs        [5]int
 	mt, mf, mg memo
 	mset       memo
 }
+
+// defaultO2T is the hotwell temperature below which a case warns of
+// dissolved oxygen: 80 °C. Marine water-treatment practice keeps a vented
+// hotwell at about 80-90 °C (the NPSH of the feed pump bounds it above),
+// where air-saturated water holds about 3 mg/l of oxygen against about 9
+// mg/l at 20 °C (common practice and solubility both from memory, not on
+// the project's reference sheets).
+const defaultO2T = 353.15
 
 // NewFeedTank returns a vented feed tank (hotwell).
 func NewFeedTank() *FeedTank { return &FeedTank{} }
@@ -49,23 +61,27 @@ func feedTankKey(k Key, f func(*FeedTank) *float64) Key { return num(k, self[*Fe
 
 var (
 	tankHeatLossKey = feedTankKey(Key{Name: "heat_loss", Label: "heat loss", Dim: units.Power, Example: "8 kW",
-		Doc: "fixed heat loss to the engine room (a hotwell loses kilowatts; at most 2 MW)", Default: 0, HasDefault: true, Min: 0, Max: 2e6, Case: true},
+		Doc: "fixed heat loss to the engine room (a hotwell loses kilowatts; at most 2 MW)", Default: 0, HasDefault: true, Min: 0, Max: 2e6, Case: true, Source: SourceLeftOut},
 		func(u *FeedTank) *float64 { return &u.HeatLoss })
 	tankUAKey = feedTankKey(Key{Name: "UA", Label: "UA", Dim: units.ThermalConductance, Example: "0.2 kW/K",
-		Doc: "heat loss conductance to the engine room, with room_T", Default: 0, HasDefault: true, Min: 0, Max: 1e8},
+		Doc: "heat loss conductance to the engine room, with room_T", Default: 0, HasDefault: true, Min: 0, Max: 1e8, Source: SourceLeftOut},
 		func(u *FeedTank) *float64 { return &u.UA })
 	tankRoomTKey = feedTankKey(Key{Name: "room_T", Label: "engine room temperature", Dim: units.Temperature, Example: "35 C",
 		Doc: "engine room temperature, for the UA loss", Min: 263.15, Max: 343.15, Case: true},
 		func(u *FeedTank) *float64 { return &u.RoomT })
 	feedTankKeys = []Key{
 		feedTankKey(Key{Name: "p", Label: "tank pressure", Dim: units.Pressure, Example: "1 bar(g)",
-			Doc: "tank pressure", DefaultNote: "the plant's ambient pressure (a vented tank)", Min: 1e3, Max: 5e7},
+			Doc: "tank pressure", DefaultNote: "the plant's ambient pressure (a vented tank)", Min: 1e3, Max: 5e7, Source: SourceDerived},
 			func(u *FeedTank) *float64 { return &u.P }),
 		tankHeatLossKey, tankUAKey, tankRoomTKey,
 		feedTankKey(Key{Name: "set_T", Label: "steam heating set temperature", Dim: units.Temperature, Example: "60 C",
 			Doc: "temperature held by steam heating on port \"steam\"", DefaultNote: "no steam heating",
-			Min: 274.15, Max: 372.15, Case: true},
+			Min: 274.15, Max: 372.15, Case: true, Source: SourceLeftOut},
 			func(u *FeedTank) *float64 { return &u.SetT }),
+		feedTankKey(Key{Name: "o2_T", Label: "oxygen warning temperature", Dim: units.Temperature, Example: "85 C",
+			Doc: "below this temperature a case warns that the feed holds too much dissolved oxygen", Default: defaultO2T, HasDefault: true,
+			Source: "common practice, from memory", Min: 293.15, Max: 383.15, Case: true},
+			func(u *FeedTank) *float64 { return &u.O2T }),
 	}
 	observationTankKeys = []Key{tankHeatLossKey, tankUAKey, tankRoomTKey}
 )
@@ -108,6 +124,7 @@ func (u *FeedTank) check(fs *faults) {
 	}
 	if !u.Observation {
 		checkKey(fs, u, "set_T")
+		checkKey(fs, u, "o2_T")
 	}
 }
 
@@ -115,6 +132,7 @@ func (u *FeedTank) assemble(a *assembly, ports portLines) {
 	u.ins = ports["in"]
 	u.out = ports.one("out")
 	u.steam = ports.one("steam")
+	u.gets = u.gets[:0]
 	u.vent = a.variable(u.Name+": vented flash steam", 1, 0, math.Inf(1), 0)
 	all := append([]*Line{u.out, u.steam}, u.ins...)
 	deps := append(lineDeps(all...), u.vent)
@@ -125,6 +143,14 @@ func (u *FeedTank) assemble(a *assembly, ports portLines) {
 	u.eqs[4] = -1
 	if u.steam != nil {
 		u.eqs[4] = a.equation(u.Name+": heating steam or venting", 1, deps...)
+	}
+}
+
+// receive takes another unit's drains or heat into the tank's balance.
+func (u *FeedTank) receive(a *assembly, t transfer) {
+	u.gets = append(u.gets, t)
+	for _, e := range u.eqs[1:4] {
+		a.depend(e, t.transferDeps()...)
 	}
 }
 
@@ -153,6 +179,7 @@ func (u *FeedTank) loss(p, h float64) (float64, error) {
 type tankEval struct {
 	pt, pOut, hOut, mOut float64 // tank pressure; outlet line
 	mIn, eIn             float64 // inflow and its enthalpy flow, heating steam apart
+	mX, eX               float64 // inflow of other units' drains and heat (transfer.go)
 	mSt, hSt             float64 // heating steam
 	hf, hg, q            float64 // saturation at the tank pressure; heat loss
 	hMix, hSet, target   float64 // the mix, the set point's enthalpy, the outlet's
@@ -177,6 +204,9 @@ func (u *FeedTank) evaluate(ev *eval) (tankEval, error) {
 		t.mSt, t.hSt = ev.m(u.steam), ev.h(u.steam)
 	}
 	var err error
+	if t.mX, t.eX, err = sumTransfers(ev, u.gets); err != nil {
+		return t, err
+	}
 	if t.hf, err = u.mf.get1(t.pt, hLiquidSat); err != nil {
 		return t, err
 	}
@@ -187,7 +217,7 @@ func (u *FeedTank) evaluate(ev *eval) (tankEval, error) {
 		return t, err
 	}
 	// The mix without heating steam and without venting.
-	t.hMix = (t.eIn - t.q + epsFlow*ev.h(u.ins[0])) / (t.mIn + epsFlow)
+	t.hMix = (t.eIn + t.eX - t.q + epsFlow*ev.h(u.ins[0])) / (t.mIn + t.mX + epsFlow)
 	t.target, t.branch = t.hMix, tankMix
 	if u.steam != nil && u.SetT > 0 {
 		if t.hSet, err = u.mset.get2(t.pt, u.SetT, hPT); err != nil {
@@ -211,8 +241,8 @@ func (u *FeedTank) residual(ev *eval, r []float64) error {
 	}
 	mv := ev.x[u.vent]
 	r[u.eqs[0]] = t.pOut - t.pt
-	r[u.eqs[1]] = t.mIn + t.mSt - t.mOut - mv
-	r[u.eqs[2]] = t.eIn + t.mSt*t.hSt - t.q - t.mOut*t.hOut - mv*t.hg
+	r[u.eqs[1]] = t.mIn + t.mX + t.mSt - t.mOut - mv
+	r[u.eqs[2]] = t.eIn + t.eX + t.mSt*t.hSt - t.q - t.mOut*t.hOut - mv*t.hg
 	r[u.eqs[3]] = t.hOut - t.target
 	if u.steam != nil {
 		if t.heating {
@@ -245,7 +275,7 @@ func (u *FeedTank) jacobian(ev *eval, j jac) error {
 		dqdp, dqdh = u.UA*dtdp, u.UA*dtdh
 	}
 	ref := u.ins[0]
-	den := t.mIn + epsFlow
+	den := t.mIn + t.mX + epsFlow
 
 	e := u.eqs
 	j.add(e[0], u.out.pIdx(), 1)
@@ -275,6 +305,19 @@ func (u *FeedTank) jacobian(ev *eval, j jac) error {
 		j.add(e[3], ref.hIdx(), -epsFlow/den)
 		j.add(e[3], u.out.pIdx(), dqdp/den)
 		j.add(e[3], u.out.hIdx(), dqdh/den)
+	}
+	for _, g := range u.gets {
+		_, _, d, err := g.transferred(ev, true)
+		if err != nil {
+			return wrapErr(u, err)
+		}
+		for _, pd := range d {
+			j.add(e[1], pd.col, pd.dm)
+			j.add(e[2], pd.col, pd.de)
+			if branch == tankMix {
+				j.add(e[3], pd.col, -(pd.de-hMix*pd.dm)/den)
+			}
+		}
 	}
 	if u.steam != nil {
 		if heating {
@@ -309,13 +352,20 @@ func (u *FeedTank) report(ev *eval, cr *CaseResult) error {
 	}
 	mv := ev.x[u.vent]
 	hg, _ := hVapourSat(pt)
-	ur := ComponentResult{Name: u.Name, Kind: u.Kind(), Figures: Figures{
-		{"T_K", t},
-		{"heat_loss_W", q},
-		{"vent_kg_s", mv},
-	}}
+	ur := ComponentResult{Name: u.Name, Kind: u.Kind(), Figures: append(make(Figures, 0, 6),
+		Figure{"T_K", t},
+		Figure{"heat_loss_W", q},
+		Figure{"vent_kg_s", mv},
+	)}
 	if u.steam != nil {
 		ur.Figures = append(ur.Figures, Figure{"heating_steam_kg_s", ev.m(u.steam)})
+	}
+	if len(u.gets) > 0 {
+		mx, ex, err := sumTransfers(ev, u.gets)
+		if err != nil {
+			return wrapErr(u, err)
+		}
+		ur.Figures = append(ur.Figures, Figure{"received_kg_s", mx}, Figure{"received_W", ex})
 	}
 	cr.Units = append(cr.Units, ur)
 	cr.boundary.heatOut += q
@@ -332,8 +382,19 @@ func (u *FeedTank) report(ev *eval, cr *CaseResult) error {
 		cr.warn("%s %q at %.1f °C is above %.0f °C: too hot for the feed pump's suction (common practice); check the pump's NPSH",
 			u.Kind(), u.Name, t-273.15, ev.pl.Opt.FeedSuctionMaxT-273.15)
 	}
+	if o2 := u.o2T(); t < o2 && ev.m(u.out) > FlowFloor {
+		cr.warn("%s %q at %.1f °C is below %.0f °C: feed this cool keeps dissolved oxygen that corrodes the boiler (common practice, from memory: a vented hotwell is kept near 80-90 °C); heat it (set_T) or return the condensate warmer",
+			u.Kind(), u.Name, t-273.15, o2-273.15)
+	}
 	cr.FeedTankT = t
 	return nil
+}
+
+func (u *FeedTank) o2T() float64 {
+	if u.O2T > 0 {
+		return u.O2T
+	}
+	return defaultO2T
 }
 
 func (u *FeedTank) outline(cr *CaseResult) {
@@ -343,5 +404,6 @@ func (u *FeedTank) outline(cr *CaseResult) {
 func (u *FeedTank) clone() Component {
 	c := *u
 	c.ins, c.out, c.steam = nil, nil, nil
+	c.gets = nil
 	return &c
 }

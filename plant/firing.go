@@ -3,6 +3,9 @@ package plant
 import (
 	"context"
 	"fmt"
+	"math"
+
+	"steamcase/solver"
 )
 
 // The firing rule: which oil-fired boilers fire, and how they share the
@@ -23,12 +26,19 @@ type Sharing int
 
 // Sharing rules.
 const (
-	// EqualLoad runs every firing boiler at the same fraction of its MCR.
+	// EqualLoad runs every firing boiler at the same fraction of its limit
+	// (its MCR times its max load: the same fraction of the MCR when no
+	// max load is set).
 	EqualLoad Sharing = iota
 	// LeadLag runs the lead boiler (the first declared that fires) at
-	// Options.LeadLoad of its MCR and shares the rest equally among the
-	// others.
+	// Options.LeadLoad of its MCR (or its limit, if lower) and shares the
+	// rest equally among the others. When the others would go above their
+	// limit, the case is solved again with equal sharing.
 	LeadLag
+	// LeastFuel chooses which boilers fire and how they share so that the
+	// plant burns the least fuel (leastfuel.go); equal sharing by the
+	// firing rule is the reference the saving is measured against.
+	LeastFuel
 )
 
 func (s Sharing) String() string {
@@ -37,6 +47,8 @@ func (s Sharing) String() string {
 		return "equal load"
 	case LeadLag:
 		return "lead-lag"
+	case LeastFuel:
+		return "least fuel"
 	}
 	return fmt.Sprintf("Sharing(%d)", int(s))
 }
@@ -52,14 +64,17 @@ func (p *Plant) firing(b *Boiler) bool {
 	return false
 }
 
-// assembleDispatch registers the dispatch equations.
-func (s *session) assembleDispatch(a *assembly) {
+// assembleDispatch registers the dispatch equations and the shed level
+// with its equation (priority.go), and ties the consumers that may be
+// reduced to it.
+func (s *session) assembleDispatch(a *assembly, comps []Component) {
 	r := &a.roles
 	s.fire = make([]bool, len(r.boilers))
 	s.firingBuf = make([]*Boiler, 0, len(r.boilers))
 	s.dispEqs = s.dispEqs[:0]
+	s.shedIdx, s.shedEq = -1, -1
 	n := len(r.boilers) + len(r.dumps) - 1
-	if n <= 0 {
+	if n < 0 {
 		return
 	}
 	var deps []int
@@ -72,13 +87,21 @@ func (s *session) assembleDispatch(a *assembly) {
 	for k := 0; k < n; k++ {
 		s.dispEqs = append(s.dispEqs, a.equation(fmt.Sprintf("dispatch: steam sharing %d of %d", k+1, n), 1, deps...))
 	}
+	s.shedIdx = a.variable("shed level (priorities)", 1, 0, 1, 0)
+	s.shedEq = a.equation("dispatch: boilers at their limit, or nothing shed", 1, append(deps, s.shedIdx)...)
+	for _, c := range comps {
+		if sh, ok := c.(shedder); ok {
+			sh.shedLink(a, s.shedIdx)
+			s.shedders = append(s.shedders, sh)
+		}
+	}
 }
 
 // dispatchResidual writes the dispatch equations for the current firing
-// set.
+// set, and the shed equation.
 func (p *Plant) dispatchResidual(x, r []float64) {
 	s := p.s
-	if len(s.dispEqs) == 0 {
+	if s.shedEq < 0 {
 		return
 	}
 	k := 0
@@ -95,38 +118,75 @@ func (p *Plant) dispatchResidual(x, r []float64) {
 			put(x[b.steam.mIdx()])
 		}
 	}
+	L := x[s.shedIdx]
 	if len(firing) == 0 {
-		// The first dump condenser takes what the steam system has over.
+		// The first dump condenser takes what the steam system has over;
+		// without one the shed level has nothing to answer to.
 		for _, d := range roles.dumps[1:] {
 			put(x[d.in.mIdx()])
 		}
+		if len(roles.dumps) == 0 || s.noShed || s.nRanks == 0 {
+			r[s.shedEq] = L
+			return
+		}
+		r[s.shedEq] = math.Min(L, x[roles.dumps[0].in.mIdx()])
 		return
 	}
 	for _, d := range roles.dumps {
 		put(x[d.in.mIdx()])
 	}
-	load := func(b *Boiler) float64 { return x[b.steam.mIdx()] / b.MCR }
+	load := func(b *Boiler) float64 { return x[b.steam.mIdx()] / b.Limit() }
 	switch {
-	case p.Opt.Sharing == LeadLag && len(firing) >= 2:
+	case s.shares != nil:
+		var total float64
+		for _, b := range firing {
+			total += x[b.steam.mIdx()]
+		}
+		for _, b := range firing[1:] {
+			put(x[b.steam.mIdx()] - s.shares[s.boilerIndex(b)]*total)
+		}
+	case p.Opt.Sharing == LeadLag && !s.equalShare && len(firing) >= 2:
 		lead := firing[0]
-		put(x[lead.steam.mIdx()] - p.Opt.LeadLoad*lead.MCR)
+		put(x[lead.steam.mIdx()] - math.Min(p.Opt.LeadLoad*lead.MCR, lead.Limit()))
 		for _, b := range firing[2:] {
-			put((load(b) - load(firing[1])) * firing[1].MCR)
+			put((load(b) - load(firing[1])) * firing[1].Limit())
 		}
 	default:
 		for _, b := range firing[1:] {
-			put((load(b) - load(firing[0])) * firing[0].MCR)
+			put((load(b) - load(firing[0])) * firing[0].Limit())
 		}
 	}
+	if s.noShed || s.nRanks == 0 {
+		r[s.shedEq] = L
+		return
+	}
+	var lim, steam float64
+	for _, b := range firing {
+		lim += b.Limit()
+		steam += x[b.steam.mIdx()]
+	}
+	r[s.shedEq] = math.Min(L, (lim-steam)/lim)
+}
+
+// boilerIndex is b's index among the plant's boilers.
+func (s *session) boilerIndex(b *Boiler) int {
+	for i, x := range s.asm.roles.boilers {
+		if x == b {
+			return i
+		}
+	}
+	panic("plant: boilerIndex: not a boiler of the plant")
 }
 
 // dispatchJacobian writes the derivatives of the dispatch equations (see
-// dispatchResidual), all linear in the steam flows.
+// dispatchResidual), all linear in the steam flows but the shed equation,
+// whose derivative is that of the smaller side.
 func (p *Plant) dispatchJacobian(j jac) {
 	s := p.s
-	if len(s.dispEqs) == 0 {
+	if s.shedEq < 0 {
 		return
 	}
+	x := s.ev.x
 	k := 0
 	next := func() int { k++; return s.dispEqs[k-1] }
 	roles := &s.asm.roles
@@ -138,23 +198,41 @@ func (p *Plant) dispatchJacobian(j jac) {
 			j.add(next(), b.steam.mIdx(), 1)
 		}
 	}
+	L := x[s.shedIdx]
 	if len(firing) == 0 {
 		for _, d := range roles.dumps[1:] {
 			j.add(next(), d.in.mIdx(), 1)
 		}
+		if len(roles.dumps) == 0 || s.noShed || s.nRanks == 0 || L <= x[roles.dumps[0].in.mIdx()] {
+			j.add(s.shedEq, s.shedIdx, 1)
+			return
+		}
+		j.add(s.shedEq, roles.dumps[0].in.mIdx(), 1)
 		return
 	}
 	for _, d := range roles.dumps {
 		j.add(next(), d.in.mIdx(), 1)
 	}
-	// (load(b) − load(ref))·ref.MCR
+	// (load(b) − load(ref))·ref.Limit
 	share := func(b, ref *Boiler) {
 		row := next()
-		j.add(row, b.steam.mIdx(), ref.MCR/b.MCR)
+		j.add(row, b.steam.mIdx(), ref.Limit()/b.Limit())
 		j.add(row, ref.steam.mIdx(), -1)
 	}
 	switch {
-	case p.Opt.Sharing == LeadLag && len(firing) >= 2:
+	case s.shares != nil:
+		for _, b := range firing[1:] {
+			row := next()
+			sh := s.shares[s.boilerIndex(b)]
+			for _, c := range firing {
+				d := -sh
+				if c == b {
+					d += 1
+				}
+				j.add(row, c.steam.mIdx(), d)
+			}
+		}
+	case p.Opt.Sharing == LeadLag && !s.equalShare && len(firing) >= 2:
 		j.add(next(), firing[0].steam.mIdx(), 1)
 		for _, b := range firing[2:] {
 			share(b, firing[1])
@@ -163,6 +241,22 @@ func (p *Plant) dispatchJacobian(j jac) {
 		for _, b := range firing[1:] {
 			share(b, firing[0])
 		}
+	}
+	if s.noShed || s.nRanks == 0 {
+		j.add(s.shedEq, s.shedIdx, 1)
+		return
+	}
+	var lim, steam float64
+	for _, b := range firing {
+		lim += b.Limit()
+		steam += x[b.steam.mIdx()]
+	}
+	if L <= (lim-steam)/lim {
+		j.add(s.shedEq, s.shedIdx, 1)
+		return
+	}
+	for _, b := range firing {
+		j.add(s.shedEq, b.steam.mIdx(), -1/lim)
 	}
 }
 
@@ -205,7 +299,11 @@ func (p *Plant) decide(ctx context.Context, fire []bool) error {
 			k, hinted = lowest, false
 			continue
 		}
-		if err != nil && (k > 0 || ctx.Err() != nil) {
+		// A trial with fewer boilers than the demand needs may fail where
+		// it takes a boiler beyond its model's range (a flue-gas table's
+		// loss account ends at 120 % of MCR): it does not fit. With every
+		// boiler firing, the error is the case's.
+		if err != nil && (k == n || ctx.Err() != nil) {
 			return err
 		}
 		if ok {
@@ -241,24 +339,33 @@ func (p *Plant) fits(ctx context.Context, fire []bool, k int) (bool, error) {
 		return false, err
 	}
 	if k == 0 {
-		return p.dumpFlow() >= 0, nil
+		return p.dumpFlow() >= 0 && !p.shedding(), nil
 	}
 	if k == len(p.s.asm.roles.boilers) {
 		return true, nil
 	}
-	demand, mcr := p.firedDemand(k)
-	return demand <= p.Opt.UsableFraction*mcr*(1+1e-12), nil
+	if p.shedding() {
+		return false, nil
+	}
+	demand, usable := p.firedDemand(k)
+	return demand <= usable*(1+1e-12), nil
 }
 
-// firedDemand is the steam of the first k boilers and their MCR at the
-// last solution.
-func (p *Plant) firedDemand(k int) (demand, mcr float64) {
+// usable is the steam boiler b may raise before the next must fire:
+// Options.UsableFraction of its MCR, or its limit if that is lower.
+func (p *Plant) usable(b *Boiler) float64 {
+	return math.Min(p.Opt.UsableFraction*b.MCR, b.Limit())
+}
+
+// firedDemand is the steam of the first k boilers at the last solution
+// and what they may raise before the next must fire (usable).
+func (p *Plant) firedDemand(k int) (demand, usable float64) {
 	s := p.s
 	for _, b := range s.asm.roles.boilers[:k] {
 		demand += s.last[b.steam.mIdx()]
-		mcr += b.MCR
+		usable += p.usable(b)
 	}
-	return demand, mcr
+	return demand, usable
 }
 
 // mayFit says whether j boilers could carry the demand of the present
@@ -274,8 +381,8 @@ func (p *Plant) mayFit(j int) bool {
 		}
 		return demand <= 1.1*coupled+1e-6
 	}
-	_, mcr := p.firedDemand(j)
-	return demand <= 1.05*p.Opt.UsableFraction*mcr
+	_, usable := p.firedDemand(j)
+	return demand <= 1.05*usable
 }
 
 // keep saves the last solution before a trial that may be refused.
@@ -286,6 +393,7 @@ func (s *session) keep() {
 	copy(s.keepX, s.last)
 	s.keepRes = s.slvRes
 	s.keepSolves = s.solves
+	s.keepNoShed = s.noShed
 }
 
 // restore brings back the solution kept before a refused trial, with k
@@ -293,6 +401,7 @@ func (s *session) keep() {
 func (s *session) restore(fire []bool, k int) {
 	copy(s.last, s.keepX)
 	s.slvRes = s.keepRes
+	s.noShed = s.keepNoShed
 	s.solves++
 	for i := range fire {
 		fire[i] = i < k
@@ -316,4 +425,113 @@ func (p *Plant) dumpFlow() float64 {
 		m += p.s.last[d.in.mIdx()]
 	}
 	return m
+}
+
+// stallWatch stops a solve early when the configuration it solves has no
+// solution, so that the firing rule moves on to the next instead of
+// spending the solver's iteration limit. Two signs are taken:
+//
+//   - A firing boiler would have to make less than no steam (the
+//     economisers, or the boilers before it, leave steam over): the
+//     solver holds that boiler's steam flow on its bound of zero, every
+//     step is cut there, and the residual falls by a few per cent an
+//     iteration. The watch stops once a firing boiler's steam has sat at
+//     zero for stallIterations iterations in a row while the residual fell
+//     by less than half each time.
+//   - No progress: stallDamped damped steps in a row (line-search length
+//     below 1) that together lowered the residual norm by less than
+//     stallProgress. The line search is then shrinking its steps towards a
+//     point where the balance cannot close (a local minimum of the
+//     residual), and would go on until the step met the solver's XTol.
+//
+// A solve that only passes through zero, or is slow but moving, is not
+// stopped: its residual falls faster, or it leaves the bound. Where no
+// configuration solves, the case fails as it would have at the limit.
+type stallWatch struct {
+	p    *Plant
+	next solver.Recorder // the caller's own recorder, if any
+	run  int             // iterations in a row at zero
+	last float64         // the residual norm of the last iteration
+
+	damped int     // damped steps in a row without progress
+	ref    float64 // the residual norm before them
+}
+
+// stallIterations, stallDamped and stallProgress are the watch's limits
+// (common practice, no source: a Newton solve that converges moves the
+// residual by orders of magnitude in that many iterations).
+const (
+	stallIterations = 5
+	stallDamped     = 8
+	stallProgress   = 0.01
+)
+
+func (w *stallWatch) Record(it solver.Iteration) error {
+	if it.Iter == 1 && !it.Reused {
+		w.run, w.last = 0, math.Inf(1)
+		w.damped, w.ref = 0, math.Inf(1)
+	}
+	if s := w.p.s; s != nil {
+		var stuck *Boiler
+		for i, b := range s.asm.roles.boilers {
+			if s.fire[i] && it.X[b.steam.mIdx()] <= 0 {
+				stuck = b
+				break
+			}
+		}
+		if stuck != nil && it.ResidualNorm > 0.5*w.last {
+			w.run++
+		} else {
+			w.run = 0
+		}
+		w.last = it.ResidualNorm
+		if w.run >= stallIterations {
+			return &firedAtZeroError{Boiler: stuck.Name, Firing: countTrue(s.fire)}
+		}
+		if it.Alpha < 1 && it.ResidualNorm > (1-stallProgress)*w.ref {
+			w.damped++
+		} else {
+			w.damped, w.ref = 0, it.ResidualNorm
+		}
+		if w.damped >= stallDamped {
+			return &noProgressError{Firing: countTrue(s.fire), Norm: it.ResidualNorm}
+		}
+	}
+	if w.next != nil {
+		return w.next.Record(it)
+	}
+	return nil
+}
+
+// noProgressError says that a configuration's solve stopped making
+// progress: its balance does not close from where the solve went.
+type noProgressError struct {
+	Firing int
+	Norm   float64
+}
+
+func (e *noProgressError) Error() string {
+	return fmt.Sprintf("with %d boiler(s) firing, the balance stopped closing: %d damped steps in a row lowered the scaled residual (%.3g) by less than %g %%",
+		e.Firing, stallDamped, e.Norm, 100*stallProgress)
+}
+
+func countTrue(b []bool) int {
+	n := 0
+	for _, v := range b {
+		if v {
+			n++
+		}
+	}
+	return n
+}
+
+// firedAtZeroError says that a configuration has no solution because a
+// firing boiler would have to make less than no steam.
+type firedAtZeroError struct {
+	Boiler string
+	Firing int
+}
+
+func (e *firedAtZeroError) Error() string {
+	return fmt.Sprintf("with %d boiler(s) firing, boiler %q would have to make less than no steam: the rest of the plant leaves steam over", e.Firing, e.Boiler)
 }

@@ -1,9 +1,10 @@
 package plant
 
 import (
+	"fmt"
 	"math"
 
-	"gonum.org/v1/gonum/mat"
+	"steamcase/solver"
 )
 
 // The plant's analytic Jacobian, and the difference helpers the
@@ -24,9 +25,11 @@ import (
 //     leaves the property's range. (Central differences cost twice the
 //     property calls for no gain a Newton step can use.)
 //   - The turbine's isentropic exhaust enthalpy h_s(p_out, s(p_in, h_in))
-//     is differentiated by the Gibbs relation dh = T·ds + v·dp, which holds
-//     for the IF97 states in and out of the two-phase region: ∂s/∂h|p = 1/T,
-//     ∂s/∂p|h = −v/T, ∂h/∂s|p = T, ∂h/∂p|s = v.
+//     is differentiated by the chain rule over differences of s(p, h) and
+//     h(p, s), as any water property: the Gibbs relation dh = T·ds + v·dp
+//     holds for the IF97 functions only to about 1e-6 relative (their
+//     saturation line and regions agree to that order), which a check at
+//     1e-6 sees at a condenser's vacuum.
 //   - A boiler's efficiency from a maker's table (EfficiencyTable) is
 //     differentiated along the active segment. Any other efficiency model
 //     (flue-gas table, furnace model) and the flue-gas economiser's duty are
@@ -48,50 +51,106 @@ import (
 // combustion efficiency model allocates in its own evaluations.
 
 // propRel is the relative step of the differences of water properties:
-// √ε, the usual step of a forward difference, whose error is then near
-// 1e-8 relative. The IF97 refinement reproduces its results far closer
-// than the step changes them (checked by TestJacobianAgainstFiniteDifferences
-// against central differences).
-const propRel = 1.4901161193847656e-08
+// 1e-7, a little above √ε. A forward difference's rounding error is the
+// function's own noise over the step, and an IF97 property computed
+// through a backward equation (the condensate enthalpy h(p, T_sat(p) −
+// ΔT) at 0.2 bar(a)) carries noise of some tens of ulps, not one: at the
+// step √ε·p its forward difference scatters by about 1e-6 relative
+// (measured at 0.19-0.21 bar(a) with steps of 1e-4 to 1 Pa), at 1e-7·p by
+// under 2e-7, while the truncation error stays near 1e-7 relative
+// (checked by TestJacobianAgainstFiniteDifferences against central
+// differences).
+const propRel = 1e-7
 
 // fdRel is the relative step of the one-sided differences of a unit's own
 // function (unitFD): √ε, as the solver takes for its own differences.
-const fdRel = propRel
+const fdRel = 1.4901161193847656e-08
 
-// jacobian is the solver's Problem.Jacobian.
-func (p *Plant) jacobian(j *mat.Dense, x []float64) error {
+// jacobian is the solver's Problem.SparseJacobian: the plant's Jacobian
+// is held on its pattern alone, so nothing of size unknowns² is kept.
+func (p *Plant) jacobian(j *solver.Sparse, x []float64) error {
 	ev := &p.s.ev
 	ev.x = x
-	a := jacOf(j)
+	a := p.s.jac
+	a.start(j)
 	for _, c := range p.comps {
 		if err := c.jacobian(ev, a); err != nil {
 			return domainErr{err}
 		}
 	}
 	p.dispatchJacobian(a)
-	return nil
+	return a.finish()
 }
 
 // jac is where the components add their partial derivatives: the
 // solver's Jacobian storage. Components only call add, so the storage can
 // change here alone.
-type jac struct {
-	data   []float64
-	stride int
+//
+// The entries are those of the solver's Sparse, found by their place in
+// its rows. Finding one costs a binary search, so jac remembers the place
+// of each add by its rank in the sequence of calls: the components add
+// their entries in the same order at every call, except where a branch
+// (a boiler cycling or firing, a feed tank venting) writes other entries,
+// and there the remembered places are replaced as the calls differ. A
+// remembered place is used only when its row and column match, so the
+// entries written are always the ones named.
+type jac struct{ *jacCursor }
+
+type jacCursor struct {
+	sp   *solver.Sparse
+	val  []float64
+	key  []uint64 // key[k]: row<<32 | col of the k-th add of the last call
+	pos  []int32  // pos[k]: its place in val
+	k    int
+	miss error // the first entry outside the pattern
 }
 
-func jacOf(j *mat.Dense) jac {
-	raw := j.RawMatrix()
-	return jac{data: raw.Data, stride: raw.Stride}
+func newJac() jac { return jac{&jacCursor{}} }
+
+func (c *jacCursor) start(sp *solver.Sparse) {
+	if c.sp != sp {
+		c.key, c.pos = c.key[:0], c.pos[:0]
+	}
+	c.sp, c.val, c.k, c.miss = sp, sp.Values(), 0, nil
+}
+
+func (c *jacCursor) finish() error {
+	if c.miss != nil {
+		return c.miss
+	}
+	return nil
 }
 
 // add adds v to entry (row, col); a negative row or column (an equation or
-// unknown that the unit does not have) is skipped.
+// unknown that the unit does not have) is skipped. An entry outside the
+// plant's pattern (a unit's jacobian writing where its pattern says
+// nothing) is not written: the call returns an error naming it.
 func (a jac) add(row, col int, v float64) {
 	if row < 0 || col < 0 {
 		return
 	}
-	a.data[row*a.stride+col] += v
+	c := a.jacCursor
+	key := uint64(row)<<32 | uint64(col)
+	k := c.k
+	c.k++
+	if k < len(c.key) && c.key[k] == key {
+		c.val[c.pos[k]] += v
+		return
+	}
+	at := c.sp.Index(row, col)
+	if at < 0 {
+		if c.miss == nil {
+			c.miss = fmt.Errorf("internal error: the Jacobian entry (%d, %d) is outside the plant's pattern", row, col)
+		}
+		return
+	}
+	if k < len(c.key) {
+		c.key[k], c.pos[k] = key, int32(at)
+	} else {
+		c.key = append(c.key, key)
+		c.pos = append(c.pos, int32(at))
+	}
+	c.val[at] += v
 }
 
 func propStep(a float64) float64 {
@@ -122,6 +181,30 @@ func dProp1(f func(float64) (float64, error), a, f0 float64) (float64, error) {
 // dPropA is ∂f(a, b)/∂a by a one-sided difference of f alone, as dProp1.
 func dPropA(f func(a, b float64) (float64, error), a, b, f0 float64) (float64, error) {
 	return dProp1(func(x float64) (float64, error) { return f(x, b) }, a, f0)
+}
+
+// centralRel is the relative step of dPropCentralA: ε^(1/3), the step of
+// a central difference whose rounding and truncation errors balance (near
+// 1e-10 relative).
+const centralRel = 6.0554544523933395e-06
+
+// dPropCentralA is ∂f(a, b)/∂a by a central difference of f alone, for a
+// property whose forward difference is not accurate enough; it costs two
+// evaluations.
+func dPropCentralA(f func(a, b float64) (float64, error), a, b float64) (float64, error) {
+	h := centralRel * math.Abs(a)
+	if h == 0 {
+		h = centralRel
+	}
+	fp, err := f(a+h, b)
+	if err != nil {
+		return 0, err
+	}
+	fm, err := f(a-h, b)
+	if err != nil {
+		return 0, err
+	}
+	return (fp - fm) / (2 * h), nil
 }
 
 // dPropB is ∂f(a, b)/∂b by a one-sided difference of f alone, as dProp1.

@@ -8,6 +8,8 @@ import (
 	"testing"
 
 	"gonum.org/v1/gonum/mat"
+
+	"steamcase/solver"
 )
 
 // jacFixture is a plant of the package's tests with the cases it is
@@ -155,6 +157,15 @@ func jacFixtures() []jacFixture {
 		{"two boilers lead-lag", func(t testing.TB) *Plant { return twoBoilers(t, Options{Sharing: LeadLag}) }, []Case{
 			demandCase("two boilers", 12000),
 		}},
+		// Short: the boilers at their limit and the demand reduced, in
+		// proportion and by priority (the shed level away from a kink).
+		{"two boilers short", func(t testing.TB) *Plant { return twoBoilers(t, Options{}) }, []Case{
+			demandCase("short", 23000),
+		}},
+		{"short by priority", func(t testing.TB) *Plant { return shortPlant(t, Options{}) }, []Case{
+			{Name: "deeper", Set: []Setting{{Unit: "cleaning", Param: "steam", Value: 20000.0 / 3600},
+				{Unit: "cargo", Param: "steam", Value: 12000.0 / 3600}}},
+		}},
 		{"coupled consumers", coupledPlant, []Case{{Name: "winter", Conditions: Conditions{AirT: 263.15}}}},
 		{"exhaust-gas economiser", func(t testing.TB) *Plant { p, _ := egeOnly(t, 0.65); return p }, []Case{ege(1), ege(0.5)}},
 		{"exhaust-gas economiser with bypass", func(t testing.TB) *Plant {
@@ -174,6 +185,37 @@ func jacFixtures() []jacFixture {
 			{Name: "warm returns", Set: []Setting{{Unit: "tank heating", Param: "return_T", Value: 363.15}}},
 			{Name: "turbine off", Set: []Setting{{Unit: "tg", Param: "off", Value: 1}}},
 		}},
+		{"drain cooler to the hotwell, drains lost", func(t testing.TB) *Plant {
+			return twoBoilersWith(t, CoolerToHotwell, DrainsLost)
+		}, []Case{cooled, {Name: "trap", Set: []Setting{{Unit: "heating", Param: "trap_loss", Value: 0.05}}}}},
+		{"trap loss with a cooler to the feed", func(t testing.TB) *Plant { return twoBoilers(t, Options{}) }, []Case{
+			{Name: "trap", Set: []Setting{{Unit: "heating", Param: "trap_loss", Value: 0.05}, {Unit: "heating", Param: "return_T", Value: 353.15}}},
+			{Name: "trap, no cooler", Set: []Setting{{Unit: "heating", Param: "trap_loss", Value: 0.08}}},
+		}},
+		{"turbine by its steam rate", func(t testing.TB) *Plant {
+			return turbineWith(t, &Turbine{Power: 0.9e6, ExhaustP: 0.2 * bar, EtaMech: 0.95, RatedPower: 1.2e6,
+				RateLoad: []float64{0.5, 1}, SteamRate: []float64{10.2 / 3.6e6, 8.5 / 3.6e6}}, &Condenser{SubCooling: 3})
+		}, []Case{{Name: "discharge"}, {Name: "below the curve", Set: []Setting{{Unit: "cargo pump 1", Param: "power", Value: 0.4e6}}}}},
+		{"condenser by the approach", func(t testing.TB) *Plant {
+			return turbineWith(t, &Turbine{Power: 1e6, EtaIs: 0.65, EtaMech: 0.95}, &Condenser{Approach: 40})
+		}, []Case{{Name: "sea", Conditions: Conditions{SeaT: 290}}}},
+		{"condenser by its UA", func(t testing.TB) *Plant {
+			return turbineWith(t, &Turbine{Power: 1e6, EtaIs: 0.65, EtaMech: 0.95}, &Condenser{UA: 150e3, SeaFlow: 50, SubCooling: 2})
+		}, []Case{{Name: "sea", Conditions: Conditions{SeaT: 290}}, {Name: "warmer sea", Conditions: Conditions{SeaT: 296}}}},
+		{"warming steam", func(t testing.TB) *Plant {
+			p := twoBoilers(t, Options{})
+			must(t, p.Add(&Consumer{Base: Base{Name: "b2 warming"}, Model: &BoilerWarming{Boiler: "b2"}, ReturnFraction: 1}))
+			p.Connect("to b2 warming", Pos{}, "main", "out", "b2 warming", "in")
+			p.Connect("b2 warming return", Pos{}, "b2 warming", "out", "hotwell", "in")
+			return p
+		}, []Case{demandCase("one boiler", 5000), demandCase("two boilers", 9000)}},
+		{"cycling by the band", func(t testing.TB) *Plant {
+			return cyclingPlant(t, &Boiler{PurgeAir: 40, CycleBand: 1e5, WaterContent: 3000})
+		}, []Case{steamCase(0.5), steamCase(0.05), {Name: "given starts", Set: []Setting{
+			{Unit: "load", Param: "steam", Value: 0.3}, {Unit: "b1", Param: "starts_per_hour", Value: 6}}}}},
+		{"cycling furnace", func(t testing.TB) *Plant {
+			return cyclingPlant(t, &Boiler{Efficiency: smallFireTube(), Fuel: hsfo(t), PurgeAir: 10, StartsPerHour: 5})
+		}, []Case{steamCase(0.5)}},
 	}
 }
 
@@ -358,14 +400,13 @@ func TestAnalyticJacobianSameResults(t *testing.T) {
 // Jacobian allocates nothing (the project's rule for hot paths).
 func TestJacobianAllocatesNothing(t *testing.T) {
 	for _, fx := range jacFixtures() {
-		if fx.name == "furnace" || fx.name == "economiser" || fx.name == "flue-gas table" {
+		if fx.name == "furnace" || fx.name == "cycling furnace" || fx.name == "economiser" || fx.name == "flue-gas table" {
 			continue // the combustion models' own allocations are theirs
 		}
 		p := fx.build(t)
 		_, err := p.Solve(context.Background(), fx.cases[0])
 		must(t, err)
-		n := p.s.prob.Dim
-		j := mat.NewDense(n, n, nil)
+		j := solver.NewSparse(p.s.prob.Dim, p.s.prob.Pattern)
 		x := append([]float64(nil), p.s.last...)
 		must(t, p.jacobian(j, x))
 		if a := testing.AllocsPerRun(20, func() {
@@ -387,9 +428,8 @@ func TestJacobianKeepsUnknowns(t *testing.T) {
 		p := fx.build(t)
 		_, err := p.Solve(context.Background(), fx.cases[0])
 		must(t, err)
-		n := p.s.prob.Dim
 		x := append([]float64(nil), p.s.last...)
-		must(t, p.jacobian(mat.NewDense(n, n, nil), x))
+		must(t, p.jacobian(solver.NewSparse(p.s.prob.Dim, p.s.prob.Pattern), x))
 		for i := range x {
 			if math.Float64bits(x[i]) != math.Float64bits(p.s.last[i]) {
 				t.Errorf("%s: the Jacobian changed %q from %v to %v", fx.name, p.s.asm.varNames[i], p.s.last[i], x[i])
@@ -428,10 +468,10 @@ func BenchmarkJacobian(b *testing.B) {
 			if _, err := p.Solve(context.Background(), fx.cases[0]); err != nil {
 				b.Fatal(err)
 			}
-			n := p.s.prob.Dim
-			j := mat.NewDense(n, n, nil)
+			j := solver.NewSparse(p.s.prob.Dim, p.s.prob.Pattern)
 			x := append([]float64(nil), p.s.last...)
 			for b.Loop() {
+				j.Zero()
 				if err := p.jacobian(j, x); err != nil {
 					b.Fatal(err)
 				}

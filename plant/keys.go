@@ -34,9 +34,13 @@ const (
 	// exhaust table, a tank's boundaries) that the script front end
 	// decodes for the kind.
 	KeyTable
+	// KeyRank is a number, or one of Key.Choices standing for the number
+	// of the same place in Key.Levels (a consumer's priority: 25, or
+	// "cargo" for 30). A Setting holds the number.
+	KeyRank
 )
 
-var keyKindNames = [...]string{"quantity", "pressure difference", "true or false", "number", "choice", "text", "list of names", "table"}
+var keyKindNames = [...]string{"quantity", "pressure difference", "true or false", "number", "choice", "text", "list of names", "table", "number or level"}
 
 func (k KeyKind) String() string {
 	if int(k) < len(keyKindNames) {
@@ -52,6 +56,23 @@ func (k KeyKind) String() string {
 // change it, and the result key that reports it. Scripts' key checks, the
 // load cases' settings (Setting.Param is a key's Name), the documentation
 // of the keys and the check-mode result are all read from these.
+// Sources of defaults that are not figures from a reference: every key
+// with a default names one of these or a reference (TestEveryDefaultHasSource).
+const (
+	// SourceLeftOut marks a default that leaves an effect out of the model
+	// unless the description gives it: no loss, no limit, no check, a
+	// factor of one, switched on.
+	SourceLeftOut = "left out unless given"
+	// SourceDerived marks a default taken from elsewhere in the
+	// description or the case (the ambient pressure, the sea temperature,
+	// another key): not an assumption of its own.
+	SourceDerived = "taken from the description or the case"
+	// SourceRule marks a default that is the model's own rule, stated in
+	// the key's documentation (the first of its choices, the lowest
+	// priority reduced first, a figure the description must give).
+	SourceRule = "the model's rule, as documented"
+)
+
 type Key struct {
 	Name  string // as a script writes it: "drum"
 	Label string // in messages: "drum pressure"
@@ -79,6 +100,8 @@ type Key struct {
 	// if any.
 	JSON    string
 	Choices []string
+	// Levels are the numbers the Choices of a KeyRank stand for.
+	Levels []float64
 	// Clears lists keys that setting this one resets to zero in a case (a
 	// duty replaces a set steam flow).
 	Clears []string
@@ -136,6 +159,12 @@ func (k *Key) InRange(v float64) bool {
 		return v == 0 || v == 1
 	case KeyChoice:
 		return v == float64(int(v)) && int(v) >= 0 && int(v) < len(k.Choices)
+	case KeyRank:
+		for _, l := range k.Levels {
+			if v == l {
+				return true
+			}
+		}
 	}
 	if k.Min == 0 && k.Max == 0 {
 		return true
@@ -375,6 +404,8 @@ func WriteKeyReference(w io.Writer, kinds []KindSpec) error {
 			}
 			if k.Kind == KeyChoice {
 				what = "one of " + choices(k.Choices)
+			} else if k.Kind == KeyRank {
+				what = fmt.Sprintf("a number from %g to %g or one of %s", k.Min, k.Max, levels(k.Choices, k.Levels))
 			} else if k.Example != "" {
 				ex := k.Example
 				if (k.Kind == KeyQuantity || k.Kind == KeyPressureDiff) && strings.Contains(ex, " ") {
@@ -416,6 +447,41 @@ func choices(cs []string) string {
 		return q[0]
 	}
 	return strings.Join(q[:len(q)-1], ", ") + " or " + q[len(q)-1]
+}
+
+// levels writes `"a" (10), "b" (20) or "c" (30)`.
+func levels(names []string, values []float64) string {
+	q := make([]string, len(names))
+	for i, c := range names {
+		q[i] = strconv.Quote(c)
+		if i < len(values) {
+			q[i] += " (" + strconv.FormatFloat(values[i], 'g', 6, 64) + ")"
+		}
+	}
+	if len(q) == 1 {
+		return q[0]
+	}
+	return strings.Join(q[:len(q)-1], ", ") + " or " + q[len(q)-1]
+}
+
+// Level returns the number a KeyRank's named level stands for.
+func (k *Key) Level(name string) (float64, bool) {
+	for i, c := range k.Choices {
+		if c == name && i < len(k.Levels) {
+			return k.Levels[i], true
+		}
+	}
+	return 0, false
+}
+
+// LevelName returns the name of a KeyRank's level v, or "".
+func (k *Key) LevelName(v float64) string {
+	for i, l := range k.Levels {
+		if l == v && i < len(k.Choices) {
+			return k.Choices[i]
+		}
+	}
+	return ""
 }
 
 // KeyNames lists the names of keys, in their order.

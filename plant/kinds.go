@@ -47,6 +47,7 @@ var kinds = [...]KindSpec{
 	{"soot_blowing", "soot blowing by steam, averaged over its interval", func() Component { return NewModelConsumer(&SootBlowing{}) }},
 	{"steam_tracing", "steam tracing of pipes", func() Component { return NewModelConsumer(&SteamTracing{}) }},
 	{"fresh_water_generator", "a fresh-water generator heated by steam", func() Component { return NewModelConsumer(&FreshWaterGenerator{}) }},
+	{"boiler_warming", "steam that keeps an idle boiler warm while it does not fire", func() Component { return NewModelConsumer(&BoilerWarming{}) }},
 	{"turbine", "a steam turbine of a set shaft power", func() Component { return NewTurbine() }},
 	{"cargo_pump", "a steam turbine driving a cargo pump", func() Component { return NewCargoPumpTurbine() }},
 	{"condenser", "a condenser, or a dump condenser for the economisers' surplus steam", func() Component { return NewCondenser() }},

@@ -7,18 +7,21 @@ import "steamcase/plant/units"
 // steam) comes back here. Its flow follows from the feed tank's balance.
 type MakeUp struct {
 	Base
-	// T is the water temperature, K; zero means 15 °C.
+	// T is the water temperature, K; zero means the case's sea
+	// temperature (the distilled water's storage tanks stand against the
+	// shell), or 15 °C when the case gives none.
 	T float64
 	P float64 // supply pressure, Pa; zero: the plant's ambient pressure
 
-	out *Line
-	eqs [2]int
-	mh  memo
+	out   *Line
+	eqs   [2]int
+	mh    memo
+	caseT float64 // the case's temperature (prepare)
 }
 
-// defaultMakeUpT is the make-up water's temperature when none is given:
-// 15 °C, distilled water from a storage tank in a temperate engine room
-// (common practice, no source).
+// defaultMakeUpT is the make-up water's temperature when neither the
+// make-up nor the case gives one: 15 °C, distilled water from a storage
+// tank in a temperate engine room (common practice, no source).
 const defaultMakeUpT = 288.15
 
 // NewMakeUp returns a make-up water supply with its defaults.
@@ -26,11 +29,11 @@ func NewMakeUp() *MakeUp { return &MakeUp{} }
 
 var makeUpKeys = []Key{
 	num(Key{Name: "T", Label: "make-up temperature", Dim: units.Temperature, Example: "15 C",
-		Doc: "temperature of the make-up water", Default: defaultMakeUpT, HasDefault: true,
+		Doc: "temperature of the make-up water", DefaultNote: "the case's sea temperature (the storage tanks stand against the shell), or 15 °C when the case gives none",
 		Source: "common practice, no source", Min: 273.16, Max: 373.15, Case: true},
 		self[*MakeUp], func(u *MakeUp) *float64 { return &u.T }),
 	num(Key{Name: "p", Label: "supply pressure", Dim: units.Pressure, Example: "1 bar(g)",
-		Doc: "supply pressure", DefaultNote: "the plant's ambient pressure", Min: 1e3, Max: 5e7},
+		Doc: "supply pressure", DefaultNote: "the plant's ambient pressure", Min: 1e3, Max: 5e7, Source: SourceDerived},
 		self[*MakeUp], func(u *MakeUp) *float64 { return &u.P }),
 }
 
@@ -46,10 +49,31 @@ func (u *MakeUp) Ports() []PortSpec {
 }
 
 func (u *MakeUp) temperature() float64 {
-	if u.T == 0 {
-		return defaultMakeUpT
+	if u.caseT > 0 {
+		return u.caseT
 	}
-	return u.T
+	if u.T > 0 {
+		return u.T
+	}
+	return defaultMakeUpT
+}
+
+// prepare takes the case's make-up temperature: the given one, else the
+// sea's, else defaultMakeUpT. A sea colder than fresh water's triple point
+// (sea water freezes near −1.9 °C) is an error: give the make-up's T.
+func (u *MakeUp) prepare(_ *Plant, c Conditions) error {
+	switch {
+	case u.T > 0:
+		u.caseT = u.T
+	case c.SeaT > 0:
+		if c.SeaT < 273.16 {
+			return compErr(u, "takes the sea temperature %.2f °C, below the freezing point of its fresh water: give the make-up's T", c.SeaT-273.15)
+		}
+		u.caseT = c.SeaT
+	default:
+		u.caseT = defaultMakeUpT
+	}
+	return nil
 }
 
 func (u *MakeUp) check(fs *faults) {
@@ -112,12 +136,18 @@ func (u *MakeUp) guess(x []float64) {
 
 func (u *MakeUp) report(ev *eval, cr *CaseResult) error {
 	m := ev.m(u.out)
+	cr.Units = append(cr.Units, ComponentResult{Name: u.Name, Kind: u.Kind(), Figures: Figures{
+		{"T_K", u.temperature()},
+		{"flow_kg_s", m},
+	}})
 	cr.MakeUpKgS += m
 	cr.boundary.massIn += m
 	cr.boundary.energyIn += m * ev.h(u.out)
 	return nil
 }
 
-func (u *MakeUp) outline(cr *CaseResult) {}
+func (u *MakeUp) outline(cr *CaseResult) {
+	cr.Units = append(cr.Units, ComponentResult{Name: u.Name, Kind: u.Kind()})
+}
 
 func (u *MakeUp) clone() Component { c := *u; c.out = nil; return &c }

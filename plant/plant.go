@@ -34,6 +34,21 @@ type Options struct {
 	// NoEGESaving skips the second solve of each case without its
 	// exhaust-gas economisers that gives the fuel they save.
 	NoEGESaving bool
+	// NoContingencies skips the N-1 answers of each case (contingency.go):
+	// the largest firing boiler tripping, each exhaust-gas economiser out,
+	// and the Contingencies listed; for speed.
+	NoContingencies bool
+	// Contingencies are failures to answer besides the automatic ones:
+	// each the boilers and exhaust-gas economisers lost together. The
+	// slice is only read.
+	Contingencies []Contingency
+	// InertGasO2Max is the highest O2 in the dry flue gas an inert-gas
+	// source may deliver, a mole fraction; zero means 0.05 (5 % by volume:
+	// the figure of SOLAS II-2 reg. 4.5.5 and the FSS Code ch. 15, from
+	// memory). InertGasCapacity is the inert gas the sources must deliver
+	// as a fraction of the running cargo pumps' rate; zero means 1.25
+	// (125 %, the FSS Code ch. 15 figure, from memory).
+	InertGasO2Max, InertGasCapacity float64
 	// FiniteDifferences makes the solver form the Jacobian by its own
 	// coloured finite differences instead of the components' analytic
 	// partial derivatives: a fallback and a check.
@@ -52,6 +67,12 @@ func (o *Options) defaults() {
 	}
 	if o.FeedSuctionMaxT == 0 {
 		o.FeedSuctionMaxT = 363.15
+	}
+	if o.InertGasO2Max == 0 {
+		o.InertGasO2Max = 0.05
+	}
+	if o.InertGasCapacity == 0 {
+		o.InertGasCapacity = 1.25
 	}
 }
 
@@ -172,6 +193,19 @@ func (p *Plant) compile() error {
 	for _, c := range p.comps {
 		c.check(&fs)
 	}
+	p.checkContingencies(&fs)
+	p.checkInertGas(&fs)
+	if p.Opt.Sharing == LeastFuel {
+		n := 0
+		for _, c := range p.comps {
+			if _, ok := c.(*Boiler); ok {
+				n++
+			}
+		}
+		if n > MaxLeastFuelBoilers {
+			fs.add(p.Pos, "", "", "least-fuel sharing tries every set of boilers, for at most %d; this plant has %d: share equally or lead-lag", MaxLeastFuelBoilers, n)
+		}
+	}
 	ports := p.connect(&fs)
 	if err := fs.err(); err != nil {
 		return err
@@ -185,7 +219,7 @@ func (p *Plant) compile() error {
 		return err
 	}
 	s := &session{asm: a, ports: ports}
-	s.assembleDispatch(a)
+	s.assembleDispatch(a, p.comps)
 	st, err := solver.DiagnoseIncidence(len(a.eqNames), len(a.varNames), a.pattern, a.eqNames, a.varNames)
 	if err == nil {
 		err = st.Err()
@@ -322,7 +356,8 @@ func (p *Plant) newSolver(s *session) error {
 		Residual: p.residual,
 	}
 	if !p.Opt.FiniteDifferences {
-		s.prob.Jacobian = p.jacobian
+		s.prob.SparseJacobian = p.jacobian
+		s.jac = newJac()
 	}
 	slv, err := solver.New(s.prob, p.solverSettings())
 	if err != nil {
@@ -338,6 +373,11 @@ func (p *Plant) solverSettings() *solver.Settings {
 		s = *p.Opt.Solver
 	}
 	s.SkipDiagnosis = true // compile has diagnosed the structure
+	if s.Recorder == nil {
+		// The watch reads the iterates, not the condition.
+		s.RecordBound = true
+	}
+	s.Recorder = &stallWatch{p: p, next: s.Recorder}
 	if s.Factorizer == nil {
 		// A plant's Jacobian is sparse (each equation touches a few
 		// lines): the sparse LU is several times faster than the dense

@@ -82,6 +82,9 @@ func vPH(p, h float64) (float64, error) {
 // waterTsat is the saturation temperature at p.
 func waterTsat(p float64) (float64, error) { return water.Tsat(p) }
 
+// waterPsat is the saturation pressure at t.
+func waterPsat(t float64) (float64, error) { return water.Psat(t) }
+
 // The critical point of water, IAPWS-IF97 Eqs. 2 and 3.
 const (
 	tCrit = 647.096  // K

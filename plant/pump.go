@@ -26,7 +26,17 @@ type FeedPump struct {
 	eqs       [3]int
 	discharge float64
 	mv        memo
+	mt        memo // inlet temperature (reports)
+	// heat is the heat of drain coolers on condensate returns that heat
+	// the feed after the pump (transfer.go): with any, the enthalpy
+	// equation is written as a heat balance.
+	heat []transfer
 }
+
+// pumpFlowFloor keeps the pump's outlet enthalpy defined when no feed
+// passes and a drain cooler heats the feed (kg/s), as the economiser's
+// ecoFlowFloor does; far below any flow of interest.
+const pumpFlowFloor = 1e-6
 
 // The feed pump's defaults.
 const (
@@ -121,6 +131,17 @@ func (u *FeedPump) assemble(a *assembly, ports portLines) {
 	u.eqs[0] = a.equation(u.Name+": mass balance", 1, u.in.mIdx(), u.out.mIdx())
 	u.eqs[1] = a.equation(u.Name+": discharge pressure", scaleP, u.out.pIdx())
 	u.eqs[2] = a.equation(u.Name+": enthalpy rise", scaleH, u.in.pIdx(), u.in.hIdx(), u.out.pIdx(), u.out.hIdx())
+	u.heat = u.heat[:0]
+}
+
+// receive takes a drain cooler's heat into the feed after the pump: the
+// enthalpy equation becomes (ṁ + pumpFlowFloor)·(h_out − h_in − v·Δp/η) =
+// Q, a heat balance.
+func (u *FeedPump) receive(a *assembly, t transfer) {
+	u.heat = append(u.heat, t)
+	a.fScale[u.eqs[2]] = scaleQ
+	a.depend(u.eqs[2], u.in.mIdx())
+	a.depend(u.eqs[2], t.transferDeps()...)
 }
 
 // link checks that the boilers the pump feeds are boilers of the plant.
@@ -161,6 +182,13 @@ func (u *FeedPump) residual(ev *eval, r []float64) error {
 	r[u.eqs[0]] = ev.m(u.out) - ev.m(u.in)
 	r[u.eqs[1]] = pOut - u.discharge
 	r[u.eqs[2]] = ev.h(u.out) - hIn - v*(pOut-pIn)/u.eta()
+	if len(u.heat) > 0 {
+		_, q, err := sumTransfers(ev, u.heat)
+		if err != nil {
+			return wrapErr(u, err)
+		}
+		r[u.eqs[2]] = (ev.m(u.in)+pumpFlowFloor)*r[u.eqs[2]] - q
+	}
 	return nil
 }
 
@@ -179,10 +207,25 @@ func (u *FeedPump) jacobian(ev *eval, j jac) error {
 	j.add(u.eqs[0], u.out.mIdx(), 1)
 	j.add(u.eqs[0], u.in.mIdx(), -1)
 	j.add(u.eqs[1], u.out.pIdx(), 1)
-	j.add(u.eqs[2], u.out.hIdx(), 1)
-	j.add(u.eqs[2], u.in.hIdx(), -1-dvdh*dp/eta)
-	j.add(u.eqs[2], u.in.pIdx(), (v-dvdp*dp)/eta)
-	j.add(u.eqs[2], u.out.pIdx(), -v/eta)
+	k := 1.0
+	if len(u.heat) > 0 {
+		// r = (ṁ + floor)·g − Q, g = h_out − h_in − v·Δp/η.
+		k = ev.m(u.in) + pumpFlowFloor
+		j.add(u.eqs[2], u.in.mIdx(), ev.h(u.out)-hIn-v*dp/eta)
+		for _, t := range u.heat {
+			_, _, d, err := t.transferred(ev, true)
+			if err != nil {
+				return wrapErr(u, err)
+			}
+			for _, pd := range d {
+				j.add(u.eqs[2], pd.col, -pd.de)
+			}
+		}
+	}
+	j.add(u.eqs[2], u.out.hIdx(), k)
+	j.add(u.eqs[2], u.in.hIdx(), k*(-1-dvdh*dp/eta))
+	j.add(u.eqs[2], u.in.pIdx(), k*(v-dvdp*dp)/eta)
+	j.add(u.eqs[2], u.out.pIdx(), -k*v/eta)
 	return nil
 }
 
@@ -194,14 +237,25 @@ func (u *FeedPump) guess(x []float64) {
 
 func (u *FeedPump) report(ev *eval, cr *CaseResult) error {
 	m := ev.m(u.in)
-	shaft := m * (ev.h(u.out) - ev.h(u.in))
+	_, q, err := sumTransfers(ev, u.heat)
+	if err != nil {
+		return wrapErr(u, err)
+	}
+	// The drain coolers' heat raises the feed's enthalpy too; the pump's
+	// work is the rest (v·Δp/η per kg, but for the flow floor's share).
+	shaft := m*(ev.h(u.out)-ev.h(u.in)) - q
 	el := shaft / u.motorEta()
-	cr.Units = append(cr.Units, ComponentResult{Name: u.Name, Kind: u.Kind(), Figures: Figures{
-		{"head_Pa", ev.p(u.out) - ev.p(u.in)},
-		{"shaft_W", shaft},
-		{"electric_W", el},
-		{"discharge_Pa", ev.p(u.out)},
-	}})
+	fig := append(make(Figures, 0, 5),
+		Figure{"head_Pa", ev.p(u.out) - ev.p(u.in)},
+		Figure{"shaft_W", shaft},
+		Figure{"electric_W", el},
+		Figure{"discharge_Pa", ev.p(u.out)},
+	)
+	if len(u.heat) > 0 {
+		fig = append(fig, Figure{"drain_cooler_heat_W", q})
+		u.checkHotEnd(ev, cr, q)
+	}
+	cr.Units = append(cr.Units, ComponentResult{Name: u.Name, Kind: u.Kind(), Figures: fig})
 	cr.ElectricW += el
 	cr.boundary.workIn += shaft
 	return nil
@@ -215,5 +269,35 @@ func (u *FeedPump) clone() Component {
 	c := *u
 	c.Boilers = append([]string(nil), u.Boilers...)
 	c.in, c.out = nil, nil
+	c.heat = nil
 	return &c
+}
+
+// inletT is the temperature of the feed the pump takes.
+func (u *FeedPump) inletT(ev *eval) (float64, error) {
+	return u.mt.get2(ev.p(u.in), ev.h(u.in), tPH)
+}
+
+// checkHotEnd warns when the drain coolers would heat the feed above the
+// hottest condensate they take: no exchanger does that (the second law).
+func (u *FeedPump) checkHotEnd(ev *eval, cr *CaseResult, q float64) {
+	if q <= 0 {
+		return
+	}
+	tOut, err := tPH(ev.p(u.out), ev.h(u.out))
+	if err != nil {
+		return
+	}
+	hottest := 0.0
+	for _, t := range u.heat {
+		if c, ok := t.(*Consumer); ok {
+			if th, ok := c.coolerInletT(ev); ok {
+				hottest = math.Max(hottest, th)
+			}
+		}
+	}
+	if hottest > 0 && tOut > hottest {
+		cr.warn("%s %q: the drain coolers' %.1f kW would heat the feed to %.1f °C, above the hottest condensate they take (%.1f °C), which no exchanger does: send some of it to the hotwell or overboard (drain_cooler)",
+			u.Kind(), u.Name, q/1e3, tOut-273.15, hottest-273.15)
+	}
 }

@@ -5,6 +5,7 @@ import (
 	"errors"
 	"fmt"
 	"math"
+	"steamcase/plant/units"
 
 	"steamcase/solver"
 )
@@ -49,10 +50,37 @@ type session struct {
 	fire      []bool    // per boiler of asm.roles.boilers
 	firingBuf []*Boiler // scratch for the firing list
 
+	// The shedding (priority.go): the shed level's unknown and equation
+	// (−1 without boilers and dump condensers), the components it may
+	// reduce and, for the case, how many distinct priorities they have.
+	// noShed holds the shed level at zero in the solve in hand (the
+	// firing rule's trials, and a case that shedding cannot carry);
+	// shedFailed says that shedding everything that may be reduced was
+	// not enough for the solution in hand.
+	shedIdx, shedEq int
+	shedders        []shedder
+	nRanks          int
+	noShed          bool
+	shedFailed      bool
+	// shares, if not nil, are the boilers' shares of the firing boilers'
+	// steam (least-fuel sharing tries them); equalShare makes a lead-lag
+	// plant share equally (its fallback, and the contingencies).
+	shares     []float64
+	equalShare bool
+
+	// Scratch of the contingencies: the case's solution and firing, and a
+	// contingency's firing set and the boilers it starts.
+	n1Base            []float64
+	n1BaseFire        []bool
+	n1Fire, n1Started []bool
+
 	prob   solver.Problem
 	slv    *solver.Solver
 	slvRes solver.Result
 	solves int // configurations solved for the present case
+	// newton counts the Newton iterations of every solve of the present
+	// case, failed and repeated ones included.
+	newton int
 
 	last     []float64 // last converged unknowns, for warm starts
 	x0       []float64 // starting point scratch
@@ -64,8 +92,10 @@ type session struct {
 	keepX      []float64
 	keepRes    solver.Result
 	keepSolves int
+	keepNoShed bool
 
-	ev eval
+	ev  eval
+	jac jac // the Jacobian's remembered entry places
 }
 
 // domainErr marks a component's failure while the solver explores: the
@@ -105,10 +135,15 @@ func (p *Plant) solveConfig(ctx context.Context, fire []bool) error {
 	} else {
 		p.guess(s.x0)
 	}
+	if s.noShed && s.shedIdx >= 0 {
+		s.x0[s.shedIdx] = 0
+	}
 	res, err := s.slv.Solve(ctx, s.x0)
+	s.newton += res.Stats.Iterations
 	if err != nil && warm && ctx.Err() == nil {
 		p.guess(s.x0)
 		res, err = s.slv.Solve(ctx, s.x0)
+		s.newton += res.Stats.Iterations
 	}
 	s.slvRes = *res
 	if err != nil {
@@ -155,6 +190,7 @@ func (p *Plant) applySettings(c *Case) (restore func(), err error) {
 		return nil
 	}
 	var fs faults
+	movesPressure := false
 	for _, s := range c.Set {
 		u, ok := p.byName[s.Unit]
 		if !ok {
@@ -166,6 +202,9 @@ func (p *Plant) applySettings(c *Case) (restore func(), err error) {
 		if !ok || !k.Case || !k.Settable() {
 			fs.add(s.Pos, s.Unit, "", "%s", paramMsg(u, s.Param))
 			continue
+		}
+		if k.Kind == KeyText || k.Dim == units.Pressure {
+			movesPressure = true
 		}
 		if k.Kind == KeyText {
 			if err := setText(u, k, s.Text); err != nil {
@@ -197,8 +236,9 @@ func (p *Plant) applySettings(c *Case) (restore func(), err error) {
 			}
 		}
 	}
-	if len(c.Set) > 0 {
-		// A case may move the set pressures (a drum, a valve).
+	if movesPressure {
+		// A case may move the set pressures (a drum, a valve, a text
+		// setting that may carry one).
 		p.checkPressures(&fs)
 	}
 	if err := fs.err(); err != nil {
@@ -223,7 +263,10 @@ func (p *Plant) Solve(ctx context.Context, c Case) (*CaseResult, error) {
 	defer restore()
 	s := p.s
 	s.ev = eval{cond: c.Conditions, pl: p}
-	s.solves = 0
+	s.solves, s.newton = 0, 0
+
+	s.shares, s.equalShare = nil, false
+	given := p.rankShedding()
 
 	boilers := s.asm.roles.boilers
 	fire := make([]bool, len(boilers))
@@ -232,24 +275,83 @@ func (p *Plant) Solve(ctx context.Context, c Case) (*CaseResult, error) {
 		if err := p.forcedFiring(c, fire); err != nil {
 			return nil, err
 		}
-		if err := p.solveConfig(ctx, fire); err != nil {
+		if err := p.solveShedding(ctx, fire, false); err != nil {
 			return nil, p.solveErr(c, err)
 		}
 		if err := p.forcedOffShort(c, fire); err != nil {
 			return nil, err
 		}
-	} else if err := p.decide(ctx, fire); err != nil {
+	} else if err := p.decideShedding(ctx, fire); err != nil {
 		return nil, p.solveErr(c, err)
 	}
+	leadFallback := false
+	if p.Opt.Sharing == LeadLag && p.lagOverLimit() {
+		// The lead held at its load leaves the others above their limit:
+		// share equally instead.
+		s.equalShare, leadFallback = true, true
+		if err := p.solveShedding(ctx, s.fire, false); err != nil {
+			return nil, p.solveErr(c, err)
+		}
+	}
 
-	cr := &CaseResult{Name: c.Name, Series: c.Series, Pos: c.Pos, Conditions: c.Conditions, Forced: forced}
+	var lf *LeastFuelResult
+	if !forced && p.Opt.Sharing == LeastFuel {
+		var err error
+		if lf, err = p.leastFuel(ctx, c); err != nil {
+			return nil, p.solveErr(c, err)
+		}
+	}
+
+	cr := &CaseResult{Name: c.Name, Series: c.Series, Pos: c.Pos, Conditions: c.Conditions, Forced: forced,
+		PrioritiesGiven: given, ShedRanks: s.nRanks, LeastFuel: lf}
 	if err := p.report(cr); err != nil {
+		return nil, err
+	}
+	if leadFallback {
+		cr.warn("lead-lag sharing would take the other boilers above their limit with the lead at %.0f %% of its MCR: they share equally", 100*p.Opt.LeadLoad)
+	}
+	if err := p.inertGas(cr); err != nil {
+		return nil, err
+	}
+	if err := p.contingencies(ctx, c, cr); err != nil {
 		return nil, err
 	}
 	if err := p.egeSaving(ctx, c, cr); err != nil {
 		return nil, err
 	}
 	return cr, nil
+}
+
+// decideShedding lets the firing rule decide (its trials with nothing
+// shed) and, when all the boilers fire and are short, solves again with
+// the demand reduced by priority.
+func (p *Plant) decideShedding(ctx context.Context, fire []bool) error {
+	s := p.s
+	s.noShed, s.shedFailed = true, false
+	if err := p.decide(ctx, fire); err != nil {
+		return err
+	}
+	copy(fire, s.fire)
+	return p.shedIfOver(ctx, fire)
+}
+
+// lagOverLimit says whether a firing boiler raises more than its limit
+// while the firing boilers together stay within theirs: what lead-lag
+// sharing does when the lead's set load leaves too much to the others.
+func (p *Plant) lagOverLimit() bool {
+	s := p.s
+	var lim, steam float64
+	over := false
+	for i, b := range s.asm.roles.boilers {
+		if !s.fire[i] {
+			continue
+		}
+		m := s.last[b.steam.mIdx()]
+		lim += b.Limit()
+		steam += m
+		over = over || m > b.Limit()*(1+1e-9)
+	}
+	return over && steam <= lim*(1+1e-9)
 }
 
 // forcedFiring marks the boilers a case forces to fire, and refuses names
@@ -318,13 +420,17 @@ func (p *Plant) egeSaving(ctx context.Context, c Case, cr *CaseResult) error {
 	copy(s.lastCopy, s.last)
 	saved := s.slvRes
 	hint, hintSet := s.hint, s.hintSet
+	noShed, shedFailed := s.noShed, s.shedFailed
+	fireSaved := append([]bool(nil), s.fire...)
 	defer func() {
 		s.hint, s.hintSet = hint, hintSet
 		for _, e := range eges {
 			e.Off = false
 		}
 		copy(s.last, s.lastCopy)
+		copy(s.fire, fireSaved)
 		s.slvRes = saved
+		s.noShed, s.shedFailed = noShed, shedFailed
 	}()
 	for _, e := range eges {
 		e.Off = true
@@ -340,9 +446,9 @@ func (p *Plant) egeSaving(ctx context.Context, c Case, cr *CaseResult) error {
 				fire[i] = fire[i] || b.Name == n
 			}
 		}
-		err = p.solveConfig(ctx, fire)
+		err = p.solveShedding(ctx, fire, false)
 	} else {
-		err = p.decide(ctx, fire)
+		err = p.decideShedding(ctx, fire)
 	}
 	if err != nil {
 		return &SolveError{Case: c.Name + " (without exhaust-gas economisers)", Pos: c.Pos, Status: s.slvRes.Status, Err: err}
@@ -411,6 +517,7 @@ func (p *Plant) report(cr *CaseResult) error {
 	cr.Iterations = s.slvRes.Stats.Iterations
 	cr.ResidualNorm = s.slvRes.ResidualNorm
 	cr.Solves = s.solves
+	cr.NewtonIterations = s.newton
 	cr.Units = make([]ComponentResult, 0, len(p.comps))
 	cr.Consumers = make([]ConsumerResult, 0, len(p.comps))
 	cr.Boilers = make([]BoilerResult, 0, len(s.asm.roles.boilers))
@@ -455,43 +562,70 @@ func (p *Plant) reportLines(ev *eval, cr *CaseResult) error {
 	return nil
 }
 
-// reportTotals sums the boilers and says whether the firing boilers carry
-// the case, with the margin before the next must fire.
+// reportTotals sums the boilers and the shedding and says whether the
+// firing boilers carry the case, with the margin before the next must
+// fire.
 func (p *Plant) reportTotals(cr *CaseResult) {
-	var capFiring, capAll, fired float64
+	var capFiring, capAll, usableFiring, fired float64
 	for _, b := range cr.Boilers {
 		cr.SteamProductionKgS += b.SteamKgS
 		fired += b.SteamKgS
 		cr.FuelKgS += b.FuelKgS
 		cr.CO2KgS += b.CO2KgS
-		capAll += b.MCRKgS
+		capAll += b.LimitKgS
 		if b.Firing {
 			cr.BoilersFiring++
-			capFiring += b.MCRKgS
+			capFiring += b.LimitKgS
+			usableFiring += math.Min(p.Opt.UsableFraction*b.MCRKgS, b.LimitKgS)
 		}
 	}
+	for _, c := range cr.Consumers {
+		cr.ShedW += c.ShedW
+		cr.ShedKgS += c.ShedKgS
+	}
 	cr.SteamDemandKgS = cr.SteamProductionKgS - cr.DumpedKgS
+	shed := p.shedding()
+	over := cr.BoilersFiring > 0 && fired > capFiring*(1+1e-9)
 	switch {
 	case cr.BoilersFiring == 0:
-		cr.CanCarry = true
+		cr.CanCarry = !shed
 		cr.MarginNextKgS = cr.DumpedKgS
 	case cr.BoilersFiring < len(cr.Boilers):
-		cr.CanCarry = fired <= capFiring*(1+1e-9) || !cr.Forced
-		cr.MarginNextKgS = p.Opt.UsableFraction*capFiring - fired
+		cr.CanCarry = !shed && !over
+		cr.MarginNextKgS = usableFiring - fired
 		if cr.Forced {
 			cr.MarginNextKgS = capFiring - fired
 		}
 	default:
-		cr.CanCarry = fired <= capAll*(1+1e-9)
+		cr.CanCarry = !shed && !over
 		cr.MarginNextKgS = capAll - fired
 	}
-	if !cr.CanCarry {
-		cr.ShortfallKgS = fired - capFiring
-		if cr.Forced && cr.BoilersFiring < len(cr.Boilers) {
-			cr.warn("the boilers forced to fire cannot carry this case: short by %.0f kg/h", cr.ShortfallKgS*3600)
-		} else {
-			cr.warn("the plant cannot carry this case: short by %.0f kg/h", cr.ShortfallKgS*3600)
+	if cr.Forced {
+		for _, b := range cr.Boilers {
+			if b.Firing && b.LoadFraction > p.Opt.UsableFraction*(1+1e-9) && b.SteamKgS <= b.LimitKgS*(1+1e-9) {
+				cr.warn("oil-fired boiler %q is forced to %.0f %% of its MCR, above the plant's usable fraction %.0f %%: no margin is left for load swings",
+					b.Name, 100*b.LoadFraction, 100*p.Opt.UsableFraction)
+			}
 		}
+	}
+	if cr.CanCarry {
+		return
+	}
+	if !shed {
+		cr.ShedW, cr.ShedKgS = 0, 0
+	}
+	cr.ShortfallKgS = cr.ShedKgS + math.Max(0, fired-capFiring)
+	who := "the plant cannot carry this case"
+	if cr.Forced && cr.BoilersFiring < len(cr.Boilers) {
+		who = "the boilers forced to fire cannot carry this case"
+	}
+	msg := fmt.Sprintf("%s: short by %.0f kg/h", who, cr.ShortfallKgS*3600)
+	if shed {
+		msg += fmt.Sprintf(", with the boilers firing at their limit of %.0f kg/h; %s", capFiring*3600, shedSummary(cr))
+	}
+	cr.warn("%s", msg)
+	if p.s.shedFailed && over {
+		cr.warn("even with every consumer that may be reduced taken to nothing the boilers would be short: what cannot be reduced (fuel-driven heaters and atomising steam, the feed tank's heating, header drains, blowdown) takes more than their limit, so the figures show them above it and nothing shed")
 	}
 }
 

@@ -98,7 +98,7 @@ func TestToyComponent(t *testing.T) {
 		!strings.Contains(err.Error(), `has no parameter "flw"; its parameters are ["flow" "off"]`) {
 		t.Errorf("a misspelt key is not refused by name: %v", err)
 	}
-	if o := p.Outline("check", Conditions{}); len(o.Units) != 1 || o.Units[0].Name != "vent" {
+	if o := p.Outline("check", Conditions{}); len(o.Units) != 2 || o.Units[1].Name != "vent" {
 		t.Errorf("the outline does not list the toy: %+v", o.Units)
 	}
 	var b strings.Builder

@@ -17,7 +17,7 @@ return steam_plant {
                      radiation = "1 %" },
       burner = { fan_rise = "3.5 kPa", fan_eta = "60 %", motor_eta = "90 %" } },
   },
-  makeup = { T = "15 C" },
+  -- make-up distilled water at the sea temperature (its tanks stand against the shell)
   hotwell = { heat_loss = "5 kW", set_T = "60 C" },
   feed_pump = { margin = "3 bar", eta = "40 %" },
   headers = { { name = "main", heat_loss = "12 kW" } },
@@ -45,21 +45,25 @@ return steam_plant {
     fouling_rate = "0.001 m2K/W", clean_U = "40 W/m2K", clean_interval = "2000 h",
   },
   dump_condenser = { subcool = "80 K" },
+  -- The dump condenser's condensate and the returns keep the hotwell above 85 C
+  -- at sea, so the drain coolers cannot cool against the feed: they are cooled
+  -- by sea water ("overboard"; the default is the feed).
   consumers = {
     { name = "ME fuel heater", kind = "fuel_heater", service = "engine", fuel = "VLSFO",
-      flow = "5.5 t/h", inlet_T = "90 C", target_viscosity = "12 cSt", outlet_limit = "150 C",
-      returns = "100 %", return_T = "85 C" },
+      -- its oil flow follows the engine: SFOC x MCR x load (invented SFOC)
+      sfoc = "172 g/kWh", engine_mcr = "36 MW", inlet_T = "90 C", target_viscosity = "12 cSt", outlet_limit = "150 C",
+      returns = "100 %", return_T = "85 C", drain_cooler = "overboard" },
     { name = "purifier heaters", kind = "fuel_heater", service = "purifier", fuel = "VLSFO",
-      flow = "6 t/h", inlet_T = "55 C", outlet_T = "98 C", returns = "100 %", return_T = "85 C" },
+      flow = "6 t/h", inlet_T = "55 C", outlet_T = "98 C", returns = "100 %", return_T = "85 C", drain_cooler = "overboard" },
     { name = "bunker tank heating", kind = "tank_heating", fuel = "VLSFO", mode = "hold", T = "45 C",
-      returns = "98 %", return_T = "85 C", volume = "3000 m3",
+      returns = "98 %", return_T = "85 C", drain_cooler = "overboard", volume = "3000 m3",
       boundaries = {
         { name = "bottom", area = "600 m2", U = "3.5 W/m2K", beyond = "sea" },
         { name = "sides", area = "500 m2", U = "3.5 W/m2K", beyond = "sea" },
         { name = "bulkheads to holds", area = "900 m2", U = "6 W/m2K", beyond = "air" } } },
     { name = "accommodation", kind = "accommodation", UA = "12 kW/K", inside_T = "21 C",
-      balance_T = "16 C", returns = "100 %", return_T = "80 C" },
-    { name = "galley and sundry", duty = "45 kW", returns = "80 %", return_T = "80 C" },
+      balance_T = "16 C", returns = "100 %", return_T = "80 C", drain_cooler = "overboard" },
+    { name = "galley and sundry", duty = "45 kW", returns = "80 %", return_T = "80 C", drain_cooler = "overboard" },
     { name = "AB1 atomising steam", kind = "atomising_steam", boiler = "AB1", ratio = "2 %" },
   },
 }

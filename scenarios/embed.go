@@ -11,14 +11,25 @@
 //   - container_plant.lua, container.lua: a container ship at sea and in
 //     port, with and without its exhaust-gas economiser.
 //   - audit_heating.lua: an auditor's check of a claimed cargo-heating
-//     consumption for one loaded passage.
+//     consumption for one loaded passage: the heating's share of each day's
+//     fuel split out by with/without solves, and the heating factor the
+//     claim implies.
 //   - voyage.lua with voyage.csv: a voyage plan, period by period.
 //   - ege_study.lua with year_profile.csv: a designer's study of
 //     exhaust-gas economiser variants, each with its installed cost, over a
 //     year: savings, NPV and payback, cold-end and soot-risk hours, and a
 //     sweep of its UA for the size of highest NPV.
 //   - audit.lua with passage_log.csv: a day-by-day audit of reported boiler
-//     fuel against a Monte Carlo band.
+//     fuel against the model: fixed and daily uncertain inputs, the flow
+//     meter's uncertainty, the boilers' efficiency calibrated on two
+//     reference days, the implied factors per day, the fuel by cause and by
+//     grade (MGO in an emission control area).
+//   - heated_tanker_plant.lua, heating_plan.lua with heating_route.csv and
+//     heating_voyage.csv: a crude tanker's cargo heating plan on a winter
+//     route of 12 days (three tank groups, 57 C through the discharge): the
+//     least-fuel plan against holding the temperature and heating at the
+//     last moment, and the engineer's own instructions as a voyage whose
+//     tanks carry their temperature from row to row.
 package scenarios
 
 import "embed"

@@ -13,6 +13,10 @@ import (
 	"testing"
 	"time"
 
+	"steamcase/plant"
+	"steamcase/plant/combustion"
+	"steamcase/plant/fuel"
+	"steamcase/plant/profile"
 	"steamcase/plant/water"
 	"steamcase/scenarios"
 	"steamcase/scripting"
@@ -97,11 +101,49 @@ func TestScenarios(t *testing.T) {
 			}
 			for _, a := range run.Audits {
 				r := a.Result
-				fmt.Fprintf(&b, "audit %q: claimed %.3f t, nominal %.3f t, band %.3f to %.3f t, flagged %d\n",
-					a.Name, r.ClaimedT, r.NominalT, r.LowT, r.HighT, r.Flagged)
+				p := r.Period
+				fmt.Fprintf(&b, "audit %q: %d days, claimed %.3f t, nominal %.3f t, band %.3f to %.3f t, P(model <= claim) %.4f, flag %q, days flagged %d\n",
+					a.Name, p.Days, p.ClaimedT, p.NominalT, p.LowT, p.HighT, p.PAtOrBelow, p.Flag, r.Flagged)
 				for _, d := range r.Days {
-					fmt.Fprintf(&b, "  %s: claimed %.3f, band %.3f to %.3f %s\n", d.Date, d.ClaimedT, d.LowT, d.HighT, d.Flag)
+					fmt.Fprintf(&b, "  %s: claimed %.3f, nominal %.3f", d.Date, d.ClaimedT, d.NominalT)
+					if d.Reference {
+						b.WriteString(", reference")
+					} else {
+						fmt.Fprintf(&b, ", band %.3f to %.3f, percentile %.1f", d.LowT, d.HighT, 100*d.Percentile)
+						if d.Flag != "" {
+							b.WriteString(", flagged " + d.Flag)
+						}
+					}
+					for _, v := range d.Implied {
+						if v.Status == profile.ImpliedFound || v.Status == profile.ImpliedStep {
+							fmt.Fprintf(&b, ", implied %.4f %s", v.Value, v.Status)
+						} else {
+							fmt.Fprintf(&b, ", implied: %s", v.Status)
+						}
+					}
+					b.WriteString("\n")
 				}
+				if c := r.Calibration; c != nil {
+					fmt.Fprintf(&b, "  calibrated %s: %.4f (%.4f to %.4f)\n", c.Name, c.Value, c.Low, c.High)
+				}
+				for _, c := range r.Causes {
+					fmt.Fprintf(&b, "  cause %q: %.3f t\n", c.Name, c.FuelT)
+				}
+				for _, g := range r.FuelByGrade {
+					fmt.Fprintf(&b, "  grade %s: %.3f t, CO2 %.3f t\n", g.Grade, g.FuelT, g.CO2T)
+				}
+			}
+			for _, h := range run.HeatingPlans {
+				r := h.Result
+				fmt.Fprintf(&b, "heating plan %q (%s): plan %.3f t (curves %.3f t), hold %.3f t, last moment %.3f t, CO2 %.3f t\n",
+					h.Name, r.Method, r.Plan.FuelT, r.Plan.TableFuelT, r.Hold.FuelT, r.LastMoment.FuelT, r.Plan.CO2T)
+				for _, t := range r.Tanks {
+					for _, q := range t.Required {
+						fmt.Fprintf(&b, "  %s: %.2f K at %s (required %.2f K, met %v), latest start %.0f h\n",
+							t.Unit, q.Reached, q.Label, q.T, q.Met, q.LatestStartH)
+					}
+				}
+				fmt.Fprintf(&b, "  binding rows: %d, short rows %v\n", len(r.Binding), r.Plan.ShortRows)
 			}
 			golden := filepath.Join("testdata", strings.TrimSuffix(name, ".lua")+".golden")
 			if *update {
@@ -165,11 +207,30 @@ func TestHandCheckTankerPort(t *testing.T) {
 	if hfw == 0 {
 		t.Fatal("no line \"feed AB1\" in the result")
 	}
-	// The maker's table of the script: 80.5 % at 25 % load, 84.0 % at 50 %.
+	// The maker's flue-gas table of the script: 260 C and 6.5 % O2 at
+	// 25 % load, 295 C and 4.5 % at 50 %, interpolated by hand, and the
+	// heat-loss method of plant/combustion at that point with the case's
+	// 5 C air and 1 % radiation at MCR (that package's own checks are
+	// against plant-checks.md §2-§3).
 	if b.LoadFraction < 0.25 || b.LoadFraction > 0.5 {
 		t.Fatalf("load %.3f outside the table segment the hand check uses", b.LoadFraction)
 	}
-	eta := 0.805 + (b.LoadFraction-0.25)/0.25*(0.840-0.805)
+	f := (b.LoadFraction - 0.25) / 0.25
+	flueT, o2 := 273.15+260+f*35, 0.065-f*0.02
+	hsfo, err := fuel.Grade("HSFO")
+	if err != nil {
+		t.Fatal(err)
+	}
+	prod, err := combustion.Fire(hsfo, combustion.Conditions{O2Dry: o2, AirT: 278.15})
+	if err != nil {
+		t.Fatal(err)
+	}
+	loss, err := combustion.Efficiency(prod, flueT, combustion.TRef, combustion.LossOptions{
+		Radiation: combustion.Radiation{PercentAtMCR: 1, LoadFraction: b.LoadFraction}})
+	if err != nil {
+		t.Fatal(err)
+	}
+	eta := loss.LHV.Efficiency / 100
 	if math.Abs(eta-b.Efficiency) > 1e-12 {
 		t.Errorf("efficiency by hand %.6f, engine %.6f", eta, b.Efficiency)
 	}
@@ -185,6 +246,90 @@ func TestHandCheckTankerPort(t *testing.T) {
 	if d := math.Abs(b.BlowdownKgS/(b.SteamKgS+b.BlowdownKgS) - 0.01); d > 1e-12 {
 		t.Errorf("blowdown fraction off by %g", d)
 	}
+}
+
+// TestTankerDischargeTrip: the N-1 line of the demo tanker's discharge
+// ("if AB2 trips") is the case forced with AB1 alone, solved here on a
+// plant of its own built from tanker_plant.lua (the same equations, so to
+// the solver's tolerance; no outside source).
+func TestTankerDischargeTrip(t *testing.T) {
+	t.Parallel()
+	ctx := context.Background()
+	src, err := fs.ReadFile(scenarios.FS, "tanker.lua")
+	if err != nil {
+		t.Fatal(err)
+	}
+	run, err := scripting.RunSource(ctx, "tanker.lua", src, scenarios.FS, scripting.Options{Timeout: time.Minute})
+	if err != nil {
+		t.Fatal(err)
+	}
+	d := run.Cases[1].Result
+	if d.Name != "discharge, three cargo pumps" || len(d.Contingencies) == 0 {
+		t.Fatalf("case %q, contingencies %d", d.Name, len(d.Contingencies))
+	}
+	trip := d.Contingencies[0]
+	if trip.Name != "AB2 trips" || !trip.Solved || trip.CanCarry {
+		t.Fatalf("trip %+v", trip)
+	}
+
+	p := tankerPlant(t)
+	forced := plant.Case{Name: "AB1 alone", Conditions: d.Conditions, Fire: []string{"AB1"}}
+	for _, u := range []string{"COP1", "COP2", "COP3"} {
+		forced.Set = append(forced.Set, plant.Setting{Unit: u, Param: "off", Value: 0})
+	}
+	f, err := p.Solve(ctx, forced)
+	if err != nil {
+		t.Fatal(err)
+	}
+	near := func(what string, got, want, tol float64) {
+		t.Helper()
+		if math.Abs(got-want) > tol*math.Max(math.Abs(want), 1e-3) {
+			t.Errorf("%s: N-1 line %.9g, forced case %.9g", what, got, want)
+		}
+	}
+	near("shortfall", trip.ShortfallKgS, f.ShortfallKgS, 1e-7)
+	near("AB1 steam", trip.Boilers[0].SteamKgS, f.Boilers[0].SteamKgS, 1e-9)
+	var shed []plant.ConsumerResult
+	for _, c := range f.Consumers {
+		if c.ShedW > 0 {
+			shed = append(shed, c)
+		}
+	}
+	if len(shed) != len(trip.Shed) {
+		t.Fatalf("shed %d consumers in the line, %d in the forced case", len(trip.Shed), len(shed))
+	}
+	for _, c := range shed {
+		found := false
+		for _, s := range trip.Shed {
+			if s.Name != c.Name {
+				continue
+			}
+			found = true
+			near(c.Name+" shed", s.ShedW, c.ShedW, 1e-7)
+			if (s.Cooling == nil) != (c.Cooling == nil) {
+				t.Errorf("%s: cooling %v against %v", c.Name, s.Cooling, c.Cooling)
+			} else if c.Cooling != nil {
+				near(c.Name+" hours to min_T", s.Cooling.SecondsToMinT, c.Cooling.SecondsToMinT, 1e-7)
+			}
+		}
+		if !found {
+			t.Errorf("%s is shed in the forced case, not in the line", c.Name)
+		}
+	}
+}
+
+// tankerPlant builds the demo tanker's plant from its script.
+func tankerPlant(t *testing.T) *plant.Plant {
+	t.Helper()
+	src, err := fs.ReadFile(scenarios.FS, "tanker_plant.lua")
+	if err != nil {
+		t.Fatal(err)
+	}
+	run, err := scripting.RunSource(context.Background(), "tanker_plant.lua", src, scenarios.FS, scripting.Options{Timeout: time.Minute})
+	if err != nil {
+		t.Fatal(err)
+	}
+	return run.Plants[0]
 }
 
 // TestScenariosCheckMode runs every scenario in check mode, where nothing

@@ -9,6 +9,13 @@ local discharge = case(ship, { name = "discharge, three cargo pumps", sea = "12 
   set = { COP1 = { off = false }, COP2 = { off = false }, COP3 = { off = false } } })
 check(discharge.boilers_firing == 2, "the discharge needs both boilers")
 check(discharge.can_carry, "the two boilers carry the discharge")
+check(discharge.inert_gas ~= nil and discharge.inert_gas.met,
+  "the boilers' flue gas is fit to inert the cargo tanks during the discharge")
+-- And if a boiler trips during the discharge? The N-1 line says what is
+-- shed, lowest priority first (a planning estimate: the boiler makers'
+-- manuals and the ship's safety management system govern).
+local trip = discharge.contingencies[1]
+if trip then print(trip.line) end
 
 local winter = case(ship, { name = "loaded passage, winter, heating to 60 C", sea = "2 C", air = "-10 C", engine = "75 %",
   set = { ["cargo heating"] = { T = "60 C" } } })

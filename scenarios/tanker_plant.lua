@@ -6,8 +6,14 @@
 -- a hotwell held at 60 C by steam.
 
 local heavy_fuel_efficiency = {
-  -- A maker's shop test (invented): load against efficiency, LHV basis.
-  { "25 %", "80.5 %" }, { "50 %", "84.0 %" }, { "75 %", "85.0 %" }, { "100 %", "84.5 %" },
+  -- A maker's shop test (invented): flue-gas exit temperature and dry O2
+  -- against load, turned into an efficiency by the heat-loss method (about
+  -- 83-85 % LHV, within the 82-88 % of plant-checks.md §3.5 [M/CP] for
+  -- boilers without an economiser); radiation 1 % at MCR (0.5-1.5 %,
+  -- plant-checks.md §3.4 [CP]). The O2 also tells the inert gas's quality.
+  flue_gas = { { "25 %", "260 C", "6.5 %" }, { "50 %", "295 C", "4.5 %" },
+               { "75 %", "325 C", "3.5 %" }, { "100 %", "350 C", "3.0 %" } },
+  radiation = "1 %",
 }
 
 local ship = steam_plant {
@@ -15,12 +21,13 @@ local ship = steam_plant {
   usable = "85 %",
   sharing = "equal",
   boilers = {
+    -- Both boilers' uptakes feed the inert-gas system during discharge.
     { name = "AB1", mcr = "20 t/h", drum = "16 bar(g)", dryness = "99 %", blowdown = "1 %",
-      turndown = 4, fuel = "HSFO", efficiency = heavy_fuel_efficiency },
+      turndown = 4, fuel = "HSFO", efficiency = heavy_fuel_efficiency, inert_gas = true },
     { name = "AB2", mcr = "20 t/h", drum = "16 bar(g)", dryness = "99 %", blowdown = "1 %",
-      turndown = 4, fuel = "HSFO", efficiency = heavy_fuel_efficiency },
+      turndown = 4, fuel = "HSFO", efficiency = heavy_fuel_efficiency, inert_gas = true },
   },
-  makeup = { T = "15 C" },
+  -- make-up distilled water at the sea temperature (its tanks stand against the shell)
   hotwell = { heat_loss = "8 kW", set_T = "60 C" },
   feed_pump = { margin = "3 bar", eta = "45 %" },
   headers = { { name = "HP", heat_loss = "20 kW" }, { name = "LP", p = "7 bar(g)", heat_loss = "15 kW" } },
@@ -41,9 +48,18 @@ local ship = steam_plant {
     intake_rise = "10 K",
   },
   dump_condenser = { subcool = "80 K" },
+  -- Drain coolers give their heat to the boiler feed after the feed pump by
+  -- default. The hotwell runs near the returns' temperature, so a cooler can
+  -- only cool against the feed to above it: the 85 C returns heat the feed, the
+  -- 80 C ones (accommodation, galley) are cooled by sea water ("overboard").
+  -- Priorities say what is shed first when the boilers at their limit are
+  -- short (a boiler trips during the discharge, say): the hotel loads, then
+  -- the cargo heating (its cargo cools slowly, and min_T says how far it
+  -- may), then the cargo pumps; the fuel heating last.
   consumers = {
     { name = "cargo heating", kind = "tank_heating", header = "LP", fuel = "HSFO",
       mode = "hold", T = "55 C", returns = "98 %", subcool = "10 K", return_T = "85 C",
+      priority = 25, min_T = "45 C",
       volume = "30000 m3",
       boundaries = {
         { name = "deck", area = "4800 m2", U = "4.5 W/m2K", beyond = "air" },
@@ -80,27 +96,29 @@ local ship = steam_plant {
       } },
     { name = "HFO purifier heater", kind = "fuel_heater", service = "purifier", header = "LP",
       fuel = "HSFO", flow = "2.2 t/h", inlet_T = "60 C", outlet_T = "98 C",
-      returns = "100 %", return_T = "85 C" },
+      returns = "100 %", return_T = "85 C", priority = "essential" },
     { name = "AB1 burner heater", kind = "fuel_heater", service = "burner", boiler = "AB1", header = "LP",
       fuel = "HSFO", inlet_T = "70 C", target_viscosity = "15 cSt", returns = "100 %", return_T = "85 C" },
     { name = "AB2 burner heater", kind = "fuel_heater", service = "burner", boiler = "AB2", header = "LP",
       fuel = "HSFO", inlet_T = "70 C", target_viscosity = "15 cSt", returns = "100 %", return_T = "85 C" },
     { name = "accommodation", kind = "accommodation", header = "LP", UA = "18 kW/K",
-      inside_T = "21 C", balance_T = "16 C", returns = "100 %", return_T = "80 C" },
-    { name = "galley and sundry", header = "LP", duty = "60 kW", returns = "80 %", return_T = "80 C" },
+      inside_T = "21 C", balance_T = "16 C", returns = "100 %", return_T = "80 C", drain_cooler = "overboard",
+      priority = "hotel" },
+    { name = "galley and sundry", header = "LP", duty = "60 kW", returns = "80 %", return_T = "80 C", drain_cooler = "overboard",
+      priority = "hotel" },
     { name = "tank cleaning heater", kind = "tank_cleaning", header = "LP", flow = "40 t/h",
-      outlet_T = "75 C", returns = "95 %", return_T = "85 C", off = true },
+      outlet_T = "75 C", returns = "95 %", return_T = "85 C", off = true, priority = "deferrable" },
   },
   turbines = {
     { name = "COP1", kind = "cargo_pump", header = "HP", flow = "2000 m3/h", head = "140 m",
       density = "800 kg/m3", efficiency = "78 %", exhaust = "0.2 bar(a)", eta_is = "65 %", eta_mech = "95 %",
-      condenser = { subcool = "5 K" }, off = true },
+      condenser = { subcool = "5 K" }, off = true, priority = "cargo" },
     { name = "COP2", kind = "cargo_pump", header = "HP", flow = "2000 m3/h", head = "140 m",
       density = "800 kg/m3", efficiency = "78 %", exhaust = "0.2 bar(a)", eta_is = "65 %", eta_mech = "95 %",
-      condenser = { subcool = "5 K" }, off = true },
+      condenser = { subcool = "5 K" }, off = true, priority = "cargo" },
     { name = "COP3", kind = "cargo_pump", header = "HP", flow = "2000 m3/h", head = "140 m",
       density = "800 kg/m3", efficiency = "78 %", exhaust = "0.2 bar(a)", eta_is = "65 %", eta_mech = "95 %",
-      condenser = { subcool = "5 K" }, off = true },
+      condenser = { subcool = "5 K" }, off = true, priority = "cargo" },
   },
 }
 

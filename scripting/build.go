@@ -31,11 +31,13 @@ type decoder struct {
 
 // decoders are the kinds' decoders, by kind name: a constant table.
 var decoders = map[string]decoder{
-	"boiler":                 {[]string{"fuel", "lhv", "co2_factor", "efficiency", "burner"}, decodeBoiler},
+	"boiler":                 {[]string{"fuel", "lhv", "co2_factor", "bdn", "efficiency", "burner"}, decodeBoiler},
 	"consumer":               {[]string{"duty", "steam"}, decodeConsumer},
 	"tank_heating":           {[]string{"density", "volume", "dimensions", "boundaries", "mode", "T", "from", "to", "duration"}, decodeTankHeating},
-	"fuel_heater":            {[]string{"outlet_T", "target_viscosity", "boiler", "flow"}, decodeFuelHeater},
+	"fuel_heater":            {[]string{"outlet_T", "target_viscosity", "boiler", "flow", "sfoc", "engine_mcr"}, decodeFuelHeater},
 	"accommodation":          {[]string{"table", "UA", "inside_T", "balance_T"}, decodeAccommodation},
+	"turbine":                {[]string{"eta_is", "steam_rate", "rated_power", "steam_table"}, decodeTurbine},
+	"cargo_pump":             {[]string{"eta_is", "steam_rate", "rated_power", "steam_table"}, decodeTurbine},
 	"exhaust_gas_economiser": {[]string{"engine", "ua", "design_gas", "design_load", "pinch", "exhaust_fuel", "exhaust_O2", "gas_cp"}, decodeEGE},
 }
 
@@ -152,6 +154,22 @@ func (r *runner) readKey(a *args, u plant.Component, k *plant.Key, required bool
 			}
 		}
 		a.errorf(nil, "%s must be %s; got %q", k.Name, choiceList(k.Choices), s)
+		return true
+	case plant.KeyRank:
+		v := a.get(k.Name)
+		if v == lua.LNil {
+			if required {
+				a.errorf(nil, "%s is required, such as %s = %s", k.Name, k.Name, k.Example)
+				a.markMissing(k.Name)
+			}
+			return false
+		}
+		f, err := parseRank(v, k, k.Name)
+		if err != nil {
+			a.errorf(err, "%v", err)
+			return true
+		}
+		k.Set(u, f)
 		return true
 	case plant.KeyText:
 		s, ok := a.str(k.Name, required)

@@ -6,6 +6,7 @@ import (
 	"math"
 	"reflect"
 	"sort"
+	"strconv"
 	"strings"
 
 	lua "github.com/yuin/gopher-lua"
@@ -62,8 +63,40 @@ func parseSetting(val lua.LValue, k *plant.Key, name string, uopt units.Options)
 			return 0, fmt.Errorf("%s must be a finite number; got %s", name, describe(val))
 		}
 		return float64(n), nil
+	case plant.KeyRank:
+		return parseRank(val, k, name)
 	}
 	return parseQuantity(val, name, k.Dim, uopt)
+}
+
+// parseRank reads a number or a named level (a consumer's priority): a
+// Lua number, a string holding a number (a CSV cell), or one of the key's
+// level names.
+func parseRank(val lua.LValue, k *plant.Key, name string) (float64, error) {
+	var f float64
+	switch v := val.(type) {
+	case lua.LNumber:
+		f = float64(v)
+	case lua.LString:
+		if l, ok := k.Level(string(v)); ok {
+			return l, nil
+		}
+		g, err := strconv.ParseFloat(strings.TrimSpace(string(v)), 64)
+		if err != nil {
+			msg := fmt.Sprintf("%s must be a number from %g to %g or one of %s; got %q", name, k.Min, k.Max, choiceList(k.Choices), string(v))
+			if s := suggest(string(v), k.Choices); s != "" {
+				msg += fmt.Sprintf("; did you mean %q?", s)
+			}
+			return 0, errors.New(msg)
+		}
+		f = g
+	default:
+		return 0, fmt.Errorf("%s must be a number from %g to %g or one of %s; got %s", name, k.Min, k.Max, choiceList(k.Choices), describe(val))
+	}
+	if !(f >= k.Min && f <= k.Max) {
+		return 0, fmt.Errorf("%s must be a number from %g to %g or one of %s; got %g", name, k.Min, k.Max, choiceList(k.Choices), f)
+	}
+	return f, nil
 }
 
 // luaCase is case(plant, { name, sea, air, engine, set, fire }).

@@ -8,20 +8,24 @@
 //	run, err := scripting.RunSource(ctx, "demo/tanker.lua", src, embeddedFS, opt)
 //
 // Run holds the plants and the solved cases (plant name, script position,
-// *plant.CaseResult), and the jobs voyage, study and audit (Run.Voyages,
-// Run.Studies, Run.Audits: name, plant, script position, the positions of
-// their rows, and the result of package plant/profile). Options.Workers
+// *plant.CaseResult), and the jobs voyage, study, audit and heating_plan
+// (Run.Voyages, Run.Studies, Run.Audits, Run.HeatingPlans: name, plant,
+// script position, the positions of their rows, and the result of package
+// plant/profile or plant/heatplan). Options.Workers
 // sets the goroutines the jobs solve on (zero: all cores; the results do
 // not depend on it) and Options.Progress, if set, is called with the job,
-// the rows done and the total, for a command to show on stderr; long jobs
-// may need a longer Options.Timeout. The error is one of:
+// the rows done and the total, for a command to show on stderr. The
+// script's own limit, Options.Timeout, counts the time outside its jobs;
+// each job has its own, Options.JobTimeout, by default 10 s and 20 ms for
+// each plant solve it announces. The error is one of:
 //
 //   - ErrorList: script errors, sorted by position, each an *Error printing
 //     as "file:line: unit: message" ("file:line:col:" for syntax errors);
 //     as many as could be found in one pass, not just the first;
 //   - *AssertionError: a failed check(), printing
 //     "file:line: assertion failed: message" (a command exits 1);
-//   - *TimeoutError: the run exceeded Options.Timeout or Options.MaxMemory;
+//   - *TimeoutError: the run exceeded Options.Timeout or Options.MaxMemory,
+//     or a job its Options.JobTimeout (JobLimit set, naming the job);
 //   - the context's error when the caller cancelled it;
 //   - an error reading the script file.
 //
@@ -48,12 +52,20 @@
 //
 // plant{} keys: name (required); ambient (pressure, absolute; default
 // 101.325 kPa); usable (fraction of one boiler's MCR before the next fires;
-// default 85 %); sharing ("equal" or "lead"); lead_load (fraction, lead
-// boiler's load under "lead"; default 80 %); feed_suction_max_T
-// (temperature above which the feed pump's suction is warned about;
-// default 90 C); ege_saving (boolean, default true: each case is solved a
-// second time without its exhaust-gas economisers to give the fuel they
-// save; false skips that solve, for speed, and the saving reads zero).
+// default 85 %); sharing ("equal", "lead" or "least_fuel"); lead_load
+// (fraction, lead boiler's load under "lead"; default 80 %);
+// feed_suction_max_T (temperature above which the feed pump's suction is
+// warned about; default 90 C); ege_saving (boolean, default true: each
+// case is solved a second time without its exhaust-gas economisers to
+// give the fuel they save; false skips that solve, for speed, and the
+// saving reads zero); n_minus_1 (boolean, default true: each case also
+// answers its single failures; false skips them, for speed);
+// contingencies (a list of failures besides the automatic ones, each a
+// unit's name or a list of names lost together: boilers and exhaust-gas
+// economisers, such as { "AB1", { "AB2", "EGE" } }); inert_gas (a table:
+// O2, the highest O2 in the dry flue gas, default 5 %; capacity, the gas
+// needed as a fraction of the running cargo pumps' rate, default 125 %).
+// See "Capacity, N-1, inert gas and sharing" below.
 //
 // Components are declared with methods of the plant named by their kind
 // (ship:boiler{...}, ship:tank_heating{...}); each returns a table
@@ -67,11 +79,34 @@
 //
 //	ship:line("name", "fromunit.port", "tounit.port")
 //
-// A fuel by grade takes its LHV and CO2 factor from package plant/fuel
+// A fuel by grade takes its LHV and CO2 factors from package plant/fuel
 // (plant.SpecFromFuel, which also carries the full fuel the combustion
 // models need); lhv and co2_factor override the figures of the energy
 // balance (the combustion models keep the grade's analysis); a fuel that
-// is not a grade needs both, and cannot take a combustion model.
+// is not a grade needs both, and cannot take a combustion model. A fuel as
+// delivered is the grade with its bunker delivery note on top:
+//
+//	fuel = "VLSFO", bdn = { grade = "RMG 380", density = "955 kg/m3", sulphur = "0.48 %",
+//	                        water = "0.2 %", ash = "0.03 %", viscosity = "320 cSt" }
+//
+// (water in % V/V as the note gives it; sulfur is accepted for sulphur;
+// optional lhv, a stated net specific energy, and name): the LHV follows
+// by the ISO 8217 annex formula, the analysis and its carbon from the same
+// figures, and the IMO fuel type from the declared grade (plant/fuel's
+// FromBDN, which checks every figure); the note's warnings (off-spec for
+// the grade, a stated LHV far from the formula's) are repeated in every
+// case the boiler burns fuel. A case reports the CO2 twice, each
+// labelled: co2_t_per_day by the IMO conversion factor C_F of each fuel's
+// IMO fuel type, for regulatory reporting, and co2_analysis_t_per_day by
+// the carbon of the fuel's analysis, the carbon the combustion models
+// burn; each boiler says which factor its co2_kg_h takes (co2_basis).
+//
+// A turbine's steam is given one way (a decoder checks it): eta_is;
+// steam_rate, one figure ("8.5 kg/kWh") or {load, rate} pairs, with
+// rated_power; or the maker's steam_table of {power, flow} pairs. A
+// fuel_heater of service "engine" may take sfoc (one figure or {load,
+// sfoc} pairs) with engine_mcr instead of flow: its oil then follows the
+// case's engine load.
 //
 // # Boiler efficiency from combustion
 //
@@ -228,6 +263,60 @@
 // table. In check mode it returns a table of the same shape with zero
 // figures.
 //
+// # Capacity, N-1, inert gas and sharing
+//
+// A boiler never raises more than its limit: its MCR times its max_load
+// (default 100 %; a case may lower it). When the boilers firing cannot
+// carry a case, it is solved with them at their limit and the demand is
+// reduced by priority: every consumer and turbine takes priority, a
+// number from 1 to 100 (higher kept longer) or a named level,
+// "deferrable" (10), "hotel" (20), "cargo" (30) or "essential" (40, also
+// the rank of a consumer that gives none). The lowest priority is reduced
+// first, each consumer of one priority by the same fraction of its duty,
+// steam or shaft power; without any priority every consumer is reduced in
+// proportion, and the report says so. Burner heaters and atomising steam
+// (they follow their boiler's fuel), the hotwell's heating and header
+// drains are never reduced. r.can_carry is false, r.shortfall_kg_h the
+// steam missing, r.shed_kW and r.shed_kg_h what was shed, and each
+// r.consumers[i] has priority, priority_level, reducible, requested_kW,
+// shed_kW, shed_kg_h and, for a tank, cooling { rate_K_per_h, min_T_K,
+// hours_to_min_T } (give a tank_heating min_T, the lowest temperature its
+// cargo may cool to, for the hours). A boiler forced above the plant's
+// usable fraction gets a warning.
+//
+// N-1: each case also answers the largest firing boiler tripping, each
+// exhaust-gas economiser in service being out, and each of the plant's
+// contingencies: r.contingencies[i] has name ("AB2 trips"), kind, units,
+// solved, can_carry, shortfall_kg_h, margin_kg_h, shed_kW, shed_kg_h,
+// boilers (name, load_fraction, steam_kg_h, started: a standby boiler
+// that must start), shed (the consumers reduced, with their cooling),
+// note and line (the report's sentence: print(r.contingencies[1].line)).
+// A failure that the remaining boilers carry with their usable capacity
+// at least 125 % of the steam needed is not solved (solved false, loads
+// estimated). A voyage's totals count n_minus_1_short_hours and
+// n_minus_1_short_rows; each row has n_minus_1_can_carry. The figures are
+// planning estimates: the boiler makers' manuals and the ship's safety
+// management system govern what is done when a boiler trips.
+//
+// Inert gas: a boiler with inert_gas = true feeds the inert-gas system
+// from its uptake; it needs a flue_gas or furnace efficiency (its O2 and
+// gas volume come from it). While cargo pumps run, r.inert_gas has
+// sources, firing, cargo_rate_m3_h, capacity, required_m3_h,
+// delivered_Nm3_h (dry gas at 0 C and 101.325 kPa), o2_dry, o2_max, met,
+// min_load_fraction (the lowest load at which the sources meet it),
+// extra_steam_kg_h and extra_fuel_kg_h (what firing harder for inert gas
+// than for steam costs), note and line. The 5 % and 125 % defaults are
+// the figures of SOLAS II-2 reg. 4.5.5 and the FSS Code ch. 15, from
+// memory; the line never replaces the O2 analyser.
+//
+// sharing = "least_fuel" chooses which boilers fire and how they split
+// the steam for the least fuel, from each boiler's own efficiency model,
+// within turndown, the usable fraction, the limits and the inert-gas
+// minimum, at most 4 boilers: r.least_fuel has equal_fuel_kg_h (the
+// firing rule with equal sharing), saved_kg_h, saved_pct, firing, shares
+// and note. Package plant's doc of leastfuel.go says how it searches and
+// when equal sharing is already the least fuel.
+//
 // # Voyages, studies and audits
 //
 //	local v = voyage(ship, { name = "ballast leg", csv = "voyage.csv" })
@@ -319,27 +408,74 @@
 //
 //	local a = audit(ship, { name = "March", csv = "log.csv",
 //	    uncertain = { { unit = "cargo heating", key = "factor", low = 0.85, high = 1.15 },
-//	                  { unit = "AB1", key = "eta_factor", low = "97 %", high = "103 %" } },
-//	    samples = 1000, seed = 1, band = { "5 %", "95 %" } })
+//	                  { unit = "AB1", key = "eta_factor", low = "97 %", high = "103 %" },
+//	                  { key = "sea", low = "-1 K", high = "1 K" } },
+//	    claim = { source = "flow meter", accuracy = "1 %" },
+//	    implied = { { unit = "cargo heating", key = "factor" } },
+//	    calibrate = { units = { "AB1", "AB2" }, key = "eta_factor", off = { "cargo heating" } },
+//	    split = { { name = "cargo heating", units = { "cargo heating" } },
+//	              { name = "cargo pumping", units = { "COP1", "COP2" } } },
+//	    samples = 1000, seed = 1, band = { "5 %", "95 %" }, alpha = "5 %" })
 //
-// audit models each day's boiler fuel with the uncertain inputs drawn
-// uniformly from low to high (Monte Carlo; samples per day 10 to 100000,
-// default 200; seed a whole number, default 0; band the quantiles, default
-// 5 % and 95 %) and flags the days whose claim lies outside the band.
-// Days come from days = { {date, claimed, phase, hours, sea, air, engine,
+// audit checks a log of reported daily fuel against the model of the
+// plant (package plant/profile's Audit documents the method). Days come
+// from days = { {date, claimed, reference, phase, hours, sea, air, engine,
 // set, fire}, ... } or a CSV file with columns date and claimed
-// (required), phase, hours (default 24), sea, air, engine, name, fire and
-// "unit.key" columns. claimed is the boiler fuel reported for the day:
-// "12.5 t", "12500 kg", or a bare number of tonnes. uncertain keys: unit,
-// key (a case key of the unit that is a number: factor, eta_factor, duty,
-// returns, ua, ...), low and high in that key's unit. The result:
-// a.claimed_t, a.nominal_t, a.low_t, a.high_t (sums of the days' band
-// ends), a.excess_t (the claims above the band, beyond its top), a.flagged
-// (a count), a.samples, a.seed, a.low_quantile, a.high_quantile,
-// a.uncertainties[i] (unit, param, low, high); a.days[i] and the
-// convenience a.flagged_days[i] (the days flagged, in order; the same
-// tables) have day (number), date, phase, claimed_t, nominal_t, low_t,
-// median_t, high_t and flag ("above", "below" or "").
+// (required), reference (true or false), phase, hours (default 24), sea,
+// air, engine, name, fire and "unit.key" columns (a boiler's fuel grade
+// too: "AB1.fuel" with MGO on the days in an emission control area).
+// claimed is the fuel reported for the day: "12.5 t", "12500 kg", or a
+// bare number of tonnes; a mass in any other unit, or a volume, is an
+// error at its line.
+//
+// uncertain lists the inputs known only within a range, each drawn
+// uniformly from low to high: { unit, key, low, high, scope } with key a
+// case key of the unit that is a number (factor, eta_factor, duty,
+// returns, ua, ...) and low and high in that key's unit, inside the key's
+// own range; or { key = "sea" or "air", low, high } with no unit, the
+// error of the day's reading, a temperature difference ("-1 K"). scope is
+// "fixed" (drawn once per sample for the whole period: a property of the
+// ship) or "daily" (drawn afresh each day); without it the key's default
+// scope holds (profile.DefaultScope: factor, eta_factor, returns, ua and
+// other properties are fixed; sea, air, duty, power, flow, T and other
+// operating figures daily), and a key with no default scope needs it.
+//
+// claim is the claim's measurement uncertainty, one source or a list:
+// { source = "flow meter", accuracy = "1 %" } (a bias fixed for the
+// period; default 1 %), { source = "soundings", per_sounding = "0.5 m3",
+// density = "985 kg/m3" } (a day is the difference of two soundings;
+// default 0.5 m3), { source = "noon report", rob = "1 t" } (default 1 t),
+// { source = "bdn density", density = "985 kg/m3", uncertainty = "1.5
+// kg/m3" } (default 1.5 kg/m3). Without claim the claim is taken as
+// exact, and the report says so. split lists causes, each { name, units }
+// (or unit): the units switched off together to find its fuel. claims =
+// "cargo heating" says the days claim that cause's fuel, not the whole
+// boiler fuel. implied lists factors, each { unit, key } or { units,
+// key }: for each day the value that makes the model give the claim; each
+// must be one of the uncertain inputs (its plausible range) with a range
+// in the key registry (the search's). calibrate = { unit or units, key,
+// off } calibrates a fixed factor on the days marked reference, which must
+// have every unit of off switched off (an error at the day's line
+// otherwise). samples 10 to 100000 (default 1000); seed a whole number
+// (default 0); band the quantiles of the bands (default 5 % and 95 %);
+// alpha the level of the flags (default 5 %).
+//
+// The result has the keys of the AUDIT of package plant/schema: samples,
+// seed, low_quantile, high_quantile, alpha, day_tail, claims_of, period
+// (days, claimed_t, nominal_t, low_t, median_t, high_t, reading_low_t,
+// reading_high_t, p_at_or_below, p_at_or_above, p_standard_error,
+// percentile, flag), flagged, days, uncertainties, claim_uncertainty,
+// implied, calibration (nil without one), causes, base_t, fuel_t, co2_t,
+// fuel_by_grade, assumptions, warnings; a.days[i] and the convenience
+// a.flagged_days[i] (the days flagged, in order; the same tables) have
+// day, date, phase, reference, claimed_t, nominal_t, low_t, median_t,
+// high_t, reading_low_t, reading_high_t, percentile (nil on a reference
+// day), p_at_or_below, p_at_or_above, flag ("above", "below" or ""),
+// fuel_t, co2_t, fuel_by_grade, shares, implied (each factor's value, nil
+// when none gives the claim, and status), warnings and
+// samples_with_warnings. An audit too large for its time limit stops
+// early with an error that says to raise it (sim run --job-timeout;
+// Options.JobTimeout).
 //
 // In check mode the jobs read and check everything but solve nothing, and
 // return tables of the same shape with zero figures.
@@ -362,11 +498,84 @@
 // surroundings are the call's key ambient (a temperature). sea and air
 // are needed when the tank has boundaries to them. A voyage that switches
 // a tank's heating off (set = { ["COT 1"] = { off = true } }) does not
-// compute the cargo's temperature; the script does:
+// compute the cargo's temperature unless it carries the tank from row to
+// row (below); the script may:
 //
 //	local v = voyage(ship, { csv = "ballast.csv" })  -- COT 1 off in every row
 //	local arrival = cool_down { tank = cot1, from = "60 C", hours = v.total.hours, sea = "12 C" }
 //	check(arrival > 45, "cargo pumpable at arrival")
+//
+// # Tanks carried from row to row
+//
+//	local v = voyage(ship, { csv = "route.csv", tanks = { ["COT 3"] = "45 C", ["COT 4"] = { T = "44 C" } } })
+//
+// voyage's tanks names tank_heating units whose cargo temperature the
+// voyage carries from row to row, each with its temperature at the start.
+// Each needs its heating coil (coil_area, with coil_U and coil, and
+// circulation for a deck heater); the coil's capacity U·A·LMTD at the
+// steam's saturation temperature (coil_p, or the set pressure of what
+// feeds the tank's header) limits what it gives, and a duty asked above it
+// is capped and warned. Each row gives each tank an instruction, as the
+// columns "COT 3.instruction", "COT 3.T" and "COT 3.by" of the CSV (or
+// set = { ["COT 3"] = { instruction = "heat_to", T = "57 C" } } in rows):
+// "hold" (at T, or where the cargo is without T: the coil heats up to T at
+// its capacity or the heating stays off while the cargo cools to it, then
+// it gives the losses), "off", "heat_to" T (at the coil's capacity, then
+// hold), or "reach" T by a time (by, from the voyage's start, such as
+// "240 h": the constant duty that gets there, within the coil). An empty
+// cell is the tank's declared instruction (default "hold" at its T), not
+// the last row's. The cargo follows m·c(T)·dT/dt = Q_coil − Σ U·A·(T −
+// T_beyond) with the row's sea and air temperatures, integrated exactly
+// over the row (plant/loads' Advance); the row's steady steam demand is
+// the coil's mean duty over it. A heat-up faster than max_rate (3 K per
+// day, common practice) warns; so does a tank within 10 K of its flash
+// point (a fuel grade's ISO 8217 minimum when none is given, said to be
+// assumed). Such a voyage is solved in row order on one core; a study's
+// variants still run in parallel. v.rows[i].tanks[k] has name,
+// instruction, T_K, by_h, start_T_K, end_T_K, duty_kW, capacity_kW,
+// coil_binds and short. An instruction for a tank the voyage does not
+// carry, a by past the voyage's end, or an instruction in a study's or an
+// audit's rows is an error at the row's line.
+//
+// # Cargo heating plan
+//
+//	local p = heating_plan(ship, { name = "winter crossing", csv = "route.csv",
+//	    tanks = { ["COT 3"] = { T = "45 C", never_below = "35 C" }, ["COT 4"] = "44 C" },
+//	    required = { ["COT 3"] = { T = "57 C", at = "discharge" },
+//	                 ["COT 4"] = { { T = "50 C", at = "240 h" }, { T = "57 C", at = "discharge" } } },
+//	    grid = "0.25 K" })
+//
+// heating_plan finds, for each tank (as voyage's tanks, with an optional
+// never_below temperature: pumpability, or the cloud point of a waxy
+// cargo), the instruction per row that meets every required temperature
+// with the least boiler fuel over the rows (rows or csv, as for voyage,
+// without instructions for the planned tanks), within the coils' and the
+// boilers' capacity in every row (package plant/heatplan: dynamic
+// programming over the rows on a grid of temperatures; grid 0.01 to 5 K,
+// default 0.25 K; method "joint" or "descent", default by size). A
+// required temperature's at is a phase (through the whole phase), "end",
+// or a time from the start ("240 h", or a number of hours) that must be a
+// row's start or end. The result: p.plan, p.hold (holding the required
+// temperature from the start to the last required time) and
+// p.last_moment (heating at the coil's capacity from the latest start),
+// each with fuel_t, co2_t (the plant solved row by row with the plan's
+// instructions), curve_fuel_t (by the rows' fuel curves), short_rows and
+// missed; p.saving_vs_hold_t, p.saving_vs_last_moment_t and the CO2
+// savings; p.tanks[k] with name, start_T_K, never_below_T_K, required[j]
+// (T_K, at, at_h, phase, source, reached_T_K, met, latest_start_h,
+// latest_start_row, verdict) and rows[i] (row, instruction, T_K, by_h,
+// start_T_K, end_T_K, duty_kW, coil_binds); p.rows[i] (row, phase, hours,
+// start_h, duty_kW, capacity_kW, boilers_firing, boiler_steam_kg_h,
+// fuel_t); p.binding (row, tank, limit: "coil", "boilers" or "never
+// below"); p.method, p.grid_K, p.solves, p.warnings and p.caution. A
+// required temperature that cannot be met is not an error: the plan does
+// the best it can and its verdict says so ("COT 3 reaches 54.2 °C at
+// discharge; 57.0 °C needs 21 h more heating or 0.9 MW more coil"). An
+// unknown tank, a required time past the voyage's end or inside a row, an
+// unknown phase, or an instruction for a planned tank in the rows is an
+// error at its line. The plan is an estimate: the charter party's heating
+// instructions, the cargo's safety data sheet and the master's judgment
+// govern.
 //
 // # Flue-gas check
 //

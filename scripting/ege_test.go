@@ -24,7 +24,7 @@ local ship = steam_plant { name = "short",
 return case(ship, { name = "c", sea = "10 C", air = "5 C", engine = "85 %" })`
 	full := `
 local ship = plant { name = "full" }
-ship:makeup { name = "makeup", T = "15 C" }
+ship:makeup { name = "makeup" }
 ship:feed_tank { name = "hotwell", heat_loss = "5 kW" }
 ship:feed_pump { name = "feed pump", boilers = { "AB1" }, margin = "3 bar", eta = "45 %" }
 ship:header { name = "feed header" }

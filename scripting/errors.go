@@ -138,6 +138,16 @@ type TimeoutError struct {
 	// period after the limit (a long-running library call) and was left
 	// behind: the run's plants must not be used.
 	Abandoned bool
+	// Job, if not empty, is the job (`audit "March"`) that was running
+	// when the time ran out: the message then names the option to raise
+	// rather than suggest an endless loop.
+	Job string
+	// JobLimit is true when the job's own limit ran out (Options.JobTimeout,
+	// or the default scaled to its work); Limit is then that limit.
+	JobLimit bool
+	// Work is the plant solves the job announced when its limit was scaled
+	// to them; zero when Options.JobTimeout set it.
+	Work int
 }
 
 func (e *TimeoutError) Error() string {
@@ -148,6 +158,14 @@ func (e *TimeoutError) Error() string {
 	var msg string
 	if e.Memory > 0 {
 		msg = fmt.Sprintf("%sscript stopped: it used more than %d MiB of memory (an endless loop filling a table or a string?)", pre, e.Memory>>20)
+	} else if e.JobLimit {
+		how := "as given"
+		if e.Work > 0 {
+			how = fmt.Sprintf("%v, and %v for each of its %d plant solves", jobBase, jobPerSolve, e.Work)
+		}
+		msg = fmt.Sprintf("%s%s stopped: it ran longer than its time limit of %v (%s); raise the job time limit (sim run --job-timeout; scripting's Options.JobTimeout)", pre, e.Job, e.Limit.Round(time.Millisecond), how)
+	} else if e.Job != "" {
+		msg = fmt.Sprintf("%sscript stopped: it ran longer than its time limit of %v while running %s; raise the time limit (sim run --timeout; scripting's Options.Timeout)", pre, e.Limit, e.Job)
 	} else {
 		msg = fmt.Sprintf("%sscript stopped: it ran longer than its time limit of %v (an endless loop?)", pre, e.Limit)
 	}

@@ -47,5 +47,5 @@ ship:boiler { name = "AB1", mrc = "5 t/h", drum = "7 bar", fuel = "MGO", efficie
 	// 3 errors:
 	// x.lua:1: plant "x": has no lines; join its units with ship:line(name, "from.port", "to.port")
 	// x.lua:2: boiler "AB1": drum: pressure '7 bar' is ambiguous: write '7 bar(g)' for gauge or '7 bar(a)' for absolute
-	// x.lua:2: boiler "AB1": unknown key 'mrc'; did you mean 'mcr'? (accepted: name, mcr, drum, dryness, blowdown, tds_feed, tds_max, turndown, cycling_loss, eta_factor, fuel, lhv, co2_factor, efficiency, burner)
+	// x.lua:2: boiler "AB1": unknown key 'mrc'; did you mean 'mcr'? (accepted: name, mcr, drum, dryness, blowdown, tds_feed, tds_max, turndown, cycling_loss, standby_loss, purge_air, starts_per_hour, cycle_band, water_content, eta_factor, max_load, inert_gas, fuel, lhv, co2_factor, bdn, efficiency, burner)
 }

@@ -2,6 +2,7 @@ package scripting
 
 import (
 	"bytes"
+	"crypto/sha256"
 	"encoding/csv"
 	"errors"
 	"fmt"
@@ -54,12 +55,14 @@ func (r *runner) resolve(fn, name string) (fsPath, show string) {
 	return path.Join(ch.fsDir, name), path.Join(ch.showDir, name)
 }
 
-// readFile reads a file through the run's file system with a size bound.
+// readFile reads a file through the run's file system with a size bound,
+// and records it in the run's files read under show, its name in
+// positions, with the SHA-256 of its bytes as they are on disk.
 // Only regular files are read: a folder is refused, and so are a named
 // pipe (which would block the run until its time limit) and a device.
 // Options.CheckRead may refuse the file. A UTF-8 byte-order mark at the
 // start is skipped (spreadsheets write one before a CSV's header).
-func (r *runner) readFile(fn, name, fsPath string, limit int64) []byte {
+func (r *runner) readFile(fn, name, fsPath, show string, limit int64) []byte {
 	st, err := fs.Stat(r.fsys, fsPath)
 	if err != nil {
 		msg := reasonOf(err)
@@ -89,7 +92,28 @@ func (r *runner) readFile(fn, name, fsPath string, limit int64) []byte {
 	if err != nil {
 		r.failErr("", err, "%s(%q): %s", fn, name, reasonOf(err))
 	}
+	r.recordFile(show, b)
 	return skipBOM(b)
+}
+
+// FileRead is a file a run read: its name as positions give it, its size
+// and the SHA-256 of its bytes.
+type FileRead struct {
+	Name   string
+	Bytes  int
+	SHA256 [sha256.Size]byte
+}
+
+// recordFile adds a file read to the run's record, once for each name and
+// content.
+func (r *runner) recordFile(show string, b []byte) {
+	sum := sha256.Sum256(b)
+	for _, f := range r.out.Files {
+		if f.Name == show && f.SHA256 == sum {
+			return
+		}
+	}
+	r.out.Files = append(r.out.Files, FileRead{Name: show, Bytes: len(b), SHA256: sum})
 }
 
 // luaInclude is include("file.lua"): runs another script from the same
@@ -108,7 +132,7 @@ func (r *runner) luaInclude(L *lua.LState) int {
 	if show == r.main {
 		r.fail("", "include(%q): a script cannot include itself", name)
 	}
-	src := r.readFile("include", name, fsPath, r.opt.MaxScriptBytes)
+	src := r.readFile("include", name, fsPath, show, r.opt.MaxScriptBytes)
 	r.chunks[show] = chunk{fsDir: path.Dir(fsPath), showDir: path.Dir(show)}
 	r.sources[show] = src
 	fn, err := L.Load(bytes.NewReader(src), show)
@@ -131,7 +155,7 @@ func (r *runner) luaInclude(L *lua.LState) int {
 func (r *runner) luaReadCSV(L *lua.LState) int {
 	name := L.CheckString(1)
 	fsPath, show := r.resolve("read_csv", name)
-	b := r.readFile("read_csv", name, fsPath, r.opt.MaxCSVBytes)
+	b := r.readFile("read_csv", name, fsPath, show, r.opt.MaxCSVBytes)
 	cr := csv.NewReader(bytes.NewReader(b))
 	cr.Comment = '#'
 	cr.TrimLeadingSpace = true

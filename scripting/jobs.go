@@ -2,6 +2,7 @@ package scripting
 
 import (
 	"bytes"
+	"context"
 	"encoding/csv"
 	"errors"
 	"fmt"
@@ -56,10 +57,11 @@ const maxJobErrors = 50
 // jobRows are the rows of a voyage or study, or the days of an audit, as
 // read from the script or a CSV file.
 type jobRows struct {
-	rows    []profile.Row
-	pos     []Pos
-	dates   []string  // audit
-	claimed []float64 // audit, tonnes
+	rows      []profile.Row
+	pos       []Pos
+	dates     []string  // audit
+	claimed   []float64 // audit, tonnes
+	reference []bool    // audit: a reference day
 }
 
 // rowSpec says which columns or keys a kind of job takes.
@@ -101,9 +103,11 @@ func (r *runner) tableRows(ph *plantHandle, a *args, key string, spec rowSpec) *
 		row.Case.Pos = plant.Pos{File: a.pos.File, Line: a.pos.Line}
 		var date string
 		var claimed float64
+		var ref bool
 		if spec.audit {
 			date, _ = ra.str("date", true)
 			claimed = r.tonnes(ra, "claimed")
+			ref = ra.boolean("reference")
 			row.Phase, _ = ra.str("phase", false)
 			row.Hours = 24
 		} else {
@@ -138,6 +142,7 @@ func (r *runner) tableRows(ph *plantHandle, a *args, key string, spec rowSpec) *
 		out.pos = append(out.pos, a.pos)
 		out.dates = append(out.dates, date)
 		out.claimed = append(out.claimed, claimed)
+		out.reference = append(out.reference, ref)
 	}
 	return out
 }
@@ -252,7 +257,7 @@ const (
 // records, each with its line in the file.
 func (r *runner) readCSVFile(fn, name string) (show string, hline int, header []string, recs [][]string, lines []int) {
 	fsPath, show := r.resolve(fn, name)
-	b := r.readFile(fn, name, fsPath, r.opt.MaxCSVBytes)
+	b := r.readFile(fn, name, fsPath, show, r.opt.MaxCSVBytes)
 	cr := csv.NewReader(bytes.NewReader(b))
 	cr.Comment = '#'
 	cr.TrimLeadingSpace = true
@@ -321,7 +326,7 @@ func (r *runner) csvRows(ph *plantHandle, fn, name string, spec rowSpec) *jobRow
 	fields := []string{"phase", "hours", "sea", "air", "engine", "name", "fire"}
 	required := []string{"phase", "hours"}
 	if spec.audit {
-		fields = append(fields, "date", "claimed")
+		fields = append(fields, "date", "claimed", "reference")
 		required = []string{"date", "claimed"}
 	}
 	nerr := len(r.errs)
@@ -390,6 +395,7 @@ func (r *runner) csvRows(ph *plantHandle, fn, name string, spec rowSpec) *jobRow
 		row.Hours = 24
 		var date string
 		var claimed float64
+		var ref bool
 		for i, c := range cols {
 			cell := rec[i]
 			if cell == "" {
@@ -421,6 +427,14 @@ func (r *runner) csvRows(ph *plantHandle, fn, name string, spec rowSpec) *jobRow
 				row.Hours, err = parseHours(v, "hours")
 			case "claimed":
 				claimed, err = parseTonnes(v, "claimed")
+			case "reference":
+				switch strings.ToLower(cell) {
+				case "true", "yes", "1":
+					ref = true
+				case "false", "no", "0":
+				default:
+					err = fmt.Errorf("must be true or false (a reference day, or not); got %q", cell)
+				}
 			case "sea":
 				row.Case.Conditions.SeaT, err = parseQuantity(v, "sea", units.Temperature, uopt)
 			case "air":
@@ -464,6 +478,7 @@ func (r *runner) csvRows(ph *plantHandle, fn, name string, spec rowSpec) *jobRow
 		out.pos = append(out.pos, pos)
 		out.dates = append(out.dates, date)
 		out.claimed = append(out.claimed, claimed)
+		out.reference = append(out.reference, ref)
 	}
 	if len(r.errs) > nerr {
 		r.raise(stopRun{})
@@ -581,26 +596,52 @@ func (r *runner) progress(job string) func(done, total int) {
 // jobErr raises the error of a profile run at the row it names, when it
 // names one.
 func (r *runner) jobErr(pos Pos, what string, err error) {
+	var jt *TimeoutError
+	if errors.As(err, &jt) && jt.JobLimit {
+		r.raise(&Error{Pos: pos, Msg: jt.Error(), Err: jt})
+	}
 	if lerr := r.limitErr(pos); lerr != nil {
+		var te *TimeoutError
+		if errors.As(lerr, &te) {
+			te.Job = what
+		}
 		r.raise(&Error{Pos: pos, Msg: lerr.Error(), Err: lerr})
 	}
 	var se *plant.SolveError
 	if errors.As(err, &se) && se.Pos.File != "" {
 		pos = Pos{File: se.Pos.File, Line: se.Pos.Line}
 	}
-	r.raise(&Error{Pos: pos, Unit: what, Msg: err.Error(), Err: err})
+	msg := err.Error()
+	var pe *profile.PosError
+	if errors.As(err, &pe) && pe.Pos.File != "" && err == error(pe) {
+		// The input's own position (a row, a setting), not the job's call.
+		pos, msg = Pos{File: pe.Pos.File, Line: pe.Pos.Line}, pe.Err.Error()
+	}
+	r.raise(&Error{Pos: pos, Unit: what, Msg: msg, Err: err})
 }
 
-// luaVoyage is voyage(plant, { name, rows or csv }).
+// luaVoyage is voyage(plant, { name, rows or csv, tanks }).
 func (r *runner) luaVoyage(L *lua.LState) int {
-	ph, a, name, rows := r.jobStart("voyage", rowSpec{job: "voyage"}, nil)
+	var specs []tankSpec
+	ph, a, name, rows := r.jobStart("voyage", rowSpec{job: "voyage"}, func(a *args) {
+		specs = r.stateTanks(r.checkPlant(1), a, false, false)
+	})
 	rec := VoyageRecord{Name: name, Plant: ph.p.Name, Pos: a.pos, Rows: rows.pos}
 	if r.opt.CheckOnly {
 		r.out.Voyages = append(r.out.Voyages, rec)
-		L.Push(r.profileTable(rec.job(), placeholderResult(rows.rows)))
+		o := r.profileTable(rec.job(), placeholderResult(rows.rows))
+		r.placeholderTanks(o, specs)
+		L.Push(o)
 		return 1
 	}
-	res, err := profile.Run(L.Context(), ph.p, rows.rows, profile.Options{Workers: r.opt.Workers, Progress: r.progress(a.what)})
+	var res *profile.Result
+	// A row is one solve, and one more for the economisers' saving.
+	err := r.inJob(a.what, a.pos, 2*len(rows.rows), func(ctx context.Context) error {
+		var err error
+		res, err = profile.Run(ctx, ph.p, rows.rows, profile.Options{Workers: r.opt.Workers, Progress: r.progress(a.what),
+			Tanks: tankStarts(specs, a.pos)})
+		return err
+	})
 	if err != nil {
 		r.jobErr(a.pos, a.what, err)
 	}
@@ -645,7 +686,16 @@ func (r *runner) luaStudy(L *lua.LState) int {
 		L.Push(r.studyTable(job, res))
 		return 1
 	}
-	res, err := profile.RunStudy(L.Context(), ph.p, rows.rows, spec, profile.Options{Workers: r.opt.Workers, Progress: r.progress(a.what)})
+	runs := len(variants)
+	if spec.Sweep != nil {
+		runs += len(spec.Sweep.Values)
+	}
+	var res *profile.StudyResult
+	err := r.inJob(a.what, a.pos, 2*runs*len(rows.rows), func(ctx context.Context) error {
+		var err error
+		res, err = profile.RunStudy(ctx, ph.p, rows.rows, spec, profile.Options{Workers: r.opt.Workers, Progress: r.progress(a.what)})
+		return err
+	})
 	if err != nil {
 		r.jobErr(a.pos, a.what, err)
 	}
@@ -849,143 +899,6 @@ func (r *runner) studySweep(ph *plantHandle, a *args, v lua.LValue, econ profile
 	return sw
 }
 
-// luaAudit is audit(plant, { name, csv or days, uncertain, samples, seed,
-// band }).
-func (r *runner) luaAudit(L *lua.LState) int {
-	var unc []profile.Uncertain
-	var opt profile.AuditOptions
-	ph, a, name, rows := r.jobStart("audit", rowSpec{job: "audit", audit: true}, func(a *args) {
-		ph := r.checkPlant(1)
-		unc = r.uncertainties(ph, a)
-		if n, ok := a.number("samples"); ok {
-			if n != math.Trunc(n) || n < 10 || n > 100000 {
-				a.errorf(nil, "samples must be a whole number from 10 to 100000; got %g", n)
-			}
-			opt.Samples = int(n)
-		}
-		if s, ok := a.number("seed"); ok {
-			if s != math.Trunc(s) || s < 0 || s > 1<<53 {
-				a.errorf(nil, "seed must be a whole number from 0 to 2^53; got %g", s)
-			}
-			opt.Seed = uint64(s)
-		}
-		if v := a.get("band"); v != lua.LNil {
-			bt, ok := v.(*lua.LTable)
-			if !ok || bt.Len() != 2 {
-				a.errorf(nil, "band must be a pair of quantiles such as band = {\"5 %%\", \"95 %%\"}; got %s", describe(v))
-			} else {
-				lo, err1 := parseQuantity(bt.RawGetInt(1), "band[1]", units.Fraction, a.uopt)
-				hi, err2 := parseQuantity(bt.RawGetInt(2), "band[2]", units.Fraction, a.uopt)
-				if err := errors.Join(err1, err2); err != nil {
-					a.errorf(err, "%s", strings.ReplaceAll(err.Error(), "\n", "; "))
-				} else if !(lo > 0 && lo < hi && hi < 1) {
-					a.errorf(nil, "band must satisfy 0 < low < high < 100 %%; got %g %% and %g %%", 100*lo, 100*hi)
-				}
-				opt.Low, opt.High = lo, hi
-			}
-		}
-	})
-	days := make([]profile.Day, len(rows.rows))
-	for i, row := range rows.rows {
-		days[i] = profile.Day{Date: rows.dates[i], Phase: row.Phase, Hours: row.Hours, Case: row.Case, ClaimedT: rows.claimed[i], Pos: row.Case.Pos}
-	}
-	rec := AuditRecord{Name: name, Plant: ph.p.Name, Pos: a.pos, Days: rows.pos}
-	if r.opt.CheckOnly {
-		res := &profile.AuditResult{Days: make([]profile.DayResult, len(days)), Samples: opt.Samples, Seed: opt.Seed, LowQ: opt.Low, HighQ: opt.High, Uncertainties: unc}
-		for i, d := range days {
-			res.Days[i] = profile.DayResult{Date: d.Date, Phase: d.Phase, ClaimedT: d.ClaimedT}
-		}
-		r.out.Audits = append(r.out.Audits, rec)
-		L.Push(r.auditTable(schema.Job{Name: name, Plant: ph.p.Name, Source: a.pos.String(), RowSources: posStrings(rows.pos)}, res))
-		return 1
-	}
-	opt.Workers = r.opt.Workers
-	opt.Progress = r.progress(a.what)
-	res, err := profile.Audit(L.Context(), ph.p, days, unc, opt)
-	if err != nil {
-		r.jobErr(a.pos, a.what, err)
-	}
-	rec.Result = res
-	r.out.Audits = append(r.out.Audits, rec)
-	L.Push(r.auditTable(schema.Job{Name: name, Plant: ph.p.Name, Source: a.pos.String(), RowSources: posStrings(rows.pos)}, res))
-	return 1
-}
-
-// uncertainties reads uncertain = { {unit, key, low, high}, ... }.
-func (r *runner) uncertainties(ph *plantHandle, a *args) []profile.Uncertain {
-	v := a.get("uncertain")
-	if v == lua.LNil {
-		return nil
-	}
-	t, ok := v.(*lua.LTable)
-	if !ok {
-		a.errorf(nil, "uncertain must be a list such as { {unit = \"cargo heating\", key = \"factor\", low = 0.85, high = 1.15} }; got %s", describe(v))
-		return nil
-	}
-	r.checkSize(t, "uncertain")
-	var out []profile.Uncertain
-	for i := 1; i <= t.Len(); i++ {
-		et, ok := t.RawGetInt(i).(*lua.LTable)
-		if !ok {
-			a.errorf(nil, "uncertain[%d] must be a table {unit, key, low, high}", i)
-			continue
-		}
-		ea := r.args(et, fmt.Sprintf("%s uncertain[%d]", a.what, i), a.pos, ph.uopt)
-		unit, _ := ea.str("unit", true)
-		key, _ := ea.str("key", true)
-		lo, hi := ea.get("low"), ea.get("high")
-		ea.done()
-		if ea.nerr > 0 {
-			a.nerr += ea.nerr
-			continue
-		}
-		if ph.p.Component(unit) == nil {
-			ea.errorf(nil, "%s", r.unknownUnitMsg(ph, unit))
-			a.nerr += ea.nerr
-			continue
-		}
-		var k plant.Key
-		var accepted []string
-		found := false
-		for _, x := range r.caseKeys(ph, unit) {
-			if x.Kind == plant.KeyText {
-				continue // a text cannot be drawn from a range
-			}
-			accepted = append(accepted, x.Name)
-			if x.Name == key {
-				k, found = x, true
-			}
-		}
-		switch {
-		case !found:
-			ea.errorf(nil, "%s: %s", unit, unknownKeyMsg(key, accepted))
-		case k.Kind == plant.KeyFlag || k.Kind == plant.KeyChoice:
-			ea.errorf(nil, "%s.%s cannot be sampled (a switch or a choice); sample a number such as factor", unit, key)
-		default:
-			parse := func(v lua.LValue, what string) float64 {
-				if v == lua.LNil {
-					ea.errorf(nil, "%s is required, such as %s = 0.85", what, what)
-					return 0
-				}
-				var f float64
-				var err error
-				f, err = parseSetting(v, &k, what, ph.uopt)
-				if err != nil {
-					ea.errorf(err, "%v", err)
-				}
-				return f
-			}
-			l, h := parse(lo, "low"), parse(hi, "high")
-			if ea.nerr == 0 && !(l <= h) {
-				ea.errorf(nil, "low must not exceed high; got %s and %s", describe(lo), describe(hi))
-			}
-			out = append(out, profile.Uncertain{Unit: unit, Param: k.Name, Low: l, High: h, Pos: plant.Pos{File: a.pos.File, Line: a.pos.Line}})
-		}
-		a.nerr += ea.nerr
-	}
-	return out
-}
-
 // ---------------------------------------------------------------------------
 // Results as Lua tables.
 
@@ -1071,20 +984,6 @@ func (r *runner) studyTable(job schema.Job, res *profile.StudyResult) lua.LValue
 		byName.RawSet(v.RawGetString("name"), v)
 	}
 	o.RawSetString("by_name", byName)
-	return o
-}
-
-// auditTable is what audit() returns: the audit's schema object and
-// flagged_days, the days whose flag is not "", in order.
-func (r *runner) auditTable(job schema.Job, res *profile.AuditResult) lua.LValue {
-	o := r.schemaTable(fmt.Sprintf("audit %q", job.Name), schema.NewAudit(job, res))
-	flagged := r.L.NewTable()
-	for _, d := range list(o, "days") {
-		if f, _ := d.RawGetString("flag").(lua.LString); f != "" {
-			flagged.Append(d)
-		}
-	}
-	o.RawSetString("flagged_days", flagged)
 	return o
 }
 

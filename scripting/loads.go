@@ -17,7 +17,7 @@ import (
 // plain consumer and the consumers whose demand a plant/loads model
 // computes (a cargo pump is a turbine).
 var consumerKinds = []string{"consumer", "tank_heating", "fuel_heater", "accommodation", "tank_cleaning",
-	"atomising_steam", "soot_blowing", "steam_tracing", "fresh_water_generator"}
+	"atomising_steam", "soot_blowing", "steam_tracing", "fresh_water_generator", "boiler_warming"}
 
 func unknownKindMsg(k string) string {
 	names := append(append([]string(nil), consumerKinds...), "cargo_pump")
@@ -248,7 +248,34 @@ func decodeFuelHeater(r *runner, a *args, ph *plantHandle, u plant.Component) {
 			a.errorf(nil, "a burner's heater heats its boiler's fuel flow: give boiler, not flow")
 		}
 	} else {
-		r.readNamed(a, u, "flow", true)
+		bySFOC := a.has("sfoc")
+		if bySFOC {
+			if m.Heater.Service != loads.EngineService {
+				a.errorf(nil, "sfoc is for a main engine's heater (service = \"engine\"); this heater takes flow")
+			}
+			if a.has("flow") {
+				a.errorf(nil, "give flow or sfoc with engine_mcr, not both")
+			}
+			switch v := a.get("sfoc").(type) {
+			case lua.LString:
+				f, err := parseQuantity(v, "sfoc", units.SpecificConsumption, a.uopt)
+				if err != nil {
+					a.errorf(err, "%v", err)
+				} else {
+					m.SFOC = []float64{f}
+				}
+			default:
+				m.SFOCLoad, m.SFOC = a.pairs("sfoc", v, units.Fraction, units.SpecificConsumption, "{load, sfoc}", `{"75 %", "174 g/kWh"}`)
+			}
+			if !r.readNamed(a, u, "engine_mcr", false) && a.nerr == 0 {
+				a.errorf(nil, "sfoc needs engine_mcr, the engine's MCR, such as engine_mcr = \"11 MW\"")
+			}
+		} else {
+			r.readNamed(a, u, "flow", true)
+			if a.has("engine_mcr") {
+				a.errorf(nil, "engine_mcr goes with sfoc")
+			}
+		}
 		if a.has("boiler") {
 			a.errorf(nil, "boiler is for a burner's heater (service = \"burner\"), whose oil flow is the boiler's fuel; this heater takes flow")
 		}

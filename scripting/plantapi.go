@@ -83,6 +83,7 @@ func (r *runner) register() {
 	L.SetGlobal("voyage", L.NewFunction(r.luaVoyage))
 	L.SetGlobal("study", L.NewFunction(r.luaStudy))
 	L.SetGlobal("audit", L.NewFunction(r.luaAudit))
+	L.SetGlobal("heating_plan", L.NewFunction(r.luaHeatingPlan))
 	L.SetGlobal("cool_down", L.NewFunction(r.luaCoolDown))
 	L.SetGlobal("time_to_cool", L.NewFunction(r.luaTimeToCool))
 	L.SetGlobal("flue_gas", L.NewFunction(r.luaFlueGas))
@@ -120,7 +121,7 @@ func (r *runner) checkTable(n int, what string) *lua.LTable {
 
 // plantOptions reads the plant-wide keys shared by plant{} and
 // steam_plant{}: name, ambient, usable, sharing, lead_load,
-// feed_suction_max_T.
+// feed_suction_max_T, ege_saving, n_minus_1, contingencies.
 func (r *runner) plantOptions(t *lua.LTable, what string, pos Pos) (*args, string, plant.Options) {
 	a := r.args(t, what, pos, units.Options{})
 	name, _ := a.str("name", true)
@@ -144,8 +145,10 @@ func (r *runner) plantOptions(t *lua.LTable, what string, pos Pos) (*args, strin
 			opt.Sharing = plant.EqualLoad
 		case "lead":
 			opt.Sharing = plant.LeadLag
+		case "least_fuel":
+			opt.Sharing = plant.LeastFuel
 		default:
-			a.errorf(nil, "sharing must be \"equal\" or \"lead\"; got %q", s)
+			a.errorf(nil, "sharing must be \"equal\", \"lead\" or \"least_fuel\"; got %q", s)
 		}
 	}
 	opt.LeadLoad, _ = a.fractionIn("lead_load", 0.1, 1, " of the lead boiler's MCR")
@@ -154,6 +157,26 @@ func (r *runner) plantOptions(t *lua.LTable, what string, pos Pos) (*args, strin
 		// false skips the second solve of each case without the
 		// exhaust-gas economisers that gives the fuel they save
 		opt.NoEGESaving = !a.boolean("ege_saving")
+	}
+	if a.has("n_minus_1") {
+		// false skips the N-1 answers of each case, for speed
+		opt.NoContingencies = !a.boolean("n_minus_1")
+	}
+	opt.Contingencies = a.contingencies(r.entryPos(pos, "=contingencies"))
+	if ig := r.subTable(a, "inert_gas"); ig != nil {
+		b := r.args(ig, a.what+" inert_gas", pos, a.uopt)
+		// O2: the highest O2 in the dry gas (default 5 %); capacity: the
+		// gas needed as a fraction of the cargo pumps' rate (default
+		// 125 %).
+		var ok bool
+		if opt.InertGasO2Max, ok = b.quantity("O2", units.Fraction, false); ok && !(opt.InertGasO2Max > 0 && opt.InertGasO2Max < 0.21) {
+			b.errorf(nil, "O2 must lie between 0 and 21 %%, such as \"5 %%\"; got %g %%", 100*opt.InertGasO2Max)
+		}
+		if opt.InertGasCapacity, ok = b.quantity("capacity", units.Fraction, false); ok && !(opt.InertGasCapacity > 0 && opt.InertGasCapacity <= 10) {
+			b.errorf(nil, "capacity must lie between 0 and 1000 %% of the cargo pumps' rate, such as \"125 %%\"; got %g %%", 100*opt.InertGasCapacity)
+		}
+		b.done()
+		a.nerr += b.nerr
 	}
 	opt.Logger = r.log
 	return a, name, opt
@@ -298,6 +321,59 @@ func (r *runner) addPlantErrIn(ph *plantHandle, err error, unit, note string) {
 	r.errs = append(r.errs, &Error{Pos: pos, Unit: unit, Msg: err.Error() + note, Err: err})
 }
 
+// contingencies reads contingencies = { "AB1", { "AB2", "EGE" } }: each
+// entry a unit's name or a list of units lost together (boilers or
+// exhaust-gas economisers; the plant checks the names once its units are
+// declared).
+func (a *args) contingencies(pos Pos) []plant.Contingency {
+	v := a.get("contingencies")
+	if v == lua.LNil {
+		return nil
+	}
+	t, ok := v.(*lua.LTable)
+	if !ok {
+		a.errorf(nil, "contingencies must be a list of failures, each a unit's name or a list of names lost together, such as { \"AB1\", { \"AB2\", \"EGE\" } }; got %s", describe(v))
+		return nil
+	}
+	n := t.Len()
+	if n > a.r.opt.MaxTable {
+		a.errorf(nil, "contingencies: more than %d entries", a.r.opt.MaxTable)
+		return nil
+	}
+	if extra := a.r.unknownKeys(t, nil); len(extra) > n {
+		a.errorf(nil, "contingencies must be a list { \"AB1\", {...} } without named keys")
+	}
+	var out []plant.Contingency
+	at := plant.Pos{File: pos.File, Line: pos.Line}
+	for i := 1; i <= n; i++ {
+		var units []string
+		switch e := t.RawGetInt(i).(type) {
+		case lua.LString:
+			if strings.TrimSpace(string(e)) != "" {
+				units = []string{string(e)}
+			}
+		case *lua.LTable:
+			for j := 1; j <= e.Len() && j <= a.r.opt.MaxTable; j++ {
+				s, ok := e.RawGetInt(j).(lua.LString)
+				if !ok || strings.TrimSpace(string(s)) == "" {
+					a.errorf(nil, "contingencies[%d][%d] must be a unit's name; got %s", i, j, describe(e.RawGetInt(j)))
+					continue
+				}
+				units = append(units, string(s))
+			}
+		default:
+			a.errorf(nil, "contingencies[%d] must be a unit's name or a list of names; got %s", i, describe(e))
+			continue
+		}
+		if len(units) == 0 {
+			a.errorf(nil, "contingencies[%d] names no unit: give the boilers or exhaust-gas economisers lost together, such as { \"AB1\" }", i)
+			continue
+		}
+		out = append(out, plant.Contingency{Units: units, Pos: at})
+	}
+	return out
+}
+
 // names reads a list of unit names.
 func (a *args) names(key string) []string {
 	switch v := a.get(key).(type) {
@@ -386,11 +462,24 @@ func (a *args) fuelSpec() plant.FuelSpec {
 			spec.Name = "fuel (set LHV)"
 		}
 	}
+	if bdn := a.get("bdn"); bdn != lua.LNil {
+		switch {
+		case !isGrade(name):
+			a.errorf(nil, "bdn gives a delivered fuel's figures on top of a built-in grade: give fuel as one (%s)", strings.Join(fuel.GradeNames(), ", "))
+		case hasLHV:
+			a.errorf(nil, "with bdn, give the note's stated LHV inside it (bdn = { lhv = \"41.2 MJ/kg\", ... }), not as lhv")
+		default:
+			if s, ok := a.bdnSpec(bdn, name); ok {
+				spec = s
+			}
+		}
+	}
 	if hasCO2 {
 		if co2 <= 0 || co2 > 5 {
 			a.errorf(nil, "co2_factor is kg CO2 per kg fuel, between 0 and 5; got %g", co2)
 		}
 		spec.CO2Factor = co2
+		spec.CO2Basis = "given co2_factor"
 	}
 	switch {
 	case !hasName && !hasLHV:
@@ -399,6 +488,57 @@ func (a *args) fuelSpec() plant.FuelSpec {
 		a.errorf(nil, "a fuel given by its lhv needs co2_factor too (kg CO2 per kg fuel, such as 3.114)")
 	}
 	return spec
+}
+
+// bdnSpec reads a boiler's bdn table, the figures of a bunker delivery
+// note, and makes the delivered fuel on top of the grade called base
+// (fuel.FromBDN). Every figure is checked there; its errors name the
+// field, the value and the range.
+func (a *args) bdnSpec(v lua.LValue, base string) (plant.FuelSpec, bool) {
+	t, ok := v.(*lua.LTable)
+	if !ok {
+		a.errorf(nil, "bdn must be a table such as { density = \"991 kg/m3\", sulphur = \"2.8 %%\", water = \"0.3 %%\", ash = \"0.05 %%\", viscosity = \"380 cSt\" }; got %s", describe(v))
+		return plant.FuelSpec{}, false
+	}
+	a.r.checkSize(t, "bdn")
+	p := a.r.args(t, a.what+" bdn", a.pos, a.uopt)
+	var b fuel.BDN
+	b.Name, _ = p.str("name", false)
+	b.Grade, _ = p.str("grade", false)
+	b.Density15, _ = p.quantity("density", units.Density, true)
+	sul, hasSul := p.quantity("sulphur", units.Fraction, false)
+	if alt, hasAlt := p.quantity("sulfur", units.Fraction, false); hasAlt {
+		if hasSul {
+			p.errorf(nil, "give sulphur or sulfur, not both")
+		}
+		sul = alt
+	}
+	b.Sulfur = sul
+	b.Water, _ = p.quantity("water", units.Fraction, false)
+	b.Ash, _ = p.quantity("ash", units.Fraction, false)
+	b.Viscosity, _ = p.quantity("viscosity", units.KinematicViscosity, false)
+	b.LHV, _ = p.quantity("lhv", units.SpecificEnergy, false)
+	p.done()
+	a.nerr += p.nerr
+	if p.nerr > 0 {
+		return plant.FuelSpec{}, false
+	}
+	g, err := fuel.Grade(base)
+	if err != nil {
+		a.errorf(err, "bdn: %v", err)
+		return plant.FuelSpec{}, false
+	}
+	f, err := fuel.FromBDN(g, b)
+	if err != nil {
+		a.errorf(err, "bdn: %v", err)
+		return plant.FuelSpec{}, false
+	}
+	spec, err := plant.SpecFromBDN(f)
+	if err != nil {
+		a.errorf(err, "bdn: %v", err)
+		return plant.FuelSpec{}, false
+	}
+	return spec, true
 }
 
 func isGrade(name string) bool {

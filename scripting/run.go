@@ -27,9 +27,17 @@ import (
 // Options are the settings of one run. The zero value is ready to use;
 // each field's comment says what zero means.
 type Options struct {
-	// Timeout bounds the wall time of the run, solves included.
+	// Timeout bounds the wall time the script spends outside its jobs
+	// (its own code and its load cases): an endless loop is stopped there.
 	// Zero means 10 s.
 	Timeout time.Duration
+	// JobTimeout bounds the wall time of each job (voyage, study, audit,
+	// heating_plan), during which the script's own clock stands still.
+	// Zero scales each job's limit to the work it announces: 10 s and
+	// 20 ms for each plant solve it will take (rows × variants and sizes,
+	// days × samples, ...), so that a job of any documented size fits and
+	// a job that hangs is still stopped, naming itself and its limit.
+	JobTimeout time.Duration
 	// Logger receives the plants' solver records and, when Print is nil,
 	// the script's print output (info level, with the script position in
 	// "pos"). The zero value discards everything.
@@ -151,6 +159,15 @@ type Run struct {
 	Voyages []VoyageRecord
 	Studies []StudyRecord
 	Audits  []AuditRecord
+	// HeatingPlans are the jobs of heating_plan(), in the order they ran;
+	// their results are nil in check mode.
+	HeatingPlans []HeatingPlanRecord
+	// Files are the script and data files the run read (the script
+	// itself first, then each include and CSV file as it was read, once
+	// each), with their SHA-256: what an evidence record names.
+	Files []FileRead
+	// Seed is the seed of the scripts' math.random (Options.Seed).
+	Seed uint64
 }
 
 // CaseRecord is one load case of a run.
@@ -260,6 +277,9 @@ type runner struct {
 	rng  *rand.Rand
 	fsys fs.FS
 	ctx  context.Context
+	// clock is the script's time limit, standing still while a job runs
+	// (inJob).
+	clock *scriptClock
 
 	main      string                      // chunk name of the main script
 	chunks    map[string]chunk            // by chunk name
@@ -294,10 +314,13 @@ func run(parent context.Context, name string, src []byte, fsys fs.FS, fsDir, sho
 		chunks:  map[string]chunk{name: {fsDir: fsDir, showDir: showDir}},
 		sources: map[string][]byte{name: src},
 		tlines:  map[string]map[string][]int{},
-		out:     &Run{},
+		out:     &Run{Seed: opt.Seed},
 	}
-	ctx, cancelTime := context.WithTimeoutCause(parent, opt.Timeout, errTimeLimit)
-	defer cancelTime()
+	r.recordFile(name, src)
+	ctx, cancelTime := context.WithCancelCause(parent)
+	defer cancelTime(nil)
+	r.clock = newScriptClock(opt.Timeout, func() { cancelTime(errTimeLimit) })
+	defer r.clock.stop()
 	ctx, cancel := context.WithCancelCause(ctx)
 	defer cancel(nil)
 	r.ctx = ctx
@@ -436,6 +459,10 @@ func (r *runner) convert(err error) error {
 		case *AssertionError:
 			return v
 		case *Error:
+			var te *TimeoutError
+			if errors.As(v, &te) {
+				return te // the limit, with what it stopped
+			}
 			r.errs = append(r.errs, v)
 		case stopRun:
 		}

@@ -38,8 +38,10 @@ func TestGoodScripts(t *testing.T) {
 		{"ege_full.lua", 2, 1, 4},
 		{"voyage.lua", 5, 1, 6},
 		{"study.lua", 0, 1, 6},
-		{"audit.lua", 0, 1, 4},
+		{"audit.lua", 0, 1, 5},
 		{"observation_tank.lua", 1, 1, 1},
+		{"contingency.lua", 2, 1, 7},
+		{"realism.lua", 2, 1, 3},
 	}
 	for _, tc := range tests {
 		for _, checkOnly := range []bool{false, true} {
@@ -90,7 +92,7 @@ local ship = steam_plant { name = "short",
 return case(ship, { name = "c", sea = "10 C", air = "5 C" })`
 	full := `
 local ship = plant { name = "full" }
-ship:makeup { name = "makeup", T = "15 C" }
+ship:makeup { name = "makeup" }
 ship:feed_tank { name = "hotwell", heat_loss = "5 kW" }
 ship:feed_pump { name = "feed pump", boilers = { "AB1", "AB2" }, margin = "3 bar", eta = "45 %" }
 ship:header { name = "feed header" }

@@ -276,6 +276,13 @@ type Settings struct {
 	// Recorder, if not nil, is called after every iteration. The solver
 	// never prints.
 	Recorder Recorder
+	// RecordBound lets the solver give a Recorder the cheap upper bound
+	// of the condition number (SparseLU.CondBound) as Iteration.Cond
+	// where that bound shows the Jacobian well conditioned, instead of
+	// computing the estimate (Factorizer.Cond) at every iteration, which
+	// costs a few solves with the factors. Set it when the Recorder
+	// watches the iterates and does not report the condition.
+	RecordBound bool
 }
 
 // Defaults of Settings.
@@ -395,7 +402,7 @@ type Iteration struct {
 	StepNorm     float64   // scaled infinity norm of the accepted step
 	Alpha        float64   // line-search step length taken (1 is a full Newton step)
 	Backtracks   int       // step reductions in this line search
-	Cond         float64   // condition estimate of the scaled Jacobian
+	Cond         float64   // condition estimate of the scaled Jacobian (an upper bound with Settings.RecordBound)
 	Regularized  bool      // the step was a Levenberg–Marquardt step (Settings.Regularize)
 	Reused       bool      // the step used the factorisation of iteration Iter (no new Jacobian)
 	Stats        Stats     // counters so far

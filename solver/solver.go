@@ -880,7 +880,7 @@ func (m *normalMatrix) factorize(j *Sparse) bool {
 // the limit the two could differ; there the verdict is a coin toss
 // either way.)
 func (s *Solver) condition(ferr error) float64 {
-	if ferr == nil && s.bounder != nil && s.set.Recorder == nil {
+	if ferr == nil && s.bounder != nil && (s.set.Recorder == nil || s.set.RecordBound) {
 		if b := s.bounder.CondBound(); b <= s.set.MaxCondition {
 			return b
 		}

@@ -171,6 +171,14 @@ func TestBadInputs(t *testing.T) {
 			args: []string{"check", "--timeout", "200ms", "{dir}/s.lua"}, code: exitFail,
 			stderr: "{dir}/s.lua:2: script stopped: it ran longer than its time limit of 200ms (an endless loop?); to give it longer, run again with --timeout 2s\n"},
 
+		{name: "job time limit", files: map[string]string{"plant.lua": badPlant, "v.csv": "phase,hours\n" + strings.Repeat("sea,1\n", 2000),
+			"s.lua": "local ship = include(\"plant.lua\")\nvoyage(ship, { name = \"v\", csv = \"v.csv\" })\n"},
+			args: []string{"run", "--quiet", "--job-timeout", "1ms", "{dir}/s.lua"}, code: exitFail,
+			stderr: "{dir}/s.lua:2: voyage \"v\" stopped: it ran longer than its time limit of 1ms (as given); raise the job time limit (sim run --job-timeout; scripting's Options.JobTimeout); to give it longer, run again with --job-timeout 1s\n",
+			stdout: "Nothing was solved"},
+		{name: "job time limit below zero", args: []string{"run", "--job-timeout", "-1s", "x.lua"}, code: exitUsage,
+			stderr: "sim run: --job-timeout -1s: the time limit must be above zero and at most 24h0m0s, such as 10m or 2h\n" + runUsage},
+
 		// sim steam: out of range is a failure (1), a mistake of usage 2.
 		// 700 bar(g) is 70.101325 MPa (700 bar + 1.01325 bar); the
 		// critical pressure 22.064 MPa is IAPWS R7-97(2012) Eq. 2's pc.
@@ -255,7 +263,7 @@ ship:line("r", "b.out", "hotwell")
 case(ship, { name = "port" })
 `},
 			args: []string{"check", "{dir}/s.lua"}, code: exitFail,
-			stderr: "{dir}/s.lua:1: degrees of freedom do not balance (15 equations for 14 unknowns); too many conditions around \"AB1\", \"b\", \"fp\", \"hotwell\", on the lines \"f\", \"r\", \"s\", \"st\": the plant has no make-up water, so the water it loses (blowdown, condensate not returned, vented steam) is not replaced and its mass balance cannot close; add a make-up into the hotwell (ship:makeup{...} and a line to the feed tank)\n"},
+			stderr: "{dir}/s.lua:1: degrees of freedom do not balance (16 equations for 15 unknowns); too many conditions around \"AB1\", \"b\", \"fp\", \"hotwell\", on the lines \"f\", \"r\", \"s\", \"st\": the plant has no make-up water, so the water it loses (blowdown, condensate not returned, vented steam) is not replaced and its mass balance cannot close; add a make-up into the hotwell (ship:makeup{...} and a line to the feed tank)\n"},
 		{name: "two boilers each on its own header", files: map[string]string{"s.lua": `local ship = plant { name = "two headers" }
 ship:makeup { name = "makeup" }
 ship:feed_tank { name = "hotwell" }
@@ -281,7 +289,7 @@ ship:line("r2", "b2.out", "hotwell")
 case(ship, { name = "port" })
 `},
 			args: []string{"check", "{dir}/s.lua"}, code: exitFail,
-			stderr: "{dir}/s.lua:1: degrees of freedom do not balance (37 equations for 36 unknowns); too many conditions around \"AB1\", \"AB2\", \"H1\", \"H2\", \"b1\", \"b2\", on the lines \"s1\", \"s2\", \"t1\", \"t2\": the boilers raise steam into separate systems (AB1 into H1; AB2 into H2): the firing rule shares one steam system among all the boilers and dump condensers; join the systems at one main header (other headers through reducing valves), or describe each system as a plant of its own\n"},
+			stderr: "{dir}/s.lua:1: degrees of freedom do not balance (38 equations for 37 unknowns); too many conditions around \"AB1\", \"AB2\", \"H1\", \"H2\", \"b1\", \"b2\", on the lines \"s1\", \"s2\", \"t1\", \"t2\": the boilers raise steam into separate systems (AB1 into H1; AB2 into H2): the firing rule shares one steam system among all the boilers and dump condensers; join the systems at one main header (other headers through reducing valves), or describe each system as a plant of its own\n"},
 		{name: "boilers forced off, an economiser at engine 0 %", files: map[string]string{"s.lua": `local ship = steam_plant { name = "Invented Test Coaster",
   boilers = { { name = "AB1", mcr = "4 t/h", drum = "7 bar(g)", fuel = "VLSFO", efficiency = "85 %" } },
   consumers = { { name = "b", duty = "300 kW", returns = "90 %" } },
@@ -340,7 +348,8 @@ case(ship, { name = "port", engine = "0 %", fire = {} })
 
 // runUsage and steamUsage are what follows a usage error of run and steam.
 const (
-	runUsage = "usage: sim run [--json | --csv] [--plot FILE] [-o FILE] [--timeout DURATION]\n" +
+	runUsage = "usage: sim run [--json | --csv] [--plot FILE] [--evidence DIR] [-o FILE]\n" +
+		"               [--timeout DURATION] [--job-timeout DURATION]\n" +
 		"               [-v | --quiet] SCRIPT...\n" +
 		"Run 'sim help run' for details.\n"
 	steamUsage = "usage: sim steam --p PRESSURE\n" +

@@ -24,7 +24,7 @@ const maxTimeout = 24 * time.Hour
 func runCommand() *command {
 	return &command{
 		Name:      "run",
-		UsageLine: "[--json | --csv] [--plot FILE] [-o FILE] [--timeout DURATION] [-v | --quiet] SCRIPT...",
+		UsageLine: "[--json | --csv] [--plot FILE] [--evidence DIR] [-o FILE] [--timeout DURATION] [--job-timeout DURATION] [-v | --quiet] SCRIPT...",
 		Short:     "solve the plants and load cases of Lua scripts and report them",
 		Long: `Run runs each load-case script in turn, solving the plants and load cases
 it describes, and prints a report of every case: the conditions (sea and
@@ -41,8 +41,15 @@ A script that runs a voyage plan, a study of plant variants or an audit of
 reported boiler fuel adds a section for each: the totals by phase and for
 the whole voyage (fuel and CO2 in t, steam, hours with each number of
 boilers firing, the peak demand on the boilers, the tightest margin and the
-periods the plant cannot carry); each variant's totals, savings and
-payback; or each day's claimed fuel against the modelled band.
+periods the plant cannot carry); each variant's totals, savings, payback
+and rows with warnings; or, for an audit, each day's claimed fuel against
+the modelled band, its percentile and flag, the period's total sampled as
+a whole with the probability that the model lies at or below the claim,
+the implied factors per day, the calibration, the fuel by cause and by
+grade, the uncertain inputs, the assumptions and every warning by day.
+Every report ends with the run's record: the program's version, the
+SHA-256 of every script and data file read, the scripts' seed and the
+defaults in force on the plants solved on.
 
 Scripts are written in Lua with the functions plant, steam_plant, case,
 check, voyage, study, audit, include and read_csv; quantities are strings
@@ -58,10 +65,13 @@ unit; the same keys as the tables case() and the jobs return to a script),
 the load cases, one row each with the main figures, then the rows of the
 voyages (each period's conditions, boilers firing, steam, fuel and CO2)
 and their warnings, the variants of the studies (fuel, savings, payback)
-and the days of the audits (claimed, nominal and band). Each table starts
-with a header row whose first field is "table"; its rows carry the
-table's name there ("cases", "voyage rows", "voyage warnings", "study
-variants" or "audit days"), and a blank line separates two tables. The
+and their warnings, and the days of the audits (claimed, nominal, bands,
+percentile, flag) with their periods, implied factors, shares by cause,
+fuel by grade and warnings. Each table starts with a header row whose
+first field is "table"; its rows carry the table's name there ("cases",
+"voyage rows", "voyage warnings", "study variants", "study warnings",
+"audit days", "audit periods", "audit implied", "audit shares", "audit
+grades" or "audit warnings"), and a blank line separates two tables. The
 cases table always comes first; a job's table only when the run has such
 a job. -o writes the report to a file instead of standard output (see
 below).
@@ -73,13 +83,19 @@ and of all boilers); a voyage against the hours from its start, each
 period a step (the steam demand on the boilers and their capacity above,
 the fuel burnt in kg/h below, the phases shaded and named); a study as a
 bar for each variant of the fuel it saves against the first, in t/yr; an
-audit as each day's modelled band with its median, and the fuel claimed,
-the days outside the band ringed in red. A run with one of these writes
-FILE. A run with several writes one file for each, named FILE with a
-suffix before the extension: "-cases" for the load cases and "-voyage-N",
-"-study-N" or "-audit-N" for the N-th job of that kind, counted over all
-the scripts in order (demand.svg gives demand-cases.svg,
-demand-voyage-1.svg, ...), and lists them on standard error.
+audit as each day's modelled band with its median and the band of what
+the claim's measurement would read, and the fuel claimed, the days
+flagged ringed in red; its implied factors per day against their
+plausible ranges; and the distribution of its period total with the
+claim marked. A run with one of these writes FILE. A run with several
+writes one file for each, named FILE with a suffix before the extension:
+"-cases" for the load cases and "-voyage-N", "-study-N", "-audit-N",
+"-audit-implied-N" or "-audit-period-N" for the N-th job of that kind,
+counted over all the scripts in order (demand.svg gives
+demand-cases.svg, demand-voyage-1.svg, ...), and lists them on standard
+error.
+
+` + evidenceHelp + `
 
 What the scripts print is plain text on standard output, before the
 report; with --json or --csv it goes to standard error instead, so that
@@ -94,9 +110,14 @@ time left at that rate, and the time taken when done.
 An error in a script is printed as "file:line: message" and sim exits
 with status 1. So does a failed check(), after the report of the cases
 solved before it, so that the figures it tested can be seen; with --json
-the document marks the failure under "checks". A script that runs longer
-than --timeout is stopped: sim prints the report of what was solved, then
-where the script was and a longer --timeout to give.
+the document marks the failure under "checks". A script whose own code
+and load cases run longer than --timeout is stopped: sim prints the report
+of what was solved, then where the script was and a longer --timeout to
+give. The time of a voyage, study, audit or heating plan does not count
+against --timeout: each job has its own limit, --job-timeout, which by
+default grows with the job (10s, and 20ms for each plant solve it will
+take: its rows times its variants, its days times its samples), and a job
+stopped at it is named with its line and a longer --job-timeout to give.
 Control characters in names and messages (a carriage return, a newline,
 a terminal's escape) are shown escaped, as \r, \n or \x1b, in the table,
 the CSV, the charts and the messages; the JSON keeps them exactly, in its
@@ -149,7 +170,9 @@ Examples:
 type runArgs struct {
 	json, csv      bool
 	plot, out      string
+	evidence       string
 	timeout        time.Duration
+	jobTimeout     time.Duration // zero: scaled to each job's work
 	verbose, quiet bool
 
 	// timeoutFlag is set when the command takes --timeout, so that a run
@@ -164,6 +187,8 @@ func (a *runArgs) flagSet(name string) *flag.FlagSet {
 		fs.BoolVar(&a.csv, "csv", false, "print the report as CSV tables: the cases, then the rows of voyages,\nthe variants of studies and the days of audits, a blank line between")
 		fs.StringVar(&a.plot, "plot", "", "also draw the cases and each voyage, study and audit in `FILE`,\nan SVG or PNG image by the name's extension (.svg, .png); with\nseveral charts, one file each, named with a suffix before the\nextension: demand-cases.svg, demand-voyage-1.svg, ...")
 		fs.StringVar(&a.out, "o", "", "write the report to `FILE` instead of standard output")
+		fs.Var((*durationFlag)(&a.jobTimeout), "job-timeout", "stop a voyage, study, audit or heating plan that runs longer than\n`DURATION` (default: 10s and 20ms for each plant solve of the job)")
+		fs.StringVar(&a.evidence, "evidence", "", "also write an evidence folder `DIR`: the report, the JSON, the CSV,\nthe charts, the audits' samples, a README and the files' SHA-256")
 	}
 	a.timeout = 10 * time.Second
 	fs.Var((*durationFlag)(&a.timeout), "timeout", "stop a script that runs longer than `DURATION`, such as 10s or 2m\n(default 10s)")
@@ -220,10 +245,17 @@ func (a *runArgs) parse(name string, args []string) ([]string, error) {
 		return nil, usagef("-v and --quiet given together: choose one")
 	case a.timeout <= 0 || a.timeout > maxTimeout:
 		return nil, usagef("--timeout %v: the time limit must be above zero and at most %v, such as 10s or 2m", a.timeout, maxTimeout)
+	case a.jobTimeout < 0 || a.jobTimeout > maxTimeout:
+		return nil, usagef("--job-timeout %v: the time limit must be above zero and at most %v, such as 10m or 2h", a.jobTimeout, maxTimeout)
 	}
 	if a.plot != "" {
 		if _, err := report.FormatOf(a.plot); err != nil {
 			return nil, usagef("--plot: %s", err)
+		}
+	}
+	if a.evidence != "" {
+		if err := checkEvidenceDir(a.evidence); err != nil {
+			return nil, usagef("--evidence: %s", err)
 		}
 	}
 	return scripts, nil
@@ -297,11 +329,15 @@ func writeScriptError(w io.Writer, err error, a *runArgs) error {
 // to be abandoned, that the script's cases are not reported.
 func timeoutHint(te *scripting.TimeoutError, a *runArgs) string {
 	hint := ""
+	flag := "--timeout"
+	if te.JobLimit {
+		flag = "--job-timeout"
+	}
 	if te.Limit > 0 && a != nil && a.timeoutFlag {
 		if next := longerTimeout(te.Limit); next > 0 {
-			hint = "; to give it longer, run again with --timeout " + durationWord(next)
+			hint = "; to give it longer, run again with " + flag + " " + durationWord(next)
 		} else {
-			hint = "; this is the longest limit --timeout allows"
+			hint = "; this is the longest limit " + flag + " allows"
 		}
 	}
 	if te.Abandoned {
@@ -378,7 +414,7 @@ func runScripts(ctx context.Context, e env, a *runArgs, o *outputs, runners []sc
 		meter = newProgressMeter(e.stderr, fd)
 		log = loggerOn(meter, true, a)
 	}
-	opt := scripting.Options{Timeout: a.timeout, Logger: log, CheckRead: o.checkRead, Print: printTo(e, a, meter)}
+	opt := scripting.Options{Timeout: a.timeout, JobTimeout: a.jobTimeout, Logger: log, CheckRead: o.checkRead, Print: printTo(e, a, meter)}
 	switch {
 	case meter != nil:
 		opt.Progress = meter.update
@@ -466,6 +502,7 @@ func (p *printWriter) Write(b []byte) (int, error) {
 // collect adds what a script solved, and the checks it passed, to the
 // run's report.
 func collect(all *report.Run, r *scripting.Run) {
+	collectRecord(all, r)
 	all.Checks.Passed += r.Checks
 	for _, c := range r.Cases {
 		if c.Result != nil {
@@ -494,6 +531,11 @@ func collect(all *report.Run, r *scripting.Run) {
 			all.Audits = append(all.Audits, report.Audit{Job: job(a.Name, a.Plant, a.Pos, a.Days), Result: a.Result})
 		}
 	}
+	for _, h := range r.HeatingPlans {
+		if h.Result != nil {
+			all.HeatingPlans = append(all.HeatingPlans, report.HeatingPlan{Job: job(h.Name, h.Plant, h.Pos, h.Rows), Result: h.Result})
+		}
+	}
 }
 
 // errNothingToDraw is the error of --plot when the run solved nothing.
@@ -512,9 +554,20 @@ func writeReport(e env, a *runArgs, o *outputs, all report.Run, first string, fa
 		fmt.Fprintln(&b)
 	}
 	var err error
+	// The evidence folder renders its JSON before any name is escaped:
+	// after the document's own JSON, or before the table or the CSV.
+	var evidence []evidenceFile
+	if a.evidence != "" && !a.json {
+		if evidence, err = renderEvidence(all); err != nil {
+			return err
+		}
+	}
 	switch {
 	case a.json:
 		err = report.JSON(&b, all)
+		if a.evidence != "" && err == nil {
+			evidence, err = renderEvidence(all)
+		}
 		escapeRun(&all, true)
 	case a.csv:
 		escapeRun(&all, true)
@@ -554,6 +607,11 @@ func writeReport(e env, a *runArgs, o *outputs, all report.Run, first string, fa
 		}
 		if len(names) > 1 {
 			fmt.Fprintf(e.stderr, "sim run: %d charts written: %s\n", len(names), escapeText(strings.Join(names, ", ")))
+		}
+	}
+	if a.evidence != "" {
+		if err := commitEvidence(a.evidence, evidence); err != nil {
+			return err
 		}
 	}
 	if a.out != "" {

@@ -78,7 +78,7 @@ func TestRunForms(t *testing.T) {
 	if err := json.Unmarshal([]byte(out), &doc); err != nil {
 		t.Fatalf("--json: %v\n%s", err, out)
 	}
-	if doc.Schema != 2 || doc.Version != version() || doc.Caution != cautionLine || len(doc.Plant) != 1 ||
+	if doc.Schema != 3 || doc.Version != version() || doc.Caution != cautionLine || len(doc.Plant) != 1 ||
 		doc.Plant[0].Name != "Invented Test Coaster" || len(doc.Cases) != 2 || doc.Checks.Failed == nil ||
 		doc.Cases[0].Source != "testdata/run/small.lua:20" || doc.Cases[1].BoilersFiring != 2 {
 		t.Errorf("--json: %+v", doc)

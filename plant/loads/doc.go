@@ -34,6 +34,24 @@
 //     a temperature (TimeToCool).
 //     CargoHeating sums many tanks. CloudPointHM40 gives the cloud point
 //     from the pour point (Energy Institute HM 40, §6 [S✓]).
+//   - A tank's heating coil (Coil: a steam coil in the tank, or a deck
+//     heater the cargo is pumped through) gives at most U·A·LMTD between
+//     the steam's saturation temperature and the cargo (CoilCapacity; U
+//     by default 60 W/(m²·K) for a coil, within §6's coil row [M], and
+//     250 W/(m²·K) for a deck heater, from memory); Duty caps a duty
+//     above it and warns.
+//   - A stateful tank over a period (Advance): its temperature carried by
+//     m·c(T)·dT/dt = Q_coil − Σ U_i·A_i·(T − T_i) under an instruction
+//     (off, hold, heat_to, reach a temperature by a time), each segment
+//     in closed form (the cool-down's solution with Cragoe's linear c), so
+//     exact for the lumped model whatever the period's length; the coil's
+//     capacity limits it; a heat-up faster than 3 K per day (common
+//     practice) warns. Period gives planners the same closed forms
+//     without checks or allocation (off, full coil, the duty to reach a
+//     temperature, DutyToReach).
+//   - SpecFlashPoint: a fuel grade's ISO 8217 minimum flash point (60 °C,
+//     from memory), which a tank of the grade assumes when none is given,
+//     saying so in the SOLAS caution.
 //   - Accommodation: UA·(T_in − T_air) below a balance temperature, or a
 //     table of duty against air temperature [CP].
 //   - TankCleaning: water heated from the sea temperature, Δh by IAPWS-IF97

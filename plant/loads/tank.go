@@ -174,6 +174,20 @@ type TankHeating struct {
 	// to within FlashPointMargin of it gives a warning (SOLAS II-2 reg. 4.2
 	// caution for fuel storage and settling tanks, plant-checks.md §5.2 [S]).
 	FlashPoint float64
+	// FlashPointAssumed says FlashPoint was not given but taken as the
+	// grade's specification minimum (SpecFlashPoint); the warning says so.
+	FlashPointAssumed bool
+	// Coil is the tank's heating coil; its capacity (CoilCapacity) limits
+	// what a stateful tank's heating gives (Advance). A tank without a
+	// coil (zero area) has no limit in Duty.
+	Coil Coil
+	// MaxRate is the heat-up rate (K/s) above which Advance warns; zero
+	// means DefaultMaxHeatUpRate.
+	MaxRate float64
+	// SteamT is the saturation temperature of the steam at the coil (K)
+	// for Duty: with a coil and SteamT, Duty caps the duty at the coil's
+	// capacity and warns. Zero: Duty does not check the coil.
+	SteamT float64
 
 	// Mode: Hold (zero value) or HeatUp.
 	Mode TankMode
@@ -211,6 +225,11 @@ type TankResult struct {
 	AmbientT float64
 	// From, To, Duration echo the mode's inputs.
 	From, To, Duration float64
+	// Capacity is the coil's capacity at LossT (W), when the tank has a
+	// coil and its steam temperature; Capped says the duty was capped at
+	// it.
+	Capacity float64
+	Capped   bool
 	// Warnings lists cautions.
 	Warnings []string
 }
@@ -227,6 +246,12 @@ func (t *TankHeating) check(c checker, amb Ambient) error {
 		if err := c.temp("flash point", t.FlashPoint); err != nil {
 			return err
 		}
+	}
+	if err := t.checkCoil(c); err != nil {
+		return err
+	}
+	if !(t.MaxRate >= 0) || math.IsInf(t.MaxRate, 0) {
+		return c.errf("heat-up rate limit %.6g K/s is negative or not finite; want a rate ≥ 0 (0: the default)", t.MaxRate)
 	}
 	for i := range t.Boundaries {
 		b := &t.Boundaries[i]
@@ -333,9 +358,34 @@ func (t *TankHeating) Duty(amb Ambient) (TankResult, error) {
 		r.Duty = 0
 	}
 	if t.FlashPoint != 0 && t.To > t.FlashPoint-FlashPointMargin {
-		r.Warnings = append(r.Warnings, flashWarning(t.To, t.FlashPoint))
+		r.Warnings = append(r.Warnings, t.flashWarning(t.To))
+	}
+	if t.Coil.Given() && t.SteamT > 0 && r.Duty > 0 {
+		// The coil's capacity at the temperature the losses are taken at
+		// (the mean of a heat-up, where its capacity is its mean over
+		// the heat-up to first order) caps the duty.
+		cd, err := t.CoilCapacity(r.LossT, t.SteamT)
+		if err != nil {
+			return TankResult{Name: t.Name, Mode: t.Mode}, err
+		}
+		r.Capacity = cd.Q
+		if r.Duty > cd.Q {
+			r.Warnings = append(r.Warnings, fmt.Sprintf(
+				"the %s asks %.4g kW, the coil gives at most %.4g kW at %.4g °C (U·A·LMTD, steam at %.4g °C): the duty is capped at it%s",
+				t.Mode, r.Duty/1e3, cd.Q/1e3, celsius(r.LossT), celsius(t.SteamT), capNote(t.Mode)))
+			r.Duty = cd.Q
+			r.Capped = true
+		}
 	}
 	return r, nil
+}
+
+// capNote says what a capped duty means for the mode.
+func capNote(m TankMode) string {
+	if m == HeatUp {
+		return ", and the heat-up takes longer than asked"
+	}
+	return ", and the cargo cools below the temperature held"
 }
 
 // BoundaryLoss is one boundary's share of a tank's heat loss.
@@ -437,34 +487,7 @@ func (t *TankHeating) CoolDownAfter(T0, elapsed float64, amb Ambient) (CoolDown,
 	if math.IsInf(k, 1) || math.IsInf(k/math.Min(ca, ca+c1*u0), 1) {
 		T = r.AmbientT // cooled all the way, to rounding
 	} else if u0 != 0 && k > 0 {
-		// Solve G(s) = ∫_s^0 c dσ − k = −ca·s + c1·u0·(1 − e^s) − k = 0 for
-		// s = ln(u/u0) ≤ 0; G decreases (G' = −c(T) < 0), G(0) = −k < 0 and
-		// G(−k/cmin) ≥ 0, with cmin the smaller of c at T0 and at T_amb.
-		cmin := math.Min(ca, ca+c1*u0)
-		lo, hi := -k/cmin, 0.0
-		sv := -k / (ca + c1*u0) // constant c at T0
-		if !(sv >= lo && sv <= hi) {
-			sv = 0.5 * (lo + hi)
-		}
-		for range 200 {
-			e := math.Exp(sv)
-			g := -ca*sv + c1*u0*(1-e) - k
-			if g > 0 {
-				lo = sv
-			} else {
-				hi = sv
-			}
-			next := sv + g/(ca+c1*u0*e)
-			if !(next > lo && next < hi) {
-				next = 0.5 * (lo + hi)
-			}
-			done := math.Abs(next-sv) <= 1e-13*(1+math.Abs(sv))
-			sv = next
-			if done || hi-lo <= 1e-15*(1+math.Abs(lo)) {
-				break
-			}
-		}
-		T = r.AmbientT + u0*math.Exp(sv)
+		T = r.AmbientT + u0*math.Exp(solveRelax(ca, c1, u0, k))
 	}
 	r.T = T
 	if err := t.coolEnd(c, &r); err != nil {

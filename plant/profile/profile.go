@@ -30,6 +30,12 @@ type Options struct {
 	// Progress, if not nil, is called after each chunk with the rows done
 	// so far and the total, from one goroutine at a time.
 	Progress func(done, total int)
+	// Tanks, if any, are tank_heating units carried from row to row: each
+	// starts at its temperature, each row's duty follows from its state
+	// and the row's instruction, and the rows are solved in order on one
+	// core (a voyage with stateful tanks cannot be split; the variants of
+	// a study still run in parallel).
+	Tanks []TankStart
 }
 
 func (o *Options) defaults() {
@@ -56,6 +62,12 @@ type Totals struct {
 	Hours float64
 	// Boiler fuel and CO2 burnt, and steam raised, in tonnes.
 	FuelT, CO2T, SteamT, EGESteamT, DumpedT, MakeUpT float64
+	// CO2AnalysisT is the CO2 by the carbon of the fuels' analyses (CO2T
+	// is by their regulatory factors, plant.CaseResult.CO2KgS);
+	// CO2AnalysisUnknown says a row burnt a fuel without an analysis, so
+	// that CO2AnalysisT is not the total.
+	CO2AnalysisT       float64
+	CO2AnalysisUnknown bool
 	// FuelSavedT is the boiler fuel the exhaust-gas economisers saved;
 	// EGEFoulingLostT the steam their fouling cost them.
 	FuelSavedT      float64
@@ -79,12 +91,28 @@ type Totals struct {
 	// order the grades first fire (the totals the fuel-consumption
 	// reporting schemes ask for).
 	FuelByGrade []GradeTotal
+	// N1ShortHours are the hours of the rows in which at least one of the
+	// case's N-1 contingencies (plant contingency.go: the largest firing
+	// boiler trips, an economiser is out, a listed failure) cannot be
+	// carried, and N1ShortRows those rows; N1CheckedRows counts the rows
+	// whose contingencies were answered (none when the plant's option
+	// turns them off).
+	N1ShortHours  float64
+	N1ShortRows   []int
+	N1CheckedRows int
+	// InertGasShortHours are the hours of the rows whose inert-gas check
+	// (plant inertgas.go) is not met.
+	InertGasShortHours float64
 }
 
-// GradeTotal is the boiler fuel burnt of one grade, and its CO2, tonnes.
+// GradeTotal is the boiler fuel burnt of one grade, and its CO2, tonnes:
+// by the regulatory factor (CO2T) and by the analysis carbon
+// (CO2AnalysisT, when HasCO2Analysis).
 type GradeTotal struct {
-	Grade       string
-	FuelT, CO2T float64
+	Grade          string
+	FuelT, CO2T    float64
+	CO2AnalysisT   float64
+	HasCO2Analysis bool
 }
 
 // PhaseTotals are the totals of one phase.
@@ -124,10 +152,24 @@ func Run(ctx context.Context, p *plant.Plant, rows []Row, opt Options) (*Result,
 	if err := Validate(rows); err != nil {
 		return nil, err
 	}
+	if err := checkStateSettings(rows, opt.Tanks, "voyage"); err != nil {
+		return nil, err
+	}
 	if err := p.Check(); err != nil {
 		return nil, err
 	}
 	opt.defaults()
+	if len(opt.Tanks) > 0 {
+		var progress func(int)
+		if opt.Progress != nil {
+			progress = func(done int) { opt.Progress(done, len(rows)) }
+		}
+		res, err := runStateful(ctx, p, rows, opt.Tanks, progress)
+		if err != nil {
+			return nil, err
+		}
+		return Sum(rows, res), nil
+	}
 	res := make([]*plant.CaseResult, len(rows))
 	nChunks := (len(rows) + opt.ChunkRows - 1) / opt.ChunkRows
 	chunk := func(c int) (lo, hi int) { return c * opt.ChunkRows, min((c+1)*opt.ChunkRows, len(rows)) }
@@ -179,16 +221,20 @@ func Sum(rows []Row, res []*plant.CaseResult) *Result {
 	return out
 }
 
-// addGrade adds fuel and CO2 (tonnes) of a grade.
-func (t *Totals) addGrade(grade string, fuel, co2 float64) {
+// addGrade adds fuel and CO2 (tonnes) of a grade: by its regulatory
+// factor and, when the fuel has an analysis, by its analysis.
+func (t *Totals) addGrade(grade string, fuel, co2, co2a float64, hasAnalysis bool) {
 	for i := range t.FuelByGrade {
-		if t.FuelByGrade[i].Grade == grade {
-			t.FuelByGrade[i].FuelT += fuel
-			t.FuelByGrade[i].CO2T += co2
+		g := &t.FuelByGrade[i]
+		if g.Grade == grade {
+			g.FuelT += fuel
+			g.CO2T += co2
+			g.CO2AnalysisT += co2a
+			g.HasCO2Analysis = g.HasCO2Analysis && hasAnalysis
 			return
 		}
 	}
-	t.FuelByGrade = append(t.FuelByGrade, GradeTotal{Grade: grade, FuelT: fuel, CO2T: co2})
+	t.FuelByGrade = append(t.FuelByGrade, GradeTotal{Grade: grade, FuelT: fuel, CO2T: co2, CO2AnalysisT: co2a, HasCO2Analysis: hasAnalysis})
 }
 
 func newTotals() Totals {
@@ -201,6 +247,8 @@ func (t *Totals) add(i int, hours float64, cr *plant.CaseResult) {
 	t.Hours += hours
 	t.FuelT += cr.FuelKgS * s
 	t.CO2T += cr.CO2KgS * s
+	t.CO2AnalysisT += cr.CO2AnalysisKgS * s
+	t.CO2AnalysisUnknown = t.CO2AnalysisUnknown || cr.CO2AnalysisUnknown
 	t.SteamT += cr.SteamProductionKgS * s
 	t.EGESteamT += cr.EGESteamKgS * s
 	t.DumpedT += cr.DumpedKgS * s
@@ -219,7 +267,7 @@ func (t *Totals) add(i int, hours float64, cr *plant.CaseResult) {
 		fired += b.SteamKgS
 		capAll += b.MCRKgS
 		if b.FuelKgS > 0 {
-			t.addGrade(b.FuelName, b.FuelKgS*s, b.CO2KgS*s)
+			t.addGrade(b.FuelName, b.FuelKgS*s, b.CO2KgS*s, b.CO2AnalysisKgS*s, b.HasCO2Analysis)
 		}
 	}
 	t.CapacityKgS = capAll
@@ -231,6 +279,19 @@ func (t *Totals) add(i int, hours float64, cr *plant.CaseResult) {
 	}
 	if !cr.CanCarry {
 		t.ShortRows = append(t.ShortRows, i)
+	}
+	if cr.InertGas != nil && !cr.InertGas.Met {
+		t.InertGasShortHours += hours
+	}
+	if cr.ContingenciesChecked {
+		t.N1CheckedRows++
+		for _, c := range cr.Contingencies {
+			if !c.CanCarry {
+				t.N1ShortHours += hours
+				t.N1ShortRows = append(t.N1ShortRows, i)
+				break
+			}
+		}
 	}
 	if len(cr.Warnings) > 0 {
 		t.WarningRows = append(t.WarningRows, i)

@@ -176,50 +176,6 @@ func TestStudySavingIsDifference(t *testing.T) {
 	}
 }
 
-func TestAuditFlagsOutsideBand(t *testing.T) {
-	t.Parallel()
-	p := tanker(t)
-	rows := voyage(96)
-	var days []Day
-	for d := 0; d < 4; d++ {
-		r := rows[d*24+12]
-		days = append(days, Day{Date: []string{"d1", "d2", "d3", "d4"}[d], Phase: r.Phase, Hours: 24, Case: r.Case})
-	}
-	unc := []Uncertain{
-		{Unit: "cargo heating", Param: "factor", Low: 0.85, High: 1.15},
-		{Unit: "AB1", Param: "eta_factor", Low: 0.97, High: 1.02},
-		{Unit: "AB2", Param: "eta_factor", Low: 0.97, High: 1.02},
-	}
-	probe, err := Audit(context.Background(), p, days, unc, AuditOptions{Samples: 40, Seed: 7})
-	must(t, err)
-	// Claims set from the modelled band: day 1 well above, day 2 well
-	// below, days 3 and 4 at the median (inside).
-	days[0].ClaimedT = probe.Days[0].HighT * 1.2
-	days[1].ClaimedT = probe.Days[1].LowT * 0.8
-	days[2].ClaimedT = probe.Days[2].MedianT
-	days[3].ClaimedT = probe.Days[3].MedianT
-	res, err := Audit(context.Background(), p, days, unc, AuditOptions{Samples: 40, Seed: 7, Workers: 2})
-	must(t, err)
-	want := []string{"above", "below", "", ""}
-	for i, d := range res.Days {
-		if d.Flag != want[i] {
-			t.Errorf("day %s: flag %q, want %q (claim %g, band %g..%g)", d.Date, d.Flag, want[i], d.ClaimedT, d.LowT, d.HighT)
-		}
-		if !(d.LowT <= d.MedianT && d.MedianT <= d.HighT) {
-			t.Errorf("day %s: band out of order", d.Date)
-		}
-	}
-	if res.Flagged != 2 || math.Abs(res.ExcessT-(days[0].ClaimedT-res.Days[0].HighT)) > 1e-12 {
-		t.Errorf("flagged %d, excess %g", res.Flagged, res.ExcessT)
-	}
-	// The same seed gives the same band with one worker.
-	again, err := Audit(context.Background(), p, days, unc, AuditOptions{Samples: 40, Seed: 7, Workers: 1})
-	must(t, err)
-	if !reflect.DeepEqual(again.Days, res.Days) {
-		t.Errorf("audit differs between 1 and 2 workers")
-	}
-}
-
 func BenchmarkYearHourly(b *testing.B) {
 	p := tanker(b)
 	p.Opt.NoEGESaving = true
@@ -235,22 +191,6 @@ func BenchmarkYearHourly(b *testing.B) {
 		}
 	}
 	b.ReportMetric(iters/float64(b.N)/8760, "newton-iters/row")
-}
-
-func BenchmarkAudit30Days1000Samples(b *testing.B) {
-	p := tanker(b)
-	p.Opt.NoEGESaving = true
-	rows := voyage(720)
-	var days []Day
-	for d := 0; d < 30; d++ {
-		days = append(days, Day{Date: "d", Hours: 24, Case: rows[d*24+12].Case, ClaimedT: 10})
-	}
-	unc := []Uncertain{{Unit: "cargo heating", Param: "factor", Low: 0.85, High: 1.15}, {Unit: "AB1", Param: "eta_factor", Low: 0.97, High: 1.02}}
-	for b.Loop() {
-		if _, err := Audit(context.Background(), p, days, unc, AuditOptions{Samples: 1000, Seed: 1}); err != nil {
-			b.Fatal(err)
-		}
-	}
 }
 
 // TestModelKeysVaryByRow: rows that set a duty model's parameters (a

@@ -114,6 +114,27 @@ type VariantResult struct {
 	CO2AvoidedT float64
 	Money
 	EGEHours
+	// RowWarnings are the warnings of the rows whose case warned, in row
+	// order: the texts, not only their count.
+	RowWarnings []RowWarnings
+}
+
+// RowWarnings are the warnings of one row of a profile (Row from 0).
+type RowWarnings struct {
+	Row   int
+	Texts []string
+}
+
+// rowWarnings lists the rows of solved cases that warned, with their
+// warnings.
+func rowWarnings(res []*plant.CaseResult) []RowWarnings {
+	var out []RowWarnings
+	for i, cr := range res {
+		if cr != nil && len(cr.Warnings) > 0 {
+			out = append(out, RowWarnings{Row: i, Texts: append([]string(nil), cr.Warnings...)})
+		}
+	}
+	return out
 }
 
 // Sweep is a series of sizes of one exhaust-gas economiser, each run over
@@ -296,7 +317,8 @@ func RunStudy(ctx context.Context, p *plant.Plant, rows []Row, spec StudySpec, o
 	}
 
 	for i, v := range variants {
-		out.Variants = append(out.Variants, VariantResult{Name: v.Name, Totals: Sum(rows, res[i]).Total, EGEHours: egeHours(rows, res[i], "")})
+		out.Variants = append(out.Variants, VariantResult{Name: v.Name, Totals: Sum(rows, res[i]).Total, EGEHours: egeHours(rows, res[i], ""),
+			RowWarnings: rowWarnings(res[i])})
 	}
 	base := out.Variants[0].Totals
 	for i := range out.Variants {
@@ -353,6 +375,12 @@ func (s *Sweep) validate(p *plant.Plant, econ Economics) error {
 // results.
 func runVariants(ctx context.Context, p *plant.Plant, rows []Row, sets [][]plant.Setting, names []string, opt Options) ([][]*plant.CaseResult, error) {
 	opt.defaults()
+	if len(opt.Tanks) > 0 {
+		return runStatefulVariants(ctx, p, rows, sets, names, opt)
+	}
+	if err := checkStateSettings(rows, nil, "study"); err != nil {
+		return nil, err
+	}
 	nChunks := (len(rows) + opt.ChunkRows - 1) / opt.ChunkRows
 	res := make([][]*plant.CaseResult, len(sets))
 	for i := range res {
@@ -427,4 +455,43 @@ func designUA(res []*plant.CaseResult, unit string) float64 {
 		}
 	}
 	return 0
+}
+
+// runStatefulVariants runs each set's rows in order (the tanks carry their
+// state from row to row), the sets in parallel, each on its own clone.
+func runStatefulVariants(ctx context.Context, p *plant.Plant, rows []Row, sets [][]plant.Setting, names []string, opt Options) ([][]*plant.CaseResult, error) {
+	vrows := make([][]Row, len(sets))
+	for v, set := range sets {
+		vr := make([]Row, len(rows))
+		for i, r := range rows {
+			c := r.Case
+			c.Set = append(append([]plant.Setting(nil), r.Case.Set...), set...)
+			vr[i] = Row{Phase: r.Phase, Hours: r.Hours, Case: c}
+		}
+		if err := checkStateSettings(vr, opt.Tanks, "study"); err != nil {
+			return nil, fmt.Errorf("%s: %w", names[v], err)
+		}
+		vrows[v] = vr
+	}
+	res := make([][]*plant.CaseResult, len(sets))
+	done := 0
+	var progress func(int)
+	if opt.Progress != nil {
+		progress = func(int) {
+			done += len(rows)
+			opt.Progress(done, len(sets)*len(rows))
+		}
+	}
+	err := forEach(ctx, p, len(sets), opt.Workers, func(ctx context.Context, pl *plant.Plant, v int) error {
+		r, err := runStateful(ctx, pl, vrows[v], opt.Tanks, nil)
+		if err != nil {
+			return fmt.Errorf("%s: %w", names[v], err)
+		}
+		res[v] = r
+		return nil
+	}, progress)
+	if err != nil {
+		return nil, err
+	}
+	return res, nil
 }

@@ -10,42 +10,52 @@ import (
 // document, and the table case() returns to a script. Its keys carry their
 // units; they are listed with their meaning in the package documentation.
 type Case struct {
-	Plant              string     `json:"plant"`
-	Source             string     `json:"source"`
-	Name               string     `json:"name"`
-	Series             string     `json:"series"`
-	Converged          bool       `json:"converged"`
-	Iterations         int        `json:"iterations"`
-	ResidualNorm       float64    `json:"residual_norm"`
-	SeaTK              *float64   `json:"sea_T_K"`
-	AirTK              *float64   `json:"air_T_K"`
-	EngineLoad         float64    `json:"engine_load"`
-	BoilersFiring      int        `json:"boilers_firing"`
-	Forced             bool       `json:"firing_forced"`
-	CanCarry           bool       `json:"can_carry"`
-	ShortfallKgH       float64    `json:"shortfall_kg_h"`
-	MarginKgH          float64    `json:"margin_kg_h"`
-	SteamDemandKgH     float64    `json:"steam_demand_kg_h"`
-	SteamProductionKgH float64    `json:"steam_production_kg_h"`
-	DumpedKgH          float64    `json:"dumped_kg_h"`
-	FuelKgH            float64    `json:"fuel_kg_h"`
-	FuelTPerDay        float64    `json:"fuel_t_per_day"`
-	CO2TPerDay         float64    `json:"co2_t_per_day"`
-	MakeUpKgH          float64    `json:"makeup_kg_h"`
-	BlowdownKgH        float64    `json:"blowdown_kg_h"`
-	VentedKgH          float64    `json:"vented_kg_h"`
-	CondensateLostKgH  float64    `json:"condensate_lost_kg_h"`
-	FeedTankTK         float64    `json:"feed_tank_T_K"`
-	ElectricKW         float64    `json:"electric_kW"`
-	Balance            Balance    `json:"balance"`
-	EGESteamKgH        float64    `json:"ege_steam_kg_h"`
-	EGEFuelSavedKgH    float64    `json:"ege_fuel_saved_kg_h"`
-	Boilers            []Boiler   `json:"boilers"`
-	EGEs               []EGE      `json:"exhaust_gas_economisers"`
-	Consumers          []Consumer `json:"consumers"`
-	Units              []Unit     `json:"units"`
-	Lines              []Line     `json:"lines"`
-	Warnings           []string   `json:"warnings"`
+	Plant              string        `json:"plant"`
+	Source             string        `json:"source"`
+	Name               string        `json:"name"`
+	Series             string        `json:"series"`
+	Converged          bool          `json:"converged"`
+	Iterations         int           `json:"iterations"`
+	ResidualNorm       float64       `json:"residual_norm"`
+	SeaTK              *float64      `json:"sea_T_K"`
+	AirTK              *float64      `json:"air_T_K"`
+	EngineLoad         float64       `json:"engine_load"`
+	BoilersFiring      int           `json:"boilers_firing"`
+	Forced             bool          `json:"firing_forced"`
+	CanCarry           bool          `json:"can_carry"`
+	ShortfallKgH       float64       `json:"shortfall_kg_h"`
+	MarginKgH          float64       `json:"margin_kg_h"`
+	SteamDemandKgH     float64       `json:"steam_demand_kg_h"`
+	SteamProductionKgH float64       `json:"steam_production_kg_h"`
+	DumpedKgH          float64       `json:"dumped_kg_h"`
+	FuelKgH            float64       `json:"fuel_kg_h"`
+	FuelTPerDay        float64       `json:"fuel_t_per_day"`
+	CO2TPerDay         float64       `json:"co2_t_per_day"`
+	CO2AnalysisTPerDay *float64      `json:"co2_analysis_t_per_day"`
+	MakeUpKgH          float64       `json:"makeup_kg_h"`
+	BlowdownKgH        float64       `json:"blowdown_kg_h"`
+	VentedKgH          float64       `json:"vented_kg_h"`
+	CondensateLostKgH  float64       `json:"condensate_lost_kg_h"`
+	TrapLossKgH        float64       `json:"trap_loss_kg_h"`
+	DrainsReturnedKgH  float64       `json:"drains_returned_kg_h"`
+	FeedTankTK         float64       `json:"feed_tank_T_K"`
+	ElectricKW         float64       `json:"electric_kW"`
+	Balance            Balance       `json:"balance"`
+	EGESteamKgH        float64       `json:"ege_steam_kg_h"`
+	EGEFuelSavedKgH    float64       `json:"ege_fuel_saved_kg_h"`
+	ShedKW             float64       `json:"shed_kW"`
+	ShedKgH            float64       `json:"shed_kg_h"`
+	PrioritiesGiven    bool          `json:"priorities_given"`
+	N1Checked          bool          `json:"n_minus_1_checked"`
+	Contingencies      []Contingency `json:"contingencies"`
+	InertGas           *InertGas     `json:"inert_gas"`
+	LeastFuel          *LeastFuel    `json:"least_fuel"`
+	Boilers            []Boiler      `json:"boilers"`
+	EGEs               []EGE         `json:"exhaust_gas_economisers"`
+	Consumers          []Consumer    `json:"consumers"`
+	Units              []Unit        `json:"units"`
+	Lines              []Line        `json:"lines"`
+	Warnings           []string      `json:"warnings"`
 }
 
 // Balance holds a case's balance closures, as computed (not rounded).
@@ -56,29 +66,100 @@ type Balance struct {
 
 // Boiler is one oil-fired boiler of a case.
 type Boiler struct {
-	Name            string  `json:"name"`
-	Firing          bool    `json:"firing"`
-	Cycling         bool    `json:"cycling"`
-	OnFraction      float64 `json:"on_fraction"`
-	LoadFraction    float64 `json:"load_fraction"`
-	MCRKgH          float64 `json:"mcr_kg_h"`
-	SteamKgH        float64 `json:"steam_kg_h"`
-	FuelKgH         float64 `json:"fuel_kg_h"`
-	Efficiency      float64 `json:"efficiency"`
-	EfficiencyBasis string  `json:"efficiency_basis"`
-	Fuel            string  `json:"fuel"`
-	FuelLHV         float64 `json:"fuel_lhv_J_per_kg"`
-	DrumPPa         float64 `json:"drum_p_Pa"`
-	FeedTK          float64 `json:"feed_T_K"`
-	SteamDryness    float64 `json:"steam_dryness"`
-	BlowdownKgH     float64 `json:"blowdown_kg_h"`
-	HeatKW          float64 `json:"heat_kW"`
+	Name         string  `json:"name"`
+	Firing       bool    `json:"firing"`
+	Cycling      bool    `json:"cycling"`
+	OnFraction   float64 `json:"on_fraction"`
+	LoadFraction float64 `json:"load_fraction"`
+	MCRKgH       float64 `json:"mcr_kg_h"`
+	SteamKgH     float64 `json:"steam_kg_h"`
+	FuelKgH      float64 `json:"fuel_kg_h"`
+	CO2KgH       float64 `json:"co2_kg_h"`
+	CO2Basis     string  `json:"co2_basis"`
+	// CO2AnalysisKgH is null when the fuel has no analysis; IMOLCV when it
+	// has no IMO fuel type.
+	CO2AnalysisKgH *float64 `json:"co2_analysis_kg_h"`
+	IMOLCV         *float64 `json:"imo_lcv_J_per_kg"`
+	Efficiency     float64  `json:"efficiency"`
+	FiringEff      float64  `json:"firing_efficiency"`
+	StandbyLossKW  float64  `json:"standby_loss_kW"`
+	StandbyOffKW   float64  `json:"standby_off_kW"`
+	PurgeKW        float64  `json:"purge_kW"`
+	PurgePerStartJ float64  `json:"purge_per_start_J"`
+	// StartsPerHour is null when the boiler cycles and its starts are not
+	// known (no starts_per_hour, no cycle_band).
+	StartsPerHour   *float64 `json:"starts_per_hour"`
+	EfficiencyBasis string   `json:"efficiency_basis"`
+	Fuel            string   `json:"fuel"`
+	FuelLHV         float64  `json:"fuel_lhv_J_per_kg"`
+	DrumPPa         float64  `json:"drum_p_Pa"`
+	FeedTK          float64  `json:"feed_T_K"`
+	SteamDryness    float64  `json:"steam_dryness"`
+	BlowdownKgH     float64  `json:"blowdown_kg_h"`
+	HeatKW          float64  `json:"heat_kW"`
 	// From a combustion model; null for a boiler with a plain efficiency
 	// table.
 	FlueTK        *float64 `json:"flue_gas_exit_T_K"`
 	ExcessAir     *float64 `json:"excess_air"` // λ − 1
 	Losses        *Losses  `json:"losses"`
 	FanElectricKW float64  `json:"fan_electric_kW"`
+	LimitKgH      float64  `json:"limit_kg_h"`
+	InertGas      bool     `json:"inert_gas_source"`
+	O2Dry         *float64 `json:"o2_dry"`
+	DryFlueNm3H   *float64 `json:"dry_flue_gas_Nm3_h"`
+}
+
+// LeastFuel is what least-fuel sharing chose against equal sharing.
+type LeastFuel struct {
+	EqualFuelKgH float64   `json:"equal_fuel_kg_h"`
+	SavedKgH     float64   `json:"saved_kg_h"`
+	SavedPct     float64   `json:"saved_pct"`
+	Firing       []string  `json:"firing"`
+	Shares       []float64 `json:"shares"`
+	Note         string    `json:"note"`
+}
+
+// newLeastFuel is the schema form of least-fuel sharing's answer, or nil.
+func newLeastFuel(l *plant.LeastFuelResult) *LeastFuel {
+	if l == nil {
+		return nil
+	}
+	out := &LeastFuel{EqualFuelKgH: Round(KgPerH(l.EqualFuelKgS)), SavedKgH: Round(KgPerH(l.SavedKgS)),
+		SavedPct: Round(100 * l.SavedFraction()), Firing: append([]string{}, l.Firing...), Shares: make([]float64, 0, len(l.Shares)), Note: l.Note}
+	for _, s := range l.Shares {
+		out.Shares = append(out.Shares, Round(s))
+	}
+	return out
+}
+
+// InertGas is the inert-gas check of a case with cargo pumps running.
+type InertGas struct {
+	Sources       []string `json:"sources"`
+	Firing        []string `json:"firing"`
+	CargoRateM3H  float64  `json:"cargo_rate_m3_h"`
+	Capacity      float64  `json:"capacity"`
+	RequiredM3H   float64  `json:"required_m3_h"`
+	DeliveredNm3H float64  `json:"delivered_Nm3_h"`
+	O2Dry         float64  `json:"o2_dry"`
+	O2Max         float64  `json:"o2_max"`
+	Met           bool     `json:"met"`
+	MinLoad       *float64 `json:"min_load_fraction"`
+	ExtraSteamKgH float64  `json:"extra_steam_kg_h"`
+	ExtraFuelKgH  float64  `json:"extra_fuel_kg_h"`
+	Note          string   `json:"note"`
+	Line          string   `json:"line"`
+}
+
+// newInertGas is the schema form of an inert-gas check, or nil.
+func newInertGas(g *plant.InertGasResult) *InertGas {
+	if g == nil {
+		return nil
+	}
+	return &InertGas{Sources: append([]string{}, g.Sources...), Firing: append([]string{}, g.Firing...),
+		CargoRateM3H: Round(g.CargoRateM3S * 3600), Capacity: Round(g.Capacity), RequiredM3H: Round(g.RequiredM3S * 3600),
+		DeliveredNm3H: Round(g.DeliveredNm3S * 3600), O2Dry: Round(g.O2Dry), O2Max: Round(g.O2Max), Met: g.Met,
+		MinLoad: roundPtr(g.MinLoad, g.MinLoadFound), ExtraSteamKgH: Round(KgPerH(g.ExtraSteamKgS)),
+		ExtraFuelKgH: Round(KgPerH(g.ExtraFuelKgS)), Note: g.Note, Line: plant.InertGasLine(g)}
 }
 
 // Losses is a boiler's heat-loss account in percent of the heat input on
@@ -137,9 +218,102 @@ type Consumer struct {
 	ReturnKgH float64 `json:"condensate_return_kg_h"`
 	LostKgH   float64 `json:"condensate_lost_kg_h"`
 	CoolerKW  float64 `json:"drain_cooler_kW"`
+	CoolerTo  string  `json:"drain_cooler_to"`
+	TrapKgH   float64 `json:"trap_loss_kg_h"`
 	// Inputs are the figures a computed duty came from, keys with units;
 	// absent when the duty was given.
 	Inputs map[string]float64 `json:"inputs,omitempty"`
+	// The allocation of a shortfall.
+	Priority      float64  `json:"priority"`
+	PriorityLevel *string  `json:"priority_level"`
+	Reducible     bool     `json:"reducible"`
+	RequestedKW   float64  `json:"requested_kW"`
+	ShedKW        float64  `json:"shed_kW"`
+	ShedKgH       float64  `json:"shed_kg_h"`
+	CargoM3H      float64  `json:"cargo_m3_h"`
+	Cooling       *Cooling `json:"cooling"`
+}
+
+// Contingency is one N-1 answer of a case: a single failure and what the
+// rest of the plant does about it.
+type Contingency struct {
+	Name         string              `json:"name"`
+	Kind         string              `json:"kind"`
+	Units        []string            `json:"units"`
+	Solved       bool                `json:"solved"`
+	CanCarry     bool                `json:"can_carry"`
+	ShortfallKgH float64             `json:"shortfall_kg_h"`
+	MarginKgH    float64             `json:"margin_kg_h"`
+	ShedKW       float64             `json:"shed_kW"`
+	ShedKgH      float64             `json:"shed_kg_h"`
+	Boilers      []ContingencyBoiler `json:"boilers"`
+	Shed         []Shed              `json:"shed"`
+	Note         string              `json:"note"`
+	Line         string              `json:"line"`
+}
+
+// ContingencyBoiler is a boiler firing after a failure.
+type ContingencyBoiler struct {
+	Name         string  `json:"name"`
+	LoadFraction float64 `json:"load_fraction"`
+	SteamKgH     float64 `json:"steam_kg_h"`
+	Started      bool    `json:"started"`
+}
+
+// Shed is a consumer a contingency's shortfall reduces.
+type Shed struct {
+	Name          string   `json:"name"`
+	Kind          string   `json:"kind"`
+	Priority      float64  `json:"priority"`
+	PriorityLevel *string  `json:"priority_level"`
+	RequestedKW   float64  `json:"requested_kW"`
+	ShedKW        float64  `json:"shed_kW"`
+	ShedKgH       float64  `json:"shed_kg_h"`
+	Cooling       *Cooling `json:"cooling"`
+}
+
+// newContingency is the schema form of one N-1 answer.
+func newContingency(c plant.ContingencyResult) Contingency {
+	out := Contingency{Name: c.Name, Kind: c.Kind, Units: append([]string{}, c.Units...), Solved: c.Solved,
+		CanCarry: c.CanCarry, ShortfallKgH: Round(KgPerH(c.ShortfallKgS)), MarginKgH: Round(KgPerH(c.MarginKgS)),
+		ShedKW: Round(KW(c.ShedW)), ShedKgH: Round(KgPerH(c.ShedKgS)), Boilers: make([]ContingencyBoiler, 0, len(c.Boilers)),
+		Shed: make([]Shed, 0, len(c.Shed)), Note: c.Note, Line: plant.ContingencyLine(c)}
+	for _, b := range c.Boilers {
+		out.Boilers = append(out.Boilers, ContingencyBoiler{Name: b.Name, LoadFraction: Round(b.LoadFraction),
+			SteamKgH: Round(KgPerH(b.SteamKgS)), Started: b.Started})
+	}
+	for _, s := range c.Shed {
+		out.Shed = append(out.Shed, Shed{Name: s.Name, Kind: s.Kind, Priority: Round(s.Priority), PriorityLevel: level(s.Priority),
+			RequestedKW: Round(KW(s.RequestedW)), ShedKW: Round(KW(s.ShedW)), ShedKgH: Round(KgPerH(s.ShedKgS)),
+			Cooling: newCooling(s.Cooling)})
+	}
+	return out
+}
+
+// Cooling is what a shortfall does to a tank's cargo whose heating is
+// reduced.
+type Cooling struct {
+	RateKPerH   float64  `json:"rate_K_per_h"`
+	MinTK       *float64 `json:"min_T_K"`
+	HoursToMinT *float64 `json:"hours_to_min_T"`
+}
+
+// newCooling is the schema form of a tank's cooling, or nil.
+func newCooling(c *plant.TankCooling) *Cooling {
+	if c == nil {
+		return nil
+	}
+	out := &Cooling{RateKPerH: Round(c.RateKS * 3600), MinTK: roundPtr(c.MinT, c.MinT > 0)}
+	out.HoursToMinT = roundPtr(c.SecondsToMinT/3600, c.MinT > 0 && c.Reaches)
+	return out
+}
+
+// level is a priority's level name, or null.
+func level(v float64) *string {
+	if n := plant.PriorityLevelName(v); n != "" {
+		return &n
+	}
+	return nil
 }
 
 // Unit is any other unit with its figures, each key carrying its SI unit.
@@ -198,21 +372,34 @@ func NewCase(plantName string, cr *plant.CaseResult) Case {
 		FuelKgH:            Round(KgPerH(cr.FuelKgS)),
 		FuelTPerDay:        Round(TPerDay(cr.FuelKgS)),
 		CO2TPerDay:         Round(TPerDay(cr.CO2KgS)),
+		CO2AnalysisTPerDay: roundPtr(TPerDay(cr.CO2AnalysisKgS), !cr.CO2AnalysisUnknown),
 		MakeUpKgH:          Round(KgPerH(cr.MakeUpKgS)),
 		BlowdownKgH:        Round(KgPerH(cr.BlowdownKgS)),
 		VentedKgH:          Round(KgPerH(cr.VentedKgS)),
 		CondensateLostKgH:  Round(KgPerH(cr.CondensateLostKgS)),
+		TrapLossKgH:        Round(KgPerH(cr.TrapLossKgS)),
+		DrainsReturnedKgH:  Round(KgPerH(cr.DrainsReturnedKgS)),
 		FeedTankTK:         Round(cr.FeedTankT),
 		ElectricKW:         Round(KW(cr.ElectricW)),
 		Balance:            Balance{MassRel: cr.Balance.MassRel, EnergyRel: cr.Balance.EnergyRel},
 		EGESteamKgH:        Round(KgPerH(cr.EGESteamKgS)),
 		EGEFuelSavedKgH:    Round(KgPerH(cr.EGEFuelSavedKgS)),
+		ShedKW:             Round(KW(cr.ShedW)),
+		ShedKgH:            Round(KgPerH(cr.ShedKgS)),
+		PrioritiesGiven:    cr.PrioritiesGiven,
+		N1Checked:          cr.ContingenciesChecked,
+		Contingencies:      make([]Contingency, 0, len(cr.Contingencies)),
+		InertGas:           newInertGas(cr.InertGas),
+		LeastFuel:          newLeastFuel(cr.LeastFuel),
 		Boilers:            make([]Boiler, 0, len(cr.Boilers)),
 		EGEs:               make([]EGE, 0, len(cr.EGEs)),
 		Consumers:          make([]Consumer, 0, len(cr.Consumers)),
 		Units:              make([]Unit, 0, len(cr.Units)),
 		Lines:              make([]Line, 0, len(cr.Lines)),
 		Warnings:           append([]string{}, cr.Warnings...),
+	}
+	for _, c := range cr.Contingencies {
+		j.Contingencies = append(j.Contingencies, newContingency(c))
 	}
 	for _, b := range cr.Boilers {
 		bj := Boiler{
@@ -221,7 +408,14 @@ func NewCase(plantName string, cr *plant.CaseResult) Case {
 			FuelKgH: Round(KgPerH(b.FuelKgS)), Efficiency: Round(b.Efficiency), EfficiencyBasis: b.EfficiencyBasis,
 			Fuel: b.FuelName, FuelLHV: Round(b.FuelLHV), DrumPPa: Round(b.DrumP), FeedTK: Round(b.FeedT),
 			SteamDryness: Round(b.SteamDryness), BlowdownKgH: Round(KgPerH(b.BlowdownKgS)), HeatKW: Round(KW(b.HeatW)),
-			FanElectricKW: Round(KW(b.FanElectricW)),
+			FanElectricKW: Round(KW(b.FanElectricW)), LimitKgH: Round(KgPerH(b.LimitKgS)), InertGas: b.InertGasSource,
+			O2Dry: roundPtr(b.O2Dry, b.DryFlueNm3S > 0), DryFlueNm3H: roundPtr(b.DryFlueNm3S*3600, b.DryFlueNm3S > 0),
+			CO2KgH: Round(KgPerH(b.CO2KgS)), CO2Basis: co2Basis(b.CO2Basis),
+			CO2AnalysisKgH: roundPtr(KgPerH(b.CO2AnalysisKgS), b.HasCO2Analysis),
+			IMOLCV:         roundPtr(b.IMOLCV, b.IMOLCV > 0),
+			FiringEff:      Round(b.FiringEfficiency), StandbyLossKW: Round(KW(b.StandbyLossW)),
+			StandbyOffKW: Round(KW(b.StandbyOffW)), PurgeKW: Round(KW(b.PurgeW)), PurgePerStartJ: Round(b.PurgePerStartJ),
+			StartsPerHour: roundPtr(b.StartsPerHour, !b.Cycling || b.StartsPerHour > 0),
 		}
 		if b.FlueT > 0 {
 			bj.FlueTK = roundPtr(b.FlueT, true)
@@ -259,7 +453,10 @@ func NewCase(plantName string, cr *plant.CaseResult) Case {
 		j.Consumers = append(j.Consumers, Consumer{
 			Name: c.Name, Kind: c.Kind, DutyKW: Round(KW(c.DutyW)), SteamKgH: Round(KgPerH(c.SteamKgS)),
 			ReturnKgH: Round(KgPerH(c.ReturnKgS)), LostKgH: Round(KgPerH(c.LostKgS)), CoolerKW: Round(KW(c.DrainCoolerW)),
-			Inputs: roundMap(c.Inputs),
+			CoolerTo: c.DrainCoolerTo, TrapKgH: Round(KgPerH(c.TrapLossKgS)),
+			Inputs: roundMap(c.Inputs), Priority: Round(c.Priority), PriorityLevel: level(c.Priority),
+			Reducible: c.Reducible, RequestedKW: Round(KW(c.RequestedW)), ShedKW: Round(KW(c.ShedW)),
+			ShedKgH: Round(KgPerH(c.ShedKgS)), CargoM3H: Round(c.CargoRate * 3600), Cooling: newCooling(c.Cooling),
 		})
 	}
 	for _, u := range cr.Units {
@@ -276,6 +473,16 @@ func NewCase(plantName string, cr *plant.CaseResult) Case {
 		j.Lines = append(j.Lines, lj)
 	}
 	return j
+}
+
+// co2Basis names the factor of a boiler's regulatory CO2: the fuel's own
+// statement, or, for a fuel a script gave by its LHV and CO2 factor,
+// "given co2_factor".
+func co2Basis(s string) string {
+	if s == "" {
+		return "given co2_factor"
+	}
+	return s
 }
 
 func roundMap(m map[string]float64) map[string]float64 {

@@ -4,21 +4,48 @@ package schema
 // document. It changes when a key is removed or changes its meaning; keys
 // may be added without a change. The package documentation lists what
 // each version changed.
-const Version = 2
+const Version = 3
 
 // Document is the JSON form of a run: what the scripts solved, in the
 // order they solved it, with the program's version, the safety caution,
-// the plants and the outcome of the scripts' check() calls.
+// the plants and the outcome of the scripts' check() calls, and the
+// record of what the run read and assumed.
 type Document struct {
-	Schema  int      `json:"schema"`
-	Version string   `json:"version"`
-	Caution string   `json:"caution"`
-	Plants  []Plant  `json:"plant"`
-	Checks  Checks   `json:"checks"`
-	Cases   []Case   `json:"cases"`
-	Voyages []Voyage `json:"voyages"`
-	Studies []Study  `json:"studies"`
-	Audits  []Audit  `json:"audits"`
+	Schema      int          `json:"schema"`
+	Version     string       `json:"version"`
+	Caution     string       `json:"caution"`
+	FilesRead   []FileRead   `json:"files_read"`
+	LuaSeed     uint64       `json:"lua_seed"`
+	Assumptions []Assumption `json:"assumptions"`
+	Plants      []Plant      `json:"plant"`
+	Checks      Checks       `json:"checks"`
+	Cases       []Case       `json:"cases"`
+	Voyages     []Voyage     `json:"voyages"`
+	Studies     []Study      `json:"studies"`
+	Audits      []Audit      `json:"audits"`
+	// HeatingPlans are the jobs of heating_plan(), in the order run.
+	HeatingPlans []HeatingPlan `json:"heating_plans"`
+}
+
+// FileRead is a script or data file a run read, and the SHA-256 of its
+// bytes, in hexadecimal.
+type FileRead struct {
+	File   string `json:"file"`
+	Bytes  int    `json:"bytes"`
+	SHA256 string `json:"sha256"`
+}
+
+// Assumption is a default in force on a plant the run solved on: a key of
+// a unit that the description left at its default, the default and its
+// source as the key registry gives them ("" when it records none).
+type Assumption struct {
+	Plant  string `json:"plant"`
+	Unit   string `json:"unit"`
+	Kind   string `json:"kind"`
+	Key    string `json:"key"`
+	Label  string `json:"label"`
+	Value  string `json:"value"`
+	Source string `json:"source"`
 }
 
 // Plant names a plant the run solved cases or jobs on.
@@ -68,6 +95,15 @@ func (d *Document) Finish() {
 	for _, a := range d.Audits {
 		add(a.Plant)
 	}
+	for _, h := range d.HeatingPlans {
+		add(h.Plant)
+	}
+	if d.FilesRead == nil {
+		d.FilesRead = []FileRead{}
+	}
+	if d.Assumptions == nil {
+		d.Assumptions = []Assumption{}
+	}
 	if d.Checks.Failed == nil {
 		d.Checks.Failed = []CheckFailure{}
 	}
@@ -82,5 +118,8 @@ func (d *Document) Finish() {
 	}
 	if d.Audits == nil {
 		d.Audits = []Audit{}
+	}
+	if d.HeatingPlans == nil {
+		d.HeatingPlans = []HeatingPlan{}
 	}
 }

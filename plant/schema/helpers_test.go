@@ -71,10 +71,11 @@ func jobs(t testing.TB) (*profile.Result, *profile.StudyResult, *profile.AuditRe
 		{Name: "less steam", Set: flow(4000)},
 	}, profile.Economics{FuelPrice: 600, InstalledCost: 40000, Currency: "EUR"}, opt)
 	must(t, err)
-	a, err := profile.Audit(ctx, p, []profile.Day{
+	a, err := profile.Audit(ctx, p, profile.AuditSpec{Days: []profile.Day{
 		{Date: "2026-01-01", Phase: "sea", Hours: 24, Case: plant.Case{Name: "d1", Set: flow(5000)}, ClaimedT: 12},
 		{Date: "2026-01-02", Phase: "sea", Hours: 24, Case: plant.Case{Name: "d2", Set: flow(5000)}, ClaimedT: 2},
-	}, []profile.Uncertain{{Unit: "b1", Param: "eta_factor", Low: 0.95, High: 1.05}},
+	}, Uncertain: []profile.Uncertain{{Unit: "b1", Param: "eta_factor", Low: 0.95, High: 1.05}},
+		Implied: []profile.Factor{{Targets: []profile.Target{{Unit: "b1", Param: "eta_factor"}}}}},
 		profile.AuditOptions{Samples: 20, Seed: 3, Workers: 1})
 	must(t, err)
 	return v, s, a

@@ -25,6 +25,7 @@ type Totals struct {
 	Hours             float64      `json:"hours"`
 	FuelT             float64      `json:"fuel_t"`
 	CO2T              float64      `json:"co2_t"`
+	CO2AnalysisT      *float64     `json:"co2_analysis_t"`
 	SteamT            float64      `json:"steam_t"`
 	EGESteamT         float64      `json:"ege_steam_t"`
 	EGEFuelSavedT     float64      `json:"ege_fuel_saved_t"`
@@ -41,13 +42,19 @@ type Totals struct {
 	ShortRows         []int        `json:"short_rows"`
 	WarningRows       []int        `json:"warning_rows"`
 	FuelByGrade       []GradeTotal `json:"fuel_by_grade"`
+	N1CheckedRows     int          `json:"n_minus_1_rows"`
+	N1ShortHours      float64      `json:"n_minus_1_short_hours"`
+	N1ShortRows       []int        `json:"n_minus_1_short_rows"`
+	InertGasShortH    float64      `json:"inert_gas_short_hours"`
 }
 
-// GradeTotal is the boiler fuel of one grade and its CO2.
+// GradeTotal is the boiler fuel of one grade and its CO2, by the
+// regulatory factor and by the analysis (null without one).
 type GradeTotal struct {
-	Grade string  `json:"grade"`
-	FuelT float64 `json:"fuel_t"`
-	CO2T  float64 `json:"co2_t"`
+	Grade        string   `json:"grade"`
+	FuelT        float64  `json:"fuel_t"`
+	CO2T         float64  `json:"co2_t"`
+	CO2AnalysisT *float64 `json:"co2_analysis_t"`
 }
 
 // row1 is a 0-based row index as the 1-based number the reports show, or
@@ -78,18 +85,22 @@ func NewTotals(t profile.Totals) Totals {
 		hf[i] = Round(h)
 	}
 	out := Totals{
-		Rows: t.Rows, Hours: Round(t.Hours), FuelT: Round(t.FuelT), CO2T: Round(t.CO2T), SteamT: Round(t.SteamT),
+		Rows: t.Rows, Hours: Round(t.Hours), FuelT: Round(t.FuelT), CO2T: Round(t.CO2T),
+		CO2AnalysisT: roundPtr(t.CO2AnalysisT, !t.CO2AnalysisUnknown), SteamT: Round(t.SteamT),
 		EGESteamT: Round(t.EGESteamT), EGEFuelSavedT: Round(t.FuelSavedT), EGEFoulingLostT: Round(t.EGEFoulingLostT), DumpedT: Round(t.DumpedT),
 		MakeUpT: Round(t.MakeUpT), ElectricMWh: Round(t.ElectricMWh), HoursFiring: hf,
 		PeakBoilerKgH: Round(KgPerH(t.PeakBoilerKgS)), PeakRow: row1(t.PeakRow), CapacityKgH: Round(KgPerH(t.CapacityKgS)),
 		TightestRow: row1(t.TightestRow), ShortRows: rows1(t.ShortRows), WarningRows: rows1(t.WarningRows),
+		N1CheckedRows: t.N1CheckedRows, N1ShortHours: Round(t.N1ShortHours), N1ShortRows: rows1(t.N1ShortRows),
+		InertGasShortH: Round(t.InertGasShortHours),
 	}
 	if t.TightestRow >= 0 {
 		out.TightestMarginKgH = roundPtr(KgPerH(t.TightestMarginKgS), true)
 	}
 	out.FuelByGrade = make([]GradeTotal, len(t.FuelByGrade))
 	for i, g := range t.FuelByGrade {
-		out.FuelByGrade[i] = GradeTotal{Grade: g.Grade, FuelT: Round(g.FuelT), CO2T: Round(g.CO2T)}
+		out.FuelByGrade[i] = GradeTotal{Grade: g.Grade, FuelT: Round(g.FuelT), CO2T: Round(g.CO2T),
+			CO2AnalysisT: roundPtr(g.CO2AnalysisT, g.HasCO2Analysis)}
 	}
 	return out
 }
@@ -128,15 +139,21 @@ type VoyageRow struct {
 	FuelKgH            float64  `json:"fuel_kg_h"`
 	FuelT              float64  `json:"fuel_t"`
 	CO2T               float64  `json:"co2_t"`
+	CO2AnalysisT       *float64 `json:"co2_analysis_t"`
 	MarginKgH          float64  `json:"margin_kg_h"`
+	N1CanCarry         *bool    `json:"n_minus_1_can_carry"`
 	Warnings           []string `json:"warnings"`
+	// Tanks are the tanks the voyage carries from row to row, over the
+	// row (empty when it carries none).
+	Tanks []VoyageTank `json:"tanks"`
 }
 
 // NewVoyageRow returns the schema form of one row of a voyage. A row
 // without a solved case (Result nil, as a script's check mode gives) has
 // its phase and hours and zero figures, with can_carry true.
 func NewVoyageRow(row profile.RowResult) VoyageRow {
-	out := VoyageRow{Row: row.Index + 1, Phase: row.Phase, Hours: Round(row.Hours), CanCarry: true, Warnings: []string{}}
+	out := VoyageRow{Row: row.Index + 1, Phase: row.Phase, Hours: Round(row.Hours), CanCarry: true, Warnings: []string{},
+		CO2AnalysisT: roundPtr(0, true), Tanks: newVoyageTanks(row.Result)}
 	c := row.Result
 	if c == nil {
 		return out
@@ -157,7 +174,15 @@ func NewVoyageRow(row profile.RowResult) VoyageRow {
 	out.FuelKgH = Round(KgPerH(c.FuelKgS))
 	out.FuelT = Round(Tonnes(c.FuelKgS, row.Hours))
 	out.CO2T = Round(Tonnes(c.CO2KgS, row.Hours))
+	out.CO2AnalysisT = roundPtr(Tonnes(c.CO2AnalysisKgS, row.Hours), !c.CO2AnalysisUnknown)
 	out.MarginKgH = Round(KgPerH(c.MarginNextKgS))
+	if c.ContingenciesChecked {
+		ok := true
+		for _, k := range c.Contingencies {
+			ok = ok && k.CanCarry
+		}
+		out.N1CanCarry = &ok
+	}
 	out.Warnings = append(out.Warnings, c.Warnings...)
 	return out
 }
@@ -219,6 +244,13 @@ type Variant struct {
 	CO2AvoidedT float64 `json:"co2_avoided_t"`
 	Money
 	EGEHours
+	RowWarnings []RowWarning `json:"row_warnings"`
+}
+
+// RowWarning is the warnings of one row of a profile.
+type RowWarning struct {
+	Row      int      `json:"row"`
+	Warnings []string `json:"warnings"`
 }
 
 // Sweep is a study's sweep of an economiser's size.
@@ -276,8 +308,13 @@ func NewStudy(job Job, r *profile.StudyResult) Study {
 		out.LifeYears, out.DiscountRate = &life, &rate
 	}
 	for _, v := range r.Variants {
-		out.Variants = append(out.Variants, Variant{Name: v.Name, Totals: NewTotals(v.Totals), FuelSavedT: Round(v.FuelSavedT),
-			CO2AvoidedT: Round(v.CO2AvoidedT), Money: newMoney(v.Money, r.HasNPV, true), EGEHours: newEGEHours(v.EGEHours)})
+		vj := Variant{Name: v.Name, Totals: NewTotals(v.Totals), FuelSavedT: Round(v.FuelSavedT),
+			CO2AvoidedT: Round(v.CO2AvoidedT), Money: newMoney(v.Money, r.HasNPV, true), EGEHours: newEGEHours(v.EGEHours),
+			RowWarnings: make([]RowWarning, 0, len(v.RowWarnings))}
+		for _, w := range v.RowWarnings {
+			vj.RowWarnings = append(vj.RowWarnings, RowWarning{Row: w.Row + 1, Warnings: append([]string{}, w.Texts...)})
+		}
+		out.Variants = append(out.Variants, vj)
 	}
 	if sw := r.Sweep; sw != nil {
 		exp := sw.Cost.Exponent
@@ -293,62 +330,6 @@ func NewStudy(job Job, r *profile.StudyResult) Study {
 				EGEHours: newEGEHours(pt.EGEHours)})
 		}
 		out.Sweep = js
-	}
-	return out
-}
-
-// Audit is a check of reported daily boiler fuel against a modelled band.
-type Audit struct {
-	Job
-	Samples       int         `json:"samples"`
-	Seed          uint64      `json:"seed"`
-	LowQ          float64     `json:"low_quantile"`
-	HighQ         float64     `json:"high_quantile"`
-	ClaimedT      float64     `json:"claimed_t"`
-	NominalT      float64     `json:"nominal_t"`
-	LowT          float64     `json:"low_t"`
-	HighT         float64     `json:"high_t"`
-	ExcessT       float64     `json:"excess_t"`
-	Flagged       int         `json:"flagged"`
-	Days          []Day       `json:"days"`
-	Uncertainties []Uncertain `json:"uncertainties"`
-}
-
-// Day is one audited day.
-type Day struct {
-	Day      int     `json:"day"`
-	Date     string  `json:"date"`
-	Phase    string  `json:"phase"`
-	ClaimedT float64 `json:"claimed_t"`
-	NominalT float64 `json:"nominal_t"`
-	LowT     float64 `json:"low_t"`
-	MedianT  float64 `json:"median_t"`
-	HighT    float64 `json:"high_t"`
-	Flag     string  `json:"flag"`
-}
-
-// Uncertain is an input of an audit drawn uniformly between Low and High,
-// in SI units or as a fraction, as the script gave it.
-type Uncertain struct {
-	Unit  string  `json:"unit"`
-	Param string  `json:"param"`
-	Low   float64 `json:"low"`
-	High  float64 `json:"high"`
-}
-
-// NewAudit returns the schema form of an audit run as job. The sampling
-// settings and the uncertain inputs are given as set (not rounded).
-func NewAudit(job Job, r *profile.AuditResult) Audit {
-	out := Audit{Job: job.job(), Samples: r.Samples, Seed: r.Seed, LowQ: r.LowQ, HighQ: r.HighQ,
-		ClaimedT: Round(r.ClaimedT), NominalT: Round(r.NominalT), LowT: Round(r.LowT), HighT: Round(r.HighT),
-		ExcessT: Round(r.ExcessT), Flagged: r.Flagged, Days: make([]Day, 0, len(r.Days)),
-		Uncertainties: make([]Uncertain, 0, len(r.Uncertainties))}
-	for i, d := range r.Days {
-		out.Days = append(out.Days, Day{Day: i + 1, Date: d.Date, Phase: d.Phase, ClaimedT: Round(d.ClaimedT),
-			NominalT: Round(d.NominalT), LowT: Round(d.LowT), MedianT: Round(d.MedianT), HighT: Round(d.HighT), Flag: d.Flag})
-	}
-	for _, u := range r.Uncertainties {
-		out.Uncertainties = append(out.Uncertainties, Uncertain{Unit: u.Unit, Param: u.Param, Low: u.Low, High: u.High})
 	}
 	return out
 }

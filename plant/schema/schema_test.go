@@ -265,8 +265,26 @@ func TestNewJobs(t *testing.T) {
 	if len(aj.Days) != 2 || aj.Days[1].Day != 2 || aj.Days[0].Flag != "above" || aj.Days[1].Flag != "below" {
 		t.Errorf("days %+v", aj.Days)
 	}
-	if len(aj.Uncertainties) != 1 || aj.Uncertainties[0].Param != "eta_factor" {
+	if len(aj.Uncertainties) != 1 || aj.Uncertainties[0].Param != "eta_factor" || aj.Uncertainties[0].Scope != "fixed" {
 		t.Errorf("uncertainties %+v", aj.Uncertainties)
+	}
+	// The period's figures are the profile's, rounded; a day's implied
+	// factor is named and has its value (0.95 to 1.05 gives a band of
+	// about ±5 %: a claim of 12 t lies beyond it, of 2 t below it).
+	near(t, "period claimed_t", aj.Period.ClaimedT, a.Period.ClaimedT, 5e-6)
+	near(t, "period high_t", aj.Period.HighT, a.Period.HighT, 5e-6)
+	if aj.ClaimsOf != ClaimsOfFuel || aj.BaseT != nil || aj.Calibration != nil || len(aj.Implied) != 1 {
+		t.Errorf("claims_of %q base %v calibration %v implied %d", aj.ClaimsOf, aj.BaseT, aj.Calibration, len(aj.Implied))
+	}
+	for i, d := range aj.Days {
+		v := a.Days[i].Implied[0]
+		if len(d.Implied) != 1 || d.Implied[0].Factor != "b1.eta_factor" || d.Implied[0].Status != v.Status.String() ||
+			(v.Status == profile.ImpliedFound) != (d.Implied[0].Value != nil) {
+			t.Errorf("day %d implied %+v; profile %+v", i+1, d.Implied, v)
+		}
+		if d.LowT == nil || d.Percentile == nil || d.Reference {
+			t.Errorf("day %d: an audited day's band or percentile is null", i+1)
+		}
 	}
 	// The job's lists are its own copies.
 	job.RowSources[0] = "changed"
@@ -276,7 +294,7 @@ func TestNewJobs(t *testing.T) {
 }
 
 // TestNewVoyageRowUnsolved: a row without a case result (check mode) has
-// its phase and hours, zero figures and an empty list of warnings.
+// its phase and hours, zero figures and empty lists of warnings and tanks.
 func TestNewVoyageRowUnsolved(t *testing.T) {
 	t.Parallel()
 	r := NewVoyageRow(profile.RowResult{Index: 4, Phase: "port", Hours: 6})
@@ -284,7 +302,7 @@ func TestNewVoyageRowUnsolved(t *testing.T) {
 	must(t, err)
 	want := `{"row":5,"phase":"port","hours":6,"case":"","sea_T_K":null,"air_T_K":null,"engine_load":0,` +
 		`"boilers_firing":0,"can_carry":true,"steam_demand_kg_h":0,"steam_production_kg_h":0,"boiler_steam_kg_h":0,` +
-		`"ege_steam_kg_h":0,"dumped_kg_h":0,"fuel_kg_h":0,"fuel_t":0,"co2_t":0,"margin_kg_h":0,"warnings":[]}`
+		`"ege_steam_kg_h":0,"dumped_kg_h":0,"fuel_kg_h":0,"fuel_t":0,"co2_t":0,"co2_analysis_t":0,"margin_kg_h":0,"n_minus_1_can_carry":null,"warnings":[],"tanks":[]}`
 	if string(b) != want {
 		t.Errorf("got  %s\nwant %s", b, want)
 	}

@@ -32,6 +32,10 @@ const (
 	FoulingResistance       // m2 K/W
 	ThermalConductance      // W/K (a UA value)
 	ThermalConductivity     // W/(m K)
+	// SpecificConsumption is mass per energy, kg/J: a turbine's steam
+	// rate ("8.5 kg/kWh") or an engine's specific fuel oil consumption
+	// ("175 g/kWh").
+	SpecificConsumption
 
 	numDimensions
 )
@@ -69,6 +73,7 @@ var dimInfos = [numDimensions]dimInfo{
 	FoulingResistance:       {"fouling resistance", "a", "0.0009 m2K/W", "m2K/W"},
 	ThermalConductance:      {"thermal conductance", "a", "12 kW/K", "W/K"},
 	ThermalConductivity:     {"thermal conductivity", "a", "45 W/mK", "W/mK"},
+	SpecificConsumption:     {"specific consumption", "a", "8.5 kg/kWh", "kg/J"},
 }
 
 // Dimensions returns every valid dimension, in a fixed order.

@@ -89,4 +89,5 @@
 //   - fouling resistance (SI: m2K/W): m2K/W, m2 K/W, m2°C/W, m²K/W; m2K/kW, m2 K/kW, m2°C/kW, m²K/kW
 //   - thermal conductance (SI: W/K): W/K; kW/K; MW/K
 //   - thermal conductivity (SI: W/mK): W/mK, W/(m K), W/m/K, W/m°C
+//   - specific consumption (SI: kg/J): kg/J; kg/kWh; g/kWh; kg/MWh
 package units

@@ -196,6 +196,13 @@ var table = [...]unitDef{
 
 	// ThermalConductivity
 	{dim: ThermalConductivity, scale: 1, spellings: []string{"W/mK", "W/(m K)", "W/m/K", "W/m°C"}},
+
+	// SpecificConsumption (steam rate, specific fuel consumption): 1 kWh
+	// = 3.6e6 J, exact (NIST SP 811 B.8).
+	{dim: SpecificConsumption, scale: 1, spellings: []string{"kg/J"}},
+	{dim: SpecificConsumption, scale: 1 / 3.6e6, spellings: []string{"kg/kWh"}},
+	{dim: SpecificConsumption, scale: 1e-3 / 3.6e6, spellings: []string{"g/kWh"}},
+	{dim: SpecificConsumption, scale: 1 / 3.6e9, spellings: []string{"kg/MWh"}},
 }
 
 // index maps each compacted spelling to the positions in table that accept

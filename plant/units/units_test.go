@@ -127,6 +127,9 @@ var conversions = []struct {
 	{"12 kW/K", ThermalConductance, 12e3, "[def]"},
 	{"500 W/K", ThermalConductance, 500, "[def]"},
 	{"45 W/mK", ThermalConductivity, 45, "[def]"},
+	{"3.6 kg/kWh", SpecificConsumption, 1e-6, "[def] 3.6/3.6e6"},
+	{"180 g/kWh", SpecificConsumption, 5e-8, "[def] 0.18/3.6e6"},
+	{"36 kg/MWh", SpecificConsumption, 1e-8, "[def] 36/3.6e9"},
 	// Fractions.
 	{"0.85", Fraction, 0.85, "[def] a bare number is a fraction"},
 	{"1", Fraction, 1, "[def]"},

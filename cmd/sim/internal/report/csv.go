@@ -18,7 +18,13 @@ const (
 	TableVoyageWarn = "voyage warnings"
 	TableStudy      = "study variants"
 	TableSweep      = "study sweep"
+	TableStudyWarn  = "study warnings"
 	TableAudit      = "audit days"
+	TableAuditPer   = "audit periods"
+	TableImplied    = "audit implied"
+	TableShares     = "audit shares"
+	TableGrades     = "audit grades"
+	TableAuditWarn  = "audit warnings"
 	tableColumn     = "table"
 	csvMoneyDec     = 2
 	csvTonnesDec    = 3
@@ -57,24 +63,48 @@ var sweepHeader = [...]string{
 	"payback_years", "hours_below_min_gas_T", "hours_soot_risk", "best",
 }
 
+var studyWarnHeader = [...]string{tableColumn, "study", "variant", "row", "source", "warning"}
+
 var auditHeader = [...]string{
-	tableColumn, "audit", "day", "source", "date", "phase", "claimed_t",
-	"nominal_t", "low_t", "median_t", "high_t", "flag",
+	tableColumn, "audit", "day", "source", "date", "phase", "reference", "claimed_t",
+	"nominal_t", "low_t", "median_t", "high_t", "reading_low_t", "reading_high_t",
+	"percentile_pct", "flag", "fuel_t", "co2_t", "samples_with_warnings",
 }
+
+var auditPeriodHeader = [...]string{
+	tableColumn, "audit", "days", "claimed_t", "nominal_t", "low_t", "median_t", "high_t",
+	"reading_low_t", "reading_high_t", "p_at_or_below", "p_at_or_above", "p_standard_error",
+	"percentile_pct", "flag", "samples", "seed",
+}
+
+var impliedHeader = [...]string{tableColumn, "audit", "day", "source", "date", "factor", "value", "status"}
+
+var sharesHeader = [...]string{tableColumn, "audit", "day", "source", "date", "cause", "fuel_t"}
+
+var gradesHeader = [...]string{tableColumn, "audit", "day", "source", "date", "grade", "fuel_t", "co2_t"}
+
+var auditWarnHeader = [...]string{tableColumn, "audit", "day", "source", "date", "warning"}
 
 // CSV writes the run as CSV tables, one after another in one stream:
 // the load cases, then, when the run has them, the rows of its voyages
-// and their warnings, the variants of its studies and their sweeps of
-// size, and the days of its audits. Each table starts with a header row whose first field is
-// "table", and each of its data rows has the table's name in that field:
-// "cases", "voyage rows", "voyage warnings", "study variants", "study
-// sweep" or "audit days". One blank line separates two tables
+// and their warnings, the variants of its studies, their sweeps of size
+// and their warnings, the days of its audits with their periods, implied
+// factors, shares by cause, fuel by grade and warnings, and its heating
+// plans (their summary, required temperatures and rows). Each table
+// starts with a header row whose first field is "table", and each of its
+// data rows has the table's name in that field: "cases", "voyage rows",
+// "voyage warnings", "study variants", "study sweep", "study warnings",
+// "audit days", "audit periods", "audit implied", "audit shares", "audit
+// grades", "audit warnings", "heating plan summary", "heating plan
+// required" or "heating plan rows". One blank line separates two tables
 // (a name with a blank line in it is quoted, and the line is part of it).
 // The cases table always comes first (its header alone when no case was
 // solved); a job table is written only when the run has such a job, and
 // holds the rows of every job of its kind, each naming its job in the
 // second column (the voyage warnings follow the voyage rows, the header
-// alone when no row warns). A program may read the stream with a CSV reader that
+// alone when no row warns, and so the study warnings the variants; the
+// audits' other tables follow their days, each header alone when it has
+// no line). A program may read the stream with a CSV reader that
 // accepts records of different lengths (and skips blank lines, as Go's
 // encoding/csv does), or take the lines of one table by their first field.
 //
@@ -118,9 +148,44 @@ var auditHeader = [...]string{
 //	                hours_below_min_gas_T, hours_soot_risk, best (true for
 //	                the size of highest NPV); written only when a study
 //	                has a sweep
-//	audit days      audit, day (from 1), source, date, phase, claimed_t,
-//	                nominal_t, low_t, median_t, high_t, flag ("above",
-//	                "below" or empty)
+//	study warnings  study, variant, row (from 1), source, warning: each
+//	                warning of each row of each variant, on one line
+//	audit days      audit, day (from 1), source, date, phase, reference
+//	                (true or false), claimed_t, nominal_t, low_t,
+//	                median_t, high_t (the model's band), reading_low_t,
+//	                reading_high_t (the band of what the claim's
+//	                measurement would read), percentile_pct (where the
+//	                claim sits among those readings; the band and the
+//	                percentile empty on a reference day), flag ("above",
+//	                "below" or empty), fuel_t, co2_t (the day's boiler
+//	                fuel and CO2 at the nominal inputs),
+//	                samples_with_warnings
+//	audit periods   audit, days (audited), claimed_t, nominal_t, low_t,
+//	                median_t, high_t, reading_low_t, reading_high_t (of
+//	                the period's total sampled as a whole), p_at_or_below,
+//	                p_at_or_above, p_standard_error (four decimals),
+//	                percentile_pct, flag, samples, seed
+//	audit implied   audit, day, source, date, factor, value (six decimals;
+//	                empty when no value was found), status ("found",
+//	                "step", "model above claim", "model below claim")
+//	audit shares    audit, day, source, date, cause, fuel_t
+//	audit grades    audit, day, source, date, grade, fuel_t, co2_t
+//	audit warnings  audit, day, source, date, warning: each warning of
+//	                each day's nominal case, on one line
+//	heating plan summary  plan (its name), variant ("least fuel", "hold",
+//	                "last moment"), fuel_t, co2_t (the plan solved row by
+//	                row), curve_fuel_t (by the rows' fuel curves), saving_t
+//	                (of the least-fuel plan against the variant; empty for
+//	                itself), short_rows and missed (counts)
+//	heating plan required  plan, tank, T_C, at (as given), source,
+//	                reached_T_C (two decimals), met, latest_start_h (empty
+//	                when none meets it), verdict
+//	heating plan rows  plan, row, source, phase, start_h, hours, tank,
+//	                instruction, T_C and by_h (empty where the instruction
+//	                has none), start_T_C, end_T_C (two decimals), duty_kW,
+//	                coil_binds, and the plan's boilers_firing,
+//	                boiler_steam_kg_h and fuel_t of the row: one line per
+//	                row and tank
 //
 // The caution is not part of the CSV (it would break the tables); a
 // program that shows these figures to people must show it.
@@ -229,23 +294,25 @@ func CSV(w io.Writer, run Run) error {
 				}
 			}
 		}
-	}
-	if hasRows(run.Audits, func(a Audit) bool { return a.Result != nil && len(a.Result.Days) > 0 }) {
-		begin(auditHeader[:], false)
-		for _, a := range run.Audits {
-			if a.Result == nil {
+		begin(studyWarnHeader[:], false)
+		for _, st := range run.Studies {
+			if st.Result == nil {
 				continue
 			}
-			for i, d := range a.Result.Days {
-				rec := [...]string{
-					TableAudit, a.Name, strconv.Itoa(i + 1), source(a.Job, i), d.Date, d.Phase,
-					fix(d.ClaimedT, csvTonnesDec), fix(d.NominalT, csvTonnesDec), fix(d.LowT, csvTonnesDec),
-					fix(d.MedianT, csvTonnesDec), fix(d.HighT, csvTonnesDec), d.Flag,
+			for _, v := range st.Result.Variants {
+				for _, rw := range v.RowWarnings {
+					for _, text := range rw.Texts {
+						rec := [...]string{TableStudyWarn, st.Name, v.Name, strconv.Itoa(rw.Row + 1), source(st.Job, rw.Row), oneLine(text)}
+						write(rec[:])
+					}
 				}
-				write(rec[:])
 			}
 		}
 	}
+	if hasRows(run.Audits, func(a Audit) bool { return a.Result != nil && len(a.Result.Days) > 0 }) {
+		writeAuditCSV(run.Audits, begin, write)
+	}
+	writeHeatingPlanCSV(run, begin, write)
 	cw.Flush()
 	if ew.err != nil {
 		return ew.err
@@ -299,4 +366,79 @@ func source(j Job, i int) string {
 		return j.Rows[i]
 	}
 	return ""
+}
+
+// writeAuditCSV writes the tables of the audits: their days, periods,
+// implied factors, shares by cause, fuel by grade and warnings, each a
+// line per day and item.
+func writeAuditCSV(audits []Audit, begin func([]string, bool), write func([]string)) {
+	t := func(v float64) string { return fix(v, csvTonnesDec) }
+	each := func(f func(a Audit, i int, d profile.DayResult)) {
+		for _, a := range audits {
+			if a.Result == nil {
+				continue
+			}
+			for i, d := range a.Result.Days {
+				f(a, i, d)
+			}
+		}
+	}
+	begin(auditHeader[:], false)
+	each(func(a Audit, i int, d profile.DayResult) {
+		band := [...]string{t(d.LowT), t(d.MedianT), t(d.HighT), t(d.ReadingLowT), t(d.ReadingHighT), fix(100*d.Percentile, 1)}
+		if d.Reference {
+			band = [6]string{}
+		}
+		rec := [...]string{
+			TableAudit, a.Name, strconv.Itoa(i + 1), source(a.Job, i), d.Date, d.Phase, strconv.FormatBool(d.Reference),
+			t(d.ClaimedT), t(d.NominalT), band[0], band[1], band[2], band[3], band[4], band[5], d.Flag,
+			t(d.FuelT), t(d.CO2T), strconv.Itoa(d.SampleWarnings),
+		}
+		write(rec[:])
+	})
+	begin(auditPeriodHeader[:], false)
+	for _, a := range audits {
+		if a.Result == nil {
+			continue
+		}
+		p := a.Result.Period
+		rec := [...]string{
+			TableAuditPer, a.Name, strconv.Itoa(p.Days), t(p.ClaimedT), t(p.NominalT), t(p.LowT), t(p.MedianT), t(p.HighT),
+			t(p.ReadingLowT), t(p.ReadingHighT), fix(p.PAtOrBelow, 4), fix(p.PAtOrAbove, 4), fix(p.StdErr, 4),
+			fix(100*p.Percentile, 1), p.Flag, strconv.Itoa(a.Result.Samples), strconv.FormatUint(a.Result.Seed, 10),
+		}
+		write(rec[:])
+	}
+	begin(impliedHeader[:], false)
+	each(func(a Audit, i int, d profile.DayResult) {
+		for k, v := range d.Implied {
+			value := ""
+			if v.Status == profile.ImpliedFound || v.Status == profile.ImpliedStep {
+				value = fix(v.Value, 6)
+			}
+			rec := [...]string{TableImplied, a.Name, strconv.Itoa(i + 1), source(a.Job, i), d.Date, a.Result.Implied[k].Name, value, v.Status.String()}
+			write(rec[:])
+		}
+	})
+	begin(sharesHeader[:], false)
+	each(func(a Audit, i int, d profile.DayResult) {
+		for k, v := range d.Shares {
+			rec := [...]string{TableShares, a.Name, strconv.Itoa(i + 1), source(a.Job, i), d.Date, a.Result.Causes[k].Name, t(v)}
+			write(rec[:])
+		}
+	})
+	begin(gradesHeader[:], false)
+	each(func(a Audit, i int, d profile.DayResult) {
+		for _, g := range d.FuelByGrade {
+			rec := [...]string{TableGrades, a.Name, strconv.Itoa(i + 1), source(a.Job, i), d.Date, g.Grade, t(g.FuelT), t(g.CO2T)}
+			write(rec[:])
+		}
+	})
+	begin(auditWarnHeader[:], false)
+	each(func(a Audit, i int, d profile.DayResult) {
+		for _, text := range d.Warnings {
+			rec := [...]string{TableAuditWarn, a.Name, strconv.Itoa(i + 1), source(a.Job, i), d.Date, oneLine(text)}
+			write(rec[:])
+		}
+	})
 }

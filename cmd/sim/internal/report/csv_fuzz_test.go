@@ -58,6 +58,14 @@ func FuzzCSVNames(f *testing.F) {
 				found["variant"] = found["variant"] || rec[2] == name
 			case TableAudit:
 				found["audit"] = found["audit"] || rec[1] == name
+			case TableStudyWarn:
+				if rec[1] != other || (rec[2] != name && rec[2] != s.Result.Variants[0].Name) {
+					t.Errorf("study warnings: %q", rec)
+				}
+			case TableAuditPer, TableImplied, TableShares, TableGrades, TableAuditWarn:
+				if rec[1] != name {
+					t.Errorf("%s: audit %q read back as %q", rec[0], name, rec[1])
+				}
 			default:
 				t.Fatalf("a record of no table: %q", rec)
 			}

@@ -3,8 +3,14 @@
 // CSV tables of the cases and the jobs (CSV), and charts (Charts): the
 // cases' steam demand against boiler capacity (Plot), a voyage's demand,
 // capacity and fuel against its hours (PlotVoyage), a study's fuel saved
-// by variant (PlotStudy) and an audit's claimed fuel against the modelled
-// band (PlotAudit), each as SVG or PNG.
+// by variant (PlotStudy), an audit's claimed fuel against the modelled
+// band (PlotAudit), its implied factors per day (PlotAuditImplied) and the
+// distribution of its period total (PlotAuditPeriod), each as SVG or PNG.
+//
+// Every table and JSON document carries the run's record (Run.Version,
+// Run.Files with their SHA-256, Run.LuaSeed, Run.Assumptions): what an
+// auditor needs to say which program read which inputs under which
+// defaults.
 //
 // A Run holds the load cases in script order, each with the name of the
 // plant it was solved on (the case's script position is the
@@ -33,7 +39,10 @@
 // with a header row whose first field is "table" and whose other fields
 // name the columns with their units; each data row carries the table's
 // name in its first field ("cases", "voyage rows", "voyage warnings",
-// "study variants", "audit days"); one blank line separates two tables
+// "study variants", "study warnings", "audit days", "audit periods",
+// "audit implied",
+// "audit shares", "audit grades", "audit warnings"); one blank line
+// separates two tables
 // (outside quotes: a quoted name may hold a blank line of its own). The
 // cases table always comes first (its header alone when no case was
 // solved); the others follow in that order when the run has such a job,

@@ -25,7 +25,7 @@ func ExampleTable() {
 		fmt.Println(err)
 	}
 	// Output:
-	// Nothing was solved: the scripts ran no load case, voyage, study or audit.
+	// Nothing was solved: the scripts ran no load case, voyage, study, audit or heating plan.
 	//
 	// Caution: planning and audit estimate only; the makers' manuals, class and flag rules and licensed practice govern, and local codes come first.
 }

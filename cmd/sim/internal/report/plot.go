@@ -392,7 +392,7 @@ func demandSeries(cases []Case) (map[string]plotter.Values, []string, map[string
 				listed += m
 			}
 		}
-		d := headerDrains(r)
+		d := headerDrained(r)
 		add(seriesDrains, i, math.Max(0, d*kgh))
 		listed += d
 		// Steam the listed takers do not account for (a reducing valve's

@@ -19,7 +19,8 @@ import (
 // Chart is one chart a run can draw: the chart of its load cases, or the
 // chart of one of its jobs.
 type Chart struct {
-	// Kind is "cases", "voyage", "study" or "audit".
+	// Kind is "cases", "voyage", "study", "audit", "audit-implied",
+	// "audit-period" or "heating-plan".
 	Kind string
 	// N numbers the job among the run's jobs of its kind, from 1; it is
 	// 0 for the chart of the cases.
@@ -35,8 +36,11 @@ func (c Chart) Draw(w io.Writer, format string) error { return c.draw(w, format)
 
 // Charts lists the charts of a run, in this order: the load cases (all on
 // one chart, by Plot) if there are any, then each voyage (PlotVoyage),
-// study (PlotStudy) and audit (PlotAudit) in the order the scripts ran
-// them.
+// study (PlotStudy), audit and heating plan (PlotHeatingPlan) in the
+// order the scripts ran them; an audit has up to three: its band per day
+// (PlotAudit, kind "audit"), its implied factors per day when it solves
+// any (PlotAuditImplied, "audit-implied") and the distribution of its
+// period total (PlotAuditPeriod, "audit-period").
 func Charts(run Run) []Chart {
 	var out []Chart
 	if len(run.Cases) > 0 {
@@ -54,6 +58,21 @@ func Charts(run Run) []Chart {
 	for i, a := range run.Audits {
 		out = append(out, Chart{Kind: "audit", N: i + 1, Name: a.Name,
 			draw: func(w io.Writer, f string) error { return PlotAudit(w, f, a) }})
+		if a.Result != nil && len(a.Result.Implied) > 0 {
+			out = append(out, Chart{Kind: "audit-implied", N: i + 1, Name: a.Name,
+				draw: func(w io.Writer, f string) error { return PlotAuditImplied(w, f, a) }})
+		}
+		if a.Result != nil && len(a.Result.Period.ReadingT) > 0 {
+			out = append(out, Chart{Kind: "audit-period", N: i + 1, Name: a.Name,
+				draw: func(w io.Writer, f string) error { return PlotAuditPeriod(w, f, a) }})
+		}
+	}
+	for i, h := range run.HeatingPlans {
+		if h.Result == nil {
+			continue
+		}
+		out = append(out, Chart{Kind: "heating-plan", N: i + 1, Name: h.Name,
+			draw: func(w io.Writer, f string) error { return PlotHeatingPlan(w, f, h) }})
 	}
 	return out
 }
@@ -647,161 +666,4 @@ func sweepPanels(r *profile.StudyResult) (*plot.Plot, *plot.Plot, error) {
 		return nil, nil, fmt.Errorf("plot: sweep: %w", err)
 	}
 	return npv, dumped, nil
-}
-
-// auditBand is the days' bands as error bars about the median.
-type auditBand struct{ x, y, lo, hi []float64 }
-
-func (b auditBand) Len() int                        { return len(b.x) }
-func (b auditBand) XY(i int) (float64, float64)     { return b.x[i], b.y[i] }
-func (b auditBand) YError(i int) (float64, float64) { return b.y[i] - b.lo[i], b.hi[i] - b.y[i] }
-
-// barThumb draws an error bar with its caps as a legend thumbnail.
-type barThumb struct{ draw.LineStyle }
-
-func (b barThumb) Thumbnail(c *draw.Canvas) {
-	x := (c.Min.X + c.Max.X) / 2
-	cap := (c.Max.X - c.Min.X) / 4
-	c.StrokeLine2(b.LineStyle, x, c.Min.Y, x, c.Max.Y)
-	c.StrokeLine2(b.LineStyle, x-cap, c.Min.Y, x+cap, c.Min.Y)
-	c.StrokeLine2(b.LineStyle, x-cap, c.Max.Y, x+cap, c.Max.Y)
-}
-
-// PlotAudit draws an audit in format (SVG or PNG) to w: for each day, in
-// the order of the log, the modelled band of its boiler fuel (from the low
-// to the high quantile, as an error bar), the median of the samples (a
-// line across the days) and the nominal figure (every uncertain input at
-// the middle of its range; a dashed line), in tonnes, with the fuel
-// claimed as a dot, red and ringed on a day flagged above or below the
-// band. The legend stands to the right.
-func PlotAudit(w io.Writer, format string, a Audit) error {
-	r := a.Result
-	if r == nil || len(r.Days) == 0 {
-		return fmt.Errorf("plot: audit %q has no days to draw", a.Name)
-	}
-	n := len(r.Days)
-	band := auditBand{x: make([]float64, n), y: make([]float64, n), lo: make([]float64, n), hi: make([]float64, n)}
-	median := make(plotter.XYs, n)
-	nominal := make(plotter.XYs, n)
-	var claimed, flagged plotter.XYs
-	dates := make([]string, n)
-	top := 0.0
-	for i, d := range r.Days {
-		x := float64(i)
-		band.x[i], band.y[i], band.lo[i], band.hi[i] = x, d.MedianT, min(d.LowT, d.MedianT), max(d.HighT, d.MedianT)
-		median[i] = plotter.XY{X: x, Y: d.MedianT}
-		nominal[i] = plotter.XY{X: x, Y: d.NominalT}
-		if d.Flag != "" {
-			flagged = append(flagged, plotter.XY{X: x, Y: d.ClaimedT})
-		} else {
-			claimed = append(claimed, plotter.XY{X: x, Y: d.ClaimedT})
-		}
-		dates[i] = d.Date
-		if dates[i] == "" {
-			dates[i] = "day " + fix(x+1, 0)
-		}
-		top = max(top, d.HighT, d.ClaimedT, d.NominalT)
-	}
-	if !(top > 0) {
-		top = 1
-	}
-	p := plot.New()
-	p.Title.Text = "Audit: " + a.Name
-	if a.Plant != "" {
-		p.Title.Text += " (" + a.Plant + ")"
-	}
-	p.Y.Label.Text = "boiler fuel of the day, t"
-	p.NominalX(dates...)
-	if n > 6 {
-		p.X.Tick.Label.Rotation = math.Pi / 4
-		p.X.Tick.Label.XAlign = draw.XRight
-		p.X.Tick.Label.YAlign = draw.YTop
-	}
-	p.Add(plotter.NewGrid())
-	var entries []legendEntry
-
-	eb, err := plotter.NewYErrorBars(band)
-	if err != nil {
-		return fmt.Errorf("plot: the band: %w", err)
-	}
-	eb.LineStyle.Color = bandColor
-	eb.LineStyle.Width = vg.Points(2)
-	eb.CapWidth = vg.Points(10)
-	p.Add(eb)
-	entries = append(entries, legendEntry{fmt.Sprintf("modelled band, %s %% to %s %%", fix(r.LowQ*100, 0), fix(r.HighQ*100, 0)),
-		[]plot.Thumbnailer{barThumb{eb.LineStyle}}})
-
-	ml, err := plotter.NewLine(median)
-	if err != nil {
-		return fmt.Errorf("plot: the median: %w", err)
-	}
-	ml.Color = medianColor
-	ml.Width = vg.Points(1.5)
-	p.Add(ml)
-	entries = append(entries, legendEntry{"median of the samples", []plot.Thumbnailer{ml}})
-	nl, err := plotter.NewLine(nominal)
-	if err != nil {
-		return fmt.Errorf("plot: the nominal: %w", err)
-	}
-	nl.Color = ink
-	nl.Width = vg.Points(0.8)
-	nl.Dashes = []vg.Length{vg.Points(4), vg.Points(3)}
-	p.Add(nl)
-	entries = append(entries, legendEntry{"nominal (inputs mid-range)", []plot.Thumbnailer{nl}})
-
-	if len(claimed) > 0 {
-		sc, err := plotter.NewScatter(claimed)
-		if err != nil {
-			return fmt.Errorf("plot: the claims: %w", err)
-		}
-		sc.Shape = draw.CircleGlyph{}
-		sc.Color = ink
-		sc.Radius = vg.Points(3.5)
-		p.Add(sc)
-		entries = append(entries, legendEntry{"fuel claimed, within the band", []plot.Thumbnailer{sc}})
-	}
-	if len(flagged) > 0 {
-		dot, err := plotter.NewScatter(flagged)
-		if err != nil {
-			return fmt.Errorf("plot: the flagged days: %w", err)
-		}
-		dot.Shape = draw.CircleGlyph{}
-		dot.Color = flaggedColor
-		dot.Radius = vg.Points(3.5)
-		ring, err := plotter.NewScatter(flagged)
-		if err != nil {
-			return fmt.Errorf("plot: the flagged days: %w", err)
-		}
-		ring.Shape = draw.RingGlyph{}
-		ring.Color = flaggedColor
-		ring.Radius = vg.Points(7)
-		p.Add(dot, ring)
-		entries = append(entries, legendEntry{"fuel claimed, flagged outside", []plot.Thumbnailer{ring, dot}})
-	}
-	p.Y.Min = 0
-	p.Y.Max = top * 1.1
-	p.X.Min, p.X.Max = -0.5, float64(n)-0.5
-	p.Y.Tick.Marker = decimalTicks{}
-	styleAxes(p)
-
-	legend, legW := sideLegend(entries)
-	plotW := vg.Length(math.Max(14, math.Min(36, 1.3*float64(n)+6))) * vg.Centimeter
-	width, height := plotW+legW, 11*vg.Centimeter
-	if p.X.Tick.Label.Rotation != 0 {
-		l := vg.Length(0)
-		for _, d := range dates {
-			l = max(l, p.X.Tick.Label.Width(d))
-		}
-		height += l * vg.Length(math.Sin(p.X.Tick.Label.Rotation))
-	}
-	canvas, err := newCanvas(format, width, height)
-	if err != nil {
-		return err
-	}
-	dc := draw.New(canvas)
-	opaque(dc)
-	p.Draw(draw.Crop(dc, 0, -legW, 0, 0))
-	legend.Draw(draw.Crop(dc, plotW+vg.Millimeter*3, 0, 0, 0))
-	_, err = canvas.WriteTo(w)
-	return err
 }

@@ -14,8 +14,8 @@ import (
 func TestPlotJobs(t *testing.T) {
 	run := profileRun(t)
 	charts := Charts(run)
-	if len(charts) != 3 {
-		t.Fatalf("%d charts of a run with a voyage, a study and an audit, want 3", len(charts))
+	if len(charts) != 5 {
+		t.Fatalf("%d charts of a run with a voyage, a study and an audit, want 5", len(charts))
 	}
 	wants := [][]string{
 		{"Voyage: four periods", "Invented Test Tanker", "steam, kg/h", "fuel, kg/h", "time from the start of the voyage, h",
@@ -23,10 +23,13 @@ func TestPlotJobs(t *testing.T) {
 			"period the plant cannot carry", "port", "discharge"},
 		{"Study: lagging", "as built", "better lagging", "t/yr", "base", "payback"},
 		{"Audit: three days", "2026-01-01", "2026-01-03", "modelled band, 5 % to 95 %", "median of the samples",
-			"fuel claimed, flagged outside", "boiler fuel of the day, t"},
+			"band of the readings, 5 % to 95 %", "fuel claimed, day flagged", "boiler fuel of the day, t"},
+		{"Implied factors: three days", "cargo heating.factor", "2026-01-02", "plausible range (shaded)"},
+		{"Period total: three days, 3 days, 50 samples", "fuel over the period, t", "P(model ≤ claim) =", "claimed, 13.500 t",
+			"samples of the total as measured, if the model is right", "median of the modelled total"},
 	}
 	for i, c := range charts {
-		if want := []string{"voyage", "study", "audit"}[i]; c.Kind != want || c.N != 1 {
+		if want := []string{"voyage", "study", "audit", "audit-implied", "audit-period"}[i]; c.Kind != want || c.N != 1 {
 			t.Errorf("chart %d: %s %d, want %s 1", i, c.Kind, c.N, want)
 		}
 		var svg bytes.Buffer
@@ -59,7 +62,7 @@ func TestPlotJobs(t *testing.T) {
 	for _, c := range Charts(run) {
 		got = append(got, c.Kind+" "+string(rune('0'+c.N)))
 	}
-	if strings.Join(got, ", ") != "cases 0, voyage 1, voyage 2, study 1, audit 1" {
+	if strings.Join(got, ", ") != "cases 0, voyage 1, voyage 2, study 1, audit 1, audit-implied 1, audit-period 1" {
 		t.Errorf("charts %v", got)
 	}
 	if len(Charts(Run{})) != 0 {
@@ -75,6 +78,8 @@ func TestPlotJobsEmpty(t *testing.T) {
 		PlotVoyage(&b, SVG, Voyage{Job: Job{Name: "v"}}),
 		PlotStudy(&b, SVG, Study{Job: Job{Name: "s"}}),
 		PlotAudit(&b, SVG, Audit{Job: Job{Name: "a"}}),
+		PlotAuditImplied(&b, SVG, Audit{Job: Job{Name: "a"}}),
+		PlotAuditPeriod(&b, SVG, Audit{Job: Job{Name: "a"}}),
 	} {
 		if err == nil || !strings.Contains(err.Error(), "to draw") {
 			t.Errorf("an empty job: %v", err)

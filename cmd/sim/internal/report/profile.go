@@ -8,6 +8,7 @@ import (
 	"strings"
 	"text/tabwriter"
 
+	"steamcase/plant"
 	"steamcase/plant/profile"
 	"steamcase/plant/schema"
 )
@@ -20,6 +21,8 @@ type Run struct {
 	Voyages []Voyage
 	Studies []Study
 	Audits  []Audit
+	// HeatingPlans are the cargo heating plans (heating_plan()).
+	HeatingPlans []HeatingPlan
 	// Version is the version of the program that ran the scripts; the
 	// JSON document carries it.
 	Version string
@@ -27,6 +30,28 @@ type Run struct {
 	// document carries it (the other forms leave a failure to the
 	// command's error output).
 	Checks schema.Checks
+	// Files are the script and data files the run read, in the order
+	// first read, with their SHA-256; LuaSeed is the seed of the
+	// scripts' math.random; Assumptions are the defaults in force on
+	// the plants the run solved on. The JSON and the table carry them
+	// (the run's record).
+	Files       []File
+	LuaSeed     uint64
+	Assumptions []Assumption
+}
+
+// File is a file a run read: its name as the run gave it, its size and
+// the SHA-256 of its bytes in hexadecimal.
+type File struct {
+	Name   string
+	Bytes  int
+	SHA256 string
+}
+
+// Assumption is a default in force on a plant the run solved on.
+type Assumption struct {
+	Plant string
+	plant.Assumption
 }
 
 // Job says which job of a run a profile result belongs to: its name, the
@@ -57,7 +82,7 @@ type Audit struct {
 
 // empty reports whether the run has nothing to show.
 func (r Run) empty() bool {
-	return len(r.Cases) == 0 && len(r.Voyages) == 0 && len(r.Studies) == 0 && len(r.Audits) == 0
+	return len(r.Cases) == 0 && len(r.Voyages) == 0 && len(r.Studies) == 0 && len(r.Audits) == 0 && len(r.HeatingPlans) == 0
 }
 
 // rowRef names a row (0-based index) by its number and, if known, where
@@ -87,13 +112,29 @@ func (j Job) head(kind string) string {
 func writeTotalsTable(w io.Writer, names []string, totals []profile.Totals, firstCol string) {
 	tw := tabwriter.NewWriter(w, 0, 8, 2, ' ', 0)
 	fmt.Fprintf(tw, "    %s\t%8s\t%9s\t%9s\t%9s\t%9s\t%9s\t%9s\t%9s\t%9s\t\n", firstCol,
-		"hours", "fuel t", "CO2 t", "steam t", "EGE t", "saved t", "dumped t", "make-up t", "el. MWh")
+		"hours", "fuel t", "CO2 IMO t", "steam t", "EGE t", "saved t", "dumped t", "make-up t", "el. MWh")
 	for i, t := range totals {
 		fmt.Fprintf(tw, "    %s\t%8s\t%9s\t%9s\t%9s\t%9s\t%9s\t%9s\t%9s\t%9s\t\n", names[i],
 			fix(t.Hours, 1), fix(t.FuelT, 3), fix(t.CO2T, 3), fix(t.SteamT, 1), fix(t.EGESteamT, 1),
 			fix(t.FuelSavedT, 3), fix(t.DumpedT, 1), fix(t.MakeUpT, 1), fix(t.ElectricMWh, 2))
 	}
 	tw.Flush()
+}
+
+// writeGrades writes the boiler fuel by grade with its CO2 by the IMO
+// factor (regulatory) and by the fuel's analysis.
+func writeGrades(w io.Writer, t profile.Totals) {
+	if len(t.FuelByGrade) == 0 {
+		return
+	}
+	fmt.Fprintf(w, "  fuel by grade (CO2 by the IMO factor C_F for regulatory reporting; by the fuel's analysis beside):\n")
+	for _, g := range t.FuelByGrade {
+		an := "not known (no analysis)"
+		if g.HasCO2Analysis {
+			an = fix(g.CO2AnalysisT, 3) + " t"
+		}
+		fmt.Fprintf(w, "    %s: fuel %s t, CO2 %s t by the IMO factor, %s by the analysis\n", g.Grade, fix(g.FuelT, 3), fix(g.CO2T, 3), an)
+	}
 }
 
 // hoursFiring writes "0 boilers 0.0 h, 1 boiler 306.0 h, 2 boilers 30.0 h".
@@ -142,12 +183,23 @@ func writeVoyage(w io.Writer, v Voyage) {
 	totals = append(totals, t)
 	writeTotalsTable(w, names, totals, "phase")
 	fmt.Fprintf(w, "\n  hours firing: %s\n", hoursFiring(t.HoursFiring))
+	writeGrades(w, t)
 	if t.Rows > 0 {
 		fmt.Fprintf(w, "  peak demand on the boilers: %s kg/h in %s, against %s kg/h MCR of all boilers\n",
 			fix(t.PeakBoilerKgS*kgh, 1), v.rowRef(t.PeakRow), fix(t.CapacityKgS*kgh, 1))
 		fmt.Fprintf(w, "  tightest margin: %s kg/h in %s\n", fix(t.TightestMarginKgS*kgh, 1), v.rowRef(t.TightestRow))
 	}
 	fmt.Fprintf(w, "  periods the plant cannot carry: %s\n", rowList(v.Job, t.ShortRows))
+	if t.N1CheckedRows == 0 {
+		fmt.Fprintf(w, "  N-1: not checked (the plant's n_minus_1 = false)\n")
+	} else {
+		fmt.Fprintf(w, "  N-1 (a boiler trips, an economiser is out, a listed failure): %s h cannot be carried, in %s\n",
+			fix(t.N1ShortHours, 1), rowList(v.Job, t.N1ShortRows))
+	}
+	if t.InertGasShortHours > 0 {
+		fmt.Fprintf(w, "  inert gas from the boilers not met: %s h\n", fix(t.InertGasShortHours, 1))
+	}
+	writeVoyageTanks(w, v)
 	writeRowWarnings(w, v)
 }
 
@@ -249,6 +301,7 @@ func writeStudy(w io.Writer, s Study) {
 	if r.Sweep != nil {
 		writeSweep(w, r)
 	}
+	writeVariantWarnings(w, s)
 }
 
 // sootHours reports whether a study counts any hours at soot-risk loads.
@@ -336,29 +389,34 @@ func wrapText(s string, width int, indent string) string {
 	return b.String()
 }
 
-func writeAudit(w io.Writer, a Audit) {
-	fmt.Fprint(w, a.head("Audit"))
-	r := a.Result
-	fmt.Fprintf(w, "  %d days; band from the %s %% to the %s %% quantile of %d samples a day (seed %d)\n\n",
-		len(r.Days), fix(r.LowQ*100, 0), fix(r.HighQ*100, 0), r.Samples, r.Seed)
-	tw := tabwriter.NewWriter(w, 0, 8, 2, ' ', 0)
-	fmt.Fprintf(tw, "    day\tphase\t%10s\t%10s\t%10s\t%10s\t%10s\tflag\n", "claimed t", "nominal t", "low t", "median t", "high t")
-	for _, d := range r.Days {
-		flag := ""
-		if d.Flag != "" {
-			flag = d.Flag + " the band"
-		}
-		fmt.Fprintf(tw, "    %s\t%s\t%10s\t%10s\t%10s\t%10s\t%10s\t%s\n", d.Date, d.Phase, fix(d.ClaimedT, 3),
-			fix(d.NominalT, 3), fix(d.LowT, 3), fix(d.MedianT, 3), fix(d.HighT, 3), flag)
+// writeVariantWarnings lists, for each variant, its rows with warnings,
+// each with its warnings under it (as many as a voyage's table shows;
+// the JSON and the CSV have them all).
+func writeVariantWarnings(w io.Writer, s Study) {
+	any := false
+	for _, v := range s.Result.Variants {
+		any = any || len(v.RowWarnings) > 0
 	}
-	fmt.Fprintf(tw, "    total\t\t%10s\t%10s\t%10s\t%10s\t%10s\t\n", fix(r.ClaimedT, 3), fix(r.NominalT, 3), fix(r.LowT, 3), "", fix(r.HighT, 3))
-	tw.Flush()
-	fmt.Fprintf(w, "\n  days outside the band: %d; claimed above the band by %s t in all\n", r.Flagged, fix(r.ExcessT, 3))
-	if len(r.Uncertainties) > 0 {
-		fmt.Fprintf(w, "  uncertain inputs (drawn uniformly):\n")
-		for _, u := range r.Uncertainties {
-			fmt.Fprintf(w, "    - %s %s from %s to %s\n", u.Unit, u.Param,
-				strconv.FormatFloat(u.Low, 'g', 6, 64), strconv.FormatFloat(u.High, 'g', 6, 64))
+	if !any {
+		fmt.Fprintf(w, "  rows with warnings: none\n")
+		return
+	}
+	fmt.Fprintf(w, "  rows with warnings, by variant:\n")
+	for _, v := range s.Result.Variants {
+		fmt.Fprintf(w, "    %s: %d of %d rows\n", v.Name, len(v.RowWarnings), v.Totals.Rows)
+		for n, rw := range v.RowWarnings {
+			if n == maxWarnRows {
+				fmt.Fprintf(w, "      and %d more rows with warnings\n", len(v.RowWarnings)-maxWarnRows)
+				break
+			}
+			fmt.Fprintf(w, "      %s:\n", s.rowRef(rw.Row))
+			for k, text := range rw.Texts {
+				if k == maxWarnTexts {
+					fmt.Fprintf(w, "        - and %d more\n", len(rw.Texts)-maxWarnTexts)
+					break
+				}
+				fmt.Fprintf(w, "        - %s\n", oneLine(text))
+			}
 		}
 	}
 }

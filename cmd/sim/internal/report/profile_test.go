@@ -4,6 +4,7 @@ import (
 	"bytes"
 	"context"
 	"encoding/csv"
+	"fmt"
 	"math"
 	"reflect"
 	"strconv"
@@ -29,7 +30,9 @@ func profileRun(t testing.TB) Run {
 		{Phase: "port", Hours: 24, Case: plant.Case{Name: "port 1", Conditions: cond, Set: duty(300e3)}},
 		{Phase: "port", Hours: 12, Case: plant.Case{Name: "port 2", Conditions: cond, Set: duty(500e3)}},
 		{Phase: "discharge", Hours: 20, Case: plant.Case{Name: "discharge 1", Conditions: cond, Set: duty(7e6)}},
-		{Phase: "discharge", Hours: 4, Case: plant.Case{Name: "discharge 2", Conditions: cond, Set: duty(14e6)}},
+		// Both boilers forced and short: the plant sheds, and the boilers
+		// at their limit are above the usable fraction (five warnings).
+		{Phase: "discharge", Hours: 4, Case: plant.Case{Name: "discharge 2", Conditions: cond, Set: duty(14e6), Fire: []string{"AB1", "AB2"}}},
 	}
 	opt := profile.Options{Workers: 1}
 	vr, err := profile.Run(ctx, p, rows, opt)
@@ -44,9 +47,12 @@ func profileRun(t testing.TB) Run {
 		{Date: "2026-01-02", Phase: "passage", Hours: 24, Case: plant.Case{Name: "d2", Conditions: cond, Set: duty(2e6)}, ClaimedT: 9},
 		{Date: "2026-01-03", Phase: "passage", Hours: 24, Case: plant.Case{Name: "d3", Conditions: cond, Set: duty(2e6)}, ClaimedT: 1},
 	}
-	ar, err := profile.Audit(ctx, p, days, []profile.Uncertain{
+	ar, err := profile.Audit(ctx, p, profile.AuditSpec{Days: days, Uncertain: []profile.Uncertain{
 		{Unit: "cargo heating", Param: "factor", Low: 0.8, High: 1.2},
-	}, profile.AuditOptions{Samples: 50, Seed: 7, Workers: 1})
+	}, Claim: []profile.ClaimError{{Source: profile.FlowMeter, Accuracy: 0.01}},
+		Implied: []profile.Factor{{Targets: []profile.Target{{Unit: "cargo heating", Param: "factor"}}}},
+		Causes:  []profile.Cause{{Name: "cargo heating", Units: []string{"cargo heating"}}}},
+		profile.AuditOptions{Samples: 50, Seed: 7, Workers: 1})
 	must(t, err)
 	job := func(name string, n int) Job {
 		j := Job{Name: name, Plant: p.Name, Source: "plan.lua:3"}
@@ -95,16 +101,24 @@ func TestProfileTable(t *testing.T) {
 		"hours firing: " + hoursFiring(v.Total.HoursFiring),
 		"periods the plant cannot carry: row 4 (plan.csv:5)",
 		// Each period with warnings, its warnings under it: the fourth
-		// has seven, of which three are shown.
+		// has five, of which three are shown.
 		"periods with warnings: 4 of 4\n    row 1 (plan.csv:2), \"port 1\":\n      - " + oneLine(v.Rows[0].Result.Warnings[0]),
 		"    row 4 (plan.csv:5), \"discharge 2\":\n      - " + oneLine(v.Rows[3].Result.Warnings[0]),
-		"      - and 4 more\n",
+		"      - and 2 more\n",
 		"Study: lagging", "better lagging", "saved EUR", "payback years",
+		"rows with warnings, by variant:\n    as built: 3 of 3 rows\n      row 1 (plan.csv:2):\n        - ",
 		"Audit: three days",
-		"\n    2026-01-01  passage       3.500", "below the band\n    2026-01-02",
-		"9.000", "above the band\n    2026-01-03",
-		"days outside the band: " + strconv.Itoa(a.Flagged),
-		"cargo heating factor from 0.8 to 1.2",
+		"\n    2026-01-01  passage       3.500", "below\n    2026-01-02",
+		"9.000", "above\n    2026-01-03",
+		"days flagged: " + strconv.Itoa(a.Flagged) + " of 3",
+		"the period: P(model ≤ claim) = " + fix(a.Period.PAtOrBelow, 4),
+		"a day beyond 0.833 % (Bonferroni over 3 days)",
+		"flow meter: ± 1 % of the reading",
+		"cargo heating factor from 0.8 to 1.2, nominal 1, fixed (the default scope of factor)",
+		"cargo heating.factor: plausible 0.8 to 1.2, searched 0.01 to 10",
+		"cargo heating (cargo heating)",
+		"Fuel by grade, every day of the log", "    all    " + fmt.Sprintf("%10s", fix(a.FuelT, 3)),
+		"level of the flags: 5 % (the default) (common practice, no source)",
 		Caution,
 	} {
 		if !strings.Contains(out, s) {
@@ -130,8 +144,8 @@ func TestVoyageWarningsCut(t *testing.T) {
 	v := run.Voyages[0]
 	r := *v.Result
 	last := r.Rows[3]
-	if len(last.Result.Warnings) != 7 {
-		t.Fatalf("the fourth row has %d warnings; the test wants 7", len(last.Result.Warnings))
+	if len(last.Result.Warnings) != 5 {
+		t.Fatalf("the fourth row has %d warnings; the test wants 5", len(last.Result.Warnings))
 	}
 	r.Rows = nil
 	r.Total.WarningRows = nil
@@ -147,8 +161,8 @@ func TestVoyageWarningsCut(t *testing.T) {
 	var b bytes.Buffer
 	writeRowWarnings(&b, v)
 	out := b.String()
-	if n := strings.Count(out, "      - and 4 more\n"); n != 10 {
-		t.Errorf("%d periods say \"and 4 more\", want 10:\n%s", n, out)
+	if n := strings.Count(out, "      - and 2 more\n"); n != 10 {
+		t.Errorf("%d periods say \"and 2 more\", want 10:\n%s", n, out)
 	}
 	if n := strings.Count(out, "\n    row "); n != 10 {
 		t.Errorf("%d periods listed, want 10", n)
@@ -205,7 +219,7 @@ func TestCSVJobs(t *testing.T) {
 	var b bytes.Buffer
 	must(t, CSV(&b, run))
 	order, tables := readTables(t, b.String())
-	if strings.Join(order, "|") != "cases|voyage rows|voyage warnings|study variants|audit days" {
+	if strings.Join(order, "|") != "cases|voyage rows|voyage warnings|study variants|study warnings|audit days|audit periods|audit implied|audit shares|audit grades|audit warnings" {
 		t.Fatalf("tables %q", order)
 	}
 	get := func(table string, i int, key string) string {
@@ -292,6 +306,16 @@ func TestCSVJobs(t *testing.T) {
 		t.Errorf("a variant that saves nothing has a payback %q", p)
 	}
 
+	// The study warnings: every text of every row of every variant.
+	var texts int
+	for _, x := range s.Variants {
+		for _, rw := range x.RowWarnings {
+			texts += len(rw.Texts)
+		}
+	}
+	if n := len(tables[TableStudyWarn]) - 1; n != texts || texts == 0 {
+		t.Errorf("%d study warning lines; the variants have %d texts", n, texts)
+	}
 	a := run.Audits[0]
 	for i, d := range a.Result.Days {
 		if get(TableAudit, i, "audit") != a.Name || get(TableAudit, i, "date") != d.Date || get(TableAudit, i, "flag") != d.Flag ||
@@ -303,6 +327,17 @@ func TestCSVJobs(t *testing.T) {
 		num(TableAudit, i, "low_t", d.LowT, 0.0005)
 		num(TableAudit, i, "median_t", d.MedianT, 0.0005)
 		num(TableAudit, i, "high_t", d.HighT, 0.0005)
+		num(TableAudit, i, "reading_high_t", d.ReadingHighT, 0.0005)
+		num(TableAudit, i, "percentile_pct", 100*d.Percentile, 0.05)
+		num(TableAudit, i, "fuel_t", d.FuelT, 0.0005)
+		num(TableImplied, i, "value", d.Implied[0].Value, 5e-7)
+		num(TableShares, i, "fuel_t", d.Shares[0], 0.0005)
+		num(TableGrades, i, "fuel_t", d.FuelByGrade[0].FuelT, 0.0005)
+	}
+	num(TableAuditPer, 0, "claimed_t", a.Result.Period.ClaimedT, 0.0005)
+	num(TableAuditPer, 0, "p_at_or_below", a.Result.Period.PAtOrBelow, 0.00005)
+	if got := get(TableAuditPer, 0, "flag"); got != a.Result.Period.Flag {
+		t.Errorf("period flag %q, want %q", got, a.Result.Period.Flag)
 	}
 
 	// Only the cases: one table. Only a voyage: the cases' header alone,

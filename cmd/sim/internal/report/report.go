@@ -5,6 +5,7 @@ import (
 	"fmt"
 	"io"
 	"math"
+	"sort"
 	"strconv"
 	"strings"
 	"text/tabwriter"
@@ -37,7 +38,7 @@ const (
 func Table(w io.Writer, run Run) error {
 	ew := &errWriter{w: w}
 	if run.empty() {
-		fmt.Fprintln(ew, "Nothing was solved: the scripts ran no load case, voyage, study or audit.")
+		fmt.Fprintln(ew, "Nothing was solved: the scripts ran no load case, voyage, study, audit or heating plan.")
 	}
 	var b bytes.Buffer
 	block := func(write func(io.Writer)) {
@@ -66,6 +67,14 @@ func Table(w io.Writer, run Run) error {
 	}
 	for _, a := range run.Audits {
 		block(func(w io.Writer) { writeAudit(w, a) })
+	}
+	for _, h := range run.HeatingPlans {
+		if h.Result != nil {
+			block(func(w io.Writer) { writeHeatingPlan(w, h) })
+		}
+	}
+	if !run.empty() || len(run.Files) > 0 {
+		block(func(w io.Writer) { writeRecord(w, run) })
 	}
 	fmt.Fprintf(ew, "\n%s\n", Caution)
 	return ew.err
@@ -117,7 +126,14 @@ func writeCase(w io.Writer, n, total int, c Case) {
 			note = "shaft power"
 		}
 		if fix(cs.DrainCoolerW/1e3, 1) != "0.0" { // a cooler that gives up heat
-			note += fmt.Sprintf("; drain cooler %s kW", fix(cs.DrainCoolerW/1e3, 1))
+			to := "to the " + cs.DrainCoolerTo
+			if cs.DrainCoolerTo == "overboard" || cs.DrainCoolerTo == "" {
+				to = "overboard"
+			}
+			note += fmt.Sprintf("; drain cooler %s kW %s", fix(cs.DrainCoolerW/1e3, 1), to)
+		}
+		if fix(cs.TrapLossKgS*kgh, 1) != "0.0" {
+			note += fmt.Sprintf("; %s kg/h live steam through the trap", fix(cs.TrapLossKgS*kgh, 1))
 		}
 		fmt.Fprintf(tw, "      %s\t%s\t%10s\t%10s\t%s\n", cs.Name, cs.Kind, fix(cs.SteamKgS*kgh, 1), fix(cs.DutyW/1e3, 1), note)
 	}
@@ -130,8 +146,12 @@ func writeCase(w io.Writer, n, total int, c Case) {
 	}
 	for _, u := range r.Units {
 		if u.Kind == kindHeader && (u.Figures.Of(keyDrained) != 0 || u.Figures.Of("heat_loss_W") != 0) {
+			where := "heat loss, drained and lost"
+			if u.Figures.Of("drains_returned_kg_s") > 0 {
+				where = "heat loss, drained to the hotwell"
+			}
 			fmt.Fprintf(tw, "      %s\t%s\t%10s\t%10s\t%s\n", u.Name, "header drains", fix(u.Figures.Of(keyDrained)*kgh, 1),
-				fix(u.Figures.Of("heat_loss_W")/1e3, 1), "heat loss, drained and lost")
+				fix(u.Figures.Of("heat_loss_W")/1e3, 1), where)
 		}
 	}
 	for _, u := range r.Units {
@@ -149,7 +169,7 @@ func writeCase(w io.Writer, n, total int, c Case) {
 		lost += cs.LostKgS
 	}
 	fmt.Fprintf(tw, "      %s\t\t%10s\t\t\n", "condensate not returned", fix(lost*kgh, 1))
-	fmt.Fprintf(tw, "      %s\t\t%10s\t\t\n", "header drains", fix(headerDrains(r)*kgh, 1))
+	fmt.Fprintf(tw, "      %s\t\t%10s\t\t\n", "header drains lost", fix(headerDrains(r)*kgh, 1))
 	fmt.Fprintf(tw, "    make-up\t\t%10s\t\t\n", fix(r.MakeUpKgS*kgh, 1))
 	tw.Flush()
 
@@ -168,6 +188,9 @@ func writeCase(w io.Writer, n, total int, c Case) {
 			yes, burner = "yes", "steady"
 			if b.Cycling {
 				burner = fmt.Sprintf("cycling, on %s %% of the time", fix(b.OnFraction*100, 0))
+				if b.StartsPerHour > 0 {
+					burner += fmt.Sprintf(", %s starts/h", fix(b.StartsPerHour, 1))
+				}
 			}
 			eff = fix(b.Efficiency*100, 1) + " " + b.EfficiencyBasis
 		}
@@ -182,10 +205,38 @@ func writeCase(w io.Writer, n, total int, c Case) {
 			fix(b.MCRKgS*kgh, 1), fix(b.SteamKgS*kgh, 1), fix(b.FuelKgS*kgh, 1), eff, feed, flue, burner)
 	}
 	tw.Flush()
+	for _, b := range r.Boilers {
+		if !b.Cycling {
+			continue
+		}
+		purge := "purges not counted"
+		if b.PurgePerStartJ > 0 && b.StartsPerHour > 0 {
+			purge = fmt.Sprintf("purges %s kW", fix(b.PurgeW/1e3, 1))
+		}
+		fmt.Fprintf(w, "    %s cycles: %s %% at the burner minimum, %s %% on average; standby loss %s kW, %s kW of it over the off time; %s\n",
+			b.Name, fix(b.FiringEfficiency*100, 1), fix(b.Efficiency*100, 1), fix(b.StandbyLossW/1e3, 1), fix(b.StandbyOffW/1e3, 1), purge)
+	}
 	if !r.CanCarry {
 		fmt.Fprintf(w, "  CANNOT CARRY the demand: short by %s kg/h\n", fix(r.ShortfallKgS*kgh, 1))
+		writeShed(w, r)
 	}
 	fmt.Fprintf(w, "  margin %s: %s kg/h\n", marginLabel(r), fix(r.MarginNextKgS*kgh, 1))
+	writeContingencies(w, r)
+	if l := r.LeastFuel; l != nil {
+		switch {
+		case l.Note != "":
+			fmt.Fprintf(w, "  least-fuel sharing: %s\n", l.Note)
+		case l.SavedKgS > 0:
+			fmt.Fprintf(w, "  least-fuel sharing saves %s kg/h (%s %%) against equal sharing (%s kg/h)\n",
+				fix(l.SavedKgS*kgh, 1), fix(100*l.SavedFraction(), 2), fix(l.EqualFuelKgS*kgh, 1))
+		default:
+			fmt.Fprintf(w, "  least-fuel sharing: equal sharing is the least fuel here (%s kg/h)\n", fix(l.EqualFuelKgS*kgh, 1))
+		}
+	}
+	if r.InertGas != nil {
+		fmt.Fprintf(w, "  %s\n", plant.InertGasLine(r.InertGas))
+		fmt.Fprintf(w, "    (a planning estimate: the O2 analyser and the inert-gas system's own instructions govern)\n")
+	}
 
 	// The totals.
 	fmt.Fprintf(w, "\n")
@@ -194,7 +245,12 @@ func writeCase(w io.Writer, n, total int, c Case) {
 	if len(r.EGEs) > 0 {
 		fmt.Fprintf(tw, "  fuel saved by EGE\t%s kg/h\t%s t/day\n", fix(r.EGEFuelSavedKgS*kgh, 1), fix(r.EGEFuelSavedKgS*86.4, 3))
 	}
-	fmt.Fprintf(tw, "  CO2\t\t%s t/day\n", fix(r.CO2KgS*86.4, 2))
+	fmt.Fprintf(tw, "  CO2 by IMO C_F\t\t%s t/day for regulatory reporting\n", fix(r.CO2KgS*86.4, 2))
+	if r.CO2AnalysisUnknown {
+		fmt.Fprintf(tw, "  CO2 by analysis\t\tnot known: a fuel has no analysis\n")
+	} else {
+		fmt.Fprintf(tw, "  CO2 by analysis\t\t%s t/day from the fuel's carbon\n", fix(r.CO2AnalysisKgS*86.4, 2))
+	}
 	fmt.Fprintf(tw, "  electrical load\t%s kW\t\n", fix(r.ElectricW/1e3, 1))
 	fmt.Fprintf(tw, "  feed tank\t%s °C\t\n", fix(r.FeedTankT-273.15, 1))
 	fmt.Fprintf(tw, "  balance closure\tmass %s\tenergy %s (relative)\n", closure(r.Balance.MassRel), closure(r.Balance.EnergyRel))
@@ -209,8 +265,96 @@ func writeCase(w io.Writer, n, total int, c Case) {
 	}
 }
 
-// headerDrains sums the condensate the headers' traps drain and lose.
+// writeContingencies writes the case's N-1 lines.
+func writeContingencies(w io.Writer, r *plant.CaseResult) {
+	switch {
+	case !r.ContingenciesChecked:
+		fmt.Fprintf(w, "  N-1: not checked (the plant's n_minus_1 = false)\n")
+	case len(r.Contingencies) == 0:
+		fmt.Fprintf(w, "  N-1: no boiler fires and no economiser raises steam: nothing to lose\n")
+	default:
+		for _, c := range r.Contingencies {
+			fmt.Fprintf(w, "  N-1: %s\n", plant.ContingencyLine(c))
+		}
+		fmt.Fprintf(w, "    (planning estimates: the boiler makers' manuals and the ship's safety management system govern)\n")
+	}
+}
+
+// writeShed lists what a short case sheds: the consumers reduced, lowest
+// priority first, or that every one is reduced in proportion.
+func writeShed(w io.Writer, r *plant.CaseResult) {
+	var shed []plant.ConsumerResult
+	for _, c := range r.Consumers {
+		if c.ShedW > 0 || c.ShedKgS > 0 {
+			shed = append(shed, c)
+		}
+	}
+	if len(shed) == 0 {
+		return
+	}
+	sort.SliceStable(shed, func(i, j int) bool { return shed[i].Priority < shed[j].Priority })
+	switch {
+	case r.ShedRanks <= 1 && !r.PrioritiesGiven:
+		fmt.Fprintf(w, "  no priorities given: every consumer that may be reduced is reduced in proportion\n")
+	case r.ShedRanks <= 1:
+		fmt.Fprintf(w, "  every consumer has the same priority: each is reduced in proportion\n")
+	default:
+		fmt.Fprintf(w, "  shed by priority, lowest first:\n")
+	}
+	tw := tabwriter.NewWriter(w, 0, 8, 2, ' ', 0)
+	fmt.Fprintf(tw, "    consumer\tpriority\t%10s\t%10s\t%10s\t\n", "shed kW", "of kW", "shed kg/h")
+	for _, c := range shed {
+		fmt.Fprintf(tw, "    %s\t%s\t%10s\t%10s\t%10s\t%s\n", c.Name, priorityName(c.Priority), fix(c.ShedW/1e3, 1),
+			fix(c.RequestedW/1e3, 1), fix(c.ShedKgS*kgh, 1), coolingNote(c.Cooling))
+	}
+	tw.Flush()
+}
+
+// priorityName is a priority's level name, or its number.
+func priorityName(v float64) string {
+	if n := plant.PriorityLevelName(v); n != "" {
+		return n
+	}
+	return strconv.FormatFloat(v, 'g', 6, 64)
+}
+
+// coolingNote says what a shed tank's cargo does: "cargo cools 0.4 K/h,
+// 12.5 h to 45.0 °C".
+func coolingNote(c *plant.TankCooling) string {
+	if c == nil {
+		return ""
+	}
+	rate := c.RateKS * 3600
+	var s string
+	if rate < 0 {
+		s = "cargo cools " + fix(-rate, 2) + " K/h"
+	} else {
+		s = "cargo still warms " + fix(rate, 2) + " K/h"
+	}
+	switch {
+	case c.MinT > 0 && c.Reaches:
+		s += ", " + fix(c.SecondsToMinT/3600, 1) + " h to " + fix(c.MinT-273.15, 1) + " °C"
+	case c.MinT > 0 && rate < 0:
+		s += ", never down to " + fix(c.MinT-273.15, 1) + " °C"
+	}
+	return s
+}
+
+// headerDrains sums the condensate the headers' traps drain and lose (not
+// returned to the hotwell).
 func headerDrains(r *plant.CaseResult) float64 {
+	var m float64
+	for _, u := range r.Units {
+		if u.Kind == kindHeader {
+			m += u.Figures.Of(keyDrained) - u.Figures.Of("drains_returned_kg_s")
+		}
+	}
+	return m
+}
+
+// headerDrained sums the steam the headers' heat losses condense, which
+// their traps drain (to the hotwell or lost): a steam demand.
+func headerDrained(r *plant.CaseResult) float64 {
 	var m float64
 	for _, u := range r.Units {
 		if u.Kind == kindHeader {

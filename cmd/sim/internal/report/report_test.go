@@ -226,9 +226,10 @@ func TestCasesCoverTheStates(t *testing.T) {
 	quiet.Warnings = nil
 	quiet.Consumers = append([]plant.ConsumerResult(nil), quiet.Consumers...)
 	quiet.Consumers[0].DrainCoolerW = 12345 // W: shown as 12.3 kW
+	quiet.Consumers[0].DrainCoolerTo = "feed"
 	b.Reset()
 	must(t, Table(&b, Run{Cases: []Case{{Plant: "x", Result: &quiet}}}))
-	if !strings.Contains(b.String(), "duty; drain cooler 12.3 kW\n") {
+	if !strings.Contains(b.String(), "duty; drain cooler 12.3 kW to the feed\n") {
 		t.Errorf("the drain cooler's heat is not shown:\n%s", b.String())
 	}
 	if !strings.Contains(b.String(), "\n  warnings: none\n") {
@@ -568,6 +569,34 @@ func TestEGETable(t *testing.T) {
 		if !strings.Contains(out, s) {
 			t.Errorf("the table does not say %q", s)
 		}
+	}
+}
+
+// TestRunRecord: the table ends with the run's record and the JSON holds
+// it: the program's version, the files read with their SHA-256, the
+// scripts' seed and the defaults in force with their sources.
+func TestRunRecord(t *testing.T) {
+	t.Parallel()
+	run := Run{Cases: demoCases(t)[:1], Version: "1.2.3", LuaSeed: 42,
+		Files: []File{{Name: "ship.lua", Bytes: 10, SHA256: strings.Repeat("ab", 32)}},
+		Assumptions: []Assumption{{Plant: "Invented Test Tanker", Assumption: plant.Assumption{Unit: "fp", Kind: "feed pump",
+			Key: "eta", Label: "pump efficiency", Value: "45 %", Source: "plant-checks.md §9 [M]"}},
+			{Plant: "Invented Test Tanker", Assumption: plant.Assumption{Unit: "AB1", Kind: "oil-fired boiler",
+				Key: "cycling_loss", Label: "cycling loss", Value: "0 %"}}}}
+	var b bytes.Buffer
+	must(t, Table(&b, run))
+	for _, s := range []string{"Run record\n  program: steamcase 1.2.3\n  files read (SHA-256):\n    ship.lua  10 bytes  " + strings.Repeat("ab", 32),
+		"scripts' math.random seed: 42", `    plant "Invented Test Tanker":`,
+		"      fp.eta (feed pump) pump efficiency: 45 %; plant-checks.md §9 [M]",
+		"      AB1.cycling_loss (oil-fired boiler) cycling loss: 0 %; no source recorded in the key registry\n\n" + Caution} {
+		if !strings.Contains(b.String(), s) {
+			t.Errorf("the table does not say %q", s)
+		}
+	}
+	doc := Document(run)
+	if doc.Version != "1.2.3" || doc.LuaSeed != 42 || len(doc.FilesRead) != 1 || doc.FilesRead[0].SHA256 != strings.Repeat("ab", 32) ||
+		len(doc.Assumptions) != 2 || doc.Assumptions[0].Source != "plant-checks.md §9 [M]" || doc.Assumptions[1].Source != "" {
+		t.Errorf("document record: %+v %+v %+v", doc.Version, doc.FilesRead, doc.Assumptions)
 	}
 }
 
