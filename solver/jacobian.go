@@ -29,7 +29,7 @@ type coloring struct {
 // of r columns); ties go to the lower column.
 //
 // The colours a column must avoid are those of the columns it shares a
-// row with. For a row of at most denseLimit(n) entries they are read
+// row with. For a row of at most max(16, 3·√n) entries they are read
 // from its columns; a longer row keeps the set of colours its columns
 // have taken as a bit set, with the first word not yet full, so that a
 // column in such rows looks at words, and starts at the first word that
@@ -94,7 +94,7 @@ func colorColumns(pattern [][]int, n int) *coloring {
 	}
 	sort.SliceStable(order, func(a, b int) bool { return score[order[a]] > score[order[b]] })
 
-	limit := denseLimit(n)
+	limit := sqrtLimit(n, 3)
 	long := make([]int, len(pattern)) // 1 + the index of row i's bit set, 0 for a short row
 	var used [][]uint64               // colours taken in each long row
 	var full []int                    // the first word of each long row's set that is not full

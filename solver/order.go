@@ -2,17 +2,24 @@ package solver
 
 import "math"
 
-// denseLimit is the number of entries above which minDegreeOrder leaves a
-// row or a column of a matrix of order n out of its graph:
-// max(16, 3·√n). COLAMD's default is 10·√n (Davis, Gilbert, Larimore and
-// Ng, ACM TOMS 30(3), 2004, from memory); 3·√n was chosen by measurement
-// on the plant-like pattern of star_test.go, whose header columns (a
-// boiler's steam line, in one row per consumer: about n/6 entries) are
-// below 10·√n up to order 3600 and then cost O(n) each in every
-// elimination that touches them (11 ms for the order at order 2000
-// against 0.6 ms), while the fill of L and U on the solver's test systems
-// was the same with either limit (TestOrderFill).
-func denseLimit(n int) int { return max(16, int(3*math.Sqrt(float64(n)))) }
+// sqrtLimit is max(16, c·√n), the form of COLAMD's limits for dense
+// rows and columns (Davis, Gilbert, Larimore and Ng, ACM TOMS 30(3),
+// 2004, from memory: 10·√n).
+func sqrtLimit(n int, c float64) int { return max(16, int(c*math.Sqrt(float64(n)))) }
+
+// denseRowLimit and denseColumnLimit are the entries above which
+// minDegreeOrder leaves a row or a column of a matrix of order n out of
+// its graph. The row limit is COLAMD's 10·√n. The column limit is
+// 3·√n, found by measurement on the plant-like pattern of star_test.go:
+// its hub columns (the boilers' steam lines and the shedding level, with
+// an entry in every consumer's row: about n/6 entries) are below 10·√n
+// up to order 3600; kept in the graph they cost O(n) in every
+// elimination that touches them, and the order placed them early, where
+// partial pivoting made the steam header's mass balance, a row of n/6
+// entries, an early pivot: 775,000 entries in L and U at order 2000
+// against 18,300 with the hubs left out (TestOrderFill's systems).
+func denseRowLimit(n int) int    { return sqrtLimit(n, 10) }
+func denseColumnLimit(n int) int { return sqrtLimit(n, 3) }
 
 // minDegreeOrder returns a fill-reducing column order for a matrix A of
 // order n whose structure is given in compressed columns (column j has
@@ -53,25 +60,23 @@ func denseLimit(n int) int { return max(16, int(3*math.Sqrt(float64(n)))) }
 //     elimination), one after the other in the order they were merged.
 //     New ones are looked for among the columns of each new element, by
 //     a hash of their element lists.
-//   - Dense rows and columns: a column with more than denseLimit(n)
-//     entries, or a row with more than that many entries in the other
-//     columns, is left out of the graph (a row of r entries is a clique of
-//     r columns; a column in r rows is in up to r elements, and each
-//     elimination that touches it scans them). The dense columns come
-//     last in the order, by ascending index. A dense row still weighs:
-//     each of its columns carries the row's length less one as a fixed
-//     addition to its degree (its share of the row's clique, which never
-//     shrinks while the row is out of the graph), and columns merge into
-//     a supervariable only if they are in the same dense rows. Without
-//     that, partial pivoting takes the dense rows as pivots early (at
-//     columns that hold few other rows, which the order puts first) and
-//     carries the rows of those columns into every later column of the
-//     dense row: on the plant-like pattern of order 2000, 138,000 entries
-//     in L and U instead of 16,600 (TestOrderFill).
+//   - Dense rows and columns, in the manner of COLAMD: a column with more
+//     than denseColumnLimit(n) entries, and a row with more than
+//     denseRowLimit(n) entries in the other columns, are left out of the
+//     graph (a row of r entries is a clique of r columns; a column in r
+//     rows is in up to r elements, and each elimination that touches it
+//     scans them). The dense columns come last in the order, and after
+//     them the columns that have entries only in dense rows (so that
+//     partial pivoting does not take a dense row as an early pivot for
+//     want of any other row), each group by ascending index.
 //
-// The next column is the one of least approximate degree (with the dense
-// rows' addition), the lowest index among equals, so the order is a
-// function of the structure alone.
+// With rows of at most denseRowLimit(n) entries kept, an elimination
+// costs at most O(denseRowLimit(n)) per column of its element, so the
+// worst case is O(√n) per entry of the fill; on the plant-like pattern
+// the time is linear in the order (BenchmarkSymbolic).
+//
+// The next column is the one of least approximate degree, the lowest
+// index among equals, so the order is a function of the structure alone.
 //
 // fill is the number of entries below the diagonal of the Cholesky
 // factor of AᵀA in the order, which bounds those of L and of U, and
@@ -81,7 +86,7 @@ func denseLimit(n int) int { return max(16, int(3*math.Sqrt(float64(n)))) }
 // columns left out fill is 0 and exact false: the graph was not that of
 // AᵀA.
 func minDegreeOrder(n int, pp, pr []int) (order []int, fill int, exact bool) {
-	g := newQuotientGraph(n, pp, pr, denseLimit(n))
+	g := newQuotientGraph(n, pp, pr, denseRowLimit(n), denseColumnLimit(n))
 	order = g.eliminate()
 	if g.dense {
 		return order, 0, false
@@ -136,23 +141,21 @@ type quotientGraph struct {
 	dense    bool // a row or column was left out
 	h        *degreeHeap
 	deg      []int // approximate external degree of each principal column
-	penalty  []int // the lengths less one of the dense rows of each column
-	dsig     []int // a signature of the dense rows of each column
-	denseCol []int
+	denseCol []int // the dense columns, then the null ones: the end of the order
 }
 
 // newQuotientGraph builds the quotient graph of the matrix of order n in
-// compressed columns pp, pr, leaving out the rows and columns of more
-// than limit entries.
-func newQuotientGraph(n int, pp, pr []int, limit int) *quotientGraph {
+// compressed columns pp, pr, leaving out the rows of more than rowLimit
+// entries (in the other columns) and the columns of more than colLimit.
+func newQuotientGraph(n int, pp, pr []int, rowLimit, colLimit int) *quotientGraph {
 	if n >= maxGraphOrder {
 		panic("solver: minimum degree order of a matrix of order " + itoa(n) + ", above the limit " + itoa(maxGraphOrder))
 	}
 	g := &quotientGraph{n: n}
 	g.state = make([]int8, n)
-	rowCount := make([]int32, n) // of each row, in the columns not dense; −1 for a dense row
+	rowCount := make([]int32, n) // entries of each row in the columns not dense
 	for j := 0; j < n; j++ {
-		if pp[j+1]-pp[j] > limit {
+		if pp[j+1]-pp[j] > colLimit {
 			g.state[j] = qDense
 			g.denseCol = append(g.denseCol, j)
 			g.dense = true
@@ -163,10 +166,8 @@ func newQuotientGraph(n int, pp, pr []int, limit int) *quotientGraph {
 		}
 	}
 	entries := 0
-	g.penalty = make([]int, n)
-	g.dsig = make([]int, n)
 	for _, c := range rowCount {
-		if int(c) > limit {
+		if int(c) > rowLimit {
 			g.dense = true
 		} else {
 			entries += int(c)
@@ -176,8 +177,8 @@ func newQuotientGraph(n int, pp, pr []int, limit int) *quotientGraph {
 	g.iw = make([]int32, 2*entries+2*n)
 	g.start = make([]int32, nodes)
 	g.size = make([]int32, nodes)
-	// The columns' lists: their rows that are not dense (as elements);
-	// a dense row adds its length less one to the penalty of each.
+	// The columns' lists: their rows that are not dense (as elements).
+	var null []int // columns with entries only in dense rows
 	for j := 0; j < n; j++ {
 		g.start[j] = g.tail
 		if g.state[j] == qDense {
@@ -185,22 +186,24 @@ func newQuotientGraph(n int, pp, pr []int, limit int) *quotientGraph {
 		}
 		for p := pp[j]; p < pp[j+1]; p++ {
 			r := pr[p]
-			if c := int(rowCount[r]); c <= limit {
+			if int(rowCount[r]) <= rowLimit {
 				g.iw[g.tail] = int32(r)
 				g.tail++
-			} else {
-				g.penalty[j] += c - 1
-				g.dsig[j] += int(uint64(r+1) * 0x9e3779b97f4a7c15 >> 4)
 			}
 		}
 		g.size[j] = g.tail - g.start[j]
+		if g.size[j] == 0 && pp[j+1] > pp[j] {
+			g.state[j] = qDense // ordered last, as the dense columns
+			null = append(null, j)
+		}
 	}
+	g.denseCol = append(g.denseCol, null...)
 	// The rows' lists: their columns that are not dense.
 	g.dead = make([]bool, 2*n)
 	for i, c := range rowCount {
 		e := n + i
 		g.start[e] = g.tail
-		if c == 0 || int(c) > limit {
+		if c == 0 || int(c) > rowLimit {
 			g.dead[i] = true // an empty row or a dense one: no element
 			continue
 		}
@@ -258,7 +261,7 @@ func newQuotientGraph(n int, pp, pr []int, limit int) *quotientGraph {
 			d += int(g.esize[e] - g.nv[j])
 		}
 		g.deg[j] = min(d, g.left-int(g.nv[j]))
-		g.h.push(int(j), g.deg[j]+g.penalty[j])
+		g.h.push(int(j), g.deg[j])
 	}
 	return g
 }
@@ -290,8 +293,8 @@ func (g *quotientGraph) nextETag() int32 {
 }
 
 // mergeIndistinguishable merges, among the live columns cols (whose
-// hashes are set), those whose element lists are the same set and that
-// are in the same dense rows: the later ones in cols into the first.
+// hashes are set), those whose element lists are the same set: the later
+// ones in cols into the first.
 func (g *quotientGraph) mergeIndistinguishable(cols []int32) {
 	for k := len(cols) - 1; k >= 0; k-- { // chains in the order of cols
 		j := cols[k]
@@ -320,8 +323,7 @@ func (g *quotientGraph) mergeIndistinguishable(cols []int32) {
 				g.emark[e] = tag
 			}
 			for c := g.hnext[a]; c >= 0; c = g.hnext[c] {
-				if g.state[c] != qLive || int(g.size[c]) != len(la) || g.hash[c] != g.hash[a] ||
-					g.penalty[c] != g.penalty[a] || g.dsig[c] != g.dsig[a] {
+				if g.state[c] != qLive || int(g.size[c]) != len(la) || g.hash[c] != g.hash[a] {
 					continue
 				}
 				same := true
@@ -481,7 +483,7 @@ func (g *quotientGraph) pivot(p int) {
 		}
 		d = min(d, g.deg[i]+ext, g.left-int(g.nv[i]))
 		g.deg[i] = d
-		g.h.update(int(i), d+g.penalty[i])
+		g.h.update(int(i), d)
 	}
 	if !keep {
 		g.tail = lp0

@@ -4,6 +4,7 @@ import (
 	"math"
 	"math/bits"
 	"math/rand/v2"
+	"runtime"
 	"slices"
 	"strconv"
 	"strings"
@@ -224,7 +225,7 @@ func TestQuotientGraphExact(t *testing.T) {
 		n := len(pattern)
 		var lu SparseLU
 		lu.SetPattern(n, pattern) // natural order: pp, pr are A's columns
-		g := newQuotientGraph(n, lu.pp, lu.pr, n)
+		g := newQuotientGraph(n, lu.pp, lu.pr, n, n)
 		q := g.eliminate()
 		seen := make([]bool, n)
 		for _, j := range q {
@@ -240,7 +241,7 @@ func TestQuotientGraphExact(t *testing.T) {
 		if g.fill != want {
 			t.Errorf("pattern %d (order %d): fill count %d, want %d (explicit elimination in the same order)", k, n, g.fill, want)
 		}
-		tight := newQuotientGraph(n, lu.pp, lu.pr, n)
+		tight := newQuotientGraph(n, lu.pp, lu.pr, n, n)
 		tight.iw = tight.iw[:tight.tail:tight.tail]
 		if q2 := tight.eliminate(); !slices.Equal(q2, q) || tight.fill != g.fill {
 			t.Errorf("pattern %d: without elbow room the order or fill differs (%d against %d)", k, tight.fill, g.fill)
@@ -338,4 +339,40 @@ func TestFillGrowth(t *testing.T) {
 		t.Errorf("L and U reallocated %d times, want at most 4", lu.grows)
 	}
 	t.Logf("L %d of %d, U %d of %d, %d reallocations", len(lu.lrow), cap(lu.lrow), len(lu.ui), cap(lu.ui), lu.grows)
+}
+
+// TestWarmNetworkNoAllocs: on the pipe network of order 1976 with
+// SparseLU in the minimum degree order, once the first solve is done the
+// solves of the drifting hours allocate nothing, even where a later
+// factorisation's pivots give L more entries than the first's
+// (constructed check, no source; BenchmarkRepeatedSolve reports B/op).
+func TestWarmNetworkNoAllocs(t *testing.T) {
+	nt := newNetwork(26, 26, 3)
+	sv, err := New(nt.problem(true, false), &Settings{Factorizer: &SparseLU{MinDegree: true}, NoReuse: true})
+	if err != nil {
+		t.Fatal(err)
+	}
+	x := append([]float64(nil), nt.x0...)
+	nt.setLoad(0)
+	res, err := sv.Solve(t.Context(), x)
+	if err != nil {
+		t.Fatal(err)
+	}
+	copy(x, res.X)
+	// Counted over all the solves (testing.AllocsPerRun would round one
+	// allocation in 60 solves down to none).
+	var before, after runtime.MemStats
+	runtime.ReadMemStats(&before)
+	for k := 1; k <= 60; k++ {
+		nt.setLoad(k)
+		res, err := sv.Solve(t.Context(), x)
+		if err != nil {
+			t.Fatal(err)
+		}
+		copy(x, res.X)
+	}
+	runtime.ReadMemStats(&after)
+	if n := after.Mallocs - before.Mallocs; n != 0 {
+		t.Errorf("%d allocations (%d bytes) in 60 warm solves, want none", n, after.TotalAlloc-before.TotalAlloc)
+	}
 }

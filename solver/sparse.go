@@ -663,7 +663,9 @@ func (s *SparseLU) general(k0 int, keep bool, tol float64) error {
 	// All of L, since the rows of the earlier columns are pivoted at
 	// later steps, which may have changed.
 	if cap(s.li) < len(s.lrow) {
-		s.li = make([]int, len(s.lrow))
+		// As large as L's storage, so that a later factorisation with
+		// more entries in L does not reallocate it.
+		s.li = make([]int, len(s.lrow), cap(s.lrow))
 	}
 	s.li = s.li[:len(s.lrow)]
 	for p, i := range s.lrow {
