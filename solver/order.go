@@ -9,16 +9,16 @@ func sqrtLimit(n int, c float64) int { return max(16, int(c*math.Sqrt(float64(n)
 
 // denseRowLimit and denseColumnLimit are the entries above which
 // minDegreeOrder leaves a row or a column of a matrix of order n out of
-// its graph. The row limit is COLAMD's 10·√n. The column limit is
-// 3·√n, found by measurement on the plant-like pattern of star_test.go:
-// its hub columns (the boilers' steam lines and the shedding level, with
-// an entry in every consumer's row: about n/6 entries) are below 10·√n
-// up to order 3600; kept in the graph they cost O(n) in every
-// elimination that touches them, and the order placed them early, where
-// partial pivoting made the steam header's mass balance, a row of n/6
-// entries, an early pivot: 775,000 entries in L and U at order 2000
-// against 18,300 with the hubs left out (TestOrderFill's systems).
-func denseRowLimit(n int) int    { return sqrtLimit(n, 10) }
+// its graph: 5·√n and 3·√n, where COLAMD's limit is 10·√n. Both were
+// found by measurement on the plant-like pattern of star_test.go and on
+// plants' Jacobians (see minDegreeOrder). At 10·√n the steam header's
+// mass balance (a row of about n/6 entries) and the hub columns (the
+// boilers' steam lines and the shedding level, an entry in every
+// consumer's row, about n/6 each) are kept up to order 3600: the
+// eliminations along such a row cost O(r²) (13 ms for the order of the
+// star at order 2000 against 0.5 ms), and kept hubs were ordered early,
+// where partial pivoting made the header's mass balance an early pivot.
+func denseRowLimit(n int) int    { return sqrtLimit(n, 5) }
 func denseColumnLimit(n int) int { return sqrtLimit(n, 3) }
 
 // minDegreeOrder returns a fill-reducing column order for a matrix A of
@@ -65,18 +65,41 @@ func denseColumnLimit(n int) int { return sqrtLimit(n, 3) }
 //     denseRowLimit(n) entries in the other columns, are left out of the
 //     graph (a row of r entries is a clique of r columns; a column in r
 //     rows is in up to r elements, and each elimination that touches it
-//     scans them). The dense columns come last in the order, and after
-//     them the columns that have entries only in dense rows (so that
-//     partial pivoting does not take a dense row as an early pivot for
-//     want of any other row), each group by ascending index.
+//     scans them). The dense columns come last in the order, by
+//     ascending index. A dense row still weighs: each of its columns
+//     carries the row's length less one as a fixed addition to its
+//     degree (its share of the row's clique, which never shrinks while
+//     the row is out of the graph), and columns merge into a
+//     supervariable only if they are in the same dense rows. Without it
+//     the columns of a dense row that hold few other rows come first, and
+//     partial pivoting takes the dense row as their pivot and carries it
+//     into every later column of the row.
+//
+// The limits and the addition were chosen by measurement on the
+// Jacobians of two plants, the entries of L and U and the share of the
+// columns whose reach a factorisation must search again over a sequence
+// of cases (the plant's scaledPlant of 2 boilers and 320 consumers,
+// order 1946, 40 factorisations of warm cases; the demo tanker, order
+// 135, 400 factorisations over a year; dumped for the measurement, not
+// kept): with this rule 19,000 entries and 0.01 % re-searched, and
+// 1,466 entries and 8 %; with COLAMD's ordering of the columns that lie
+// only in dense rows last, 20,000 and 2 % on the first; without the
+// degree addition, 334,000; with rows above 3·√n left out, the tanker's
+// hotwell and pump rows (52–56 entries) leave 2,655 entries and 22 %
+// re-searched; with hub columns up to 10·√n kept, 480,000 entries and
+// 96 % re-searched on the first; rows up to 10·√n kept gave the same
+// factors as 5·√n on both plants, at the cost above. (The order before
+// this one, exact minimum degree on the explicit graph: 757,000 entries
+// and 96 %; 2,838 and 8 %.)
 //
 // With rows of at most denseRowLimit(n) entries kept, an elimination
 // costs at most O(denseRowLimit(n)) per column of its element, so the
 // worst case is O(√n) per entry of the fill; on the plant-like pattern
 // the time is linear in the order (BenchmarkSymbolic).
 //
-// The next column is the one of least approximate degree, the lowest
-// index among equals, so the order is a function of the structure alone.
+// The next column is the one of least approximate degree (with the dense
+// rows' addition), the lowest index among equals, so the order is a
+// function of the structure alone.
 //
 // fill is the number of entries below the diagonal of the Cholesky
 // factor of AᵀA in the order, which bounds those of L and of U, and
@@ -141,7 +164,9 @@ type quotientGraph struct {
 	dense    bool // a row or column was left out
 	h        *degreeHeap
 	deg      []int // approximate external degree of each principal column
-	denseCol []int // the dense columns, then the null ones: the end of the order
+	denseCol []int // the dense columns: the end of the order
+	penalty  []int // the lengths less one of the dense rows of each column
+	dsig     []int // a signature of the set of dense rows of each column
 }
 
 // newQuotientGraph builds the quotient graph of the matrix of order n in
@@ -177,8 +202,10 @@ func newQuotientGraph(n int, pp, pr []int, rowLimit, colLimit int) *quotientGrap
 	g.iw = make([]int32, 2*entries+2*n)
 	g.start = make([]int32, nodes)
 	g.size = make([]int32, nodes)
-	// The columns' lists: their rows that are not dense (as elements).
-	var null []int // columns with entries only in dense rows
+	// The columns' lists: their rows that are not dense (as elements);
+	// a dense row adds its length less one to the degree of each.
+	g.penalty = make([]int, n)
+	g.dsig = make([]int, n)
 	for j := 0; j < n; j++ {
 		g.start[j] = g.tail
 		if g.state[j] == qDense {
@@ -186,18 +213,16 @@ func newQuotientGraph(n int, pp, pr []int, rowLimit, colLimit int) *quotientGrap
 		}
 		for p := pp[j]; p < pp[j+1]; p++ {
 			r := pr[p]
-			if int(rowCount[r]) <= rowLimit {
+			if c := int(rowCount[r]); c <= rowLimit {
 				g.iw[g.tail] = int32(r)
 				g.tail++
+			} else {
+				g.penalty[j] += c - 1
+				g.dsig[j] += int(uint64(r+1) * 0x9e3779b97f4a7c15 >> 4)
 			}
 		}
 		g.size[j] = g.tail - g.start[j]
-		if g.size[j] == 0 && pp[j+1] > pp[j] {
-			g.state[j] = qDense // ordered last, as the dense columns
-			null = append(null, j)
-		}
 	}
-	g.denseCol = append(g.denseCol, null...)
 	// The rows' lists: their columns that are not dense.
 	g.dead = make([]bool, 2*n)
 	for i, c := range rowCount {
@@ -261,7 +286,7 @@ func newQuotientGraph(n int, pp, pr []int, rowLimit, colLimit int) *quotientGrap
 			d += int(g.esize[e] - g.nv[j])
 		}
 		g.deg[j] = min(d, g.left-int(g.nv[j]))
-		g.h.push(int(j), g.deg[j])
+		g.h.push(int(j), g.deg[j]+g.penalty[j])
 	}
 	return g
 }
@@ -293,8 +318,8 @@ func (g *quotientGraph) nextETag() int32 {
 }
 
 // mergeIndistinguishable merges, among the live columns cols (whose
-// hashes are set), those whose element lists are the same set: the later
-// ones in cols into the first.
+// hashes are set), those whose element lists are the same set and that
+// are in the same dense rows: the later ones in cols into the first.
 func (g *quotientGraph) mergeIndistinguishable(cols []int32) {
 	for k := len(cols) - 1; k >= 0; k-- { // chains in the order of cols
 		j := cols[k]
@@ -323,7 +348,8 @@ func (g *quotientGraph) mergeIndistinguishable(cols []int32) {
 				g.emark[e] = tag
 			}
 			for c := g.hnext[a]; c >= 0; c = g.hnext[c] {
-				if g.state[c] != qLive || int(g.size[c]) != len(la) || g.hash[c] != g.hash[a] {
+				if g.state[c] != qLive || int(g.size[c]) != len(la) || g.hash[c] != g.hash[a] ||
+					g.penalty[c] != g.penalty[a] || g.dsig[c] != g.dsig[a] {
 					continue
 				}
 				same := true
@@ -483,7 +509,7 @@ func (g *quotientGraph) pivot(p int) {
 		}
 		d = min(d, g.deg[i]+ext, g.left-int(g.nv[i]))
 		g.deg[i] = d
-		g.h.update(int(i), d)
+		g.h.update(int(i), d+g.penalty[i])
 	}
 	if !keep {
 		g.tail = lp0
