@@ -500,10 +500,12 @@ func (u *Turbine) report(ev *eval, cr *CaseResult) error {
 	drop := ev.h(u.in) - ev.h(u.out)
 	shaft := m * drop * u.etaMech()
 	rate, etaIs := 0.0, 0.0
-	if shaft > 0 {
+	// An idle turbine's flow is solver noise (below FlowFloor): its steam
+	// rate and efficiency, ratios of two noise figures, are not reported.
+	if shaft > 0 && m > FlowFloor {
 		rate = m / shaft * 3.6e6 // kg/kWh
 	}
-	if dhs > 0 && m > 0 {
+	if dhs > 0 && m > FlowFloor {
 		etaIs = drop / dhs
 	}
 	if u.form() != turbineIsentropic && etaIs > 1+1e-9 {
