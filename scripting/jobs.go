@@ -27,8 +27,9 @@ type VoyageRecord struct {
 	// Rows are where each row was given: the CSV file and line, or the
 	// voyage() call for rows given as tables.
 	Rows []Pos
-	// Result holds every row's case result and the totals; nil in check
-	// mode.
+	// Result holds every row's summary and the totals, and every row's
+	// full case result when the voyage kept its rows in full (keep =
+	// "full", Options.FullRows); nil in check mode.
 	Result *profile.Result
 }
 
@@ -623,8 +624,10 @@ func (r *runner) jobErr(pos Pos, what string, err error) {
 // luaVoyage is voyage(plant, { name, rows or csv, tanks }).
 func (r *runner) luaVoyage(L *lua.LState) int {
 	var specs []tankSpec
+	var full bool
 	ph, a, name, rows := r.jobStart("voyage", rowSpec{job: "voyage"}, func(a *args) {
 		specs = r.stateTanks(r.checkPlant(1), a, false, false)
+		full = r.keepFull(a)
 	})
 	rec := VoyageRecord{Name: name, Plant: ph.p.Name, Pos: a.pos, Rows: rows.pos}
 	if r.opt.CheckOnly {
@@ -639,7 +642,7 @@ func (r *runner) luaVoyage(L *lua.LState) int {
 	err := r.inJob(a.what, a.pos, 2*len(rows.rows), func(ctx context.Context) error {
 		var err error
 		res, err = profile.Run(ctx, ph.p, rows.rows, profile.Options{Workers: r.opt.Workers, Progress: r.progress(a.what),
-			Tanks: tankStarts(specs, a.pos)})
+			Tanks: tankStarts(specs, a.pos), KeepResults: full})
 		return err
 	})
 	if err != nil {
@@ -655,7 +658,9 @@ func (r *runner) luaVoyage(L *lua.LState) int {
 // installed_cost, currency, carbon_price, life, discount_rate, sweep }).
 func (r *runner) luaStudy(L *lua.LState) int {
 	var spec profile.StudySpec
+	var full bool
 	ph, a, name, rows := r.jobStart("study", rowSpec{job: "study"}, func(a *args) {
+		full = r.keepFull(a)
 		ph0 := r.checkPlant(1)
 		spec.Variants = r.studyVariants(ph0, a)
 		spec.Economics = r.studyEconomics(a)
@@ -693,7 +698,8 @@ func (r *runner) luaStudy(L *lua.LState) int {
 	var res *profile.StudyResult
 	err := r.inJob(a.what, a.pos, 2*runs*len(rows.rows), func(ctx context.Context) error {
 		var err error
-		res, err = profile.RunStudy(ctx, ph.p, rows.rows, spec, profile.Options{Workers: r.opt.Workers, Progress: r.progress(a.what)})
+		res, err = profile.RunStudy(ctx, ph.p, rows.rows, spec, profile.Options{Workers: r.opt.Workers, Progress: r.progress(a.what),
+			KeepResults: full})
 		return err
 	})
 	if err != nil {
@@ -703,6 +709,23 @@ func (r *runner) luaStudy(L *lua.LState) int {
 	r.out.Studies = append(r.out.Studies, rec)
 	L.Push(r.studyTable(job, res))
 	return 1
+}
+
+// keepFull reads a voyage's or a study's keep: "summary" keeps each row's
+// summary (what the reports read), "full" each row's case result as well;
+// without the key, Options.FullRows decides.
+func (r *runner) keepFull(a *args) bool {
+	switch v := a.get("keep"); v {
+	case lua.LNil:
+		return r.opt.FullRows
+	case lua.LString("summary"):
+		return false
+	case lua.LString("full"):
+		return true
+	default:
+		a.errorf(nil, "keep must be \"summary\" (each row's figures, the default) or \"full\" (each row's case result as well, under result); got %s", describe(v))
+		return r.opt.FullRows
+	}
 }
 
 // studyVariants reads variants = { { name, set, installed_cost }, ... }.
