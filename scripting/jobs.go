@@ -632,7 +632,7 @@ func (r *runner) luaVoyage(L *lua.LState) int {
 	rec := VoyageRecord{Name: name, Plant: ph.p.Name, Pos: a.pos, Rows: rows.pos}
 	if r.opt.CheckOnly {
 		r.out.Voyages = append(r.out.Voyages, rec)
-		o := r.profileTable(rec.job(), placeholderResult(rows.rows))
+		o := r.profileTable(rec.job(), placeholderResult(rows.rows, outlines(ph.p, full)))
 		r.placeholderTanks(o, specs)
 		L.Push(o)
 		return 1
@@ -673,18 +673,19 @@ func (r *runner) luaStudy(L *lua.LState) int {
 	job := schema.Job{Name: name, Plant: ph.p.Name, Source: a.pos.String(), RowSources: posStrings(rows.pos)}
 	if r.opt.CheckOnly {
 		res := &profile.StudyResult{Economics: econ, HasNPV: econ.LifeYears > 0}
-		empty := placeholderResult(rows.rows)
+		empty := placeholderResult(rows.rows, outlines(ph.p, full))
 		// The same shape as a solved study, with zero figures: every
 		// variant but the base has a payback and the first size is the
 		// best, so that a script's arithmetic on them runs.
 		for i, v := range variants {
 			res.Variants = append(res.Variants, profile.VariantResult{Name: v.Name, Totals: empty.Total,
-				Money: profile.Money{HasPayback: i > 0}})
+				Money: profile.Money{HasPayback: i > 0}, Rows: keptRows(empty.Rows, full)})
 		}
 		if sw := spec.Sweep; sw != nil {
 			res.Sweep = &profile.SweepResult{Unit: sw.Unit, Param: sw.Param, Cost: sw.Cost}
 			for _, x := range sw.Values {
-				res.Sweep.Points = append(res.Sweep.Points, profile.SweepPoint{Value: x, Totals: empty.Total, Money: profile.Money{HasPayback: true}})
+				res.Sweep.Points = append(res.Sweep.Points, profile.SweepPoint{Value: x, Totals: empty.Total, Money: profile.Money{HasPayback: true},
+					Rows: keptRows(empty.Rows, full)})
 			}
 		}
 		r.out.Studies = append(r.out.Studies, rec)
@@ -1010,14 +1011,42 @@ func (r *runner) studyTable(job schema.Job, res *profile.StudyResult) lua.LValue
 	return o
 }
 
+// outlines returns, for a job that keeps its rows in full, the outline of
+// a row's case on p (check mode's stand-in for its case result); nil
+// otherwise.
+func outlines(p *plant.Plant, full bool) func(profile.Row) *plant.CaseResult {
+	if !full {
+		return nil
+	}
+	return func(row profile.Row) *plant.CaseResult {
+		cr := p.Outline(row.Case.Name, row.Case.Conditions)
+		cr.Pos, cr.Series = row.Case.Pos, row.Case.Series
+		return cr
+	}
+}
+
+// keptRows is rows if full, else nil.
+func keptRows(rows []profile.RowResult, full bool) []profile.RowResult {
+	if full {
+		return rows
+	}
+	return nil
+}
+
 // placeholderResult is a voyage's result in check mode: the rows, phases
-// and hours, zero figures.
-func placeholderResult(rows []profile.Row) *profile.Result {
+// and hours, zero figures; each row with its case's outline as its result
+// when outline is not nil (a job that keeps its rows in full), so that
+// the result has the shape of a solved one.
+func placeholderResult(rows []profile.Row, outline func(profile.Row) *plant.CaseResult) *profile.Result {
 	zero := func() profile.Totals { return profile.Totals{PeakRow: -1, TightestRow: -1} }
-	out := &profile.Result{Total: zero()}
+	out := &profile.Result{Total: zero(), Rows: make([]profile.RowResult, 0, len(rows))}
 	byPhase := map[string]int{}
 	for i, row := range rows {
-		out.Rows = append(out.Rows, profile.RowResult{Index: i, Phase: row.Phase, Hours: row.Hours})
+		rr := profile.RowResult{Index: i, Phase: row.Phase, Hours: row.Hours}
+		if outline != nil {
+			rr.Result = outline(row)
+		}
+		out.Rows = append(out.Rows, rr)
 		k, ok := byPhase[row.Phase]
 		if !ok {
 			k = len(out.Phases)

@@ -120,3 +120,28 @@ voyage(ship, { name = "j", keep = "all", rows = { { phase = "p", hours = 1 } } }
 		}
 	}
 }
+
+// TestKeepRowsCheckMode: in check mode a job kept in full has the shape
+// of a solved one, each row's result its case's outline, so that a
+// script reading it runs (indexing a missing table would raise an error).
+func TestKeepRowsCheckMode(t *testing.T) {
+	t.Parallel()
+	plantSrc, err := os.ReadFile(filepath.Join("testdata", "good", "jobs_plant.lua"))
+	if err != nil {
+		t.Fatal(err)
+	}
+	fsys := fstest.MapFS{"jobs_plant.lua": {Data: plantSrc}}
+	src := strings.NewReplacer("KEEP", `, keep = "full"`, "FULL", "true").Replace(keepSrc) + `
+local x = v.rows[2].result.boilers[1].load_fraction + s.variants[2].rows[1].result.fuel_kg_h
+`
+	if _, err := RunSource(context.Background(), "keep.lua", []byte(src), fsys, Options{CheckOnly: true, Timeout: time.Minute}); err != nil {
+		t.Fatal(err)
+	}
+	// Kept as summaries, the same read is an error: result is nil.
+	src = strings.NewReplacer("KEEP", "", "FULL", "false").Replace(keepSrc) + `
+local x = v.rows[2].result.boilers[1].load_fraction
+`
+	if _, err := RunSource(context.Background(), "keep.lua", []byte(src), fsys, Options{CheckOnly: true, Timeout: time.Minute}); err == nil {
+		t.Errorf("check mode: a summary row has a result")
+	}
+}
