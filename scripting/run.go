@@ -11,6 +11,7 @@ import (
 	"os"
 	"path"
 	"path/filepath"
+	"reflect"
 	"regexp"
 	"runtime/metrics"
 	"strconv"
@@ -299,6 +300,9 @@ type runner struct {
 	nCases    int
 	nJobs     int
 	errMT     *lua.LTable
+	// fields caches the struct fields of the schema's types as their Lua
+	// tables take them (fieldsOf).
+	fields map[reflect.Type][]luaField
 }
 
 // Errors used as context causes.
