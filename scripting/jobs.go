@@ -761,8 +761,9 @@ func (r *runner) studyVariants(ph *plantHandle, a *args) []profile.Variant {
 		}
 		x := profile.Variant{Name: vn, Set: set}
 		if c, ok := va.number("installed_cost"); ok {
-			if c < 0 {
-				va.errorf(nil, "installed_cost must not be negative; got %g", c)
+			if !moneyIn(c, maxCost) {
+				va.errorf(nil, "installed_cost must lie between 0 and %g (in any currency); got %g", maxCost, c)
+				c = 0
 			}
 			x.InstalledCost, x.HasCost = c, true
 		}
@@ -773,20 +774,33 @@ func (r *runner) studyVariants(ph *plantHandle, a *args) []profile.Variant {
 	return variants
 }
 
+// maxPrice and maxCost bound a study's prices (a tonne of fuel or of CO2)
+// and costs, in any currency: far above any real one (a tonne of fuel
+// costs under 10^8 in the currency with the most units to a dollar), so
+// that a study's money figures stay finite.
+const (
+	maxPrice = 1e9
+	maxCost  = 1e13
+)
+
+// moneyIn reports whether v is a sum of money from 0 to most.
+func moneyIn(v, most float64) bool { return v >= 0 && v <= most }
+
 // studyEconomics reads fuel_price, installed_cost, currency, carbon_price,
 // life and discount_rate.
 func (r *runner) studyEconomics(a *args) profile.Economics {
 	var econ profile.Economics
-	money := func(key string) float64 {
+	money := func(key string, most float64, per string) float64 {
 		v, ok := a.number(key)
-		if ok && v < 0 {
-			a.errorf(nil, "%s must not be negative; got %g", key, v)
+		if ok && !moneyIn(v, most) {
+			a.errorf(nil, "%s must lie between 0 and %g%s (in any currency); got %g", key, most, per, v)
+			return 0
 		}
 		return v
 	}
-	econ.FuelPrice = money("fuel_price")
-	econ.InstalledCost = money("installed_cost")
-	econ.CarbonPrice = money("carbon_price")
+	econ.FuelPrice = money("fuel_price", maxPrice, " a tonne")
+	econ.InstalledCost = money("installed_cost", maxCost, "")
+	econ.CarbonPrice = money("carbon_price", maxPrice, " a tonne")
 	econ.Currency, _ = a.str("currency", false)
 	life, hasLife := a.number("life")
 	if hasLife {
@@ -898,8 +912,8 @@ func (r *runner) studySweep(ph *plantHandle, a *args, v lua.LValue, econ profile
 		c, ok := ca.number("cost")
 		if !ok {
 			ca.errorf(nil, "cost is required: the installed cost of a unit of UA at, such as cost = 300000")
-		} else if !(c > 0) {
-			ca.errorf(nil, "cost must be positive; got %g", c)
+		} else if !(c > 0) || !moneyIn(c, maxCost) {
+			ca.errorf(nil, "cost must be above 0 and at most %g (in any currency); got %g", maxCost, c)
 		}
 		sw.Cost.RefCost = c
 		if e, ok := ca.number("exponent"); ok {
@@ -909,8 +923,8 @@ func (r *runner) studySweep(ph *plantHandle, a *args, v lua.LValue, econ profile
 			sw.Cost.Exponent = e
 		}
 		if f, ok := ca.number("fixed"); ok {
-			if f < 0 {
-				ca.errorf(nil, "fixed must not be negative; got %g", f)
+			if !moneyIn(f, maxCost) {
+				ca.errorf(nil, "fixed must lie between 0 and %g (in any currency); got %g", maxCost, f)
 			}
 			sw.Cost.Fixed = f
 		}

@@ -378,7 +378,7 @@ func PlotHeatingPlan(w io.Writer, format string, h HeatingPlan) error {
 		legendEntry{"never below", []plot.Thumbnailer{dotted}})
 
 	down := plot.New()
-	down.X.Label.Text = "hours from the start of the voyage"
+	down.X.Label.Text = "time from the start of the voyage, h"
 	down.Y.Label.Text = "steam, kg/h"
 	down.X.Min, down.X.Max = 0, vs.hours
 	down.Y.Min, down.Y.Max = 0, vs.top*1.1

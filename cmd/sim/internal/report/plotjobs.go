@@ -650,7 +650,7 @@ func sweepPanels(r *profile.StudyResult) (*plot.Plot, *plot.Plot, error) {
 		lbl.TextStyle[0].YAlign = draw.YBottom
 		if sw.Best > len(sw.Points)/2 {
 			lbl.TextStyle[0].XAlign = draw.XRight
-			lbl.Labels[0] = fmt.Sprintf("best: %s, NPV %s %s  ", sizeText(sw.Param, b.Value), fix(b.NPV, 0), r.Currency)
+			lbl.Labels[0] = fmt.Sprintf("best: %s, NPV %s %s  ", sizeText(sw.Param, b.Value), fix(b.NPV/1e3, 0)+" thousand", r.Currency)
 		}
 		npv.Add(lbl)
 	}
