@@ -12,7 +12,7 @@ import (
 // economisers and a sweep's UA are summed from. A row keeps its summary
 // always and its full plant.CaseResult only on request
 // (Options.KeepResults): on the demo tanker's year a row keeps some
-// 560 bytes with its summary, 16.7 kB with its case result as well
+// 540 bytes with its summary, 16.2 kB with its case result as well
 // (scenarios' BenchmarkDemoTankerYearKept measures both).
 //
 // Every figure is the case result's own (SI), copied or summed in the
