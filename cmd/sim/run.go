@@ -57,9 +57,10 @@ with their units, such as "7 bar(g)" or "18 t/h". A script reads files only
 from its own folder and the folders below it.
 
 The report is a table for people unless --json or --csv asks for a form for
-programs: --json prints one JSON document (schema 2: the program's
-version, the caution, the plants, the checks passed and failed, every case
-with its figures and every voyage, study and audit, each key naming its
+programs: --json prints one JSON document (schema 3: the program's
+version, the caution, the files read and the defaults in force, the plants,
+the checks passed and failed, every case with its figures and every
+voyage, study, audit and heating plan, each key naming its
 unit; the same keys as the tables case() and the jobs return to a script),
 --csv tables of comma-separated values under headers naming their units:
 the load cases, one row each with the main figures, then the rows of the
