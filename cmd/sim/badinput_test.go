@@ -178,6 +178,8 @@ func TestBadInputs(t *testing.T) {
 			stdout: "Nothing was solved"},
 		{name: "job time limit below zero", args: []string{"run", "--job-timeout", "-1s", "x.lua"}, code: exitUsage,
 			stderr: "sim run: --job-timeout -1s: the time limit must be above zero and at most 24h0m0s, such as 10m or 2h\n" + runUsage},
+		{name: "rows neither summary nor full", args: []string{"run", "--rows", "all", "x.lua"}, code: exitUsage,
+			stderr: "sim run: --rows \"all\": give summary (each row's figures, the default) or full (each row's case result as well)\n" + runUsage},
 
 		// sim steam: out of range is a failure (1), a mistake of usage 2.
 		// 700 bar(g) is 70.101325 MPa (700 bar + 1.01325 bar); the
@@ -427,7 +429,7 @@ case(ship, { name = "port", engine = "0 %", fire = {} })
 // runUsage and steamUsage are what follows a usage error of run and steam.
 const (
 	runUsage = "usage: sim run [--json | --csv] [--plot FILE] [--evidence DIR] [-o FILE]\n" +
-		"               [--timeout DURATION] [--job-timeout DURATION]\n" +
+		"               [--timeout DURATION] [--job-timeout DURATION] [--rows KEEP]\n" +
 		"               [-v | --quiet] SCRIPT...\n" +
 		"Run 'sim help run' for details.\n"
 	steamUsage = "usage: sim steam --p PRESSURE\n" +

@@ -204,15 +204,8 @@ func voyageSeriesOf(rows []profile.RowResult) voyageSeries {
 	var s voyageSeries
 	t := 0.0
 	for _, row := range rows {
-		c := row.Result
-		var fired, mcrF, mcrA float64
-		for _, b := range c.Boilers {
-			fired += b.SteamKgS
-			mcrA += b.MCRKgS
-			if b.Firing {
-				mcrF += b.MCRKgS
-			}
-		}
+		c := &row.Summary
+		fired, mcrF, mcrA := c.BoilerSteamKgS, c.FiringMCRKgS, c.MCRKgS
 		s.boilers = append(s.boilers, plotter.XY{X: t, Y: fired * kgh})
 		s.total = append(s.total, plotter.XY{X: t, Y: c.SteamDemandKgS * kgh})
 		s.capF = append(s.capF, plotter.XY{X: t, Y: mcrF * kgh})
