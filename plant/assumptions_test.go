@@ -28,10 +28,10 @@ func TestDefaults(t *testing.T) {
 	if _, ok := got["fp.eta"]; ok {
 		t.Errorf("fp.eta was given but is listed as a default")
 	}
-	// The duty factor's default as the registry writes it, with no source
-	// recorded there.
+	// The duty factor's default as the registry writes it, marked as an
+	// effect left out unless given.
 	fk, _ := findKey(p.Component("load").Keys(), "factor")
-	if a, ok := got["load.factor"]; !ok || a.Value != fk.DefaultText() || a.Value == "" || a.Source != "" {
+	if a, ok := got["load.factor"]; !ok || a.Value != fk.DefaultText() || a.Value == "" || a.Source != SourceLeftOut {
 		t.Errorf("load.factor: %+v (listed %v)", a, ok)
 	}
 	if _, ok := got["load.returns"]; ok {

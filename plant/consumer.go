@@ -108,22 +108,22 @@ func consumerKey(k Key, f func(*Consumer) *float64) Key { return num(k, self[*Co
 
 // The keys every steam consumer has, and those of a plain consumer.
 var (
-	offKey = flag(Key{Name: "off", Label: "off", Example: "true", Doc: "switched off", Default: 0, HasDefault: true, Case: true},
+	offKey = flag(Key{Name: "off", Label: "off", Example: "true", Doc: "switched off", Default: 0, HasDefault: true, Case: true, Source: SourceLeftOut},
 		self[*Consumer], func(u *Consumer) *bool { return &u.Off })
 	factorKey = consumerKey(Key{Name: "factor", Label: "duty factor", Dim: units.Fraction, Example: "1.1",
 		Doc:     "scales the duty or steam flow however it is given (an audit's knob for an uncertain U-value)",
-		Default: 1, HasDefault: true, Min: 0.01, Max: 10, Case: true},
+		Default: 1, HasDefault: true, Min: 0.01, Max: 10, Case: true, Source: SourceLeftOut},
 		func(u *Consumer) *float64 { return &u.Factor })
 	returnKeys = []Key{
 		consumerKey(Key{Name: "subcool", Label: "condensate subcooling", Dim: units.TemperatureDifference, Example: "10 K",
-			Doc: "condensate leaves this far below saturation", Default: 0, HasDefault: true, Min: 0, Max: 250, Case: true},
+			Doc: "condensate leaves this far below saturation", Default: 0, HasDefault: true, Min: 0, Max: 250, Case: true, Source: SourceLeftOut},
 			func(u *Consumer) *float64 { return &u.SubCooling }),
 		consumerKey(Key{Name: "returns", Label: "return fraction", Dim: units.Fraction, Example: "95 %",
 			Doc: "fraction of the condensate that returns (the rest is lost and made up)", Default: 0, HasDefault: true,
-			Min: 0, Max: 1, Case: true},
+			Min: 0, Max: 1, Case: true, Source: SourceLeftOut},
 			func(u *Consumer) *float64 { return &u.ReturnFraction }),
 		consumerKey(Key{Name: "return_T", Label: "condensate return temperature", Dim: units.Temperature, Example: "85 C",
-			Doc: "temperature after a drain cooler on the return", DefaultNote: "no drain cooler", Min: 274.15, Max: 473.15, Case: true},
+			Doc: "temperature after a drain cooler on the return", DefaultNote: "no drain cooler", Min: 274.15, Max: 473.15, Case: true, Source: SourceLeftOut},
 			func(u *Consumer) *float64 { return &u.ReturnT }),
 		choice(Key{Name: "drain_cooler", Label: "drain cooler's heat", Choices: []string{coolerToFeed, coolerToHotwell, coolerOverboard},
 			Example: `"hotwell"`, Default: 0, HasDefault: true, Source: "common practice, no source",
@@ -131,7 +131,7 @@ var (
 			self[*Consumer], func(u *Consumer) *CoolerDestination { return &u.DrainCooler }),
 		consumerKey(Key{Name: "trap_loss", Label: "steam-trap loss", Dim: units.Fraction, Example: "3 %",
 			Doc: "fraction of the steam that passes the steam trap live, with the condensate", Default: 0, HasDefault: true,
-			DefaultNote: "0 % (no trap losses counted)", Min: 0, Max: 0.5, Case: true},
+			DefaultNote: "0 % (no trap losses counted)", Min: 0, Max: 0.5, Case: true, Source: SourceLeftOut},
 			func(u *Consumer) *float64 { return &u.TrapLoss }),
 	}
 	consumerPriorityKey = priorityKey(self[*Consumer], func(u *Consumer) *float64 { return &u.Priority })

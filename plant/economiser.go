@@ -56,7 +56,7 @@ var economiserKeys = []Key{
 		Doc: "the exchanger's UA (at design_gas)", Required: true, Min: 0, Max: 1e8, Case: true},
 		self[*Economiser], func(u *Economiser) *float64 { return &u.UA }),
 	num(Key{Name: "design_gas", Label: "design gas flow", Dim: units.MassFlow, Example: "2 kg/s",
-		Doc: "gas flow at which ua holds", DefaultNote: "ua is constant", Min: 1e-3, Max: 1e3},
+		Doc: "gas flow at which ua holds", DefaultNote: "ua is constant", Min: 1e-3, Max: 1e3, Source: SourceDerived},
 		self[*Economiser], func(u *Economiser) *float64 { return &u.DesignGasFlow }),
 	num(Key{Name: "exponent", Label: "UA exponent n (UA ∝ gas flow^n)", Kind: KeyNumber, Example: "0.65",
 		Doc: "n of UA ∝ gas flow^n off design", Default: defaultEGEExponent, HasDefault: true,

@@ -61,22 +61,22 @@ func feedTankKey(k Key, f func(*FeedTank) *float64) Key { return num(k, self[*Fe
 
 var (
 	tankHeatLossKey = feedTankKey(Key{Name: "heat_loss", Label: "heat loss", Dim: units.Power, Example: "8 kW",
-		Doc: "fixed heat loss to the engine room (a hotwell loses kilowatts; at most 2 MW)", Default: 0, HasDefault: true, Min: 0, Max: 2e6, Case: true},
+		Doc: "fixed heat loss to the engine room (a hotwell loses kilowatts; at most 2 MW)", Default: 0, HasDefault: true, Min: 0, Max: 2e6, Case: true, Source: SourceLeftOut},
 		func(u *FeedTank) *float64 { return &u.HeatLoss })
 	tankUAKey = feedTankKey(Key{Name: "UA", Label: "UA", Dim: units.ThermalConductance, Example: "0.2 kW/K",
-		Doc: "heat loss conductance to the engine room, with room_T", Default: 0, HasDefault: true, Min: 0, Max: 1e8},
+		Doc: "heat loss conductance to the engine room, with room_T", Default: 0, HasDefault: true, Min: 0, Max: 1e8, Source: SourceLeftOut},
 		func(u *FeedTank) *float64 { return &u.UA })
 	tankRoomTKey = feedTankKey(Key{Name: "room_T", Label: "engine room temperature", Dim: units.Temperature, Example: "35 C",
 		Doc: "engine room temperature, for the UA loss", Min: 263.15, Max: 343.15, Case: true},
 		func(u *FeedTank) *float64 { return &u.RoomT })
 	feedTankKeys = []Key{
 		feedTankKey(Key{Name: "p", Label: "tank pressure", Dim: units.Pressure, Example: "1 bar(g)",
-			Doc: "tank pressure", DefaultNote: "the plant's ambient pressure (a vented tank)", Min: 1e3, Max: 5e7},
+			Doc: "tank pressure", DefaultNote: "the plant's ambient pressure (a vented tank)", Min: 1e3, Max: 5e7, Source: SourceDerived},
 			func(u *FeedTank) *float64 { return &u.P }),
 		tankHeatLossKey, tankUAKey, tankRoomTKey,
 		feedTankKey(Key{Name: "set_T", Label: "steam heating set temperature", Dim: units.Temperature, Example: "60 C",
 			Doc: "temperature held by steam heating on port \"steam\"", DefaultNote: "no steam heating",
-			Min: 274.15, Max: 372.15, Case: true},
+			Min: 274.15, Max: 372.15, Case: true, Source: SourceLeftOut},
 			func(u *FeedTank) *float64 { return &u.SetT }),
 		feedTankKey(Key{Name: "o2_T", Label: "oxygen warning temperature", Dim: units.Temperature, Example: "85 C",
 			Doc: "below this temperature a case warns that the feed holds too much dissolved oxygen", Default: defaultO2T, HasDefault: true,

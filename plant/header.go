@@ -46,7 +46,7 @@ func NewHeader() *Header { return &Header{} }
 var headerKeys = []Key{
 	num(Key{Name: "heat_loss", Label: "heat loss", Dim: units.Power, Example: "20 kW",
 		Doc:     "heat lost by the header and its piping; it condenses steam that the traps drain",
-		Default: 0, HasDefault: true, Min: 0, Max: 2e6, Case: true},
+		Default: 0, HasDefault: true, Min: 0, Max: 2e6, Case: true, Source: SourceLeftOut},
 		self[*Header], func(u *Header) *float64 { return &u.HeatLoss }),
 	choice(Key{Name: "drains", Label: "drains", Choices: []string{"hotwell", "lost"}, Example: `"lost"`,
 		Doc:     `where the traps drain the steam the heat loss condenses: "hotwell" (the plant's feed tank, traps to the cascade tank) or "lost"`,

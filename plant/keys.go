@@ -56,6 +56,23 @@ func (k KeyKind) String() string {
 // change it, and the result key that reports it. Scripts' key checks, the
 // load cases' settings (Setting.Param is a key's Name), the documentation
 // of the keys and the check-mode result are all read from these.
+// Sources of defaults that are not figures from a reference: every key
+// with a default names one of these or a reference (TestEveryDefaultHasSource).
+const (
+	// SourceLeftOut marks a default that leaves an effect out of the model
+	// unless the description gives it: no loss, no limit, no check, a
+	// factor of one, switched on.
+	SourceLeftOut = "left out unless given"
+	// SourceDerived marks a default taken from elsewhere in the
+	// description or the case (the ambient pressure, the sea temperature,
+	// another key): not an assumption of its own.
+	SourceDerived = "taken from the description or the case"
+	// SourceRule marks a default that is the model's own rule, stated in
+	// the key's documentation (the first of its choices, the lowest
+	// priority reduced first, a figure the description must give).
+	SourceRule = "the model's rule, as documented"
+)
+
 type Key struct {
 	Name  string // as a script writes it: "drum"
 	Label string // in messages: "drum pressure"

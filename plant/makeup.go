@@ -33,7 +33,7 @@ var makeUpKeys = []Key{
 		Source: "common practice, no source", Min: 273.16, Max: 373.15, Case: true},
 		self[*MakeUp], func(u *MakeUp) *float64 { return &u.T }),
 	num(Key{Name: "p", Label: "supply pressure", Dim: units.Pressure, Example: "1 bar(g)",
-		Doc: "supply pressure", DefaultNote: "the plant's ambient pressure", Min: 1e3, Max: 5e7},
+		Doc: "supply pressure", DefaultNote: "the plant's ambient pressure", Min: 1e3, Max: 5e7, Source: SourceDerived},
 		self[*MakeUp], func(u *MakeUp) *float64 { return &u.P }),
 }
 

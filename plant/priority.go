@@ -106,7 +106,7 @@ func priorityKey[T any](owner func(Component) (T, bool), f func(T) *float64) Key
 		Doc: "when the boilers at their limit cannot carry the demand, the lowest priority is reduced first (" +
 			strings.Join(docs, "; ") + ")",
 		DefaultNote: `"essential" (reduced last); with no priority given anywhere, every consumer is reduced in proportion`,
-		Min:         1, Max: 100, Case: true, JSON: "priority"}, owner, f)
+		Min:         1, Max: 100, Case: true, JSON: "priority", Source: SourceRule}, owner, f)
 	k.Choices, k.Levels = names, vals
 	return k
 }

@@ -93,11 +93,11 @@ var (
 	turbineCommonKeys = []Key{
 		turbineKey(Key{Name: "exhaust", Label: "exhaust pressure", Dim: units.Pressure, Example: "0.2 bar(a)",
 			Doc: "exhaust pressure", DefaultNote: "the vacuum its condenser sets from the sea (condenser approach, or ua with sea_flow)",
-			Min: 1e3, Max: 5e7},
+			Min: 1e3, Max: 5e7, Source: SourceDerived},
 			func(u *Turbine) *float64 { return &u.ExhaustP }),
 		turbineKey(Key{Name: "eta_is", Label: "isentropic efficiency", Dim: units.Fraction, Example: "65 %",
 			Doc: "isentropic efficiency of the expansion (or steam_rate, or steam_table)", DefaultNote: "give eta_is, steam_rate or steam_table",
-			Min: 0.05, Max: 1},
+			Min: 0.05, Max: 1, Source: SourceRule},
 			func(u *Turbine) *float64 { return &u.EtaIs }),
 		{Name: "steam_rate", Label: "steam rate", Kind: KeyTable, Example: `{ {"50 %", "10.2 kg/kWh"}, {"100 %", "8.5 kg/kWh"} }`,
 			Doc: "steam per kWh of shaft power: one figure (\"8.5 kg/kWh\") or {load, rate} pairs, load a fraction of rated_power (with rated_power)"},
@@ -107,9 +107,9 @@ var (
 		{Name: "steam_table", Label: "maker's steam table", Kind: KeyTable, Example: `{ {"0.5 MW", "5.6 t/h"}, {"1.3 MW", "11 t/h"} }`,
 			Doc: "the maker's {shaft power, steam flow} pairs, power increasing (instead of eta_is or steam_rate)"},
 		turbineKey(Key{Name: "eta_mech", Label: "mechanical efficiency", Dim: units.Fraction, Example: "95 %",
-			Doc: "mechanical and gear efficiency", Default: 1, HasDefault: true, Min: 0.05, Max: 1},
+			Doc: "mechanical and gear efficiency", Default: 1, HasDefault: true, Min: 0.05, Max: 1, Source: SourceLeftOut},
 			func(u *Turbine) *float64 { return &u.EtaMech }),
-		flag(Key{Name: "off", Label: "off", Example: "true", Doc: "not running", Default: 0, HasDefault: true, Case: true},
+		flag(Key{Name: "off", Label: "off", Example: "true", Doc: "not running", Default: 0, HasDefault: true, Case: true, Source: SourceLeftOut},
 			self[*Turbine], func(u *Turbine) *bool { return &u.Off }),
 		priorityKey(self[*Turbine], func(u *Turbine) *float64 { return &u.Priority }),
 	}
@@ -499,9 +499,9 @@ func (u *Turbine) report(ev *eval, cr *CaseResult) error {
 	m := ev.m(u.in)
 	drop := ev.h(u.in) - ev.h(u.out)
 	shaft := m * drop * u.etaMech()
-	// A stopped turbine (its steam at the solver's noise, below
-	// FlowFloor) has no steam rate or efficiency to report.
 	rate, etaIs := 0.0, 0.0
+	// An idle turbine's flow is solver noise (below FlowFloor): its steam
+	// rate and efficiency, ratios of two noise figures, are not reported.
 	if shaft > 0 && m > FlowFloor {
 		rate = m / shaft * 3.6e6 // kg/kWh
 	}

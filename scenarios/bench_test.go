@@ -5,6 +5,7 @@ import (
 	"fmt"
 	"io/fs"
 	"math"
+	"runtime"
 	"testing"
 	"time"
 
@@ -96,13 +97,9 @@ func BenchmarkDemoTankerYear(b *testing.B) {
 						b.Fatal(err)
 					}
 					for _, r := range res.Rows {
-						iters += float64(r.Result.Iterations)
-						all += float64(r.Result.NewtonIterations)
-						for _, c := range r.Result.Contingencies {
-							if c.Solved {
-								solved++
-							}
-						}
+						iters += float64(r.Summary.Iterations)
+						all += float64(r.Summary.NewtonIterations)
+						solved += float64(r.Summary.N1Solved)
 					}
 				}
 				n := float64(b.N) * float64(len(year.rows))
@@ -114,5 +111,45 @@ func BenchmarkDemoTankerYear(b *testing.B) {
 				b.ReportMetric(solved/n, "n-1-solves/row")
 			})
 		}
+	}
+}
+
+// BenchmarkDemoTankerYearKept measures the heap a solved year keeps: the
+// voyage result of yearRows on the demo product tanker's plant as the
+// demo runs it (N-1 and the economiser's saving on), measured with
+// runtime.MemStats after a garbage collection before the run and after
+// it, while the result is still held; with the rows' summaries only (the
+// default) and with their full case results (Options.KeepResults).
+// Metric: bytes kept per row.
+func BenchmarkDemoTankerYearKept(b *testing.B) {
+	for _, keep := range []bool{false, true} {
+		name := "summary"
+		if keep {
+			name = "full"
+		}
+		b.Run(name, func(b *testing.B) {
+			p := demoTanker(b)
+			rows := yearRows()
+			// One run first, so that what the plant keeps between runs (its
+			// warm start, its memos) is in the heap before the measurement.
+			if _, err := profile.Run(context.Background(), p, rows[:64], profile.Options{Workers: 1}); err != nil {
+				b.Fatal(err)
+			}
+			var kept float64
+			for b.Loop() {
+				var m0, m1 runtime.MemStats
+				runtime.GC()
+				runtime.ReadMemStats(&m0)
+				res, err := profile.Run(context.Background(), p, rows, profile.Options{Workers: 1, KeepResults: keep})
+				if err != nil {
+					b.Fatal(err)
+				}
+				runtime.GC()
+				runtime.ReadMemStats(&m1)
+				kept += float64(int64(m1.HeapAlloc) - int64(m0.HeapAlloc))
+				runtime.KeepAlive(res)
+			}
+			b.ReportMetric(kept/float64(b.N)/float64(len(rows)), "B-kept/row")
+		})
 	}
 }

@@ -16,7 +16,7 @@ local efficiency = {
 -- (U values within plant-checks.md §6 [M]), a steam coil of 450 m2 at the
 -- default U (plant/loads' DefaultCoilU, 60 W/m2K).
 local function group(name, volume, extra)
-  local t = { name = name, kind = "tank_heating", header = "LP", density = "890 kg/m3", cargo = "heavy crude",
+  local t = { name = name, kind = "tank_heating", use = "cargo", header = "LP", density = "890 kg/m3", cargo = "heavy crude",
     mode = "hold", T = "55 C", returns = "98 %", subcool = "10 K", return_T = "85 C",
     volume = volume, coil_area = "450 m2",
     boundaries = {

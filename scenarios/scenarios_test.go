@@ -67,6 +67,13 @@ func TestScenarios(t *testing.T) {
 				if r.Balance.MassRel > 1e-9 || r.Balance.EnergyRel > 1e-6 {
 					t.Errorf("case %q at %v: balances %+v", r.Name, c.Pos, r.Balance)
 				}
+				// An idle turbine reports no steam rate: its flow is
+				// solver noise (plant.FlowFloor), and so is the ratio.
+				for _, u := range r.Units {
+					if m := u.Figures.Of("steam_kg_s"); m <= plant.FlowFloor && u.Figures.Of("steam_rate_kg_per_kWh") != 0 {
+						t.Errorf("case %q: %s takes %g kg/s but reports a steam rate of %g kg/kWh", r.Name, u.Name, m, u.Figures.Of("steam_rate_kg_per_kWh"))
+					}
+				}
 				fmt.Fprintf(&b, "case %q: boilers firing %d, fuel %.3f t/d, steam %.1f kg/h, EGE %.1f kg/h, warnings %d\n",
 					r.Name, r.BoilersFiring, r.FuelKgS*86.4, r.SteamProductionKgS*3600, r.EGESteamKgS*3600, len(r.Warnings))
 			}

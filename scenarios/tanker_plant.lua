@@ -57,8 +57,9 @@ local ship = steam_plant {
   -- the cargo heating (its cargo cools slowly, and min_T says how far it
   -- may), then the cargo pumps; the fuel heating last.
   consumers = {
-    { name = "cargo heating", kind = "tank_heating", header = "LP", fuel = "HSFO",
-      mode = "hold", T = "55 C", returns = "98 %", subcool = "10 K", return_T = "85 C",
+    -- The cargo's flash point from its (invented) certificate of quality.
+    { name = "cargo heating", kind = "tank_heating", header = "LP", fuel = "HSFO", use = "cargo",
+      flash_point = "85 C", mode = "hold", T = "55 C", returns = "98 %", subcool = "10 K", return_T = "85 C",
       priority = 25, min_T = "45 C",
       volume = "30000 m3",
       boundaries = {
@@ -77,20 +78,20 @@ local ship = steam_plant {
     -- the burner heaters (inlet 70 C); the heat the purified oil brings in
     -- from the purifier heater is not credited against its coils (they are
     -- counted for the tank's losses, as when the purifier stops: a
-    -- conservative simplification). Both tanks sit within the SOLAS II-2
-    -- reg. 4.2 caution of §5.2 for storage tanks (heated oil near its flash
-    -- point); settling and service tanks are heated so on board under that
-    -- regulation's own arrangements (from memory).
-    { name = "HFO settling tank heating", kind = "tank_heating", header = "LP", fuel = "HSFO",
-      mode = "hold", T = "60 C", volume = "60 m3", returns = "98 %", subcool = "10 K", return_T = "85 C",
+    -- conservative simplification). The bunkers' flash point is 78 C, from
+    -- the (invented) delivery note: the service tank at 75 C is within 10 K
+    -- of it, which SOLAS II-2 reg. 4.2 allows a tank of the supply system
+    -- under its own arrangements (from memory), and the report says so.
+    { name = "HFO settling tank heating", kind = "tank_heating", header = "LP", fuel = "HSFO", use = "settling",
+      flash_point = "78 C", mode = "hold", T = "60 C", volume = "60 m3", returns = "98 %", subcool = "10 K", return_T = "85 C",
       boundaries = {
         { name = "bulkheads and top to the engine room", area = "85 m2", U = "6 W/m2K", beyond = "space", T = "40 C" },
         { name = "side over a ballast tank", area = "20 m2", U = "3.5 W/m2K", beyond = "sea" },
       } },
     { name = "HFO settling tank, oil let in", kind = "fuel_heater", service = "transfer", header = "LP",
       fuel = "HSFO", flow = "2.2 t/h", inlet_T = "45 C", outlet_T = "60 C", returns = "98 %", return_T = "85 C" },
-    { name = "HFO service tank heating", kind = "tank_heating", header = "LP", fuel = "HSFO",
-      mode = "hold", T = "75 C", volume = "40 m3", returns = "98 %", subcool = "10 K", return_T = "85 C",
+    { name = "HFO service tank heating", kind = "tank_heating", header = "LP", fuel = "HSFO", use = "service",
+      flash_point = "78 C", mode = "hold", T = "75 C", volume = "40 m3", returns = "98 %", subcool = "10 K", return_T = "85 C",
       boundaries = {
         { name = "bulkheads and top to the engine room", area = "70 m2", U = "6 W/m2K", beyond = "space", T = "40 C" },
       } },

@@ -30,10 +30,10 @@ func TestDemoYearIterations(t *testing.T) {
 	}
 	var all, worst int
 	for i, r := range res.Rows {
-		if !r.Result.Converged {
+		if !r.Summary.Converged {
 			t.Errorf("hour %d did not converge", i)
 		}
-		n := r.Result.NewtonIterations
+		n := r.Summary.NewtonIterations
 		all += n
 		worst = max(worst, n)
 	}

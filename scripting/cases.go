@@ -388,14 +388,50 @@ func (r *runner) luaOf(v reflect.Value) (lua.LValue, error) {
 
 // luaFields sets in t the fields of the struct v under their JSON keys.
 func (r *runner) luaFields(t *lua.LTable, v reflect.Value) error {
-	rt := v.Type()
+	for _, f := range r.fieldsOf(v.Type()) {
+		fv := v.Field(f.index)
+		if f.name == "" {
+			if err := r.luaFields(t, fv); err != nil {
+				return err
+			}
+			continue
+		}
+		if f.omitEmpty && emptyJSON(fv) {
+			continue
+		}
+		e, err := r.luaOf(fv)
+		if err != nil {
+			return fmt.Errorf("%s: %w", f.name, err)
+		}
+		if e != lua.LNil {
+			t.RawSetString(f.name, e)
+		}
+	}
+	return nil
+}
+
+// luaField is how a field of a struct of the schema goes into its Lua
+// table: the field's index, its JSON key ("" for an embedded struct whose
+// keys are the object's own) and whether it is tagged omitempty.
+type luaField struct {
+	index     int
+	name      string
+	omitEmpty bool
+}
+
+// fieldsOf returns the fields of the struct type rt as luaFields reads
+// them, in order, from the run's cache: a table of many rows reads each
+// type's tags once.
+func (r *runner) fieldsOf(rt reflect.Type) []luaField {
+	if fs, ok := r.fields[rt]; ok {
+		return fs
+	}
+	var fs []luaField
 	for i := range rt.NumField() {
 		f := rt.Field(i)
 		tag := f.Tag.Get("json")
 		if f.Anonymous && tag == "" && f.Type.Kind() == reflect.Struct {
-			if err := r.luaFields(t, v.Field(i)); err != nil {
-				return err
-			}
+			fs = append(fs, luaField{index: i})
 			continue
 		}
 		name, opts, _ := strings.Cut(tag, ",")
@@ -405,23 +441,15 @@ func (r *runner) luaFields(t *lua.LTable, v reflect.Value) error {
 		if name == "" {
 			name = f.Name
 		}
-		fv := v.Field(i)
-		if opts != "" && omitEmpty(opts) && emptyJSON(fv) {
-			continue
-		}
-		e, err := r.luaOf(fv)
-		if err != nil {
-			return fmt.Errorf("%s: %w", name, err)
-		}
-		if e != lua.LNil {
-			t.RawSetString(name, e)
-		}
+		fs = append(fs, luaField{index: i, name: name, omitEmpty: opts != "" && omitEmpty(opts)})
 	}
-	return nil
+	if r.fields == nil {
+		r.fields = map[reflect.Type][]luaField{}
+	}
+	r.fields[rt] = fs
+	return fs
 }
 
-// omitEmpty reports whether the options of a JSON tag ("omitempty,string")
-// hold omitempty.
 func omitEmpty(opts string) bool {
 	for o := range strings.SplitSeq(opts, ",") {
 		if o == "omitempty" {

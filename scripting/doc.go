@@ -360,8 +360,18 @@
 // when not given), engine_load, boilers_firing, can_carry,
 // steam_demand_kg_h, steam_production_kg_h, boiler_steam_kg_h,
 // ege_steam_kg_h, dumped_kg_h, fuel_kg_h, fuel_t, co2_t, margin_kg_h and
-// warnings (the texts; #v.rows[i].warnings counts them). Every case
-// result is in the Run.
+// warnings (the texts; #v.rows[i].warnings counts them).
+//
+// A voyage or a study keeps of each row what its reports read (package
+// plant/profile's RowSummary: the figures above, the totals' parts, the
+// warnings, the tanks), a small part of a row's full case result, so that
+// a long job fits in Options.MaxMemory. keep = "full" (or
+// Options.FullRows, sim run --rows full, for every job that does not say)
+// keeps each row's case result as well: v.rows[i].result is then the
+// row's case as case() returns it (v.rows[3].result.boilers[1].load_fraction),
+// a study's variants and sweep points get rows of the same form, and the
+// Run holds the case results; keep = "summary" is the default. The totals
+// are the same either way.
 //
 //	local s = study(ship, { name = "EGE", csv = "year.csv", variants = {
 //	    { name = "without EGE", set = { EGE = { off = true } } },

@@ -156,7 +156,9 @@ func (e *TimeoutError) Error() string {
 		pre = s + ": "
 	}
 	var msg string
-	if e.Memory > 0 {
+	if e.Memory > 0 && e.Job != "" {
+		msg = fmt.Sprintf("%sscript stopped: it used more than %d MiB of memory while running %s (a voyage or study that keeps its rows in full, keep = \"full\" or sim run --rows full, keeps every row's case result: keep the rows' summaries, the default, or split the job)", pre, e.Memory>>20, e.Job)
+	} else if e.Memory > 0 {
 		msg = fmt.Sprintf("%sscript stopped: it used more than %d MiB of memory (an endless loop filling a table or a string?)", pre, e.Memory>>20)
 	} else if e.JobLimit {
 		how := "as given"

@@ -27,8 +27,9 @@ type VoyageRecord struct {
 	// Rows are where each row was given: the CSV file and line, or the
 	// voyage() call for rows given as tables.
 	Rows []Pos
-	// Result holds every row's case result and the totals; nil in check
-	// mode.
+	// Result holds every row's summary and the totals, and every row's
+	// full case result when the voyage kept its rows in full (keep =
+	// "full", Options.FullRows); nil in check mode.
 	Result *profile.Result
 }
 
@@ -623,13 +624,15 @@ func (r *runner) jobErr(pos Pos, what string, err error) {
 // luaVoyage is voyage(plant, { name, rows or csv, tanks }).
 func (r *runner) luaVoyage(L *lua.LState) int {
 	var specs []tankSpec
+	var full bool
 	ph, a, name, rows := r.jobStart("voyage", rowSpec{job: "voyage"}, func(a *args) {
 		specs = r.stateTanks(r.checkPlant(1), a, false, false)
+		full = r.keepFull(a)
 	})
 	rec := VoyageRecord{Name: name, Plant: ph.p.Name, Pos: a.pos, Rows: rows.pos}
 	if r.opt.CheckOnly {
 		r.out.Voyages = append(r.out.Voyages, rec)
-		o := r.profileTable(rec.job(), placeholderResult(rows.rows))
+		o := r.profileTable(rec.job(), placeholderResult(rows.rows, outlines(ph.p, full)))
 		r.placeholderTanks(o, specs)
 		L.Push(o)
 		return 1
@@ -639,7 +642,7 @@ func (r *runner) luaVoyage(L *lua.LState) int {
 	err := r.inJob(a.what, a.pos, 2*len(rows.rows), func(ctx context.Context) error {
 		var err error
 		res, err = profile.Run(ctx, ph.p, rows.rows, profile.Options{Workers: r.opt.Workers, Progress: r.progress(a.what),
-			Tanks: tankStarts(specs, a.pos)})
+			Tanks: tankStarts(specs, a.pos), KeepResults: full})
 		return err
 	})
 	if err != nil {
@@ -655,7 +658,9 @@ func (r *runner) luaVoyage(L *lua.LState) int {
 // installed_cost, currency, carbon_price, life, discount_rate, sweep }).
 func (r *runner) luaStudy(L *lua.LState) int {
 	var spec profile.StudySpec
+	var full bool
 	ph, a, name, rows := r.jobStart("study", rowSpec{job: "study"}, func(a *args) {
+		full = r.keepFull(a)
 		ph0 := r.checkPlant(1)
 		spec.Variants = r.studyVariants(ph0, a)
 		spec.Economics = r.studyEconomics(a)
@@ -668,18 +673,19 @@ func (r *runner) luaStudy(L *lua.LState) int {
 	job := schema.Job{Name: name, Plant: ph.p.Name, Source: a.pos.String(), RowSources: posStrings(rows.pos)}
 	if r.opt.CheckOnly {
 		res := &profile.StudyResult{Economics: econ, HasNPV: econ.LifeYears > 0}
-		empty := placeholderResult(rows.rows)
+		empty := placeholderResult(rows.rows, outlines(ph.p, full))
 		// The same shape as a solved study, with zero figures: every
 		// variant but the base has a payback and the first size is the
 		// best, so that a script's arithmetic on them runs.
 		for i, v := range variants {
 			res.Variants = append(res.Variants, profile.VariantResult{Name: v.Name, Totals: empty.Total,
-				Money: profile.Money{HasPayback: i > 0}})
+				Money: profile.Money{HasPayback: i > 0}, Rows: keptRows(empty.Rows, full)})
 		}
 		if sw := spec.Sweep; sw != nil {
 			res.Sweep = &profile.SweepResult{Unit: sw.Unit, Param: sw.Param, Cost: sw.Cost}
 			for _, x := range sw.Values {
-				res.Sweep.Points = append(res.Sweep.Points, profile.SweepPoint{Value: x, Totals: empty.Total, Money: profile.Money{HasPayback: true}})
+				res.Sweep.Points = append(res.Sweep.Points, profile.SweepPoint{Value: x, Totals: empty.Total, Money: profile.Money{HasPayback: true},
+					Rows: keptRows(empty.Rows, full)})
 			}
 		}
 		r.out.Studies = append(r.out.Studies, rec)
@@ -693,7 +699,8 @@ func (r *runner) luaStudy(L *lua.LState) int {
 	var res *profile.StudyResult
 	err := r.inJob(a.what, a.pos, 2*runs*len(rows.rows), func(ctx context.Context) error {
 		var err error
-		res, err = profile.RunStudy(ctx, ph.p, rows.rows, spec, profile.Options{Workers: r.opt.Workers, Progress: r.progress(a.what)})
+		res, err = profile.RunStudy(ctx, ph.p, rows.rows, spec, profile.Options{Workers: r.opt.Workers, Progress: r.progress(a.what),
+			KeepResults: full})
 		return err
 	})
 	if err != nil {
@@ -703,6 +710,23 @@ func (r *runner) luaStudy(L *lua.LState) int {
 	r.out.Studies = append(r.out.Studies, rec)
 	L.Push(r.studyTable(job, res))
 	return 1
+}
+
+// keepFull reads a voyage's or a study's keep: "summary" keeps each row's
+// summary (what the reports read), "full" each row's case result as well;
+// without the key, Options.FullRows decides.
+func (r *runner) keepFull(a *args) bool {
+	switch v := a.get("keep"); v {
+	case lua.LNil:
+		return r.opt.FullRows
+	case lua.LString("summary"):
+		return false
+	case lua.LString("full"):
+		return true
+	default:
+		a.errorf(nil, "keep must be \"summary\" (each row's figures, the default) or \"full\" (each row's case result as well, under result); got %s", describe(v))
+		return r.opt.FullRows
+	}
 }
 
 // studyVariants reads variants = { { name, set, installed_cost }, ... }.
@@ -737,8 +761,9 @@ func (r *runner) studyVariants(ph *plantHandle, a *args) []profile.Variant {
 		}
 		x := profile.Variant{Name: vn, Set: set}
 		if c, ok := va.number("installed_cost"); ok {
-			if c < 0 {
-				va.errorf(nil, "installed_cost must not be negative; got %g", c)
+			if !moneyIn(c, maxCost) {
+				va.errorf(nil, "installed_cost must lie between 0 and %g (in any currency); got %g", maxCost, c)
+				c = 0
 			}
 			x.InstalledCost, x.HasCost = c, true
 		}
@@ -749,20 +774,33 @@ func (r *runner) studyVariants(ph *plantHandle, a *args) []profile.Variant {
 	return variants
 }
 
+// maxPrice and maxCost bound a study's prices (a tonne of fuel or of CO2)
+// and costs, in any currency: far above any real one (a tonne of fuel
+// costs under 10^8 in the currency with the most units to a dollar), so
+// that a study's money figures stay finite.
+const (
+	maxPrice = 1e9
+	maxCost  = 1e13
+)
+
+// moneyIn reports whether v is a sum of money from 0 to most.
+func moneyIn(v, most float64) bool { return v >= 0 && v <= most }
+
 // studyEconomics reads fuel_price, installed_cost, currency, carbon_price,
 // life and discount_rate.
 func (r *runner) studyEconomics(a *args) profile.Economics {
 	var econ profile.Economics
-	money := func(key string) float64 {
+	money := func(key string, most float64, per string) float64 {
 		v, ok := a.number(key)
-		if ok && v < 0 {
-			a.errorf(nil, "%s must not be negative; got %g", key, v)
+		if ok && !moneyIn(v, most) {
+			a.errorf(nil, "%s must lie between 0 and %g%s (in any currency); got %g", key, most, per, v)
+			return 0
 		}
 		return v
 	}
-	econ.FuelPrice = money("fuel_price")
-	econ.InstalledCost = money("installed_cost")
-	econ.CarbonPrice = money("carbon_price")
+	econ.FuelPrice = money("fuel_price", maxPrice, " a tonne")
+	econ.InstalledCost = money("installed_cost", maxCost, "")
+	econ.CarbonPrice = money("carbon_price", maxPrice, " a tonne")
 	econ.Currency, _ = a.str("currency", false)
 	life, hasLife := a.number("life")
 	if hasLife {
@@ -874,8 +912,8 @@ func (r *runner) studySweep(ph *plantHandle, a *args, v lua.LValue, econ profile
 		c, ok := ca.number("cost")
 		if !ok {
 			ca.errorf(nil, "cost is required: the installed cost of a unit of UA at, such as cost = 300000")
-		} else if !(c > 0) {
-			ca.errorf(nil, "cost must be positive; got %g", c)
+		} else if !(c > 0) || !moneyIn(c, maxCost) {
+			ca.errorf(nil, "cost must be above 0 and at most %g (in any currency); got %g", maxCost, c)
 		}
 		sw.Cost.RefCost = c
 		if e, ok := ca.number("exponent"); ok {
@@ -885,8 +923,8 @@ func (r *runner) studySweep(ph *plantHandle, a *args, v lua.LValue, econ profile
 			sw.Cost.Exponent = e
 		}
 		if f, ok := ca.number("fixed"); ok {
-			if f < 0 {
-				ca.errorf(nil, "fixed must not be negative; got %g", f)
+			if !moneyIn(f, maxCost) {
+				ca.errorf(nil, "fixed must lie between 0 and %g (in any currency); got %g", maxCost, f)
 			}
 			sw.Cost.Fixed = f
 		}
@@ -987,14 +1025,42 @@ func (r *runner) studyTable(job schema.Job, res *profile.StudyResult) lua.LValue
 	return o
 }
 
+// outlines returns, for a job that keeps its rows in full, the outline of
+// a row's case on p (check mode's stand-in for its case result); nil
+// otherwise.
+func outlines(p *plant.Plant, full bool) func(profile.Row) *plant.CaseResult {
+	if !full {
+		return nil
+	}
+	return func(row profile.Row) *plant.CaseResult {
+		cr := p.Outline(row.Case.Name, row.Case.Conditions)
+		cr.Pos, cr.Series = row.Case.Pos, row.Case.Series
+		return cr
+	}
+}
+
+// keptRows is rows if full, else nil.
+func keptRows(rows []profile.RowResult, full bool) []profile.RowResult {
+	if full {
+		return rows
+	}
+	return nil
+}
+
 // placeholderResult is a voyage's result in check mode: the rows, phases
-// and hours, zero figures.
-func placeholderResult(rows []profile.Row) *profile.Result {
+// and hours, zero figures; each row with its case's outline as its result
+// when outline is not nil (a job that keeps its rows in full), so that
+// the result has the shape of a solved one.
+func placeholderResult(rows []profile.Row, outline func(profile.Row) *plant.CaseResult) *profile.Result {
 	zero := func() profile.Totals { return profile.Totals{PeakRow: -1, TightestRow: -1} }
-	out := &profile.Result{Total: zero()}
+	out := &profile.Result{Total: zero(), Rows: make([]profile.RowResult, 0, len(rows))}
 	byPhase := map[string]int{}
 	for i, row := range rows {
-		out.Rows = append(out.Rows, profile.RowResult{Index: i, Phase: row.Phase, Hours: row.Hours})
+		rr := profile.RowResult{Index: i, Phase: row.Phase, Hours: row.Hours}
+		if outline != nil {
+			rr.Result = outline(row)
+		}
+		out.Rows = append(out.Rows, rr)
 		k, ok := byPhase[row.Phase]
 		if !ok {
 			k = len(out.Phases)

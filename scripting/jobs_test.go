@@ -166,7 +166,7 @@ func TestJobErrors(t *testing.T) {
 			`unknown_key.csv:1: column "COT 1.To": unknown key 'To'; did you mean 'to'?`,
 			`unknown_key.csv:1: unknown column "speed"`}},
 		{"job_errors.lua", []string{"rows[1]: hours must be a positive", `rows[2]: set.COT 1.mode must be "hold" or "heat_up"; got "heat"`, "rows[3]: phase is required", `"AB2" is not a boiler`}},
-		{"study_errors.lua", []string{`study_errors.lua:7: study "money" variants[2]: installed_cost must not be negative`,
+		{"study_errors.lua", []string{`study_errors.lua:7: study "money" variants[2]: installed_cost must lie between 0 and 1e+13 (in any currency); got -5`,
 			`study_errors.lua:7: study "money": discount_rate must not be negative; got -5 %`, `sweep: key must be "ua" or "pinch"`}},
 		{"ege_fouling.lua", []string{`ege_fouling.lua:5: exhaust gas economiser "EGE": fouling_rate needs clean_interval`}},
 		{"audit_errors.lua", []string{"claimed: mass expected", "cargo heating.off cannot be sampled", "did you mean 'eta_factor'?", "low must not exceed high", "samples must be a whole number", "band must satisfy"}},

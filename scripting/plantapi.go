@@ -130,7 +130,7 @@ func (r *runner) plantOptions(t *lua.LTable, what string, pos Pos) (*args, strin
 	if p, ok := a.quantity("ambient", units.Pressure, false); ok {
 		u := units.Options{AmbientPressure: p}
 		if err := u.Validate(); err != nil {
-			a.errorf(err, "ambient: %v", err)
+			a.errorf(err, "ambient must lie between 0.5 bar(a) and 1.5 bar(a), an absolute pressure such as \"1.013 bar(a)\"; got %s", asGiven(a.get("ambient")))
 		} else {
 			opt.AmbientPressure = p
 			a.uopt = u

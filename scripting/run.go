@@ -11,6 +11,7 @@ import (
 	"os"
 	"path"
 	"path/filepath"
+	"reflect"
 	"regexp"
 	"runtime/metrics"
 	"strconv"
@@ -87,6 +88,13 @@ type Options struct {
 	// The heap is the process's, so runs in parallel share the budget.
 	// Zero means 1 GiB.
 	MaxMemory uint64
+	// FullRows makes every voyage and study keep each row's full case
+	// result, as a job's keep = "full" does: its rows' JSON objects and
+	// Lua tables then carry the row's case under "result". False keeps
+	// each row's summary only (package plant/profile's RowSummary), a
+	// fraction of the memory; a job's own keep key decides for it either
+	// way.
+	FullRows bool
 	// Workers is the number of goroutines voyage, study and audit solve
 	// their rows on; zero means all cores (GOMAXPROCS). Their results do
 	// not depend on it.
@@ -292,6 +300,9 @@ type runner struct {
 	nCases    int
 	nJobs     int
 	errMT     *lua.LTable
+	// fields caches the struct fields of the schema's types as their Lua
+	// tables take them (fieldsOf).
+	fields map[reflect.Type][]luaField
 }
 
 // Errors used as context causes.

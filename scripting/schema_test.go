@@ -39,7 +39,7 @@ local function paths(t, prefix, out, seen)
         seen[k] = true
       else
         local p = prefix .. k
-        out[#out + 1] = p
+        if not out[p] then out[p] = true; out[#out + 1] = p end
         if type(v) == "table" and k ~= "inputs" then
           if v[1] ~= nil then
             for _, e in ipairs(v) do
@@ -69,6 +69,10 @@ emit("case", case(ship, { name = "at sea", sea = "15 C", air = "10 C", engine = 
 emit("voyage", voyage(ship, { name = "trip", rows = rows }))
 emit("study", study(ship, { name = "EGE", rows = rows, fuel_price = 600, installed_cost = 100000, currency = "EUR",
   carbon_price = 80, life = 10, discount_rate = "8 %",
+  variants = { { name = "without", set = { EGE = { off = true } } }, { name = "with" } },
+  sweep = { unit = "EGE", key = "ua", from = "20 kW/K", to = "60 kW/K", steps = 2, cost = { at = "40 kW/K", cost = 200000 } } }))
+emit("voyage_full", voyage(ship, { name = "trip in full", rows = rows, keep = "full" }))
+emit("study_full", study(ship, { name = "EGE in full", rows = rows, keep = "full", fuel_price = 600, life = 10, discount_rate = "8 %",
   variants = { { name = "without", set = { EGE = { off = true } } }, { name = "with" } },
   sweep = { unit = "EGE", key = "ua", from = "20 kW/K", to = "60 kW/K", steps = 2, cost = { at = "40 kW/K", cost = 200000 } } }))
 emit("audit", audit(ship, { name = "log", samples = 10, days = {
@@ -172,11 +176,18 @@ func TestLuaKeysAreJSONKeys(t *testing.T) {
 		"study":  uniqueSorted(jsonPaths(t, schema.NewStudy(job(s.Name, s.Plant, s.Pos, s.Rows), s.Result))),
 		"audit":  uniqueSorted(jsonPaths(t, schema.NewAudit(job(a.Name, a.Plant, a.Pos, a.Days), a.Result))),
 	}
+	vf, sf := run.Voyages[1], run.Studies[1]
+	want["voyage_full"] = uniqueSorted(jsonPaths(t, schema.NewVoyage(job(vf.Name, vf.Plant, vf.Pos, vf.Rows), vf.Result)))
+	want["study_full"] = uniqueSorted(jsonPaths(t, schema.NewStudy(job(sf.Name, sf.Plant, sf.Pos, sf.Rows), sf.Result)))
 	wantExtra := map[string]string{
 		"case":   "",
 		"voyage": "by_phase hours_no_boiler hours_one_boiler hours_two_boilers",
 		"study":  "by_name hours_no_boiler hours_one_boiler hours_two_boilers",
 		"audit":  "flagged_days",
+		// A voyage's rows' cases have no conveniences; a study's rows have
+		// none, and its totals have theirs.
+		"voyage_full": "by_phase hours_no_boiler hours_one_boiler hours_two_boilers",
+		"study_full":  "by_name hours_no_boiler hours_one_boiler hours_two_boilers",
 	}
 	for kind, w := range want {
 		got := lua[kind]
@@ -210,6 +221,24 @@ func TestLuaKeysAreJSONKeys(t *testing.T) {
 	for _, k := range []string{"rows[].warnings", "total.ege_fuel_saved_t", "row_sources"} {
 		if !contains(want["voyage"], k) {
 			t.Errorf("voyage: no key %q in %q", k, want["voyage"])
+		}
+	}
+	// Kept in full, and only then: a row's case, a variant's and a size's
+	// rows.
+	for kind, k := range map[string]string{"voyage_full": "rows[].result.boilers[].load_fraction",
+		"study_full": "variants[].rows[].result.fuel_kg_h"} {
+		if !contains(want[kind], k) {
+			t.Errorf("%s: no key %q", kind, k)
+		}
+	}
+	if !contains(want["study_full"], "sweep.points[].rows[].result.fuel_kg_h") {
+		t.Errorf("study_full: a sweep's sizes keep no rows")
+	}
+	for _, kind := range []string{"voyage", "study"} {
+		for _, k := range want[kind] {
+			if strings.Contains(k, "result") || strings.HasPrefix(k, "variants[].rows") {
+				t.Errorf("%s kept as summaries has %q", kind, k)
+			}
 		}
 	}
 }

@@ -236,3 +236,65 @@ func BenchmarkSparseAdd(b *testing.B) {
 		})
 	}
 }
+
+// BenchmarkCompileStar makes a Solver for the plant-like system of
+// star_test.go (two boilers, the consumers that give the order n) with
+// its SparseJacobian and the default SparseLU with minimum degree, and
+// solves it once (one op: New, with the structural diagnosis, the
+// colouring and the column order, then the first Solve: the Jacobian,
+// the first factorisation, one Newton step). B/op is the memory of a
+// plant's compile and first case on the solver's side; lu-entries the
+// entries of L and U (their diagonals included), the fill.
+func BenchmarkCompileStar(b *testing.B) {
+	ctx := context.Background()
+	for _, n := range []int{500, 2000, 8000} {
+		st := starOfOrder(n)
+		p := st.problem()
+		x0 := make([]float64, st.n)
+		b.Run("n="+strconv.Itoa(n), func(b *testing.B) {
+			var lu *SparseLU
+			for b.Loop() {
+				lu = &SparseLU{MinDegree: true}
+				sv, err := New(p, &Settings{Factorizer: lu})
+				if err != nil {
+					b.Fatal(err)
+				}
+				if _, err := sv.Solve(ctx, x0); err != nil {
+					b.Fatal(err)
+				}
+			}
+			b.ReportMetric(float64(st.n), "unknowns")
+			b.ReportMetric(float64(len(lu.lrow)+len(lu.ui)), "lu-entries")
+		})
+	}
+}
+
+// BenchmarkSymbolic times the parts of New's symbolic work on the
+// plant-like system of star_test.go, one at a time: the structural
+// diagnosis (DiagnoseIncidence: matching, Dulmage–Mendelsohn, colour
+// count), the colouring of the columns, and the minimum degree column
+// order of SparseLU.
+func BenchmarkSymbolic(b *testing.B) {
+	for _, n := range []int{500, 2000, 8000} {
+		st := starOfOrder(n)
+		var lu SparseLU
+		lu.SetPattern(st.n, st.pattern) // natural order: pp, pr are A's columns
+		pp, pr := lu.pp, lu.pr
+		for _, part := range []string{"diagnose", "color", "order"} {
+			b.Run("n="+strconv.Itoa(n)+"/"+part, func(b *testing.B) {
+				for b.Loop() {
+					switch part {
+					case "diagnose":
+						if _, err := DiagnoseIncidence(st.n, st.n, st.pattern, nil, nil); err != nil {
+							b.Fatal(err)
+						}
+					case "color":
+						colorColumns(st.pattern, st.n)
+					case "order":
+						minDegreeOrder(st.n, pp, pr)
+					}
+				}
+			})
+		}
+	}
+}

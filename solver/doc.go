@@ -99,9 +99,11 @@
 // An analytic Jacobian is used if the Problem gives one. Otherwise forward
 // differences with a step per unknown h_j = √ε·max(|x_j|, XScale_j), signed
 // like x_j and turned round when x_j + h_j would leave the box. With a
-// Pattern, the columns are grouped by a greedy (largest-first) colouring of
-// the column intersection graph (Curtis, Powell and Reid, J. Inst. Maths
-// Applics 13, 1974): columns that share no equation are perturbed together,
+// Pattern, the columns are grouped by a greedy (largest-first, by an upper
+// bound of the degree) colouring of the column intersection graph
+// (Curtis, Powell and Reid, J. Inst. Maths Applics 13, 1974), in time
+// near-linear in the nonzeros: columns that share no equation are
+// perturbed together,
 // so a banded or sparse Jacobian costs a handful of residual evaluations
 // (Result.Colors). The pattern must contain every nonzero of the Jacobian.
 // With a Pattern, the solver holds the Jacobian on the pattern (a
@@ -191,9 +193,10 @@
 // SparseLU, a left-looking sparse LU with threshold partial pivoting
 // (Gilbert and Peierls 1988), can be set in Settings.Factorizer for large
 // sparse Jacobians (it is the default with a SparseJacobian); it takes the
-// columns in their natural order unless SparseLU.MinDegree asks for a
-// minimum degree order found once from the Pattern (the pattern's zeros
-// are then kept in the structure). It keeps the symbolic part of each
+// columns in their natural order unless SparseLU.MinDegree asks for an
+// approximate minimum degree order found once from the Pattern (on a
+// quotient graph of AᵀA, in the manner of AMD and COLAMD; the pattern's
+// zeros are then kept in the structure). It keeps the symbolic part of each
 // factorisation (the reach of each column, the structure of L and U, the
 // pivots) and refactorises on it without any search, writing into the
 // kept storage, for as long as each pivot is the one kept; from the first

@@ -3,6 +3,7 @@ package solver
 import (
 	"errors"
 	"math"
+	"math/bits"
 	"sort"
 
 	"gonum.org/v1/gonum/mat"
@@ -20,34 +21,56 @@ type coloring struct {
 }
 
 // colorColumns colours the column intersection graph of pattern (n
-// columns) greedily, taking columns in order of decreasing degree
-// (largest first, Welsh and Powell 1967) and giving each the smallest colour
-// none of its neighbours has.
+// columns) greedily: columns in order of decreasing score (largest first,
+// Welsh and Powell 1967), each given the smallest colour none of its
+// neighbours has. The score of a column is Σ (|row| − 1) over its rows,
+// an upper bound of its degree in the graph that costs O(nonzeros),
+// where the degree itself costs Σ |row|² (a row of r entries is a clique
+// of r columns); ties go to the lower column.
+//
+// The colours a column must avoid are those of the columns it shares a
+// row with. For a row of at most max(16, 3·√n) entries they are read
+// from its columns; a longer row keeps the set of colours its columns
+// have taken as a bit set, with the first word not yet full, so that a
+// column in such rows looks at words, and starts at the first word that
+// none of its long rows has full. Time O(Σ over short rows of |row|² +
+// Σ over columns of the words looked at), which for bounded short rows
+// is linear in the nonzeros; memory O(nonzeros + long rows · colours/64).
 func colorColumns(pattern [][]int, n int) *coloring {
-	// Rows of each column, without duplicates, in one array.
+	// Rows of each column, without duplicates, in one array; and the
+	// columns of each row, the same.
 	count := make([]int, n+1)
+	rcount := make([]int, len(pattern)+1)
 	last := make([]int, n) // last[j] = 1 + the last row counted for column j
 	for i, row := range pattern {
 		for _, j := range row {
 			if last[j] != i+1 {
 				last[j] = i + 1
 				count[j+1]++
+				rcount[i+1]++
 			}
 		}
 	}
 	for j := 0; j < n; j++ {
 		count[j+1] += count[j]
 	}
+	for i := range pattern {
+		rcount[i+1] += rcount[i]
+	}
 	rows := make([]int, count[n])
+	cols := make([]int, count[n])
 	next := make([]int, n)
 	copy(next, count[:n])
 	clear(last)
 	for i, row := range pattern {
+		k := rcount[i]
 		for _, j := range row {
 			if last[j] != i+1 {
 				last[j] = i + 1
 				rows[next[j]] = i
 				next[j]++
+				cols[k] = j
+				k++
 			}
 		}
 	}
@@ -55,50 +78,85 @@ func colorColumns(pattern [][]int, n int) *coloring {
 	for j := range colRows {
 		colRows[j] = rows[count[j]:count[j+1]:count[j+1]]
 	}
-	// Degree of each column in the intersection graph.
-	stamp := next // reused
-	for j := range stamp {
-		stamp[j] = -1
-	}
-	degree := make([]int, n)
+	rowCols := func(i int) []int { return cols[rcount[i]:rcount[i+1]] }
+	// Largest first by score.
+	score := next // reused
 	for j := 0; j < n; j++ {
-		stamp[j] = j
+		s := 0
 		for _, i := range colRows[j] {
-			for _, k := range pattern[i] {
-				if stamp[k] != j {
-					stamp[k] = j
-					degree[j]++
-				}
-			}
+			s += rcount[i+1] - rcount[i] - 1
 		}
+		score[j] = s
 	}
 	order := make([]int, n)
 	for j := range order {
 		order[j] = j
 	}
-	sort.SliceStable(order, func(a, b int) bool { return degree[order[a]] > degree[order[b]] })
+	sort.SliceStable(order, func(a, b int) bool { return score[order[a]] > score[order[b]] })
 
-	color := degree // reused: the degrees are no longer needed once sorted
+	limit := sqrtLimit(n, 3)
+	long := make([]int, len(pattern)) // 1 + the index of row i's bit set, 0 for a short row
+	var used [][]uint64               // colours taken in each long row
+	var full []int                    // the first word of each long row's set that is not full
+	for i := range pattern {
+		if rcount[i+1]-rcount[i] > limit {
+			used = append(used, nil)
+			full = append(full, 0)
+			long[i] = len(used)
+		}
+	}
+	color := score // reused: the scores are no longer needed once sorted
 	for j := range color {
 		color[j] = -1
 	}
-	forbidden := make([]int, n+1) // forbidden[c] == j+1 when colour c is taken by a neighbour of j
+	forbidden := make([]int, n+1) // forbidden[c] == j+1 when colour c is taken by a neighbour of j in a short row
 	ncolors := 0
 	for _, j := range order {
+		w0 := 0
 		for _, i := range colRows[j] {
-			for _, k := range pattern[i] {
+			if b := long[i]; b > 0 {
+				w0 = max(w0, full[b-1])
+				continue
+			}
+			for _, k := range rowCols(i) {
 				if k != j && color[k] >= 0 {
 					forbidden[color[k]] = j + 1
 				}
 			}
 		}
-		c := 0
-		for forbidden[c] == j+1 {
-			c++
+		c := -1
+		for w := w0; c < 0; w++ {
+			var taken uint64
+			for _, i := range colRows[j] {
+				if b := long[i]; b > 0 && w < len(used[b-1]) {
+					taken |= used[b-1][w]
+				}
+			}
+			for free := ^taken; free != 0; free &= free - 1 {
+				if t := w*64 + bits.TrailingZeros64(free); t >= n || forbidden[t] != j+1 {
+					c = t
+					break
+				}
+			}
 		}
 		color[j] = c
 		if c+1 > ncolors {
 			ncolors = c + 1
+		}
+		for _, i := range colRows[j] {
+			b := long[i]
+			if b == 0 {
+				continue
+			}
+			u := used[b-1]
+			for len(u) <= c/64 {
+				u = append(u, 0)
+			}
+			u[c/64] |= 1 << (c % 64)
+			for full[b-1] < len(u) && u[full[b-1]] == ^uint64(0) {
+				full[b-1]++
+			}
+			used[b-1] = u
 		}
 	}
 	size := make([]int, ncolors+1)
@@ -108,16 +166,20 @@ func colorColumns(pattern [][]int, n int) *coloring {
 	for c := 0; c < ncolors; c++ {
 		size[c+1] += size[c]
 	}
-	cols := make([]int, n)
+	groups := make([][]int, ncolors)
 	at := forbidden[:ncolors] // reused
 	copy(at, size[:ncolors])
+	members := cols[:0] // reused where long enough: the rows' columns are no longer needed
+	if cap(members) < n {
+		members = make([]int, n)
+	}
+	members = members[:n]
 	for j, c := range color {
-		cols[at[c]] = j
+		members[at[c]] = j
 		at[c]++
 	}
-	groups := make([][]int, ncolors)
 	for c := range groups {
-		groups[c] = cols[size[c]:size[c+1]:size[c+1]]
+		groups[c] = members[size[c]:size[c+1]:size[c+1]]
 	}
 	return &coloring{groups: groups, colRows: colRows}
 }
@@ -153,6 +215,9 @@ func (s *Solver) fdStep(j int, x []float64) float64 {
 func (s *Solver) fdJacobian(x, r []float64, it int) error {
 	n := s.n
 	copy(s.xt, x)
+	if s.sj != nil && s.colPos == nil {
+		s.colorPositions() // an analytic problem's first differences
+	}
 	if s.color == nil {
 		raw := s.jac.RawMatrix()
 		for j := 0; j < n; j++ {

@@ -142,3 +142,79 @@ func TestColoredSolveCost(t *testing.T) {
 		t.Errorf("coloured solve used %d residual evaluations in %d iterations with %d colours", res.Stats.ResidualEvals, res.Stats.Iterations, res.Colors)
 	}
 }
+
+// TestColorLongRows: on patterns with rows long enough to be kept as bit
+// sets of colours (the plant-like star; seeded random patterns with a
+// few rows of half the columns), the colouring is valid (no two columns
+// of a group share a row, every column in one group) and, being greedy,
+// uses at most Δ + 1 colours for the largest degree Δ of the column
+// intersection graph, and at least the length of the longest row, which
+// is a clique (both bounds derived here).
+func TestColorLongRows(t *testing.T) {
+	t.Parallel()
+	rng := rand.New(rand.NewPCG(17, 5))
+	patterns := [][][]int{newStar(2, 40, 1).pattern, starOfOrder(2000).pattern}
+	for trial := 0; trial < 20; trial++ {
+		n := 50 + rng.IntN(400)
+		p, _ := randomSparse(rng, n, 3/float64(n))
+		for range 1 + rng.IntN(4) {
+			i := rng.IntN(n)
+			for j := 0; j < n; j++ {
+				if rng.IntN(2) == 0 {
+					p[i] = append(p[i], j, j) // duplicates are ignored
+				}
+			}
+		}
+		patterns = append(patterns, p)
+	}
+	for k, pattern := range patterns {
+		n := len(pattern)
+		col := colorColumns(pattern, n)
+		group := make([]int, n)
+		for j := range group {
+			group[j] = -1
+		}
+		for g, members := range col.groups {
+			for _, j := range members {
+				if group[j] >= 0 {
+					t.Fatalf("pattern %d: column %d in groups %d and %d", k, j, group[j], g)
+				}
+				group[j] = g
+			}
+		}
+		longest, maxDeg := 0, 0
+		rowsOf := make([][]int, n)
+		for i, row := range pattern {
+			seen := map[int]bool{}
+			for _, j := range row {
+				seen[j] = true
+			}
+			longest = max(longest, len(seen))
+			inRow := map[int]int{} // group → column, within the row
+			for j := range seen {
+				if group[j] < 0 {
+					t.Fatalf("pattern %d: column %d has no group", k, j)
+				}
+				if c, ok := inRow[group[j]]; ok {
+					t.Fatalf("pattern %d: columns %d and %d of group %d share row %d", k, c, j, group[j], i)
+				}
+				inRow[group[j]] = j
+				rowsOf[j] = append(rowsOf[j], i)
+			}
+		}
+		for j := 0; j < n; j++ {
+			nb := map[int]bool{}
+			for _, i := range rowsOf[j] {
+				for _, c := range pattern[i] {
+					if c != j {
+						nb[c] = true
+					}
+				}
+			}
+			maxDeg = max(maxDeg, len(nb))
+		}
+		if c := len(col.groups); c < longest || c > maxDeg+1 {
+			t.Errorf("pattern %d (order %d): %d colours, want between the longest row %d and Δ+1 = %d", k, n, c, longest, maxDeg+1)
+		}
+	}
+}

@@ -275,9 +275,8 @@ func TestJacobianSparse(t *testing.T) {
 // TestNoSquareStorage: New and the first Solve of the 2025-unknown Bratu
 // system (nine nonzeros a row) with a SparseJacobian allocate far less
 // than one dense matrix of its order: the Jacobian, its factors and the
-// column order are O(nonzeros + fill), and the bit sets of the order
-// n²/4 bytes (constructed check, no source; BenchmarkFirstSolve reports
-// the bytes).
+// column order are O(nonzeros + fill) (constructed check, no source;
+// BenchmarkFirstSolve reports the bytes).
 func TestNoSquareStorage(t *testing.T) {
 	b := newBratu(45, 1)
 	dense := uint64(b.n * b.n * 8)

@@ -39,7 +39,7 @@ type Solver struct {
 	sj     *Sparse
 	model  *mat.Dense
 	dense  *mat.Dense
-	color  *coloring // nil without a Pattern: dense finite differences
+	color  *coloring // nil without a Pattern (dense finite differences), and with an analytic Jacobian until differences are asked for
 	colPos [][]int   // colPos[j][k]: position in sj of (color.colRows[j][k], j)
 
 	jtj    *mat.Dense // J̃ᵀJ̃ + μI for Levenberg–Marquardt steps (Regularize, no Pattern)
@@ -92,7 +92,10 @@ const (
 // *StructureError if the pattern is structurally singular.
 //
 // New copies XScale, FScale, Lower and Upper, and colours the Pattern
-// once; later changes to those slices do not reach the Solver. The
+// once when the problem has no analytic Jacobian (with one, the
+// diagnosis counts the colours, and Solver.Jacobian colours the Pattern
+// when first asked for differences); later changes to those slices do
+// not reach the Solver. The
 // Residual and Jacobian functions are called as they are, so a sequence
 // of problems can share one Solver by closing over changing inputs.
 //
@@ -116,8 +119,14 @@ func New(p Problem, s *Settings) (*Solver, error) {
 	}
 	n := p.Dim
 	sv := &Solver{p: p, set: set, n: n}
+	fd := p.Jacobian == nil && p.SparseJacobian == nil
+	if p.Pattern != nil && fd {
+		// The colouring of finite differences, which the diagnosis
+		// counts too.
+		sv.color = colorColumns(p.Pattern, n)
+	}
 	if p.Pattern != nil && !set.SkipDiagnosis {
-		st, err := Diagnose(p)
+		st, err := diagnoseIncidence(n, n, p.Pattern, p.EqNames, p.VarNames, sv.color)
 		if err != nil {
 			return nil, err
 		}
@@ -157,22 +166,17 @@ func New(p Problem, s *Settings) (*Solver, error) {
 		sv.lmFact = NewDenseLU()
 	}
 	if p.Pattern != nil {
-		sv.color = colorColumns(p.Pattern, n)
 		ptr, col := compressPattern(p.Pattern, n)
 		sv.sj = newSparse(&sparsePattern{n: n, ptr: ptr, col: col, rowNames: p.EqNames, colNames: p.VarNames})
-		sv.colPos = make([][]int, n)
-		pos := make([]int, 0, len(col))
-		for j, rows := range sv.color.colRows {
-			start := len(pos)
-			for _, i := range rows {
-				pos = append(pos, sv.sj.Index(i, j))
-			}
-			sv.colPos[j] = pos[start:len(pos):len(pos)]
+		if fd {
+			sv.colorPositions()
 		}
 		if p.Jacobian != nil {
 			sv.model = mat.NewDense(n, n, nil)
 		}
-		if pf, ok := sv.fact.(PatternFactorizer); ok {
+		if lu, ok := sv.fact.(*SparseLU); ok {
+			lu.setPattern(n, ptr, col) // SetPattern, on the rows compressed here
+		} else if pf, ok := sv.fact.(PatternFactorizer); ok {
 			pf.SetPattern(n, p.Pattern)
 		}
 		sv.sfact, _ = sv.fact.(SparseFactorizer)
@@ -196,6 +200,29 @@ func New(p Problem, s *Settings) (*Solver, error) {
 		sv.res.Colors = n
 	}
 	return sv, nil
+}
+
+// colorPositions colours the columns of the Pattern (unless done) and
+// finds where each entry of a column's rows is in the sparse Jacobian,
+// for coloured finite differences. New does it for a problem without an
+// analytic Jacobian; Solver.Jacobian and JacobianSparse do it when first
+// asked for differences of one with.
+func (s *Solver) colorPositions() {
+	if s.color == nil {
+		s.color = colorColumns(s.p.Pattern, s.n)
+	}
+	if s.colPos != nil {
+		return
+	}
+	s.colPos = make([][]int, s.n)
+	pos := make([]int, 0, s.sj.NNZ())
+	for j, rows := range s.color.colRows {
+		start := len(pos)
+		for _, i := range rows {
+			pos = append(pos, s.sj.Index(i, j))
+		}
+		s.colPos[j] = pos[start:len(pos):len(pos)]
+	}
 }
 
 // Structure returns the structural diagnosis New made, or nil if the

@@ -91,8 +91,8 @@ type SparseLU struct {
 	DiagTol float64
 
 	// MinDegree makes SetPattern (or the first factorisation of a Sparse)
-	// order the columns by minimum degree on the graph of the pattern's
-	// AᵀA (see minDegreeOrder) and keep the pattern's zeros in the
+	// order the columns by approximate minimum degree on the graph of the
+	// pattern's AᵀA (see minDegreeOrder) and keep the pattern's zeros in the
 	// structure. On Jacobians whose entries come and go (a plant's lines
 	// with and without flow) that saves most of the symbolic work and
 	// much of the fill. Set it before SetPattern; it has no effect without
@@ -149,9 +149,11 @@ type SparseLU struct {
 	q      []int
 	static bool // the structure of A is the pattern, zeros included
 	// fillBound bounds the entries of L and of U below and above the
-	// diagonal in the order q (George and Ng; see minDegreeOrder), 0
-	// when unknown; the first factorisation sizes its storage by it.
+	// diagonal in the order q (George and Ng; see minDegreeOrder) when
+	// fillKnown; the first factorisation sizes its storage by it (see
+	// general).
 	fillBound int
+	fillKnown bool
 
 	// For a Sparse matrix of pattern srcPat: src[c] is the position in its
 	// values of the entry at position c of pp, pr.
@@ -174,8 +176,9 @@ type SparseLU struct {
 	kept int
 
 	// Counters for tests: columns whose reach was searched, columns a
-	// refactorisation pivoted afresh.
-	dfsCols, repivots int
+	// refactorisation pivoted afresh, reallocations of the storage of L
+	// or U by reserve.
+	dfsCols, repivots, grows int
 }
 
 // KeptPivots implements Refactorizer: the number of steps of the last
@@ -197,7 +200,7 @@ func (s *SparseLU) SetPattern(n int, pattern [][]int) {
 			s.symOK = false // the structure of A changes
 			s.dropAlternates()
 		}
-		s.pn, s.pp, s.pr, s.q, s.static, s.srcPat, s.fillBound = 0, nil, nil, nil, false, nil, 0
+		s.pn, s.pp, s.pr, s.q, s.static, s.srcPat, s.fillBound, s.fillKnown = 0, nil, nil, nil, false, nil, 0, false
 		return
 	}
 	if len(pattern) != n {
@@ -236,10 +239,10 @@ func (s *SparseLU) setPattern(n int, ptr, col []int) {
 	}
 	s.pp, s.pr = count, pr
 	s.pn = n
-	s.q, s.fillBound = nil, 0
+	s.q, s.fillBound, s.fillKnown = nil, 0, false
 	s.static = s.MinDegree
 	if s.static {
-		s.q, s.fillBound = minDegreeOrder(n, s.pp, s.pr)
+		s.q, s.fillBound, s.fillKnown = minDegreeOrder(n, s.pp, s.pr)
 		s.pp, s.pr = permuteColumns(s.q, s.pp, s.pr)
 	}
 	s.srcPat = nil
@@ -716,10 +719,7 @@ func (s *SparseLU) general(k0 int, keep bool, tol float64) error {
 			s.pinv[i] = -1
 		}
 	}
-	if b := n + s.fillBound; k0 == 0 && cap(s.lrow) < b && cap(s.ui) < b && s.fillBound <= 16*len(s.ax) {
-		// The first factorisation: the bound of the fill, if known and
-		// not far above the size of A (a dense row makes AᵀA dense), is
-		// the size; reserve grows it if the bound does not hold.
+	if b := s.firstSize(); k0 == 0 && cap(s.lrow) < b && cap(s.ui) < b {
 		s.lrow, s.lx = make([]int, 0, b), make([]float64, 0, b)
 		s.ui, s.ux = make([]int, 0, b), make([]float64, 0, b)
 	}
@@ -733,7 +733,15 @@ func (s *SparseLU) general(k0 int, keep bool, tol float64) error {
 			s.sortReach(top)
 		}
 		s.dfsCols++
-		s.reserve(n - top)
+		// The column adds its rows not yet pivoted to L and the others,
+		// with the pivot, to U.
+		free := 0
+		for _, i := range s.xi[top:n] {
+			if s.pinv[i] < 0 {
+				free++
+			}
+		}
+		s.reserve(free, n-top-free+1)
 		s.numeric(k, top)
 		ipiv, amax := -1, -1.0
 		for p := top; p < n; p++ {
@@ -794,7 +802,9 @@ func (s *SparseLU) general(k0 int, keep bool, tol float64) error {
 	// All of L, since the rows of the earlier columns are pivoted at
 	// later steps, which may have changed.
 	if cap(s.li) < len(s.lrow) {
-		s.li = make([]int, len(s.lrow))
+		// As large as L's storage, so that a later factorisation with
+		// more entries in L does not reallocate it.
+		s.li = make([]int, len(s.lrow), cap(s.lrow))
 	}
 	s.li = s.li[:len(s.lrow)]
 	for p, i := range s.lrow {
@@ -803,20 +813,37 @@ func (s *SparseLU) general(k0 int, keep bool, tol float64) error {
 	return nil
 }
 
-// reserve makes room for k more entries in L and in U, the most one
-// column adds, growing the storage by doubling (append's growth of about
-// 1.25 for large slices would leave four times the final size as
-// garbage on a first factorisation).
-func (s *SparseLU) reserve(k int) {
-	if need := len(s.lrow) + k; need > cap(s.lrow) {
+// firstSize is the room the first factorisation makes for each of L and
+// U (entries, diagonals included): n plus the bound of the entries off
+// the diagonal when the order gives one (fillKnown) and it is at most
+// 16 times the entries of A, so that the factors of any pivot sequence
+// fit without growing; otherwise, where there is no bound or the bound
+// is far above what partial pivoting makes (a dense row makes AᵀA
+// dense), n plus the entries of A, which reserve grows by doubling when
+// the factors need more.
+func (s *SparseLU) firstSize() int {
+	if s.fillKnown && s.fillBound <= 16*len(s.ax) {
+		return s.n + s.fillBound
+	}
+	return s.n + len(s.ax)
+}
+
+// reserve makes room for kl more entries in L and ku in U, growing the
+// storage by doubling (append's growth of about 1.25 for large slices
+// would leave four times the final size as garbage on a first
+// factorisation).
+func (s *SparseLU) reserve(kl, ku int) {
+	if need := len(s.lrow) + kl; need > cap(s.lrow) {
 		c := 2 * need
 		s.lrow = append(make([]int, 0, c), s.lrow...)
 		s.lx = append(make([]float64, 0, c), s.lx...)
+		s.grows++
 	}
-	if need := len(s.ui) + k; need > cap(s.ui) {
+	if need := len(s.ui) + ku; need > cap(s.ui) {
 		c := 2 * need
 		s.ui = append(make([]int, 0, c), s.ui...)
 		s.ux = append(make([]float64, 0, c), s.ux...)
+		s.grows++
 	}
 }
 

@@ -5,7 +5,6 @@ import (
 	"errors"
 	"math"
 	"math/rand/v2"
-	"slices"
 	"testing"
 
 	"gonum.org/v1/gonum/floats"
@@ -304,30 +303,6 @@ func TestRefactorTinyPivot(t *testing.T) {
 		// Back to the first matrix for the next ε, by a fresh factorisation.
 		if err := lu.FactorizeSparse(sparseOf(pattern, mat.NewDense(2, 2, []float64{2, 1, 1, 1}))); err != nil {
 			t.Fatal(err)
-		}
-	}
-}
-
-// TestMinDegreeListsBits: the adjacency-list implementation of the
-// minimum degree order (used above order bitsOrderMax) gives the same
-// order and fill count as the bit-set one on seeded random patterns, the
-// Bratu grid and a plant-like network (constructed check, no source).
-func TestMinDegreeListsBits(t *testing.T) {
-	t.Parallel()
-	rng := rand.New(rand.NewPCG(77, 1))
-	var patterns [][][]int
-	for trial := 0; trial < 60; trial++ {
-		p, _ := randomSparse(rng, 1+rng.IntN(150), 0.02+0.1*rng.Float64())
-		patterns = append(patterns, p)
-	}
-	patterns = append(patterns, newBratu(12, 3).pattern, newNetwork(9, 7, 4).pattern)
-	for k, pattern := range patterns {
-		var lu SparseLU
-		lu.SetPattern(len(pattern), pattern) // natural order: pp, pr are A's columns
-		qb, fb := minDegreeBits(lu.pn, lu.pp, lu.pr)
-		ql, fl := minDegreeLists(lu.pn, lu.pp, lu.pr)
-		if fb != fl || !slices.Equal(qb, ql) {
-			t.Fatalf("pattern %d (order %d): bits fill %d order %v, lists fill %d order %v", k, lu.pn, fb, qb, fl, ql)
 		}
 	}
 }

@@ -136,7 +136,7 @@ func Diagnose(p Problem) (*Structure, error) {
 	if len(p.Pattern) != p.Dim {
 		return nil, fmt.Errorf("%w: Problem.Pattern has %d rows, want Dim = %d", ErrInvalidProblem, len(p.Pattern), p.Dim)
 	}
-	return DiagnoseIncidence(p.Dim, p.Dim, p.Pattern, p.EqNames, p.VarNames)
+	return diagnoseIncidence(p.Dim, p.Dim, p.Pattern, p.EqNames, p.VarNames, nil)
 }
 
 // DiagnoseIncidence analyses a system of eqs equations in vars unknowns,
@@ -146,6 +146,13 @@ func Diagnose(p Problem) (*Structure, error) {
 // system that is not square or not structurally nonsingular returns its
 // Structure and a *StructureError.
 func DiagnoseIncidence(eqs, vars int, pattern [][]int, eqNames, varNames []string) (*Structure, error) {
+	return diagnoseIncidence(eqs, vars, pattern, eqNames, varNames, nil)
+}
+
+// diagnoseIncidence is DiagnoseIncidence with the colouring of the
+// columns, if the caller has made it (nil: made here when the system is
+// square).
+func diagnoseIncidence(eqs, vars int, pattern [][]int, eqNames, varNames []string, col *coloring) (*Structure, error) {
 	if eqs < 0 || vars < 0 || len(pattern) != eqs {
 		return nil, fmt.Errorf("%w: incidence of %d equations and %d unknowns has %d pattern rows, want %d", ErrInvalidProblem, eqs, vars, len(pattern), eqs)
 	}
@@ -164,27 +171,41 @@ func DiagnoseIncidence(eqs, vars int, pattern [][]int, eqNames, varNames []strin
 	s := &Structure{Equations: eqs, Unknowns: vars, Rank: rank, MatchEq: matchEq, MatchVar: matchVar,
 		eqNames: eqNames, varNames: varNames}
 
-	colRows := make([][]int, vars)
+	// The equations of each unknown, in one array (each list is walked
+	// once, so duplicates in a row do no harm).
+	cptr := make([]int, vars+1)
+	for _, row := range pattern {
+		for _, j := range row {
+			cptr[j+1]++
+		}
+	}
+	for j := 0; j < vars; j++ {
+		cptr[j+1] += cptr[j]
+	}
+	crow := make([]int, cptr[vars])
+	fill := make([]int, vars)
+	copy(fill, cptr[:vars])
 	for i, row := range pattern {
 		for _, j := range row {
-			colRows[j] = append(colRows[j], i)
+			crow[fill[j]] = i
+			fill[j]++
 		}
 	}
 	// Under-determined part: alternating paths from unmatched unknowns
-	// (unknown → any equation containing it → that equation's matched unknown).
+	// (unknown → any equation containing it → that equation's matched
+	// unknown). Each unknown enters the queue once.
 	underEq := make([]bool, eqs)
 	underVar := make([]bool, vars)
-	var queue []int
+	queue := fill[:0] // reused
 	for j := 0; j < vars; j++ {
 		if matchVar[j] < 0 {
 			underVar[j] = true
 			queue = append(queue, j)
 		}
 	}
-	for len(queue) > 0 {
-		j := queue[0]
-		queue = queue[1:]
-		for _, i := range colRows[j] {
+	for q := 0; q < len(queue); q++ {
+		j := queue[q]
+		for _, i := range crow[cptr[j]:cptr[j+1]] {
 			if underEq[i] {
 				continue
 			}
@@ -197,18 +218,18 @@ func DiagnoseIncidence(eqs, vars int, pattern [][]int, eqNames, varNames []strin
 	}
 	// Over-determined part: alternating paths from unmatched equations
 	// (equation → any unknown in it → that unknown's matched equation).
+	// Each equation enters the queue once.
 	overEq := make([]bool, eqs)
 	overVar := make([]bool, vars)
-	queue = queue[:0]
+	queue = make([]int, 0, eqs)
 	for i := 0; i < eqs; i++ {
 		if matchEq[i] < 0 {
 			overEq[i] = true
 			queue = append(queue, i)
 		}
 	}
-	for len(queue) > 0 {
-		i := queue[0]
-		queue = queue[1:]
+	for q := 0; q < len(queue); q++ {
+		i := queue[q]
 		for _, j := range pattern[i] {
 			if overVar[j] {
 				continue
@@ -220,6 +241,8 @@ func DiagnoseIncidence(eqs, vars int, pattern [][]int, eqNames, varNames []strin
 			}
 		}
 	}
+	s.SquareEquations = make([]int, 0, eqs)
+	s.SquareUnknowns = make([]int, 0, vars)
 	for i := 0; i < eqs; i++ {
 		switch {
 		case underEq[i]:
@@ -241,7 +264,10 @@ func DiagnoseIncidence(eqs, vars int, pattern [][]int, eqNames, varNames []strin
 		}
 	}
 	if eqs == vars && vars > 0 {
-		s.Colors = len(colorColumns(pattern, vars).groups)
+		if col == nil {
+			col = colorColumns(pattern, vars)
+		}
+		s.Colors = len(col.groups)
 	}
 	return s, s.Err()
 }

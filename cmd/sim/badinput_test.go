@@ -178,6 +178,8 @@ func TestBadInputs(t *testing.T) {
 			stdout: "Nothing was solved"},
 		{name: "job time limit below zero", args: []string{"run", "--job-timeout", "-1s", "x.lua"}, code: exitUsage,
 			stderr: "sim run: --job-timeout -1s: the time limit must be above zero and at most 24h0m0s, such as 10m or 2h\n" + runUsage},
+		{name: "rows neither summary nor full", args: []string{"run", "--rows", "all", "x.lua"}, code: exitUsage,
+			stderr: "sim run: --rows \"all\": give summary (each row's figures, the default) or full (each row's case result as well)\n" + runUsage},
 
 		// sim steam: out of range is a failure (1), a mistake of usage 2.
 		// 700 bar(g) is 70.101325 MPa (700 bar + 1.01325 bar); the
@@ -228,6 +230,83 @@ func TestBadInputs(t *testing.T) {
 				"{dir}/s.lua:3: consumer \"heating\": returns must lie between 0 % and 100 %; got 95; write \"95 %\"\n" +
 				"{dir}/s.lua:3: consumer \"heating\": return_T must lie between 1 C and 200 C; got 0 K\n" +
 				"{dir}/s.lua:4: unit \"PRV LP\": its set pressure 17 bar(a) is above its inlet's 8.01 bar(a) (line \"to PRV LP\"): a reducing valve cannot raise the pressure; set it below, or feed it from a higher header\n"},
+		{name: "fuel_price of 1e308", files: map[string]string{"plant.lua": badPlant, "y.csv": "phase,hours\nsea,10\n",
+			"s.lua": "local ship = include(\"plant.lua\")\nstudy(ship, { csv = \"y.csv\", fuel_price = 1e308, variants = { { name = \"base\" }, { name = \"more\", set = { galley = { factor = 1.1 } } } } })\n"},
+			args: []string{"run", "--quiet", "{dir}/s.lua"}, code: exitFail,
+			stderr: "{dir}/s.lua:2: study \"study 1\": fuel_price must lie between 0 and 1e+09 a tonne (in any currency); got 1e+308\n"},
+		{name: "zeros given: usable, a motor's and a turbine's efficiency", files: map[string]string{"s.lua": `local ship = steam_plant { name = "Invented Test Coaster", usable = "0 %",
+  feed_pump = { motor_eta = "0 %" },
+  boilers = { { name = "AB1", mcr = "4 t/h", drum = "7 bar(g)", fuel = "VLSFO", efficiency = "85 %" } },
+  turbines = { { name = "T1", power = "100 kW", eta_is = "60 %", eta_mech = "0 %", exhaust = "1.5 bar(a)" } },
+  consumers = { { name = "b", duty = "300 kW", returns = "90 %" } } }
+`},
+			args: []string{"check", "{dir}/s.lua"}, code: exitFail,
+			stderr: "{dir}/s.lua:1: plant \"Invented Test Coaster\": usable must lie between 50 % and 100 % of one boiler's MCR; got 0 %\n" +
+				"{dir}/s.lua:2: feed pump \"feed pump\": motor_eta must lie between 5 % and 100 %; got 0 %\n" +
+				"{dir}/s.lua:4: turbine \"T1\": eta_mech must lie between 5 % and 100 %; got 0 %\n"},
+		{name: "a turbine exhausting above its inlet", files: map[string]string{"s.lua": `local ship = steam_plant { name = "Invented Test Coaster",
+  boilers = { { name = "AB1", mcr = "4 t/h", drum = "7 bar(g)", fuel = "VLSFO", efficiency = "85 %" } },
+  turbines = { { name = "T1", power = "100 kW", eta_is = "60 %", exhaust = "9 bar(a)" } },
+  consumers = { { name = "b", duty = "300 kW", returns = "90 %" } } }
+`},
+			args: []string{"check", "{dir}/s.lua"}, code: exitFail,
+			stderr: "{dir}/s.lua:3: unit \"T1\": its exhaust at 9 bar(a) is not below its inlet's 8.01 bar(a) (line \"steam to T1\"): steam cannot expand through it; give an exhaust below the inlet\n"},
+		{name: "returns without a return line", files: map[string]string{"s.lua": `local ship = plant { name = "no return line" }
+ship:makeup { name = "mu" }
+ship:feed_tank { name = "hotwell" }
+ship:feed_pump { name = "fp", boilers = { "AB1" } }
+ship:boiler { name = "AB1", mcr = "4 t/h", drum = "7 bar(g)", fuel = "VLSFO", efficiency = "85 %" }
+ship:consumer { name = "b", duty = "300 kW", returns = "95 %" }
+ship:line("m", "mu", "hotwell")
+ship:line("s", "hotwell", "fp")
+ship:line("f", "fp", "AB1.feed")
+ship:line("st", "AB1.steam", "b")
+`},
+			args: []string{"check", "{dir}/s.lua"}, code: exitFail,
+			stderr: "{dir}/s.lua:6: unit \"b\": returns 95 % of its condensate, but has no return line (its port \"out\" is not connected): connect it to the hotwell, or give returns = \"0 %\" if all its condensate is lost\n"},
+		{name: "lead_load of 150 %", files: map[string]string{"s.lua": `local ship = steam_plant { name = "Invented Test Coaster", sharing = "lead", lead_load = "150 %",
+  boilers = { { name = "AB1", mcr = "4 t/h", drum = "7 bar(g)", fuel = "VLSFO", efficiency = "85 %" },
+              { name = "AB2", mcr = "4 t/h", drum = "7 bar(g)", fuel = "VLSFO", efficiency = "85 %" } },
+  consumers = { { name = "b", duty = "300 kW", returns = "90 %" } } }
+`},
+			args: []string{"check", "{dir}/s.lua"}, code: exitFail,
+			stderr: "{dir}/s.lua:1: plant \"Invented Test Coaster\": lead_load must lie between 10 % and 100 % of the lead boiler's MCR; got 150 %\n"},
+		{name: "ambient pressure out of range", files: map[string]string{"s.lua": `local ship = steam_plant { name = "Invented Test Coaster", ambient = "2 bar(a)",
+  boilers = { { name = "AB1", mcr = "4 t/h", drum = "7 bar(g)", fuel = "VLSFO", efficiency = "85 %" } },
+  consumers = { { name = "b", duty = "300 kW", returns = "90 %" } } }
+`},
+			args: []string{"check", "{dir}/s.lua"}, code: exitFail,
+			stderr: "{dir}/s.lua:1: plant \"Invented Test Coaster\": ambient must lie between 0.5 bar(a) and 1.5 bar(a), an absolute pressure such as \"1.013 bar(a)\"; got 2 bar(a)\n"},
+		{name: "a failed check marked in the JSON", files: map[string]string{"plant.lua": badPlant,
+			"s.lua": badCase + "check(r.fuel_t_per_day > 100, \"one boiler burns 100 t a day\")\n"},
+			args: []string{"run", "--json", "--quiet", "{dir}/s.lua"}, code: exitFail,
+			stderr: "{dir}/s.lua:3: assertion failed: one boiler burns 100 t a day\n",
+			stdout: `"failed": [
+      {
+        "pos": "{dir}/s.lua:3",
+        "message": "one boiler burns 100 t a day"
+      }
+    ]`},
+		{name: "a case without sea or air temperature", files: map[string]string{"plant.lua": badPlant,
+			"s.lua": "local ship = include(\"plant.lua\")\ncase(ship, { name = \"no temps\" })\n"},
+			args: []string{"run", "--quiet", "{dir}/s.lua"}, code: exitOK,
+			stdout: "conditions: sea not given, air not given, main engine load 0.0 %"},
+		{name: "a CSV with a byte-order mark", files: map[string]string{"plant.lua": badPlant, "v.csv": "\ufeffphase,hours\nsea,10\n",
+			"s.lua": "local ship = include(\"plant.lua\")\nlocal v = voyage(ship, { csv = \"v.csv\" })\ncheck(v.total.hours == 10, \"ten hours\")\n"},
+			args: []string{"run", "--quiet", "{dir}/s.lua"}, code: exitOK,
+			stdout: "1 periods, 10.0 h"},
+		{name: "a negative pinch", files: map[string]string{"plant.lua": badPlant, "s.lua": `local ship = steam_plant { name = "Invented Test Coaster",
+  boilers = { { name = "AB1", mcr = "4 t/h", drum = "7 bar(g)", fuel = "VLSFO", efficiency = "85 %" } },
+  exhaust_gas_economiser = { name = "EGE", drum = "7 bar(g)", design_load = "85 %", pinch = "-5 K",
+    engine = { mcr = "5000 kW", { load = "50 %", gas = "8 kg/kWh", T = "250 C" }, { load = "100 %", gas = "7.5 kg/kWh", T = "245 C" } } },
+  consumers = { { name = "b", duty = "300 kW", returns = "90 %" } } }
+`},
+			args: []string{"check", "{dir}/s.lua"}, code: exitFail,
+			stderr: "{dir}/s.lua:3: exhaust gas economiser \"EGE\": pinch must lie between 1 K and 200 K; got -5 K\n"},
+		{name: "fluegas at the O2 of air", args: []string{"fluegas", "--fuel", "HSFO", "--o2", "20.9 %", "--gas", "230 C", "--air", "25 C"}, code: exitFail,
+			stderr: "sim fluegas: --o2 \"20.9 %\": no combustion: an O2 at or near that of air (20.946 % dry, which analysers show as 20.9 %): the burner is not firing, or the probe is not in the flue gas\n"},
+		{name: "fluegas below the acid dew point", args: []string{"fluegas", "--fuel", "HSFO", "--o2", "3 %", "--gas", "110 C", "--air", "25 C"}, code: exitOK,
+			stdout: "the flue gas at 110.0 °C is 41.1 K below the acid dew point of 151.1 °C"},
 		{name: "engine of -10 %", files: map[string]string{"plant.lua": badPlant,
 			"s.lua": "local ship = include(\"plant.lua\")\ncase(ship, { name = \"sea\", engine = \"-10 %\" })\n"},
 			args: []string{"run", "{dir}/s.lua"}, code: exitFail,
@@ -330,8 +409,9 @@ case(ship, { name = "port", engine = "0 %", fire = {} })
 			if code != row.code || errOut != want {
 				t.Errorf("exit %d, stderr:\n%s\nwant exit %d, stderr:\n%s", code, errOut, row.code, want)
 			}
-			if (row.stdout == "" && out != "") || !strings.Contains(out, row.stdout) {
-				t.Errorf("stdout %q, want it to contain %q", out, row.stdout)
+			wantOut := strings.ReplaceAll(row.stdout, "{dir}", dir)
+			if (wantOut == "" && out != "") || !strings.Contains(out, wantOut) {
+				t.Errorf("stdout %q, want it to contain %q", out, wantOut)
 			}
 			if strings.Contains(out, "started") {
 				t.Errorf("the script ran before its outputs were checked: stdout %q", out)
@@ -349,7 +429,7 @@ case(ship, { name = "port", engine = "0 %", fire = {} })
 // runUsage and steamUsage are what follows a usage error of run and steam.
 const (
 	runUsage = "usage: sim run [--json | --csv] [--plot FILE] [--evidence DIR] [-o FILE]\n" +
-		"               [--timeout DURATION] [--job-timeout DURATION]\n" +
+		"               [--timeout DURATION] [--job-timeout DURATION] [--rows KEEP]\n" +
 		"               [-v | --quiet] SCRIPT...\n" +
 		"Run 'sim help run' for details.\n"
 	steamUsage = "usage: sim steam --p PRESSURE\n" +

@@ -4,11 +4,14 @@ import (
 	"bytes"
 	"context"
 	"flag"
+	"fmt"
 	"os"
 	"path"
 	"path/filepath"
 	"strings"
 	"testing"
+
+	"steamcase/plant/schema"
 )
 
 // TestReadmeExample runs the script of the README's "A script and its
@@ -242,5 +245,15 @@ func TestUpdatePackagesListed(t *testing.T) {
 		if !have[l] {
 			t.Errorf("DEVELOPERS.md names ./%s for -update, but its tests do not take the flag", l)
 		}
+	}
+}
+
+// TestHelpSchemaVersion: sim help run names the schema version the JSON
+// carries.
+func TestHelpSchemaVersion(t *testing.T) {
+	t.Parallel()
+	_, out, _ := runSim(t, "help", "run")
+	if want := fmt.Sprintf("schema %d", schema.Version); !strings.Contains(strings.Join(strings.Fields(out), " "), want) {
+		t.Errorf("sim help run does not say %q", want)
 	}
 }

@@ -24,7 +24,7 @@ const maxTimeout = 24 * time.Hour
 func runCommand() *command {
 	return &command{
 		Name:      "run",
-		UsageLine: "[--json | --csv] [--plot FILE] [--evidence DIR] [-o FILE] [--timeout DURATION] [--job-timeout DURATION] [-v | --quiet] SCRIPT...",
+		UsageLine: "[--json | --csv] [--plot FILE] [--evidence DIR] [-o FILE] [--timeout DURATION] [--job-timeout DURATION] [--rows KEEP] [-v | --quiet] SCRIPT...",
 		Short:     "solve the plants and load cases of Lua scripts and report them",
 		Long: `Run runs each load-case script in turn, solving the plants and load cases
 it describes, and prints a report of every case: the conditions (sea and
@@ -57,9 +57,10 @@ with their units, such as "7 bar(g)" or "18 t/h". A script reads files only
 from its own folder and the folders below it.
 
 The report is a table for people unless --json or --csv asks for a form for
-programs: --json prints one JSON document (schema 2: the program's
-version, the caution, the plants, the checks passed and failed, every case
-with its figures and every voyage, study and audit, each key naming its
+programs: --json prints one JSON document (schema 3: the program's
+version, the caution, the files read and the defaults in force, the plants,
+the checks passed and failed, every case with its figures and every
+voyage, study, audit and heating plan, each key naming its
 unit; the same keys as the tables case() and the jobs return to a script),
 --csv tables of comma-separated values under headers naming their units:
 the load cases, one row each with the main figures, then the rows of the
@@ -118,6 +119,17 @@ against --timeout: each job has its own limit, --job-timeout, which by
 default grows with the job (10s, and 20ms for each plant solve it will
 take: its rows times its variants, its days times its samples), and a job
 stopped at it is named with its line and a longer --job-timeout to give.
+
+A voyage or a study keeps of each row what its report, its CSV, its
+charts and its JSON rows show (the row's conditions, boilers firing,
+steam, fuel, CO2, margins, N-1 answer, warnings and tanks), a small part
+of the row's whole case result, so that a job of a hundred thousand rows
+fits in memory. --rows full keeps each row's case result as well: the
+JSON gives it under each row's "result" (and a study's variants and
+sizes get their rows), as the scripts' tables do; --rows summary, the
+default, leaves "result" null. A job's own keep key ("summary" or
+"full") decides for it either way. The totals are the same.
+
 Control characters in names and messages (a carriage return, a newline,
 a terminal's escape) are shown escaped, as \r, \n or \x1b, in the table,
 the CSV, the charts and the messages; the JSON keeps them exactly, in its
@@ -173,6 +185,7 @@ type runArgs struct {
 	evidence       string
 	timeout        time.Duration
 	jobTimeout     time.Duration // zero: scaled to each job's work
+	rows           string        // what a voyage or study keeps of a row: "summary" or "full"
 	verbose, quiet bool
 
 	// timeoutFlag is set when the command takes --timeout, so that a run
@@ -189,6 +202,7 @@ func (a *runArgs) flagSet(name string) *flag.FlagSet {
 		fs.StringVar(&a.out, "o", "", "write the report to `FILE` instead of standard output")
 		fs.Var((*durationFlag)(&a.jobTimeout), "job-timeout", "stop a voyage, study, audit or heating plan that runs longer than\n`DURATION` (default: 10s and 20ms for each plant solve of the job)")
 		fs.StringVar(&a.evidence, "evidence", "", "also write an evidence folder `DIR`: the report, the JSON, the CSV,\nthe charts, the audits' samples, a README and the files' SHA-256")
+		fs.StringVar(&a.rows, "rows", "summary", "what voyages and studies keep of each row: `KEEP` is summary (what\nthe reports show; the default) or full (each row's case result as\nwell, under \"result\" in the JSON); a job's keep key decides for it")
 	}
 	a.timeout = 10 * time.Second
 	fs.Var((*durationFlag)(&a.timeout), "timeout", "stop a script that runs longer than `DURATION`, such as 10s or 2m\n(default 10s)")
@@ -247,6 +261,8 @@ func (a *runArgs) parse(name string, args []string) ([]string, error) {
 		return nil, usagef("--timeout %v: the time limit must be above zero and at most %v, such as 10s or 2m", a.timeout, maxTimeout)
 	case a.jobTimeout < 0 || a.jobTimeout > maxTimeout:
 		return nil, usagef("--job-timeout %v: the time limit must be above zero and at most %v, such as 10m or 2h", a.jobTimeout, maxTimeout)
+	case name == "run" && a.rows != "summary" && a.rows != "full":
+		return nil, usagef("--rows %q: give summary (each row's figures, the default) or full (each row's case result as well)", cutEcho(a.rows))
 	}
 	if a.plot != "" {
 		if _, err := report.FormatOf(a.plot); err != nil {
@@ -414,7 +430,8 @@ func runScripts(ctx context.Context, e env, a *runArgs, o *outputs, runners []sc
 		meter = newProgressMeter(e.stderr, fd)
 		log = loggerOn(meter, true, a)
 	}
-	opt := scripting.Options{Timeout: a.timeout, JobTimeout: a.jobTimeout, Logger: log, CheckRead: o.checkRead, Print: printTo(e, a, meter)}
+	opt := scripting.Options{Timeout: a.timeout, JobTimeout: a.jobTimeout, Logger: log, CheckRead: o.checkRead, Print: printTo(e, a, meter),
+		FullRows: a.rows == "full"}
 	switch {
 	case meter != nil:
 		opt.Progress = meter.update

@@ -7,6 +7,7 @@ import (
 	"encoding/json"
 	"os"
 	"path/filepath"
+	"reflect"
 	"strings"
 	"testing"
 
@@ -342,6 +343,36 @@ func TestRunVoyage(t *testing.T) {
 	if err := json.Unmarshal([]byte(out), &doc); err != nil || code != exitOK || len(doc.Voyages) != 1 ||
 		doc.Voyages[0].Total.Hours != 36 || len(doc.Voyages[0].Phases) != 2 || doc.Voyages[0].Phases[1].Phase != "passage" {
 		t.Errorf("--json: exit %d, %v, %+v", code, err, doc)
+	}
+	// The rows' cases: null by default, the row's CASE with --rows full,
+	// and the totals the same.
+	var rowsOf = func(args ...string) (rows []map[string]any, total any) {
+		t.Helper()
+		code, out, errOut := runSim(t, append(append([]string{"run", "--quiet", "--json"}, args...), script)...)
+		var d struct {
+			Voyages []struct {
+				Total any              `json:"total"`
+				Rows  []map[string]any `json:"rows"`
+			} `json:"voyages"`
+		}
+		if err := json.Unmarshal([]byte(out), &d); err != nil || code != exitOK || len(d.Voyages) != 1 {
+			t.Fatalf("--json %q: exit %d, %v, stderr %q", args, code, err, errOut)
+		}
+		return d.Voyages[0].Rows, d.Voyages[0].Total
+	}
+	lean, leanTotal := rowsOf()
+	full, fullTotal := rowsOf("--rows", "full")
+	for i := range lean {
+		if r, ok := lean[i]["result"]; !ok || r != nil {
+			t.Errorf("row %d: result %v by default, want null", i+1, r)
+		}
+		c, _ := full[i]["result"].(map[string]any)
+		if c == nil || c["name"] != full[i]["case"] || c["fuel_kg_h"] != full[i]["fuel_kg_h"] {
+			t.Errorf("row %d with --rows full: result %v, want the row's case", i+1, full[i]["result"])
+		}
+	}
+	if !reflect.DeepEqual(leanTotal, fullTotal) {
+		t.Errorf("totals %v by default, %v with --rows full", leanTotal, fullTotal)
 	}
 	// The CSV: the cases' header alone (no case), a blank line, then the
 	// voyage's rows and their warnings.

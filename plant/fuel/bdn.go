@@ -225,9 +225,6 @@ func FromBDN(base Fuel, b BDN) (BDNFuel, error) {
 			Want: fmt.Sprintf("a bunker delivery note describes a liquid fuel; the base %q is %v", base.label(), base.Class)}
 	}
 	var errs []error
-	bad := func(field string, v float64, want string) {
-		errs = append(errs, &FieldError{Fuel: name, Field: field, Value: v, Want: want})
-	}
 	var out BDNFuel
 	warn := func(format string, args ...any) {
 		out.Warnings = append(out.Warnings, fmt.Sprintf("fuel %q: ", name)+fmt.Sprintf(format, args...))
@@ -239,9 +236,9 @@ func FromBDN(base Fuel, b BDN) (BDNFuel, error) {
 		g, n, err := parseISOGrade(b.Grade)
 		switch {
 		case err != nil:
-			errs = append(errs, fmt.Errorf("fuel %q: BDN.Grade: %w", name, err))
+			errs = append(errs, fmt.Errorf("fuel %q: the delivery note's grade (bdn.grade): %w", name, err))
 		case g.class != base.Class:
-			errs = append(errs, fmt.Errorf("fuel %q: BDN.Grade %q is a %v grade, the base %q a %v fuel", name, b.Grade, g.class, base.label(), base.Class))
+			errs = append(errs, fmt.Errorf("fuel %q: the delivery note's grade (bdn.grade) %q is a %v grade, the base %q a %v fuel", name, b.Grade, g.class, base.label(), base.Class))
 		default:
 			grade, number = g, n
 		}
@@ -252,28 +249,33 @@ func FromBDN(base Fuel, b BDN) (BDNFuel, error) {
 	if base.Class == Distillate {
 		refT = 313.15
 	}
-	rangeWant := func(lo, hi float64, unit string) string {
-		return fmt.Sprintf("want %g…%g %s, the envelope of the %s", lo, hi, unit, env.note)
+	// A figure of the note out of range is said as the note writes it
+	// (kg/m³, % m/m, % V/V, mm²/s, MJ/kg), naming the key of a script's
+	// bdn table.
+	bad := func(key, what string, shown float64, unit string, lo, hi float64, why string) {
+		want := fmt.Sprintf("want %g…%g %s, %s", lo, hi, unit, why)
+		errs = append(errs, &FieldError{Fuel: name, Field: "bdn." + key, Value: shown, Want: want,
+			Text: fmt.Sprintf("fuel %q: the delivery note's %s (bdn.%s) is %g %s; %s", name, what, key, shown, unit, want)})
 	}
+	envelope := "the envelope of the " + env.note
 	if !inRange(b.Density15, env.densityMin, env.densityMax) {
-		bad("BDN.Density15", b.Density15, rangeWant(env.densityMin, env.densityMax, "kg/m³ at 15 °C"))
+		bad("density", "density at 15 °C", b.Density15, "kg/m³", env.densityMin, env.densityMax, envelope)
 	}
 	if !inRange(100*b.Sulfur, 0, env.sulfurMax) {
-		bad("BDN.Sulfur", b.Sulfur, rangeWant(0, env.sulfurMax/100, "kg/kg"))
+		bad("sulphur", "sulphur", 100*b.Sulfur, "% m/m", 0, env.sulfurMax, envelope)
 	}
 	if !inRange(100*b.Water, 0, env.waterMax) {
-		bad("BDN.Water", b.Water, rangeWant(0, env.waterMax/100, "m³/m³ (volume fraction)"))
+		bad("water", "water", 100*b.Water, "% V/V", 0, env.waterMax, envelope)
 	}
 	if !inRange(100*b.Ash, 0, env.ashMax) {
-		bad("BDN.Ash", b.Ash, rangeWant(0, env.ashMax/100, "kg/kg"))
+		bad("ash", "ash", 100*b.Ash, "% m/m", 0, env.ashMax, envelope)
 	}
 	nu := b.Viscosity * 1e6 // mm²/s
 	if b.Viscosity != 0 && !(nu > 0 && inRange(nu, env.viscMin, env.viscMax)) {
-		bad("BDN.Viscosity", b.Viscosity, fmt.Sprintf("want %g…%g m²/s at %g °C, the envelope of the %s",
-			env.viscMin*1e-6, env.viscMax*1e-6, refT-273.15, env.note))
+		bad("viscosity", fmt.Sprintf("viscosity at %g °C", refT-273.15), nu, "mm²/s", env.viscMin, env.viscMax, envelope)
 	}
 	if b.LHV != 0 && !inRange(b.LHV, minBDNLHV, maxBDNLHV) {
-		bad("BDN.LHV", b.LHV, fmt.Sprintf("want a stated net specific energy in %g…%g J/kg for a liquid fuel", minBDNLHV, maxBDNLHV))
+		bad("lhv", "net specific energy", b.LHV/1e6, "MJ/kg", minBDNLHV/1e6, maxBDNLHV/1e6, "for a liquid fuel")
 	}
 	if len(errs) > 0 {
 		return BDNFuel{}, errors.Join(errs...)

@@ -189,17 +189,17 @@ func TestFromBDNErrors(t *testing.T) {
 		b     BDN
 		field string
 	}{
-		{"no density", hsfo, with(func(b *BDN) { b.Density15 = 0 }), "BDN.Density15"},
+		{"no density", hsfo, with(func(b *BDN) { b.Density15 = 0 }), "bdn.density"},
 		{"density above RMK", hsfo, with(func(b *BDN) { b.Density15 = 1015 }), "1010"},
-		{"density NaN", hsfo, with(func(b *BDN) { b.Density15 = math.NaN() }), "BDN.Density15"},
-		{"sulfur", hsfo, with(func(b *BDN) { b.Sulfur = 0.04 }), "BDN.Sulfur"},
-		{"sulfur negative", hsfo, with(func(b *BDN) { b.Sulfur = -0.001 }), "BDN.Sulfur"},
-		{"water", hsfo, with(func(b *BDN) { b.Water = 0.006 }), "BDN.Water"},
-		{"ash", hsfo, with(func(b *BDN) { b.Ash = 0.002 }), "BDN.Ash"},
-		{"viscosity", hsfo, with(func(b *BDN) { b.Viscosity = 800e-6 }), "BDN.Viscosity"},
-		{"distillate viscosity", mgo, BDN{Density15: 850, Viscosity: 20e-6}, "BDN.Viscosity"},
-		{"distillate density", mgo, BDN{Density15: 950, Viscosity: 3e-6}, "BDN.Density15"},
-		{"LHV", hsfo, with(func(b *BDN) { b.LHV = 48e6 }), "BDN.LHV"},
+		{"density NaN", hsfo, with(func(b *BDN) { b.Density15 = math.NaN() }), "bdn.density"},
+		{"sulfur", hsfo, with(func(b *BDN) { b.Sulfur = 0.04 }), "bdn.sulphur"},
+		{"sulfur negative", hsfo, with(func(b *BDN) { b.Sulfur = -0.001 }), "bdn.sulphur"},
+		{"water", hsfo, with(func(b *BDN) { b.Water = 0.006 }), "bdn.water"},
+		{"ash", hsfo, with(func(b *BDN) { b.Ash = 0.002 }), "bdn.ash"},
+		{"viscosity", hsfo, with(func(b *BDN) { b.Viscosity = 800e-6 }), "bdn.viscosity"},
+		{"distillate viscosity", mgo, BDN{Density15: 850, Viscosity: 20e-6}, "bdn.viscosity"},
+		{"distillate density", mgo, BDN{Density15: 950, Viscosity: 3e-6}, "bdn.density"},
+		{"LHV", hsfo, with(func(b *BDN) { b.LHV = 48e6 }), "bdn.lhv"},
 		{"gas base", lng, good, "liquid fuel"},
 		{"unknown grade", hsfo, with(func(b *BDN) { b.Grade = "RMX 99" }), "unknown"},
 		{"grade number", hsfo, with(func(b *BDN) { b.Grade = "RMG 999" }), "RMG 180, RMG 380"},
@@ -219,7 +219,7 @@ func TestFromBDNErrors(t *testing.T) {
 	}
 	// Every bad figure is reported, not only the first.
 	_, err := FromBDN(hsfo, BDN{Density15: 1200, Sulfur: 0.5, Water: -1, Ash: 1})
-	for _, f := range []string{"BDN.Density15", "BDN.Sulfur", "BDN.Water", "BDN.Ash"} {
+	for _, f := range []string{"bdn.density", "bdn.sulphur", "bdn.water", "bdn.ash"} {
 		if err == nil || !strings.Contains(err.Error(), f) {
 			t.Errorf("joined errors %v: missing %s", err, f)
 		}

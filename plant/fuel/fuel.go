@@ -179,9 +179,15 @@ type FieldError struct {
 	Field string
 	Value float64
 	Want  string
+	// Text, if not empty, is the whole message, the figure said in the
+	// units its source writes it in (a delivery note's % m/m).
+	Text string
 }
 
 func (e *FieldError) Error() string {
+	if e.Text != "" {
+		return e.Text
+	}
 	return fmt.Sprintf("fuel %q: %s = %g: %s", e.Fuel, e.Field, e.Value, e.Want)
 }
 

@@ -173,7 +173,8 @@ type Outcome struct {
 	// required temperatures it misses (texts).
 	ShortRows []int
 	Missed    []string
-	// Voyage is the voyage solved with the plan's instructions.
+	// Voyage is the voyage solved with the plan's instructions (its rows
+	// keep their summaries, not their full case results).
 	Voyage *profile.Result
 	// Rows are the plan's rows as voyage settings (instruction, T, by of
 	// each tank), so that a voyage() can follow it.
@@ -497,7 +498,7 @@ func outcomeT(o *Outcome, i, b int, name string) float64 {
 	if b == 0 {
 		row, first = 0, true
 	}
-	for _, tr := range o.Voyage.Rows[row].Result.Tanks {
+	for _, tr := range o.Voyage.Rows[row].Summary.Tanks {
 		if tr.Name == name {
 			if first {
 				return tr.T0

@@ -120,7 +120,7 @@ func TestPlanTanker(t *testing.T) {
 			}
 			for i, tp := range res.Tanks {
 				for r, tr := range tp.Rows {
-					got := res.Plan.Voyage.Rows[r].Result.Tanks[i]
+					got := res.Plan.Voyage.Rows[r].Summary.Tanks[i]
 					if math.Abs(got.T1-tr.T1) > 1e-6 || math.Abs(got.DutyW-tr.DutyW) > 1e-6*math.Max(tr.DutyW, 1e3) {
 						t.Errorf("%s row %d: planned %.9g K at %.6g W (%s), the voyage %.9g K at %.6g W (%s)", tp.Unit, r+1,
 							tr.T1, tr.DutyW, tr.Instruction, got.T1, got.DutyW, got.Instruction)
@@ -143,7 +143,7 @@ func TestPlanTanker(t *testing.T) {
 				if rq.LatestStartRow < 0 || rq.LatestStartRow >= 14 {
 					t.Errorf("%s latest start row %d", tp.Unit, rq.LatestStartRow)
 				}
-				lm := res.LastMoment.Voyage.Rows[rq.LatestStartRow].Result.Tanks
+				lm := res.LastMoment.Voyage.Rows[rq.LatestStartRow].Summary.Tanks
 				for _, x := range lm {
 					if x.Name == tp.Unit && x.Instruction != "heat_to" {
 						t.Errorf("%s: the last-moment plan does not heat from its latest start (row %d: %s)", tp.Unit, rq.LatestStartRow+1, x.Instruction)

@@ -233,11 +233,35 @@ func (h FuelHeater) perKg(c checker) (FuelHeaterResult, error) {
 	return r, nil
 }
 
+// useFlashWarning is the flash-point caution of a tank by what it holds.
+func useFlashWarning(T, flash float64, use TankUse) string {
+	where := "within " + fmt.Sprint(FlashPointMargin) + " °C of"
+	switch {
+	case T > flash+0.05:
+		where = fmt.Sprintf("%.3g °C above", T-flash)
+	case T >= flash-0.05:
+		where = "at"
+	}
+	switch use {
+	case FuelSettling, FuelService:
+		kind := "settling"
+		if use == FuelService {
+			kind = "service"
+		}
+		return fmt.Sprintf("oil heated to %.4g °C, %s its flash point %.4g °C: SOLAS II-2 reg. 4.2 allows a %s tank so hot only with the arrangements it requires (from memory): check them",
+			celsius(T), where, celsius(flash), kind)
+	case CargoTank:
+		return fmt.Sprintf("cargo heated to %.4g °C, %s its flash point %.4g °C: the cargo's safety data sheet, the charter party's heating instructions and the ship's cargo procedures govern",
+			celsius(T), where, celsius(flash))
+	}
+	return flashWarning(T, flash)
+}
+
 func flashWarning(T, flash float64) string {
 	if T >= flash {
-		return fmt.Sprintf("oil heated to %.4g °C, %.3g °C above its flash point %.4g °C: SOLAS II-2 reg. 4.2 keeps oil in storage and settling tanks at least %g °C below it",
+		return fmt.Sprintf("oil heated to %.4g °C, %.3g °C above its flash point %.4g °C: SOLAS II-2 reg. 4.2 keeps oil in storage tanks at least %g °C below it",
 			celsius(T), T-flash, celsius(flash), FlashPointMargin)
 	}
-	return fmt.Sprintf("oil heated to %.4g °C, within %g °C of its flash point %.4g °C: SOLAS II-2 reg. 4.2 caution for storage and settling tanks",
+	return fmt.Sprintf("oil heated to %.4g °C, within %g °C of its flash point %.4g °C: SOLAS II-2 reg. 4.2 keeps oil in storage tanks at least that far below it",
 		celsius(T), FlashPointMargin, celsius(flash))
 }

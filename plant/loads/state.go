@@ -691,7 +691,7 @@ func (t *TankHeating) stepWarnings(r *StepResult, st Step) {
 // flashWarning is the SOLAS caution for the tank, saying where the flash
 // point was assumed.
 func (t *TankHeating) flashWarning(T float64) string {
-	w := flashWarning(T, t.FlashPoint)
+	w := useFlashWarning(T, t.FlashPoint, t.Use)
 	if t.FlashPointAssumed {
 		w += fmt.Sprintf(" (flash point not given: %.4g °C assumed, the ISO 8217 minimum of the grade)", celsius(t.FlashPoint))
 	}

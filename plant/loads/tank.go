@@ -177,6 +177,10 @@ type TankHeating struct {
 	// FlashPointAssumed says FlashPoint was not given but taken as the
 	// grade's specification minimum (SpecFlashPoint); the warning says so.
 	FlashPointAssumed bool
+	// Use says what the tank holds, which decides the flash-point
+	// caution's basis: fuel in storage (the zero value), fuel in a
+	// settling or service tank, or cargo.
+	Use TankUse
 	// Coil is the tank's heating coil; its capacity (CoilCapacity) limits
 	// what a stateful tank's heating gives (Advance). A tank without a
 	// coil (zero area) has no limit in Duty.
@@ -648,3 +652,21 @@ func CloudPointHM40(pour float64) (float64, error) {
 	}
 	return 20.2*math.Pow(10, 0.00708*pp-0.1157714) + 8 + 273.15, nil
 }
+
+// TankUse is what a heated tank holds, for the flash-point caution.
+type TankUse int
+
+const (
+	// FuelStorage: SOLAS II-2 reg. 4.2 keeps the oil at least
+	// FlashPointMargin below its flash point (plant-checks.md §5.2 [S]).
+	FuelStorage TankUse = iota
+	// FuelSettling and FuelService: tanks of the fuel supply system,
+	// which SOLAS II-2 reg. 4.2 lets be heated closer to (or above) the
+	// flash point only with the arrangements it requires (from memory).
+	FuelSettling
+	FuelService
+	// CargoTank: the SOLAS fuel-oil rule does not apply; the cargo's safety
+	// data sheet, the charter party and the ship's cargo procedures
+	// govern its heating near the flash point.
+	CargoTank
+)

@@ -16,6 +16,13 @@
 // Totals are sums of the rows' results times their hours: fuel, CO2 and
 // steam in tonnes, electrical energy in MWh.
 //
+// A row keeps its summary (RowSummary: what the totals and the reports
+// read, a few hundred bytes) and its full case result only on request
+// (Options.KeepResults), so that a job of hundreds of thousands of rows
+// fits in memory; the totals are summed from the summaries in the same
+// order and with the same operations as from the case results, and are
+// the same either way. A study keeps its variants' rows only on request.
+//
 // # The audit
 //
 // An audit samples the uncertain inputs by Monte Carlo, each uniformly

@@ -36,6 +36,12 @@ type Options struct {
 	// core (a voyage with stateful tanks cannot be split; the variants of
 	// a study still run in parallel).
 	Tanks []TankStart
+	// KeepResults keeps each row's full case result (RowResult.Result)
+	// besides its summary. False keeps the summaries only: what the
+	// totals, the reports, the CSV, the JSON and Lua rows and the charts
+	// read, at a fraction of the memory (RowSummary), so that a long job
+	// fits in memory. The totals are the same either way.
+	KeepResults bool
 }
 
 func (o *Options) defaults() {
@@ -47,12 +53,26 @@ func (o *Options) defaults() {
 	}
 }
 
-// RowResult is one solved row.
+// RowResult is one solved row: its place, phase and hours, its summary,
+// and its full case result if the run kept it.
 type RowResult struct {
-	Index  int
-	Phase  string
-	Hours  float64
+	Index   int
+	Phase   string
+	Hours   float64
+	Summary RowSummary
+	// Result is the row's full case result when the run kept it
+	// (Options.KeepResults); nil otherwise, and in a script's check mode.
 	Result *plant.CaseResult
+}
+
+// rowResult is row i's result from its solved case: its summary, and the
+// case result itself if keep.
+func rowResult(i int, r Row, cr *plant.CaseResult, texts *Texts, keep bool) RowResult {
+	out := RowResult{Index: i, Phase: r.Phase, Hours: r.Hours, Summary: Summarise(cr, texts)}
+	if keep {
+		out.Result = cr
+	}
+	return out
 }
 
 // Totals sum a set of rows. Masses in tonnes, energies in MWh, flows in
@@ -164,13 +184,14 @@ func Run(ctx context.Context, p *plant.Plant, rows []Row, opt Options) (*Result,
 		if opt.Progress != nil {
 			progress = func(done int) { opt.Progress(done, len(rows)) }
 		}
-		res, err := runStateful(ctx, p, rows, opt.Tanks, progress)
+		res, err := runStateful(ctx, p, rows, opt.Tanks, progress, &Texts{}, opt.KeepResults)
 		if err != nil {
 			return nil, err
 		}
-		return Sum(rows, res), nil
+		return Sum(res), nil
 	}
-	res := make([]*plant.CaseResult, len(rows))
+	res := make([]RowResult, len(rows))
+	texts := &Texts{}
 	nChunks := (len(rows) + opt.ChunkRows - 1) / opt.ChunkRows
 	chunk := func(c int) (lo, hi int) { return c * opt.ChunkRows, min((c+1)*opt.ChunkRows, len(rows)) }
 	done := 0
@@ -190,33 +211,33 @@ func Run(ctx context.Context, p *plant.Plant, rows []Row, opt Options) (*Result,
 			if err != nil {
 				return fmt.Errorf("profile row %d (%s, %q): %w", i+1, rows[i].Phase, rows[i].Case.Name, err)
 			}
-			res[i] = cr
+			res[i] = rowResult(i, rows[i], cr, texts, opt.KeepResults)
 		}
 		return nil
 	}, progress)
 	if err != nil {
 		return nil, err
 	}
-	return Sum(rows, res), nil
+	return Sum(res), nil
 }
 
-// Sum builds the totals of solved rows.
-func Sum(rows []Row, res []*plant.CaseResult) *Result {
-	out := &Result{Rows: make([]RowResult, len(rows))}
+// Sum builds the totals of solved rows, in their order, from their
+// summaries; the result holds rows itself.
+func Sum(rows []RowResult) *Result {
+	out := &Result{Rows: rows}
 	byPhase := map[string]int{}
 	for i, r := range rows {
-		out.Rows[i] = RowResult{Index: i, Phase: r.Phase, Hours: r.Hours, Result: res[i]}
 		k, ok := byPhase[r.Phase]
 		if !ok {
 			k = len(out.Phases)
 			byPhase[r.Phase] = k
 			out.Phases = append(out.Phases, PhaseTotals{Phase: r.Phase, Totals: newTotals()})
 		}
-		out.Phases[k].add(i, r.Hours, res[i])
+		out.Phases[k].add(i, r.Hours, &r.Summary)
 	}
 	out.Total = newTotals()
-	for i, r := range rows {
-		out.Total.add(i, r.Hours, res[i])
+	for i := range rows {
+		out.Total.add(i, rows[i].Hours, &rows[i].Summary)
 	}
 	return out
 }
@@ -241,7 +262,7 @@ func newTotals() Totals {
 	return Totals{TightestMarginKgS: math.Inf(1), PeakRow: -1, TightestRow: -1}
 }
 
-func (t *Totals) add(i int, hours float64, cr *plant.CaseResult) {
+func (t *Totals) add(i int, hours float64, cr *RowSummary) {
 	s := hours * 3600 / 1000 // kg/s over the row → t
 	t.Rows++
 	t.Hours += hours
@@ -262,21 +283,16 @@ func (t *Totals) add(i int, hours float64, cr *plant.CaseResult) {
 		t.HoursFiring = append(t.HoursFiring, 0)
 	}
 	t.HoursFiring[cr.BoilersFiring] += hours
-	var fired, capAll float64
-	for _, b := range cr.Boilers {
-		fired += b.SteamKgS
-		capAll += b.MCRKgS
-		if b.FuelKgS > 0 {
-			t.addGrade(b.FuelName, b.FuelKgS*s, b.CO2KgS*s, b.CO2AnalysisKgS*s, b.HasCO2Analysis)
-		}
+	for _, f := range cr.Fuels {
+		t.addGrade(f.Grade, f.FuelKgS*s, f.CO2KgS*s, f.CO2AnalysisKgS*s, f.HasCO2Analysis)
 	}
-	t.CapacityKgS = capAll
+	t.CapacityKgS = cr.MCRKgS
 	// A row takes the peak or the tightest margin from an earlier one only
 	// by more than a part in 1e9 of the capacity: rows that tie within the
 	// solver's tolerance (the same hour of two seasons) keep the first, not
 	// the one the last bits of their solves favour.
-	tie := 1e-9 * capAll
-	if t.PeakRow < 0 || fired > t.PeakBoilerKgS+tie {
+	tie := 1e-9 * cr.MCRKgS
+	if fired := cr.BoilerSteamKgS; t.PeakRow < 0 || fired > t.PeakBoilerKgS+tie {
 		t.PeakBoilerKgS, t.PeakRow = fired, i
 	}
 	if t.TightestRow < 0 || cr.MarginNextKgS < t.TightestMarginKgS-tie {
@@ -285,17 +301,14 @@ func (t *Totals) add(i int, hours float64, cr *plant.CaseResult) {
 	if !cr.CanCarry {
 		t.ShortRows = append(t.ShortRows, i)
 	}
-	if cr.InertGas != nil && !cr.InertGas.Met {
+	if cr.InertGasShort {
 		t.InertGasShortHours += hours
 	}
-	if cr.ContingenciesChecked {
+	if cr.N1Checked {
 		t.N1CheckedRows++
-		for _, c := range cr.Contingencies {
-			if !c.CanCarry {
-				t.N1ShortHours += hours
-				t.N1ShortRows = append(t.N1ShortRows, i)
-				break
-			}
+		if !cr.N1CanCarry {
+			t.N1ShortHours += hours
+			t.N1ShortRows = append(t.N1ShortRows, i)
 		}
 	}
 	if len(cr.Warnings) > 0 {

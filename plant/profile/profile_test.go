@@ -90,8 +90,8 @@ func TestVoyageTotalsAreSums(t *testing.T) {
 	// a voyage total; no outside source).
 	var fuel, co2 float64
 	for i, r := range res.Rows {
-		fuel += r.Result.FuelKgS * rows[i].Hours * 3.6
-		co2 += r.Result.CO2KgS * rows[i].Hours * 3.6
+		fuel += r.Summary.FuelKgS * rows[i].Hours * 3.6
+		co2 += r.Summary.CO2KgS * rows[i].Hours * 3.6
 	}
 	if math.Abs(res.Total.FuelT-fuel) > 1e-9*fuel || math.Abs(res.Total.CO2T-co2) > 1e-9*co2 {
 		t.Errorf("totals %g t fuel, %g t CO2; rows sum to %g, %g", res.Total.FuelT, res.Total.CO2T, fuel, co2)
@@ -139,17 +139,30 @@ func TestWorkersGiveIdenticalResults(t *testing.T) {
 	t.Parallel()
 	p := tanker(t)
 	rows := voyage(150)
-	one, err := Run(context.Background(), p, rows, Options{Workers: 1, ChunkRows: 10})
+	one, err := Run(context.Background(), p, rows, Options{Workers: 1, ChunkRows: 10, KeepResults: true})
 	must(t, err)
-	four, err := Run(context.Background(), tanker(t), rows, Options{Workers: 4, ChunkRows: 10})
+	four, err := Run(context.Background(), tanker(t), rows, Options{Workers: 4, ChunkRows: 10, KeepResults: true})
+	must(t, err)
+	// Summaries only: the same summaries and totals as with the full
+	// results kept.
+	sums, err := Run(context.Background(), tanker(t), rows, Options{Workers: 3, ChunkRows: 10})
 	must(t, err)
 	for i := range one.Rows {
 		if !reflect.DeepEqual(one.Rows[i].Result, four.Rows[i].Result) {
 			t.Fatalf("row %d differs between 1 and 4 workers", i)
 		}
+		if !reflect.DeepEqual(one.Rows[i].Summary, four.Rows[i].Summary) || !reflect.DeepEqual(one.Rows[i].Summary, sums.Rows[i].Summary) {
+			t.Fatalf("row %d: the summary differs between 1 and 4 workers, or with the results kept and not", i)
+		}
+		if sums.Rows[i].Result != nil {
+			t.Fatalf("row %d keeps its case result without KeepResults", i)
+		}
 	}
 	if !reflect.DeepEqual(one.Total, four.Total) {
 		t.Errorf("totals differ: %+v vs %+v", one.Total, four.Total)
+	}
+	if !reflect.DeepEqual(one.Total, sums.Total) || !reflect.DeepEqual(one.Phases, sums.Phases) {
+		t.Errorf("totals differ with summaries only: %+v vs %+v", one.Total, sums.Total)
 	}
 }
 
@@ -188,7 +201,7 @@ func BenchmarkYearHourly(b *testing.B) {
 			b.Fatal(err)
 		}
 		for _, r := range res.Rows {
-			iters += float64(r.Result.Iterations)
+			iters += float64(r.Summary.Iterations)
 		}
 	}
 	b.ReportMetric((cpuSeconds()-cpu0)/float64(b.N), "cpu-s/op")
@@ -219,9 +232,9 @@ func TestModelKeysVaryByRow(t *testing.T) {
 			Conditions: plant.Conditions{SeaT: 283.15, AirT: 278.15},
 			Set:        []plant.Setting{{Unit: "COT", Param: "T", Value: 273.15 + tC}}}})
 	}
-	seq, err := Run(context.Background(), build(), rows, Options{Workers: 1, ChunkRows: 12})
+	seq, err := Run(context.Background(), build(), rows, Options{Workers: 1, ChunkRows: 12, KeepResults: true})
 	must(t, err)
-	par, err := Run(context.Background(), build(), rows, Options{Workers: 3, ChunkRows: 1})
+	par, err := Run(context.Background(), build(), rows, Options{Workers: 3, ChunkRows: 1, KeepResults: true})
 	must(t, err)
 	for i := range rows {
 		want := 4000 * 5 * (30 + float64(i))

@@ -73,14 +73,15 @@ func startTanks(pl *plant.Plant, tanks []TankStart) error {
 
 // runStateful solves the rows in order on pl with the tanks stateful,
 // each row warm-started from the one before and its tanks carried to the
-// next. It leaves pl's tanks as they were (not stateful).
-func runStateful(ctx context.Context, pl *plant.Plant, rows []Row, tanks []TankStart, progress func(done int)) ([]*plant.CaseResult, error) {
+// next. It leaves pl's tanks as they were (not stateful). Each row keeps
+// its summary, and its case result if keep.
+func runStateful(ctx context.Context, pl *plant.Plant, rows []Row, tanks []TankStart, progress func(done int), texts *Texts, keep bool) ([]RowResult, error) {
 	defer pl.StopTanks()
 	if err := startTanks(pl, tanks); err != nil {
 		return nil, err
 	}
 	pl.ColdStart()
-	res := make([]*plant.CaseResult, len(rows))
+	res := make([]RowResult, len(rows))
 	for i, r := range rows {
 		c := r.Case
 		c.Conditions.Period = r.Hours * 3600
@@ -89,7 +90,7 @@ func runStateful(ctx context.Context, pl *plant.Plant, rows []Row, tanks []TankS
 			return nil, fmt.Errorf("profile row %d (%s, %q): %w", i+1, r.Phase, r.Case.Name, err)
 		}
 		pl.CommitRow()
-		res[i] = cr
+		res[i] = rowResult(i, r, cr, texts, keep)
 		if progress != nil && (i%16 == 15 || i == len(rows)-1) {
 			progress(i + 1)
 		}

@@ -74,7 +74,7 @@ func TestStatefulVoyageEnergy(t *testing.T) {
 	t.Parallel()
 	p := heatedTanker(t)
 	rows := heatedRows()
-	res, err := Run(context.Background(), p, rows, Options{Tanks: heatedStarts})
+	res, err := Run(context.Background(), p, rows, Options{Tanks: heatedStarts, KeepResults: true})
 	must(t, err)
 	if p.Stateful() {
 		t.Error("the plant's tanks are still stateful after the voyage")
@@ -84,7 +84,7 @@ func TestStatefulVoyageEnergy(t *testing.T) {
 		T := start.T
 		var coil, loss, stored, scale float64
 		for i, row := range res.Rows {
-			tr := row.Result.Tanks[k]
+			tr := row.Summary.Tanks[k]
 			if tr.Name != start.Unit {
 				t.Fatalf("row %d tank %d is %q", i+1, k, tr.Name)
 			}
@@ -109,11 +109,11 @@ func TestStatefulVoyageEnergy(t *testing.T) {
 		}
 	}
 	// COT 2 reaches 53 °C at 120 h: the end of row 6.
-	if got := res.Rows[5].Result.Tanks[1].T1; math.Abs(got-326.15) > 1e-6 {
+	if got := res.Rows[5].Summary.Tanks[1].T1; math.Abs(got-326.15) > 1e-6 {
 		t.Errorf("COT 2 at 120 h: %.9g K, want 326.15 K", got)
 	}
 	// Row 7: COT 1's consumer is off, its cargo cools.
-	if r := res.Rows[6].Result.Tanks[0]; r.Instruction != "off" || r.CoilJ != 0 || !(r.T1 < r.T0) {
+	if r := res.Rows[6].Summary.Tanks[0]; r.Instruction != "off" || r.CoilJ != 0 || !(r.T1 < r.T0) {
 		t.Errorf("COT 1 off in row 7: %+v", r)
 	}
 	// Worker-independent: a study of the same rows (one variant, twice)

@@ -117,6 +117,10 @@ type VariantResult struct {
 	// RowWarnings are the warnings of the rows whose case warned, in row
 	// order: the texts, not only their count.
 	RowWarnings []RowWarnings
+	// Rows are the variant's rows, each with its summary and its full
+	// case result, when the study kept them (Options.KeepResults); nil
+	// otherwise.
+	Rows []RowResult
 }
 
 // RowWarnings are the warnings of one row of a profile (Row from 0).
@@ -125,13 +129,13 @@ type RowWarnings struct {
 	Texts []string
 }
 
-// rowWarnings lists the rows of solved cases that warned, with their
-// warnings.
-func rowWarnings(res []*plant.CaseResult) []RowWarnings {
+// rowWarnings lists the solved rows that warned, with their warnings (the
+// summaries' texts, shared).
+func rowWarnings(res []RowResult) []RowWarnings {
 	var out []RowWarnings
-	for i, cr := range res {
-		if cr != nil && len(cr.Warnings) > 0 {
-			out = append(out, RowWarnings{Row: i, Texts: append([]string(nil), cr.Warnings...)})
+	for i := range res {
+		if w := res[i].Summary.Warnings; len(w) > 0 {
+			out = append(out, RowWarnings{Row: i, Texts: w})
 		}
 	}
 	return out
@@ -193,6 +197,9 @@ type SweepPoint struct {
 	FuelSavedT, CO2AvoidedT float64
 	Money
 	EGEHours
+	// Rows are the size's rows when the study kept them
+	// (Options.KeepResults), as a variant's; nil otherwise.
+	Rows []RowResult
 }
 
 // SweepResult is a sweep: its sizes in the order given, and Best, the
@@ -316,9 +323,15 @@ func RunStudy(ctx context.Context, p *plant.Plant, rows []Row, spec StudySpec, o
 		return m
 	}
 
+	kept := func(rr []RowResult) []RowResult {
+		if opt.KeepResults {
+			return rr
+		}
+		return nil
+	}
 	for i, v := range variants {
-		out.Variants = append(out.Variants, VariantResult{Name: v.Name, Totals: Sum(rows, res[i]).Total, EGEHours: egeHours(rows, res[i], ""),
-			RowWarnings: rowWarnings(res[i])})
+		out.Variants = append(out.Variants, VariantResult{Name: v.Name, Totals: Sum(res[i]).Total, EGEHours: egeHours(res[i], ""),
+			RowWarnings: rowWarnings(res[i]), Rows: kept(res[i])})
 	}
 	base := out.Variants[0].Totals
 	for i := range out.Variants {
@@ -335,7 +348,7 @@ func RunStudy(ctx context.Context, p *plant.Plant, rows []Row, spec StudySpec, o
 			if !(ua > 0) {
 				return nil, fmt.Errorf("sweep of %s.%s at %g: the economiser's UA is not known (is it out of service in every row?)", sw.Unit, sw.Param, x)
 			}
-			pt := SweepPoint{Value: x, UA: ua, Totals: Sum(rows, rr).Total, EGEHours: egeHours(rows, rr, "")}
+			pt := SweepPoint{Value: x, UA: ua, Totals: Sum(rr).Total, EGEHours: egeHours(rr, ""), Rows: kept(rr)}
 			pt.FuelSavedT = base.FuelT - pt.FuelT
 			pt.CO2AvoidedT = base.CO2T - pt.CO2T
 			pt.Money = money(pt.FuelSavedT, pt.CO2AvoidedT, sw.Cost.At(ua), false)
@@ -371,9 +384,9 @@ func (s *Sweep) validate(p *plant.Plant, econ Economics) error {
 }
 
 // runVariants solves the rows once per set of settings (added to each
-// row's own), chunk by chunk on all workers, and returns each run's case
-// results.
-func runVariants(ctx context.Context, p *plant.Plant, rows []Row, sets [][]plant.Setting, names []string, opt Options) ([][]*plant.CaseResult, error) {
+// row's own), chunk by chunk on all workers, and returns each run's rows:
+// their summaries, and their case results if opt.KeepResults.
+func runVariants(ctx context.Context, p *plant.Plant, rows []Row, sets [][]plant.Setting, names []string, opt Options) ([][]RowResult, error) {
 	opt.defaults()
 	if len(opt.Tanks) > 0 {
 		return runStatefulVariants(ctx, p, rows, sets, names, opt)
@@ -382,10 +395,11 @@ func runVariants(ctx context.Context, p *plant.Plant, rows []Row, sets [][]plant
 		return nil, err
 	}
 	nChunks := (len(rows) + opt.ChunkRows - 1) / opt.ChunkRows
-	res := make([][]*plant.CaseResult, len(sets))
+	res := make([][]RowResult, len(sets))
 	for i := range res {
-		res[i] = make([]*plant.CaseResult, len(rows))
+		res[i] = make([]RowResult, len(rows))
 	}
+	texts := &Texts{}
 	total := len(sets) * len(rows)
 	done := 0
 	chunk := func(c int) (lo, hi int) { return c * opt.ChunkRows, min((c+1)*opt.ChunkRows, len(rows)) }
@@ -408,7 +422,7 @@ func runVariants(ctx context.Context, p *plant.Plant, rows []Row, sets [][]plant
 			if err != nil {
 				return fmt.Errorf("%s: profile row %d (%s, %q): %w", names[v], i+1, rows[i].Phase, cs.Name, err)
 			}
-			res[v][i] = cr
+			res[v][i] = rowResult(i, rows[i], cr, texts, opt.KeepResults)
 		}
 		return nil
 	}, progress)
@@ -419,11 +433,11 @@ func runVariants(ctx context.Context, p *plant.Plant, rows []Row, sets [][]plant
 }
 
 // egeHours counts the hours flagged by the economisers (unit "" for all).
-func egeHours(rows []Row, res []*plant.CaseResult, unit string) EGEHours {
+func egeHours(res []RowResult, unit string) EGEHours {
 	var h EGEHours
-	for i, cr := range res {
+	for i := range res {
 		var below, dew, soot bool
-		for _, e := range cr.EGEs {
+		for _, e := range res[i].Summary.EGEs {
 			if unit != "" && e.Name != unit {
 				continue
 			}
@@ -432,13 +446,13 @@ func egeHours(rows []Row, res []*plant.CaseResult, unit string) EGEHours {
 			soot = soot || e.SootRisk
 		}
 		if below {
-			h.HoursBelowMinGasT += rows[i].Hours
+			h.HoursBelowMinGasT += res[i].Hours
 		}
 		if dew {
-			h.HoursBelowAcidDew += rows[i].Hours
+			h.HoursBelowAcidDew += res[i].Hours
 		}
 		if soot {
-			h.HoursSootRisk += rows[i].Hours
+			h.HoursSootRisk += res[i].Hours
 		}
 	}
 	return h
@@ -446,9 +460,9 @@ func egeHours(rows []Row, res []*plant.CaseResult, unit string) EGEHours {
 
 // designUA is the named economiser's clean UA at its reference flow, from
 // the first row that reports it.
-func designUA(res []*plant.CaseResult, unit string) float64 {
-	for _, cr := range res {
-		for _, e := range cr.EGEs {
+func designUA(res []RowResult, unit string) float64 {
+	for i := range res {
+		for _, e := range res[i].Summary.EGEs {
 			if e.Name == unit && e.DesignUA > 0 {
 				return e.DesignUA
 			}
@@ -459,7 +473,7 @@ func designUA(res []*plant.CaseResult, unit string) float64 {
 
 // runStatefulVariants runs each set's rows in order (the tanks carry their
 // state from row to row), the sets in parallel, each on its own clone.
-func runStatefulVariants(ctx context.Context, p *plant.Plant, rows []Row, sets [][]plant.Setting, names []string, opt Options) ([][]*plant.CaseResult, error) {
+func runStatefulVariants(ctx context.Context, p *plant.Plant, rows []Row, sets [][]plant.Setting, names []string, opt Options) ([][]RowResult, error) {
 	vrows := make([][]Row, len(sets))
 	for v, set := range sets {
 		vr := make([]Row, len(rows))
@@ -473,7 +487,8 @@ func runStatefulVariants(ctx context.Context, p *plant.Plant, rows []Row, sets [
 		}
 		vrows[v] = vr
 	}
-	res := make([][]*plant.CaseResult, len(sets))
+	res := make([][]RowResult, len(sets))
+	texts := &Texts{}
 	done := 0
 	var progress func(int)
 	if opt.Progress != nil {
@@ -483,7 +498,7 @@ func runStatefulVariants(ctx context.Context, p *plant.Plant, rows []Row, sets [
 		}
 	}
 	err := forEach(ctx, p, len(sets), opt.Workers, func(ctx context.Context, pl *plant.Plant, v int) error {
-		r, err := runStateful(ctx, pl, vrows[v], opt.Tanks, nil)
+		r, err := runStateful(ctx, pl, vrows[v], opt.Tanks, nil, texts, opt.KeepResults)
 		if err != nil {
 			return fmt.Errorf("%s: %w", names[v], err)
 		}

@@ -23,8 +23,10 @@
 // installed_cost, the quantiles, the uncertain inputs' low and high) are
 // given as the script set them. No figure is NaN or infinite: where a
 // figure does not exist the key is null, as each key below says. Every
-// list is present, empty when there is nothing in it, never null. Rows
-// and days are numbered from 1.
+// list is present, empty when there is nothing in it, never null, with
+// one exception: the rows a study keeps only on request (a VARIANT's and
+// a SWEEP_POINT's rows) are null when it does not keep them. Rows and
+// days are numbered from 1.
 //
 // A Lua table that a script gets from case(), voyage(), study() or audit()
 // is the JSON object of this schema decoded into Lua: the same keys, the
@@ -88,6 +90,10 @@
 //     scope_source and calibrated;
 //   - added at the top: files_read, lua_seed and assumptions; and a study
 //     variant's row_warnings.
+//
+// Added within version 3 (keys may be added without a new number): a
+// ROW's "result" and a VARIANT's and a SWEEP_POINT's "rows", null unless
+// the job kept its rows in full.
 //
 // # The document
 //
@@ -562,6 +568,11 @@
 //	tanks                   [VOYAGE_TANK]: the tanks the voyage carries
 //	                        from row to row, over the row; empty when it
 //	                        carries none
+//	result                  CASE: the row's case in full, when the job
+//	                        kept its rows in full (voyage()'s or study()'s
+//	                        keep = "full", sim run --rows full); null
+//	                        otherwise, the default, which keeps of each
+//	                        row only the figures above
 //
 // A VOYAGE_TANK (type VoyageTank) is a tank a voyage carries from row to
 // row (voyage()'s tanks), over one row:
@@ -604,6 +615,11 @@
 //	fuel_saved_t            boiler fuel saved against the first variant, t
 //	co2_avoided_t           CO2 avoided against the first variant, t
 //	row_warnings            [ROWWARNING]: the rows whose case warned
+//	rows                    [ROW]: the variant's rows, each with its
+//	                        result, when the study kept its rows in full
+//	                        (study()'s keep = "full", sim run --rows full);
+//	                        null otherwise (a study keeps no rows by
+//	                        default: its totals are summed as it goes)
 //
 // A ROWWARNING (type RowWarning) is
 //
@@ -660,6 +676,9 @@
 //	                        over the profile, t
 //	ege_fouling_lost_steam_t  steam lost to fouling, t
 //	fuel_saved_t, co2_avoided_t  against the first variant, t
+//	rows                    [ROW]: the size's rows, each with its result,
+//	                        when the study kept its rows in full; null
+//	                        otherwise
 //
 // An AUDIT (type Audit) has, after the keys of JOB,
 //

@@ -22,13 +22,10 @@ type VoyageTank struct {
 	Short       bool     `json:"short"`
 }
 
-// newVoyageTanks returns the stateful tanks of a row's case.
-func newVoyageTanks(c *plant.CaseResult) []VoyageTank {
+// newVoyageTanks returns the stateful tanks of a row.
+func newVoyageTanks(tanks []plant.TankRow) []VoyageTank {
 	out := []VoyageTank{}
-	if c == nil {
-		return out
-	}
-	for _, t := range c.Tanks {
+	for _, t := range tanks {
 		out = append(out, VoyageTank{Name: t.Name, Instruction: t.Instruction, TK: temperature(t.Target),
 			ByH: roundPtr(t.By/3600, t.By > 0), StartTK: Round(t.T0), EndTK: Round(t.T1), DutyKW: Round(KW(t.DutyW)),
 			CapacityKW: Round(KW(t.CapacityW)), CoilBinds: t.Binds, Short: t.Short})
@@ -158,14 +155,10 @@ func NewHeatingPlan(job Job, r *heatplan.Result) HeatingPlan {
 	for i, rp := range r.Rows {
 		row := PlanRow{Row: i + 1, Phase: rp.Phase, Hours: Round(rp.Hours), StartH: Round(rp.StartH), DutyKW: Round(KW(rp.DutyW)),
 			CapacityKW: Round(KW(rp.CapacityW))}
-		if v := r.Plan.Voyage; v != nil && i < len(v.Rows) && v.Rows[i].Result != nil {
-			c := v.Rows[i].Result
-			var steam float64
-			for _, b := range c.Boilers {
-				steam += b.SteamKgS
-			}
+		if v := r.Plan.Voyage; v != nil && i < len(v.Rows) && v.Rows[i].Summary.Solved {
+			c := &v.Rows[i].Summary
 			row.BoilersFiring = c.BoilersFiring
-			row.BoilerSteamKgH = Round(KgPerH(steam))
+			row.BoilerSteamKgH = Round(KgPerH(c.BoilerSteamKgS))
 			row.FuelT = Round(Tonnes(c.FuelKgS, rp.Hours))
 		}
 		out.Rows = append(out.Rows, row)

@@ -51,8 +51,9 @@ func solve(t testing.TB, p *plant.Plant, c plant.Case) *plant.CaseResult {
 }
 
 // jobs runs a voyage of three rows in two phases (the second below the
-// burner minimum, so that it cycles and warns), a study of two variants
-// and an audit of two days on boilerOnly.
+// burner minimum, so that it cycles and warns), keeping its rows in full,
+// a study of two variants (summaries only) and an audit of two days on
+// boilerOnly.
 func jobs(t testing.TB) (*profile.Result, *profile.StudyResult, *profile.AuditResult) {
 	t.Helper()
 	ctx := context.Background()
@@ -64,7 +65,7 @@ func jobs(t testing.TB) (*profile.Result, *profile.StudyResult, *profile.AuditRe
 		{Phase: "sea", Hours: 6, Case: plant.Case{Name: "half", Conditions: cond, Set: flow(5000)}},
 	}
 	opt := profile.Options{Workers: 1}
-	v, err := profile.Run(ctx, p, rows, opt)
+	v, err := profile.Run(ctx, p, rows, profile.Options{Workers: 1, KeepResults: true})
 	must(t, err)
 	s, err := profile.Study(ctx, p, rows, []profile.Variant{
 		{Name: "as built"},

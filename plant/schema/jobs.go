@@ -146,29 +146,29 @@ type VoyageRow struct {
 	// Tanks are the tanks the voyage carries from row to row, over the
 	// row (empty when it carries none).
 	Tanks []VoyageTank `json:"tanks"`
+	// Result is the row's full case when the job kept its rows in full
+	// (profile.Options.KeepResults); null otherwise.
+	Result *Case `json:"result"`
 }
 
-// NewVoyageRow returns the schema form of one row of a voyage. A row
-// without a solved case (Result nil, as a script's check mode gives) has
-// its phase and hours and zero figures, with can_carry true.
+// NewVoyageRow returns the schema form of one row of a voyage, from its
+// summary; its result stays null (newRows adds it). A row not solved
+// (its summary's Solved false, as a script's check mode gives) has its
+// phase and hours and zero figures, with can_carry true.
 func NewVoyageRow(row profile.RowResult) VoyageRow {
+	c := &row.Summary
 	out := VoyageRow{Row: row.Index + 1, Phase: row.Phase, Hours: Round(row.Hours), CanCarry: true, Warnings: []string{},
-		CO2AnalysisT: roundPtr(0, true), Tanks: newVoyageTanks(row.Result)}
-	c := row.Result
-	if c == nil {
+		CO2AnalysisT: roundPtr(0, true), Tanks: newVoyageTanks(c.Tanks)}
+	if !c.Solved {
 		return out
 	}
-	var boilers float64
-	for _, b := range c.Boilers {
-		boilers += b.SteamKgS
-	}
-	out.Case = c.Name
-	out.SeaTK, out.AirTK = temperature(c.Conditions.SeaT), temperature(c.Conditions.AirT)
-	out.EngineLoad = Round(c.Conditions.EngineLoad)
+	out.Case = c.Case
+	out.SeaTK, out.AirTK = temperature(c.SeaT), temperature(c.AirT)
+	out.EngineLoad = Round(c.EngineLoad)
 	out.BoilersFiring, out.CanCarry = c.BoilersFiring, c.CanCarry
 	out.SteamDemandKgH = Round(KgPerH(c.SteamDemandKgS))
 	out.SteamProductionKgH = Round(KgPerH(c.SteamProductionKgS))
-	out.BoilerSteamKgH = Round(KgPerH(boilers))
+	out.BoilerSteamKgH = Round(KgPerH(c.BoilerSteamKgS))
 	out.EGESteamKgH = Round(KgPerH(c.EGESteamKgS))
 	out.DumpedKgH = Round(KgPerH(c.DumpedKgS))
 	out.FuelKgH = Round(KgPerH(c.FuelKgS))
@@ -176,26 +176,35 @@ func NewVoyageRow(row profile.RowResult) VoyageRow {
 	out.CO2T = Round(Tonnes(c.CO2KgS, row.Hours))
 	out.CO2AnalysisT = roundPtr(Tonnes(c.CO2AnalysisKgS, row.Hours), !c.CO2AnalysisUnknown)
 	out.MarginKgH = Round(KgPerH(c.MarginNextKgS))
-	if c.ContingenciesChecked {
-		ok := true
-		for _, k := range c.Contingencies {
-			ok = ok && k.CanCarry
-		}
+	if c.N1Checked {
+		ok := c.N1CanCarry
 		out.N1CanCarry = &ok
 	}
 	out.Warnings = append(out.Warnings, c.Warnings...)
 	return out
 }
 
+// newRows returns the schema form of a job's rows solved on the plant
+// called plantName, each with its full case when it kept one.
+func newRows(plantName string, rows []profile.RowResult) []VoyageRow {
+	out := make([]VoyageRow, 0, len(rows))
+	for _, row := range rows {
+		vr := NewVoyageRow(row)
+		if row.Result != nil {
+			c := NewCase(plantName, row.Result)
+			vr.Result = &c
+		}
+		out = append(out, vr)
+	}
+	return out
+}
+
 // NewVoyage returns the schema form of a solved voyage plan run as job.
 func NewVoyage(job Job, r *profile.Result) Voyage {
 	out := Voyage{Job: job.job(), Total: NewTotals(r.Total), Phases: make([]Phase, 0, len(r.Phases)),
-		Rows: make([]VoyageRow, 0, len(r.Rows))}
+		Rows: newRows(job.Plant, r.Rows)}
 	for _, p := range r.Phases {
 		out.Phases = append(out.Phases, Phase{Phase: p.Phase, Totals: NewTotals(p.Totals)})
-	}
-	for _, row := range r.Rows {
-		out.Rows = append(out.Rows, NewVoyageRow(row))
 	}
 	return out
 }
@@ -245,6 +254,9 @@ type Variant struct {
 	Money
 	EGEHours
 	RowWarnings []RowWarning `json:"row_warnings"`
+	// Rows are the variant's rows when the study kept them in full
+	// (profile.Options.KeepResults); null otherwise.
+	Rows []VoyageRow `json:"rows"`
 }
 
 // RowWarning is the warnings of one row of a profile.
@@ -278,6 +290,9 @@ type SweepPoint struct {
 	CO2AvoidedT float64 `json:"co2_avoided_t"`
 	Money
 	EGEHours
+	// Rows are the size's rows when the study kept them in full; null
+	// otherwise.
+	Rows []VoyageRow `json:"rows"`
 }
 
 // newMoney converts money figures; the installed cost is rounded unless
@@ -314,6 +329,7 @@ func NewStudy(job Job, r *profile.StudyResult) Study {
 		for _, w := range v.RowWarnings {
 			vj.RowWarnings = append(vj.RowWarnings, RowWarning{Row: w.Row + 1, Warnings: append([]string{}, w.Texts...)})
 		}
+		vj.Rows = keptRows(job.Plant, v.Rows)
 		out.Variants = append(out.Variants, vj)
 	}
 	if sw := r.Sweep; sw != nil {
@@ -327,9 +343,18 @@ func NewStudy(job Job, r *profile.StudyResult) Study {
 			js.Points = append(js.Points, SweepPoint{Value: pt.Value, UA: Round(pt.UA), FuelT: Round(pt.FuelT), CO2T: Round(pt.CO2T),
 				EGESteamT: Round(pt.EGESteamT), DumpedT: Round(pt.DumpedT), FoulingT: Round(pt.EGEFoulingLostT),
 				FuelSavedT: Round(pt.FuelSavedT), CO2AvoidedT: Round(pt.CO2AvoidedT), Money: newMoney(pt.Money, r.HasNPV, false),
-				EGEHours: newEGEHours(pt.EGEHours)})
+				EGEHours: newEGEHours(pt.EGEHours), Rows: keptRows(job.Plant, pt.Rows)})
 		}
 		out.Sweep = js
 	}
 	return out
+}
+
+// keptRows is the schema form of the rows a study kept, or nil (null)
+// when it kept none.
+func keptRows(plantName string, rows []profile.RowResult) []VoyageRow {
+	if rows == nil {
+		return nil
+	}
+	return newRows(plantName, rows)
 }

@@ -226,6 +226,23 @@ func TestNewJobs(t *testing.T) {
 		}
 		near(t, "fuel_t", row.FuelT, c.FuelKgS*3.6*v.Rows[i].Hours, 5e-6)
 		near(t, "steam_production_kg_h", row.SteamProductionKgH, c.SteamProductionKgS*3600, 5e-6)
+		// Kept in full: the row's result is its CASE.
+		if row.Result == nil || !reflect.DeepEqual(*row.Result, NewCase(job.Plant, c)) {
+			t.Errorf("row %d: result %+v, want the CASE of its case result", i+1, row.Result)
+		}
+	}
+	// Summaries only: the same row, its result null.
+	lean := *v
+	lean.Rows = append([]profile.RowResult(nil), v.Rows...)
+	for i := range lean.Rows {
+		lean.Rows[i].Result = nil
+	}
+	for i, row := range NewVoyage(job, &lean).Rows {
+		full := vj.Rows[i]
+		full.Result = nil
+		if row.Result != nil || !reflect.DeepEqual(row, full) {
+			t.Errorf("row %d from its summary: %+v\nwant %+v", i+1, row, full)
+		}
 	}
 	if len(vj.Rows[1].Warnings) == 0 || !strings.Contains(vj.Rows[1].Warnings[0], "cycles") {
 		t.Errorf("the light row (1000 kg/h on a burner minimum of 3600 kg/h) should warn that it cycles: %q", vj.Rows[1].Warnings)
@@ -251,6 +268,17 @@ func TestNewJobs(t *testing.T) {
 	}
 
 	sj := NewStudy(job, s)
+	if sj.Variants[0].Rows != nil || sj.Variants[1].Rows != nil {
+		t.Errorf("a study that keeps summaries has rows: %d, %d", len(sj.Variants[0].Rows), len(sj.Variants[1].Rows))
+	}
+	// A study that kept its rows: each variant's rows, with their cases.
+	kept := *s
+	kept.Variants = append([]profile.VariantResult(nil), s.Variants...)
+	kept.Variants[0].Rows = v.Rows
+	if rows := NewStudy(job, &kept).Variants[0].Rows; len(rows) != 3 || rows[1].Result == nil || rows[1].Result.Name != "light" ||
+		!reflect.DeepEqual(rows[1].Warnings, vj.Rows[1].Warnings) {
+		t.Errorf("a study's kept rows: %+v", rows)
+	}
 	if sj.Variants[0].PaybackYears != nil {
 		t.Errorf("the base has a payback %v", *sj.Variants[0].PaybackYears)
 	}
@@ -302,7 +330,8 @@ func TestNewVoyageRowUnsolved(t *testing.T) {
 	must(t, err)
 	want := `{"row":5,"phase":"port","hours":6,"case":"","sea_T_K":null,"air_T_K":null,"engine_load":0,` +
 		`"boilers_firing":0,"can_carry":true,"steam_demand_kg_h":0,"steam_production_kg_h":0,"boiler_steam_kg_h":0,` +
-		`"ege_steam_kg_h":0,"dumped_kg_h":0,"fuel_kg_h":0,"fuel_t":0,"co2_t":0,"co2_analysis_t":0,"margin_kg_h":0,"n_minus_1_can_carry":null,"warnings":[],"tanks":[]}`
+		`"ege_steam_kg_h":0,"dumped_kg_h":0,"fuel_kg_h":0,"fuel_t":0,"co2_t":0,"co2_analysis_t":0,"margin_kg_h":0,"n_minus_1_can_carry":null,"warnings":[],"tanks":[],` +
+		`"result":null}`
 	if string(b) != want {
 		t.Errorf("got  %s\nwant %s", b, want)
 	}

@@ -7,7 +7,7 @@ local ship = steam_plant { name = "Invented Small Tanker",
     { name = "COT 1", kind = "tank_heating", fuel = "HSFO", T = "45 C", volume = "5000 m3", returns = "95 %",
       boundaries = { { area = "1000 m2", U = "5 W/m2K", beyond = "sea" }, { area = "600 m2", U = "4 W/m2K", beyond = "air" } } } } }
 
-local v = voyage(ship, { name = "heat-up", rows = {
+local v = voyage(ship, { name = "heat-up", keep = "full", rows = {
   { phase = "passage", hours = 24, sea = "10 C", air = "5 C" },
   { phase = "heat-up", hours = 48, sea = "10 C", air = "5 C",
     set = { ["COT 1"] = { mode = "heat_up", from = "45 C", to = "55 C", duration = "48 h" } } },

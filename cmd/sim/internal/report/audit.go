@@ -7,6 +7,7 @@ import (
 	"strings"
 	"text/tabwriter"
 
+	"steamcase/plant"
 	"steamcase/plant/profile"
 )
 
@@ -239,11 +240,41 @@ func writeRecord(w io.Writer, run Run) {
 		return
 	}
 	fmt.Fprintf(w, "  defaults in force (keys the plant's description leaves at the registry's default; a case may change some):\n")
-	plantName := ""
-	for _, a := range run.Assumptions {
-		if a.Plant != plantName {
-			plantName = a.Plant
-			fmt.Fprintf(w, "    plant \"%s\":\n", plantName) // escaped by the caller, as every name but the jobs' plants
+	for i := 0; i < len(run.Assumptions); {
+		j := i
+		for j < len(run.Assumptions) && run.Assumptions[j].Plant == run.Assumptions[i].Plant {
+			j++
+		}
+		writeAssumptions(w, run.Assumptions[i].Plant, run.Assumptions[i:j])
+		i = j
+	}
+}
+
+// writeAssumptions writes one plant's defaults in force: each figure
+// assumed with its value and source on a line of its own, then the keys
+// whose default leaves an effect out, is taken from elsewhere, or is the
+// model's rule, by name on a few wrapped lines (their values are in the
+// JSON's assumptions and in plant's key reference).
+func writeAssumptions(w io.Writer, plantName string, as []Assumption) {
+	fmt.Fprintf(w, "    plant \"%s\":\n", plantName) // escaped by the caller, as every name but the jobs' plants
+	groups := []struct {
+		source, head string
+		keys         []string
+	}{
+		{source: plant.SourceLeftOut, head: "left out unless given"},
+		{source: plant.SourceDerived, head: "taken from the description or the case"},
+		{source: plant.SourceRule, head: "the model's rule"},
+	}
+	for _, a := range as {
+		grouped := false
+		for g := range groups {
+			if a.Source == groups[g].source {
+				groups[g].keys = append(groups[g].keys, a.Unit+"."+a.Key)
+				grouped = true
+			}
+		}
+		if grouped {
+			continue
 		}
 		src := a.Source
 		if src == "" {
@@ -251,4 +282,29 @@ func writeRecord(w io.Writer, run Run) {
 		}
 		fmt.Fprintf(w, "      %s.%s (%s) %s: %s\n", a.Unit, a.Key, a.Kind, a.Label, a.Value+"; "+src)
 	}
+	for _, g := range groups {
+		if len(g.keys) == 0 {
+			continue
+		}
+		writeWrapped(w, "      "+g.head+" ("+strconv.Itoa(len(g.keys))+"): ", "        ", strings.Join(g.keys, ", "), 92)
+	}
+}
+
+// writeWrapped writes first+text, breaking text at spaces so that no line
+// passes width; continuation lines start with indent.
+func writeWrapped(w io.Writer, first, indent, text string, width int) {
+	line := first
+	start := true
+	for _, word := range strings.Fields(text) {
+		if !start && len(line)+1+len(word) > width {
+			fmt.Fprintln(w, line)
+			line, start = indent, true
+		}
+		if !start {
+			line += " "
+		}
+		line += word
+		start = false
+	}
+	fmt.Fprintln(w, line)
 }

@@ -4,7 +4,6 @@ import (
 	"io"
 	"testing"
 
-	"steamcase/plant"
 	"steamcase/plant/profile"
 )
 
@@ -59,15 +58,14 @@ func BenchmarkPlotSVG(b *testing.B) {
 // a plan of 400 rows, as a two-week plan in hourly steps would be.
 func longVoyage(b *testing.B) Voyage {
 	v := profileRun(b).Voyages[0]
-	var rows []profile.Row
-	var res []*plant.CaseResult
+	var rows []profile.RowResult
 	for range 100 {
 		for _, r := range v.Result.Rows {
-			rows = append(rows, profile.Row{Phase: r.Phase, Hours: r.Hours})
-			res = append(res, r.Result)
+			r.Index = len(rows)
+			rows = append(rows, r)
 		}
 	}
-	v.Result = profile.Sum(rows, res)
+	v.Result = profile.Sum(rows)
 	return v
 }
 

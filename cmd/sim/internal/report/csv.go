@@ -225,17 +225,13 @@ func CSV(w io.Writer, run Run) error {
 				continue
 			}
 			for _, row := range v.Result.Rows {
-				c := row.Result
-				var boilers float64
-				for _, b := range c.Boilers {
-					boilers += b.SteamKgS
-				}
+				c := &row.Summary
 				rec := [...]string{
-					TableVoyage, v.Name, strconv.Itoa(row.Index + 1), source(v.Job, row.Index), row.Phase, c.Name,
+					TableVoyage, v.Name, strconv.Itoa(row.Index + 1), source(v.Job, row.Index), row.Phase, c.Case,
 					fix(row.Hours, csvHoursDec),
-					csvCelsius(c.Conditions.SeaT), csvCelsius(c.Conditions.AirT), fix(c.Conditions.EngineLoad*100, 1),
+					csvCelsius(c.SeaT), csvCelsius(c.AirT), fix(c.EngineLoad*100, 1),
 					strconv.Itoa(c.BoilersFiring), strconv.FormatBool(c.CanCarry),
-					flow(c.SteamDemandKgS), flow(boilers), flow(c.EGESteamKgS), flow(c.FuelKgS),
+					flow(c.SteamDemandKgS), flow(c.BoilerSteamKgS), flow(c.EGESteamKgS), flow(c.FuelKgS),
 					fix(schema.Tonnes(c.FuelKgS, row.Hours), csvTonnesDec), fix(schema.Tonnes(c.CO2KgS, row.Hours), csvTonnesDec),
 					flow(c.MarginNextKgS),
 				}
@@ -248,7 +244,7 @@ func CSV(w io.Writer, run Run) error {
 				continue
 			}
 			for _, row := range v.Result.Rows {
-				for _, text := range row.Result.Warnings {
+				for _, text := range row.Summary.Warnings {
 					rec := [...]string{TableVoyageWarn, v.Name, strconv.Itoa(row.Index + 1), source(v.Job, row.Index), oneLine(text)}
 					write(rec[:])
 				}

@@ -233,13 +233,9 @@ func writeHeatingPlanCSV(run Run, begin func([]string, bool), write func([]strin
 		}
 		for i, row := range r.Rows {
 			boilers, steam, fuel := "", "", ""
-			if v := r.Plan.Voyage; v != nil && i < len(v.Rows) && v.Rows[i].Result != nil {
-				c := v.Rows[i].Result
-				var s float64
-				for _, b := range c.Boilers {
-					s += b.SteamKgS
-				}
-				boilers, steam, fuel = strconv.Itoa(c.BoilersFiring), flow(s), fix(schema.Tonnes(c.FuelKgS, row.Hours), csvTonnesDec)
+			if v := r.Plan.Voyage; v != nil && i < len(v.Rows) && v.Rows[i].Summary.Solved {
+				c := &v.Rows[i].Summary
+				boilers, steam, fuel = strconv.Itoa(c.BoilersFiring), flow(c.BoilerSteamKgS), fix(schema.Tonnes(c.FuelKgS, row.Hours), csvTonnesDec)
 			}
 			for _, t := range r.Tanks {
 				tr := t.Rows[i]
@@ -382,7 +378,7 @@ func PlotHeatingPlan(w io.Writer, format string, h HeatingPlan) error {
 		legendEntry{"never below", []plot.Thumbnailer{dotted}})
 
 	down := plot.New()
-	down.X.Label.Text = "hours from the start of the voyage"
+	down.X.Label.Text = "time from the start of the voyage, h"
 	down.Y.Label.Text = "steam, kg/h"
 	down.X.Min, down.X.Max = 0, vs.hours
 	down.Y.Min, down.Y.Max = 0, vs.top*1.1
@@ -454,19 +450,19 @@ func (s *voyageSeries) shadePhasesFrom(p *plot.Plot, ymin, ymax float64) error {
 // periods where its coil's capacity bound or its instruction fell short.
 func writeVoyageTanks(w io.Writer, v Voyage) {
 	rows := v.Result.Rows
-	if len(rows) == 0 || rows[0].Result == nil || len(rows[0].Result.Tanks) == 0 {
+	if len(rows) == 0 || len(rows[0].Summary.Tanks) == 0 {
 		return
 	}
 	fmt.Fprintf(w, "  tanks carried from row to row:\n")
-	for k, t0 := range rows[0].Result.Tanks {
+	for k, t0 := range rows[0].Summary.Tanks {
 		lo, hi := t0.T0, t0.T0
 		var binds, short []int
 		end := t0.T0
 		for i, row := range rows {
-			if row.Result == nil || k >= len(row.Result.Tanks) {
+			if k >= len(row.Summary.Tanks) {
 				continue
 			}
-			tr := row.Result.Tanks[k]
+			tr := row.Summary.Tanks[k]
 			lo, hi, end = min(lo, tr.T1), max(hi, tr.T1), tr.T1
 			if tr.Binds {
 				binds = append(binds, i)

@@ -204,15 +204,8 @@ func voyageSeriesOf(rows []profile.RowResult) voyageSeries {
 	var s voyageSeries
 	t := 0.0
 	for _, row := range rows {
-		c := row.Result
-		var fired, mcrF, mcrA float64
-		for _, b := range c.Boilers {
-			fired += b.SteamKgS
-			mcrA += b.MCRKgS
-			if b.Firing {
-				mcrF += b.MCRKgS
-			}
-		}
+		c := &row.Summary
+		fired, mcrF, mcrA := c.BoilerSteamKgS, c.FiringMCRKgS, c.MCRKgS
 		s.boilers = append(s.boilers, plotter.XY{X: t, Y: fired * kgh})
 		s.total = append(s.total, plotter.XY{X: t, Y: c.SteamDemandKgS * kgh})
 		s.capF = append(s.capF, plotter.XY{X: t, Y: mcrF * kgh})
@@ -657,7 +650,7 @@ func sweepPanels(r *profile.StudyResult) (*plot.Plot, *plot.Plot, error) {
 		lbl.TextStyle[0].YAlign = draw.YBottom
 		if sw.Best > len(sw.Points)/2 {
 			lbl.TextStyle[0].XAlign = draw.XRight
-			lbl.Labels[0] = fmt.Sprintf("best: %s, NPV %s %s  ", sizeText(sw.Param, b.Value), fix(b.NPV, 0), r.Currency)
+			lbl.Labels[0] = fmt.Sprintf("best: %s, NPV %s %s  ", sizeText(sw.Param, b.Value), fix(b.NPV/1e3, 0)+" thousand", r.Currency)
 		}
 		npv.Add(lbl)
 	}

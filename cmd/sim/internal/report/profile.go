@@ -224,11 +224,11 @@ func writeRowWarnings(w io.Writer, v Voyage) {
 			fmt.Fprintf(w, "    and %d more periods with warnings\n", len(rows)-maxWarnRows)
 			break
 		}
-		if i < 0 || i >= len(v.Result.Rows) || v.Result.Rows[i].Result == nil {
+		if i < 0 || i >= len(v.Result.Rows) || !v.Result.Rows[i].Summary.Solved {
 			continue
 		}
-		c := v.Result.Rows[i].Result
-		fmt.Fprintf(w, "    %s, %q:\n", v.rowRef(i), c.Name)
+		c := &v.Result.Rows[i].Summary
+		fmt.Fprintf(w, "    %s, %q:\n", v.rowRef(i), c.Case)
 		for k, s := range c.Warnings {
 			if k == maxWarnTexts {
 				fmt.Fprintf(w, "      - and %d more\n", len(c.Warnings)-maxWarnTexts)

@@ -102,8 +102,8 @@ func TestProfileTable(t *testing.T) {
 		"periods the plant cannot carry: row 4 (plan.csv:5)",
 		// Each period with warnings, its warnings under it: the fourth
 		// has five, of which three are shown.
-		"periods with warnings: 4 of 4\n    row 1 (plan.csv:2), \"port 1\":\n      - " + oneLine(v.Rows[0].Result.Warnings[0]),
-		"    row 4 (plan.csv:5), \"discharge 2\":\n      - " + oneLine(v.Rows[3].Result.Warnings[0]),
+		"periods with warnings: 4 of 4\n    row 1 (plan.csv:2), \"port 1\":\n      - " + oneLine(v.Rows[0].Summary.Warnings[0]),
+		"    row 4 (plan.csv:5), \"discharge 2\":\n      - " + oneLine(v.Rows[3].Summary.Warnings[0]),
 		"      - and 2 more\n",
 		"Study: lagging", "better lagging", "saved EUR", "payback years",
 		"rows with warnings, by variant:\n    as built: 3 of 3 rows\n      row 1 (plan.csv:2):\n        - ",
@@ -144,8 +144,8 @@ func TestVoyageWarningsCut(t *testing.T) {
 	v := run.Voyages[0]
 	r := *v.Result
 	last := r.Rows[3]
-	if len(last.Result.Warnings) != 5 {
-		t.Fatalf("the fourth row has %d warnings; the test wants 5", len(last.Result.Warnings))
+	if len(last.Summary.Warnings) != 5 {
+		t.Fatalf("the fourth row has %d warnings; the test wants 5", len(last.Summary.Warnings))
 	}
 	r.Rows = nil
 	r.Total.WarningRows = nil
@@ -251,17 +251,17 @@ func TestCSVJobs(t *testing.T) {
 	}
 	var fuel float64
 	for i, row := range v.Result.Rows {
-		c := row.Result
+		c := row.Summary
 		if get(TableVoyage, i, "voyage") != v.Name || get(TableVoyage, i, "phase") != row.Phase ||
-			get(TableVoyage, i, "case") != c.Name || get(TableVoyage, i, "source") != v.Rows[i] ||
+			get(TableVoyage, i, "case") != c.Case || get(TableVoyage, i, "source") != v.Rows[i] ||
 			get(TableVoyage, i, "can_carry") != strconv.FormatBool(c.CanCarry) {
 			t.Errorf("voyage row %d: %q", i+1, tables[TableVoyage][i+1])
 		}
 		num(TableVoyage, i, "row", float64(i+1), 0)
 		num(TableVoyage, i, "hours", row.Hours, 0.005)
-		num(TableVoyage, i, "sea_T_C", c.Conditions.SeaT-273.15, 0.05)
-		num(TableVoyage, i, "air_T_C", c.Conditions.AirT-273.15, 0.05)
-		num(TableVoyage, i, "engine_load_pct", c.Conditions.EngineLoad*100, 0.05)
+		num(TableVoyage, i, "sea_T_C", c.SeaT-273.15, 0.05)
+		num(TableVoyage, i, "air_T_C", c.AirT-273.15, 0.05)
+		num(TableVoyage, i, "engine_load_pct", c.EngineLoad*100, 0.05)
 		num(TableVoyage, i, "boilers_firing", float64(c.BoilersFiring), 0)
 		num(TableVoyage, i, "steam_demand_kg_h", c.SteamDemandKgS*3600, 0.05)
 		num(TableVoyage, i, "fuel_kg_h", c.FuelKgS*3600, 0.05)
@@ -273,7 +273,7 @@ func TestCSVJobs(t *testing.T) {
 	// and source.
 	var want [][]string
 	for i, row := range v.Result.Rows {
-		for _, s := range row.Result.Warnings {
+		for _, s := range row.Summary.Warnings {
 			want = append(want, []string{TableVoyageWarn, v.Name, strconv.Itoa(i + 1), v.Rows[i], oneLine(s)})
 		}
 	}
