@@ -204,6 +204,7 @@ func Run(ctx context.Context, p *plant.Plant, rows []Row, opt Options) (*Result,
 		}
 	}
 	err := forEach(ctx, p, nChunks, opt.Workers, func(ctx context.Context, pl *plant.Plant, c int) error {
+		defer summaryOnly(pl, opt.KeepResults)()
 		pl.ColdStart()
 		lo, hi := chunk(c)
 		for i := lo; i < hi; i++ {

@@ -77,6 +77,7 @@ func startTanks(pl *plant.Plant, tanks []TankStart) error {
 // its summary, and its case result if keep.
 func runStateful(ctx context.Context, pl *plant.Plant, rows []Row, tanks []TankStart, progress func(done int), texts *Texts, keep bool) ([]RowResult, error) {
 	defer pl.StopTanks()
+	defer summaryOnly(pl, keep)()
 	if err := startTanks(pl, tanks); err != nil {
 		return nil, err
 	}

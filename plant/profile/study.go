@@ -413,6 +413,7 @@ func runVariants(ctx context.Context, p *plant.Plant, rows []Row, sets [][]plant
 	}
 	err := forEach(ctx, p, len(sets)*nChunks, opt.Workers, func(ctx context.Context, pl *plant.Plant, k int) error {
 		v, c := k/nChunks, k%nChunks
+		defer summaryOnly(pl, opt.KeepResults)()
 		pl.ColdStart()
 		lo, hi := chunk(c)
 		for i := lo; i < hi; i++ {

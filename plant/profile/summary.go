@@ -157,6 +157,16 @@ func Summarise(cr *plant.CaseResult, texts *Texts) RowSummary {
 	return s
 }
 
+// summaryOnly makes pl leave the lines' states out of its case results
+// (plant.Options.NoLineStates) while its rows keep their summaries alone
+// (keep false), which read no line, and returns what puts the option
+// back: pl may be the caller's plant.
+func summaryOnly(pl *plant.Plant, keep bool) func() {
+	old := pl.Opt.NoLineStates
+	pl.Opt.NoLineStates = old || !keep
+	return func() { pl.Opt.NoLineStates = old }
+}
+
 // Texts keeps one copy of each distinct text for the rows of a run, so
 // that rows that warn alike share the bytes. Its zero value is ready; it
 // is safe for use by several goroutines, and a nil *Texts keeps every
