@@ -20,9 +20,9 @@ func TestDefaults(t *testing.T) {
 	for _, a := range p.Defaults() {
 		got[a.Unit+"."+a.Key] = a
 	}
-	// The pump's efficiency: 45 % from plant-checks.md §9 [M], the
+	// The pump's efficiency: 45 % from docs/reference/plant-checks.md §9 [M], the
 	// registry's own default and source.
-	if a, ok := got["fp2.eta"]; !ok || a.Value != "45 %" || a.Source != "plant-checks.md §9 [M]" || a.Kind != "feed pump" {
+	if a, ok := got["fp2.eta"]; !ok || a.Value != "45 %" || a.Source != "docs/reference/plant-checks.md §9 [M]" || a.Kind != "feed pump" {
 		t.Errorf("fp2.eta: %+v (listed %v)", a, ok)
 	}
 	if _, ok := got["fp.eta"]; ok {

@@ -231,7 +231,7 @@ var boilerKeys = []Key{
 	boilerKey(Key{Name: "standby_loss", Label: "standby loss", Dim: units.Power, Example: "25 kW",
 		Doc:         "heat the warm boiler loses from its casing at the drum temperature, made up while it cycles (or by warming steam)",
 		DefaultNote: "the efficiency model's casing loss (a furnace model's radiation_loss; a flue-gas table's radiation times the heat input at MCR); else 1 % of the heat input at MCR",
-		Source:      "plant-checks.md §3.4 [CP]", Min: 0, Max: 1e8, Case: true, JSON: "standby_loss_kW"},
+		Source:      "docs/reference/plant-checks.md §3.4 [CP]", Min: 0, Max: 1e8, Case: true, JSON: "standby_loss_kW"},
 		func(u *Boiler) *float64 { return &u.StandbyLoss }),
 	boilerKey(Key{Name: "purge_air", Label: "purge air volume", Dim: units.Volume, Example: "40 m3",
 		Doc: "air blown through the furnace by one pre-purge, at the fan inlet (with starts_per_hour, or cycle_band and water_content)", DefaultNote: "purge losses not counted",
@@ -452,13 +452,13 @@ func (u *Boiler) operation(ev *eval) (BoilerOperation, bool, error) {
 
 // defaultStandbyFraction is the standby loss of a boiler whose efficiency
 // model has no casing loss: 1 % of the heat input at MCR, the middle of
-// the 0.5-1.5 % at MCR of marine auxiliary boilers (plant-checks.md §3.4
+// the 0.5-1.5 % at MCR of marine auxiliary boilers (docs/reference/plant-checks.md §3.4
 // [CP]).
 const defaultStandbyFraction = 0.01
 
 // nominalFeedT is the feed temperature at which prepare evaluates a
 // combustion model at MCR for the heat input behind a standby loss given
-// as a fraction of it (60 °C, a hotwell's usual figure, plant-checks.md
+// as a fraction of it (60 °C, a hotwell's usual figure, docs/reference/plant-checks.md
 // §3.5 [M/CP]); the loss itself follows the case's feed (cycleParams).
 const nominalFeedT = 333.15
 
@@ -506,7 +506,7 @@ func (u *Boiler) prepare(pl *Plant, c Conditions) error {
 // is the heat to steam at MCR over the efficiency at MCR, so that the loss
 // follows the case's feed: W = fraction·MCR·e/η_MCR with e the heat per kg
 // of steam (cycleHeat). Simplification: the casing loss, in W, is taken
-// as the same whether the burner is on or off (plant-checks.md §3.4 [M]:
+// as the same whether the burner is on or off (docs/reference/plant-checks.md §3.4 [M]:
 // the loss in kW is roughly constant with load).
 func (u *Boiler) prepareStandby(cp *cycleParams, c Conditions) error {
 	if u.StandbyLoss > 0 {
@@ -935,7 +935,7 @@ func (u *Boiler) report(ev *eval, cr *CaseResult) error {
 	}
 	if u.Burner.FanRise > 0 && br.AirKgS > 0 {
 		// Air density from the ideal gas law at the fan inlet, dry air
-		// (M 28.964 kg/kmol, plant-checks.md §0 [CP]); humidity changes
+		// (M 28.964 kg/kmol, docs/reference/plant-checks.md §0 [CP]); humidity changes
 		// it by under 1 %.
 		rho := ev.pl.Opt.AmbientPressure * 28.964e-3 / (8.314462618 * u.airT(ev))
 		motor := u.Burner.MotorEta

@@ -227,7 +227,7 @@ func (m *TankHeating) validate() error {
 
 // shedCooling is what a shortfall does to the cargo when the heating
 // delivers only delivered W: the cargo's temperature change at the start
-// (the lumped model of loads.TankHeating.CoolDownAfter, plant-checks.md
+// (the lumped model of loads.TankHeating.CoolDownAfter, docs/reference/plant-checks.md
 // §6 [CP]),
 //
 //	dT/dt = (delivered − Σ U·A·(T0 − T_amb)) / (m·c(T0)),
@@ -335,7 +335,7 @@ var tankHeatingKeys = append([]Key{
 			return ok
 		}},
 	tankKey(Key{Name: "cp", Label: "cargo specific heat", Dim: units.SpecificHeat, Example: "1.9 kJ/kgK",
-		Doc: "a constant specific heat instead of Cragoe's", DefaultNote: "Cragoe (1929) at the oil's specific gravity", Min: 500, Max: 5000, Source: "plant-checks.md §5.3 [S]"},
+		Doc: "a constant specific heat instead of Cragoe's", DefaultNote: "Cragoe (1929) at the oil's specific gravity", Min: 500, Max: 5000, Source: "docs/reference/plant-checks.md §5.3 [S]"},
 		func(m *TankHeating) *float64 { return &m.Tank.Cargo.Cp }),
 	text(Key{Name: "cargo", Label: "cargo name", Example: `"heavy crude"`, Doc: "the cargo's name, for reports"},
 		func(c Component, v []string) error {
@@ -407,7 +407,7 @@ var tankHeatingKeys = append([]Key{
 	tankKey(Key{Name: "coil_U", Label: "coil U", Dim: units.HeatTransferCoefficient, Example: "60 W/m2K",
 		Doc:         "overall heat-transfer coefficient of the coil, steam to cargo",
 		DefaultNote: "60 W/m2K for a coil in the tank, 250 W/m2K for a deck heater (plant/loads' DefaultCoilU, DefaultDeckHeaterU)",
-		Source:      "plant-checks.md §6 coil row [M] (a coil); from memory (a deck heater)", Min: 1, Max: 5000},
+		Source:      "docs/reference/plant-checks.md §6 coil row [M] (a coil); from memory (a deck heater)", Min: 1, Max: 5000},
 		func(m *TankHeating) *float64 { return &m.Tank.Coil.U }),
 	tankKey(Key{Name: "circulation", Label: "cargo circulation", Dim: units.VolumeFlow, Example: "200 m3/h",
 		Doc: "cargo pumped through a deck heater (coil = \"deck_heater\"; required there)", Min: 0, Max: 100},

@@ -60,7 +60,7 @@ var economiserKeys = []Key{
 		self[*Economiser], func(u *Economiser) *float64 { return &u.DesignGasFlow }),
 	num(Key{Name: "exponent", Label: "UA exponent n (UA ∝ gas flow^n)", Kind: KeyNumber, Example: "0.65",
 		Doc: "n of UA ∝ gas flow^n off design", Default: defaultEGEExponent, HasDefault: true,
-		Source: "plant-checks.md §7 [S]", Min: 0.5, Max: 1},
+		Source: "docs/reference/plant-checks.md §7 [S]", Min: 0.5, Max: 1},
 		self[*Economiser], func(u *Economiser) *float64 { return &u.Exponent }),
 }
 

@@ -147,7 +147,7 @@ type FlueGasTable struct {
 
 	// RadiationAtMCR is the radiation and convection loss at MCR as a
 	// fraction of the heat input (0.5-1.5 % for marine auxiliary boilers,
-	// plant-checks.md §3.4 [CP]); the loss in kW is taken as constant, so
+	// docs/reference/plant-checks.md §3.4 [CP]); the loss in kW is taken as constant, so
 	// the fraction grows as 1/load.
 	RadiationAtMCR float64
 	// RelativeHumidity of the combustion air, 0..1 (zero: dry air).
@@ -286,7 +286,7 @@ type FurnaceTubes struct {
 	// Passes are the smoke-tube passes in the order the gas meets them.
 	Passes []heat.SmokeTubes
 	// RadiationLoss is the casing's radiation and convection loss, W,
-	// taken as constant with load (plant-checks.md §3.4 [M]).
+	// taken as constant with load (docs/reference/plant-checks.md §3.4 [M]).
 	RadiationLoss    float64
 	RelativeHumidity float64 // of the combustion air, 0..1
 	AtomisingSteam   float64 // kg per kg fuel, leaving with the flue gas
@@ -376,7 +376,7 @@ func (m *FurnaceTubes) path(op BoilerOperation, fuelFlow float64) (combustion.Pr
 	}
 	x := prod.MoleFractions(true)
 	var comp heat.Composition
-	comp[heat.N2] = x[combustion.N2] + x[combustion.SO2] + x[combustion.CO] // SO2 folded into N2, heat-transfer.md §1.3
+	comp[heat.N2] = x[combustion.N2] + x[combustion.SO2] + x[combustion.CO] // SO2 folded into N2, docs/reference/heat-transfer.md §1.3
 	comp[heat.O2] = x[combustion.O2]
 	comp[heat.CO2] = x[combustion.CO2]
 	comp[heat.H2O] = x[combustion.H2O]
@@ -387,7 +387,7 @@ func (m *FurnaceTubes) path(op BoilerOperation, fuelFlow float64) (combustion.Pr
 	if m.Furnace.WallArea > 0 {
 		f := m.Furnace
 		if f.WallTemperature == 0 {
-			f.WallTemperature = tSat + 20 // water-cooled wall a little above T_sat, heat-transfer.md §8 [CP]
+			f.WallTemperature = tSat + 20 // water-cooled wall a little above T_sat, docs/reference/heat-transfer.md §8 [CP]
 		}
 		res, err := f.Solve(heat.FurnaceInput{GasFlow: mGas, Composition: comp, Enthalpy: h, AdiabaticTemperature: tad})
 		if err := errors.Join(err, hErr); err != nil {

@@ -14,7 +14,7 @@ import (
 )
 
 // EngineExhaust describes the main engine's exhaust against its load, as
-// the engine's project guide gives it (plant-checks.md §7 gives indicative
+// the engine's project guide gives it (docs/reference/plant-checks.md §7 gives indicative
 // values [M]; a real engine's come from its maker), at the engine's
 // reference conditions (ExhaustGasEconomiser corrects it to the site's).
 // Between the tabulated loads the figures are interpolated linearly;
@@ -91,7 +91,7 @@ const (
 //
 //	T_out = T_sat + (T_in − T_sat)·exp(−NTU),  NTU = UA/(ṁ_gas·c̄p)
 //
-// (ε-NTU with one stream at constant temperature, plant-checks.md §7 [C]),
+// (ε-NTU with one stream at constant temperature, docs/reference/plant-checks.md §7 [C]),
 // and off design UA scales as ṁ_gas^n (n 0.6-0.8, common practice: gas-side
 // h ∝ Re^0.6 in tube banks, Re^0.8 in tubes). The steam it raises is the
 // duty over the enthalpy rise from its feed to the steam. Steam beyond the
@@ -99,17 +99,17 @@ const (
 //
 // The engine's table holds at its reference conditions (ISO 15550 and ISO
 // 3046-1: 25 °C intake air, 25 °C charge-air coolant; from memory, and
-// plant-checks.md §7 [M]) and is corrected linearly to the case's intake
+// docs/reference/plant-checks.md §7 [M]) and is corrected linearly to the case's intake
 // air and coolant: T_in = T_table + a·ΔT_air + b·ΔT_coolant and ṁ = ṁ_table
 // ·(1 + c·ΔT_air + d·ΔT_coolant). The maker's coefficients replace the
-// defaults (a = 1.6 K/K, c = −0.35 %/K: plant-checks.md §7 [M], low
+// defaults (a = 1.6 K/K, c = −0.35 %/K: docs/reference/plant-checks.md §7 [M], low
 // confidence; b = d = 0). The size (UA, or the design pinch) belongs to the
 // table as given: it does not change with the case.
 //
 // Gas-side fouling (soot) grows between soot blowing or water washing,
 // over CleanInterval running hours, either as a fouling resistance growing
 // linearly with running hours on a clean surface of overall coefficient
-// CleanU (1/UA_f = 1/UA + R_f/A, A = UA_ref/U; heat-transfer.md §5 [CP/M]:
+// CleanU (1/UA_f = 1/UA + R_f/A, A = UA_ref/U; docs/reference/heat-transfer.md §5 [CP/M]:
 // "model soot as a time-varying resistance"), or as UA falling linearly to
 // FouledUA of its clean value. Cleaning restores the clean UA. A case takes
 // the mean duty over the interval (Gauss–Legendre, 8 points), the clean or
@@ -147,7 +147,7 @@ type ExhaustGasEconomiser struct {
 	// GasCp is a constant mean specific heat of the exhaust, J/(kg K).
 	// Zero means: from the NASA polynomials (plant/combustion) for the
 	// exhaust of ExhaustFuel burnt to ExhaustO2 (dry), or, without those,
-	// 1060 J/(kg K) (plant-checks.md §7: 1.04-1.07 kJ/kg·K at 180-260 °C
+	// 1060 J/(kg K) (docs/reference/plant-checks.md §7: 1.04-1.07 kJ/kg·K at 180-260 °C
 	// [M]). ExhaustFuel and ExhaustO2 also give the exhaust's composition
 	// for the acid dew point and its molar mass.
 	GasCp       float64
@@ -156,7 +156,7 @@ type ExhaustGasEconomiser struct {
 
 	// MinGasOutT is the lowest acceptable gas temperature leaving the
 	// economiser (acid dew point plus a margin; 165-180 °C on high-sulfur
-	// fuel is common practice, plant-checks.md §4 [CP]). Zero: not checked.
+	// fuel is common practice, docs/reference/plant-checks.md §4 [CP]). Zero: not checked.
 	// With Bypass, a damper sends gas past the economiser so that the
 	// mixed gas in the funnel does not fall below it; otherwise falling
 	// below it is a warning.
@@ -240,18 +240,18 @@ type gasState struct {
 func NewExhaustGasEconomiser() *ExhaustGasEconomiser { return &ExhaustGasEconomiser{} }
 
 // defaultEGEExponent is n of UA ∝ ṁ_gas^n when none is given: 0.65,
-// within the 0.6-0.8 of tube banks and tubes (plant-checks.md §7 [S]).
+// within the 0.6-0.8 of tube banks and tubes (docs/reference/plant-checks.md §7 [S]).
 const defaultEGEExponent = 0.65
 
 // defaultEGEGasCp is the exhaust's mean specific heat without a fuel and
 // O2 for the NASA polynomials: 1060 J/(kg K), within the 1.04-1.07 kJ/kg·K
-// of lean exhaust at 180-260 °C (plant-checks.md §7 [M]).
+// of lean exhaust at 180-260 °C (docs/reference/plant-checks.md §7 [M]).
 const defaultEGEGasCp = 1060
 
 // The site correction's defaults: the reference conditions of ISO 15550
 // and ISO 3046-1 (25 °C air and charge-air coolant; from memory), and the
 // exhaust temperature and gas mass per kelvin of intake air of
-// plant-checks.md §7 [M] (about +1.6 K and −0.3 to −0.4 %; the middle).
+// docs/reference/plant-checks.md §7 [M] (about +1.6 K and −0.3 to −0.4 %; the middle).
 const (
 	defaultEGERefT       = 298.15
 	defaultEGETPerAirK   = 1.6
@@ -269,7 +269,7 @@ const (
 const defaultEGESootRiskLoad = 0.4
 
 // exhaustMolarMass is the molar mass of lean engine exhaust taken without
-// its fuel and O2, kg/mol: that of air, 28.96 g/mol (plant-checks.md §0
+// its fuel and O2, kg/mol: that of air, 28.96 g/mol (docs/reference/plant-checks.md §0
 // [CP]), as the exhaust at λ ≈ 3-4 is mostly air.
 const exhaustMolarMass = 0.028964
 
@@ -306,11 +306,11 @@ var egeKeys = []Key{
 		func(u *ExhaustGasEconomiser) *float64 { return &u.DesignPinch }),
 	egeKey(Key{Name: "exponent", Label: "UA exponent n (UA ∝ gas flow^n)", Kind: KeyNumber, Example: "0.65",
 		Doc: "n of UA ∝ gas flow^n off design", Default: defaultEGEExponent, HasDefault: true,
-		Source: "plant-checks.md §7 [S]", Min: 0.5, Max: 1, Case: true},
+		Source: "docs/reference/plant-checks.md §7 [S]", Min: 0.5, Max: 1, Case: true},
 		func(u *ExhaustGasEconomiser) *float64 { return &u.Exponent }),
 	egeKey(Key{Name: "gas_cp", Label: "exhaust gas cp", Dim: units.SpecificHeat, Example: "1.06 kJ/kgK",
 		Doc: "a constant mean specific heat of the exhaust", Default: defaultEGEGasCp, HasDefault: true,
-		Source: "plant-checks.md §7 [M]", Min: 900, Max: 1300, Case: true},
+		Source: "docs/reference/plant-checks.md §7 [M]", Min: 900, Max: 1300, Case: true},
 		func(u *ExhaustGasEconomiser) *float64 { return &u.GasCp }),
 	{Name: "exhaust_fuel", Label: "exhaust fuel", Kind: KeyText, Example: `"VLSFO"`, Case: true,
 		Doc:  "the engine's fuel grade, with exhaust_O2: the exhaust's enthalpy by the NASA polynomials (unless gas_cp is given), its acid dew point and its molar mass",
@@ -347,7 +347,7 @@ var egeKeys = []Key{
 		self[*ExhaustGasEconomiser], func(u *ExhaustGasEconomiser) *AmbientMode { return &u.Ambient }),
 	egeKey(Key{Name: "ref_air_T", Label: "reference intake air temperature", Dim: units.Temperature, Example: "25 C",
 		Doc: "intake air temperature at which the engine table holds", Default: defaultEGERefT, HasDefault: true,
-		Source: "ISO 15550 / ISO 3046-1 reference conditions, from memory; plant-checks.md §7 [M]", Min: 243.15, Max: 333.15, Case: true},
+		Source: "ISO 15550 / ISO 3046-1 reference conditions, from memory; docs/reference/plant-checks.md §7 [M]", Min: 243.15, Max: 333.15, Case: true},
 		func(u *ExhaustGasEconomiser) *float64 { return &u.RefAirT }),
 	egeKey(Key{Name: "ref_coolant_T", Label: "reference charge-air coolant temperature", Dim: units.Temperature, Example: "25 C",
 		Doc: "charge-air coolant temperature at which the engine table holds", Default: defaultEGERefT, HasDefault: true,
@@ -367,11 +367,11 @@ var egeKeys = []Key{
 		func(u *ExhaustGasEconomiser) *float64 { return &u.CoolantT }),
 	egeKey(Key{Name: "exhaust_T_per_K_air", Label: "exhaust temperature per K of intake air", Kind: KeyNumber, Example: "1.6",
 		Doc: "K of exhaust temperature per K of intake air above ref_air_T (the maker's figure)", Default: defaultEGETPerAirK, HasDefault: true,
-		Source: "plant-checks.md §7 [M], low confidence", Min: 0.1, Max: 5, Case: true},
+		Source: "docs/reference/plant-checks.md §7 [M], low confidence", Min: 0.1, Max: 5, Case: true},
 		func(u *ExhaustGasEconomiser) *float64 { return &u.TPerAirK }),
 	egeKey(Key{Name: "gas_per_K_air", Label: "exhaust gas flow per K of intake air", Dim: units.Fraction, Example: "-0.35 %",
 		Doc:     "change of the exhaust gas flow per K of intake air above ref_air_T, a fraction per kelvin (the maker's figure)",
-		Default: defaultEGEGasPerAirK, HasDefault: true, Source: "plant-checks.md §7 [M], low confidence: -0.3 to -0.4 %",
+		Default: defaultEGEGasPerAirK, HasDefault: true, Source: "docs/reference/plant-checks.md §7 [M], low confidence: -0.3 to -0.4 %",
 		Min: -0.02, Max: -1e-5, Case: true},
 		func(u *ExhaustGasEconomiser) *float64 { return &u.GasPerAirK }),
 	egeKey(Key{Name: "exhaust_T_per_K_coolant", Label: "exhaust temperature per K of charge-air coolant", Kind: KeyNumber, Example: "0.5",
@@ -407,7 +407,7 @@ var egeKeys = []Key{
 	// The cold end.
 	egeKey(Key{Name: "so3_conversion", Label: "SO2 converted to SO3", Dim: units.Fraction, Example: "3 %",
 		Doc: "share of the exhaust's SO2 taken as SO3 for the acid dew point", Default: combustion.DefaultSO3Conversion, HasDefault: true,
-		Source: "plant-checks.md §4 [M]", Min: 1e-4, Max: combustion.MaxSO3Conversion, Case: true},
+		Source: "docs/reference/plant-checks.md §4 [M]", Min: 1e-4, Max: combustion.MaxSO3Conversion, Case: true},
 		func(u *ExhaustGasEconomiser) *float64 { return &u.SO3Conversion }),
 	egeKey(Key{Name: "dew_margin", Label: "margin above the acid dew point", Dim: units.TemperatureDifference, Example: "20 K",
 		Doc: "least margin of the gas outlet above the exhaust's acid dew point", Default: combustion.DefaultDewMargin, HasDefault: true,

@@ -26,7 +26,7 @@ func solveEGE(t *testing.T, p *Plant, cond Conditions, set ...Setting) (*CaseRes
 	return cr, cr.EGEs[0]
 }
 
-// byHandDuty is the evaporator's duty with a constant cp (plant-checks.md
+// byHandDuty is the evaporator's duty with a constant cp (docs/reference/plant-checks.md
 // §7 [C] formula): ṁ·c̄p·(T_in − T_sat)·(1 − exp(−UA/(ṁ·c̄p))).
 func byHandDuty(m, cp, tIn, tSat, ua float64) float64 {
 	return m * cp * (tIn - tSat) * (1 - math.Exp(-ua/(m*cp)))
@@ -50,7 +50,7 @@ func TestEGEAmbientCorrection(t *testing.T) {
 	// The engine's table holds at 25 °C intake air (ISO 15550 / ISO 3046-1
 	// reference, from memory). At 5 °C air with a 10 K intake rise the
 	// intake is 15 °C, 10 K below the reference: by hand with the default
-	// coefficients of plant-checks.md §7 [M] (+1.6 K exhaust and −0.35 %
+	// coefficients of docs/reference/plant-checks.md §7 [M] (+1.6 K exhaust and −0.35 %
 	// gas per K of intake air), T_in = 240 − 16 = 224 °C and the gas flow
 	// is 35.4167·(1 + 0.035) kg/s. The size (a 15 K pinch at 100 % load,
 	// of the table as given) stays: UA ∝ ṁ^0.65.
@@ -109,7 +109,7 @@ func TestEGEUAScalesLikePinch(t *testing.T) {
 	t.Parallel()
 	// A unit given by UA at the gas flow of its design load behaves as the
 	// unit sized by its pinch whose design UA it takes, at every load (the
-	// same law, UA ∝ ṁ^n: plant-checks.md §7 [S]); given by UA alone its
+	// same law, UA ∝ ṁ^n: docs/reference/plant-checks.md §7 [S]); given by UA alone its
 	// UA is constant.
 	p1, _ := egeOnly(t, 0.65)
 	_, r1 := solveEGE(t, p1, Conditions{EngineLoad: 1})
@@ -188,7 +188,7 @@ func TestEGEFoulingByUAFraction(t *testing.T) {
 func TestEGEFoulingByResistance(t *testing.T) {
 	t.Parallel()
 	// A soot resistance growing by 0.001 m²K/W per 1000 h over a 2000 h
-	// interval on a surface of clean U 40 W/m²K (heat-transfer.md §5: soot
+	// interval on a surface of clean U 40 W/m²K (docs/reference/heat-transfer.md §5: soot
 	// 0.001-0.005 m²K/W [CP/M], U ≈ 40 W/m²K in its worked example [C]):
 	// at the end, at the design gas flow, 1/UA_f = 1/UA + R/A with
 	// A = UA/U, so UA_f/UA = 1/(1 + U·R) = 1/1.08 (by hand). The mean
@@ -254,7 +254,7 @@ func TestEGEColdEnd(t *testing.T) {
 	t.Parallel()
 	// The exhaust of HSFO at 13 % O2 (dry) has an acid dew point that
 	// plant/combustion finds by Verhoff–Banchero (tested there against
-	// plant-checks.md §4 [S✓]); the economiser must report the same
+	// docs/reference/plant-checks.md §4 [S✓]); the economiser must report the same
 	// figure, and warn with both temperatures when a preheating section
 	// takes feed at 60 °C (below the dew point) and when its gas outlet
 	// comes within the margin.
@@ -301,7 +301,7 @@ func TestEGESootRisk(t *testing.T) {
 	t.Parallel()
 	// Below 40 % of MCR (common practice, no source) a case is flagged;
 	// with a free flow area the gas velocity by hand is ṁ/(ρ·A) with
-	// ρ = p·M/(R·T̄), M of air 28.964 g/mol (plant-checks.md §0 [CP]),
+	// ρ = p·M/(R·T̄), M of air 28.964 g/mol (docs/reference/plant-checks.md §0 [CP]),
 	// T̄ the mean of the gas in and out of the tube bank.
 	p, e := egeOnly(t, 0.65)
 	cr, r := solveEGE(t, p, Conditions{EngineLoad: 0.35})

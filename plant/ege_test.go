@@ -6,7 +6,7 @@ import (
 	"testing"
 )
 
-// egeEngine is the indicative engine of plant-checks.md §7 [C]: 15 MW,
+// egeEngine is the indicative engine of docs/reference/plant-checks.md §7 [C]: 15 MW,
 // 8.5 kg/kWh, 240 °C, held flat so that an engine load of 50 % gives half
 // the design gas flow at the same inlet temperature.
 func egeEngine() EngineExhaust {
@@ -37,7 +37,7 @@ func egeOnly(t testing.TB, n float64) (*Plant, *ExhaustGasEconomiser) {
 
 func TestEGEDesignPoint(t *testing.T) {
 	t.Parallel()
-	// plant-checks.md §7 [C]: 35.42 kg/s at 240 °C, 7 bar(g) (T_sat
+	// docs/reference/plant-checks.md §7 [C]: 35.42 kg/s at 240 °C, 7 bar(g) (T_sat
 	// 170.48 °C), pinch 15 K, c̄p 1.06 kJ/kg·K, feed 60 °C:
 	// Q 2046.7 kW, steam 2.928 t/h, NTU 1.5335. The sheet takes feed water
 	// h = 251.98 kJ/kg; IF97 gives 251.2 kJ/kg at 60 °C, 1 bar(a), and the
@@ -63,7 +63,7 @@ func TestEGEDesignPoint(t *testing.T) {
 
 func TestEGEOffDesign(t *testing.T) {
 	t.Parallel()
-	// plant-checks.md §7 [C], off-design table: same inlet temperature,
+	// docs/reference/plant-checks.md §7 [C], off-design table: same inlet temperature,
 	// UA ∝ ṁ^n. The sheet rounds T_out to 0.01 °C and Q to 0.1 kW.
 	tests := []struct {
 		load, n    float64
@@ -114,7 +114,7 @@ func TestEGEBypassHoldsMinimum(t *testing.T) {
 
 func TestEGEFuelSaved(t *testing.T) {
 	t.Parallel()
-	// plant-checks.md §7 [C]: the design-point economiser saves, against
+	// docs/reference/plant-checks.md §7 [C]: the design-point economiser saves, against
 	// an oil-fired boiler at η 0.85 on LCV 40 200 kJ/kg with the same feed,
 	// 215.6 kg/h = 5.175 t/d. With a flat efficiency the saving is
 	// Q_EGE/(η·LCV) exactly, whatever the boiler's load.

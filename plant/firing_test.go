@@ -9,8 +9,8 @@ import (
 	"steamcase/plant/fuel"
 )
 
-// testFuel is the made-up HSFO of plant-checks.md §1.2: C 86.0, H 11.0,
-// S 2.5, N 0.3, O 0.2 % m/m, with ISO 8217 density 985 kg/m³ (§1.1 row 3:
+// testFuel is the made-up HSFO of docs/reference/plant-checks.md §1.2: C 86.0, H 11.0,
+// S 2.5, N 0.3, O 0.2 % m/m, with ISO 8217 density 985 kg/m³ (docs/reference/plant-checks.md §1.1 row 3:
 // Q_net 40.487 MJ/kg [C]).
 func testFuel() fuel.Fuel {
 	return fuel.Fuel{
@@ -23,7 +23,7 @@ func testFuel() fuel.Fuel {
 
 func TestFlueGasTableEfficiency(t *testing.T) {
 	t.Parallel()
-	// plant-checks.md §3.3 [C]: the test fuel at 250 °C exit, 35 °C air,
+	// docs/reference/plant-checks.md §3.3 [C]: the test fuel at 250 °C exit, 35 °C air,
 	// 3 % O2: dry-gas and moisture losses 9.60 % (LHV); with 0.7 %
 	// radiation η ≈ 89.6 % before the unburnt loss. The plant's boiler
 	// must report what the combustion package computes for the same
@@ -54,15 +54,15 @@ func TestFlueGasTableEfficiency(t *testing.T) {
 	must(t, err)
 	within(t, "efficiency", b.Efficiency, l.LHV.Efficiency/100, 1e-12)
 	if math.Abs(100*b.Efficiency-89.6) > 0.3 {
-		t.Errorf("efficiency %.2f %%, want 89.6 %% within 0.3 points (plant-checks.md §3.3 [C])", 100*b.Efficiency)
+		t.Errorf("efficiency %.2f %%, want 89.6 %% within 0.3 points (docs/reference/plant-checks.md §3.3 [C])", 100*b.Efficiency)
 	}
 	// The sheet's losses are referred to the air temperature (Siegert's
 	// form); here they are referred to 25 °C with a credit for the air's
 	// heat above it, so the comparable figure is losses less that credit.
 	if l := b.Losses; l == nil || math.Abs(l.DryGas+l.MoistureH+l.MoistureFuel-l.AirCredit-9.60) > 0.1 {
-		t.Errorf("dry gas + moisture loss less air credit %v, want 9.60 %% within 0.1 (plant-checks.md §3.3 [C])", b.Losses)
+		t.Errorf("dry gas + moisture loss less air credit %v, want 9.60 %% within 0.1 (docs/reference/plant-checks.md §3.3 [C])", b.Losses)
 	}
-	within(t, "lambda", b.Lambda, 1.1576, 5e-4) // plant-checks.md §2.1 [C]: λ for 3 % O2, exact form
+	within(t, "lambda", b.Lambda, 1.1576, 5e-4) // docs/reference/plant-checks.md §2.1 [C]: λ for 3 % O2, exact form
 	// Fan power by hand: air flow over its density (ideal gas, dry air at
 	// 35 °C and 101 325 Pa: ρ = p·M/(R·T)) times the rise over η.
 	rho := 101325 * 28.964e-3 / (8.314462618 * 308.15)

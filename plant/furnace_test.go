@@ -76,7 +76,7 @@ func TestFurnaceTubesLimits(t *testing.T) {
 		t.Errorf("fouling: exit %.1f -> %.1f K, η %.4f -> %.4f; want hotter and lower", clean.FlueT, fouled.FlueT, clean.Eta, fouled.Eta)
 	}
 	// A plausible auxiliary boiler: 82-92 % (LHV) with its gas leaving at
-	// 200-350 °C (plant-checks.md §3.5 [M/CP]).
+	// 200-350 °C (docs/reference/plant-checks.md §3.5 [M/CP]).
 	if clean.Eta < 0.82 || clean.Eta > 0.92 || clean.FlueT < 473 || clean.FlueT > 623 {
 		t.Errorf("clean boiler: η %.3f at exit %.1f °C; outside the typical range", clean.Eta, clean.FlueT-273.15)
 	}

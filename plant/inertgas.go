@@ -23,7 +23,7 @@ import (
 // firing rate: a maker's flue-gas table gives the dry O2 against load, a
 // furnace model its air ratio against load; the products of complete
 // combustion at that air (plant/combustion.Fire, the stoichiometry of
-// plant-checks.md §2) give the O2 in the dry gas and the dry gas's volume
+// docs/reference/plant-checks.md §2) give the O2 in the dry gas and the dry gas's volume
 // per kg of fuel. A boiler with a plain efficiency table has no
 // combustion model and cannot be a source (an error where it is
 // declared).

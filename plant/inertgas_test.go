@@ -47,8 +47,8 @@ func TestInertGasFromFlueGasTable(t *testing.T) {
 	within(t, "required", ig.RequiredM3S, 1.25*700/3600, 1e-12)
 	// The O2 at the case's load is the table's, interpolated linearly
 	// (by hand), and the gas volume is the fuel times the dry flue gas of
-	// complete combustion at that O2 (plant-checks.md §2 [CP]: computed
-	// here by plant/combustion.Fire, the package's own check of §2.1).
+	// complete combustion at that O2 (docs/reference/plant-checks.md §2 [CP]: computed
+	// here by plant/combustion.Fire, the package's own check of docs/reference/plant-checks.md §2.1).
 	o2 := 0.045 + (0.03-0.045)*(b.LoadFraction-0.5)/0.5
 	if b.LoadFraction < 0.5 {
 		o2 = 0.065 + (0.045-0.065)*(b.LoadFraction-0.25)/0.25
@@ -100,8 +100,8 @@ func TestInertGasFiresHarder(t *testing.T) {
 func TestInertGasStoichiometry(t *testing.T) {
 	t.Parallel()
 	// A furnace model at an air ratio of 1.15 throughout: the test fuel's
-	// O2 is 2.88 % dry (plant-checks.md §2.1 [C], ±0.02 % by §11 item 3)
-	// and its dry flue gas 11.65 Nm³ per kg (§2.1 [C], printed to four
+	// O2 is 2.88 % dry (docs/reference/plant-checks.md §2.1 [C], ±0.02 % by §11 item 3)
+	// and its dry flue gas 11.65 Nm³ per kg (docs/reference/plant-checks.md §2.1 [C], printed to four
 	// figures: half a unit of the last).
 	spec, err := SpecFromFuel(testFuel())
 	must(t, err)
@@ -116,10 +116,10 @@ func TestInertGasStoichiometry(t *testing.T) {
 	must(t, err)
 	ig := cr.InertGas
 	if math.Abs(100*ig.O2Dry-2.88) > 0.02 {
-		t.Errorf("O2 %.4f %% dry, want 2.88 %% (plant-checks.md §2.1 [C])", 100*ig.O2Dry)
+		t.Errorf("O2 %.4f %% dry, want 2.88 %% (docs/reference/plant-checks.md §2.1 [C])", 100*ig.O2Dry)
 	}
 	if v := ig.DeliveredNm3S / cr.Boilers[0].FuelKgS; math.Abs(v-11.65) > 0.005 {
-		t.Errorf("dry flue gas %.3f Nm³/kg, want 11.65 (plant-checks.md §2.1 [C])", v)
+		t.Errorf("dry flue gas %.3f Nm³/kg, want 11.65 (docs/reference/plant-checks.md §2.1 [C])", v)
 	}
 }
 

@@ -50,10 +50,10 @@ func boilerOnly(t testing.TB) *Plant {
 
 func TestBoilerFuelPerDay(t *testing.T) {
 	t.Parallel()
-	// plant-checks.md §3.6 [C]: 10 t/h of saturated steam at 7 bar(g) from
+	// docs/reference/plant-checks.md §3.6 [C]: 10 t/h of saturated steam at 7 bar(g) from
 	// feed at 60 °C, η 0.85, LCV 40 200 kJ/kg: 736.4 kg/h = 17.674 t/d, and
 	// with C_F 3.114 (IMO MEPC.364(79) [S]) 55.04 t/d of CO2. Tolerance
-	// ±0.2 % as §11 item 9 states.
+	// ±0.2 % as docs/reference/plant-checks.md §11 item 9 states.
 	p := boilerOnly(t)
 	cr, err := p.Solve(context.Background(), Case{Name: "check"})
 	must(t, err)
@@ -91,9 +91,9 @@ func turbinePlant(t testing.TB) *Plant {
 
 func TestTurbineSteamRate(t *testing.T) {
 	t.Parallel()
-	// plant-checks.md §8 [C]: 16 bar(g) dry saturated to 0.2 bar(a),
+	// docs/reference/plant-checks.md §8 [C]: 16 bar(g) dry saturated to 0.2 bar(a),
 	// η_is 0.65, η_mech·gear 0.95: Δh_s 688.5 kJ/kg and 8.47 kg/kWh
-	// (±0.3 %, §11 item 10).
+	// (±0.3 %, docs/reference/plant-checks.md §11 item 10).
 	p := turbinePlant(t)
 	cr, err := p.Solve(context.Background(), Case{Name: "discharge"})
 	must(t, err)
@@ -117,7 +117,7 @@ func TestTurbineSteamRate(t *testing.T) {
 
 func TestFeedPumpPower(t *testing.T) {
 	t.Parallel()
-	// plant-checks.md §9 [C]: 10 t/h at 60 °C, Δp 10 bar, η 0.55:
+	// docs/reference/plant-checks.md §9 [C]: 10 t/h at 60 °C, Δp 10 bar, η 0.55:
 	// P_hyd 2.824 kW, shaft 5.135 kW (the issue quotes 5.14 kW).
 	p := New("pump check", Options{})
 	must(t, p.Add(&MakeUp{Base: Base{Name: "makeup"}, T: 333.15, P: 1e5}))
@@ -219,7 +219,7 @@ func demandCase(name string, kgh float64) Case {
 
 func TestFiringDecision(t *testing.T) {
 	t.Parallel()
-	// The firing rule (common practice, no source; plant-checks.md §3.6
+	// The firing rule (common practice, no source; docs/reference/plant-checks.md §3.6
 	// [CP]): one boiler while the demand is at most 85 % of its MCR, both
 	// above; a boiler below MCR/turndown cycles.
 	p := twoBoilers(t, Options{UsableFraction: 0.85})
@@ -588,8 +588,8 @@ func TestObservationTank(t *testing.T) {
 
 // TestFanWithTableEfficiency: a boiler whose efficiency is a plain table
 // counts its burner's fan from its fuel flow, the fuel's stoichiometric
-// air and the burner's excess air (air = fuel·A_st·λ, plant-checks.md §2.1
-// [C]; fan power = V·Δp/η, plant-checks.md §9 [C] for a pump's form), and
+// air and the burner's excess air (air = fuel·A_st·λ, docs/reference/plant-checks.md §2.1
+// [C]; fan power = V·Δp/η, docs/reference/plant-checks.md §9 [C] for a pump's form), and
 // refuses a fan it cannot count (issue 16: never ignore a key given).
 func TestFanWithTableEfficiency(t *testing.T) {
 	t.Parallel()

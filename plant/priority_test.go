@@ -181,7 +181,7 @@ func TestShedTankCooling(t *testing.T) {
 	t.Parallel()
 	// A cargo tank held at 55 °C loses its heating to a shortfall: its
 	// first cooling rate is the heat shed over m·c, and the time to its
-	// min_T with the heating left is the lumped model's (plant-checks.md
+	// min_T with the heating left is the lumped model's (docs/reference/plant-checks.md
 	// §6 [CP]), checked here against a fourth-order Runge-Kutta
 	// integration of m·c·dT/dt = q − UA·(T − T_amb) (constant c, so the
 	// closed form is exact; no outside source).

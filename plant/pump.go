@@ -45,9 +45,9 @@ const (
 	// practice, no source).
 	defaultPumpMargin = 3e5
 	// defaultPumpEta is 45 %, within the 35-65 % of small multistage
-	// boiler feed pumps (plant-checks.md §9 [M]).
+	// boiler feed pumps (docs/reference/plant-checks.md §9 [M]).
 	defaultPumpEta = 0.45
-	// defaultMotorEta is 0.9, within the 0.90-0.95 of plant-checks.md §9
+	// defaultMotorEta is 0.9, within the 0.90-0.95 of docs/reference/plant-checks.md §9
 	// [M].
 	defaultMotorEta = 0.9
 )
@@ -74,11 +74,11 @@ var feedPumpKeys = []Key{
 		Doc: "a set discharge pressure, instead of boilers and margin", Min: 1.1e5, Max: 5e7},
 		func(u *FeedPump) *float64 { return &u.Discharge }),
 	pumpKey(Key{Name: "eta", Label: "pump efficiency", Dim: units.Fraction, Example: "45 %",
-		Doc: "pump efficiency", Default: defaultPumpEta, HasDefault: true, Source: "plant-checks.md §9 [M]",
+		Doc: "pump efficiency", Default: defaultPumpEta, HasDefault: true, Source: "docs/reference/plant-checks.md §9 [M]",
 		Min: 0.05, Max: 1, Case: true},
 		func(u *FeedPump) *float64 { return &u.Eta }),
 	pumpKey(Key{Name: "motor_eta", Label: "motor efficiency", Dim: units.Fraction, Example: "90 %",
-		Doc: "efficiency of the pump's motor", Default: defaultMotorEta, HasDefault: true, Source: "plant-checks.md §9 [M]",
+		Doc: "efficiency of the pump's motor", Default: defaultMotorEta, HasDefault: true, Source: "docs/reference/plant-checks.md §9 [M]",
 		Min: 0.05, Max: 1},
 		func(u *FeedPump) *float64 { return &u.MotorEta }),
 }

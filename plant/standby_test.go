@@ -173,7 +173,7 @@ func TestCyclingByTheBand(t *testing.T) {
 
 // TestFuelPerTonneRisesBelowTurndown: the cycling boiler's fuel per tonne
 // of steam rises as the load falls below the burner minimum, as it does on
-// board (issue 14 §2; docs/reference/plant-checks.md §3.6 [CP]: below
+// board (issue 14 docs/reference/plant-checks.md §2; docs/reference/plant-checks.md §3.6 [CP]: below
 // MCR/turndown the burner cycles, and every restart carries pre-purge
 // losses); above the minimum, with a flat table efficiency, it is
 // constant.

@@ -24,7 +24,7 @@ return steam_plant {
   exhaust_gas_economiser = {
     name = "EGE", drum = "7 bar(g)",
     -- Exhaust after the turbocharger against engine load (invented, within the
-    -- indicative ranges of plant-checks.md §7; a real engine's come from its maker).
+    -- indicative ranges of docs/reference/plant-checks.md §7; a real engine's come from its maker).
     engine = { mcr = "36 MW",
       { load = "25 %", gas = "11.0 kg/kWh", T = "250 C" },
       { load = "50 %", gas = "9.0 kg/kWh", T = "230 C" },
@@ -40,7 +40,7 @@ return steam_plant {
     exhaust_fuel = "VLSFO", exhaust_O2 = "13 %",
     -- Soot on the gas side grows by 0.001 m2K/W per 1000 h of running on a
     -- clean surface of U 40 W/m2K, and water washing every 2000 h removes it
-    -- (invented, within heat-transfer.md §5: soot allowances 0.001-0.005
+    -- (invented, within docs/reference/heat-transfer.md §5: soot allowances 0.001-0.005
     -- m2K/W [CP/M], U about 40 W/m2K in its worked example [C]).
     fouling_rate = "0.001 m2K/W", clean_U = "40 W/m2K", clean_interval = "2000 h",
   },

@@ -13,7 +13,7 @@ local efficiency = {
 
 -- One group of cargo tanks: about 40 000 m3 of heavy crude (890 kg/m3 at
 -- 15 C), its faces to the air, the double bottom and the ballast tanks
--- (U values within plant-checks.md §6 [M]), a steam coil of 450 m2 at the
+-- (U values within docs/reference/plant-checks.md §6 [M]), a steam coil of 450 m2 at the
 -- default U (plant/loads' DefaultCoilU, 60 W/m2K).
 local function group(name, volume, extra)
   local t = { name = name, kind = "tank_heating", use = "cargo", header = "LP", density = "890 kg/m3", cargo = "heavy crude",

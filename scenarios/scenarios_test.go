@@ -176,11 +176,11 @@ func TestScenarios(t *testing.T) {
 // against the IF97 verification tables), the efficiency interpolated by
 // hand in the script's maker's table, and the net specific energy of the
 // HSFO grade, 40 487 kJ/kg (ISO 8217 annex formula at ρ 985 kg/m³, 2.5 % S:
-// plant-checks.md §1.1 row 3 [C]):
+// docs/reference/plant-checks.md §1.1 row 3 [C]):
 //
 //	ṁ_fuel = [ṁ_s·(h_s − h_fw) + ṁ_bd·(h_f,drum − h_fw)] / (η·LHV)
 //
-// (plant-checks.md §3.6 [C]).
+// (docs/reference/plant-checks.md §3.6 [C]).
 func TestHandCheckTankerPort(t *testing.T) {
 	t.Parallel()
 	src, err := fs.ReadFile(scenarios.FS, "tanker.lua")
@@ -218,7 +218,7 @@ func TestHandCheckTankerPort(t *testing.T) {
 	// 25 % load, 295 C and 4.5 % at 50 %, interpolated by hand, and the
 	// heat-loss method of plant/combustion at that point with the case's
 	// 5 C air and 1 % radiation at MCR (that package's own checks are
-	// against plant-checks.md §2-§3).
+	// against docs/reference/plant-checks.md §2-§3).
 	if b.LoadFraction < 0.25 || b.LoadFraction > 0.5 {
 		t.Fatalf("load %.3f outside the table segment the hand check uses", b.LoadFraction)
 	}
@@ -242,7 +242,7 @@ func TestHandCheckTankerPort(t *testing.T) {
 		t.Errorf("efficiency by hand %.6f, engine %.6f", eta, b.Efficiency)
 	}
 	// J/kg, by hand: (46.704 − 8.802e-6·985² + 3.167e-3·985)·0.975 +
-	// 0.0942·2.5 = 41.28357455·0.975 + 0.2355 MJ/kg (plant-checks.md §1.1
+	// 0.0942·2.5 = 41.28357455·0.975 + 0.2355 MJ/kg (docs/reference/plant-checks.md §1.1
 	// row 3 [C]: 40.487).
 	const lhv = 40.48698518625e6
 	fuel := (b.SteamKgS*(steam.H-hfw) + b.BlowdownKgS*(sat.H-hfw)) / (eta * lhv)

@@ -8,9 +8,9 @@
 local heavy_fuel_efficiency = {
   -- A maker's shop test (invented): flue-gas exit temperature and dry O2
   -- against load, turned into an efficiency by the heat-loss method (about
-  -- 83-85 % LHV, within the 82-88 % of plant-checks.md §3.5 [M/CP] for
+  -- 83-85 % LHV, within the 82-88 % of docs/reference/plant-checks.md §3.5 [M/CP] for
   -- boilers without an economiser); radiation 1 % at MCR (0.5-1.5 %,
-  -- plant-checks.md §3.4 [CP]). The O2 also tells the inert gas's quality.
+  -- docs/reference/plant-checks.md §3.4 [CP]). The O2 also tells the inert gas's quality.
   flue_gas = { { "25 %", "260 C", "6.5 %" }, { "50 %", "295 C", "4.5 %" },
                { "75 %", "325 C", "3.5 %" }, { "100 %", "350 C", "3.0 %" } },
   radiation = "1 %",
@@ -33,7 +33,7 @@ local ship = steam_plant {
   headers = { { name = "HP", heat_loss = "20 kW" }, { name = "LP", p = "7 bar(g)", heat_loss = "15 kW" } },
   -- An exhaust-gas economiser on the 11 MW main engine raising steam into the
   -- 16 bar(g) system: with saturation at 204 C it recovers little (invented
-  -- engine data, within the indicative ranges of plant-checks.md §7).
+  -- engine data, within the indicative ranges of docs/reference/plant-checks.md §7).
   exhaust_gas_economiser = {
     name = "EGE", drum = "16 bar(g)",
     engine = { mcr = "11 MW",
@@ -69,12 +69,12 @@ local ship = steam_plant {
         { name = "bulkhead to engine room", area = "600 m2", U = "6 W/m2K", beyond = "space", T = "40 C" },
       } },
     -- The heavy-fuel settling and service tanks in the engine room (invented
-    -- sizes; U within plant-checks.md §6's ranges: bulkhead to the engine
+    -- sizes; U within docs/reference/plant-checks.md §6's ranges: bulkhead to the engine
     -- room 5-8 W/m2K at 35-45 C, double hull over an empty ballast tank 2-5
     -- W/m2K). The settling tank is held at 60 C, the purifier heater's inlet
-    -- (the yard list's 60 -> 98 C, plant-checks.md §5.2), and its coils also
+    -- (the yard list's 60 -> 98 C, docs/reference/plant-checks.md §5.2), and its coils also
     -- warm the oil let in from the bunker tanks, 45 C (storage 40-50 C,
-    -- §5.2), at the purifier's 2.2 t/h. The service tank is held at 75 C for
+    -- docs/reference/plant-checks.md §5.2), at the purifier's 2.2 t/h. The service tank is held at 75 C for
     -- the burner heaters (inlet 70 C); the heat the purified oil brings in
     -- from the purifier heater is not credited against its coils (they are
     -- counted for the tank's losses, as when the purifier stops: a

@@ -151,7 +151,7 @@
 // The engine table gives, at each load (fraction of mcr, increasing), the
 // exhaust gas as kg per kWh of engine power ("8.5 kg/kWh") or as a mass
 // flow ("35 kg/s", then the load must be above zero), and its temperature
-// after the turbocharger; plant-checks.md §7 gives indicative values only:
+// after the turbocharger; docs/reference/plant-checks.md §7 gives indicative values only:
 // use the engine's own data. The EGE's ports are feed (in) and steam (out);
 // steam beyond demand goes to a condenser with dump = true on its header.
 // The economiser's ports are in and out (feed water, between the feed
@@ -497,7 +497,7 @@
 //
 // cool_down returns the cargo temperature in °C (a number) after hours (a
 // number of hours or a time) with the heating off, by the lumped model of
-// plant/loads (TankHeating.CoolDownAfter, plant-checks.md §6);
+// plant/loads (TankHeating.CoolDownAfter, docs/reference/plant-checks.md §6);
 // time_to_cool returns the hours until the cargo reaches to (nil if it
 // never does: a target at or below the surroundings). Both return a
 // second table: T_C, from_C, hours, reached, tau_h, mass_t,

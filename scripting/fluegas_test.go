@@ -35,8 +35,8 @@ func printed(t *testing.T, src string) []string {
 	}
 }
 
-// The worked case of plant-checks.md §3.3: the test fuel (§1.2) with the
-// LHV of §3.3, 3 % dry O2, flue gas 250 °C, air 35 °C.
+// The worked case of docs/reference/plant-checks.md §3.3: the test fuel (docs/reference/plant-checks.md §1.2) with the
+// LHV of docs/reference/plant-checks.md §3.3, 3 % dry O2, flue gas 250 °C, air 35 °C.
 const fgWorked = `fuel_analysis = { C = "86 %", H = "11 %", S = "2.5 %", N = "0.3 %", O = "0.2 %" },
   lhv = "40.487 MJ/kg", O2 = "3 %", T = "250 C", air_T = "35 C"`
 
@@ -71,18 +71,18 @@ print(r.caution)`
 			t.Errorf("%s = %.6g, want %.6g ± %g", what, got, want, tol)
 		}
 	}
-	near("lambda (plant-checks.md §2.1 [C], §11 item 4)", v[0], 1.1576, 0.0005)
-	near("stoich_air_kg_per_kg (plant-checks.md §2.1 [C], §11 item 2)", v[1], 13.770, 0.005)
-	near("co2_dry_pct (plant-checks.md §3.2 [C])", v[2], 13.68, 0.005)
-	near("siegert_loss_pct (plant-checks.md §3.2 [S], §11 item 5)", v[3], 9.627, 0.0005)
-	near("efficiency_lhv_pct with radiation 0.7, unburnt 0.1 (plant-checks.md §3.3 [C])", v[4], 89.6, 0.05)
-	// §4's test-fuel row is at λ 1.15; here λ 1.1576: ±0.5 K.
-	near("acid_dew_point_K in °C (plant-checks.md §4 [C], λ 1.15 row)", v[5]-273.15, 151.3, 0.5)
+	near("lambda (docs/reference/plant-checks.md §2.1 [C], §11 item 4)", v[0], 1.1576, 0.0005)
+	near("stoich_air_kg_per_kg (docs/reference/plant-checks.md §2.1 [C], §11 item 2)", v[1], 13.770, 0.005)
+	near("co2_dry_pct (docs/reference/plant-checks.md §3.2 [C])", v[2], 13.68, 0.005)
+	near("siegert_loss_pct (docs/reference/plant-checks.md §3.2 [S], §11 item 5)", v[3], 9.627, 0.0005)
+	near("efficiency_lhv_pct with radiation 0.7, unburnt 0.1 (docs/reference/plant-checks.md §3.3 [C])", v[4], 89.6, 0.05)
+	// docs/reference/plant-checks.md §4's test-fuel row is at λ 1.15; here λ 1.1576: ±0.5 K.
+	near("acid_dew_point_K in °C (docs/reference/plant-checks.md §4 [C], λ 1.15 row)", v[5]-273.15, 151.3, 0.5)
 	near("warnings without a radiation loss (one: it is taken as zero)", v[6], 1, 0)
 	near("warnings with the losses given", v[7], 0, 0)
-	// CO in ppm and in percent read the same; a = 48 for oil (§3.1 [S✓]).
+	// CO in ppm and in percent read the same; a = 48 for oil (docs/reference/plant-checks.md §3.1 [S✓]).
 	near("co_pct ppm vs %", v[8], v[9], 1e-12)
-	near("co_pct (plant-checks.md §3.1 [S✓])", v[8], 48*0.005/(0.005+v[2]), 1e-9)
+	near("co_pct (docs/reference/plant-checks.md §3.1 [S✓])", v[8], 48*0.005/(0.005+v[2]), 1e-9)
 	if !strings.Contains(out[10], "no radiation and convection loss given (radiation)") {
 		t.Errorf("warning %q does not name the script's key", out[10])
 	}
@@ -169,7 +169,7 @@ print(an.fuel)`
 	if v[3] != v[4] {
 		t.Errorf("η with %% %g, with bare fractions %g; want the same", v[3], v[4])
 	}
-	// The test fuel's analysis on HSFO: 13.770 kg/kg (plant-checks.md
+	// The test fuel's analysis on HSFO: 13.770 kg/kg (docs/reference/plant-checks.md
 	// §2.1 [C]), with the analysis's own net specific energy
 	// (Channiwala–Parikh, as plant/fuel computes and tests it).
 	g, _ := fuel.Grade("HSFO")

@@ -192,7 +192,7 @@ func TestJobErrors(t *testing.T) {
 
 func TestCoolDown(t *testing.T) {
 	t.Parallel()
-	// plant-checks.md §6 [C]: m 10 000 t, c 2.0 kJ/kgK, ΣUA 50 kW/K give
+	// docs/reference/plant-checks.md §6 [C]: m 10 000 t, c 2.0 kJ/kgK, ΣUA 50 kW/K give
 	// τ = 111.1 h; from 60 °C with 20 °C surroundings, 3 days give
 	// 40.92 °C.
 	src := `
@@ -204,7 +204,7 @@ return T, d.tau_h, h, never`
 	if math.Abs(L[0]-40.92) > 0.005 || math.Abs(L[1]-111.1) > 0.05 {
 		t.Errorf("cool_down gives %.4f °C with τ %.3f h; want 40.92 °C and 111.1 h", L[0], L[1])
 	}
-	// time_to_cool is the inverse of cool_down (same model, §6 [C]).
+	// time_to_cool is the inverse of cool_down (same model, docs/reference/plant-checks.md §6 [C]).
 	if math.Abs(L[2]-72) > 1e-6 {
 		t.Errorf("time_to_cool back to %.4f °C takes %g h; want 72 h", L[0], L[2])
 	}
@@ -243,7 +243,7 @@ func runValues(t *testing.T, src string, n int) []float64 {
 }
 
 // TestCoolDownOfUnit takes the tank of a ship:tank_heating: the same
-// figures as plant-checks.md §6 [C] (10 000 t at a constant 2.0 kJ/kgK,
+// figures as docs/reference/plant-checks.md §6 [C] (10 000 t at a constant 2.0 kJ/kgK,
 // ΣUA 50 kW/K to a 20 °C sea: 60 °C → 40.92 °C in 3 days), reached by
 // its handle and by its name, while a voyage keeps its heating off.
 func TestCoolDownOfUnit(t *testing.T) {
@@ -270,7 +270,7 @@ return T, T2, v.rows[1].steam_production_kg_h`
 // TestModelKeysByRow: a voyage's rows set a tank's mode and temperatures
 // (the duty models are the consumers' own, copied with each clone of the
 // plant), and the totals do not depend on the number of workers. The
-// duties are checked against the lumped balance of plant-checks.md §6
+// duties are checked against the lumped balance of docs/reference/plant-checks.md §6
 // [CP]: holding, Q = ΣUA·(T − T_beyond); heating up, Q = m·c̄·ΔT/t + ΣUA·(T̄
 // − T_beyond), with c̄ by Cragoe (plant/loads' own tested formula).
 func TestModelKeysByRow(t *testing.T) {

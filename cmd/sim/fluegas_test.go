@@ -13,10 +13,10 @@ import (
 	"steamcase/plant/fuel"
 )
 
-// testFuelArgs is the test fuel of plant-checks.md §1.2 (C 86.0, H 11.0,
-// S 2.5, N 0.3, O 0.2, no water or ash) with the LHV of §3.3 (40 487 kJ/kg,
-// ISO 8217 at ρ 985, S 2.5, §1.1 row 3 [C]), measured at 3 % dry O2 with
-// 250 °C flue gas and 35 °C air: the worked case of §3.3.
+// testFuelArgs is the test fuel of docs/reference/plant-checks.md §1.2 (C 86.0, H 11.0,
+// S 2.5, N 0.3, O 0.2, no water or ash) with the LHV of docs/reference/plant-checks.md §3.3 (40 487 kJ/kg,
+// ISO 8217 at ρ 985, S 2.5, docs/reference/plant-checks.md §1.1 row 3 [C]), measured at 3 % dry O2 with
+// 250 °C flue gas and 35 °C air: the worked case of docs/reference/plant-checks.md §3.3.
 var testFuelArgs = []string{"fluegas",
 	"--fuel-analysis", "C=86,H=11,S=2.5,N=0.3,O=0.2", "--lhv", "40.487 MJ/kg",
 	"--o2", "3 %", "--gas", "250 C", "--air", "35 C"}
@@ -27,7 +27,7 @@ func fgWith(base []string, more ...string) []string {
 
 // TestFluegasGolden compares the output of sim fluegas with
 // testdata/fluegas_*.golden. The numbers come from plant/combustion and
-// are checked against plant-checks.md in TestFluegasReference below; these
+// are checked against docs/reference/plant-checks.md in TestFluegasReference below; these
 // files pin the layout. Rewrite them with: go test ./cmd/sim -update
 func TestFluegasGolden(t *testing.T) {
 	cases := []struct {
@@ -109,59 +109,59 @@ func fgNear(t *testing.T, name string, got, want, tol float64) {
 }
 
 // TestFluegasReference checks the command's figures for the test fuel
-// against plant-checks.md, each with its section and tag.
+// against docs/reference/plant-checks.md, each with its section and tag.
 func TestFluegasReference(t *testing.T) {
 	r := fluegasOf(t, testFuelArgs...)
-	// λ from 3 % dry O2, exact form: 1.1576 (§2.1 [C]; §11 item 4, ±0.0005).
-	fgNear(t, "λ (plant-checks.md §2.1 [C], §11 item 4)", r.Lambda, 1.1576, 0.0005)
-	fgNear(t, "excess air % (= 100·(λ − 1), §2.1 [C])", r.ExcessAir, 15.76, 0.05)
-	// Stoichiometric air 13.770 kg/kg (§2.1 [C]; §11 item 2, ±0.005).
-	fgNear(t, "stoichiometric air kg/kg (plant-checks.md §2.1 [C], §11 item 2)", r.StoichAir, 13.770, 0.005)
-	// Stoichiometric wet gas (λ = 1) 14.770 kg/kg (§2.1 [C]), dry air.
-	fgNear(t, "stoichiometric flue gas kg/kg (plant-checks.md §2.1 [C])", r.StoichFlue, 14.770, 0.005)
-	// CO2 of the test fuel at 3 % O2: 13.68 % dry (§3.2 [C]).
-	fgNear(t, "CO2 dry % at 3 % O2 (plant-checks.md §3.2 [C])", r.CO2Dry, 13.68, 0.005)
+	// λ from 3 % dry O2, exact form: 1.1576 (docs/reference/plant-checks.md §2.1 [C]; §11 item 4, ±0.0005).
+	fgNear(t, "λ (docs/reference/plant-checks.md §2.1 [C], §11 item 4)", r.Lambda, 1.1576, 0.0005)
+	fgNear(t, "excess air % (= 100·(λ − 1), docs/reference/plant-checks.md §2.1 [C])", r.ExcessAir, 15.76, 0.05)
+	// Stoichiometric air 13.770 kg/kg (docs/reference/plant-checks.md §2.1 [C]; §11 item 2, ±0.005).
+	fgNear(t, "stoichiometric air kg/kg (docs/reference/plant-checks.md §2.1 [C], §11 item 2)", r.StoichAir, 13.770, 0.005)
+	// Stoichiometric wet gas (λ = 1) 14.770 kg/kg (docs/reference/plant-checks.md §2.1 [C]), dry air.
+	fgNear(t, "stoichiometric flue gas kg/kg (docs/reference/plant-checks.md §2.1 [C])", r.StoichFlue, 14.770, 0.005)
+	// CO2 of the test fuel at 3 % O2: 13.68 % dry (docs/reference/plant-checks.md §3.2 [C]).
+	fgNear(t, "CO2 dry % at 3 % O2 (docs/reference/plant-checks.md §3.2 [C])", r.CO2Dry, 13.68, 0.005)
 	fgNear(t, "O2 dry % (the input, 3 %)", r.O2Dry, 3, 1e-9)
-	// Dry gas + moisture ≈ 9.60 % LHV (§3.3 [C]); §3.3 used mean cp
+	// Dry gas + moisture ≈ 9.60 % LHV (docs/reference/plant-checks.md §3.3 [C]); docs/reference/plant-checks.md §3.3 used mean cp
 	// values from memory [M], so ±0.05 points; dry gas 8.60, moisture 1.00.
-	fgNear(t, "dry gas + moisture % LHV (plant-checks.md §3.3 [C])", r.Losses.DryGas+r.Losses.Moisture, 9.60, 0.05)
-	fgNear(t, "dry-gas loss % LHV (plant-checks.md §3.3 [C])", r.Losses.DryGas, 8.60, 0.05)
-	fgNear(t, "moisture loss % LHV (plant-checks.md §3.3 [C])", r.Losses.Moisture, 1.00, 0.05)
+	fgNear(t, "dry gas + moisture % LHV (docs/reference/plant-checks.md §3.3 [C])", r.Losses.DryGas+r.Losses.Moisture, 9.60, 0.05)
+	fgNear(t, "dry-gas loss % LHV (docs/reference/plant-checks.md §3.3 [C])", r.Losses.DryGas, 8.60, 0.05)
+	fgNear(t, "moisture loss % LHV (docs/reference/plant-checks.md §3.3 [C])", r.Losses.Moisture, 1.00, 0.05)
 	fgNear(t, "dry_gas_plus_moisture_lhv_pct (sum of the two keys)", r.FlueLossDetailed, r.Losses.DryGas+r.Losses.Moisture, jsonRounding*10)
-	// Siegert, O2 form, fuel oil: 9.627 % (§3.2 [S]; §11 item 5, ±0.001).
+	// Siegert, O2 form, fuel oil: 9.627 % (docs/reference/plant-checks.md §3.2 [S]; §11 item 5, ±0.001).
 	if r.Siegert == nil {
 		t.Fatal("no Siegert cross-check")
 	}
-	fgNear(t, "Siegert % (plant-checks.md §3.2 [S], §11 item 5)", *r.Siegert, 9.627, 0.0005)
+	fgNear(t, "Siegert % (docs/reference/plant-checks.md §3.2 [S], §11 item 5)", *r.Siegert, 9.627, 0.0005)
 	// LHV as given; HHV = LHV + h_fg(25 °C)·(M(H2O)/M(H2))·H, with
-	// h_fg 2441.7 kJ/kg (§0 [C]) and 8.937 kg water per kg H (§2 [CP],
+	// h_fg 2441.7 kJ/kg (docs/reference/plant-checks.md §0 [C]) and 8.937 kg water per kg H (docs/reference/plant-checks.md §2 [CP],
 	// which rounds it to 8.936).
 	fgNear(t, "LHV J/kg (the --lhv given)", r.LHV, 40.487e6, 1e-6)
-	fgNear(t, "HHV − LHV J/kg (plant-checks.md §0 [C] h_fg, §2 [CP])", r.HHV-r.LHV, 2441.7e3*fuel.WaterPerHydrogen*0.11, jsonRounding*2*r.HHV)
+	fgNear(t, "HHV − LHV J/kg (docs/reference/plant-checks.md §0 [C] h_fg, §2 [CP])", r.HHV-r.LHV, 2441.7e3*fuel.WaterPerHydrogen*0.11, jsonRounding*2*r.HHV)
 	// On the HHV basis the latent heat of the product water adds ≈ 5.6
-	// points (§3.3 [C]).
+	// points (docs/reference/plant-checks.md §3.3 [C]).
 	latent := r.LossesHHV.Moisture - r.Losses.Moisture*r.LHV/r.HHV
-	fgNear(t, "latent loss points % HHV (plant-checks.md §3.3 [C])", latent, 5.6, 0.05)
+	fgNear(t, "latent loss points % HHV (docs/reference/plant-checks.md §3.3 [C])", latent, 5.6, 0.05)
 	// No radiation, CO or solids given: η_LHV = 100 − dry gas − moisture
-	// (definition of the heat-loss method, §3.1 [S]).
-	fgNear(t, "η LHV = 100 − losses (§3.1 [S])", r.EfficiencyLHV, 100-r.Losses.DryGas-r.Losses.Moisture, jsonRounding*100)
+	// (definition of the heat-loss method, docs/reference/plant-checks.md §3.1 [S]).
+	fgNear(t, "η LHV = 100 − losses (docs/reference/plant-checks.md §3.1 [S])", r.EfficiencyLHV, 100-r.Losses.DryGas-r.Losses.Moisture, jsonRounding*100)
 	// The useful heat is the same on both bases when the HHV is the LHV
 	// plus the latent heat of the product water: η_LHV·LHV = η_HHV·HHV
 	// (algebraic identity of the method; rounding only).
 	fgNear(t, "η·Q LHV vs HHV (relative)", r.EfficiencyLHV*r.LHV/(r.EfficiencyHHV*r.HHV)-1, 0, 4*jsonRounding)
-	// Acid dew point near §4's test-fuel row, 151.3 °C [C]; that row is at
+	// Acid dew point near docs/reference/plant-checks.md §4's test-fuel row, 151.3 °C [C]; that row is at
 	// λ 1.15, this case at λ 1.1576 (slightly drier, leaner gas): ±0.5 K.
 	if r.AcidDewPoint == nil {
 		t.Fatal("no acid dew point for a fuel with 2.5 % S")
 	}
-	fgNear(t, "acid dew point °C at 3 % O2 (plant-checks.md §4 [C], λ 1.15 row)", *r.AcidDewPoint-273.15, 151.3, 0.5)
+	fgNear(t, "acid dew point °C at 3 % O2 (docs/reference/plant-checks.md §4 [C], λ 1.15 row)", *r.AcidDewPoint-273.15, 151.3, 0.5)
 	if r.Caution == "" || len(r.Warnings) != 1 || !strings.Contains(r.Warnings[0], "no radiation") {
 		t.Errorf("caution %q, warnings %q; want the caution and the one no-radiation warning", r.Caution, r.Warnings)
 	}
 
-	// §3.3 [C]: with radiation 0.7 % and unburnt 0.1 %, η ≈ 89.6 % (LHV).
+	// docs/reference/plant-checks.md §3.3 [C]: with radiation 0.7 % and unburnt 0.1 %, η ≈ 89.6 % (LHV).
 	r = fluegasOf(t, fgWith(testFuelArgs, "--radiation", "0.7 %", "--solids", "0.1 %")...)
-	fgNear(t, "η LHV % with radiation 0.7, unburnt 0.1 (plant-checks.md §3.3 [C])", r.EfficiencyLHV, 89.6, 0.05)
+	fgNear(t, "η LHV % with radiation 0.7, unburnt 0.1 (docs/reference/plant-checks.md §3.3 [C])", r.EfficiencyLHV, 89.6, 0.05)
 	fgNear(t, "unburnt % LHV (the --solids given)", r.Losses.Unburnt, 0.1, 1e-12)
 	if len(r.Warnings) != 0 {
 		t.Errorf("warnings %q, want none", r.Warnings)
@@ -193,28 +193,28 @@ func TestFluegasJSONKeys(t *testing.T) {
 	}
 }
 
-// TestFluegasDewPoint checks the acid dew point against plant-checks.md §4
+// TestFluegasDewPoint checks the acid dew point against docs/reference/plant-checks.md §4
 // and the margin warning.
 func TestFluegasDewPoint(t *testing.T) {
-	// §4 test-fuel row [C]: H2O 9.5 %, SO2 1358 ppm wet, 3 % to SO3:
-	// Verhoff-Banchero 151.3 °C, at λ 1.15, which is O2 2.88 % dry (§2.1
+	// docs/reference/plant-checks.md §4 test-fuel row [C]: H2O 9.5 %, SO2 1358 ppm wet, 3 % to SO3:
+	// Verhoff-Banchero 151.3 °C, at λ 1.15, which is O2 2.88 % dry (docs/reference/plant-checks.md §2.1
 	// [C]); ±0.1 K for the rounding of the O2 and the printed 151.3.
 	r := fluegasOf(t, "--fuel-analysis", "C=86,H=11,S=2.5,N=0.3,O=0.2", "--lhv", "40.487 MJ/kg",
 		"--o2", "2.88 %", "--gas", "250 C", "--air", "25 C")
-	fgNear(t, "λ at 2.88 % O2 (plant-checks.md §2.1 [C])", r.Lambda, 1.15, 0.001)
-	fgNear(t, "H2O wet % (plant-checks.md §2.1 [C], 9.50)", r.H2OWet, 9.50, 0.01)
+	fgNear(t, "λ at 2.88 % O2 (docs/reference/plant-checks.md §2.1 [C])", r.Lambda, 1.15, 0.001)
+	fgNear(t, "H2O wet % (docs/reference/plant-checks.md §2.1 [C], 9.50)", r.H2OWet, 9.50, 0.01)
 	// The sheet's figures are at λ = 1.15; its O2 of 2.88 % (two decimals)
 	// gives λ 1.1503 here, and the SO2 falls about 1.3 ppm per 0.001 of λ
 	// (dilution by the extra air): ±2 ppm.
-	fgNear(t, "SO2 wet ppm (plant-checks.md §2.1 [C], 1358)", r.SO2Wet, 1358, 2)
-	fgNear(t, "SO2 dry ppm (plant-checks.md §2.1 [C], 1501)", r.SO2Dry, 1501, 2)
+	fgNear(t, "SO2 wet ppm (docs/reference/plant-checks.md §2.1 [C], 1358)", r.SO2Wet, 1358, 2)
+	fgNear(t, "SO2 dry ppm (docs/reference/plant-checks.md §2.1 [C], 1501)", r.SO2Dry, 1501, 2)
 	if r.AcidDewPoint == nil {
 		t.Fatal("no acid dew point")
 	}
-	fgNear(t, "Verhoff-Banchero °C (plant-checks.md §4 [C], test-fuel row)", *r.AcidDewPoint-273.15, 151.3, 0.1)
+	fgNear(t, "Verhoff-Banchero °C (docs/reference/plant-checks.md §4 [C], test-fuel row)", *r.AcidDewPoint-273.15, 151.3, 0.1)
 
 	// More SO3 raises the dew point (Verhoff-Banchero: −0.0858·ln pSO3
-	// dominates, §4 [S✓]).
+	// dominates, docs/reference/plant-checks.md §4 [S✓]).
 	r5 := fluegasOf(t, "--fuel", "HSFO", "--o2", "3 %", "--gas", "250 C", "--air", "35 C", "--so3", "5 %")
 	r1 := fluegasOf(t, "--fuel", "HSFO", "--o2", "3 %", "--gas", "250 C", "--air", "35 C", "--so3", "1 %")
 	if !(*r5.AcidDewPoint > *r1.AcidDewPoint) {
@@ -251,10 +251,10 @@ func TestFluegasOptions(t *testing.T) {
 	base := []string{"--fuel", "HSFO", "--o2", "3 %", "--gas", "250 C", "--air", "35 C"}
 	r0 := fluegasOf(t, base...)
 
-	// Radiation scales with 1/load (plant-checks.md §3.4 [M]: "1 % at full
+	// Radiation scales with 1/load (docs/reference/plant-checks.md §3.4 [M]: "1 % at full
 	// load → 4 % at quarter load"); on the HHV basis by LHV/HHV.
 	r := fluegasOf(t, fgWith(base, "--radiation", "1 %", "--load", "25 %")...)
-	fgNear(t, "radiation % LHV at quarter load (plant-checks.md §3.4 [M])", r.Losses.Radiation, 4, 1e-12)
+	fgNear(t, "radiation % LHV at quarter load (docs/reference/plant-checks.md §3.4 [M])", r.Losses.Radiation, 4, 1e-12)
 	fgNear(t, "radiation % HHV", r.LossesHHV.Radiation, 4*r.LHV/r.HHV, 3*jsonRounding*4)
 	r = fluegasOf(t, fgWith(base, "--radiation", "1 %")...)
 	fgNear(t, "radiation % LHV at MCR (the --radiation given)", r.Losses.Radiation, 1, 1e-12)
@@ -266,22 +266,22 @@ func TestFluegasOptions(t *testing.T) {
 	}
 
 	// CO: ppm and percent agree; the loss is a·CO/(CO + CO2) with a = 48
-	// for oil (plant-checks.md §3.1 [S✓ analyser manual]).
+	// for oil (docs/reference/plant-checks.md §3.1 [S✓ analyser manual]).
 	a := fluegasOf(t, fgWith(base, "--co", "50 ppm")...)
 	b := fluegasOf(t, fgWith(base, "--co", "0.005 %")...)
 	fgNear(t, "CO loss ppm vs %", a.Losses.Unburnt, b.Losses.Unburnt, 1e-12)
-	fgNear(t, "CO loss % LHV (plant-checks.md §3.1 [S✓])", a.Losses.Unburnt, 48*0.005/(0.005+a.CO2Dry), 2*jsonRounding*a.Losses.Unburnt)
+	fgNear(t, "CO loss % LHV (docs/reference/plant-checks.md §3.1 [S✓])", a.Losses.Unburnt, 48*0.005/(0.005+a.CO2Dry), 2*jsonRounding*a.Losses.Unburnt)
 
 	// The CO2 reading that 3 % O2 implies gives the same λ back: both
-	// forms of plant-checks.md §2 [CP] are exact for complete combustion.
-	// The test fuel (plant-checks.md §1.2), for the Siegert value below.
+	// forms of docs/reference/plant-checks.md §2 [CP] are exact for complete combustion.
+	// The test fuel (docs/reference/plant-checks.md §1.2), for the Siegert value below.
 	rt := fluegasOf(t, testFuelArgs...)
 	c := fluegasOf(t, "--fuel-analysis", "C=86,H=11,S=2.5,N=0.3,O=0.2", "--lhv", "40.487 MJ/kg",
 		"--co2", jsonNum(rt.CO2Dry)+" %", "--gas", "250 C", "--air", "35 C")
-	fgNear(t, "λ from CO2 vs from O2 (plant-checks.md §2 [CP])", c.Lambda, rt.Lambda, 2*jsonRounding*c.Lambda)
+	fgNear(t, "λ from CO2 vs from O2 (docs/reference/plant-checks.md §2 [CP])", c.Lambda, rt.Lambda, 2*jsonRounding*c.Lambda)
 	// Siegert's CO2 form with the test fuel's CO2 at 3 % O2 (13.68 %):
-	// 9.36 % (plant-checks.md §3.2 [C]).
-	fgNear(t, "Siegert CO2 form % (plant-checks.md §3.2 [C])", *c.Siegert, 9.36, 0.005)
+	// 9.36 % (docs/reference/plant-checks.md §3.2 [C]).
+	fgNear(t, "Siegert CO2 form % (docs/reference/plant-checks.md §3.2 [C])", *c.Siegert, 9.36, 0.005)
 
 	// Humidity: a relative humidity and the humidity ratio it gives read
 	// the same; humid air adds moisture loss.
@@ -309,7 +309,7 @@ func TestFluegasOptions(t *testing.T) {
 	o := fluegasOf(t, "--fuel", "VLSFO", "--fuel-analysis", "C=86,H=11,S=2.5,N=0.3,O=0.2",
 		"--o2", "3 %", "--gas", "250 C", "--air", "35 C")
 	fgNear(t, "LHV of VLSFO with an analysis on top = package fuel's analysis route", o.LHV, n, jsonRounding*n)
-	fgNear(t, "stoichiometric air of the analysis given (plant-checks.md §2.1 [C])", o.StoichAir, 13.770, 0.005)
+	fgNear(t, "stoichiometric air of the analysis given (docs/reference/plant-checks.md §2.1 [C])", o.StoichAir, 13.770, 0.005)
 	o = fluegasOf(t, "--fuel-analysis", "C=86,H=11,S=2.5,N=0.3,O=0.2", "--o2", "3 %", "--gas", "250 C", "--air", "35 C")
 	fgNear(t, "LHV of an own fuel = package fuel's analysis route", o.LHV, n, jsonRounding*n)
 	if !strings.Contains(o.LHVSource, "Channiwala-Parikh") {
@@ -600,7 +600,7 @@ func TestFluegasMessages(t *testing.T) {
 		want, not []string
 	}{
 		// HSFO at 3 % O2 has its acid dew point at 151.1 °C (the
-		// table's own line; checked against plant-checks.md §4 in
+		// table's own line; checked against docs/reference/plant-checks.md §4 in
 		// TestFluegasDewPoint): 116.3 °C is 34.8 K below it.
 		{"below the dew point", fgWith([]string{"fluegas", "--fuel", "HSFO", "--o2", "3 %", "--gas", "116.3 C", "--air", "35 C"}), exitOK,
 			[]string{"151.1 °C; the flue gas at 116.3 °C is 34.8 K below it.",

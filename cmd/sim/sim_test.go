@@ -310,13 +310,13 @@ func TestSteamJSONMatchesWater(t *testing.T) {
 }
 
 // TestSteamAgainstReference checks the command's numbers against the
-// project's reference sheet, plant-checks.md §0 [C] (IAPWS-IF97 values
+// project's reference sheet, docs/reference/plant-checks.md §0 [C] (IAPWS-IF97 values
 // computed when the sheet was compiled), to the digits printed there.
 func TestSteamAgainstReference(t *testing.T) {
 	near := func(name string, got, want, tol float64) {
 		t.Helper()
 		if math.Abs(got-want) > tol {
-			t.Errorf("%s = %.6f, want %.6f ± %g (plant-checks.md §0 [C])", name, got, want, tol)
+			t.Errorf("%s = %.6f, want %.6f ± %g (docs/reference/plant-checks.md §0 [C])", name, got, want, tol)
 		}
 	}
 	// Saturation at 7 bar(g): T_sat 170.48 °C, h_f 721.3, h_g 2768.4 kJ/kg.

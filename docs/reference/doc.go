@@ -13,12 +13,11 @@
 //     repository (the root is two folders up from here, and nothing outside
 //     it is read) and fails, listing file:line, for each citation whose
 //     sheet is not in this folder, or whose section, sub-item or quoted
-//     item words do not exist in that sheet. It accepts for now the older
-//     forms that omit the folder and bare section signs after a sheet was
-//     named earlier in the same file.
-//   - TestCitationsStrict, run only when STEAMCASE_STRICT_CITATIONS=1, fails
-//     for each citation outside this folder's Markdown files that is not in
-//     the docs/reference/ form.
+//     item words do not exist in that sheet.
+//   - TestCitationsStrict fails for each citation outside this folder's
+//     Markdown files that is not in the docs/reference/ form (the older
+//     forms omit the folder, or lean on a sheet named earlier in the file
+//     with a bare section sign).
 //   - TestTestdataCopies checks that the packages' testdata copies of the
 //     data files agree with the files here: whole files byte for byte, and
 //     the two subsets of plant/combustion row for row.

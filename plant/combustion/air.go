@@ -11,9 +11,9 @@ import (
 // other traces ("atmospheric nitrogen"). O2 and Ar are the usual standard
 // dry-air figures (common practice; the ISO 2533 / US Standard Atmosphere
 // table, from memory). CO2 is left out of the air so that the flue-gas CO2
-// is the fuel's alone, as analysers and plant-checks.md §2 count it; the
+// is the fuel's alone, as analysers and docs/reference/plant-checks.md §2 count it; the
 // molar mass is 28.960 g/mol and the O2 mass fraction 23.144 %
-// (plant-checks.md §0 uses 20.95 % and 23.14 % m/m [CP]).
+// (docs/reference/plant-checks.md §0 uses 20.95 % and 23.14 % m/m [CP]).
 var StandardDryAir = [NumSpecies]float64{N2: 0.78120, O2: 0.20946, Ar: 0.00934}
 
 // Coefficients n1…n10 (here sat1…sat10) of the IAPWS-IF97 saturation line,

@@ -9,7 +9,7 @@ import (
 
 // DefaultDewMargin is the least margin (K) a flue gas should keep above its
 // acid dew point before CheckFlueGas warns, when CheckSettings.DewMargin is
-// zero: 20 K, common practice, no source. For comparison, plant-checks.md §4
+// zero: 20 K, common practice, no source. For comparison, docs/reference/plant-checks.md §4
 // [CP] gives exhaust-gas economiser outlets of 165–180 °C on HFO against
 // acid dew points taken as 130–140 °C, margins of 25–50 K; 20 K is the least
 // of the margins heard of, and tube walls are colder than the gas.
@@ -52,7 +52,7 @@ const (
 	MinCheckLoad = 0.05
 	MaxCheckLoad = 1.2
 	// MaxSO3Conversion bounds the share of SO2 turned to SO3: 20 %, far
-	// above the 1–5 % of oil firing (plant-checks.md §4 [M]).
+	// above the 1–5 % of oil firing (docs/reference/plant-checks.md §4 [M]).
 	MaxSO3Conversion = 0.2
 	// MinSteamT and MaxSteamT bound the atomising-steam temperature (K).
 	MinSteamT = 273.15
@@ -61,7 +61,7 @@ const (
 
 // SiegertSource names where the Siegert coefficients (SiegertFuelOil,
 // SiegertNaturalGas) come from.
-const SiegertSource = "1. BImSchV annex on flue-gas loss (plant-checks.md §3.2 [S]: structure seen, coefficients from memory)"
+const SiegertSource = "1. BImSchV annex on flue-gas loss (docs/reference/plant-checks.md §3.2 [S]: structure seen, coefficients from memory)"
 
 // Caution is the sentence every report of a flue-gas check carries.
 const Caution = "Caution: planning and audit estimate only; the makers' manuals, class and flag rules and licensed practice govern, and local codes come first."
@@ -132,7 +132,7 @@ type FlueGasReading struct {
 
 	// RadiationAtMCR is the radiation and convection loss at MCR as a
 	// fraction of the LHV heat input (0…0.1; 0.005–0.015 is common for
-	// marine auxiliary boilers, plant-checks.md §3.4 [CP]), scaled by
+	// marine auxiliary boilers, docs/reference/plant-checks.md §3.4 [CP]), scaled by
 	// 1/Load. RadiationGiven says it was given, even as zero (a nonzero
 	// RadiationAtMCR counts as given); without it the loss is taken as zero
 	// with a warning.

@@ -10,12 +10,12 @@ import (
 	"steamcase/plant/fuel"
 )
 
-// checkTestFuel is the test fuel of plant-checks.md §1.2 (C 86.0, H 11.0,
+// checkTestFuel is the test fuel of docs/reference/plant-checks.md §1.2 (C 86.0, H 11.0,
 // S 2.5, N 0.3, O 0.2) with its ISO 8217 data (ρ 985, S 2.5), whose LHV is
-// 40 487 kJ/kg (§3.3 [C]).
+// 40 487 kJ/kg (docs/reference/plant-checks.md §3.3 [C]).
 func checkTestFuel() fuel.Fuel { return testFuel() }
 
-// worked is the worked case of plant-checks.md §3.3: 3 % dry O2, flue gas
+// worked is the worked case of docs/reference/plant-checks.md §3.3: 3 % dry O2, flue gas
 // 250 °C, air 35 °C.
 func worked() FlueGasReading {
 	return FlueGasReading{Fuel: checkTestFuel(), Gas: MeasuredO2, Dry: 0.03, FlueT: 523.15, AirT: 308.15}
@@ -31,85 +31,85 @@ func mustCheck(t *testing.T, r FlueGasReading, s *CheckSettings) *FlueGasCheck {
 }
 
 // TestCheckFlueGasWorkedCase checks the figures of the worked case against
-// plant-checks.md, each with its section and tag.
+// docs/reference/plant-checks.md, each with its section and tag.
 func TestCheckFlueGasWorkedCase(t *testing.T) {
 	t.Parallel()
 	c := mustCheck(t, worked(), nil)
 	p := &c.Products
-	near(t, "λ (plant-checks.md §2.1 [C], §11 item 4)", p.Lambda, 1.1576, 0.0005)
-	near(t, "excess air (= λ − 1, §2.1 [C])", c.ExcessAir, 0.1576, 0.0005)
-	near(t, "stoichiometric air kg/kg (plant-checks.md §2.1 [C], §11 item 2)", p.Stoich.Air, 13.770, 0.005)
-	near(t, "stoichiometric wet flue gas kg/kg (plant-checks.md §2.1 [C])", c.StoichFlueGas, 14.770, 0.005)
-	near(t, "dry CO2 at 3 % O2 (plant-checks.md §3.2 [C])", c.Dry[CO2], 0.1368, 0.00005)
+	near(t, "λ (docs/reference/plant-checks.md §2.1 [C], §11 item 4)", p.Lambda, 1.1576, 0.0005)
+	near(t, "excess air (= λ − 1, docs/reference/plant-checks.md §2.1 [C])", c.ExcessAir, 0.1576, 0.0005)
+	near(t, "stoichiometric air kg/kg (docs/reference/plant-checks.md §2.1 [C], §11 item 2)", p.Stoich.Air, 13.770, 0.005)
+	near(t, "stoichiometric wet flue gas kg/kg (docs/reference/plant-checks.md §2.1 [C])", c.StoichFlueGas, 14.770, 0.005)
+	near(t, "dry CO2 at 3 % O2 (docs/reference/plant-checks.md §3.2 [C])", c.Dry[CO2], 0.1368, 0.00005)
 	near(t, "dry O2 (the reading)", c.Dry[O2], 0.03, 1e-12)
 	if c.Dry[H2O] != 0 {
 		t.Errorf("dry basis has H2O %g", c.Dry[H2O])
 	}
 	l := &c.Losses
-	near(t, "LHV kJ/kg (plant-checks.md §3.3 [C], ISO 8217 at ρ 985, S 2.5)", l.LHV.HeatInput/1e3, 40487, 0.5)
-	near(t, "HHV kJ/kg (plant-checks.md §3.3 [C])", l.HHV.HeatInput/1e3, 42794, 0.5)
-	// §3.3 used mean molar cp values from memory [M]: ±0.05 points.
-	near(t, "dry-gas loss % LHV (plant-checks.md §3.3 [C])", l.LHV.DryGas, 8.60, 0.05)
-	near(t, "moisture loss % LHV (plant-checks.md §3.3 [C])", l.LHV.Moisture(), 1.00, 0.05)
+	near(t, "LHV kJ/kg (docs/reference/plant-checks.md §3.3 [C], ISO 8217 at ρ 985, S 2.5)", l.LHV.HeatInput/1e3, 40487, 0.5)
+	near(t, "HHV kJ/kg (docs/reference/plant-checks.md §3.3 [C])", l.HHV.HeatInput/1e3, 42794, 0.5)
+	// docs/reference/plant-checks.md §3.3 used mean molar cp values from memory [M]: ±0.05 points.
+	near(t, "dry-gas loss % LHV (docs/reference/plant-checks.md §3.3 [C])", l.LHV.DryGas, 8.60, 0.05)
+	near(t, "moisture loss % LHV (docs/reference/plant-checks.md §3.3 [C])", l.LHV.Moisture(), 1.00, 0.05)
 	near(t, "reference T (the air's, as in Siegert's formula)", l.RefT, 308.15, 0)
 
-	// Siegert, O2 form, fuel-oil coefficients: 9.627 % (§3.2 [S], §11
+	// Siegert, O2 form, fuel-oil coefficients: 9.627 % (docs/reference/plant-checks.md §3.2 [S], §11
 	// item 5, ±0.001).
 	s := &c.Siegert
 	if !s.Known || s.Form != "O2 form" || s.Set != "fuel-oil coefficients" || s.Coefficients != SiegertFuelOil {
 		t.Fatalf("Siegert %+v", s)
 	}
-	near(t, "Siegert % (plant-checks.md §3.2 [S], §11 item 5)", s.Loss, 9.627, 0.0005)
-	near(t, "Siegert's detailed counterpart (dry gas + moisture, §3.3 [C] 9.60)", s.Detailed, 9.60, 0.05)
-	if !strings.Contains(s.Source, "1. BImSchV") || !strings.Contains(s.Source, "plant-checks.md §3.2 [S]") {
+	near(t, "Siegert % (docs/reference/plant-checks.md §3.2 [S], §11 item 5)", s.Loss, 9.627, 0.0005)
+	near(t, "Siegert's detailed counterpart (dry gas + moisture, docs/reference/plant-checks.md §3.3 [C] 9.60)", s.Detailed, 9.60, 0.05)
+	if !strings.Contains(s.Source, "1. BImSchV") || !strings.Contains(s.Source, "docs/reference/plant-checks.md §3.2 [S]") {
 		t.Errorf("Siegert source %q does not name the ordinance and the sheet", s.Source)
 	}
 
-	// Acid dew point near §4's test-fuel row, 151.3 °C [C] at λ 1.15;
+	// Acid dew point near docs/reference/plant-checks.md §4's test-fuel row, 151.3 °C [C] at λ 1.15;
 	// here λ 1.1576 (leaner, drier): ±0.5 K.
 	d := &c.DewPoint
 	if !d.Known {
 		t.Fatalf("no dew point: %s", d.Note)
 	}
-	near(t, "acid dew point °C (plant-checks.md §4 [C], λ 1.15 row)", d.VerhoffBanchero-273.15, 151.3, 0.5)
+	near(t, "acid dew point °C (docs/reference/plant-checks.md §4 [C], λ 1.15 row)", d.VerhoffBanchero-273.15, 151.3, 0.5)
 	near(t, "margin = flue T − dew point (definition)", d.Margin, 523.15-d.VerhoffBanchero, 0)
 	near(t, "margin asked for (DefaultDewMargin, common practice)", d.MinMargin, 20, 0)
-	near(t, "SO3 conversion (DefaultSO3Conversion, plant-checks.md §4 [M])", d.SO3Conversion, 0.03, 0)
+	near(t, "SO3 conversion (DefaultSO3Conversion, docs/reference/plant-checks.md §4 [M])", d.SO3Conversion, 0.03, 0)
 
 	// One warning: no radiation loss given.
 	if len(c.Warnings) != 1 || !strings.Contains(c.Warnings[0], "no radiation and convection loss given (RadiationAtMCR)") {
 		t.Errorf("warnings %q; want the one no-radiation warning naming RadiationAtMCR", c.Warnings)
 	}
 
-	// §3.3 [C]: with radiation 0.7 % and unburnt 0.1 %, η ≈ 89.6 % (LHV).
+	// docs/reference/plant-checks.md §3.3 [C]: with radiation 0.7 % and unburnt 0.1 %, η ≈ 89.6 % (LHV).
 	r := worked()
 	r.RadiationAtMCR, r.Solids = 0.007, 0.001
 	c = mustCheck(t, r, nil)
-	near(t, "η LHV % with radiation 0.7, unburnt 0.1 (plant-checks.md §3.3 [C])", c.Losses.LHV.Efficiency, 89.6, 0.05)
+	near(t, "η LHV % with radiation 0.7, unburnt 0.1 (docs/reference/plant-checks.md §3.3 [C])", c.Losses.LHV.Efficiency, 89.6, 0.05)
 	if len(c.Warnings) != 0 {
 		t.Errorf("warnings %q, want none", c.Warnings)
 	}
 }
 
 // TestCheckFlueGasDewPoint checks the dew point through the check against
-// plant-checks.md §4 and the warnings on the margin to it.
+// docs/reference/plant-checks.md §4 and the warnings on the margin to it.
 func TestCheckFlueGasDewPoint(t *testing.T) {
 	t.Parallel()
-	// §4 test-fuel row [C]: at λ 1.15 (O2 2.88 % dry, §2.1 [C]), H2O 9.5 %,
+	// docs/reference/plant-checks.md §4 test-fuel row [C]: at λ 1.15 (O2 2.88 % dry, docs/reference/plant-checks.md §2.1 [C]), H2O 9.5 %,
 	// SO2 1358 ppm wet, 3 % to SO3: VB 151.3 °C, Okkes 145.1 °C. O2 2.88 %
 	// is rounded (λ 1.1503 here): ±0.1 K.
 	r := worked()
 	r.Dry, r.AirT = 0.0288, 298.15
 	c := mustCheck(t, r, nil)
-	near(t, "H2O wet (plant-checks.md §2.1 [C], 9.50 %)", 100*c.Wet[H2O], 9.50, 0.01)
-	near(t, "SO2 wet ppm (plant-checks.md §2.1 [C], 1358)", 1e6*c.Wet[SO2], 1358, 2)
-	near(t, "Verhoff-Banchero °C (plant-checks.md §4 [C], test-fuel row)", c.DewPoint.VerhoffBanchero-273.15, 151.3, 0.1)
+	near(t, "H2O wet (docs/reference/plant-checks.md §2.1 [C], 9.50 %)", 100*c.Wet[H2O], 9.50, 0.01)
+	near(t, "SO2 wet ppm (docs/reference/plant-checks.md §2.1 [C], 1358)", 1e6*c.Wet[SO2], 1358, 2)
+	near(t, "Verhoff-Banchero °C (docs/reference/plant-checks.md §4 [C], test-fuel row)", c.DewPoint.VerhoffBanchero-273.15, 151.3, 0.1)
 	if !c.DewPoint.OkkesKnown {
 		t.Fatalf("Okkes not given inside its range: %s", c.DewPoint.OkkesNote)
 	}
-	near(t, "Okkes °C (plant-checks.md §4 [C], test-fuel row)", c.DewPoint.Okkes-273.15, 145.1, 0.1)
+	near(t, "Okkes °C (docs/reference/plant-checks.md §4 [C], test-fuel row)", c.DewPoint.Okkes-273.15, 145.1, 0.1)
 
-	// §4 row 1 and §11 item 6 [S✓]: pH2O 93.44 mmHg, pSO3 0.0024917 mmHg
+	// docs/reference/plant-checks.md §4 row 1 and §11 item 6 [S✓]: pH2O 93.44 mmHg, pSO3 0.0024917 mmHg
 	// give 128.75 °C ± 0.05. The air's humidity is found that makes the
 	// wet H2O 93.44/760 of 1 atm, and the SO3 share that makes the SO3
 	// 0.0024917/760 (bisection; the partial pressures then agree to 1e-9).
@@ -127,9 +127,9 @@ func TestCheckFlueGasDewPoint(t *testing.T) {
 	r.SO3Conversion = wantSO3 / c.Wet[SO2]
 	c = mustCheck(t, r, nil)
 	near(t, "wet H2O found", c.Wet[H2O], wantH2O, 1e-9)
-	near(t, "Verhoff-Banchero °C (plant-checks.md §4 row 1, §11 item 6 [S✓])", c.DewPoint.VerhoffBanchero-273.15, 128.75, 0.05)
+	near(t, "Verhoff-Banchero °C (docs/reference/plant-checks.md §4 row 1, §11 item 6 [S✓])", c.DewPoint.VerhoffBanchero-273.15, 128.75, 0.05)
 	// There the SO3 is 3.28 ppm, inside Okkes's range (from memory, 1–100
-	// ppm), so Okkes is given too, below VB as in every row of §4 [C].
+	// ppm), so Okkes is given too, below VB as in every row of docs/reference/plant-checks.md §4 [C].
 	if !c.DewPoint.OkkesKnown || !(c.DewPoint.Okkes < c.DewPoint.VerhoffBanchero) {
 		t.Errorf("Okkes %v (%g K) at 3.28 ppm SO3; want it given and below VB %g K", c.DewPoint.OkkesKnown, c.DewPoint.Okkes, c.DewPoint.VerhoffBanchero)
 	}
@@ -193,16 +193,16 @@ func TestCheckFlueGasReadings(t *testing.T) {
 	o2 := mustCheck(t, worked(), nil)
 
 	// The CO2 that 3 % O2 implies gives the same λ back: both forms of
-	// plant-checks.md §2 [CP] are exact for complete combustion.
+	// docs/reference/plant-checks.md §2 [CP] are exact for complete combustion.
 	r := worked()
 	r.Gas, r.Dry = MeasuredCO2, o2.Dry[CO2]
 	c := mustCheck(t, r, nil)
-	near(t, "λ from CO2 vs from O2 (plant-checks.md §2 [CP])", c.Products.Lambda, o2.Products.Lambda, 1e-9)
-	// Siegert's CO2 form at the test fuel's 13.68 %: 9.36 % (§3.2 [C]).
+	near(t, "λ from CO2 vs from O2 (docs/reference/plant-checks.md §2 [CP])", c.Products.Lambda, o2.Products.Lambda, 1e-9)
+	// Siegert's CO2 form at the test fuel's 13.68 %: 9.36 % (docs/reference/plant-checks.md §3.2 [C]).
 	if c.Siegert.Form != "CO2 form" {
 		t.Errorf("Siegert form %q, want the CO2 form for a CO2 reading", c.Siegert.Form)
 	}
-	near(t, "Siegert CO2 form % (plant-checks.md §3.2 [C])", c.Siegert.Loss, 9.36, 0.005)
+	near(t, "Siegert CO2 form % (docs/reference/plant-checks.md §3.2 [C])", c.Siegert.Loss, 9.36, 0.005)
 
 	// 0 % O2 is λ = 1, with a warning.
 	r = worked()
@@ -213,14 +213,14 @@ func TestCheckFlueGasReadings(t *testing.T) {
 		t.Errorf("0 %% O2: warnings %q", c.Warnings)
 	}
 
-	// Gas fires with the natural-gas coefficients (§3.2 [S]).
+	// Gas fires with the natural-gas coefficients (docs/reference/plant-checks.md §3.2 [S]).
 	g, _ := fuel.Grade("LNG")
 	c = mustCheck(t, FlueGasReading{Fuel: g, Gas: MeasuredO2, Dry: 0.03, FlueT: 473.15, AirT: 293.15}, nil)
 	if c.Siegert.Coefficients != SiegertNaturalGas || c.Siegert.Set != "natural-gas coefficients" {
 		t.Errorf("LNG Siegert %+v", c.Siegert)
 	}
-	// q = (t_A − t_L)·(A2/(21 − O2) + B) with A2 0.66, B 0.009 (§3.2 [S]).
-	near(t, "Siegert LNG % (plant-checks.md §3.2 [S] formula)", c.Siegert.Loss, 180*(0.66/18+0.009), 1e-9)
+	// q = (t_A − t_L)·(A2/(21 − O2) + B) with A2 0.66, B 0.009 (docs/reference/plant-checks.md §3.2 [S]).
+	near(t, "Siegert LNG % (docs/reference/plant-checks.md §3.2 [S] formula)", c.Siegert.Loss, 180*(0.66/18+0.009), 1e-9)
 
 	// Humid air adds moisture loss; a relative humidity and the humidity
 	// ratio it gives read the same.
@@ -237,13 +237,13 @@ func TestCheckFlueGasReadings(t *testing.T) {
 
 	// Atomising steam at the air temperature, 0.02 kg/kg: its moisture
 	// loss is its sensible heat from 35 to 250 °C over the LHV. With the
-	// mean molar cp of H2O 25–250 °C of plant-checks.md §3.3 (34.4
+	// mean molar cp of H2O 25–250 °C of docs/reference/plant-checks.md §3.3 (34.4
 	// kJ/(kmol·K) [M], three figures): 0.02·34.4/18.015·215/40487 =
 	// 0.2028 % ± 1 %. No credit: the steam enters at the reference.
 	r = worked()
 	r.AtomisingSteam = 0.02
 	c = mustCheck(t, r, nil)
-	near(t, "atomising-steam moisture % LHV (plant-checks.md §3.3 [M] cp)", c.Losses.LHV.MoistureSteam, 0.02*34.4/18.015*215/40487*100, 0.002)
+	near(t, "atomising-steam moisture % LHV (docs/reference/plant-checks.md §3.3 [M] cp)", c.Losses.LHV.MoistureSteam, 0.02*34.4/18.015*215/40487*100, 0.002)
 	near(t, "steam credit at the reference temperature", c.Losses.LHV.SteamCredit, 0, 1e-12)
 	near(t, "atomising-steam T defaults to the air's", c.Reading.AtomisingSteamT, 308.15, 0)
 	j := c.JSON()
@@ -254,11 +254,11 @@ func TestCheckFlueGasReadings(t *testing.T) {
 		t.Errorf("steam at 180 °C: credit %g, want > 0", c.Losses.LHV.SteamCredit)
 	}
 
-	// The radiation loss scales by 1/load (plant-checks.md §3.4 [M]: "1 %
+	// The radiation loss scales by 1/load (docs/reference/plant-checks.md §3.4 [M]: "1 %
 	// at full load → 4 % at quarter load"), with a warning below 25 %.
 	r = worked()
 	r.RadiationAtMCR, r.Load = 0.01, 0.25
-	near(t, "radiation % at quarter load (plant-checks.md §3.4 [M])", mustCheck(t, r, nil).Losses.LHV.Radiation, 4, 1e-12)
+	near(t, "radiation % at quarter load (docs/reference/plant-checks.md §3.4 [M])", mustCheck(t, r, nil).Losses.LHV.Radiation, 4, 1e-12)
 	r.Load = 0.2
 	if w := strings.Join(mustCheck(t, r, nil).Warnings, "\n"); !strings.Contains(w, "below 25 % load") {
 		t.Errorf("20 %% load: warnings %q", w)
@@ -269,11 +269,11 @@ func TestCheckFlueGasReadings(t *testing.T) {
 	if c := mustCheck(t, r, nil); c.Losses.LHV.Radiation != 0 || len(c.Warnings) != 0 {
 		t.Errorf("radiation given as 0: loss %g, warnings %q", c.Losses.LHV.Radiation, c.Warnings)
 	}
-	// CO: a·CO/(CO + CO2), a = 48 for oil (plant-checks.md §3.1 [S✓]).
+	// CO: a·CO/(CO + CO2), a = 48 for oil (docs/reference/plant-checks.md §3.1 [S✓]).
 	r = worked()
 	r.COppmDry = 50
 	c = mustCheck(t, r, nil)
-	near(t, "CO loss % (plant-checks.md §3.1 [S✓])", c.Losses.LHV.CO, 48*0.005/(0.005+100*c.Dry[CO2]), 1e-12)
+	near(t, "CO loss % (docs/reference/plant-checks.md §3.1 [S✓])", c.Losses.LHV.CO, 48*0.005/(0.005+100*c.Dry[CO2]), 1e-12)
 }
 
 // TestCheckFlueGasErrors checks that every field is validated, with the
@@ -465,7 +465,7 @@ func TestFuelWithAnalysis(t *testing.T) {
 	}
 	c := mustCheck(t, FlueGasReading{Fuel: f, Gas: MeasuredO2, Dry: 0.03, FlueT: 523.15, AirT: 308.15}, nil)
 	near(t, "LHV of VLSFO with an analysis on top (the analysis's own, Channiwala–Parikh)", c.Losses.LHV.HeatInput, e.Net, 1e-9)
-	near(t, "stoichiometric air of the analysis given (plant-checks.md §2.1 [C])", c.Products.Stoich.Air, 13.770, 0.005)
+	near(t, "stoichiometric air of the analysis given (docs/reference/plant-checks.md §2.1 [C])", c.Products.Stoich.Air, 13.770, 0.005)
 }
 
 // FuzzCheckFlueGas: no reading makes CheckFlueGas panic; an error is a

@@ -12,7 +12,7 @@ const (
 )
 
 // VerhoffBanchero returns the sulfuric-acid dew point (K) by F. H. Verhoff
-// and J. T. Banchero, Chem. Eng. Progress 70(8) (1974) (plant-checks.md §4
+// and J. T. Banchero, Chem. Eng. Progress 70(8) (1974) (docs/reference/plant-checks.md §4
 // [S✓]):
 //
 //	1000/T_dp = 2.276 − 0.02943·ln pH2O − 0.0858·ln pSO3 + 0.0062·ln pH2O·ln pSO3
@@ -28,7 +28,7 @@ func VerhoffBanchero(pH2O, pSO3 float64) (float64, error) {
 	return 1000 / (2.276 - 0.02943*lw - 0.0858*ls + 0.0062*lw*ls), nil
 }
 
-// Okkes range (from memory, plant-checks.md §4): pH2O 0.05–0.15 atm, SO3
+// Okkes range (from memory, docs/reference/plant-checks.md §4): pH2O 0.05–0.15 atm, SO3
 // about 1–100 ppm (1e-6…1e-4 atm).
 const (
 	okkesMinH2O = 0.05 * atm
@@ -38,7 +38,7 @@ const (
 )
 
 // Okkes returns the sulfuric-acid dew point (K) by A. G. Okkes, Hydrocarbon
-// Processing 66(7) (1987) (plant-checks.md §4 [S✓ formula]):
+// Processing 66(7) (1987) (docs/reference/plant-checks.md §4 [S✓ formula]):
 //
 //	T_dp [°C] = 203.25 + 27.6·log10 pH2O + 10.83·log10 pSO3 + 1.06·(log10 pSO3 + 8)^2.19
 //
@@ -67,7 +67,7 @@ func checkDewInputs(pH2O, pSO3 float64) error {
 }
 
 // DefaultSO3Conversion is the fraction of SO2 taken to form SO3 when none
-// is given: 3 %, inside the 1–5 % usual in oil firing (plant-checks.md §4
+// is given: 3 %, inside the 1–5 % usual in oil firing (docs/reference/plant-checks.md §4
 // [M]; common practice).
 const DefaultSO3Conversion = 0.03
 

@@ -9,7 +9,7 @@ import (
 
 func TestDewPointTable(t *testing.T) {
 	t.Parallel()
-	// plant-checks.md §4 table. Row 1 [S✓]/[C], §11 item 6: ±0.05 K. The
+	// docs/reference/plant-checks.md §4 table. Row 1 [S✓]/[C], docs/reference/plant-checks.md §11 item 6: ±0.05 K. The
 	// other rows [C] are printed to 0.01 °C: held to ±0.01 K.
 	cases := []struct {
 		pw, ps  float64 // Pa
@@ -17,10 +17,10 @@ func TestDewPointTable(t *testing.T) {
 		source  string
 		tol     float64
 	}{
-		{93.44 * mmHg, 0.0024917 * mmHg, 128.75, 0, "plant-checks.md §4 row 1, §11 item 6", 0.05},
-		{0.11 * atm, 10e-6 * atm, 138.29, 134.40, "plant-checks.md §4 row 2 [C]", 0.01},
-		{0.10 * atm, 1e-6 * atm, 115.66, 115.51, "plant-checks.md §4 row 3 [C]", 0.01},
-		{0.10 * atm, 20e-6 * atm, 144.33, 139.25, "plant-checks.md §4 row 4 [C]", 0.01},
+		{93.44 * mmHg, 0.0024917 * mmHg, 128.75, 0, "docs/reference/plant-checks.md §4 row 1, §11 item 6", 0.05},
+		{0.11 * atm, 10e-6 * atm, 138.29, 134.40, "docs/reference/plant-checks.md §4 row 2 [C]", 0.01},
+		{0.10 * atm, 1e-6 * atm, 115.66, 115.51, "docs/reference/plant-checks.md §4 row 3 [C]", 0.01},
+		{0.10 * atm, 20e-6 * atm, 144.33, 139.25, "docs/reference/plant-checks.md §4 row 4 [C]", 0.01},
 	}
 	for _, c := range cases {
 		T, err := VerhoffBanchero(c.pw, c.ps)
@@ -47,7 +47,7 @@ func TestDewPointTable(t *testing.T) {
 }
 
 // Test-fuel flue gas at λ 1.15 (H2O 9.5 %, SO2 1358 ppm wet, 3 % to SO3 =
-// 40.7 ppm): VB 151.3 °C, Okkes 145.1 °C (plant-checks.md §4 [C], printed
+// 40.7 ppm): VB 151.3 °C, Okkes 145.1 °C (docs/reference/plant-checks.md §4 [C], printed
 // to 0.1 °C: ±0.05 K).
 func TestAcidDewPointOfProducts(t *testing.T) {
 	t.Parallel()
@@ -63,7 +63,7 @@ func TestAcidDewPointOfProducts(t *testing.T) {
 		if err != nil {
 			t.Fatal(err)
 		}
-		near(t, fmt.Sprintf("method %d °C (plant-checks.md §4 [C])", c.m), T-273.15, c.want, 0.05)
+		near(t, fmt.Sprintf("method %d °C (docs/reference/plant-checks.md §4 [C])", c.m), T-273.15, c.want, 0.05)
 	}
 	g, _ := fuel.Grade("LNG")
 	pg, _ := Fire(g, Conditions{Lambda: 1.1})

@@ -6,7 +6,7 @@
 // 3 %). Loss items and efficiencies are the exception: percent of the fuel
 // heat input, as the test codes print them.
 //
-// What is implemented, with sources (tags as in the project's plant-checks
+// What is implemented, with sources (tags as in the project's docs/reference/plant-checks.md
 // reference sheet: [S✓] confirmed published source, [S] published source
 // from memory, [CP] common practice, [M] from memory, [C] computed):
 //
@@ -18,7 +18,7 @@
 //     published from 300 K and is used from 298.15 K (documented 1.85 K
 //     extrapolation); below that, only for a reference temperature under
 //     25 °C in Efficiency, it is continued with its 298.15 K heat capacity.
-//   - Stoichiometry (plant-checks.md §2 [CP]): O2 and air for complete
+//   - Stoichiometry (docs/reference/plant-checks.md §2 [CP]): O2 and air for complete
 //     combustion from the ultimate analysis (Stoichiometry), with standard
 //     dry air O2 20.946 %, Ar 0.934 %, N2 78.120 % including CO2 and traces
 //     (StandardDryAir; the air is replaceable per call).
@@ -31,15 +31,15 @@
 //   - Adiabatic flame temperature: complete combustion, NO dissociation, no
 //     heat loss (AdiabaticFlameTemperature).
 //   - Boiler efficiency by the heat-loss method, itemised in the manner of
-//     ASME PTC 4 and EN 12952-15 (structure from memory, §3.1 [S]): dry flue
-//     gas, moisture by origin, CO (Siegert-type form, §3.1 [S✓]), unburnt
+//     ASME PTC 4 and EN 12952-15 (structure from memory, docs/reference/plant-checks.md §3.1 [S]): dry flue
+//     gas, moisture by origin, CO (Siegert-type form, docs/reference/plant-checks.md §3.1 [S✓]), unburnt
 //     solids, radiation and convection (kW constant or % at MCR scaled by
 //     1/load), credits for air, steam and fuel sensible heat; on the LHV and
 //     the HHV basis, each stating its basis and the energy's source
 //     (Efficiency, Losses).
-//   - Siegert's flue-gas loss formula, O2 and CO2 forms, 1. BImSchV (§3.2
+//   - Siegert's flue-gas loss formula, O2 and CO2 forms, 1. BImSchV (docs/reference/plant-checks.md §3.2
 //     [S]) as a cross-check (Siegert, SiegertCO2).
-//   - Acid dew point: Verhoff and Banchero (1974) and Okkes (1987) (§4 [S✓]),
+//   - Acid dew point: Verhoff and Banchero (1974) and Okkes (1987) (docs/reference/plant-checks.md §4 [S✓]),
 //     with the SO3 share of SO2 as an input (default 3 %, [M]/common
 //     practice) (VerhoffBanchero, Okkes, AcidDewPoint).
 //   - Air humidity from relative humidity with the IAPWS-IF97 saturation

@@ -13,7 +13,7 @@ import (
 var ErrCannotFire = errors.New("the burner cannot fire")
 
 // NormalMolarVolume is the ideal-gas molar volume at 0 °C and 101.325 kPa,
-// R·273.15/101325 = 0.0224140 m³/mol (plant-checks.md §0 uses 22.414
+// R·273.15/101325 = 0.0224140 m³/mol (docs/reference/plant-checks.md §0 uses 22.414
 // Nm³/kmol [CP]).
 const NormalMolarVolume = 8.314462618 * 273.15 / 101325
 
@@ -35,7 +35,7 @@ const (
 type Stoich struct {
 	// O2Min is the oxygen for complete combustion (mol/kg):
 	// c/M_C + h/(4·M_H) + s/M_S − o/(2·M_O), with the atomic weights of
-	// package fuel (plant-checks.md §2 writes c/12.011 + h/4.032 + s/32.06 −
+	// package fuel (docs/reference/plant-checks.md §2 writes c/12.011 + h/4.032 + s/32.06 −
 	// o/31.998 in kmol/kg).
 	O2Min float64
 	// AirMol and Air are the stoichiometric dry air (mol/kg, kg/kg).
@@ -82,7 +82,7 @@ func checkDryAir(air [NumSpecies]float64) ([NumSpecies]float64, error) {
 // Stoichiometry returns the stoichiometric figures of fuel f burnt with the
 // dry air dryAir (mole fractions; zero value: StandardDryAir). Complete
 // combustion: C → CO2, H → H2O, S → SO2, fuel N → N2 (textbook
-// stoichiometry, plant-checks.md §2 [CP]).
+// stoichiometry, docs/reference/plant-checks.md §2 [CP]).
 func Stoichiometry(f fuel.Fuel, dryAir [NumSpecies]float64) (Stoich, error) {
 	if err := f.Validate(); err != nil {
 		return Stoich{}, fmt.Errorf("combustion: %w", err)
@@ -125,7 +125,7 @@ func Stoichiometry(f fuel.Fuel, dryAir [NumSpecies]float64) (Stoich, error) {
 //
 //	λ = 1 + O2/(O2_air − O2) · V_fd0/V_a0
 //
-// (plant-checks.md §2 [CP], with O2_air the air's O2 fraction in place of
+// (docs/reference/plant-checks.md §2 [CP], with O2_air the air's O2 fraction in place of
 // 0.2095). ratio is V_fd0/V_a0 (Stoich.Ratio).
 func LambdaFromO2(o2Dry, ratio, airO2 float64) (float64, error) {
 	if !(airO2 > 0 && airO2 <= 1) {
@@ -142,7 +142,7 @@ func LambdaFromO2(o2Dry, ratio, airO2 float64) (float64, error) {
 
 // LambdaFromO2Approx returns the usual approximation λ ≈ 21/(21 − O2), with
 // O2 the dry mole fraction (0.03 for 3 %). It takes V_fd0 = V_a0 and so
-// overstates λ − 1 by about 6 % for fuel oils (plant-checks.md §2 [CP]).
+// overstates λ − 1 by about 6 % for fuel oils (docs/reference/plant-checks.md §2 [CP]).
 func LambdaFromO2Approx(o2Dry float64) (float64, error) {
 	if !(o2Dry >= 0 && o2Dry < 0.21) {
 		return 0, fmt.Errorf("combustion: measured dry O2 %g is not in 0…0.21: no combustion, %w", o2Dry, ErrCannotFire)
@@ -151,7 +151,7 @@ func LambdaFromO2Approx(o2Dry float64) (float64, error) {
 }
 
 // LambdaFromCO2 returns λ from the CO2 mole fraction measured in the dry
-// flue gas: λ = 1 + (CO2max/CO2 − 1)·V_fd0/V_a0 (plant-checks.md §2 [CP]).
+// flue gas: λ = 1 + (CO2max/CO2 − 1)·V_fd0/V_a0 (docs/reference/plant-checks.md §2 [CP]).
 func LambdaFromCO2(co2Dry, co2Max, ratio float64) (float64, error) {
 	if !(co2Max > 0 && co2Max < 1) {
 		return 0, fmt.Errorf("combustion: CO2max %g; want 0…1", co2Max)

@@ -8,7 +8,7 @@ import (
 )
 
 // Siegert CO-loss constants a in q_CO = a·CO/(CO + CO2) (%), CO and CO2 in
-// dry vol %: 48 for fuel oil, 32 for gas (plant-checks.md §3.1 [S✓ analyser
+// dry vol %: 48 for fuel oil, 32 for gas (docs/reference/plant-checks.md §3.1 [S✓ analyser
 // manual]).
 const (
 	SiegertCOOil = 48.0
@@ -20,7 +20,7 @@ const (
 // flags it with WarnNoRadiation).
 type Radiation struct {
 	// PercentAtMCR is the loss in percent of the fuel heat input (LHV basis)
-	// at MCR, e.g. 0.5–1.5 % for marine auxiliary boilers (plant-checks.md
+	// at MCR, e.g. 0.5–1.5 % for marine auxiliary boilers (docs/reference/plant-checks.md
 	// §3.4 [CP]). The loss in kW being roughly constant, the percentage is
 	// scaled by 1/LoadFraction.
 	PercentAtMCR float64
@@ -43,7 +43,7 @@ type LossOptions struct {
 	SiegertA float64
 	// UnburntSolids is the unburnt-solids (soot, coke) loss in percent of the
 	// LHV input; usually below 0.2 % for a well-tuned oil burner
-	// (plant-checks.md §3.1 [M]).
+	// (docs/reference/plant-checks.md §3.1 [M]).
 	UnburntSolids float64
 	// Radiation is the radiation and convection loss.
 	Radiation Radiation
@@ -134,7 +134,7 @@ type Losses struct {
 
 // Efficiency computes the boiler efficiency by the heat-loss method, itemised
 // in the manner of ASME PTC 4 and EN 12952-15 (structure from memory,
-// plant-checks.md §3.1 [S]): η = 100 − ΣL + ΣB, in percent of the fuel
+// docs/reference/plant-checks.md §3.1 [S]): η = 100 − ΣL + ΣB, in percent of the fuel
 // input, on the LHV and on the HHV basis.
 //
 //   - Dry flue gas: Σ n_i·[h_i(t_fg) − h_i(t_ref)] over N2, O2, CO2, SO2, Ar,
@@ -324,7 +324,7 @@ type SiegertCoefficients struct {
 }
 
 // Siegert coefficient sets, German 1. BImSchV annex on flue-gas loss
-// (plant-checks.md §3.2 [S]: structure seen, coefficients from memory).
+// (docs/reference/plant-checks.md §3.2 [S]: structure seen, coefficients from memory).
 var (
 	SiegertFuelOil    = SiegertCoefficients{A1: 0.50, A2: 0.68, B: 0.007}
 	SiegertNaturalGas = SiegertCoefficients{A1: 0.37, A2: 0.66, B: 0.009}

@@ -10,21 +10,21 @@ import (
 
 func TestSiegert(t *testing.T) {
 	t.Parallel()
-	// plant-checks.md §3.2 and §11 item 5 [S]: 250 °C flue, 35 °C air, 3 %
+	// docs/reference/plant-checks.md §3.2 and §11 item 5 [S]: 250 °C flue, 35 °C air, 3 %
 	// O2, fuel oil → 9.627 % ± 0.001.
 	q, err := Siegert(523.15, 308.15, 0.03, SiegertFuelOil)
 	if err != nil {
 		t.Fatal(err)
 	}
-	near(t, "Siegert O2 form % (plant-checks.md §3.2, §11 item 5)", q, 9.627, 0.0005)
+	near(t, "Siegert O2 form % (docs/reference/plant-checks.md §3.2, §11 item 5)", q, 9.627, 0.0005)
 	// CO2 form with the test fuel's CO2 at 3 % O2 (13.68 %) → 9.36 %
-	// (plant-checks.md §3.2 [C]).
+	// (docs/reference/plant-checks.md §3.2 [C]).
 	q, err = SiegertCO2(523.15, 308.15, 0.1368, SiegertFuelOil)
 	if err != nil {
 		t.Fatal(err)
 	}
-	near(t, "Siegert CO2 form % (plant-checks.md §3.2 [C])", q, 9.36, 0.005)
-	// Internal check A2 = A1·21/CO2max: 0.50·21/15.4 = 0.68 (plant-checks.md
+	near(t, "Siegert CO2 form % (docs/reference/plant-checks.md §3.2 [C])", q, 9.36, 0.005)
+	// Internal check A2 = A1·21/CO2max: 0.50·21/15.4 = 0.68 (docs/reference/plant-checks.md
 	// §3.2 [C]); A2 is printed to 2 decimals: half a unit.
 	near(t, "A2 vs A1·21/15.4", SiegertFuelOil.A1*21/15.4, SiegertFuelOil.A2, 0.005)
 	if _, err := Siegert(500, 600, 0.03, SiegertFuelOil); err == nil {
@@ -33,7 +33,7 @@ func TestSiegert(t *testing.T) {
 }
 
 // The detailed loss against Siegert and the worked example of
-// plant-checks.md §3.3 [C]: test fuel, 250 °C flue, 35 °C air, 3 % O2, LHV
+// docs/reference/plant-checks.md §3.3 [C]: test fuel, 250 °C flue, 35 °C air, 3 % O2, LHV
 // 40 487 kJ/kg (ISO 8217, ρ 985, S 2.5), reference = air temperature.
 func TestEfficiencyWorkedExample(t *testing.T) {
 	t.Parallel()
@@ -50,24 +50,24 @@ func TestEfficiencyWorkedExample(t *testing.T) {
 	if l.LHV.Basis != fuel.Net || l.HHV.Basis != fuel.Gross {
 		t.Fatalf("bases %v / %v", l.LHV.Basis, l.HHV.Basis)
 	}
-	near(t, "LHV kJ/kg (plant-checks.md §3.3 [C])", l.LHV.HeatInput/1e3, 40487, 0.5)
-	near(t, "HHV kJ/kg (plant-checks.md §3.3 [C])", l.HHV.HeatInput/1e3, 42794, 0.5)
-	// §3.3 used mean molar cp values from memory [M] (3 figures); the NASA
+	near(t, "LHV kJ/kg (docs/reference/plant-checks.md §3.3 [C])", l.LHV.HeatInput/1e3, 40487, 0.5)
+	near(t, "HHV kJ/kg (docs/reference/plant-checks.md §3.3 [C])", l.HHV.HeatInput/1e3, 42794, 0.5)
+	// docs/reference/plant-checks.md §3.3 used mean molar cp values from memory [M] (3 figures); the NASA
 	// polynomials differ slightly: held to ±0.05 percentage points.
-	near(t, "dry-gas loss % LHV (plant-checks.md §3.3 [C])", l.LHV.DryGas, 8.60, 0.05)
-	near(t, "H2O sensible loss % LHV (plant-checks.md §3.3 [C])", l.LHV.Moisture(), 1.00, 0.05)
+	near(t, "dry-gas loss % LHV (docs/reference/plant-checks.md §3.3 [C])", l.LHV.DryGas, 8.60, 0.05)
+	near(t, "H2O sensible loss % LHV (docs/reference/plant-checks.md §3.3 [C])", l.LHV.Moisture(), 1.00, 0.05)
 	flue := l.LHV.DryGas + l.LHV.Moisture()
-	near(t, "dry gas + moisture % LHV (plant-checks.md §3.3 [C])", flue, 9.60, 0.05)
-	// Against Siegert's 9.627 % (plant-checks.md §3.2 [S]): Siegert's
+	near(t, "dry gas + moisture % LHV (docs/reference/plant-checks.md §3.3 [C])", flue, 9.60, 0.05)
+	// Against Siegert's 9.627 % (docs/reference/plant-checks.md §3.2 [S]): Siegert's
 	// coefficients are generic for heating oil, held to ±0.1 points.
 	q, _ := Siegert(523.15, 308.15, 0.03, SiegertFuelOil)
-	near(t, "detailed − Siegert, points (plant-checks.md §3.2/§3.3)", flue-q, 0, 0.1)
+	near(t, "detailed − Siegert, points (docs/reference/plant-checks.md §3.2/§3.3)", flue-q, 0, 0.1)
 	// HHV basis: the latent heat of the product water adds ≈ 5.6 points
-	// (plant-checks.md §3.3 [C]).
+	// (docs/reference/plant-checks.md §3.3 [C]).
 	latent := l.HHV.MoistureH - l.LHV.MoistureH*l.LHV.HeatInput/l.HHV.HeatInput
-	near(t, "latent loss % HHV (plant-checks.md §3.3 [C])", latent, 5.6, 0.05)
-	// With radiation 0.7 % and unburnt 0.1 %: η ≈ 89.6 % LHV (§3.3 [C]).
-	near(t, "η LHV % (plant-checks.md §3.3 [C])", l.LHV.Efficiency, 89.6, 0.05)
+	near(t, "latent loss % HHV (docs/reference/plant-checks.md §3.3 [C])", latent, 5.6, 0.05)
+	// With radiation 0.7 % and unburnt 0.1 %: η ≈ 89.6 % LHV (docs/reference/plant-checks.md §3.3 [C]).
+	near(t, "η LHV % (docs/reference/plant-checks.md §3.3 [C])", l.LHV.Efficiency, 89.6, 0.05)
 	if l.Warnings != 0 {
 		t.Errorf("warnings %v", l.Warnings)
 	}
@@ -113,9 +113,9 @@ func TestEfficiencyBasesConsistent(t *testing.T) {
 }
 
 // CO loss: the Siegert-type form a·CO/(CO+CO2) with a = 48 for oil
-// (plant-checks.md §3.1 [S✓ analyser manual]); theory (CO's heating value
+// (docs/reference/plant-checks.md §3.1 [S✓ analyser manual]); theory (CO's heating value
 // 282.99 kJ/mol, from the NASA formation enthalpies) gives a ≈ 50 for the
-// test fuel (§3.1 [C]). Both within 5 % of each other at 200 ppm.
+// test fuel (docs/reference/plant-checks.md §3.1 [C]). Both within 5 % of each other at 200 ppm.
 func TestCOLoss(t *testing.T) {
 	t.Parallel()
 	p, _ := Fire(testFuel(), Conditions{O2Dry: 0.03})
@@ -128,7 +128,7 @@ func TestCOLoss(t *testing.T) {
 	hCO := CO2.FormationEnthalpy() - CO.FormationEnthalpy() // J/mol released by CO + ½O2
 	theory := 100 * 200e-6 * p.DryMoles() * (-hCO) / p.Energy.Net
 	aTheory := theory * (0.02 + co2) / 0.02
-	near(t, "theoretical a (plant-checks.md §3.1 [C] ≈ 50)", aTheory, 50, 1)
+	near(t, "theoretical a (docs/reference/plant-checks.md §3.1 [C] ≈ 50)", aTheory, 50, 1)
 	near(t, "Siegert-type / theory − 1", l.LHV.CO/theory-1, 0, 0.05)
 }
 
@@ -136,12 +136,12 @@ func TestRadiationScaling(t *testing.T) {
 	t.Parallel()
 	p, _ := Fire(testFuel(), Conditions{Lambda: 1.2})
 	// Loss in kW nearly constant: % ∝ 1/load; "1 % at full load → 4 % at
-	// quarter load" (plant-checks.md §3.4 [M], supplier literature).
+	// quarter load" (docs/reference/plant-checks.md §3.4 [M], supplier literature).
 	l, err := Efficiency(p, 523.15, TRef, LossOptions{Radiation: Radiation{PercentAtMCR: 1, LoadFraction: 0.25}})
 	if err != nil {
 		t.Fatal(err)
 	}
-	near(t, "radiation % at quarter load (plant-checks.md §3.4 [M])", l.LHV.Radiation, 4, 1e-12)
+	near(t, "radiation % at quarter load (docs/reference/plant-checks.md §3.4 [M])", l.LHV.Radiation, 4, 1e-12)
 	l, _ = Efficiency(p, 523.15, TRef, LossOptions{Radiation: Radiation{PercentAtMCR: 1, LoadFraction: 0.1}})
 	if l.Warnings&WarnLowLoadRadiation == 0 {
 		t.Errorf("no warning below quarter load")

@@ -33,7 +33,7 @@ func (s Species) String() string {
 }
 
 // RFit is the molar gas constant used for the NASA fits, 8.314510 J/(mol·K)
-// (NASA TM-4513, as stated in the project's reference README §3).
+// (NASA TM-4513, as stated in the project's docs/reference/README.md §3).
 const RFit = 8.314510
 
 // TRef is the thermochemical reference temperature, 298.15 K.

@@ -91,7 +91,7 @@ func TestThermoTableMatchesCSV(t *testing.T) {
 }
 
 // NIST-JANAF 4th ed. values (all from memory, see testdata/README.md),
-// with the reference README's suggested tolerances: Cp° within 0.5 %,
+// with the docs/reference/README.md's suggested tolerances: Cp° within 0.5 %,
 // H°−H°298 within 0.1 kJ/mol. The H2O 1500 K row is the exception the file
 // notes: every NASA-derived fit is 0.55 % above the remembered JANAF Cp°
 // there; it is held to 0.6 %. Every row is also checked against the file's
@@ -137,7 +137,7 @@ func TestThermoContinuity(t *testing.T) {
 }
 
 // H°(298.15 K) of the fits is the enthalpy of formation: H2O(g) −241.826 and
-// CO2 −393.510 kJ/mol (reference README §3, TM-4513), zero for N2, O2, Ar.
+// CO2 −393.510 kJ/mol (docs/reference/README.md §3, TM-4513), zero for N2, O2, Ar.
 func TestFormationEnthalpy(t *testing.T) {
 	t.Parallel()
 	near(t, "ΔfH H2O kJ/mol (TM-4513)", H2O.FormationEnthalpy()/1000, -241.826, 0.002)
@@ -148,10 +148,10 @@ func TestFormationEnthalpy(t *testing.T) {
 }
 
 // Methane LHV from standard enthalpies of formation: 50.01 MJ/kg, HHV 55.50
-// MJ/kg (plant-checks.md §1.3 [C]; tolerance half a unit of the printed
+// MJ/kg (docs/reference/plant-checks.md §1.3 [C]; tolerance half a unit of the printed
 // digit). CO2 and H2O(g) from the embedded TM-4513 polynomials; CH4 ΔfH° =
 // −74.873 kJ/mol and H2O(l) ΔfH° = −285.830 kJ/mol (NIST-JANAF / CODATA,
-// from memory). With h_fg(25 °C) 2441.7 kJ/kg (plant-checks.md §0 [C]) in
+// from memory). With h_fg(25 °C) 2441.7 kJ/kg (docs/reference/plant-checks.md §0 [C]) in
 // place of the liquid's ΔfH the HHV is 55.494, within 0.01.
 func TestMethaneLHVFromFormation(t *testing.T) {
 	t.Parallel()
@@ -160,9 +160,9 @@ func TestMethaneLHVFromFormation(t *testing.T) {
 	// C + 4 H from the table's molar masses.
 	mCH4 := thermoTable[CO2].molar - thermoTable[O2].molar + 2*(thermoTable[H2O].molar-thermoTable[O2].molar/2)
 	lhv := (dfCH4 - CO2.FormationEnthalpy() - 2*H2O.FormationEnthalpy()) / mCH4
-	near(t, "CH4 LHV MJ/kg (plant-checks.md §1.3 [C])", lhv/1e6, 50.01, 0.005)
+	near(t, "CH4 LHV MJ/kg (docs/reference/plant-checks.md §1.3 [C])", lhv/1e6, 50.01, 0.005)
 	hhv := (dfCH4 - CO2.FormationEnthalpy() - 2*dfH2Ol) / mCH4
-	near(t, "CH4 HHV MJ/kg (plant-checks.md §1.3 [C])", hhv/1e6, 55.50, 0.005)
+	near(t, "CH4 HHV MJ/kg (docs/reference/plant-checks.md §1.3 [C])", hhv/1e6, 55.50, 0.005)
 	hhvLatent := lhv + 2*H2O.MolarMass()*2441.7e3/mCH4
 	near(t, "CH4 HHV via h_fg(25 °C) MJ/kg", hhvLatent/1e6, hhv/1e6, 0.01)
 }
@@ -203,7 +203,7 @@ func TestMixtureCpIsDerivative(t *testing.T) {
 		near(t, fmt.Sprintf("cp vs dh/dT at %g K (rel.)", T), (h2-h1)/0.02/cp-1, 0, 1e-4)
 	}
 	// Standard dry air: molar mass 28.960 g/mol, O2 mass fraction 23.144 %
-	// (this package's choice; plant-checks.md §0 [CP] lists 28.964 and
+	// (this package's choice; docs/reference/plant-checks.md §0 [CP] lists 28.964 and
 	// 23.14 % with O2 20.95 %).
 	a, _ := NewMixture(StandardDryAir)
 	near(t, "dry air molar mass g/mol", a.MolarMass()*1000, 28.960, 0.0005)
@@ -214,7 +214,7 @@ func TestMixtureCpIsDerivative(t *testing.T) {
 }
 
 // IAPWS-IF97 saturation pressure against IAPWS R7-97(2012) Table 35,
-// tolerance 1e-8 relative (reference README §1).
+// tolerance 1e-8 relative (docs/reference/README.md §1).
 func TestPsatIF97(t *testing.T) {
 	t.Parallel()
 	for _, r := range readCSV(t, "if97-psat.csv") {

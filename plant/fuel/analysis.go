@@ -10,7 +10,7 @@ const gasConstant = 8.314462618
 // constant volume (a bomb calorimeter's, the one ISO 8217 gives) and the net
 // specific energy at constant pressure, per kg of hydrogen in a liquid fuel
 // (J/kg H), 21.206 MJ/kg. It is the latent heat at 25 °C of the 8.937 kg of
-// water one kg of hydrogen forms (LatentHeat25, plant-checks.md §0 [C])
+// water one kg of hydrogen forms (LatentHeat25, docs/reference/plant-checks.md §0 [C])
 // less the work done at constant pressure by the gas volume the combustion
 // removes: the fuel's hydrogen takes ½ mol of O2 from the air per mol of
 // liquid water formed, so the heat released at constant pressure exceeds
@@ -23,7 +23,7 @@ const gasConstant = 8.314462618
 const HydrogenGrossNet = WaterPerHydrogen*LatentHeat25 - 0.5*gasConstant*298.15/(2*AtomicH)
 
 // Nitrogen and oxygen accepted by AnalysisFromISO: up to 1 % and 2 % m/m,
-// twice the top of the typical residual-fuel ranges of plant-checks.md §1.2
+// twice the top of the typical residual-fuel ranges of docs/reference/plant-checks.md §1.2
 // (N 0.2–0.6, O 0.2–1.0 % [M]) (common practice, no source).
 const (
 	maxISONitrogen = 0.01
@@ -33,7 +33,7 @@ const (
 // AnalysisFromISO returns the ultimate analysis (as fired, kg/kg) that a
 // liquid fuel's ISO 8217 properties imply, with the nitrogen n and oxygen o
 // that those properties do not give (kg/kg; typical values are in
-// plant-checks.md §1.2 [M]):
+// docs/reference/plant-checks.md §1.2 [M]):
 //
 //   - sulfur, water and ash are the ISO 8217 figures;
 //   - hydrogen is what the annex formula of the fuel's class implies: its

@@ -13,7 +13,7 @@ import (
 // kg/m³: 0.005·991/999.10.
 const row2Water = 0.005 * 991 / WaterDensity15
 
-// A delivery with the figures of plant-checks.md §1.1 row 2 (§11 item 1):
+// A delivery with the figures of docs/reference/plant-checks.md §1.1 row 2 (docs/reference/plant-checks.md §11 item 1):
 // ρ 991, w 0.50 % m/m, a 0.05, s 2.5 → 40.165 / 42.453 MJ/kg [C].
 func TestFromBDNSheetRow2(t *testing.T) {
 	t.Parallel()
@@ -22,8 +22,8 @@ func TestFromBDNSheetRow2(t *testing.T) {
 	if err != nil {
 		t.Fatal(err)
 	}
-	near(t, "net MJ/kg (plant-checks.md §1.1 row 2, §11 item 1 [C])", d.Energy.Net/1e6, 40.165, 0.0005)
-	near(t, "gross MJ/kg (plant-checks.md §1.1 row 2 [C])", d.Energy.Gross/1e6, 42.453, 0.0005)
+	near(t, "net MJ/kg (docs/reference/plant-checks.md §1.1 row 2, §11 item 1 [C])", d.Energy.Net/1e6, 40.165, 0.0005)
+	near(t, "gross MJ/kg (docs/reference/plant-checks.md §1.1 row 2 [C])", d.Energy.Gross/1e6, 42.453, 0.0005)
 	near(t, "ISONet = Net without a stated LHV", d.ISONet, d.Energy.Net, 0)
 	near(t, "water % m/m", 100*d.Fuel.ISO.Water, 0.5, 1e-12)
 	if d.Energy.NetSource.Route != RouteISO8217 || d.Fuel.Name != "HSFO (BDN)" {
@@ -39,18 +39,18 @@ func TestFromBDNSheetRow2(t *testing.T) {
 	near(t, "Channiwala-Parikh gross MJ/kg (by hand)", d.AnalysisGross/1e6, 42.7950, 0.0005)
 	near(t, "Channiwala-Parikh / ISO gross − 1 (within 2 %)", d.AnalysisGross/d.ISOGross-1, 0, 0.02)
 	// CO2: 0.857176 × 3.664191 = 3.1409 by the analysis, 3.114 by the IMO
-	// HFO factor (plant-checks.md §1.3 [S]).
+	// HFO factor (docs/reference/plant-checks.md §1.3 [S]).
 	near(t, "analysis CO2 (by hand)", d.CO2.Analysis, 3.1409, 0.00005)
-	near(t, "IMO CO2 (plant-checks.md §1.3 [S])", d.CO2.IMO, 3.114, 0)
+	near(t, "IMO CO2 (docs/reference/plant-checks.md §1.3 [S])", d.CO2.IMO, 3.114, 0)
 	// The stated viscosity equals the base's, so the line with the base's
-	// slope is the base's line: 35 cSt at 100 °C (plant-checks.md §5.1
-	// check B assumption) and 13 cSt at 134.4 °C (§5.1 check B [C]).
-	near(t, "ν(100 °C) cSt (plant-checks.md §5.1 check B)", d.Fuel.Viscosity2.Nu/cSt, 35, 1e-9)
+	// slope is the base's line: 35 cSt at 100 °C (docs/reference/plant-checks.md §5.1
+	// check B assumption) and 13 cSt at 134.4 °C (docs/reference/plant-checks.md §5.1 check B [C]).
+	near(t, "ν(100 °C) cSt (docs/reference/plant-checks.md §5.1 check B)", d.Fuel.Viscosity2.Nu/cSt, 35, 1e-9)
 	T, err := d.Fuel.TemperatureForViscosity(13 * cSt)
 	if err != nil {
 		t.Fatal(err)
 	}
-	near(t, "T for 13 cSt °C (plant-checks.md §5.1 check B [C])", T-273.15, 134.4, 0.05)
+	near(t, "T for 13 cSt °C (docs/reference/plant-checks.md §5.1 check B [C])", T-273.15, 134.4, 0.05)
 	if len(d.Warnings) != 1 || !strings.Contains(d.Warnings[0], "slope") {
 		t.Errorf("warnings %q, want the one on the viscosity line", d.Warnings)
 	}
@@ -74,7 +74,7 @@ func TestFromBDNIMOType(t *testing.T) {
 	cases := []struct {
 		base   Fuel
 		grade  string
-		lcv    float64 // MJ/kg, IMO MEPC.364(79), plant-checks.md §1.3 [S]
+		lcv    float64 // MJ/kg, IMO MEPC.364(79), docs/reference/plant-checks.md §1.3 [S]
 		cf     float64
 		typeIn string
 	}{
@@ -95,8 +95,8 @@ func TestFromBDNIMOType(t *testing.T) {
 		if err != nil {
 			t.Fatalf("%s %q: %v", c.base.Name, c.grade, err)
 		}
-		near(t, c.grade+" IMO LCV MJ/kg (plant-checks.md §1.3 [S])", d.Energy.IMOLCV/1e6, c.lcv, 0)
-		near(t, c.grade+" IMO C_F (plant-checks.md §1.3 [S])", d.CO2.IMO, c.cf, 0)
+		near(t, c.grade+" IMO LCV MJ/kg (docs/reference/plant-checks.md §1.3 [S])", d.Energy.IMOLCV/1e6, c.lcv, 0)
+		near(t, c.grade+" IMO C_F (docs/reference/plant-checks.md §1.3 [S])", d.CO2.IMO, c.cf, 0)
 		if !strings.Contains(d.Fuel.IMO.Name, c.typeIn) {
 			t.Errorf("%q: IMO type %q, want %s", c.grade, d.Fuel.IMO.Name, c.typeIn)
 		}
@@ -111,7 +111,7 @@ func TestFromBDNIMOType(t *testing.T) {
 func TestFromBDNStatedLHV(t *testing.T) {
 	t.Parallel()
 	base, _ := Grade("VLSFO")
-	// plant-checks.md §1.1 row 4: ρ 950, w 0.10 % m/m, a 0.03, s 0.5 →
+	// docs/reference/plant-checks.md §1.1 row 4: ρ 950, w 0.10 % m/m, a 0.03, s 0.5 →
 	// 41.550 MJ/kg [C]. The water by volume that gives 0.10 % m/m.
 	b := BDN{Density15: 950, Sulfur: 0.005, Water: 0.001 * 950 / WaterDensity15, Ash: 0.0003, Viscosity: 150e-6,
 		Viscosity2: ViscosityPoint{T: 373.15, Nu: 20e-6}}
@@ -129,7 +129,7 @@ func TestFromBDNStatedLHV(t *testing.T) {
 		if err != nil {
 			t.Fatal(err)
 		}
-		near(t, "ISO net MJ/kg (plant-checks.md §1.1 row 4 [C])", d.ISONet/1e6, 41.550, 0.0005)
+		near(t, "ISO net MJ/kg (docs/reference/plant-checks.md §1.1 row 4 [C])", d.ISONet/1e6, 41.550, 0.0005)
 		near(t, "net = stated", d.Energy.Net, c.lhv, 0)
 		if d.Energy.NetSource.Route != RouteSet || !strings.Contains(d.Energy.NetSource.Note, "bunker delivery note") {
 			t.Errorf("net source %v", d.Energy.NetSource)

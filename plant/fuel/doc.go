@@ -19,7 +19,7 @@
 // MEPC.364(79) defaults per fuel type) are for regulatory CO2 reporting
 // only and are never used in their place.
 //
-// What is implemented, with sources (tags as in the project's plant-checks
+// What is implemented, with sources (tags as in the project's docs/reference/plant-checks.md
 // reference sheet: [S✓] confirmed published source, [S] published source
 // from memory, [CP] common practice, [M] from memory, [C] computed):
 //
@@ -42,7 +42,7 @@
 //     of the ISO gross value for each of them.
 //   - CO2 per kg fuel (Fuel.CO2): from the analysis carbon, C·44.0095/12.0107
 //     (complete combustion), and the IMO C_F of the fuel's IMO fuel type
-//     (MEPC.364(79), plant-checks.md §1.3 [S]); both are returned, labelled.
+//     (MEPC.364(79), docs/reference/plant-checks.md §1.3 [S]); both are returned, labelled.
 //   - Bunker delivery notes (FromBDN): density, sulfur, water (% V/V),
 //     ash, viscosity and an optional stated LHV on top of a grade, checked
 //     against the envelope of the ISO 8217 grades of the class (errors) and

@@ -36,7 +36,7 @@ const (
 	// bunker delivery note, a script's).
 	RouteSet Route = iota + 1
 	// RouteISO8217: the ISO 8217 annex formula from density, water, ash and
-	// sulfur: the residual-fuel formula (plant-checks.md §1.1 [S✓]) for
+	// sulfur: the residual-fuel formula (docs/reference/plant-checks.md §1.1 [S✓]) for
 	// Class Residual, the distillate formula (from memory) for Class
 	// Distillate.
 	RouteISO8217
@@ -116,7 +116,7 @@ type Energy struct {
 
 // ISO8217Energy returns the net and gross specific energy (J/kg) of a
 // residual marine fuel by the ISO 8217 informative annex "Calculation of
-// specific energy" (plant-checks.md §1.1 [S✓]), from the density at 15 °C
+// specific energy" (docs/reference/plant-checks.md §1.1 [S✓]), from the density at 15 °C
 // (kg/m³) and the water, ash and sulfur mass fractions (kg/kg):
 //
 //	Q_gross = (52.190 − 8.802e-6·ρ²)·[1 − 0.01(w+a+s)] + 0.0942·s                      MJ/kg

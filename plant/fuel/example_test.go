@@ -33,7 +33,7 @@ func ExampleGrade() {
 	// CO2 3.156 kg/kg by the analysis, 3.114 by the IMO factor
 }
 
-// The annex formula for a residual fuel (plant-checks.md §1.1 row 2).
+// The annex formula for a residual fuel (docs/reference/plant-checks.md §1.1 row 2).
 func ExampleISO8217Energy() {
 	net, gross, err := fuel.ISO8217Energy(991, 0.005, 0.0005, 0.025)
 	if err != nil {

@@ -51,14 +51,14 @@ const (
 	MolarCO2 = AtomicC + 2*AtomicO
 	MolarH2O = 2*AtomicH + AtomicO
 	// WaterPerHydrogen is the kg of water formed per kg of hydrogen burnt,
-	// M(H2O)/M(H2) = 8.937 (plant-checks.md §2 writes 8.936).
+	// M(H2O)/M(H2) = 8.937 (docs/reference/plant-checks.md §2 writes 8.936).
 	WaterPerHydrogen = MolarH2O / (2 * AtomicH)
 	// CO2PerCarbon is the kg of CO2 formed per kg of carbon, M(CO2)/M(C).
 	CO2PerCarbon = MolarCO2 / AtomicC
 )
 
 // LatentHeat25 is the enthalpy of vaporisation of water at 25 °C (J/kg),
-// 2441.7 kJ/kg: IAPWS-IF97 value as listed in plant-checks.md §0 [C]. It is
+// 2441.7 kJ/kg: IAPWS-IF97 value as listed in docs/reference/plant-checks.md §0 [C]. It is
 // the figure used to convert between gross and net specific energy.
 const LatentHeat25 = 2441.7e3
 

@@ -14,23 +14,23 @@ func near(t *testing.T, what string, got, want, tol float64) {
 	}
 }
 
-// testFuel is the plant-checks.md §1.2 test fuel [M]: C 86.0, H 11.0, S 2.5,
+// testFuel is the docs/reference/plant-checks.md §1.2 test fuel [M]: C 86.0, H 11.0, S 2.5,
 // N 0.3, O 0.2, water 0, ash 0.
 var testFuel = Analysis{C: 0.860, H: 0.110, S: 0.025, N: 0.003, O: 0.002}
 
 func TestISO8217Energy(t *testing.T) {
 	t.Parallel()
-	// plant-checks.md §1.1 table, values [C] from the ISO 8217 annex formula
-	// [S✓]; tolerance ±0.001 MJ/kg from §11 item 1.
+	// docs/reference/plant-checks.md §1.1 table, values [C] from the ISO 8217 annex formula
+	// [S✓]; tolerance ±0.001 MJ/kg from docs/reference/plant-checks.md §11 item 1.
 	cases := []struct {
 		rho, w, a, s float64 // kg/m³, % m/m
 		net, gross   float64 // MJ/kg
 		source       string
 	}{
-		{987, 0.02, 0, 2.5, 40.451, 42.752, "plant-checks.md §1.1 row 1 [C]"},
-		{991, 0.50, 0.05, 2.5, 40.165, 42.453, "plant-checks.md §1.1 row 2, §11 item 1 [C]"},
-		{985, 0, 0, 2.5, 40.487, 42.794, "plant-checks.md §1.1 row 3 [C]"},
-		{950, 0.10, 0.03, 0.5, 41.550, 44.015, "plant-checks.md §1.1 row 4 [C]"},
+		{987, 0.02, 0, 2.5, 40.451, 42.752, "docs/reference/plant-checks.md §1.1 row 1 [C]"},
+		{991, 0.50, 0.05, 2.5, 40.165, 42.453, "docs/reference/plant-checks.md §1.1 row 2, §11 item 1 [C]"},
+		{985, 0, 0, 2.5, 40.487, 42.794, "docs/reference/plant-checks.md §1.1 row 3 [C]"},
+		{950, 0.10, 0.03, 0.5, 41.550, 44.015, "docs/reference/plant-checks.md §1.1 row 4 [C]"},
 	}
 	for _, c := range cases {
 		n, g, err := ISO8217Energy(c.rho, c.w/100, c.a/100, c.s/100)
@@ -40,13 +40,13 @@ func TestISO8217Energy(t *testing.T) {
 		near(t, c.source+" Q_net MJ/kg", n/1e6, c.net, 0.0005)
 		near(t, c.source+" Q_gross MJ/kg", g/1e6, c.gross, 0.0005)
 	}
-	// plant-checks.md §1.1 consistency check [C]: gross − net at ρ 985 is
+	// docs/reference/plant-checks.md §1.1 consistency check [C]: gross − net at ρ 985 is
 	// 2.307 MJ/kg.
 	n, g, _ := ISO8217Energy(985, 0, 0, 0.025)
-	near(t, "ISO gross−net at ρ 985 (plant-checks.md §1.1 [C])", (g-n)/1e6, 2.307, 0.0005)
+	near(t, "ISO gross−net at ρ 985 (docs/reference/plant-checks.md §1.1 [C])", (g-n)/1e6, 2.307, 0.0005)
 }
 
-// A fuel consistent with the ISO 8217 formula at ρ 985 kg/m³: plant-checks.md
+// A fuel consistent with the ISO 8217 formula at ρ 985 kg/m³: docs/reference/plant-checks.md
 // §1.1 says gross − net there equals 9·H·h_fg(25 °C) with H = 10.5 % [C]; the
 // analysis takes C 86.5, H 10.5, S 2.5, N 0.3, O 0.2 (carbon by difference).
 // The two routes must agree within 1.5 %, the Channiwala-Parikh paper's
@@ -70,9 +70,9 @@ func TestEnergyRoutesAgree(t *testing.T) {
 	near(t, "gross, analysis/ISO − 1", ea.Gross/ei.Gross-1, 0, 0.015)
 	near(t, "net, analysis/ISO − 1", ea.Net/ei.Net-1, 0, 0.015)
 	// The latent-heat link: gross − net = h_fg(25 °C)·8.937·H; the ISO
-	// formula's difference for ρ 985 is 2.307 MJ/kg (§1.1 [C]), which the
+	// formula's difference for ρ 985 is 2.307 MJ/kg (docs/reference/plant-checks.md §1.1 [C]), which the
 	// sheet reads as 9·H·h_fg; with 8.937 the two differ by 0.7 %.
-	near(t, "analysis gross−net MJ/kg vs ISO 2.307 (plant-checks.md §1.1 [C])", (ea.Gross-ea.Net)/1e6, 2.307, 0.02)
+	near(t, "analysis gross−net MJ/kg vs ISO 2.307 (docs/reference/plant-checks.md §1.1 [C])", (ea.Gross-ea.Net)/1e6, 2.307, 0.02)
 	// Both ISO data and analysis given, no set LHV: ISO takes precedence.
 	fb := Fuel{Name: "both", ISO: ISO8217{Density15: 985, Sulfur: 0.025}, Analysis: a}
 	eb, err := fb.Energy()
@@ -85,7 +85,7 @@ func TestEnergyRoutesAgree(t *testing.T) {
 }
 
 // Methane: LHV 50.01 MJ/kg and HHV 55.50 MJ/kg from standard enthalpies of
-// formation (plant-checks.md §1.3 [C]). The analysis route (Channiwala-
+// formation (docs/reference/plant-checks.md §1.3 [C]). The analysis route (Channiwala-
 // Parikh) must be within its 1.45 % average error (from memory), taken as
 // 1.5 %.
 func TestMethaneAnalysisRoute(t *testing.T) {
@@ -98,11 +98,11 @@ func TestMethaneAnalysisRoute(t *testing.T) {
 	if err != nil {
 		t.Fatal(err)
 	}
-	near(t, "methane HHV, Channiwala-Parikh / 55.50 − 1 (plant-checks.md §1.3 [C])", g/55.50e6-1, 0, 0.015)
-	near(t, "methane LHV, Channiwala-Parikh / 50.01 − 1 (plant-checks.md §1.3 [C])", n/50.01e6-1, 0, 0.015)
-	// LNG taken as CH4: C 74.87, H 25.13 % (plant-checks.md §1.2 [C]).
-	near(t, "CH4 carbon % (plant-checks.md §1.2 [C])", 100*f.Analysis.C, 74.87, 0.005)
-	near(t, "CH4 hydrogen % (plant-checks.md §1.2 [C])", 100*f.Analysis.H, 25.13, 0.005)
+	near(t, "methane HHV, Channiwala-Parikh / 55.50 − 1 (docs/reference/plant-checks.md §1.3 [C])", g/55.50e6-1, 0, 0.015)
+	near(t, "methane LHV, Channiwala-Parikh / 50.01 − 1 (docs/reference/plant-checks.md §1.3 [C])", n/50.01e6-1, 0, 0.015)
+	// LNG taken as CH4: C 74.87, H 25.13 % (docs/reference/plant-checks.md §1.2 [C]).
+	near(t, "CH4 carbon % (docs/reference/plant-checks.md §1.2 [C])", 100*f.Analysis.C, 74.87, 0.005)
+	near(t, "CH4 hydrogen % (docs/reference/plant-checks.md §1.2 [C])", 100*f.Analysis.H, 25.13, 0.005)
 }
 
 func TestSetLHVPrecedence(t *testing.T) {
@@ -123,26 +123,26 @@ func TestSetLHVPrecedence(t *testing.T) {
 		t.Errorf("net source %q, want the stated value", e.NetSource)
 	}
 	// Gross = set LHV + h_fg(25 °C)·8.937·H, with the grade's derived H:
-	// arithmetic of plant-checks.md §0 and §2 [C].
+	// arithmetic of docs/reference/plant-checks.md §0 and §2 [C].
 	near(t, "HSFO gross − net MJ/kg", (e.Gross-e.Net)/1e6, 2.4417*8.9367*f.Analysis.H, 0.0005)
 	if e.GrossSource.Route != RouteSetPlusLatent {
 		t.Errorf("gross source %v", e.GrossSource)
 	}
 	// Without the stated value the ISO 8217 formula applies: ρ 985, S 2.5 →
-	// 40.487 MJ/kg (plant-checks.md §1.1 row 3 [C]).
+	// 40.487 MJ/kg (docs/reference/plant-checks.md §1.1 row 3 [C]).
 	f.SetLHV = 0
 	e, err = f.Energy()
 	if err != nil {
 		t.Fatal(err)
 	}
-	near(t, "HSFO net without set LHV, MJ/kg (plant-checks.md §1.1 row 3 [C])", e.Net/1e6, 40.487, 0.0005)
+	near(t, "HSFO net without set LHV, MJ/kg (docs/reference/plant-checks.md §1.1 row 3 [C])", e.Net/1e6, 40.487, 0.0005)
 	// Set LHV with ISO data only: gross = set + ISO gross−net difference.
 	g := Fuel{Name: "iso-set", ISO: ISO8217{Density15: 985, Sulfur: 0.025}, SetLHV: 40.2e6}
 	e, err = g.Energy()
 	if err != nil {
 		t.Fatal(err)
 	}
-	near(t, "set + ISO difference, MJ/kg (plant-checks.md §1.1 [C] 2.307)", (e.Gross-e.Net)/1e6, 2.307, 0.0005)
+	near(t, "set + ISO difference, MJ/kg (docs/reference/plant-checks.md §1.1 [C] 2.307)", (e.Gross-e.Net)/1e6, 2.307, 0.0005)
 	if e.GrossSource.Route != RouteSetPlusISODifference {
 		t.Errorf("gross source %v", e.GrossSource)
 	}
@@ -161,7 +161,7 @@ func TestGrades(t *testing.T) {
 		if _, err := f.Energy(); err != nil {
 			t.Errorf("%s energy: %v", name, err)
 		}
-		// IMO C_F = C·44/12 to ±0.001 (plant-checks.md §1.3 [C], identity
+		// IMO C_F = C·44/12 to ±0.001 (docs/reference/plant-checks.md §1.3 [C], identity
 		// of the MEPC.364(79) table [S]). The table uses the round ratio
 		// 44/12; with 44.0095/12.0107 the products would be 0.002 lower.
 		near(t, name+" C_F vs IMO carbon·44/12", f.IMO.CF, f.IMO.Carbon*44/12, 0.001)
@@ -185,16 +185,16 @@ func TestIMOLCVIsSeparate(t *testing.T) {
 		netRoute    Route
 		source      string
 	}{
-		// VLSFO: ρ 950, w 0.10, a 0.03, s 0.5 → 41.550 (plant-checks.md
-		// §1.1 row 4 [C]); IMO HFO LCV 40 200 kJ/kg (§1.3 [S]).
-		{"VLSFO", 41.550, 40.2, RouteISO8217, "plant-checks.md §1.1 row 4 [C], §1.3 [S]"},
-		// HSFO: ρ 985, s 2.5 → 40.487 (§1.1 row 3 [C]); IMO HFO.
-		{"HSFO", 40.487, 40.2, RouteISO8217, "plant-checks.md §1.1 row 3 [C], §1.3 [S]"},
+		// VLSFO: ρ 950, w 0.10, a 0.03, s 0.5 → 41.550 (docs/reference/plant-checks.md
+		// §1.1 row 4 [C]); IMO HFO LCV 40 200 kJ/kg (docs/reference/plant-checks.md §1.3 [S]).
+		{"VLSFO", 41.550, 40.2, RouteISO8217, "docs/reference/plant-checks.md §1.1 row 4 [C], §1.3 [S]"},
+		// HSFO: ρ 985, s 2.5 → 40.487 (docs/reference/plant-checks.md §1.1 row 3 [C]); IMO HFO.
+		{"HSFO", 40.487, 40.2, RouteISO8217, "docs/reference/plant-checks.md §1.1 row 3 [C], §1.3 [S]"},
 		// MGO: the distillate formula, 42.613 by hand (TestISO8217Grades);
-		// IMO Diesel/Gas oil 42 700 kJ/kg (§1.3 [S]).
-		{"MGO", 42.613, 42.7, RouteISO8217Distillate, "by hand from the distillate formula (from memory), §1.3 [S]"},
-		// LNG as methane: 50.01 (§1.3 [C]); IMO LNG 48 000 kJ/kg (§1.3 [S]).
-		{"LNG", 50.01, 48.0, RouteSet, "plant-checks.md §1.3 [C] and [S]"},
+		// IMO Diesel/Gas oil 42 700 kJ/kg (docs/reference/plant-checks.md §1.3 [S]).
+		{"MGO", 42.613, 42.7, RouteISO8217Distillate, "by hand from the distillate formula (from memory), docs/reference/plant-checks.md §1.3 [S]"},
+		// LNG as methane: 50.01 (docs/reference/plant-checks.md §1.3 [C]); IMO LNG 48 000 kJ/kg (docs/reference/plant-checks.md §1.3 [S]).
+		{"LNG", 50.01, 48.0, RouteSet, "docs/reference/plant-checks.md §1.3 [C] and [S]"},
 	}
 	for _, c := range cases {
 		f, _ := Grade(c.grade)
@@ -213,11 +213,11 @@ func TestIMOLCVIsSeparate(t *testing.T) {
 	}
 	// LNG's gross value: its set LHV plus the latent heat of methane's
 	// product water, against HHV 55.50 MJ/kg from the enthalpies of
-	// formation (plant-checks.md §1.3 [C]); the latent heat at 25 °C of
-	// §0 and IUPAC weights put it 0.006 lower.
+	// formation (docs/reference/plant-checks.md §1.3 [C]); the latent heat at 25 °C of
+	// docs/reference/plant-checks.md §0 and IUPAC weights put it 0.006 lower.
 	l, _ := Grade("LNG")
 	el, _ := l.Energy()
-	near(t, "LNG gross MJ/kg (plant-checks.md §1.3 [C])", el.Gross/1e6, 55.50, 0.01)
+	near(t, "LNG gross MJ/kg (docs/reference/plant-checks.md §1.3 [C])", el.Gross/1e6, 55.50, 0.01)
 	// A fuel without an IMO fuel type has no IMO LCV.
 	e, err := Fuel{Name: "own", Analysis: testFuel}.Energy()
 	if err != nil || e.IMOLCV != 0 || e.IMOSource != "" {
@@ -232,20 +232,20 @@ func TestCO2(t *testing.T) {
 	if err != nil {
 		t.Fatal(err)
 	}
-	// MEPC.364(79) HFO C_F 3.114 (plant-checks.md §1.3 [S]).
-	near(t, "HSFO IMO CO2 kg/kg (plant-checks.md §1.3 [S])", c.IMO, 3.114, 0)
+	// MEPC.364(79) HFO C_F 3.114 (docs/reference/plant-checks.md §1.3 [S]).
+	near(t, "HSFO IMO CO2 kg/kg (docs/reference/plant-checks.md §1.3 [S])", c.IMO, 3.114, 0)
 	if !strings.Contains(c.IMOSource, "MEPC.364(79)") || !strings.Contains(c.AnalysisSource, "analysis") {
 		t.Errorf("sources %q, %q", c.IMOSource, c.AnalysisSource)
 	}
 	near(t, "HSFO IMOOrAnalysis", c.IMOOrAnalysis(), 3.114, 0)
-	// From the analysis: methane 2.743 kg CO2/kg (plant-checks.md §1.3 [C]).
+	// From the analysis: methane 2.743 kg CO2/kg (docs/reference/plant-checks.md §1.3 [C]).
 	m, _ := Grade("LNG")
 	m.IMO = IMOFuelType{}
 	c, err = m.CO2()
 	if err != nil {
 		t.Fatal(err)
 	}
-	near(t, "CH4 CO2 from analysis (plant-checks.md §1.3 [C])", c.Analysis, 2.743, 0.0005)
+	near(t, "CH4 CO2 from analysis (docs/reference/plant-checks.md §1.3 [C])", c.Analysis, 2.743, 0.0005)
 	near(t, "CH4 IMOOrAnalysis without IMO type", c.IMOOrAnalysis(), c.Analysis, 0)
 	if c.IMO != 0 || c.IMOSource != "" {
 		t.Errorf("no IMO type, yet IMO %g %q", c.IMO, c.IMOSource)

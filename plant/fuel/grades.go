@@ -8,7 +8,7 @@ import (
 
 // The IMO fuel types the built-in grades report under: IMO resolution
 // MEPC.364(79), 2022 EEDI calculation guidelines, para 2.1 table, as listed
-// in plant-checks.md §1.3 [S] (values from memory of the table; only HFO
+// in docs/reference/plant-checks.md §1.3 [S] (values from memory of the table; only HFO
 // 3.114 was seen in a secondary page). The rows for LPG, methanol and
 // ethanol are not carried: no built-in grade reports under them. The array
 // is never written.
@@ -53,13 +53,13 @@ type gradeDef struct {
 //     grades carry no set LHV.
 //   - Ultimate analysis of the liquid grades: derived from the ISO 8217
 //     properties (AnalysisFromISO), with nitrogen and oxygen the typical
-//     values of plant-checks.md §2.1 [M].
-//   - IMO fuel type (LCV, C_F, carbon): plant-checks.md §1.3 [S], kept for
+//     values of docs/reference/plant-checks.md §2.1 [M].
+//   - IMO fuel type (LCV, C_F, carbon): docs/reference/plant-checks.md §1.3 [S], kept for
 //     regulatory CO2 reporting only.
 //   - Densities, viscosities, water and ash: typical values [M]; HSFO's ρ
-//     985 kg/m³ with 2.5 % S is plant-checks.md §1.1 row 3, VLSFO's ρ 950
-//     with water 0.10, ash 0.03 and sulfur 0.5 % is §1.1 row 4, and HSFO's
-//     380 cSt at 50 °C / 35 cSt at 100 °C is the assumption of §5.1 check
+//     985 kg/m³ with 2.5 % S is docs/reference/plant-checks.md §1.1 row 3, VLSFO's ρ 950
+//     with water 0.10, ash 0.03 and sulfur 0.5 % is docs/reference/plant-checks.md §1.1 row 4, and HSFO's
+//     380 cSt at 50 °C / 35 cSt at 100 °C is the assumption of docs/reference/plant-checks.md §5.1 check
 //     B [C].
 //
 // The array is never mutated; Grade returns copies.
@@ -72,46 +72,46 @@ var grades = [...]gradeDef{
 				Density15:  860,    // typical DMA [M]
 				Viscosity:  3.0e-6, // 3.0 cSt at 40 °C, typical DMA (ISO 8217 DMA 2.0–6.0, from memory) [M]
 				ViscosityT: 313.15,
-				Sulfur:     0.001, // ≤ 0.1 % m/m [M] (plant-checks.md §1.2)
+				Sulfur:     0.001, // ≤ 0.1 % m/m [M] (docs/reference/plant-checks.md §1.2)
 			},
 			Viscosity2: ViscosityPoint{T: 373.15, Nu: 1.2e-6}, // 1.2 cSt at 100 °C, typical [M]
 			IMO:        imoTypes[imoDiesel],
 		},
-		n: 0, o: 0.001, // plant-checks.md §2.1 MGO: no N, O 0.1 % [M]
+		n: 0, o: 0.001, // docs/reference/plant-checks.md §2.1 MGO: no N, O 0.1 % [M]
 	},
 	{
 		fuel: Fuel{
 			Name:  "VLSFO",
 			Class: Residual,
 			ISO: ISO8217{
-				Density15:  950,    // plant-checks.md §1.1 row 4; typical [M]
+				Density15:  950,    // docs/reference/plant-checks.md §1.1 row 4; typical [M]
 				Viscosity:  150e-6, // 150 cSt at 50 °C, typical RMG-grade VLSFO [M]
 				ViscosityT: 323.15, //
 				Sulfur:     0.005,  // ≤ 0.50 % m/m (the grade's definition)
-				Water:      0.001,  // 0.10 % m/m, plant-checks.md §1.1 row 4 [M]
-				Ash:        0.0003, // 0.03 % m/m, plant-checks.md §1.1 row 4 [M]
+				Water:      0.001,  // 0.10 % m/m, docs/reference/plant-checks.md §1.1 row 4 [M]
+				Ash:        0.0003, // 0.03 % m/m, docs/reference/plant-checks.md §1.1 row 4 [M]
 			},
 			Viscosity2: ViscosityPoint{T: 373.15, Nu: 20e-6}, // 20 cSt at 100 °C, typical [M]
 			// A VLSFO of an RME–RMK grade reports as HFO in the IMO table;
 			// one of grade RMA–RMD would report as LFO (see FromBDN).
 			IMO: imoTypes[imoHFO],
 		},
-		n: 0.003, o: 0.004, // plant-checks.md §2.1 VLSFO: N 0.3, O 0.4 % [M]
+		n: 0.003, o: 0.004, // docs/reference/plant-checks.md §2.1 VLSFO: N 0.3, O 0.4 % [M]
 	},
 	{
 		fuel: Fuel{
 			Name:  "HSFO",
 			Class: Residual,
 			ISO: ISO8217{
-				Density15:  985,    // plant-checks.md §1.1 row 3 and §3.3 [C]
-				Viscosity:  380e-6, // 380 cSt at 50 °C: RMG 380, plant-checks.md §5.1 check B
+				Density15:  985,    // docs/reference/plant-checks.md §1.1 row 3 and §3.3 [C]
+				Viscosity:  380e-6, // 380 cSt at 50 °C: RMG 380, docs/reference/plant-checks.md §5.1 check B
 				ViscosityT: 323.15, //
-				Sulfur:     0.025,  // 2.5 % m/m, plant-checks.md §1.2 test fuel [M]
+				Sulfur:     0.025,  // 2.5 % m/m, docs/reference/plant-checks.md §1.2 test fuel [M]
 			},
-			Viscosity2: ViscosityPoint{T: 373.15, Nu: 35e-6}, // 35 cSt at 100 °C, plant-checks.md §5.1 check B assumption
+			Viscosity2: ViscosityPoint{T: 373.15, Nu: 35e-6}, // 35 cSt at 100 °C, docs/reference/plant-checks.md §5.1 check B assumption
 			IMO:        imoTypes[imoHFO],
 		},
-		n: 0.003, o: 0.002, // plant-checks.md §1.2 test fuel: N 0.3, O 0.2 % [M]
+		n: 0.003, o: 0.002, // docs/reference/plant-checks.md §1.2 test fuel: N 0.3, O 0.2 % [M]
 	},
 	{
 		fuel: Fuel{
@@ -119,11 +119,11 @@ var grades = [...]gradeDef{
 			Class: Gas,
 			// Taken as pure methane: C = 12.0107/16.04246, H =
 			// 4·1.00794/16.04246, exact from molar masses [C]
-			// (plant-checks.md §1.2). Liquid LNG is about 430–470 kg/m³
+			// (docs/reference/plant-checks.md §1.2). Liquid LNG is about 430–470 kg/m³
 			// near −162 °C [M]; no liquid property is modelled.
 			Analysis: Analysis{C: AtomicC / (AtomicC + 4*AtomicH), H: 4 * AtomicH / (AtomicC + 4*AtomicH)},
 			// Methane's own net specific energy, 50.01 MJ/kg, from the
-			// standard enthalpies of formation at 25 °C (plant-checks.md
+			// standard enthalpies of formation at 25 °C (docs/reference/plant-checks.md
 			// §1.3 [C]): ISO 8217 does not apply to a gas, and the IMO LCV
 			// of 48 000 kJ/kg is a reporting default, not the energy of the
 			// methane the combustion model burns.

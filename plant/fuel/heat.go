@@ -32,7 +32,7 @@ func checkCragoe(sg, T float64) error {
 // CragoeCp returns the specific heat (J/(kg·K)) of a liquid petroleum product
 // of specific gravity sg (60/60 °F) at T (K), by C. S. Cragoe, Thermal
 // Properties of Petroleum Products, US Bureau of Standards Misc. Publ. 97
-// (1929) (plant-checks.md §5.3 [S✓ publication, formula from memory]):
+// (1929) (docs/reference/plant-checks.md §5.3 [S✓ publication, formula from memory]):
 //
 //	c = (1.685 + 0.00339·t)/√s   kJ/(kg·K),  t in °C
 func CragoeCp(sg, T float64) (float64, error) {

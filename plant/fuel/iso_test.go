@@ -6,7 +6,7 @@ import (
 )
 
 // The ISO 8217 annex formula on the built-in grades, by hand. VLSFO and
-// HSFO use the residual formula (plant-checks.md §1.1 [S✓]) and repeat the
+// HSFO use the residual formula (docs/reference/plant-checks.md §1.1 [S✓]) and repeat the
 // sheet's rows 4 and 3 [C]; MGO uses the distillate formula, which is from
 // memory and not on the sheet, so its figures are checked against the hand
 // arithmetic only.
@@ -22,11 +22,11 @@ func TestISO8217Grades(t *testing.T) {
 		// gross = (52.190 − 7.943805)·0.9937 + 0.0942·0.5 = 43.967444 +
 		// 0.0471 = 44.0145; net = (46.704 − 7.943805 + 3.00865)·0.9937 +
 		// 0.0471 − 0.02449·0.10 = 41.505701 + 0.0471 − 0.002449 = 41.5504.
-		{"VLSFO", 41.5504, 44.0145, "by hand; plant-checks.md §1.1 row 4 [C] 41.550 / 44.015"},
+		{"VLSFO", 41.5504, 44.0145, "by hand; docs/reference/plant-checks.md §1.1 row 4 [C] 41.550 / 44.015"},
 		// ρ 985, s 2.5: k = 0.975; 8.802e-6·985² = 8.539920;
 		// 3.167e-3·985 = 3.119495; gross = 43.650080·0.975 + 0.2355 =
 		// 42.7943; net = 41.283575·0.975 + 0.2355 = 40.4870.
-		{"HSFO", 40.4870, 42.7943, "by hand; plant-checks.md §1.1 row 3 [C] 40.487 / 42.794"},
+		{"HSFO", 40.4870, 42.7943, "by hand; docs/reference/plant-checks.md §1.1 row 3 [C] 40.487 / 42.794"},
 		// Distillate formula (from memory), ρ 860, s 0.1: k = 0.999;
 		// 8.792e-6·860² = 6.502563; 3.170e-3·860 = 2.7262;
 		// gross = (51.916 − 6.502563)·0.999 + 0.00942 = 45.368023 +
@@ -64,9 +64,9 @@ func TestHydrogenGrossNet(t *testing.T) {
 	// in % m/m (from memory): 21.22 MJ per kg H. The constant here is
 	// computed from the latent heat and ½RT; they agree within 0.1 %.
 	near(t, "HydrogenGrossNet / 21.22 MJ/kg − 1 (ASTM D240, from memory)", HydrogenGrossNet/21.22e6-1, 0, 0.001)
-	// Its parts: 8.937·2441.7 kJ/kg = 21.821 MJ/kg (plant-checks.md §0 [C]
+	// Its parts: 8.937·2441.7 kJ/kg = 21.821 MJ/kg (docs/reference/plant-checks.md §0 [C]
 	// h_fg, §2 8.936) and ½·8.314·298.15/2.016e-3 = 0.615 MJ/kg.
-	near(t, "latent part MJ/kg (plant-checks.md §0, §2 [C])", WaterPerHydrogen*LatentHeat25/1e6, 21.821, 0.001)
+	near(t, "latent part MJ/kg (docs/reference/plant-checks.md §0, §2 [C])", WaterPerHydrogen*LatentHeat25/1e6, 21.821, 0.001)
 	near(t, "pV part MJ/kg (½RT per mol H2, by hand)", (WaterPerHydrogen*LatentHeat25-HydrogenGrossNet)/1e6, 0.615, 0.001)
 }
 
@@ -79,7 +79,7 @@ func TestAnalysisFromISO(t *testing.T) {
 	cases := []struct {
 		grade  string
 		h, c   float64 // % m/m
-		lo, hi float64 // typical H, % m/m, plant-checks.md §1.2 [M]
+		lo, hi float64 // typical H, % m/m, docs/reference/plant-checks.md §1.2 [M]
 	}{
 		// H = (gross − net − 0.02449·w)/21.2058 with the figures of
 		// TestISO8217Grades, by hand: VLSFO (2.464192 − 0.002449)/21.2058
@@ -107,7 +107,7 @@ func TestAnalysisFromISO(t *testing.T) {
 		cragoe := (26 - 15*sg) / 100 * (1 - f.ISO.Water - f.ISO.Ash - f.ISO.Sulfur)
 		near(t, c.grade+" H vs Cragoe 26 − 15·d (from memory), kg/kg", a.H, cragoe, 0.001)
 		if h := 100 * a.H; h < c.lo || h > c.hi {
-			t.Errorf("%s: H %.2f %% outside the typical %g…%g %% (plant-checks.md §1.2 [M])", c.grade, h, c.lo, c.hi)
+			t.Errorf("%s: H %.2f %% outside the typical %g…%g %% (docs/reference/plant-checks.md §1.2 [M])", c.grade, h, c.lo, c.hi)
 		}
 	}
 	// The latent heat of the product water of the derived analysis is the
@@ -175,7 +175,7 @@ func TestChanniwalaParikhCrossCheck(t *testing.T) {
 
 // The analysis CO2 (C·44.0095/12.0107, what the combustion model burns)
 // against the IMO C_F of each grade's fuel type. They do not agree to the
-// IMO factor's rounding: the IMO carbon fractions (plant-checks.md §1.3
+// IMO factor's rounding: the IMO carbon fractions (docs/reference/plant-checks.md §1.3
 // [S]) are one default per fuel type, and a grade's own carbon differs.
 // The difference splits into the carbon difference, C/C_IMO − 1, and the
 // IMO factor's own rounding, C_IMO·44.0095/12.0107 / C_F − 1, which is
@@ -195,7 +195,7 @@ func TestCO2AnalysisVersusIMO(t *testing.T) {
 		// 0.867657 × 3.664191 = 3.1793 against Diesel/Gas oil 3.206:
 		// −0.83 % (carbon 0.8677 against 0.8744).
 		{"MGO", 3.1793, -0.00834},
-		// Methane 0.748682 × 3.664191 = 2.7433 (plant-checks.md §1.3 [C]
+		// Methane 0.748682 × 3.664191 = 2.7433 (docs/reference/plant-checks.md §1.3 [C]
 		// 2.743) against LNG 2.750: −0.24 %.
 		{"LNG", 2.7433, -0.00243},
 	}
@@ -212,7 +212,7 @@ func TestCO2AnalysisVersusIMO(t *testing.T) {
 			c.grade, co2.Analysis, co2.IMO, 100*d, f.Analysis.C, f.IMO.Carbon, 100*carbon, 100*rounding)
 		near(t, c.grade+" analysis CO2 kg/kg (by hand)", co2.Analysis, c.analysis, 0.00005)
 		near(t, c.grade+" analysis/IMO − 1 (by hand)", d, c.diff, 0.00005)
-		near(t, c.grade+" IMO factor's own rounding (plant-checks.md §1.3 [C] ±0.001)", rounding, 0, 0.001)
+		near(t, c.grade+" IMO factor's own rounding (docs/reference/plant-checks.md §1.3 [C] ±0.001)", rounding, 0, 0.001)
 		near(t, c.grade+" difference = carbon × rounding", (1+carbon)*(1+rounding)-1, d, 1e-12)
 	}
 }

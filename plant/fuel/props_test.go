@@ -11,7 +11,7 @@ const cSt = 1e-6 // m²/s
 
 func TestWaltherCheckA(t *testing.T) {
 	t.Parallel()
-	// plant-checks.md §5.1 check A [S✓/C], §11 item 7: 32 cSt at 40 °C and
+	// docs/reference/plant-checks.md §5.1 check A [S✓/C], §11 item 7: 32 cSt at 40 °C and
 	// 5.4 cSt at 100 °C → A 9.5259, B 3.7449, ν(80 °C) 8.53 cSt ± 0.01.
 	// The worked example converts with T = t + 273 (its A and B are
 	// reproduced only so); ν(80 °C) is 8.53 either way.
@@ -21,28 +21,28 @@ func TestWaltherCheckA(t *testing.T) {
 			t.Fatal(err)
 		}
 		if k == 273 {
-			near(t, "A (plant-checks.md §5.1 check A, T = t+273)", w.A, 9.5259, 0.00005)
-			near(t, "B (plant-checks.md §5.1 check A, T = t+273)", w.B, 3.7449, 0.00005)
+			near(t, "A (docs/reference/plant-checks.md §5.1 check A, T = t+273)", w.A, 9.5259, 0.00005)
+			near(t, "B (docs/reference/plant-checks.md §5.1 check A, T = t+273)", w.B, 3.7449, 0.00005)
 		}
 		nu, err := w.Viscosity(80 + k)
 		if err != nil {
 			t.Fatal(err)
 		}
-		near(t, fmt.Sprintf("ν(80 °C) cSt, T = t+%g (plant-checks.md §5.1 check A)", k), nu/cSt, 8.53, 0.01)
+		near(t, fmt.Sprintf("ν(80 °C) cSt, T = t+%g (docs/reference/plant-checks.md §5.1 check A)", k), nu/cSt, 8.53, 0.01)
 	}
 }
 
 func TestWaltherCheckB(t *testing.T) {
 	t.Parallel()
-	// plant-checks.md §5.1 check B [C]: 380 cSt at 50 °C, 35 cSt at 100 °C
+	// docs/reference/plant-checks.md §5.1 check B [C]: 380 cSt at 50 °C, 35 cSt at 100 °C
 	// → A 9.27342, B 3.53140, and the temperatures for target viscosities.
 	f, _ := Grade("HSFO")
 	w, err := f.ViscosityLine()
 	if err != nil {
 		t.Fatal(err)
 	}
-	near(t, "A (plant-checks.md §5.1 check B)", w.A, 9.27342, 0.000005)
-	near(t, "B (plant-checks.md §5.1 check B)", w.B, 3.53140, 0.000005)
+	near(t, "A (docs/reference/plant-checks.md §5.1 check B)", w.A, 9.27342, 0.000005)
+	near(t, "B (docs/reference/plant-checks.md §5.1 check B)", w.B, 3.53140, 0.000005)
 	for _, c := range []struct{ nu, tC float64 }{
 		{10, 146.1}, {13, 134.4}, {15, 128.6}, {20, 117.9}, {700, 41.2}, {1000, 36.5},
 	} {
@@ -50,7 +50,7 @@ func TestWaltherCheckB(t *testing.T) {
 		if err != nil {
 			t.Fatal(err)
 		}
-		near(t, fmt.Sprintf("T for %g cSt, °C (plant-checks.md §5.1 check B)", c.nu), T-273.15, c.tC, 0.05)
+		near(t, fmt.Sprintf("T for %g cSt, °C (docs/reference/plant-checks.md §5.1 check B)", c.nu), T-273.15, c.tC, 0.05)
 	}
 	// Tolerance: half a unit of the last digit printed on the sheet.
 	for _, c := range []struct{ tC, nu, tol float64 }{
@@ -60,7 +60,7 @@ func TestWaltherCheckB(t *testing.T) {
 		if err != nil {
 			t.Fatal(err)
 		}
-		near(t, fmt.Sprintf("ν(%g °C) cSt (plant-checks.md §5.1 check B)", c.tC), nu/cSt, c.nu, c.tol)
+		near(t, fmt.Sprintf("ν(%g °C) cSt (docs/reference/plant-checks.md §5.1 check B)", c.tC), nu/cSt, c.nu, c.tol)
 	}
 }
 
@@ -89,8 +89,8 @@ func TestWaltherErrors(t *testing.T) {
 
 func TestCragoe(t *testing.T) {
 	t.Parallel()
-	// plant-checks.md §5.3 checks [C] (formula [S]), tolerance ±0.001
-	// kJ/(kg·K) from §11 item 8.
+	// docs/reference/plant-checks.md §5.3 checks [C] (formula [S]), tolerance ±0.001
+	// kJ/(kg·K) from docs/reference/plant-checks.md §11 item 8.
 	for _, c := range []struct{ s, tC, cp float64 }{
 		{0.991, 100, 2.033}, {0.991, 40, 1.829}, {0.85, 15, 1.883},
 	} {
@@ -98,7 +98,7 @@ func TestCragoe(t *testing.T) {
 		if err != nil {
 			t.Fatal(err)
 		}
-		near(t, fmt.Sprintf("Cragoe c s %g %g °C kJ/kgK (plant-checks.md §5.3 [C])", c.s, c.tC), cp/1e3, c.cp, 0.0005)
+		near(t, fmt.Sprintf("Cragoe c s %g %g °C kJ/kgK (docs/reference/plant-checks.md §5.3 [C])", c.s, c.tC), cp/1e3, c.cp, 0.0005)
 	}
 	// The closed-form integral equals the mean of c over the interval times
 	// ΔT (c is linear in t): checked against a 1000-step midpoint sum.
@@ -113,9 +113,9 @@ func TestCragoe(t *testing.T) {
 		sum += c * 20 / n
 	}
 	near(t, "Cragoe integral vs midpoint sum J/kg", q, sum, 1e-6)
-	// plant-checks.md §6 heat-up check [C]: c (Cragoe, 40 °C, s 0.98) 1.839.
+	// docs/reference/plant-checks.md §6 heat-up check [C]: c (Cragoe, 40 °C, s 0.98) 1.839.
 	c, _ := CragoeCp(0.98, 313.15)
-	near(t, "Cragoe s 0.98 40 °C (plant-checks.md §6 [C])", c/1e3, 1.839, 0.0005)
+	near(t, "Cragoe s 0.98 40 °C (docs/reference/plant-checks.md §6 [C])", c/1e3, 1.839, 0.0005)
 	if _, err := CragoeCp(0.991, 600); err == nil {
 		t.Errorf("600 K accepted")
 	}
@@ -151,12 +151,12 @@ func TestDensity(t *testing.T) {
 
 func TestCCAI(t *testing.T) {
 	t.Parallel()
-	// plant-checks.md §1.4 [C]: ρ 991, 380 cSt at 50 °C → 851.9.
+	// docs/reference/plant-checks.md §1.4 [C]: ρ 991, 380 cSt at 50 °C → 851.9.
 	c, err := CCAI(991, 380*cSt, 323.15)
 	if err != nil {
 		t.Fatal(err)
 	}
-	near(t, "CCAI (plant-checks.md §1.4 [C])", c, 851.9, 0.05)
+	near(t, "CCAI (docs/reference/plant-checks.md §1.4 [C])", c, 851.9, 0.05)
 }
 
 // FuzzWaltherRoundTrip: ν(T(ν)) = ν on the check-B line for any target in

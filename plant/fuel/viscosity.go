@@ -16,7 +16,7 @@ type ViscosityPoint struct {
 // window is chosen for fuel-oil service (storage, purifiers, heaters),
 // common practice, no source. Viscosities: 0.3…2e7 mm²/s; the upper end is
 // the D341 chart's, the lower end is a cautious limit for the single
-// exponential low-viscosity term of plant-checks.md §5.1 (from memory).
+// exponential low-viscosity term of docs/reference/plant-checks.md §5.1 (from memory).
 const (
 	MinWaltherT = 253.15
 	MaxWaltherT = 523.15
@@ -29,7 +29,7 @@ const (
 //	log10 log10 Z = A − B·log10 T,   T in K,
 //	Z = ν + 0.7 + exp(−1.47 − 1.84ν − 0.51ν²),   ν in mm²/s,
 //
-// (plant-checks.md §5.1 [S✓]). Z(ν) with its low-viscosity term is the
+// (docs/reference/plant-checks.md §5.1 [S✓]). Z(ν) with its low-viscosity term is the
 // definition used in both directions: ν(T) inverts it by Newton iteration,
 // started from the D341 inverse ν = (Z − 0.7) − exp(−0.7487 − 3.295x +
 // 0.6119x² − 0.3193x³), x = Z − 0.7, so a round trip ν(T(ν)) = ν holds to
@@ -183,7 +183,7 @@ func (f Fuel) TemperatureForViscosity(nu float64) (float64, error) {
 }
 
 // CCAI returns the Calculated Carbon Aromaticity Index of a residual fuel
-// from its ISO 8217 density and viscosity (plant-checks.md §1.4 [S], ISO
+// from its ISO 8217 density and viscosity (docs/reference/plant-checks.md §1.4 [S], ISO
 // 8217 annex, formula from memory):
 //
 //	CCAI = ρ15 − 81 − 141·log10 log10(ν + 0.85) − 483·log10((t + 273)/323)

@@ -2,7 +2,7 @@ package heat
 
 import "math"
 
-// Water constants used by the boiling correlations (heat-transfer.md §6).
+// Water constants used by the boiling correlations (docs/reference/heat-transfer.md §6).
 const (
 	WaterCriticalPressure = 22.064e6 // Pa (IAPWS)
 	WaterMolarMass        = 18.015   // g/mol, as in Cooper's M
@@ -58,7 +58,7 @@ func (b *Pool) cooperFactor(pr float64) float64 {
 
 // Cooper returns the nucleate pool boiling coefficient h (W/(m²·K)) at heat
 // flux q (W/m²), M. G. Cooper, "Saturated nucleate pool boiling — a simple
-// correlation", IChemE Symp. Ser. 86:785-793 (1984) (heat-transfer.md §6 [S✓]):
+// correlation", IChemE Symp. Ser. 86:785-793 (1984) (docs/reference/heat-transfer.md §6 [S✓]):
 //
 //	h = 55·p_r^(0.12 − 0.2·log10 R_p)·(−log10 p_r)^(−0.55)·M^(−0.5)·q^0.67
 //
@@ -98,7 +98,7 @@ func (b *Pool) mostinskiFactor(pr float64) float64 {
 }
 
 // Mostinski returns the nucleate boiling coefficient (W/(m²·K)) at heat
-// flux q (W/m²) by Mostinski (1963) (heat-transfer.md §6 [S✓, one library
+// flux q (W/m²) by Mostinski (1963) (docs/reference/heat-transfer.md §6 [S✓, one library
 // docstring]): h = 0.00417·p_c^0.69·q^0.7·[1.8·p_r^0.17 + 4·p_r^1.2 + 10·p_r^10],
 // p_c in kPa. It differs from Cooper by 10-20 % in the boiler range.
 func (b Pool) Mostinski(q float64) (float64, error) {

@@ -11,7 +11,7 @@ import (
 // p_c = 22048321 Pa (printed "22.048 MPa" on the sheet) and M = 18.02:
 // Cooper 1558.1435442153575, Mostinski 1185.0509770292663 W/(m²·K); a page
 // built on the same library prints 9530.96 for Cooper at q = 1e5 W/m²
-// (heat-transfer.md §6 [S✓, library docstring; "reproduced exactly"]).
+// (docs/reference/heat-transfer.md §6 [S✓, library docstring; "reproduced exactly"]).
 func TestBoilingPublished(t *testing.T) {
 	t.Parallel()
 	b := Pool{P: 101325, Pc: 22048321, M: 18.02}
@@ -34,7 +34,7 @@ func TestBoilingPublished(t *testing.T) {
 	withinRel(t, "Mostinski q-form at q = h·ΔT", mq, m, 1e-12)
 }
 
-// TestBoilingBoilerRange: the table of heat-transfer.md §6 [C]: Cooper with
+// TestBoilingBoilerRange: the table of docs/reference/heat-transfer.md §6 [C]: Cooper with
 // R_p = 1 μm, p_c = 22.064 MPa, M = 18.015; ΔT_sat = q/h in brackets.
 func TestBoilingBoilerRange(t *testing.T) {
 	t.Parallel()
@@ -50,7 +50,7 @@ func TestBoilingBoilerRange(t *testing.T) {
 	} {
 		b := WaterPool(c.bar * 1e5)
 		for i, q := range qs {
-			name := fmt.Sprintf("heat-transfer.md §6 p=%g bar q=%g", c.bar, q)
+			name := fmt.Sprintf("docs/reference/heat-transfer.md §6 p=%g bar q=%g", c.bar, q)
 			h, _, err := b.Cooper(q)
 			mustNoErr(t, err)
 			printed(t, name+" Cooper", h, c.cooper[i])

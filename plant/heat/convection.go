@@ -5,7 +5,7 @@ import "math"
 // Friction names a smooth-tube Darcy friction factor.
 type Friction int
 
-// Friction factors (heat-transfer.md §2).
+// Friction factors (docs/reference/heat-transfer.md §2).
 const (
 	Petukhov  Friction = iota // f = (0.790·ln Re − 1.64)^−2 [S✓], the default
 	Filonenko                 // f = (1.82·log10 Re − 1.64)^−2 [S✓], within 0.2 % of Petukhov
@@ -36,7 +36,7 @@ func FrictionFactor(form Friction, Re float64) (float64, error) {
 //
 //	Nu = (f/8)·(Re − 1000)·Pr / [1 + 12.7·(f/8)^½·(Pr^(2/3) − 1)]
 //
-// V. Gnielinski, Int. Chem. Eng. 16:359-368 (1976) (heat-transfer.md §2
+// V. Gnielinski, Int. Chem. Eng. 16:359-368 (1976) (docs/reference/heat-transfer.md §2
 // [S✓]), with the Darcy friction factor f supplied by the caller (normally
 // FrictionFactor(Petukhov, Re)). Valid for 3000 ≤ Re ≤ 5e6 and
 // 0.5 ≤ Pr ≤ 2000; outside it returns an ErrRange error. Fully developed
@@ -78,7 +78,7 @@ func gnielinskiRange(where string, Re, reMin, Pr float64) error {
 //
 //	Nu = (ξ/8)·Re·Pr / [1 + 12.7·(ξ/8)^½·(Pr^(2/3) − 1)] · [1 + (d/L)^(2/3)]
 //
-// This form is from memory and not verified (heat-transfer.md §2 [S,
+// This form is from memory and not verified (docs/reference/heat-transfer.md §2 [S,
 // memory]); it is valid for Re ≥ 1e4. dOverL = 0 means fully developed flow.
 // Below Re = 1e4 (down to 3000) it is computed with WarnVDIBelowRange set,
 // because TubeFlow may use it as an end point of the transition range.
@@ -110,7 +110,7 @@ const (
 )
 
 // Laminar Nusselt numbers of fully developed flow in a round tube
-// (heat-transfer.md §2 [S, textbook]).
+// (docs/reference/heat-transfer.md §2 [S, textbook]).
 const (
 	NuLaminarWallTemperature = 3.66 // uniform wall temperature
 	NuLaminarHeatFlux        = 4.36 // uniform heat flux
@@ -122,7 +122,7 @@ const (
 // Petukhov's f in turbulent flow, Nu = 3.66 (uniform wall temperature, no
 // entrance effect) for Re ≤ 2300, and between them linear interpolation in
 // Re from Nu_lam at 2300 to Nu_turb at 4000, the end point proposed by
-// Gnielinski, IJHMT 63:134-140 (2013) (heat-transfer.md §2 [S✓ abstract]):
+// Gnielinski, IJHMT 63:134-140 (2013) (docs/reference/heat-transfer.md §2 [S✓ abstract]):
 //
 //	Nu = (1 − γ)·Nu_lam + γ·Nu_turb(Re_end),  γ = (Re − 2300)/(Re_end − 2300)
 type TubeFlow struct {
@@ -134,7 +134,7 @@ type TubeFlow struct {
 	// UniformHeatFlux selects Nu_lam = 4.36 instead of 3.66.
 	UniformHeatFlux bool
 	// DOverL, if > 0, multiplies the turbulent Nu by the entrance factor
-	// [1 + (d/L)^(2/3)] (heat-transfer.md §2 [S, memory]); 0 = fully developed.
+	// [1 + (d/L)^(2/3)] (docs/reference/heat-transfer.md §2 [S, memory]); 0 = fully developed.
 	DOverL float64
 }
 
@@ -202,7 +202,7 @@ func (m TubeFlow) Nusselt(Re, Pr float64) (float64, Warning, error) {
 // DittusBoelter returns Nu = 0.023·Re^0.8·Pr^n with n = 0.4 when the fluid
 // is heated and n = 0.3 when it is cooled (flue gas in smoke tubes: cooled).
 // F. W. Dittus, L. M. K. Boelter, Univ. Calif. Publ. Eng. 2(13):443-461
-// (1930) (heat-transfer.md §3 [S✓]). Valid for Re ≥ 1e4, 0.6 ≤ Pr ≤ 160 and
+// (1930) (docs/reference/heat-transfer.md §3 [S✓]). Valid for Re ≥ 1e4, 0.6 ≤ Pr ≤ 160 and
 // L/d ≥ 10 (lOverD is the tube's length over its diameter); outside it
 // returns an ErrRange error. Use it only as a cross-check of Gnielinski (it
 // reads 11 % high at Re = 2e4, Pr = 0.7).

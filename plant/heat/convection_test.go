@@ -7,7 +7,7 @@ import (
 	"testing"
 )
 
-// TestGnielinskiSheetTable checks the table of heat-transfer.md §2 [C]:
+// TestGnielinskiSheetTable checks the table of docs/reference/heat-transfer.md §2 [C]:
 // f (Petukhov), Nu (1976 form, Petukhov f), Nu (Filonenko f), Nu (VDI form,
 // Konakov ξ, Re, fully developed) and Dittus-Boelter n = 0.3 and 0.4, to
 // the printed rounding.
@@ -22,7 +22,7 @@ func TestGnielinskiSheetTable(t *testing.T) {
 		{50000, 0.7, "0.020958", "104.1883", "104.0419", "104.6552", "118.6952", "114.5363"},
 		{4000, 0.7, "0.041441", "13.4872", "13.4660", "17.4115", "15.7364", "15.1850"},
 	} {
-		name := fmt.Sprintf("heat-transfer.md §2 Re=%g Pr=%g", c.Re, c.Pr)
+		name := fmt.Sprintf("docs/reference/heat-transfer.md §2 Re=%g Pr=%g", c.Re, c.Pr)
 		f, err := FrictionFactor(Petukhov, c.Re)
 		mustNoErr(t, err)
 		printed(t, name+" f Petukhov", f, c.f)
@@ -49,13 +49,13 @@ func TestGnielinskiSheetTable(t *testing.T) {
 			db, _ = DittusBoelter(c.Re, c.Pr, 60, true)
 			printed(t, name+" Dittus-Boelter n=0.4", db, c.db04)
 		} else {
-			// Re = 4000 is below the Dittus-Boelter range Re ≥ 1e4 (§3): refused.
+			// Re = 4000 is below the Dittus-Boelter range Re ≥ 1e4 (docs/reference/heat-transfer.md §3): refused.
 			if _, err := DittusBoelter(c.Re, c.Pr, 60, false); !errors.Is(err, ErrRange) {
 				t.Errorf("%s: Dittus-Boelter below 1e4 must be ErrRange, got %v", name, err)
 			}
 		}
 	}
-	// Filonenko is "the same to 0.2 %" (heat-transfer.md §2).
+	// Filonenko is "the same to 0.2 %" (docs/reference/heat-transfer.md §2).
 	for _, re := range []float64{3000, 1e4, 1e5, 1e6, 5e6} {
 		fp, _ := FrictionFactor(Petukhov, re)
 		ff, _ := FrictionFactor(Filonenko, re)
@@ -63,20 +63,20 @@ func TestGnielinskiSheetTable(t *testing.T) {
 	}
 }
 
-// TestPublishedExamples: the library examples quoted in heat-transfer.md §2
+// TestPublishedExamples: the library examples quoted in docs/reference/heat-transfer.md §2
 // and §3 [S✓, one library docstring], reproduced to 1e-12.
 func TestPublishedExamples(t *testing.T) {
 	t.Parallel()
 	nu, err := Gnielinski(1e5, 1.2, 0.0185)
 	mustNoErr(t, err)
-	withinRel(t, "Gnielinski Re=1e5 Pr=1.2 f=0.0185 (heat-transfer.md §2)", nu, 254.62682749359632, 1e-12)
+	withinRel(t, "Gnielinski Re=1e5 Pr=1.2 f=0.0185 (docs/reference/heat-transfer.md §2)", nu, 254.62682749359632, 1e-12)
 	db, _ := DittusBoelter(1e5, 1.2, 60, true)
-	withinRel(t, "Dittus-Boelter n=0.4 (heat-transfer.md §3)", db, 247.40036409449127, 1e-12)
+	withinRel(t, "Dittus-Boelter n=0.4 (docs/reference/heat-transfer.md §3)", db, 247.40036409449127, 1e-12)
 	db, _ = DittusBoelter(1e5, 1.2, 60, false)
-	withinRel(t, "Dittus-Boelter n=0.3 (heat-transfer.md §3)", db, 242.9305927410295, 1e-12)
+	withinRel(t, "Dittus-Boelter n=0.3 (docs/reference/heat-transfer.md §3)", db, 242.9305927410295, 1e-12)
 }
 
-// TestTransition checks the transition rows of heat-transfer.md §2 [C]:
+// TestTransition checks the transition rows of docs/reference/heat-transfer.md §2 [C]:
 // Nu_lam = 3.66, VDI Nu_turb(1e4) = 32.3192, γ = (Re − 2300)/(1e4 − 2300);
 // and the 2013 end point Re = 4000 with the VDI form: Re = 3000 gives
 // γ = 0.4118 and Nu = 9.3224.
@@ -120,7 +120,7 @@ func TestTransition(t *testing.T) {
 	a, _, _ = m.Nusselt(4000*(1-1e-12), 0.7)
 	b, _, _ = m.Nusselt(4000, 0.7)
 	within(t, "continuity at 4000", a, b, 1e-9)
-	// Entrance factor [1 + (d/L)^(2/3)] is 1.06-1.07 for L/d 50-80 (§2 [S, memory]).
+	// Entrance factor [1 + (d/L)^(2/3)] is 1.06-1.07 for L/d 50-80 (docs/reference/heat-transfer.md §2 [S, memory]).
 	for _, ld := range []float64{50, 80} {
 		n0, _, _ := m.Nusselt(2e4, 0.7)
 		n1, _, _ := TubeFlow{DOverL: 1 / ld}.Nusselt(2e4, 0.7)

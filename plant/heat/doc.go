@@ -18,8 +18,8 @@
 //
 // # Sources, validity and simplifications
 //
-// Tags follow the project's reference sheets (shared/reference/heat-transfer.md
-// and gas-radiation.md): [S✓] source seen, [S] source from memory, [CP]
+// Tags follow the project's reference sheets (docs/reference/heat-transfer.md
+// and docs/reference/gas-radiation.md): [S✓] source seen, [S] source from memory, [CP]
 // common practice, [M] from memory, [C] computed from the sheet's formulas.
 //
 // Gas transport (MixTransport, SpeciesViscosity, SpeciesConductivity): the

@@ -52,9 +52,9 @@ const (
 	// its temperature range because TransportOptions.AllowExtrapolation was set.
 	WarnTransportExtrapolated Warning = 1 << iota
 	// WarnWSGGTemperature: a WSGG weight polynomial was evaluated outside
-	// 600-2400 K (a range known from memory only, gas-radiation.md §1.1 [M]).
+	// 600-2400 K (a range known from memory only, docs/reference/gas-radiation.md §1.1 [M]).
 	WarnWSGGTemperature
-	// WarnWSGGPathLength: pa·L outside 0.001-10 atm·m (from memory, gas-radiation.md §1.1 [M]).
+	// WarnWSGGPathLength: pa·L outside 0.001-10 atm·m (from memory, docs/reference/gas-radiation.md §1.1 [M]).
 	WarnWSGGPathLength
 	// WarnVDIBelowRange: the VDI form of Gnielinski (valid for Re >= 1e4) was
 	// evaluated below Re = 1e4 as the end point of the transition interpolation.
@@ -62,7 +62,7 @@ const (
 	// WarnZukauskasPrandtl: Pr outside 0.7-500 (Zukauskas; range from memory).
 	WarnZukauskasPrandtl
 	// WarnInlinePitchRatio: in-line bank with S_T/S_L < 0.7, which the textbook
-	// advises against (heat-transfer.md §4 [M]).
+	// advises against (docs/reference/heat-transfer.md §4 [M]).
 	WarnInlinePitchRatio
 	// WarnRowCorrectionLowRe: in-line bank with fewer than 20 rows at
 	// Re_D,max < 1e3, where no row correction is tabulated; the Re > 1e3 value was used.

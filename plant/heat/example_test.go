@@ -7,7 +7,7 @@ import (
 	"steamcase/plant/heat"
 )
 
-// flueGas is the test flue gas of heat-transfer.md §1.3 (heavy fuel oil at
+// flueGas is the test flue gas of docs/reference/heat-transfer.md §1.3 (heavy fuel oil at
 // 15 % excess air, SO2 folded into N2).
 var flueGas = heat.Composition{heat.N2: 0.754, heat.O2: 0.026, heat.CO2: 0.125, heat.H2O: 0.095}
 
@@ -89,7 +89,7 @@ func ExampleCounterflow() {
 }
 
 func ExampleTubeWall_U() {
-	// The worked smoke-tube example of heat-transfer.md §5.
+	// The worked smoke-tube example of docs/reference/heat-transfer.md §5.
 	w := heat.TubeWall{Di: 0.0563, Do: 0.0635, K: 47, HInside: 43.08,
 		FoulingInside: 0.001, FoulingOutside: 0.0002, HOutside: 10000}
 	u, _ := w.U(heat.Inside)

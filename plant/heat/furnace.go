@@ -22,7 +22,7 @@ type Furnace struct {
 	WallTemperature float64 // T_w, K (T_sat + 10-30 K for water-cooled walls [CP])
 	WallEmissivity  float64 // ε_w, about 0.8 for oxidised or sooted steel [M]
 	// FixedEmissivity, if > 0, is taken as ε_eff directly, bypassing the gas
-	// model, the soot and WallEmissivity (case A of heat-transfer.md §8).
+	// model, the soot and WallEmissivity (case A of docs/reference/heat-transfer.md §8).
 	FixedEmissivity float64
 	// Set is the WSGG set of the gas; WSGGAuto picks by pw/pc. Fix it per
 	// fuel (WSGGRatio1 for oil) to keep residuals smooth.
@@ -32,7 +32,7 @@ type Furnace struct {
 	// the furnace balance: calibrate it against a measured exit temperature.
 	SootVolumeFraction float64
 	// SootConstant K of κ_soot = K·f_v·T in 1/(m·K); 0 means
-	// SootConstant(1.75, 1.03, 3.72) = 1816.9 (gas-radiation.md §5).
+	// SootConstant(1.75, 1.03, 3.72) = 1816.9 (docs/reference/gas-radiation.md §5).
 	SootConstant float64
 }
 
@@ -70,7 +70,7 @@ type FurnaceResult struct {
 const furnaceWhere = "well-stirred furnace energy balance"
 
 // Solve finds the furnace exit temperature of the well-stirred (one-zone)
-// furnace (heat-transfer.md §8 [S, Hottel & Sarofim 1967, structure from
+// furnace (docs/reference/heat-transfer.md §8 [S, Hottel & Sarofim 1967, structure from
 // memory; exchange factor derived]):
 //
 //	ṁ_g·[h(T_ad) − h(T_E)] = Q_rad + Q_loss,   Q_rad = σ·A_w·ε_eff·(T_E⁴ − T_w⁴)

@@ -6,9 +6,9 @@ import (
 	"testing"
 )
 
-// sheetFurnace returns the furnace and input of heat-transfer.md §8 [C]:
+// sheetFurnace returns the furnace and input of docs/reference/heat-transfer.md §8 [C]:
 // 300 kg/h of fuel, LHV 40.2 MJ/kg → Q_in = 3 350 000 W; ṁ_g = 300/3600 ·
-// 16.836 = 1.403 kg/s (plant-checks.md §2.1); c_p = 1250 J/(kg·K) constant;
+// 16.836 = 1.403 kg/s (docs/reference/plant-checks.md §2.1); c_p = 1250 J/(kg·K) constant;
 // T_ref = 298.15 K; cylinder D = 1.2 m, 3.5 m long; T_w = 470 K.
 func sheetFurnace(t testing.TB) (Furnace, FurnaceInput) {
 	V := math.Pi * 0.36 * 3.5
@@ -26,11 +26,11 @@ func sheetFurnace(t testing.TB) (Furnace, FurnaceInput) {
 	return f, in
 }
 
-// TestFurnaceSheetCases: cases A, B and C of heat-transfer.md §8 [C], to the
+// TestFurnaceSheetCases: cases A, B and C of docs/reference/heat-transfer.md §8 [C], to the
 // printed rounding (T_E to 3 decimals; the sheet asks 1e-6 K of a solver,
 // which Brent's tolerance of 1e-8 K meets, but its numbers are rounded).
 // Case C uses κ_soot = 1817·f_v·T as the sheet states it (SootConstant
-// 1817, the rounded 1816.9 of gas-radiation.md §5).
+// 1817, the rounded 1816.9 of docs/reference/gas-radiation.md §5).
 func TestFurnaceSheetCases(t *testing.T) {
 	t.Parallel()
 	f, in := sheetFurnace(t)
@@ -163,7 +163,7 @@ func TestFurnaceErrors(t *testing.T) {
 }
 
 // TestAdiabaticTemperature: constant c_p gives T_ref + dh/c_p exactly (the
-// sheet's T_ad = 2208.34 K, heat-transfer.md §8 [C]).
+// sheet's T_ad = 2208.34 K, docs/reference/heat-transfer.md §8 [C]).
 func TestAdiabaticTemperature(t *testing.T) {
 	t.Parallel()
 	h := ConstantCp(1250, 298.15)
@@ -171,7 +171,7 @@ func TestAdiabaticTemperature(t *testing.T) {
 	ta, err := AdiabaticTemperature(h, 298.15, dh, 298.15)
 	mustNoErr(t, err)
 	within(t, "T_ad", ta, 298.15+dh/1250, 1e-7)
-	printed(t, "T_ad (heat-transfer.md §8)", ta, "2208.34")
+	printed(t, "T_ad (docs/reference/heat-transfer.md §8)", ta, "2208.34")
 	if _, err := AdiabaticTemperature(h, 298.15, 1e9, 298.15); !errors.Is(err, ErrInput) {
 		t.Errorf("above 5000 K: want ErrInput, got %v", err)
 	}

@@ -3,7 +3,7 @@ package heat
 import "math"
 
 // StefanBoltzmann is σ in W/(m²·K⁴) (CODATA 2018, exact in the SI since 2019;
-// value as used in heat-transfer.md §8).
+// value as used in docs/reference/heat-transfer.md §8).
 const StefanBoltzmann = 5.670374419e-8
 
 // StandardAtmosphere is 1 atm in Pa. The WSGG sets are in atm and atm·m.
@@ -13,7 +13,7 @@ const StandardAtmosphere = 101325.0
 // (1982). The zero value WSGGAuto picks a set from pw/pc (SelectWSGGSet).
 type WSGGSet int
 
-// The WSGG sets (gas-radiation.md §1.2 [S✓]).
+// The WSGG sets (docs/reference/gas-radiation.md §1.2 [S✓]).
 const (
 	WSGGAuto    WSGGSet = iota // choose by pw/pc with SelectWSGGSet
 	WSGGH2OLean                // H2O only, pw → 0 atm; pa = pw
@@ -50,7 +50,7 @@ const (
 
 // wsggSets are the coefficients of T. F. Smith, Z. F. Shen, J. N. Friedman,
 // "Evaluation of Coefficients for the Weighted Sum of Gray Gases Model",
-// ASME J. Heat Transfer 104(4):602-608 (1982), as printed (gas-radiation.md
+// ASME J. Heat Transfer 104(4):602-608 (1982), as printed (docs/reference/gas-radiation.md
 // §1.2 and wsgg-smith-shen-friedman-1982.csv [S✓, two independent public
 // copies agree digit for digit]) and scaled here by the printed factors.
 var wsggSets = [numWSGGSets]wsggCoef{
@@ -96,7 +96,7 @@ var wsggSets = [numWSGGSets]wsggCoef{
 	},
 }
 
-// WSGG validity range, from memory (gas-radiation.md §1.1 [M]).
+// WSGG validity range, from memory (docs/reference/gas-radiation.md §1.1 [M]).
 const (
 	wsggTMin   = 600.0
 	wsggTMax   = 2400.0
@@ -106,7 +106,7 @@ const (
 
 // SelectWSGGSet picks a set from the partial pressures (any unit, only the
 // ratio and, for pure H2O, pw in Pa matter) with the switching rule of one
-// public code (gas-radiation.md §1.4 [CP]): the CO2 set if pw ≤ 0.5·pc, the
+// public code (docs/reference/gas-radiation.md §1.4 [CP]): the CO2 set if pw ≤ 0.5·pc, the
 // pw/pc = 1 set if pw ≤ 1.5·pc, the pw/pc = 2 set if pw ≤ 2.5·pc, otherwise
 // H2O pw → 0 if pw ≤ 0.5 atm, else H2O pw = 1 atm. pw and pc in Pa.
 //
@@ -247,7 +247,7 @@ func checkTemp(where, name string, t float64) (Warning, error) {
 }
 
 // Emissivity returns the total emissivity of the gas at temperature T (K)
-// by the WSGG model of Smith, Shen & Friedman (1982) (gas-radiation.md §1.1 [S✓]):
+// by the WSGG model of Smith, Shen & Friedman (1982) (docs/reference/gas-radiation.md §1.1 [S✓]):
 //
 //	ε = Σ_{i=1..3} a_i(T)·[1 − exp(−κ_i·pa·L)]
 //
@@ -281,9 +281,9 @@ func (g RadiatingGas) Emissivity(T float64) (float64, Warning, error) {
 //
 // This practice is from memory (Modest, Radiative Heat Transfer [M]); the
 // paper's own absorptivity coefficients, which depend on both temperatures,
-// were not transcribed (gas-radiation.md §1.3). The furnace and tube models
+// were not transcribed (docs/reference/gas-radiation.md §1.3). The furnace and tube models
 // of this package do not use it: they take α = ε_g (grey gas,
-// heat-transfer.md §8). Walls below 600 K get WarnWSGGTemperature.
+// docs/reference/heat-transfer.md §8). Walls below 600 K get WarnWSGGTemperature.
 func (g RadiatingGas) Absorptivity(Ts float64) (float64, Warning, error) {
 	const where = "WSGG absorptivity (weights at source temperature)"
 	set, paL, w, err := g.check(where)
@@ -302,7 +302,7 @@ func (g RadiatingGas) Absorptivity(Ts float64) (float64, Warning, error) {
 }
 
 // EffectiveEmissivity returns the exchange factor of one grey gas zone and
-// one grey wall zone, ε_eff = 1/(1/ε_g + 1/ε_w − 1) (heat-transfer.md §8,
+// one grey wall zone, ε_eff = 1/(1/ε_g + 1/ε_w − 1) (docs/reference/heat-transfer.md §8,
 // derived from the radiosity network [C]; grey gas, α = ε_g). It returns 0
 // when either emissivity is 0. Inputs outside [0, 1] give an error.
 func EffectiveEmissivity(epsGas, epsWall float64) (float64, error) {
@@ -320,13 +320,13 @@ func EffectiveEmissivity(epsGas, epsWall float64) (float64, error) {
 }
 
 // RadiationCoefficient returns the linearised radiative coefficient
-// h_rad = σ·ε_eff·(Tg⁴ − Tw⁴)/(Tg − Tw) in W/(m²·K) (gas-radiation.md §4),
+// h_rad = σ·ε_eff·(Tg⁴ − Tw⁴)/(Tg − Tw) in W/(m²·K) (docs/reference/gas-radiation.md §4),
 // written as σ·ε_eff·(Tg² + Tw²)(Tg + Tw) so that Tg = Tw is exact.
 func RadiationCoefficient(epsEff, Tg, Tw float64) float64 {
 	return StefanBoltzmann * epsEff * (Tg*Tg + Tw*Tw) * (Tg + Tw)
 }
 
-// Mean beam lengths (gas-radiation.md §4).
+// Mean beam lengths (docs/reference/gas-radiation.md §4).
 
 // BeamLengthThin returns the optically thin limit L0 = 4V/A (exact [C]).
 func BeamLengthThin(volume, area float64) (float64, error) {
@@ -341,7 +341,7 @@ func BeamLengthThin(volume, area float64) (float64, error) {
 
 // BeamLength returns L_m = 3.6·V/A for any shape radiating to its whole
 // surface (Hottel, in McAdams, Heat Transmission, 3rd ed. 1954, chapter 4;
-// gas-radiation.md §4 [S, from memory]). Use it for the furnace.
+// docs/reference/gas-radiation.md §4 [S, from memory]). Use it for the furnace.
 func BeamLength(volume, area float64) (float64, error) {
 	l0, err := BeamLengthThin(volume, area)
 	return 0.9 * l0, err
@@ -350,7 +350,7 @@ func BeamLength(volume, area float64) (float64, error) {
 // BeamShape names a geometry of Hottel's mean-beam-length table.
 type BeamShape int
 
-// Shapes of Hottel's table (gas-radiation.md §4 [S, from memory]; the three
+// Shapes of Hottel's table (docs/reference/gas-radiation.md §4 [S, from memory]; the three
 // tube-bank rows are of lower confidence [M]). The dimension passed to
 // BeamLengthShape is given beside each.
 const (
@@ -379,12 +379,12 @@ func BeamLengthShape(shape BeamShape, dim float64) (float64, error) {
 	return beamFactor[shape] * dim, nil
 }
 
-// Soot (gas-radiation.md §5).
+// Soot (docs/reference/gas-radiation.md §5).
 
 // Complex refractive indices n − i·k of soot: n = 1.75, k = 1.03 of
 // Williams, Shaddix et al., IJHMT 50:1616 (2007) (used by public code
 // BYUignite/radlib [S✓]) and the older Dalzell-Sarofim n = 1.57, k = 0.56
-// (gas-radiation.md §5).
+// (docs/reference/gas-radiation.md §5).
 const (
 	SootShaddixN        = 1.75
 	SootShaddixK        = 1.03
@@ -401,7 +401,7 @@ const secondRadiationConstant = 1.4388e-2
 //
 //	K = c·C0/C2,  C0 = 36·π·n·k / [(n² − k² + 2)² + 4·n²·k²],  C2 = 1.4388e-2 m·K
 //
-// With Shaddix's index and c = 3.72, K = 1816.9 (gas-radiation.md §5 [C]).
+// With Shaddix's index and c = 3.72, K = 1816.9 (docs/reference/gas-radiation.md §5 [C]).
 func SootConstant(n, k, c float64) float64 {
 	a := n*n - k*k + 2
 	c0 := 36 * math.Pi * n * k / (a*a + 4*n*n*k*k)
@@ -417,7 +417,7 @@ func SootAbsorption(K, fv, T float64) float64 { return K * fv * T }
 func SootEmissivity(kappa, L float64) float64 { return -math.Expm1(-kappa * L) }
 
 // FlameEmissivity combines gas and grey soot, ignoring the spectral overlap:
-// ε_flame = ε_g + ε_s − ε_g·ε_s (gas-radiation.md §5 [CP]).
+// ε_flame = ε_g + ε_s − ε_g·ε_s (docs/reference/gas-radiation.md §5 [CP]).
 func FlameEmissivity(epsGas, epsSoot float64) float64 {
 	return epsGas + epsSoot - epsGas*epsSoot
 }
@@ -425,7 +425,7 @@ func FlameEmissivity(epsGas, epsSoot float64) float64 {
 // BlendedFlameEmissivity is the normative approach that mixes luminous and
 // non-luminous emissivities with a filling fraction m (about 0.55 for liquid
 // fuels): ε = m·ε_lum + (1 − m)·ε_non. Both the formula and m are from
-// memory (gas-radiation.md §5 [M]); calibrate against a measured furnace
+// memory (docs/reference/gas-radiation.md §5 [M]); calibrate against a measured furnace
 // exit temperature before relying on it.
 func BlendedFlameEmissivity(m, epsLuminous, epsNonLuminous float64) (float64, error) {
 	const where = "blended flame emissivity"

@@ -14,7 +14,7 @@ var wsggByName = map[string]WSGGSet{
 
 // TestWSGGCoefficientsMatchCSV compares the embedded sets with
 // testdata/wsgg-smith-shen-friedman-1982.csv (Smith, Shen & Friedman 1982,
-// as printed; gas-radiation.md §1.2 [S✓]), applying the printed scales.
+// as printed; docs/reference/gas-radiation.md §1.2 [S✓]), applying the printed scales.
 func TestWSGGCoefficientsMatchCSV(t *testing.T) {
 	t.Parallel()
 	col, rows := readCSV(t, "wsgg-smith-shen-friedman-1982.csv")
@@ -41,7 +41,7 @@ func TestWSGGCoefficientsMatchCSV(t *testing.T) {
 }
 
 // TestWSGGCheckValues runs all 72 rows of wsgg-check-values.csv (computed
-// from the set coefficients [C], gas-radiation.md §2) to the printed
+// from the set coefficients [C], docs/reference/gas-radiation.md §2) to the printed
 // rounding of 6 decimals (the sheet's 1e-9 applies to unrounded numbers).
 func TestWSGGCheckValues(t *testing.T) {
 	t.Parallel()
@@ -70,7 +70,7 @@ func TestWSGGCheckValues(t *testing.T) {
 	}
 }
 
-// TestWSGGSheetTables checks the tables printed in gas-radiation.md §2 [C].
+// TestWSGGSheetTables checks the tables printed in docs/reference/gas-radiation.md §2 [C].
 func TestWSGGSheetTables(t *testing.T) {
 	t.Parallel()
 	atm := StandardAtmosphere
@@ -91,7 +91,7 @@ func TestWSGGSheetTables(t *testing.T) {
 		{WSGGCO2Lean, 0, 0.1, 1.0, "0.115825", "0.094793", "0.1"},
 	} {
 		g := RadiatingGas{Set: c.set, PH2O: c.pw * atm, PCO2: c.pc * atm, PathLength: c.L}
-		name := fmt.Sprintf("gas-radiation.md §2 %v pw=%g pc=%g L=%g", c.set, c.pw, c.pc, c.L)
+		name := fmt.Sprintf("docs/reference/gas-radiation.md §2 %v pw=%g pc=%g L=%g", c.set, c.pw, c.pc, c.L)
 		e, _, err := g.Emissivity(1000)
 		mustNoErr(t, err)
 		printed(t, name+" ε(1000 K)", e, c.e1000)
@@ -100,7 +100,7 @@ func TestWSGGSheetTables(t *testing.T) {
 		_, paL, _, _ := g.check("")
 		printed(t, name+" pa·L", paL, c.paL)
 	}
-	// Weights of the pw/pc = 1 set, gas-radiation.md §2 [C].
+	// Weights of the pw/pc = 1 set, docs/reference/gas-radiation.md §2 [C].
 	for _, c := range []struct {
 		T float64
 		a [4]string
@@ -110,12 +110,12 @@ func TestWSGGSheetTables(t *testing.T) {
 	} {
 		a := WSGGRatio1.Weights(c.T)
 		for i := range a {
-			printed(t, fmt.Sprintf("pw/pc=1 a%d at %g K (gas-radiation.md §2)", i, c.T), a[i], c.a[i])
+			printed(t, fmt.Sprintf("pw/pc=1 a%d at %g K (docs/reference/gas-radiation.md §2)", i, c.T), a[i], c.a[i])
 		}
 	}
 }
 
-// TestWSGGWeightSigns checks "Sign of the weights [C]" of gas-radiation.md
+// TestWSGGWeightSigns checks "Sign of the weights [C]" of docs/reference/gas-radiation.md
 // §1.4, evaluated every 10 K over 600-2400 K: a0 > 0 in every set with
 // minimum 0.244 (pw/pc = 2); a3 of the H2O sets dips to −0.0006 (pw → 0)
 // and −0.0003 (pw = 1 atm). Tolerance: the sheet's rounding.
@@ -148,7 +148,7 @@ func TestWSGGWeightSigns(t *testing.T) {
 	}
 }
 
-// TestSelectWSGGSet follows the switching rule of copy A (gas-radiation.md
+// TestSelectWSGGSet follows the switching rule of copy A (docs/reference/gas-radiation.md
 // §1.4 [CP]) and the sheet's choice for HFO flue gas (pw/pc = 0.76 → set 1),
 // gas oil (0.91 → set 1) and methane (2 → set 2).
 func TestSelectWSGGSet(t *testing.T) {
@@ -158,7 +158,7 @@ func TestSelectWSGGSet(t *testing.T) {
 		pw, pc float64
 		want   WSGGSet
 	}{
-		{0.0950, 0.1247, WSGGRatio1}, // HFO, plant-checks.md §2.1 (pw/pc = 0.76)
+		{0.0950, 0.1247, WSGGRatio1}, // HFO, docs/reference/plant-checks.md §2.1 (pw/pc = 0.76)
 		{0.091, 0.100, WSGGRatio1},   // gas oil pw/pc = 0.91
 		{0.18, 0.09, WSGGRatio2},     // methane pw/pc = 2
 		{0.05, 0.1, WSGGCO2Lean},     // pw = 0.5·pc: boundary belongs to the CO2 set
@@ -174,11 +174,11 @@ func TestSelectWSGGSet(t *testing.T) {
 	// WSGGAuto in RadiatingGas uses the rule.
 	g := RadiatingGas{PH2O: 0.095 * atm, PCO2: 0.125 * atm, PathLength: 0.922}
 	e, _, _ := g.Emissivity(1000)
-	printed(t, "auto set for HFO gas (gas-radiation.md §2)", e, "0.261486")
+	printed(t, "auto set for HFO gas (docs/reference/gas-radiation.md §2)", e, "0.261486")
 }
 
 // TestWSGGWarningsAndErrors: outside 600-2400 K or 0.001-10 atm·m the value
-// is computed and flagged (ranges from memory, gas-radiation.md §1.1 [M]);
+// is computed and flagged (ranges from memory, docs/reference/gas-radiation.md §1.1 [M]);
 // nonsense is an error.
 func TestWSGGWarningsAndErrors(t *testing.T) {
 	t.Parallel()
@@ -246,43 +246,43 @@ func TestAbsorptivity(t *testing.T) {
 	}
 }
 
-// TestBeamLength checks gas-radiation.md §4.
+// TestBeamLength checks docs/reference/gas-radiation.md §4.
 func TestBeamLength(t *testing.T) {
 	t.Parallel()
 	// L0 = 4V/A by hand [C]: sphere 2D/3, long cylinder D, slab 2s.
 	D := 1.3
 	l, _ := BeamLengthThin(math.Pi*D*D*D/6, math.Pi*D*D)
-	withinRel(t, "sphere 4V/A = 2D/3 (gas-radiation.md §4)", l, 2*D/3, 1e-15)
+	withinRel(t, "sphere 4V/A = 2D/3 (docs/reference/gas-radiation.md §4)", l, 2*D/3, 1e-15)
 	l, _ = BeamLengthThin(math.Pi*D*D/4*1, math.Pi*D*1) // per metre, curved surface only
-	withinRel(t, "long cylinder 4V/A = D (gas-radiation.md §4)", l, D, 1e-15)
+	withinRel(t, "long cylinder 4V/A = D (docs/reference/gas-radiation.md §4)", l, D, 1e-15)
 	s := 0.4
 	l, _ = BeamLengthThin(s*1, 2*1)
-	withinRel(t, "slab 4V/A = 2s (gas-radiation.md §4)", l, 2*s, 1e-15)
+	withinRel(t, "slab 4V/A = 2s (docs/reference/gas-radiation.md §4)", l, 2*s, 1e-15)
 
 	// Furnace D = 1.2 m, length 3.5 m, ends included [C]: L_m = 0.922 m,
 	// 4V/A = 1.024 m, 0.95·D = 1.14 m.
 	V := math.Pi * 0.36 * 3.5
 	A := math.Pi*1.2*3.5 + 2*math.Pi*0.36
-	printed(t, "furnace V (heat-transfer.md §8)", V, "3.9584")
-	printed(t, "furnace A_w (heat-transfer.md §8)", A, "15.4566")
+	printed(t, "furnace V (docs/reference/heat-transfer.md §8)", V, "3.9584")
+	printed(t, "furnace A_w (docs/reference/heat-transfer.md §8)", A, "15.4566")
 	lm, err := BeamLength(V, A)
 	mustNoErr(t, err)
-	printed(t, "furnace L_m = 3.6 V/A (gas-radiation.md §4)", lm, "0.922")
-	printed(t, "furnace L_m (heat-transfer.md §8)", lm, "0.9220")
+	printed(t, "furnace L_m = 3.6 V/A (docs/reference/gas-radiation.md §4)", lm, "0.922")
+	printed(t, "furnace L_m (docs/reference/heat-transfer.md §8)", lm, "0.9220")
 	l0, _ := BeamLengthThin(V, A)
-	printed(t, "furnace 4V/A (gas-radiation.md §4)", l0, "1.024")
+	printed(t, "furnace 4V/A (docs/reference/gas-radiation.md §4)", l0, "1.024")
 	lc, _ := BeamLengthShape(LongCylinder, 1.2)
-	printed(t, "0.95 D (gas-radiation.md §4)", lc, "1.14")
+	printed(t, "0.95 D (docs/reference/gas-radiation.md §4)", lc, "1.14")
 	// Smoke tube d_i = 56.3 mm: L_m = 53.5 mm [C].
 	lt, _ := BeamLengthShape(LongCylinder, 0.0563)
-	printed(t, "smoke tube L_m (gas-radiation.md §4)", lt*1000, "53.5")
+	printed(t, "smoke tube L_m (docs/reference/gas-radiation.md §4)", lt*1000, "53.5")
 	// Factors of Hottel's table [S, memory].
 	for _, c := range []struct {
 		s BeamShape
 		f float64
 	}{{Sphere, 0.65}, {CylinderHD, 0.60}, {Slab, 1.8}, {CubeFace, 0.60}, {BankTriangle2D, 3.0}, {BankTriangle3D, 3.8}, {BankSquare2D, 3.5}} {
 		l, _ := BeamLengthShape(c.s, 2)
-		withinRel(t, fmt.Sprintf("shape %d factor (gas-radiation.md §4, from memory)", c.s), l, 2*c.f, 1e-15)
+		withinRel(t, fmt.Sprintf("shape %d factor (docs/reference/gas-radiation.md §4, from memory)", c.s), l, 2*c.f, 1e-15)
 	}
 	if _, err := BeamLength(-1, 2); !errors.Is(err, ErrInput) {
 		t.Errorf("negative volume: want ErrInput, got %v", err)
@@ -292,7 +292,7 @@ func TestBeamLength(t *testing.T) {
 	}
 }
 
-// TestTubeRadiation checks the smoke-tube figures of gas-radiation.md §4
+// TestTubeRadiation checks the smoke-tube figures of docs/reference/gas-radiation.md §4
 // [C, pw/pc = 1 set]: pa = 0.22 atm, L = 0.95·56.3 mm, pa·L = 0.0118 atm·m;
 // ε_g = 0.107, 0.088, 0.072 at 600, 800, 1000 K; with ε_w = 0.8 and the wall
 // at 470 K, h_rad = 3.7, 5.3, 7.2 W/(m²·K).
@@ -319,7 +319,7 @@ func TestTubeRadiation(t *testing.T) {
 	}
 }
 
-// TestSoot checks gas-radiation.md §5 [C]: C0 = 7.0274 and 3.72·C0/C2 =
+// TestSoot checks docs/reference/gas-radiation.md §5 [C]: C0 = 7.0274 and 3.72·C0/C2 =
 // 1816.9 (Shaddix n, k), 3.83·C0/C2 = 1870.7, Dalzell-Sarofim C0 = 4.8922 and
 // 1264.9; the example f_v = 1e-7, T = 1450 K, L = 0.922 m gives ε_soot =
 // 0.216, and with ε_gas = 0.211, ε_flame = 0.381.
@@ -343,7 +343,7 @@ func TestSoot(t *testing.T) {
 	withinRel(t, "blended flame emissivity", b, 0.55*0.6+0.45*0.2, 1e-15)
 }
 
-// TestEffectiveEmissivity: ε_eff = 1/(1/ε_g + 1/ε_w − 1), heat-transfer.md
+// TestEffectiveEmissivity: ε_eff = 1/(1/ε_g + 1/ε_w − 1), docs/reference/heat-transfer.md
 // §8 (the case values B and C are checked in TestFurnaceSheetCases, from
 // unrounded ε_g); here the algebra: 0.5 and 0.5 give 1/3.
 func TestEffectiveEmissivity(t *testing.T) {
@@ -362,7 +362,7 @@ func TestEffectiveEmissivity(t *testing.T) {
 	}
 }
 
-// TestWSGGCopyCClearGas: copy C of gas-radiation.md §1.3 stores the
+// TestWSGGCopyCClearGas: copy C of docs/reference/gas-radiation.md §1.3 stores the
 // pw/pc = 2 clear-gas weight as a0 = 1 − (8.9756·1e-1 − 2.557·1e-4·T +
 // 0.368·1e-7·T² − 0.437·1e-11·T³), the column sums of the printed rows: an
 // internal consistency check of the embedded set.

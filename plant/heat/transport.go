@@ -4,7 +4,7 @@ import "math"
 
 // Species indexes the gases this package knows: the main constituents of
 // flue gas and air. Other species (SO2, CO) must be folded into one of these
-// by the caller (heat-transfer.md §1.3 folds SO2 into N2).
+// by the caller (docs/reference/heat-transfer.md §1.3 folds SO2 into N2).
 type Species int
 
 // The species, in the order used by Composition.
@@ -27,11 +27,11 @@ func (s Species) String() string {
 }
 
 // molarMass holds the molar masses in kg/mol (CEA thermo data, as listed in
-// heat-transfer.md §1.2 [C]: 28.0134, 31.9988, 44.0095, 18.01528, 39.948 g/mol).
+// docs/reference/heat-transfer.md §1.2 [C]: 28.0134, 31.9988, 44.0095, 18.01528, 39.948 g/mol).
 var molarMass = [NumSpecies]float64{28.0134e-3, 31.9988e-3, 44.0095e-3, 18.01528e-3, 39.948e-3}
 
 // MolarMass returns the molar mass of a species in kg/mol (CEA thermo data,
-// heat-transfer.md §1.2). An unknown species panics.
+// docs/reference/heat-transfer.md §1.2). An unknown species panics.
 func (s Species) MolarMass() float64 {
 	if s < 0 || s >= NumSpecies {
 		panic("heat: species index out of range")
@@ -43,7 +43,7 @@ func (s Species) MolarMass() float64 {
 // Species. It is a fixed-size array, so passing it costs no allocation.
 type Composition [NumSpecies]float64
 
-// DryAir returns dry air as used for the check values of heat-transfer.md
+// DryAir returns dry air as used for the check values of docs/reference/heat-transfer.md
 // §1.3: x_N2 0.7808, x_O2 0.2095, x_Ar 0.0093, x_CO2 0.0004.
 func DryAir() Composition {
 	return Composition{N2: 0.7808, O2: 0.2095, CO2: 0.0004, Ar: 0.0093}
@@ -98,7 +98,7 @@ func (f *nasaFit) evalLn(lnT, invT float64) float64 {
 // 69f64a4), entry headers "BOUSHEHRI ET AL (1987) SVEHLA (1994)" for N2, O2
 // and CO2, "SENGERS & WATSON (1986) SVEHLA (1994)" for H2O and "BICH ET AL
 // (1990)" for Ar. Copied digit for digit from gas-transport.csv
-// (heat-transfer.md §1.1 [S✓]); viscosity in micropoise, conductivity in
+// (docs/reference/heat-transfer.md §1.1 [S✓]); viscosity in micropoise, conductivity in
 // μW/(cm·K). The test TestNASACoefficientsMatchCSV compares every number
 // with testdata/gas-transport.csv.
 var viscosityFits = [NumSpecies][3]nasaFit{
@@ -191,7 +191,7 @@ type TransportOptions struct {
 	AllowExtrapolation bool
 	// Epsilon is the factor of the Mason-Saxena A_ij = ε·Φ_ij in the
 	// Wassiljewa conductivity rule. 0 means 1.0 (Poling's recommendation,
-	// heat-transfer.md §1.2 [S, memory]); Mason & Saxena used 1.065.
+	// docs/reference/heat-transfer.md §1.2 [S, memory]); Mason & Saxena used 1.065.
 	Epsilon float64
 }
 
@@ -226,7 +226,7 @@ func rangeText(lo, hi float64) string {
 }
 
 // SpeciesViscosity returns the dynamic viscosity of a pure species in Pa·s
-// from the NASA CEA trans.inp fit (heat-transfer.md §1.1 [S✓]). Valid over
+// from the NASA CEA trans.inp fit (docs/reference/heat-transfer.md §1.1 [S✓]). Valid over
 // 200-15000 K (CO2 to 10000 K, H2O from 373.2 K); outside, it returns an
 // ErrRange error unless opt.AllowExtrapolation is set.
 func SpeciesViscosity(s Species, T float64, opt TransportOptions) (float64, Warning, error) {
@@ -235,7 +235,7 @@ func SpeciesViscosity(s Species, T float64, opt TransportOptions) (float64, Warn
 }
 
 // SpeciesConductivity returns the thermal conductivity of a pure species in
-// W/(m·K) from the NASA CEA trans.inp fit (heat-transfer.md §1.1 [S✓]).
+// W/(m·K) from the NASA CEA trans.inp fit (docs/reference/heat-transfer.md §1.1 [S✓]).
 // Ranges and errors as SpeciesViscosity.
 func SpeciesConductivity(s Species, T float64, opt TransportOptions) (float64, Warning, error) {
 	v, w, err := speciesFit(&conductivityFits, whereSpeciesK, s, T, opt.AllowExtrapolation)
@@ -251,7 +251,7 @@ type GasTransport struct {
 
 // MixTransport returns viscosity and conductivity of a mixture at T (K):
 // viscosity by Wilke's rule, conductivity by the Wassiljewa equation with
-// the Mason-Saxena A_ij = ε·Φ_ij (heat-transfer.md §1.2 [S, Poling et al.
+// the Mason-Saxena A_ij = ε·Φ_ij (docs/reference/heat-transfer.md §1.2 [S, Poling et al.
 // 5th ed. §9-5 and §10-6, from memory]):
 //
 //	η_mix = Σ_i x_i·η_i / Σ_j x_j·Φ_ij
@@ -334,7 +334,7 @@ var wilkeM = func() (m [NumSpecies][NumSpecies]wilkeMass) {
 
 // SutherlandViscosity returns η = η0·(T/T0)^(3/2)·(T0+S)/(T+S) in Pa·s with
 // the constants of White, Viscous Fluid Flow (2006), Tables 1-2 and 1-3, for
-// air: η0 = 1.716e-5 Pa·s, T0 = 273 K, S = 111 K (heat-transfer.md §1.3
+// air: η0 = 1.716e-5 Pa·s, T0 = 273 K, S = 111 K (docs/reference/heat-transfer.md §1.3
 // [S✓ constants]). For air only, and only for a cross-check: it is within
 // about 2 % of the reference correlation below 600 K, so T above 600 K
 // returns an ErrRange error, as does T below 200 K.

@@ -8,15 +8,15 @@ import (
 	"testing"
 )
 
-// flueTest is the test flue gas of heat-transfer.md §1.3 (HFO at λ = 1.15,
+// flueTest is the test flue gas of docs/reference/heat-transfer.md §1.3 (HFO at λ = 1.15,
 // SO2 folded into N2).
 var flueTest = Composition{N2: 0.7540, CO2: 0.1250, H2O: 0.0950, O2: 0.0260}
 
-// air is dry air of heat-transfer.md §1.3.
+// air is dry air of docs/reference/heat-transfer.md §1.3.
 var air = DryAir()
 
 // TestNASACoefficientsMatchCSV compares every embedded coefficient with
-// testdata/gas-transport.csv (NASA CEA data/trans.inp, heat-transfer.md §1.1 [S✓]).
+// testdata/gas-transport.csv (NASA CEA data/trans.inp, docs/reference/heat-transfer.md §1.1 [S✓]).
 func TestNASACoefficientsMatchCSV(t *testing.T) {
 	t.Parallel()
 	col, rows := readCSV(t, "gas-transport.csv")
@@ -77,7 +77,7 @@ func TestTransportCheckValues(t *testing.T) {
 		name := fmt.Sprintf("%s %g K (%s; %s)", fluid, T, method, r[col["provenance"]])
 		switch {
 		case method == "NASA CEA trans.inp fit":
-			// [C] heat-transfer.md §1.3, to the printed rounding (7 digits).
+			// [C] docs/reference/heat-transfer.md §1.3, to the printed rounding (7 digits).
 			s := speciesByName(t, fluid)
 			extrap := strings.Contains(r[col["provenance"]], "extrapolated")
 			mu, wm, err := SpeciesViscosity(s, T, TransportOptions{})
@@ -97,7 +97,7 @@ func TestTransportCheckValues(t *testing.T) {
 			printed(t, name+" λ", k, kS)
 			counts["species"]++
 		case strings.HasPrefix(method, "NASA fits") || strings.HasPrefix(method, "as air"):
-			// [C] heat-transfer.md §1.3: NASA fits + Wilke + Wassiljewa ε = 1, printed rounding.
+			// [C] docs/reference/heat-transfer.md §1.3: NASA fits + Wilke + Wassiljewa ε = 1, printed rounding.
 			x := air
 			if fluid == "flue_test" {
 				x = flueTest
@@ -118,7 +118,7 @@ func TestTransportCheckValues(t *testing.T) {
 			printed(t, name+" λ", g.Conductivity, kS)
 			counts["mix"]++
 		case strings.HasPrefix(method, "Lemmon & Jacobsen (2004) air correlation"):
-			// Independent route, heat-transfer.md §1.3: suggested tolerance
+			// Independent route, docs/reference/heat-transfer.md §1.3: suggested tolerance
 			// against third-party air tables ±1 % for η and ±4 % for λ.
 			g, err := MixTransport(&air, T, TransportOptions{})
 			mustNoErr(t, err)
@@ -126,7 +126,7 @@ func TestTransportCheckValues(t *testing.T) {
 			withinRel(t, name+" λ", g.Conductivity, parse(t, kS), 0.04)
 			counts["lemmon"]++
 		case strings.HasPrefix(method, "IAPWS 2008"):
-			// heat-transfer.md §1.3 [C]: NASA H2O within 0.6 % in η and
+			// docs/reference/heat-transfer.md §1.3 [C]: NASA H2O within 0.6 % in η and
 			// 2.3 % in λ of IAPWS 2008/2011 (python3-iapws 1.5.3) over 400-1200 K.
 			mu, _, err := SpeciesViscosity(H2O, T, TransportOptions{})
 			mustNoErr(t, err)
@@ -136,7 +136,7 @@ func TestTransportCheckValues(t *testing.T) {
 			withinRel(t, name+" λ", k, parse(t, kS), 0.0235)
 			counts["iapws"]++
 		case strings.HasPrefix(method, "Incropera & DeWitt"):
-			// From memory (the CSV says so). heat-transfer.md §1.3 compares
+			// From memory (the CSV says so). docs/reference/heat-transfer.md §1.3 compares
 			// only the 300 K row: NASA+Wilke is +0.49 % on η and −0.52 % on λ
 			// (checked to the sheet's rounding, 0.005 %). The other rows of
 			// the memory table differ from Lemmon-Jacobsen by up to 2 %, so
@@ -181,7 +181,7 @@ func TestTransportCheckValues(t *testing.T) {
 	}
 }
 
-// TestWassiljewaEpsilon checks "Effect of ε for air [C]" of heat-transfer.md
+// TestWassiljewaEpsilon checks "Effect of ε for air [C]" of docs/reference/heat-transfer.md
 // §1.2: ε = 1.065 lowers λ_air by about 2.2 %, ε = 0.85 raises it by about
 // 5.5-5.7 % (tolerance: the sheet's rounding).
 func TestWassiljewaEpsilon(t *testing.T) {
@@ -226,7 +226,7 @@ func TestFitRangesAgree(t *testing.T) {
 			}
 		}
 	}
-	// Molar masses of heat-transfer.md §1.2 (g/mol).
+	// Molar masses of docs/reference/heat-transfer.md §1.2 (g/mol).
 	for s, want := range [NumSpecies]float64{28.0134, 31.9988, 44.0095, 18.01528, 39.948} {
 		withinRel(t, Species(s).String()+" M", Species(s).MolarMass()*1000, want, 1e-15)
 	}
@@ -247,7 +247,7 @@ func TestTransportErrors(t *testing.T) {
 			t.Errorf("T = %g: want ErrInput, got %v", T, err)
 		}
 	}
-	// Range ends of the fits (heat-transfer.md §1.1 ranges table).
+	// Range ends of the fits (docs/reference/heat-transfer.md §1.1 ranges table).
 	if _, _, err := SpeciesViscosity(N2, 199, TransportOptions{}); !errors.Is(err, ErrRange) {
 		t.Errorf("N2 at 199 K: want ErrRange, got %v", err)
 	}
@@ -286,7 +286,7 @@ func TestFitJoins(t *testing.T) {
 	}
 }
 
-// wilkePhi is Wilke's Φ_ij written out directly (heat-transfer.md §1.2):
+// wilkePhi is Wilke's Φ_ij written out directly (docs/reference/heat-transfer.md §1.2):
 // [1 + (η_i/η_j)^½·(M_j/M_i)^¼]² / [8·(1 + M_i/M_j)]^½.
 func wilkePhi(etaI, etaJ, mI, mJ float64) float64 {
 	r := 1 + math.Sqrt(etaI/etaJ)*math.Pow(mJ/mI, 0.25)
@@ -294,7 +294,7 @@ func wilkePhi(etaI, etaJ, mI, mJ float64) float64 {
 }
 
 // TestWilkeBinary: for a binary N2-CO2 mixture MixTransport equals Wilke's
-// and Wassiljewa's formulas written out by hand (heat-transfer.md §1.2), and
+// and Wassiljewa's formulas written out by hand (docs/reference/heat-transfer.md §1.2), and
 // Φ_ii = 1.
 func TestWilkeBinary(t *testing.T) {
 	t.Parallel()

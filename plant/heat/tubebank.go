@@ -14,7 +14,7 @@ const (
 // ZukauskasForm chooses the constant table of the Zukauskas correlation.
 type ZukauskasForm int
 
-// Zukauskas constant tables (heat-transfer.md §4).
+// Zukauskas constant tables (docs/reference/heat-transfer.md §4).
 const (
 	// ZukauskasTextbook is the table of Incropera & DeWitt, Table 7.5: bands
 	// 10-1e2, 1e3-2e5 and 2e5-2e6. Between 1e2 and 1e3 the textbook says to
@@ -30,7 +30,7 @@ const (
 // RowCorrection chooses the source of the row-count correction C2.
 type RowCorrection int
 
-// Row-count correction sources (heat-transfer.md §4).
+// Row-count correction sources (docs/reference/heat-transfer.md §4).
 const (
 	// RowsTextbook: Incropera Table 7.6 (in-line [S, memory], staggered [S✓,
 	// one code]), interpolated linearly in N_L between the tabulated rows
@@ -39,7 +39,7 @@ const (
 	// The default.
 	RowsTextbook RowCorrection = iota
 	// RowsDigitised: the values digitised from Zukauskas' graph in a public
-	// library, N_L = 1…19 (heat-transfer.md §4 [S✓]).
+	// library, N_L = 1…19 (docs/reference/heat-transfer.md §4 [S✓]).
 	RowsDigitised
 )
 
@@ -81,7 +81,7 @@ func (b *TubeBank) validate(where string) error {
 }
 
 // MaxVelocity returns V_max from the approach velocity V (m/s), Incropera
-// (heat-transfer.md §4 [memory]): in-line S_T·V/(S_T − D); staggered the
+// (docs/reference/heat-transfer.md §4 [memory]): in-line S_T·V/(S_T − D); staggered the
 // same unless 2(S_D − D) < (S_T − D), then S_T·V/[2(S_D − D)].
 func (b TubeBank) MaxVelocity(V float64) (float64, error) {
 	const where = "tube bank maximum velocity"
@@ -168,7 +168,7 @@ func interpRows(tab *[10]float64, n int) float64 {
 //	Nu_D = C1·C2·Re_D,max^m·Pr^0.36·(Pr/Pr_s)^¼
 //
 // A. Zukauskas, "Heat transfer from tubes in crossflow", Advances in Heat
-// Transfer 8:93-160 (1972) (heat-transfer.md §4 [S✓ for 1e3-2e5]). Pr at
+// Transfer 8:93-160 (1972) (docs/reference/heat-transfer.md §4 [S✓ for 1e3-2e5]). Pr at
 // the mean fluid temperature, PrS at the surface temperature (for gases pass
 // PrS = Pr). Re_D,max outside the table (10-2e6 textbook, 1-2e6 Bejan form;
 // 1e2-1e3 not covered by the textbook form) gives an ErrRange error; Pr

@@ -6,7 +6,7 @@ import (
 	"testing"
 )
 
-// TestZukauskasSheetTable checks heat-transfer.md §4 [C]: Pr = 0.70,
+// TestZukauskasSheetTable checks docs/reference/heat-transfer.md §4 [C]: Pr = 0.70,
 // (Pr/Pr_s)^¼ = 1; staggered S_T/S_L = 1.25 and in-line, N_L ≥ 20 and
 // × C2 = 0.97 (N_L = 10, textbook table).
 func TestZukauskasSheetTable(t *testing.T) {
@@ -21,7 +21,7 @@ func TestZukauskasSheetTable(t *testing.T) {
 		{10000, "80.8510", "78.4255", "78.6320", "76.2730"},
 		{20000, "122.5472", "118.8708", "121.6881", "118.0374"},
 	} {
-		name := fmt.Sprintf("heat-transfer.md §4 Re=%g", c.Re)
+		name := fmt.Sprintf("docs/reference/heat-transfer.md §4 Re=%g", c.Re)
 		for _, k := range []struct {
 			b    TubeBank
 			rows int
@@ -35,7 +35,7 @@ func TestZukauskasSheetTable(t *testing.T) {
 			if w != 0 {
 				t.Errorf("%s: unexpected warning %v", name, w)
 			}
-			// In this band the Bejan form coincides (heat-transfer.md §4).
+			// In this band the Bejan form coincides (docs/reference/heat-transfer.md §4).
 			b.Form = ZukauskasBejan
 			nb, _, _ := b.Nusselt(c.Re, 0.7, 0.7)
 			withinRel(t, name+" Bejan form coincides", nb, nu, 1e-15)
@@ -44,7 +44,7 @@ func TestZukauskasSheetTable(t *testing.T) {
 }
 
 // TestZukauskasPublished: in-line, Re = 1e4, Pr = 7, 10 rows, the library's
-// digitised C2 = 0.9766 gives Nu = 175.9202277145248 (heat-transfer.md §4
+// digitised C2 = 0.9766 gives Nu = 175.9202277145248 (docs/reference/heat-transfer.md §4
 // [S✓, library docstring]), to 1e-12. And the vendor-page ratio in-line /
 // staggered at Re_D,max = 15905, S_T/S_L = 1: 1.0312 [C].
 func TestZukauskasPublished(t *testing.T) {
@@ -63,10 +63,10 @@ func TestZukauskasPublished(t *testing.T) {
 	st.Arrangement = Staggered
 	ni, _, _ := in.Nusselt(15905, 0.7, 0.7)
 	ns, _, _ := st.Nusselt(15905, 0.7, 0.7)
-	printed(t, "vendor page ratio in-line/staggered (heat-transfer.md §4)", ni/ns, "1.0312")
+	printed(t, "vendor page ratio in-line/staggered (docs/reference/heat-transfer.md §4)", ni/ns, "1.0312")
 }
 
-// TestRowFactor checks the C2 tables of heat-transfer.md §4 at the tabulated
+// TestRowFactor checks the C2 tables of docs/reference/heat-transfer.md §4 at the tabulated
 // rows and the linear interpolation between them (this package's stated
 // choice).
 func TestRowFactor(t *testing.T) {
@@ -111,7 +111,7 @@ func TestRowFactor(t *testing.T) {
 }
 
 // TestTubeBankRanges: Re outside the tables is refused; Pr and pitch ratio
-// outside the memory ranges are flagged (heat-transfer.md §4).
+// outside the memory ranges are flagged (docs/reference/heat-transfer.md §4).
 func TestTubeBankRanges(t *testing.T) {
 	t.Parallel()
 	b := TubeBank{Arrangement: Staggered, D: 0.04, ST: 0.1, SL: 0.08, Rows: 20}
@@ -143,7 +143,7 @@ func TestTubeBankRanges(t *testing.T) {
 	}
 }
 
-// TestMaxVelocity: V_max rules of heat-transfer.md §4 (Incropera, memory).
+// TestMaxVelocity: V_max rules of docs/reference/heat-transfer.md §4 (Incropera, memory).
 func TestMaxVelocity(t *testing.T) {
 	t.Parallel()
 	in := TubeBank{Arrangement: InLine, D: 0.04, ST: 0.1, SL: 0.08, Rows: 10}

@@ -16,7 +16,7 @@ type SmokeTubes struct {
 	FoulingWater     float64 // scale on the outside surface, m²·K/W
 	// WallEmissivity of the inside surface for gas radiation in the tubes
 	// (about 0.8 [M]); 0 leaves gas radiation out. With radiation the
-	// mean beam length is 0.95·d_i (long cylinder, gas-radiation.md §4 [S,
+	// mean beam length is 0.95·d_i (long cylinder, docs/reference/gas-radiation.md §4 [S,
 	// memory]) and the radiating wall is taken at the water temperature.
 	WallEmissivity float64
 	Set            WSGGSet  // WSGG set for tube radiation (WSGGAuto: by pw/pc)

@@ -6,7 +6,7 @@ import (
 	"testing"
 )
 
-// sheetTubes is a smoke-tube pass in the style of heat-transfer.md §5: 56.3 mm
+// sheetTubes is a smoke-tube pass in the style of docs/reference/heat-transfer.md §5: 56.3 mm
 // bore, 3.6 mm wall, soot 0.001 m²·K/W, scale 0.0002 m²·K/W, k_w = 47,
 // boiling h_w = 10 000 W/(m²·K), water at 10 bar (453.0 K); 1.403 kg/s of
 // the test flue gas at 1200 K from the furnace, c_p = 1250 J/(kg·K).
@@ -54,7 +54,7 @@ func TestTubePassLimits(t *testing.T) {
 
 // TestTubePassConsistency: at the solution the reported state satisfies the
 // model's own equations (ε-NTU with T_sat constant, Q = U·A·LMTD, and the
-// resistance series of heat-transfer.md §5).
+// resistance series of docs/reference/heat-transfer.md §5).
 func TestTubePassConsistency(t *testing.T) {
 	t.Parallel()
 	s, in := sheetTubes()
@@ -77,14 +77,14 @@ func TestTubePassConsistency(t *testing.T) {
 		t.Error("WallEmissivity 0 must leave radiation out")
 	}
 	// Plausibility against the worked example (h_g ≈ 43 W/(m²·K) at Re ≈ 17 700,
-	// heat-transfer.md §5): the same gas and bore give 30-60 W/(m²·K) here.
+	// docs/reference/heat-transfer.md §5): the same gas and bore give 30-60 W/(m²·K) here.
 	if r.HConvection < 30 || r.HConvection > 60 {
 		t.Errorf("h_conv = %g, outside 30-60", r.HConvection)
 	}
 }
 
 // TestTubePassRadiation: gas radiation adds 10-15 % to the convective
-// coefficient in smoke tubes (gas-radiation.md §4 [C]: h_rad 3.7-7.2 against
+// coefficient in smoke tubes (docs/reference/gas-radiation.md §4 [C]: h_rad 3.7-7.2 against
 // h_conv 40-50 W/(m²·K)), and so lowers the exit temperature.
 func TestTubePassRadiation(t *testing.T) {
 	t.Parallel()
@@ -107,7 +107,7 @@ func TestTubePassRadiation(t *testing.T) {
 }
 
 // TestTubePassCooper: with the water side from Cooper (no WaterHTC), h_w is
-// Cooper's at the mean outside flux of the solution (heat-transfer.md §6).
+// Cooper's at the mean outside flux of the solution (docs/reference/heat-transfer.md §6).
 func TestTubePassCooper(t *testing.T) {
 	t.Parallel()
 	s, in := sheetTubes()

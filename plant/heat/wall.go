@@ -3,14 +3,14 @@ package heat
 import "math"
 
 // FoulingUnit converts a fouling resistance in h·ft²·°F/Btu to m²·K/W:
-// 1/5.678263337 = 0.176110 (heat-transfer.md §5 [C]; 1 Btu_IT/(h·ft²·°F) =
+// 1/5.678263337 = 0.176110 (docs/reference/heat-transfer.md §5 [C]; 1 Btu_IT/(h·ft²·°F) =
 // 5.678263337 W/(m²·K)).
 const FoulingUnit = 1 / 5.678263337
 
 // TEMA fouling resistances in m²·K/W, from the values in h·ft²·°F/Btu of the
 // Standards of the Tubular Exchanger Manufacturers Association, table
 // RGP-T-2.4 (table number from memory; values seen in two secondary
-// reproductions, heat-transfer.md §5 [S✓]). No TEMA entry for heavy fuel oil
+// reproductions, docs/reference/heat-transfer.md §5 [S✓]). No TEMA entry for heavy fuel oil
 // flue gas was seen: for oil-fired boilers use a soot allowance
 // (SootLayerResistance, or 0.001-0.005 m²·K/W [CP/M]).
 const (
@@ -23,7 +23,7 @@ const (
 	FoulingDistilledOrCondensate = 0.0005 * FoulingUnit // distilled or demineralised water, condensate
 )
 
-// Typical conductivities of deposits, from memory (heat-transfer.md §5 [M]).
+// Typical conductivities of deposits, from memory (docs/reference/heat-transfer.md §5 [M]).
 const (
 	SootConductivityLow  = 0.05 // W/(m·K), soot, low end
 	SootConductivityHigh = 0.1  // W/(m·K), soot, high end
@@ -47,7 +47,7 @@ func LayerResistance(t, k float64) (float64, error) {
 
 // WallResistancePerLength returns the resistance of a cylindrical wall per
 // metre of tube, R' = ln(r_o/r_i)/(2·π·k) in K·m/W (exact for steady radial
-// conduction, heat-transfer.md §5).
+// conduction, docs/reference/heat-transfer.md §5).
 func WallResistancePerLength(di, do, k float64) (float64, error) {
 	if err := checkTube("cylindrical wall", di, do); err != nil {
 		return 0, err
@@ -79,7 +79,7 @@ const (
 
 // TubeWall is the series of resistances across a tube wall: an inside film,
 // inside fouling, the cylindrical wall, outside fouling and an outside film
-// (heat-transfer.md §5). Smoke tubes have the gas inside, economiser tubes
+// (docs/reference/heat-transfer.md §5). Smoke tubes have the gas inside, economiser tubes
 // the water inside. Fouling resistances are each per unit of their own
 // surface; a film coefficient of +Inf (perfect) is allowed, 0 is not.
 type TubeWall struct {
@@ -145,7 +145,7 @@ func (t TubeWall) U(side Side) (float64, error) {
 
 // SteelConductivity returns the thermal conductivity of carbon and non-alloy
 // steel at temperature T (K) by EN 1993-1-2 (Eurocode 3, fire design),
-// §3.4.1.3 (clause number from memory) (heat-transfer.md §7 [S✓ form]):
+// §3.4.1.3 (clause number from memory) (docs/reference/heat-transfer.md §7 [S✓ form]):
 // λ = 54 − 3.33e-2·θ W/(m·K) for 20 ≤ θ < 800 °C and 27.3 W/(m·K) for
 // 800-1200 °C, θ = T − 273.15. The slope 3.33e-2 is the one that meets 27.3
 // at 800 °C (a secondary copy prints 3.3e-2). Outside 20-1200 °C it returns

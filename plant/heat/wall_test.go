@@ -7,7 +7,7 @@ import (
 	"testing"
 )
 
-// TestTEMAFouling: heat-transfer.md §5 table, h·ft²·°F/Btu → m²·K/W with
+// TestTEMAFouling: docs/reference/heat-transfer.md §5 table, h·ft²·°F/Btu → m²·K/W with
 // 1 h·ft²·°F/Btu = 0.176110 m²·K/W [C]; TEMA RGP-T-2.4 values [S✓].
 func TestTEMAFouling(t *testing.T) {
 	t.Parallel()
@@ -29,7 +29,7 @@ func TestTEMAFouling(t *testing.T) {
 	}
 }
 
-// TestDepositLayers: heat-transfer.md §5 [CP/M]: 1 mm of soot at k =
+// TestDepositLayers: docs/reference/heat-transfer.md §5 [CP/M]: 1 mm of soot at k =
 // 0.05-0.1 W/(m·K) is 0.01-0.02 m²·K/W; 0.1 mm of scale at 0.5-2.5 W/(m·K)
 // is 0.00004-0.0002 m²·K/W.
 func TestDepositLayers(t *testing.T) {
@@ -52,7 +52,7 @@ func TestDepositLayers(t *testing.T) {
 }
 
 // TestWorkedSmokeTube reproduces the worked smoke-tube example of
-// heat-transfer.md §5 [C] through this package's own chain: test flue gas at
+// docs/reference/heat-transfer.md §5 [C] through this package's own chain: test flue gas at
 // 700 K and 1 atm, u = 20 m/s, d_i = 56.3 mm, d_o = 63.5 mm, k_w = 47,
 // c_p = 1158.32 J/(kg·K) (given by the sheet, from NASA TM-4513
 // polynomials, which are not part of this package), soot 0.001, boiling
@@ -135,7 +135,7 @@ func TestTubeWallErrors(t *testing.T) {
 	within(t, "U with perfect outside film", 1/u, 1.0/40+0.025*math.Log(0.06/0.05)/47, 1e-15)
 }
 
-// TestSteelConductivity: EN 1993-1-2 §3.4.1.3 (heat-transfer.md §7 [S✓
+// TestSteelConductivity: EN 1993-1-2 §3.4.1.3 (docs/reference/heat-transfer.md §7 [S✓
 // form]), table [C] to its rounding; 27.3 from 800 °C.
 func TestSteelConductivity(t *testing.T) {
 	t.Parallel()
@@ -148,7 +148,7 @@ func TestSteelConductivity(t *testing.T) {
 		printed(t, fmt.Sprintf("steel λ at %g °C", c.theta), k, c.want)
 	}
 	k, _ := SteelConductivity(799.999 + 273.15)
-	printed(t, "54 − 0.0333·800 (heat-transfer.md §7)", k, "27.36")
+	printed(t, "54 − 0.0333·800 (docs/reference/heat-transfer.md §7)", k, "27.36")
 	for _, T := range []float64{273.15, 1500} {
 		if _, err := SteelConductivity(T); !errors.Is(err, ErrRange) {
 			t.Errorf("T = %g K: want ErrRange, got %v", T, err)

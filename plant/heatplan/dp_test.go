@@ -24,7 +24,7 @@ func smallTank(t testing.TB, volume, coil float64) *loads.TankHeating {
 // (the jump), the boilers' capacity at 2.5 MW.
 var testCurve = FuelCurve{Q: []float64{0, 1e6, 1e6, 2.5e6}, F: []float64{0.05, 0.078, 0.095, 0.14}, Boilers: []int{1, 1, 2, 2}, Cap: 2.5e6}
 
-const steam7 = 170.48 + 273.15 // 7 bar(g), plant-checks.md §0 [C]
+const steam7 = 170.48 + 273.15 // 7 bar(g), docs/reference/plant-checks.md §0 [C]
 
 // smallProblem is 3 rows of 24 h and two tanks on a coarse grid (1 K):
 // A from 45 °C must reach 48 °C at the end; B from 46 °C must reach

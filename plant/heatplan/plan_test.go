@@ -24,7 +24,7 @@ func must(t testing.TB, err error) {
 // tanker is an invented tanker's plant: two 12 t/h boilers at 7 bar(g)
 // with a maker's efficiency table, a hotwell, a sundry load and n cargo
 // tanks of HSFO with steam coils (invented figures of realistic size,
-// plant-checks.md §3.5 and §6 [M/CP]).
+// docs/reference/plant-checks.md §3.5 and §6 [M/CP]).
 func tanker(t testing.TB, n int, coil float64) *plant.Plant {
 	drum := 7e5 + 101325
 	fs := plant.FuelSpec{Name: "HSFO", LHV: 40.2e6, CO2Factor: 3.114}
@@ -193,7 +193,7 @@ func TestPlanUnreachable(t *testing.T) {
 	tank := m0.Tank
 	hours, _ := strconv.Atoi(m[2])
 	amb := loads.Ambient{Sea: rows[5].Case.Conditions.SeaT, Air: rows[5].Case.Conditions.AirT}
-	ts := 170.48 + 273.15 // 7 bar(g), plant-checks.md §0 [C]
+	ts := 170.48 + 273.15 // 7 bar(g), docs/reference/plant-checks.md §0 [C]
 	heat := func(h float64) float64 {
 		r, err := tank.Advance(loads.Step{T0: rq.Reached, Dt: h * 3600, Instr: loads.HeatTo, Target: 400, SteamT: ts}, amb)
 		must(t, err)

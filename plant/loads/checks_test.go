@@ -17,7 +17,7 @@ func kelvin(c float64) float64 { return c + 273.15 }
 
 func hsfo(t *testing.T) fuel.Fuel {
 	t.Helper()
-	f, err := fuel.Grade("HSFO") // 380 cSt at 50 °C, 35 cSt at 100 °C: plant-checks.md §5.1 check B assumption
+	f, err := fuel.Grade("HSFO") // 380 cSt at 50 °C, 35 cSt at 100 °C: docs/reference/plant-checks.md §5.1 check B assumption
 	if err != nil {
 		t.Fatal(err)
 	}
@@ -43,7 +43,7 @@ func TestCheckValues(t *testing.T) {
 	}{
 		{
 			name:   "Cragoe cp s 0.991 at 100 °C (kJ/kgK), fuel package",
-			source: "plant-checks.md §5.3 [C] and §11 #8",
+			source: "docs/reference/plant-checks.md §5.3 [C] and §11 #8",
 			got: func(t *testing.T) float64 {
 				c, err := fuel.CragoeCp(0.991, kelvin(100))
 				if err != nil {
@@ -55,7 +55,7 @@ func TestCheckValues(t *testing.T) {
 		},
 		{
 			name:   "Cragoe cp s 0.991 at 100 °C (kJ/kgK), through a Cargo",
-			source: "plant-checks.md §5.3 [C]",
+			source: "docs/reference/plant-checks.md §5.3 [C]",
 			got: func(t *testing.T) float64 {
 				c, err := Cargo{Density: 990, SG: 0.991}.cp(kelvin(100))
 				if err != nil {
@@ -67,7 +67,7 @@ func TestCheckValues(t *testing.T) {
 		},
 		{
 			name:   "heat-up 2000 m3 HFO 30→50 °C in 24 h, losses excluded (kW)",
-			source: "plant-checks.md §6 Checks [C]: Cragoe at 40 °C, s 0.98, ρ 980",
+			source: "docs/reference/plant-checks.md §6 Checks [C]: Cragoe at 40 °C, s 0.98, ρ 980",
 			got: func(t *testing.T) float64 {
 				tk := TankHeating{Name: "FO bunker", Cargo: Cargo{Density: 980, SG: 0.98}, CargoVolume: 2000,
 					Mode: HeatUp, From: kelvin(30), To: kelvin(50), Duration: day}
@@ -84,7 +84,7 @@ func TestCheckValues(t *testing.T) {
 		},
 		{
 			name:   "heat-up mean cp (kJ/kgK)",
-			source: "plant-checks.md §6 Checks [C]: c (Cragoe, 40 °C, s 0.98) 1.839",
+			source: "docs/reference/plant-checks.md §6 Checks [C]: c (Cragoe, 40 °C, s 0.98) 1.839",
 			got: func(t *testing.T) float64 {
 				tk := TankHeating{Name: "FO bunker", Cargo: Cargo{Density: 980, SG: 0.98}, CargoVolume: 2000,
 					Mode: HeatUp, From: kelvin(30), To: kelvin(50), Duration: day}
@@ -98,7 +98,7 @@ func TestCheckValues(t *testing.T) {
 		},
 		{
 			name:   "cool-down time constant (h)",
-			source: "plant-checks.md §6 Checks [C]: m 10 000 t, c 2.0 kJ/kgK, ΣUA 50 kW/K",
+			source: "docs/reference/plant-checks.md §6 Checks [C]: m 10 000 t, c 2.0 kJ/kgK, ΣUA 50 kW/K",
 			got: func(t *testing.T) float64 {
 				r, err := coolTank().CoolDownAfter(kelvin(60), 3*day, Ambient{Sea: kelvin(20), Air: kelvin(20)})
 				if err != nil {
@@ -110,7 +110,7 @@ func TestCheckValues(t *testing.T) {
 		},
 		{
 			name:   "cool-down 60 → ? °C after 3 days, surroundings 20 °C",
-			source: "plant-checks.md §6 Checks [C]",
+			source: "docs/reference/plant-checks.md §6 Checks [C]",
 			got: func(t *testing.T) float64 {
 				r, err := coolTank().CoolDownAfter(kelvin(60), 3*day, Ambient{Sea: kelvin(20), Air: kelvin(20)})
 				if err != nil {
@@ -122,7 +122,7 @@ func TestCheckValues(t *testing.T) {
 		},
 		{
 			name:   "time to cool 60 → 40.92 °C (h), the inverse of the check above",
-			source: "plant-checks.md §6 Checks [C] (3 days; 40.92 is rounded, so ±0.05 h)",
+			source: "docs/reference/plant-checks.md §6 Checks [C] (3 days; 40.92 is rounded, so ±0.05 h)",
 			got: func(t *testing.T) float64 {
 				r, err := coolTank().TimeToCool(kelvin(60), kelvin(40.92), Ambient{Sea: kelvin(20), Air: kelvin(20)})
 				if err != nil {
@@ -137,34 +137,34 @@ func TestCheckValues(t *testing.T) {
 		},
 		{
 			name:   "temperature for 13 cSt of the 380 cSt fuel (°C)",
-			source: "plant-checks.md §5.1 check B [C] (assumption: 380 cSt at 50 °C, 35 cSt at 100 °C)",
+			source: "docs/reference/plant-checks.md §5.1 check B [C] (assumption: 380 cSt at 50 °C, 35 cSt at 100 °C)",
 			got:    func(t *testing.T) float64 { return heaterOutlet(t, 13e-6) },
 			want:   134.4, tol: 0.05,
 		},
 		{
 			name:   "temperature for 10 cSt of the 380 cSt fuel (°C)",
-			source: "plant-checks.md §5.1 check B [C]",
+			source: "docs/reference/plant-checks.md §5.1 check B [C]",
 			got:    func(t *testing.T) float64 { return heaterOutlet(t, 10e-6) },
 			want:   146.1, tol: 0.05,
 		},
 		{
 			name:   "temperature for 20 cSt of the 380 cSt fuel (°C)",
-			source: "plant-checks.md §5.1 check B [C]",
+			source: "docs/reference/plant-checks.md §5.1 check B [C]",
 			got:    func(t *testing.T) float64 { return heaterOutlet(t, 20e-6) },
 			want:   117.9, tol: 0.05,
 		},
 		{
 			// 5000 m³/h = 1.3888889 m³/s; ρ·g = 870 × 9.80665 = 8531.7855 N/m³;
-			// × Q = 11849.702; × 140 m = 1 658 958 W (1.66 MW, as §8 rounds it).
+			// × Q = 11849.702; × 140 m = 1 658 958 W (1.66 MW, as docs/reference/plant-checks.md §8 rounds it).
 			name:   "VLCC cargo pump hydraulic power (W)",
-			source: "plant-checks.md §8 [M; arithmetic C], hand-computed in this comment",
+			source: "docs/reference/plant-checks.md §8 [M; arithmetic C], hand-computed in this comment",
 			got:    func(t *testing.T) float64 { return vlccPump(t).Hydraulic },
 			want:   1658958, tol: 1,
 		},
 		{
-			// 1 658 958 W / 0.85 = 1 951 715 W (1.95 MW, §8).
+			// 1 658 958 W / 0.85 = 1 951 715 W (1.95 MW, docs/reference/plant-checks.md §8).
 			name:   "VLCC cargo pump shaft power (W)",
-			source: "plant-checks.md §8 [M; arithmetic C], hand-computed in this comment",
+			source: "docs/reference/plant-checks.md §8 [M; arithmetic C], hand-computed in this comment",
 			got:    func(t *testing.T) float64 { return vlccPump(t).Shaft },
 			want:   1951715, tol: 1,
 		},
@@ -173,7 +173,7 @@ func TestCheckValues(t *testing.T) {
 			// 0.0028252 m³/s, 0.05 % more: the sheet rounds low); H = 10 bar/(ρ·g),
 			// so ρ·g·Q·H = Q·Δp.
 			name:   "feed pump shaft power, 10 t/h, 10 bar, η 0.55 (kW)",
-			source: "plant-checks.md §9 Check [C]: P_hyd 2.824 kW, shaft 5.135 kW",
+			source: "docs/reference/plant-checks.md §9 Check [C]: P_hyd 2.824 kW, shaft 5.135 kW",
 			got: func(t *testing.T) float64 {
 				r, err := CargoPump{Name: "feed", Flow: 0.002824, Head: 1e6 / (983.2 * StandardGravity),
 					Density: 983.2, Efficiency: 0.55}.Power()
@@ -187,13 +187,13 @@ func TestCheckValues(t *testing.T) {
 		},
 		{
 			name:   "HM 40 cloud point for pour point 10 °C",
-			source: "plant-checks.md §6 [S✓ formula; value C]",
+			source: "docs/reference/plant-checks.md §6 [S✓ formula; value C]",
 			got:    func(t *testing.T) float64 { return cloud(t, 10) },
 			want:   26.21, tol: 0.005,
 		},
 		{
 			name:   "HM 40 cloud point for pour point 20 °C",
-			source: "plant-checks.md §6 [S✓ formula; value C]",
+			source: "docs/reference/plant-checks.md §6 [S✓ formula; value C]",
 			got:    func(t *testing.T) float64 { return cloud(t, 20) },
 			want:   29.44, tol: 0.005,
 		},
@@ -236,7 +236,7 @@ func TestCheckValues(t *testing.T) {
 	}
 }
 
-// coolTank is the plant-checks.md §6 cool-down case: 10 000 m³ at 1000 kg/m³
+// coolTank is the docs/reference/plant-checks.md §6 cool-down case: 10 000 m³ at 1000 kg/m³
 // (m 10 000 t), c 2.0 kJ/kgK, one boundary of 1000 m² at U 50 (ΣUA 50 kW/K).
 func coolTank() *TankHeating {
 	return &TankHeating{Name: "cool", Cargo: Cargo{Density: 1000, Cp: 2000}, CargoVolume: 10000,
@@ -275,7 +275,7 @@ func cloud(t *testing.T, pp float64) float64 {
 
 // TestFlashPointAbove: oil heated above its flash point is said to be above
 // it, by how much, not "within 10 °C of" it (issue 17; SOLAS II-2 reg. 4.2
-// as plant-checks.md §5.2 [S] words it).
+// as docs/reference/plant-checks.md §5.2 [S] words it).
 func TestFlashPointAbove(t *testing.T) {
 	t.Parallel()
 	w := flashWarning(273.15+75, 273.15+60)

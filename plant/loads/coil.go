@@ -35,7 +35,7 @@ func (k CoilKind) String() string {
 //
 //   - DefaultCoilU, a steam coil in the tank: 60 W/(m²·K), chosen within
 //     the indicative 30–150 W/(m²·K) of "Steam coil to oil (sizing)" in
-//     plant-checks.md §6 [M] (heavy oils at the low end, crude higher):
+//     docs/reference/plant-checks.md §6 [M] (heavy oils at the low end, crude higher):
 //     common practice, no source. The oil side in natural convection
 //     governs.
 //   - DefaultDeckHeaterU, a deck heater with the cargo pumped through it:
@@ -185,7 +185,7 @@ func (t *TankHeating) CoilCapacity(T, steamT float64) (CoilDuty, error) {
 // specification allows (K), and whether there is one: 60 °C for the
 // distillate grades DMA, DMZ and DMB and for every residual grade
 // RMA–RMK of ISO 8217:2017 (Tables 1 and 2, from memory; the same 60 °C
-// is SOLAS II-2 reg. 4.2's limit for fuel oil, plant-checks.md §5.2 [S]).
+// is SOLAS II-2 reg. 4.2's limit for fuel oil, docs/reference/plant-checks.md §5.2 [S]).
 // A gas has none. DMX (43 °C) is not a built-in grade and is not assumed.
 // A tank of a fuel grade whose flash point is not given is checked against
 // it, and its warning says the figure was assumed.

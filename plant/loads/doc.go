@@ -12,32 +12,32 @@
 //
 //	tank heating "COT 3P": fill 105 % is above 100 %; want a fraction ≤ 1
 //
-// Models and sources (tags as in the project's plant-checks reference sheet:
+// Models and sources (tags as in the project's docs/reference/plant-checks.md reference sheet:
 // [S✓] published source seen, [S] published source from memory, [CP] common
 // practice, [M] from memory, [C] computed):
 //
 //   - FuelHeater: engine service, boiler burner, purifier and transfer
-//     heaters. Q = ṁ∫c dT with Cragoe's specific heat (§5.3 [S✓
+//     heaters. Q = ṁ∫c dT with Cragoe's specific heat (docs/reference/plant-checks.md §5.3 [S✓
 //     publication, formula from memory]); the outlet either set or found from
-//     a target viscosity on the fuel's ASTM D341 line (§5.1 [S✓]), both
+//     a target viscosity on the fuel's ASTM D341 line (docs/reference/plant-checks.md §5.1 [S✓]), both
 //     through package fuel. DutyPerKg gives J per kg of oil for the burner's
 //     own heater. Warnings: outlet above a set limit; a transfer heater
-//     within 10 K of the flash point (SOLAS II-2 reg. 4.2, §5.2 [S]).
+//     within 10 K of the flash point (SOLAS II-2 reg. 4.2, docs/reference/plant-checks.md §5.2 [S]).
 //   - TankHeating: a tank by its boundaries (area, U, what lies beyond) or
-//     by its dimensions (TankFromDimensions, with U defaults from §6 [M]);
+//     by its dimensions (TankFromDimensions, with U defaults from docs/reference/plant-checks.md §6 [M]);
 //     hold a temperature (losses only) or heat up in a given time
-//     (m∫c dT/t + losses at the mean temperature), §6 [CP]. With heating off,
+//     (m∫c dT/t + losses at the mean temperature), docs/reference/plant-checks.md §6 [CP]. With heating off,
 //     the lumped cool-down T(t) = T_amb + (T0 − T_amb)·exp(−t/τ), τ = m·c/ΣUA,
 //     with the UA-weighted mean of the boundary temperatures as T_amb
 //     (exact for the lumped model; with Cragoe's c, linear in T, the model
 //     is integrated in closed form) (CoolDownAfter), and the time to cool to
 //     a temperature (TimeToCool).
 //     CargoHeating sums many tanks. CloudPointHM40 gives the cloud point
-//     from the pour point (Energy Institute HM 40, §6 [S✓]).
+//     from the pour point (Energy Institute HM 40, docs/reference/plant-checks.md §6 [S✓]).
 //   - A tank's heating coil (Coil: a steam coil in the tank, or a deck
 //     heater the cargo is pumped through) gives at most U·A·LMTD between
 //     the steam's saturation temperature and the cargo (CoilCapacity; U
-//     by default 60 W/(m²·K) for a coil, within §6's coil row [M], and
+//     by default 60 W/(m²·K) for a coil, within docs/reference/plant-checks.md §6's coil row [M], and
 //     250 W/(m²·K) for a deck heater, from memory); Duty caps a duty
 //     above it and warns.
 //   - A stateful tank over a period (Advance): its temperature carried by
@@ -56,7 +56,7 @@
 //     table of duty against air temperature [CP].
 //   - TankCleaning: water heated from the sea temperature, Δh by IAPWS-IF97
 //     (package water) at a stated pressure, or a constant cp (sea water).
-//   - CargoPump: P = ρ·g·Q·H/η (§9 [C], §8 [M]); FixedPower for a
+//   - CargoPump: P = ρ·g·Q·H/η (docs/reference/plant-checks.md §9 [C], §8 [M]); FixedPower for a
 //     turbo-generator. The plant's turbine unit turns shaft power into steam.
 //   - AtomisingSteam (kg steam per kg fuel), SootBlowing (flow while
 //     blowing × duration / interval), SteamTracing (W/m × m), FixedDuty

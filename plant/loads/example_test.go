@@ -69,7 +69,7 @@ func ExampleFuelHeater_Duty() {
 	}
 	fmt.Printf("outlet %.1f °C, %.1f kJ/kg, duty %.1f kW, warnings %d\n",
 		r.OutletT-273.15, r.PerKg/1e3, r.Duty/1e3, len(r.Warnings))
-	// 134.4 °C is plant-checks.md §5.1 check B [C]; the heat by hand:
+	// 134.4 °C is docs/reference/plant-checks.md §5.1 check B [C]; the heat by hand:
 	// [1.685·39.4 + 0.001695·(134.4² − 95²)]/√0.98597 ≈ 82.3 kJ/kg.
 	//
 	// Output:

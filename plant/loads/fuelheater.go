@@ -12,15 +12,15 @@ type HeaterService int
 
 const (
 	// EngineService heats the engine's fuel to its injection viscosity
-	// (10–15 cSt for two-stroke engines, plant-checks.md §5.2 [M/CP]).
+	// (10–15 cSt for two-stroke engines, docs/reference/plant-checks.md §5.2 [M/CP]).
 	EngineService HeaterService = iota
 	// BoilerBurner heats the boiler burner's fuel to the burner viscosity
-	// (pressure-jet 10–15 cSt, steam-atomised 15–25 cSt, plant-checks.md
+	// (pressure-jet 10–15 cSt, steam-atomised 15–25 cSt, docs/reference/plant-checks.md
 	// §3.5 [M/CP]). Its oil flow is the boiler's own fuel flow: use
 	// FuelHeater.DutyPerKg.
 	BoilerBurner
 	// Purifier heats oil before the centrifugal purifier (HFO 95–98 °C,
-	// plant-checks.md §5.2 [CP]).
+	// docs/reference/plant-checks.md §5.2 [CP]).
 	Purifier
 	// Transfer heats oil on its way to a storage or settling tank; the
 	// SOLAS II-2 reg. 4.2 flash-point caution applies to it.
@@ -43,7 +43,7 @@ func (s HeaterService) String() string {
 }
 
 // FlashPointMargin is the margin below the flash point to which oil in
-// storage tanks may be heated: 10 K, SOLAS II-2 reg. 4.2 (plant-checks.md
+// storage tanks may be heated: 10 K, SOLAS II-2 reg. 4.2 (docs/reference/plant-checks.md
 // §5.2 [S], from memory of the regulation). It is used as a caution (a
 // warning), not as an error: the regulation's exceptions for service and
 // settling arrangements are not modelled.
@@ -53,12 +53,12 @@ const FlashPointMargin = 10.0
 // or transfer heater. The outlet temperature is either set (OutletT) or
 // found from a target viscosity (TargetViscosity) on the fuel's ASTM D341
 // line through its two viscosity points (fuel.Fuel.TemperatureForViscosity,
-// plant-checks.md §5.1 [S✓]). The duty is
+// docs/reference/plant-checks.md §5.1 [S✓]). The duty is
 //
 //	Q = ṁ · ∫ c dT   from InletT to the outlet,
 //
 // with c by Cragoe (1929) at the fuel's specific gravity (fuel.CragoeHeat,
-// plant-checks.md §5.3 [S✓ publication, formula from memory]). Heat losses of
+// docs/reference/plant-checks.md §5.3 [S✓ publication, formula from memory]). Heat losses of
 // the heater itself are not counted.
 type FuelHeater struct {
 	// Name identifies the heater in results and errors.

@@ -53,7 +53,7 @@ type UValues struct {
 }
 
 // DefaultU returns the suggested U values: the middle of the ranges of
-// plant-checks.md §6, which are [M] (from memory, no published table
+// docs/reference/plant-checks.md §6, which are [M] (from memory, no published table
 // confirmed) built from film-coefficient ranges [CP]. Use the ship's own
 // figures where known.
 //

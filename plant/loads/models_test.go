@@ -132,7 +132,7 @@ func TestLayouts(t *testing.T) {
 // TestWeightedAmbient: the lumped model with boundaries at 10 °C (UA 30
 // kW/K) and 35 °C (UA 20 kW/K) is exactly the model with one boundary of UA
 // 50 kW/K at their UA-weighted mean (300 + 700)/50 = 20 °C (by hand), so it
-// reproduces the plant-checks.md §6 [C] cool-down 40.92 °C after 3 days.
+// reproduces the docs/reference/plant-checks.md §6 [C] cool-down 40.92 °C after 3 days.
 func TestWeightedAmbient(t *testing.T) {
 	t.Parallel()
 	tk := &TankHeating{Name: "split", Cargo: Cargo{Density: 1000, Cp: 2000}, CargoVolume: 10000,
@@ -145,7 +145,7 @@ func TestWeightedAmbient(t *testing.T) {
 		t.Fatal(err)
 	}
 	near(t, "UA-weighted ambient °C", celsius(r.AmbientT), 20, 1e-9)
-	near(t, "T after 3 days °C (plant-checks.md §6 [C])", celsius(r.T), 40.92, 0.005)
+	near(t, "T after 3 days °C (docs/reference/plant-checks.md §6 [C])", celsius(r.T), 40.92, 0.005)
 }
 
 // TestCoolDownCragoe compares the closed-form cool-down with Cragoe's c(T)
@@ -198,7 +198,7 @@ func TestCoolDownCragoe(t *testing.T) {
 // TestFuelHeater checks the duty by hand (computed by hand, this comment):
 // HSFO ρ15 985, s = 985/999.016 = 0.985970, 90 → 130 °C:
 // ∫c dT = [1.685·40 + 0.001695·(130² − 90²)]/√s = (67.4 + 14.916)/0.992960
-// = 82.8996 kJ/kg (Cragoe, plant-checks.md §5.3 [S]); 2.5 kg/s → 207.249 kW.
+// = 82.8996 kJ/kg (Cragoe, docs/reference/plant-checks.md §5.3 [S]); 2.5 kg/s → 207.249 kW.
 func TestFuelHeater(t *testing.T) {
 	t.Parallel()
 	h := FuelHeater{Name: "ME FO heater", Fuel: hsfo(t), MassFlow: 2.5, InletT: kelvin(90), OutletT: kelvin(130)}
@@ -208,7 +208,7 @@ func TestFuelHeater(t *testing.T) {
 	}
 	near(t, "per kg J/kg", r.PerKg, 82899.59, 0.05)
 	near(t, "duty W", r.Duty, 2.5*82899.59, 0.2)
-	// The outlet viscosity is reported: between the §5.1 [C] values at 120 °C
+	// The outlet viscosity is reported: between the docs/reference/plant-checks.md §5.1 [C] values at 120 °C
 	// (18.9 cSt) and 150 °C (9.2 cSt).
 	if nu := r.OutletViscosity * 1e6; !(nu < 18.9 && nu > 9.2) {
 		t.Errorf("outlet viscosity %g cSt", nu)
@@ -427,7 +427,7 @@ func TestCargoHeating(t *testing.T) {
 
 // TestCargoFromFuel: a fuel cargo takes the fuel's density and Cragoe at
 // its specific gravity. By hand: s = 985/999.016 = 0.985970, c(40 °C) =
-// (1.685 + 0.1356)/√s = 1833.507 J/(kg·K) (Cragoe, plant-checks.md §5.3
+// (1.685 + 0.1356)/√s = 1833.507 J/(kg·K) (Cragoe, docs/reference/plant-checks.md §5.3
 // [S]); 1000 m³ × 985 kg/m³ × 1833.507 × 20 K / 36 000 s = 1 003 335.9 W.
 func TestCargoFromFuel(t *testing.T) {
 	t.Parallel()

@@ -8,7 +8,7 @@ const StandardGravity = 9.80665
 //
 //	P_hyd = ρ·g·Q·H,   P_shaft = P_hyd/η
 //
-// (plant-checks.md §9 [C], §8 [M; arithmetic C]). The plant's turbine unit
+// (docs/reference/plant-checks.md §9 [C], §8 [M; arithmetic C]). The plant's turbine unit
 // turns the shaft power into a steam flow. The efficiency is a fixed input:
 // no pump curve is modelled.
 type CargoPump struct {
@@ -21,7 +21,7 @@ type CargoPump struct {
 	// Density of the cargo (kg/m³).
 	Density float64
 	// Efficiency of the pump, (0, 1]; large cargo pumps 0.80–0.87
-	// (plant-checks.md §9 [M]).
+	// (docs/reference/plant-checks.md §9 [M]).
 	Efficiency float64
 }
 

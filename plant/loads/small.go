@@ -10,7 +10,7 @@ import (
 // a fixed ratio of steam to fuel (kg/kg). The steam is lost to the furnace
 // (no condensate returns). The ratio is the burner maker's figure; no
 // default is given. Steam = ratio × fuel flow (common practice, no source;
-// plant-checks.md §2 lists atomising steam among the flue-gas water).
+// docs/reference/plant-checks.md §2 lists atomising steam among the flue-gas water).
 type AtomisingSteam struct {
 	// Name identifies the consumer.
 	Name string

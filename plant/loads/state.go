@@ -104,7 +104,7 @@ func (r StepResult) Rate() float64 { return (r.T1 - r.T0) / r.Dt }
 // T_amb + Q/ΣUA) and a steam coil at its capacity (K = ΣUA + U·A_coil,
 // Teq the conductance-weighted mean of the surroundings and the steam).
 // Its solution is exact in closed form in time, t = (m/K)·[ca·ln(u0/u) +
-// c1·(u0 − u)], u = T − Teq (plant-checks.md §6 cool-down line [CP], with
+// c1·(u0 − u)], u = T − Teq (docs/reference/plant-checks.md §6 cool-down line [CP], with
 // the linear c integrated exactly).
 type relaxation struct {
 	m, K, Teq float64
@@ -368,7 +368,7 @@ func (s *stepper) toward(target float64) (bool, error) {
 // Warnings: the instruction asked more than the coil gives (capped; the
 // warning names the figures), the heat-up rate is above MaxRate (a
 // warning, not a cap), the cargo is within 10 K of its flash point
-// (SOLAS II-2 reg. 4.2, plant-checks.md §5.2 [S]), and the surroundings
+// (SOLAS II-2 reg. 4.2, docs/reference/plant-checks.md §5.2 [S]), and the surroundings
 // are warmer than a temperature to hold.
 func (t *TankHeating) Advance(st Step, amb Ambient) (StepResult, error) {
 	c := checker{KindTankHeating, t.Name}

@@ -8,7 +8,7 @@ import (
 	"steamcase/plant/fuel"
 )
 
-// lumpedTank is plant-checks.md §6's cool-down check tank: m 10 000 t,
+// lumpedTank is docs/reference/plant-checks.md §6's cool-down check tank: m 10 000 t,
 // c 2.0 kJ/(kg·K), ΣUA 50 kW/K, its surroundings at 20 °C [C].
 func lumpedTank() *TankHeating {
 	return &TankHeating{Name: "lumped", Cargo: Cargo{Density: 1000, Cp: 2000}, CargoVolume: 10000,
@@ -36,12 +36,12 @@ func hsfoTank(t *testing.T) *TankHeating {
 		Coil: Coil{Area: 900, U: 60}}
 }
 
-const tsat7 = 170.48 + 273.15 // saturation at 7 bar(g), plant-checks.md §0 [C]
+const tsat7 = 170.48 + 273.15 // saturation at 7 bar(g), docs/reference/plant-checks.md §0 [C]
 
 func relErr(got, want float64) float64 { return math.Abs(got-want) / math.Max(math.Abs(want), 1e-300) }
 
 // TestAdvanceClosedForm checks one period against the closed-form
-// exponential of plant-checks.md §6 (T(t) = T∞ + (T0 − T∞)·exp(−t/τ),
+// exponential of docs/reference/plant-checks.md §6 (T(t) = T∞ + (T0 − T∞)·exp(−t/τ),
 // τ = m·c/K) with a constant c, to 1e-6 relative: the cool-down check
 // (60 °C, 3 days → 40.92 °C [C]), a constant duty, and the steam coil at
 // its capacity (K = ΣUA + U·A_coil, T∞ their weighted mean).
@@ -73,12 +73,12 @@ func TestAdvanceClosedForm(t *testing.T) {
 			}
 		})
 	}
-	// plant-checks.md §6 check value: 40.92 °C after 3 days [C].
+	// docs/reference/plant-checks.md §6 check value: 40.92 °C after 3 days [C].
 	r, _ := tank.Advance(cases[0].st, Ambient{})
 	if math.Abs(r.T1-273.15-40.92) > 0.005 {
-		t.Errorf("cool-down after 3 days %.4f °C, plant-checks.md §6 40.92 °C", r.T1-273.15)
+		t.Errorf("cool-down after 3 days %.4f °C, docs/reference/plant-checks.md §6 40.92 °C", r.T1-273.15)
 	}
-	// A constant duty of 1.2 MW: T∞ = T_amb + Q/ΣUA, plant-checks.md §6.
+	// A constant duty of 1.2 MW: T∞ = T_amb + Q/ΣUA, docs/reference/plant-checks.md §6.
 	q := 1.2e6
 	dt := 30 * 3600.0
 	T1 := tank.relaxConst(t, T0, q, dt)
@@ -115,7 +115,7 @@ func (tank *TankHeating) relaxConst(t *testing.T, T0, q, dt float64) float64 {
 // rk4 integrates m·c(T)·dT/dt = Q(T) − ΣUA·(T − T_amb) with the classical
 // fourth-order Runge–Kutta method in n steps, and the coil heat and the
 // losses by the same stages: an independent check of the closed forms
-// (Cragoe's c from package fuel, plant-checks.md §5.3).
+// (Cragoe's c from package fuel, docs/reference/plant-checks.md §5.3).
 func rk4(t *testing.T, tank *TankHeating, amb Ambient, T0, dt float64, q func(T float64) float64, n int) (T1, coil, loss float64) {
 	t.Helper()
 	ua, uaT := tank.ua(amb)
@@ -147,7 +147,7 @@ func rk4(t *testing.T, tank *TankHeating, amb Ambient, T0, dt float64, q func(T 
 // c (linear in T) against a fine Runge–Kutta integration of the same
 // lumped model, to 1e-6 relative in temperature, coil heat and losses,
 // and checks each period's energy balance CoilJ − LossJ = StoredJ (m·∫c dT
-// by Cragoe's closed form, plant-checks.md §5.3) to 1e-9.
+// by Cragoe's closed form, docs/reference/plant-checks.md §5.3) to 1e-9.
 func TestAdvanceAgainstRungeKutta(t *testing.T) {
 	t.Parallel()
 	tank := hsfoTank(t)
@@ -290,7 +290,7 @@ func TestCoilLMTD(t *testing.T) {
 		t.Fatal(err)
 	}
 	// By hand: c(40 °C) = (1.685 + 0.00339·40)/√(985/999.016) kJ/(kg·K)
-	// (Cragoe, plant-checks.md §5.3); ṁ = 985·200/3600 kg/s.
+	// (Cragoe, docs/reference/plant-checks.md §5.3); ṁ = 985·200/3600 kg/s.
 	c := (1.685 + 0.00339*40) / math.Sqrt(985/999.016) * 1e3
 	mc := 985 * 200.0 / 3600 * c
 	ntu := 250 * 60 / mc
@@ -306,7 +306,7 @@ func TestCoilLMTD(t *testing.T) {
 		t.Errorf("outlet %.9g °C, by hand %.9g °C", d.OutletT-273.15, tout)
 	}
 	// A coil in the tank: LMTD = Ts − T, Q = U·A·(Ts − T) with the default
-	// U of 60 W/(m²·K) (plant-checks.md §6 coil row [M], chosen).
+	// U of 60 W/(m²·K) (docs/reference/plant-checks.md §6 coil row [M], chosen).
 	tank.Coil = Coil{Area: 900}
 	d, err = tank.CoilCapacity(T, tsat7)
 	if err != nil {

@@ -40,7 +40,7 @@ type Ambient struct {
 
 // Boundary is one face of a tank: its area, its overall heat-transfer
 // coefficient U (oil to whatever lies beyond, 1/U = 1/h_in + Σt/k + 1/h_out,
-// plant-checks.md §6) and what lies beyond. U is a fixed input: this package
+// docs/reference/plant-checks.md §6) and what lies beyond. U is a fixed input: this package
 // does not compute film coefficients; see DefaultU for indicative values.
 type Boundary struct {
 	// Name identifies the face in reports, e.g. "weather deck".
@@ -57,7 +57,7 @@ type Boundary struct {
 
 // Cargo is the oil in a tank: its density, for the mass, and its specific
 // heat, either constant (Cp) or by Cragoe (1929) at the specific gravity SG
-// (fuel.CragoeCp, plant-checks.md §5.3 [S✓ publication, formula from
+// (fuel.CragoeCp, docs/reference/plant-checks.md §5.3 [S✓ publication, formula from
 // memory]). Cragoe's formula is for petroleum liquids in general, so it
 // serves crude oils and fuel oils alike.
 type Cargo struct {
@@ -152,7 +152,7 @@ func (m TankMode) String() string {
 
 // TankHeating is a cargo, bunker, settling or slop tank with its heating
 // duty: the tank (cargo, volume, boundaries) and the mode (hold a
-// temperature, or heat up in a given time). Formulas: plant-checks.md §6
+// temperature, or heat up in a given time). Formulas: docs/reference/plant-checks.md §6
 // (loss, heat-up and cool-down lines, [CP] textbook heat balance). The
 // boundaries can be listed directly or derived from the tank's dimensions
 // by TankFromDimensions.
@@ -172,7 +172,7 @@ type TankHeating struct {
 	Boundaries []Boundary
 	// FlashPoint of the oil (K); zero means not given. When given, heating
 	// to within FlashPointMargin of it gives a warning (SOLAS II-2 reg. 4.2
-	// caution for fuel storage and settling tanks, plant-checks.md §5.2 [S]).
+	// caution for fuel storage and settling tanks, docs/reference/plant-checks.md §5.2 [S]).
 	FlashPoint float64
 	// FlashPointAssumed says FlashPoint was not given but taken as the
 	// grade's specification minimum (SpecFlashPoint); the warning says so.
@@ -455,10 +455,10 @@ type CoolDown struct {
 //
 //	m·c(T)·dT/dt = −Σ U_i·A_i·(T − T_i) = −ΣUA·(T − T_amb)
 //
-// (plant-checks.md §6 [CP]). With boundaries at several temperatures T_amb
+// (docs/reference/plant-checks.md §6 [CP]). With boundaries at several temperatures T_amb
 // is the UA-weighted mean Σ U_i·A_i·T_i / ΣUA; this is exact, not an
 // approximation, because the loss is linear in the oil temperature. With a
-// constant c the solution is the exponential of plant-checks.md §6,
+// constant c the solution is the exponential of docs/reference/plant-checks.md §6,
 //
 //	T(t) = T_amb + (T0 − T_amb)·exp(−t/τ),   τ = m·c/ΣUA.
 //
@@ -637,7 +637,7 @@ func CargoHeating(tanks []TankHeating, amb Ambient) (CargoResult, error) {
 
 // CloudPointHM40 returns the cloud point (wax appearance temperature, K) of
 // a crude oil from its pour point (K) by Energy Institute HM 40 (3rd ed.,
-// 2018 addendum, A.2.3 Eq. 7; plant-checks.md §6 [S✓]):
+// 2018 addendum, A.2.3 Eq. 7; docs/reference/plant-checks.md §6 [S✓]):
 //
 //	CP = 20.2·10^(0.00708·PP − 0.1157714) + 8    (°C)
 //
@@ -658,7 +658,7 @@ type TankUse int
 
 const (
 	// FuelStorage: SOLAS II-2 reg. 4.2 keeps the oil at least
-	// FlashPointMargin below its flash point (plant-checks.md §5.2 [S]).
+	// FlashPointMargin below its flash point (docs/reference/plant-checks.md §5.2 [S]).
 	FuelStorage TankUse = iota
 	// FuelSettling and FuelService: tanks of the fuel supply system,
 	// which SOLAS II-2 reg. 4.2 lets be heated closer to (or above) the

@@ -19,7 +19,7 @@ func must(t testing.TB, err error) {
 
 // tanker is an invented product tanker's plant: two 12 t/h boilers at
 // 7 bar(g), an exhaust-gas economiser, a dump condenser, cargo heating and
-// a sundry load. Figures are invented, of realistic size (plant-checks.md
+// a sundry load. Figures are invented, of realistic size (docs/reference/plant-checks.md
 // §3.5 and §7 [M/CP]).
 func tanker(t testing.TB) *plant.Plant {
 	drum := 7e5 + 101325
@@ -211,7 +211,7 @@ func BenchmarkYearHourly(b *testing.B) {
 // TestModelKeysVaryByRow: rows that set a duty model's parameters (a
 // tank's temperature held) solve on clones that own their models, so the
 // result does not depend on the workers or on the chunks, and each row's
-// duty is its own (the loss ΣUA·(T − T_sea), plant-checks.md §6 [CP]).
+// duty is its own (the loss ΣUA·(T − T_sea), docs/reference/plant-checks.md §6 [CP]).
 func TestModelKeysVaryByRow(t *testing.T) {
 	t.Parallel()
 	build := func() *plant.Plant {

@@ -13,7 +13,7 @@ import (
 
 // heatedTanker is the invented tanker of tanker() with two cargo tanks of
 // HSFO heated by steam coils instead of a fixed cargo-heating duty
-// (invented figures of realistic size, plant-checks.md §6 [M]).
+// (invented figures of realistic size, docs/reference/plant-checks.md §6 [M]).
 func heatedTanker(t testing.TB) *plant.Plant {
 	p := tanker(t)
 	f, err := fuel.Grade("HSFO")
@@ -67,7 +67,7 @@ var heatedStarts = []TankStart{{Unit: "COT 1", T: 318.15}, {Unit: "COT 2", T: 32
 // TestStatefulVoyageEnergy solves a voyage whose two tanks carry their
 // temperature from row to row and checks: each row starts where the last
 // ended; over the voyage Σ coil heat − Σ losses = Σ m·∫c dT of the cargo
-// (Cragoe's closed form, plant-checks.md §5.3 [S✓ publication, formula
+// (Cragoe's closed form, docs/reference/plant-checks.md §5.3 [S✓ publication, formula
 // from memory]) to 1e-6 relative; the plant's solved consumer duty is the
 // tank's mean coil duty; a reach is on its temperature at its time.
 func TestStatefulVoyageEnergy(t *testing.T) {
@@ -175,7 +175,7 @@ func TestStatefulErrors(t *testing.T) {
 // TestCaseCappedByCoil: in a plain load case, a tank with a coil that is
 // asked a heat-up faster than the coil gives takes the coil's capacity
 // U·A·(Ts − T) (the default U, 60 W/(m²·K), 700 m², steam at 7 bar(g):
-// 170.48 °C, plant-checks.md §0 [C]) at the heat-up's mean temperature,
+// 170.48 °C, docs/reference/plant-checks.md §0 [C]) at the heat-up's mean temperature,
 // and the case warns.
 func TestCaseCappedByCoil(t *testing.T) {
 	t.Parallel()

@@ -12,7 +12,7 @@ import (
 // A load case of an invented one-boiler plant in its schema form: the
 // figures in the units their keys name, six significant digits, and null
 // for the sea and air temperatures the case did not give. The fuel is
-// plant-checks.md §3.6 [C]'s 736.4 kg/h = 17.674 t/d within its ±0.2 %.
+// docs/reference/plant-checks.md §3.6 [C]'s 736.4 kg/h = 17.674 t/d within its ±0.2 %.
 func ExampleNewCase() {
 	p := plant.New("Invented Coaster", plant.Options{})
 	p.Add(&plant.MakeUp{Base: plant.Base{Name: "makeup"}, T: 333.15, P: 1e5})

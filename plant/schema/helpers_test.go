@@ -24,7 +24,7 @@ func gauge(b float64) float64 { return b*1e5 + 101325 }
 // into one boiler (MCR 4 kg/s, turndown 1:4, η 0.85 flat, LCV 40.2 MJ/kg,
 // C_F 3.114) that raises saturated steam at 7 bar(g) for a consumer
 // taking a set flow, 10 t/h unless a case sets another. It is the plant
-// of plant-checks.md §3.6 [C].
+// of docs/reference/plant-checks.md §3.6 [C].
 func boilerOnly(t testing.TB) *plant.Plant {
 	t.Helper()
 	p := plant.New("Invented Check Ship", plant.Options{})

@@ -160,19 +160,19 @@ func TestDocumentJSON(t *testing.T) {
 }
 
 // TestNewCase checks the conversions to the report units against
-// plant-checks.md §3.6 [C]: 10 t/h of saturated steam at 7 bar(g) from
+// docs/reference/plant-checks.md §3.6 [C]: 10 t/h of saturated steam at 7 bar(g) from
 // feed at 60 °C, η 0.85, LCV 40 200 kJ/kg: 736.4 kg/h = 17.674 t/d, and
 // with C_F 3.114 (IMO MEPC.364(79) [S]) 55.04 t/d of CO2; tolerance
-// ±0.2 % as §11 item 9 states. And the rules: a temperature not given is
+// ±0.2 % as docs/reference/plant-checks.md §11 item 9 states. And the rules: a temperature not given is
 // null, lists are never null, a single-phase line has x null.
 func TestNewCase(t *testing.T) {
 	t.Parallel()
 	p := boilerOnly(t)
 	cr := solve(t, p, plant.Case{Name: "check", Pos: plant.Pos{File: "ship.lua", Line: 4}})
 	j := NewCase(p.Name, cr)
-	near(t, "fuel kg/h", j.FuelKgH, 736.4, 0.002)          // plant-checks.md §3.6 [C]
-	near(t, "fuel t/day", j.FuelTPerDay, 17.674, 0.002)    // plant-checks.md §3.6 [C]
-	near(t, "CO2 t/day", j.CO2TPerDay, 55.04, 0.002)       // plant-checks.md §3.6 [C]
+	near(t, "fuel kg/h", j.FuelKgH, 736.4, 0.002)          // docs/reference/plant-checks.md §3.6 [C]
+	near(t, "fuel t/day", j.FuelTPerDay, 17.674, 0.002)    // docs/reference/plant-checks.md §3.6 [C]
+	near(t, "CO2 t/day", j.CO2TPerDay, 55.04, 0.002)       // docs/reference/plant-checks.md §3.6 [C]
 	near(t, "steam kg/h", j.SteamDemandKgH, 10000, 1e-6)   // the consumer's set flow
 	near(t, "MCR kg/h", j.Boilers[0].MCRKgH, 4*3600, 1e-9) // 4 kg/s, 1 h = 3600 s
 	if j.Plant != p.Name || j.Source != "ship.lua:4" || j.Name != "check" {

@@ -68,13 +68,13 @@ func TestTsatIncreasing(t *testing.T) {
 // beyond the few verification points):
 //
 //   - region 1 T(p,h): 25 mK (IAPWS R7-97(2012) Sec. 5.2.1, read in a
-//     stored copy per the reference README, which states a maximum of
+//     stored copy per the docs/reference/README.md, which states a maximum of
 //     23.6 mK);
 //   - region 1 T(p,s): 25 mK (from memory);
 //   - region 2 T(p,h) and T(p,s) in subregions 2a and 2b: 10 mK (from
 //     memory);
-//   - region 2c T(p,h) and T(p,s): 25 mK (from memory; the reference
-//     README recalls 10 mK for all of region 2, which does not hold in 2c).
+//   - region 2c T(p,h) and T(p,s): 25 mK (from memory; the
+//     docs/reference/README.md recalls 10 mK for all of region 2, which does not hold in 2c).
 //     The largest deviations found in 2c, 23.7 mK in T(p,h) at 26.55 MPa,
 //     733.88 K and 18.85 mK in T(p,s) at 57.61 MPa, 780.26 K, are
 //     reproduced exactly by python3-iapws 1.5.2 (IF97 functions _Region2,

@@ -1,6 +1,6 @@
 -- An invented tanker with an exhaust-gas economiser in the short form,
 -- economiser on the boiler, a flue-gas table and a burner fan. The
--- engine's exhaust is plant-checks.md §7's indicative range [M].
+-- engine's exhaust is docs/reference/plant-checks.md §7's indicative range [M].
 local engine = { mcr = "12 MW",
   { load = "25 %", gas = "11 kg/kWh", T = "250 C" },
   { load = "50 %", gas = "9 kg/kWh", T = "225 C" },

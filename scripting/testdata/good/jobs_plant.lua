@@ -1,5 +1,5 @@
 -- An invented product tanker with an exhaust-gas economiser, shared by the
--- voyage, study and audit scripts. Engine exhaust: plant-checks.md §7's
+-- voyage, study and audit scripts. Engine exhaust: docs/reference/plant-checks.md §7's
 -- indicative range [M].
 return steam_plant {
   name = "Invented Product Tanker",

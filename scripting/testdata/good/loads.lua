@@ -50,7 +50,7 @@ check(consumer(cold, "burner heater").duty_kW > 0, "burner heater follows the fu
 local discharge = case(ship, { name = "discharge", sea = "15 C", air = "10 C",
                                set = { COP1 = { off = false }, ["tank cleaning"] = { off = false } } })
 check(discharge.converged, "discharge converged")
--- Hand arithmetic (plant-checks.md §9 [C]): P = rho g Q H / eta
+-- Hand arithmetic (docs/reference/plant-checks.md §9 [C]): P = rho g Q H / eta
 -- = 850 * 9.80665 * (1200/3600) * 130 / 0.80 = 451.5 kW.
 check(math.abs(consumer(discharge, "COP1").duty_kW - 451.5) < 0.1, "cargo pump shaft power")
 -- Hand arithmetic: 25 t/d * 2500 kJ/kg = 723.4 kW; 30 W/m * 400 m = 12 kW;

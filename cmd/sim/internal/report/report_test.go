@@ -93,7 +93,7 @@ func demoCases(t testing.TB) []Case {
 
 // egeCases solves three cases on an invented plant with an exhaust-gas
 // economiser beside one oil-fired boiler (the plant package's EGE test
-// plant, with the indicative engine of plant-checks.md §7 [C]): at sea the
+// plant, with the indicative engine of docs/reference/plant-checks.md §7 [C]): at sea the
 // economiser and the boiler share the demand, on a light demand the
 // economiser's surplus goes to the dump condenser, in port it is out of
 // service. The engine's table holds as given (no site correction), as the
@@ -553,7 +553,7 @@ func contains(g, w any, path string) error {
 
 // TestEGETable checks the economiser's rows: its steam among the
 // producers, the dumped surplus, and the fuel it saves. The saving at the
-// design point is plant-checks.md §7 [C]: 215.6 kg/h = 5.175 t/d against a
+// design point is docs/reference/plant-checks.md §7 [C]: 215.6 kg/h = 5.175 t/d against a
 // boiler at η 0.85 on LCV 40 200 kJ/kg.
 func TestEGETable(t *testing.T) {
 	var b bytes.Buffer
@@ -561,7 +561,7 @@ func TestEGETable(t *testing.T) {
 	out := b.String()
 	for _, s := range []string{
 		"EGE                      exhaust-gas economiser",
-		"fuel saved by EGE  215.6 kg/h   5.175 t/day", // plant-checks.md §7 [C]
+		"fuel saved by EGE  215.6 kg/h   5.175 t/day", // docs/reference/plant-checks.md §7 [C]
 		"dump                     dumped                      2634.1",
 		"margin with no boiler firing (steam dumped)",
 		"not in service",
@@ -580,14 +580,14 @@ func TestRunRecord(t *testing.T) {
 	run := Run{Cases: demoCases(t)[:1], Version: "1.2.3", LuaSeed: 42,
 		Files: []File{{Name: "ship.lua", Bytes: 10, SHA256: strings.Repeat("ab", 32)}},
 		Assumptions: []Assumption{{Plant: "Invented Test Tanker", Assumption: plant.Assumption{Unit: "fp", Kind: "feed pump",
-			Key: "eta", Label: "pump efficiency", Value: "45 %", Source: "plant-checks.md §9 [M]"}},
+			Key: "eta", Label: "pump efficiency", Value: "45 %", Source: "docs/reference/plant-checks.md §9 [M]"}},
 			{Plant: "Invented Test Tanker", Assumption: plant.Assumption{Unit: "AB1", Kind: "oil-fired boiler",
 				Key: "cycling_loss", Label: "cycling loss", Value: "0 %"}}}}
 	var b bytes.Buffer
 	must(t, Table(&b, run))
 	for _, s := range []string{"Run record\n  program: steamcase 1.2.3\n  files read (SHA-256):\n    ship.lua  10 bytes  " + strings.Repeat("ab", 32),
 		"scripts' math.random seed: 42", `    plant "Invented Test Tanker":`,
-		"      fp.eta (feed pump) pump efficiency: 45 %; plant-checks.md §9 [M]",
+		"      fp.eta (feed pump) pump efficiency: 45 %; docs/reference/plant-checks.md §9 [M]",
 		"      AB1.cycling_loss (oil-fired boiler) cycling loss: 0 %; no source recorded in the key registry\n\n" + Caution} {
 		if !strings.Contains(b.String(), s) {
 			t.Errorf("the table does not say %q", s)
@@ -595,7 +595,7 @@ func TestRunRecord(t *testing.T) {
 	}
 	doc := Document(run)
 	if doc.Version != "1.2.3" || doc.LuaSeed != 42 || len(doc.FilesRead) != 1 || doc.FilesRead[0].SHA256 != strings.Repeat("ab", 32) ||
-		len(doc.Assumptions) != 2 || doc.Assumptions[0].Source != "plant-checks.md §9 [M]" || doc.Assumptions[1].Source != "" {
+		len(doc.Assumptions) != 2 || doc.Assumptions[0].Source != "docs/reference/plant-checks.md §9 [M]" || doc.Assumptions[1].Source != "" {
 		t.Errorf("document record: %+v %+v %+v", doc.Version, doc.FilesRead, doc.Assumptions)
 	}
 }
