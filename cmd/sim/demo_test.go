@@ -13,6 +13,7 @@ import (
 // built-in demo runs its embedded one: the report, headed by the demo's
 // line, with the script's path in the positions.
 func TestDemoRunner(t *testing.T) {
+	t.Parallel()
 	src, err := os.ReadFile(smallScript)
 	if err != nil {
 		t.Fatal(err)
@@ -40,6 +41,7 @@ func TestDemoRunner(t *testing.T) {
 // embedded scenario, headed by the demo's line and closed by the caution.
 // The figures are the plant's; the scenario's own checks must pass.
 func TestDemo(t *testing.T) {
+	t.Parallel()
 	code, out, errOut := runSim(t)
 	if code != exitOK || errOut != "" {
 		t.Fatalf("sim: exit %d, stderr %q", code, errOut)

@@ -15,6 +15,7 @@ import (
 // 35.3 rows/s; 380 rows left at that rate take 10.8 s), the time taken
 // once done, a line cut to the terminal's width.
 func TestFormatProgress(t *testing.T) {
+	t.Parallel()
 	for _, c := range []struct {
 		job         string
 		done, total int
@@ -43,6 +44,7 @@ func TestFormatProgress(t *testing.T) {
 }
 
 func TestDurationText(t *testing.T) {
+	t.Parallel()
 	for _, c := range []struct {
 		s    float64
 		want string
@@ -58,6 +60,7 @@ func TestDurationText(t *testing.T) {
 // line, ends a finished job with a newline, and clears its line around a
 // log record.
 func TestProgressMeter(t *testing.T) {
+	t.Parallel()
 	var out bytes.Buffer
 	now := time.Date(2026, 1, 1, 0, 0, 0, 0, time.UTC)
 	m := &progressMeter{w: &out, now: func() time.Time { return now }, width: func() int { return 0 }}
@@ -121,6 +124,7 @@ func TestProgressMeter(t *testing.T) {
 // regular file: neither is a terminal, so no progress is drawn (and with
 // --quiet nothing at all is written).
 func TestNoProgressWhenNotATerminal(t *testing.T) {
+	t.Parallel()
 	if _, tty := terminalFd(&bytes.Buffer{}); tty {
 		t.Fatal("a buffer taken for a terminal")
 	}

@@ -26,6 +26,7 @@ const (
 // whose balances are checked in its own tests; the file pins what reaches
 // the user. Rewrite with: go test ./cmd/sim -update
 func TestRunGolden(t *testing.T) {
+	t.Parallel()
 	code, out, errOut := runSim(t, "run", "--quiet", smallScript)
 	if code != exitOK || errOut != "" {
 		t.Fatalf("exit %d, stderr %q", code, errOut)
@@ -55,6 +56,7 @@ func TestRunGolden(t *testing.T) {
 // table, in the forms for programs, and that the script's print goes to
 // stderr as plain text with them, so that stdout holds the document only.
 func TestRunForms(t *testing.T) {
+	t.Parallel()
 	code, out, errOut := runSim(t, "run", "--json", smallScript)
 	if code != exitOK {
 		t.Fatalf("--json: exit %d, stderr %q", code, errOut)
@@ -107,6 +109,7 @@ func TestRunForms(t *testing.T) {
 // document, with what was solved before it and the failure under
 // "checks", and sim exits with status 1 after printing the failure.
 func TestRunFailedCheckJSON(t *testing.T) {
+	t.Parallel()
 	code, out, errOut := runSim(t, "run", "--quiet", "--json", failScript)
 	if code != exitFail || errOut != "testdata/run/fail_check.lua:9: assertion failed: harbour fuel above 1 t/h\n" {
 		t.Errorf("exit %d, stderr %q", code, errOut)
@@ -142,6 +145,7 @@ func TestRunFailedCheckJSON(t *testing.T) {
 
 // TestRunOutputFiles checks -o and --plot.
 func TestRunOutputFiles(t *testing.T) {
+	t.Parallel()
 	dir := t.TempDir()
 	_, table, _ := runSim(t, "run", "--quiet", smallScript)
 	outFile := filepath.Join(dir, "report.txt")
@@ -180,6 +184,7 @@ func TestRunOutputFiles(t *testing.T) {
 // TestRunExitCodes checks usage errors (2), failures (1, with the script
 // position on one line) and success (0) of run and check.
 func TestRunExitCodes(t *testing.T) {
+	t.Parallel()
 	cases := []struct {
 		args   []string
 		code   int
@@ -221,6 +226,7 @@ func TestRunExitCodes(t *testing.T) {
 // TestMissingScript checks that a script that cannot be read fails with
 // one line naming it, in words and without the system call.
 func TestMissingScript(t *testing.T) {
+	t.Parallel()
 	code, out, errOut := runSim(t, "run", "--quiet", "testdata/run/nope.lua")
 	if code != exitFail || out != "" || errOut != "sim: cannot open testdata/run/nope.lua: no such file\n" {
 		t.Errorf("exit %d, stdout %q, stderr %q", code, out, errOut)
@@ -232,6 +238,7 @@ func TestMissingScript(t *testing.T) {
 // goes on to the other scripts. The wording is the scripting package's and
 // is tested there; here only the lines and positions are.
 func TestScriptErrors(t *testing.T) {
+	t.Parallel()
 	for _, args := range [][]string{
 		{"run", "--quiet", errScript},
 		{"check", "--quiet", smallScript, errScript, "testdata/run/nope.lua"},
@@ -271,6 +278,7 @@ func TestScriptErrors(t *testing.T) {
 // TestRunHelp checks that the help of run and check names every flag and
 // carries the caution.
 func TestRunHelp(t *testing.T) {
+	t.Parallel()
 	for _, c := range []struct {
 		name  string
 		wants []string
@@ -301,6 +309,7 @@ func TestRunHelp(t *testing.T) {
 // TestRunCancelled checks that a cancelled run stops with exit 1, one
 // line on stderr and no report.
 func TestRunCancelled(t *testing.T) {
+	t.Parallel()
 	ctx, cancel := context.WithCancel(context.Background())
 	cancel()
 	var out, errw bytes.Buffer
@@ -314,6 +323,7 @@ func TestRunCancelled(t *testing.T) {
 // phases and totals, the JSON carries it under "voyages", and a chart,
 // which draws load cases, is refused.
 func TestRunVoyage(t *testing.T) {
+	t.Parallel()
 	const script = "testdata/run/voyage.lua"
 	code, out, errOut := runSim(t, "run", "--quiet", script)
 	if code != exitOK || errOut != "" {
@@ -402,6 +412,7 @@ func TestRunVoyage(t *testing.T) {
 // voyage each: one chart per case set and job, each in its own file named
 // with a suffix, listed on stderr unless --quiet.
 func TestRunPlotSeveral(t *testing.T) {
+	t.Parallel()
 	dir := t.TempDir()
 	base := filepath.Join(dir, "demand.svg")
 	code, _, errOut := runSim(t, "run", "--plot", base, smallScript, "testdata/run/voyage.lua", "testdata/run/voyage.lua")
@@ -442,6 +453,7 @@ func TestRunPlotSeveral(t *testing.T) {
 }
 
 func TestPlotFile(t *testing.T) {
+	t.Parallel()
 	for _, c := range []struct {
 		name    string
 		chart   report.Chart
@@ -461,6 +473,7 @@ func TestPlotFile(t *testing.T) {
 }
 
 func TestCount(t *testing.T) {
+	t.Parallel()
 	for _, c := range []struct {
 		n    int
 		what string

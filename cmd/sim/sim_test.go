@@ -32,6 +32,7 @@ func runSim(t *testing.T, args ...string) (code int, stdout, stderr string) {
 // IAPWS-IF97 verification tables in its own tests; these files pin the
 // layout and formatting. Rewrite them with: go test ./cmd/sim -update
 func TestGolden(t *testing.T) {
+	t.Parallel()
 	cases := []struct {
 		name string
 		args []string
@@ -112,6 +113,7 @@ func sameJSON(got, want string) error {
 
 // TestHelpForms checks that the spellings of help agree.
 func TestHelpForms(t *testing.T) {
+	t.Parallel()
 	_, main, _ := runSim(t, "help")
 	for _, args := range [][]string{{"--help"}, {"-h"}} {
 		code, out, errOut := runSim(t, args...)
@@ -143,6 +145,7 @@ func TestHelpForms(t *testing.T) {
 // TestExitCodes checks usage errors (exit 2) and failures (exit 1), and
 // that the first line on stderr names what was wrong.
 func TestExitCodes(t *testing.T) {
+	t.Parallel()
 	cases := []struct {
 		args []string
 		code int
@@ -205,6 +208,7 @@ func TestExitCodes(t *testing.T) {
 // above 2273.15 K; IAPWS R7-97(2012) Sec. 1, Fig. 1) fail with exit 1 and
 // one line on stderr, whatever the wording of plant/water's error.
 func TestOutOfRange(t *testing.T) {
+	t.Parallel()
 	for _, args := range [][]string{
 		{"steam", "--p", "7 bar(g)", "--t", "2500 C"},
 		{"steam", "--p", "200 MPa", "--t", "300 C"},
@@ -252,6 +256,7 @@ func steamJSONOf(t *testing.T, args ...string) steamOut {
 // (plant/schema's Round), that the inputs were read in the right units, and
 // that the document carries the program's version.
 func TestSteamJSONMatchesWater(t *testing.T) {
+	t.Parallel()
 	same := func(name string, got, want float64) {
 		t.Helper()
 		if got != schema.Round(want) {
@@ -313,6 +318,7 @@ func TestSteamJSONMatchesWater(t *testing.T) {
 // project's reference sheet, docs/reference/plant-checks.md §0 [C] (IAPWS-IF97 values
 // computed when the sheet was compiled), to the digits printed there.
 func TestSteamAgainstReference(t *testing.T) {
+	t.Parallel()
 	near := func(name string, got, want, tol float64) {
 		t.Helper()
 		if math.Abs(got-want) > tol {
@@ -347,6 +353,7 @@ func jsonNum(v float64) string    { b, _ := json.Marshal(v); return string(b) }
 // TestCancelled checks that a cancelled context stops the command with
 // exit 1 and no output.
 func TestCancelled(t *testing.T) {
+	t.Parallel()
 	ctx, cancel := context.WithCancel(context.Background())
 	cancel()
 	var out, errw bytes.Buffer

@@ -71,6 +71,7 @@ func profileRun(t testing.TB) Run {
 // TestProfileGolden pins the table and the JSON of the jobs. Rewrite with:
 // go test ./cmd/sim/internal/report -update
 func TestProfileGolden(t *testing.T) {
+	t.Parallel()
 	run := profileRun(t)
 	var b bytes.Buffer
 	must(t, Table(&b, run))
@@ -87,6 +88,7 @@ func TestProfileGolden(t *testing.T) {
 // TestProfileTable checks what the table says of each job against the
 // results it came from.
 func TestProfileTable(t *testing.T) {
+	t.Parallel()
 	run := profileRun(t)
 	var b bytes.Buffer
 	must(t, Table(&b, run))
@@ -140,6 +142,7 @@ func TestProfileTable(t *testing.T) {
 // TestVoyageWarningsCut: the table lists the warnings of at most ten
 // periods, three of each, and says how many more there are.
 func TestVoyageWarningsCut(t *testing.T) {
+	t.Parallel()
 	run := profileRun(t)
 	v := run.Voyages[0]
 	r := *v.Result
@@ -214,6 +217,7 @@ func readTables(t *testing.T, text string) (order []string, tables map[string][]
 // headers name (1 kg/s = 3600 kg/h, 1 t = 1000 kg, °C = K − 273.15, exact
 // by definition), to the decimals written.
 func TestCSVJobs(t *testing.T) {
+	t.Parallel()
 	run := profileRun(t)
 	run.Cases = demoCases(t)
 	var b bytes.Buffer
@@ -363,6 +367,7 @@ func TestCSVJobs(t *testing.T) {
 // TestCSVGolden pins the CSV stream of a run with cases and jobs. Rewrite
 // with: go test ./cmd/sim/internal/report -update
 func TestCSVGolden(t *testing.T) {
+	t.Parallel()
 	run := profileRun(t)
 	run.Cases = demoCases(t)[:2]
 	var b bytes.Buffer

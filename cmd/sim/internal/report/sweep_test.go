@@ -37,6 +37,7 @@ func sweepRun(t testing.TB) Run {
 // soot-fire caution beside the hours counted (the 30 % row is below the
 // 40 % soot-risk load, common practice, no source).
 func TestSweepReport(t *testing.T) {
+	t.Parallel()
 	run := sweepRun(t)
 	r := run.Studies[0].Result
 	best := r.Sweep.Points[r.Sweep.Best]
