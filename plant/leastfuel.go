@@ -176,31 +176,9 @@ type lfSet struct {
 func (p *Plant) leastFuel(ctx context.Context, c Case) (*LeastFuelResult, error) {
 	s := p.s
 	boilers := s.asm.roles.boilers
-	out := &LeastFuelResult{}
-	for _, b := range boilers {
-		out.EqualFuelKgS += s.last[b.fuel]
-	}
+	out := &LeastFuelResult{EqualFuelKgS: lfFuel(boilers, s.last)}
 	out.FuelKgS = out.EqualFuelKgS
-	record := func() {
-		out.Firing, out.Shares = nil, nil
-		var total float64
-		for i, b := range boilers {
-			if s.fire[i] {
-				total += s.last[b.steam.mIdx()]
-			}
-		}
-		for i, b := range boilers {
-			if s.fire[i] {
-				out.Firing = append(out.Firing, b.Name)
-				sh := 0.0
-				if total > 0 {
-					sh = s.last[b.steam.mIdx()] / total
-				}
-				out.Shares = append(out.Shares, sh)
-			}
-		}
-	}
-	record()
+	p.lfRecord(out)
 	if p.shedding() || s.shedFailed || p.overLimit() {
 		out.Note = "the case is short: every boiler fires at its limit"
 		return out, nil
@@ -209,127 +187,36 @@ func (p *Plant) leastFuel(ctx context.Context, c Case) (*LeastFuelResult, error)
 		return out, nil
 	}
 
-	// The reference.
+	// The reference, and the surrogates calibrated on it.
 	ref := append([]float64(nil), s.last...)
 	refFire := append([]bool(nil), s.fire...)
 	refRes := s.slvRes
-	var demand float64
-	for _, b := range boilers {
-		demand += ref[b.steam.mIdx()]
-	}
+	demand := lfSteam(boilers, ref)
 	if demand <= 0 {
 		return out, nil // the economisers carry it
 	}
 	ev := &eval{x: ref, cond: s.ev.cond, pl: p}
 	gs := make([]*lfBoiler, len(boilers))
-	for i, b := range boilers {
-		hpk, err := b.heatPerKg(ev)
-		if err != nil {
-			return nil, wrapErr(b, err)
-		}
-		gs[i] = &lfBoiler{b: b, hpk: hpk, ev: ev, minLoad: b.MinLoad()}
+	if err := lfSurrogates(gs, boilers, ev); err != nil {
+		return nil, err
 	}
 
 	// Inert gas: the lowest load of each set's sources.
-	var cargo float64
-	for _, c := range p.comps {
-		if t, ok := c.(*Turbine); ok {
-			cargo += t.CargoRate()
-		}
-	}
-	var igSources []int
+	ig := lfInertGas{boilers: boilers, gs: gs, cargo: p.cargoRate(), min: map[int]float64{}}
 	for i, b := range boilers {
 		if b.InertGas {
-			igSources = append(igSources, i)
+			ig.sources = append(ig.sources, i)
 		}
 	}
-	igNeeded := cargo > 0 && len(igSources) > 0
-	igMin := map[int]float64{} // by the mask of a set's sources
-	igLoad := func(mask int) (float64, bool, error) {
-		if v, ok := igMin[mask]; ok {
-			return v, v >= 0, nil
-		}
-		var src []igSource
-		for _, i := range igSources {
-			if mask&(1<<i) != 0 {
-				src = append(src, igSource{b: boilers[i], hpk: gs[i].hpk, ev: ev})
-			}
-		}
-		l, ok, err := igMinLoad(src, cargo*p.Opt.InertGasCapacity, p.Opt.InertGasO2Max)
-		if err != nil {
-			return 0, false, err
-		}
-		if !ok {
-			l = -1
-		}
-		igMin[mask] = l
-		return l, ok, nil
-	}
+	igNeeded := ig.cargo > 0 && len(ig.sources) > 0
 
-	// The sets and their bounds.
-	n := len(boilers)
-	var sets []*lfSet
-	build := func(useIG bool) error {
-		sets = sets[:0]
-		for mask := 1; mask < 1<<n; mask++ {
-			st := &lfSet{}
-			k := 0
-			for i := range boilers {
-				if mask&(1<<i) != 0 {
-					st.idx = append(st.idx, i)
-					k++
-				}
-			}
-			igMask := 0
-			for _, i := range igSources {
-				if mask&(1<<i) != 0 {
-					igMask |= 1 << i
-				}
-			}
-			var igL float64
-			if useIG {
-				if igMask == 0 {
-					continue
-				}
-				l, ok, err := igLoad(igMask)
-				if err != nil {
-					return err
-				}
-				if !ok {
-					continue
-				}
-				igL = l
-			}
-			var sumLo, sumHi float64
-			for _, i := range st.idx {
-				b := boilers[i]
-				lo := 0.0
-				if k >= 2 {
-					lo = b.MinLoad() * b.MCR
-				}
-				if useIG && igMask&(1<<i) != 0 {
-					lo = math.Max(lo, igL*b.MCR)
-				}
-				hi := b.Limit()
-				if k < n {
-					hi = p.usable(b)
-				}
-				st.lo, st.hi = append(st.lo, lo), append(st.hi, hi)
-				sumLo += lo
-				sumHi += hi
-			}
-			if demand < sumLo*(1-1e-9) || demand > sumHi*(1+1e-9) {
-				continue
-			}
-			sets = append(sets, st)
-		}
-		return nil
-	}
-	if err := build(igNeeded); err != nil {
+	// The sets, their bounds and their surrogates' best splits.
+	sets, err := p.lfSets(nil, &ig, ev, demand, igNeeded)
+	if err != nil {
 		return nil, err
 	}
 	if len(sets) == 0 && igNeeded {
-		if err := build(false); err != nil {
+		if sets, err = p.lfSets(sets, &ig, ev, demand, false); err != nil {
 			return nil, err
 		}
 	}
@@ -346,71 +233,12 @@ func (p *Plant) leastFuel(ctx context.Context, c Case) (*LeastFuelResult, error)
 	// Solve the best sets.
 	best := -1
 	bestFuel := out.EqualFuelKgS
-	keep := func(st *lfSet) {
-		st.x = append(st.x[:0], s.last...)
-		st.res = s.slvRes
-		st.fire = append([]bool(nil), s.fire...)
-		st.sharesByBoiler = append([]float64(nil), s.shares...)
-	}
 	for si, st := range sets {
 		if si > 0 && st.surrogate > sets[0].surrogate*1.005 {
 			break
 		}
-		fire := make([]bool, n)
-		for _, i := range st.idx {
-			fire[i] = true
-		}
-		var prevShares []float64
-		for round := 0; round < 2; round++ {
-			shares := make([]float64, n)
-			for j, i := range st.idx {
-				shares[i] = st.shares[j]
-			}
-			copy(s.last, ref)
-			s.shares = shares
-			s.noShed = true
-			err := p.solveConfig(ctx, fire)
-			out.Solves++
-			if err != nil {
-				if ctx.Err() != nil {
-					return nil, ctx.Err()
-				}
-				break // this set does not solve at this split: keep the others
-			}
-			if p.anyOverLimit(fire) {
-				break
-			}
-			var fuel, steam float64
-			for _, i := range st.idx {
-				fuel += s.last[boilers[i].fuel]
-			}
-			for _, b := range boilers {
-				steam += s.last[b.steam.mIdx()]
-			}
-			if !st.solved || fuel < st.solvedFuel {
-				st.solved, st.solvedFuel = true, fuel
-				keep(st)
-			}
-			// Recalibrate the surrogate on this solution and look again.
-			prevShares = append(prevShares[:0], st.shares...)
-			evs := &eval{x: s.last, cond: s.ev.cond, pl: p}
-			for _, i := range st.idx {
-				hpk, err := boilers[i].heatPerKg(evs)
-				if err != nil {
-					return nil, wrapErr(boilers[i], err)
-				}
-				gs[i] = &lfBoiler{b: boilers[i], hpk: hpk, ev: evs, minLoad: boilers[i].MinLoad()}
-			}
-			if err := p.lfSplit(st, gs, steam); err != nil {
-				return nil, err
-			}
-			moved := 0.0
-			for j := range st.shares {
-				moved = math.Max(moved, math.Abs(st.shares[j]-prevShares[j]))
-			}
-			if moved <= 1e-3 {
-				break
-			}
+		if err := p.lfSolveSet(ctx, st, gs, ref, out); err != nil {
+			return nil, err
 		}
 		// A saving below 1e-7 of the fuel is the solver's tolerance, not
 		// a saving: the reference stands.
@@ -431,13 +259,263 @@ func (p *Plant) leastFuel(ctx context.Context, c Case) (*LeastFuelResult, error)
 	copy(s.last, st.x)
 	copy(s.fire, st.fire)
 	s.slvRes, s.shares, s.noShed = st.res, nil, true
-	out.FuelKgS = 0
-	for _, b := range boilers {
-		out.FuelKgS += s.last[b.fuel]
-	}
+	out.FuelKgS = lfFuel(boilers, s.last)
 	out.SavedKgS = out.EqualFuelKgS - out.FuelKgS
-	record()
+	p.lfRecord(out)
 	return out, nil
+}
+
+// lfFuel is the boilers' fuel in solution x, kg/s.
+func lfFuel(boilers []*Boiler, x []float64) float64 {
+	var f float64
+	for _, b := range boilers {
+		f += x[b.fuel]
+	}
+	return f
+}
+
+// lfSteam is the boilers' steam in solution x, kg/s.
+func lfSteam(boilers []*Boiler, x []float64) float64 {
+	var m float64
+	for _, b := range boilers {
+		m += x[b.steam.mIdx()]
+	}
+	return m
+}
+
+// lfRecord sets the firing boilers of the last solution and their shares
+// of its steam as the answer's.
+func (p *Plant) lfRecord(out *LeastFuelResult) {
+	s := p.s
+	boilers := s.asm.roles.boilers
+	out.Firing, out.Shares = nil, nil
+	var total float64
+	for i, b := range boilers {
+		if s.fire[i] {
+			total += s.last[b.steam.mIdx()]
+		}
+	}
+	for i, b := range boilers {
+		if s.fire[i] {
+			out.Firing = append(out.Firing, b.Name)
+			sh := 0.0
+			if total > 0 {
+				sh = s.last[b.steam.mIdx()] / total
+			}
+			out.Shares = append(out.Shares, sh)
+		}
+	}
+}
+
+// lfSurrogates fills gs with each boiler's surrogate, its heat per kg of
+// steam taken from the solution ev evaluates.
+func lfSurrogates(gs []*lfBoiler, boilers []*Boiler, ev *eval) error {
+	for i, b := range boilers {
+		hpk, err := b.heatPerKg(ev)
+		if err != nil {
+			return wrapErr(b, err)
+		}
+		gs[i] = &lfBoiler{b: b, hpk: hpk, ev: ev, minLoad: b.MinLoad()}
+	}
+	return nil
+}
+
+// cargoRate is the running cargo pumps' rate of the case, m³/s.
+func (p *Plant) cargoRate() float64 {
+	var cargo float64
+	for _, c := range p.comps {
+		if t, ok := c.(*Turbine); ok {
+			cargo += t.CargoRate()
+		}
+	}
+	return cargo
+}
+
+// lfInertGas finds, for the inert-gas sources of a firing set, the lowest
+// load at which they meet the inert-gas demand (inertgas.go), once per set
+// of sources. (The solution the sources are evaluated in is a parameter of
+// load, not a field: as a field it would make the escape analysis move gs,
+// the memo and the sources to the heap.)
+type lfInertGas struct {
+	boilers []*Boiler
+	gs      []*lfBoiler
+	cargo   float64         // the cargo pumps' rate, m³/s
+	sources []int           // the boilers that are inert-gas sources
+	min     map[int]float64 // by the mask of a set's sources; -1: none
+}
+
+// load returns the lowest load of the sources in mask in the solution ev
+// evaluates, and false when no load of theirs meets the demand.
+func (ig *lfInertGas) load(p *Plant, ev *eval, mask int) (float64, bool, error) {
+	if v, ok := ig.min[mask]; ok {
+		return v, v >= 0, nil
+	}
+	var src []igSource
+	for _, i := range ig.sources {
+		if mask&(1<<i) != 0 {
+			src = append(src, igSource{b: ig.boilers[i], hpk: ig.gs[i].hpk, ev: ev})
+		}
+	}
+	l, ok, err := igMinLoad(src, ig.cargo*p.Opt.InertGasCapacity, p.Opt.InertGasO2Max)
+	if err != nil {
+		return 0, false, err
+	}
+	if !ok {
+		l = -1
+	}
+	ig.min[mask] = l
+	return l, ok, nil
+}
+
+// lfSets returns, appended to sets[:0], every set of boilers that may fire
+// and can raise demand kg/s within its bounds (see above); with useIG,
+// only the sets with inert-gas sources that meet the inert-gas demand in
+// the solution ev evaluates.
+func (p *Plant) lfSets(sets []*lfSet, ig *lfInertGas, ev *eval, demand float64, useIG bool) ([]*lfSet, error) {
+	boilers := ig.boilers
+	n := len(boilers)
+	sets = sets[:0]
+	for mask := 1; mask < 1<<n; mask++ {
+		st := &lfSet{}
+		k := 0
+		for i := range boilers {
+			if mask&(1<<i) != 0 {
+				st.idx = append(st.idx, i)
+				k++
+			}
+		}
+		igMask := 0
+		for _, i := range ig.sources {
+			if mask&(1<<i) != 0 {
+				igMask |= 1 << i
+			}
+		}
+		var igL float64
+		if useIG {
+			if igMask == 0 {
+				continue
+			}
+			l, ok, err := ig.load(p, ev, igMask)
+			if err != nil {
+				return sets, err
+			}
+			if !ok {
+				continue
+			}
+			igL = l
+		}
+		var sumLo, sumHi float64
+		for _, i := range st.idx {
+			b := boilers[i]
+			lo := 0.0
+			if k >= 2 {
+				lo = b.MinLoad() * b.MCR
+			}
+			if useIG && igMask&(1<<i) != 0 {
+				lo = math.Max(lo, igL*b.MCR)
+			}
+			hi := b.Limit()
+			if k < n {
+				hi = p.usable(b)
+			}
+			st.lo, st.hi = append(st.lo, lo), append(st.hi, hi)
+			sumLo += lo
+			sumHi += hi
+		}
+		if demand < sumLo*(1-1e-9) || demand > sumHi*(1+1e-9) {
+			continue
+		}
+		sets = append(sets, st)
+	}
+	return sets, nil
+}
+
+// lfSolveSet solves the plant with set st firing at its surrogate's split,
+// from the reference solution ref, recalibrates the surrogate on that
+// solution and solves again if the split moved by more than 0.1 % (at
+// most two solves), keeping in st the solution of least fuel. A set that
+// does not solve, or solves with a boiler over its limit, is left
+// unsolved; only a cancelled context or a fault of the surrogate is an
+// error.
+func (p *Plant) lfSolveSet(ctx context.Context, st *lfSet, gs []*lfBoiler, ref []float64, out *LeastFuelResult) error {
+	s := p.s
+	boilers := s.asm.roles.boilers
+	n := len(boilers)
+	fire := make([]bool, n)
+	for _, i := range st.idx {
+		fire[i] = true
+	}
+	var prevShares []float64
+	for round := 0; round < 2; round++ {
+		shares := make([]float64, n)
+		for j, i := range st.idx {
+			shares[i] = st.shares[j]
+		}
+		copy(s.last, ref)
+		s.shares = shares
+		s.noShed = true
+		err := p.solveConfig(ctx, fire)
+		out.Solves++
+		if err != nil {
+			if ctx.Err() != nil {
+				return ctx.Err()
+			}
+			break // this set does not solve at this split: keep the others
+		}
+		if p.anyOverLimit(fire) {
+			break
+		}
+		var fuel float64
+		for _, i := range st.idx {
+			fuel += s.last[boilers[i].fuel]
+		}
+		steam := lfSteam(boilers, s.last)
+		if !st.solved || fuel < st.solvedFuel {
+			st.solved, st.solvedFuel = true, fuel
+			st.keep(s)
+		}
+		// Recalibrate the surrogate on this solution and look again.
+		prevShares = append(prevShares[:0], st.shares...)
+		if err := p.lfRecalibrate(st, gs); err != nil {
+			return err
+		}
+		if err := p.lfSplit(st, gs, steam); err != nil {
+			return err
+		}
+		moved := 0.0
+		for j := range st.shares {
+			moved = math.Max(moved, math.Abs(st.shares[j]-prevShares[j]))
+		}
+		if moved <= 1e-3 {
+			break
+		}
+	}
+	return nil
+}
+
+// keep copies the last solution into the set: its unknowns, the solver's
+// result, the firing boilers and their shares.
+func (st *lfSet) keep(s *session) {
+	st.x = append(st.x[:0], s.last...)
+	st.res = s.slvRes
+	st.fire = append([]bool(nil), s.fire...)
+	st.sharesByBoiler = append([]float64(nil), s.shares...)
+}
+
+// lfRecalibrate gives the surrogates of set st's boilers the heat per kg
+// of steam of the last solution.
+func (p *Plant) lfRecalibrate(st *lfSet, gs []*lfBoiler) error {
+	s := p.s
+	boilers := s.asm.roles.boilers
+	evs := &eval{x: s.last, cond: s.ev.cond, pl: p}
+	for _, i := range st.idx {
+		hpk, err := boilers[i].heatPerKg(evs)
+		if err != nil {
+			return wrapErr(boilers[i], err)
+		}
+		gs[i] = &lfBoiler{b: boilers[i], hpk: hpk, ev: evs, minLoad: boilers[i].MinLoad()}
+	}
+	return nil
 }
 
 // anyOverLimit says whether a firing boiler of the last solution raises
@@ -458,58 +536,60 @@ func (p *Plant) anyOverLimit(fire []bool) bool {
 func (p *Plant) lfSplit(st *lfSet, gs []*lfBoiler, demand float64) error {
 	k := len(st.idx)
 	m := make([]float64, k)
-	total := func(m []float64) (float64, error) {
-		var f float64
-		for j, i := range st.idx {
-			v, err := gs[i].fuelAt(m[j])
-			if err != nil {
-				return 0, err
-			}
-			f += v
+	st.start(m, demand)
+	switch {
+	case k == 1:
+		m[0] = demand
+	case k == 2:
+		if err := st.splitPair(gs, m, demand); err != nil {
+			return err
 		}
-		return f, nil
+	case k == 3:
+		if err := st.splitGrid3(gs, m, demand); err != nil {
+			return err
+		}
+		fallthrough
+	default:
+		if err := st.splitPairs(gs, m, demand); err != nil {
+			return err
+		}
 	}
-	// clampPair moves steam between boilers a and b: a takes t of their
-	// pair's steam, within both bounds.
-	pairRange := func(a, b int, pair float64) (lo, hi float64) {
-		lo = math.Max(st.lo[a], pair-st.hi[b])
-		hi = math.Min(st.hi[a], pair-st.lo[b])
-		return lo, hi
+	f, err := st.fuel(gs, m)
+	if err != nil {
+		return err
 	}
-	// golden minimises g over [lo, hi] from a bracket around x0.
-	golden := func(g func(float64) (float64, error), lo, hi float64) (float64, float64, error) {
-		const r = 0.6180339887498949
-		a, b := lo, hi
-		c, d := b-r*(b-a), a+r*(b-a)
-		fc, err := g(c)
+	st.surrogate = f
+	st.shares = st.shares[:0]
+	for j := range m {
+		st.shares = append(st.shares, m[j]/demand)
+	}
+	return nil
+}
+
+// fuel is the surrogate fuel of the set's boilers raising m[j] kg/s each.
+func (st *lfSet) fuel(gs []*lfBoiler, m []float64) (float64, error) {
+	var f float64
+	for j, i := range st.idx {
+		v, err := gs[i].fuelAt(m[j])
 		if err != nil {
-			return 0, 0, err
+			return 0, err
 		}
-		fd, err := g(d)
-		if err != nil {
-			return 0, 0, err
-		}
-		for b-a > 1e-7*math.Max(demand, 1e-3) {
-			if fc < fd {
-				b, d, fd = d, c, fc
-				c = b - r*(b-a)
-				if fc, err = g(c); err != nil {
-					return 0, 0, err
-				}
-			} else {
-				a, c, fc = c, d, fd
-				d = a + r*(b-a)
-				if fd, err = g(d); err != nil {
-					return 0, 0, err
-				}
-			}
-		}
-		x := 0.5 * (a + b)
-		fx, err := g(x)
-		return x, fx, err
+		f += v
 	}
-	// A feasible start: in proportion to the room above each lower
-	// bound.
+	return f, nil
+}
+
+// pairRange is the range of the steam boiler a may take of the pair
+// steam it shares with boiler b, within both bounds.
+func (st *lfSet) pairRange(a, b int, pair float64) (lo, hi float64) {
+	lo = math.Max(st.lo[a], pair-st.hi[b])
+	hi = math.Min(st.hi[a], pair-st.lo[b])
+	return lo, hi
+}
+
+// start sets m to a feasible split of demand: each boiler at its lower
+// bound and a share of the rest in proportion to its room above it.
+func (st *lfSet) start(m []float64, demand float64) {
 	var sumLo, room float64
 	for j := range m {
 		sumLo += st.lo[j]
@@ -521,105 +601,141 @@ func (p *Plant) lfSplit(st *lfSet, gs []*lfBoiler, demand float64) error {
 			m[j] += (demand - sumLo) * (st.hi[j] - st.lo[j]) / room
 		}
 	}
-	switch {
-	case k == 1:
-		m[0] = demand
-	case k == 2:
-		lo, hi := pairRange(0, 1, demand)
-		g := func(t float64) (float64, error) { return total([]float64{t, demand - t}) }
-		bestT, bestF := lo, math.Inf(1)
-		const grid = 40
-		for q := 0; q <= grid; q++ {
-			t := lo + (hi-lo)*float64(q)/grid
-			f, err := g(t)
+}
+
+// splitPair sets m to the best split of demand between the two boilers of
+// the set: the best of 41 points across their range, refined by golden
+// sections around it.
+func (st *lfSet) splitPair(gs []*lfBoiler, m []float64, demand float64) error {
+	lo, hi := st.pairRange(0, 1, demand)
+	g := func(t float64) (float64, error) { return st.fuel(gs, []float64{t, demand - t}) }
+	bestT, bestF := lo, math.Inf(1)
+	const grid = 40
+	for q := 0; q <= grid; q++ {
+		t := lo + (hi-lo)*float64(q)/grid
+		f, err := g(t)
+		if err != nil {
+			return err
+		}
+		if f < bestF {
+			bestT, bestF = t, f
+		}
+	}
+	step := (hi - lo) / grid
+	t, f, err := lfGolden(g, math.Max(lo, bestT-step), math.Min(hi, bestT+step), demand)
+	if err != nil {
+		return err
+	}
+	if f > bestF {
+		t = bestT
+	}
+	m[0], m[1] = t, demand-t
+	return nil
+}
+
+// splitGrid3 sets m to the best split of demand among the three boilers
+// of the set on a grid of 21 × 21 points, for the pairs to refine.
+func (st *lfSet) splitGrid3(gs []*lfBoiler, m []float64, demand float64) error {
+	const grid = 20
+	bestF := math.Inf(1)
+	best := append([]float64(nil), m...)
+	lo0, hi0 := st.lo[0], math.Min(st.hi[0], demand-st.lo[1]-st.lo[2])
+	for q := 0; q <= grid; q++ {
+		a := lo0 + (hi0-lo0)*float64(q)/grid
+		lo1, hi1 := st.pairRange(1, 2, demand-a)
+		for r := 0; r <= grid; r++ {
+			b := lo1 + (hi1-lo1)*float64(r)/grid
+			try := []float64{a, b, demand - a - b}
+			if try[2] < st.lo[2]-1e-12 || try[2] > st.hi[2]+1e-12 || hi1 < lo1 {
+				continue
+			}
+			f, err := st.fuel(gs, try)
 			if err != nil {
 				return err
 			}
 			if f < bestF {
-				bestT, bestF = t, f
+				bestF = f
+				copy(best, try)
 			}
 		}
-		step := (hi - lo) / grid
-		t, f, err := golden(g, math.Max(lo, bestT-step), math.Min(hi, bestT+step))
-		if err != nil {
-			return err
-		}
-		if f > bestF {
-			t = bestT
-		}
-		m[0], m[1] = t, demand-t
-	case k == 3:
-		const grid = 20
-		bestF := math.Inf(1)
-		best := append([]float64(nil), m...)
-		lo0, hi0 := st.lo[0], math.Min(st.hi[0], demand-st.lo[1]-st.lo[2])
-		for q := 0; q <= grid; q++ {
-			a := lo0 + (hi0-lo0)*float64(q)/grid
-			lo1, hi1 := pairRange(1, 2, demand-a)
-			for r := 0; r <= grid; r++ {
-				b := lo1 + (hi1-lo1)*float64(r)/grid
-				try := []float64{a, b, demand - a - b}
-				if try[2] < st.lo[2]-1e-12 || try[2] > st.hi[2]+1e-12 || hi1 < lo1 {
+	}
+	copy(m, best)
+	return nil
+}
+
+// splitPairs improves the split m of demand by pairs in turn: it moves
+// steam between two boilers to the pair's best (golden sections near the
+// present split), until nothing moves.
+func (st *lfSet) splitPairs(gs []*lfBoiler, m []float64, demand float64) error {
+	k := len(m)
+	for sweep := 0; sweep < 8; sweep++ {
+		moved := 0.0
+		for a := 0; a < k; a++ {
+			for b := a + 1; b < k; b++ {
+				pair := m[a] + m[b]
+				lo, hi := st.pairRange(a, b, pair)
+				if hi-lo <= 0 {
 					continue
 				}
-				f, err := total(try)
+				g := func(t float64) (float64, error) {
+					old0, old1 := m[a], m[b]
+					m[a], m[b] = t, pair-t
+					f, err := st.fuel(gs, m)
+					m[a], m[b] = old0, old1
+					return f, err
+				}
+				f0, err := g(m[a])
 				if err != nil {
 					return err
 				}
-				if f < bestF {
-					bestF = f
-					copy(best, try)
+				t, f, err := lfGolden(g, math.Max(lo, m[a]-0.05*(hi-lo)), math.Min(hi, m[a]+0.05*(hi-lo)), demand)
+				if err != nil {
+					return err
+				}
+				if f < f0 {
+					moved = math.Max(moved, math.Abs(t-m[a]))
+					m[a], m[b] = t, pair-t
 				}
 			}
 		}
-		copy(m, best)
-		fallthrough
-	default:
-		// Pairs in turn: move steam between two boilers to the pair's
-		// best, until nothing moves.
-		for sweep := 0; sweep < 8; sweep++ {
-			moved := 0.0
-			for a := 0; a < k; a++ {
-				for b := a + 1; b < k; b++ {
-					pair := m[a] + m[b]
-					lo, hi := pairRange(a, b, pair)
-					if hi-lo <= 0 {
-						continue
-					}
-					g := func(t float64) (float64, error) {
-						old0, old1 := m[a], m[b]
-						m[a], m[b] = t, pair-t
-						f, err := total(m)
-						m[a], m[b] = old0, old1
-						return f, err
-					}
-					f0, err := g(m[a])
-					if err != nil {
-						return err
-					}
-					t, f, err := golden(g, math.Max(lo, m[a]-0.05*(hi-lo)), math.Min(hi, m[a]+0.05*(hi-lo)))
-					if err != nil {
-						return err
-					}
-					if f < f0 {
-						moved = math.Max(moved, math.Abs(t-m[a]))
-						m[a], m[b] = t, pair-t
-					}
-				}
-			}
-			if moved <= 1e-6*demand {
-				break
-			}
+		if moved <= 1e-6*demand {
+			break
 		}
-	}
-	f, err := total(m)
-	if err != nil {
-		return err
-	}
-	st.surrogate = f
-	st.shares = st.shares[:0]
-	for j := range m {
-		st.shares = append(st.shares, m[j]/demand)
 	}
 	return nil
+}
+
+// lfGolden minimises g over [lo, hi] by golden sections, to a bracket of
+// 1e-7 of demand (kg/s, at least 1e-3), and returns the middle of the
+// last bracket and g there.
+func lfGolden(g func(float64) (float64, error), lo, hi, demand float64) (float64, float64, error) {
+	const r = 0.6180339887498949
+	a, b := lo, hi
+	c, d := b-r*(b-a), a+r*(b-a)
+	fc, err := g(c)
+	if err != nil {
+		return 0, 0, err
+	}
+	fd, err := g(d)
+	if err != nil {
+		return 0, 0, err
+	}
+	for b-a > 1e-7*math.Max(demand, 1e-3) {
+		if fc < fd {
+			b, d, fd = d, c, fc
+			c = b - r*(b-a)
+			if fc, err = g(c); err != nil {
+				return 0, 0, err
+			}
+		} else {
+			a, c, fc = c, d, fd
+			d = a + r*(b-a)
+			if fd, err = g(d); err != nil {
+				return 0, 0, err
+			}
+		}
+	}
+	x := 0.5 * (a + b)
+	fx, err := g(x)
+	return x, fx, err
 }
