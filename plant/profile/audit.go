@@ -674,7 +674,9 @@ type auditor struct {
 	out *AuditResult
 }
 
-// newAuditor checks the spec and resolves defaults.
+// newAuditor checks the spec and resolves defaults, in the order a
+// script gives them: the sampling, the days, the uncertain inputs, the
+// causes, the factors, the claim's measurement.
 func newAuditor(p *plant.Plant, spec AuditSpec, opt *AuditOptions) (*auditor, error) {
 	if len(spec.Days) == 0 {
 		return nil, fmt.Errorf("audit has no days")
@@ -683,37 +685,9 @@ func newAuditor(p *plant.Plant, spec AuditSpec, opt *AuditOptions) (*auditor, er
 		return nil, fmt.Errorf("audit has %d days; at most %d are accepted", len(spec.Days), 1<<30-1)
 	}
 	res := &AuditResult{Days: make([]DayResult, len(spec.Days)), ClaimsOf: spec.ClaimsOf}
-	assume := func(item, value, source string) {
-		res.Assumptions = append(res.Assumptions, AuditAssumption{Item: item, Value: value, Source: source})
+	if err := res.sampling(opt); err != nil {
+		return nil, err
 	}
-	if opt.Samples == 0 {
-		opt.Samples = DefaultAuditSamples
-		assume("samples", "1000 (the default)", "common practice, no source")
-	}
-	if opt.Low == 0 && opt.High == 0 {
-		opt.Low, opt.High = 0.05, 0.95
-		assume("band", "5 % to 95 % (the default)", "common practice, no source")
-	}
-	if opt.Alpha == 0 {
-		opt.Alpha = 0.05
-		assume("level of the flags", "5 % (the default)", "common practice, no source")
-	}
-	if opt.Samples < 10 || opt.Samples > 100000 {
-		return nil, fmt.Errorf("audit samples must lie between 10 and 100000; got %d", opt.Samples)
-	}
-	if !(opt.Low > 0 && opt.Low < opt.High && opt.High < 1) {
-		return nil, fmt.Errorf("audit band quantiles must satisfy 0 < low < high < 1; got %g and %g", opt.Low, opt.High)
-	}
-	if !(opt.Alpha > 0 && opt.Alpha < 1) {
-		return nil, fmt.Errorf("audit alpha must lie between 0 and 1; got %g", opt.Alpha)
-	}
-	res.Samples, res.Seed, res.LowQ, res.HighQ, res.Alpha = opt.Samples, opt.Seed, opt.Low, opt.High, opt.Alpha
-	assume("distribution of the uncertain inputs", "uniform between low and high",
-		"GUM (JCGM 100:2008) §4.3.7: a rectangular distribution for a bound with no other knowledge, from memory")
-	assume("nominal inputs", "the middle of each range (a calibrated factor: its calibrated value)", "the audit's definition")
-	assume("quantiles", "linear between order statistics (Hyndman and Fan 1996, definition 7)", "the statistics' own definition")
-	assume("flags", fmt.Sprintf("the period total beyond %g %% in either tail; a day beyond α/(2N) in either tail (Bonferroni)", 100*opt.Alpha/2),
-		"Bonferroni's inequality; common practice")
 
 	a := &auditor{spec: spec, opt: *opt, claimsOf: -1, out: res}
 	a.pl = p.Clone()
@@ -723,167 +697,17 @@ func newAuditor(p *plant.Plant, spec AuditSpec, opt *AuditOptions) (*auditor, er
 	a.pl.Opt.NoContingencies = true
 	a.pl.Opt.NoLineStates = true
 
-	// Days.
-	audited := 0
-	for i, d := range spec.Days {
-		bad := func(format string, v ...any) error {
-			return &DayError{Pos: d.Pos, Day: i + 1, Date: d.Date, Err: fmt.Errorf(format, v...)}
-		}
-		if strings.TrimSpace(d.Date) == "" {
-			return nil, bad("the day has no date")
-		}
-		if !(d.Hours > 0) || math.IsInf(d.Hours, 0) {
-			return nil, bad("hours must be positive; got %g h", d.Hours)
-		}
-		if !(d.ClaimedT >= 0) || math.IsInf(d.ClaimedT, 0) {
-			return nil, bad("the claimed fuel must be zero or more tonnes; got %g t", d.ClaimedT)
-		}
-		if d.Reference && spec.Calibrate == nil {
-			return nil, bad("the day is marked as a reference day, but the audit calibrates nothing (give calibrate, or unmark the day)")
-		}
-		if !d.Reference {
-			audited++
-		}
-	}
-	if audited == 0 {
-		return nil, fmt.Errorf("audit has no day to audit: every day is a reference day")
-	}
-
-	// Uncertain inputs.
-	seen := map[string]bool{}
-	nset := 0
-	for _, u := range spec.Uncertain {
-		if !(u.Low <= u.High) || math.IsInf(u.Low, 0) || math.IsInf(u.High, 0) {
-			return nil, fmt.Errorf("%s: uncertain %s: range [%g, %g] is not a range", u.Pos, u.name(), u.Low, u.High)
-		}
-		if seen[u.name()] {
-			return nil, fmt.Errorf("%s: uncertain %s is given twice", u.Pos, u.name())
-		}
-		seen[u.name()] = true
-		r := ResolvedUncertain{Uncertain: u, Nominal: 0.5 * (u.Low + u.High), Why: "given"}
-		if u.Unit == "" {
-			if u.Param != ReadingSea && u.Param != ReadingAir {
-				return nil, fmt.Errorf("%s: uncertain %q has no unit; only the readings %q and %q may be given without one", u.Pos, u.Param, ReadingSea, ReadingAir)
-			}
-			a.setAt = append(a.setAt, -1)
-		} else {
-			if p.Component(u.Unit) == nil {
-				return nil, fmt.Errorf("%s: uncertain %s: the plant has no unit %q", u.Pos, u.name(), u.Unit)
-			}
-			a.setAt = append(a.setAt, nset)
-			nset++
-		}
-		if r.Scope == ScopeDefault {
-			s, why, ok := DefaultScope(u.Param)
-			if !ok {
-				return nil, fmt.Errorf("%s: uncertain %s: say whether it is fixed (drawn once for the period: a property of the ship) or daily (drawn each day): key %q has no default scope", u.Pos, u.name(), u.Param)
-			}
-			r.Scope, r.Why = s, "default for "+u.Param+": "+why
-			assume("scope of "+u.name(), s.String(), "the default for key "+u.Param+" ("+why+"); common practice, no source")
-		}
-		a.unc = append(a.unc, r)
-	}
-	for i, d := range spec.Days {
-		for _, u := range a.unc {
-			if u.Unit != "" {
-				continue
-			}
-			t := d.Case.Conditions.SeaT
-			if u.Param == ReadingAir {
-				t = d.Case.Conditions.AirT
-			}
-			if t <= 0 {
-				return nil, &DayError{Pos: d.Pos, Day: i + 1, Date: d.Date,
-					Err: fmt.Errorf("the %s reading is uncertain, but the day gives no %s temperature", u.Param, u.Param)}
-			}
-		}
-	}
-
-	// Causes.
-	names := map[string]bool{}
-	for _, c := range spec.Causes {
-		if c.Name == "" || names[c.Name] {
-			return nil, fmt.Errorf("%s: every cause needs a name of its own; got %q", c.Pos, c.Name)
-		}
-		names[c.Name] = true
-		if len(c.Units) == 0 {
-			return nil, fmt.Errorf("%s: cause %q names no unit", c.Pos, c.Name)
-		}
-		for _, u := range c.Units {
-			if err := canSwitchOff(p, u); err != nil {
-				return nil, fmt.Errorf("%s: cause %q: %v", c.Pos, c.Name, err)
-			}
-		}
-	}
-	// A tank's instruction belongs to a voyage: an audit solves each day
-	// on its own.
-	stateRows := make([]Row, len(spec.Days))
-	for i, d := range spec.Days {
-		stateRows[i] = Row{Phase: d.Phase, Hours: d.Hours, Case: d.Case}
-	}
-	if err := checkStateSettings(stateRows, nil, "audit"); err != nil {
+	if err := checkAuditDays(spec); err != nil {
 		return nil, err
 	}
-	if spec.ClaimsOf != "" {
-		for i, c := range spec.Causes {
-			if c.Name == spec.ClaimsOf {
-				a.claimsOf = i
-			}
-		}
-		if a.claimsOf < 0 {
-			return nil, fmt.Errorf("the days claim the fuel of %q, which is not one of the causes split out", spec.ClaimsOf)
-		}
+	if err := a.resolveUncertain(p); err != nil {
+		return nil, err
 	}
-	if len(spec.Causes) > 0 {
-		assume("split of the fuel by cause", "each cause's marginal share: the day's fuel less its fuel with the cause's units off, at the nominal inputs, all else as logged; the rest (the base load and the interaction of the causes) is not shared out",
-			"the audit's definition")
+	if err := a.checkCauses(p); err != nil {
+		return nil, err
 	}
-
-	// Factors.
-	for _, f := range spec.Implied {
-		idx, err := a.factorTargets(f)
-		if err != nil {
-			return nil, fmt.Errorf("%s: implied %s: %v", f.Pos, f.Name(), err)
-		}
-		a.implied = append(a.implied, idx)
-	}
-	if c := spec.Calibrate; c != nil {
-		idx, err := a.factorTargets(c.Factor)
-		if err != nil {
-			return nil, fmt.Errorf("%s: calibrate %s: %v", c.Pos, c.Name(), err)
-		}
-		for _, j := range idx {
-			if a.unc[j].Scope != Fixed {
-				return nil, fmt.Errorf("%s: calibrate %s: %s is drawn daily; only a fixed input can be calibrated for the period", c.Pos, c.Name(), a.unc[j].name())
-			}
-		}
-		if spec.ClaimsOf != "" {
-			return nil, fmt.Errorf("%s: calibrate %s: the reference days must claim their whole boiler fuel, but the days claim the fuel of %q", c.Pos, c.Name(), spec.ClaimsOf)
-		}
-		for _, u := range c.Off {
-			if err := canSwitchOff(p, u); err != nil {
-				return nil, fmt.Errorf("%s: calibrate %s: off: %v", c.Pos, c.Name(), err)
-			}
-		}
-		a.calTargets = idx
-		refs := 0
-		for i, d := range spec.Days {
-			if !d.Reference {
-				continue
-			}
-			refs++
-			for _, u := range c.Off {
-				if !isOff(p, d.Case, u) {
-					return nil, &DayError{Pos: d.Pos, Day: i + 1, Date: d.Date,
-						Err: fmt.Errorf("a reference day for calibrating %s must have %q off, but the day has it on (set %s.off = true on the day, or unmark it)", c.Name(), u, u)}
-				}
-			}
-		}
-		if refs == 0 {
-			return nil, fmt.Errorf("%s: calibrate %s: no day is marked as a reference day", c.Pos, c.Name())
-		}
-		assume("calibration", "the factor that makes the nominal model of the reference days give their claim, the other inputs nominal; its range covers the reference days' measurement uncertainty only",
-			"the audit's definition")
+	if err := a.resolveFactors(p); err != nil {
+		return nil, err
 	}
 	for i := range a.unc {
 		switch a.unc[i].Scope {
@@ -900,6 +724,236 @@ func newAuditor(p *plant.Plant, spec AuditSpec, opt *AuditOptions) (*auditor, er
 	}
 	a.q = make([][]float64, len(spec.Days))
 	return a, nil
+}
+
+// assume records an assumption of the audit.
+func (r *AuditResult) assume(item, value, source string) {
+	r.Assumptions = append(r.Assumptions, AuditAssumption{Item: item, Value: value, Source: source})
+}
+
+// sampling fills in the defaults of the sampling's options, checks them
+// and records them with the assumptions of the method.
+func (r *AuditResult) sampling(opt *AuditOptions) error {
+	if opt.Samples == 0 {
+		opt.Samples = DefaultAuditSamples
+		r.assume("samples", "1000 (the default)", "common practice, no source")
+	}
+	if opt.Low == 0 && opt.High == 0 {
+		opt.Low, opt.High = 0.05, 0.95
+		r.assume("band", "5 % to 95 % (the default)", "common practice, no source")
+	}
+	if opt.Alpha == 0 {
+		opt.Alpha = 0.05
+		r.assume("level of the flags", "5 % (the default)", "common practice, no source")
+	}
+	if opt.Samples < 10 || opt.Samples > 100000 {
+		return fmt.Errorf("audit samples must lie between 10 and 100000; got %d", opt.Samples)
+	}
+	if !(opt.Low > 0 && opt.Low < opt.High && opt.High < 1) {
+		return fmt.Errorf("audit band quantiles must satisfy 0 < low < high < 1; got %g and %g", opt.Low, opt.High)
+	}
+	if !(opt.Alpha > 0 && opt.Alpha < 1) {
+		return fmt.Errorf("audit alpha must lie between 0 and 1; got %g", opt.Alpha)
+	}
+	r.Samples, r.Seed, r.LowQ, r.HighQ, r.Alpha = opt.Samples, opt.Seed, opt.Low, opt.High, opt.Alpha
+	r.assume("distribution of the uncertain inputs", "uniform between low and high",
+		"GUM (JCGM 100:2008) §4.3.7: a rectangular distribution for a bound with no other knowledge, from memory")
+	r.assume("nominal inputs", "the middle of each range (a calibrated factor: its calibrated value)", "the audit's definition")
+	r.assume("quantiles", "linear between order statistics (Hyndman and Fan 1996, definition 7)", "the statistics' own definition")
+	r.assume("flags", fmt.Sprintf("the period total beyond %g %% in either tail; a day beyond α/(2N) in either tail (Bonferroni)", 100*opt.Alpha/2),
+		"Bonferroni's inequality; common practice")
+	return nil
+}
+
+// dayErrorf is a fault of day i (from 0) of an audit.
+func dayErrorf(d Day, i int, format string, v ...any) error {
+	return &DayError{Pos: d.Pos, Day: i + 1, Date: d.Date, Err: fmt.Errorf(format, v...)}
+}
+
+// checkAuditDays checks each day's date, hours and claim, and that some
+// day is audited (not only reference days).
+func checkAuditDays(spec AuditSpec) error {
+	audited := 0
+	for i, d := range spec.Days {
+		if strings.TrimSpace(d.Date) == "" {
+			return dayErrorf(d, i, "the day has no date")
+		}
+		if !(d.Hours > 0) || math.IsInf(d.Hours, 0) {
+			return dayErrorf(d, i, "hours must be positive; got %g h", d.Hours)
+		}
+		if !(d.ClaimedT >= 0) || math.IsInf(d.ClaimedT, 0) {
+			return dayErrorf(d, i, "the claimed fuel must be zero or more tonnes; got %g t", d.ClaimedT)
+		}
+		if d.Reference && spec.Calibrate == nil {
+			return dayErrorf(d, i, "the day is marked as a reference day, but the audit calibrates nothing (give calibrate, or unmark the day)")
+		}
+		if !d.Reference {
+			audited++
+		}
+	}
+	if audited == 0 {
+		return fmt.Errorf("audit has no day to audit: every day is a reference day")
+	}
+	return nil
+}
+
+// resolveUncertain checks the uncertain inputs (a range, given once, a
+// unit of the plant or a reading), gives each its nominal value and its
+// scope (the default for its key when the script gives none), and checks
+// that every day gives the temperatures whose readings are uncertain.
+func (a *auditor) resolveUncertain(p *plant.Plant) error {
+	seen := map[string]bool{}
+	nset := 0
+	for _, u := range a.spec.Uncertain {
+		if !(u.Low <= u.High) || math.IsInf(u.Low, 0) || math.IsInf(u.High, 0) {
+			return fmt.Errorf("%s: uncertain %s: range [%g, %g] is not a range", u.Pos, u.name(), u.Low, u.High)
+		}
+		if seen[u.name()] {
+			return fmt.Errorf("%s: uncertain %s is given twice", u.Pos, u.name())
+		}
+		seen[u.name()] = true
+		r := ResolvedUncertain{Uncertain: u, Nominal: 0.5 * (u.Low + u.High), Why: "given"}
+		if u.Unit == "" {
+			if u.Param != ReadingSea && u.Param != ReadingAir {
+				return fmt.Errorf("%s: uncertain %q has no unit; only the readings %q and %q may be given without one", u.Pos, u.Param, ReadingSea, ReadingAir)
+			}
+			a.setAt = append(a.setAt, -1)
+		} else {
+			if p.Component(u.Unit) == nil {
+				return fmt.Errorf("%s: uncertain %s: the plant has no unit %q", u.Pos, u.name(), u.Unit)
+			}
+			a.setAt = append(a.setAt, nset)
+			nset++
+		}
+		if r.Scope == ScopeDefault {
+			s, why, ok := DefaultScope(u.Param)
+			if !ok {
+				return fmt.Errorf("%s: uncertain %s: say whether it is fixed (drawn once for the period: a property of the ship) or daily (drawn each day): key %q has no default scope", u.Pos, u.name(), u.Param)
+			}
+			r.Scope, r.Why = s, "default for "+u.Param+": "+why
+			a.out.assume("scope of "+u.name(), s.String(), "the default for key "+u.Param+" ("+why+"); common practice, no source")
+		}
+		a.unc = append(a.unc, r)
+	}
+	for i, d := range a.spec.Days {
+		for _, u := range a.unc {
+			if u.Unit != "" {
+				continue
+			}
+			t := d.Case.Conditions.SeaT
+			if u.Param == ReadingAir {
+				t = d.Case.Conditions.AirT
+			}
+			if t <= 0 {
+				return dayErrorf(d, i, "the %s reading is uncertain, but the day gives no %s temperature", u.Param, u.Param)
+			}
+		}
+	}
+	return nil
+}
+
+// checkCauses checks the causes (a name of their own, units a case can
+// switch off), that no day sets a tank's instruction (which belongs to a
+// voyage: an audit solves each day on its own) and that a cause claimed
+// is one of them.
+func (a *auditor) checkCauses(p *plant.Plant) error {
+	spec := a.spec
+	names := map[string]bool{}
+	for _, c := range spec.Causes {
+		if c.Name == "" || names[c.Name] {
+			return fmt.Errorf("%s: every cause needs a name of its own; got %q", c.Pos, c.Name)
+		}
+		names[c.Name] = true
+		if len(c.Units) == 0 {
+			return fmt.Errorf("%s: cause %q names no unit", c.Pos, c.Name)
+		}
+		for _, u := range c.Units {
+			if err := canSwitchOff(p, u); err != nil {
+				return fmt.Errorf("%s: cause %q: %v", c.Pos, c.Name, err)
+			}
+		}
+	}
+	stateRows := make([]Row, len(spec.Days))
+	for i, d := range spec.Days {
+		stateRows[i] = Row{Phase: d.Phase, Hours: d.Hours, Case: d.Case}
+	}
+	if err := checkStateSettings(stateRows, nil, "audit"); err != nil {
+		return err
+	}
+	if spec.ClaimsOf != "" {
+		for i, c := range spec.Causes {
+			if c.Name == spec.ClaimsOf {
+				a.claimsOf = i
+			}
+		}
+		if a.claimsOf < 0 {
+			return fmt.Errorf("the days claim the fuel of %q, which is not one of the causes split out", spec.ClaimsOf)
+		}
+	}
+	if len(spec.Causes) > 0 {
+		a.out.assume("split of the fuel by cause", "each cause's marginal share: the day's fuel less its fuel with the cause's units off, at the nominal inputs, all else as logged; the rest (the base load and the interaction of the causes) is not shared out",
+			"the audit's definition")
+	}
+	return nil
+}
+
+// resolveFactors finds the uncertain inputs of each implied factor and
+// of the calibrated one, and checks the calibration.
+func (a *auditor) resolveFactors(p *plant.Plant) error {
+	for _, f := range a.spec.Implied {
+		idx, err := a.factorTargets(f)
+		if err != nil {
+			return fmt.Errorf("%s: implied %s: %v", f.Pos, f.Name(), err)
+		}
+		a.implied = append(a.implied, idx)
+	}
+	if c := a.spec.Calibrate; c != nil {
+		return a.checkCalibration(p, c)
+	}
+	return nil
+}
+
+// checkCalibration checks the calibrated factor (fixed inputs only, the
+// days claiming their whole fuel, units a case can switch off) and its
+// reference days (at least one, each with those units off).
+func (a *auditor) checkCalibration(p *plant.Plant, c *Calibration) error {
+	spec := a.spec
+	idx, err := a.factorTargets(c.Factor)
+	if err != nil {
+		return fmt.Errorf("%s: calibrate %s: %v", c.Pos, c.Name(), err)
+	}
+	for _, j := range idx {
+		if a.unc[j].Scope != Fixed {
+			return fmt.Errorf("%s: calibrate %s: %s is drawn daily; only a fixed input can be calibrated for the period", c.Pos, c.Name(), a.unc[j].name())
+		}
+	}
+	if spec.ClaimsOf != "" {
+		return fmt.Errorf("%s: calibrate %s: the reference days must claim their whole boiler fuel, but the days claim the fuel of %q", c.Pos, c.Name(), spec.ClaimsOf)
+	}
+	for _, u := range c.Off {
+		if err := canSwitchOff(p, u); err != nil {
+			return fmt.Errorf("%s: calibrate %s: off: %v", c.Pos, c.Name(), err)
+		}
+	}
+	a.calTargets = idx
+	refs := 0
+	for i, d := range spec.Days {
+		if !d.Reference {
+			continue
+		}
+		refs++
+		for _, u := range c.Off {
+			if !isOff(p, d.Case, u) {
+				return dayErrorf(d, i, "a reference day for calibrating %s must have %q off, but the day has it on (set %s.off = true on the day, or unmark it)", c.Name(), u, u)
+			}
+		}
+	}
+	if refs == 0 {
+		return fmt.Errorf("%s: calibrate %s: no day is marked as a reference day", c.Pos, c.Name())
+	}
+	a.out.assume("calibration", "the factor that makes the nominal model of the reference days give their claim, the other inputs nominal; its range covers the reference days' measurement uncertainty only",
+		"the audit's definition")
+	return nil
 }
 
 // factorTargets finds the uncertain inputs a factor sets and checks that
