@@ -220,64 +220,12 @@ func Plan(ctx context.Context, p *plant.Plant, rows []profile.Row, tanks []Tank,
 	}
 	names := make([]string, len(tanks))
 	byName := map[string]int{}
-	for i, t := range tanks {
-		at := t.Pos
-		if _, dup := byName[t.Unit]; dup {
-			return nil, profile.Errorf(at, "tank %q is given twice", t.Unit)
-		}
-		byName[t.Unit] = i
-		names[i] = t.Unit
-		// StartTank checks the unit, its coil and the temperature.
-		pc := p.Clone()
-		if err := pc.StartTank(t.Unit, t.StartT); err != nil {
-			return nil, profile.Errorf(at, "%w", err)
-		}
-		if t.NeverBelow != 0 && !(t.NeverBelow >= loads.MinTemperature && t.NeverBelow <= loads.MaxTemperature) {
-			return nil, profile.Errorf(at, "tank %q: never-below temperature %.6g K is not plausible", t.Unit, t.NeverBelow)
-		}
+	if err := checkTanks(p, rows, tanks, names, byName); err != nil {
+		return nil, err
 	}
-	for i, r := range rows {
-		for _, s := range r.Case.Set {
-			if _, ok := byName[s.Unit]; ok && (s.Param == "instruction" || s.Param == "T" || s.Param == "by" || s.Param == "mode" ||
-				s.Param == "from" || s.Param == "to" || s.Param == "duration" || s.Param == "factor") {
-				return nil, profile.Errorf(rowPos(s, r), "row %d sets %s.%s, but the plan decides %q's heating: leave it out of the rows",
-					i+1, s.Unit, s.Param, s.Unit)
-			}
-		}
-	}
-	// The requirements, at boundaries.
 	reqAt := make([][]int, len(reqs)) // boundaries each holds at
-	for k, q := range reqs {
-		at := q.Pos
-		if _, ok := byName[q.Tank]; !ok {
-			return nil, profile.Errorf(at, "required temperature for %q, which is not a tank of the plan (tanks: %s)", q.Tank, strings.Join(names, ", "))
-		}
-		if !(q.T >= loads.MinTemperature && q.T <= loads.MaxTemperature) {
-			return nil, profile.Errorf(at, "required temperature of %q %.6g K is not plausible", q.Tank, q.T)
-		}
-		if q.Phase != "" {
-			for i, r := range rows {
-				if r.Phase == q.Phase {
-					if len(reqAt[k]) == 0 || reqAt[k][len(reqAt[k])-1] != i {
-						reqAt[k] = append(reqAt[k], i)
-					}
-					reqAt[k] = append(reqAt[k], i+1)
-				}
-			}
-			if len(reqAt[k]) == 0 {
-				return nil, profile.Errorf(at, "required at phase %q, but no row of the voyage has that phase (phases: %s)", q.Phase, strings.Join(phases(rows), ", "))
-			}
-			continue
-		}
-		total := bound[nr]
-		if q.At > total*(1+1e-12)+1e-6 || q.At < 0 {
-			return nil, profile.Errorf(at, "required time %s (%.6g h) is past the end of the voyage at %.6g h", q.Label, q.At/3600, total/3600)
-		}
-		b := sort.Search(nr+1, func(i int) bool { return bound[i] >= q.At-1e-6 })
-		if b > nr || math.Abs(bound[b]-q.At) > 1e-6 {
-			return nil, profile.Errorf(at, "required time %s (%.6g h) falls inside row %d (%.6g h to %.6g h); give the time of a row's start or end, or a phase", q.Label, q.At/3600, b, bound[b-1]/3600, bound[b]/3600)
-		}
-		reqAt[k] = []int{b}
+	if err := requiredAt(rows, reqs, bound, names, byName, reqAt); err != nil {
+		return nil, err
 	}
 
 	// The tanks' models, periods and grids.
@@ -285,38 +233,10 @@ func Plan(ctx context.Context, p *plant.Plant, rows []profile.Row, tanks []Tank,
 	ltanks := make([]*loads.TankHeating, len(tanks))
 	steamT := make([]float64, len(tanks))
 	for i, t := range tanks {
-		m := p.Component(t.Unit).(*plant.Consumer).Model.(*plant.TankHeating)
-		lt := m.Tank
-		lt.Name = t.Unit
-		lt.Boundaries = append([]loads.Boundary(nil), m.Tank.Boundaries...)
-		ltanks[i] = &lt
-		sp := m.CoilP
-		if sp == 0 {
-			var err error
-			if sp, err = p.SupplyPressure(t.Unit); err != nil {
-				return nil, profile.Errorf(t.Pos, "tank %q: %w", t.Unit, err)
-			}
+		var err error
+		if dps[i], ltanks[i], steamT[i], err = tankModel(p, rows, t); err != nil {
+			return nil, err
 		}
-		ts, err := water.Tsat(sp)
-		if err != nil {
-			return nil, profile.Errorf(t.Pos, "tank %q: steam at its coil: %w", t.Unit, err)
-		}
-		steamT[i] = ts
-		d := &tankDP{name: t.Unit, start: t.StartT, floor: t.NeverBelow, periods: make([]loads.Period, nr),
-			heat: make([]bool, nr), req: make([]float64, nr+1)}
-		for r, row := range rows {
-			amb := loads.Ambient{Sea: row.Case.Conditions.SeaT, Air: row.Case.Conditions.AirT}
-			if (m.UsesSea() && amb.Sea <= 0) || (m.UsesAir() && amb.Air <= 0) {
-				return nil, profile.Errorf(row.Case.Pos, "row %d: tank %q loses heat to the sea and air: the row needs its sea and air temperatures", r+1, t.Unit)
-			}
-			pd, err := lt.Period(row.Hours*3600, amb, ts)
-			if err != nil {
-				return nil, profile.Errorf(row.Case.Pos, "row %d: %w", r+1, err)
-			}
-			d.periods[r] = pd
-			d.heat[r] = !rowSetsOff(row, t.Unit, p)
-		}
-		dps[i] = d
 	}
 	for k, q := range reqs {
 		d := dps[byName[q.Tank]]
@@ -330,19 +250,8 @@ func Plan(ctx context.Context, p *plant.Plant, rows []profile.Row, tanks []Tank,
 		}
 	}
 
-	// The rows' fuel against the planned duty.
-	active := make([][]bool, nr)
-	qmax := make([]float64, nr)
-	for r := range rows {
-		active[r] = make([]bool, len(dps))
-		for i, d := range dps {
-			active[r][i] = d.heat[r]
-			if d.heat[r] {
-				qmax[r] += d.periods[r].Capacity(d.lowT(), d.lowT())
-			}
-		}
-	}
-	curves, solves, err := tabulate(ctx, p, rows, names, active, qmax, opt.Workers)
+	// The rows' fuel against the planned duty, and the programme.
+	curves, solves, err := fuelCurves(ctx, p, rows, names, dps, opt.Workers)
 	if err != nil {
 		return nil, err
 	}
@@ -357,10 +266,171 @@ func Plan(ctx context.Context, p *plant.Plant, rows []profile.Row, tanks []Tank,
 		d.precompute(nr, false)
 	}
 	res := &Result{Grid: opt.Grid, Solves: solves}
+	plans := pb.solve(opt, res)
+	tableFuel, _, _ := pb.cost(plans)
+
+	// The plan's rows, instructions and limits.
+	res.addRows(rows, plans, bound, curves)
+	res.addTanks(rows, tanks, plans, bound)
+	sort.SliceStable(res.Binding, func(a, b int) bool { return res.Binding[a].Row < res.Binding[b].Row })
+
+	// The plan and the naive plans as voyages.
+	latest, err := res.replayAll(ctx, p, rows, tanks, pb, reqs, reqAt)
+	if err != nil {
+		return nil, err
+	}
+	res.Plan.TableFuelT = tableFuel / 1000
+
+	// The requirements: met, the latest start, the verdict.
+	for k, q := range reqs {
+		i := byName[q.Tank]
+		res.addRequired(pb, dps[i], ltanks[i], steamT[i], rows, q, i, reqAt[k], latest[k], bound)
+	}
+	if e := math.Abs(res.Plan.TableFuelT - res.Plan.FuelT); e > 0.005*res.Plan.FuelT {
+		res.Warnings = append(res.Warnings, fmt.Sprintf(
+			"the fuel curves the plan was chosen by give %.3f t, the plant solved row by row %.3f t: the plan may not be the least-fuel one by as much", res.Plan.TableFuelT, res.Plan.FuelT))
+	}
+	return res, nil
+}
+
+// checkTanks checks the planned tanks (each once, a tank_heating unit
+// with a coil and a plausible start and never-below temperature), filling
+// names and byName, and that no row sets what the plan decides for them.
+func checkTanks(p *plant.Plant, rows []profile.Row, tanks []Tank, names []string, byName map[string]int) error {
+	for i, t := range tanks {
+		at := t.Pos
+		if _, dup := byName[t.Unit]; dup {
+			return profile.Errorf(at, "tank %q is given twice", t.Unit)
+		}
+		byName[t.Unit] = i
+		names[i] = t.Unit
+		// StartTank checks the unit, its coil and the temperature.
+		pc := p.Clone()
+		if err := pc.StartTank(t.Unit, t.StartT); err != nil {
+			return profile.Errorf(at, "%w", err)
+		}
+		if t.NeverBelow != 0 && !(t.NeverBelow >= loads.MinTemperature && t.NeverBelow <= loads.MaxTemperature) {
+			return profile.Errorf(at, "tank %q: never-below temperature %.6g K is not plausible", t.Unit, t.NeverBelow)
+		}
+	}
+	for i, r := range rows {
+		for _, s := range r.Case.Set {
+			if _, ok := byName[s.Unit]; ok && (s.Param == "instruction" || s.Param == "T" || s.Param == "by" || s.Param == "mode" ||
+				s.Param == "from" || s.Param == "to" || s.Param == "duration" || s.Param == "factor") {
+				return profile.Errorf(rowPos(s, r), "row %d sets %s.%s, but the plan decides %q's heating: leave it out of the rows",
+					i+1, s.Unit, s.Param, s.Unit)
+			}
+		}
+	}
+	return nil
+}
+
+// requiredAt checks the requirements (a tank of the plan, a plausible
+// temperature, a phase of the voyage or a time at a row boundary) and
+// sets reqAt[k] to the boundaries requirement k holds at: the start and
+// end of each row of its phase, or the boundary at its time. bound are
+// the boundaries' times from the start (s).
+func requiredAt(rows []profile.Row, reqs []Requirement, bound []float64, names []string, byName map[string]int, reqAt [][]int) error {
+	nr := len(rows)
+	for k, q := range reqs {
+		at := q.Pos
+		if _, ok := byName[q.Tank]; !ok {
+			return profile.Errorf(at, "required temperature for %q, which is not a tank of the plan (tanks: %s)", q.Tank, strings.Join(names, ", "))
+		}
+		if !(q.T >= loads.MinTemperature && q.T <= loads.MaxTemperature) {
+			return profile.Errorf(at, "required temperature of %q %.6g K is not plausible", q.Tank, q.T)
+		}
+		if q.Phase != "" {
+			for i, r := range rows {
+				if r.Phase == q.Phase {
+					if len(reqAt[k]) == 0 || reqAt[k][len(reqAt[k])-1] != i {
+						reqAt[k] = append(reqAt[k], i)
+					}
+					reqAt[k] = append(reqAt[k], i+1)
+				}
+			}
+			if len(reqAt[k]) == 0 {
+				return profile.Errorf(at, "required at phase %q, but no row of the voyage has that phase (phases: %s)", q.Phase, strings.Join(phases(rows), ", "))
+			}
+			continue
+		}
+		total := bound[nr]
+		if q.At > total*(1+1e-12)+1e-6 || q.At < 0 {
+			return profile.Errorf(at, "required time %s (%.6g h) is past the end of the voyage at %.6g h", q.Label, q.At/3600, total/3600)
+		}
+		b := sort.Search(nr+1, func(i int) bool { return bound[i] >= q.At-1e-6 })
+		if b > nr || math.Abs(bound[b]-q.At) > 1e-6 {
+			return profile.Errorf(at, "required time %s (%.6g h) falls inside row %d (%.6g h to %.6g h); give the time of a row's start or end, or a phase", q.Label, q.At/3600, b, bound[b-1]/3600, bound[b]/3600)
+		}
+		reqAt[k] = []int{b}
+	}
+	return nil
+}
+
+// tankModel returns tank t as the programme sees it (its heat-loss
+// periods of the rows and the rows its coil may heat in), its cargo model
+// and the saturation temperature of the steam at its coil (K).
+func tankModel(p *plant.Plant, rows []profile.Row, t Tank) (*tankDP, *loads.TankHeating, float64, error) {
+	m := p.Component(t.Unit).(*plant.Consumer).Model.(*plant.TankHeating)
+	lt := m.Tank
+	lt.Name = t.Unit
+	lt.Boundaries = append([]loads.Boundary(nil), m.Tank.Boundaries...)
+	sp := m.CoilP
+	if sp == 0 {
+		var err error
+		if sp, err = p.SupplyPressure(t.Unit); err != nil {
+			return nil, nil, 0, profile.Errorf(t.Pos, "tank %q: %w", t.Unit, err)
+		}
+	}
+	ts, err := water.Tsat(sp)
+	if err != nil {
+		return nil, nil, 0, profile.Errorf(t.Pos, "tank %q: steam at its coil: %w", t.Unit, err)
+	}
+	nr := len(rows)
+	d := &tankDP{name: t.Unit, start: t.StartT, floor: t.NeverBelow, periods: make([]loads.Period, nr),
+		heat: make([]bool, nr), req: make([]float64, nr+1)}
+	for r, row := range rows {
+		amb := loads.Ambient{Sea: row.Case.Conditions.SeaT, Air: row.Case.Conditions.AirT}
+		if (m.UsesSea() && amb.Sea <= 0) || (m.UsesAir() && amb.Air <= 0) {
+			return nil, nil, 0, profile.Errorf(row.Case.Pos, "row %d: tank %q loses heat to the sea and air: the row needs its sea and air temperatures", r+1, t.Unit)
+		}
+		pd, err := lt.Period(row.Hours*3600, amb, ts)
+		if err != nil {
+			return nil, nil, 0, profile.Errorf(row.Case.Pos, "row %d: %w", r+1, err)
+		}
+		d.periods[r] = pd
+		d.heat[r] = !rowSetsOff(row, t.Unit, p)
+	}
+	return d, &lt, ts, nil
+}
+
+// fuelCurves solves each row's fuel against the planned tanks' duty, up
+// to the most their coils take from the lowest temperature of their grids
+// in the rows they may heat in, and returns the curves and the solves.
+func fuelCurves(ctx context.Context, p *plant.Plant, rows []profile.Row, names []string, dps []*tankDP, workers int) ([]FuelCurve, int, error) {
+	nr := len(rows)
+	active := make([][]bool, nr)
+	qmax := make([]float64, nr)
+	for r := range rows {
+		active[r] = make([]bool, len(dps))
+		for i, d := range dps {
+			active[r][i] = d.heat[r]
+			if d.heat[r] {
+				qmax[r] += d.periods[r].Capacity(d.lowT(), d.lowT())
+			}
+		}
+	}
+	return tabulate(ctx, p, rows, names, active, qmax, workers)
+}
+
+// solve chooses the method (the joint programme where its work and
+// memory are small enough, else the descent, unless opt names one), runs
+// it and records it in res.
+func (pb *problem) solve(opt Options, res *Result) []plan {
 	method := opt.Method
 	if method == "" {
 		method = "descent"
-		if work := pb.jointWork(); len(dps) <= 3 && work <= opt.JointBudget && pb.jointMemory() <= 5e7 {
+		if work := pb.jointWork(); len(pb.tanks) <= 3 && work <= opt.JointBudget && pb.jointMemory() <= 5e7 {
 			method = "joint"
 		}
 	}
@@ -371,9 +441,13 @@ func Plan(ctx context.Context, p *plant.Plant, rows []profile.Row, tanks []Tank,
 		plans, res.Sweeps = pb.descend(opt.MaxSweeps)
 	}
 	res.Method = method
-	tableFuel, _, _ := pb.cost(plans)
+	return plans
+}
 
-	// The plan's rows, instructions and limits.
+// addRows adds the voyage's rows under the plans: the tanks' mean duty
+// against the boilers' capacity for them, and the rows where the boilers'
+// capacity binds.
+func (res *Result) addRows(rows []profile.Row, plans []plan, bound []float64, curves []FuelCurve) {
 	for r, row := range rows {
 		rp := RowPlan{Index: r, Phase: row.Phase, Hours: row.Hours, StartH: bound[r] / 3600, CapacityW: curves[r].Cap}
 		for _, pl := range plans {
@@ -384,6 +458,12 @@ func Plan(ctx context.Context, p *plant.Plant, rows []profile.Row, tanks []Tank,
 			res.Binding = append(res.Binding, Binding{Row: r, What: "boilers"})
 		}
 	}
+}
+
+// addTanks adds each tank's plan: its instruction and temperatures in
+// each row, and the rows where its coil or its never-below temperature
+// binds.
+func (res *Result) addTanks(rows []profile.Row, tanks []Tank, plans []plan, bound []float64) {
 	for i, t := range tanks {
 		tp := TankPlan{Unit: t.Unit, StartT: t.StartT, NeverBelow: t.NeverBelow}
 		for r := range rows {
@@ -407,19 +487,23 @@ func Plan(ctx context.Context, p *plant.Plant, rows []profile.Row, tanks []Tank,
 		}
 		res.Tanks = append(res.Tanks, tp)
 	}
-	sort.SliceStable(res.Binding, func(a, b int) bool { return res.Binding[a].Row < res.Binding[b].Row })
+}
 
-	// The plan and the naive plans as voyages.
+// replayAll solves the plan and the naive plans (hold, last moment) as
+// voyages with their instructions, with the naive plans' fuel by the
+// rows' fuel curves, and returns the latest start of each requirement's
+// heat-up (naive).
+func (res *Result) replayAll(ctx context.Context, p *plant.Plant, rows []profile.Row, tanks []Tank, pb *problem, reqs []Requirement, reqAt [][]int) ([]int, error) {
 	starts := make([]profile.TankStart, len(tanks))
 	for i, t := range tanks {
 		starts[i] = profile.TankStart{Unit: t.Unit, T: t.StartT, Pos: t.Pos}
 	}
 	planRows := withInstructions(rows, res.Tanks)
+	var err error
 	res.Plan, err = replay(ctx, p, planRows, starts)
 	if err != nil {
 		return nil, fmt.Errorf("the plan solved as a voyage: %w", err)
 	}
-	res.Plan.TableFuelT = tableFuel / 1000
 	hold, last, latest := naive(pb, reqs, reqAt)
 	res.Hold, err = replay(ctx, p, withInstructions(rows, hold), starts)
 	if err != nil {
@@ -439,44 +523,42 @@ func Plan(ctx context.Context, p *plant.Plant, rows []profile.Row, tanks []Tank,
 		f, _, _ := pb.cost(toPlans(ts))
 		o.TableFuelT = f / 1000
 	}
+	return latest, nil
+}
 
-	// The requirements: met, the latest start, the verdict.
-	for k, q := range reqs {
-		i := byName[q.Tank]
-		rr := RequiredResult{Requirement: q, Reached: math.Inf(1), LatestStartRow: latest[k]}
-		if latest[k] >= 0 {
-			rr.LatestStartH = bound[latest[k]] / 3600
-		} else {
-			rr.LatestStartH = -1
-		}
-		worst := reqAt[k][0]
-		for _, b := range reqAt[k] {
-			T := res.tankT(i, b)
-			if T < rr.Reached {
-				rr.Reached, worst = T, b
-			}
-		}
-		rr.Met = rr.Reached >= q.T-0.01
-		if !rr.Met {
-			rr.Verdict = verdict(pb, dps[i], ltanks[i], steamT[i], rows, q, worst, rr.Reached)
-			res.Plan.Missed = append(res.Plan.Missed, rr.Verdict)
-		}
-		res.Tanks[i].Required = append(res.Tanks[i].Required, rr)
-		for _, o := range []*Outcome{&res.Hold, &res.LastMoment} {
-			low := math.Inf(1)
-			for _, b := range reqAt[k] {
-				low = math.Min(low, outcomeT(o, i, b, q.Tank))
-			}
-			if low < q.T-0.01 {
-				o.Missed = append(o.Missed, fmt.Sprintf("%s reaches %.1f °C at %s; %.1f °C is required", q.Tank, low-273.15, q.Label, q.T-273.15))
-			}
+// addRequired adds requirement q of tank i (at the boundaries at, its
+// heat-up's latest start row latest) to the tank's plan: the lowest
+// temperature the plan has there, whether it is met and, when not, the
+// verdict; and the naive plans' misses of it.
+func (res *Result) addRequired(pb *problem, d *tankDP, lt *loads.TankHeating, ts float64, rows []profile.Row, q Requirement, i int, at []int, latest int, bound []float64) {
+	rr := RequiredResult{Requirement: q, Reached: math.Inf(1), LatestStartRow: latest}
+	if latest >= 0 {
+		rr.LatestStartH = bound[latest] / 3600
+	} else {
+		rr.LatestStartH = -1
+	}
+	worst := at[0]
+	for _, b := range at {
+		T := res.tankT(i, b)
+		if T < rr.Reached {
+			rr.Reached, worst = T, b
 		}
 	}
-	if e := math.Abs(res.Plan.TableFuelT - res.Plan.FuelT); e > 0.005*res.Plan.FuelT {
-		res.Warnings = append(res.Warnings, fmt.Sprintf(
-			"the fuel curves the plan was chosen by give %.3f t, the plant solved row by row %.3f t: the plan may not be the least-fuel one by as much", res.Plan.TableFuelT, res.Plan.FuelT))
+	rr.Met = rr.Reached >= q.T-0.01
+	if !rr.Met {
+		rr.Verdict = verdict(pb, d, lt, ts, rows, q, worst, rr.Reached)
+		res.Plan.Missed = append(res.Plan.Missed, rr.Verdict)
 	}
-	return res, nil
+	res.Tanks[i].Required = append(res.Tanks[i].Required, rr)
+	for _, o := range []*Outcome{&res.Hold, &res.LastMoment} {
+		low := math.Inf(1)
+		for _, b := range at {
+			low = math.Min(low, outcomeT(o, i, b, q.Tank))
+		}
+		if low < q.T-0.01 {
+			o.Missed = append(o.Missed, fmt.Sprintf("%s reaches %.1f °C at %s; %.1f °C is required", q.Tank, low-273.15, q.Label, q.T-273.15))
+		}
+	}
 }
 
 // tankT is tank i's planned temperature at boundary b.
