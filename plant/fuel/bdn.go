@@ -224,93 +224,17 @@ func FromBDN(base Fuel, b BDN) (BDNFuel, error) {
 		return BDNFuel{}, &FieldError{Fuel: name, Field: "base Class", Value: float64(base.Class),
 			Want: fmt.Sprintf("a bunker delivery note describes a liquid fuel; the base %q is %v", base.label(), base.Class)}
 	}
-	var errs []error
-	var out BDNFuel
-	warn := func(format string, args ...any) {
-		out.Warnings = append(out.Warnings, fmt.Sprintf("fuel %q: ", name)+fmt.Sprintf(format, args...))
-	}
-
-	var grade isoGrade
-	var number int
-	if b.Grade != "" {
-		g, n, err := parseISOGrade(b.Grade)
-		switch {
-		case err != nil:
-			errs = append(errs, fmt.Errorf("fuel %q: the delivery note's grade (bdn.grade): %w", name, err))
-		case g.class != base.Class:
-			errs = append(errs, fmt.Errorf("fuel %q: the delivery note's grade (bdn.grade) %q is a %v grade, the base %q a %v fuel", name, b.Grade, g.class, base.label(), base.Class))
-		default:
-			grade, number = g, n
-		}
-	}
-
-	env := envelope(base.Class)
 	refT := 323.15
 	if base.Class == Distillate {
 		refT = 313.15
 	}
-	// A figure of the note out of range is said as the note writes it
-	// (kg/m³, % m/m, % V/V, mm²/s, MJ/kg), naming the key of a script's
-	// bdn table.
-	bad := func(key, what string, shown float64, unit string, lo, hi float64, why string) {
-		want := fmt.Sprintf("want %g…%g %s, %s", lo, hi, unit, why)
-		errs = append(errs, &FieldError{Fuel: name, Field: "bdn." + key, Value: shown, Want: want,
-			Text: fmt.Sprintf("fuel %q: the delivery note's %s (bdn.%s) is %g %s; %s", name, what, key, shown, unit, want)})
-	}
-	envelope := "the envelope of the " + env.note
-	if !inRange(b.Density15, env.densityMin, env.densityMax) {
-		bad("density", "density at 15 °C", b.Density15, "kg/m³", env.densityMin, env.densityMax, envelope)
-	}
-	if !inRange(100*b.Sulfur, 0, env.sulfurMax) {
-		bad("sulphur", "sulphur", 100*b.Sulfur, "% m/m", 0, env.sulfurMax, envelope)
-	}
-	if !inRange(100*b.Water, 0, env.waterMax) {
-		bad("water", "water", 100*b.Water, "% V/V", 0, env.waterMax, envelope)
-	}
-	if !inRange(100*b.Ash, 0, env.ashMax) {
-		bad("ash", "ash", 100*b.Ash, "% m/m", 0, env.ashMax, envelope)
-	}
 	nu := b.Viscosity * 1e6 // mm²/s
-	if b.Viscosity != 0 && !(nu > 0 && inRange(nu, env.viscMin, env.viscMax)) {
-		bad("viscosity", fmt.Sprintf("viscosity at %g °C", refT-273.15), nu, "mm²/s", env.viscMin, env.viscMax, envelope)
+	grade, number, err := bdnCheck(name, base, b, refT, nu)
+	if err != nil {
+		return BDNFuel{}, err
 	}
-	if b.LHV != 0 && !inRange(b.LHV, minBDNLHV, maxBDNLHV) {
-		bad("lhv", "net specific energy", b.LHV/1e6, "MJ/kg", minBDNLHV/1e6, maxBDNLHV/1e6, "for a liquid fuel")
-	}
-	if len(errs) > 0 {
-		return BDNFuel{}, errors.Join(errs...)
-	}
-
-	// The declared grade's own limits: warnings.
-	if grade.family != "" {
-		label := grade.family
-		if number != 0 {
-			label = fmt.Sprintf("%s %d", grade.family, number)
-		}
-		offSpec := func(what string, v float64, unit, limit string) {
-			warn("%s %g %s is off-spec for %s (%s; ISO 8217:2017 limits, from memory)", what, v, unit, label, limit)
-		}
-		if grade.densityMax != 0 && b.Density15 > grade.densityMax {
-			offSpec("density at 15 °C", b.Density15, "kg/m³", fmt.Sprintf("at most %g", grade.densityMax))
-		}
-		if b.Viscosity != 0 {
-			switch {
-			case grade.class == Residual && nu > float64(number):
-				offSpec("viscosity at 50 °C", nu, "mm²/s", fmt.Sprintf("at most %d", number))
-			case grade.class == Distillate && !inRange(nu, grade.viscMin, grade.viscMax):
-				offSpec("viscosity at 40 °C", nu, "mm²/s", fmt.Sprintf("%g…%g", grade.viscMin, grade.viscMax))
-			}
-		}
-		if grade.waterMax != 0 && 100*b.Water > grade.waterMax {
-			offSpec("water", 100*b.Water, "% V/V", fmt.Sprintf("at most %g", grade.waterMax))
-		}
-		if 100*b.Ash > grade.ashMax {
-			offSpec("ash", 100*b.Ash, "% m/m", fmt.Sprintf("at most %g", grade.ashMax))
-		}
-		if grade.sulfurMax != 0 && 100*b.Sulfur > grade.sulfurMax {
-			offSpec("sulfur", 100*b.Sulfur, "% m/m", fmt.Sprintf("at most %g", grade.sulfurMax))
-		}
-	}
+	var out BDNFuel
+	out.offSpec(name, grade, number, b, nu)
 
 	f := base
 	f.Name = name
@@ -330,12 +254,121 @@ func FromBDN(base Fuel, b BDN) (BDNFuel, error) {
 		return BDNFuel{}, fmt.Errorf("fuel %q: %w", name, err)
 	}
 	f.Analysis = a
-	// Viscosity.
+	if err := out.viscosity(&f, name, base, b, refT, nu); err != nil {
+		return BDNFuel{}, err
+	}
+	if err := out.energies(&f, name, b); err != nil {
+		return BDNFuel{}, err
+	}
+	out.Fuel = f
+	return out, nil
+}
+
+// warnf adds a warning on fuel name.
+func (out *BDNFuel) warnf(name, format string, args ...any) {
+	out.Warnings = append(out.Warnings, fmt.Sprintf("fuel %q: ", name)+fmt.Sprintf(format, args...))
+}
+
+// bdnCheck reads the note's declared grade, if any, which must be of the
+// base's class, and checks the note's figures against the envelope of the
+// class (a stated LHV against the range of a liquid fuel): it returns the
+// grade's family and number, or every fault joined. A figure out of range
+// is said as the note writes it (kg/m³, % m/m, % V/V, mm²/s, MJ/kg),
+// naming the key of a script's bdn table; nu is the stated viscosity
+// (mm²/s) at refT (K).
+func bdnCheck(name string, base Fuel, b BDN, refT, nu float64) (isoGrade, int, error) {
+	var errs []error
+	var grade isoGrade
+	var number int
+	if b.Grade != "" {
+		g, n, err := parseISOGrade(b.Grade)
+		switch {
+		case err != nil:
+			errs = append(errs, fmt.Errorf("fuel %q: the delivery note's grade (bdn.grade): %w", name, err))
+		case g.class != base.Class:
+			errs = append(errs, fmt.Errorf("fuel %q: the delivery note's grade (bdn.grade) %q is a %v grade, the base %q a %v fuel", name, b.Grade, g.class, base.label(), base.Class))
+		default:
+			grade, number = g, n
+		}
+	}
+
+	env := envelope(base.Class)
+	bad := func(key, what string, shown float64, unit string, lo, hi float64, why string) {
+		want := fmt.Sprintf("want %g…%g %s, %s", lo, hi, unit, why)
+		errs = append(errs, &FieldError{Fuel: name, Field: "bdn." + key, Value: shown, Want: want,
+			Text: fmt.Sprintf("fuel %q: the delivery note's %s (bdn.%s) is %g %s; %s", name, what, key, shown, unit, want)})
+	}
+	envNote := "the envelope of the " + env.note
+	if !inRange(b.Density15, env.densityMin, env.densityMax) {
+		bad("density", "density at 15 °C", b.Density15, "kg/m³", env.densityMin, env.densityMax, envNote)
+	}
+	if !inRange(100*b.Sulfur, 0, env.sulfurMax) {
+		bad("sulphur", "sulphur", 100*b.Sulfur, "% m/m", 0, env.sulfurMax, envNote)
+	}
+	if !inRange(100*b.Water, 0, env.waterMax) {
+		bad("water", "water", 100*b.Water, "% V/V", 0, env.waterMax, envNote)
+	}
+	if !inRange(100*b.Ash, 0, env.ashMax) {
+		bad("ash", "ash", 100*b.Ash, "% m/m", 0, env.ashMax, envNote)
+	}
+	if b.Viscosity != 0 && !(nu > 0 && inRange(nu, env.viscMin, env.viscMax)) {
+		bad("viscosity", fmt.Sprintf("viscosity at %g °C", refT-273.15), nu, "mm²/s", env.viscMin, env.viscMax, envNote)
+	}
+	if b.LHV != 0 && !inRange(b.LHV, minBDNLHV, maxBDNLHV) {
+		bad("lhv", "net specific energy", b.LHV/1e6, "MJ/kg", minBDNLHV/1e6, maxBDNLHV/1e6, "for a liquid fuel")
+	}
+	if len(errs) > 0 {
+		return isoGrade{}, 0, errors.Join(errs...)
+	}
+	return grade, number, nil
+}
+
+// offSpec warns of each figure of the note outside the declared grade's
+// own limits (none without a declared grade). nu is the stated viscosity
+// (mm²/s).
+func (out *BDNFuel) offSpec(name string, grade isoGrade, number int, b BDN, nu float64) {
+	if grade.family == "" {
+		return
+	}
+	label := grade.family
+	if number != 0 {
+		label = fmt.Sprintf("%s %d", grade.family, number)
+	}
+	offSpec := func(what string, v float64, unit, limit string) {
+		out.warnf(name, "%s %g %s is off-spec for %s (%s; ISO 8217:2017 limits, from memory)", what, v, unit, label, limit)
+	}
+	if grade.densityMax != 0 && b.Density15 > grade.densityMax {
+		offSpec("density at 15 °C", b.Density15, "kg/m³", fmt.Sprintf("at most %g", grade.densityMax))
+	}
+	if b.Viscosity != 0 {
+		switch {
+		case grade.class == Residual && nu > float64(number):
+			offSpec("viscosity at 50 °C", nu, "mm²/s", fmt.Sprintf("at most %d", number))
+		case grade.class == Distillate && !inRange(nu, grade.viscMin, grade.viscMax):
+			offSpec("viscosity at 40 °C", nu, "mm²/s", fmt.Sprintf("%g…%g", grade.viscMin, grade.viscMax))
+		}
+	}
+	if grade.waterMax != 0 && 100*b.Water > grade.waterMax {
+		offSpec("water", 100*b.Water, "% V/V", fmt.Sprintf("at most %g", grade.waterMax))
+	}
+	if 100*b.Ash > grade.ashMax {
+		offSpec("ash", 100*b.Ash, "% m/m", fmt.Sprintf("at most %g", grade.ashMax))
+	}
+	if grade.sulfurMax != 0 && 100*b.Sulfur > grade.sulfurMax {
+		offSpec("sulfur", 100*b.Sulfur, "% m/m", fmt.Sprintf("at most %g", grade.sulfurMax))
+	}
+}
+
+// viscosity gives f the note's viscosity line: the base's when the note
+// states none, the two points stated, or the line through the one point
+// stated (nu mm²/s at refT) with the slope of the base's line; and checks
+// the line.
+func (out *BDNFuel) viscosity(f *Fuel, name string, base Fuel, b BDN, refT, nu float64) error {
 	switch {
 	case b.Viscosity == 0:
 		f.ISO.Viscosity, f.ISO.ViscosityT = base.ISO.Viscosity, base.ISO.ViscosityT
 		if base.ISO.Viscosity != 0 {
-			warn("viscosity not stated: the base fuel's viscosity line (%g mm²/s at %g °C) is kept", base.ISO.Viscosity*1e6, base.isoViscosityT()-273.15)
+			out.warnf(name, "viscosity not stated: the base fuel's viscosity line (%g mm²/s at %g °C) is kept", base.ISO.Viscosity*1e6, base.isoViscosityT()-273.15)
 		}
 	case b.Viscosity2 != (ViscosityPoint{}):
 		f.ISO.Viscosity, f.ISO.ViscosityT = b.Viscosity, refT
@@ -349,22 +382,30 @@ func FromBDN(base Fuel, b BDN) (BDNFuel, error) {
 			const t2 = 373.15
 			nu2, err := w.Viscosity(t2)
 			if err != nil {
-				return BDNFuel{}, fmt.Errorf("fuel %q: viscosity line through %g mm²/s at %g °C with the base's slope: %w", name, nu, refT-273.15, err)
+				return fmt.Errorf("fuel %q: viscosity line through %g mm²/s at %g °C with the base's slope: %w", name, nu, refT-273.15, err)
 			}
 			f.Viscosity2 = ViscosityPoint{T: t2, Nu: nu2}
-			warn("one viscosity stated: the ASTM D341 line through it keeps the slope of the base fuel's line (B = %.4f), giving %.3g mm²/s at 100 °C; give a second point to replace it", w0.B, nu2*1e6)
+			out.warnf(name, "one viscosity stated: the ASTM D341 line through it keeps the slope of the base fuel's line (B = %.4f), giving %.3g mm²/s at 100 °C; give a second point to replace it", w0.B, nu2*1e6)
 		} else {
-			warn("one viscosity stated and the base fuel has no viscosity line: the fuel has none (heater temperatures for a target viscosity cannot be computed)")
+			out.warnf(name, "one viscosity stated and the base fuel has no viscosity line: the fuel has none (heater temperatures for a target viscosity cannot be computed)")
 		}
 	}
 	if f.Viscosity2 != (ViscosityPoint{}) {
 		if _, err := f.ViscosityLine(); err != nil {
-			return BDNFuel{}, fmt.Errorf("fuel %q: BDN viscosity: %w", name, err)
+			return fmt.Errorf("fuel %q: BDN viscosity: %w", name, err)
 		}
 	}
+	return nil
+}
 
+// energies sets the ISO 8217 annex values of f's properties, its stated
+// LHV (with a warning when it is far from the annex value), the
+// Channiwala-Parikh cross-check of its analysis (with a warning when it
+// disagrees), and the fuel's energy and CO2 factor.
+func (out *BDNFuel) energies(f *Fuel, name string, b BDN) error {
+	var err error
 	if out.ISONet, out.ISOGross, err = isoFormula(f.Class, f.ISO.Density15, f.ISO.Water, f.ISO.Ash, f.ISO.Sulfur); err != nil {
-		return BDNFuel{}, fmt.Errorf("fuel %q: %w", name, err)
+		return fmt.Errorf("fuel %q: %w", name, err)
 	}
 	if b.LHV != 0 {
 		f.SetLHV, f.SetLHVSource = b.LHV, b.LHVSource
@@ -372,23 +413,22 @@ func FromBDN(base Fuel, b BDN) (BDNFuel, error) {
 			f.SetLHVSource = "stated with the bunker delivery note"
 		}
 		if d := b.LHV/out.ISONet - 1; !(math.Abs(d) <= BDNLHVTolerance) {
-			warn("stated LHV %.3f MJ/kg is %+.1f %% from the ISO 8217 estimate %.3f MJ/kg from the same note; check that it is the fuel's own figure and not a regulatory default such as the IMO LCV",
+			out.warnf(name, "stated LHV %.3f MJ/kg is %+.1f %% from the ISO 8217 estimate %.3f MJ/kg from the same note; check that it is the fuel's own figure and not a regulatory default such as the IMO LCV",
 				b.LHV/1e6, 100*d, out.ISONet/1e6)
 		}
 	}
-	if _, out.AnalysisGross, err = AnalysisEnergy(a); err != nil {
-		return BDNFuel{}, fmt.Errorf("fuel %q: cross-check: %w", name, err)
+	if _, out.AnalysisGross, err = AnalysisEnergy(f.Analysis); err != nil {
+		return fmt.Errorf("fuel %q: cross-check: %w", name, err)
 	}
 	if d := out.AnalysisGross/out.ISOGross - 1; !(math.Abs(d) <= BDNCrossCheckTolerance) {
-		warn("the Channiwala-Parikh gross value of the derived analysis, %.3f MJ/kg, is %+.1f %% from the ISO 8217 gross value %.3f MJ/kg: the figures do not describe a usual fuel oil",
+		out.warnf(name, "the Channiwala-Parikh gross value of the derived analysis, %.3f MJ/kg, is %+.1f %% from the ISO 8217 gross value %.3f MJ/kg: the figures do not describe a usual fuel oil",
 			out.AnalysisGross/1e6, 100*d, out.ISOGross/1e6)
 	}
 	if out.Energy, err = f.Energy(); err != nil {
-		return BDNFuel{}, err
+		return err
 	}
 	if out.CO2, err = f.CO2(); err != nil {
-		return BDNFuel{}, err
+		return err
 	}
-	out.Fuel = f
-	return out, nil
+	return nil
 }
