@@ -418,38 +418,74 @@ func CheckFlueGas(r FlueGasReading, s *CheckSettings) (*FlueGasCheck, error) {
 // returns the firing conditions and the note for a 0 % O2.
 func (r *FlueGasReading) validate(s *CheckSettings) (Conditions, string, error) {
 	var cond Conditions
-	bad := func(f ReadingField, v float64, format string, a ...any) (Conditions, string, error) {
-		return Conditions{}, "", &ReadingError{Field: f, Value: v, Msg: fmt.Sprintf(format, a...)}
+	if err := r.validateFuel(s); err != nil {
+		return Conditions{}, "", err
 	}
-	val := s.value
+	note, err := r.validateGas(s, &cond)
+	if err != nil {
+		return Conditions{}, "", err
+	}
+	if err := r.validateTemperatures(s, &cond); err != nil {
+		return Conditions{}, "", err
+	}
+	if err := r.validateHumidity(s, &cond); err != nil {
+		return Conditions{}, "", err
+	}
+	if err := r.validateLosses(s); err != nil {
+		return Conditions{}, "", err
+	}
+	if err := r.validateAtomising(s, &cond); err != nil {
+		return Conditions{}, "", err
+	}
+	if err := r.validateDewPoint(s); err != nil {
+		return Conditions{}, "", err
+	}
+	return cond, note, nil
+}
 
-	// The fuel.
+// badReading is the error of a reading's field f given as v.
+func badReading(f ReadingField, v float64, format string, a ...any) error {
+	return &ReadingError{Field: f, Value: v, Msg: fmt.Sprintf(format, a...)}
+}
+
+// validateFuel checks the fuel: its ultimate analysis (each value a mass
+// fraction, adding up to one), a set LHV, and the rest of the fuel's
+// data.
+func (r *FlueGasReading) validateFuel(s *CheckSettings) error {
+	val := s.value
 	f := &r.Fuel
 	an := f.Analysis
 	if !an.Given() {
-		return bad(FieldAnalysis, 0, "fuel %q has no ultimate analysis, which the combustion needs; give %s", f.Name, s.name(FieldAnalysis))
+		return badReading(FieldAnalysis, 0, "fuel %q has no ultimate analysis, which the combustion needs; give %s", f.Name, s.name(FieldAnalysis))
 	}
 	for _, e := range [...]struct {
 		key string
 		v   float64
 	}{{"C", an.C}, {"H", an.H}, {"S", an.S}, {"N", an.N}, {"O", an.O}, {"W", an.Water}, {"A", an.Ash}} {
 		if !(e.v >= 0 && e.v <= 1) {
-			return bad(FieldAnalysis, e.v, "%s = %s; each value must lie between %s and %s by mass", e.key, val(FieldAnalysis, e.v), val(FieldAnalysis, 0), val(FieldAnalysis, 1))
+			return badReading(FieldAnalysis, e.v, "%s = %s; each value must lie between %s and %s by mass", e.key, val(FieldAnalysis, e.v), val(FieldAnalysis, 0), val(FieldAnalysis, 1))
 		}
 	}
 	if sum := an.Sum(); !(math.Abs(sum-1) <= fuel.SumTolerance) {
-		return bad(FieldAnalysis, sum, "the values add up to %s; they must add up to %s within %s (as fired, with W and A)",
+		return badReading(FieldAnalysis, sum, "the values add up to %s; they must add up to %s within %s (as fired, with W and A)",
 			val(FieldAnalysis, sum), val(FieldAnalysis, 1), val(FieldAnalysis, fuel.SumTolerance))
 	}
 	if f.SetLHV != 0 && !(f.SetLHV >= MinCheckLHV && f.SetLHV <= MaxCheckLHV) {
-		return bad(FieldLHV, f.SetLHV, "a net specific energy must lie between %s and %s; got %s",
+		return badReading(FieldLHV, f.SetLHV, "a net specific energy must lie between %s and %s; got %s",
 			val(FieldLHV, MinCheckLHV), val(FieldLHV, MaxCheckLHV), val(FieldLHV, f.SetLHV))
 	}
 	if err := f.Validate(); err != nil {
-		return bad(FieldFuel, 0, "fuel %q: %v", f.Name, err)
+		return badReading(FieldFuel, 0, "fuel %q: %v", f.Name, err)
 	}
+	return nil
+}
 
-	// The reading.
+// validateGas checks the analyser's reading (a dry O2 below the air's, or
+// a dry CO2 the fuel can give, neither meaning nearly air), sets it in
+// cond and returns the note for a 0 % O2, read as λ = 1.
+func (r *FlueGasReading) validateGas(s *CheckSettings, cond *Conditions) (string, error) {
+	val := s.value
+	f := &r.Fuel
 	var note string
 	airO2 := StandardDryAir[O2]
 	switch r.Gas {
@@ -457,9 +493,9 @@ func (r *FlueGasReading) validate(s *CheckSettings) (Conditions, string, error) 
 		o2 := r.Dry
 		switch {
 		case !(o2 >= 0):
-			return bad(FieldO2, o2, "a measured O2 cannot be negative")
+			return "", badReading(FieldO2, o2, "a measured O2 cannot be negative")
 		case o2 >= airO2-AirO2Resolution:
-			return bad(FieldO2, o2, "no combustion: an O2 at or near that of air (%s dry, which analysers show as %s): the burner is not firing, or the probe is not in the flue gas",
+			return "", badReading(FieldO2, o2, "no combustion: an O2 at or near that of air (%s dry, which analysers show as %s): the burner is not firing, or the probe is not in the flue gas",
 				val(FieldO2, airO2), val(FieldO2, 0.209))
 		case o2 == 0:
 			cond.Lambda = 1
@@ -467,11 +503,11 @@ func (r *FlueGasReading) validate(s *CheckSettings) (Conditions, string, error) 
 		default:
 			st, err := Stoichiometry(*f, StandardDryAir)
 			if err != nil {
-				return bad(FieldFuel, 0, "fuel %q: %v", f.Name, err)
+				return "", badReading(FieldFuel, 0, "fuel %q: %v", f.Name, err)
 			}
 			if l, err := LambdaFromO2(o2, st.Ratio(), st.AirO2); err == nil && l > MaxLambda {
 				o2max := airO2 * (MaxLambda - 1) / (MaxLambda - 1 + st.Ratio())
-				return bad(FieldO2, o2, "nearly air: it means an air ratio λ of %s, more than the %g the account takes (λ = %g at an O2 of %s); the burner is hardly firing or air leaks into the flue gas before the probe",
+				return "", badReading(FieldO2, o2, "nearly air: it means an air ratio λ of %s, more than the %g the account takes (λ = %g at an O2 of %s); the burner is hardly firing or air leaks into the flue gas before the probe",
 					sig(l, 4), MaxLambda, MaxLambda, val(FieldO2, roundTo(o2max, 1e-4)))
 			}
 			cond.O2Dry = o2
@@ -479,28 +515,34 @@ func (r *FlueGasReading) validate(s *CheckSettings) (Conditions, string, error) 
 	case MeasuredCO2:
 		co2 := r.Dry
 		if !(co2 > 0 && co2 < maxMeasuredCO2) {
-			return bad(FieldCO2, co2, "a measured dry CO2 must be above %s and below %s", val(FieldCO2, 0), val(FieldCO2, maxMeasuredCO2))
+			return "", badReading(FieldCO2, co2, "a measured dry CO2 must be above %s and below %s", val(FieldCO2, 0), val(FieldCO2, maxMeasuredCO2))
 		}
 		st, err := Stoichiometry(*f, StandardDryAir)
 		if err != nil {
-			return bad(FieldFuel, 0, "fuel %q: %v", f.Name, err)
+			return "", badReading(FieldFuel, 0, "fuel %q: %v", f.Name, err)
 		}
 		if co2 > st.CO2Max {
-			return bad(FieldCO2, co2, "above the fuel's maximum CO2 of %s (dry, at λ = 1): complete combustion cannot give it; the reading or the fuel is wrong, or the burner fires with too little air",
+			return "", badReading(FieldCO2, co2, "above the fuel's maximum CO2 of %s (dry, at λ = 1): complete combustion cannot give it; the reading or the fuel is wrong, or the burner fires with too little air",
 				val(FieldCO2, roundTo(st.CO2Max, 1e-4)))
 		}
 		if l, err := LambdaFromCO2(co2, st.CO2Max, st.Ratio()); err == nil && l > MaxLambda {
 			co2min := st.CO2Max / (1 + (MaxLambda-1)/st.Ratio())
-			return bad(FieldCO2, co2, "nearly air: it means an air ratio λ of %s, more than the %g the account takes (λ = %g at a CO2 of %s); the burner is hardly firing or air leaks into the flue gas before the probe",
+			return "", badReading(FieldCO2, co2, "nearly air: it means an air ratio λ of %s, more than the %g the account takes (λ = %g at a CO2 of %s); the burner is hardly firing or air leaks into the flue gas before the probe",
 				sig(l, 4), MaxLambda, MaxLambda, val(FieldCO2, roundTo(co2min, 1e-4)))
 		}
 		cond.CO2Dry = co2
 	default:
-		return bad(FieldGas, float64(r.Gas), "no flue-gas reading: give the dry O2 or the dry CO2 the analyser measured")
+		return "", badReading(FieldGas, float64(r.Gas), "no flue-gas reading: give the dry O2 or the dry CO2 the analyser measured")
 	}
+	return note, nil
+}
 
-	// The temperatures. One within boundSlack of a bound is the bound: "-20
-	// C" reads as 253.14999999999998 K.
+// validateTemperatures snaps the temperatures to a bound they lie within
+// boundSlack of ("-20 C" reads as 253.14999999999998 K), checks the air
+// and flue-gas temperatures (the flue gas hotter than the air) and sets
+// them in cond, the fuel at the air temperature.
+func (r *FlueGasReading) validateTemperatures(s *CheckSettings, cond *Conditions) error {
+	val := s.value
 	r.AirT = snap(r.AirT, MinCheckAirT, MaxCheckAirT)
 	r.FlueT = snap(r.FlueT, MinCheckFlueT, MaxCheckFlueT)
 	if r.AtomisingSteamT != 0 {
@@ -508,92 +550,114 @@ func (r *FlueGasReading) validate(s *CheckSettings) (Conditions, string, error) 
 	}
 	switch {
 	case r.AirT == 0:
-		return bad(FieldAirT, 0, "the combustion-air temperature is required: it is the reference of the loss account")
+		return badReading(FieldAirT, 0, "the combustion-air temperature is required: it is the reference of the loss account")
 	case !(r.AirT >= MinCheckAirT && r.AirT <= MaxCheckAirT):
-		return bad(FieldAirT, r.AirT, "the air temperature is the reference of the loss account, which must lie between %s and %s; got %s (for preheated air, give the temperature before the air heater)",
+		return badReading(FieldAirT, r.AirT, "the air temperature is the reference of the loss account, which must lie between %s and %s; got %s (for preheated air, give the temperature before the air heater)",
 			val(FieldAirT, MinCheckAirT), val(FieldAirT, MaxCheckAirT), val(FieldAirT, r.AirT))
 	}
 	switch {
 	case r.FlueT == 0:
-		return bad(FieldFlueT, 0, "the flue-gas temperature is required")
+		return badReading(FieldFlueT, 0, "the flue-gas temperature is required")
 	case !(r.FlueT > r.AirT):
-		return bad(FieldFlueT, r.FlueT, "the flue gas (%s) is not hotter than the combustion air (%s); a firing boiler's flue gas leaves hotter than the air comes in",
+		return badReading(FieldFlueT, r.FlueT, "the flue gas (%s) is not hotter than the combustion air (%s); a firing boiler's flue gas leaves hotter than the air comes in",
 			val(FieldFlueT, r.FlueT), val(FieldAirT, r.AirT))
 	case !(r.FlueT <= MaxCheckFlueT):
-		return bad(FieldFlueT, r.FlueT, "the flue-gas temperature must be at most %s for the heat-loss account; got %s",
+		return badReading(FieldFlueT, r.FlueT, "the flue-gas temperature must be at most %s for the heat-loss account; got %s",
 			val(FieldFlueT, MaxCheckFlueT), val(FieldFlueT, r.FlueT))
 	case !(r.FlueT >= MinCheckFlueT):
-		return bad(FieldFlueT, r.FlueT, "the flue-gas temperature must be at least %s for the heat-loss account (where its SO2 data start); got %s",
+		return badReading(FieldFlueT, r.FlueT, "the flue-gas temperature must be at least %s for the heat-loss account (where its SO2 data start); got %s",
 			val(FieldFlueT, MinCheckFlueT), val(FieldFlueT, r.FlueT))
 	}
 	cond.AirT, cond.FuelT = r.AirT, r.AirT
+	return nil
+}
 
-	// The air's humidity.
+// validateHumidity checks the air's humidity (a ratio or a relative
+// humidity above 0 °C, not both) and sets it in cond.
+func (r *FlueGasReading) validateHumidity(s *CheckSettings, cond *Conditions) error {
+	val := s.value
 	switch {
 	case r.Humidity != 0 && r.RelativeHumidity != 0:
-		return bad(FieldHumidity, r.Humidity, "give the humidity ratio or the relative humidity (%s), not both", s.name(FieldRelativeHumidity))
+		return badReading(FieldHumidity, r.Humidity, "give the humidity ratio or the relative humidity (%s), not both", s.name(FieldRelativeHumidity))
 	case !(r.Humidity >= 0 && r.Humidity <= MaxHumidity):
-		return bad(FieldHumidity, r.Humidity, "a humidity ratio must lie between 0 and %g kg/kg dry air", MaxHumidity)
+		return badReading(FieldHumidity, r.Humidity, "a humidity ratio must lie between 0 and %g kg/kg dry air", MaxHumidity)
 	case !(r.RelativeHumidity >= 0 && r.RelativeHumidity <= 1):
-		return bad(FieldRelativeHumidity, r.RelativeHumidity, "a relative humidity must lie between %s and %s",
+		return badReading(FieldRelativeHumidity, r.RelativeHumidity, "a relative humidity must lie between %s and %s",
 			val(FieldRelativeHumidity, 0), val(FieldRelativeHumidity, 1))
 	case r.RelativeHumidity > 0 && r.AirT < 273.15:
-		return bad(FieldRelativeHumidity, r.RelativeHumidity, "a relative humidity below 0 °C air is not modelled (saturation over ice); give the humidity ratio in kg/kg")
+		return badReading(FieldRelativeHumidity, r.RelativeHumidity, "a relative humidity below 0 °C air is not modelled (saturation over ice); give the humidity ratio in kg/kg")
 	}
 	cond.Humidity, cond.RelativeHumidity = r.Humidity, r.RelativeHumidity
+	return nil
+}
 
-	// The losses beyond the flue gas.
+// validateLosses checks the losses beyond the flue gas (CO, radiation at
+// MCR with its load, unburnt solids), marking a nonzero radiation as
+// given and a zero load as full load.
+func (r *FlueGasReading) validateLosses(s *CheckSettings) error {
+	val := s.value
 	if !(r.COppmDry >= 0 && r.COppmDry <= MaxCheckCO) {
-		return bad(FieldCO, r.COppmDry, "the CO must lie between 0 and %g ppm (10 %%)", MaxCheckCO)
+		return badReading(FieldCO, r.COppmDry, "the CO must lie between 0 and %g ppm (10 %%)", MaxCheckCO)
 	}
 	if !(r.RadiationAtMCR >= 0 && r.RadiationAtMCR <= MaxCheckLoss) {
-		return bad(FieldRadiation, r.RadiationAtMCR, "the radiation and convection loss at MCR must lie between %s and %s",
+		return badReading(FieldRadiation, r.RadiationAtMCR, "the radiation and convection loss at MCR must lie between %s and %s",
 			val(FieldRadiation, 0), val(FieldRadiation, MaxCheckLoss))
 	}
 	if r.RadiationAtMCR != 0 && !r.RadiationGiven {
 		r.RadiationGiven = true
 	}
 	if r.Load != 0 && r.Load != 1 && !r.RadiationGiven {
-		return bad(FieldLoad, r.Load, "the load scales the radiation and convection loss: give %s with it", s.name(FieldRadiation))
+		return badReading(FieldLoad, r.Load, "the load scales the radiation and convection loss: give %s with it", s.name(FieldRadiation))
 	}
 	if r.Load == 0 {
 		r.Load = 1
 	}
 	if !(r.Load >= MinCheckLoad && r.Load <= MaxCheckLoad) {
-		return bad(FieldLoad, r.Load, "the load must lie between %s and %s of MCR", val(FieldLoad, MinCheckLoad), val(FieldLoad, MaxCheckLoad))
+		return badReading(FieldLoad, r.Load, "the load must lie between %s and %s of MCR", val(FieldLoad, MinCheckLoad), val(FieldLoad, MaxCheckLoad))
 	}
 	if !(r.Solids >= 0 && r.Solids <= MaxCheckLoss) {
-		return bad(FieldSolids, r.Solids, "the unburnt-solids loss must lie between %s and %s", val(FieldSolids, 0), val(FieldSolids, MaxCheckLoss))
+		return badReading(FieldSolids, r.Solids, "the unburnt-solids loss must lie between %s and %s", val(FieldSolids, 0), val(FieldSolids, MaxCheckLoss))
 	}
+	return nil
+}
 
-	// Atomising steam.
+// validateAtomising checks the atomising steam and its temperature (the
+// air's when not given) and sets them in cond.
+func (r *FlueGasReading) validateAtomising(s *CheckSettings, cond *Conditions) error {
+	val := s.value
 	switch {
 	case !(r.AtomisingSteam >= 0 && r.AtomisingSteam <= MaxAtomising):
-		return bad(FieldAtomisingSteam, r.AtomisingSteam, "the atomising steam must lie between 0 and %g kg per kg fuel", MaxAtomising)
+		return badReading(FieldAtomisingSteam, r.AtomisingSteam, "the atomising steam must lie between 0 and %g kg per kg fuel", MaxAtomising)
 	case r.AtomisingSteam == 0 && r.AtomisingSteamT != 0:
-		return bad(FieldAtomisingSteamT, r.AtomisingSteamT, "a temperature of the atomising steam needs the atomising steam (%s)", s.name(FieldAtomisingSteam))
+		return badReading(FieldAtomisingSteamT, r.AtomisingSteamT, "a temperature of the atomising steam needs the atomising steam (%s)", s.name(FieldAtomisingSteam))
 	case r.AtomisingSteam != 0 && r.AtomisingSteamT == 0:
 		r.AtomisingSteamT = r.AirT
 	}
 	if r.AtomisingSteam != 0 && !(r.AtomisingSteamT >= MinSteamT && r.AtomisingSteamT <= MaxSteamT) {
-		return bad(FieldAtomisingSteamT, r.AtomisingSteamT, "the atomising steam's temperature must lie between %s and %s",
+		return badReading(FieldAtomisingSteamT, r.AtomisingSteamT, "the atomising steam's temperature must lie between %s and %s",
 			val(FieldAtomisingSteamT, MinSteamT), val(FieldAtomisingSteamT, MaxSteamT))
 	}
 	cond.AtomisingSteam, cond.AtomisingSteamT = r.AtomisingSteam, r.AtomisingSteamT
+	return nil
+}
 
-	// The acid dew point.
+// validateDewPoint checks what the acid dew point is found with: the
+// SO2 to SO3 conversion (DefaultSO3Conversion when zero) and the margin
+// asked for.
+func (r *FlueGasReading) validateDewPoint(s *CheckSettings) error {
+	val := s.value
 	if r.SO3Conversion == 0 {
 		r.SO3Conversion = DefaultSO3Conversion
 	}
 	if !(r.SO3Conversion > 0 && r.SO3Conversion <= MaxSO3Conversion) {
-		return bad(FieldSO3, r.SO3Conversion, "the SO2 to SO3 conversion must be above %s and at most %s (%s to %s is usual in oil firing)",
+		return badReading(FieldSO3, r.SO3Conversion, "the SO2 to SO3 conversion must be above %s and at most %s (%s to %s is usual in oil firing)",
 			val(FieldSO3, 0), val(FieldSO3, MaxSO3Conversion), val(FieldSO3, 0.01), val(FieldSO3, 0.05))
 	}
 	if s != nil && s.DewMargin != 0 && !(s.DewMargin > 0 && s.DewMargin <= MaxDewMargin) {
-		return bad(FieldDewMargin, s.DewMargin, "the margin to the acid dew point must be above %s and at most %s",
+		return badReading(FieldDewMargin, s.DewMargin, "the margin to the acid dew point must be above %s and at most %s",
 			val(FieldDewMargin, 0), val(FieldDewMargin, MaxDewMargin))
 	}
-	return cond, note, nil
+	return nil
 }
 
 // waterDewPoint returns the temperature (K) at which water vapour of

@@ -161,50 +161,87 @@ type Losses struct {
 // air temperature the dry-gas and moisture losses are those of Siegert's
 // form. Blowdown is a plant loss outside this account.
 func Efficiency(p Products, flueT, refT float64, o LossOptions) (Losses, error) {
-	if p.Lambda == 0 {
-		return Losses{}, fmt.Errorf("combustion: efficiency: products are empty (call Fire first)")
+	lf, err := checkLossInputs(p.Lambda, flueT, refT, o)
+	if err != nil {
+		return Losses{}, err
 	}
-	if !(refT >= 253.15 && refT <= 323.15) {
-		return Losses{}, fmt.Errorf("combustion: efficiency: reference temperature %g K; want 253.15…323.15 K (usually 298.15)", refT)
-	}
-	if !(flueT > refT && flueT <= 1273.15) {
-		return Losses{}, fmt.Errorf("combustion: efficiency: flue-gas temperature %g K; want above the reference %g K and at most 1273.15 K", flueT, refT)
-	}
-	if !(o.COppmDry >= 0 && o.COppmDry <= 1e5) {
-		return Losses{}, fmt.Errorf("combustion: efficiency: CO %g ppm; want 0…1e5 ppm", o.COppmDry)
-	}
-	if !(o.SiegertA >= 0 && o.SiegertA <= 100) {
-		return Losses{}, fmt.Errorf("combustion: efficiency: Siegert CO constant %g; want 0…100 (0 = default)", o.SiegertA)
-	}
-	if !(o.UnburntSolids >= 0 && o.UnburntSolids <= 10) {
-		return Losses{}, fmt.Errorf("combustion: efficiency: unburnt solids %g %%; want 0…10 %%", o.UnburntSolids)
-	}
-	r := o.Radiation
-	if !(r.PercentAtMCR >= 0 && r.PercentAtMCR <= 10 && r.Loss >= 0 && r.FuelFlow >= 0) {
-		return Losses{}, fmt.Errorf("combustion: efficiency: radiation %+v: want PercentAtMCR 0…10 %%, Loss ≥ 0 W, FuelFlow ≥ 0 kg/s", r)
-	}
-	if r.PercentAtMCR != 0 && r.Loss != 0 {
-		return Losses{}, fmt.Errorf("combustion: efficiency: radiation given both as %g %% at MCR and as %g W; give one", r.PercentAtMCR, r.Loss)
-	}
-	if r.Loss != 0 && !(r.FuelFlow > 0) {
-		return Losses{}, fmt.Errorf("combustion: efficiency: radiation loss %g W needs the fuel flow (kg/s), got %g", r.Loss, r.FuelFlow)
-	}
-	lf := orDefault(r.LoadFraction, 1)
-	if !(lf >= 0.05 && lf <= 1.2) {
-		return Losses{}, fmt.Errorf("combustion: efficiency: load fraction %g; want 0.05…1.2", lf)
-	}
-
 	var out Losses
 	out.FlueT, out.RefT = flueT, refT
 	xd := p.MoleFractions(false)
 	out.CO2Dry, out.O2Dry = xd[CO2], xd[O2]
 
-	// Heat quantities per kg fuel (J/kg).
+	var t lossTerms
+	if err := t.flueGas(&p, flueT, refT); err != nil {
+		return Losses{}, err
+	}
+	if err := t.credits(&p, refT, &out.Warnings); err != nil {
+		return Losses{}, err
+	}
+	t.qCO = coLoss(&p, &o, out.CO2Dry)
+	t.radLHV = radiationLoss(&o.Radiation, lf, p.Energy.Net, &out.Warnings)
+	t.items(&out.LHV, &p, o.UnburntSolids, fuel.Net)
+	t.items(&out.HHV, &p, o.UnburntSolids, fuel.Gross)
+	return out, nil
+}
+
+// checkLossInputs checks the products (by their air ratio lambda, zero
+// for none), temperatures and options of Efficiency against their ranges
+// and returns the load fraction (one when not given).
+func checkLossInputs(lambda, flueT, refT float64, o LossOptions) (float64, error) {
+	if lambda == 0 {
+		return 0, fmt.Errorf("combustion: efficiency: products are empty (call Fire first)")
+	}
+	if !(refT >= 253.15 && refT <= 323.15) {
+		return 0, fmt.Errorf("combustion: efficiency: reference temperature %g K; want 253.15…323.15 K (usually 298.15)", refT)
+	}
+	if !(flueT > refT && flueT <= 1273.15) {
+		return 0, fmt.Errorf("combustion: efficiency: flue-gas temperature %g K; want above the reference %g K and at most 1273.15 K", flueT, refT)
+	}
+	if !(o.COppmDry >= 0 && o.COppmDry <= 1e5) {
+		return 0, fmt.Errorf("combustion: efficiency: CO %g ppm; want 0…1e5 ppm", o.COppmDry)
+	}
+	if !(o.SiegertA >= 0 && o.SiegertA <= 100) {
+		return 0, fmt.Errorf("combustion: efficiency: Siegert CO constant %g; want 0…100 (0 = default)", o.SiegertA)
+	}
+	if !(o.UnburntSolids >= 0 && o.UnburntSolids <= 10) {
+		return 0, fmt.Errorf("combustion: efficiency: unburnt solids %g %%; want 0…10 %%", o.UnburntSolids)
+	}
+	r := o.Radiation
+	if !(r.PercentAtMCR >= 0 && r.PercentAtMCR <= 10 && r.Loss >= 0 && r.FuelFlow >= 0) {
+		return 0, fmt.Errorf("combustion: efficiency: radiation %+v: want PercentAtMCR 0…10 %%, Loss ≥ 0 W, FuelFlow ≥ 0 kg/s", r)
+	}
+	if r.PercentAtMCR != 0 && r.Loss != 0 {
+		return 0, fmt.Errorf("combustion: efficiency: radiation given both as %g %% at MCR and as %g W; give one", r.PercentAtMCR, r.Loss)
+	}
+	if r.Loss != 0 && !(r.FuelFlow > 0) {
+		return 0, fmt.Errorf("combustion: efficiency: radiation loss %g W needs the fuel flow (kg/s), got %g", r.Loss, r.FuelFlow)
+	}
+	lf := orDefault(r.LoadFraction, 1)
+	if !(lf >= 0.05 && lf <= 1.2) {
+		return 0, fmt.Errorf("combustion: efficiency: load fraction %g; want 0.05…1.2", lf)
+	}
+	return lf, nil
+}
+
+// lossTerms are the quantities of the heat-loss account per kg fuel
+// (J/kg), and the CO and radiation losses on the LHV basis (%), from
+// which each basis's items follow.
+type lossTerms struct {
+	qDry       float64 // dry flue gas, t_ref → t_fg
+	hvRef, dhv float64 // water vapour at t_ref, and its rise t_ref → t_fg, J/kg water
+	// Credits: dry air and its vapour, atomising steam, fuel sensible heat.
+	qAirCredit, qSteamCredit, qFuelCredit float64
+	qCO, radLHV                           float64 // %
+}
+
+// flueGas sets the heat the dry flue gas carries from t_ref to t_fg and
+// the water vapour's enthalpy rise.
+func (t *lossTerms) flueGas(p *Products, flueT, refT float64) error {
 	dry := p.Moles
 	dry[H2O] = 0
 	hDryFg, err := amountsH(&dry, flueT)
 	if err != nil {
-		return Losses{}, fmt.Errorf("combustion: efficiency: dry flue gas: %w", err)
+		return fmt.Errorf("combustion: efficiency: dry flue gas: %w", err)
 	}
 	// SO2's data start at 298.15 K; below it (a reference temperature under
 	// 25 °C) SO2 is continued with its 298.15 K heat capacity, see the doc.
@@ -212,53 +249,63 @@ func Efficiency(p Products, flueT, refT float64, o LossOptions) (Losses, error) 
 	dry[SO2] = 0
 	hDryRef, err := amountsH(&dry, refT)
 	if err != nil {
-		return Losses{}, fmt.Errorf("combustion: efficiency: dry flue gas: %w", err)
+		return fmt.Errorf("combustion: efficiency: dry flue gas: %w", err)
 	}
 	hDryRef += nSO2 * so2HExtended(refT)
-	qDry := hDryFg - hDryRef
+	t.qDry = hDryFg - hDryRef
 	hvFg, err := H2O.H(flueT)
 	if err != nil {
-		return Losses{}, err
+		return err
 	}
 	hvRef, err := H2O.H(refT)
 	if err != nil {
-		return Losses{}, err
+		return err
 	}
-	dhv := hvFg - hvRef // J/kg water vapour, t_ref → t_fg
+	t.hvRef = hvRef
+	t.dhv = hvFg - hvRef // J/kg water vapour, t_ref → t_fg
+	return nil
+}
 
-	// Credits.
+// credits sets the credits: the dry air and its vapour from t_ref to
+// AirT, the atomising steam from t_ref to its temperature, and the fuel's
+// sensible heat (Cragoe) from t_ref to FuelT where it is modelled (else
+// a warning in w). It needs hvRef (flueGas).
+func (t *lossTerms) credits(p *Products, refT float64, w *Warning) error {
 	dryAir := p.AirAmounts
 	dryAir[H2O] = 0
 	hAirIn, err := amountsH(&dryAir, p.AirT)
 	if err != nil {
-		return Losses{}, fmt.Errorf("combustion: efficiency: air: %w", err)
+		return fmt.Errorf("combustion: efficiency: air: %w", err)
 	}
 	hAirRef, err := amountsH(&dryAir, refT)
 	if err != nil {
-		return Losses{}, fmt.Errorf("combustion: efficiency: air: %w", err)
+		return fmt.Errorf("combustion: efficiency: air: %w", err)
 	}
 	hvAir, err := H2O.H(p.AirT)
 	if err != nil {
-		return Losses{}, err
+		return err
 	}
 	hvSteam, err := H2O.H(p.SteamT)
 	if err != nil {
-		return Losses{}, err
+		return err
 	}
-	qAirCredit := hAirIn - hAirRef + p.WaterFromAir*(hvAir-hvRef)
-	qSteamCredit := p.AtomisingSteam * (hvSteam - hvRef)
-	var qFuelCredit float64
+	t.qAirCredit = hAirIn - hAirRef + p.WaterFromAir*(hvAir-t.hvRef)
+	t.qSteamCredit = p.AtomisingSteam * (hvSteam - t.hvRef)
 	switch {
 	case p.FuelT == refT:
 	case p.Fuel.Class != fuel.Gas && p.Fuel.ISO.Density15 != 0:
-		if qFuelCredit, err = p.Fuel.SensibleHeat(refT, p.FuelT); err != nil {
-			return Losses{}, fmt.Errorf("combustion: efficiency: fuel credit: %w", err)
+		if t.qFuelCredit, err = p.Fuel.SensibleHeat(refT, p.FuelT); err != nil {
+			return fmt.Errorf("combustion: efficiency: fuel credit: %w", err)
 		}
 	default:
-		out.Warnings |= WarnFuelSensibleNotModelled
+		*w |= WarnFuelSensibleNotModelled
 	}
+	return nil
+}
 
-	// CO loss on the LHV basis (%).
+// coLoss is the CO loss on the LHV basis (%), Siegert-type
+// a·CO/(CO + CO2) with the fuel's default a unless o gives one.
+func coLoss(p *Products, o *LossOptions, co2Dry float64) float64 {
 	var qCO float64
 	if o.COppmDry > 0 {
 		a := o.SiegertA
@@ -269,53 +316,60 @@ func Efficiency(p Products, flueT, refT float64, o LossOptions) (Losses, error) 
 			}
 		}
 		co := o.COppmDry * 1e-4 // vol %
-		qCO = a * co / (co + 100*out.CO2Dry)
+		qCO = a * co / (co + 100*co2Dry)
 	}
+	return qCO
+}
+
+// radiationLoss is the radiation loss on the LHV basis (%): a percentage
+// at MCR scaled by 1/load (lf), or a heat flow over the fuel's net heat
+// input (net J/kg); none, with a warning in w, when r gives neither.
+func radiationLoss(r *Radiation, lf, net float64, w *Warning) float64 {
 	var radLHV float64
 	switch {
 	case r.PercentAtMCR != 0:
 		radLHV = r.PercentAtMCR / lf
 		if lf < 0.25 {
-			out.Warnings |= WarnLowLoadRadiation
+			*w |= WarnLowLoadRadiation
 		}
 	case r.Loss != 0:
-		radLHV = 100 * r.Loss / (r.FuelFlow * p.Energy.Net)
+		radLHV = 100 * r.Loss / (r.FuelFlow * net)
 	default:
-		out.Warnings |= WarnNoRadiation
+		*w |= WarnNoRadiation
 	}
+	return radLHV
+}
 
-	for _, basis := range [2]fuel.Basis{fuel.Net, fuel.Gross} {
-		l := LossItems{Basis: basis}
-		var latent float64
-		if basis == fuel.Net {
-			l.HeatInput, l.Source = p.Energy.Net, p.Energy.NetSource
-		} else {
-			l.HeatInput, l.Source = p.Energy.Gross, p.Energy.GrossSource
-			latent = fuel.LatentHeat25
-		}
-		pct := 100 / l.HeatInput
-		scale := p.Energy.Net / l.HeatInput // LHV-basis percentages to this basis
-		l.DryGas = qDry * pct
-		l.MoistureH = p.WaterFromH * (dhv + latent) * pct
-		l.MoistureFuel = p.WaterFromFuel * (dhv + latent) * pct
-		l.MoistureAir = p.WaterFromAir * dhv * pct
-		l.MoistureSteam = p.AtomisingSteam * dhv * pct
-		l.CO = qCO * scale
-		l.Solids = o.UnburntSolids * scale
-		l.Radiation = radLHV * scale
-		l.AirCredit = qAirCredit * pct
-		l.SteamCredit = qSteamCredit * pct
-		l.FuelCredit = qFuelCredit * pct
-		l.TotalLoss = l.DryGas + l.Moisture() + l.CO + l.Solids + l.Radiation
-		l.TotalCredit = l.AirCredit + l.SteamCredit + l.FuelCredit
-		l.Efficiency = 100 - l.TotalLoss + l.TotalCredit
-		if basis == fuel.Net {
-			out.LHV = l
-		} else {
-			out.HHV = l
-		}
+// items draws up in l the loss account on one basis: each loss and credit in
+// percent of the basis's heat input, the latent heat of the moisture
+// from hydrogen and fuel water on the HHV basis only, the CO, solids
+// (solids, % of the LHV input) and radiation losses scaled from the LHV
+// basis.
+func (t *lossTerms) items(l *LossItems, p *Products, solids float64, basis fuel.Basis) {
+	*l = LossItems{Basis: basis}
+	var latent float64
+	if basis == fuel.Net {
+		l.HeatInput, l.Source = p.Energy.Net, p.Energy.NetSource
+	} else {
+		l.HeatInput, l.Source = p.Energy.Gross, p.Energy.GrossSource
+		latent = fuel.LatentHeat25
 	}
-	return out, nil
+	pct := 100 / l.HeatInput
+	scale := p.Energy.Net / l.HeatInput // LHV-basis percentages to this basis
+	l.DryGas = t.qDry * pct
+	l.MoistureH = p.WaterFromH * (t.dhv + latent) * pct
+	l.MoistureFuel = p.WaterFromFuel * (t.dhv + latent) * pct
+	l.MoistureAir = p.WaterFromAir * t.dhv * pct
+	l.MoistureSteam = p.AtomisingSteam * t.dhv * pct
+	l.CO = t.qCO * scale
+	l.Solids = solids * scale
+	l.Radiation = t.radLHV * scale
+	l.AirCredit = t.qAirCredit * pct
+	l.SteamCredit = t.qSteamCredit * pct
+	l.FuelCredit = t.qFuelCredit * pct
+	l.TotalLoss = l.DryGas + l.Moisture() + l.CO + l.Solids + l.Radiation
+	l.TotalCredit = l.AirCredit + l.SteamCredit + l.FuelCredit
+	l.Efficiency = 100 - l.TotalLoss + l.TotalCredit
 }
 
 // SiegertCoefficients are the constants of Siegert's flue-gas loss formula.
