@@ -45,9 +45,29 @@ func impliedCell(v profile.ImpliedValue) string {
 	return "-"
 }
 
+// writeAudit writes an audit: its head, the days against the model, the
+// verdicts, the implied factors, the calibration, the fuel by cause and
+// by grade, the uncertain inputs, the assumptions and the warnings.
 func writeAudit(w io.Writer, a Audit) {
 	fmt.Fprint(w, a.head("Audit"))
 	r := a.Result
+	writeAuditHead(w, r)
+	writeAuditDays(w, r)
+	writeAuditVerdicts(w, r)
+	writeAuditImplied(w, r)
+	if c := r.Calibration; c != nil {
+		fmt.Fprintf(w, "\n  Calibration: %s on %d reference days (%s off), claiming %s t: %s, from %s to %s for the claim ∓ %s t of measurement; the range given was %s to %s\n",
+			c.Name, c.Days, strings.Join(c.Off, ", "), fix(c.ClaimedT, 3), fix(c.Value, 4), fix(c.Low, 4), fix(c.High, 4),
+			fix(c.ReadingHalfWidthT, 3), num(c.PriorLow), num(c.PriorHigh))
+	}
+	writeAuditFuel(w, r)
+	writeAuditInputs(w, r)
+	writeAuditWarnings(w, r)
+}
+
+// writeAuditHead writes the audit's days, its sampling, the level of its
+// flags and the claim's measurement.
+func writeAuditHead(w io.Writer, r *profile.AuditResult) {
 	refs := len(r.Days) - r.Period.Days
 	fmt.Fprintf(w, "  %d days", len(r.Days))
 	if refs > 0 {
@@ -66,7 +86,12 @@ func writeAudit(w io.Writer, a Audit) {
 		}
 	}
 	fmt.Fprintln(w)
+}
 
+// writeAuditDays writes the table of the days and the period: the claim
+// against the model's nominal figure, band and median, the band of what
+// the claim's measurement would read, the claim's percentile and flag.
+func writeAuditDays(w io.Writer, r *profile.AuditResult) {
 	tw := tabwriter.NewWriter(w, 0, 8, 2, ' ', 0)
 	fmt.Fprintf(tw, "    day\tphase\t%10s\t%10s\t%10s\t%10s\t%10s\t%10s\t%10s\t%7s\tflag\n",
 		"claimed t", "nominal t", "low t", "median t", "high t", "read low t", "read hi t", "pct.")
@@ -87,7 +112,13 @@ func writeAudit(w io.Writer, a Audit) {
 	tw.Flush()
 	fmt.Fprintf(w, "  (low, median, high: the model; read: the band of what the claim's measurement would read if the model were right;\n")
 	fmt.Fprintf(w, "   pct.: where the claim sits among those readings; the period's total is sampled as a whole)\n\n")
+}
 
+// writeAuditVerdicts writes the period's verdict, with the probabilities
+// of the model at or below and at or above the claim, and the days
+// flagged.
+func writeAuditVerdicts(w io.Writer, r *profile.AuditResult) {
+	p := r.Period
 	verdict := "the claim lies within the model's spread"
 	switch p.Flag {
 	case "above":
@@ -108,52 +139,57 @@ func writeAudit(w io.Writer, a Audit) {
 	} else {
 		fmt.Fprintf(w, "  days flagged: %d of %d (%s)\n", len(flagged), p.Days, strings.Join(flagged, ", "))
 	}
+}
 
-	if len(r.Implied) > 0 {
-		fmt.Fprintf(w, "\n  Implied factors: the value of each that makes the model give the day's claim, the other inputs nominal\n")
-		tw = tabwriter.NewWriter(w, 0, 8, 2, ' ', 0)
-		fmt.Fprintf(tw, "    day\t")
-		for _, s := range r.Implied {
-			fmt.Fprintf(tw, "%s\t", s.Name)
+// writeAuditImplied writes the implied factors, if any: each day's value
+// of each, and each one's summary over the audited days.
+func writeAuditImplied(w io.Writer, r *profile.AuditResult) {
+	if len(r.Implied) == 0 {
+		return
+	}
+	fmt.Fprintf(w, "\n  Implied factors: the value of each that makes the model give the day's claim, the other inputs nominal\n")
+	tw := tabwriter.NewWriter(w, 0, 8, 2, ' ', 0)
+	fmt.Fprintf(tw, "    day\t")
+	for _, s := range r.Implied {
+		fmt.Fprintf(tw, "%s\t", s.Name)
+	}
+	fmt.Fprintln(tw)
+	for _, d := range r.Days {
+		fmt.Fprintf(tw, "    %s\t", d.Date)
+		for _, v := range d.Implied {
+			fmt.Fprintf(tw, "%s\t", impliedCell(v))
 		}
 		fmt.Fprintln(tw)
-		for _, d := range r.Days {
-			fmt.Fprintf(tw, "    %s\t", d.Date)
-			for _, v := range d.Implied {
-				fmt.Fprintf(tw, "%s\t", impliedCell(v))
-			}
-			fmt.Fprintln(tw)
-		}
-		tw.Flush()
-		for _, s := range r.Implied {
-			fmt.Fprintf(w, "    %s: plausible %s to %s, searched %s to %s; ", s.Name, num(s.Low), num(s.High), num(s.SearchLow), num(s.SearchHigh))
-			if s.Found == 0 {
-				fmt.Fprintf(w, "no audited day has a value")
-			} else {
-				fmt.Fprintf(w, "on %d audited days mean %s", s.Found, fix(s.Mean, 4))
-				if s.Found > 1 {
-					fmt.Fprintf(w, ", sd %s", fix(s.SD, 4))
-				}
-				fmt.Fprintf(w, ", from %s to %s; %d outside the plausible range", fix(s.Min, 4), fix(s.Max, 4), s.Outside)
-			}
-			if n := s.Steps + s.Above + s.Below; n > 0 {
-				fmt.Fprintf(w, "; %d days without a value", n)
-			}
-			if s.NoEffect > 0 {
-				fmt.Fprintf(w, "; no effect on %d days", s.NoEffect)
-			}
-			fmt.Fprintln(w)
-		}
-		fmt.Fprintf(w, "    (a steady offset points to a systematic difference, a jumpy factor to misreporting)\n")
 	}
-	if c := r.Calibration; c != nil {
-		fmt.Fprintf(w, "\n  Calibration: %s on %d reference days (%s off), claiming %s t: %s, from %s to %s for the claim ∓ %s t of measurement; the range given was %s to %s\n",
-			c.Name, c.Days, strings.Join(c.Off, ", "), fix(c.ClaimedT, 3), fix(c.Value, 4), fix(c.Low, 4), fix(c.High, 4),
-			fix(c.ReadingHalfWidthT, 3), num(c.PriorLow), num(c.PriorHigh))
+	tw.Flush()
+	for _, s := range r.Implied {
+		fmt.Fprintf(w, "    %s: plausible %s to %s, searched %s to %s; ", s.Name, num(s.Low), num(s.High), num(s.SearchLow), num(s.SearchHigh))
+		if s.Found == 0 {
+			fmt.Fprintf(w, "no audited day has a value")
+		} else {
+			fmt.Fprintf(w, "on %d audited days mean %s", s.Found, fix(s.Mean, 4))
+			if s.Found > 1 {
+				fmt.Fprintf(w, ", sd %s", fix(s.SD, 4))
+			}
+			fmt.Fprintf(w, ", from %s to %s; %d outside the plausible range", fix(s.Min, 4), fix(s.Max, 4), s.Outside)
+		}
+		if n := s.Steps + s.Above + s.Below; n > 0 {
+			fmt.Fprintf(w, "; %d days without a value", n)
+		}
+		if s.NoEffect > 0 {
+			fmt.Fprintf(w, "; no effect on %d days", s.NoEffect)
+		}
+		fmt.Fprintln(w)
 	}
+	fmt.Fprintf(w, "    (a steady offset points to a systematic difference, a jumpy factor to misreporting)\n")
+}
+
+// writeAuditFuel writes the log's fuel at the nominal inputs by cause,
+// if the audit splits any out, and by grade.
+func writeAuditFuel(w io.Writer, r *profile.AuditResult) {
 	if len(r.Causes) > 0 {
 		fmt.Fprintf(w, "\n  Fuel by cause, every day of the log at the nominal inputs (each cause's marginal share: the fuel less the fuel with its units off)\n")
-		tw = tabwriter.NewWriter(w, 0, 8, 2, ' ', 0)
+		tw := tabwriter.NewWriter(w, 0, 8, 2, ' ', 0)
 		for _, c := range r.Causes {
 			fmt.Fprintf(tw, "    %s (%s)\t%10s t\n", c.Name, strings.Join(c.Units, ", "), fix(c.FuelT, 3))
 		}
@@ -162,14 +198,18 @@ func writeAudit(w io.Writer, a Audit) {
 		tw.Flush()
 	}
 	fmt.Fprintf(w, "\n  Fuel by grade, every day of the log at the nominal inputs (CO2 by each grade's factor)\n")
-	tw = tabwriter.NewWriter(w, 0, 8, 2, ' ', 0)
+	tw := tabwriter.NewWriter(w, 0, 8, 2, ' ', 0)
 	fmt.Fprintf(tw, "    grade\t%10s\t%10s\n", "fuel t", "CO2 t")
 	for _, g := range r.FuelByGrade {
 		fmt.Fprintf(tw, "    %s\t%10s\t%10s\n", g.Grade, fix(g.FuelT, 3), fix(g.CO2T, 3))
 	}
 	fmt.Fprintf(tw, "    all\t%10s\t%10s\n", fix(r.FuelT, 3), fix(r.CO2T, 3))
 	tw.Flush()
+}
 
+// writeAuditInputs writes the uncertain inputs as drawn (range, nominal,
+// scope and why) and the audit's assumptions.
+func writeAuditInputs(w io.Writer, r *profile.AuditResult) {
 	if len(r.Uncertainties) > 0 {
 		fmt.Fprintf(w, "\n  Uncertain inputs (drawn uniformly; SI units or fractions):\n")
 		for _, u := range r.Uncertainties {
@@ -188,6 +228,11 @@ func writeAudit(w io.Writer, a Audit) {
 	for _, as := range r.Assumptions {
 		fmt.Fprintf(w, "    - %s: %s (%s)\n", as.Item, as.Value, as.Source)
 	}
+}
+
+// writeAuditWarnings writes the audit's own warnings and, day by day,
+// the warnings of the day's nominal case and how many samples warned.
+func writeAuditWarnings(w io.Writer, r *profile.AuditResult) {
 	if len(r.Warnings) > 0 {
 		fmt.Fprintf(w, "\n  Warnings of the audit:\n")
 		for _, s := range r.Warnings {

@@ -280,6 +280,42 @@ func PlotHeatingPlan(w io.Writer, format string, h HeatingPlan) error {
 		return fmt.Errorf("plot: heating plan %q has no rows to draw", h.Name)
 	}
 	vs := voyageSeriesOf(r.Plan.Voyage.Rows)
+	up, entries, err := heatingPlanTemperatures(h, &vs, nil)
+	if err != nil {
+		return err
+	}
+	down, entries, err := heatingPlanSteam(&vs, entries)
+	if err != nil {
+		return err
+	}
+
+	legend, legW := sideLegend(entries)
+	plotW := 20 * vg.Centimeter
+	width, height := plotW+legW, 16*vg.Centimeter
+	canvas, err := newCanvas(format, width, height)
+	if err != nil {
+		return err
+	}
+	dc := draw.New(canvas)
+	area := draw.Crop(dc, 0, -legW, 0, 0)
+	cs := plot.Align([][]*plot.Plot{{up}, {down}}, draw.Tiles{Rows: 2, Cols: 1, PadY: vg.Millimeter * 2}, area)
+	split := area.Min.Y + (area.Max.Y-area.Min.Y)*0.4
+	cs[0][0].Min.Y = split + vg.Millimeter
+	cs[1][0].Max.Y = split - vg.Millimeter
+	up.Draw(cs[0][0])
+	down.Draw(cs[1][0])
+	legend.Draw(draw.Crop(dc, plotW+vg.Millimeter*3, 0, 0, 0))
+	_, err = canvas.WriteTo(w)
+	return err
+}
+
+// heatingPlanTemperatures is the upper panel of a heating plan: each
+// tank's temperature under the plan, its required temperatures and its
+// never-below temperature, over the phases shaded, between a little
+// below and above the temperatures drawn. It appends the panel's entries
+// of the legend to entries.
+func heatingPlanTemperatures(h HeatingPlan, vs *voyageSeries, entries []legendEntry) (*plot.Plot, []legendEntry, error) {
+	r := h.Result
 	up := plot.New()
 	up.Title.Text = "Heating plan: " + h.Name
 	if h.Plant != "" {
@@ -304,10 +340,9 @@ func PlotHeatingPlan(w io.Writer, format string, h HeatingPlan) error {
 	lo, hi = lo-273.15-1, hi-273.15+1.5
 	up.Y.Min, up.Y.Max = lo, hi
 	if err := vs.shadePhasesFrom(up, lo, hi); err != nil {
-		return err
+		return nil, nil, err
 	}
 	up.Add(plotter.NewGrid())
-	var entries []legendEntry
 	var marks []plot.Plotter // the required temperatures, drawn over the tanks
 	for k, t := range r.Tanks {
 		c := tankColors[k%len(tankColors)]
@@ -319,45 +354,22 @@ func PlotHeatingPlan(w io.Writer, format string, h HeatingPlan) error {
 		}
 		l, err := plotter.NewLine(xys)
 		if err != nil {
-			return fmt.Errorf("plot: %s: %w", t.Unit, err)
+			return nil, nil, fmt.Errorf("plot: %s: %w", t.Unit, err)
 		}
 		l.Color, l.Width = c, vg.Points(2)
 		up.Add(l)
 		entries = append(entries, legendEntry{t.Unit, []plot.Thumbnailer{l}})
 		for _, q := range t.Required {
-			from, to := q.At/3600, q.At/3600
-			if q.Phase != "" {
-				from, to = -1.0, -1.0
-				for _, row := range r.Rows {
-					if row.Phase == q.Phase {
-						if from < 0 {
-							from = row.StartH
-						}
-						to = row.StartH + row.Hours
-					}
-				}
+			m, err := requiredMark(q, r.Rows, t.Unit)
+			if err != nil {
+				return nil, nil, err
 			}
-			y := q.T - 273.15
-			if to > from {
-				req, err := plotter.NewLine(plotter.XYs{{X: from, Y: y}, {X: to, Y: y}})
-				if err != nil {
-					return fmt.Errorf("plot: %s required: %w", t.Unit, err)
-				}
-				req.Color, req.Width, req.Dashes = ink, vg.Points(1.4), []vg.Length{vg.Points(5), vg.Points(3)}
-				marks = append(marks, req)
-			} else {
-				sc, err := plotter.NewScatter(plotter.XYs{{X: from, Y: y}})
-				if err != nil {
-					return fmt.Errorf("plot: %s required: %w", t.Unit, err)
-				}
-				sc.Shape, sc.Color, sc.Radius = draw.CrossGlyph{}, ink, vg.Points(5)
-				marks = append(marks, sc)
-			}
+			marks = append(marks, m)
 		}
 		if t.NeverBelow > 0 {
 			fl, err := plotter.NewLine(plotter.XYs{{X: 0, Y: t.NeverBelow - 273.15}, {X: vs.hours, Y: t.NeverBelow - 273.15}})
 			if err != nil {
-				return fmt.Errorf("plot: %s never below: %w", t.Unit, err)
+				return nil, nil, fmt.Errorf("plot: %s never below: %w", t.Unit, err)
 			}
 			fl.Color, fl.Width, fl.Dashes = c, vg.Points(0.8), []vg.Length{vg.Points(1), vg.Points(2)}
 			up.Add(fl)
@@ -366,17 +378,56 @@ func PlotHeatingPlan(w io.Writer, format string, h HeatingPlan) error {
 	up.Add(marks...)
 	dashed, err := plotter.NewLine(plotter.XYs{{X: 0, Y: 0}, {X: 1, Y: 0}})
 	if err != nil {
-		return err
+		return nil, nil, err
 	}
 	dashed.Color, dashed.Width, dashed.Dashes = ink, vg.Points(1.4), []vg.Length{vg.Points(5), vg.Points(3)}
 	dotted, err := plotter.NewLine(plotter.XYs{{X: 0, Y: 0}, {X: 1, Y: 0}})
 	if err != nil {
-		return err
+		return nil, nil, err
 	}
 	dotted.Color, dotted.Width, dotted.Dashes = ink, vg.Points(0.8), []vg.Length{vg.Points(1), vg.Points(2)}
 	entries = append(entries, legendEntry{"required temperature", []plot.Thumbnailer{dashed}},
 		legendEntry{"never below", []plot.Thumbnailer{dotted}})
+	return up, entries, nil
+}
 
+// requiredMark marks a required temperature of tank unit in black: a
+// dashed line over the rows of its phase, or a cross at its time.
+func requiredMark(q heatplan.RequiredResult, rows []heatplan.RowPlan, unit string) (plot.Plotter, error) {
+	from, to := q.At/3600, q.At/3600
+	if q.Phase != "" {
+		from, to = -1.0, -1.0
+		for _, row := range rows {
+			if row.Phase == q.Phase {
+				if from < 0 {
+					from = row.StartH
+				}
+				to = row.StartH + row.Hours
+			}
+		}
+	}
+	y := q.T - 273.15
+	if to > from {
+		req, err := plotter.NewLine(plotter.XYs{{X: from, Y: y}, {X: to, Y: y}})
+		if err != nil {
+			return nil, fmt.Errorf("plot: %s required: %w", unit, err)
+		}
+		req.Color, req.Width, req.Dashes = ink, vg.Points(1.4), []vg.Length{vg.Points(5), vg.Points(3)}
+		return req, nil
+	}
+	sc, err := plotter.NewScatter(plotter.XYs{{X: from, Y: y}})
+	if err != nil {
+		return nil, fmt.Errorf("plot: %s required: %w", unit, err)
+	}
+	sc.Shape, sc.Color, sc.Radius = draw.CrossGlyph{}, ink, vg.Points(5)
+	return sc, nil
+}
+
+// heatingPlanSteam is the lower panel of a heating plan: the steam the
+// plan asks of the oil-fired boilers against the MCR of the boilers
+// firing and of all boilers, over the phases shaded. It appends the
+// panel's entries of the legend to entries.
+func heatingPlanSteam(vs *voyageSeries, entries []legendEntry) (*plot.Plot, []legendEntry, error) {
 	down := plot.New()
 	down.X.Label.Text = "time from the start of the voyage, h"
 	down.Y.Label.Text = "steam, kg/h"
@@ -386,45 +437,27 @@ func PlotHeatingPlan(w io.Writer, format string, h HeatingPlan) error {
 	down.X.Tick.Marker = hourTicks{}
 	styleAxes(down)
 	if err := vs.shadePhases(down, down.Y.Max); err != nil {
-		return err
+		return nil, nil, err
 	}
 	down.Add(plotter.NewGrid())
 	lAll, err := stepLine(vs.capA, allColor, vg.Points(1.2), vg.Points(5), vg.Points(3))
 	if err != nil {
-		return fmt.Errorf("plot: MCR of all boilers: %w", err)
+		return nil, nil, fmt.Errorf("plot: MCR of all boilers: %w", err)
 	}
 	lFiring, err := stepLine(vs.capF, firingColor, vg.Points(1.8))
 	if err != nil {
-		return fmt.Errorf("plot: MCR of the boilers firing: %w", err)
+		return nil, nil, fmt.Errorf("plot: MCR of the boilers firing: %w", err)
 	}
 	lBoil, err := stepLine(vs.boilers, demandColor, vg.Points(2))
 	if err != nil {
-		return fmt.Errorf("plot: boiler steam: %w", err)
+		return nil, nil, fmt.Errorf("plot: boiler steam: %w", err)
 	}
 	lBoil.FillColor = color.NRGBA{0xd5, 0xe1, 0xee, 0xff}
 	down.Add(lBoil, lAll, lFiring)
 	entries = append(entries, legendEntry{"boiler steam under the plan (lower panel)", []plot.Thumbnailer{lBoil}},
 		legendEntry{"MCR of the boilers firing", []plot.Thumbnailer{lFiring}},
 		legendEntry{"MCR of all boilers", []plot.Thumbnailer{lAll}})
-
-	legend, legW := sideLegend(entries)
-	plotW := 20 * vg.Centimeter
-	width, height := plotW+legW, 16*vg.Centimeter
-	canvas, err := newCanvas(format, width, height)
-	if err != nil {
-		return err
-	}
-	dc := draw.New(canvas)
-	area := draw.Crop(dc, 0, -legW, 0, 0)
-	cs := plot.Align([][]*plot.Plot{{up}, {down}}, draw.Tiles{Rows: 2, Cols: 1, PadY: vg.Millimeter * 2}, area)
-	split := area.Min.Y + (area.Max.Y-area.Min.Y)*0.4
-	cs[0][0].Min.Y = split + vg.Millimeter
-	cs[1][0].Max.Y = split - vg.Millimeter
-	up.Draw(cs[0][0])
-	down.Draw(cs[1][0])
-	legend.Draw(draw.Crop(dc, plotW+vg.Millimeter*3, 0, 0, 0))
-	_, err = canvas.WriteTo(w)
-	return err
+	return down, entries, nil
 }
 
 // shadePhasesFrom shades every other phase of the voyage on p between

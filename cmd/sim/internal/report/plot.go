@@ -11,8 +11,6 @@ import (
 	"gonum.org/v1/plot/plotter"
 	"gonum.org/v1/plot/vg"
 	"gonum.org/v1/plot/vg/draw"
-	"gonum.org/v1/plot/vg/vgimg"
-	"gonum.org/v1/plot/vg/vgsvg"
 )
 
 // Plot formats.
@@ -79,6 +77,10 @@ const (
 	seriesDrains = "header drains"
 	seriesOther  = "other (balance of demand)"
 	seriesEGE    = "steam from exhaust-gas economisers"
+	// The capacity.
+	seriesFiringMCR = "MCR of the boilers firing"
+	seriesUsable    = "the next boiler fires above (usable fraction)"
+	seriesAllMCR    = "MCR of all boilers"
 )
 
 // Plot draws the run as a chart in format (SVG or PNG) to w: for each
@@ -92,138 +94,26 @@ func Plot(w io.Writer, format string, cases []Case) error {
 	if len(cases) == 0 {
 		return fmt.Errorf("plot: no load case to draw")
 	}
-	p := plot.New()
-	title := "Steam demand and boiler capacity"
-	if pl := cases[0].Plant; pl != "" && samePlant(cases) {
-		title += ": " + pl
-	}
-	p.Title.Text = title
-	p.X.Label.Text = "load case"
-	p.Y.Label.Text = "steam, kg/h"
-	names := caseLabels(cases)
-	p.NominalX(names...)
-	plotW := vg.Length(math.Max(12, math.Min(40, 2.2*float64(len(cases))+6))) * vg.Centimeter
-	slanted := labelsOverlap(p, names, plotW)
-	if slanted {
-		p.X.Tick.Label.Rotation = math.Pi / 6
-		p.X.Tick.Label.XAlign = draw.XRight
-		p.X.Tick.Label.YAlign = draw.YCenter
-	}
-	p.Add(plotter.NewGrid())
-
-	// The demand, by consumer, in the order consumers first appear.
-	series, order, colour := demandSeries(cases)
+	p, names, plotW, slanted := caseChart(cases)
 	legend := plot.NewLegend()
 	legend.Top, legend.Left = true, true
-	barW := vg.Points(math.Max(12, math.Min(48, 360/float64(len(cases)))))
-	var below *plotter.BarChart
-	bars := make([]*plotter.BarChart, len(order))
-	for i, name := range order {
-		bc, err := plotter.NewBarChart(series[name], barW)
-		if err != nil {
-			return fmt.Errorf("plot: %s: %w", name, err)
-		}
-		bc.Color = fill(colour[name])
-		bc.LineStyle.Width = vg.Points(0.5)
-		bc.LineStyle.Color = color.White
-		if below != nil {
-			bc.StackOn(below)
-		}
-		below = bc
-		bars[i] = bc
-		p.Add(bc)
-	}
-	// The legend lists the bars from the top of the stack down, as drawn.
-	for i := len(order) - 1; i >= 0; i-- {
-		legend.Add(order[i], bars[i])
-	}
-
-	// The capacity: the firing boilers' MCR as a short bar over each case,
-	// all boilers' MCR as a dashed line with squares.
-	const half, gap = 0.42, 0.09
-	var firing, usable *plotter.Line
-	allPts := make(plotter.XYs, len(cases))
-	for i, c := range cases {
-		var capF, capA float64
-		for _, b := range c.Result.Boilers {
-			capA += b.MCRKgS * kgh
-			if b.Firing {
-				capF += b.MCRKgS * kgh
-			}
-		}
-		allPts[i] = plotter.XY{X: float64(i), Y: capA}
-		// Two halves with a gap at the middle, where the square of all
-		// boilers' MCR stands when every boiler fires: the bar never
-		// hides it.
-		x := float64(i)
-		for _, seg := range [2][2]float64{{x - half, x - gap}, {x + gap, x + half}} {
-			l, err := plotter.NewLine(plotter.XYs{{X: seg[0], Y: capF}, {X: seg[1], Y: capF}})
-			if err != nil {
-				return fmt.Errorf("plot: MCR of the boilers firing in %q: %w", c.Result.Name, err)
-			}
-			l.Color = firingColor
-			l.Width = vg.Points(2.5)
-			p.Add(l)
-			firing = l
-		}
-		// Where another boiler could still fire: the steam at which the
-		// firing rule fires it (the usable fraction of the firing
-		// boilers' MCR), dotted.
-		if r := c.Result; r.BoilersFiring > 0 && r.BoilersFiring < len(r.Boilers) && !r.Forced {
-			var fired float64
-			for _, b := range r.Boilers {
-				fired += b.SteamKgS
-			}
-			y := (fired + r.MarginNextKgS) * kgh
-			l, err := plotter.NewLine(plotter.XYs{{X: x - half, Y: y}, {X: x + half, Y: y}})
-			if err != nil {
-				return fmt.Errorf("plot: the next boiler's threshold in %q: %w", r.Name, err)
-			}
-			l.Color = firingColor
-			l.Width = vg.Points(1.2)
-			l.Dashes = []vg.Length{vg.Points(1.5), vg.Points(2)}
-			p.Add(l)
-			usable = l
-		}
-	}
-	all, pts, err := plotter.NewLinePoints(allPts)
+	order, err := addDemandBars(p, &legend, cases)
 	if err != nil {
-		return fmt.Errorf("plot: MCR of all boilers: %w", err)
+		return err
 	}
-	all.Color = allColor
-	all.Width = vg.Points(1)
-	all.Dashes = []vg.Length{vg.Points(5), vg.Points(3)}
-	pts.Shape = draw.BoxGlyph{}
-	pts.Color = allColor
-	pts.Radius = vg.Points(3)
-	p.Add(all, pts)
-	legend.Add("MCR of the boilers firing", firing)
-	extra := []string{"MCR of the boilers firing", "MCR of all boilers"}
-	if usable != nil {
-		const label = "the next boiler fires above (usable fraction)"
-		legend.Add(label, usable)
-		extra = append(extra, label)
+	usable, err := addCapacity(p, &legend, cases)
+	if err != nil {
+		return err
 	}
-	legend.Add("MCR of all boilers", all, pts)
-
-	// The steam of the exhaust-gas economisers, where there is any: it
-	// takes its share of the demand off the boilers.
-	egePts := make(plotter.XYs, 0, len(cases))
-	for i, c := range cases {
-		if m := c.Result.EGESteamKgS * kgh; m > 0.5 {
-			egePts = append(egePts, plotter.XY{X: float64(i), Y: m})
-		}
+	extra := []string{seriesFiringMCR, seriesAllMCR}
+	if usable {
+		extra = append(extra, seriesUsable)
 	}
-	if len(egePts) > 0 {
-		sc, err := plotter.NewScatter(egePts)
-		if err != nil {
-			return fmt.Errorf("plot: exhaust-gas economiser steam: %w", err)
-		}
-		sc.Shape = draw.PyramidGlyph{}
-		sc.Color = egeColor
-		sc.Radius = vg.Points(4.5)
-		p.Add(sc)
-		legend.Add(seriesEGE, sc)
+	ege, err := addEGESteam(p, &legend, cases)
+	if err != nil {
+		return err
+	}
+	if ege {
 		extra = append(extra, seriesEGE)
 	}
 	p.Y.Min = 0
@@ -231,13 +121,9 @@ func Plot(w io.Writer, format string, cases []Case) error {
 		p.Y.Max *= 1.08
 	}
 	p.Y.Tick.Marker = flowTicks{}
-	p.Title.Padding = vg.Millimeter * 3
+	styleAxes(p)
 	legend.TextStyle.Font.Size = vg.Points(10)
 	legend.YOffs = -vg.Millimeter * 8
-	for _, ax := range []*plot.Axis{&p.X, &p.Y} {
-		ax.Color = ink
-		ax.Tick.Color = ink
-	}
 
 	// Size: wider with more cases; the legend takes a strip on the right.
 	legW := vg.Length(0)
@@ -257,17 +143,9 @@ func Plot(w io.Writer, format string, cases []Case) error {
 		height += longest / 2
 	}
 
-	var canvas interface {
-		vg.CanvasSizer
-		io.WriterTo
-	}
-	switch format {
-	case SVG:
-		canvas = vgsvg.New(width, height)
-	case PNG:
-		canvas = vgimg.PngCanvas{Canvas: vgimg.NewWith(vgimg.UseWH(width, height), vgimg.UseDPI(120))}
-	default:
-		return fmt.Errorf("plot: unknown format %q; the formats are svg and png", format)
+	canvas, err := newCanvas(format, width, height)
+	if err != nil {
+		return err
 	}
 	dc := draw.New(canvas)
 	opaque(dc)
@@ -275,6 +153,158 @@ func Plot(w io.Writer, format string, cases []Case) error {
 	legend.Draw(draw.Crop(dc, plotW+vg.Millimeter*3, 0, 0, 0))
 	_, err = canvas.WriteTo(w)
 	return err
+}
+
+// caseChart returns the case chart without its series: the title (with
+// the plant's name when every case is of one plant), the axes' labels,
+// the cases' names along x (slanted where they would overlap), the grid,
+// and the width of the chart (wider with more cases, 12 to 40 cm).
+func caseChart(cases []Case) (p *plot.Plot, names []string, plotW vg.Length, slanted bool) {
+	p = plot.New()
+	title := "Steam demand and boiler capacity"
+	if pl := cases[0].Plant; pl != "" && samePlant(cases) {
+		title += ": " + pl
+	}
+	p.Title.Text = title
+	p.X.Label.Text = "load case"
+	p.Y.Label.Text = "steam, kg/h"
+	names = caseLabels(cases)
+	p.NominalX(names...)
+	plotW = vg.Length(math.Max(12, math.Min(40, 2.2*float64(len(cases))+6))) * vg.Centimeter
+	slanted = labelsOverlap(p, names, plotW)
+	if slanted {
+		p.X.Tick.Label.Rotation = math.Pi / 6
+		p.X.Tick.Label.XAlign = draw.XRight
+		p.X.Tick.Label.YAlign = draw.YCenter
+	}
+	p.Add(plotter.NewGrid())
+	return p, names, plotW, slanted
+}
+
+// addDemandBars adds the steam demand of each case as a bar stacked by
+// consumer, in the order consumers first appear, and the bars to the
+// legend from the top of the stack down, as drawn; it returns the
+// consumers in that order.
+func addDemandBars(p *plot.Plot, legend *plot.Legend, cases []Case) ([]string, error) {
+	series, order, colour := demandSeries(cases)
+	barW := vg.Points(math.Max(12, math.Min(48, 360/float64(len(cases)))))
+	var below *plotter.BarChart
+	bars := make([]*plotter.BarChart, len(order))
+	for i, name := range order {
+		bc, err := plotter.NewBarChart(series[name], barW)
+		if err != nil {
+			return nil, fmt.Errorf("plot: %s: %w", name, err)
+		}
+		bc.Color = fill(colour[name])
+		bc.LineStyle.Width = vg.Points(0.5)
+		bc.LineStyle.Color = color.White
+		if below != nil {
+			bc.StackOn(below)
+		}
+		below = bc
+		bars[i] = bc
+		p.Add(bc)
+	}
+	for i := len(order) - 1; i >= 0; i-- {
+		legend.Add(order[i], bars[i])
+	}
+	return order, nil
+}
+
+// addCapacity adds the capacity: the firing boilers' MCR as a short bar
+// over each case, where another boiler could still fire the steam at
+// which the firing rule fires it, and all boilers' MCR as a dashed line
+// with squares; and their legend entries. It says whether any case shows
+// the next boiler's threshold.
+func addCapacity(p *plot.Plot, legend *plot.Legend, cases []Case) (bool, error) {
+	const half, gap = 0.42, 0.09
+	var firing, usable *plotter.Line
+	allPts := make(plotter.XYs, len(cases))
+	for i, c := range cases {
+		var capF, capA float64
+		for _, b := range c.Result.Boilers {
+			capA += b.MCRKgS * kgh
+			if b.Firing {
+				capF += b.MCRKgS * kgh
+			}
+		}
+		allPts[i] = plotter.XY{X: float64(i), Y: capA}
+		// Two halves with a gap at the middle, where the square of all
+		// boilers' MCR stands when every boiler fires: the bar never
+		// hides it.
+		x := float64(i)
+		for _, seg := range [2][2]float64{{x - half, x - gap}, {x + gap, x + half}} {
+			l, err := plotter.NewLine(plotter.XYs{{X: seg[0], Y: capF}, {X: seg[1], Y: capF}})
+			if err != nil {
+				return false, fmt.Errorf("plot: MCR of the boilers firing in %q: %w", c.Result.Name, err)
+			}
+			l.Color = firingColor
+			l.Width = vg.Points(2.5)
+			p.Add(l)
+			firing = l
+		}
+		// Where another boiler could still fire: the steam at which the
+		// firing rule fires it (the usable fraction of the firing
+		// boilers' MCR), dotted.
+		if r := c.Result; r.BoilersFiring > 0 && r.BoilersFiring < len(r.Boilers) && !r.Forced {
+			var fired float64
+			for _, b := range r.Boilers {
+				fired += b.SteamKgS
+			}
+			y := (fired + r.MarginNextKgS) * kgh
+			l, err := plotter.NewLine(plotter.XYs{{X: x - half, Y: y}, {X: x + half, Y: y}})
+			if err != nil {
+				return false, fmt.Errorf("plot: the next boiler's threshold in %q: %w", r.Name, err)
+			}
+			l.Color = firingColor
+			l.Width = vg.Points(1.2)
+			l.Dashes = []vg.Length{vg.Points(1.5), vg.Points(2)}
+			p.Add(l)
+			usable = l
+		}
+	}
+	all, pts, err := plotter.NewLinePoints(allPts)
+	if err != nil {
+		return false, fmt.Errorf("plot: MCR of all boilers: %w", err)
+	}
+	all.Color = allColor
+	all.Width = vg.Points(1)
+	all.Dashes = []vg.Length{vg.Points(5), vg.Points(3)}
+	pts.Shape = draw.BoxGlyph{}
+	pts.Color = allColor
+	pts.Radius = vg.Points(3)
+	p.Add(all, pts)
+	legend.Add(seriesFiringMCR, firing)
+	if usable != nil {
+		legend.Add(seriesUsable, usable)
+	}
+	legend.Add(seriesAllMCR, all, pts)
+	return usable != nil, nil
+}
+
+// addEGESteam adds, where there is any, the steam of the exhaust-gas
+// economisers, which takes its share of the demand off the boilers, and
+// its legend entry; it says whether there was any.
+func addEGESteam(p *plot.Plot, legend *plot.Legend, cases []Case) (bool, error) {
+	egePts := make(plotter.XYs, 0, len(cases))
+	for i, c := range cases {
+		if m := c.Result.EGESteamKgS * kgh; m > 0.5 {
+			egePts = append(egePts, plotter.XY{X: float64(i), Y: m})
+		}
+	}
+	if len(egePts) == 0 {
+		return false, nil
+	}
+	sc, err := plotter.NewScatter(egePts)
+	if err != nil {
+		return false, fmt.Errorf("plot: exhaust-gas economiser steam: %w", err)
+	}
+	sc.Shape = draw.PyramidGlyph{}
+	sc.Color = egeColor
+	sc.Radius = vg.Points(4.5)
+	p.Add(sc)
+	legend.Add(seriesEGE, sc)
+	return true, nil
 }
 
 // caseLabels are the cases' names on the chart's axis, each made unique

@@ -80,7 +80,28 @@ func Table(w io.Writer, run Run) error {
 	return ew.err
 }
 
+// writeCase writes load case n of total: its head, the steam balance,
+// the boilers, what limits the plant, the totals and the warnings.
 func writeCase(w io.Writer, n, total int, c Case) {
+	r := c.Result
+	writeCaseHead(w, n, total, c)
+	writeSteamBalance(w, r)
+	writeBoilers(w, r)
+	writeCapacity(w, r)
+	writeCaseTotals(w, r)
+	if len(r.Warnings) == 0 {
+		fmt.Fprintf(w, "  warnings: none\n")
+		return
+	}
+	fmt.Fprintf(w, "  warnings (%d):\n", len(r.Warnings))
+	for _, s := range r.Warnings {
+		fmt.Fprintf(w, "    - %s\n", oneLine(s))
+	}
+}
+
+// writeCaseHead writes the case's name, plant, conditions and whether
+// its solution converged.
+func writeCaseHead(w io.Writer, n, total int, c Case) {
 	r := c.Result
 	fmt.Fprintf(w, "Load case %d of %d: %s\n", n, total, r.Name)
 	where := ""
@@ -96,12 +117,37 @@ func writeCase(w io.Writer, n, total int, c Case) {
 		fmt.Fprintf(w, "  solution: NOT CONVERGED after %d iterations (residual %s); the figures below are not a balance\n",
 			r.Iterations, sci(r.ResidualNorm))
 	}
+}
 
-	// The steam balance.
+// writeSteamBalance writes the table of the steam balance: the steam
+// produced, the steam taken, the demand and production, and the water
+// lost and made up.
+func writeSteamBalance(w io.Writer, r *plant.CaseResult) {
 	fmt.Fprintf(w, "\n  Steam balance\n")
 	tw := tabwriter.NewWriter(w, 0, 8, 2, ' ', 0)
 	fmt.Fprintf(tw, "    \t\t%10s\t%10s\t\n", "kg/h", "kW")
 	fmt.Fprintf(tw, "    produced\t\t\t\t\n")
+	writeSteamProduced(tw, r)
+	fmt.Fprintf(tw, "    taken\t\t\t\t\n")
+	writeSteamTaken(tw, r)
+	fmt.Fprintf(tw, "    demand\t\t%10s\t\t\n", fix(r.SteamDemandKgS*kgh, 1))
+	fmt.Fprintf(tw, "    production\t\t%10s\t\t\n", fix(r.SteamProductionKgS*kgh, 1))
+	fmt.Fprintf(tw, "    water lost\t\t\t\t\n")
+	fmt.Fprintf(tw, "      %s\t\t%10s\t\t\n", "blowdown", fix(r.BlowdownKgS*kgh, 1))
+	fmt.Fprintf(tw, "      %s\t\t%10s\t\t\n", "vented flash steam", fix(r.VentedKgS*kgh, 1))
+	var lost float64
+	for _, cs := range r.Consumers {
+		lost += cs.LostKgS
+	}
+	fmt.Fprintf(tw, "      %s\t\t%10s\t\t\n", "condensate not returned", fix(lost*kgh, 1))
+	fmt.Fprintf(tw, "      %s\t\t%10s\t\t\n", "header drains lost", fix(headerDrains(r)*kgh, 1))
+	fmt.Fprintf(tw, "    make-up\t\t%10s\t\t\n", fix(r.MakeUpKgS*kgh, 1))
+	tw.Flush()
+}
+
+// writeSteamProduced writes the rows of the steam balance's producers:
+// the oil-fired boilers and the exhaust-gas economisers.
+func writeSteamProduced(tw io.Writer, r *plant.CaseResult) {
 	for _, b := range r.Boilers {
 		note := "heat to water"
 		if !b.Firing {
@@ -119,7 +165,12 @@ func writeCase(w io.Writer, n, total int, c Case) {
 		}
 		fmt.Fprintf(tw, "      %s\t%s\t%10s\t%10s\t%s\n", g.Name, "exhaust-gas economiser", fix(g.SteamKgS*kgh, 1), fix(g.DutyW/1e3, 1), note)
 	}
-	fmt.Fprintf(tw, "    taken\t\t\t\t\n")
+}
+
+// writeSteamTaken writes the rows of the steam balance's takers: the
+// consumers (with their drain coolers and trap losses), the feed tanks'
+// heating, the headers' drains and the dump condensers.
+func writeSteamTaken(tw io.Writer, r *plant.CaseResult) {
 	for _, cs := range r.Consumers {
 		note := "duty"
 		if cs.Kind == "steam turbine" {
@@ -159,27 +210,18 @@ func writeCase(w io.Writer, n, total int, c Case) {
 			fmt.Fprintf(tw, "      %s\t%s\t%10s\t%10s\t\n", u.Name, "dumped", fix(u.Figures.Of("steam_kg_s")*kgh, 1), "")
 		}
 	}
-	fmt.Fprintf(tw, "    demand\t\t%10s\t\t\n", fix(r.SteamDemandKgS*kgh, 1))
-	fmt.Fprintf(tw, "    production\t\t%10s\t\t\n", fix(r.SteamProductionKgS*kgh, 1))
-	fmt.Fprintf(tw, "    water lost\t\t\t\t\n")
-	fmt.Fprintf(tw, "      %s\t\t%10s\t\t\n", "blowdown", fix(r.BlowdownKgS*kgh, 1))
-	fmt.Fprintf(tw, "      %s\t\t%10s\t\t\n", "vented flash steam", fix(r.VentedKgS*kgh, 1))
-	var lost float64
-	for _, cs := range r.Consumers {
-		lost += cs.LostKgS
-	}
-	fmt.Fprintf(tw, "      %s\t\t%10s\t\t\n", "condensate not returned", fix(lost*kgh, 1))
-	fmt.Fprintf(tw, "      %s\t\t%10s\t\t\n", "header drains lost", fix(headerDrains(r)*kgh, 1))
-	fmt.Fprintf(tw, "    make-up\t\t%10s\t\t\n", fix(r.MakeUpKgS*kgh, 1))
-	tw.Flush()
+}
 
-	// The boilers.
+// writeBoilers writes the table of the boilers (firing, load, steam,
+// fuel, efficiency, temperatures, burner) and a line for each boiler
+// whose burner cycles.
+func writeBoilers(w io.Writer, r *plant.CaseResult) {
 	firing := fmt.Sprintf("%d of %d firing", r.BoilersFiring, len(r.Boilers))
 	if r.Forced {
 		firing += " (chosen by the case)"
 	}
 	fmt.Fprintf(w, "\n  Boilers: %s\n", firing)
-	tw = tabwriter.NewWriter(w, 0, 8, 2, ' ', 0)
+	tw := tabwriter.NewWriter(w, 0, 8, 2, ' ', 0)
 	fmt.Fprintf(tw, "    boiler\tfiring\t%10s\t%10s\t%10s\t%10s\t%10s\t%7s\t%7s\tburner\n",
 		"load %MCR", "MCR kg/h", "steam kg/h", "fuel kg/h", "eff. %", "feed °C", "flue °C")
 	for _, b := range r.Boilers {
@@ -216,6 +258,12 @@ func writeCase(w io.Writer, n, total int, c Case) {
 		fmt.Fprintf(w, "    %s cycles: %s %% at the burner minimum, %s %% on average; standby loss %s kW, %s kW of it over the off time; %s\n",
 			b.Name, fix(b.FiringEfficiency*100, 1), fix(b.Efficiency*100, 1), fix(b.StandbyLossW/1e3, 1), fix(b.StandbyOffW/1e3, 1), purge)
 	}
+}
+
+// writeCapacity writes what the boilers' capacity leaves: a shortfall
+// and what is shed, the margin before the next boiler, the single
+// failures, the least-fuel sharing's saving and the inert gas.
+func writeCapacity(w io.Writer, r *plant.CaseResult) {
 	if !r.CanCarry {
 		fmt.Fprintf(w, "  CANNOT CARRY the demand: short by %s kg/h\n", fix(r.ShortfallKgS*kgh, 1))
 		writeShed(w, r)
@@ -237,10 +285,14 @@ func writeCase(w io.Writer, n, total int, c Case) {
 		fmt.Fprintf(w, "  %s\n", plant.InertGasLine(r.InertGas))
 		fmt.Fprintf(w, "    (a planning estimate: the O2 analyser and the inert-gas system's own instructions govern)\n")
 	}
+}
 
-	// The totals.
+// writeCaseTotals writes the table of the case's totals: fuel, the
+// economisers' saving, CO2 both ways, the electrical load, the feed tank
+// and the closures of the balances.
+func writeCaseTotals(w io.Writer, r *plant.CaseResult) {
 	fmt.Fprintf(w, "\n")
-	tw = tabwriter.NewWriter(w, 0, 8, 2, ' ', 0)
+	tw := tabwriter.NewWriter(w, 0, 8, 2, ' ', 0)
 	fmt.Fprintf(tw, "  fuel\t%s kg/h\t%s t/day\n", fix(r.FuelKgS*kgh, 1), fix(r.FuelKgS*86.4, 3))
 	if len(r.EGEs) > 0 {
 		fmt.Fprintf(tw, "  fuel saved by EGE\t%s kg/h\t%s t/day\n", fix(r.EGEFuelSavedKgS*kgh, 1), fix(r.EGEFuelSavedKgS*86.4, 3))
@@ -255,14 +307,6 @@ func writeCase(w io.Writer, n, total int, c Case) {
 	fmt.Fprintf(tw, "  feed tank\t%s °C\t\n", fix(r.FeedTankT-273.15, 1))
 	fmt.Fprintf(tw, "  balance closure\tmass %s\tenergy %s (relative)\n", closure(r.Balance.MassRel), closure(r.Balance.EnergyRel))
 	tw.Flush()
-	if len(r.Warnings) == 0 {
-		fmt.Fprintf(w, "  warnings: none\n")
-		return
-	}
-	fmt.Fprintf(w, "  warnings (%d):\n", len(r.Warnings))
-	for _, s := range r.Warnings {
-		fmt.Fprintf(w, "    - %s\n", oneLine(s))
-	}
 }
 
 // writeContingencies writes the case's N-1 lines.
