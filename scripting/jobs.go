@@ -331,11 +331,70 @@ func (r *runner) csvRows(ph *plantHandle, fn, name string, spec rowSpec) *jobRow
 		required = []string{"date", "claimed"}
 	}
 	nerr := len(r.errs)
-	hdr := Pos{File: show, Line: hline}
-	bad := func(pos Pos, format string, v ...any) {
-		r.errs = append(r.errs, &Error{Pos: pos, Msg: fmt.Sprintf(format, v...)})
-	}
 	cols := make([]csvColumn, len(header))
+	r.csvColumns(ph, header, fields, required, Pos{File: show, Line: hline}, cols)
+	if len(r.errs) > nerr {
+		r.raise(stopRun{})
+	}
+
+	out := &jobRows{}
+	for n, rec := range recs {
+		if len(r.errs)-nerr >= maxJobErrors {
+			r.addErrf(Pos{File: show, Line: lines[n]}, "too many errors; stopped reading %s here", name)
+			break
+		}
+		pos := Pos{File: show, Line: lines[n]}
+		var d csvRecord
+		d.row.Case.Pos = plant.Pos{File: show, Line: lines[n]}
+		d.row.Hours = 24
+		for i, c := range cols {
+			cell := rec[i]
+			if cell == "" {
+				continue
+			}
+			if err := d.cell(ph, c, cell); err != nil {
+				r.cellErr(pos, c, err)
+			}
+		}
+		for _, req := range required {
+			if i := indexOfString(header, req); i >= 0 && rec[i] == "" {
+				r.cellErr(pos, csvColumn{name: req}, fmt.Errorf("is empty; it is required in every row"))
+			}
+		}
+		if d.row.Case.Name == "" {
+			d.row.Case.Name = fmt.Sprintf("%s:%d", show, lines[n])
+			if d.date != "" {
+				d.row.Case.Name = d.date
+			}
+		}
+		out.rows = append(out.rows, d.row)
+		out.pos = append(out.pos, pos)
+		out.dates = append(out.dates, d.date)
+		out.claimed = append(out.claimed, d.claimed)
+		out.reference = append(out.reference, d.ref)
+	}
+	if len(r.errs) > nerr {
+		r.raise(stopRun{})
+	}
+	return out
+}
+
+// addErrf adds an error at pos to the run's errors.
+func (r *runner) addErrf(pos Pos, format string, v ...any) {
+	r.errs = append(r.errs, &Error{Pos: pos, Msg: fmt.Sprintf(format, v...)})
+}
+
+// cellErr adds the error of a cell of column c in the row at pos, named
+// by its column (the parsers' own prefix of the key is dropped).
+func (r *runner) cellErr(pos Pos, c csvColumn, err error) {
+	msg := strings.TrimPrefix(strings.TrimPrefix(err.Error(), c.field+": "), c.key.Name+": ")
+	r.errs = append(r.errs, &Error{Pos: pos, Msg: fmt.Sprintf("column %q: %s", c.name, msg), Err: err})
+}
+
+// csvColumns sets cols to the columns the header names: each one of the
+// row's fields, or a unit's key ("unit.key") a case may set, adding an
+// error at hdr for each unknown column and each required one missing.
+func (r *runner) csvColumns(ph *plantHandle, header, fields, required []string, hdr Pos, cols []csvColumn) {
 	for i, h := range header {
 		cols[i].name = h
 		if contains(fields, h) {
@@ -348,12 +407,12 @@ func (r *runner) csvRows(ph *plantHandle, fn, name string, spec rowSpec) *jobRow
 			if s := suggest(h, fields); s != "" {
 				msg += fmt.Sprintf("; did you mean %q?", s)
 			}
-			bad(hdr, "%s (columns: %s, or \"unit.key\" such as \"cargo heating.duty\")", msg, strings.Join(fields, ", "))
+			r.addErrf(hdr, "%s (columns: %s, or \"unit.key\" such as \"cargo heating.duty\")", msg, strings.Join(fields, ", "))
 			continue
 		}
 		unit, key := h[:dot], h[dot+1:]
 		if ph.p.Component(unit) == nil {
-			bad(hdr, "column %q: %s", h, r.unknownUnitMsg(ph, unit))
+			r.addErrf(hdr, "column %q: %s", h, r.unknownUnitMsg(ph, unit))
 			continue
 		}
 		keys := r.caseKeys(ph, unit)
@@ -366,125 +425,100 @@ func (r *runner) csvRows(ph *plantHandle, fn, name string, spec rowSpec) *jobRow
 			}
 		}
 		if !found {
-			bad(hdr, "column %q: %s", h, unknownKeyMsg(key, accepted))
+			r.addErrf(hdr, "column %q: %s", h, unknownKeyMsg(key, accepted))
 		}
 	}
 	for _, req := range required {
 		if !contains(header, req) {
-			bad(hdr, "missing column %q (the header has: %s)", req, strings.Join(header, ", "))
+			r.addErrf(hdr, "missing column %q (the header has: %s)", req, strings.Join(header, ", "))
 		}
 	}
-	if len(r.errs) > nerr {
-		r.raise(stopRun{})
-	}
+}
 
-	out := &jobRows{}
+// csvRecord is a row (or audit day) of a job's CSV file as it is read.
+type csvRecord struct {
+	row     profile.Row
+	date    string  // audit
+	claimed float64 // audit, tonnes
+	ref     bool    // audit: a reference day
+}
+
+// cell reads a cell of column c, not empty, into the record.
+func (d *csvRecord) cell(ph *plantHandle, c csvColumn, cell string) error {
 	uopt := ph.uopt
-	for n, rec := range recs {
-		if len(r.errs)-nerr >= maxJobErrors {
-			bad(Pos{File: show, Line: lines[n]}, "too many errors; stopped reading %s here", name)
-			break
+	v := lua.LString(cell)
+	var err error
+	switch c.field {
+	case "phase":
+		d.row.Phase = cell
+	case "name":
+		d.row.Case.Name = cell
+	case "fire":
+		err = csvFire(ph, cell, &d.row.Case)
+	case "date":
+		d.date = cell
+	case "hours":
+		d.row.Hours, err = parseHours(v, "hours")
+	case "claimed":
+		d.claimed, err = parseTonnes(v, "claimed")
+	case "reference":
+		switch strings.ToLower(cell) {
+		case "true", "yes", "1":
+			d.ref = true
+		case "false", "no", "0":
+		default:
+			err = fmt.Errorf("must be true or false (a reference day, or not); got %q", cell)
 		}
-		pos := Pos{File: show, Line: lines[n]}
-		at := func(c csvColumn, err error) {
-			// the parsers name the key; the column says it already
-			msg := strings.TrimPrefix(strings.TrimPrefix(err.Error(), c.field+": "), c.key.Name+": ")
-			r.errs = append(r.errs, &Error{Pos: pos, Msg: fmt.Sprintf("column %q: %s", c.name, msg), Err: err})
+	case "sea":
+		d.row.Case.Conditions.SeaT, err = parseQuantity(v, "sea", units.Temperature, uopt)
+	case "air":
+		d.row.Case.Conditions.AirT, err = parseQuantity(v, "air", units.Temperature, uopt)
+	case "engine":
+		var v lua.LValue = lua.LString(cell)
+		if f, perr := strconv.ParseFloat(cell, 64); perr == nil {
+			v = lua.LNumber(f)
 		}
-		var row profile.Row
-		row.Case.Pos = plant.Pos{File: show, Line: lines[n]}
-		row.Hours = 24
-		var date string
-		var claimed float64
-		var ref bool
-		for i, c := range cols {
-			cell := rec[i]
-			if cell == "" {
-				continue
-			}
-			v := lua.LString(cell)
-			var err error
-			switch c.field {
-			case "phase":
-				row.Phase = cell
-			case "name":
-				row.Case.Name = cell
-			case "fire":
-				for _, b := range strings.Split(cell, "+") {
-					b = strings.TrimSpace(b)
-					if ph.kinds[b] != "boiler" {
-						msg := fmt.Sprintf("%q is not a boiler of the plant (list boilers as \"AB1+AB2\")", b)
-						if s := suggest(b, ph.boilerNames()); s != "" {
-							msg += fmt.Sprintf("; did you mean %q?", s)
-						}
-						err = errors.New(msg)
-						break
-					}
-					row.Case.Fire = append(row.Case.Fire, b)
-				}
-			case "date":
-				date = cell
-			case "hours":
-				row.Hours, err = parseHours(v, "hours")
-			case "claimed":
-				claimed, err = parseTonnes(v, "claimed")
-			case "reference":
-				switch strings.ToLower(cell) {
-				case "true", "yes", "1":
-					ref = true
-				case "false", "no", "0":
-				default:
-					err = fmt.Errorf("must be true or false (a reference day, or not); got %q", cell)
-				}
-			case "sea":
-				row.Case.Conditions.SeaT, err = parseQuantity(v, "sea", units.Temperature, uopt)
-			case "air":
-				row.Case.Conditions.AirT, err = parseQuantity(v, "air", units.Temperature, uopt)
-			case "engine":
-				var v lua.LValue = lua.LString(cell)
-				if f, perr := strconv.ParseFloat(cell, 64); perr == nil {
-					v = lua.LNumber(f)
-				}
-				row.Case.Conditions.EngineLoad, err = parseEngineLoad(v, "engine", uopt)
-			case "":
-				if c.key.Kind == plant.KeyText {
-					row.Case.Set = append(row.Case.Set, plant.Setting{Unit: c.unit, Param: c.key.Name, Text: cell, Pos: row.Case.Pos})
-					break
-				}
-				var f float64
-				f, err = parseSetCell(cell, &c.key, uopt)
-				if err == nil {
-					err = rangeErr(&c.key, c.key.Name, f, lua.LString(cell))
-				}
-				if err == nil {
-					row.Case.Set = append(row.Case.Set, plant.Setting{Unit: c.unit, Param: c.key.Name, Value: f, Pos: row.Case.Pos})
-				}
-			}
-			if err != nil {
-				at(c, err)
-			}
-		}
-		for _, req := range required {
-			if i := indexOfString(header, req); i >= 0 && rec[i] == "" {
-				at(csvColumn{name: req}, fmt.Errorf("is empty; it is required in every row"))
-			}
-		}
-		if row.Case.Name == "" {
-			row.Case.Name = fmt.Sprintf("%s:%d", show, lines[n])
-			if date != "" {
-				row.Case.Name = date
-			}
-		}
-		out.rows = append(out.rows, row)
-		out.pos = append(out.pos, pos)
-		out.dates = append(out.dates, date)
-		out.claimed = append(out.claimed, claimed)
-		out.reference = append(out.reference, ref)
+		d.row.Case.Conditions.EngineLoad, err = parseEngineLoad(v, "engine", uopt)
+	case "":
+		err = csvSetting(c, cell, &d.row.Case, uopt)
 	}
-	if len(r.errs) > nerr {
-		r.raise(stopRun{})
+	return err
+}
+
+// csvFire adds to the case the boilers a "fire" cell lists ("AB1+AB2"),
+// up to the first that is not a boiler of the plant, whose error it
+// returns.
+func csvFire(ph *plantHandle, cell string, c *plant.Case) error {
+	for _, b := range strings.Split(cell, "+") {
+		b = strings.TrimSpace(b)
+		if ph.kinds[b] != "boiler" {
+			msg := fmt.Sprintf("%q is not a boiler of the plant (list boilers as \"AB1+AB2\")", b)
+			if s := suggest(b, ph.boilerNames()); s != "" {
+				msg += fmt.Sprintf("; did you mean %q?", s)
+			}
+			return errors.New(msg)
+		}
+		c.Fire = append(c.Fire, b)
 	}
-	return out
+	return nil
+}
+
+// csvSetting adds to the case the setting of a unit's key a cell of
+// column c gives: a text as it is, a number read in the key's dimension
+// and within its range.
+func csvSetting(c csvColumn, cell string, cs *plant.Case, uopt units.Options) error {
+	if c.key.Kind == plant.KeyText {
+		cs.Set = append(cs.Set, plant.Setting{Unit: c.unit, Param: c.key.Name, Text: cell, Pos: cs.Pos})
+		return nil
+	}
+	f, err := parseSetCell(cell, &c.key, uopt)
+	if err == nil {
+		err = rangeErr(&c.key, c.key.Name, f, lua.LString(cell))
+	}
+	if err == nil {
+		cs.Set = append(cs.Set, plant.Setting{Unit: c.unit, Param: c.key.Name, Value: f, Pos: cs.Pos})
+	}
+	return err
 }
 
 func indexOfString(list []string, s string) int {
