@@ -38,7 +38,11 @@ const luAlternates = 2
 // factorises a matrix: the choice of LU changes the time a factorisation
 // takes, never a figure. With Settings.KeepPivots the solver refactorises
 // on the pivots of the last factorisation of the same Solve, which is one
-// configuration, so that stays as it was too.
+// configuration, so that stays as it was too. What does depend on the
+// history is the chord start (solver.Settings.ChordStart, Holds): a case
+// begins on the factorisation its configuration's LU holds from an
+// earlier case, which moves its figures within the solver's tolerance;
+// forget (ColdStart, UseStart) makes every LU hold none.
 //
 // The plant names the configuration (use) before each solve; a
 // configuration not seen takes a new SparseLU while fewer than maxLUs
