@@ -539,9 +539,10 @@ func (u *Boiler) prepareStandby(cp *cycleParams, c Conditions) error {
 
 // etaAtMCR is the efficiency model's figure at MCR, with the feed at
 // nominalFeedT; a model that depends on the firing rate is evaluated at
-// the fuel flow that gives MCR, found by two steps from 85 %. EtaFactor is
-// left out: it is an audit's knob on the combustion, and the casing's loss
-// in kW does not follow it.
+// the fuel flow that gives MCR, found by two steps from 85 %, and one that
+// reads only the load (a flue-gas table) once, the second step giving the
+// same figure. EtaFactor is left out: it is an audit's knob on the
+// combustion, and the casing's loss in kW does not follow it.
 func (u *Boiler) etaAtMCR(c Conditions, cp *cycleParams) (float64, error) {
 	hfw, err := hPT(u.DrumP+3e5, nominalFeedT)
 	if err != nil {
@@ -549,7 +550,11 @@ func (u *Boiler) etaAtMCR(c Conditions, cp *cycleParams) (float64, error) {
 	}
 	q := u.MCR * ((cp.HS - hfw) + cp.Beta*(cp.HF-hfw))
 	eta := 0.85
-	for i := 0; i < 2; i++ {
+	steps := 2
+	if lo, ok := u.Efficiency.(interface{ loadOnly() bool }); ok && lo.loadOnly() {
+		steps = 1
+	}
+	for i := 0; i < steps; i++ {
 		op := BoilerOperation{Load: 1, DrumP: u.DrumP, FeedT: nominalFeedT, AirT: u.airTOf(c),
 			FuelFlow: q / (u.Fuel.LHV * eta), Fuel: u.Fuel}
 		var pt EfficiencyPoint

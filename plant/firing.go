@@ -467,7 +467,7 @@ const (
 )
 
 func (w *stallWatch) Record(it solver.Iteration) error {
-	if it.Iter == 1 && !it.Reused {
+	if it.Iter == 0 || it.Iter == 1 && !it.Reused {
 		w.run, w.last = 0, math.Inf(1)
 		w.damped, w.ref = 0, math.Inf(1)
 	}

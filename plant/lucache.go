@@ -38,7 +38,11 @@ const luAlternates = 2
 // factorises a matrix: the choice of LU changes the time a factorisation
 // takes, never a figure. With Settings.KeepPivots the solver refactorises
 // on the pivots of the last factorisation of the same Solve, which is one
-// configuration, so that stays as it was too.
+// configuration, so that stays as it was too. What does depend on the
+// history is the chord start (solver.Settings.ChordStart, Holds): a case
+// begins on the factorisation its configuration's LU holds from an
+// earlier case, which moves its figures within the solver's tolerance;
+// forget (ColdStart, UseStart) makes every LU hold none.
 //
 // The plant names the configuration (use) before each solve; a
 // configuration not seen takes a new SparseLU while fewer than maxLUs
@@ -60,6 +64,9 @@ type keyedLU struct {
 	key  uint64
 	used uint64
 	lu   *solver.SparseLU
+	// held: lu holds a factorisation made since the last forget, which a
+	// solve of its configuration may start from (Holds).
+	held bool
 }
 
 func newLUSet() *luSet {
@@ -78,7 +85,7 @@ func (f *luSet) pick() *solver.SparseLU {
 	for i := range f.lus {
 		k := &f.lus[i]
 		if k.key == f.want {
-			k.used = f.tick
+			k.used, k.held = f.tick, true
 			f.cur = k.lu
 			return k.lu
 		}
@@ -91,11 +98,11 @@ func (f *luSet) pick() *solver.SparseLU {
 		if f.hasPat {
 			lu.SetPattern(f.n, f.pattern)
 		}
-		f.lus = append(f.lus, keyedLU{key: f.want, used: f.tick, lu: lu})
+		f.lus = append(f.lus, keyedLU{key: f.want, used: f.tick, lu: lu, held: true})
 		f.cur = lu
 		return lu
 	}
-	lru.key, lru.used = f.want, f.tick
+	lru.key, lru.used, lru.held = f.want, f.tick, true
 	f.cur = lru.lu
 	return lru.lu
 }
@@ -126,6 +133,33 @@ func (f *luSet) FactorizeSparse(j *solver.Sparse) error { return f.pick().Factor
 
 // RefactorSparse implements solver.Refactorizer.
 func (f *luSet) RefactorSparse(j *solver.Sparse) error { return f.pick().RefactorSparse(j) }
+
+// Holds implements solver.Holder for the wanted configuration: its LU
+// holds a factorisation made since the last forget. It makes that LU the
+// current one, which Solve then takes.
+func (f *luSet) Holds() bool {
+	for i := range f.lus {
+		k := &f.lus[i]
+		if k.key == f.want {
+			if !k.lu.Holds() {
+				return false
+			}
+			f.tick++
+			k.used, f.cur = f.tick, k.lu
+			return k.held
+		}
+	}
+	return false
+}
+
+// forget makes every LU's factorisation one that no solve starts from
+// (Plant.ColdStart), so that what is solved next does not depend on what
+// was solved before.
+func (f *luSet) forget() {
+	for i := range f.lus {
+		f.lus[i].held = false
+	}
+}
 
 // KeptPivots implements solver.Refactorizer.
 func (f *luSet) KeptPivots() int { return f.current().KeptPivots() }

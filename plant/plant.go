@@ -380,6 +380,12 @@ func (p *Plant) solverSettings() *solver.Settings {
 	s := solver.Settings{}
 	if p.Opt.Solver != nil {
 		s = *p.Opt.Solver
+	} else {
+		// A case begins on the factorisation of the last case solved in
+		// its firing configuration (solver.Settings.ChordStart): the
+		// hours of a voyage are near each other, and most then need no
+		// Jacobian. ColdStart forgets it.
+		s.ChordStart = true
 	}
 	s.SkipDiagnosis = true // compile has diagnosed the structure
 	if s.Recorder == nil {

@@ -81,6 +81,9 @@ type session struct {
 	// newton counts the Newton iterations of every solve of the present
 	// case, failed and repeated ones included.
 	newton int
+	// carried counts the steps of every solve of the present case on the
+	// factorisation of an earlier case (solver.Stats.Carried).
+	carried int
 
 	last     []float64 // last converged unknowns, for warm starts
 	x0       []float64 // starting point scratch
@@ -157,6 +160,7 @@ func (p *Plant) solveConfig(ctx context.Context, fire []bool) error {
 		}
 		res, err := s.slv.Solve(ctx, s.x0)
 		s.newton += res.Stats.Iterations
+		s.carried += res.Stats.Carried
 		return res, err
 	}
 	var res *solver.Result
@@ -196,6 +200,9 @@ func (p *Plant) ColdStart() {
 	if p.s != nil {
 		p.s.last, p.s.hintSet = nil, false
 		p.s.trend.reset()
+		if p.s.lus != nil {
+			p.s.lus.forget()
+		}
 	}
 }
 
@@ -319,7 +326,7 @@ func (p *Plant) Solve(ctx context.Context, c Case) (*CaseResult, error) {
 	defer p.restoreSettings()
 	s := p.s
 	s.ev = eval{cond: c.Conditions, pl: p}
-	s.solves, s.newton = 0, 0
+	s.solves, s.newton, s.carried = 0, 0, 0
 	s.trendBegin(&c)
 
 	s.shares, s.equalShare = nil, false

@@ -4,12 +4,14 @@ package plant
 // unknowns of its last solution and the number of boilers that fired (where
 // the firing rule's next decision starts). The zero value holds none.
 //
-// A plant starts each case from its last solution (ColdStart forgets it).
-// A job that solves many cases near one (an audit's samples about a day's
-// nominal case) keeps that one's solution with SaveStart and gives it to
-// each case with UseStart, so that every case starts from the same point,
-// whatever was solved before it: its result then depends on its own inputs
-// alone, not on the order of the cases, within the solver's tolerance.
+// A plant starts each case from its last solution, and with the
+// factorisation of the last case solved in the same firing configuration
+// (solver.Settings.ChordStart); ColdStart forgets both. A job that solves
+// many cases near one (an audit's samples about a day's nominal case)
+// keeps that one's solution with SaveStart and gives it to each case with
+// UseStart, which forgets the factorisations, so that every case starts
+// from the same point, whatever was solved before it: its result then
+// depends on its own inputs alone, not on the order of the cases.
 type Start struct {
 	x       []float64
 	hint    int
@@ -32,7 +34,7 @@ func (p *Plant) SaveStart(st *Start) {
 }
 
 // UseStart makes the plant's next case start from st, as if st's case had
-// been the last one solved; a Start that holds none, or one of another
+// been the last one solved (but without its factorisation); a Start that holds none, or one of another
 // layout of the plant (its description changed since), makes it start cold.
 func (p *Plant) UseStart(st *Start) {
 	s := p.s
@@ -49,6 +51,9 @@ func (p *Plant) UseStart(st *Start) {
 	copy(s.last, st.x)
 	s.hint, s.hintSet = st.hint, st.hintSet
 	s.trend.reset()
+	if s.lus != nil {
+		s.lus.forget()
+	}
 }
 
 // Predict sets st to base moved along the differences of dirs from base,

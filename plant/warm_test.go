@@ -21,6 +21,9 @@ func TestUseStart(t *testing.T) {
 	ref := scaledPlant(t, 2, 6)
 	_, err := ref.Solve(ctx, duty(ref, 1.2))
 	must(t, err)
+	var own Start
+	ref.SaveStart(&own)
+	ref.UseStart(&own) // the factorisation of the case at 1.2 forgotten, as UseStart does
 	want, err := ref.Solve(ctx, duty(ref, 1.3))
 	must(t, err)
 

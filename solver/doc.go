@@ -139,7 +139,10 @@
 // count in Stats.Reuses, not in Stats.Iterations (which counts Jacobians
 // factorised, and which MaxIterations bounds); a Solve takes at most
 // MaxIterations of them. Every Solve starts with a fresh Jacobian, so no
-// Solve depends on an earlier one.
+// Solve depends on an earlier one, unless Settings.ChordStart: a Solve
+// then begins with such steps on the factorisation the Factorizer holds
+// from the last solve (a Holder), and forms its first Jacobian only when
+// one of them is refused.
 //
 // Such steps converge linearly where Newton's converge quadratically, so
 // a solve ends soon after the residual meets FTol, where a full Newton

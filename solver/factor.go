@@ -50,6 +50,16 @@ type SparseFactorizer interface {
 	FactorizeSparse(j *Sparse) error
 }
 
+// Holder is a Factorizer that says whether it holds a factorisation that
+// the next Solve may start from (Settings.ChordStart): one of the same
+// Problem's scaled Jacobian at an earlier point. SparseLU implements it;
+// a Factorizer that serves several configurations of a model (a cache of
+// LUs) answers for the one the next solve takes.
+type Holder interface {
+	Factorizer
+	Holds() bool
+}
+
 // Refactorizer is a SparseFactorizer that can refactorise a matrix of the
 // pattern of its last factorisation keeping that factorisation's pivot
 // order where the pivots stay acceptable (SparseLU.RefactorSparse). The

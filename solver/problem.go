@@ -266,6 +266,18 @@ type Settings struct {
 	// symbolic work wherever the fresh choices are the kept ones).
 	KeepPivots bool
 
+	// ChordStart makes a Solve begin, before it forms any Jacobian, with
+	// steps on the factorisation the Factorizer holds from an earlier
+	// solve (chord steps), if it is a Holder that holds one. They are
+	// taken by the rule of the steps with a kept factorisation (each must
+	// cut ½‖F̃‖² by reuseAccept² or more; see the package doc, Reuse), so
+	// a sequence of solves of nearby points (the hours of a voyage) often
+	// ends without a Jacobian. The answer then depends on the earlier
+	// solves within the tolerance, not beyond it; a solve that fails
+	// after such a step is repeated without reuse, as any other. Off with
+	// NoReuse. Default false: no Solve depends on an earlier one.
+	ChordStart bool
+
 	// Factorizer solves the linear systems. Nil means a dense LU from gonum
 	// (NewDenseLU), except for a Problem with a SparseJacobian, where it
 	// means &SparseLU{MinDegree: true}. A Factorizer belongs to one Solver.
@@ -346,6 +358,7 @@ type Stats struct {
 	JacobianEvals  int           // Jacobians formed (analytic calls or finite-difference sweeps)
 	Factorizations int           // factorisations of a Jacobian (one per Newton iteration)
 	Reuses         int           // steps taken with the factorisation of an earlier iteration
+	Carried        int           // of Reuses, those on the factorisation of an earlier solve (Settings.ChordStart)
 	RejectedReuses int           // such steps tried and discarded for too little decrease
 	Runtime        time.Duration // wall time of the solve
 }

@@ -177,32 +177,36 @@ func (c *countingLU) RefactorSparse(j *Sparse) error {
 
 // TestWarmColdAgree: warm sequences of solves of the plant-like network
 // (each from the previous answer, one Solver, SparseLU with minimum
-// degree and kept pivots, with and without reused factorisations) and
-// cold solves of the same systems (a new Solver each, from the start
-// point, fresh Jacobians and pivots) agree to the tolerance at every
-// step; the warm sequences did keep pivots that fresh factorisations
-// would have changed.
+// degree and kept pivots, with and without reused factorisations, and
+// with chord steps on the factorisation of the previous solve,
+// Settings.ChordStart) and cold solves of the same systems (a new Solver
+// each, from the start point, fresh Jacobians and pivots) agree to the
+// tolerance at every step; the warm sequences did keep pivots that fresh
+// factorisations would have changed, and the chord sequence did take
+// steps on the factorisation of an earlier solve.
 func TestWarmColdAgree(t *testing.T) {
 	t.Parallel()
 	ctx := context.Background()
-	for _, noReuse := range []bool{true, false} {
+	for _, mode := range []struct{ noReuse, chord bool }{{true, false}, {false, false}, {false, true}} {
+		noReuse := mode.noReuse
 		nt := newNetwork(8, 7, 9)
 		lu := &countingLU{SparseLU: &SparseLU{MinDegree: true}}
-		warm, err := New(nt.problem(true, true), &Settings{Factorizer: lu, KeepPivots: true, NoReuse: noReuse})
+		warm, err := New(nt.problem(true, true), &Settings{Factorizer: lu, KeepPivots: true, NoReuse: noReuse, ChordStart: mode.chord})
 		if err != nil {
 			t.Fatal(err)
 		}
 		x := append([]float64(nil), nt.x0...)
-		retried := 0
+		retried, carried := 0, 0
 		for k := 0; k < 60; k++ {
 			nt.setLoad(k)
 			w, err := warm.Solve(ctx, x)
 			if err != nil {
-				t.Fatalf("no reuse %v, warm step %d: %v", noReuse, k, err)
+				t.Fatalf("no reuse %v, chord %v, warm step %d: %v", noReuse, mode.chord, k, err)
 			}
 			if w.Retried {
 				retried++
 			}
+			carried += w.Stats.Carried
 			copy(x, w.X)
 			p := nt.problem(true, true)
 			c, err := Solve(ctx, p, nt.x0, &Settings{NoReuse: true, Factorizer: &SparseLU{MinDegree: true}})
@@ -211,9 +215,12 @@ func TestWarmColdAgree(t *testing.T) {
 			}
 			withinTolerance(t, "network step "+itoa(k), p, c.X, x, nt.xScale, nt.fScale, DefaultFTol)
 		}
-		t.Logf("no reuse %v: %d refactorisations kept %d pivots a fresh factorisation would have changed; %d solves retried", noReuse, lu.refactors, lu.kept, retried)
+		t.Logf("no reuse %v, chord %v: %d refactorisations kept %d pivots a fresh factorisation would have changed; %d solves retried; %d chord steps", noReuse, mode.chord, lu.refactors, lu.kept, retried, carried)
 		if noReuse && (lu.refactors == 0 || lu.kept == 0) {
 			t.Errorf("%d refactorisations, %d kept pivots; the test needs some", lu.refactors, lu.kept)
+		}
+		if mode.chord != (carried > 0) {
+			t.Errorf("chord %v: %d steps on the factorisation of an earlier solve", mode.chord, carried)
 		}
 	}
 }

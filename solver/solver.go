@@ -28,6 +28,7 @@ type Solver struct {
 	sfact   SparseFactorizer // fact, if it takes the sparse Jacobian
 	refact  Refactorizer     // fact, if it can keep its pivot order
 	bounder condBounder      // fact's cheap condition bound, if it has one
+	holder  Holder           // fact, if it can say it holds a factorisation (ChordStart)
 
 	// The scaled Jacobian: dense without a Pattern (jac), on the
 	// Pattern with one (sj, whose rows are the pattern's, sorted and
@@ -186,6 +187,7 @@ func New(p Problem, s *Settings) (*Solver, error) {
 		sv.jac = mat.NewDense(n, n, nil)
 	}
 	sv.bounder, _ = sv.fact.(condBounder)
+	sv.holder, _ = sv.fact.(Holder)
 	work := make([]float64, 9*n)
 	next := func() []float64 { v := work[:n:n]; work = work[n:]; return v }
 	sv.x, sv.r, sv.xt, sv.rt = next(), next(), next(), next()
@@ -257,7 +259,8 @@ func Solve(ctx context.Context, p Problem, x0 []float64, s *Settings) (*Result, 
 // The returned *Result belongs to the Solver: the next call of Solve
 // overwrites it and its X. Copy what you need to keep. On a warm Solver,
 // Solve allocates nothing unless it fails (building the error allocates).
-// A Solve depends only on x0 and the Problem, never on earlier solves.
+// A Solve depends only on x0 and the Problem, never on earlier solves
+// (unless Settings.ChordStart, where it does within the tolerance).
 //
 // The error is nil exactly when Result.Status is Converged. Otherwise it
 // wraps Result.Status.Err() and, where there is one, a detailed error: a
@@ -283,6 +286,7 @@ func (s *Solver) Solve(ctx context.Context, x0 []float64) (*Result, error) {
 		st.JacobianEvals += first.JacobianEvals
 		st.Factorizations += first.Factorizations
 		st.Reuses += first.Reuses
+		st.Carried += first.Carried
 		st.RejectedReuses += first.RejectedReuses
 		res.Retried = true
 	}
@@ -383,6 +387,9 @@ func (s *Solver) run(ctx context.Context, reuse, keep bool) error {
 	// factorisation) that cut ‖F̃‖₂ by reuseGate or more; only then are
 	// the last factorisation and its pivot order used again.
 	fast, tryReuse := false, false
+	// With ChordStart the first steps take the factorisation of an
+	// earlier solve, if the Factorizer holds one.
+	tryReuse = reuse && set.ChordStart && s.holder != nil && s.holder.Holds()
 	for it := 0; ; {
 		if fnorm <= set.FTol {
 			s.res.Status = Converged
@@ -393,6 +400,13 @@ func (s *Solver) run(ctx context.Context, reuse, keep bool) error {
 				return s.fail(Canceled, err)
 			}
 			if fnew, ok := s.reuseStep(f, it); ok {
+				if it == 0 {
+					// A chord step: the Jacobian at the start point, if
+					// formed for the scales, is not the one at the new
+					// point.
+					s.res.Stats.Carried++
+					haveJac = false
+				}
 				stepNorm := s.accept()
 				f = fnew
 				fnorm = infNorm(s.r)

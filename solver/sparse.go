@@ -187,6 +187,10 @@ type SparseLU struct {
 // those of FactorizeSparse.
 func (s *SparseLU) KeptPivots() int { return s.kept }
 
+// Holds implements Holder: the last factorisation succeeded and its
+// structure is that of the current pattern.
+func (s *SparseLU) Holds() bool { return s.ok && s.symOK }
+
 // SetPattern implements PatternFactorizer: from now on Factorize reads
 // only the entries of its matrix (of order n) listed in pattern (pattern[i]
 // lists the columns of row i, in any order, duplicates ignored) and takes
