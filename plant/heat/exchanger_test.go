@@ -6,6 +6,8 @@ import (
 	"math"
 	"math/rand/v2"
 	"testing"
+
+	"steamcase/plant/internal/root"
 )
 
 // TestCounterflowLimits: the exact limits of the counterflow relation
@@ -85,15 +87,18 @@ func TestCounterflowExchanger(t *testing.T) {
 	}
 }
 
-// TestBrent: the root finder on functions with known roots; a bracket that
-// does not change sign and a NaN residual are errors.
+// TestBrent: the furnace's and tube pass's root finder is Brent's method
+// of plant/internal/root (tested there), to the bracket's width: Wallis'
+// cubic x³ − 2x − 5 (the classical test of root finders; its root
+// 2.0945514815423265 from memory); a bracket that does not change sign and
+// a NaN residual are errors.
 func TestBrent(t *testing.T) {
 	t.Parallel()
-	f := func(x float64) float64 { return x*x*x - 2*x - 5 } // root 2.0945514815423265 (classical)
+	f := func(x float64) float64 { return x*x*x - 2*x - 5 }
 	x, _, err := brent(f, 2, 3, f(2), f(3), 1e-14, 100)
 	mustNoErr(t, err)
 	within(t, "Wallis' cubic", x, 2.0945514815423265, 1e-13)
-	if _, _, err := brent(f, 3, 4, f(3), f(4), 1e-12, 100); !errors.Is(err, errNoBracket) {
+	if _, _, err := brent(f, 3, 4, f(3), f(4), 1e-12, 100); !errors.Is(err, root.ErrNoBracket) {
 		t.Errorf("no sign change: %v", err)
 	}
 	g := func(x float64) float64 {
@@ -102,7 +107,7 @@ func TestBrent(t *testing.T) {
 		}
 		return x - 2.7
 	}
-	if _, _, err := brent(g, 2, 3, g(2), 1, 1e-12, 100); !errors.Is(err, errRootNaN) {
+	if _, _, err := brent(g, 2, 3, g(2), 1, 1e-12, 100); !errors.Is(err, root.ErrNotFinite) {
 		t.Errorf("NaN residual: %v", err)
 	}
 }

@@ -8,6 +8,7 @@ import (
 	"sort"
 
 	"steamcase/plant"
+	"steamcase/plant/internal/root"
 )
 
 // Streams of the audit's generators (see Audit).
@@ -371,7 +372,7 @@ func search(ctx context.Context, f func(float64) (float64, error), lo, hi, smin,
 		}
 		return ImpliedValue{Value: end, Status: st}, nil
 	}
-	x, fx, _, _, err := zero(f, lo, hi, flo, fhi, xtol, ftol*0.01, 200)
+	x, fx, _, err := root.Brent(f, lo, hi, flo, fhi, xtol, ftol*0.01, 200)
 	if err != nil {
 		return ImpliedValue{}, err
 	}
