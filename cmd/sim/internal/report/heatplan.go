@@ -440,13 +440,9 @@ func heatingPlanSteam(vs *voyageSeries, entries []legendEntry) (*plot.Plot, []le
 		return nil, nil, err
 	}
 	down.Add(plotter.NewGrid())
-	lAll, err := stepLine(vs.capA, allColor, vg.Points(1.2), vg.Points(5), vg.Points(3))
+	lAll, lFiring, err := mcrLines(vs.capA, vs.capF)
 	if err != nil {
-		return nil, nil, fmt.Errorf("plot: MCR of all boilers: %w", err)
-	}
-	lFiring, err := stepLine(vs.capF, firingColor, vg.Points(1.8))
-	if err != nil {
-		return nil, nil, fmt.Errorf("plot: MCR of the boilers firing: %w", err)
+		return nil, nil, err
 	}
 	lBoil, err := stepLine(vs.boilers, demandColor, vg.Points(2))
 	if err != nil {

@@ -286,6 +286,19 @@ func (s *voyageSeries) phaseNames() (*plotter.Labels, error) {
 	return lbl, nil
 }
 
+// mcrLines are the step lines of the MCR of all boilers (dashed) and of
+// the boilers firing, drawn alike in the voyage's and the heating plan's
+// charts.
+func mcrLines(all, firing plotter.XYs) (lAll, lFiring *plotter.Line, err error) {
+	if lAll, err = stepLine(all, allColor, vg.Points(1.2), vg.Points(5), vg.Points(3)); err != nil {
+		return nil, nil, fmt.Errorf("plot: MCR of all boilers: %w", err)
+	}
+	if lFiring, err = stepLine(firing, firingColor, vg.Points(1.8)); err != nil {
+		return nil, nil, fmt.Errorf("plot: MCR of the boilers firing: %w", err)
+	}
+	return lAll, lFiring, nil
+}
+
 // stepLine is a line drawn as steps, each held until the next point.
 func stepLine(xys plotter.XYs, c color.Color, width vg.Length, dashes ...vg.Length) (*plotter.Line, error) {
 	l, err := plotter.NewLine(xys)
@@ -323,13 +336,9 @@ func (s *voyageSeries) upperPanel(v Voyage) (*plot.Plot, []legendEntry, error) {
 		return nil, nil, err
 	}
 	var entries []legendEntry
-	lAll, err := stepLine(s.capA, allColor, vg.Points(1.2), vg.Points(5), vg.Points(3))
+	lAll, lFiring, err := mcrLines(s.capA, s.capF)
 	if err != nil {
-		return nil, nil, fmt.Errorf("plot: MCR of all boilers: %w", err)
-	}
-	lFiring, err := stepLine(s.capF, firingColor, vg.Points(1.8))
-	if err != nil {
-		return nil, nil, fmt.Errorf("plot: MCR of the boilers firing: %w", err)
+		return nil, nil, err
 	}
 	lBoil, err := stepLine(s.boilers, demandColor, vg.Points(2.2))
 	if err != nil {
