@@ -61,20 +61,8 @@ func TestSparseLUAlternates(t *testing.T) {
 	t.Parallel()
 	rng := rand.New(rand.NewPCG(7, 18))
 	const n = 30
-	pattern := make([][]int, n)
-	for i := range pattern {
-		pattern[i] = append(pattern[i], i)
-		for j := 0; j < n; j++ {
-			if j != i && rng.Float64() < 0.12 {
-				pattern[i] = append(pattern[i], j)
-			}
-		}
-	}
-	base := mat.NewDense(n, n, nil)
-	for i, row := range pattern {
-		for _, j := range row {
-			base.Set(i, j, rng.NormFloat64())
-		}
+	pattern, base := randomSparse(rng, n, 0.12)
+	for i := range n {
 		base.Set(i, i, 4+rng.Float64())
 	}
 	// Variant v weakens the diagonal of rows v, v+3, v+6, ...: the fresh
