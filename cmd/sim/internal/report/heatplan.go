@@ -289,24 +289,7 @@ func PlotHeatingPlan(w io.Writer, format string, h HeatingPlan) error {
 		return err
 	}
 
-	legend, legW := sideLegend(entries)
-	plotW := 20 * vg.Centimeter
-	width, height := plotW+legW, 16*vg.Centimeter
-	canvas, err := newCanvas(format, width, height)
-	if err != nil {
-		return err
-	}
-	dc := draw.New(canvas)
-	area := draw.Crop(dc, 0, -legW, 0, 0)
-	cs := plot.Align([][]*plot.Plot{{up}, {down}}, draw.Tiles{Rows: 2, Cols: 1, PadY: vg.Millimeter * 2}, area)
-	split := area.Min.Y + (area.Max.Y-area.Min.Y)*0.4
-	cs[0][0].Min.Y = split + vg.Millimeter
-	cs[1][0].Max.Y = split - vg.Millimeter
-	up.Draw(cs[0][0])
-	down.Draw(cs[1][0])
-	legend.Draw(draw.Crop(dc, plotW+vg.Millimeter*3, 0, 0, 0))
-	_, err = canvas.WriteTo(w)
-	return err
+	return drawPanels(w, format, up, down, entries, 16*vg.Centimeter, 0.4)
 }
 
 // heatingPlanTemperatures is the upper panel of a heating plan: each

@@ -164,11 +164,17 @@ func PlotVoyage(w io.Writer, format string, v Voyage) error {
 		return err
 	}
 	entries = append(entries, fuelEntry)
+	return drawPanels(w, format, up, down, entries, 15*vg.Centimeter, 0.38)
+}
 
+// drawPanels writes a chart of two panels on one time axis, 20 cm wide
+// and height high on an opaque background, the lower panel taking the
+// fraction lower of the height (plot.Align lines up their data areas),
+// with the legend of entries to the right.
+func drawPanels(w io.Writer, format string, up, down *plot.Plot, entries []legendEntry, height vg.Length, lower float64) error {
 	legend, legW := sideLegend(entries)
 	plotW := 20 * vg.Centimeter
-	width, height := plotW+legW, 15*vg.Centimeter
-	canvas, err := newCanvas(format, width, height)
+	canvas, err := newCanvas(format, plotW+legW, height)
 	if err != nil {
 		return err
 	}
@@ -176,9 +182,7 @@ func PlotVoyage(w io.Writer, format string, v Voyage) error {
 	opaque(dc)
 	area := draw.Crop(dc, 0, -legW, 0, 0)
 	cs := plot.Align([][]*plot.Plot{{up}, {down}}, draw.Tiles{Rows: 2, Cols: 1, PadY: vg.Millimeter * 2}, area)
-	// Align lines up the panels' data areas; the upper panel takes 62 %
-	// of the height.
-	split := area.Min.Y + (area.Max.Y-area.Min.Y)*0.38
+	split := area.Min.Y + (area.Max.Y-area.Min.Y)*vg.Length(lower)
 	cs[0][0].Min.Y = split + vg.Millimeter
 	cs[1][0].Max.Y = split - vg.Millimeter
 	up.Draw(cs[0][0])

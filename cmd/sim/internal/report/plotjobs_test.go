@@ -131,7 +131,10 @@ func TestChartsOpaque(t *testing.T) {
 	run := profileRun(t)
 	run.Cases = demoCases(t)
 	run.Cases = append(run.Cases, run.Cases...)
+	run.HeatingPlans = heatingRun(t).HeatingPlans
+	kinds := map[string]bool{}
 	for _, c := range Charts(run) {
+		kinds[c.Kind] = true
 		var svg bytes.Buffer
 		must(t, c.Draw(&svg, SVG))
 		s := svg.String()
@@ -145,6 +148,9 @@ func TestChartsOpaque(t *testing.T) {
 		if !strings.Contains(s, first) {
 			t.Errorf("%s chart: no white rectangle over the whole canvas (%s)", c.Kind, first)
 		}
+	}
+	if !kinds["heating-plan"] || !kinds["voyage"] {
+		t.Errorf("charts of kinds %v; the test wants a voyage's and a heating plan's among them", kinds)
 	}
 	names := caseLabels(run.Cases)
 	seen := map[string]bool{}
