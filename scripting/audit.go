@@ -148,17 +148,7 @@ func (r *runner) luaAudit(L *lua.LState) int {
 // else at the audit() call; a time limit names the option to raise. In
 // check mode (raise false) it records the error and goes on.
 func (r *runner) auditErr(pos Pos, what string, err error, raise bool) {
-	var jt *TimeoutError
-	if errors.As(err, &jt) && jt.JobLimit {
-		r.raise(&Error{Pos: pos, Msg: jt.Error(), Err: jt})
-	}
-	if lerr := r.limitErr(pos); lerr != nil {
-		var te *TimeoutError
-		if errors.As(lerr, &te) {
-			te.Job = what
-		}
-		r.raise(&Error{Pos: pos, Msg: lerr.Error(), Err: lerr})
-	}
+	r.raiseLimit(pos, what, err)
 	var oe *profile.OverrunError
 	var de *profile.DayError
 	e := &Error{Pos: pos, Unit: what, Msg: err.Error(), Err: err}

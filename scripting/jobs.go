@@ -628,9 +628,10 @@ func (r *runner) progress(job string) func(done, total int) {
 	return func(done, total int) { r.opt.Progress(job, done, total) }
 }
 
-// jobErr raises the error of a profile run at the row it names, when it
-// names one.
-func (r *runner) jobErr(pos Pos, what string, err error) {
+// raiseLimit raises, at the job's call pos, a time limit that stopped
+// job what: its own limit (err is a job's TimeoutError) or the script's
+// (limitErr), naming the job. Any other error it leaves to the caller.
+func (r *runner) raiseLimit(pos Pos, what string, err error) {
 	var jt *TimeoutError
 	if errors.As(err, &jt) && jt.JobLimit {
 		r.raise(&Error{Pos: pos, Msg: jt.Error(), Err: jt})
@@ -642,6 +643,12 @@ func (r *runner) jobErr(pos Pos, what string, err error) {
 		}
 		r.raise(&Error{Pos: pos, Msg: lerr.Error(), Err: lerr})
 	}
+}
+
+// jobErr raises the error of a profile run at the row it names, when it
+// names one.
+func (r *runner) jobErr(pos Pos, what string, err error) {
+	r.raiseLimit(pos, what, err)
 	var se *plant.SolveError
 	if errors.As(err, &se) && se.Pos.File != "" {
 		pos = Pos{File: se.Pos.File, Line: se.Pos.Line}
