@@ -628,15 +628,19 @@ func (s *Solver) refreshXScale() {
 	}
 }
 
+// jacRow returns row i of the scaled Jacobian: its columns and values
+// on the Pattern, or its dense values (cols nil) without one.
+func (s *Solver) jacRow(i int) (cols []int, vals []float64) {
+	if s.sj != nil {
+		return s.sj.Row(i)
+	}
+	raw := s.jac.RawMatrix()
+	return nil, raw.Data[i*raw.Stride : i*raw.Stride+s.n]
+}
+
 // rowMax returns max_j |J̃_ij| of the scaled Jacobian.
 func (s *Solver) rowMax(i int) float64 {
-	var vals []float64
-	if s.sj != nil {
-		_, vals = s.sj.Row(i)
-	} else {
-		raw := s.jac.RawMatrix()
-		vals = raw.Data[i*raw.Stride : i*raw.Stride+s.n]
-	}
+	_, vals := s.jacRow(i)
 	m := 0.0
 	for _, v := range vals {
 		m = math.Max(m, math.Abs(v))
@@ -647,13 +651,7 @@ func (s *Solver) rowMax(i int) float64 {
 // scaleRow multiplies row i of the scaled Jacobian and the scaled
 // residual by c.
 func (s *Solver) scaleRow(i int, c float64) {
-	var vals []float64
-	if s.sj != nil {
-		_, vals = s.sj.Row(i)
-	} else {
-		raw := s.jac.RawMatrix()
-		vals = raw.Data[i*raw.Stride : i*raw.Stride+s.n]
-	}
+	_, vals := s.jacRow(i)
 	for k := range vals {
 		vals[k] *= c
 	}
@@ -706,14 +704,7 @@ func (s *Solver) refreshFScale() bool {
 func (s *Solver) atRoundOff() bool {
 	const eps = 0x1p-52
 	for i := 0; i < s.n; i++ {
-		var cols []int
-		var vals []float64
-		if s.sj != nil {
-			cols, vals = s.sj.Row(i)
-		} else {
-			raw := s.jac.RawMatrix()
-			vals = raw.Data[i*raw.Stride : i*raw.Stride+s.n]
-		}
+		cols, vals := s.jacRow(i)
 		sum, m := 0.0, 0
 		for k, v := range vals {
 			if v == 0 {
