@@ -133,7 +133,7 @@ func Plot(w io.Writer, format string, cases []Case) error {
 		}
 	}
 	legW += legend.ThumbnailWidth + vg.Centimeter
-	width, height := plotW+legW, 11*vg.Centimeter
+	height := 11 * vg.Centimeter
 	if slanted {
 		// Slanted case names take height from the chart: give it back.
 		longest := vg.Length(0)
@@ -142,8 +142,13 @@ func Plot(w io.Writer, format string, cases []Case) error {
 		}
 		height += longest / 2
 	}
+	return drawBeside(w, format, p, legend, legW, plotW, height)
+}
 
-	canvas, err := newCanvas(format, width, height)
+// drawBeside writes one plot plotW wide with its legend, legW wide, to
+// its right, height high on an opaque background.
+func drawBeside(w io.Writer, format string, p *plot.Plot, legend plot.Legend, legW, plotW, height vg.Length) error {
+	canvas, err := newCanvas(format, plotW+legW, height)
 	if err != nil {
 		return err
 	}

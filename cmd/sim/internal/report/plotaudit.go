@@ -222,17 +222,7 @@ func drawWithLegend(w io.Writer, format string, p *plot.Plot, entries []legendEn
 	legend, legW := sideLegend(entries)
 	n := float64(len(dates))
 	plotW := vg.Length(math.Max(14, math.Min(36, 1.3*n+6))) * vg.Centimeter
-	width, height := plotW+legW, 11*vg.Centimeter+slantHeight(p, dates)
-	canvas, err := newCanvas(format, width, height)
-	if err != nil {
-		return err
-	}
-	dc := draw.New(canvas)
-	opaque(dc)
-	p.Draw(draw.Crop(dc, 0, -legW, 0, 0))
-	legend.Draw(draw.Crop(dc, plotW+vg.Millimeter*3, 0, 0, 0))
-	_, err = canvas.WriteTo(w)
-	return err
+	return drawBeside(w, format, p, legend, legW, plotW, 11*vg.Centimeter+slantHeight(p, dates))
 }
 
 // PlotAuditImplied draws an audit's implied factors in format (SVG or
@@ -482,15 +472,5 @@ func PlotAuditPeriod(w io.Writer, format string, a Audit) error {
 	p.Y.Tick.Marker = decimalTicks{}
 	styleAxes(p)
 	legend, legW := sideLegend(entries)
-	plotW := 18 * vg.Centimeter
-	canvas, err := newCanvas(format, plotW+legW, 11*vg.Centimeter)
-	if err != nil {
-		return err
-	}
-	dc := draw.New(canvas)
-	opaque(dc)
-	p.Draw(draw.Crop(dc, 0, -legW, 0, 0))
-	legend.Draw(draw.Crop(dc, plotW+vg.Millimeter*3, 0, 0, 0))
-	_, err = canvas.WriteTo(w)
-	return err
+	return drawBeside(w, format, p, legend, legW, 18*vg.Centimeter, 11*vg.Centimeter)
 }
